@@ -1,0 +1,8 @@
+// Every migration, by name. Listed statically so the same code runs under tsx, Vitest and a
+// compiled build; a test checks that every migration file in this folder is listed.
+import type { Migration } from 'kysely';
+import * as m20261201000000 from './2026_12_01_000000_accounts_and_banks';
+
+export const migrations: Record<string, Migration> = {
+  '2026_12_01_000000_accounts_and_banks': m20261201000000,
+};

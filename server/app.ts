@@ -1,0 +1,70 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import pino, { type Logger } from 'pino';
+import { pinoHttp } from 'pino-http';
+import type { Clock } from './clock';
+import type { Config } from './config';
+import type { Db } from './db/database';
+import { errorHandler, notFoundApi } from './http/errors';
+import { originCheck, originVariants } from './http/origin-check';
+import type { Mailer } from './mail/mailer';
+import { devRouter } from './modules/dev/dev.router';
+import { healthRouter } from './modules/health/health.router';
+import type { ObjectStore } from './storage/object-store';
+
+export interface AppDeps {
+  config: Config;
+  db: Db;
+  storage: ObjectStore;
+  mailer: Mailer;
+  clock: Clock;
+  logger?: Logger;
+}
+
+export function createApp(deps: AppDeps): Express {
+  const { config } = deps;
+  const logger = deps.logger ?? pino({ level: config.logLevel });
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'img-src': ["'self'", 'data:', 'blob:'],
+          // Served over plain http on loopback in development; a proxy adds https in production.
+          'upgrade-insecure-requests': config.appOrigin.startsWith('https:') ? [] : null,
+        },
+      },
+      strictTransportSecurity: config.appOrigin.startsWith('https:'),
+    }),
+  );
+  app.use(pinoHttp({ logger, autoLogging: config.env !== 'test', redact: ['req.headers.cookie'] }));
+  app.use(express.json({ limit: '1mb' }));
+  app.use(cookieParser());
+  app.use(originCheck(originVariants(config.appOrigin)));
+
+  const api = express.Router();
+  api.use('/health', healthRouter(deps));
+  api.use(notFoundApi);
+  app.use('/api', api);
+
+  if (config.env !== 'production') app.use('/dev', devRouter(config.outboxDir));
+
+  // The built client, with the SPA's index.html for every other path.
+  const index = path.join(config.staticDir, 'index.html');
+  if (fs.existsSync(index)) {
+    app.use(express.static(config.staticDir, { index: false, maxAge: '1h' }));
+    app.get('/{*path}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(index);
+    });
+  }
+
+  app.use(errorHandler(logger));
+  return app;
+}

@@ -1,0 +1,24 @@
+import { Kysely, PostgresDialect, type Transaction } from 'kysely';
+import pg from 'pg';
+import type { Database } from './schema';
+
+// int8 (count(*), sums) arrives from pg as a string; Hilum's int8 values are seed counts that
+// stay far below 2^53, so they are parsed to numbers here, once, on purpose.
+pg.types.setTypeParser(pg.types.builtins.INT8, (value) => Number.parseInt(value, 10));
+// `date` columns stay ISO strings (YYYY-MM-DD): no time zone shifts a harvest date.
+pg.types.setTypeParser(pg.types.builtins.DATE, (value) => value);
+
+export type Db = Kysely<Database>;
+export type DbOrTx = Kysely<Database> | Transaction<Database>;
+
+export function createDb(connectionString: string, poolSize = 10): Db {
+  const pool = new pg.Pool({
+    connectionString,
+    max: poolSize,
+    connectionTimeoutMillis: 5_000,
+    idleTimeoutMillis: 30_000,
+  });
+  // A dropped idle connection must not crash the process; the pool replaces it.
+  pool.on('error', () => {});
+  return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+}

@@ -1,0 +1,33 @@
+import { Migrator, type Kysely, type MigrationResultSet } from 'kysely';
+import { migrations } from '../../migrations/index';
+
+// Kysely's migrations take Kysely<any> on purpose: they are frozen in time and never import the
+// app's current Database type.
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+type AnyDb = Kysely<any>;
+
+export function createMigrator(db: AnyDb): Migrator {
+  return new Migrator({ db, provider: { getMigrations: async () => migrations } });
+}
+
+function check({ error, results }: MigrationResultSet): MigrationResultSet {
+  if (error) {
+    const failed = results?.find((r) => r.status === 'Error');
+    const where = failed ? ` in ${failed.migrationName}` : '';
+    throw new Error(`migration failed${where}: ${error instanceof Error ? error.message : String(error)}`);
+  }
+  return { results };
+}
+
+export async function migrateToLatest(db: AnyDb): Promise<MigrationResultSet> {
+  return check(await createMigrator(db).migrateToLatest());
+}
+
+/** Reverts every migration, newest first. */
+export async function migrateAllDown(db: AnyDb): Promise<void> {
+  const migrator = createMigrator(db);
+  for (;;) {
+    const outcome = check(await migrator.migrateDown());
+    if (!outcome.results || outcome.results.length === 0) return;
+  }
+}

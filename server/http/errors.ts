@@ -1,0 +1,88 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { Logger } from 'pino';
+import { ZodError, type z } from 'zod';
+
+/** An error with the HTTP status and the code the client sees; the one error handler maps it. */
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: Record<string, string>,
+  ) {
+    super(message);
+  }
+}
+
+export const badRequest = (message: string, fields?: Record<string, string>) =>
+  new AppError(400, 'invalid_input', message, fields);
+export const unauthorized = (message = 'Please sign in.') => new AppError(401, 'unauthenticated', message);
+export const forbidden = (message = 'Your role in this bank does not allow that.') =>
+  new AppError(403, 'forbidden', message);
+export const notFound = (message = 'Not found.') => new AppError(404, 'not_found', message);
+export const conflict = (message: string, code = 'conflict') => new AppError(409, code, message);
+export const unprocessable = (message: string, fields?: Record<string, string>) =>
+  new AppError(422, 'impossible', message, fields);
+export const serviceDown = (message: string) => new AppError(503, 'service_unavailable', message);
+
+export function zodFields(error: ZodError): Record<string, string> {
+  const fields: Record<string, string> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.join('.') : '_';
+    fields[key] ??= issue.message;
+  }
+  return fields;
+}
+
+/** Parses request input with a zod schema; a failure is a 400 naming each bad field. */
+export function parse<S extends z.ZodType>(schema: S, value: unknown, what = 'input'): z.infer<S> {
+  const result = schema.safeParse(value);
+  if (!result.success) {
+    const fields = zodFields(result.error);
+    const first = Object.entries(fields)[0];
+    const detail = first ? ` (${first[0] === '_' ? '' : `${first[0]}: `}${first[1]})` : '';
+    throw badRequest(`The ${what} is not valid${detail}.`, fields);
+  }
+  return result.data;
+}
+
+export const notFoundApi: RequestHandler = (req, _res, next) => {
+  next(new AppError(404, 'not_found', `No API route ${req.method} ${req.path}.`));
+};
+
+function isDatabaseDown(error: unknown): boolean {
+  const code = (error as { code?: string })?.code;
+  return code === 'ECONNREFUSED' || code === '57P01' || code === '57P03' || code === 'ETIMEDOUT';
+}
+
+export function errorHandler(logger: Logger): ErrorRequestHandler {
+  return (error, req, res, _next) => {
+    let appError: AppError;
+    if (error instanceof AppError) {
+      appError = error;
+    } else if (error instanceof ZodError) {
+      appError = badRequest('The input is not valid.', zodFields(error));
+    } else if (error?.type === 'entity.parse.failed') {
+      appError = new AppError(400, 'invalid_json', 'The request body is not valid JSON.');
+    } else if (error?.type === 'entity.too.large') {
+      appError = new AppError(413, 'too_large', 'The request body is too large.');
+    } else if (error?.name === 'MulterError' && error.code === 'LIMIT_FILE_SIZE') {
+      appError = new AppError(413, 'too_large', 'The file is too large.');
+    } else if (error?.name === 'MulterError') {
+      appError = badRequest(`The upload is not valid (${error.message}).`);
+    } else if (isDatabaseDown(error)) {
+      appError = serviceDown('The database is not reachable; try again shortly.');
+    } else {
+      (req.log ?? logger).error({ err: error }, 'unhandled error');
+      appError = new AppError(500, 'internal', 'Something went wrong on our side.');
+    }
+    if (res.headersSent) return res.end();
+    res.status(appError.status).json({
+      error: {
+        code: appError.code,
+        message: appError.message,
+        ...(appError.fields ? { fields: appError.fields } : {}),
+      },
+    });
+  };
+}

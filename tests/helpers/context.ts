@@ -1,0 +1,90 @@
+import crypto from 'node:crypto';
+import type { Express } from 'express';
+import { Kysely, PostgresDialect, sql } from 'kysely';
+import pg from 'pg';
+import { createApp } from '../../server/app';
+import { createTestClock } from '../../server/clock';
+import { loadConfig, type Config } from '../../server/config';
+import { createDb, type Db } from '../../server/db/database';
+import { migrateToLatest } from '../../server/db/migrate';
+import { createMailer, type Mailer } from '../../server/mail/mailer';
+import { createObjectStore, type ObjectStore } from '../../server/storage/object-store';
+
+export function adminUrl(): string {
+  const url = process.env.HILUM_TEST_ADMIN_URL;
+  if (!url) throw new Error('HILUM_TEST_ADMIN_URL is not set: run the suite with `npm test`');
+  return url;
+}
+
+function withDatabase(url: string, database: string): string {
+  const u = new URL(url);
+  u.pathname = `/${database}`;
+  return u.toString();
+}
+
+async function admin<T>(run: (db: Kysely<unknown>) => Promise<T>): Promise<T> {
+  const db = new Kysely<unknown>({
+    dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: adminUrl(), max: 1 }) }),
+  });
+  try {
+    return await run(db);
+  } finally {
+    await db.destroy();
+  }
+}
+
+/** A fresh, empty database of its own for one test file; `migrate: false` leaves it bare. */
+export async function createTestDatabase(options: { migrate?: boolean } = {}) {
+  const name = `hilum_t_${crypto.randomBytes(6).toString('hex')}`;
+  await admin((db) => sql`create database ${sql.id(name)}`.execute(db));
+  const url = withDatabase(adminUrl(), name);
+  const db = createDb(url, 5);
+  if (options.migrate !== false) await migrateToLatest(db);
+  return {
+    db,
+    url,
+    async drop() {
+      await db.destroy();
+      await admin((a) => sql`drop database if exists ${sql.id(name)} with (force)`.execute(a));
+    },
+  };
+}
+
+export function testConfig(overrides: Partial<Config> = {}): Config {
+  return { ...loadConfig(process.env), ...overrides };
+}
+
+export interface TestContext {
+  app: Express;
+  db: Db;
+  config: Config;
+  storage: ObjectStore;
+  mailer: Mailer;
+  clock: ReturnType<typeof createTestClock>;
+  close(): Promise<void>;
+}
+
+/** The real app on a database of its own, the shared object-store and SMTP fakes, a test clock. */
+export async function createTestContext(
+  options: { now?: string; config?: Partial<Config> } = {},
+): Promise<TestContext> {
+  const database = await createTestDatabase();
+  const config = testConfig({ databaseUrl: database.url, ...options.config });
+  const storage = createObjectStore(config.storage);
+  const mailer = createMailer(config.mail);
+  const clock = createTestClock(options.now ?? '2026-03-01T09:00:00Z');
+  const app = createApp({ config, db: database.db, storage, mailer, clock });
+  return {
+    app,
+    db: database.db,
+    config,
+    storage,
+    mailer,
+    clock,
+    async close() {
+      storage.close();
+      mailer.close();
+      await database.drop();
+    },
+  };
+}

@@ -1,0 +1,14 @@
+import { defineConfig } from 'vitest/config';
+
+// Services (PostgreSQL, object store, SMTP fake) are started by scripts/test.mjs, which passes
+// their addresses in the environment; unit tests need none of them.
+export default defineConfig({
+  test: {
+    include: ['tests/**/*.test.ts'],
+    environment: 'node',
+    testTimeout: 20_000,
+    hookTimeout: 60_000,
+    fileParallelism: true,
+    maxWorkers: 2,
+  },
+});
