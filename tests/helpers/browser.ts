@@ -1,0 +1,58 @@
+import fs from 'node:fs';
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import { chromium, type Browser } from 'playwright-core';
+import { createApp } from '../../server/app';
+import { createTestContext, type TestContext } from './context';
+
+export const chromiumPath = process.env.HILUM_CHROMIUM ?? (fs.existsSync('/usr/bin/chromium') ? '/usr/bin/chromium' : '');
+
+if (!chromiumPath) {
+  console.warn('\n!!! chromium not found: BROWSER TESTS ARE SKIPPED (apt-get install chromium) !!!\n');
+}
+
+/** Debian's chromium, headless, with a fresh profile and no background traffic. */
+export async function launchBrowser(): Promise<Browser & { cleanup(): void }> {
+  const home = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-chromium-'));
+  const browser = await chromium.launch({
+    executablePath: chromiumPath,
+    headless: true,
+    env: { ...process.env, HOME: home },
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+      '--disable-quic',
+      `--user-data-dir=${path.join(home, 'profile')}`,
+    ].filter((a) => !a.startsWith('--user-data-dir')),
+  });
+  return Object.assign(browser, { cleanup: () => fs.rmSync(home, { recursive: true, force: true }) });
+}
+
+/** The real app with the built client, listening on a free loopback port. */
+export async function startTestServer(
+  options: Parameters<typeof createTestContext>[0] = {},
+): Promise<TestContext & { baseUrl: string; stop(): Promise<void> }> {
+  const server = http.createServer();
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const { port } = server.address() as AddressInfo;
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const ctx = await createTestContext({ ...options, config: { ...options.config, appOrigin: baseUrl } });
+  const app = createApp({ config: ctx.config, db: ctx.db, storage: ctx.storage, mailer: ctx.mailer, clock: ctx.clock });
+  server.on('request', app);
+  return {
+    ...ctx,
+    app,
+    baseUrl,
+    async stop() {
+      server.closeAllConnections();
+      await new Promise((r) => server.close(r));
+      await ctx.close();
+    },
+  };
+}
