@@ -1,0 +1,26 @@
+import { isRouteErrorResponse, useRouteError } from 'react-router-dom';
+import { describeError, ErrorFallback } from '../../components/errors/error-fallback';
+import { NotFoundContent } from './not-found';
+
+export interface RouteErrorProps {
+  /** Outside the app shell (the shell itself failed), so fill the screen. */
+  fullPage?: boolean;
+}
+
+/** The router's errorElement: a 404 from a loader reads as "not found", anything else as a failure. */
+export function RouteError({ fullPage = false }: RouteErrorProps) {
+  const error = useRouteError();
+  if (isRouteErrorResponse(error) && error.status === 404) {
+    return fullPage ? (
+      <div className="mx-auto max-w-3xl p-6">
+        <NotFoundContent />
+      </div>
+    ) : (
+      <NotFoundContent />
+    );
+  }
+  const detail = isRouteErrorResponse(error)
+    ? `${error.status} ${error.statusText}\n${describeError(error.data) ?? ''}`
+    : describeError(error);
+  return <ErrorFallback fullPage={fullPage} detail={detail} />;
+}
