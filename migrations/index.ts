@@ -2,7 +2,9 @@
 // compiled build; a test checks that every migration file in this folder is listed.
 import type { Migration } from 'kysely';
 import * as m20261201000000 from './2026_12_01_000000_accounts_and_banks';
+import * as m20261201000100 from './2026_12_01_000100_invitations_and_resets';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_000000_accounts_and_banks': m20261201000000,
+  '2026_12_01_000100_invitations_and_resets': m20261201000100,
 };

@@ -11,7 +11,16 @@ import type { Db } from './db/database';
 import { errorHandler, notFoundApi } from './http/errors';
 import { originCheck, originVariants } from './http/origin-check';
 import type { Mailer } from './mail/mailer';
+import { bankAccess } from './auth/bank-access';
+import { requireAuth, sessionMiddleware } from './auth/session.middleware';
+import { createSessionSigner } from './auth/tokens';
+import { authRouter, meRouter } from './modules/auth/auth.router';
+import { createAuthService } from './modules/auth/auth.service';
+import { bankRoutes, createBankRouter } from './modules/banks/banks.router';
+import { createBanksService } from './modules/banks/banks.service';
 import { devRouter } from './modules/dev/dev.router';
+import { invitationsRouter } from './modules/invitations/invitations.router';
+import { createInvitationsService } from './modules/invitations/invitations.service';
 import { healthRouter } from './modules/health/health.router';
 import type { ObjectStore } from './storage/object-store';
 
@@ -48,8 +57,23 @@ export function createApp(deps: AppDeps): Express {
   app.use(cookieParser());
   app.use(originCheck(originVariants(config.appOrigin)));
 
+  const signer = createSessionSigner(config.sessionSecret, deps.clock);
+  const services = {
+    auth: createAuthService({ ...deps, signer, appOrigin: config.appOrigin }),
+    banks: createBanksService(deps),
+    invitations: createInvitationsService({ ...deps, appOrigin: config.appOrigin }),
+  };
+  const secureCookies = config.appOrigin.startsWith('https:');
+
   const api = express.Router();
   api.use('/health', healthRouter(deps));
+  api.use(sessionMiddleware(deps.db, signer, deps.clock));
+  api.use('/auth', authRouter(services.auth, { secureCookies }));
+  api.use('/me', meRouter(services.auth));
+  api.use('/invitations', invitationsRouter(services.invitations));
+  api.use('/banks', requireAuth, createBankRouter(services.banks));
+  // Every route of one bank sits behind bankAccess, which resolves the caller's role once.
+  api.use('/banks/:bankId', bankAccess(deps.db), bankRoutes(services.banks, services.invitations));
   api.use(notFoundApi);
   app.use('/api', api);
 

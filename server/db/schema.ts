@@ -46,12 +46,37 @@ export interface AppMetaTable {
   updated_at: Timestamp;
 }
 
+export interface InvitationTable {
+  id: Generated<string>;
+  bank_id: string;
+  email: string;
+  role: Role;
+  token_hash: string;
+  invited_by: string | null;
+  created_at: Timestamp;
+  expires_at: Date;
+  accepted_at: Date | null;
+  accepted_by: string | null;
+  revoked_at: Date | null;
+}
+
+export interface PasswordResetTable {
+  id: Generated<string>;
+  user_id: string;
+  token_hash: string;
+  created_at: Timestamp;
+  expires_at: Date;
+  used_at: Date | null;
+}
+
 export interface Database {
   users: UserTable;
   sessions: SessionTable;
   banks: BankTable;
   memberships: MembershipTable;
   app_meta: AppMetaTable;
+  invitations: InvitationTable;
+  password_resets: PasswordResetTable;
 }
 
 export type User = Selectable<UserTable>;
@@ -62,3 +87,4 @@ export type Bank = Selectable<BankTable>;
 export type NewBank = Insertable<BankTable>;
 export type BankUpdate = Updateable<BankTable>;
 export type Membership = Selectable<MembershipTable>;
+export type Invitation = Selectable<InvitationTable>;

@@ -1,0 +1,97 @@
+import { Router, type CookieOptions, type Response } from 'express';
+import {
+  loginBodySchema,
+  meResponseSchema,
+  passwordResetBodySchema,
+  passwordResetConfirmBodySchema,
+  registerBodySchema,
+  userSchema,
+} from '../../../shared/schemas/accounts';
+import { z } from 'zod';
+import { requireAuth } from '../../auth/session.middleware';
+import { SESSION_COOKIE, SESSION_DAYS } from '../../auth/tokens';
+import { parse } from '../../http/errors';
+import { limitPerIpAndEmail } from '../../http/rate-limit';
+import { respond } from '../../http/respond';
+import type { AuthService } from './auth.service';
+
+const userResponse = z.object({ user: userSchema });
+const FIFTEEN_MINUTES = 15 * 60 * 1000;
+const HOUR = 60 * 60 * 1000;
+
+export function authRouter(service: AuthService, options: { secureCookies: boolean }): Router {
+  const router = Router();
+  const cookie: CookieOptions = {
+    httpOnly: true,
+    sameSite: 'lax',
+    secure: options.secureCookies,
+    path: '/',
+  };
+  // Max-Age rather than Expires: the browser's clock decides, and the session row is the authority.
+  const setSession = (res: Response, session: { token: string }) =>
+    res.cookie(SESSION_COOKIE, session.token, { ...cookie, maxAge: SESSION_DAYS * 86_400_000 });
+
+  router.post('/register', async (req, res) => {
+    const body = parse(registerBodySchema, req.body, 'sign-up');
+    const { user, session } = await service.register(body, req.get('user-agent') ?? null);
+    setSession(res, session);
+    respond(res, 201, userResponse, { user });
+  });
+
+  router.post(
+    '/login',
+    ...limitPerIpAndEmail(
+      { windowMs: FIFTEEN_MINUTES, limit: 30, onlyFailures: true },
+      { windowMs: FIFTEEN_MINUTES, limit: 5, onlyFailures: true },
+    ),
+    async (req, res) => {
+      const body = parse(loginBodySchema, req.body, 'sign-in');
+      const { user, session } = await service.login(body, req.get('user-agent') ?? null);
+      setSession(res, session);
+      respond(res, 200, userResponse, { user });
+    },
+  );
+
+  router.post('/logout', async (req, res) => {
+    if (req.auth) await service.logout(req.auth.sessionId);
+    res.clearCookie(SESSION_COOKIE, cookie);
+    res.status(204).end();
+  });
+
+  router.post('/logout-all', requireAuth, async (req, res) => {
+    await service.logoutEverywhere(req.auth!.userId);
+    res.clearCookie(SESSION_COOKIE, cookie);
+    res.status(204).end();
+  });
+
+  router.post(
+    '/password-reset',
+    ...limitPerIpAndEmail({ windowMs: HOUR, limit: 20 }, { windowMs: HOUR, limit: 3 }),
+    async (req, res) => {
+      const { email } = parse(passwordResetBodySchema, req.body, 'reset request');
+      try {
+        await service.requestPasswordReset(email);
+      } catch (error) {
+        req.log.error({ err: error }, 'password reset mail failed');
+      }
+      res.status(202).json({ ok: true });
+    },
+  );
+
+  router.post('/password-reset/confirm', async (req, res) => {
+    const { token, password } = parse(passwordResetConfirmBodySchema, req.body, 'new password');
+    await service.confirmPasswordReset(token, password);
+    res.clearCookie(SESSION_COOKIE, cookie);
+    res.status(204).end();
+  });
+
+  return router;
+}
+
+export function meRouter(service: AuthService): Router {
+  const router = Router();
+  router.get('/', requireAuth, async (req, res) => {
+    respond(res, 200, meResponseSchema, await service.me(req.auth!.userId));
+  });
+  return router;
+}

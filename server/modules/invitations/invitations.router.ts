@@ -1,0 +1,15 @@
+import { Router } from 'express';
+import { acceptInvitationBodySchema, acceptInvitationResponseSchema } from '../../../shared/schemas/banks';
+import { requireAuth } from '../../auth/session.middleware';
+import { parse } from '../../http/errors';
+import { respond } from '../../http/respond';
+import type { InvitationsService } from './invitations.service';
+
+export function invitationsRouter(invitations: InvitationsService): Router {
+  const router = Router();
+  router.post('/accept', requireAuth, async (req, res) => {
+    const { token } = parse(acceptInvitationBodySchema, req.body, 'invitation');
+    respond(res, 200, acceptInvitationResponseSchema, await invitations.accept(req.auth!.userId, token));
+  });
+  return router;
+}

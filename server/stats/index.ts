@@ -1,0 +1,36 @@
+// Public API of Hilum's germination and viability statistics (pure functions, no I/O).
+export type { Interval } from './interval';
+export { wilsonInterval } from './wilson';
+export { clopperPearsonInterval } from './clopper-pearson';
+export { normalRangeCdf, normalRangeQuantile } from './normal-range';
+export { maxToleratedRange, computedToleratedRange } from './tolerated-range';
+export { germinationTiming } from './germination-timing';
+export type { GerminationCheck, GerminationTiming } from './germination-timing';
+export { homogeneityChiSquare } from './homogeneity';
+export type { TrayCount, ChiSquareResult } from './homogeneity';
+export { summarizeTest, poolChecks } from './summarize-test';
+export type { TestTray, TestSummary, SummarizeOptions, IntervalMethod, TrayPercent, Agreement } from './summarize-test';
+export { probitRegression, probitRegressionGroups } from './probit-regression';
+export type { DosePoint, ProbitGroup, ProbitRegressionResult, ProbitGroupsResult } from './probit-regression';
+export { fitViabilityDecline, projectViability, retestAge } from './viability-decline';
+export type {
+  ViabilityTest,
+  ViabilityPrior,
+  ViabilityOptions,
+  ViabilityFit,
+  ViabilityBasis,
+  ViabilityProjection,
+  RetestReason,
+  SpeciesSlope,
+} from './viability-decline';
+export {
+  sigmaForStorage,
+  sigmaFromViabilityConstants,
+  temperatureFactor,
+  harringtonLifeFactor,
+  harringtonStorageOk,
+  UNIVERSAL_TEMPERATURE_TERMS,
+} from './storage-sigma';
+export type { StorageConditions, StorageSigma, ViabilityConstants } from './storage-sigma';
+export { seedsToSow, binomialUpperTail } from './seeds-to-sow';
+export type { Matrix } from './linear-algebra';

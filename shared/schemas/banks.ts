@@ -1,0 +1,70 @@
+import { z } from 'zod';
+import { emailSchema, roleSchema } from './accounts';
+import { idSchema, monthDaySchema } from './common';
+
+const bankName = z.string({ message: 'Name the bank.' }).trim().min(1, { message: 'Name the bank.' }).max(120);
+
+export const createBankBodySchema = z.object({
+  name: bankName,
+  lastFrost: monthDaySchema.optional(),
+  firstFrost: monthDaySchema.optional(),
+});
+export type CreateBankBody = z.infer<typeof createBankBodySchema>;
+
+export const updateBankBodySchema = z
+  .object({
+    name: bankName,
+    lastFrost: monthDaySchema.nullable(),
+    firstFrost: monthDaySchema.nullable(),
+    frostMarginDays: z.number().int().min(0).max(60),
+    timeZone: z.string().refine(
+      (tz) => {
+        try {
+          new Intl.DateTimeFormat('en', { timeZone: tz });
+          return true;
+        } catch {
+          return false;
+        }
+      },
+      { message: 'Not a known time zone (e.g. America/Chicago, Europe/Oslo).' },
+    ),
+  })
+  .partial()
+  .refine((body) => Object.keys(body).length > 0, { message: 'Nothing to change.' });
+export type UpdateBankBody = z.infer<typeof updateBankBodySchema>;
+
+export const bankSchema = z.object({
+  id: idSchema,
+  name: z.string(),
+  lastFrost: z.string().nullable(),
+  firstFrost: z.string().nullable(),
+  frostMarginDays: z.number(),
+  timeZone: z.string(),
+  createdAt: z.string(),
+});
+export type BankDto = z.infer<typeof bankSchema>;
+
+export const bankResponseSchema = z.object({ bank: bankSchema, role: roleSchema });
+
+export const memberSchema = z.object({ userId: idSchema, name: z.string(), email: z.string(), role: roleSchema });
+export type Member = z.infer<typeof memberSchema>;
+export const membersResponseSchema = z.object({ items: z.array(memberSchema) });
+
+export const updateMemberBodySchema = z.object({ role: roleSchema });
+
+export const createInvitationBodySchema = z.object({ email: emailSchema, role: roleSchema });
+export type CreateInvitationBody = z.infer<typeof createInvitationBodySchema>;
+
+export const invitationSchema = z.object({
+  id: idSchema,
+  email: z.string(),
+  role: roleSchema,
+  invitedBy: z.string().nullable(),
+  createdAt: z.string(),
+  expiresAt: z.string(),
+});
+export type InvitationDto = z.infer<typeof invitationSchema>;
+export const invitationsResponseSchema = z.object({ items: z.array(invitationSchema) });
+
+export const acceptInvitationBodySchema = z.object({ token: z.string().min(10).max(200) });
+export const acceptInvitationResponseSchema = z.object({ bankId: idSchema, role: roleSchema, bankName: z.string() });
