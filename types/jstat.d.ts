@@ -13,7 +13,6 @@ declare module 'jstat' {
     binomial: { pdf(k: number, n: number, p: number): number; cdf(k: number, n: number, p: number): number };
     ibeta(x: number, a: number, b: number): number;
     ibetainv(p: number, a: number, b: number): number;
-    gammaln(x: number): number;
     combinationln(n: number, k: number): number;
   };
   const _default: typeof jStat;

@@ -30,7 +30,3 @@ export function chiSquareUpperTail(statistic: number, df: number): number {
   if (statistic <= 0) return 1;
   return Math.min(1, Math.max(0, 1 - jStat.chisquare.cdf(statistic, df)));
 }
-
-export function logGamma(x: number): number {
-  return jStat.gammaln(x);
-}

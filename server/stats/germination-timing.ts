@@ -57,7 +57,8 @@ function toSteps(checks: readonly GerminationCheck[]): Step[] {
         `cumulative count on day ${String(day)} (${String(cumulative)}) is below the earlier count (${String(previous)})`,
       );
     }
-    if (day === 0 && cumulative > 0) throw new RangeError('seeds cannot have germinated on the day of sowing (day 0)');
+    if (day === 0 && cumulative > 0)
+      throw new RangeError('seeds cannot have germinated on the day of sowing (day 0)');
     steps.push({ day, cumulative, fresh: cumulative - previous });
     previousDay = day;
     previous = cumulative;

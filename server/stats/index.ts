@@ -9,7 +9,14 @@ export type { GerminationCheck, GerminationTiming } from './germination-timing';
 export { homogeneityChiSquare } from './homogeneity';
 export type { TrayCount, ChiSquareResult } from './homogeneity';
 export { summarizeTest, poolChecks } from './summarize-test';
-export type { TestTray, TestSummary, SummarizeOptions, IntervalMethod, TrayPercent, Agreement } from './summarize-test';
+export type {
+  TestTray,
+  TestSummary,
+  SummarizeOptions,
+  IntervalMethod,
+  TrayPercent,
+  Agreement,
+} from './summarize-test';
 export { probitRegression, probitRegressionGroups } from './probit-regression';
 export type { DosePoint, ProbitGroup, ProbitRegressionResult, ProbitGroupsResult } from './probit-regression';
 export { fitViabilityDecline, projectViability, retestAge } from './viability-decline';

@@ -49,7 +49,12 @@ export function choleskySolve(l: Matrix, b: readonly number[]): number[] {
 /** Inverse of a symmetric positive-definite matrix from its Cholesky factor. */
 export function choleskyInverse(l: Matrix): Matrix {
   const n = l.length;
-  const columns = Array.from({ length: n }, (_, j) => choleskySolve(l, Array.from({ length: n }, (_, i) => (i === j ? 1 : 0))));
+  const columns = Array.from({ length: n }, (_, j) =>
+    choleskySolve(
+      l,
+      Array.from({ length: n }, (_, i) => (i === j ? 1 : 0)),
+    ),
+  );
   // columns[j] is column j of the inverse; symmetrise against rounding.
   return Array.from({ length: n }, (_, i) =>
     Array.from({ length: n }, (_, j) => ((columns[j]?.[i] ?? 0) + (columns[i]?.[j] ?? 0)) / 2),

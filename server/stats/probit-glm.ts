@@ -95,7 +95,8 @@ function startingValues(rows: readonly ProbitRow[], p: number): number[] {
     });
   }
   const l = cholesky(xtx);
-  if (l === null) throw new RangeError('the data do not determine the probit parameters (too few distinct points)');
+  if (l === null)
+    throw new RangeError('the data do not determine the probit parameters (too few distinct points)');
   return choleskySolve(l, xtz);
 }
 
@@ -119,13 +120,19 @@ export function fitProbitGlm(rows: readonly ProbitRow[], parameterCount: number)
     let step = choleskySolve(l, state.score);
     let candidate = beta.map((b, j) => b + (step[j] ?? 0));
     let next = evaluate(used, candidate);
-    for (let h = 0; h < MAX_HALVINGS && !(next.logLikelihood >= state.logLikelihood - 1e-12 * Math.abs(state.logLikelihood)); h++) {
+    for (
+      let h = 0;
+      h < MAX_HALVINGS &&
+      !(next.logLikelihood >= state.logLikelihood - 1e-12 * Math.abs(state.logLikelihood));
+      h++
+    ) {
       step = step.map((s) => s / 2);
       candidate = beta.map((b, j) => b + (step[j] ?? 0));
       next = evaluate(used, candidate);
     }
     const smallStep = step.every((s, j) => Math.abs(s) <= 1e-9 * (1 + Math.abs(candidate[j] ?? 0)));
-    const smallGain = Math.abs(next.logLikelihood - state.logLikelihood) <= 1e-12 * (1 + Math.abs(next.logLikelihood));
+    const smallGain =
+      Math.abs(next.logLikelihood - state.logLikelihood) <= 1e-12 * (1 + Math.abs(next.logLikelihood));
     beta = candidate;
     state = next;
     if (smallStep && smallGain) {

@@ -76,7 +76,9 @@ function separable(points: readonly DosePoint[], direction: Direction): boolean 
  */
 function separationWarning(groups: readonly (readonly DosePoint[])[]): string | null {
   const used = groups.map((g) => g.filter((p) => p.trials > 0));
-  const oneSided = used.findIndex((g) => g.every((p) => p.successes === p.trials) || g.every((p) => p.successes === 0));
+  const oneSided = used.findIndex(
+    (g) => g.every((p) => p.successes === p.trials) || g.every((p) => p.successes === 0),
+  );
   if (oneSided >= 0) {
     return groups.length === 1
       ? 'every observation is 100% or every observation is 0%: the fit has no finite maximum'
@@ -100,8 +102,14 @@ function distinctX(points: readonly DosePoint[]): number {
  */
 export function probitRegression(points: readonly DosePoint[]): ProbitRegressionResult {
   validatePoints(points, 'points');
-  if (distinctX(points) < 2) throw new RangeError('probit regression needs observations at two or more distinct x values');
-  const rows: ProbitRow[] = points.map((p) => ({ covariates: [1, p.x], offset: 0, successes: p.successes, trials: p.trials }));
+  if (distinctX(points) < 2)
+    throw new RangeError('probit regression needs observations at two or more distinct x values');
+  const rows: ProbitRow[] = points.map((p) => ({
+    covariates: [1, p.x],
+    offset: 0,
+    successes: p.successes,
+    trials: p.trials,
+  }));
   const fit = fitProbitGlm(rows, 2);
   const [a = Number.NaN, b = Number.NaN] = fit.coefficients;
   const v = fit.covariance;

@@ -1,15 +1,11 @@
-import { logGamma } from './distributions';
 import { assertOpenUnit, assertPositiveCount } from './validate';
 
-function logPmf(j: number, n: number, p: number): number {
-  return logGamma(n + 1) - logGamma(j + 1) - logGamma(n - j + 1) + j * Math.log(p) + (n - j) * Math.log1p(-p);
-}
-
 /**
- * P(X ≥ k) for X ~ Binomial(n, p), summed exactly in floating point: the terms are generated from
- * the mode outwards by the ratio pmf(j+1)/pmf(j) = (n − j)/(j + 1) · p/(1 − p), scaled by the mode's
- * probability (from log-gamma), so nothing overflows for n in the thousands or millions. The
- * smaller tail is summed and the other obtained by complement.
+ * P(X ≥ k) for X ~ Binomial(n, p). The probabilities are generated from the mode outwards by the
+ * ratio pmf(j+1)/pmf(j) = (n − j)/(j + 1) · p/(1 − p), relative to the mode's term (taken as 1),
+ * until the terms no longer matter; the tail is then the share of the total. No factorials or
+ * log-gamma approximations are involved, nothing overflows for n in the thousands or millions, and
+ * the smaller side is returned directly (the larger by complement) to keep its precision.
  */
 export function binomialUpperTail(k: number, n: number, p: number): number {
   if (k <= 0) return 1;
@@ -17,31 +13,26 @@ export function binomialUpperTail(k: number, n: number, p: number): number {
   if (p <= 0) return 0;
   if (p >= 1) return 1;
   const mode = Math.min(n, Math.floor((n + 1) * p));
-  const modeProbability = Math.exp(logPmf(mode, n, p));
   const odds = p / (1 - p);
-  const sumRange = (from: number, to: number): number => {
-    // Walk away from the mode in each direction, so the terms only shrink.
-    let total = 0;
-    if (to >= mode) {
-      let term = modeProbability;
-      for (let j = mode; j <= to; j++) {
-        if (j >= from) total += term;
-        term *= ((n - j) / (j + 1)) * odds;
-        if (term === 0) break;
-      }
-    }
-    if (from < mode) {
-      let term = modeProbability;
-      for (let j = mode - 1; j >= from; j--) {
-        term *= (j + 1) / (n - j) / odds;
-        if (j <= to) total += term;
-        if (term === 0) break;
-      }
-    }
-    return total;
-  };
-  // Sum the side not containing the mode when possible: it is the smaller one.
-  return k > mode ? Math.min(1, sumRange(k, n)) : Math.max(0, 1 - sumRange(0, k - 1));
+  const negligible = 1e-20;
+  let below = 0; // Σ over j < k
+  let atOrAbove = 0; // Σ over j ≥ k
+  let term = 1;
+  for (let j = mode; j <= n; j++) {
+    if (j >= k) atOrAbove += term;
+    else below += term;
+    term *= ((n - j) / (j + 1)) * odds;
+    if (term < negligible * (below + atOrAbove)) break;
+  }
+  term = 1;
+  for (let j = mode - 1; j >= 0; j--) {
+    term *= (j + 1) / (n - j) / odds;
+    if (j >= k) atOrAbove += term;
+    else below += term;
+    if (term < negligible * (below + atOrAbove)) break;
+  }
+  const total = below + atOrAbove;
+  return k > mode ? atOrAbove / total : 1 - below / total;
 }
 
 /**
@@ -52,7 +43,9 @@ export function binomialUpperTail(k: number, n: number, p: number): number {
 export function seedsToSow(plants: number, germinationFraction: number, assurance = 0.9): number {
   assertPositiveCount(plants, 'plants');
   if (!Number.isFinite(germinationFraction) || germinationFraction <= 0 || germinationFraction > 1) {
-    throw new RangeError(`germinationFraction must be above 0 and at most 1 (got ${String(germinationFraction)})`);
+    throw new RangeError(
+      `germinationFraction must be above 0 and at most 1 (got ${String(germinationFraction)})`,
+    );
   }
   assertOpenUnit(assurance, 'assurance');
   const p = germinationFraction;

@@ -19,10 +19,15 @@ export const UNIVERSAL_TEMPERATURE_TERMS = { cH: 0.0329, cQ: 0.000478 } as const
 const VALID_MOISTURE = { min: 5, max: 25 } as const;
 
 /** σ from a full set of species constants (in the constants' unit of time, days for published sets). */
-export function sigmaFromViabilityConstants(constants: ViabilityConstants, moisturePercent: number, temperatureC: number): number {
+export function sigmaFromViabilityConstants(
+  constants: ViabilityConstants,
+  moisturePercent: number,
+  temperatureC: number,
+): number {
   assertFinite(temperatureC, 'temperatureC');
   assertFinite(moisturePercent, 'moisturePercent');
-  if (moisturePercent <= 0) throw new RangeError(`moisturePercent must be positive (got ${String(moisturePercent)})`);
+  if (moisturePercent <= 0)
+    throw new RangeError(`moisturePercent must be positive (got ${String(moisturePercent)})`);
   const { kE, cW, cH, cQ } = constants;
   return 10 ** (kE - cW * Math.log10(moisturePercent) - cH * temperatureC - cQ * temperatureC * temperatureC);
 }
@@ -32,7 +37,10 @@ export function temperatureFactor(temperatureC: number, referenceTemperatureC: n
   assertFinite(temperatureC, 'temperatureC');
   assertFinite(referenceTemperatureC, 'referenceTemperatureC');
   const { cH, cQ } = UNIVERSAL_TEMPERATURE_TERMS;
-  return 10 ** (-cH * (temperatureC - referenceTemperatureC) - cQ * (temperatureC ** 2 - referenceTemperatureC ** 2));
+  return (
+    10 **
+    (-cH * (temperatureC - referenceTemperatureC) - cQ * (temperatureC ** 2 - referenceTemperatureC ** 2))
+  );
 }
 
 /**
@@ -89,14 +97,18 @@ export function sigmaForStorage(conditions: StorageConditions): StorageSigma {
   let moistureFactor = 1;
   let moistureMethod: StorageSigma['moistureMethod'] = 'none';
   if (m === undefined || mRef === undefined) {
-    notes.push('Seed moisture unknown: σ scaled for temperature only. Drier seed keeps longer (Harrington: about twice as long per 1% less moisture).');
+    notes.push(
+      'Seed moisture unknown: σ scaled for temperature only. Drier seed keeps longer (Harrington: about twice as long per 1% less moisture).',
+    );
   } else {
     assertFinite(m, 'moisturePercent');
     assertFinite(mRef, 'referenceMoisturePercent');
     if (m <= 0 || mRef <= 0) throw new RangeError('moisture contents must be positive');
     for (const value of [m, mRef]) {
       if (value < VALID_MOISTURE.min || value > VALID_MOISTURE.max) {
-        notes.push(`Moisture ${String(value)}% lies outside the ${String(VALID_MOISTURE.min)}–${String(VALID_MOISTURE.max)}% range where the viability equation is said to hold.`);
+        notes.push(
+          `Moisture ${String(value)}% lies outside the ${String(VALID_MOISTURE.min)}–${String(VALID_MOISTURE.max)}% range where the viability equation is said to hold.`,
+        );
       }
     }
     if (conditions.moistureCoefficient !== undefined) {
@@ -106,8 +118,16 @@ export function sigmaForStorage(conditions: StorageConditions): StorageSigma {
     } else {
       moistureFactor = harringtonLifeFactor(mRef - m);
       moistureMethod = 'harrington';
-      notes.push("The species' moisture constant is unknown: moisture effect estimated with Harrington's rule of thumb.");
+      notes.push(
+        "The species' moisture constant is unknown: moisture effect estimated with Harrington's rule of thumb.",
+      );
     }
   }
-  return { sigmaYears: referenceSigmaYears * tFactor * moistureFactor, temperatureFactor: tFactor, moistureFactor, moistureMethod, notes };
+  return {
+    sigmaYears: referenceSigmaYears * tFactor * moistureFactor,
+    temperatureFactor: tFactor,
+    moistureFactor,
+    moistureMethod,
+    notes,
+  };
 }

@@ -164,7 +164,10 @@ export function summarizeTest(trays: readonly TestTray[], options: SummarizeOpti
   const sown = perTray.reduce((s, t) => s + t.sown, 0);
   const germinated = perTray.reduce((s, t) => s + t.germinated, 0);
   const percentRounded = roundPercent(germinated, sown);
-  const bounds = method === 'wilson' ? wilsonInterval(germinated, sown, confidence) : clopperPearsonInterval(germinated, sown, confidence);
+  const bounds =
+    method === 'wilson'
+      ? wilsonInterval(germinated, sown, confidence)
+      : clopperPearsonInterval(germinated, sown, confidence);
 
   let agreement: Agreement = { maxRange: null, observedRange: null, ok: null };
   let homogeneity: ChiSquareResult | null = null;

@@ -49,10 +49,7 @@ const TWO_REPLICATES_OF_100: ReadonlyArray<readonly [minMean: number, maxMean: n
   [71, 72, 14],
 ];
 
-function lookUp(
-  table: ReadonlyArray<readonly [number, number, number]>,
-  mean: number,
-): number | undefined {
+function lookUp(table: ReadonlyArray<readonly [number, number, number]>, mean: number): number | undefined {
   return table.find(([min, max]) => mean >= min && mean <= max)?.[2];
 }
 
@@ -65,7 +62,11 @@ const TAIL_PROBABILITY = 0.025;
  * range of k independent standard normals (computed by numeric integration in normal-range.ts).
  * Not rounded: the printed table rounds, and not every printed row follows from rounding this.
  */
-export function computedToleratedRange(meanPercent: number, replicates: number, seedsPerReplicate: number): number {
+export function computedToleratedRange(
+  meanPercent: number,
+  replicates: number,
+  seedsPerReplicate: number,
+): number {
   const sd = Math.sqrt((meanPercent * (100 - meanPercent)) / seedsPerReplicate);
   return normalRangeQuantile(replicates, 1 - TAIL_PROBABILITY) * sd;
 }
@@ -94,7 +95,8 @@ export function maxToleratedRange(meanPercent: number, replicates = 4, seedsPerR
   const rounded = Math.round(meanPercent);
   const folded = Math.min(99, Math.max(rounded, 100 - rounded));
   if (seedsPerReplicate === 100) {
-    const table = replicates === 4 ? FOUR_REPLICATES_OF_100 : replicates === 2 ? TWO_REPLICATES_OF_100 : undefined;
+    const table =
+      replicates === 4 ? FOUR_REPLICATES_OF_100 : replicates === 2 ? TWO_REPLICATES_OF_100 : undefined;
     const printed = table === undefined ? undefined : lookUp(table, folded);
     if (printed !== undefined) return printed;
   }

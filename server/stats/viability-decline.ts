@@ -1,7 +1,13 @@
 import { normalCdf, normalPdf, normalQuantile, twoSidedZ } from './distributions';
 import { fitProbitGlm } from './probit-glm';
 import { probitRegression, probitRegressionGroups } from './probit-regression';
-import { assertFinite, assertOpenUnit, assertPercent, assertPositiveCount, assertSuccesses } from './validate';
+import {
+  assertFinite,
+  assertOpenUnit,
+  assertPercent,
+  assertPositiveCount,
+  assertSuccesses,
+} from './validate';
 
 /** One germination test of a lot: its age (years since harvest) and the count. */
 export interface ViabilityTest {
@@ -112,9 +118,15 @@ interface BorrowedSlope {
 function pooledSpeciesSlope(prior: ViabilityPrior, notes: string[]): BorrowedSlope | null {
   const lots = (prior.otherLots ?? []).filter((lot) => distinctAges(lot) >= 2 && !oneSided(lot));
   if (lots.length === 0) return null;
-  const fit = probitRegressionGroups(lots.map((lot) => ({ points: lot.map((t) => ({ x: t.ageYears, successes: t.germinated, trials: t.sown })) })));
+  const fit = probitRegressionGroups(
+    lots.map((lot) => ({
+      points: lot.map((t) => ({ x: t.ageYears, successes: t.germinated, trials: t.sown })),
+    })),
+  );
   if (!fit.converged) {
-    notes.push(`The pooled fit over the species' other lots did not give a usable slope (${fit.warning ?? 'no convergence'}).`);
+    notes.push(
+      `The pooled fit over the species' other lots did not give a usable slope (${fit.warning ?? 'no convergence'}).`,
+    );
     return null;
   }
   if (!(fit.slope < 0)) {
@@ -131,18 +143,22 @@ function borrowSlope(prior: ViabilityPrior, notes: string[]): BorrowedSlope {
   if (given !== undefined) {
     assertFinite(given.slope, 'speciesSlope.slope');
     assertFinite(given.slopeSe, 'speciesSlope.slopeSe');
-    if (given.slope < 0 && given.slopeSe >= 0) return { slope: given.slope, variance: given.slopeSe ** 2, basis: 'species' };
+    if (given.slope < 0 && given.slopeSe >= 0)
+      return { slope: given.slope, variance: given.slopeSe ** 2, basis: 'species' };
     notes.push('The given species slope is not a decline; it was not used.');
   }
   const life = prior.typicalLifeYears;
   if (life === undefined) {
-    throw new RangeError("cannot estimate the rate of decline: the lot's tests do not show it and no species data or typical storage life was given");
+    throw new RangeError(
+      "cannot estimate the rate of decline: the lot's tests do not show it and no species data or typical storage life was given",
+    );
   }
   assertFinite(life, 'typicalLifeYears');
   if (life <= 0) throw new RangeError(`typicalLifeYears must be positive (got ${String(life)})`);
   const initial = prior.typicalInitialPercent ?? DEFAULT_TYPICAL_INITIAL_PERCENT;
   assertPercent(initial, 'typicalInitialPercent');
-  if (initial <= 50 || initial >= 100) throw new RangeError('typicalInitialPercent must be above 50 and below 100');
+  if (initial <= 50 || initial >= 100)
+    throw new RangeError('typicalInitialPercent must be above 50 and below 100');
   notes.push(
     `Rate of decline taken from the species' typical storage life (${String(life)} years from ${String(initial)}% to 50%); its uncertainty is not known, so the interval reflects only this lot's tests.`,
   );
@@ -157,7 +173,9 @@ function borrowSlope(prior: ViabilityPrior, notes: string[]): BorrowedSlope {
 function interceptForSlope(tests: readonly ViabilityTest[], borrowed: BorrowedSlope, notes: string[]) {
   const adjust = oneSided(tests);
   if (adjust) {
-    notes.push("Every test of this lot was 100% (or 0%), which has no finite estimate; its initial viability uses the usual half-seed correction (x + ½)/(n + 1) (common practice).");
+    notes.push(
+      'Every test of this lot was 100% (or 0%), which has no finite estimate; its initial viability uses the usual half-seed correction (x + ½)/(n + 1) (common practice).',
+    );
   }
   const rows = tests.map((t) => ({
     covariates: [1],
@@ -198,7 +216,11 @@ export function projectViability(
   const [[vaa, vab], [, vbb]] = fit.covariance;
   const se = Math.sqrt(Math.max(0, vaa + 2 * ageYears * vab + ageYears * ageYears * vbb));
   const z = twoSidedZ(confidence);
-  return { percent: 100 * normalCdf(eta), low: 100 * normalCdf(eta - z * se), high: 100 * normalCdf(eta + z * se) };
+  return {
+    percent: 100 * normalCdf(eta),
+    low: 100 * normalCdf(eta - z * se),
+    high: 100 * normalCdf(eta + z * se),
+  };
 }
 
 /**
@@ -208,7 +230,10 @@ export function projectViability(
  * 4.3.3 — from memory), and (c) one year after the last test.
  */
 export function retestAge(
-  fit: Pick<ViabilityFit, 'initialProbit' | 'slopePerYear' | 'covariance' | 'confidence' | 'lastTestAgeYears'>,
+  fit: Pick<
+    ViabilityFit,
+    'initialProbit' | 'slopePerYear' | 'covariance' | 'confidence' | 'lastTestAgeYears'
+  >,
   thresholdPercent?: number,
 ): { ageYears: number; reason: RetestReason } {
   const last = fit.lastTestAgeYears;
@@ -280,9 +305,16 @@ export function fitViabilityDecline(
     slope = lotFit.slope;
     covariance = lotFit.covariance;
   } else {
-    if (lotFit === null) notes.push("This lot has been tested at one age only, so its rate of decline is borrowed.");
-    else if (!lotFit.converged) notes.push(`The lot's own tests give no finite decline estimate (${lotFit.warning ?? 'no convergence'}); the rate of decline is borrowed.`);
-    else notes.push("The lot's tests show no decline with age (fitted slope ≥ 0); the rate of decline is borrowed.");
+    if (lotFit === null)
+      notes.push('This lot has been tested at one age only, so its rate of decline is borrowed.');
+    else if (!lotFit.converged)
+      notes.push(
+        `The lot's own tests give no finite decline estimate (${lotFit.warning ?? 'no convergence'}); the rate of decline is borrowed.`,
+      );
+    else
+      notes.push(
+        "The lot's tests show no decline with age (fitted slope ≥ 0); the rate of decline is borrowed.",
+      );
     const borrowed = borrowSlope(prior, notes);
     const intercept = interceptForSlope(tests, borrowed, notes);
     basis = borrowed.basis;
