@@ -3,6 +3,7 @@ import { loadConfig } from '../server/config';
 import { createDb } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrate';
 import { seedDemo } from '../server/db/seed-demo';
+import { syncReferenceSpecies } from '../server/modules/species/reference-sync';
 
 const config = loadConfig();
 const db = createDb(config.databaseUrl, 2);
@@ -10,6 +11,7 @@ try {
   const { results } = await migrateToLatest(db);
   const applied = results?.filter((r) => r.status === 'Success').map((r) => r.migrationName) ?? [];
   if (applied.length) process.stdout.write(`hilum: applied migrations: ${applied.join(', ')}\n`);
+  await syncReferenceSpecies(db);
   if (!process.argv.includes('--no-demo') && (await seedDemo(db))) {
     process.stdout.write('hilum: seeded the demo bank\n');
   }

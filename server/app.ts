@@ -20,6 +20,14 @@ import { bankRoutes, createBankRouter } from './modules/banks/banks.router';
 import { createBanksService } from './modules/banks/banks.service';
 import { devRouter } from './modules/dev/dev.router';
 import { invitationsRouter } from './modules/invitations/invitations.router';
+import { lotRoutes } from './modules/lots/lots.router';
+import { createLotsService } from './modules/lots/lots.service';
+import { bankPhotoRoutes, photoFileRoutes, subjectPhotoRoutes } from './modules/photos/photos.router';
+import { createPhotosService } from './modules/photos/photos.service';
+import { plantRoutes } from './modules/plants/plants.router';
+import { createPlantsService } from './modules/plants/plants.service';
+import { speciesRoutes } from './modules/species/species.router';
+import { createSpeciesService } from './modules/species/species.service';
 import { createInvitationsService } from './modules/invitations/invitations.service';
 import { healthRouter } from './modules/health/health.router';
 import type { ObjectStore } from './storage/object-store';
@@ -58,10 +66,20 @@ export function createApp(deps: AppDeps): Express {
   app.use(originCheck(originVariants(config.appOrigin)));
 
   const signer = createSessionSigner(config.sessionSecret, deps.clock);
+  const photos = createPhotosService({ db: deps.db, storage: deps.storage, logger });
   const services = {
     auth: createAuthService({ ...deps, signer, appOrigin: config.appOrigin }),
     banks: createBanksService(deps),
     invitations: createInvitationsService({ ...deps, appOrigin: config.appOrigin }),
+    species: createSpeciesService(deps),
+    photos,
+    plants: createPlantsService({ ...deps, photosOf: photos.photosOf, removeSubjectPhotos: photos.removeSubjectPhotos }),
+    lots: createLotsService({
+      ...deps,
+      removeSubjectPhotos: photos.removeSubjectPhotos,
+      // Germination tests arrive with their own module; until then no lot has any.
+      hasTests: async () => false,
+    }),
   };
   const secureCookies = config.appOrigin.startsWith('https:');
 
@@ -72,8 +90,17 @@ export function createApp(deps: AppDeps): Express {
   api.use('/me', meRouter(services.auth));
   api.use('/invitations', invitationsRouter(services.invitations));
   api.use('/banks', requireAuth, createBankRouter(services.banks));
+  api.use('/photos', photoFileRoutes(services.photos));
   // Every route of one bank sits behind bankAccess, which resolves the caller's role once.
-  api.use('/banks/:bankId', bankAccess(deps.db), bankRoutes(services.banks, services.invitations));
+  const bank = express.Router({ mergeParams: true });
+  bank.use('/species', speciesRoutes(services.species));
+  bank.use('/plants/:plantId/photos', subjectPhotoRoutes(services.photos, 'plant', 'plantId'));
+  bank.use('/plants', plantRoutes(services.plants));
+  bank.use('/lots/:lotId/photos', subjectPhotoRoutes(services.photos, 'lot', 'lotId'));
+  bank.use('/lots', lotRoutes(services.lots));
+  bank.use('/photos', bankPhotoRoutes(services.photos));
+  bank.use('/', bankRoutes(services.banks, services.invitations));
+  api.use('/banks/:bankId', bankAccess(deps.db), bank);
   api.use(notFoundApi);
   app.use('/api', api);
 

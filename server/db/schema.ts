@@ -69,6 +69,110 @@ export interface PasswordResetTable {
   used_at: Date | null;
 }
 
+/** numeric columns arrive from pg as strings; repositories parse them. */
+type Numeric = ColumnType<string, number | string, number | string>;
+
+export interface SpeciesTable {
+  id: Generated<string>;
+  bank_id: string | null;
+  ref_key: string | null;
+  common_name: string;
+  scientific_name: string;
+  family: string | null;
+  traits: ColumnType<unknown, string, string>;
+  sources: ColumnType<unknown, string | undefined, string>;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
+export interface SpeciesOverrideTable {
+  bank_id: string;
+  species_id: string;
+  traits: ColumnType<unknown, string, string>;
+  updated_at: Timestamp;
+}
+
+export type PhotoSubject = 'lot' | 'plant' | 'tray';
+
+export interface PhotoTable {
+  id: string;
+  bank_id: string;
+  subject: PhotoSubject;
+  subject_id: string;
+  full_key: string;
+  thumb_key: string;
+  width: number;
+  height: number;
+  bytes: number;
+  created_by: string | null;
+  created_at: Timestamp;
+}
+
+export interface ObjectDeletionTable {
+  key: string;
+  created_at: Timestamp;
+}
+
+export interface ParentPlantTable {
+  id: Generated<string>;
+  bank_id: string;
+  species_id: string;
+  label: string;
+  variety: string | null;
+  location: string | null;
+  season: number | null;
+  hybrid: ColumnType<boolean, boolean | undefined, boolean>;
+  notes: string | null;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
+export type LotOrigin = 'saved' | 'swapped' | 'bought';
+export type LotStatus = 'active' | 'depleted' | 'retired';
+export type StoragePlace = 'room' | 'fridge' | 'freezer' | 'other';
+
+export interface LotTable {
+  id: Generated<string>;
+  bank_id: string;
+  species_id: string;
+  code: string;
+  variety: string;
+  origin: LotOrigin;
+  source_name: string | null;
+  harvest_date: string | null;
+  packed_for_season: number | null;
+  plants_bulked: number | null;
+  storage_place: StoragePlace | null;
+  storage_location: string | null;
+  storage_temp_c: Numeric | null;
+  storage_humidity_pct: Numeric | null;
+  quantity_estimated: ColumnType<boolean, boolean | undefined, boolean>;
+  grams_entered: Numeric | null;
+  status: ColumnType<LotStatus, LotStatus | undefined, LotStatus>;
+  notes: string | null;
+  created_by: string | null;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
+export interface LotParentTable {
+  lot_id: string;
+  parent_plant_id: string;
+}
+
+export type MovementKind = 'initial' | 'sown' | 'given' | 'swapped-in' | 'test' | 'correction';
+
+export interface StockMovementTable {
+  id: Generated<string>;
+  lot_id: string;
+  kind: MovementKind;
+  change: number;
+  date: string;
+  reason: string;
+  created_by: string | null;
+  created_at: Timestamp;
+}
+
 export interface Database {
   users: UserTable;
   sessions: SessionTable;
@@ -77,6 +181,14 @@ export interface Database {
   app_meta: AppMetaTable;
   invitations: InvitationTable;
   password_resets: PasswordResetTable;
+  species: SpeciesTable;
+  species_overrides: SpeciesOverrideTable;
+  photos: PhotoTable;
+  object_deletions: ObjectDeletionTable;
+  parent_plants: ParentPlantTable;
+  lots: LotTable;
+  lot_parents: LotParentTable;
+  stock_movements: StockMovementTable;
 }
 
 export type User = Selectable<UserTable>;
@@ -88,3 +200,7 @@ export type NewBank = Insertable<BankTable>;
 export type BankUpdate = Updateable<BankTable>;
 export type Membership = Selectable<MembershipTable>;
 export type Invitation = Selectable<InvitationTable>;
+export type SpeciesRow = Selectable<SpeciesTable>;
+export type Lot = Selectable<LotTable>;
+export type ParentPlant = Selectable<ParentPlantTable>;
+export type Photo = Selectable<PhotoTable>;

@@ -6,7 +6,10 @@ import type { Role } from '../../server/db/schema';
 export interface MatrixFixture {
   bankId: string;
   /** Ids of records made fresh for each call, so a destructive route has something to act on. */
-  make(kind: 'member' | 'invitation'): Promise<string>;
+  make(kind: 'member' | 'invitation' | 'lot' | 'plant' | 'photo' | 'species'): Promise<string>;
+  /** A small real JPEG for upload routes. */
+  jpeg: Buffer;
+  tomatoId: string;
 }
 
 export interface MatrixRoute {
@@ -14,6 +17,8 @@ export interface MatrixRoute {
   path: (f: MatrixFixture) => string | Promise<string>;
   body?: (f: MatrixFixture) => object;
   least: Role;
+  /** Multipart upload: the field name to attach the fixture's JPEG under. */
+  attach?: string;
   /** The status a caller with enough role gets (defaults to any 2xx). */
   ok?: number;
   /** Where a role allowed to call the route still gets a business answer (e.g. last owner 409). */
@@ -55,6 +60,88 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     method: 'delete',
     path: async (f) => `/api/banks/${f.bankId}/invitations/${await f.make('invitation')}`,
     least: 'owner',
+    ok: 204,
+  },
+  'GET species': { method: 'get', path: (f) => `/api/banks/${f.bankId}/species`, least: 'viewer' },
+  'POST species': {
+    method: 'post',
+    path: (f) => `/api/banks/${f.bankId}/species`,
+    body: () => ({ commonName: `Sp ${Math.random()}`, scientificName: 'Plantus testus' }),
+    least: 'grower',
+    ok: 201,
+  },
+  'PATCH species traits': {
+    method: 'patch',
+    path: (f) => `/api/banks/${f.bankId}/species/${f.tomatoId}`,
+    body: () => ({ traits: { seedsPerGram: 350 } }),
+    least: 'grower',
+  },
+  'GET plants': { method: 'get', path: (f) => `/api/banks/${f.bankId}/plants`, least: 'viewer' },
+  'POST plant': {
+    method: 'post',
+    path: (f) => `/api/banks/${f.bankId}/plants`,
+    body: (f) => ({ speciesId: f.tomatoId, label: 'Row 1' }),
+    least: 'grower',
+    ok: 201,
+  },
+  'GET plant': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/plants/${await f.make('plant')}`, least: 'viewer' },
+  'PATCH plant': {
+    method: 'patch',
+    path: async (f) => `/api/banks/${f.bankId}/plants/${await f.make('plant')}`,
+    body: () => ({ notes: 'tallest' }),
+    least: 'grower',
+  },
+  'DELETE plant': {
+    method: 'delete',
+    path: async (f) => `/api/banks/${f.bankId}/plants/${await f.make('plant')}`,
+    least: 'grower',
+    ok: 204,
+  },
+  'GET lots': { method: 'get', path: (f) => `/api/banks/${f.bankId}/lots`, least: 'viewer' },
+  'POST lot': {
+    method: 'post',
+    path: (f) => `/api/banks/${f.bankId}/lots`,
+    body: (f) => ({ speciesId: f.tomatoId, variety: 'Matrix', origin: 'saved', harvestDate: '2025-09-01', seedCount: 10 }),
+    least: 'grower',
+    ok: 201,
+  },
+  'GET lot': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}`, least: 'viewer' },
+  'PATCH lot': {
+    method: 'patch',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}`,
+    body: () => ({ notes: 'kept in the tin' }),
+    least: 'grower',
+  },
+  'DELETE lot': {
+    method: 'delete',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}`,
+    least: 'grower',
+    ok: 204,
+  },
+  'GET stock': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/stock`, least: 'viewer' },
+  'POST stock': {
+    method: 'post',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/stock`,
+    body: () => ({ change: -1, reason: 'Sown', date: '2026-02-01', kind: 'sown' }),
+    least: 'grower',
+    ok: 201,
+  },
+  'GET lot photos': {
+    method: 'get',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/photos`,
+    least: 'viewer',
+  },
+  'POST lot photo': {
+    method: 'post',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/photos`,
+    attach: 'photo',
+    least: 'grower',
+    ok: 201,
+  },
+  'DELETE photo': {
+    method: 'delete',
+    path: async (f) => `/api/banks/${f.bankId}/photos/${await f.make('photo')}`,
+    least: 'grower',
     ok: 204,
   },
   'POST leave': {

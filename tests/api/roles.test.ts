@@ -1,10 +1,12 @@
 import type { Express } from 'express';
+import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { roleAtLeast } from '../../server/auth/bank-access';
 import type { Role } from '../../server/db/schema';
 import { bankWithRoles, signUp } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
+import { speciesId } from '../helpers/lots';
 import { bankRoutes, type MatrixFixture, type MatrixRoute } from './role-matrix';
 
 type Caller = Role | 'outsider' | 'anonymous';
@@ -20,16 +22,38 @@ function expected(route: MatrixRoute, caller: Caller): number | '2xx' {
 
 describe('the role matrix of bank routes', () => {
   let ctx: TestContext;
+  let jpeg: Buffer;
+  let tomatoId: string;
   beforeAll(async () => {
-    ctx = await createTestContext();
+    ctx = await createTestContext({ now: '2026-03-01T09:00:00Z' });
+    jpeg = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#7a5c3a' } }).jpeg().toBuffer();
+    tomatoId = await speciesId(ctx.db, 'tomato');
   });
   afterAll(() => ctx.close());
 
   async function setup() {
     const bank = await bankWithRoles(ctx.app, ctx.db);
+    const owner = bank.owner.agent;
     const fixture: MatrixFixture = {
       bankId: bank.bankId,
+      jpeg,
+      tomatoId,
       async make(kind) {
+        const base = `/api/banks/${bank.bankId}`;
+        if (kind === 'lot' || kind === 'photo') {
+          const lot = await owner
+            .post(`${base}/lots`)
+            .send({ speciesId: tomatoId, variety: 'Fixture', origin: 'saved', harvestDate: '2025-09-01', seedCount: 10 });
+          if (kind === 'lot') return lot.body.lot.id as string;
+          const photo = await owner.post(`${base}/lots/${lot.body.lot.id}/photos`).attach('photo', jpeg, 'packet.jpg');
+          return photo.body.photo.id as string;
+        }
+        if (kind === 'plant') {
+          return (await owner.post(`${base}/plants`).send({ speciesId: tomatoId, label: 'Fixture row' })).body.plant.id as string;
+        }
+        if (kind === 'species') {
+          return (await owner.post(`${base}/species`).send({ commonName: `F ${Math.random()}`, scientificName: 'F f' })).body.species.id as string;
+        }
         if (kind === 'member') {
           const extra = await signUp(ctx.app, { name: 'Extra' });
           await ctx.db.insertInto('memberships').values({ bank_id: bank.bankId, user_id: extra.user.id, role: 'viewer' }).execute();
@@ -57,7 +81,8 @@ describe('the role matrix of bank routes', () => {
         const agent = agentFor(caller);
         const path = await route.path(fixture);
         let req = agent[route.method](path);
-        if (route.body) req = req.send(route.body(fixture));
+        if (route.attach) req = req.attach(route.attach, fixture.jpeg, 'packet.jpg');
+        else if (route.body) req = req.send(route.body(fixture));
         got[caller] = (await req).status;
         want[caller] = expected(route, caller);
         if (route.destructive) shared = null;

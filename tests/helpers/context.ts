@@ -7,6 +7,7 @@ import { createTestClock } from '../../server/clock';
 import { loadConfig, type Config } from '../../server/config';
 import { createDb, type Db } from '../../server/db/database';
 import { migrateToLatest } from '../../server/db/migrate';
+import { syncReferenceSpecies } from '../../server/modules/species/reference-sync';
 import { createMailer, type Mailer } from '../../server/mail/mailer';
 import { createObjectStore, type ObjectStore } from '../../server/storage/object-store';
 
@@ -39,7 +40,10 @@ export async function createTestDatabase(options: { migrate?: boolean } = {}) {
   await admin((db) => sql`create database ${sql.id(name)}`.execute(db));
   const url = withDatabase(adminUrl(), name);
   const db = createDb(url, 5);
-  if (options.migrate !== false) await migrateToLatest(db);
+  if (options.migrate !== false) {
+    await migrateToLatest(db);
+    await syncReferenceSpecies(db);
+  }
   return {
     db,
     url,

@@ -1,0 +1,63 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import {
+  createLotBodySchema,
+  lotSchema,
+  lotsListQuerySchema,
+  movementSchema,
+  stockBodySchema,
+  updateLotBodySchema,
+} from '../../../shared/schemas/lots';
+import { requireRole } from '../../auth/bank-access';
+import { parse } from '../../http/errors';
+import { idParam } from '../../http/params';
+import { respond } from '../../http/respond';
+import type { LotsService } from './lots.service';
+
+const one = z.object({ lot: lotSchema });
+const list = z.object({ items: z.array(lotSchema), nextCursor: z.string().nullable() });
+const ledger = z.object({ items: z.array(movementSchema), seedsOnHand: z.number() });
+
+export function lotRoutes(lots: LotsService): Router {
+  const router = Router({ mergeParams: true });
+  const lotId = (req: { params: Record<string, unknown> }) => idParam(req.params.lotId, 'lot');
+
+  router.get('/', requireRole('viewer'), async (req, res) => {
+    const query = parse(lotsListQuerySchema, req.query, 'query');
+    respond(res, 200, list, await lots.list(req.bank!.id, query));
+  });
+  router.post('/', requireRole('grower'), async (req, res) => {
+    const body = parse(createLotBodySchema, req.body, 'lot');
+    respond(res, 201, one, { lot: await lots.create(req.bank!.id, req.auth!.userId, body) });
+  });
+  router.get('/:lotId', requireRole('viewer'), async (req, res) => {
+    respond(res, 200, one, { lot: await lots.get(req.bank!.id, lotId(req)) });
+  });
+  router.patch('/:lotId', requireRole('grower'), async (req, res) => {
+    const body = parse(updateLotBodySchema, req.body, 'lot');
+    respond(res, 200, one, { lot: await lots.update(req.bank!.id, lotId(req), body) });
+  });
+  router.delete('/:lotId', requireRole('grower'), async (req, res) => {
+    const outcome = await lots.remove(req.bank!.id, lotId(req));
+    if (outcome === 'deleted') return void res.status(204).end();
+    respond(res, 200, z.object({ lot: lotSchema, retired: z.literal(true) }), {
+      lot: await lots.get(req.bank!.id, lotId(req)),
+      retired: true,
+    });
+  });
+
+  router.get('/:lotId/stock', requireRole('viewer'), async (req, res) => {
+    const items = await lots.movements(req.bank!.id, lotId(req));
+    respond(res, 200, ledger, { items, seedsOnHand: items.at(-1)?.balance ?? 0 });
+  });
+  router.post('/:lotId/stock', requireRole('grower'), async (req, res) => {
+    const body = parse(stockBodySchema, req.body, 'stock movement');
+    const result = await lots.addMovement(req.bank!.id, lotId(req), req.auth!.userId, body);
+    const items = await lots.movements(req.bank!.id, lotId(req));
+    respond(res, 201, z.object({ movement: movementSchema, seedsOnHand: z.number() }), {
+      movement: items.find((m) => m.id === result.movementId)!,
+      seedsOnHand: result.seedsOnHand,
+    });
+  });
+  return router;
+}

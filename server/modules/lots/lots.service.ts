@@ -1,0 +1,240 @@
+import { sql } from 'kysely';
+import type { CreateLotBody, StockBody, UpdateLotBody } from '../../../shared/schemas/lots';
+import type { Clock } from '../../clock';
+import type { Db, DbOrTx } from '../../db/database';
+import type { LotTable } from '../../db/schema';
+import { AppError, badRequest, conflict, notFound } from '../../http/errors';
+import { requireSpecies } from '../species/species.service';
+import { codePrefix, nextCode } from './lot-code';
+import * as repo from './lots.repository';
+import type { Updateable } from 'kysely';
+
+const isoDay = (d: Date) => d.toISOString().slice(0, 10);
+
+function uniqueViolation(error: unknown): boolean {
+  return (error as { code?: string }).code === '23505';
+}
+
+export interface LotsServiceDeps {
+  db: Db;
+  clock: Clock;
+  /** Removes photo objects from the store after their rows are gone (photos module). */
+  removeSubjectPhotos: (db: DbOrTx, bankId: string, subject: 'lot', subjectId: string) => Promise<() => Promise<void>>;
+  /** Whether the lot has germination tests, which keep it from being deleted outright. */
+  hasTests: (db: DbOrTx, lotId: string) => Promise<boolean>;
+}
+
+export function createLotsService(deps: LotsServiceDeps) {
+  const { db, clock } = deps;
+
+  async function get(bankId: string, lotId: string, on: DbOrTx = db) {
+    const row = await repo.lotsQuery(on, bankId).where('lots.id', '=', lotId).executeTakeFirst();
+    if (!row) throw notFound('No such lot in this bank.');
+    return repo.toLotDto(row);
+  }
+
+  async function checkParents(trx: DbOrTx, bankId: string, ids: string[] | undefined) {
+    if (!ids?.length) return;
+    const found = await trx
+      .selectFrom('parent_plants')
+      .select('id')
+      .where('bank_id', '=', bankId)
+      .where('id', 'in', ids)
+      .execute();
+    if (found.length !== new Set(ids).size) {
+      throw badRequest('A parent plant is not in this bank.', { parentPlantIds: 'Choose parent plants from this bank.' });
+    }
+  }
+
+  async function generateCode(trx: DbOrTx, bankId: string, commonName: string, season: number) {
+    const prefix = codePrefix(commonName, season);
+    return nextCode(prefix, await repo.codesLike(trx, bankId, prefix));
+  }
+
+  function storageColumns(storage: CreateLotBody['storage']): Updateable<LotTable> {
+    if (!storage) return {};
+    const out: Updateable<LotTable> = {};
+    if (storage.place !== undefined) out.storage_place = storage.place;
+    if (storage.location !== undefined) out.storage_location = storage.location;
+    if (storage.temperatureC !== undefined) out.storage_temp_c = storage.temperatureC;
+    if (storage.humidityPct !== undefined) out.storage_humidity_pct = storage.humidityPct;
+    return out;
+  }
+
+  return {
+    get,
+
+    async list(bankId: string, query: { limit: number; cursor?: string; q?: string; speciesId?: string; status?: 'active' | 'depleted' | 'retired' }) {
+      let q = repo.lotsQuery(db, bankId);
+      if (query.status) q = q.where('lots.status', '=', query.status);
+      if (query.speciesId) q = q.where('lots.species_id', '=', query.speciesId);
+      if (query.q) {
+        const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+        q = q.where((eb) =>
+          eb.or([
+            eb('lots.code', 'ilike', like),
+            eb('lots.variety', 'ilike', like),
+            eb('species.common_name', 'ilike', like),
+            eb('species.scientific_name', 'ilike', like),
+          ]),
+        );
+      }
+      if (query.cursor) q = q.where(sql<string>`lower(lots.code)`, '>', query.cursor.toLowerCase());
+      const rows = await q.orderBy(sql`lower(lots.code)`).limit(query.limit + 1).execute();
+      const page = rows.slice(0, query.limit);
+      return {
+        items: page.map(repo.toLotDto),
+        nextCursor: rows.length > query.limit ? (page[page.length - 1]?.code.toLowerCase() ?? null) : null,
+      };
+    },
+
+    async create(bankId: string, userId: string, body: CreateLotBody) {
+      const lotId = await db.transaction().execute(async (trx) => {
+        const species = await requireSpecies(trx, bankId, body.speciesId);
+        await checkParents(trx, bankId, body.parentPlantIds);
+        let seeds = body.seedCount ?? 0;
+        let estimated = false;
+        if (body.grams !== undefined) {
+          const perGram = species.traits.seedsPerGram;
+          if (!perGram) {
+            throw badRequest('This species has no typical seeds per gram.', {
+              grams: `No seeds-per-gram figure for ${species.commonName}: count the seeds, or set it for the species.`,
+            });
+          }
+          seeds = Math.round(body.grams * perGram);
+          estimated = true;
+        }
+        const season = body.harvestDate ? Number(body.harvestDate.slice(0, 4)) : body.packedForSeason!;
+        const code = body.code ?? (await generateCode(trx, bankId, species.commonName, season));
+        let inserted;
+        try {
+          inserted = await repo.insertLot(trx, {
+            bank_id: bankId,
+            species_id: species.id,
+            code,
+            variety: body.variety,
+            origin: body.origin,
+            source_name: body.sourceName ?? null,
+            harvest_date: body.harvestDate ?? null,
+            packed_for_season: body.packedForSeason ?? null,
+            plants_bulked: body.plantsBulked ?? null,
+            ...storageColumns(body.storage),
+            quantity_estimated: estimated,
+            grams_entered: body.grams ?? null,
+            notes: body.notes ?? null,
+            created_by: userId,
+          });
+        } catch (error) {
+          if (uniqueViolation(error)) throw conflict(`The code ${code} is already used in this bank.`, 'duplicate_code');
+          throw error;
+        }
+        await repo.setParents(trx, inserted.id, body.parentPlantIds ?? []);
+        if (seeds > 0) {
+          await trx
+            .insertInto('stock_movements')
+            .values({
+              lot_id: inserted.id,
+              kind: 'initial',
+              change: seeds,
+              date: body.harvestDate ?? isoDay(clock.now()),
+              reason: estimated
+                ? `Estimated from ${body.grams} g at about ${species.traits.seedsPerGram} seeds per gram`
+                : 'Counted when the lot was logged',
+              created_by: userId,
+            })
+            .execute();
+        }
+        return inserted.id;
+      });
+      return get(bankId, lotId);
+    },
+
+    async update(bankId: string, lotId: string, body: UpdateLotBody) {
+      await db.transaction().execute(async (trx) => {
+        const lot = await repo.lockLot(trx, bankId, lotId);
+        if (!lot) throw notFound('No such lot in this bank.');
+        if (body.speciesId) await requireSpecies(trx, bankId, body.speciesId);
+        await checkParents(trx, bankId, body.parentPlantIds);
+        const changes: Updateable<LotTable> = { updated_at: clock.now(), ...storageColumns(body.storage) };
+        if (body.speciesId) changes.species_id = body.speciesId;
+        if (body.variety !== undefined) changes.variety = body.variety;
+        if (body.origin !== undefined) changes.origin = body.origin;
+        if (body.sourceName !== undefined) changes.source_name = body.sourceName;
+        if (body.harvestDate !== undefined) changes.harvest_date = body.harvestDate;
+        if (body.packedForSeason !== undefined) changes.packed_for_season = body.packedForSeason;
+        if (body.plantsBulked !== undefined) changes.plants_bulked = body.plantsBulked;
+        if (body.notes !== undefined) changes.notes = body.notes;
+        if (body.status !== undefined) changes.status = body.status;
+        if (body.code !== undefined) changes.code = body.code;
+        try {
+          await repo.updateLot(trx, lotId, changes);
+        } catch (error) {
+          if (uniqueViolation(error)) throw conflict(`The code ${body.code} is already used in this bank.`, 'duplicate_code');
+          if ((error as { constraint?: string }).constraint === 'lots_dated') {
+            throw badRequest('A lot needs a harvest date or a packed-for season.', { harvestDate: 'Give the harvest date or the season.' });
+          }
+          throw error;
+        }
+        if (body.parentPlantIds) await repo.setParents(trx, lotId, body.parentPlantIds);
+      });
+      return get(bankId, lotId);
+    },
+
+    /** Deletes a lot outright, or retires it when it has tests (their history is kept). */
+    async remove(bankId: string, lotId: string) {
+      let cleanup: (() => Promise<void>) | null = null;
+      const outcome = await db.transaction().execute(async (trx) => {
+        const lot = await repo.lockLot(trx, bankId, lotId);
+        if (!lot) throw notFound('No such lot in this bank.');
+        if (await deps.hasTests(trx, lotId)) {
+          await repo.updateLot(trx, lotId, { status: 'retired', updated_at: clock.now() });
+          return 'retired' as const;
+        }
+        cleanup = await deps.removeSubjectPhotos(trx, bankId, 'lot', lotId);
+        await trx.deleteFrom('lots').where('id', '=', lotId).execute();
+        return 'deleted' as const;
+      });
+      // Objects go only once the rows are gone for good.
+      if (cleanup) await (cleanup as () => Promise<void>)();
+      return outcome;
+    },
+
+    async addMovement(bankId: string, lotId: string, userId: string, body: StockBody) {
+      if (body.date > isoDay(clock.now())) {
+        throw new AppError(422, 'impossible', 'A stock movement cannot be dated in the future.', { date: 'Use today or an earlier date.' });
+      }
+      return db.transaction().execute(async (trx) => {
+        const lot = await repo.lockLot(trx, bankId, lotId);
+        if (!lot) throw notFound('No such lot in this bank.');
+        const before = await repo.stockOf(trx, lotId);
+        const after = before + body.change;
+        if (after < 0) {
+          throw conflict(
+            `Only ${before} seeds are on hand; taking ${-body.change} would leave the stock below zero.`,
+            'stock_below_zero',
+          );
+        }
+        const movement = await trx
+          .insertInto('stock_movements')
+          .values({ lot_id: lotId, kind: body.kind ?? 'correction', change: body.change, date: body.date, reason: body.reason, created_by: userId })
+          .returning('id')
+          .executeTakeFirstOrThrow();
+        // An emptied lot is depleted; seeds found again bring it back.
+        if (after === 0 && lot.status === 'active') await repo.updateLot(trx, lotId, { status: 'depleted' });
+        if (after > 0 && lot.status === 'depleted') await repo.updateLot(trx, lotId, { status: 'active' });
+        return { movementId: movement.id, seedsOnHand: after };
+      });
+    },
+
+    async movements(bankId: string, lotId: string) {
+      await get(bankId, lotId);
+      let balance = 0;
+      return (await repo.movementsOf(db, lotId)).map((m) => {
+        balance += m.change;
+        return { id: m.id, kind: m.kind, change: m.change, date: m.date, reason: m.reason, by: m.by, balance, createdAt: m.created_at.toISOString() };
+      });
+    },
+  };
+}
+
+export type LotsService = ReturnType<typeof createLotsService>;

@@ -1,0 +1,61 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { photoSchema } from '../../../shared/schemas/lots';
+import { requireRole } from '../../auth/bank-access';
+import { requireAuth } from '../../auth/session.middleware';
+import { parse } from '../../http/errors';
+import { idParam } from '../../http/params';
+import { respond } from '../../http/respond';
+import { singlePhoto } from '../../photos/upload';
+import type { PhotosService } from './photos.service';
+
+const one = z.object({ photo: photoSchema });
+
+/** Upload routes for a subject, mounted under its path, e.g. /lots/:lotId/photos. */
+export function subjectPhotoRoutes(photos: PhotosService, subject: 'lot' | 'plant' | 'tray', param: string): Router {
+  const router = Router({ mergeParams: true });
+  router.post('/', requireRole('grower'), singlePhoto('photo'), async (req, res) => {
+    const subjectId = idParam((req.params as Record<string, unknown>)[param], subject);
+    const photo = await photos.upload(req.bank!.id, subject, subjectId, req.auth!.userId, req.file!.buffer);
+    respond(res, 201, one, { photo });
+  });
+  router.get('/', requireRole('viewer'), async (req, res) => {
+    const subjectId = idParam((req.params as Record<string, unknown>)[param], subject);
+    const items = await photos.list(req.bank!.id, subject, subjectId);
+    respond(res, 200, z.object({ items: z.array(photoSchema) }), { items });
+  });
+  return router;
+}
+
+/** DELETE /api/banks/:bankId/photos/:photoId */
+export function bankPhotoRoutes(photos: PhotosService): Router {
+  const router = Router({ mergeParams: true });
+  router.delete('/:photoId', requireRole('grower'), async (req, res) => {
+    await photos.remove(req.bank!.id, idParam(req.params.photoId, 'photo'));
+    res.status(204).end();
+  });
+  return router;
+}
+
+/** GET /api/photos/:photoId?size=full|thumb — to members of the photo's bank only. */
+export function photoFileRoutes(photos: PhotosService): Router {
+  const router = Router();
+  const query = z.object({ size: z.enum(['full', 'thumb']).default('full') });
+  router.get('/:photoId', requireAuth, async (req, res) => {
+    const { size } = parse(query, req.query, 'query');
+    const photoId = idParam(req.params.photoId, 'photo');
+    const file = await photos.open(photoId, req.auth!.userId, size);
+    res.setHeader('Content-Type', 'image/webp');
+    // Photos never change under an id: cache for long, but only in the member's own browser.
+    res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');
+    res.setHeader('ETag', `"${photoId}-${size}"`);
+    if (file.length !== undefined) res.setHeader('Content-Length', String(file.length));
+    if (req.get('if-none-match') === `"${photoId}-${size}"`) {
+      file.body.destroy();
+      return void res.status(304).end();
+    }
+    file.body.on('error', () => res.destroy());
+    file.body.pipe(res);
+  });
+  return router;
+}

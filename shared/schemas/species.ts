@@ -1,0 +1,86 @@
+import { z } from 'zod';
+import { idSchema } from './common';
+
+const day = z.number().int().min(1).max(120);
+const weeks = z.number().int().min(0).max(26);
+
+/** The traits Hilum uses in its computations; null where nobody knows the value. */
+export const speciesTraitsSchema = z.object({
+  firstCountDay: day.nullable(),
+  finalCountDay: day.nullable(),
+  germTempMinC: z.number().min(-5).max(45).nullable(),
+  germTempMaxC: z.number().min(-5).max(45).nullable(),
+  light: z.enum(['light', 'cover', 'light-cover', 'either']).nullable(),
+  startMethod: z.enum(['indoor', 'direct', 'either']),
+  /** Indoor sowing window in weeks before the last spring frost; from ≥ to. */
+  startWeeksFrom: weeks.nullable(),
+  startWeeksTo: weeks.nullable(),
+  seedsPerGram: z.number().positive().max(100_000).nullable(),
+  storageLifeYears: z.number().positive().max(100).nullable(),
+  minGerminationPercent: z.number().min(0).max(100).nullable(),
+  outcrossing: z.enum(['self', 'cross', 'mixed']).nullable(),
+  poisonous: z.boolean(),
+  caution: z.string().max(1000).nullable(),
+});
+export type SpeciesTraits = z.infer<typeof speciesTraitsSchema>;
+export type TraitName = keyof SpeciesTraits;
+
+export const EMPTY_TRAITS: SpeciesTraits = {
+  firstCountDay: null,
+  finalCountDay: null,
+  germTempMinC: null,
+  germTempMaxC: null,
+  light: null,
+  startMethod: 'indoor',
+  startWeeksFrom: null,
+  startWeeksTo: null,
+  seedsPerGram: null,
+  storageLifeYears: null,
+  minGerminationPercent: null,
+  outcrossing: null,
+  poisonous: false,
+  caution: null,
+};
+
+function consistent(t: Partial<SpeciesTraits>, ctx: z.RefinementCtx) {
+  if (t.firstCountDay != null && t.finalCountDay != null && t.firstCountDay > t.finalCountDay) {
+    ctx.addIssue({ code: 'custom', path: ['finalCountDay'], message: 'The final count day comes after the first.' });
+  }
+  if (t.germTempMinC != null && t.germTempMaxC != null && t.germTempMinC > t.germTempMaxC) {
+    ctx.addIssue({ code: 'custom', path: ['germTempMaxC'], message: 'The highest temperature must be at least the lowest.' });
+  }
+  if (t.startWeeksFrom != null && t.startWeeksTo != null && t.startWeeksFrom < t.startWeeksTo) {
+    ctx.addIssue({ code: 'custom', path: ['startWeeksTo'], message: 'Sowing starts earliest at the larger number of weeks before frost.' });
+  }
+}
+
+export const sourceRefSchema = z.object({ title: z.string(), basis: z.string() });
+
+export const speciesSchema = z.object({
+  id: idSchema,
+  commonName: z.string(),
+  scientificName: z.string(),
+  family: z.string().nullable(),
+  reference: z.boolean(),
+  traits: speciesTraitsSchema,
+  /** Where each reference trait value comes from (title and whether read, from memory, …). */
+  sources: z.record(z.string(), sourceRefSchema),
+  /** Traits this bank has set for itself over the reference values. */
+  overridden: z.array(z.string()),
+});
+export type SpeciesDto = z.infer<typeof speciesSchema>;
+export const speciesListResponseSchema = z.object({ items: z.array(speciesSchema) });
+
+export const createSpeciesBodySchema = z
+  .object({
+    commonName: z.string().trim().min(1, { message: 'Give the common name.' }).max(120),
+    scientificName: z.string().trim().min(1, { message: 'Give the scientific name.' }).max(160),
+    family: z.string().trim().max(80).nullable().optional(),
+    traits: speciesTraitsSchema.partial().optional(),
+  })
+  .superRefine((b, ctx) => consistent(b.traits ?? {}, ctx));
+export type CreateSpeciesBody = z.infer<typeof createSpeciesBodySchema>;
+
+export const overrideTraitsBodySchema = z
+  .object({ traits: speciesTraitsSchema.partial() })
+  .superRefine((b, ctx) => consistent(b.traits, ctx));
