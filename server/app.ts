@@ -19,6 +19,8 @@ import { createAuthService } from './modules/auth/auth.service';
 import { bankRoutes, createBankRouter } from './modules/banks/banks.router';
 import { createBanksService } from './modules/banks/banks.service';
 import { devRouter } from './modules/dev/dev.router';
+import { lotTestRoutes, testRoutes } from './modules/germination/germination.router';
+import { createGerminationService, lotHasTests } from './modules/germination/germination.service';
 import { invitationsRouter } from './modules/invitations/invitations.router';
 import { lotRoutes } from './modules/lots/lots.router';
 import { createLotsService } from './modules/lots/lots.service';
@@ -77,9 +79,9 @@ export function createApp(deps: AppDeps): Express {
     lots: createLotsService({
       ...deps,
       removeSubjectPhotos: photos.removeSubjectPhotos,
-      // Germination tests arrive with their own module; until then no lot has any.
-      hasTests: async () => false,
+      hasTests: lotHasTests,
     }),
+    germination: createGerminationService({ ...deps, removeSubjectPhotos: photos.removeSubjectPhotos }),
   };
   const secureCookies = config.appOrigin.startsWith('https:');
 
@@ -97,6 +99,9 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/plants/:plantId/photos', subjectPhotoRoutes(services.photos, 'plant', 'plantId'));
   bank.use('/plants', plantRoutes(services.plants));
   bank.use('/lots/:lotId/photos', subjectPhotoRoutes(services.photos, 'lot', 'lotId'));
+  bank.use('/lots/:lotId/tests', lotTestRoutes(services.germination));
+  bank.use('/tests/:testId/trays/:trayId/photos', subjectPhotoRoutes(services.photos, 'tray', 'trayId'));
+  bank.use('/tests', testRoutes(services.germination));
   bank.use('/lots', lotRoutes(services.lots));
   bank.use('/photos', bankPhotoRoutes(services.photos));
   bank.use('/', bankRoutes(services.banks, services.invitations));

@@ -169,6 +169,48 @@ export interface StockMovementTable {
   change: number;
   date: string;
   reason: string;
+  test_id: ColumnType<string | null, string | null | undefined, string | null>;
+  created_by: string | null;
+  created_at: Timestamp;
+}
+
+export type Pretreatment = 'none' | 'soak' | 'cold-stratification' | 'scarification';
+
+export interface GerminationTestTable {
+  id: Generated<string>;
+  bank_id: string;
+  lot_id: string;
+  start_date: string;
+  method: string;
+  medium: string | null;
+  temperature_c: Numeric | null;
+  light_hours: Numeric | null;
+  pretreatment: ColumnType<Pretreatment, Pretreatment | undefined, Pretreatment>;
+  pretreatment_days: number | null;
+  notes: string | null;
+  status: ColumnType<'running' | 'finished', 'running' | 'finished' | undefined, 'running' | 'finished'>;
+  finished_on: string | null;
+  created_by: string | null;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
+export interface TestTrayTable {
+  id: Generated<string>;
+  test_id: string;
+  position: number;
+  seeds_sown: number;
+  abnormal: number | null;
+  ungerminated: number | null;
+  fresh: number | null;
+  dead: number | null;
+  hard: number | null;
+}
+
+export interface TrayCountTable {
+  tray_id: string;
+  check_date: string;
+  cumulative: number;
   created_by: string | null;
   created_at: Timestamp;
 }
@@ -189,6 +231,9 @@ export interface Database {
   lots: LotTable;
   lot_parents: LotParentTable;
   stock_movements: StockMovementTable;
+  germination_tests: GerminationTestTable;
+  test_trays: TestTrayTable;
+  tray_counts: TrayCountTable;
 }
 
 export type User = Selectable<UserTable>;

@@ -359,7 +359,7 @@ function checkHeader(headers: readonly string[], firstLine: string): LotCsvError
   if (repeated.size > 0) {
     errors.push({ line: 1, message: `These columns appear more than once: ${listNames([...repeated])}.` });
   }
-  const unknown = headers.filter((h) => h !== '' && !KNOWN.has(h));
+  const unknown = [...new Set(headers.filter((h) => h !== '' && !KNOWN.has(h)))];
   if (unknown.length > 0) {
     errors.push({
       line: 1,
@@ -574,8 +574,10 @@ export function parseLotsCsv(text: string, resolveSpecies: ResolveSpecies): LotC
       return value.trim();
     },
     step: (result, parser) => {
-      // meta.cursor is the offset where the record ends (before its line break).
-      const line = lineAt(result.meta.cursor) - progress.breaksInRecord;
+      // meta.cursor is the offset just past the record, including the line break that ends it.
+      const { cursor, linebreak } = result.meta;
+      const ended = body.slice(cursor - linebreak.length, cursor) === linebreak;
+      const line = lineAt(ended ? cursor - linebreak.length : cursor) - progress.breaksInRecord;
       progress.breaksInRecord = 0;
       if (headerErrors().length > 0) {
         parser.abort();

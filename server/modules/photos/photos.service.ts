@@ -9,7 +9,7 @@ import { processPhoto } from '../../photos/process-photo';
 import { removePhotoObjects, storeProcessedPhoto } from '../../photos/store-photo';
 import type { ObjectStore } from '../../storage/object-store';
 
-const SUBJECT_TABLE = { lot: 'lots', plant: 'parent_plants', tray: 'test_trays' } as const;
+const SUBJECT_TABLE = { lot: 'lots', plant: 'parent_plants' } as const;
 
 function toDto(row: { id: string; width: number; height: number; created_at: Date }): PhotoDto {
   return {
@@ -88,12 +88,21 @@ export function createPhotosService({ db, storage, logger }: { db: Db; storage: 
 
     /** Checks, processes and stores a photo; the row is written only once both objects are stored. */
     async upload(bankId: string, subject: PhotoSubject, subjectId: string, userId: string, input: Buffer) {
-      const owner = await db
-        .selectFrom(SUBJECT_TABLE[subject] as 'lots')
-        .select('id')
-        .where('id', '=', subjectId)
-        .where('bank_id', '=', bankId)
-        .executeTakeFirst();
+      const owner =
+        subject === 'tray'
+          ? await db
+              .selectFrom('test_trays')
+              .innerJoin('germination_tests', 'germination_tests.id', 'test_trays.test_id')
+              .select('test_trays.id')
+              .where('test_trays.id', '=', subjectId)
+              .where('germination_tests.bank_id', '=', bankId)
+              .executeTakeFirst()
+          : await db
+              .selectFrom(SUBJECT_TABLE[subject])
+              .select('id')
+              .where('id', '=', subjectId)
+              .where('bank_id', '=', bankId)
+              .executeTakeFirst();
       if (!owner) throw notFound(`No such ${subject} in this bank.`);
       const processed = await processPhoto(input);
       const photoId = crypto.randomUUID();

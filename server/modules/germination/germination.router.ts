@@ -1,0 +1,69 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import {
+  countsBodySchema,
+  createTestBodySchema,
+  finishBodySchema,
+  testDetailSchema,
+  updateTestBodySchema,
+} from '../../../shared/schemas/germination';
+import { isoDateSchema } from '../../../shared/schemas/common';
+import { requireRole } from '../../auth/bank-access';
+import { notFound, parse } from '../../http/errors';
+import { idParam } from '../../http/params';
+import { respond } from '../../http/respond';
+import type { GerminationService } from './germination.service';
+
+const detailQuery = z.object({ interval: z.enum(['wilson', 'clopper-pearson']).default('wilson') });
+
+/** /api/banks/:bankId/lots/:lotId/tests */
+export function lotTestRoutes(tests: GerminationService): Router {
+  const router = Router({ mergeParams: true });
+  const lotId = (req: { params: Record<string, unknown> }) => idParam(req.params.lotId, 'lot');
+  router.post('/', requireRole('grower'), async (req, res) => {
+    const body = parse(createTestBodySchema, req.body, 'germination test');
+    respond(res, 201, testDetailSchema, await tests.create(req.bank!.id, lotId(req), req.auth!.userId, body));
+  });
+  router.get('/', requireRole('viewer'), async (req, res) => {
+    respond(res, 200, z.object({ items: z.array(testDetailSchema), nextCursor: z.null() }), {
+      items: await tests.listForLot(req.bank!.id, lotId(req)),
+      nextCursor: null,
+    });
+  });
+  return router;
+}
+
+/** /api/banks/:bankId/tests/:testId… */
+export function testRoutes(tests: GerminationService): Router {
+  const router = Router({ mergeParams: true });
+  const testId = (req: { params: Record<string, unknown> }) => idParam(req.params.testId, 'test');
+  router.get('/:testId', requireRole('viewer'), async (req, res) => {
+    const { interval } = parse(detailQuery, req.query, 'query');
+    respond(res, 200, testDetailSchema, await tests.detail(req.bank!.id, testId(req), interval));
+  });
+  router.patch('/:testId', requireRole('grower'), async (req, res) => {
+    const body = parse(updateTestBodySchema, req.body, 'germination test');
+    respond(res, 200, testDetailSchema, await tests.update(req.bank!.id, testId(req), body));
+  });
+  router.delete('/:testId', requireRole('grower'), async (req, res) => {
+    await tests.remove(req.bank!.id, testId(req));
+    res.status(204).end();
+  });
+  router.post('/:testId/counts', requireRole('grower'), async (req, res) => {
+    const body = parse(countsBodySchema, req.body, 'counts');
+    respond(res, 201, testDetailSchema, await tests.recordCounts(req.bank!.id, testId(req), req.auth!.userId, body));
+  });
+  router.delete('/:testId/counts/:date', requireRole('grower'), async (req, res) => {
+    const date = isoDateSchema.safeParse(req.params.date);
+    if (!date.success) throw notFound('No counts on that date.');
+    respond(res, 200, testDetailSchema, await tests.deleteCounts(req.bank!.id, testId(req), date.data));
+  });
+  router.post('/:testId/finish', requireRole('grower'), async (req, res) => {
+    const body = parse(finishBodySchema, req.body, 'finish');
+    respond(res, 200, testDetailSchema, await tests.finish(req.bank!.id, testId(req), body));
+  });
+  router.post('/:testId/reopen', requireRole('grower'), async (req, res) => {
+    respond(res, 200, testDetailSchema, await tests.reopen(req.bank!.id, testId(req)));
+  });
+  return router;
+}

@@ -1,0 +1,339 @@
+import type { Updateable } from 'kysely';
+import type { z } from 'zod';
+import type { CountsBody, CreateTestBody, FinishBody, TestDetail, updateTestBodySchema } from '../../../shared/schemas/germination';
+import type { Clock } from '../../clock';
+import type { Db, DbOrTx } from '../../db/database';
+import type { GerminationTestTable } from '../../db/schema';
+import { AppError, conflict, notFound, unprocessable } from '../../http/errors';
+import { summarizeTest, type IntervalMethod } from '../../stats';
+import { findSpecies } from '../species/species.service';
+import { lockLot, stockOf } from '../lots/lots.repository';
+import { resultWords } from './result-words';
+
+const DAY_MS = 86_400_000;
+const isoDay = (d: Date) => d.toISOString().slice(0, 10);
+const daysBetween = (from: string, to: string) => Math.round((Date.parse(to) - Date.parse(from)) / DAY_MS);
+const addDays = (date: string, n: number) => isoDay(new Date(Date.parse(date) + n * DAY_MS));
+const num = (v: string | null) => (v === null ? null : Number(v));
+
+export interface GerminationDeps {
+  db: Db;
+  clock: Clock;
+  removeSubjectPhotos: (db: DbOrTx, bankId: string, subject: 'tray', subjectId: string) => Promise<() => Promise<void>>;
+}
+
+export async function lotHasTests(db: DbOrTx, lotId: string): Promise<boolean> {
+  const row = await db.selectFrom('germination_tests').select('id').where('lot_id', '=', lotId).limit(1).executeTakeFirst();
+  return Boolean(row);
+}
+
+export function createGerminationService({ db, clock, removeSubjectPhotos }: GerminationDeps) {
+  const today = () => isoDay(clock.now());
+
+  async function loadTest(on: DbOrTx, bankId: string, testId: string, lock = false) {
+    let q = on
+      .selectFrom('germination_tests')
+      .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
+      .innerJoin('species', 'species.id', 'lots.species_id')
+      .selectAll('germination_tests')
+      .select(['lots.code as lot_code', 'lots.variety', 'lots.species_id', 'species.common_name'])
+      .where('germination_tests.id', '=', testId)
+      .where('germination_tests.bank_id', '=', bankId);
+    if (lock) q = q.forUpdate('germination_tests');
+    const row = await q.executeTakeFirst();
+    if (!row) throw notFound('No such germination test in this bank.');
+    return row;
+  }
+
+  async function detail(bankId: string, testId: string, intervalMethod: IntervalMethod = 'wilson', on: DbOrTx = db): Promise<TestDetail> {
+    const t = await loadTest(on, bankId, testId);
+    const trays = await on.selectFrom('test_trays').selectAll().where('test_id', '=', testId).orderBy('position').execute();
+    const counts = trays.length
+      ? await on
+          .selectFrom('tray_counts')
+          .select(['tray_id', 'check_date', 'cumulative'])
+          .where('tray_id', 'in', trays.map((tr) => tr.id))
+          .orderBy('check_date')
+          .execute()
+      : [];
+    const species = await findSpecies(on, bankId, t.species_id);
+    const first = species?.traits.firstCountDay ?? null;
+    const final = species?.traits.finalCountDay ?? null;
+    const schedule = {
+      firstCountDate: first !== null ? addDays(t.start_date, first) : null,
+      finalCountDate: final !== null ? addDays(t.start_date, final) : null,
+    };
+    const summary = summarizeTest(
+      trays.map((tr) => ({
+        id: tr.id,
+        seedsSown: tr.seeds_sown,
+        checks: counts.filter((c) => c.tray_id === tr.id).map((c) => ({ day: daysBetween(t.start_date, c.check_date), cumulative: c.cumulative })),
+      })),
+      { intervalMethod },
+    );
+    return {
+      test: {
+        id: t.id,
+        lotId: t.lot_id,
+        lotCode: t.lot_code,
+        speciesName: t.common_name,
+        variety: t.variety,
+        startDate: t.start_date,
+        method: t.method,
+        medium: t.medium,
+        temperatureC: num(t.temperature_c),
+        lightHours: num(t.light_hours),
+        pretreatment: t.pretreatment,
+        pretreatmentDays: t.pretreatment_days,
+        notes: t.notes,
+        status: t.status,
+        finishedOn: t.finished_on,
+        schedule,
+        createdAt: t.created_at.toISOString(),
+      },
+      trays: trays.map((tr) => ({
+        id: tr.id,
+        position: tr.position,
+        seedsSown: tr.seeds_sown,
+        abnormal: tr.abnormal,
+        ungerminated: tr.ungerminated,
+        fresh: tr.fresh,
+        dead: tr.dead,
+        hard: tr.hard,
+      })),
+      counts: counts.map((c) => ({ trayId: c.tray_id, date: c.check_date, day: daysBetween(t.start_date, c.check_date), cumulative: c.cumulative })),
+      result: { ...summary, summary: resultWords(summary, schedule.firstCountDate) },
+    };
+  }
+
+  function assertRunning(t: { status: string }) {
+    if (t.status !== 'running') {
+      throw conflict('This test is finished and read-only. Reopen it to change its counts.', 'test_finished');
+    }
+  }
+
+  return {
+    detail,
+
+    async create(bankId: string, lotId: string, userId: string, body: CreateTestBody) {
+      if (body.startDate > today()) {
+        throw unprocessable('A test cannot start in the future.', { startDate: 'Use today or an earlier date.' });
+      }
+      const testId = await db.transaction().execute(async (trx) => {
+        const lot = await lockLot(trx, bankId, lotId);
+        if (!lot) throw notFound('No such lot in this bank.');
+        const needed = body.trays.reduce((s, t) => s + t.seedsSown, 0);
+        const onHand = await stockOf(trx, lotId);
+        if (onHand < needed) {
+          throw new AppError(
+            409,
+            'stock_short',
+            `The trays need ${needed} seeds but the ledger shows ${onHand} on hand. If you have more than that, record a correction in the stock ledger first.`,
+          );
+        }
+        const test = await trx
+          .insertInto('germination_tests')
+          .values({
+            bank_id: bankId,
+            lot_id: lotId,
+            start_date: body.startDate,
+            method: body.method,
+            medium: body.medium ?? null,
+            temperature_c: body.temperatureC ?? null,
+            light_hours: body.lightHours ?? null,
+            pretreatment: body.pretreatment ?? 'none',
+            pretreatment_days: body.pretreatmentDays ?? null,
+            notes: body.notes ?? null,
+            created_by: userId,
+          })
+          .returning('id')
+          .executeTakeFirstOrThrow();
+        await trx
+          .insertInto('test_trays')
+          .values(body.trays.map((t, i) => ({ test_id: test.id, position: i + 1, seeds_sown: t.seedsSown })))
+          .execute();
+        await trx
+          .insertInto('stock_movements')
+          .values({
+            lot_id: lotId,
+            kind: 'test',
+            change: -needed,
+            date: body.startDate,
+            reason: `Germination test: ${needed} seeds in ${body.trays.length} ${body.trays.length === 1 ? 'tray' : 'trays'}`,
+            created_by: userId,
+            test_id: test.id,
+          })
+          .execute();
+        if (onHand === needed && lot.status === 'active') {
+          await trx.updateTable('lots').set({ status: 'depleted' }).where('id', '=', lotId).execute();
+        }
+        return test.id;
+      });
+      return detail(bankId, testId);
+    },
+
+    async listForLot(bankId: string, lotId: string) {
+      const rows = await db
+        .selectFrom('germination_tests')
+        .select('id')
+        .where('bank_id', '=', bankId)
+        .where('lot_id', '=', lotId)
+        .orderBy('start_date', 'desc')
+        .execute();
+      return Promise.all(rows.map((r) => detail(bankId, r.id)));
+    },
+
+    async update(bankId: string, testId: string, body: z.infer<typeof updateTestBodySchema>) {
+      await db.transaction().execute(async (trx) => {
+        const t = await loadTest(trx, bankId, testId, true);
+        assertRunning(t);
+        const changes: Updateable<GerminationTestTable> = { updated_at: clock.now() };
+        if (body.method !== undefined) changes.method = body.method;
+        if (body.medium !== undefined) changes.medium = body.medium;
+        if (body.temperatureC !== undefined) changes.temperature_c = body.temperatureC;
+        if (body.lightHours !== undefined) changes.light_hours = body.lightHours;
+        if (body.pretreatment !== undefined) changes.pretreatment = body.pretreatment;
+        if (body.pretreatmentDays !== undefined) changes.pretreatment_days = body.pretreatmentDays;
+        if (body.notes !== undefined) changes.notes = body.notes;
+        await trx.updateTable('germination_tests').set(changes).where('id', '=', testId).execute();
+      });
+      return detail(bankId, testId);
+    },
+
+    /** Records (or corrects) the cumulative counts of one check date; every rule is checked first. */
+    async recordCounts(bankId: string, testId: string, userId: string, body: CountsBody) {
+      await db.transaction().execute(async (trx) => {
+        const t = await loadTest(trx, bankId, testId, true);
+        assertRunning(t);
+        if (body.date < t.start_date) {
+          throw unprocessable(`A count cannot be dated before the test started (${t.start_date}).`, { date: 'Use a date on or after the start.' });
+        }
+        if (body.date > today()) throw unprocessable('A count cannot be dated in the future.', { date: 'Use today or an earlier date.' });
+        const trays = await trx.selectFrom('test_trays').selectAll().where('test_id', '=', testId).execute();
+        const byId = new Map(trays.map((tr) => [tr.id, tr]));
+        const seen = new Set<string>();
+        for (const [index, entry] of body.trays.entries()) {
+          const tray = byId.get(entry.trayId);
+          const field = `trays.${index}.cumulative`;
+          if (!tray) throw unprocessable('That tray is not part of this test.', { [`trays.${index}.trayId`]: 'Not a tray of this test.' });
+          if (seen.has(tray.id)) throw unprocessable(`Tray ${tray.position} is listed twice.`, { [field]: 'Listed twice.' });
+          seen.add(tray.id);
+          if (entry.cumulative > tray.seeds_sown) {
+            throw unprocessable(`Tray ${tray.position}: ${entry.cumulative} sprouted is more than the ${tray.seeds_sown} seeds sown.`, {
+              [field]: `At most ${tray.seeds_sown}.`,
+            });
+          }
+          const others = await trx
+            .selectFrom('tray_counts')
+            .select(['check_date', 'cumulative'])
+            .where('tray_id', '=', tray.id)
+            .where('check_date', '<>', body.date)
+            .orderBy('check_date')
+            .execute();
+          const before = others.filter((c) => c.check_date < body.date).at(-1);
+          const after = others.find((c) => c.check_date > body.date);
+          if (before && entry.cumulative < before.cumulative) {
+            throw unprocessable(
+              `Tray ${tray.position}: ${entry.cumulative} is fewer than the ${before.cumulative} counted on ${before.check_date}. Counts are cumulative: give the total sprouted so far.`,
+              { [field]: `At least ${before.cumulative}.` },
+            );
+          }
+          if (after && entry.cumulative > after.cumulative) {
+            throw unprocessable(
+              `Tray ${tray.position}: ${entry.cumulative} is more than the ${after.cumulative} counted later, on ${after.check_date}. Correct that later count first.`,
+              { [field]: `At most ${after.cumulative}.` },
+            );
+          }
+          await trx
+            .insertInto('tray_counts')
+            .values({ tray_id: tray.id, check_date: body.date, cumulative: entry.cumulative, created_by: userId })
+            .onConflict((oc) => oc.columns(['tray_id', 'check_date']).doUpdateSet({ cumulative: entry.cumulative, created_by: userId }))
+            .execute();
+        }
+      });
+      return detail(bankId, testId);
+    },
+
+    /** Removes one check date's counts; cumulative order cannot break by removing a point. */
+    async deleteCounts(bankId: string, testId: string, date: string) {
+      await db.transaction().execute(async (trx) => {
+        const t = await loadTest(trx, bankId, testId, true);
+        assertRunning(t);
+        const trayIds = (await trx.selectFrom('test_trays').select('id').where('test_id', '=', testId).execute()).map((r) => r.id);
+        const res = await trx.deleteFrom('tray_counts').where('tray_id', 'in', trayIds).where('check_date', '=', date).executeTakeFirst();
+        if (!res.numDeletedRows) throw notFound(`No counts on ${date}.`);
+      });
+      return detail(bankId, testId);
+    },
+
+    async finish(bankId: string, testId: string, body: FinishBody) {
+      await db.transaction().execute(async (trx) => {
+        const t = await loadTest(trx, bankId, testId, true);
+        assertRunning(t);
+        const trays = await trx.selectFrom('test_trays').selectAll().where('test_id', '=', testId).orderBy('position').execute();
+        const counts = await trx
+          .selectFrom('tray_counts')
+          .select(['tray_id', 'check_date', 'cumulative'])
+          .where('tray_id', 'in', trays.map((tr) => tr.id))
+          .orderBy('check_date')
+          .execute();
+        const lastDate = counts.at(-1)?.check_date ?? t.start_date;
+        if (body.date < lastDate) throw unprocessable(`The test cannot finish before its last count (${lastDate}).`, { date: `On or after ${lastDate}.` });
+        if (body.date > today()) throw unprocessable('A test cannot finish in the future.', { date: 'Use today or an earlier date.' });
+        const given = new Map(body.trays.map((e, i) => [e.trayId, { ...e, index: i }]));
+        for (const tray of trays) {
+          const entry = given.get(tray.id);
+          if (!entry) throw unprocessable(`Give the abnormal and ungerminated seeds of tray ${tray.position} too.`);
+          const normal = counts.filter((c) => c.tray_id === tray.id).at(-1)?.cumulative ?? 0;
+          const total = normal + entry.abnormal + entry.ungerminated;
+          if (total !== tray.seeds_sown) {
+            throw unprocessable(
+              `Tray ${tray.position}: ${normal} normal + ${entry.abnormal} abnormal + ${entry.ungerminated} ungerminated = ${total}, but ${tray.seeds_sown} seeds were sown.`,
+              { [`trays.${entry.index}.ungerminated`]: `Should make the tray add up to ${tray.seeds_sown}.` },
+            );
+          }
+          const detailGiven = [entry.fresh, entry.dead, entry.hard].some((v) => v != null);
+          const split = (entry.fresh ?? 0) + (entry.dead ?? 0) + (entry.hard ?? 0);
+          if (detailGiven && split !== entry.ungerminated) {
+            throw unprocessable(
+              `Tray ${tray.position}: fresh + dead + hard seeds (${split}) should equal the ${entry.ungerminated} ungerminated.`,
+              { [`trays.${entry.index}.fresh`]: 'Should add up to the ungerminated seeds.' },
+            );
+          }
+          await trx
+            .updateTable('test_trays')
+            .set({ abnormal: entry.abnormal, ungerminated: entry.ungerminated, fresh: entry.fresh ?? null, dead: entry.dead ?? null, hard: entry.hard ?? null })
+            .where('id', '=', tray.id)
+            .execute();
+        }
+        if (body.trays.some((e) => !trays.some((tr) => tr.id === e.trayId))) throw unprocessable('A tray listed is not part of this test.');
+        await trx.updateTable('germination_tests').set({ status: 'finished', finished_on: body.date, updated_at: clock.now() }).where('id', '=', testId).execute();
+      });
+      return detail(bankId, testId);
+    },
+
+    async reopen(bankId: string, testId: string) {
+      await db.transaction().execute(async (trx) => {
+        const t = await loadTest(trx, bankId, testId, true);
+        if (t.status === 'running') throw conflict('This test is still running.', 'test_running');
+        await trx.updateTable('germination_tests').set({ status: 'running', finished_on: null, updated_at: clock.now() }).where('id', '=', testId).execute();
+      });
+      return detail(bankId, testId);
+    },
+
+    /** Deletes a test entered by mistake; its seeds go back to the lot with its ledger line. */
+    async remove(bankId: string, testId: string) {
+      const cleanups = await db.transaction().execute(async (trx) => {
+        await loadTest(trx, bankId, testId, true);
+        const trays = await trx.selectFrom('test_trays').select('id').where('test_id', '=', testId).execute();
+        const done = [];
+        for (const tray of trays) done.push(await removeSubjectPhotos(trx, bankId, 'tray', tray.id));
+        await trx.deleteFrom('germination_tests').where('id', '=', testId).execute();
+        return done;
+      });
+      for (const cleanup of cleanups) await cleanup();
+    },
+  };
+}
+
+export type GerminationService = ReturnType<typeof createGerminationService>;
