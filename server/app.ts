@@ -22,7 +22,7 @@ import { devRouter } from './modules/dev/dev.router';
 import { lotTestRoutes, testRoutes } from './modules/germination/germination.router';
 import { createGerminationService, lotHasTests } from './modules/germination/germination.service';
 import { invitationsRouter } from './modules/invitations/invitations.router';
-import { lotRoutes } from './modules/lots/lots.router';
+import { lotRoutes, lotsCsvExport } from './modules/lots/lots.router';
 import { createLotsService } from './modules/lots/lots.service';
 import { bankPhotoRoutes, photoFileRoutes, subjectPhotoRoutes } from './modules/photos/photos.router';
 import { createPhotosService } from './modules/photos/photos.service';
@@ -102,7 +102,8 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/lots/:lotId/tests', lotTestRoutes(services.germination));
   bank.use('/tests/:testId/trays/:trayId/photos', subjectPhotoRoutes(services.photos, 'tray', 'trayId'));
   bank.use('/tests', testRoutes(services.germination));
-  bank.use('/lots', lotRoutes(services.lots));
+  bank.use('/lots.csv', lotsCsvExport(services.lots));
+  bank.use('/lots', lotRoutes(services.lots, services.species.list));
   bank.use('/photos', bankPhotoRoutes(services.photos));
   bank.use('/', bankRoutes(services.banks, services.invitations));
   api.use('/banks/:bankId', bankAccess(deps.db), bank);

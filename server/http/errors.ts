@@ -9,6 +9,8 @@ export class AppError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: Record<string, string>,
+    /** Row-level problems of a file (CSV import), listed beside the message. */
+    readonly rows?: { line: number; column?: string; message: string }[],
   ) {
     super(message);
   }
@@ -82,6 +84,7 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
         code: appError.code,
         message: appError.message,
         ...(appError.fields ? { fields: appError.fields } : {}),
+        ...(appError.rows ? { rows: appError.rows } : {}),
       },
     });
   };

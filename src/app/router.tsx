@@ -1,16 +1,26 @@
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
-import { useMemo } from 'react';
-import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
+import { useEffect, useMemo } from 'react';
+import { createBrowserRouter, redirect, RouterProvider, type RouteObject } from 'react-router-dom';
 import { Loading } from '../components/ui/spinner';
-import { paths, type BankArea } from '../config/paths';
+import { paths } from '../config/paths';
+import { ensureMe } from '../features/auth/api/get-me';
 import { outboxQueryOptions } from '../features/dev-mail/api/get-outbox';
+import { bankLoader, homeLoader, membersLoader, redirectIfSignedIn, requireSignIn } from './loaders';
+import { AcceptInvitationPage } from './routes/invitations/accept';
+import { ForgotPasswordPage } from './routes/auth/forgot-password';
+import { ResetPasswordPage } from './routes/auth/reset-password';
+import { SignInPage } from './routes/auth/sign-in';
+import { SignUpPage } from './routes/auth/sign-up';
+import { BankLayout } from './routes/banks/bank-layout';
+import { MembersPage } from './routes/banks/members';
+import { NewBankPage } from './routes/banks/new-bank';
+import { SettingsPage } from './routes/banks/settings';
 import { ComingSoonPage } from './routes/coming-soon';
 import { HomePage } from './routes/home';
 import { NotFoundPage } from './routes/not-found';
 import { RootLayout } from './routes/root';
 import { RouteError } from './routes/route-error';
-
-const bankAreas: BankArea[] = ['overview', 'lots', 'planner', 'members', 'settings'];
+import { registerSignInNavigator } from './session';
 
 export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
   return [
@@ -25,8 +35,19 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
           // A page's error shows inside the shell, so the navigation stays usable.
           errorElement: <RouteError />,
           children: [
-            { index: true, element: <HomePage /> },
-            ...bankAreas.map((area) => ({ path: paths[area].path, element: <ComingSoonPage area={area} /> })),
+            // Open to everyone.
+            { path: paths.signIn.path, loader: redirectIfSignedIn(queryClient), element: <SignInPage /> },
+            { path: paths.signUp.path, loader: redirectIfSignedIn(queryClient), element: <SignUpPage /> },
+            { path: paths.forgotPassword.path, element: <ForgotPasswordPage /> },
+            { path: paths.resetPassword.path, element: <ResetPasswordPage /> },
+            {
+              path: paths.acceptInvitation.path,
+              loader: async () => {
+                await ensureMe(queryClient);
+                return null;
+              },
+              element: <AcceptInvitationPage />,
+            },
             {
               path: paths.devMail.path,
               // Start reading the mailbox while the page's code loads; errors show on the page.
@@ -36,6 +57,29 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               },
               lazy: async () => ({ Component: (await import('./routes/dev/mail')).DevMailPage }),
             },
+
+            // Signed in only.
+            {
+              loader: requireSignIn(queryClient),
+              children: [
+                { index: true, loader: homeLoader(queryClient), element: <HomePage /> },
+                { path: paths.newBank.path, element: <NewBankPage /> },
+                {
+                  path: paths.bank.path,
+                  loader: bankLoader(queryClient),
+                  element: <BankLayout />,
+                  children: [
+                    { index: true, loader: ({ params }) => redirect(paths.overview.getHref(params.bankId ?? '')) },
+                    { path: paths.overview.path, element: <ComingSoonPage area="overview" /> },
+                    { path: paths.lots.path, element: <ComingSoonPage area="lots" /> },
+                    { path: paths.planner.path, element: <ComingSoonPage area="planner" /> },
+                    { path: paths.members.path, loader: membersLoader(queryClient), element: <MembersPage /> },
+                    { path: paths.settings.path, element: <SettingsPage /> },
+                  ],
+                },
+              ],
+            },
+
             { path: '*', element: <NotFoundPage /> },
           ],
         },
@@ -47,5 +91,9 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
 export function AppRouter() {
   const queryClient = useQueryClient();
   const router = useMemo(() => createBrowserRouter(createAppRoutes(queryClient)), [queryClient]);
+  useEffect(
+    () => registerSignInNavigator((href, state) => void router.navigate(href, { replace: true, state })),
+    [router],
+  );
   return <RouterProvider router={router} />;
 }

@@ -1,14 +1,32 @@
 /*
- * Every client route in one place. Pages link through `getHref()`, so when the bank areas move
- * under `/banks/:bankId/…` only this file and the router change.
+ * Every client route in one place. Pages link through `getHref()`, so a route can move by
+ * changing only this file and the router.
  */
+
+/** `?next=` for the sign-in and sign-up pages, left off when there is nowhere to go back to. */
+function withNext(path: string, next?: string): string {
+  return next ? `${path}?next=${encodeURIComponent(next)}` : path;
+}
+
+const bankHref = (bankId: string, area: string) => `/banks/${encodeURIComponent(bankId)}/${area}`;
+
 export const paths = {
   home: { path: '/', getHref: () => '/' },
-  overview: { path: '/overview', getHref: () => '/overview' },
-  lots: { path: '/lots', getHref: () => '/lots' },
-  planner: { path: '/planner', getHref: () => '/planner' },
-  members: { path: '/members', getHref: () => '/members' },
-  settings: { path: '/settings', getHref: () => '/settings' },
+  signIn: { path: '/sign-in', getHref: (next?: string) => withNext('/sign-in', next) },
+  signUp: { path: '/sign-up', getHref: (next?: string) => withNext('/sign-up', next) },
+  forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
+  resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
+  acceptInvitation: {
+    path: '/invitations/accept',
+    getHref: (token: string) => `/invitations/accept?token=${encodeURIComponent(token)}`,
+  },
+  newBank: { path: '/banks/new', getHref: () => '/banks/new' },
+  bank: { path: '/banks/:bankId', getHref: (bankId: string) => `/banks/${encodeURIComponent(bankId)}` },
+  overview: { path: 'overview', getHref: (bankId: string) => bankHref(bankId, 'overview') },
+  lots: { path: 'lots', getHref: (bankId: string) => bankHref(bankId, 'lots') },
+  planner: { path: 'planner', getHref: (bankId: string) => bankHref(bankId, 'planner') },
+  members: { path: 'members', getHref: (bankId: string) => bankHref(bankId, 'members') },
+  settings: { path: 'settings', getHref: (bankId: string) => bankHref(bankId, 'settings') },
   devMail: {
     path: '/dev/mail',
     getHref: (messageId?: string) =>
@@ -18,3 +36,4 @@ export const paths = {
 
 /** The areas of a bank that the main navigation lists, in order. */
 export type BankArea = 'overview' | 'lots' | 'planner' | 'members' | 'settings';
+export const bankAreas: readonly BankArea[] = ['overview', 'lots', 'planner', 'members', 'settings'];

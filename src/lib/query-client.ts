@@ -1,4 +1,4 @@
-import { QueryClient, type DefaultOptions } from '@tanstack/react-query';
+import { MutationCache, QueryCache, QueryClient, type DefaultOptions } from '@tanstack/react-query';
 import { isApiError } from './api-client';
 
 /** Statuses where asking again will not change the answer. */
@@ -23,6 +23,22 @@ export const queryConfig = {
   },
 } satisfies DefaultOptions;
 
-export function createQueryClient(): QueryClient {
-  return new QueryClient({ defaultOptions: queryConfig });
+export interface QueryClientOptions {
+  /**
+   * Called when any query or mutation answers 401. The app decides whether the person was signed
+   * in (their session ended elsewhere) and, if so, clears the cache and sends them to sign in.
+   */
+  onUnauthenticated?: (client: QueryClient) => void;
+}
+
+export function createQueryClient(options: QueryClientOptions = {}): QueryClient {
+  const on401 = (error: unknown) => {
+    if (isApiError(error) && error.status === 401) options.onUnauthenticated?.(client);
+  };
+  const client: QueryClient = new QueryClient({
+    defaultOptions: queryConfig,
+    queryCache: new QueryCache({ onError: on401 }),
+    mutationCache: new MutationCache({ onError: on401 }),
+  });
+  return client;
 }

@@ -6,7 +6,10 @@ import type { Role } from '../../server/db/schema';
 export interface MatrixFixture {
   bankId: string;
   /** Ids of records made fresh for each call, so a destructive route has something to act on. */
-  make(kind: 'member' | 'invitation' | 'lot' | 'plant' | 'photo' | 'species'): Promise<string>;
+  make(kind: 'member' | 'invitation' | 'lot' | 'plant' | 'photo' | 'species' | 'test'): Promise<string>;
+  /** The trays of the test `make('test')` made last. */
+  lastTrayId(): string;
+  lastTrayIds(): string[];
   /** A small real JPEG for upload routes. */
   jpeg: Buffer;
   tomatoId: string;
@@ -17,8 +20,8 @@ export interface MatrixRoute {
   path: (f: MatrixFixture) => string | Promise<string>;
   body?: (f: MatrixFixture) => object;
   least: Role;
-  /** Multipart upload: the field name to attach the fixture's JPEG under. */
-  attach?: string;
+  /** Multipart upload: the field, the file and its name. */
+  attach?: (f: MatrixFixture) => [string, Buffer, string];
   /** The status a caller with enough role gets (defaults to any 2xx). */
   ok?: number;
   /** Where a role allowed to call the route still gets a business answer (e.g. last owner 409). */
@@ -134,7 +137,7 @@ export const bankRoutes: Record<string, MatrixRoute> = {
   'POST lot photo': {
     method: 'post',
     path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/photos`,
-    attach: 'photo',
+    attach: (f) => ['photo', f.jpeg, 'packet.jpg'],
     least: 'grower',
     ok: 201,
   },
@@ -143,6 +146,53 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     path: async (f) => `/api/banks/${f.bankId}/photos/${await f.make('photo')}`,
     least: 'grower',
     ok: 204,
+  },
+  'GET lots.csv': { method: 'get', path: (f) => `/api/banks/${f.bankId}/lots.csv`, least: 'viewer' },
+  'POST lots import': {
+    method: 'post',
+    path: (f) => `/api/banks/${f.bankId}/lots/import`,
+    attach: () => ['file', Buffer.from('species,variety,origin,harvest_date,seeds_on_hand\nTomato,Matrix,saved,2025-09-01,5\n'), 'lots.csv'],
+    least: 'grower',
+    ok: 200,
+  },
+  'POST lot test': {
+    method: 'post',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/tests`,
+    body: () => ({ startDate: '2026-02-20', method: 'paper towel', trays: [{ seedsSown: 2 }, { seedsSown: 2 }] }),
+    least: 'grower',
+    ok: 201,
+  },
+  'GET lot tests': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/tests`, least: 'viewer' },
+  'GET test': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/tests/${await f.make('test')}`, least: 'viewer' },
+  'PATCH test': {
+    method: 'patch',
+    path: async (f) => `/api/banks/${f.bankId}/tests/${await f.make('test')}`,
+    body: () => ({ notes: 'on the fridge top' }),
+    least: 'grower',
+  },
+  'DELETE test': { method: 'delete', path: async (f) => `/api/banks/${f.bankId}/tests/${await f.make('test')}`, least: 'grower', ok: 204 },
+  'POST counts': {
+    method: 'post',
+    path: async (f) => `/api/banks/${f.bankId}/tests/${await f.make('test')}/counts`,
+    body: (f) => ({ date: '2026-02-25', trays: [{ trayId: f.lastTrayId(), cumulative: 1 }] }),
+    least: 'grower',
+    ok: 201,
+  },
+  'POST finish': {
+    method: 'post',
+    path: async (f) => `/api/banks/${f.bankId}/tests/${await f.make('test')}/finish`,
+    body: (f) => ({ date: '2026-02-25', trays: f.lastTrayIds().map((trayId) => ({ trayId, abnormal: 0, ungerminated: 2 })) }),
+    least: 'grower',
+  },
+  'POST tray photo': {
+    method: 'post',
+    path: async (f) => {
+      const testId = await f.make('test');
+      return `/api/banks/${f.bankId}/tests/${testId}/trays/${f.lastTrayId()}/photos`;
+    },
+    attach: (f) => ['photo', f.jpeg, 'tray.jpg'],
+    least: 'grower',
+    ok: 201,
   },
   'POST leave': {
     method: 'post',

@@ -34,12 +34,25 @@ describe('the role matrix of bank routes', () => {
   async function setup() {
     const bank = await bankWithRoles(ctx.app, ctx.db);
     const owner = bank.owner.agent;
+    let trayIds: string[] = [];
     const fixture: MatrixFixture = {
       bankId: bank.bankId,
       jpeg,
       tomatoId,
+      lastTrayId: () => trayIds[0]!,
+      lastTrayIds: () => trayIds,
       async make(kind) {
         const base = `/api/banks/${bank.bankId}`;
+        if (kind === 'test') {
+          const lot = await owner
+            .post(`${base}/lots`)
+            .send({ speciesId: tomatoId, variety: 'Fixture', origin: 'saved', harvestDate: '2025-09-01', seedCount: 10 });
+          const test = await owner
+            .post(`${base}/lots/${lot.body.lot.id}/tests`)
+            .send({ startDate: '2026-02-20', method: 'paper towel', trays: [{ seedsSown: 2 }, { seedsSown: 2 }] });
+          trayIds = test.body.trays.map((t: { id: string }) => t.id);
+          return test.body.test.id as string;
+        }
         if (kind === 'lot' || kind === 'photo') {
           const lot = await owner
             .post(`${base}/lots`)
@@ -81,7 +94,7 @@ describe('the role matrix of bank routes', () => {
         const agent = agentFor(caller);
         const path = await route.path(fixture);
         let req = agent[route.method](path);
-        if (route.attach) req = req.attach(route.attach, fixture.jpeg, 'packet.jpg');
+        if (route.attach) req = req.attach(...route.attach(fixture));
         else if (route.body) req = req.send(route.body(fixture));
         got[caller] = (await req).status;
         want[caller] = expected(route, caller);

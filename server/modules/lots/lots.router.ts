@@ -9,7 +9,10 @@ import {
   updateLotBodySchema,
 } from '../../../shared/schemas/lots';
 import { requireRole } from '../../auth/bank-access';
-import { parse } from '../../http/errors';
+import multer from 'multer';
+import type { SpeciesDto } from '../../../shared/schemas/species';
+import { AppError, badRequest, parse } from '../../http/errors';
+import { lotsToCsv, parseLotsCsv } from './lots.csv';
 import { idParam } from '../../http/params';
 import { respond } from '../../http/respond';
 import type { LotsService } from './lots.service';
@@ -18,13 +21,53 @@ const one = z.object({ lot: lotSchema });
 const list = z.object({ items: z.array(lotSchema), nextCursor: z.string().nullable() });
 const ledger = z.object({ items: z.array(movementSchema), seedsOnHand: z.number() });
 
-export function lotRoutes(lots: LotsService): Router {
+const csvUpload = multer({ storage: multer.memoryStorage(), limits: { fileSize: 5 * 1024 * 1024, files: 1 } });
+const importQuery = z.object({ dryRun: z.stringbool().default(false) });
+
+/** Matches a CSV row's species to the bank's list: scientific name first, then common name. */
+function resolveSpecies(list: SpeciesDto[], name: { speciesName: string; scientificName: string | null }): string | null {
+  const sci = name.scientificName?.toLowerCase();
+  const common = name.speciesName.toLowerCase();
+  return (
+    (sci && list.find((s) => s.scientificName.toLowerCase() === sci && s.commonName.toLowerCase() === common)?.id) ||
+    (sci && list.find((s) => s.scientificName.toLowerCase() === sci)?.id) ||
+    list.find((s) => s.commonName.toLowerCase() === common)?.id ||
+    null
+  );
+}
+
+/** GET /api/banks/:bankId/lots.csv */
+export function lotsCsvExport(lots: LotsService): Router {
+  const router = Router({ mergeParams: true });
+  router.get('/', requireRole('viewer'), async (req, res) => {
+    const csv = lotsToCsv(await lots.exportRows(req.bank!.id));
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    res.setHeader('Content-Disposition', 'attachment; filename="hilum-lots.csv"');
+    res.send(csv);
+  });
+  return router;
+}
+
+export function lotRoutes(lots: LotsService, species_: (bankId: string) => Promise<SpeciesDto[]>): Router {
   const router = Router({ mergeParams: true });
   const lotId = (req: { params: Record<string, unknown> }) => idParam(req.params.lotId, 'lot');
 
   router.get('/', requireRole('viewer'), async (req, res) => {
     const query = parse(lotsListQuerySchema, req.query, 'query');
     respond(res, 200, list, await lots.list(req.bank!.id, query));
+  });
+  router.post('/import', requireRole('grower'), csvUpload.single('file'), async (req, res) => {
+    const { dryRun } = parse(importQuery, req.query, 'query');
+    if (!req.file) throw badRequest('Choose a CSV file to import.', { file: 'Choose a CSV file.' });
+    const species = await species_(req.bank!.id);
+    const parsed = parseLotsCsv(req.file.buffer.toString('utf8'), (name) => resolveSpecies(species, name));
+    if (!parsed.ok) {
+      throw new AppError(400, 'invalid_csv', `The file has ${parsed.errors.length} problem${parsed.errors.length === 1 ? '' : 's'}; nothing was imported.`, undefined, parsed.errors.slice(0, 200));
+    }
+    if (dryRun) {
+      return void res.json({ preview: parsed.rows.map((r) => ({ line: r.line, code: r.code, species: r.speciesName, variety: r.variety, seedsOnHand: r.seedsOnHand, harvestDate: r.harvestDate, packedForSeason: r.packedForSeason })) });
+    }
+    res.json({ imported: await lots.importRows(req.bank!.id, req.auth!.userId, parsed.rows) });
   });
   router.post('/', requireRole('grower'), async (req, res) => {
     const body = parse(createLotBodySchema, req.body, 'lot');

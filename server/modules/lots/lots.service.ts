@@ -2,7 +2,8 @@ import { sql } from 'kysely';
 import type { CreateLotBody, StockBody, UpdateLotBody } from '../../../shared/schemas/lots';
 import type { Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
-import type { LotTable } from '../../db/schema';
+import type { LotStatus, LotTable } from '../../db/schema';
+import type { LotCsvRow, ParsedLotCsvRow } from './lots.csv';
 import { AppError, badRequest, conflict, notFound } from '../../http/errors';
 import { requireSpecies } from '../species/species.service';
 import { codePrefix, nextCode } from './lot-code';
@@ -61,6 +62,74 @@ export function createLotsService(deps: LotsServiceDeps) {
     return out;
   }
 
+  /** Writes one lot and its first stock movement inside `trx`. */
+  async function insertLot(
+    trx: DbOrTx,
+    bankId: string,
+    userId: string,
+    body: CreateLotBody,
+    extra: { status?: LotStatus; quantityEstimated?: boolean; reason?: string } = {},
+  ): Promise<string> {
+    const species = await requireSpecies(trx, bankId, body.speciesId);
+    await checkParents(trx, bankId, body.parentPlantIds);
+    let seeds = body.seedCount ?? 0;
+    let estimated = extra.quantityEstimated ?? false;
+    if (body.grams !== undefined) {
+      const perGram = species.traits.seedsPerGram;
+      if (!perGram) {
+        throw badRequest('This species has no typical seeds per gram.', {
+          grams: `No seeds-per-gram figure for ${species.commonName}: count the seeds, or set it for the species.`,
+        });
+      }
+      seeds = Math.round(body.grams * perGram);
+      estimated = true;
+    }
+    const season = body.harvestDate ? Number(body.harvestDate.slice(0, 4)) : body.packedForSeason!;
+    const code = body.code ?? (await generateCode(trx, bankId, species.commonName, season));
+    let inserted;
+    try {
+      inserted = await repo.insertLot(trx, {
+        bank_id: bankId,
+        species_id: species.id,
+        code,
+        variety: body.variety,
+        origin: body.origin,
+        source_name: body.sourceName ?? null,
+        harvest_date: body.harvestDate ?? null,
+        packed_for_season: body.packedForSeason ?? null,
+        plants_bulked: body.plantsBulked ?? null,
+        ...storageColumns(body.storage),
+        quantity_estimated: estimated,
+        grams_entered: body.grams ?? null,
+        notes: body.notes ?? null,
+        created_by: userId,
+        ...(extra.status ? { status: extra.status } : {}),
+      });
+    } catch (error) {
+      if (uniqueViolation(error)) throw conflict(`The code ${code} is already used in this bank.`, 'duplicate_code');
+      throw error;
+    }
+    await repo.setParents(trx, inserted.id, body.parentPlantIds ?? []);
+    if (seeds > 0) {
+      await trx
+        .insertInto('stock_movements')
+        .values({
+          lot_id: inserted.id,
+          kind: 'initial',
+          change: seeds,
+          date: body.harvestDate ?? isoDay(clock.now()),
+          reason:
+            extra.reason ??
+            (body.grams !== undefined
+              ? `Estimated from ${body.grams} g at about ${species.traits.seedsPerGram} seeds per gram`
+              : 'Counted when the lot was logged'),
+          created_by: userId,
+        })
+        .execute();
+    }
+    return inserted.id;
+  }
+
   return {
     get,
 
@@ -89,64 +158,64 @@ export function createLotsService(deps: LotsServiceDeps) {
     },
 
     async create(bankId: string, userId: string, body: CreateLotBody) {
-      const lotId = await db.transaction().execute(async (trx) => {
-        const species = await requireSpecies(trx, bankId, body.speciesId);
-        await checkParents(trx, bankId, body.parentPlantIds);
-        let seeds = body.seedCount ?? 0;
-        let estimated = false;
-        if (body.grams !== undefined) {
-          const perGram = species.traits.seedsPerGram;
-          if (!perGram) {
-            throw badRequest('This species has no typical seeds per gram.', {
-              grams: `No seeds-per-gram figure for ${species.commonName}: count the seeds, or set it for the species.`,
-            });
-          }
-          seeds = Math.round(body.grams * perGram);
-          estimated = true;
-        }
-        const season = body.harvestDate ? Number(body.harvestDate.slice(0, 4)) : body.packedForSeason!;
-        const code = body.code ?? (await generateCode(trx, bankId, species.commonName, season));
-        let inserted;
-        try {
-          inserted = await repo.insertLot(trx, {
-            bank_id: bankId,
-            species_id: species.id,
-            code,
-            variety: body.variety,
-            origin: body.origin,
-            source_name: body.sourceName ?? null,
-            harvest_date: body.harvestDate ?? null,
-            packed_for_season: body.packedForSeason ?? null,
-            plants_bulked: body.plantsBulked ?? null,
-            ...storageColumns(body.storage),
-            quantity_estimated: estimated,
-            grams_entered: body.grams ?? null,
-            notes: body.notes ?? null,
-            created_by: userId,
-          });
-        } catch (error) {
-          if (uniqueViolation(error)) throw conflict(`The code ${code} is already used in this bank.`, 'duplicate_code');
-          throw error;
-        }
-        await repo.setParents(trx, inserted.id, body.parentPlantIds ?? []);
-        if (seeds > 0) {
-          await trx
-            .insertInto('stock_movements')
-            .values({
-              lot_id: inserted.id,
-              kind: 'initial',
-              change: seeds,
-              date: body.harvestDate ?? isoDay(clock.now()),
-              reason: estimated
-                ? `Estimated from ${body.grams} g at about ${species.traits.seedsPerGram} seeds per gram`
-                : 'Counted when the lot was logged',
-              created_by: userId,
-            })
-            .execute();
-        }
-        return inserted.id;
-      });
+      const lotId = await db.transaction().execute((trx) => insertLot(trx, bankId, userId, body));
       return get(bankId, lotId);
+    },
+
+    async exportRows(bankId: string): Promise<LotCsvRow[]> {
+      const rows = await repo.lotsQuery(db, bankId).orderBy(sql`lower(lots.code)`).execute();
+      return rows.map(repo.toLotDto).map((l) => ({
+        code: l.code,
+        speciesName: l.speciesName,
+        scientificName: l.scientificName,
+        variety: l.variety,
+        origin: l.origin,
+        sourceName: l.sourceName,
+        harvestDate: l.harvestDate,
+        packedForSeason: l.packedForSeason,
+        seedsOnHand: l.seedsOnHand,
+        quantityEstimated: l.quantityEstimated,
+        plantsBulked: l.plantsBulked,
+        storagePlace: l.storage.place,
+        storageLocation: l.storage.location,
+        storageTempC: l.storage.temperatureC,
+        storageHumidityPct: l.storage.humidityPct,
+        status: l.status,
+        notes: l.notes,
+      }));
+    },
+
+    /** Imports parsed CSV rows in one transaction: every lot, or none. */
+    async importRows(bankId: string, userId: string, rows: ParsedLotCsvRow[]) {
+      return db.transaction().execute(async (trx) => {
+        const taken = new Set((await trx.selectFrom('lots').select('code').where('bank_id', '=', bankId).execute()).map((r) => r.code.toLowerCase()));
+        const clashes = rows.filter((r) => r.code && taken.has(r.code.toLowerCase()));
+        if (clashes.length) {
+          throw new AppError(
+            400,
+            'invalid_csv',
+            `${clashes.length} code${clashes.length === 1 ? ' is' : 's are'} already used in this bank; nothing was imported.`,
+            undefined,
+            clashes.map((r) => ({ line: r.line, column: 'code', message: `The code ${r.code} is already used in this bank.` })),
+          );
+        }
+        for (const row of rows) {
+          await insertLot(trx, bankId, userId, {
+            speciesId: row.speciesId,
+            variety: row.variety,
+            origin: row.origin,
+            sourceName: row.sourceName,
+            harvestDate: row.harvestDate,
+            packedForSeason: row.packedForSeason,
+            plantsBulked: row.plantsBulked,
+            storage: { place: row.storagePlace, location: row.storageLocation, temperatureC: row.storageTempC, humidityPct: row.storageHumidityPct },
+            notes: row.notes,
+            ...(row.code ? { code: row.code } : {}),
+            seedCount: row.seedsOnHand,
+          }, { status: row.status, quantityEstimated: row.quantityEstimated, reason: 'Imported from a CSV file' });
+        }
+        return rows.length;
+      });
     },
 
     async update(bankId: string, lotId: string, body: UpdateLotBody) {

@@ -1,4 +1,4 @@
-import { Link } from 'react-router-dom';
+import { Link, useParams } from 'react-router-dom';
 import { buttonStyles } from '../../components/ui/button';
 import { EmptyState } from '../../components/ui/empty-state';
 import { PageHeader } from '../../components/ui/page-header';
@@ -39,6 +39,7 @@ export interface ComingSoonPageProps {
 /** Stands in for a bank area that is not built yet. */
 export function ComingSoonPage({ area }: ComingSoonPageProps) {
   const page = areas[area];
+  const { bankId } = useParams();
   return (
     <>
       <PageHeader title={page.title} description={page.description} />
@@ -46,9 +47,15 @@ export function ComingSoonPage({ area }: ComingSoonPageProps) {
         title="Coming soon in this bank"
         description={page.soon}
         action={
-          <Link to={paths.home.getHref()} className={buttonStyles({ variant: 'secondary' })}>
-            Back to the start page
-          </Link>
+          bankId && area !== 'members' ? (
+            <Link to={paths.members.getHref(bankId)} className={buttonStyles({ variant: 'secondary' })}>
+              See who shares this bank
+            </Link>
+          ) : (
+            <Link to={paths.home.getHref()} className={buttonStyles({ variant: 'secondary' })}>
+              Back to the start page
+            </Link>
+          )
         }
       />
     </>

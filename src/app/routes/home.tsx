@@ -1,6 +1,10 @@
+import { Link } from 'react-router-dom';
+import { buttonStyles } from '../../components/ui/button';
 import { Card } from '../../components/ui/card';
+import { EmptyState } from '../../components/ui/empty-state';
 import { PageHeader } from '../../components/ui/page-header';
-import { HealthStatus } from '../../features/health/components/health-status';
+import { paths } from '../../config/paths';
+import { useMe } from '../../features/auth/api/get-me';
 
 const upcoming: ReadonlyArray<{ title: string; text: string }> = [
   {
@@ -17,17 +21,31 @@ const upcoming: ReadonlyArray<{ title: string; text: string }> = [
   },
 ];
 
+/**
+ * `/` for someone who belongs to no bank yet (everyone else is sent on to their bank's overview
+ * by the route's loader).
+ */
 export function HomePage() {
+  const me = useMe();
+  const firstName = me.data?.user.name.split(' ')[0];
   return (
     <>
       <PageHeader
-        eyebrow="Seed bank and germination ledger"
-        title="Hilum is running"
-        description="The app has loaded in this browser. The bank’s own pages arrive one by one; until then, here is how the server is doing."
+        eyebrow="Welcome to Hilum"
+        title={firstName ? `Good to see you, ${firstName}` : 'Welcome'}
+        description="Everything in Hilum lives in a seed bank: one household’s collection, or a circle’s shared one."
       />
       <div className="grid gap-6">
-        <HealthStatus />
-        <Card title="What Hilum will keep for you">
+        <EmptyState
+          title="You are not in a seed bank yet"
+          description="Start one for your own seeds — you will be its owner and can invite others. If someone invited you to theirs, open the link in their e-mail and it will bring you straight in."
+          action={
+            <Link to={paths.newBank.getHref()} className={buttonStyles({ size: 'lg' })}>
+              Start a new bank
+            </Link>
+          }
+        />
+        <Card title="What a bank keeps for you">
           <ol className="grid gap-4 sm:grid-cols-3">
             {upcoming.map((item, index) => (
               <li key={item.title} className="flex gap-3">

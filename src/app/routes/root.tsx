@@ -1,14 +1,61 @@
-import { Outlet, ScrollRestoration, useNavigation } from 'react-router-dom';
+import { useState } from 'react';
+import { Outlet, ScrollRestoration, useMatches, useNavigate, useNavigation } from 'react-router-dom';
 import { AppShell } from '../../components/layout/app-shell';
+import { paths } from '../../config/paths';
+import { useMe } from '../../features/auth/api/get-me';
+import { useLogout } from '../../features/auth/api/logout';
 import { isNonProduction, useHealth } from '../../features/health/api/get-health';
+import type { SignInState } from '../session';
 
-/** The root layout: the shell around every page, with the dev links only where they can work. */
+/** The bank whose pages are open, from the deepest route that names one. */
+function useCurrentBankId(): string | undefined {
+  const matches = useMatches();
+  for (let i = matches.length - 1; i >= 0; i -= 1) {
+    const bankId = matches[i]?.params.bankId;
+    if (bankId) return bankId;
+  }
+  return undefined;
+}
+
+/** The root layout: the shell around every page, with the person's banks and account menu. */
 export function RootLayout() {
   const health = useHealth();
+  const me = useMe();
   const navigation = useNavigation();
+  const navigate = useNavigate();
+  const logout = useLogout();
+  const [signingOut, setSigningOut] = useState<'here' | 'everywhere'>();
   const showDevLinks = import.meta.env.DEV || isNonProduction(health.data);
+  const currentBankId = useCurrentBankId();
+  const user = me.data?.user;
+  const inBank = currentBankId !== undefined && me.data?.memberships.some((m) => m.bankId === currentBankId);
+
+  const signOut = async (everywhere: boolean) => {
+    setSigningOut(everywhere ? 'everywhere' : 'here');
+    try {
+      await logout.mutateAsync({ everywhere });
+      const state: SignInState = { reason: 'signed-out' };
+      await navigate(paths.signIn.getHref(), { replace: true, state });
+    } catch {
+      // The menu shows the failure; the person stays signed in.
+    } finally {
+      setSigningOut(undefined);
+    }
+  };
+
   return (
-    <AppShell showDevLinks={showDevLinks} isNavigating={navigation.state === 'loading'}>
+    <AppShell
+      showDevLinks={showDevLinks}
+      isNavigating={navigation.state === 'loading'}
+      account={{
+        user,
+        onSignOut: (everywhere) => void signOut(everywhere),
+        signingOut,
+        signOutError: logout.error?.message,
+      }}
+      banks={user ? me.data?.memberships : undefined}
+      currentBankId={inBank ? currentBankId : undefined}
+    >
       <Outlet />
       <ScrollRestoration />
     </AppShell>

@@ -1,5 +1,6 @@
 import { isRouteErrorResponse, useRouteError } from 'react-router-dom';
 import { describeError, ErrorFallback } from '../../components/errors/error-fallback';
+import { isApiError } from '../../lib/api-client';
 import { NotFoundContent } from './not-found';
 
 export interface RouteErrorProps {
@@ -10,7 +11,8 @@ export interface RouteErrorProps {
 /** The router's errorElement: a 404 from a loader reads as "not found", anything else as a failure. */
 export function RouteError({ fullPage = false }: RouteErrorProps) {
   const error = useRouteError();
-  if (isRouteErrorResponse(error) && error.status === 404) {
+  // A loader's "not found", or a page whose bank disappeared under it (deleted, or you were removed).
+  if ((isRouteErrorResponse(error) && error.status === 404) || (isApiError(error) && error.status === 404)) {
     return fullPage ? (
       <div className="mx-auto max-w-3xl p-6">
         <NotFoundContent />

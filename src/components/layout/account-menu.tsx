@@ -1,41 +1,44 @@
-import { useEffect, useId, useRef, useState } from 'react';
-import { useLocation } from 'react-router-dom';
+import { useId } from 'react';
+import { Link, useLocation } from 'react-router-dom';
+import { paths } from '../../config/paths';
 import { cn } from '../../lib/cn';
+import { buttonStyles, Button } from '../ui/button';
 import { AccountIcon, ChevronDownIcon } from './icons';
+import { useDisclosure } from './use-disclosure';
 
-/**
- * Placeholder for the signed-in person's menu (name, banks, sign out). It is a disclosure, not an
- * ARIA menu: a button that shows and hides a panel, closed by Escape, a click outside or navigation.
- */
-export function AccountMenu() {
-  const location = useLocation();
-  const here = location.pathname + location.search;
-  // Remember where the panel was opened: moving to another page closes it without an effect.
-  const [openedAt, setOpenedAt] = useState<string | null>(null);
-  const open = openedAt === here;
-  const setOpen = (value: boolean) => setOpenedAt(value ? here : null);
+export interface AccountMenuUser {
+  name: string;
+  email: string;
+}
+
+export interface AccountMenuProps {
+  /** The signed-in person, or undefined when nobody is signed in. */
+  user: AccountMenuUser | undefined;
+  onSignOut: (everywhere: boolean) => void;
+  /** Which sign-out is under way, to show it on its button. */
+  signingOut?: 'here' | 'everywhere' | undefined;
+  signOutError?: string | undefined;
+}
+
+/** The person's name and e-mail with the two ways to sign out; sign-in links when signed out. */
+export function AccountMenu({ user, onSignOut, signingOut, signOutError }: AccountMenuProps) {
+  const { open, setOpen, rootRef, buttonRef } = useDisclosure();
   const panelId = useId();
-  const rootRef = useRef<HTMLDivElement>(null);
-  const buttonRef = useRef<HTMLButtonElement>(null);
+  const location = useLocation();
+  const onAuthPage = location.pathname === paths.signIn.path || location.pathname === paths.signUp.path;
 
-  useEffect(() => {
-    if (!open) return;
-    function onPointerDown(event: PointerEvent) {
-      if (rootRef.current && !rootRef.current.contains(event.target as Node)) setOpenedAt(null);
-    }
-    function onKeyDown(event: KeyboardEvent) {
-      if (event.key === 'Escape') {
-        setOpenedAt(null);
-        buttonRef.current?.focus();
-      }
-    }
-    document.addEventListener('pointerdown', onPointerDown);
-    document.addEventListener('keydown', onKeyDown);
-    return () => {
-      document.removeEventListener('pointerdown', onPointerDown);
-      document.removeEventListener('keydown', onKeyDown);
-    };
-  }, [open]);
+  if (!user) {
+    if (onAuthPage) return null;
+    // Come back to this page afterwards (an invitation waiting to be accepted, say).
+    const noReturn: readonly string[] = [paths.home.path, paths.forgotPassword.path, paths.resetPassword.path];
+    const staysPut = noReturn.includes(location.pathname);
+    const here = staysPut ? undefined : location.pathname + location.search;
+    return (
+      <Link to={paths.signIn.getHref(here)} className={buttonStyles({ variant: 'secondary' })}>
+        Sign in
+      </Link>
+    );
+  }
 
   return (
     <div ref={rootRef} className="relative">
@@ -52,18 +55,42 @@ export function AccountMenu() {
         )}
       >
         <AccountIcon />
-        <span className="sr-only sm:not-sr-only sm:font-semibold">Account</span>
+        <span className="sr-only lg:not-sr-only lg:max-w-40 lg:truncate lg:font-semibold">Account</span>
         <ChevronDownIcon />
       </button>
       <div
         id={panelId}
         hidden={!open}
-        className="absolute right-0 z-30 mt-2 w-64 rounded-xl border border-loam-200 bg-white p-4 shadow-lg shadow-loam-900/10"
+        className="absolute right-0 z-30 mt-2 w-72 max-w-[calc(100vw-1.5rem)] rounded-xl border border-loam-200 bg-white p-4 shadow-lg shadow-loam-900/10"
       >
-        <p className="font-semibold text-loam-900">Not signed in</p>
-        <p className="mt-1 text-sm text-loam-600">
-          Signing in, your banks and signing out will live here once accounts arrive.
-        </p>
+        <p className="text-sm text-loam-600">Signed in as</p>
+        <p className="font-semibold text-loam-900">{user.name}</p>
+        <p className="break-all text-sm text-loam-700">{user.email}</p>
+        {signOutError ? (
+          <p role="alert" className="mt-3 text-sm font-semibold text-clay-700">
+            {signOutError}
+          </p>
+        ) : null}
+        <div className="mt-4 grid gap-2">
+          <Button
+            variant="secondary"
+            fullWidth
+            isLoading={signingOut === 'here'}
+            disabled={signingOut !== undefined}
+            onClick={() => onSignOut(false)}
+          >
+            Sign out
+          </Button>
+          <Button
+            variant="quiet"
+            fullWidth
+            isLoading={signingOut === 'everywhere'}
+            disabled={signingOut !== undefined}
+            onClick={() => onSignOut(true)}
+          >
+            Sign out on every device
+          </Button>
+        </div>
       </div>
     </div>
   );

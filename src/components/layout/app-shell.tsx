@@ -2,10 +2,11 @@ import type { ReactNode } from 'react';
 import { Link, NavLink } from 'react-router-dom';
 import { paths } from '../../config/paths';
 import { cn } from '../../lib/cn';
-import { AccountMenu } from './account-menu';
-import { HilumWordmark } from './hilum-mark';
+import { AccountMenu, type AccountMenuProps } from './account-menu';
+import { BankSwitcher, type SwitcherBank } from './bank-switcher';
+import { HilumMark } from './hilum-mark';
 import { MailIcon } from './icons';
-import { navItems } from './nav-items';
+import { bankNavItems } from './nav-items';
 
 export interface AppShellProps {
   children: ReactNode;
@@ -13,14 +14,30 @@ export interface AppShellProps {
   showDevLinks?: boolean;
   /** Shows a thin progress bar under the header while a route is loading. */
   isNavigating?: boolean;
+  /** The signed-in person and their sign-out actions for the account menu. */
+  account: AccountMenuProps;
+  /** The person's banks for the switcher; undefined when nobody is signed in. */
+  banks?: readonly SwitcherBank[] | undefined;
+  /** The bank whose pages are open; its sections fill the navigation. */
+  currentBankId?: string | undefined;
 }
 
 /**
- * The frame around every page: header with the wordmark, the bank's sections and the account menu.
- * From 768 px the sections sit in the header; on a phone they move to a bar at the bottom, in reach
- * of a thumb.
+ * The frame around every page: header with the mark, the bank switcher, the bank's sections and the
+ * account menu. From 1024 px the sections sit in the header; below that they move to a bar at the
+ * bottom, in reach of a thumb. Outside a bank (signing in, starting a bank) there are no sections.
  */
-export function AppShell({ children, showDevLinks = false, isNavigating = false }: AppShellProps) {
+export function AppShell({
+  children,
+  showDevLinks = false,
+  isNavigating = false,
+  account,
+  banks,
+  currentBankId,
+}: AppShellProps) {
+  const navItems = currentBankId ? bankNavItems(currentBankId) : [];
+  const hasNav = navItems.length > 0;
+  const hasSwitcher = banks !== undefined && banks.length > 0;
   return (
     <div className="flex min-h-dvh flex-col">
       <a
@@ -31,16 +48,26 @@ export function AppShell({ children, showDevLinks = false, isNavigating = false 
       </a>
 
       <header className="sticky top-0 z-20 border-b border-husk-300 bg-husk-100/95 backdrop-blur supports-[backdrop-filter]:bg-husk-100/85">
-        <div className="mx-auto flex h-16 max-w-6xl items-center gap-4 px-3 sm:px-6">
+        <div className="mx-auto flex h-16 max-w-6xl items-center gap-2 px-3 sm:gap-4 sm:px-6">
           <Link
             to={paths.home.getHref()}
-            className="-ml-1 inline-flex min-h-11 items-center rounded-lg px-1"
+            className="-ml-1 inline-flex min-h-11 shrink-0 items-center gap-2 rounded-lg px-1"
             aria-label="Hilum, start page"
           >
-            <HilumWordmark />
+            <HilumMark className="size-9" />
+            <span
+              className={cn(
+                'text-2xl font-bold tracking-tight text-loam-950',
+                hasSwitcher && 'hidden sm:inline',
+              )}
+            >
+              Hilum
+            </span>
           </Link>
 
-          <nav aria-label="Bank" className="hidden md:block">
+          {hasSwitcher ? <BankSwitcher banks={banks} currentBankId={currentBankId} /> : null}
+
+          <nav aria-label="Bank" className={cn('hidden', hasNav && 'lg:block')}>
             <ul className="flex items-center gap-1">
               {navItems.map((item) => (
                 <li key={item.area}>
@@ -62,7 +89,7 @@ export function AppShell({ children, showDevLinks = false, isNavigating = false 
             </ul>
           </nav>
 
-          <div className="ml-auto flex items-center gap-1">
+          <div className="ml-auto flex shrink-0 items-center gap-1">
             {showDevLinks ? (
               <NavLink
                 to={paths.devMail.getHref()}
@@ -76,12 +103,11 @@ export function AppShell({ children, showDevLinks = false, isNavigating = false 
                 }
               >
                 <MailIcon />
-                <span>
-                  Dev mail<span className="sr-only"> (development mailbox)</span>
-                </span>
+                <span className="sr-only sm:not-sr-only">Dev mail</span>
+                <span className="sr-only"> (development mailbox)</span>
               </NavLink>
             ) : null}
-            <AccountMenu />
+            <AccountMenu {...account} />
           </div>
         </div>
       </header>
@@ -97,14 +123,18 @@ export function AppShell({ children, showDevLinks = false, isNavigating = false 
       <main
         id="main"
         tabIndex={-1}
-        className="mx-auto w-full max-w-6xl flex-1 px-4 pb-28 pt-6 outline-none sm:px-6 md:pb-12"
+        className={cn(
+          'mx-auto w-full max-w-6xl flex-1 px-4 pt-6 outline-none sm:px-6',
+          hasNav ? 'pb-28 lg:pb-12' : 'pb-12',
+        )}
       >
         {children}
       </main>
 
+      {hasNav ? (
       <nav
         aria-label="Bank"
-        className="fixed inset-x-0 bottom-0 z-20 border-t border-husk-300 bg-husk-100 pb-[env(safe-area-inset-bottom)] md:hidden"
+        className="fixed inset-x-0 bottom-0 z-20 border-t border-husk-300 bg-husk-100 pb-[env(safe-area-inset-bottom)] lg:hidden"
       >
         <ul className="grid grid-cols-5">
           {navItems.map((item) => (
@@ -136,6 +166,7 @@ export function AppShell({ children, showDevLinks = false, isNavigating = false 
           ))}
         </ul>
       </nav>
+      ) : null}
     </div>
   );
 }

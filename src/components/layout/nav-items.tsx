@@ -9,10 +9,13 @@ export interface NavItem {
   icon: ReactNode;
 }
 
-export const navItems: readonly NavItem[] = [
-  { area: 'overview', label: 'Overview', href: paths.overview.getHref(), icon: <OverviewIcon /> },
-  { area: 'lots', label: 'Lots', href: paths.lots.getHref(), icon: <LotsIcon /> },
-  { area: 'planner', label: 'Planner', href: paths.planner.getHref(), icon: <PlannerIcon /> },
-  { area: 'members', label: 'Members', href: paths.members.getHref(), icon: <MembersIcon /> },
-  { area: 'settings', label: 'Settings', href: paths.settings.getHref(), icon: <SettingsIcon /> },
-];
+/** The sections of one bank, in the order the navigation lists them. */
+export function bankNavItems(bankId: string): NavItem[] {
+  return [
+    { area: 'overview', label: 'Overview', href: paths.overview.getHref(bankId), icon: <OverviewIcon /> },
+    { area: 'lots', label: 'Lots', href: paths.lots.getHref(bankId), icon: <LotsIcon /> },
+    { area: 'planner', label: 'Planner', href: paths.planner.getHref(bankId), icon: <PlannerIcon /> },
+    { area: 'members', label: 'Members', href: paths.members.getHref(bankId), icon: <MembersIcon /> },
+    { area: 'settings', label: 'Settings', href: paths.settings.getHref(bankId), icon: <SettingsIcon /> },
+  ];
+}

@@ -1,0 +1,40 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useNavigate } from 'react-router-dom';
+import { Card } from '../../../components/ui/card';
+import { PageHeader } from '../../../components/ui/page-header';
+import { paths } from '../../../config/paths';
+import { authKeys } from '../../../features/auth/api/keys';
+import { BankSettingsForm } from '../../../features/banks/components/bank-settings-form';
+import { DeleteBankCard } from '../../../features/banks/components/delete-bank-card';
+import { useRouteBank } from './use-route-bank';
+
+export function SettingsPage() {
+  const { bank, role } = useRouteBank();
+  const queryClient = useQueryClient();
+  const navigate = useNavigate();
+  const isOwner = role === 'owner';
+
+  return (
+    <div className="mx-auto w-full max-w-3xl">
+      <PageHeader
+        eyebrow={bank.name}
+        title="Settings"
+        description="The dates and margins the planner counts from, and the bank’s time zone."
+      />
+      <div className="grid gap-6">
+        <Card title="Bank and frost dates">
+          <BankSettingsForm key={bank.id} bank={bank} canEdit={isOwner} />
+        </Card>
+        {isOwner ? (
+          <DeleteBankCard
+            bank={bank}
+            onDeleted={async () => {
+              await queryClient.invalidateQueries({ queryKey: authKeys.me(), refetchType: 'all' });
+              await navigate(paths.home.getHref(), { replace: true });
+            }}
+          />
+        ) : null}
+      </div>
+    </div>
+  );
+}

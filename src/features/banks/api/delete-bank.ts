@@ -1,0 +1,20 @@
+import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/react-query';
+import { apiFetch } from '../../../lib/api-client';
+import { apiPaths, bankKeys } from './keys';
+
+/** DELETE /api/banks/:bankId (owner): the bank and everything in it. */
+export async function deleteBank(bankId: string): Promise<void> {
+  await apiFetch(apiPaths.bank(bankId), { method: 'DELETE' });
+}
+
+export function useDeleteBank(bankId: string, options: Pick<UseMutationOptions<void, Error, void>, 'onSuccess'> = {}) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => deleteBank(bankId),
+    onSuccess: async (...args) => {
+      // The caller moves away first; only then is the bank's data dropped, so no page refetches it.
+      await options.onSuccess?.(...args);
+      queryClient.removeQueries({ queryKey: bankKeys.detail(bankId) });
+    },
+  });
+}

@@ -1,0 +1,19 @@
+import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/react-query';
+import { apiFetch } from '../../../lib/api-client';
+import { apiPaths, bankKeys } from './keys';
+
+/** POST /api/banks/:bankId/leave: the caller leaves; 409 last_owner for the last owner. */
+export async function leaveBank(bankId: string): Promise<void> {
+  await apiFetch(apiPaths.leave(bankId), { method: 'POST' });
+}
+
+export function useLeaveBank(bankId: string, options: Pick<UseMutationOptions<void, Error, void>, 'onSuccess'> = {}) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => leaveBank(bankId),
+    onSuccess: async (...args) => {
+      await options.onSuccess?.(...args);
+      queryClient.removeQueries({ queryKey: bankKeys.detail(bankId) });
+    },
+  });
+}

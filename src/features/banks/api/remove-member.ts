@@ -1,0 +1,19 @@
+import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/react-query';
+import { apiFetch } from '../../../lib/api-client';
+import { apiPaths, bankKeys } from './keys';
+
+/** DELETE /api/banks/:bankId/members/:userId (owner); 409 last_owner for the last owner. */
+export async function removeMember(bankId: string, userId: string): Promise<void> {
+  await apiFetch(apiPaths.member(bankId, userId), { method: 'DELETE' });
+}
+
+export function useRemoveMember(bankId: string, options: Pick<UseMutationOptions<void, Error, string>, 'onSuccess'> = {}) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (userId: string) => removeMember(bankId, userId),
+    onSuccess: async (...args) => {
+      await queryClient.invalidateQueries({ queryKey: bankKeys.members(bankId) });
+      await options.onSuccess?.(...args);
+    },
+  });
+}

@@ -1,0 +1,24 @@
+import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/react-query';
+import { bankResponseSchema, type UpdateBankBody } from '../../../../shared/schemas/banks';
+import { apiFetch } from '../../../lib/api-client';
+import type { BankResponse } from './get-bank';
+import { apiPaths, bankKeys } from './keys';
+
+/** PATCH /api/banks/:bankId (owner). */
+export function updateBank(bankId: string, body: UpdateBankBody): Promise<BankResponse> {
+  return apiFetch(apiPaths.bank(bankId), { method: 'PATCH', body, schema: bankResponseSchema });
+}
+
+export function useUpdateBank(
+  bankId: string,
+  options: Pick<UseMutationOptions<BankResponse, Error, UpdateBankBody>, 'onSuccess'> = {},
+) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: UpdateBankBody) => updateBank(bankId, body),
+    onSuccess: async (response, ...rest) => {
+      queryClient.setQueryData(bankKeys.detail(bankId), response);
+      await options.onSuccess?.(response, ...rest);
+    },
+  });
+}

@@ -1,0 +1,119 @@
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
+import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { waitForMail } from '../helpers/outbox';
+
+// The people and the bank below are the invented demo scenario of server/db/seed-demo.ts.
+const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
+const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;
+
+// 390 × 844 CSS pixels: the viewport of a common mid-size phone held upright (from memory).
+const PHONE = { width: 390, height: 844 };
+
+describe.skipIf(!chromiumPath)('the members page in Chromium', () => {
+  let server: Awaited<ReturnType<typeof startTestServer>>;
+  let browser: Browser & { cleanup(): void };
+  let bankId: string;
+
+  beforeAll(async () => {
+    server = await startTestServer();
+    await seedDemo(server.db);
+    const bank = await server.db
+      .selectFrom('banks')
+      .select('id')
+      .where('name', '=', DEMO_BANK_NAME)
+      .executeTakeFirstOrThrow();
+    bankId = bank.id;
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    browser?.cleanup();
+    await server?.stop();
+  });
+
+  /** Signs in through the sign-in page, as a person would, and waits for their bank to open. */
+  async function signIn(page: Page, email: string) {
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
+  }
+
+  async function openMembers(page: Page) {
+    await page.getByRole('link', { name: 'Members' }).click();
+    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/members`);
+    await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Members');
+  }
+
+  it('when the owner signs in and invites someone as a grower, then the invitation is listed as open and mailed', async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signIn(page, owner.email);
+    await openMembers(page);
+
+    const invitee = 'new-member@example.org';
+    await page.getByLabel('Their e-mail').fill(invitee);
+    await page.getByRole('radio', { name: /^Grower/ }).check();
+    await page.getByRole('button', { name: 'Send invitation' }).click();
+
+    await expect
+      .poll(() => page.getByRole('status').filter({ hasText: 'Invitation sent' }).innerText())
+      .toContain(invitee);
+    const open = page.getByRole('list', { name: 'Open invitations' }).getByRole('listitem');
+    await expect.poll(() => open.filter({ hasText: invitee }).count()).toBe(1);
+    await expect.poll(() => open.filter({ hasText: invitee }).innerText()).toMatch(/Grower/);
+    await expect
+      .poll(() => open.filter({ hasText: invitee }).innerText())
+      .toContain(`Sent by ${owner.name}`);
+
+    // The page did not just draw it: the server holds the invitation and sent the e-mail.
+    const row = await server.db
+      .selectFrom('invitations')
+      .select(['role', 'accepted_at', 'revoked_at'])
+      .where('email', '=', invitee)
+      .executeTakeFirstOrThrow();
+    expect(row).toEqual({ role: 'grower', accepted_at: null, revoked_at: null });
+    const mail = await waitForMail((m) => m.to.includes(invitee));
+    expect(mail.text).toContain(`${server.baseUrl}/invitations/accept?token=`);
+    await page.close();
+  });
+
+  it('when a viewer opens Members, then every member is listed with a role and nothing can be changed', async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signIn(page, viewer.email);
+    await openMembers(page);
+
+    const members = page.getByRole('list', { name: 'Members of this bank' }).getByRole('listitem');
+    await expect.poll(() => members.count()).toBe(DEMO_ACCOUNTS.length);
+    for (const account of DEMO_ACCOUNTS) {
+      const item = members.filter({ hasText: account.email });
+      await expect.poll(() => item.innerText()).toContain(account.name);
+      await expect.poll(() => item.innerText()).toMatch(new RegExp(account.role, 'i'));
+    }
+    expect(await page.getByLabel('Their e-mail').count()).toBe(0);
+    expect(await page.getByRole('button', { name: 'Send invitation' }).count()).toBe(0);
+    expect(await page.getByRole('combobox').count()).toBe(0);
+    expect(await page.getByRole('button', { name: /^Remove/ }).count()).toBe(0);
+    expect(await page.getByRole('list', { name: 'Open invitations' }).count()).toBe(0);
+    // Leaving is the one thing every member may do.
+    expect(await page.getByRole('button', { name: `Leave ${DEMO_BANK_NAME}` }).count()).toBe(1);
+    await page.close();
+  });
+
+  it('when a phone opens sign-in and then Members, then neither page scrolls sideways', async () => {
+    const context = await browser.newContext({ viewport: PHONE, hasTouch: true });
+    const page = await context.newPage();
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByRole('button', { name: 'Sign in' }).waitFor();
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+
+    await signIn(page, owner.email);
+    await openMembers(page);
+    await page.getByRole('list', { name: 'Members of this bank' }).waitFor();
+    await page.getByRole('button', { name: 'Send invitation' }).waitFor();
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+    await context.close();
+  });
+});
