@@ -5,10 +5,12 @@ import * as m20261201000000 from './2026_12_01_000000_accounts_and_banks';
 import * as m20261201000100 from './2026_12_01_000100_invitations_and_resets';
 import * as m20261201000200 from './2026_12_01_000200_species_lots_stock_photos';
 import * as m20261201000300 from './2026_12_01_000300_germination_tests';
+import * as m20261201000400 from './2026_12_01_000400_bank_decision_settings';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_000000_accounts_and_banks': m20261201000000,
   '2026_12_01_000100_invitations_and_resets': m20261201000100,
   '2026_12_01_000200_species_lots_stock_photos': m20261201000200,
   '2026_12_01_000300_germination_tests': m20261201000300,
+  '2026_12_01_000400_bank_decision_settings': m20261201000400,
 };

@@ -22,6 +22,8 @@ import { devRouter } from './modules/dev/dev.router';
 import { lotTestRoutes, testRoutes } from './modules/germination/germination.router';
 import { createGerminationService, lotHasTests } from './modules/germination/germination.service';
 import { invitationsRouter } from './modules/invitations/invitations.router';
+import { viabilityRoutes } from './modules/viability/viability.router';
+import { createViabilityService } from './modules/viability/viability.service';
 import { lotRoutes, lotsCsvExport } from './modules/lots/lots.router';
 import { createLotsService } from './modules/lots/lots.service';
 import { bankPhotoRoutes, photoFileRoutes, subjectPhotoRoutes } from './modules/photos/photos.router';
@@ -82,6 +84,7 @@ export function createApp(deps: AppDeps): Express {
       hasTests: lotHasTests,
     }),
     germination: createGerminationService({ ...deps, removeSubjectPhotos: photos.removeSubjectPhotos }),
+    viability: createViabilityService(deps),
   };
   const secureCookies = config.appOrigin.startsWith('https:');
 
@@ -100,6 +103,9 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/plants', plantRoutes(services.plants));
   bank.use('/lots/:lotId/photos', subjectPhotoRoutes(services.photos, 'lot', 'lotId'));
   bank.use('/lots/:lotId/tests', lotTestRoutes(services.germination));
+  const viability = viabilityRoutes(services.viability, deps.clock);
+  bank.use('/lots/:lotId', viability.lot);
+  bank.use('/ranking', viability.ranking);
   bank.use('/tests/:testId/trays/:trayId/photos', subjectPhotoRoutes(services.photos, 'tray', 'trayId'));
   bank.use('/tests', testRoutes(services.germination));
   bank.use('/lots.csv', lotsCsvExport(services.lots));

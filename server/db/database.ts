@@ -11,7 +11,8 @@ pg.types.setTypeParser(pg.types.builtins.DATE, (value) => value);
 export type Db = Kysely<Database>;
 export type DbOrTx = Kysely<Database> | Transaction<Database>;
 
-export function createDb(connectionString: string, poolSize = 10): Db {
+/** `onQuery` sees every query run (tests count them; the app passes nothing). */
+export function createDb(connectionString: string, poolSize = 10, onQuery?: (sql: string) => void): Db {
   const pool = new pg.Pool({
     connectionString,
     max: poolSize,
@@ -20,5 +21,8 @@ export function createDb(connectionString: string, poolSize = 10): Db {
   });
   // A dropped idle connection must not crash the process; the pool replaces it.
   pool.on('error', () => {});
-  return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+  return new Kysely<Database>({
+    dialect: new PostgresDialect({ pool }),
+    ...(onQuery ? { log: (event) => event.level === 'query' && onQuery(event.query.sql) } : {}),
+  });
 }

@@ -29,6 +29,9 @@ export interface BankTable {
   first_frost: string | null;
   frost_margin_days: ColumnType<number, number | undefined, number>;
   time_zone: ColumnType<string, string | undefined, string>;
+  sow_threshold_percent: ColumnType<number, number | undefined, number>;
+  establishment_factor: ColumnType<string, number | string | undefined, number | string>;
+  sowing_assurance: ColumnType<string, number | string | undefined, number | string>;
   created_at: Timestamp;
   updated_at: Timestamp;
 }

@@ -16,7 +16,10 @@ export const updateBankBodySchema = z
     name: bankName,
     lastFrost: monthDaySchema.nullable(),
     firstFrost: monthDaySchema.nullable(),
-    frostMarginDays: z.number().int().min(0).max(60),
+    frostMarginDays: z.number({ message: 'Enter a whole number of days from 0 to 60.' }).int({ message: 'Enter a whole number of days from 0 to 60.' }).min(0, { message: 'Enter a whole number of days from 0 to 60.' }).max(60, { message: 'Enter a whole number of days from 0 to 60.' }),
+    sowThresholdPercent: z.number().int().min(1, { message: 'Between 1 and 100.' }).max(100, { message: 'Between 1 and 100.' }),
+    establishmentFactor: z.number().gt(0, { message: 'Above 0 and at most 1.' }).max(1, { message: 'Above 0 and at most 1.' }),
+    sowingAssurance: z.number().gt(0.5, { message: 'Between 0.5 and 0.99.' }).max(0.99, { message: 'Between 0.5 and 0.99.' }),
     timeZone: z.string().refine(
       (tz) => {
         try {
@@ -40,6 +43,9 @@ export const bankSchema = z.object({
   firstFrost: z.string().nullable(),
   frostMarginDays: z.number(),
   timeZone: z.string(),
+  sowThresholdPercent: z.number(),
+  establishmentFactor: z.number(),
+  sowingAssurance: z.number(),
   createdAt: z.string(),
 });
 export type BankDto = z.infer<typeof bankSchema>;

@@ -194,6 +194,15 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     least: 'grower',
     ok: 201,
   },
+  'GET viability': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/viability`, least: 'viewer' },
+  'GET seeds-to-sow': {
+    method: 'get',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/seeds-to-sow?plants=12`,
+    least: 'viewer',
+    // A fresh lot has no test yet, so the sum cannot be done (API.md: 422 valid but impossible).
+    ok: 422,
+  },
+  'GET ranking': { method: 'get', path: (f) => `/api/banks/${f.bankId}/ranking`, least: 'viewer' },
   'POST leave': {
     method: 'post',
     path: (f) => `/api/banks/${f.bankId}/leave`,

@@ -35,11 +35,11 @@ async function admin<T>(run: (db: Kysely<unknown>) => Promise<T>): Promise<T> {
 }
 
 /** A fresh, empty database of its own for one test file; `migrate: false` leaves it bare. */
-export async function createTestDatabase(options: { migrate?: boolean } = {}) {
+export async function createTestDatabase(options: { migrate?: boolean; onQuery?: (sql: string) => void } = {}) {
   const name = `hilum_t_${crypto.randomBytes(6).toString('hex')}`;
   await admin((db) => sql`create database ${sql.id(name)}`.execute(db));
   const url = withDatabase(adminUrl(), name);
-  const db = createDb(url, 5);
+  const db = createDb(url, 5, options.onQuery);
   if (options.migrate !== false) {
     await migrateToLatest(db);
     await syncReferenceSpecies(db);
@@ -70,9 +70,9 @@ export interface TestContext {
 
 /** The real app on a database of its own, the shared object-store and SMTP fakes, a test clock. */
 export async function createTestContext(
-  options: { now?: string; config?: Partial<Config> } = {},
+  options: { now?: string; config?: Partial<Config>; onQuery?: (sql: string) => void } = {},
 ): Promise<TestContext> {
-  const database = await createTestDatabase();
+  const database = await createTestDatabase({ onQuery: options.onQuery });
   const config = testConfig({ databaseUrl: database.url, ...options.config });
   const storage = createObjectStore(config.storage);
   const mailer = createMailer(config.mail);

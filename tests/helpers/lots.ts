@@ -1,7 +1,38 @@
+import type { Agent } from 'supertest';
 import type { Db } from '../../server/db/database';
 
 /** The id of a reference species by its key in shared/species-reference.ts. */
 export async function speciesId(db: Db, key: string): Promise<string> {
   const row = await db.selectFrom('species').select('id').where('ref_key', '=', key).executeTakeFirstOrThrow();
   return row.id;
+}
+
+/**
+ * Records a finished germination test through the API: trays sown, one count on `countDate`
+ * (default the start date plus 14 days), then finished with the rest ungerminated.
+ */
+export async function finishedTest(
+  agent: Agent,
+  bankId: string,
+  lotId: string,
+  startDate: string,
+  trays: { sown: number; germinated: number }[],
+  countDate = new Date(Date.parse(startDate) + 14 * 86_400_000).toISOString().slice(0, 10),
+) {
+  const created = await agent
+    .post(`/api/banks/${bankId}/lots/${lotId}/tests`)
+    .send({ startDate, method: 'paper towel', trays: trays.map((t) => ({ seedsSown: t.sown })) });
+  if (created.status !== 201) throw new Error(`test not created: ${JSON.stringify(created.body)}`);
+  const ids: string[] = created.body.trays.map((t: { id: string }) => t.id);
+  const testId: string = created.body.test.id;
+  const counted = await agent
+    .post(`/api/banks/${bankId}/tests/${testId}/counts`)
+    .send({ date: countDate, trays: ids.map((trayId, i) => ({ trayId, cumulative: trays[i]!.germinated })) });
+  if (counted.status !== 201) throw new Error(`counts refused: ${JSON.stringify(counted.body)}`);
+  const finished = await agent.post(`/api/banks/${bankId}/tests/${testId}/finish`).send({
+    date: countDate,
+    trays: ids.map((trayId, i) => ({ trayId, abnormal: 0, ungerminated: trays[i]!.sown - trays[i]!.germinated })),
+  });
+  if (finished.status !== 200) throw new Error(`finish refused: ${JSON.stringify(finished.body)}`);
+  return testId;
 }

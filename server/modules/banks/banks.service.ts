@@ -14,6 +14,9 @@ export function toBankDto(bank: Bank) {
     firstFrost: bank.first_frost,
     frostMarginDays: bank.frost_margin_days,
     timeZone: bank.time_zone,
+    sowThresholdPercent: bank.sow_threshold_percent,
+    establishmentFactor: Number(bank.establishment_factor),
+    sowingAssurance: Number(bank.sowing_assurance),
     createdAt: bank.created_at.toISOString(),
   };
 }
@@ -64,6 +67,9 @@ export function createBanksService({ db, clock }: { db: Db; clock: Clock }) {
       if (body.firstFrost !== undefined) changes.first_frost = body.firstFrost;
       if (body.frostMarginDays !== undefined) changes.frost_margin_days = body.frostMarginDays;
       if (body.timeZone !== undefined) changes.time_zone = body.timeZone;
+      if (body.sowThresholdPercent !== undefined) changes.sow_threshold_percent = body.sowThresholdPercent;
+      if (body.establishmentFactor !== undefined) changes.establishment_factor = body.establishmentFactor;
+      if (body.sowingAssurance !== undefined) changes.sowing_assurance = body.sowingAssurance;
       return toBankDto(await repo.updateBank(db, bankId, changes));
     },
 

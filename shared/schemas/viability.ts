@@ -1,0 +1,65 @@
+import { z } from 'zod';
+import { idSchema } from './common';
+
+const n = z.number();
+const nn = z.number().nullable();
+
+export const recommendationSchema = z.enum(['sow', 'sow-thick', 'retest', 'retire']);
+export type RecommendationValue = z.infer<typeof recommendationSchema>;
+export const basisSchema = z.enum(['lot', 'species', 'typical']);
+
+export const viabilityResponseSchema = z.object({
+  lotId: idSchema,
+  on: z.string(),
+  ageYears: n,
+  initialPercent: nn,
+  sigmaYears: nn,
+  halfLifeYears: nn,
+  projected: z.object({ percent: n, low: n, high: n }).nullable(),
+  retestBy: z.string().nullable(),
+  retestReason: z.string().nullable(),
+  basis: basisSchema.nullable(),
+  notes: z.array(z.string()),
+  harvestReference: z.string(),
+  points: z.array(z.object({ testId: idSchema, date: z.string(), ageYears: n, percent: n, germinated: n, sown: n })),
+  curve: z.array(z.object({ ageYears: n, percent: n, low: n, high: n })),
+});
+export type ViabilityResponse = z.infer<typeof viabilityResponseSchema>;
+
+export const seedsToSowResponseSchema = z.object({
+  seeds: n,
+  germinationUsed: n,
+  assurance: n,
+  plants: n,
+  projectedPercent: n,
+  establishmentFactor: n,
+  basis: basisSchema,
+  enoughStock: z.boolean(),
+  seedsOnHand: n,
+  explanation: z.string(),
+});
+export type SeedsToSowResponse = z.infer<typeof seedsToSowResponseSchema>;
+
+export const rankingItemSchema = z.object({
+  lotId: idSchema,
+  code: z.string(),
+  speciesId: idSchema,
+  species: z.string(),
+  variety: z.string(),
+  status: z.enum(['active', 'depleted', 'retired']),
+  ageYears: n,
+  lastTestDate: z.string().nullable(),
+  lastPercent: nn,
+  projectedPercent: nn,
+  projectedLow: nn,
+  projectedHigh: nn,
+  meanDays: nn,
+  seedsOnHand: n,
+  basis: basisSchema.nullable(),
+  retestBy: z.string().nullable(),
+  thumbUrl: z.string().nullable(),
+  recommendation: recommendationSchema,
+  reason: z.string(),
+});
+export type RankingItem = z.infer<typeof rankingItemSchema>;
+export const rankingResponseSchema = z.object({ on: z.string(), items: z.array(rankingItemSchema) });

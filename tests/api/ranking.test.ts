@@ -1,0 +1,119 @@
+import jStat from 'jstat';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { bankWithRoles } from '../helpers/accounts';
+import { createTestContext, type TestContext } from '../helpers/context';
+import { finishedTest, speciesId } from '../helpers/lots';
+
+const probit = (p: number) => jStat.normal.inv(p, 0, 1);
+const phi = (z: number) => jStat.normal.cdf(z, 0, 1);
+
+describe('viability, ranking and seeds to sow', () => {
+  let ctx: TestContext;
+  let bank: Awaited<ReturnType<typeof bankWithRoles>>;
+  let tomato: string;
+  const queries: string[] = [];
+  beforeAll(async () => {
+    ctx = await createTestContext({ now: '2026-12-01T09:00:00Z', onQuery: (q) => queries.push(q) });
+    bank = await bankWithRoles(ctx.app, ctx.db);
+    tomato = await speciesId(ctx.db, 'tomato');
+  });
+  afterAll(() => ctx.close());
+  const base = () => `/api/banks/${bank.bankId}`;
+  const newLot = async (variety: string, seeds = 1000, harvestDate = '2023-09-01') =>
+    (await bank.grower.agent.post(`${base()}/lots`).send({ speciesId: tomato, variety, origin: 'saved', harvestDate, seedCount: seeds })).body.lot
+      .id as string;
+
+  it('when a lot was tested twice as it aged, then its own decline is fitted (basis lot) and projected below its last test', async () => {
+    const lotId = await newLot('Declining');
+    await finishedTest(bank.grower.agent, bank.bankId, lotId, '2024-03-01', [{ sown: 100, germinated: 92 }]);
+    await finishedTest(bank.grower.agent, bank.bankId, lotId, '2026-03-01', [{ sown: 100, germinated: 60 }]);
+    const res = await bank.viewer.agent.get(`${base()}/lots/${lotId}/viability?on=2027-03-01`);
+    expect(res.status).toBe(200);
+    expect(res.body.basis).toBe('lot');
+
+    // Worked by hand from the viability equation v = Ki − p/σ (Ellis & Roberts 1980), two points,
+    // so the maximum-likelihood probit line passes through both exactly:
+    const a1 = res.body.points[0].ageYears; // 2023-09-01 → 2024-03-01 ≈ 0.5 years
+    const a2 = res.body.points[1].ageYears; // → 2026-03-01 ≈ 2.5 years
+    const slope = (probit(0.6) - probit(0.92)) / (a2 - a1); // ≈ (0.2533 − 1.4051)/2 = −0.576 per year
+    const ki = probit(0.92) - slope * a1; // ≈ 1.693 probits → initial ≈ 95%
+    expect(res.body.sigmaYears).toBeCloseTo(-1 / slope, 3);
+    expect(res.body.initialPercent).toBeCloseTo(phi(ki) * 100, 2);
+    const age = res.body.ageYears; // ≈ 3.5 years on 2027-03-01
+    expect(res.body.projected.percent).toBeCloseTo(phi(ki + slope * age) * 100, 2); // ≈ 37%
+    expect(res.body.projected.percent).toBeLessThan(60);
+    expect(res.body.projected.low).toBeLessThan(res.body.projected.percent);
+    expect(res.body.projected.high).toBeGreaterThan(res.body.projected.percent);
+    expect(res.body.retestBy).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+  });
+
+  it('when a lot has one test and a sibling lot shows the decline, then it borrows the slope (basis species)', async () => {
+    const lotId = await newLot('Tested once', 1000, '2025-09-01');
+    await finishedTest(bank.grower.agent, bank.bankId, lotId, '2026-02-01', [{ sown: 50, germinated: 45 }, { sown: 50, germinated: 46 }]);
+    const res = await bank.viewer.agent.get(`${base()}/lots/${lotId}/viability?on=2027-03-01`);
+    expect(res.body.basis).toBe('species');
+  });
+
+  it('when a species has no other lots with a decline, then the typical seed life is used (basis typical)', async () => {
+    const lettuce = await speciesId(ctx.db, 'lettuce');
+    const res0 = await bank.grower.agent
+      .post(`${base()}/lots`)
+      .send({ speciesId: lettuce, variety: 'Lone', origin: 'bought', packedForSeason: 2026, seedCount: 500, storage: { place: 'fridge' } });
+    await finishedTest(bank.grower.agent, bank.bankId, res0.body.lot.id, '2026-02-01', [{ sown: 100, germinated: 90 }]);
+    const res = await bank.viewer.agent.get(`${base()}/lots/${res0.body.lot.id}/viability?on=2027-03-01`);
+    expect(res.body.basis).toBe('typical');
+    expect(res.body.notes.join(' ')).toMatch(/Storage at about 5 °C lengthens/);
+  });
+
+  it('when the ranking is asked for, then every active lot appears once with a recommendation and a reason', async () => {
+    const untested = await newLot('Never tested');
+    const res = await bank.viewer.agent.get(`${base()}/ranking?on=2027-03-01`);
+    expect(res.status).toBe(200);
+    const active = await ctx.db.selectFrom('lots').select('id').where('bank_id', '=', bank.bankId).where('status', 'in', ['active', 'depleted']).execute();
+    expect(res.body.items.map((i: { lotId: string }) => i.lotId).sort()).toEqual(active.map((l) => l.id).sort());
+    for (const item of res.body.items) {
+      expect(['sow', 'sow-thick', 'retest', 'retire']).toContain(item.recommendation);
+      expect(item.reason.length).toBeGreaterThan(10);
+    }
+    const fresh = res.body.items.find((i: { lotId: string }) => i.lotId === untested);
+    expect(fresh).toMatchObject({ recommendation: 'retest', projectedPercent: null, lastTestDate: null });
+    const declining = res.body.items.find((i: { variety: string }) => i.variety === 'Declining');
+    expect(declining.lastPercent).toBe(60);
+    expect(declining.recommendation).not.toBe('sow');
+  });
+
+  it('when lots are added, then the ranking issues the same number of queries', async () => {
+    const count = async () => {
+      queries.length = 0;
+      await bank.viewer.agent.get(`${base()}/ranking?on=2027-03-01`);
+      return queries.length;
+    };
+    const before = await count();
+    for (let i = 0; i < 5; i++) {
+      const lotId = await newLot(`Extra ${i}`, 300, '2024-09-01');
+      await finishedTest(bank.grower.agent, bank.bankId, lotId, '2025-03-01', [{ sown: 50, germinated: 40 }]);
+    }
+    expect(await count()).toBe(before);
+  });
+
+  it('when seeds to sow are asked for 12 plants, then the least n with enough assurance comes back', async () => {
+    const lotId = await newLot('For sowing', 1000, '2025-09-01');
+    await finishedTest(bank.grower.agent, bank.bankId, lotId, '2026-02-01', [{ sown: 100, germinated: 80 }]);
+    const res = await bank.viewer.agent.get(`${base()}/lots/${lotId}/seeds-to-sow?plants=12&assurance=0.9&on=2027-03-01`);
+    expect(res.status).toBe(200);
+    const p = res.body.germinationUsed;
+    expect(p).toBeCloseTo((res.body.projectedPercent / 100) * 0.9, 12);
+    // The least n with P(Binomial(n, p) ≥ 12) ≥ 0.9, checked by summing jStat's binomial pdf.
+    const atLeast = (n: number) => 1 - jStat.binomial.cdf(11, n, p);
+    expect(atLeast(res.body.seeds)).toBeGreaterThanOrEqual(0.9);
+    expect(atLeast(res.body.seeds - 1)).toBeLessThan(0.9);
+    expect(res.body.explanation).toMatch(/Sow \d+ seeds for 12 plants/);
+  });
+
+  it('when a lot has no test, then seeds to sow is 422 saying to test first', async () => {
+    const lotId = await newLot('Unknown');
+    const res = await bank.viewer.agent.get(`${base()}/lots/${lotId}/seeds-to-sow?plants=12`);
+    expect(res.status).toBe(422);
+    expect(res.body.error.message).toMatch(/Test the lot/);
+  });
+});
