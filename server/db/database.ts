@@ -12,7 +12,11 @@ export type Db = Kysely<Database>;
 export type DbOrTx = Kysely<Database> | Transaction<Database>;
 
 /** `onQuery` sees every query run (tests count them; the app passes nothing). */
-export function createDb(connectionString: string, poolSize = 10, onQuery?: (sql: string) => void): Db {
+export function createDb(
+  connectionString: string,
+  poolSize = 10,
+  onQuery?: (sql: string, parameters: readonly unknown[]) => void,
+): Db {
   const pool = new pg.Pool({
     connectionString,
     max: poolSize,
@@ -21,8 +25,12 @@ export function createDb(connectionString: string, poolSize = 10, onQuery?: (sql
   });
   // A dropped idle connection must not crash the process; the pool replaces it.
   pool.on('error', () => {});
+  const dialect = new PostgresDialect({ pool });
+  if (!onQuery) return new Kysely<Database>({ dialect });
   return new Kysely<Database>({
-    dialect: new PostgresDialect({ pool }),
-    ...(onQuery ? { log: (event) => event.level === 'query' && onQuery(event.query.sql) } : {}),
+    dialect,
+    log: (event) => {
+      if (event.level === 'query') onQuery(event.query.sql, event.query.parameters);
+    },
   });
 }

@@ -4,7 +4,6 @@ import type { Db } from '../../db/database';
 import { notFound, unprocessable } from '../../http/errors';
 import {
   fitViabilityDecline,
-  probitRegressionGroups,
   projectViability,
   seedsToSow,
   temperatureFactor,
@@ -12,6 +11,7 @@ import {
   type ViabilityFit,
   type ViabilityTest,
 } from '../../stats';
+import { commonSlopeProbit } from '../../stats/probit-common-slope';
 import { listSpecies } from '../species/species.service';
 import { lotsQuery, toLotDto } from '../lots/lots.repository';
 import { decide, type Recommendation } from './recommend';
@@ -60,36 +60,34 @@ interface TestAggregate {
 /** Every test of the bank with its pooled totals and mean germination time, in one query. */
 async function testAggregates(db: Db, bankId: string, speciesId?: string): Promise<TestAggregate[]> {
   const { rows } = await sql<TestAggregate>`
-    with latest as (
-      select distinct on (c.tray_id) c.tray_id, c.cumulative, c.check_date
-      from tray_counts c
-      join test_trays tr on tr.id = c.tray_id
-      join germination_tests t on t.id = tr.test_id
-      where t.bank_id = ${bankId}
-      order by c.tray_id, c.check_date desc
-    ), steps as (
-      select tr.test_id,
+    with c as (
+      select tr.test_id, c.cumulative, c.check_date,
         (c.check_date - t.start_date) as day,
-        c.cumulative - coalesce(lag(c.cumulative) over (partition by c.tray_id order by c.check_date), 0) as new
+        c.cumulative - coalesce(lag(c.cumulative) over (partition by c.tray_id order by c.check_date), 0) as new,
+        row_number() over (partition by c.tray_id order by c.check_date desc) as from_last
       from tray_counts c
       join test_trays tr on tr.id = c.tray_id
       join germination_tests t on t.id = tr.test_id
       where t.bank_id = ${bankId}
-    ), timing as (
-      select test_id, sum(new * day)::float8 / nullif(sum(new), 0) as mean_days from steps group by test_id
+    ), counted as (
+      select test_id,
+        sum(cumulative) filter (where from_last = 1) as germinated,
+        max(check_date) as last_count_date,
+        sum(new * day)::float8 / nullif(sum(new), 0) as mean_days
+      from c group by test_id
+    ), sown as (
+      select tr.test_id, sum(tr.seeds_sown) as sown
+      from test_trays tr join germination_tests t on t.id = tr.test_id
+      where t.bank_id = ${bankId}
+      group by tr.test_id
     )
-    select t.id, t.lot_id, t.start_date, t.status,
-      sum(tr.seeds_sown)::int as sown,
-      coalesce(sum(latest.cumulative), 0)::int as germinated,
-      max(latest.check_date) as last_count_date,
-      max(timing.mean_days) as mean_days
+    select t.id, t.lot_id, t.start_date, t.status, sown.sown::int as sown,
+      coalesce(counted.germinated, 0)::int as germinated, counted.last_count_date, counted.mean_days
     from germination_tests t
     join lots l on l.id = t.lot_id
-    join test_trays tr on tr.test_id = t.id
-    left join latest on latest.tray_id = tr.id
-    left join timing on timing.test_id = t.id
+    join sown on sown.test_id = t.id
+    left join counted on counted.test_id = t.id
     where t.bank_id = ${bankId} ${speciesId ? sql`and l.species_id = ${speciesId}` : sql``}
-    group by t.id
     order by t.start_date`.execute(db);
   return rows;
 }
@@ -145,7 +143,7 @@ function fitLots(
   }
   for (const [speciesId, groups] of bySpecies) {
     try {
-      const pooled = probitRegressionGroups(groups.map((g) => ({ points: g.map((t) => ({ x: t.ageYears, successes: t.germinated, trials: t.sown })) })));
+      const pooled = commonSlopeProbit(groups.map((g) => ({ points: g.map((t) => ({ x: t.ageYears, successes: t.germinated, trials: t.sown })) })));
       if (pooled.converged && pooled.slope < 0 && Number.isFinite(pooled.seSlope)) slopes.set(speciesId, { slope: pooled.slope, slopeSe: pooled.seSlope });
     } catch {
       // No usable common slope for this species; lots fall back to the typical life.
