@@ -22,6 +22,8 @@ import { devRouter } from './modules/dev/dev.router';
 import { lotTestRoutes, testRoutes } from './modules/germination/germination.router';
 import { createGerminationService, lotHasTests } from './modules/germination/germination.service';
 import { invitationsRouter } from './modules/invitations/invitations.router';
+import { planRoutes } from './modules/plan/plan.router';
+import { createPlanService } from './modules/plan/plan.service';
 import { viabilityRoutes } from './modules/viability/viability.router';
 import { createViabilityService } from './modules/viability/viability.service';
 import { lotRoutes, lotsCsvExport } from './modules/lots/lots.router';
@@ -86,6 +88,7 @@ export function createApp(deps: AppDeps): Express {
     germination: createGerminationService({ ...deps, removeSubjectPhotos: photos.removeSubjectPhotos }),
     viability: createViabilityService(deps),
   };
+  const plan = createPlanService({ ...deps, viability: services.viability });
   const secureCookies = config.appOrigin.startsWith('https:');
 
   const api = express.Router();
@@ -106,6 +109,9 @@ export function createApp(deps: AppDeps): Express {
   const viability = viabilityRoutes(services.viability, deps.clock);
   bank.use('/lots/:lotId', viability.lot);
   bank.use('/ranking', viability.ranking);
+  const planRouters = planRoutes(plan, { ...deps, viability: services.viability });
+  bank.use('/plan.ics', planRouters.ics);
+  bank.use('/plan', planRouters.router);
   bank.use('/tests/:testId/trays/:trayId/photos', subjectPhotoRoutes(services.photos, 'tray', 'trayId'));
   bank.use('/tests', testRoutes(services.germination));
   bank.use('/lots.csv', lotsCsvExport(services.lots));

@@ -1,4 +1,5 @@
-// jstat ships no types; only the parts Hilum calls are declared here.
+// jstat ships no types; only the parts Hilum's tests call are declared here (it is a test-only reference
+// library: production code under server/ does not import it).
 declare module 'jstat' {
   interface Dist {
     cdf(x: number, ...params: number[]): number;

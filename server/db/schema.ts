@@ -218,6 +218,30 @@ export interface TrayCountTable {
   created_at: Timestamp;
 }
 
+export interface PlanEntryTable {
+  id: Generated<string>;
+  bank_id: string;
+  season: number;
+  species_id: string;
+  lot_id: string | null;
+  lot_chosen: ColumnType<boolean, boolean | undefined, boolean>;
+  plants_wanted: number;
+  start: 'indoors' | 'direct';
+  seeds_to_sow: number | null;
+  sow_from: string;
+  sow_to: string;
+  expect_from: string | null;
+  expect_by: string | null;
+  harden_from: string | null;
+  transplant_on: string | null;
+  notes: ColumnType<unknown, string | undefined, string>;
+  sown_on: string | null;
+  sown_movement_id: string | null;
+  created_by: string | null;
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
 export interface Database {
   users: UserTable;
   sessions: SessionTable;
@@ -237,6 +261,7 @@ export interface Database {
   germination_tests: GerminationTestTable;
   test_trays: TestTrayTable;
   tray_counts: TrayCountTable;
+  plan_entries: PlanEntryTable;
 }
 
 export type User = Selectable<UserTable>;

@@ -1,3 +1,4 @@
+import { sum } from 'simple-statistics';
 import { chiSquareUpperTail } from './distributions';
 import { assertPositiveCount, assertSuccesses } from './validate';
 
@@ -29,12 +30,15 @@ export function homogeneityChiSquare(trays: readonly TrayCount[]): ChiSquareResu
   const germinated = trays.reduce((s, t) => s + t.germinated, 0);
   if (df === 0 || germinated === 0 || germinated === sown) return { statistic: 0, df, pValue: 1 };
   const share = germinated / sown;
-  let statistic = 0;
-  for (const t of trays) {
+  // Σ (O − E)²/E over the 2k cells, added with simple-statistics' compensated (Kahan–Babuška) sum.
+  const cells = trays.flatMap((t) => {
     const expectedYes = t.sown * share;
     const expectedNo = t.sown - expectedYes;
-    statistic += (t.germinated - expectedYes) ** 2 / expectedYes;
-    statistic += (t.sown - t.germinated - expectedNo) ** 2 / expectedNo;
-  }
+    return [
+      (t.germinated - expectedYes) ** 2 / expectedYes,
+      (t.sown - t.germinated - expectedNo) ** 2 / expectedNo,
+    ];
+  });
+  const statistic = sum(cells);
   return { statistic, df, pValue: chiSquareUpperTail(statistic, df) };
 }

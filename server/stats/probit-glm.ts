@@ -21,7 +21,8 @@ export interface ProbitFit {
 }
 
 // Working probabilities are kept this far from 0 and 1: the binomial weights and logs stay finite
-// at 0% and 100% points, and jstat's Φ is still accurate (it is erfc-based) at Φ⁻¹(1e-10) ≈ −6.4.
+// at 0% and 100% points. Φ (distributions.ts) keeps relative accuracy near 1e-14 well past
+// Φ⁻¹(1e-10) ≈ −6.4, so the clamp, not the cdf, limits the tails.
 const PROBABILITY_FLOOR = 1e-10;
 const MAX_ITERATIONS = 100;
 const MAX_HALVINGS = 30;

@@ -149,46 +149,62 @@ export function regularizedBeta(x: number, a: number, b: number): number {
   return x < (a + 1) / (a + b + 2) ? betaLowerSide(x, a, b) : 1 - betaLowerSide(1 - x, b, a);
 }
 
+/** 1 − I_x(a, b), computed without cancellation where it is small (the mirror of regularizedBeta). */
+function regularizedBetaUpper(x: number, a: number, b: number): number {
+  if (x <= 0) return 1;
+  if (x >= 1) return 0;
+  return x < (a + 1) / (a + b + 2) ? 1 - betaLowerSide(x, a, b) : betaLowerSide(1 - x, b, a);
+}
+
 /** The beta density x^(a−1) (1 − x)^(b−1) / B(a, b). */
 function betaDensity(x: number, a: number, b: number): number {
   return Math.exp((a - 1) * Math.log(x) + (b - 1) * Math.log1p(-x) - logBeta(a, b));
 }
 
 /**
- * Solves I_x(a, b) = p for a lower-tail p ≤ ½ by Newton's method on the beta cdf, safeguarded by a
- * bracket that every evaluation shrinks: a Newton step that leaves the bracket is replaced by
- * bisection (geometric bisection while the lower end is still 0, so tiny quantiles are reached in
- * few steps). Stops when a step changes x by less than 1e-14 of x (Newton's step then overstates the
- * remaining error, which is far inside 1e-12), or the bracket cannot shrink further.
+ * Solves I_x(a, b) = p for 0 < p < 1 by Newton's method on the beta cdf, safeguarded by a bracket
+ * that every evaluation shrinks. For p above ½ the equation is written in the upper tail,
+ * 1 − I_x(a, b) = 1 − p (1 − p is exact there), so the residual keeps relative accuracy in both
+ * tails. A Newton step that leaves the bracket is replaced by bisection, geometric towards 0 or 1
+ * while the bracket still reaches that end, so quantiles very near 0 or 1 are found in few steps.
+ * Stops when a step moves x by less than 1e-14 of min(x, 1 − x) (Newton's last step overstates the
+ * remaining error, which is then far inside the 1e-12 aimed at), or when the bracket has closed to
+ * neighbouring floating-point numbers.
  */
-function betaLowerQuantile(p: number, a: number, b: number): number {
+function betaQuantileSearch(p: number, a: number, b: number): number {
+  const upper = p > 0.5;
+  const target = upper ? 1 - p : p;
+  const residual = (x: number): number =>
+    upper ? target - regularizedBetaUpper(x, a, b) : regularizedBeta(x, a, b) - target;
   let low = 0;
   let high = 1;
-  // Start at the mean a/(a + b); the bracket makes any start safe.
-  let x = a / (a + b);
+  let x = a / (a + b); // the mean; the bracket makes any start safe
   for (let i = 0; i < 1000; i++) {
-    const f = regularizedBeta(x, a, b) - p;
+    const f = residual(x);
     if (f === 0) return x;
     if (f < 0) low = x;
     else high = x;
     const density = betaDensity(x, a, b);
     let next = density > 0 && Number.isFinite(density) ? x - f / density : Number.NaN;
-    if (!(next > low && next < high)) next = low === 0 ? high / 16 : (low + high) / 2;
-    if (Math.abs(next - x) <= 1e-14 * x || next === low || next === high) return next;
+    if (!(next > low && next < high)) {
+      next = low === 0 ? high / 16 : high === 1 ? 1 - (1 - low) / 16 : Number.NaN;
+      if (!(next > low && next < high)) next = low + (high - low) / 2;
+      if (!(next > low && next < high)) return x; // low and high are neighbouring numbers
+    }
+    if (Math.abs(next - x) <= 1e-14 * Math.min(next, 1 - next)) return next;
     x = next;
   }
   return x;
 }
 
 /**
- * The p-quantile of the Beta(a, b) distribution: the x with I_x(a, b) = p. For p above ½ it solves
- * the mirrored problem I_{1−x}(b, a) = 1 − p, so the search always runs in a lower tail, where the
- * continued fraction gives relative accuracy.
+ * The p-quantile of the Beta(a, b) distribution: the x in [0, 1] with I_x(a, b) = p (NR §6.4
+ * inverts betai by Newton/Halley steps; here Newton with a bisection safeguard).
  */
 export function inverseRegularizedBeta(p: number, a: number, b: number): number {
   assertBetaShape(a, b);
   if (!(p >= 0 && p <= 1)) throw new RangeError(`p must be between 0 and 1 (got ${String(p)})`);
   if (p === 0) return 0;
   if (p === 1) return 1;
-  return p <= 0.5 ? betaLowerQuantile(p, a, b) : 1 - betaLowerQuantile(1 - p, b, a);
+  return betaQuantileSearch(p, a, b);
 }

@@ -6,7 +6,7 @@ import type { Role } from '../../server/db/schema';
 export interface MatrixFixture {
   bankId: string;
   /** Ids of records made fresh for each call, so a destructive route has something to act on. */
-  make(kind: 'member' | 'invitation' | 'lot' | 'plant' | 'photo' | 'species' | 'test'): Promise<string>;
+  make(kind: 'member' | 'invitation' | 'lot' | 'plant' | 'photo' | 'species' | 'test' | 'plan'): Promise<string>;
   /** The trays of the test `make('test')` made last. */
   lastTrayId(): string;
   lastTrayIds(): string[];
@@ -203,6 +203,30 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     ok: 422,
   },
   'GET ranking': { method: 'get', path: (f) => `/api/banks/${f.bankId}/ranking`, least: 'viewer' },
+  'GET plan': { method: 'get', path: (f) => `/api/banks/${f.bankId}/plan?season=2027`, least: 'viewer' },
+  'POST plan entry': {
+    method: 'post',
+    path: (f) => `/api/banks/${f.bankId}/plan`,
+    body: (f) => ({ season: 2027, speciesId: f.tomatoId, plantsWanted: 4, start: 'indoors' }),
+    least: 'grower',
+    ok: 201,
+  },
+  'PATCH plan entry': {
+    method: 'patch',
+    path: async (f) => `/api/banks/${f.bankId}/plan/${await f.make('plan')}`,
+    body: () => ({ plantsWanted: 5 }),
+    least: 'grower',
+  },
+  'DELETE plan entry': { method: 'delete', path: async (f) => `/api/banks/${f.bankId}/plan/${await f.make('plan')}`, least: 'grower', ok: 204 },
+  'POST plan sown': {
+    method: 'post',
+    path: async (f) => `/api/banks/${f.bankId}/plan/${await f.make('plan')}/sown`,
+    body: () => ({}),
+    least: 'grower',
+    // The fixture's entry has no tested lot, so nothing can be withdrawn (API.md: 422).
+    ok: 422,
+  },
+  'GET plan.ics': { method: 'get', path: (f) => `/api/banks/${f.bankId}/plan.ics?season=2027`, least: 'viewer' },
   'POST leave': {
     method: 'post',
     path: (f) => `/api/banks/${f.bankId}/leave`,

@@ -43,6 +43,10 @@ describe('the role matrix of bank routes', () => {
       lastTrayIds: () => trayIds,
       async make(kind) {
         const base = `/api/banks/${bank.bankId}`;
+        if (kind === 'plan') {
+          const entry = await owner.post(`${base}/plan`).send({ season: 2027, speciesId: tomatoId, plantsWanted: 4, start: 'indoors' });
+          return entry.body.entry.id as string;
+        }
         if (kind === 'test') {
           const lot = await owner
             .post(`${base}/lots`)

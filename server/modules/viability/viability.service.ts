@@ -269,6 +269,29 @@ export function createViabilityService({ db }: { db: Db }) {
       };
     },
 
+    /**
+     * The species' lots that could fill a plan entry on `on`, best first: highest projected lower
+     * bound among those with enough seed, then the rest (not enough seed) after them.
+     */
+    async candidates(bankId: string, speciesId: string, on: string, plants: number) {
+      const settings = await bankSettings(bankId);
+      const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
+      const lots = (await lotsQuery(db, bankId).where('lots.species_id', '=', speciesId).where('lots.status', '=', 'active').execute()).map(toLotDto);
+      const tests = await testAggregates(db, bankId, speciesId);
+      const fits = fitLots(lots, tests, species, thresholdFor(settings.threshold));
+      const out = [];
+      for (const lot of lots) {
+        const v = fits.get(lot.id)!;
+        if (!v.fit) continue;
+        const projected = projectViability(v.fit, Math.max(0, ageYears(v.harvestRef, on)));
+        const p = (projected.percent / 100) * settings.establishment;
+        if (p <= 0) continue;
+        const seeds = seedsToSow(plants, p, settings.assurance);
+        out.push({ lotId: lot.id, code: lot.code, projected, seeds, seedsOnHand: lot.seedsOnHand, enough: seeds <= lot.seedsOnHand });
+      }
+      return out.sort((a, b) => Number(b.enough) - Number(a.enough) || b.projected.low - a.projected.low);
+    },
+
     /** Every active or depleted lot with its projection and a recommendation, in four queries. */
     async ranking(bankId: string, on: string) {
       const settings = await bankSettings(bankId);

@@ -32,14 +32,23 @@ function lowerTail(x: number, n: number, p: number): number {
 }
 
 describe('wilsonInterval', () => {
-  // Newcombe 1998, Stat. Med. 17:857–872, Table I (method: score without continuity correction) — from memory.
+  // Newcombe 1998, Stat. Med. 17:857–872, Table II (method: score without continuity correction),
+  // as quoted in Hilum's issue text.
   it.each([
-    [81, 263, 0.2553, 0.3662],
-    [15, 148, 0.0624, 0.1605],
-    [0, 20, 0, 0.1611],
-    [1, 29, 0.0061, 0.1718],
+    [81, 263, 0.2553, 0.3662], // Newcombe 1998, Table II, as quoted in Hilum's issue text
+    [0, 20, 0, 0.1611], // Newcombe 1998, Table II, as quoted in Hilum's issue text
+  ])('when %i of %i succeed, then the 95 percent bounds match Newcombe 1998 Table II', (x, n, low, high) => {
+    const interval = wilsonInterval(x, n);
+    expect(interval.low).toBeCloseTo(low, 4);
+    expect(interval.high).toBeCloseTo(high, 4);
+  });
+
+  // Further rows of the same Newcombe 1998 examples — from memory.
+  it.each([
+    [15, 148, 0.0624, 0.1605], // from memory
+    [1, 29, 0.0061, 0.1718], // from memory
   ])(
-    'when %i of %i succeed, then the 95 percent bounds match Newcombe 1998 Table I (from memory)',
+    'when %i of %i succeed, then the 95 percent bounds match Newcombe 1998 (from memory)',
     (x, n, low, high) => {
       const interval = wilsonInterval(x, n);
       expect(interval.low).toBeCloseTo(low, 4);
@@ -85,14 +94,23 @@ describe('wilsonInterval', () => {
 });
 
 describe('clopperPearsonInterval', () => {
-  // Newcombe 1998, Stat. Med. 17:857–872, Table I (method: exact, Clopper–Pearson) — from memory.
+  // Newcombe 1998, Stat. Med. 17:857–872, Table II (method: exact, Clopper–Pearson), as quoted in
+  // Hilum's issue text.
   it.each([
-    [81, 263, 0.2527, 0.3676],
-    [15, 148, 0.0578, 0.1617],
-    [0, 20, 0, 0.1684],
-    [1, 29, 0.0009, 0.1776],
+    [81, 263, 0.2527, 0.3676], // Newcombe 1998, Table II, as quoted in Hilum's issue text
+    [0, 20, 0, 0.1684], // Newcombe 1998, Table II, as quoted in Hilum's issue text
+  ])('when %i of %i succeed, then the 95 percent bounds match Newcombe 1998 Table II', (x, n, low, high) => {
+    const interval = clopperPearsonInterval(x, n);
+    expect(interval.low).toBeCloseTo(low, 4);
+    expect(interval.high).toBeCloseTo(high, 4);
+  });
+
+  // Further rows of the same Newcombe 1998 examples — from memory.
+  it.each([
+    [15, 148, 0.0578, 0.1617], // from memory
+    [1, 29, 0.0009, 0.1776], // from memory
   ])(
-    'when %i of %i succeed, then the 95 percent bounds match Newcombe 1998 Table I (from memory)',
+    'when %i of %i succeed, then the 95 percent bounds match Newcombe 1998 (from memory)',
     (x, n, low, high) => {
       const interval = clopperPearsonInterval(x, n);
       expect(interval.low).toBeCloseTo(low, 4);

@@ -1,0 +1,63 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { createPlanBodySchema, planEntrySchema, planListResponseSchema, seasonSchema, sownBodySchema, updatePlanBodySchema } from '../../../shared/schemas/plan';
+import { requireRole } from '../../auth/bank-access';
+import type { Clock } from '../../clock';
+import type { Db } from '../../db/database';
+import { parse } from '../../http/errors';
+import { idParam } from '../../http/params';
+import { respond } from '../../http/respond';
+import type { ViabilityService } from '../viability/viability.service';
+import { planCalendar } from './plan-calendar';
+import type { PlanService } from './plan.service';
+
+const one = z.object({ entry: planEntrySchema });
+
+export function planRoutes(plan: PlanService, deps: { db: Db; clock: Clock; viability: ViabilityService }) {
+  const seasonQuery = z.object({ season: seasonSchema.optional() });
+  const thisSeason = () => deps.clock.now().getUTCFullYear() + (deps.clock.now().getUTCMonth() >= 8 ? 1 : 0);
+  const entryId = (req: { params: Record<string, unknown> }) => idParam(req.params.entryId, 'plan entry');
+
+  /** /api/banks/:bankId/plan */
+  const router = Router({ mergeParams: true });
+  router.get('/', requireRole('viewer'), async (req, res) => {
+    const season = parse(seasonQuery, req.query, 'query').season ?? thisSeason();
+    respond(res, 200, planListResponseSchema, { season, items: await plan.list(req.bank!.id, season), nextCursor: null });
+  });
+  router.post('/', requireRole('grower'), async (req, res) => {
+    const body = parse(createPlanBodySchema, req.body, 'plan entry');
+    respond(res, 201, one, { entry: await plan.create(req.bank!.id, req.auth!.userId, body) });
+  });
+  router.get('/:entryId', requireRole('viewer'), async (req, res) => {
+    respond(res, 200, one, { entry: await plan.get(req.bank!.id, entryId(req)) });
+  });
+  router.patch('/:entryId', requireRole('grower'), async (req, res) => {
+    const body = parse(updatePlanBodySchema, req.body, 'plan entry');
+    respond(res, 200, one, { entry: await plan.update(req.bank!.id, entryId(req), body) });
+  });
+  router.delete('/:entryId', requireRole('grower'), async (req, res) => {
+    await plan.remove(req.bank!.id, entryId(req));
+    res.status(204).end();
+  });
+  router.post('/:entryId/sown', requireRole('grower'), async (req, res) => {
+    const { date } = parse(sownBodySchema, req.body ?? {}, 'sowing');
+    respond(res, 200, one, { entry: await plan.markSown(req.bank!.id, entryId(req), req.auth!.userId, date) });
+  });
+  router.delete('/:entryId/sown', requireRole('grower'), async (req, res) => {
+    respond(res, 200, one, { entry: await plan.undoSown(req.bank!.id, entryId(req)) });
+  });
+
+  /** /api/banks/:bankId/plan.ics */
+  const ics = Router({ mergeParams: true });
+  ics.get('/', requireRole('viewer'), async (req, res) => {
+    const season = parse(seasonQuery, req.query, 'query').season ?? thisSeason();
+    const bank = await deps.db.selectFrom('banks').select('name').where('id', '=', req.bank!.id).executeTakeFirstOrThrow();
+    const entries = await plan.list(req.bank!.id, season);
+    const ranking = await deps.viability.ranking(req.bank!.id, `${season}-01-01`);
+    const retests = ranking.filter((r) => r.retestBy).map((r) => ({ lotId: r.lotId, code: r.code, species: r.species, retestBy: r.retestBy! }));
+    res.setHeader('Content-Type', 'text/calendar; charset=utf-8');
+    res.setHeader('Content-Disposition', `attachment; filename="hilum-plan-${season}.ics"`);
+    res.send(planCalendar(bank.name, season, entries, retests));
+  });
+  return { router, ics };
+}

@@ -1,0 +1,216 @@
+import type { z } from 'zod';
+import { planDates, PlanDateError } from '../../../shared/plan-dates';
+import type { CreatePlanBody, PlanEntryDto, updatePlanBodySchema } from '../../../shared/schemas/plan';
+import type { Clock } from '../../clock';
+import type { Db } from '../../db/database';
+import { AppError, badRequest, conflict, notFound, unprocessable } from '../../http/errors';
+import { lockLot, stockOf } from '../lots/lots.repository';
+import { findSpecies } from '../species/species.service';
+import type { ViabilityService } from '../viability/viability.service';
+
+const isoDay = (d: Date) => d.toISOString().slice(0, 10);
+
+export function createPlanService({ db, clock, viability }: { db: Db; clock: Clock; viability: ViabilityService }) {
+  const entries = (bankId: string) =>
+    db
+      .selectFrom('plan_entries')
+      .innerJoin('species', 'species.id', 'plan_entries.species_id')
+      .leftJoin('lots', 'lots.id', 'plan_entries.lot_id')
+      .selectAll('plan_entries')
+      .select(['species.common_name as species_name', 'lots.code as lot_code'])
+      .where('plan_entries.bank_id', '=', bankId);
+
+  type Row = Awaited<ReturnType<ReturnType<typeof entries>['executeTakeFirstOrThrow']>>;
+  const toDto = (r: Row): PlanEntryDto => ({
+    id: r.id,
+    season: r.season,
+    speciesId: r.species_id,
+    speciesName: r.species_name,
+    lotId: r.lot_id,
+    lotCode: r.lot_code,
+    lotChosen: r.lot_chosen,
+    plantsWanted: r.plants_wanted,
+    start: r.start,
+    seedsToSow: r.seeds_to_sow,
+    sowFrom: r.sow_from,
+    sowTo: r.sow_to,
+    expectFrom: r.expect_from,
+    expectBy: r.expect_by,
+    hardenFrom: r.harden_from,
+    transplantOn: r.transplant_on,
+    notes: (r.notes as string[]) ?? [],
+    sownOn: r.sown_on,
+  });
+
+  async function get(bankId: string, entryId: string) {
+    const row = await entries(bankId).where('plan_entries.id', '=', entryId).executeTakeFirst();
+    if (!row) throw notFound('No such plan entry in this bank.');
+    return toDto(row);
+  }
+
+  /** Dates from the frost date, the suggested (or chosen) lot, and the seeds to sow. */
+  async function compute(bankId: string, input: { season: number; speciesId: string; plantsWanted: number; start: 'indoors' | 'direct'; lotId: string | null }) {
+    const bank = await db.selectFrom('banks').select(['last_frost', 'frost_margin_days']).where('id', '=', bankId).executeTakeFirstOrThrow();
+    const species = await findSpecies(db, bankId, input.speciesId);
+    if (!species) throw badRequest('That species is not in the list.', { speciesId: 'Choose a species from the list.' });
+    let dates;
+    try {
+      dates = planDates({ season: input.season, lastFrost: bank.last_frost, marginDays: bank.frost_margin_days, traits: species.traits, start: input.start });
+    } catch (error) {
+      if (error instanceof PlanDateError) throw unprocessable(error.message);
+      throw error;
+    }
+    const notes = [...dates.notes];
+    const candidates = await viability.candidates(bankId, species.id, dates.sowFrom, input.plantsWanted);
+    let lotId = input.lotId;
+    let seeds: number | null = null;
+    if (lotId) {
+      const lot = await db.selectFrom('lots').select(['id', 'species_id']).where('id', '=', lotId).where('bank_id', '=', bankId).executeTakeFirst();
+      if (!lot || lot.species_id !== species.id) throw badRequest('Choose a lot of this species from this bank.', { lotId: 'Not a lot of this species.' });
+      const c = candidates.find((x) => x.lotId === lotId);
+      if (c) {
+        seeds = c.seeds;
+        if (!c.enough) notes.push(`Lot ${c.code} has ${c.seedsOnHand} seeds; ${c.seeds} are needed for ${input.plantsWanted} plants.`);
+      } else {
+        notes.push('The chosen lot has no germination test yet, so the seeds to sow cannot be worked out. Test it first.');
+      }
+    } else {
+      const best = candidates[0];
+      if (!best) {
+        notes.push(`No tested lot of ${species.commonName} to suggest. Log a lot and test it, or choose one.`);
+      } else {
+        lotId = best.lotId;
+        seeds = best.seeds;
+        notes.push(
+          best.enough
+            ? `Suggested lot ${best.code}: projected ${Math.round(best.projected.percent)}% (at least ${Math.round(best.projected.low)}%) when sowing starts.`
+            : `No lot has enough seed: the best, ${best.code}, has ${best.seedsOnHand} of the ${best.seeds} needed.`,
+        );
+      }
+    }
+    return { dates, notes, lotId, seeds };
+  }
+
+  return {
+    get,
+    async list(bankId: string, season: number) {
+      const rows = await entries(bankId).where('plan_entries.season', '=', season).orderBy('plan_entries.sow_from').orderBy('species.common_name').execute();
+      return rows.map(toDto);
+    },
+
+    async create(bankId: string, userId: string, body: CreatePlanBody) {
+      const c = await compute(bankId, { ...body, lotId: body.lotId ?? null });
+      const row = await db
+        .insertInto('plan_entries')
+        .values({
+          bank_id: bankId,
+          season: body.season,
+          species_id: body.speciesId,
+          lot_id: c.lotId,
+          lot_chosen: Boolean(body.lotId),
+          plants_wanted: body.plantsWanted,
+          start: body.start,
+          seeds_to_sow: c.seeds,
+          sow_from: c.dates.sowFrom,
+          sow_to: c.dates.sowTo,
+          expect_from: c.dates.expectFrom,
+          expect_by: c.dates.expectBy,
+          harden_from: c.dates.hardenFrom,
+          transplant_on: c.dates.transplantOn,
+          notes: JSON.stringify(c.notes),
+          created_by: userId,
+        })
+        .returning('id')
+        .executeTakeFirstOrThrow();
+      return get(bankId, row.id);
+    },
+
+    async update(bankId: string, entryId: string, body: z.infer<typeof updatePlanBodySchema>) {
+      const current = await get(bankId, entryId);
+      if (current.sownOn) throw conflict('This entry is marked sown. Undo that first to change it.', 'already_sown');
+      const lotChosen = body.lotId !== undefined ? body.lotId !== null : current.lotChosen;
+      const input = {
+        season: current.season,
+        speciesId: current.speciesId,
+        plantsWanted: body.plantsWanted ?? current.plantsWanted,
+        start: body.start ?? current.start,
+        lotId: body.lotId !== undefined ? body.lotId : current.lotChosen ? current.lotId : null,
+      };
+      const c = await compute(bankId, input);
+      await db
+        .updateTable('plan_entries')
+        .set({
+          lot_id: c.lotId,
+          lot_chosen: lotChosen,
+          plants_wanted: input.plantsWanted,
+          start: input.start,
+          seeds_to_sow: c.seeds,
+          sow_from: c.dates.sowFrom,
+          sow_to: c.dates.sowTo,
+          expect_from: c.dates.expectFrom,
+          expect_by: c.dates.expectBy,
+          harden_from: c.dates.hardenFrom,
+          transplant_on: c.dates.transplantOn,
+          notes: JSON.stringify(c.notes),
+          updated_at: clock.now(),
+        })
+        .where('id', '=', entryId)
+        .execute();
+      return get(bankId, entryId);
+    },
+
+    async remove(bankId: string, entryId: string) {
+      const current = await get(bankId, entryId);
+      if (current.sownOn) throw conflict('This entry is marked sown. Undo that first, so the seeds go back to the lot.', 'already_sown');
+      await db.deleteFrom('plan_entries').where('id', '=', entryId).execute();
+    },
+
+    /** Withdraws the entry's seeds from its lot, once, in one transaction with the mark. */
+    async markSown(bankId: string, entryId: string, userId: string, date?: string) {
+      const on = date ?? isoDay(clock.now());
+      if (on > isoDay(clock.now())) throw unprocessable('A sowing cannot be dated in the future.', { date: 'Use today or an earlier date.' });
+      await db.transaction().execute(async (trx) => {
+        const entry = await trx.selectFrom('plan_entries').selectAll().where('id', '=', entryId).where('bank_id', '=', bankId).forUpdate().executeTakeFirst();
+        if (!entry) throw notFound('No such plan entry in this bank.');
+        if (entry.sown_on) throw conflict(`Already marked sown on ${entry.sown_on}.`, 'already_sown');
+        if (!entry.lot_id || !entry.seeds_to_sow) throw unprocessable('Choose a tested lot for this entry first, so Hilum knows how many seeds to take.');
+        const lot = await lockLot(trx, bankId, entry.lot_id);
+        if (!lot) throw notFound('The lot of this entry is gone.');
+        const onHand = await stockOf(trx, entry.lot_id);
+        if (onHand < entry.seeds_to_sow) {
+          throw new AppError(409, 'stock_below_zero', `The lot has ${onHand} seeds; this sowing needs ${entry.seeds_to_sow}. Sow fewer or choose another lot.`);
+        }
+        const movement = await trx
+          .insertInto('stock_movements')
+          .values({ lot_id: entry.lot_id, kind: 'sown', change: -entry.seeds_to_sow, date: on, reason: `Sown for ${entry.plants_wanted} plants (season plan ${entry.season})`, created_by: userId })
+          .returning('id')
+          .executeTakeFirstOrThrow();
+        await trx.updateTable('plan_entries').set({ sown_on: on, sown_movement_id: movement.id, updated_at: clock.now() }).where('id', '=', entryId).execute();
+        if (onHand === entry.seeds_to_sow && lot.status === 'active') {
+          await trx.updateTable('lots').set({ status: 'depleted' }).where('id', '=', entry.lot_id).execute();
+        }
+      });
+      return get(bankId, entryId);
+    },
+
+    /** Puts the seeds back: the ledger line goes, the mark goes. */
+    async undoSown(bankId: string, entryId: string) {
+      await db.transaction().execute(async (trx) => {
+        const entry = await trx.selectFrom('plan_entries').selectAll().where('id', '=', entryId).where('bank_id', '=', bankId).forUpdate().executeTakeFirst();
+        if (!entry) throw notFound('No such plan entry in this bank.');
+        if (!entry.sown_on) throw conflict('This entry is not marked sown.', 'not_sown');
+        if (entry.sown_movement_id) await trx.deleteFrom('stock_movements').where('id', '=', entry.sown_movement_id).execute();
+        await trx.updateTable('plan_entries').set({ sown_on: null, sown_movement_id: null, updated_at: clock.now() }).where('id', '=', entryId).execute();
+        if (entry.lot_id) {
+          const lot = await lockLot(trx, bankId, entry.lot_id);
+          if (lot?.status === 'depleted' && (await stockOf(trx, entry.lot_id)) > 0) {
+            await trx.updateTable('lots').set({ status: 'active' }).where('id', '=', entry.lot_id).execute();
+          }
+        }
+      });
+      return get(bankId, entryId);
+    },
+  };
+}
+
+export type PlanService = ReturnType<typeof createPlanService>;
