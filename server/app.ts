@@ -23,6 +23,7 @@ import { lotTestRoutes, testRoutes } from './modules/germination/germination.rou
 import { createGerminationService, lotHasTests } from './modules/germination/germination.service';
 import { invitationsRouter } from './modules/invitations/invitations.router';
 import { planRoutes } from './modules/plan/plan.router';
+import { reminderRoutes } from './modules/reminders/reminders.router';
 import { createPlanService } from './modules/plan/plan.service';
 import { viabilityRoutes } from './modules/viability/viability.router';
 import { createViabilityService } from './modules/viability/viability.service';
@@ -112,6 +113,7 @@ export function createApp(deps: AppDeps): Express {
   const planRouters = planRoutes(plan, { ...deps, viability: services.viability });
   bank.use('/plan.ics', planRouters.ics);
   bank.use('/plan', planRouters.router);
+  bank.use('/reminders', reminderRoutes(deps.db));
   bank.use('/tests/:testId/trays/:trayId/photos', subjectPhotoRoutes(services.photos, 'tray', 'trayId'));
   bank.use('/tests', testRoutes(services.germination));
   bank.use('/lots.csv', lotsCsvExport(services.lots));

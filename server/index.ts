@@ -5,7 +5,9 @@ import { createApp } from './app';
 import { systemClock } from './clock';
 import { ConfigError, loadConfig } from './config';
 import { createDb } from './db/database';
+import { createReminders } from './jobs/reminders';
 import { createMailer } from './mail/mailer';
+import { createViabilityService } from './modules/viability/viability.service';
 import { createObjectStore } from './storage/object-store';
 
 let config;
@@ -24,6 +26,27 @@ const db = createDb(config.databaseUrl, config.databasePoolSize);
 const storage = createObjectStore(config.storage);
 const mailer = createMailer(config.mail);
 const app = createApp({ config, db, storage, mailer, clock: systemClock, logger });
+
+const reminders = createReminders({
+  db,
+  databaseUrl: config.databaseUrl,
+  mailer,
+  clock: systemClock,
+  appOrigin: config.appOrigin,
+  viability: createViabilityService({ db }),
+  logger,
+});
+// The scan is cheap and idempotent: every app server may run it; each reminder is sent once.
+const REMINDER_SCAN_MS = 60_000;
+let scan: NodeJS.Timeout | undefined;
+reminders
+  .start()
+  .then(() => {
+    const run = () => reminders.tick().catch((error) => logger.warn({ err: error }, 'reminder scan failed'));
+    void run();
+    scan = setInterval(run, REMINDER_SCAN_MS);
+  })
+  .catch((error) => logger.error({ err: error }, 'the reminder queue did not start; reminders are paused'));
 
 const server = app.listen(config.port, config.host);
 server.on('listening', () => {
@@ -45,7 +68,9 @@ async function shutdown(signal: string) {
   const force = setTimeout(() => process.exit(1), 10_000);
   force.unref();
   // Stop accepting; idle keep-alive sockets close now, busy ones after their response.
+  if (scan) clearInterval(scan);
   server.close(async () => {
+    await reminders.stop().catch(() => undefined);
     await db.destroy();
     storage.close();
     mailer.close();

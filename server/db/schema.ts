@@ -41,6 +41,27 @@ export interface MembershipTable {
   user_id: string;
   role: Role;
   created_at: Timestamp;
+  remind_sowing: ColumnType<boolean | null, boolean | null | undefined, boolean | null>;
+  remind_checks: ColumnType<boolean | null, boolean | null | undefined, boolean | null>;
+  remind_retest: ColumnType<boolean | null, boolean | null | undefined, boolean | null>;
+  remind_digest: ColumnType<boolean | null, boolean | null | undefined, boolean | null>;
+}
+
+export type ReminderKind = 'sowing' | 'check' | 'retest' | 'digest';
+
+export interface ReminderTable {
+  id: Generated<string>;
+  dedupe_key: string;
+  bank_id: string;
+  user_id: string;
+  kind: ReminderKind;
+  due_on: string;
+  subject: string;
+  body: string;
+  attempts: ColumnType<number, number | undefined, number>;
+  sending_since: Date | null;
+  sent_at: Date | null;
+  created_at: Timestamp;
 }
 
 export interface AppMetaTable {
@@ -262,6 +283,7 @@ export interface Database {
   test_trays: TestTrayTable;
   tray_counts: TrayCountTable;
   plan_entries: PlanEntryTable;
+  reminders: ReminderTable;
 }
 
 export type User = Selectable<UserTable>;
