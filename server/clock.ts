@@ -18,3 +18,11 @@ export function createTestClock(start: Date | string): Clock & { set(at: Date | 
     },
   };
 }
+
+/**
+ * The latest calendar date that is "today" somewhere (UTC+14). A date after it is in the future
+ * for every grower, whatever the bank's time zone; one on or before it may be today for them.
+ */
+export function latestToday(clock: Clock): string {
+  return new Date(clock.now().getTime() + 14 * 3_600_000).toISOString().slice(0, 10);
+}

@@ -12,7 +12,14 @@ import { ResetPasswordPage } from './routes/auth/reset-password';
 import { SignInPage } from './routes/auth/sign-in';
 import { SignUpPage } from './routes/auth/sign-up';
 import { BankLayout } from './routes/banks/bank-layout';
+import { newTestLoader, testLoader } from './routes/banks/germination-loaders';
+import { ImportLotsPage } from './routes/banks/import-lots';
+import { LotPage } from './routes/banks/lot';
+import { lotLoader, lotsLoader, speciesAndPlantsLoader } from './routes/banks/lot-loaders';
+import { LotsPage } from './routes/banks/lots';
 import { MembersPage } from './routes/banks/members';
+import { NewLotPage } from './routes/banks/new-lot';
+import { PlantsPage } from './routes/banks/plants';
 import { NewBankPage } from './routes/banks/new-bank';
 import { SettingsPage } from './routes/banks/settings';
 import { ComingSoonPage } from './routes/coming-soon';
@@ -71,7 +78,24 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                   children: [
                     { index: true, loader: ({ params }) => redirect(paths.overview.getHref(params.bankId ?? '')) },
                     { path: paths.overview.path, element: <ComingSoonPage area="overview" /> },
-                    { path: paths.lots.path, element: <ComingSoonPage area="lots" /> },
+                    { path: paths.lots.path, loader: lotsLoader(queryClient), element: <LotsPage /> },
+                    { path: paths.newLot.path, loader: speciesAndPlantsLoader(queryClient), element: <NewLotPage /> },
+                    { path: paths.importLots.path, element: <ImportLotsPage /> },
+                    { path: paths.lot.path, loader: lotLoader(queryClient), element: <LotPage /> },
+                    { path: paths.plants.path, loader: speciesAndPlantsLoader(queryClient), element: <PlantsPage /> },
+                    {
+                      path: paths.newTest.path,
+                      loader: newTestLoader(queryClient),
+                      lazy: async () => ({
+                        Component: (await import('./routes/banks/new-germination-test')).NewGerminationTestPage,
+                      }),
+                    },
+                    {
+                      path: paths.test.path,
+                      loader: testLoader(queryClient),
+                      // The chart library loads with the test page, not with the app.
+                      lazy: async () => ({ Component: (await import('./routes/banks/germination-test')).GerminationTestPage }),
+                    },
                     { path: paths.planner.path, element: <ComingSoonPage area="planner" /> },
                     { path: paths.members.path, loader: membersLoader(queryClient), element: <MembersPage /> },
                     { path: paths.settings.path, element: <SettingsPage /> },

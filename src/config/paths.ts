@@ -24,6 +24,21 @@ export const paths = {
   bank: { path: '/banks/:bankId', getHref: (bankId: string) => `/banks/${encodeURIComponent(bankId)}` },
   overview: { path: 'overview', getHref: (bankId: string) => bankHref(bankId, 'overview') },
   lots: { path: 'lots', getHref: (bankId: string) => bankHref(bankId, 'lots') },
+  newLot: { path: 'lots/new', getHref: (bankId: string) => bankHref(bankId, 'lots/new') },
+  importLots: { path: 'lots/import', getHref: (bankId: string) => bankHref(bankId, 'lots/import') },
+  lot: {
+    path: 'lots/:lotId',
+    getHref: (bankId: string, lotId: string) => bankHref(bankId, `lots/${encodeURIComponent(lotId)}`),
+  },
+  plants: { path: 'plants', getHref: (bankId: string) => bankHref(bankId, 'plants') },
+  newTest: {
+    path: 'lots/:lotId/tests/new',
+    getHref: (bankId: string, lotId: string) => bankHref(bankId, `lots/${encodeURIComponent(lotId)}/tests/new`),
+  },
+  test: {
+    path: 'tests/:testId',
+    getHref: (bankId: string, testId: string) => bankHref(bankId, `tests/${encodeURIComponent(testId)}`),
+  },
   planner: { path: 'planner', getHref: (bankId: string) => bankHref(bankId, 'planner') },
   members: { path: 'members', getHref: (bankId: string) => bankHref(bankId, 'members') },
   settings: { path: 'settings', getHref: (bankId: string) => bankHref(bankId, 'settings') },

@@ -1,7 +1,7 @@
 import type { Updateable } from 'kysely';
 import type { z } from 'zod';
 import type { CountsBody, CreateTestBody, FinishBody, TestDetail, updateTestBodySchema } from '../../../shared/schemas/germination';
-import type { Clock } from '../../clock';
+import { latestToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
 import type { GerminationTestTable } from '../../db/schema';
 import { AppError, conflict, notFound, unprocessable } from '../../http/errors';
@@ -28,7 +28,7 @@ export async function lotHasTests(db: DbOrTx, lotId: string): Promise<boolean> {
 }
 
 export function createGerminationService({ db, clock, removeSubjectPhotos }: GerminationDeps) {
-  const today = () => isoDay(clock.now());
+  const today = () => latestToday(clock);
 
   async function loadTest(on: DbOrTx, bankId: string, testId: string, lock = false) {
     let q = on

@@ -23,10 +23,10 @@ export function resultWords(r: TestSummary, firstCountDate: string | null): stri
   if (a.ok === null) {
     out.push('Count at least two trays to see whether they agree.');
   } else if (a.ok) {
-    out.push(`The trays agree: they differ by ${days(a.observedRange ?? 0)} points, within the ${a.maxRange} the seed-testing tolerance allows.`);
+    out.push(`The trays agree: they differ by ${days(a.observedRange ?? 0)} points, within the ${days(a.maxRange ?? 0)} the seed-testing tolerance allows.`);
   } else {
     out.push(
-      `The trays differ by ${days(a.observedRange ?? 0)} points, more than the ${a.maxRange} that chance explains: look for uneven moisture, warmth or a mix-up of seed, and consider testing again.`,
+      `The trays differ by ${days(a.observedRange ?? 0)} points, more than the ${days(a.maxRange ?? 0)} that chance explains: look for uneven moisture, warmth or a mix-up of seed, and consider testing again.`,
     );
   }
   if (r.t50Days !== null) out.push(`Half of the seedlings that came up had appeared by day ${days(r.t50Days)}.`);

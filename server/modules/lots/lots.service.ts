@@ -1,6 +1,6 @@
 import { sql } from 'kysely';
 import type { CreateLotBody, StockBody, UpdateLotBody } from '../../../shared/schemas/lots';
-import type { Clock } from '../../clock';
+import { latestToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
 import type { LotStatus, LotTable } from '../../db/schema';
 import type { LotCsvRow, ParsedLotCsvRow } from './lots.csv';
@@ -269,7 +269,7 @@ export function createLotsService(deps: LotsServiceDeps) {
     },
 
     async addMovement(bankId: string, lotId: string, userId: string, body: StockBody) {
-      if (body.date > isoDay(clock.now())) {
+      if (body.date > latestToday(clock)) {
         throw new AppError(422, 'impossible', 'A stock movement cannot be dated in the future.', { date: 'Use today or an earlier date.' });
       }
       return db.transaction().execute(async (trx) => {

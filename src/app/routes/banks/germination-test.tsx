@@ -1,0 +1,93 @@
+import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
+import { isoDateSchema } from '../../../../shared/schemas/common';
+import { PageHeader } from '../../../components/ui/page-header';
+import { paths } from '../../../config/paths';
+import { forgetTest } from '../../../features/germination/api/delete-test';
+import { testQueryOptions } from '../../../features/germination/api/get-test';
+import type { IntervalMethod } from '../../../features/germination/api/interval';
+import { formatDate, setupWords } from '../../../features/germination/components/format';
+import { TestWorkbench } from '../../../features/germination/components/test-workbench';
+import type { BankNoticeState } from './bank-layout';
+import { CHECK_DATE_PARAM, EXACT_INTERVAL_PARAM, intervalFromSearch } from './germination-loaders';
+import { useRouteBank } from './use-route-bank';
+
+/** /banks/:bankId/tests/:testId — one germination test: counts at the bench, curve and result. */
+export function GerminationTestPage() {
+  const { bank, role } = useRouteBank();
+  const { testId = '' } = useParams();
+  const [search, setSearch] = useSearchParams();
+  const interval = intervalFromSearch(search);
+  const queryClient = useQueryClient();
+  const navigate = useNavigate();
+  // The loader fetched it; the header reads the same cache entry the workbench uses.
+  const detail = useQuery(testQueryOptions(bank.id, testId, 'wilson')).data;
+  const canWrite = role !== 'viewer';
+
+  const dateParam = isoDateSchema.safeParse(search.get(CHECK_DATE_PARAM));
+  const updateSearch = (change: (params: URLSearchParams) => void) =>
+    setSearch(
+      (current) => {
+        const params = new URLSearchParams(current);
+        change(params);
+        return params;
+      },
+      { replace: true, preventScrollReset: true },
+    );
+  const setInterval = (next: IntervalMethod) =>
+    updateSearch((params) => {
+      if (next === 'clopper-pearson') params.set(EXACT_INTERVAL_PARAM, 'exact');
+      else params.delete(EXACT_INTERVAL_PARAM);
+    });
+  const setCheckDate = (date: string) => updateSearch((params) => params.set(CHECK_DATE_PARAM, date));
+
+  const onDeleted = async () => {
+    const lotId = detail?.test.lotId;
+    const state: BankNoticeState = { notice: `Test deleted; its seeds are back in lot ${detail?.test.lotCode ?? ''}.` };
+    await navigate(lotId ? paths.lot.getHref(bank.id, lotId) : paths.lots.getHref(bank.id), { replace: true, state });
+    forgetTest(queryClient, bank.id, testId);
+  };
+
+  const test = detail?.test;
+  return (
+    <>
+      <PageHeader
+        eyebrow={
+          test ? (
+            <Link to={paths.lot.getHref(bank.id, test.lotId)} className="text-seedcoat-700 underline">
+              Lot {test.lotCode}
+            </Link>
+          ) : (
+            bank.name
+          )
+        }
+        title={test ? `${test.speciesName} · ${test.variety}` : 'Germination test'}
+        description={
+          test ? (
+            <>
+              Germination test started {formatDate(test.startDate)} · {setupWords(test)}
+              {test.schedule.firstCountDate || test.schedule.finalCountDate ? (
+                <span className="mt-1 block text-frost-700">
+                  {test.schedule.firstCountDate ? `First count around ${formatDate(test.schedule.firstCountDate)}` : ''}
+                  {test.schedule.firstCountDate && test.schedule.finalCountDate ? ', ' : ''}
+                  {test.schedule.finalCountDate ? `final count around ${formatDate(test.schedule.finalCountDate)}` : ''}.
+                </span>
+              ) : null}
+              {test.notes ? <span className="mt-1 block whitespace-pre-line">{test.notes}</span> : null}
+            </>
+          ) : undefined
+        }
+      />
+      <TestWorkbench
+        bankId={bank.id}
+        testId={testId}
+        canWrite={canWrite}
+        interval={interval}
+        onIntervalChange={setInterval}
+        date={dateParam.success ? dateParam.data : undefined}
+        onDateChange={setCheckDate}
+        onDeleted={onDeleted}
+      />
+    </>
+  );
+}

@@ -1,0 +1,83 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { data, redirect, type LoaderFunctionArgs } from 'react-router-dom';
+import { paths } from '../../../config/paths';
+import { bankQueryOptions } from '../../../features/banks/api/get-bank';
+import { lotsQueryOptions } from '../../../features/lots/api/get-lots';
+import { lotQueryOptions } from '../../../features/lots/api/get-lot';
+import { stockQueryOptions } from '../../../features/lots/api/get-stock';
+import { photosQueryOptions } from '../../../features/photos/api/get-photos';
+import { plantsQueryOptions } from '../../../features/plants/api/get-plants';
+import { speciesQueryOptions } from '../../../features/species/api/get-species';
+import { isApiError } from '../../../lib/api-client';
+import { filtersFromSearch } from './lots-search';
+
+/*
+ * Loaders of the lots area: each waits for what the page cannot draw without, and starts the rest
+ * (stock, photos) so it arrives while the page renders. The same queryOptions as the components.
+ */
+
+function failure(error: unknown, request: Request): never {
+  const url = new URL(request.url);
+  if (isApiError(error) && error.status === 401) throw redirect(paths.signIn.getHref(url.pathname + url.search));
+  if (isApiError(error) && error.status === 404) throw data(error.message, { status: 404 });
+  throw error;
+}
+
+function idsOf(params: LoaderFunctionArgs['params']) {
+  if (!params.bankId) throw data('No bank in the address.', { status: 404 });
+  return { bankId: params.bankId, lotId: params.lotId };
+}
+
+export function lotsLoader(queryClient: QueryClient) {
+  return async ({ params, request }: LoaderFunctionArgs) => {
+    const { bankId } = idsOf(params);
+    const filters = filtersFromSearch(new URL(request.url).searchParams);
+    try {
+      await Promise.all([
+        queryClient.ensureQueryData(bankQueryOptions(bankId)),
+        queryClient.ensureQueryData(speciesQueryOptions(bankId)),
+        queryClient.ensureInfiniteQueryData(lotsQueryOptions(bankId, filters)),
+      ]);
+    } catch (error) {
+      failure(error, request);
+    }
+    return null;
+  };
+}
+
+/** The new-lot form and the plants page: the species to pick from and the bank's plants. */
+export function speciesAndPlantsLoader(queryClient: QueryClient) {
+  return async ({ params, request }: LoaderFunctionArgs) => {
+    const { bankId } = idsOf(params);
+    try {
+      await Promise.all([
+        queryClient.ensureQueryData(bankQueryOptions(bankId)),
+        queryClient.ensureQueryData(speciesQueryOptions(bankId)),
+        queryClient.ensureQueryData(plantsQueryOptions(bankId)),
+      ]);
+    } catch (error) {
+      failure(error, request);
+    }
+    return null;
+  };
+}
+
+export function lotLoader(queryClient: QueryClient) {
+  return async ({ params, request }: LoaderFunctionArgs) => {
+    const { bankId, lotId } = idsOf(params);
+    if (!lotId) throw data('No lot in the address.', { status: 404 });
+    void queryClient.prefetchQuery(stockQueryOptions(bankId, lotId));
+    void queryClient.prefetchQuery(photosQueryOptions(bankId, 'lot', lotId));
+    try {
+      await Promise.all([
+        queryClient.ensureQueryData(bankQueryOptions(bankId)),
+        queryClient.ensureQueryData(lotQueryOptions(bankId, lotId)),
+        queryClient.ensureQueryData(speciesQueryOptions(bankId)),
+        queryClient.ensureQueryData(plantsQueryOptions(bankId)),
+      ]);
+    } catch (error) {
+      failure(error, request);
+    }
+    return null;
+  };
+}

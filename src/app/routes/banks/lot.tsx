@@ -1,0 +1,113 @@
+import { Link, useLocation, useNavigate, useParams } from 'react-router-dom';
+import { buttonStyles } from '../../../components/ui/button';
+import { Card } from '../../../components/ui/card';
+import { paths } from '../../../config/paths';
+import { LotTests } from '../../../features/germination/components/lot-tests';
+import { useLot } from '../../../features/lots/api/get-lot';
+import { DeleteLotCard } from '../../../features/lots/components/delete-lot-card';
+import { LotDetails } from '../../../features/lots/components/lot-details';
+import { LotHeader } from '../../../features/lots/components/lot-header';
+import { StockLedger } from '../../../features/lots/components/stock-ledger';
+import { PhotoGallery, type FailedUpload } from '../../../features/photos/components/photo-gallery';
+import { usePlants } from '../../../features/plants/api/get-plants';
+import { PlantsList } from '../../../features/plants/components/plants-list';
+import { useSpecies } from '../../../features/species/api/get-species';
+import { SpeciesTraitsCard } from '../../../features/species/components/species-traits-card';
+import { todayIn } from '../../../lib/dates';
+import type { BankNoticeState } from './bank-layout';
+import { useRouteBank } from './use-route-bank';
+
+/** What the new-lot form hands over: the notice, and a photo upload that failed after saving. */
+export interface LotPageState extends BankNoticeState {
+  photoFailure?: FailedUpload;
+}
+
+export function LotPage() {
+  const { bank, role } = useRouteBank();
+  const { lotId = '' } = useParams();
+  const location = useLocation();
+  const navigate = useNavigate();
+  const canEdit = role !== 'viewer';
+  const { data: lot } = useLot(bank.id, lotId);
+  const species = useSpecies(bank.id).data?.find((s) => s.id === lot.speciesId);
+  const plants = usePlants(bank.id).data ?? [];
+  const speciesPlants = plants.filter((p) => p.speciesId === lot.speciesId);
+  const parents = plants.filter((p) => lot.parentPlantIds.includes(p.id));
+  const photoFailure = (location.state as LotPageState | null)?.photoFailure;
+  const today = todayIn(bank.timeZone);
+
+  return (
+    <>
+      <LotHeader
+        lot={lot}
+        eyebrow={
+          <Link to={paths.lots.getHref(bank.id)} className="underline">
+            {bank.name} · Lots
+          </Link>
+        }
+        actions={
+          canEdit ? (
+            <Link to={paths.newLot.getHref(bank.id)} className={buttonStyles({ variant: 'secondary' })}>
+              New lot
+            </Link>
+          ) : undefined
+        }
+      />
+      <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <div className="grid min-w-0 gap-6">
+          <Card title="Photos">
+            <PhotoGallery
+              key={lot.id}
+              bankId={bank.id}
+              subject="lot"
+              subjectId={lot.id}
+              canEdit={canEdit}
+              failedUpload={photoFailure}
+              describe={(i) => `Packet of ${lot.code}${i > 0 ? `, photo ${i + 1}` : ''}`}
+            />
+          </Card>
+          <LotDetails key={lot.updatedAt} bankId={bank.id} lot={lot} plants={speciesPlants} canEdit={canEdit} />
+          <StockLedger bankId={bank.id} lotId={lot.id} canEdit={canEdit} today={today} />
+
+          {/*
+            Germination tests of this lot: the germination pages (src/features/germination) mount
+            their list of this lot's tests in this section. Nothing else goes here.
+          */}
+          <section id="lot-tests" aria-labelledby="lot-tests-title">
+            <LotTests bankId={bank.id} lotId={lot.id} canWrite={canEdit} headingId="lot-tests-title" />
+          </section>
+        </div>
+
+        <div className="grid min-w-0 gap-6">
+          {species ? <SpeciesTraitsCard bankId={bank.id} species={species} canEdit={canEdit} /> : null}
+          <Card title="Parent plants" description={lot.plantsBulked ? `Seed bulked from ${lot.plantsBulked} plants` : undefined}>
+            {parents.length ? (
+              <PlantsList bankId={bank.id} plants={parents} canEdit={false} label={`Parent plants of ${lot.code}`} />
+            ) : (
+              <p className="text-loam-700">No parent plants recorded for this lot.</p>
+            )}
+            <p className="mt-2 text-sm">
+              <Link to={paths.plants.getHref(bank.id)} className="font-semibold text-moss-800 underline">
+                All parent plants
+              </Link>
+            </p>
+          </Card>
+          {canEdit ? (
+            <DeleteLotCard
+              bankId={bank.id}
+              lot={lot}
+              onDone={(outcome) =>
+                outcome.outcome === 'deleted'
+                  ? void navigate(paths.lots.getHref(bank.id), { replace: true, state: { notice: `Lot ${lot.code} was deleted.` } })
+                  : void navigate(location.pathname, {
+                      replace: true,
+                      state: { notice: `Lot ${lot.code} has germination tests, so it was retired instead of deleted.` },
+                    })
+              }
+            />
+          ) : null}
+        </div>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,56 @@
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import { Card } from '../../../components/ui/card';
+import { FormAlert } from '../../../components/ui/form-alert';
+import { PageHeader } from '../../../components/ui/page-header';
+import { paths } from '../../../config/paths';
+import { StartTestForm } from '../../../features/germination/components/start-test-form';
+import { useLot } from '../../../features/lots/api/get-lot';
+import type { BankNoticeState } from './bank-layout';
+import { useRouteBank } from './use-route-bank';
+
+/** /banks/:bankId/lots/:lotId/tests/new — start a germination test of one lot. */
+export function NewGerminationTestPage() {
+  const { bank, role } = useRouteBank();
+  const { lotId = '' } = useParams();
+  const lot = useLot(bank.id, lotId).data;
+  const navigate = useNavigate();
+  const lotHref = paths.lot.getHref(bank.id, lotId);
+
+  return (
+    <div className="mx-auto w-full max-w-3xl">
+      <PageHeader
+        eyebrow={
+          <Link to={lotHref} className="text-seedcoat-700 underline">
+            Lot {lot.code}
+          </Link>
+        }
+        title="Start a germination test"
+        description={`${lot.speciesName} · ${lot.variety}. Count the seeds into each tray; Hilum takes them from the lot’s stock.`}
+      />
+      {role === 'viewer' ? (
+        <FormAlert tone="info">As a viewer you can read this bank’s tests; a grower or owner starts them.</FormAlert>
+      ) : (
+        <Card>
+          <StartTestForm
+            bankId={bank.id}
+            lotId={lotId}
+            lot={lot}
+            renderStockLink={(label) => (
+              <Link to={lotHref} className="underline">
+                {label}
+              </Link>
+            )}
+            onCancel={() => void navigate(lotHref)}
+            onCreated={async (detail) => {
+              const sown = detail.trays.reduce((sum, t) => sum + t.seedsSown, 0);
+              const state: BankNoticeState = {
+                notice: `Test started: ${sown} seeds taken from lot ${lot.code}. Count them here on each check day.`,
+              };
+              await navigate(paths.test.getHref(bank.id, detail.test.id), { state });
+            }}
+          />
+        </Card>
+      )}
+    </div>
+  );
+}

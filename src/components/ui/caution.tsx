@@ -1,0 +1,32 @@
+import type { ReactNode } from 'react';
+import { cn } from '../../lib/cn';
+
+export interface CautionProps {
+  title: ReactNode;
+  children?: ReactNode;
+  className?: string;
+}
+
+/**
+ * A safety note where something can hurt someone (poisonous seed, swaps across borders, hot water,
+ * electrics near water). Amber, with a warning mark; read out politely, never as an error.
+ */
+export function Caution({ title, children, className }: CautionProps) {
+  return (
+    <div
+      role="note"
+      className={cn(
+        'flex gap-2.5 rounded-lg border border-seedcoat-300 bg-seedcoat-100 px-3 py-2.5 text-seedcoat-900',
+        className,
+      )}
+    >
+      <svg viewBox="0 0 20 20" aria-hidden="true" className="mt-0.5 size-5 shrink-0 text-seedcoat-700" fill="currentColor">
+        <path d="M10 2 1 18h18L10 2Zm-.9 5h1.8v5.5H9.1V7Zm0 7h1.8v1.8H9.1V14Z" />
+      </svg>
+      <div className="min-w-0">
+        <p className="font-bold">{title}</p>
+        {children !== undefined ? <div className="text-sm">{children}</div> : null}
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,23 @@
+import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { apiFetch } from '../../../lib/api-client';
+import { invalidateLots } from './apply-test-detail';
+import { apiPaths, germinationKeys } from './keys';
+
+/** Drops a deleted test from the cache, once no page shows it. */
+export function forgetTest(queryClient: QueryClient, bankId: string, testId: string): void {
+  queryClient.removeQueries({ queryKey: germinationKeys.test(bankId, testId) });
+}
+
+/** DELETE /api/banks/:bankId/tests/:testId (grower) → 204; the test's seeds go back to its lot. */
+export async function deleteTest(bankId: string, testId: string): Promise<void> {
+  await apiFetch(apiPaths.test(bankId, testId), { method: 'DELETE' });
+}
+
+export function useDeleteTest(bankId: string, testId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => deleteTest(bankId, testId),
+    // The page leaves first and then forgets the test (removing it under a mounted page refetches it).
+    onSuccess: () => invalidateLots(queryClient, bankId),
+  });
+}

@@ -1,0 +1,27 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { testDetailSchema, type TestDetail } from '../../../../shared/schemas/germination';
+import { apiFetch } from '../../../lib/api-client';
+import type { IntervalMethod } from './interval';
+import { apiPaths, germinationKeys } from './keys';
+
+/** GET /api/banks/:bankId/tests/:testId[?interval=clopper-pearson]: trays, counts and the result. */
+export function getTest(
+  bankId: string,
+  testId: string,
+  interval: IntervalMethod,
+  { signal }: { signal?: AbortSignal } = {},
+): Promise<TestDetail> {
+  const query = interval === 'wilson' ? '' : `?interval=${interval}`;
+  return apiFetch(`${apiPaths.test(bankId, testId)}${query}`, { schema: testDetailSchema, signal });
+}
+
+export function testQueryOptions(bankId: string, testId: string, interval: IntervalMethod = 'wilson') {
+  return queryOptions({
+    queryKey: germinationKeys.testDetail(bankId, testId, interval),
+    queryFn: ({ signal }) => getTest(bankId, testId, interval, { signal }),
+  });
+}
+
+export function useTest(bankId: string, testId: string, interval: IntervalMethod = 'wilson') {
+  return useQuery(testQueryOptions(bankId, testId, interval));
+}

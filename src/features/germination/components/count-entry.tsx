@@ -1,0 +1,361 @@
+import { useEffect, useId, useRef, useState, type FormEvent } from 'react';
+import { countsBodySchema, type TestDetail } from '../../../../shared/schemas/germination';
+import { Button } from '../../../components/ui/button';
+import { FormAlert } from '../../../components/ui/form-alert';
+import { TextField } from '../../../components/ui/text-field';
+import { isApiError } from '../../../lib/api-client';
+import { cn } from '../../../lib/cn';
+import { useRecordCounts } from '../api/record-counts';
+import { clearDraft, readDraft, writeDraft } from './count-draft';
+import { formatShortDate } from './format';
+
+export interface CountEntryProps {
+  bankId: string;
+  detail: TestDetail;
+  /** The check date being entered (YYYY-MM-DD); the page keeps it so the counts table can pick one. */
+  date: string;
+  onDateChange: (date: string) => void;
+  /** The browser's today, the latest date a count may carry. */
+  today: string;
+}
+
+type Tray = TestDetail['trays'][number];
+
+/** The tray's count on `date`, else its latest count before it, else 0: what to start typing from. */
+function prefillFor(detail: TestDetail, trayId: string, date: string): { value: number; previous: { date: string; cumulative: number } | null } {
+  const mine = detail.counts.filter((c) => c.trayId === trayId).sort((a, b) => a.date.localeCompare(b.date));
+  const onDate = mine.find((c) => c.date === date);
+  const before = mine.filter((c) => c.date < date).at(-1) ?? null;
+  const previous = before ? { date: before.date, cumulative: before.cumulative } : null;
+  return { value: onDate?.cumulative ?? before?.cumulative ?? 0, previous };
+}
+
+/** What the saved counts of one date look like, so the rows start over when they change. */
+function savedSignature(detail: TestDetail, date: string): string {
+  return detail.counts
+    .filter((c) => c.date === date)
+    .map((c) => `${c.trayId}:${c.cumulative}`)
+    .sort()
+    .join(',');
+}
+
+/**
+ * Count entry built for the bench: one row per tray with big − / + steppers and a number field,
+ * the check date, and one big Save. Typed numbers survive a reload or a dropped connection.
+ */
+export function CountEntry({ bankId, detail, date, onDateChange, today }: CountEntryProps) {
+  const dateId = useId();
+  const hasSaved = detail.counts.some((c) => c.date === date);
+  const [dateError, setDateError] = useState<string>();
+  // Kept here, not in the rows: the rows start over once the saved counts change.
+  const [savedDate, setSavedDate] = useState<string | null>(null);
+
+  return (
+    <section aria-labelledby={`${dateId}-title`} className="rounded-xl border-2 border-moss-300 bg-white p-4 shadow-sm sm:p-5">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <h2 id={`${dateId}-title`} className="text-xl font-bold text-loam-950">
+          Count the sprouted seeds
+        </h2>
+      </div>
+      <p className="mt-1 text-loam-700">
+        Give each tray’s total so far (every sprouted seed since sowing, not only the new ones).
+      </p>
+      <div className="mt-4 max-w-xs">
+        <TextField
+          id={dateId}
+          label="Check date"
+          type="date"
+          min={detail.test.startDate}
+          max={today}
+          value={date}
+          error={dateError}
+          onChange={(e) => {
+            setDateError(undefined);
+            if (e.target.value) onDateChange(e.target.value);
+          }}
+          hint={hasSaved ? `Counts of ${formatShortDate(date)} are saved; saving again corrects them.` : undefined}
+        />
+      </div>
+      <CountRows
+        key={`${date}|${savedSignature(detail, date)}`}
+        bankId={bankId}
+        detail={detail}
+        date={date}
+        onDateError={setDateError}
+        justSaved={savedDate === date}
+        onSaved={setSavedDate}
+        onEdited={() => setSavedDate(null)}
+      />
+    </section>
+  );
+}
+
+type SaveState =
+  | { kind: 'idle' }
+  /** Numbers restored from this device after a reload. */
+  | { kind: 'restored' }
+  /** A save that could not reach the server; the numbers are kept. */
+  | { kind: 'kept'; message: string }
+  | { kind: 'refused'; message: string };
+
+interface CountRowsProps {
+  bankId: string;
+  detail: TestDetail;
+  date: string;
+  onDateError: (message: string | undefined) => void;
+  justSaved: boolean;
+  onSaved: (date: string) => void;
+  onEdited: () => void;
+}
+
+function CountRows({ bankId, detail, date, onDateError, justSaved, onSaved, onEdited }: CountRowsProps) {
+  const testId = detail.test.id;
+  const record = useRecordCounts(bankId, testId);
+  const [draft] = useState(() => readDraft(testId, date));
+  const [values, setValues] = useState<Record<string, string>>(() => {
+    const start: Record<string, string> = {};
+    for (const tray of detail.trays) {
+      start[tray.id] = draft?.values[tray.id] ?? String(prefillFor(detail, tray.id, date).value);
+    }
+    return start;
+  });
+  const [unsaved, setUnsaved] = useState(draft !== null);
+  const [trayErrors, setTrayErrors] = useState<Record<string, string>>({});
+  const [state, setState] = useState<SaveState>(() =>
+    draft ? { kind: 'restored' } : { kind: 'idle' },
+  );
+
+  const change = (trayId: string, value: string) => {
+    const next = { ...values, [trayId]: value };
+    setValues(next);
+    setUnsaved(true);
+    writeDraft(testId, date, next);
+    setTrayErrors(({ [trayId]: _dropped, ...rest }) => rest);
+    if (justSaved) onEdited();
+  };
+
+  const step = (tray: Tray, by: number) => {
+    const current = Number.parseInt(values[tray.id] ?? '0', 10);
+    const base = Number.isFinite(current) ? current : 0;
+    change(tray.id, String(Math.min(tray.seedsSown, Math.max(0, base + by))));
+  };
+
+  const save = async () => {
+    onDateError(undefined);
+    const local: Record<string, string> = {};
+    const entries = detail.trays.map((tray) => {
+      const text = (values[tray.id] ?? '').trim();
+      const n = /^\d+$/.test(text) ? Number(text) : Number.NaN;
+      if (Number.isNaN(n)) local[tray.id] = `Tray ${tray.position}: type the number sprouted so far (0 if none).`;
+      else if (n > tray.seedsSown) local[tray.id] = `Tray ${tray.position}: ${n} is more than the ${tray.seedsSown} seeds sown.`;
+      return { trayId: tray.id, cumulative: n };
+    });
+    const body = countsBodySchema.safeParse({ date, trays: entries });
+    if (Object.keys(local).length > 0 || !body.success) {
+      setTrayErrors(local);
+      setState({ kind: 'refused', message: 'Not saved: check the trays marked below.' });
+      return;
+    }
+    setTrayErrors({});
+    setState({ kind: 'idle' });
+    try {
+      await record.mutateAsync(body.data);
+      clearDraft(testId, date);
+      setUnsaved(false);
+      setState({ kind: 'idle' });
+      onSaved(date);
+    } catch (error) {
+      if (isApiError(error) && error.status === 422) {
+        const placed = placeServerError(error.message, error.fields ?? {}, entries);
+        setTrayErrors(placed.trays);
+        if (placed.date) onDateError(placed.date);
+        setState({ kind: 'refused', message: error.message });
+        return;
+      }
+      if (isApiError(error) && error.status >= 400 && error.status < 500 && error.status !== 408 && error.status !== 429) {
+        setState({ kind: 'refused', message: error.message });
+        return;
+      }
+      // No connection, a server restarting, a timeout: the numbers stay here and in the draft.
+      setState({ kind: 'kept', message: 'Not saved yet — will keep your numbers. Press Save again when the connection is back.' });
+    }
+  };
+
+  // Back online after a failed save: try once more by itself.
+  const retryWhenOnline = state.kind === 'kept' && unsaved;
+  const saveRef = useRef(save);
+  useEffect(() => {
+    saveRef.current = save;
+  });
+  useEffect(() => {
+    if (!retryWhenOnline) return;
+    const onOnline = () => void saveRef.current();
+    window.addEventListener('online', onOnline);
+    return () => window.removeEventListener('online', onOnline);
+  }, [retryWhenOnline]);
+
+  const onSubmit = (event: FormEvent) => {
+    event.preventDefault();
+    void save();
+  };
+
+  return (
+    <form noValidate onSubmit={onSubmit} className="mt-4 grid grid-cols-1 gap-3" aria-label={`Counts for ${formatShortDate(date)}`}>
+      <ol className="grid grid-cols-1 gap-3" aria-label="Trays">
+        {detail.trays.map((tray) => (
+          <TrayRow
+            key={tray.id}
+            tray={tray}
+            value={values[tray.id] ?? ''}
+            previous={prefillFor(detail, tray.id, date).previous}
+            error={trayErrors[tray.id]}
+            disabled={record.isPending}
+            onChange={(value) => change(tray.id, value)}
+            onStep={(by) => step(tray, by)}
+          />
+        ))}
+      </ol>
+
+      <div aria-live="polite" className="empty:hidden">
+        {justSaved && !unsaved ? (
+          <FormAlert tone="success">Saved the counts of {formatShortDate(date)}.</FormAlert>
+        ) : state.kind === 'restored' ? (
+          <FormAlert tone="info" title="Not saved yet">
+            These are the numbers you typed earlier on this device. Check them and save.
+          </FormAlert>
+        ) : state.kind === 'kept' ? (
+          <FormAlert tone="info" title="Not saved yet">
+            {state.message}
+          </FormAlert>
+        ) : state.kind === 'refused' ? (
+          <FormAlert title="Not saved">{state.message}</FormAlert>
+        ) : null}
+      </div>
+
+      <Button
+        type="submit"
+        size="lg"
+        fullWidth
+        isLoading={record.isPending}
+        className="min-h-14 text-xl"
+      >
+        {record.isPending ? 'Saving…' : state.kind === 'kept' ? 'Save again' : `Save counts for ${formatShortDate(date)}`}
+      </Button>
+      {unsaved && !record.isPending && state.kind === 'idle' ? (
+        <p className="text-center text-sm text-loam-600">Changes not saved yet; they are kept on this device until you save.</p>
+      ) : null}
+    </form>
+  );
+}
+
+/**
+ * Puts a 422 next to the tray it is about: fields like `trays.1.cumulative` point into the array
+ * that was sent; the server's message names the tray in words.
+ */
+function placeServerError(
+  message: string,
+  fields: Record<string, string>,
+  sent: Array<{ trayId: string }>,
+): { trays: Record<string, string>; date?: string } {
+  const trays: Record<string, string> = {};
+  let date: string | undefined;
+  for (const [key, detail] of Object.entries(fields)) {
+    const match = /^trays\.(\d+)\./.exec(key);
+    const trayId = match ? sent[Number(match[1])]?.trayId : undefined;
+    if (trayId) trays[trayId] = `${message} ${detail}`.trim();
+    else if (key === 'date') date = `${message} ${detail}`.trim();
+  }
+  return { trays, date };
+}
+
+interface TrayRowProps {
+  tray: Tray;
+  value: string;
+  previous: { date: string; cumulative: number } | null;
+  error: string | undefined;
+  disabled: boolean;
+  onChange: (value: string) => void;
+  onStep: (by: number) => void;
+}
+
+const stepperClass = cn(
+  'inline-flex size-14 shrink-0 items-center justify-center rounded-xl border-2 text-3xl font-bold leading-none',
+  'touch-manipulation select-none border-moss-700 bg-moss-50 text-moss-800 hover:bg-moss-100 active:bg-moss-200',
+  'disabled:cursor-not-allowed disabled:opacity-50',
+);
+
+function TrayRow({ tray, value, previous, error, disabled, onChange, onStep }: TrayRowProps) {
+  const inputId = useId();
+  const errorId = `${inputId}-error`;
+  const label = `Tray ${tray.position} · ${tray.seedsSown} sown`;
+  const n = Number.parseInt(value, 10);
+  return (
+    <li
+      data-tray={tray.position}
+      className={cn(
+        'rounded-xl border p-3',
+        error ? 'border-2 border-clay-700 bg-clay-50' : 'border-loam-200 bg-husk-50',
+      )}
+    >
+      <div className="flex flex-wrap items-center justify-between gap-x-4 gap-y-2">
+        <div className="min-w-0">
+          <label htmlFor={inputId} className="text-lg font-bold text-loam-900">
+            {label}
+          </label>
+          <p className="text-sm text-loam-600">
+            {previous ? (
+              <>
+                {previous.cumulative} on {formatShortDate(previous.date)}
+              </>
+            ) : (
+              'No count before this date'
+            )}
+          </p>
+        </div>
+        <div className="flex w-full items-center gap-2 sm:w-auto">
+          <button
+            type="button"
+            className={stepperClass}
+            aria-label={`One fewer in tray ${tray.position}`}
+            disabled={disabled || !(n > 0)}
+            onClick={() => onStep(-1)}
+          >
+            −
+          </button>
+          <input
+            id={inputId}
+            type="text"
+            inputMode="numeric"
+            pattern="[0-9]*"
+            autoComplete="off"
+            enterKeyHint="done"
+            value={value}
+            disabled={disabled}
+            aria-invalid={error ? true : undefined}
+            aria-describedby={error ? errorId : undefined}
+            onChange={(e) => onChange(e.target.value.replace(/[^\d]/g, ''))}
+            onFocus={(e) => e.target.select()}
+            className={cn(
+              'num h-14 w-0 min-w-0 flex-1 rounded-xl border-2 bg-white px-2 text-center text-3xl font-bold text-loam-950 sm:w-24 sm:flex-none',
+              error ? 'border-clay-700' : 'border-loam-300',
+            )}
+          />
+          <button
+            type="button"
+            className={stepperClass}
+            aria-label={`One more in tray ${tray.position}`}
+            disabled={disabled || n >= tray.seedsSown}
+            onClick={() => onStep(1)}
+          >
+            +
+          </button>
+        </div>
+      </div>
+      {error ? (
+        <p id={errorId} role="alert" className="mt-2 font-semibold text-clay-800">
+          {error}
+        </p>
+      ) : null}
+    </li>
+  );
+}

@@ -1,0 +1,68 @@
+import type { TestDetail } from '../../../../shared/schemas/germination';
+
+const DAY_MS = 86_400_000;
+
+/** Today's calendar date where the grower is (the browser's own zone), as YYYY-MM-DD. */
+export function localToday(now: Date = new Date()): string {
+  const y = now.getFullYear();
+  const m = String(now.getMonth() + 1).padStart(2, '0');
+  const d = String(now.getDate()).padStart(2, '0');
+  return `${y}-${m}-${d}`;
+}
+
+/** Whole days from one ISO date to another (calendar days, no time zone involved). */
+export function daysBetween(from: string, to: string): number {
+  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / DAY_MS);
+}
+
+const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+const shortDateFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
+
+/** "10 Mar 2026" for an ISO date. */
+export function formatDate(iso: string): string {
+  const ms = Date.parse(`${iso}T00:00:00Z`);
+  return Number.isNaN(ms) ? iso : dateFormat.format(ms);
+}
+
+/** "Tue 10 Mar" for an ISO date, for check days within one test. */
+export function formatShortDate(iso: string): string {
+  const ms = Date.parse(`${iso}T00:00:00Z`);
+  return Number.isNaN(ms) ? iso : shortDateFormat.format(ms);
+}
+
+/** A whole percent for the screen; the server keeps full precision. */
+export function formatPercent(value: number | null | undefined): string {
+  return value === null || value === undefined ? '–' : `${Math.round(value)}%`;
+}
+
+/** Days to one decimal, the precision a daily check supports. */
+export function formatDays(value: number | null | undefined): string {
+  return value === null || value === undefined ? '–' : (Math.round(value * 10) / 10).toLocaleString('en-GB');
+}
+
+/** "likely between 78% and 89%" for the result's interval, or null while there is none. */
+export function intervalWords(result: TestDetail['result']): string | null {
+  const interval = result.interval;
+  if (!interval) return null;
+  return `likely between ${formatPercent(interval.low)} and ${formatPercent(interval.high)}`;
+}
+
+export const pretreatmentLabels: Record<TestDetail['test']['pretreatment'], string> = {
+  none: 'None',
+  soak: 'Soaked in water',
+  'cold-stratification': 'Cold stratification',
+  scarification: 'Scarified (seed coat nicked or sanded)',
+};
+
+/** One line describing how a test was set up: method, medium, warmth, light, pre-treatment. */
+export function setupWords(test: TestDetail['test']): string {
+  const parts = [test.method];
+  if (test.medium) parts.push(test.medium);
+  if (test.temperatureC !== null) parts.push(`${test.temperatureC}\u00a0°C`);
+  if (test.lightHours !== null) parts.push(test.lightHours === 0 ? 'dark' : `${test.lightHours} h light a day`);
+  if (test.pretreatment !== 'none') {
+    const label = pretreatmentLabels[test.pretreatment].toLowerCase();
+    parts.push(test.pretreatmentDays !== null ? `${label}, ${test.pretreatmentDays} days` : label);
+  }
+  return parts.join(' · ');
+}

@@ -1,0 +1,99 @@
+import { Link } from 'react-router-dom';
+import type { TestDetail } from '../../../../shared/schemas/germination';
+import { buttonStyles } from '../../../components/ui/button';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { FormAlert } from '../../../components/ui/form-alert';
+import { Loading } from '../../../components/ui/spinner';
+import { paths } from '../../../config/paths';
+import { cn } from '../../../lib/cn';
+import { useLotTests } from '../api/get-lot-tests';
+import { formatDate, formatPercent, intervalWords } from './format';
+
+export interface LotTestsProps {
+  bankId: string;
+  lotId: string;
+  /** Growers and owners may start a test. */
+  canWrite: boolean;
+  /** The heading's id, for a surrounding section's aria-labelledby. */
+  headingId?: string;
+}
+
+function StatusBadge({ status }: { status: TestDetail['test']['status'] }) {
+  return (
+    <span
+      className={cn(
+        'inline-flex items-center rounded-full px-2.5 py-0.5 text-sm font-semibold',
+        status === 'running' ? 'bg-frost-100 text-frost-800' : 'bg-loam-100 text-loam-800',
+      )}
+    >
+      {status === 'running' ? 'Running' : 'Finished'}
+    </span>
+  );
+}
+
+/** The germination tests of one lot, newest first, for the lot page. */
+export function LotTests({ bankId, lotId, canWrite, headingId }: LotTestsProps) {
+  const tests = useLotTests(bankId, lotId);
+  const startLink = canWrite ? (
+    <Link to={paths.newTest.getHref(bankId, lotId)} className={buttonStyles({ variant: 'primary' })}>
+      Start a test
+    </Link>
+  ) : null;
+
+  return (
+    <div className="grid gap-4">
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h2 id={headingId} className="text-xl font-bold text-loam-900">
+          Germination tests
+        </h2>
+        {tests.data && tests.data.items.length > 0 ? startLink : null}
+      </div>
+      {tests.isPending ? (
+        <Loading label="Reading the tests" />
+      ) : tests.isError ? (
+        <FormAlert title="The tests could not be read">{tests.error.message}</FormAlert>
+      ) : tests.data.items.length === 0 ? (
+        <EmptyState
+          title="No tests yet"
+          description="Sow a counted number of seeds in trays or on damp paper towels and count what sprouts on each check day."
+          action={startLink ?? undefined}
+        />
+      ) : (
+        <ul className="grid gap-3" aria-label="Germination tests of this lot">
+          {tests.data.items.map((detail) => (
+            <LotTestItem key={detail.test.id} bankId={bankId} detail={detail} />
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}
+
+function LotTestItem({ bankId, detail }: { bankId: string; detail: TestDetail }) {
+  const { test, result, trays } = detail;
+  const sown = trays.reduce((sum, t) => sum + t.seedsSown, 0);
+  const range = intervalWords(result);
+  return (
+    <li>
+      <Link
+        to={paths.test.getHref(bankId, test.id)}
+        className="flex flex-wrap items-center justify-between gap-x-4 gap-y-2 rounded-xl border border-loam-200 bg-white p-4 no-underline shadow-sm hover:border-moss-400 hover:bg-moss-50"
+      >
+        <div className="min-w-0">
+          <p className="flex flex-wrap items-center gap-2 font-bold text-loam-900">
+            <span>Started {formatDate(test.startDate)}</span>
+            <StatusBadge status={test.status} />
+          </p>
+          <p className="text-sm text-loam-700">
+            {trays.length} {trays.length === 1 ? 'tray' : 'trays'}, {sown} seeds · {test.method}
+            {test.finishedOn ? ` · finished ${formatDate(test.finishedOn)}` : ''}
+          </p>
+        </div>
+        <div className="flex items-baseline gap-2 sm:block sm:text-right">
+          <p className="num text-3xl font-bold leading-none text-moss-800">{formatPercent(result.percentRounded)}</p>
+          <p className="text-sm text-loam-700">{range ?? 'no counts yet'}</p>
+        </div>
+      </Link>
+    </li>
+  );
+}

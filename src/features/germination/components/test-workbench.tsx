@@ -1,0 +1,88 @@
+import { keepPreviousData, useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
+import { Card } from '../../../components/ui/card';
+import { FormAlert } from '../../../components/ui/form-alert';
+import { Loading } from '../../../components/ui/spinner';
+import { testQueryOptions } from '../api/get-test';
+import type { IntervalMethod } from '../api/interval';
+import { CountEntry } from './count-entry';
+import { CountsTable } from './counts-table';
+import { formatDate, localToday } from './format';
+import { GerminationCurve } from './germination-curve';
+import { ResultPanel } from './result-panel';
+import { TestActions } from './test-actions';
+
+export interface TestWorkbenchProps {
+  bankId: string;
+  testId: string;
+  /** Growers and owners record counts; viewers read. */
+  canWrite: boolean;
+  interval: IntervalMethod;
+  onIntervalChange: (interval: IntervalMethod) => void;
+  /** The check date in the count entry, when the address names one (so a reload keeps it). */
+  date?: string | undefined;
+  onDateChange: (date: string) => void;
+  onDeleted: () => void | Promise<void>;
+}
+
+const ENTRY_ID = 'count-entry';
+
+/** The test page's body: count entry, result, curve, the counts by date, and the test's actions. */
+export function TestWorkbench({
+  bankId,
+  testId,
+  canWrite,
+  interval,
+  onIntervalChange,
+  date: chosenDate,
+  onDateChange,
+  onDeleted,
+}: TestWorkbenchProps) {
+  const query = useQuery({ ...testQueryOptions(bankId, testId, interval), placeholderData: keepPreviousData });
+  const [today] = useState(() => localToday());
+  const date = chosenDate ?? today;
+
+  if (query.isPending) return <Loading label="Reading the test" />;
+  if (query.isError) return <FormAlert title="The test could not be read">{query.error.message}</FormAlert>;
+
+  const detail = query.data;
+  const running = detail.test.status === 'running';
+  const entering = canWrite && running;
+
+  const correct = (day: string) => {
+    onDateChange(day);
+    document.getElementById(ENTRY_ID)?.scrollIntoView({ behavior: 'smooth', block: 'start' });
+  };
+
+  return (
+    <div className="grid grid-cols-1 gap-6">
+      {!running ? (
+        <FormAlert tone="info" title={`Finished on ${detail.test.finishedOn ? formatDate(detail.test.finishedOn) : '–'}`}>
+          This test is read-only.{canWrite ? ' Reopen it below to change its counts.' : ''}
+        </FormAlert>
+      ) : null}
+      <div className="grid grid-cols-1 items-start gap-6 lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
+        {entering ? (
+          <div id={ENTRY_ID} className="scroll-mt-4">
+            <CountEntry bankId={bankId} detail={detail} date={date} onDateChange={onDateChange} today={today} />
+          </div>
+        ) : null}
+        <div className={entering ? 'grid min-w-0 grid-cols-1 gap-6' : 'contents'}>
+          <ResultPanel
+            detail={detail}
+            interval={interval}
+            onIntervalChange={onIntervalChange}
+            isRefreshing={query.isPlaceholderData}
+          />
+          <Card title="Germination curve">
+            <GerminationCurve detail={detail} />
+          </Card>
+        </div>
+      </div>
+      <Card title="Counts by check date" description="Each number is the tray’s total sprouted so far.">
+        <CountsTable bankId={bankId} detail={detail} canEdit={entering} onCorrect={correct} />
+      </Card>
+      {canWrite ? <TestActions bankId={bankId} detail={detail} today={today} onDeleted={onDeleted} /> : null}
+    </div>
+  );
+}

@@ -1,0 +1,32 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { z } from 'zod';
+import { lotSchema, type LotDto } from '../../../../shared/schemas/lots';
+import { apiFetch } from '../../../lib/api-client';
+import { lotApiPaths, lotKeys } from './keys';
+
+const retiredSchema = z.object({ lot: lotSchema, retired: z.literal(true) });
+
+export type DeleteLotOutcome = { outcome: 'deleted' } | { outcome: 'retired'; lot: LotDto };
+
+/**
+ * DELETE /api/banks/:bankId/lots/:lotId (grower): 204 when the lot is gone, or 200 with the lot
+ * retired instead when germination tests refer to it (their history is kept).
+ */
+export async function deleteLot(bankId: string, lotId: string): Promise<DeleteLotOutcome> {
+  const body = await apiFetch(lotApiPaths.lot(bankId, lotId), { method: 'DELETE' });
+  if (body === undefined) return { outcome: 'deleted' };
+  const parsed = retiredSchema.parse(body);
+  return { outcome: 'retired', lot: parsed.lot };
+}
+
+export function useDeleteLot(bankId: string, lotId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => deleteLot(bankId, lotId),
+    onSuccess: async (result) => {
+      // A deleted lot's own query is left to expire: its page is still on screen until the caller moves on.
+      if (result.outcome === 'retired') queryClient.setQueryData(lotKeys.detail(bankId, lotId), result.lot);
+      await queryClient.invalidateQueries({ queryKey: lotKeys.lists(bankId) });
+    },
+  });
+}

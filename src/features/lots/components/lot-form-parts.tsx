@@ -1,0 +1,104 @@
+import type { ReactNode } from 'react';
+import type { ParentPlantDto } from '../../../../shared/schemas/lots';
+import { Caution } from '../../../components/ui/caution';
+import { cn } from '../../../lib/cn';
+
+/** Empty boxes leave a number out (undefined); anything else is read as a number. */
+export const numberOrUndefined = (value: unknown) =>
+  value === '' || value === null || value === undefined ? undefined : Number(value);
+/** Empty boxes clear a nullable number. */
+export const numberOrNull = (value: unknown) =>
+  value === '' || value === null || value === undefined ? null : Number(value);
+export const emptyToNull = (value: unknown) => (value === '' ? null : value);
+
+/** zod's own messages for a mistyped number read like a program; these read like a person. */
+export function friendlyNumberError(issue: { code?: string; expected?: unknown; input?: unknown }) {
+  if (issue.expected === 'number' || (issue.code === 'invalid_type' && typeof issue.input === 'number')) {
+    return 'Enter a number.';
+  }
+  return undefined;
+}
+
+export function SwapCaution() {
+  return (
+    <Caution title="Swapping across regions or borders">
+      Rules on noxious weeds and on bringing seed in vary between countries, states and regions. Check your local
+      regulations (or ask your extension service) before sending or receiving seed.
+    </Caution>
+  );
+}
+
+export function Fieldset({ legend, children, className }: { legend: ReactNode; children: ReactNode; className?: string }) {
+  return (
+    <fieldset className={cn('grid min-w-0 gap-4 rounded-xl border border-loam-200 bg-white p-4 sm:p-5', className)}>
+      <legend className="px-1 text-lg font-bold text-loam-900">{legend}</legend>
+      {children}
+    </fieldset>
+  );
+}
+
+export interface ChoiceCardProps {
+  name: string;
+  value: string;
+  checked: boolean;
+  onChange: () => void;
+  label: ReactNode;
+  hint?: ReactNode;
+  type?: 'radio' | 'checkbox';
+}
+
+/** A radio or checkbox with its label as a large tap target. */
+export function ChoiceCard({ name, value, checked, onChange, label, hint, type = 'radio' }: ChoiceCardProps) {
+  return (
+    <label
+      className={cn(
+        'flex min-h-11 cursor-pointer items-start gap-3 rounded-lg border border-loam-200 bg-white p-3 hover:bg-husk-50',
+        'has-checked:border-moss-600 has-checked:bg-moss-50',
+      )}
+    >
+      <input
+        type={type}
+        name={name}
+        value={value}
+        checked={checked}
+        onChange={onChange}
+        className="mt-1 size-5 shrink-0 accent-moss-700"
+      />
+      <span className="min-w-0">
+        <span className="block font-semibold text-loam-900">{label}</span>
+        {hint ? <span className="block text-sm text-loam-700">{hint}</span> : null}
+      </span>
+    </label>
+  );
+}
+
+export interface ParentPlantPickerProps {
+  plants: ParentPlantDto[];
+  value: string[];
+  onChange: (ids: string[]) => void;
+  error?: string | undefined;
+}
+
+/** Ticks the parent plants a lot was saved from (the caller passes only that species' plants). */
+export function ParentPlantPicker({ plants, value, onChange, error }: ParentPlantPickerProps) {
+  return (
+    <div role="group" aria-label="Parent plants" className="grid gap-2">
+      {plants.map((plant) => {
+        const checked = value.includes(plant.id);
+        return (
+          <ChoiceCard
+            key={plant.id}
+            type="checkbox"
+            name="parentPlantIds"
+            value={plant.id}
+            checked={checked}
+            onChange={() => onChange(checked ? value.filter((id) => id !== plant.id) : [...value, plant.id])}
+            label={plant.label}
+            hint={[plant.variety, plant.location, plant.season, plant.hybrid ? 'F1 hybrid' : null].filter(Boolean).join(' · ') || undefined}
+          />
+        );
+      })}
+      {error ? <p className="text-sm font-semibold text-clay-700">{error}</p> : null}
+    </div>
+  );
+}

@@ -1,0 +1,23 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { z } from 'zod';
+import { parentPlantSchema } from '../../../../shared/schemas/lots';
+import { apiFetch } from '../../../lib/api-client';
+import { plantApiPaths, plantKeys } from './keys';
+
+const plantsResponseSchema = z.object({ items: z.array(parentPlantSchema) });
+
+/** GET /api/banks/:bankId/plants: every parent plant of the bank, with photos and cautions. */
+export async function getPlants(bankId: string, { signal }: { signal?: AbortSignal } = {}) {
+  return (await apiFetch(plantApiPaths.plants(bankId), { schema: plantsResponseSchema, signal })).items;
+}
+
+export function plantsQueryOptions(bankId: string) {
+  return queryOptions({
+    queryKey: plantKeys.list(bankId),
+    queryFn: ({ signal }) => getPlants(bankId, { signal }),
+  });
+}
+
+export function usePlants(bankId: string) {
+  return useQuery(plantsQueryOptions(bankId));
+}

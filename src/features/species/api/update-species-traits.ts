@@ -1,0 +1,33 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { z } from 'zod';
+import { speciesSchema, type SpeciesDto, type SpeciesTraits } from '../../../../shared/schemas/species';
+import { apiFetch } from '../../../lib/api-client';
+import { speciesApiPaths, speciesKeys } from './keys';
+
+export const speciesResponseSchema = z.object({ species: speciesSchema });
+
+/** PATCH /api/banks/:bankId/species/:speciesId (grower): this bank's own values over the reference. */
+export async function updateSpeciesTraits(bankId: string, speciesId: string, traits: Partial<SpeciesTraits>) {
+  return (
+    await apiFetch(speciesApiPaths.one(bankId, speciesId), {
+      method: 'PATCH',
+      body: { traits },
+      schema: speciesResponseSchema,
+    })
+  ).species;
+}
+
+/** Puts one changed species into the cached list, so every picker and card sees it at once. */
+export function replaceInList(list: SpeciesDto[] | undefined, species: SpeciesDto) {
+  return list?.map((s) => (s.id === species.id ? species : s));
+}
+
+export function useUpdateSpeciesTraits(bankId: string, speciesId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (traits: Partial<SpeciesTraits>) => updateSpeciesTraits(bankId, speciesId, traits),
+    onSuccess: (species) => {
+      queryClient.setQueryData<SpeciesDto[]>(speciesKeys.list(bankId), (list) => replaceInList(list, species));
+    },
+  });
+}

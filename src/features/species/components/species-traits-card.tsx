@@ -1,0 +1,164 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { overrideTraitsBodySchema, type SpeciesDto, type TraitName } from '../../../../shared/schemas/species';
+import { Button } from '../../../components/ui/button';
+import { Card } from '../../../components/ui/card';
+import { FormAlert } from '../../../components/ui/form-alert';
+import { TextField } from '../../../components/ui/text-field';
+import { applyServerError } from '../../../lib/form-errors';
+import { useClearSpeciesOverrides } from '../api/clear-species-overrides';
+import { useUpdateSpeciesTraits } from '../api/update-species-traits';
+import { SpeciesCautions } from './species-cautions';
+import { BankValueBadge, TraitList } from './trait-list';
+
+/** The traits a bank most often knows better than the reference: its own seed and its own trays. */
+const EDITABLE = ['seedsPerGram', 'firstCountDay', 'finalCountDay'] as const satisfies readonly TraitName[];
+type Editable = (typeof EDITABLE)[number];
+
+const toNumberOrNull = (value: unknown) => (value === '' || value === null || value === undefined ? null : Number(value));
+
+const resolver = zodResolver(overrideTraitsBodySchema, {
+  error: (issue) =>
+    (issue as { expected?: unknown }).expected === 'number' || issue.code === 'invalid_type'
+      ? 'Enter a number, or leave it empty.'
+      : undefined,
+});
+
+function formValues(species: SpeciesDto) {
+  return {
+    traits: {
+      seedsPerGram: species.traits.seedsPerGram,
+      firstCountDay: species.traits.firstCountDay,
+      finalCountDay: species.traits.finalCountDay,
+    },
+  };
+}
+
+function OwnValuesForm({ bankId, species, onDone }: { bankId: string; species: SpeciesDto; onDone: () => void }) {
+  const update = useUpdateSpeciesTraits(bankId, species.id);
+  const [formError, setFormError] = useState<string>();
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors, dirtyFields },
+  } = useForm({ resolver, defaultValues: formValues(species) });
+
+  const onSubmit = handleSubmit(async ({ traits }) => {
+    setFormError(undefined);
+    // Only what was changed becomes the bank's own value; the rest keeps following the reference.
+    const changed = Object.fromEntries(
+      EDITABLE.filter((name) => dirtyFields.traits?.[name]).map((name) => [name, traits[name] ?? null]),
+    ) as Partial<Record<Editable, number | null>>;
+    if (Object.keys(changed).length === 0) return onDone();
+    try {
+      await update.mutateAsync(changed);
+      onDone();
+    } catch (error) {
+      setFormError(
+        applyServerError(error, setError, ['traits.seedsPerGram', 'traits.firstCountDay', 'traits.finalCountDay']),
+      );
+    }
+  });
+
+  return (
+    <form noValidate onSubmit={onSubmit} className="mt-4 grid gap-4 border-t border-loam-100 pt-4">
+      <FormAlert>{formError}</FormAlert>
+      <p className="text-sm text-loam-700">
+        Values you set here are used for this bank only, in place of the reference values, for every lot of{' '}
+        {species.commonName.toLowerCase()}.
+      </p>
+      <div className="grid gap-4 sm:grid-cols-3">
+        <TextField
+          label="Seeds per gram"
+          type="number"
+          inputMode="decimal"
+          min={0}
+          step="any"
+          className="num"
+          error={errors.traits?.seedsPerGram?.message}
+          {...register('traits.seedsPerGram', { setValueAs: toNumberOrNull })}
+        />
+        <TextField
+          label="First count day"
+          type="number"
+          inputMode="numeric"
+          min={1}
+          max={120}
+          className="num"
+          error={errors.traits?.firstCountDay?.message}
+          {...register('traits.firstCountDay', { setValueAs: toNumberOrNull })}
+        />
+        <TextField
+          label="Final count day"
+          type="number"
+          inputMode="numeric"
+          min={1}
+          max={120}
+          className="num"
+          error={errors.traits?.finalCountDay?.message}
+          {...register('traits.finalCountDay', { setValueAs: toNumberOrNull })}
+        />
+      </div>
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" isLoading={update.isPending}>
+          Save this bank’s values
+        </Button>
+        <Button variant="secondary" onClick={onDone} disabled={update.isPending}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+export interface SpeciesTraitsCardProps {
+  bankId: string;
+  species: SpeciesDto;
+  canEdit: boolean;
+  headingLevel?: 2 | 3;
+}
+
+/** A species' traits with their sources; a grower sets the bank's own seeds per gram and count days. */
+export function SpeciesTraitsCard({ bankId, species, canEdit, headingLevel = 2 }: SpeciesTraitsCardProps) {
+  const [editing, setEditing] = useState(false);
+  const clear = useClearSpeciesOverrides(bankId, species.id);
+  return (
+    <Card
+      headingLevel={headingLevel}
+      title={
+        <>
+          {species.commonName} <span className="font-normal italic text-loam-700">{species.scientificName}</span>
+        </>
+      }
+      description={species.family ?? undefined}
+      actions={
+        canEdit && !editing ? (
+          <Button variant="secondary" onClick={() => setEditing(true)}>
+            Set this bank’s values
+          </Button>
+        ) : undefined
+      }
+    >
+      <div className="grid gap-4">
+        <SpeciesCautions species={species} />
+        <TraitList species={species} />
+        {species.overridden.length > 0 ? (
+          <div className="flex flex-wrap items-center gap-2 text-sm text-loam-700">
+            <span>
+              Marked <BankValueBadge /> where this bank uses its own value.
+            </span>
+            {canEdit ? (
+              <Button variant="quiet" isLoading={clear.isPending} onClick={() => clear.mutate()}>
+                Use the reference values again
+              </Button>
+            ) : null}
+          </div>
+        ) : null}
+        <FormAlert>{clear.error?.message}</FormAlert>
+      </div>
+      {editing ? <OwnValuesForm bankId={bankId} species={species} onDone={() => setEditing(false)} /> : null}
+    </Card>
+  );
+}

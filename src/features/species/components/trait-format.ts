@@ -1,0 +1,71 @@
+import type { SpeciesTraits, TraitName } from '../../../../shared/schemas/species';
+
+const lightWords: Record<NonNullable<SpeciesTraits['light']>, string> = {
+  light: 'Needs light: press onto the surface, do not cover',
+  cover: 'Needs dark: cover the seed',
+  'light-cover': 'Light or a thin cover',
+  either: 'Germinates in light or dark',
+};
+const startWords: Record<SpeciesTraits['startMethod'], string> = {
+  indoor: 'Start indoors',
+  direct: 'Sow directly outside',
+  either: 'Indoors or directly outside',
+};
+const outcrossWords: Record<NonNullable<SpeciesTraits['outcrossing']>, string> = {
+  self: 'Mostly self-pollinating',
+  cross: 'Cross-pollinating: isolate or bulk many plants',
+  mixed: 'Partly cross-pollinating',
+};
+
+const n = (value: number) => value.toLocaleString('en', { maximumFractionDigits: 1 });
+
+export interface TraitRow {
+  /** The traits this row shows (the first names the row's source). */
+  traits: TraitName[];
+  label: string;
+  value: string;
+}
+
+/** The traits a grower reads, one row each, in words; rows with nothing known say so. */
+export function traitRows(t: SpeciesTraits): TraitRow[] {
+  const range = (a: number | null, b: number | null, unit: string) =>
+    a !== null && b !== null ? (a === b ? `${n(a)}${unit}` : `${n(a)}–${n(b)}${unit}`) : a !== null ? `${n(a)}${unit}` : b !== null ? `${n(b)}${unit}` : 'Not known';
+  return [
+    { traits: ['seedsPerGram'], label: 'Seeds per gram', value: t.seedsPerGram !== null ? `about ${n(t.seedsPerGram)}` : 'Not known' },
+    {
+      traits: ['firstCountDay', 'finalCountDay'],
+      label: 'Test count days',
+      value:
+        t.firstCountDay !== null || t.finalCountDay !== null
+          ? `first day ${t.firstCountDay ?? '?'}, final day ${t.finalCountDay ?? '?'}`
+          : 'Not known',
+    },
+    { traits: ['germTempMinC', 'germTempMaxC'], label: 'Germination temperature', value: range(t.germTempMinC, t.germTempMaxC, ' °C') },
+    { traits: ['light'], label: 'Light', value: t.light ? lightWords[t.light] : 'Not known' },
+    {
+      traits: ['startMethod', 'startWeeksFrom', 'startWeeksTo'],
+      label: 'Sowing',
+      value:
+        startWords[t.startMethod] +
+        (t.startWeeksFrom !== null || t.startWeeksTo !== null
+          ? `, ${range(t.startWeeksFrom, t.startWeeksTo, '')} weeks before the last frost`
+          : ''),
+    },
+    { traits: ['storageLifeYears'], label: 'Storage life', value: t.storageLifeYears !== null ? `about ${n(t.storageLifeYears)} years in good storage` : 'Not known' },
+    {
+      traits: ['minGerminationPercent'],
+      label: 'Minimum germination standard',
+      value: t.minGerminationPercent !== null ? `${n(t.minGerminationPercent)}%` : 'None published',
+    },
+    { traits: ['outcrossing'], label: 'Pollination', value: t.outcrossing ? outcrossWords[t.outcrossing] : 'Not known' },
+  ];
+}
+
+export const basisWords: Record<string, string> = {
+  read: 'read in this publication',
+  memory: 'recalled from this publication, not yet checked against it',
+  'common-practice': 'common garden practice, no single publication',
+  computed: 'worked out from other values',
+  unknown: 'no reliable value known',
+  'not-published': 'the publication sets no value',
+};
