@@ -1,0 +1,169 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import sharp from 'sharp';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
+import { SPECIES_REFERENCE } from '../../shared/species-reference';
+import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+
+// The people and the bank are the invented demo scenario of server/db/seed-demo.ts.
+const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
+const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;
+
+// 390 × 844 CSS pixels: the viewport of a common mid-size phone held upright (from memory).
+const PHONE = { width: 390, height: 844 };
+const DESKTOP = { width: 1280, height: 900 };
+
+// Tomato's typical seeds per gram in Hilum's reference set (shared/species-reference.ts, source
+// "seedCompanyChart", read), so the form's estimate and the server's are checked against it.
+const TOMATO = SPECIES_REFERENCE.find((s) => s.commonName === 'Tomato')!;
+const TOMATO_PER_GRAM = TOMATO.seedsPerGram?.typical ?? 0;
+
+describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
+  let server: Awaited<ReturnType<typeof startTestServer>>;
+  let browser: Browser & { cleanup(): void };
+  let bankId: string;
+  let tmpDir: string;
+
+  beforeAll(async () => {
+    server = await startTestServer();
+    await seedDemo(server.db);
+    bankId = (
+      await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()
+    ).id;
+    browser = await launchBrowser();
+    tmpDir = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-lots-e2e-'));
+  });
+  afterAll(async () => {
+    await browser?.close();
+    browser?.cleanup();
+    await server?.stop();
+    if (tmpDir) fs.rmSync(tmpDir, { recursive: true, force: true });
+  });
+
+  async function signIn(page: Page, email: string) {
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
+  }
+
+  const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
+
+  it('when a grower on a phone logs a lot by weight with a packet photo, then its page shows the estimate and the thumbnail', async () => {
+    const context: BrowserContext = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+    const page = await context.newPage();
+    await signIn(page, grower.email);
+
+    await page.getByRole('navigation', { name: 'Bank' }).getByRole('link', { name: 'Lots' }).click();
+    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots`);
+    await page.getByRole('link', { name: 'New lot' }).first().click();
+    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots/new`);
+    await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('New lot');
+
+    // Type-to-search over common and scientific names: "lycopers" is part of Solanum lycopersicum.
+    const species = page.getByRole('combobox', { name: /Species/ });
+    await species.fill('lycopers');
+    await page.getByRole('option', { name: /Tomato/ }).click();
+    await expect.poll(() => species.inputValue()).toBe('Tomato');
+    // Tomato is flagged poisonous in the reference set (leaves and stems), so the caution shows.
+    expect(TOMATO.poisonous).toBe(true);
+    await expect.poll(() => page.getByRole('note').filter({ hasText: 'Poisonous' }).innerText()).toMatch(/poison centre/);
+
+    await page.getByLabel('Variety').fill('Bench Trial Cherry');
+    // The harvest date starts at today (the demo bank's time zone is UTC unless set otherwise).
+    expect(await page.getByLabel('Harvest date', { exact: true }).inputValue()).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+
+    await page.getByRole('radio', { name: 'Weight in grams' }).check();
+    await page.getByLabel('Grams', { exact: true }).fill('2');
+    // 2 g × 390 seeds per gram = 780 seeds, shown before saving.
+    expect(TOMATO_PER_GRAM).toBe(390);
+    expect(2 * TOMATO_PER_GRAM).toBe(780);
+    await expect.poll(() => page.getByText(/seeds at about/).innerText()).toBe(`≈ 780 seeds at about ${TOMATO_PER_GRAM} seeds per gram`);
+
+    const jpeg = await sharp({ create: { width: 800, height: 600, channels: 3, background: '#8a6a3c' } }).jpeg().toBuffer();
+    const photoPath = path.join(tmpDir, 'packet.jpg');
+    fs.writeFileSync(photoPath, jpeg);
+    await page.getByLabel('Packet photo').setInputFiles(photoPath);
+
+    expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    await page.getByRole('button', { name: 'Save lot' }).click();
+
+    await page.waitForURL(new RegExp(`/banks/${bankId}/lots/[0-9a-f-]{36}$`));
+    const lotId = page.url().split('/').pop()!;
+    await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toMatch(/^TOM/);
+    await expect.poll(() => page.getByText('seeds on hand', { exact: false }).first().innerText()).toContain('≈ 780 seeds on hand');
+
+    const thumb = page.locator('img[src*="size=thumb"]').first();
+    await thumb.waitFor();
+    await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBeGreaterThan(0);
+    expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+
+    // The page did not just draw it: the server holds the lot, its estimated stock and one photo.
+    const lot = await server.db
+      .selectFrom('lots')
+      .select(['variety', 'origin', 'quantity_estimated', 'grams_entered'])
+      .where('id', '=', lotId)
+      .executeTakeFirstOrThrow();
+    expect(lot).toMatchObject({ variety: 'Bench Trial Cherry', origin: 'saved', quantity_estimated: true });
+    expect(Number(lot.grams_entered)).toBe(2);
+    const photos = await server.db.selectFrom('photos').select('id').where('subject_id', '=', lotId).execute();
+    expect(photos).toHaveLength(1);
+    await context.close();
+  });
+
+  it('when a viewer opens Lots, then the table lists the bank’s lots and offers no New lot button', async () => {
+    // A lot logged through the API as the grower, so this test stands on its own.
+    const growerContext = await browser.newContext({ viewport: DESKTOP });
+    const growerPage = await growerContext.newPage();
+    await signIn(growerPage, grower.email);
+    const species = await growerPage.request.get(`${server.baseUrl}/api/banks/${bankId}/species`);
+    const marigold = ((await species.json()) as { items: { id: string; commonName: string }[] }).items.find(
+      (s) => s.commonName === 'Marigold',
+    )!;
+    const created = await growerPage.request.post(`${server.baseUrl}/api/banks/${bankId}/lots`, {
+      data: {
+        speciesId: marigold.id,
+        variety: 'Ember Edge',
+        origin: 'swapped',
+        sourceName: 'Hollow Lane seed table',
+        harvestDate: '2025-09-14',
+        seedCount: 1250,
+        code: 'MAR-VIEW-1',
+      },
+    });
+    expect(created.status()).toBe(201);
+    await growerContext.close();
+
+    const context = await browser.newContext({ viewport: DESKTOP });
+    const page = await context.newPage();
+    await signIn(page, viewer.email);
+    await page.goto(`${server.baseUrl}/banks/${bankId}/lots`);
+    await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Lots');
+
+    const row = page.getByRole('row').filter({ hasText: 'MAR-VIEW-1' });
+    await expect.poll(() => row.count()).toBe(1);
+    const text = await row.innerText();
+    expect(text).toContain('Marigold');
+    expect(text).toContain('Ember Edge');
+    expect(text).toContain('Swapped');
+    expect(text).toContain('1,250');
+    expect(text).toContain('14 Sep 2025');
+
+    expect(await page.getByRole('link', { name: 'New lot' }).count()).toBe(0);
+    expect(await page.getByRole('link', { name: 'Import CSV' }).count()).toBe(0);
+    expect(await page.getByRole('link', { name: 'Export CSV' }).count()).toBe(1);
+
+    // Sorting by seeds on hand (numbers sort largest first on the first press) puts the larger lot
+    // first, whatever the codes say.
+    await page.getByRole('button', { name: /Seeds on hand/ }).click();
+    await expect.poll(() => page.getByRole('columnheader', { name: /Seeds on hand/ }).getAttribute('aria-sort')).toBe('descending');
+    await expect
+      .poll(() => page.locator('tbody tr').first().innerText())
+      .toContain('MAR-VIEW-1');
+    await context.close();
+  });
+});
