@@ -98,6 +98,14 @@ describe('lots and the stock ledger', () => {
     expect(after.n).toEqual(before.n);
   });
 
+  it('when the harvest date is in the future, then it is 422 and nothing is written', async () => {
+    const res = await bank.grower.agent
+      .post(lotsUrl())
+      .send({ speciesId: tomato, variety: 'Tomorrow', origin: 'saved', harvestDate: '2026-03-09', seedCount: 5 });
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields.harvestDate).toBeTruthy();
+  });
+
   it('when the species is unknown, then it is 400 on speciesId', async () => {
     const res = await bank.grower.agent
       .post(lotsUrl())

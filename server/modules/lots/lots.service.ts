@@ -4,7 +4,7 @@ import { latestToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
 import type { LotStatus, LotTable } from '../../db/schema';
 import type { LotCsvRow, ParsedLotCsvRow } from './lots.csv';
-import { AppError, badRequest, conflict, notFound } from '../../http/errors';
+import { AppError, badRequest, conflict, notFound, unprocessable } from '../../http/errors';
 import { requireSpecies } from '../species/species.service';
 import { codePrefix, nextCode } from './lot-code';
 import * as repo from './lots.repository';
@@ -70,6 +70,9 @@ export function createLotsService(deps: LotsServiceDeps) {
     body: CreateLotBody,
     extra: { status?: LotStatus; quantityEstimated?: boolean; reason?: string } = {},
   ): Promise<string> {
+    if (body.harvestDate && body.harvestDate > latestToday(clock)) {
+      throw unprocessable('A harvest date cannot be in the future.', { harvestDate: 'Use the day the seed was harvested.' });
+    }
     const species = await requireSpecies(trx, bankId, body.speciesId);
     await checkParents(trx, bankId, body.parentPlantIds);
     let seeds = body.seedCount ?? 0;
