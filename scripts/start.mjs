@@ -20,6 +20,7 @@ import {
 } from './lib/services.mjs';
 
 const dev = process.argv.includes('--dev');
+const resetDemo = process.argv.includes('--reset-demo');
 
 function intFromEnv(name, fallback) {
   const raw = process.env[name];
@@ -101,7 +102,7 @@ async function main() {
     APP_ORIGIN: process.env.APP_ORIGIN ?? `http://127.0.0.1:${ports.PORT}`,
   };
 
-  const prepare = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/db-prepare.ts'], {
+  const prepare = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/db-prepare.ts', ...(resetDemo ? ['--reset-demo'] : [])], {
     cwd: root,
     env,
     stdio: 'inherit',
