@@ -22,6 +22,7 @@ import { devRouter } from './modules/dev/dev.router';
 import { lotTestRoutes, testRoutes } from './modules/germination/germination.router';
 import { createGerminationService, lotHasTests } from './modules/germination/germination.service';
 import { invitationsRouter } from './modules/invitations/invitations.router';
+import { overviewRoutes } from './modules/overview/overview.router';
 import { planRoutes } from './modules/plan/plan.router';
 import { reminderRoutes } from './modules/reminders/reminders.router';
 import { createPlanService } from './modules/plan/plan.service';
@@ -114,6 +115,7 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/plan.ics', planRouters.ics);
   bank.use('/plan', planRouters.router);
   bank.use('/reminders', reminderRoutes(deps.db));
+  bank.use('/overview', overviewRoutes({ ...deps, viability: services.viability }));
   bank.use('/tests/:testId/trays/:trayId/photos', subjectPhotoRoutes(services.photos, 'tray', 'trayId'));
   bank.use('/tests', testRoutes(services.germination));
   bank.use('/lots.csv', lotsCsvExport(services.lots));

@@ -238,7 +238,7 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
           let cumulative = 0;
           for (const [i, day] of checks.entries()) {
             const date = addDays(startDate, day);
-            if (date > today) break;
+            if (date > today || (isRunning && date >= today)) break;
             const share = normalCdf((day - (first + final) / 2 + 1.5) / 2);
             cumulative = Math.max(cumulative, i === checks.length - 1 && !isRunning ? total : Math.round(total * share));
             await trx.insertInto('tray_counts').values({ tray_id: row.id, check_date: date, cumulative, created_by: rnd.pick(people) }).execute();

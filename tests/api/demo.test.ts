@@ -50,3 +50,31 @@ describe('the demo season', () => {
     expect(await seedDemoScenario({ db: ctx.db, clock: ctx.clock, appOrigin: ctx.config.appOrigin })).toBeNull();
   });
 });
+
+describe('the bank overview on the demo season', () => {
+  let ctx: TestContext;
+  let bankId: string;
+  beforeAll(async () => {
+    ctx = await createTestContext({ now: '2026-12-01T09:00:00Z' });
+    bankId = (await seedDemoScenario({ db: ctx.db, clock: ctx.clock, appOrigin: ctx.config.appOrigin }))!.bankId;
+  }, 120_000);
+  afterAll(() => ctx.close());
+
+  it('when the keeper opens the overview, then the running test is listed to count today and lots to retest appear', async () => {
+    const keeper = await signIn(ctx.app, 'keeper@example.org', 'hilum-demo-seeds');
+    const res = await keeper.get(`/api/banks/${bankId}/overview`);
+    expect(res.status).toBe(200);
+    expect(res.body.today).toBe('2026-12-01');
+    expect(res.body.traysToCount).toEqual([expect.objectContaining({ checkDate: '2026-12-01', day: 5, overdue: false })]);
+    expect(res.body.lotsToRetest.length).toBeGreaterThan(0);
+    expect(res.body.counts.lots).toBeGreaterThan(30);
+  });
+
+  it('when the sowing season comes, then the plan entries show as sowings due', async () => {
+    const keeper = await signIn(ctx.app, 'keeper@example.org', 'hilum-demo-seeds');
+    const { body } = await keeper.get(`/api/banks/${bankId}/plan?season=2027`);
+    const first = [...body.items].sort((a: { sowFrom: string }, b: { sowFrom: string }) => a.sowFrom.localeCompare(b.sowFrom))[0];
+    const res = await keeper.get(`/api/banks/${bankId}/overview?on=${first.sowFrom}`);
+    expect(res.body.sowingsDue.some((s: { entryId: string; open: boolean }) => s.entryId === first.id && s.open)).toBe(true);
+  });
+});

@@ -229,6 +229,7 @@ export const bankRoutes: Record<string, MatrixRoute> = {
   'GET plan.ics': { method: 'get', path: (f) => `/api/banks/${f.bankId}/plan.ics?season=2027`, least: 'viewer' },
   'GET reminders': { method: 'get', path: (f) => `/api/banks/${f.bankId}/reminders`, least: 'viewer' },
   'PATCH reminders': { method: 'patch', path: (f) => `/api/banks/${f.bankId}/reminders`, body: () => ({ digest: false }), least: 'viewer' },
+  'GET overview': { method: 'get', path: (f) => `/api/banks/${f.bankId}/overview`, least: 'viewer' },
   'POST leave': {
     method: 'post',
     path: (f) => `/api/banks/${f.bankId}/leave`,
