@@ -178,7 +178,8 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
           plants_bulked: origin === 'saved' ? rnd.int(1, 12) : null,
           storage_place: place,
           storage_location: place === 'room' ? 'Biscuit tin, hall cupboard' : place === 'fridge' ? 'Jar in the crisper' : 'Freezer door, sealed bag',
-          notes: n === 7 ? 'Treated seed from the shop (pink coating).' : null,
+          notes: n === 7 ? 'Bought coated with fungicide (pink coating).' : null,
+          treated: n === 7,
           created_by: rnd.pick(people),
           created_at: new Date(`${ref}T12:00:00Z`),
         })

@@ -171,6 +171,7 @@ export interface LotTable {
   storage_temp_c: Numeric | null;
   storage_humidity_pct: Numeric | null;
   quantity_estimated: ColumnType<boolean, boolean | undefined, boolean>;
+  treated: ColumnType<boolean, boolean | undefined, boolean>;
   grams_entered: Numeric | null;
   status: ColumnType<LotStatus, LotStatus | undefined, LotStatus>;
   notes: string | null;

@@ -40,6 +40,8 @@ const lotFields = {
     .optional(),
   notes: optionalText(4000),
   code: lotCodeSchema.optional(),
+  /** Sold coated with fungicide or another treatment. */
+  treated: z.boolean().optional(),
 };
 
 export const createLotBodySchema = z
@@ -96,6 +98,7 @@ export const lotSchema = z.object({
     humidityPct: z.number().nullable(),
   }),
   quantityEstimated: z.boolean(),
+  treated: z.boolean(),
   gramsEntered: z.number().nullable(),
   status: lotStatusSchema,
   notes: z.string().nullable(),

@@ -163,9 +163,9 @@ describe('lots and the stock ledger', () => {
       .post(lotsUrl())
       .send({ speciesId: tomato, variety: 'Editable', origin: 'saved', harvestDate: '2025-09-05', seedCount: 10 });
     const url = `${lotsUrl()}/${body.lot.id}`;
-    const res = await bank.grower.agent.patch(url).send({ variety: 'Edited', storage: { place: 'fridge', temperatureC: 4, humidityPct: 30 }, code: 'MY-TOM-1' });
+    const res = await bank.grower.agent.patch(url).send({ variety: 'Edited', treated: true, storage: { place: 'fridge', temperatureC: 4, humidityPct: 30 }, code: 'MY-TOM-1' });
     expect(res.status).toBe(200);
-    expect(res.body.lot).toMatchObject({ variety: 'Edited', code: 'MY-TOM-1', storage: { place: 'fridge', temperatureC: 4, humidityPct: 30 } });
+    expect(res.body.lot).toMatchObject({ variety: 'Edited', treated: true, code: 'MY-TOM-1', storage: { place: 'fridge', temperatureC: 4, humidityPct: 30 } });
     expect((await bank.grower.agent.patch(url).send({ code: 'TOM-25-01' })).status).toBe(409);
   });
 

@@ -56,6 +56,7 @@ export function toLotDto(row: LotRow) {
       humidityPct: num(row.storage_humidity_pct),
     },
     quantityEstimated: row.quantity_estimated,
+    treated: row.treated,
     gramsEntered: num(row.grams_entered),
     status: row.status,
     notes: row.notes,

@@ -105,6 +105,7 @@ export function createLotsService(deps: LotsServiceDeps) {
         quantity_estimated: estimated,
         grams_entered: body.grams ?? null,
         notes: body.notes ?? null,
+        treated: body.treated ?? false,
         created_by: userId,
         ...(extra.status ? { status: extra.status } : {}),
       });
@@ -236,6 +237,7 @@ export function createLotsService(deps: LotsServiceDeps) {
         if (body.packedForSeason !== undefined) changes.packed_for_season = body.packedForSeason;
         if (body.plantsBulked !== undefined) changes.plants_bulked = body.plantsBulked;
         if (body.notes !== undefined) changes.notes = body.notes;
+        if (body.treated !== undefined) changes.treated = body.treated;
         if (body.status !== undefined) changes.status = body.status;
         if (body.code !== undefined) changes.code = body.code;
         try {
