@@ -6,7 +6,8 @@ export default defineConfig({
   test: {
     include: ['tests/**/*.test.ts'],
     environment: 'node',
-    testTimeout: 20_000,
+    // Browser tests drive a real Chromium on a 2-core machine shared with the API tests.
+    testTimeout: 60_000,
     hookTimeout: 60_000,
     fileParallelism: true,
     maxWorkers: 2,
