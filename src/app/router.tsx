@@ -21,6 +21,8 @@ import { MembersPage } from './routes/banks/members';
 import { NewLotPage } from './routes/banks/new-lot';
 import { PlantsPage } from './routes/banks/plants';
 import { NewBankPage } from './routes/banks/new-bank';
+import { overviewLoader } from './routes/banks/overview-loaders';
+import { OverviewPage } from './routes/banks/overview';
 import { SettingsPage } from './routes/banks/settings';
 import { ComingSoonPage } from './routes/coming-soon';
 import { HomePage } from './routes/home';
@@ -77,7 +79,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                   element: <BankLayout />,
                   children: [
                     { index: true, loader: ({ params }) => redirect(paths.overview.getHref(params.bankId ?? '')) },
-                    { path: paths.overview.path, element: <ComingSoonPage area="overview" /> },
+                    { path: paths.overview.path, loader: overviewLoader(queryClient), element: <OverviewPage /> },
                     { path: paths.lots.path, loader: lotsLoader(queryClient), element: <LotsPage /> },
                     { path: paths.newLot.path, loader: speciesAndPlantsLoader(queryClient), element: <NewLotPage /> },
                     { path: paths.importLots.path, element: <ImportLotsPage /> },

@@ -28,7 +28,8 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
   let tmpDir: string;
 
   beforeAll(async () => {
-    server = await startTestServer();
+    // The server's clock at the real time: the form's default dates come from the browser's clock.
+    server = await startTestServer({ now: new Date().toISOString() });
     await seedDemo(server.db);
     bankId = (
       await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()

@@ -3,6 +3,7 @@ import { FormAlert } from '../../../components/ui/form-alert';
 import { PageHeader } from '../../../components/ui/page-header';
 import { paths } from '../../../config/paths';
 import { ImportLots } from '../../../features/lots/components/import-lots';
+import { SwapCaution } from '../../../features/lots/components/lot-form-parts';
 import { useRouteBank } from './use-route-bank';
 
 export function ImportLotsPage() {
@@ -21,7 +22,11 @@ export function ImportLotsPage() {
       {role === 'viewer' ? (
         <FormAlert tone="info">As a viewer you can export this bank’s lots but not import them.</FormAlert>
       ) : (
-        <ImportLots bankId={bank.id} />
+        <div className="grid gap-5">
+          {/* A file of lots often comes from a swap or another circle. */}
+          <SwapCaution />
+          <ImportLots bankId={bank.id} />
+        </div>
       )}
     </div>
   );

@@ -15,6 +15,7 @@ import { useSpecies } from '../../../features/species/api/get-species';
 import { SpeciesTraitsCard } from '../../../features/species/components/species-traits-card';
 import { todayIn } from '../../../lib/dates';
 import type { BankNoticeState } from './bank-layout';
+import { LotPageCautions } from './lot-cautions';
 import { useRouteBank } from './use-route-bank';
 
 /** What the new-lot form hands over: the notice, and a photo upload that failed after saving. */
@@ -53,6 +54,7 @@ export function LotPage() {
           ) : undefined
         }
       />
+      <LotPageCautions lot={lot} species={species} />
       <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="grid min-w-0 gap-6">
           <Card title="Photos">
@@ -79,7 +81,7 @@ export function LotPage() {
         </div>
 
         <div className="grid min-w-0 gap-6">
-          {species ? <SpeciesTraitsCard bankId={bank.id} species={species} canEdit={canEdit} /> : null}
+          {species ? <SpeciesTraitsCard bankId={bank.id} species={species} canEdit={canEdit} showCautions={false} /> : null}
           <Card title="Parent plants" description={lot.plantsBulked ? `Seed bulked from ${lot.plantsBulked} plants` : undefined}>
             {parents.length ? (
               <PlantsList bankId={bank.id} plants={parents} canEdit={false} label={`Parent plants of ${lot.code}`} />

@@ -5,6 +5,7 @@ import { PageHeader } from '../../../components/ui/page-header';
 import { paths } from '../../../config/paths';
 import { StartTestForm } from '../../../features/germination/components/start-test-form';
 import { useLot } from '../../../features/lots/api/get-lot';
+import { TreatedCaution } from '../../../features/lots/components/lot-form-parts';
 import type { BankNoticeState } from './bank-layout';
 import { useRouteBank } from './use-route-bank';
 
@@ -28,28 +29,34 @@ export function NewGerminationTestPage() {
         description={`${lot.speciesName} · ${lot.variety}. Count the seeds into each tray; Hilum takes them from the lot’s stock.`}
       />
       {role === 'viewer' ? (
-        <FormAlert tone="info">As a viewer you can read this bank’s tests; a grower or owner starts them.</FormAlert>
+        <FormAlert tone="info">
+          As a viewer you can read this bank’s tests; a grower or owner starts them.
+        </FormAlert>
       ) : (
-        <Card>
-          <StartTestForm
-            bankId={bank.id}
-            lotId={lotId}
-            lot={lot}
-            renderStockLink={(label) => (
-              <Link to={lotHref} className="underline">
-                {label}
-              </Link>
-            )}
-            onCancel={() => void navigate(lotHref)}
-            onCreated={async (detail) => {
-              const sown = detail.trays.reduce((sum, t) => sum + t.seedsSown, 0);
-              const state: BankNoticeState = {
-                notice: `Test started: ${sown} seeds taken from lot ${lot.code}. Count them here on each check day.`,
-              };
-              await navigate(paths.test.getHref(bank.id, detail.test.id), { state });
-            }}
-          />
-        </Card>
+        <div className="grid gap-5">
+          {/* Counting treated seed into trays means handling it: the caution comes before the form. */}
+          {lot.treated ? <TreatedCaution /> : null}
+          <Card>
+            <StartTestForm
+              bankId={bank.id}
+              lotId={lotId}
+              lot={lot}
+              renderStockLink={(label) => (
+                <Link to={lotHref} className="underline">
+                  {label}
+                </Link>
+              )}
+              onCancel={() => void navigate(lotHref)}
+              onCreated={async (detail) => {
+                const sown = detail.trays.reduce((sum, t) => sum + t.seedsSown, 0);
+                const state: BankNoticeState = {
+                  notice: `Test started: ${sown} seeds taken from lot ${lot.code}. Count them here on each check day.`,
+                };
+                await navigate(paths.test.getHref(bank.id, detail.test.id), { state });
+              }}
+            />
+          </Card>
+        </div>
       )}
     </div>
   );

@@ -11,6 +11,7 @@ import { formatDate, localToday } from './format';
 import { GerminationCurve } from './germination-curve';
 import { ResultPanel } from './result-panel';
 import { TestActions } from './test-actions';
+import { DampingOffNote } from './test-cautions';
 
 export interface TestWorkbenchProps {
   bankId: string;
@@ -65,6 +66,7 @@ export function TestWorkbench({
         {entering ? (
           <div id={ENTRY_ID} className="scroll-mt-4">
             <CountEntry bankId={bankId} detail={detail} date={date} onDateChange={onDateChange} today={today} />
+            <DampingOffNote className="mt-4" />
           </div>
         ) : null}
         <div className={entering ? 'grid min-w-0 grid-cols-1 gap-6' : 'contents'}>

@@ -21,7 +21,15 @@ import {
   type Origin,
   type StoragePlace,
 } from './lot-format';
-import { emptyToNull, friendlyNumberError, numberOrNull, ParentPlantPicker, SwapCaution } from './lot-form-parts';
+import {
+  emptyToNull,
+  friendlyNumberError,
+  numberOrNull,
+  ParentPlantPicker,
+  SwapCaution,
+  TreatedCaution,
+  TreatedCheckbox,
+} from './lot-form-parts';
 
 const resolver = zodResolver(updateLotBodySchema, { error: friendlyNumberError });
 const ORIGINS: readonly Origin[] = ['saved', 'swapped', 'bought'];
@@ -41,6 +49,7 @@ const SERVER_FIELDS = [
   'storage.temperatureC',
   'storage.humidityPct',
   'notes',
+  'treated',
 ] as const;
 
 function toFormValues(lot: LotDto) {
@@ -61,6 +70,7 @@ function toFormValues(lot: LotDto) {
       humidityPct: lot.storage.humidityPct,
     },
     notes: lot.notes ?? '',
+    treated: lot.treated,
   };
 }
 
@@ -123,6 +133,7 @@ export function LotDetails({ bankId, lot, plants, canEdit }: LotDetailsProps) {
           </Detail>
           <Detail label="Plants bulked">{lot.plantsBulked !== null ? formatCount(lot.plantsBulked) : 'Not said'}</Detail>
           <Detail label="Storage">{storageWords(lot)}</Detail>
+          <Detail label="Seed treatment">{lot.treated ? 'Treated (coated)' : 'Not treated'}</Detail>
           <Detail label="Logged">{formatDay(lot.createdAt.slice(0, 10))}</Detail>
           {lot.notes ? (
             <div className="sm:col-span-2">
@@ -149,6 +160,7 @@ function LotEditForm({ bankId, lot, plants, onDone }: { bankId: string; lot: Lot
   } = useForm({ resolver, defaultValues: toFormValues(lot) });
   const parents = useController({ control, name: 'parentPlantIds' });
   const origin = useWatch({ control, name: 'origin' });
+  const treated = useWatch({ control, name: 'treated' });
 
   const onSubmit = handleSubmit(async (body) => {
     setFormError(undefined);
@@ -249,6 +261,8 @@ function LotEditForm({ bankId, lot, plants, onDone }: { bankId: string; lot: Lot
         />
       </div>
       {origin === 'swapped' ? <SwapCaution /> : null}
+      <TreatedCheckbox field={register('treated')} />
+      {treated ? <TreatedCaution /> : null}
       {plants.length > 0 ? (
         <div className="grid gap-2">
           <p className="font-semibold text-loam-900">Parent plants</p>

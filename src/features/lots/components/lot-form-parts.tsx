@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import type { UseFormRegisterReturn } from 'react-hook-form';
 import type { ParentPlantDto } from '../../../../shared/schemas/lots';
 import { Caution } from '../../../components/ui/caution';
 import { cn } from '../../../lib/cn';
@@ -25,6 +26,47 @@ export function SwapCaution() {
       Rules on noxious weeds and on bringing seed in vary between countries, states and regions. Check your local
       regulations (or ask your extension service) before sending or receiving seed.
     </Caution>
+  );
+}
+
+/** Seed sold coated with a fungicide or another treatment: how to handle it safely. */
+export function TreatedCaution() {
+  return (
+    <Caution title="Treated seed: handle with care">
+      <p>
+        The coating is usually a fungicide, and it stays on the seed. Wear gloves when you handle or sow it, and wash
+        your hands afterwards. Keep the packet away from children, pets and food. Never eat the seed, feed it to animals
+        or grow it for sprouts or microgreens. Get rid of leftover treated seed the way your local rules say (not in
+        the compost, nor where birds and animals can reach it), and follow what the packet says.
+      </p>
+    </Caution>
+  );
+}
+
+export interface TreatedCheckboxProps {
+  /** From react-hook-form's `register('treated')`. */
+  field: UseFormRegisterReturn<'treated'>;
+}
+
+/** "Treated seed" as a large tick box. */
+export function TreatedCheckbox({ field }: TreatedCheckboxProps) {
+  return (
+    <label
+      className={cn(
+        'flex min-h-11 cursor-pointer items-start gap-3 rounded-lg border border-loam-200 bg-white p-3 hover:bg-husk-50',
+        'has-checked:border-seedcoat-500 has-checked:bg-seedcoat-50',
+      )}
+    >
+      <input type="checkbox" className="mt-1 size-5 shrink-0 accent-moss-700" {...field} />
+      <span className="min-w-0">
+        <span className="block font-semibold text-loam-900">
+          Treated seed (coated with fungicide or another treatment)
+        </span>
+        <span className="block text-sm text-loam-700">
+          Treated seed is usually dyed a bright colour (pink, blue or green), and the packet says so.
+        </span>
+      </span>
+    </label>
   );
 }
 

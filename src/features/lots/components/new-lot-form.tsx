@@ -25,6 +25,8 @@ import {
   numberOrUndefined,
   ParentPlantPicker,
   SwapCaution,
+  TreatedCaution,
+  TreatedCheckbox,
 } from './lot-form-parts';
 
 const resolver = zodResolver(createLotBodySchema, { error: friendlyNumberError });
@@ -50,6 +52,7 @@ const SERVER_FIELDS = [
   'storage.humidityPct',
   'notes',
   'code',
+  'treated',
 ] as const;
 
 export interface NewLotFormProps {
@@ -110,6 +113,7 @@ export function NewLotForm({
       storage: { place: null, location: '', temperatureC: null, humidityPct: null },
       notes: '',
       code: undefined,
+      treated: false,
     },
   });
 
@@ -117,6 +121,7 @@ export function NewLotForm({
   const speciesId = useWatch({ control, name: 'speciesId' });
   const origin = useWatch({ control, name: 'origin' });
   const grams = useWatch({ control, name: 'grams' });
+  const treated = useWatch({ control, name: 'treated' });
   const chosen = species.find((s) => s.id === speciesId);
   const perGram = chosen?.traits.seedsPerGram ?? null;
   const speciesPlants = useMemo(() => plants.filter((p) => p.speciesId === speciesId), [plants, speciesId]);
@@ -229,6 +234,8 @@ export function NewLotForm({
           />
         ) : null}
         {origin === 'swapped' ? <SwapCaution /> : null}
+        <TreatedCheckbox field={register('treated')} />
+        {treated ? <TreatedCaution /> : null}
       </Fieldset>
 
       <Fieldset legend="When">

@@ -118,10 +118,12 @@ export interface SpeciesTraitsCardProps {
   species: SpeciesDto;
   canEdit: boolean;
   headingLevel?: 2 | 3;
+  /** Off where the page already shows the species' cautions higher up (the lot page). */
+  showCautions?: boolean;
 }
 
 /** A species' traits with their sources; a grower sets the bank's own seeds per gram and count days. */
-export function SpeciesTraitsCard({ bankId, species, canEdit, headingLevel = 2 }: SpeciesTraitsCardProps) {
+export function SpeciesTraitsCard({ bankId, species, canEdit, headingLevel = 2, showCautions = true }: SpeciesTraitsCardProps) {
   const [editing, setEditing] = useState(false);
   const clear = useClearSpeciesOverrides(bankId, species.id);
   return (
@@ -142,7 +144,7 @@ export function SpeciesTraitsCard({ bankId, species, canEdit, headingLevel = 2 }
       }
     >
       <div className="grid gap-4">
-        <SpeciesCautions species={species} />
+        {showCautions ? <SpeciesCautions species={species} /> : null}
         <TraitList species={species} />
         {species.overridden.length > 0 ? (
           <div className="flex flex-wrap items-center gap-2 text-sm text-loam-700">
