@@ -29,6 +29,8 @@ import { createPlanService } from './modules/plan/plan.service';
 import { viabilityRoutes } from './modules/viability/viability.router';
 import { createViabilityService } from './modules/viability/viability.service';
 import { lotRoutes, lotsCsvExport } from './modules/lots/lots.router';
+import { labelRoutes } from './modules/labels/labels.router';
+import { createLabelsService } from './modules/labels/labels.service';
 import { createLotsService } from './modules/lots/lots.service';
 import { bankPhotoRoutes, photoFileRoutes, subjectPhotoRoutes } from './modules/photos/photos.router';
 import { createPhotosService } from './modules/photos/photos.service';
@@ -108,6 +110,7 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/plants', plantRoutes(services.plants));
   bank.use('/lots/:lotId/photos', subjectPhotoRoutes(services.photos, 'lot', 'lotId'));
   bank.use('/lots/:lotId/tests', lotTestRoutes(services.germination));
+  bank.use('/lots/:lotId/label.svg', labelRoutes(createLabelsService({ db: deps.db, appOrigin: config.appOrigin })));
   const viability = viabilityRoutes(services.viability, deps.clock);
   bank.use('/lots/:lotId', viability.lot);
   bank.use('/ranking', viability.ranking);

@@ -20,11 +20,13 @@ import { LotsPage } from './routes/banks/lots';
 import { MembersPage } from './routes/banks/members';
 import { NewLotPage } from './routes/banks/new-lot';
 import { PlantsPage } from './routes/banks/plants';
+import { PlannerPage } from './routes/banks/planner';
+import { plannerLoader, remindersLoader } from './routes/banks/planner-loaders';
+import { RemindersPage } from './routes/banks/reminders';
 import { NewBankPage } from './routes/banks/new-bank';
 import { overviewLoader } from './routes/banks/overview-loaders';
 import { OverviewPage } from './routes/banks/overview';
 import { SettingsPage } from './routes/banks/settings';
-import { ComingSoonPage } from './routes/coming-soon';
 import { HomePage } from './routes/home';
 import { NotFoundPage } from './routes/not-found';
 import { RootLayout } from './routes/root';
@@ -86,6 +88,10 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                     { path: paths.lot.path, loader: lotLoader(queryClient), element: <LotPage /> },
                     { path: paths.plants.path, loader: speciesAndPlantsLoader(queryClient), element: <PlantsPage /> },
                     {
+                      path: paths.labels.path,
+                      lazy: async () => ({ Component: (await import('./routes/banks/labels')).LabelsPage }),
+                    },
+                    {
                       path: paths.newTest.path,
                       loader: newTestLoader(queryClient),
                       lazy: async () => ({
@@ -98,7 +104,8 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                       // The chart library loads with the test page, not with the app.
                       lazy: async () => ({ Component: (await import('./routes/banks/germination-test')).GerminationTestPage }),
                     },
-                    { path: paths.planner.path, element: <ComingSoonPage area="planner" /> },
+                    { path: paths.planner.path, loader: plannerLoader(queryClient), element: <PlannerPage /> },
+                    { path: paths.reminders.path, loader: remindersLoader(queryClient), element: <RemindersPage /> },
                     { path: paths.members.path, loader: membersLoader(queryClient), element: <MembersPage /> },
                     { path: paths.settings.path, element: <SettingsPage /> },
                   ],

@@ -31,6 +31,17 @@ export const paths = {
     getHref: (bankId: string, lotId: string) => bankHref(bankId, `lots/${encodeURIComponent(lotId)}`),
   },
   plants: { path: 'plants', getHref: (bankId: string) => bankHref(bankId, 'plants') },
+  labels: {
+    path: 'labels',
+    /** The printable sheet of packet labels for the given lots (ids joined by commas). */
+    getHref: (bankId: string, lotIds: readonly string[] = [], paper?: 'a4' | 'letter') => {
+      const query = [
+        lotIds.length ? `lots=${lotIds.map(encodeURIComponent).join(',')}` : '',
+        paper ? `paper=${paper}` : '',
+      ].filter(Boolean);
+      return bankHref(bankId, `labels${query.length ? `?${query.join('&')}` : ''}`);
+    },
+  },
   newTest: {
     path: 'lots/:lotId/tests/new',
     getHref: (bankId: string, lotId: string) => bankHref(bankId, `lots/${encodeURIComponent(lotId)}/tests/new`),
@@ -40,6 +51,7 @@ export const paths = {
     getHref: (bankId: string, testId: string) => bankHref(bankId, `tests/${encodeURIComponent(testId)}`),
   },
   planner: { path: 'planner', getHref: (bankId: string) => bankHref(bankId, 'planner') },
+  reminders: { path: 'reminders', getHref: (bankId: string) => bankHref(bankId, 'reminders') },
   members: { path: 'members', getHref: (bankId: string) => bankHref(bankId, 'members') },
   settings: { path: 'settings', getHref: (bankId: string) => bankHref(bankId, 'settings') },
   devMail: {

@@ -202,6 +202,7 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     // A fresh lot has no test yet, so the sum cannot be done (API.md: 422 valid but impossible).
     ok: 422,
   },
+  'GET lot label.svg': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/label.svg`, least: 'viewer', ok: 200 },
   'GET ranking': { method: 'get', path: (f) => `/api/banks/${f.bankId}/ranking`, least: 'viewer' },
   'GET plan': { method: 'get', path: (f) => `/api/banks/${f.bankId}/plan?season=2027`, least: 'viewer' },
   'POST plan entry': {

@@ -1,0 +1,26 @@
+import { Router } from 'express';
+import { requireRole } from '../../auth/bank-access';
+import { idParam } from '../../http/params';
+import type { LabelsService } from './labels.service';
+
+/**
+ * The label may carry any text a member typed, so it is served with a policy that lets it load
+ * nothing but its own inline style and embedded font, even when opened on its own.
+ */
+const LABEL_CSP = "default-src 'none'; style-src 'unsafe-inline'; font-src data:";
+
+/** GET /api/banks/:bankId/lots/:lotId/label.svg (mounted at that path). */
+export function labelRoutes(labels: LabelsService): Router {
+  const router = Router({ mergeParams: true });
+  router.get('/', requireRole('viewer'), async (req, res) => {
+    const { code, svg } = await labels.lotLabelSvg(req.bank!.id, idParam(req.params.lotId, 'lot'));
+    const filename = `hilum-label-${code.replace(/[^A-Za-z0-9._-]+/g, '_')}.svg`;
+    res.setHeader('Content-Type', 'image/svg+xml; charset=utf-8');
+    res.setHeader('Content-Disposition', `inline; filename="${filename}"`);
+    res.setHeader('Content-Security-Policy', LABEL_CSP);
+    // A new count changes the label: revalidate every time (Express adds an ETag for the 304).
+    res.setHeader('Cache-Control', 'private, no-cache');
+    res.send(svg);
+  });
+  return router;
+}
