@@ -74,9 +74,9 @@ function toFormValues(lot: LotDto) {
   };
 }
 
-function Detail({ label, children }: { label: string; children: ReactNode }) {
+function Detail({ label, children, wide = false }: { label: string; children: ReactNode; wide?: boolean }) {
   return (
-    <div className="min-w-0">
+    <div className={wide ? 'min-w-0 sm:col-span-2' : 'min-w-0'}>
       <dt className="text-sm font-semibold text-loam-700">{label}</dt>
       <dd className="break-words text-loam-900">{children}</dd>
     </div>
@@ -136,11 +136,9 @@ export function LotDetails({ bankId, lot, plants, canEdit }: LotDetailsProps) {
           <Detail label="Seed treatment">{lot.treated ? 'Treated (coated)' : 'Not treated'}</Detail>
           <Detail label="Logged">{formatDay(lot.createdAt.slice(0, 10))}</Detail>
           {lot.notes ? (
-            <div className="sm:col-span-2">
-              <Detail label="Notes">
-                <span className="whitespace-pre-line">{lot.notes}</span>
-              </Detail>
-            </div>
+            <Detail label="Notes" wide>
+              <span className="whitespace-pre-line">{lot.notes}</span>
+            </Detail>
           ) : null}
         </dl>
       )}
