@@ -18,10 +18,12 @@ export interface AccountMenuProps {
   /** Which sign-out is under way, to show it on its button. */
   signingOut?: 'here' | 'everywhere' | undefined;
   signOutError?: string | undefined;
+  /** Account → Reminders for the bank whose pages are open; left out outside a bank. */
+  remindersHref?: string | undefined;
 }
 
 /** The person's name and e-mail with the two ways to sign out; sign-in links when signed out. */
-export function AccountMenu({ user, onSignOut, signingOut, signOutError }: AccountMenuProps) {
+export function AccountMenu({ user, onSignOut, signingOut, signOutError, remindersHref }: AccountMenuProps) {
   const { open, setOpen, rootRef, buttonRef } = useDisclosure();
   const panelId = useId();
   const location = useLocation();
@@ -72,6 +74,11 @@ export function AccountMenu({ user, onSignOut, signingOut, signOutError }: Accou
           </p>
         ) : null}
         <div className="mt-4 grid gap-2">
+          {remindersHref ? (
+            <Link to={remindersHref} onClick={() => setOpen(false)} className={buttonStyles({ variant: 'secondary', fullWidth: true })}>
+              Reminders
+            </Link>
+          ) : null}
           <Button
             variant="secondary"
             fullWidth

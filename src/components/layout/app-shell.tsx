@@ -107,7 +107,7 @@ export function AppShell({
                 <span className="sr-only"> (development mailbox)</span>
               </NavLink>
             ) : null}
-            <AccountMenu {...account} />
+            <AccountMenu {...account} remindersHref={currentBankId ? paths.reminders.getHref(currentBankId) : undefined} />
           </div>
         </div>
       </header>

@@ -8,8 +8,10 @@ import { stockQueryOptions } from '../../../features/lots/api/get-stock';
 import { photosQueryOptions } from '../../../features/photos/api/get-photos';
 import { plantsQueryOptions } from '../../../features/plants/api/get-plants';
 import { speciesQueryOptions } from '../../../features/species/api/get-species';
+import { rankingQueryOptions } from '../../../features/viability/api/get-ranking';
+import { defaultSowingDate, parseSowingDate } from '../../../features/viability/components/sowing-date';
 import { isApiError } from '../../../lib/api-client';
-import { filtersFromSearch } from './lots-search';
+import { todayIn } from '../../../lib/dates';
 
 /*
  * Loaders of the lots area: each waits for what the page cannot draw without, and starts the rest
@@ -31,13 +33,15 @@ function idsOf(params: LoaderFunctionArgs['params']) {
 export function lotsLoader(queryClient: QueryClient) {
   return async ({ params, request }: LoaderFunctionArgs) => {
     const { bankId } = idsOf(params);
-    const filters = filtersFromSearch(new URL(request.url).searchParams);
+    const on = parseSowingDate(new URL(request.url).searchParams.get('on'));
     try {
-      await Promise.all([
+      const [{ bank }] = await Promise.all([
         queryClient.ensureQueryData(bankQueryOptions(bankId)),
-        queryClient.ensureQueryData(speciesQueryOptions(bankId)),
-        queryClient.ensureInfiniteQueryData(lotsQueryOptions(bankId, filters)),
+        // The first page of all lots only tells an empty bank apart; the ranking lists them.
+        queryClient.ensureInfiniteQueryData(lotsQueryOptions(bankId, {})),
       ]);
+      // The ranking can take a moment on a big bank: the page shows its own loading state meanwhile.
+      void queryClient.prefetchQuery(rankingQueryOptions(bankId, on ?? defaultSowingDate(bank.lastFrost, todayIn(bank.timeZone))));
     } catch (error) {
       failure(error, request);
     }

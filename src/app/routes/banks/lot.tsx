@@ -13,6 +13,9 @@ import { usePlants } from '../../../features/plants/api/get-plants';
 import { PlantsList } from '../../../features/plants/components/plants-list';
 import { useSpecies } from '../../../features/species/api/get-species';
 import { SpeciesTraitsCard } from '../../../features/species/components/species-traits-card';
+import { DeclineCard } from '../../../features/viability/components/decline-card';
+import { SeedsToSowCard } from '../../../features/viability/components/seeds-to-sow-card';
+import { useSowingDate } from '../../../features/viability/components/use-sowing-date';
 import { todayIn } from '../../../lib/dates';
 import type { BankNoticeState } from './bank-layout';
 import { LotPageCautions } from './lot-cautions';
@@ -36,6 +39,7 @@ export function LotPage() {
   const parents = plants.filter((p) => lot.parentPlantIds.includes(p.id));
   const photoFailure = (location.state as LotPageState | null)?.photoFailure;
   const today = todayIn(bank.timeZone);
+  const sowing = useSowingDate(bank.lastFrost, today);
 
   return (
     <>
@@ -78,9 +82,21 @@ export function LotPage() {
           <section id="lot-tests" aria-labelledby="lot-tests-title">
             <LotTests bankId={bank.id} lotId={lot.id} canWrite={canEdit} headingId="lot-tests-title" />
           </section>
+          <DeclineCard bankId={bank.id} lotId={lot.id} on={sowing.on} today={today} />
         </div>
 
         <div className="grid min-w-0 gap-6">
+          <SeedsToSowCard
+            key={lot.id}
+            bankId={bank.id}
+            lotId={lot.id}
+            speciesId={lot.speciesId}
+            startMethod={species?.traits.startMethod}
+            on={sowing.on}
+            onChangeOn={sowing.setOn}
+            defaultAssurance={bank.sowingAssurance}
+            canEdit={canEdit}
+          />
           {species ? <SpeciesTraitsCard bankId={bank.id} species={species} canEdit={canEdit} showCautions={false} /> : null}
           <Card title="Parent plants" description={lot.plantsBulked ? `Seed bulked from ${lot.plantsBulked} plants` : undefined}>
             {parents.length ? (

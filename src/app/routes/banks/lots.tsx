@@ -1,39 +1,21 @@
-import { useCallback, useMemo } from 'react';
-import { Link, useSearchParams } from 'react-router-dom';
-import { Button, buttonStyles } from '../../../components/ui/button';
+import { Link } from 'react-router-dom';
+import { buttonStyles } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
-import { FormAlert } from '../../../components/ui/form-alert';
 import { PageHeader } from '../../../components/ui/page-header';
-import { Loading } from '../../../components/ui/spinner';
 import { paths } from '../../../config/paths';
+import { PrintLabelLink } from '../../../features/labels/components/print-label-link';
 import { useLots } from '../../../features/lots/api/get-lots';
-import { lotApiPaths, type LotFilters } from '../../../features/lots/api/keys';
-import { LotsFilters } from '../../../features/lots/components/lots-filters';
-import { LotsTable } from '../../../features/lots/components/lots-table';
-import { useSpecies } from '../../../features/species/api/get-species';
-import { filtersFromSearch, searchFromFilters } from './lots-search';
+import { lotApiPaths } from '../../../features/lots/api/keys';
+import { RankingView } from '../../../features/viability/components/ranking-view';
+import { todayIn } from '../../../lib/dates';
 import { LotsSubnav } from './lots-subnav';
 import { useRouteBank } from './use-route-bank';
 
 export function LotsPage() {
   const { bank, role } = useRouteBank();
   const canEdit = role !== 'viewer';
-  const [search, setSearch] = useSearchParams();
-  const filters = useMemo(() => filtersFromSearch(search), [search]);
-  const setFilters = useCallback(
-    (next: LotFilters) => setSearch(searchFromFilters(next), { replace: true }),
-    [setSearch],
-  );
-  const lots = useLots(bank.id, filters);
-  const species = useSpecies(bank.id);
-  const items = useMemo(() => lots.data?.pages.flatMap((p) => p.items) ?? [], [lots.data]);
-  const filtered = Boolean(filters.q || filters.speciesId || filters.status);
-  // The species filter lists only species the bank has lots of would need another request;
-  // the full list (sorted by name) is short enough for a native select.
-  const speciesOptions = useMemo(
-    () => [...(species.data ?? [])].sort((a, b) => a.commonName.localeCompare(b.commonName)),
-    [species.data],
-  );
+  // The first page of all lots (retired ones too) tells an empty bank from one with nothing to rank.
+  const lots = useLots(bank.id, {});
 
   const actions = (
     <>
@@ -53,14 +35,14 @@ export function LotsPage() {
     </>
   );
 
-  const isEmptyBank = !filtered && lots.isSuccess && items.length === 0;
+  const isEmptyBank = lots.isSuccess && lots.data.pages.every((p) => p.items.length === 0);
 
   return (
     <>
       <PageHeader
         eyebrow={bank.name}
         title="Lots"
-        description="Every seed lot in this bank: where it came from, when, and how many seeds are left."
+        description="Every lot ranked by its projected germination on the coming sowing date, with what to do with it: sow, sow thick, retest or retire."
         actions={actions}
       />
       <LotsSubnav bankId={bank.id} />
@@ -86,40 +68,12 @@ export function LotsPage() {
           }
         />
       ) : (
-        <div className="grid gap-4">
-          <LotsFilters filters={filters} onChange={setFilters} species={speciesOptions} />
-          {lots.isPending ? (
-            <Loading label="Loading the lots" />
-          ) : lots.isError ? (
-            <FormAlert>{lots.error.message}</FormAlert>
-          ) : items.length === 0 ? (
-            <EmptyState
-              title="No lots match"
-              description="Try another word, or clear the filters."
-              action={
-                <Button variant="secondary" onClick={() => setFilters({})}>
-                  Clear search and filters
-                </Button>
-              }
-            />
-          ) : (
-            <>
-              <p className="text-sm text-loam-700" aria-live="polite">
-                {items.length === 1 ? '1 lot' : `${items.length} lots`}
-                {lots.hasNextPage ? ' shown so far; sorting covers the lots shown' : ''}. “≈” marks a count estimated
-                from a weight.
-              </p>
-              <LotsTable bankId={bank.id} lots={items} />
-              {lots.hasNextPage ? (
-                <div className="flex justify-center">
-                  <Button variant="secondary" isLoading={lots.isFetchingNextPage} onClick={() => void lots.fetchNextPage()}>
-                    Load more lots
-                  </Button>
-                </div>
-              ) : null}
-            </>
-          )}
-        </div>
+        <RankingView
+          bankId={bank.id}
+          lastFrost={bank.lastFrost}
+          today={todayIn(bank.timeZone)}
+          selectionActions={(lotIds) => <PrintLabelLink bankId={bank.id} lotIds={lotIds} />}
+        />
       )}
     </>
   );

@@ -19,10 +19,10 @@ export function SettingsPage() {
       <PageHeader
         eyebrow={bank.name}
         title="Settings"
-        description="The dates and margins the planner counts from, and the bank’s time zone."
+        description="The frost dates and margin the planner counts from, the limits the ranking and the seeds to sow work from, and the bank’s time zone."
       />
       <div className="grid gap-6">
-        <Card title="Bank and frost dates">
+        <Card title="Bank, frost dates and decisions">
           <BankSettingsForm key={bank.id} bank={bank} canEdit={isOwner} />
         </Card>
         {isOwner ? (

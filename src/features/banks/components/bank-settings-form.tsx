@@ -12,15 +12,16 @@ import { FrostDatesNote } from './frost-dates-note';
 
 const emptyToNull = (value: unknown) => (value === '' ? null : value);
 
-// The shared schema gives the margin no messages of its own; these fill in for zod's defaults.
+// An empty or non-numeric number box reaches zod as NaN; each field names its own range then.
+const NUMBER_MESSAGES: Record<string, string> = {
+  frostMarginDays: 'Enter a whole number of days from 0 to 60.',
+  sowThresholdPercent: 'Enter a whole percent from 1 to 100.',
+  establishmentFactor: 'Enter a number above 0 and at most 1, like 0.9.',
+  sowingAssurance: 'Enter a number between 0.5 and 0.99, like 0.9.',
+};
 const resolver = zodResolver(updateBankBodySchema, {
-  error: (issue) => {
-    const input = (issue as { input?: unknown }).input;
-    if (typeof input === 'number' || (issue as { expected?: unknown }).expected === 'number') {
-      return 'Enter a whole number of days from 0 to 60.';
-    }
-    return undefined;
-  },
+  // Only issues without a message of their own in the schema reach this (zod 4's precedence).
+  error: (issue) => NUMBER_MESSAGES[String(issue.path?.[0] ?? '')],
 });
 
 function toFormValues(bank: BankDto) {
@@ -30,6 +31,9 @@ function toFormValues(bank: BankDto) {
     firstFrost: bank.firstFrost,
     frostMarginDays: bank.frostMarginDays,
     timeZone: bank.timeZone,
+    sowThresholdPercent: bank.sowThresholdPercent,
+    establishmentFactor: bank.establishmentFactor,
+    sowingAssurance: bank.sowingAssurance,
   };
 }
 
@@ -65,7 +69,16 @@ export function BankSettingsForm({ bank, canEdit }: BankSettingsFormProps) {
       setSaved(true);
     } catch (error) {
       setFormError(
-        applyServerError(error, setError, ['name', 'lastFrost', 'firstFrost', 'frostMarginDays', 'timeZone']),
+        applyServerError(error, setError, [
+          'name',
+          'lastFrost',
+          'firstFrost',
+          'frostMarginDays',
+          'timeZone',
+          'sowThresholdPercent',
+          'establishmentFactor',
+          'sowingAssurance',
+        ]),
       );
     }
   });
@@ -79,7 +92,7 @@ export function BankSettingsForm({ bank, canEdit }: BankSettingsFormProps) {
       <fieldset disabled={!canEdit || update.isPending} className="grid gap-5">
         <legend className="sr-only">Bank settings</legend>
         <TextField label="Name of the bank" autoComplete="off" error={errors.name?.message} {...register('name')} />
-        {canEdit ? <FrostDatesNote /> : null}
+        <FrostDatesNote />
         <div className="grid gap-4 sm:grid-cols-2">
           <TextField
             label="Last spring frost"
@@ -103,7 +116,7 @@ export function BankSettingsForm({ bank, canEdit }: BankSettingsFormProps) {
           />
           <TextField
             label="Safety margin (days)"
-            hint="Extra days kept clear of each frost date, for a late or early frost. 0 to 60."
+            hint="Days added after the last frost before tender plants go out, against a late frost (common practice). 0 to 60."
             type="number"
             inputMode="numeric"
             min={0}
@@ -126,6 +139,51 @@ export function BankSettingsForm({ bank, canEdit }: BankSettingsFormProps) {
             ))}
           </SelectField>
         </div>
+        <fieldset className="grid gap-4 border-t border-loam-200 pt-5">
+          <legend className="float-left mb-1 w-full text-lg font-bold text-loam-900">How Hilum decides</legend>
+          <p className="text-loam-700">
+            What the lot ranking and the seeds to sow work from. A species with a published minimum germination
+            standard is judged by that standard instead of the threshold.
+          </p>
+          <div className="grid gap-4 sm:grid-cols-3">
+            <TextField
+              label="Sow threshold (%)"
+              hint="A lot expected at or above this germination, even at the low end of its range, is worth sowing as is. 1 to 100."
+              type="number"
+              inputMode="numeric"
+              min={1}
+              max={100}
+              step={1}
+              className="num"
+              error={errors.sowThresholdPercent?.message}
+              {...register('sowThresholdPercent', { valueAsNumber: true })}
+            />
+            <TextField
+              label="Seedling establishment"
+              hint="Of the seeds that sprout, the share you expect to grow on into plants; 0.9 is 9 in 10. Above 0, at most 1."
+              type="number"
+              inputMode="decimal"
+              min={0.01}
+              max={1}
+              step={0.01}
+              className="num"
+              error={errors.establishmentFactor?.message}
+              {...register('establishmentFactor', { valueAsNumber: true })}
+            />
+            <TextField
+              label="Sowing assurance"
+              hint="How sure the seeds to sow make you of the plants wanted; 0.9 means 9 sowings in 10 give enough. 0.5 to 0.99."
+              type="number"
+              inputMode="decimal"
+              min={0.5}
+              max={0.99}
+              step={0.01}
+              className="num"
+              error={errors.sowingAssurance?.message}
+              {...register('sowingAssurance', { valueAsNumber: true })}
+            />
+          </div>
+        </fieldset>
       </fieldset>
       {canEdit ? (
         <div className="flex flex-wrap items-center gap-3">

@@ -1,0 +1,27 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { z } from 'zod';
+import { planEntrySchema, type CreatePlanBody } from '../../../../shared/schemas/plan';
+import { apiFetch } from '../../../lib/api-client';
+import { putEntry, refreshAfterPlanChange } from './invalidate-plan';
+import { planApiPaths } from './keys';
+
+export const planEntryResponseSchema = z.object({ entry: planEntrySchema });
+
+/**
+ * POST /api/banks/:bankId/plan (grower) → 201 { entry }. 422 when the bank has no last frost date
+ * or the species has no indoor window; 400 with fields for a bad species or lot.
+ */
+export async function createPlanEntry(bankId: string, body: CreatePlanBody) {
+  return (await apiFetch(planApiPaths.plan(bankId), { method: 'POST', body, schema: planEntryResponseSchema })).entry;
+}
+
+export function useCreatePlanEntry(bankId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: CreatePlanBody) => createPlanEntry(bankId, body),
+    onSuccess: async (entry) => {
+      putEntry(queryClient, bankId, entry);
+      await refreshAfterPlanChange(queryClient, bankId, { stockMoved: false });
+    },
+  });
+}

@@ -1,0 +1,23 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { PlanEntryDto } from '../../../../shared/schemas/plan';
+import { apiFetch } from '../../../lib/api-client';
+import { refreshAfterPlanChange } from './invalidate-plan';
+import { planApiPaths, planKeys } from './keys';
+
+/** DELETE /api/banks/:bankId/plan/:entryId (grower) → 204; 409 already_sown while it is sown. */
+export async function deletePlanEntry(bankId: string, entryId: string): Promise<void> {
+  await apiFetch(planApiPaths.entry(bankId, entryId), { method: 'DELETE' });
+}
+
+export function useDeletePlanEntry(bankId: string, entry: PlanEntryDto) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => deletePlanEntry(bankId, entry.id),
+    onSuccess: async () => {
+      queryClient.setQueryData<PlanEntryDto[]>(planKeys.season(bankId, entry.season), (list) =>
+        list?.filter((e) => e.id !== entry.id),
+      );
+      await refreshAfterPlanChange(queryClient, bankId, { stockMoved: false });
+    },
+  });
+}

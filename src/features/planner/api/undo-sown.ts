@@ -1,0 +1,21 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { apiFetch } from '../../../lib/api-client';
+import { planEntryResponseSchema } from './create-plan-entry';
+import { putEntry, refreshAfterPlanChange } from './invalidate-plan';
+import { planApiPaths } from './keys';
+
+/** DELETE /api/banks/:bankId/plan/:entryId/sown (grower): the seeds go back into the lot's stock. */
+export async function undoSown(bankId: string, entryId: string) {
+  return (await apiFetch(planApiPaths.sown(bankId, entryId), { method: 'DELETE', schema: planEntryResponseSchema })).entry;
+}
+
+export function useUndoSown(bankId: string, entryId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => undoSown(bankId, entryId),
+    onSuccess: async (entry) => {
+      putEntry(queryClient, bankId, entry);
+      await refreshAfterPlanChange(queryClient, bankId, { stockMoved: true });
+    },
+  });
+}

@@ -1,0 +1,23 @@
+import type { SpeciesTraits } from '../../../../shared/schemas/species';
+import type { RankingItem } from '../../../../shared/schemas/viability';
+import { formatSeeds } from './plan-format';
+
+/** Indoors or direct to start with: what the species' traits say is usual. */
+export function defaultStart(traits: SpeciesTraits): 'indoors' | 'direct' {
+  if (traits.startMethod === 'direct') return 'direct';
+  if (traits.startMethod === 'either' && (traits.startWeeksFrom == null || traits.startWeeksTo == null)) return 'direct';
+  return 'indoors';
+}
+
+/** The active lots of a species a sowing can come from, the likeliest to come up first. */
+export function lotsOfSpecies(ranking: readonly RankingItem[], speciesId: string): RankingItem[] {
+  return ranking
+    .filter((r) => r.speciesId === speciesId && r.status === 'active')
+    .sort((a, b) => (b.projectedPercent ?? -1) - (a.projectedPercent ?? -1) || a.code.localeCompare(b.code));
+}
+
+/** "TOM-25-01 · Bench Red — about 87% by sowing, 480 seeds" for a lot picker. */
+export function lotChoiceLabel(lot: RankingItem): string {
+  const expected = lot.projectedPercent !== null ? `about ${Math.round(lot.projectedPercent)}% by sowing` : 'not tested yet';
+  return `${lot.code} · ${lot.variety} — ${expected}, ${formatSeeds(lot.seedsOnHand)} seeds`;
+}

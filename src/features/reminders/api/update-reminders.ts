@@ -1,0 +1,20 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { ReminderPrefs } from '../../../../shared/schemas/reminders';
+import { apiFetch } from '../../../lib/api-client';
+import { remindersResponseSchema } from './get-reminders';
+import { reminderApiPaths, reminderKeys } from './keys';
+
+/** PATCH /api/banks/:bankId/reminders with the choices that change → the member's full choices. */
+export async function updateReminders(bankId: string, body: Partial<ReminderPrefs>) {
+  return (
+    await apiFetch(reminderApiPaths.reminders(bankId), { method: 'PATCH', body, schema: remindersResponseSchema })
+  ).preferences;
+}
+
+export function useUpdateReminders(bankId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: Partial<ReminderPrefs>) => updateReminders(bankId, body),
+    onSuccess: (preferences) => queryClient.setQueryData(reminderKeys.all(bankId), preferences),
+  });
+}

@@ -1,0 +1,114 @@
+import { useState } from 'react';
+import { reminderPrefsBodySchema, type ReminderPrefs } from '../../../../shared/schemas/reminders';
+import { FormAlert } from '../../../components/ui/form-alert';
+import { Spinner } from '../../../components/ui/spinner';
+import { cn } from '../../../lib/cn';
+import { useReminders } from '../api/get-reminders';
+import { useUpdateReminders } from '../api/update-reminders';
+
+type Kind = keyof ReminderPrefs;
+
+/** Each kind of reminder, with when it is sent (the server's job sends from 7 in the morning). */
+const KINDS: { kind: Kind; label: string; when: string }[] = [
+  { kind: 'sowing', label: 'Sowing days', when: 'The morning a sowing window of the season plan opens.' },
+  { kind: 'checks', label: 'Tray check days', when: 'Each check day of a running germination test.' },
+  { kind: 'retest', label: 'Retests', when: 'When a lot is due for a retest of its germination.' },
+  { kind: 'digest', label: 'Weekly summary', when: 'A Monday summary of the week: sowings, counts and retests due.' },
+];
+
+export interface ReminderChoicesProps {
+  bankId: string;
+  bankName: string;
+  timeZone: string;
+  email: string | undefined;
+}
+
+/** Four switches; each change is saved at once, and the switch shows what the server kept. */
+export function ReminderChoices({ bankId, bankName, timeZone, email }: ReminderChoicesProps) {
+  const { data: prefs } = useReminders(bankId);
+  const update = useUpdateReminders(bankId);
+  const [saving, setSaving] = useState<Kind>();
+  const [status, setStatus] = useState<string>();
+  const [error, setError] = useState<string>();
+
+  const toggle = async (kind: Kind, on: boolean, label: string) => {
+    setSaving(kind);
+    setStatus(undefined);
+    setError(undefined);
+    try {
+      const body = reminderPrefsBodySchema.parse({ [kind]: on });
+      const next = await update.mutateAsync(body);
+      setStatus(`Saved: ${label.toLowerCase()} ${next[kind] ? 'on' : 'off'}.`);
+    } catch (e) {
+      setError(e instanceof Error ? e.message : 'The change was not saved. Try again.');
+    } finally {
+      setSaving(undefined);
+    }
+  };
+
+  return (
+    <div className="grid gap-4">
+      <p className="text-loam-700">
+        E-mails to <span className="font-semibold text-loam-900">{email ?? 'your address'}</span> about{' '}
+        <span className="font-semibold text-loam-900">{bankName}</span>, from 7 in the morning in the bank’s time zone (
+        {timeZone.replaceAll('_', ' ')}). These are your own choices; other members choose theirs.
+      </p>
+      <FormAlert>{error}</FormAlert>
+      <ul className="divide-y divide-loam-100 rounded-lg border border-loam-200">
+        {KINDS.map(({ kind, label, when }) => {
+          const on = prefs[kind];
+          const id = `reminder-${kind}`;
+          return (
+            <li key={kind} className="flex items-center justify-between gap-4 px-3 py-3 sm:px-4">
+              <div className="min-w-0">
+                <label htmlFor={id} className="font-semibold text-loam-900">
+                  {label}
+                </label>
+                <p id={`${id}-when`} className="text-sm text-loam-600">
+                  {when}
+                </p>
+              </div>
+              <div className="flex shrink-0 items-center gap-2">
+                {saving === kind ? <Spinner size="sm" label={`Saving ${label.toLowerCase()}`} /> : null}
+                <button
+                  id={id}
+                  type="button"
+                  role="switch"
+                  aria-checked={on}
+                  aria-describedby={`${id}-when`}
+                  disabled={saving !== undefined}
+                  onClick={() => void toggle(kind, !on, label)}
+                  // The track is 32 px high; the button around it keeps a 44 px target.
+                  className="inline-flex min-h-11 min-w-14 items-center justify-center rounded-full disabled:opacity-60"
+                >
+                  <span
+                    aria-hidden="true"
+                    className={cn(
+                      'relative inline-flex h-8 w-14 items-center rounded-full border-2 transition-colors',
+                      on ? 'border-moss-700 bg-moss-700' : 'border-loam-400 bg-loam-200',
+                    )}
+                  >
+                    <span
+                      className={cn(
+                        'inline-block size-6 rounded-full bg-white shadow transition-transform',
+                        on ? 'translate-x-6' : 'translate-x-0.5',
+                      )}
+                    />
+                  </span>
+                </button>
+                <span aria-hidden="true" className="w-7 text-sm font-semibold text-loam-700">
+                  {on ? 'On' : 'Off'}
+                </span>
+              </div>
+            </li>
+          );
+        })}
+      </ul>
+      {status ? (
+        <p role="status" className="font-semibold text-moss-800">
+          {status}
+        </p>
+      ) : null}
+    </div>
+  );
+}

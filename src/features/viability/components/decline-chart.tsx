@@ -1,0 +1,130 @@
+import { Area, CartesianGrid, ComposedChart, ErrorBar, Line, ReferenceLine, Scatter, Tooltip, XAxis, YAxis } from 'recharts';
+import type { ViabilityResponse } from '../../../../shared/schemas/viability';
+import { formatDay } from '../../../lib/dates';
+import { formatCount, pct, years } from './viability-format';
+import { wilsonInterval } from './wilson';
+
+// Palette values from tailwind.config.ts (recharts draws with plain colours).
+const CURVE = '#324520'; // moss-800
+const BAND = '#c6d8ab'; // moss-200
+const DOT = '#77491f'; // seedcoat-700
+const WHISKER = '#955c23'; // seedcoat-600
+const TODAY = '#635645'; // loam-600
+const SOWING = '#2d4d63'; // frost-700
+const AXIS = '#4e4337'; // loam-700
+
+export interface TestedPoint {
+  ageYears: number;
+  tested: number;
+  /** Distances below and above the percentage to its 95% Wilson bounds, for the error bar. */
+  err: [number, number];
+  low: number;
+  high: number;
+  date: string;
+  germinated: number;
+  sown: number;
+}
+
+/** Each test as a dot with its 95% Wilson interval, worked out here from germinated of sown. */
+export function testedPoints(points: ViabilityResponse['points']): TestedPoint[] {
+  return points.map((p) => {
+    const w = wilsonInterval(p.germinated, p.sown);
+    const tested = (100 * p.germinated) / p.sown;
+    return {
+      ageYears: p.ageYears,
+      tested,
+      err: [tested - 100 * w.low, 100 * w.high - tested],
+      low: 100 * w.low,
+      high: 100 * w.high,
+      date: p.date,
+      germinated: p.germinated,
+      sown: p.sown,
+    };
+  });
+}
+
+interface TipProps {
+  active?: boolean;
+  payload?: ReadonlyArray<{ payload?: unknown; dataKey?: unknown }>;
+}
+
+function Tip({ active, payload }: TipProps) {
+  if (!active || !payload?.length) return null;
+  const dot = payload.find((p) => p.dataKey === 'tested')?.payload as TestedPoint | undefined;
+  const curve = payload.find((p) => p.dataKey === 'percent')?.payload as { ageYears: number; percent: number; band: [number, number] } | undefined;
+  return (
+    <div className="rounded-lg border border-loam-200 bg-white px-3 py-2 text-sm text-loam-900 shadow">
+      {dot ? (
+        <>
+          <p className="font-semibold">Test of {formatDay(dot.date)}</p>
+          <p>
+            {pct(dot.tested)} ({formatCount(dot.germinated)} of {formatCount(dot.sown)}), 95% interval {pct(dot.low)}–{pct(dot.high)}
+          </p>
+        </>
+      ) : curve ? (
+        <>
+          <p className="font-semibold">At {years(curve.ageYears)}</p>
+          <p>
+            Fitted {pct(curve.percent)}, likely {pct(curve.band[0])}–{pct(curve.band[1])}
+          </p>
+        </>
+      ) : null}
+    </div>
+  );
+}
+
+export interface DeclineChartProps {
+  viability: ViabilityResponse;
+  /** The seed's age today and on the sowing date, in years. */
+  todayAge: number;
+}
+
+/** Germination against seed age: the fitted decline with its band, and every test as a dot. */
+export function DeclineChart({ viability, todayAge }: DeclineChartProps) {
+  const curve = viability.curve.map((c) => ({ ageYears: c.ageYears, percent: c.percent, band: [c.low, c.high] as [number, number] }));
+  const dots = testedPoints(viability.points);
+  const onAge = Math.max(0, viability.ageYears);
+  const maxAge = Math.max(1, curve.at(-1)?.ageYears ?? 0, onAge, todayAge, ...dots.map((d) => d.ageYears));
+
+  return (
+    <ComposedChart
+      responsive
+      style={{ width: '100%', height: 300 }}
+      data={curve}
+      margin={{ top: 22, right: 16, bottom: 4, left: -12 }}
+      accessibilityLayer
+    >
+      <CartesianGrid stroke="#ede7dd" />
+      <XAxis
+        dataKey="ageYears"
+        type="number"
+        domain={[0, Math.ceil(maxAge)]}
+        allowDecimals={false}
+        tick={{ fill: AXIS, fontSize: 13 }}
+        label={{ value: 'seed age, years since harvest', position: 'insideBottom', offset: -2, fill: AXIS, fontSize: 13 }}
+        height={42}
+      />
+      <YAxis domain={[0, 100]} ticks={[0, 25, 50, 75, 100]} tickFormatter={(v: number) => `${v}%`} tick={{ fill: AXIS, fontSize: 13 }} width={52} />
+      <Tooltip content={<Tip />} />
+      <Area dataKey="band" name="Likely range" type="monotone" stroke="none" fill={BAND} fillOpacity={0.7} isAnimationActive={false} activeDot={false} />
+      <Line dataKey="percent" name="Fitted decline" type="monotone" stroke={CURVE} strokeWidth={3} dot={false} isAnimationActive={false} />
+      <Scatter data={dots} dataKey="tested" name="Tests" fill={DOT} isAnimationActive={false}>
+        <ErrorBar dataKey="err" direction="y" width={8} strokeWidth={1.75} stroke={WHISKER} />
+      </Scatter>
+      <ReferenceLine
+        x={Math.max(0, todayAge)}
+        stroke={TODAY}
+        strokeDasharray="4 4"
+        label={{ value: 'today', position: 'insideTopRight', fill: TODAY, fontSize: 12 }}
+      />
+      <ReferenceLine
+        x={onAge}
+        stroke={SOWING}
+        strokeWidth={2}
+        label={{ value: 'sowing', position: 'insideTopLeft', fill: SOWING, fontSize: 12 }}
+      />
+    </ComposedChart>
+  );
+}
+
+export default DeclineChart;

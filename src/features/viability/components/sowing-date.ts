@@ -1,0 +1,44 @@
+import { isoDateSchema } from '../../../../shared/schemas/common';
+
+const DAY_MS = 86_400_000;
+/** The server's year for seed age (server/modules/viability: days / 365.25). */
+const YEAR_DAYS = 365.25;
+/** A first guess at the coming sowing date: eight weeks before the last spring frost (Hilum's rule). */
+export const WEEKS_BEFORE_FROST = 8;
+/** Without a frost date, a season ahead (Hilum's rule). */
+export const DAYS_AHEAD_WITHOUT_FROST = 90;
+
+const isoDay = (ms: number) => new Date(ms).toISOString().slice(0, 10);
+
+export function addDays(iso: string, days: number): string {
+  return isoDay(Date.parse(`${iso}T00:00:00Z`) + days * DAY_MS);
+}
+
+/**
+ * The coming sowing date: eight weeks before the next last-frost date whose sowing day is still
+ * ahead (today counts), or today + 90 days when the bank has no frost date.
+ * `lastFrost` is the bank's "MM-DD"; `today` is the bank's calendar day.
+ */
+export function defaultSowingDate(lastFrost: string | null, today: string): string {
+  const match = lastFrost ? /^(\d{2})-(\d{2})$/.exec(lastFrost) : null;
+  if (!match) return addDays(today, DAYS_AHEAD_WITHOUT_FROST);
+  const year = Number(today.slice(0, 4));
+  for (const y of [year, year + 1, year + 2]) {
+    // Date.UTC rolls a 29 February into 1 March in a common year, which is near enough.
+    const frost = isoDay(Date.UTC(y, Number(match[1]) - 1, Number(match[2])));
+    const sow = addDays(frost, -7 * WEEKS_BEFORE_FROST);
+    if (sow >= today) return sow;
+  }
+  return addDays(today, DAYS_AHEAD_WITHOUT_FROST);
+}
+
+/** A sowing date from the address (`?on=`), when it is a real calendar date. */
+export function parseSowingDate(value: string | null): string | undefined {
+  const parsed = isoDateSchema.safeParse(value);
+  return parsed.success ? parsed.data : undefined;
+}
+
+/** Seed age in years on `date`, counted from the model's age zero the way the server counts it. */
+export function ageOn(harvestReference: string, date: string): number {
+  return (Date.parse(date) - Date.parse(harvestReference)) / DAY_MS / YEAR_DAYS;
+}

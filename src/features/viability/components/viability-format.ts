@@ -1,0 +1,37 @@
+import type { z } from 'zod';
+import type { basisSchema, RecommendationValue } from '../../../../shared/schemas/viability';
+
+export type Basis = z.infer<typeof basisSchema>;
+
+export const recommendationLabels: Record<RecommendationValue, string> = {
+  sow: 'Sow',
+  'sow-thick': 'Sow thick',
+  retest: 'Retest',
+  retire: 'Retire',
+};
+/** Best first: the order the recommendation column sorts in. */
+export const recommendationOrder: readonly RecommendationValue[] = ['sow', 'sow-thick', 'retest', 'retire'];
+
+export const basisWords: Record<Basis, string> = {
+  lot: 'fitted to this lot’s tests',
+  species: 'slope borrowed from this bank’s other lots of the species',
+  typical: 'from the species’ typical seed life',
+};
+
+/** Why the retest date falls where it does (the server's rule names, in words). */
+export const retestReasonWords: Record<string, string> = {
+  'lower-bound': 'That is when the low end of the likely range reaches the germination the lot should keep.',
+  'monitoring-interval':
+    'That is a third of the way to the age at which germination is expected to fall to 85% of its start (a genebank monitoring rule).',
+  'one-year-cap': 'That is a year after the last test, the longest Hilum waits between tests.',
+};
+
+/** A percentage for the screen: whole numbers, as seed-testing rules report germination. */
+export const pct = (value: number) => `${Math.round(value)}%`;
+
+const oneDecimal = new Intl.NumberFormat('en', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
+export const years = (value: number) => `${oneDecimal.format(value)} yr`;
+export const days = (value: number) => `${oneDecimal.format(value)} d`;
+
+const count = new Intl.NumberFormat('en');
+export const formatCount = (n: number) => count.format(n);

@@ -1,0 +1,293 @@
+import jStat from 'jstat';
+import ical from 'node-ical';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
+import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { journey, seriousViolations } from '../helpers/journey';
+import { finishedTest, speciesId } from '../helpers/lots';
+
+// The people and the bank are the invented demo scenario of server/db/seed-demo.ts (last spring
+// frost 05-24, a 10-day margin); the lot below is invented for this test.
+const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
+const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;
+const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
+
+const NOW = '2026-12-01T09:00:00Z';
+// 390 × 844 CSS pixels: the viewport of a common mid-size phone held upright (from memory).
+const PHONE = { width: 390, height: 844 };
+const DESKTOP = { width: 1280, height: 900 };
+
+/*
+ * The tomato sowing of the coming spring (season 2027), worked by hand from the demo frost date:
+ * tomato is started 8–6 weeks before the last frost (Hilum's reference set; 5–7 weeks from sowing to
+ * transplant in ISU's Seed Germination Guide 2017, REFERENCES.md [read], the 8–6 weeks before frost
+ * is common practice). 2027-05-24 − 56 days = 29 Mar; − 42 days = 12 Apr.
+ * Plant out after the frost date plus the bank's 10-day margin: 3 Jun; harden off the week before
+ * (about a week, common practice): 27 May. Seedlings from the first sowing day plus tomato's first
+ * and final count days, 5 and 14 (REFERENCES.md, from memory): 3 Apr – 12 Apr.
+ */
+const SOW = '29 Mar – 12 Apr';
+const EXPECT = '3 Apr – 12 Apr';
+const HARDEN = '27 May';
+const PLANT_OUT = '3 Jun';
+const SOW_FROM = '2027-03-29';
+
+/**
+ * Seeds to sow so that at least `plants` come up with probability `assurance`: the smallest n with
+ * P(X ≥ plants) ≥ assurance for X ~ Binomial(n, p) (the binomial quantile of DESIGN.md), computed
+ * with jstat, a reference library from the npm registry.
+ */
+function seedsFor(plants: number, p: number, assurance: number): number {
+  for (let n = plants; n < 100_000; n += 1) {
+    if (1 - jStat.binomial.cdf(plants - 1, n, p) >= assurance) return n;
+  }
+  throw new Error('no n found');
+}
+
+describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
+  let server: Awaited<ReturnType<typeof startTestServer>>;
+  let browser: Browser & { cleanup(): void };
+  let bankId: string;
+  let lotId: string;
+  let lotCode: string;
+  let stockBefore: number;
+  let expectedSeeds: number;
+
+  beforeAll(async () => {
+    server = await startTestServer({ now: NOW });
+    await seedDemo(server.db);
+    bankId = (await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()).id;
+
+    // A tomato lot of 400 seeds with a finished two-tray test, through the API as the grower.
+    const api = request.agent(server.app);
+    expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
+    const tomato = await speciesId(server.db, 'tomato');
+    const lot = await api
+      .post(`/api/banks/${bankId}/lots`)
+      .send({ speciesId: tomato, variety: 'Planner Trial Red', origin: 'saved', harvestDate: '2025-09-01', seedCount: 400 });
+    expect(lot.status).toBe(201);
+    lotId = lot.body.lot.id;
+    lotCode = lot.body.lot.code;
+    await finishedTest(api, bankId, lotId, '2026-11-01', [
+      { sown: 50, germinated: 46 },
+      { sown: 50, germinated: 45 },
+    ]);
+    // 400 logged − 2 × 50 counted into the test's trays (the stock is a ledger, DESIGN.md).
+    stockBefore = (await api.get(`/api/banks/${bankId}/lots/${lotId}`)).body.lot.seedsOnHand;
+    expect(stockBefore).toBe(300);
+
+    // The lot's germination projected to the first sowing day (the server's viability fit), then the
+    // seeds for 12 plants worked out independently: × 0.9 establishment and 0.9 assurance, the
+    // bank's defaults (migrations/2026_12_01_000400_bank_decision_settings.ts).
+    const ranking = await api.get(`/api/banks/${bankId}/ranking?on=${SOW_FROM}`);
+    const item = (ranking.body.items as { lotId: string; projectedPercent: number }[]).find((r) => r.lotId === lotId)!;
+    expectedSeeds = seedsFor(12, (item.projectedPercent / 100) * 0.9, 0.9);
+
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    browser?.cleanup();
+    await server?.stop();
+  });
+
+  /** A browser whose clock reads the same day as the server's. */
+  async function open(viewport: { width: number; height: number }, phone = false): Promise<{ context: BrowserContext; page: Page }> {
+    const context = await browser.newContext({ viewport, hasTouch: phone, isMobile: phone });
+    await context.clock.setFixedTime(new Date(NOW));
+    return { context, page: await context.newPage() };
+  }
+
+  async function signIn(page: Page, email: string) {
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
+  }
+
+  const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
+  const fact = (page: Page, name: string) => page.locator(`article[data-entry] [data-fact="${name}"] dd`).first().innerText();
+
+  it('when a grower plans 12 tomato plants indoors and marks them sown, then the window, the suggested lot and the stock withdrawn follow', async () => {
+    const { context, page } = await open(DESKTOP);
+    const steps = journey('planner-grower', page);
+    await signIn(page, grower.email);
+
+    await steps.step('planner', async () => {
+      await page.getByRole('navigation', { name: 'Bank' }).getByRole('link', { name: 'Planner' }).first().click();
+      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/planner`);
+      // In December the coming spring is next year's.
+      expect(await page.getByRole('combobox', { name: 'Season' }).inputValue()).toBe('2027');
+      await expect.poll(() => page.locator('[data-frost]').innerText()).toContain('24 May');
+    });
+
+    await steps.step('add-form', async () => {
+      const species = page.getByRole('combobox', { name: /Species/ });
+      await species.fill('tomato');
+      await page.getByRole('option', { name: /Tomato/ }).click();
+      // Tomato is usually started indoors (reference set): the choice follows the species.
+      expect(await page.getByRole('radio', { name: 'Indoors' }).isChecked()).toBe(true);
+      await page.getByLabel('Plants wanted').fill('12');
+      expect(await page.getByRole('combobox', { name: 'Lot' }).inputValue()).toBe('');
+      // The lot is offered with its projection and stock.
+      await expect.poll(() => page.getByRole('combobox', { name: 'Lot' }).innerText()).toContain(`${lotCode} · Planner Trial Red`);
+      await expect.poll(() => page.getByRole('status').filter({ hasText: 'Sow between' }).innerText()).toContain('Sow between 29 Mar and 12 Apr');
+    });
+
+    await steps.step('entry', async () => {
+      await page.getByRole('button', { name: 'Add to plan' }).click();
+      await page.locator('article[data-entry]').waitFor();
+      expect(await page.locator('article[data-entry] h3').innerText()).toBe('Tomato');
+      expect(await fact(page, 'sow')).toBe(SOW);
+      expect(await fact(page, 'expect')).toBe(EXPECT);
+      expect(await fact(page, 'harden')).toBe(HARDEN);
+      expect(await fact(page, 'plant-out')).toBe(PLANT_OUT);
+      expect(await page.locator('[data-fact="lot"] dt').innerText()).toBe('Lot (suggested)');
+      expect(await fact(page, 'lot')).toBe(lotCode);
+      expect(await fact(page, 'seeds')).toBe(String(expectedSeeds));
+      await expect.poll(() => page.locator('article[data-entry]').getByRole('list', { name: 'Notes' }).innerText()).toContain(`Suggested lot ${lotCode}`);
+      expect(await seriousViolations(page)).toEqual([]);
+    });
+
+    await steps.step('sown', async () => {
+      // The sowing date starts at today (the bank's time zone is UTC in the demo).
+      expect(await page.getByLabel('Sown on').inputValue()).toBe('2026-12-01');
+      await page.getByRole('button', { name: `Mark sown (−${expectedSeeds} seeds)` }).click();
+      await expect
+        .poll(() => page.getByRole('status').filter({ hasText: 'Sown on' }).innerText())
+        .toBe(`Sown on 1 Dec: ${expectedSeeds} seeds taken from the stock of lot ${lotCode}.`);
+      expect(await page.getByRole('button', { name: 'Undo sowing' }).isVisible()).toBe(true);
+    });
+
+    await steps.step('lot-page', async () => {
+      await page.locator('article[data-entry]').getByRole('link', { name: lotCode }).click();
+      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots/${lotId}`);
+      await expect.poll(() => page.getByText(/seeds on hand$/).first().innerText()).toBe(`${stockBefore - expectedSeeds} seeds on hand`);
+    });
+
+    // Undo puts the seeds back, so the lot is whole again for the next test.
+    await page.goBack();
+    await page.getByRole('button', { name: 'Undo sowing' }).click();
+    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Sowing undone' }).innerText()).toContain(`${expectedSeeds} seeds went back into lot ${lotCode}`);
+    const api = request.agent(server.app);
+    await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
+    expect((await api.get(`/api/banks/${bankId}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(stockBefore);
+    await context.close();
+  });
+
+  it('when a viewer opens the season calendar on a phone, then it reads as a day list without sideways scrolling and offers no changes', async () => {
+    const { context, page } = await open(PHONE, true);
+    const steps = journey('planner-viewer-phone', page);
+    await signIn(page, viewer.email);
+    await page.goto(`${server.baseUrl}/banks/${bankId}/planner`);
+
+    await steps.step('sowings', async () => {
+      await page.locator('article[data-entry]').waitFor();
+      expect(await page.getByRole('button', { name: /Mark sown/ }).count()).toBe(0);
+      expect(await page.getByRole('button', { name: 'Add to plan' }).count()).toBe(0);
+      expect(await page.getByRole('button', { name: 'Delete' }).count()).toBe(0);
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
+
+    await steps.step('calendar', async () => {
+      await page.getByRole('button', { name: 'Calendar' }).click();
+      // Today (1 Dec 2026) is outside the season, so the calendar opens on its first sowing month.
+      await expect.poll(() => page.getByRole('heading', { name: 'March 2027' }).count()).toBe(1);
+      const agenda = page.locator('[data-calendar="agenda"]');
+      await expect.poll(() => agenda.innerText()).toContain('Mon 29 Mar');
+      expect(await agenda.innerText()).toContain(`Sow Tomato · ${SOW}`);
+      expect(await page.locator('[data-calendar="month"]').isVisible()).toBe(false);
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
+
+    await steps.step('calendar-june', async () => {
+      for (let i = 0; i < 3; i += 1) await page.getByRole('button', { name: /next month/ }).click();
+      await expect.poll(() => page.getByRole('heading', { name: 'June 2027' }).count()).toBe(1);
+      await expect.poll(() => page.locator('[data-calendar="agenda"]').innerText()).toContain('Plant out Tomato');
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
+
+    // "Add to my calendar" is the season's iCalendar file, which a real parser reads.
+    const href = await page.getByRole('link', { name: 'Add to my calendar' }).getAttribute('href');
+    const ics = await page.request.get(`${server.baseUrl}${href}`);
+    expect(ics.headers()['content-type']).toMatch(/text\/calendar/);
+    const events = Object.values(ical.sync.parseICS(await ics.text())).filter((e) => e?.type === 'VEVENT') as ical.VEvent[];
+    expect(events.some((e) => String(e.summary).startsWith('Sow Tomato'))).toBe(true);
+    await context.close();
+  });
+
+  it('when the month grid is open on a wide screen, then today is marked and the sowing window runs across its days', async () => {
+    const { context, page } = await open(DESKTOP);
+    const steps = journey('planner-month', page);
+    await signIn(page, grower.email);
+    await steps.step('december', async () => {
+      await page.goto(`${server.baseUrl}/banks/${bankId}/planner?view=calendar&month=2026-12`);
+      const today = page.locator('[data-calendar="month"] td[aria-current="date"]');
+      await expect.poll(() => today.getAttribute('data-day')).toBe('2026-12-01');
+    });
+    await steps.step('april', async () => {
+      await page.goto(`${server.baseUrl}/banks/${bankId}/planner?view=calendar&month=2027-04`);
+      // 1–12 April lie in the sowing window, 13 April does not.
+      const sowOn = (day: string) => page.locator(`td[data-day="${day}"] li[data-kind="sow"]`).count();
+      await expect.poll(() => sowOn('2027-04-01')).toBe(1);
+      expect(await sowOn('2027-04-12')).toBe(1);
+      expect(await sowOn('2027-04-13')).toBe(0);
+      expect(await page.locator('td[data-day="2027-04-03"] li[data-kind="sprout"]').count()).toBe(1);
+      expect(await seriousViolations(page)).toEqual([]);
+    });
+    await context.close();
+  });
+
+  it('when a viewer turns on sowing reminders under Account → Reminders, then the choice is kept', async () => {
+    const { context, page } = await open(PHONE, true);
+    const steps = journey('reminders', page);
+    await signIn(page, viewer.email);
+    await steps.step('reminders', async () => {
+      await page.getByRole('button', { name: 'Account' }).click();
+      await page.getByRole('link', { name: 'Reminders' }).click();
+      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/reminders`);
+      const sowing = page.getByRole('switch', { name: 'Sowing days' });
+      // Off by default for a viewer (server/jobs/reminders.ts: on for owner and grower).
+      expect(await sowing.getAttribute('aria-checked')).toBe('false');
+      expect(await page.getByText('The morning a sowing window of the season plan opens.').isVisible()).toBe(true);
+      await sowing.click();
+      await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved' }).innerText()).toBe('Saved: sowing days on.');
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
+    await page.reload();
+    await expect.poll(() => page.getByRole('switch', { name: 'Sowing days' }).getAttribute('aria-checked')).toBe('true');
+    expect(await page.getByRole('switch', { name: 'Weekly summary' }).getAttribute('aria-checked')).toBe('false');
+    await context.close();
+  });
+
+  it('when an owner sets the sowing assurance in Settings, then the bank keeps it and the frost dates are explained, not guessed', async () => {
+    const { context, page } = await open(PHONE, true);
+    const steps = journey('settings-decisions', page);
+    await signIn(page, owner.email);
+    await steps.step('settings', async () => {
+      await page.goto(`${server.baseUrl}/banks/${bankId}/settings`);
+      const main = page.locator('main');
+      await expect.poll(() => main.innerText()).toContain('Frost dates are local averages');
+      expect(await main.innerText()).toContain('Hilum never guesses them from a location');
+      // The decision settings show the bank's defaults (migrations/2026_12_01_000400_bank_decision_settings.ts).
+      expect(await page.getByLabel('Sow threshold (%)').inputValue()).toBe('70');
+      expect(await page.getByLabel('Seedling establishment').inputValue()).toBe('0.9');
+      expect(await page.getByLabel('Sowing assurance').inputValue()).toBe('0.9');
+      // Out of range: the shared schema's message shows beside the field, and nothing is sent.
+      await page.getByLabel('Sowing assurance').fill('1.5');
+      await page.getByRole('button', { name: 'Save settings' }).click();
+      await expect.poll(() => main.innerText()).toContain('Between 0.5 and 0.99.');
+      await page.getByLabel('Sowing assurance').fill('0.95');
+      await page.getByRole('button', { name: 'Save settings' }).click();
+      await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved.' }).count()).toBe(1);
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
+    const saved = await server.db.selectFrom('banks').select('sowing_assurance').where('id', '=', bankId).executeTakeFirstOrThrow();
+    expect(Number(saved.sowing_assurance)).toBe(0.95);
+    await server.db.updateTable('banks').set({ sowing_assurance: 0.9 }).where('id', '=', bankId).execute();
+    await context.close();
+  });
+});

@@ -1,0 +1,321 @@
+import type { Browser, Page } from 'playwright-core';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { RankingItem } from '../../shared/schemas/viability';
+import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
+import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { journey, seriousViolations } from '../helpers/journey';
+import { finishedTest, speciesId } from '../helpers/lots';
+
+// The people and the bank are the invented demo scenario of server/db/seed-demo.ts; the lots
+// below are made here (codes RNK-…), so the test does not lean on whatever else the demo holds.
+const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
+const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;
+
+const NOW = '2026-12-01T09:00:00Z';
+// The demo bank's last frost is 24 May (seed-demo.ts); Hilum's default sowing date is eight weeks
+// (56 days) before the next one: 24 May 2027 − 56 days = 29 March 2027 (calendar arithmetic:
+// 24 days back to 30 April, 30 more to 31 March, 2 more to 29 March).
+const ON = '2027-03-29';
+
+// 390 × 844 CSS pixels: the viewport of a common mid-size phone held upright (from memory).
+const PHONE = { width: 390, height: 844 };
+const DESKTOP = { width: 1280, height: 900 };
+
+describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', () => {
+  let server: Awaited<ReturnType<typeof startTestServer>>;
+  let browser: Browser & { cleanup(): void };
+  let bankId: string;
+  const lots: Record<'good' | 'old' | 'new', string> = { good: '', old: '', new: '' };
+  let ranking: RankingItem[];
+
+  beforeAll(async () => {
+    server = await startTestServer({ now: NOW });
+    await seedDemo(server.db);
+    bankId = (await server.db.selectFrom('banks').select(['id', 'last_frost']).where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()).id;
+
+    const agent = request.agent(server.app);
+    expect((await agent.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
+    const newLot = async (key: string, code: string, variety: string, harvestDate: string, seedCount: number) => {
+      const res = await agent
+        .post(`/api/banks/${bankId}/lots`)
+        .send({ speciesId: await speciesId(server.db, key), variety, origin: 'saved', harvestDate, seedCount, code });
+      if (res.status !== 201) throw new Error(`lot not created: ${JSON.stringify(res.body)}`);
+      return res.body.lot.id as string;
+    };
+    // A fresh tomato lot that came up well, a lettuce lot tested young and again four years on,
+    // and a marigold lot nobody has tested yet (invented lots, like all demo data).
+    lots.good = await newLot('tomato', 'RNK-GOOD', 'Bench Gold', '2026-08-20', 800);
+    await finishedTest(agent, bankId, lots.good, '2026-09-15', [
+      { sown: 50, germinated: 48 },
+      { sown: 50, germinated: 47 },
+    ]);
+    lots.old = await newLot('lettuce', 'RNK-OLD', 'Old Leaf', '2022-07-15', 2000);
+    await finishedTest(agent, bankId, lots.old, '2023-02-01', [
+      { sown: 50, germinated: 46 },
+      { sown: 50, germinated: 44 },
+    ]);
+    await finishedTest(agent, bankId, lots.old, '2026-10-01', [
+      { sown: 50, germinated: 22 },
+      { sown: 50, germinated: 20 },
+    ]);
+    lots.new = await newLot('marigold', 'RNK-NEW', 'Untried', '2026-09-01', 300);
+    // One more lot outside the RNK- codes, for the search to leave out.
+    await newLot('marigold', 'SIDE-1', 'Left Out', '2026-09-01', 300);
+
+    // The server's own ranking for the default sowing date: what the table must show.
+    const res = await agent.get(`/api/banks/${bankId}/ranking?on=${ON}`);
+    expect(res.status).toBe(200);
+    ranking = (res.body.items as RankingItem[]).filter((i) => i.code.startsWith('RNK-'));
+    expect(ranking).toHaveLength(3);
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    browser?.cleanup();
+    await server?.stop();
+  });
+
+  const item = (code: string) => ranking.find((i) => i.code === code)!;
+
+  async function signIn(page: Page, email: string) {
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
+  }
+  const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
+  const rowCodes = (page: Page) => page.locator('tbody tr[data-lot]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-lot')));
+
+  it('when a viewer sorts the ranking by projected germination and filters to "sow", then the rows follow the server’s projections and the view survives a reload', async () => {
+    // The tomato lot: 95 of 100 germinated two months after harvest, far above the 75% minimum for
+    // tomato seed (7 CFR 201.31), so "sow"; the lot nobody tested has no projection, so "retest".
+    expect(item('RNK-GOOD')).toMatchObject({ recommendation: 'sow', lastPercent: 95 });
+    expect(item('RNK-NEW')).toMatchObject({ recommendation: 'retest', projectedPercent: null });
+    // Two tests four years apart: the lettuce lot's own decline, projected below its last test.
+    expect(item('RNK-OLD').basis).toBe('lot');
+    expect(item('RNK-OLD').projectedPercent!).toBeLessThan(42);
+
+    const context = await browser.newContext({ viewport: DESKTOP });
+    await context.clock.setFixedTime(new Date(NOW));
+    const page = await context.newPage();
+    const j = journey('ranking-desktop', page);
+    await signIn(page, viewer.email);
+
+    await j.step('open the ranking', async () => {
+      await page.getByRole('navigation', { name: 'Bank' }).getByRole('link', { name: 'Lots' }).click();
+      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots`);
+      await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Lots');
+      await expect.poll(() => page.getByLabel('Sowing date').inputValue()).toBe(ON);
+      await expect.poll(async () => (await rowCodes(page)).includes('SIDE-1')).toBe(true);
+      await page.getByRole('searchbox', { name: 'Search' }).fill('RNK-');
+      await page.getByRole('searchbox', { name: 'Search' }).press('Enter');
+      await expect.poll(async () => (await rowCodes(page)).sort()).toEqual(['RNK-GOOD', 'RNK-NEW', 'RNK-OLD']);
+      expect(await page.getByText(/projected to/).innerText()).toContain('29 Mar 2027');
+      expect(await page.getByRole('link', { name: 'New lot' }).count()).toBe(0);
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(DESKTOP.width);
+    });
+
+    await j.step('sort by projected germination', async () => {
+      await page.getByRole('columnheader', { name: /Projected/ }).getByRole('button').click();
+      await expect.poll(() => page.getByRole('columnheader', { name: /Projected/ }).getAttribute('aria-sort')).toBe('descending');
+      // Highest projection first, the lot without one last: the order of the server's numbers.
+      const expected = [...ranking]
+        .sort((a, b) => (b.projectedPercent ?? -1) - (a.projectedPercent ?? -1))
+        .map((i) => i.code);
+      expect(expected).toEqual(['RNK-GOOD', 'RNK-OLD', 'RNK-NEW']);
+      await expect.poll(() => rowCodes(page)).toEqual(expected);
+      // Each bar draws the server's interval and estimate.
+      const old = item('RNK-OLD');
+      expect(await page.locator('tr[data-lot="RNK-OLD"] [data-projection]').getAttribute('data-projection')).toBe(
+        `${Math.round(old.projectedLow!)}-${Math.round(old.projectedPercent!)}-${Math.round(old.projectedHigh!)}`,
+      );
+      expect(await page.locator('tr[data-lot="RNK-NEW"]').innerText()).toContain('No estimate');
+    });
+
+    await j.step('filter to sow', async () => {
+      await page.getByRole('combobox', { name: 'Advice' }).selectOption('sow');
+      await expect.poll(() => rowCodes(page)).toEqual(['RNK-GOOD']);
+      const url = new URL(page.url());
+      expect(url.searchParams.get('rec')).toBe('sow');
+      expect(url.searchParams.get('sort')).toBe('projected:desc');
+      expect(url.searchParams.get('q')).toBe('RNK-');
+      // The reason shows on hover (title) and opens on a press.
+      const badge = page.locator('tr[data-lot="RNK-GOOD"]').getByRole('button', { name: /Sow/ });
+      expect(await badge.getAttribute('title')).toBe(item('RNK-GOOD').reason);
+      await badge.click();
+      const popover = page.getByRole('dialog', { name: /RNK-GOOD/ });
+      await expect.poll(() => popover.innerText()).toContain(item('RNK-GOOD').reason);
+      await page.keyboard.press('Escape');
+      await expect.poll(() => popover.isVisible()).toBe(false);
+    });
+
+    await j.step('reload the shared view', async () => {
+      await page.reload();
+      await expect.poll(() => rowCodes(page)).toEqual(['RNK-GOOD']);
+      expect(await page.getByRole('combobox', { name: 'Advice' }).inputValue()).toBe('sow');
+      expect(await page.getByRole('columnheader', { name: /Projected/ }).getAttribute('aria-sort')).toBe('descending');
+      expect(await seriousViolations(page)).toEqual([]);
+    });
+
+    await j.step('tick a lot for labels', async () => {
+      await page.getByRole('checkbox', { name: 'Select RNK-GOOD' }).check();
+      // One lot ticked: the labels page's own link, "Print label", for that lot.
+      const link = page.getByRole('link', { name: /^Print/ });
+      expect(await link.getAttribute('href')).toBe(`/banks/${bankId}/labels?lots=${lots.good}`);
+    });
+
+    await j.step('hide a column', async () => {
+      await page.getByRole('button', { name: /Columns/ }).click();
+      await page.getByRole('checkbox', { name: 'Mean days' }).uncheck();
+      await expect.poll(() => page.getByRole('columnheader', { name: /Mean days/ }).count()).toBe(0);
+      expect(new URL(page.url()).searchParams.get('hide')).toBe('meanDays');
+      // The panel stays open for the next tick; Escape closes it.
+      expect(await page.getByRole('checkbox', { name: 'Age' }).isVisible()).toBe(true);
+      await page.keyboard.press('Escape');
+      await expect.poll(() => page.getByRole('checkbox', { name: 'Age' }).isVisible()).toBe(false);
+    });
+
+    await j.step('open the lot and see its decline', async () => {
+      await page.getByRole('link', { name: 'RNK-GOOD' }).click();
+      await page.waitForURL(new RegExp(`/banks/${bankId}/lots/${lots.good}`));
+      const chart = page.locator('figure[data-chart="decline"] svg.recharts-surface');
+      await chart.waitFor();
+      // The fitted curve is drawn as a path, and the one test as one dot.
+      // The API sends the curve as 41 points from age 0, so the path has 40 segments after its start.
+      const d = (await chart.locator('.recharts-line-curve').getAttribute('d')) ?? '';
+      expect(d).toMatch(/^M[\d.]+,[\d.]+/);
+      expect(d.match(/[CL]/g)).toHaveLength(40);
+      await expect.poll(() => chart.locator('.recharts-scatter-symbol').count()).toBe(1);
+    });
+
+    await j.step('the declining lot', async () => {
+      await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lots.old}`);
+      const chart = page.locator('figure[data-chart="decline"] svg.recharts-surface');
+      await chart.waitFor();
+      await expect.poll(() => chart.locator('.recharts-scatter-symbol').count()).toBe(2);
+      expect(await chart.locator('.recharts-errorBar').count()).toBeGreaterThan(0);
+      const viability = page.locator('#lot-viability');
+      await expect.poll(() => viability.innerText()).toContain('fitted to this lot’s tests');
+      // 90 of 100 and 42 of 100; 95% Wilson intervals computed here and on the page alike.
+      const tests = await page.getByRole('list', { name: 'Tests in the chart' }).innerText();
+      expect(tests).toContain('90% (90 of 100');
+      expect(tests).toContain('42% (42 of 100');
+
+      // The calculator asks the server for 12 plants at the bank's assurance (90% by default).
+      await expect.poll(() => page.getByTestId('seeds-to-sow').innerText()).toMatch(/^sow \d+ seeds$/);
+      const seeds = Number((await page.getByTestId('seeds-to-sow').innerText()).replace(/\D/g, ''));
+      const viewerAgent = request.agent(server.app);
+      await viewerAgent.post('/api/auth/login').send({ email: viewer.email, password: DEMO_PASSWORD });
+      const api = await viewerAgent.get(`/api/banks/${bankId}/lots/${lots.old}/seeds-to-sow?plants=12&assurance=0.9&on=${ON}`);
+      expect(api.status).toBe(200);
+      expect(seeds).toBe(api.body.seeds);
+      // With germination at a third or so, 12 plants need well over 12 seeds.
+      expect(seeds).toBeGreaterThan(24);
+      // A viewer reads, and plans nothing.
+      expect(await page.getByRole('button', { name: /Add to the/ }).count()).toBe(0);
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(DESKTOP.width);
+    });
+    await context.close();
+  });
+
+  it('when a viewer opens the ranking on a phone, then lots show as cards whose advice opens its reason, with no sideways scroll', async () => {
+    const context = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+    await context.clock.setFixedTime(new Date(NOW));
+    const page = await context.newPage();
+    const j = journey('ranking-phone', page);
+    await signIn(page, viewer.email);
+
+    await j.step('cards', async () => {
+      await page.goto(`${server.baseUrl}/banks/${bankId}/lots?q=RNK-`);
+      const cards = page.getByRole('list', { name: /Lots ranked/ }).locator('li[data-lot]');
+      await expect.poll(() => cards.count()).toBe(3);
+      expect(await page.locator('table').count()).toBe(0);
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
+
+    await j.step('tap the advice', async () => {
+      const card = page.locator('li[data-lot="RNK-NEW"]');
+      const badge = card.getByRole('button', { name: /Retest/ });
+      expect(await badge.getAttribute('aria-expanded')).toBe('false');
+      await badge.tap();
+      await expect.poll(() => badge.getAttribute('aria-expanded')).toBe('true');
+      await expect.poll(() => card.innerText()).toContain(item('RNK-NEW').reason);
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
+
+    await j.step('the lot page', async () => {
+      await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lots.old}`);
+      await page.locator('figure[data-chart="decline"] svg.recharts-surface').waitFor();
+      await expect.poll(() => page.getByTestId('seeds-to-sow').innerText()).toMatch(/^sow \d+ seeds$/);
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
+    await context.close();
+  });
+
+  it('when a grower adds the calculated sowing to the plan, then the plan holds an entry for the lot, its species and the plants wanted', async () => {
+    const context = await browser.newContext({ viewport: DESKTOP });
+    await context.clock.setFixedTime(new Date(NOW));
+    const page = await context.newPage();
+    await signIn(page, grower.email);
+    await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lots.good}`);
+    await page.getByLabel('Plants wanted').fill('20');
+    await expect.poll(() => page.getByTestId('seeds-to-sow').innerText()).toMatch(/^sow \d+ seeds$/);
+    await expect.poll(() => page.getByText(/for 20 plants/).count()).toBeGreaterThan(0);
+    await page.getByRole('button', { name: 'Add to the 2027 plan' }).click();
+    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Added to the 2027 plan' }).count()).toBe(1);
+
+    const entries = await server.db
+      .selectFrom('plan_entries')
+      .select(['season', 'lot_id', 'species_id', 'plants_wanted', 'start'])
+      .where('lot_id', '=', lots.good)
+      .execute();
+    // Tomato starts indoors in the reference set (startMethod 'indoor'), so the entry does too.
+    expect(entries).toEqual([{ season: 2027, lot_id: lots.good, species_id: await speciesId(server.db, 'tomato'), plants_wanted: 20, start: 'indoors' }]);
+    await context.close();
+  });
+
+  // Runs last: it fills the bank with lots the tests above would otherwise have to look past.
+  it('when the bank holds 5,000 lots, then the table and the phone cards keep only the rows near the screen in the page', async () => {
+    const BULK = 5000;
+    const marigold = await speciesId(server.db, 'marigold');
+    const values = Array.from({ length: BULK }, (_, i) => ({
+      bank_id: bankId,
+      species_id: marigold,
+      code: `BULK-${String(i + 1).padStart(4, '0')}`,
+      variety: `Bulk ${i + 1}`,
+      origin: 'saved' as const,
+      harvest_date: '2025-09-01',
+    }));
+    for (let i = 0; i < values.length; i += 1000) await server.db.insertInto('lots').values(values.slice(i, i + 1000)).execute();
+
+    const context = await browser.newContext({ viewport: DESKTOP });
+    await context.clock.setFixedTime(new Date(NOW));
+    const page = await context.newPage();
+    await signIn(page, viewer.email);
+    await page.goto(`${server.baseUrl}/banks/${bankId}/lots?q=BULK-&sort=code:asc`);
+    await expect.poll(() => page.getByText(/projected to/).innerText(), { timeout: 20_000 }).toContain(`${BULK.toLocaleString('en')} of`);
+    await expect.poll(async () => (await rowCodes(page))[0]).toBe('BULK-0001');
+    const rendered = (await rowCodes(page)).length;
+    expect(rendered).toBeGreaterThan(5);
+    expect(rendered).toBeLessThan(60);
+    // Scrolled to the end, the last lot is drawn and the first is gone from the page.
+    await page.locator('[data-ranking-scroll]').evaluate((el) => el.scrollTo(0, el.scrollHeight));
+    await expect.poll(async () => (await rowCodes(page)).at(-1)).toBe(`BULK-${BULK}`);
+    expect(await rowCodes(page)).not.toContain('BULK-0001');
+    expect((await rowCodes(page)).length).toBeLessThan(60);
+    await context.close();
+
+    const phone = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+    await phone.clock.setFixedTime(new Date(NOW));
+    const phonePage = await phone.newPage();
+    await signIn(phonePage, viewer.email);
+    await phonePage.goto(`${server.baseUrl}/banks/${bankId}/lots?q=BULK-`);
+    const cards = phonePage.locator('li[data-lot]');
+    await expect.poll(() => cards.count(), { timeout: 20_000 }).toBeGreaterThan(2);
+    expect(await cards.count()).toBeLessThan(30);
+    expect(await scrollWidth(phonePage)).toBeLessThanOrEqual(PHONE.width);
+    await phone.close();
+  });
+});

@@ -1,0 +1,37 @@
+import { describe, expect, it } from 'vitest';
+import { defaultSowingDate } from '../../src/features/viability/components/sowing-date';
+import { wilsonInterval } from '../../src/features/viability/components/wilson';
+
+describe('the decline chart’s Wilson interval (computed in the browser)', () => {
+  it.each([
+    [81, 263, 0.2553, 0.3662], // Newcombe 1998, Stat. Med. 17:857–872, Table II (score method), as quoted in Hilum's issue text
+    [0, 20, 0, 0.1611], // Newcombe 1998, Table II, as quoted in Hilum's issue text
+  ])('when %i of %i germinate, then the 95 percent bounds match Newcombe 1998', (x, n, low, high) => {
+    const interval = wilsonInterval(x, n);
+    expect(interval.low).toBeCloseTo(low, 4);
+    expect(interval.high).toBeCloseTo(high, 4);
+  });
+
+  it('when every seed germinates, then the upper bound is exactly 100 percent', () => {
+    // Wilson 1927 score interval: at x = n the upper bound is 1 (algebra).
+    expect(wilsonInterval(20, 20).high).toBe(1);
+    // And it mirrors 0 of 20: the score interval is symmetric in x and n − x (algebra).
+    expect(wilsonInterval(20, 20).low).toBeCloseTo(1 - 0.1611, 4); // Newcombe 1998, Table II, 0 of 20, mirrored
+  });
+});
+
+describe('the coming sowing date', () => {
+  it('when the bank has a last frost date, then it is eight weeks before the next one still ahead', () => {
+    // 24 May 2027 − 56 days = 29 Mar 2027 (calendar arithmetic: 24 + 30 + 2 days back).
+    expect(defaultSowingDate('05-24', '2026-12-01')).toBe('2027-03-29');
+    // Before this spring's sowing day, this spring counts: 24 May 2026 − 56 days = 29 Mar 2026.
+    expect(defaultSowingDate('05-24', '2026-02-10')).toBe('2026-03-29');
+    // Past it (30 Mar), the next spring: 29 Mar 2027.
+    expect(defaultSowingDate('05-24', '2026-03-30')).toBe('2027-03-29');
+  });
+
+  it('when the bank has no frost date, then it is 90 days ahead', () => {
+    // 1 Dec 2026 + 90 days = 1 Mar 2027 (30 days to 31 Dec, 31 to 31 Jan, 28 to 28 Feb, 1 more).
+    expect(defaultSowingDate(null, '2026-12-01')).toBe('2027-03-01');
+  });
+});
