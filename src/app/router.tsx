@@ -1,37 +1,27 @@
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
-import { useEffect, useMemo } from 'react';
+import { useEffect, useMemo, type ComponentType } from 'react';
 import { createBrowserRouter, redirect, RouterProvider, type RouteObject } from 'react-router-dom';
 import { Loading } from '../components/ui/spinner';
 import { paths } from '../config/paths';
 import { ensureMe } from '../features/auth/api/get-me';
 import { outboxQueryOptions } from '../features/dev-mail/api/get-outbox';
 import { bankLoader, homeLoader, membersLoader, redirectIfSignedIn, requireSignIn } from './loaders';
-import { AcceptInvitationPage } from './routes/invitations/accept';
-import { ForgotPasswordPage } from './routes/auth/forgot-password';
-import { ResetPasswordPage } from './routes/auth/reset-password';
-import { SignInPage } from './routes/auth/sign-in';
-import { SignUpPage } from './routes/auth/sign-up';
-import { BankLayout } from './routes/banks/bank-layout';
 import { newTestLoader, testLoader } from './routes/banks/germination-loaders';
-import { ImportLotsPage } from './routes/banks/import-lots';
-import { LotPage } from './routes/banks/lot';
 import { lotLoader, lotsLoader, speciesAndPlantsLoader } from './routes/banks/lot-loaders';
-import { LotsPage } from './routes/banks/lots';
-import { MembersPage } from './routes/banks/members';
-import { NewLotPage } from './routes/banks/new-lot';
-import { PlantsPage } from './routes/banks/plants';
-import { PlannerPage } from './routes/banks/planner';
 import { plannerLoader, remindersLoader } from './routes/banks/planner-loaders';
-import { RemindersPage } from './routes/banks/reminders';
-import { NewBankPage } from './routes/banks/new-bank';
 import { overviewLoader } from './routes/banks/overview-loaders';
-import { OverviewPage } from './routes/banks/overview';
-import { SettingsPage } from './routes/banks/settings';
-import { HomePage } from './routes/home';
 import { NotFoundPage } from './routes/not-found';
 import { RootLayout } from './routes/root';
 import { RouteError } from './routes/route-error';
 import { registerSignInNavigator } from './session';
+
+/**
+ * A page whose code loads when it is first opened, alongside its loader's data: the app's first
+ * download stays small, and each screen brings its own libraries (table, charts, forms).
+ */
+function page<M extends Record<string, unknown>>(load: () => Promise<M>, name: keyof M & string) {
+  return async () => ({ Component: (await load())[name] as ComponentType });
+}
 
 export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
   return [
@@ -47,17 +37,17 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
           errorElement: <RouteError />,
           children: [
             // Open to everyone.
-            { path: paths.signIn.path, loader: redirectIfSignedIn(queryClient), element: <SignInPage /> },
-            { path: paths.signUp.path, loader: redirectIfSignedIn(queryClient), element: <SignUpPage /> },
-            { path: paths.forgotPassword.path, element: <ForgotPasswordPage /> },
-            { path: paths.resetPassword.path, element: <ResetPasswordPage /> },
+            { path: paths.signIn.path, loader: redirectIfSignedIn(queryClient), lazy: page(() => import('./routes/auth/sign-in'), 'SignInPage') },
+            { path: paths.signUp.path, loader: redirectIfSignedIn(queryClient), lazy: page(() => import('./routes/auth/sign-up'), 'SignUpPage') },
+            { path: paths.forgotPassword.path, lazy: page(() => import('./routes/auth/forgot-password'), 'ForgotPasswordPage') },
+            { path: paths.resetPassword.path, lazy: page(() => import('./routes/auth/reset-password'), 'ResetPasswordPage') },
             {
               path: paths.acceptInvitation.path,
               loader: async () => {
                 await ensureMe(queryClient);
                 return null;
               },
-              element: <AcceptInvitationPage />,
+              lazy: page(() => import('./routes/invitations/accept'), 'AcceptInvitationPage'),
             },
             {
               path: paths.devMail.path,
@@ -66,48 +56,45 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                 void queryClient.prefetchQuery(outboxQueryOptions());
                 return null;
               },
-              lazy: async () => ({ Component: (await import('./routes/dev/mail')).DevMailPage }),
+              lazy: page(() => import('./routes/dev/mail'), 'DevMailPage'),
             },
 
             // Signed in only.
             {
               loader: requireSignIn(queryClient),
               children: [
-                { index: true, loader: homeLoader(queryClient), element: <HomePage /> },
-                { path: paths.newBank.path, element: <NewBankPage /> },
+                { index: true, loader: homeLoader(queryClient), lazy: page(() => import('./routes/home'), 'HomePage') },
+                { path: paths.newBank.path, lazy: page(() => import('./routes/banks/new-bank'), 'NewBankPage') },
                 {
                   path: paths.bank.path,
                   loader: bankLoader(queryClient),
-                  element: <BankLayout />,
+                  lazy: page(() => import('./routes/banks/bank-layout'), 'BankLayout'),
                   children: [
                     { index: true, loader: ({ params }) => redirect(paths.overview.getHref(params.bankId ?? '')) },
-                    { path: paths.overview.path, loader: overviewLoader(queryClient), element: <OverviewPage /> },
-                    { path: paths.lots.path, loader: lotsLoader(queryClient), element: <LotsPage /> },
-                    { path: paths.newLot.path, loader: speciesAndPlantsLoader(queryClient), element: <NewLotPage /> },
-                    { path: paths.importLots.path, element: <ImportLotsPage /> },
-                    { path: paths.lot.path, loader: lotLoader(queryClient), element: <LotPage /> },
-                    { path: paths.plants.path, loader: speciesAndPlantsLoader(queryClient), element: <PlantsPage /> },
+                    { path: paths.overview.path, loader: overviewLoader(queryClient), lazy: page(() => import('./routes/banks/overview'), 'OverviewPage') },
+                    { path: paths.lots.path, loader: lotsLoader(queryClient), lazy: page(() => import('./routes/banks/lots'), 'LotsPage') },
+                    { path: paths.newLot.path, loader: speciesAndPlantsLoader(queryClient), lazy: page(() => import('./routes/banks/new-lot'), 'NewLotPage') },
+                    { path: paths.importLots.path, lazy: page(() => import('./routes/banks/import-lots'), 'ImportLotsPage') },
+                    { path: paths.lot.path, loader: lotLoader(queryClient), lazy: page(() => import('./routes/banks/lot'), 'LotPage') },
+                    { path: paths.plants.path, loader: speciesAndPlantsLoader(queryClient), lazy: page(() => import('./routes/banks/plants'), 'PlantsPage') },
                     {
                       path: paths.labels.path,
-                      lazy: async () => ({ Component: (await import('./routes/banks/labels')).LabelsPage }),
+                      lazy: page(() => import('./routes/banks/labels'), 'LabelsPage'),
                     },
                     {
                       path: paths.newTest.path,
                       loader: newTestLoader(queryClient),
-                      lazy: async () => ({
-                        Component: (await import('./routes/banks/new-germination-test')).NewGerminationTestPage,
-                      }),
+                      lazy: page(() => import('./routes/banks/new-germination-test'), 'NewGerminationTestPage'),
                     },
                     {
                       path: paths.test.path,
                       loader: testLoader(queryClient),
-                      // The chart library loads with the test page, not with the app.
-                      lazy: async () => ({ Component: (await import('./routes/banks/germination-test')).GerminationTestPage }),
+                      lazy: page(() => import('./routes/banks/germination-test'), 'GerminationTestPage'),
                     },
-                    { path: paths.planner.path, loader: plannerLoader(queryClient), element: <PlannerPage /> },
-                    { path: paths.reminders.path, loader: remindersLoader(queryClient), element: <RemindersPage /> },
-                    { path: paths.members.path, loader: membersLoader(queryClient), element: <MembersPage /> },
-                    { path: paths.settings.path, element: <SettingsPage /> },
+                    { path: paths.planner.path, loader: plannerLoader(queryClient), lazy: page(() => import('./routes/banks/planner'), 'PlannerPage') },
+                    { path: paths.reminders.path, loader: remindersLoader(queryClient), lazy: page(() => import('./routes/banks/reminders'), 'RemindersPage') },
+                    { path: paths.members.path, loader: membersLoader(queryClient), lazy: page(() => import('./routes/banks/members'), 'MembersPage') },
+                    { path: paths.settings.path, lazy: page(() => import('./routes/banks/settings'), 'SettingsPage') },
                   ],
                 },
               ],

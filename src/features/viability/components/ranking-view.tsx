@@ -68,8 +68,23 @@ const sortValue = (sorting: SortingState) =>
  */
 export function RankingView({ bankId, lastFrost, today, selectionActions }: RankingViewProps) {
   const [search, setSearch] = useSearchParams();
-  const view = useMemo(() => viewFromSearch(search), [search]);
-  const setView = useCallback((next: View) => setSearch(searchFromView(next), { replace: true }), [setSearch]);
+  // The view lives here first and in the address second: a router navigation settles a moment
+  // after a tick or a choice, and a box that jumped back meanwhile would lose the press. When the
+  // address changes by other means (back, a shared link), the view follows it.
+  const searchKey = search.toString();
+  const [view, setViewState] = useState<View>(() => viewFromSearch(search));
+  const [seenKey, setSeenKey] = useState(searchKey);
+  if (searchKey !== seenKey) {
+    setSeenKey(searchKey);
+    if (searchFromView(view).toString() !== searchKey) setViewState(viewFromSearch(search));
+  }
+  const setView = useCallback(
+    (next: View) => {
+      setViewState(next);
+      setSearch(searchFromView(next), { replace: true });
+    },
+    [setSearch],
+  );
   const defaultOn = defaultSowingDate(lastFrost, today);
   const on = view.on ?? defaultOn;
   const ranking = useRanking(bankId, on);
