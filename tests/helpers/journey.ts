@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import type { Page } from 'playwright-core';
+import sharp from 'sharp';
 
 const root = path.resolve(import.meta.dirname, '..', '..');
 
@@ -34,7 +35,13 @@ export function journey(name: string, page: Page) {
       if (process.env.HILUM_SCREENSHOTS !== '1') return;
       const out = path.join(root, 'docs', 'screenshots');
       fs.mkdirSync(out, { recursive: true });
-      await page.screenshot({ path: path.join(out, fileName), type: 'png' });
+      // Thumbnails load after the rows: wait for every image in view to be drawn.
+      await page.waitForLoadState('networkidle');
+      await page.waitForFunction(() => [...document.images].every((img) => img.complete));
+      // A palette PNG: a third of the size, and a screen of flat colours loses nothing visible.
+      await sharp(await page.screenshot({ type: 'png' }))
+        .png({ palette: true, effort: 10 })
+        .toFile(path.join(out, fileName));
     },
   };
 }

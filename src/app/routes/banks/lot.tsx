@@ -3,6 +3,7 @@ import { buttonStyles } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { paths } from '../../../config/paths';
 import { LotTests } from '../../../features/germination/components/lot-tests';
+import { PrintLabelLink } from '../../../features/labels/components/print-label-link';
 import { useLot } from '../../../features/lots/api/get-lot';
 import { DeleteLotCard } from '../../../features/lots/components/delete-lot-card';
 import { LotDetails } from '../../../features/lots/components/lot-details';
@@ -51,11 +52,14 @@ export function LotPage() {
           </Link>
         }
         actions={
-          canEdit ? (
-            <Link to={paths.newLot.getHref(bank.id)} className={buttonStyles({ variant: 'secondary' })}>
-              New lot
-            </Link>
-          ) : undefined
+          <>
+            <PrintLabelLink bankId={bank.id} lotIds={[lot.id]} />
+            {canEdit ? (
+              <Link to={paths.newLot.getHref(bank.id)} className={buttonStyles({ variant: 'secondary' })}>
+                New lot
+              </Link>
+            ) : null}
+          </>
         }
       />
       <LotPageCautions lot={lot} species={species} />

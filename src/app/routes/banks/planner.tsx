@@ -9,6 +9,7 @@ import { Loading } from '../../../components/ui/spinner';
 import { PageHeader } from '../../../components/ui/page-header';
 import { SelectField } from '../../../components/ui/select-field';
 import { paths } from '../../../config/paths';
+import { PrintLabelLink } from '../../../features/labels/components/print-label-link';
 import { planApiPaths } from '../../../features/planner/api/keys';
 import { usePlan } from '../../../features/planner/api/get-plan';
 import { useRanking } from '../../../features/planner/api/get-ranking';
@@ -42,6 +43,8 @@ export function PlannerPage() {
   const entries = useMemo(() => plan.data ?? [], [plan.data]);
   const events = useMemo(() => seasonEvents(season, entries, ranking.data ?? []), [season, entries, ranking.data]);
   const frost = seasonFrost(season, bank.lastFrost);
+  // Labels for the packets this season's sowings draw on, each lot once.
+  const plannedLots = useMemo(() => [...new Set(entries.flatMap((e) => (e.lotId ? [e.lotId] : [])))], [entries]);
 
   /** Changes some of the address's choices; a new view or season is a step "back" can undo. */
   const setParams = (changes: Record<string, string | null>) =>
@@ -89,6 +92,7 @@ export function PlannerPage() {
             <a href={planApiPaths.ics(bank.id, season)} download={`hilum-plan-${season}.ics`} className={buttonStyles({ variant: 'secondary' })}>
               Add to my calendar
             </a>
+            {plannedLots.length ? <PrintLabelLink bankId={bank.id} lotIds={plannedLots} /> : null}
           </>
         }
       />

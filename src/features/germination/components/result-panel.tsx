@@ -23,7 +23,7 @@ export function AgreementBadge({ agreement }: { agreement: TestDetail['result'][
   const detail =
     ok === null || observedRange === null || maxRange === null
       ? undefined
-      : `${formatDays(observedRange)} points apart; up to ${Math.round(maxRange)} is within tolerance`;
+      : `${formatDays(observedRange)} points apart; up to ${formatDays(maxRange)} is within tolerance`;
   return (
     <span
       data-agreement={ok === null ? 'unknown' : ok ? 'ok' : 'not-ok'}
