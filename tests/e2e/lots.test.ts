@@ -168,4 +168,32 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
       .toContain('MAR-VIEW-1');
     await context.close();
   });
+
+  it('when a grower checks a CSV file with treated seed in it, then the preview marks that lot and shows the caution before importing', async () => {
+    const context = await browser.newContext({ viewport: DESKTOP });
+    const page = await context.newPage();
+    await signIn(page, grower.email);
+    await page.goto(`${server.baseUrl}/banks/${bankId}/lots/import`);
+    const csv = [
+      'code,species,variety,origin,harvest_date,seeds_on_hand,treated',
+      'IMP-PLAIN-1,Tomato,Porch Plain,saved,2025-09-01,30,no',
+      'IMP-COAT-1,Tomato,Coated Crimson,bought,2025-09-01,40,yes',
+    ].join('\r\n');
+    await page.getByLabel('CSV file').setInputFiles({ name: 'lots.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+
+    const preview = page.getByRole('table', { name: 'Lots the file would add' });
+    await expect.poll(() => preview.getByRole('row').count()).toBe(3);
+    expect(await preview.getByRole('row').filter({ hasText: 'IMP-COAT-1' }).innerText()).toContain('Treated seed');
+    expect(await preview.getByRole('row').filter({ hasText: 'IMP-PLAIN-1' }).innerText()).not.toContain('Treated seed');
+    expect(await page.getByText('Treated seed: handle with care').count()).toBe(1);
+
+    await page.getByRole('button', { name: 'Import 2 lots' }).click();
+    await expect.poll(() => page.getByRole('status').filter({ hasText: '2 lots were added' }).count()).toBe(1);
+    const treated = await server.db.selectFrom('lots').select(['code', 'treated']).where('code', 'like', 'IMP-%').orderBy('code').execute();
+    expect(treated).toEqual([
+      { code: 'IMP-COAT-1', treated: true },
+      { code: 'IMP-PLAIN-1', treated: false },
+    ]);
+    await context.close();
+  });
 });

@@ -53,6 +53,7 @@ function lot(overrides: Partial<LotCsvRow> = {}): LotCsvRow {
     storageTempC: 4.5,
     storageHumidityPct: 35,
     status: 'active',
+    treated: false,
     notes: null,
     ...overrides,
   };
@@ -99,8 +100,18 @@ describe('lots CSV: export', () => {
     // Expected cells written out by hand from the fixture; the location holds a comma, so it is
     // quoted (RFC 4180 §2 rule 6).
     expect(records[1]).toBe(
-      'TOM-2025-01,Tomato,Solanum lycopersicum,Lantern Red,saved,,2025-09-14,2026,340,no,6,fridge,"Blue tin, shelf 2",4.5,35,active,',
+      'TOM-2025-01,Tomato,Solanum lycopersicum,Lantern Red,saved,,2025-09-14,2026,340,no,6,fridge,"Blue tin, shelf 2",4.5,35,active,no,',
     );
+  });
+
+  it('when a lot is treated seed, then its treated cell says yes, and no for the others', () => {
+    // No cell holds a comma, so splitting on commas finds the cells.
+    const csv = lotsToCsv([lot({ treated: true, storageLocation: 'Shelf 2' }), lot({ code: 'TOM-2025-02', storageLocation: null })]);
+    const [header, first, second] = csv.slice(1).split('\r\n');
+    const column = header!.split(',').indexOf('treated');
+    expect(column).toBeGreaterThan(-1);
+    expect(first!.split(',')[column]).toBe('yes');
+    expect(second!.split(',')[column]).toBe('no');
   });
 
   it('when a note holds a comma, quotes and a line break, then it is quoted with its quotes doubled', () => {
@@ -169,6 +180,7 @@ describe('lots CSV: round trip', () => {
         storageTempC: -18,
         storageHumidityPct: 0,
         status: 'retired',
+        treated: true,
         notes: '-5 °C some nights\r\n@ the back, "tin 3"',
       }),
     ];
@@ -211,6 +223,7 @@ describe('lots CSV: import, header', () => {
       storage_temp_c: '4.5',
       storage_humidity_pct: '35',
       status: 'active',
+      treated: 'no',
       notes: '"kept, ""as is"""',
     };
     const text = `${header}\r\n${order.map((c) => values[c]).join(',')}\r\n`;
@@ -230,6 +243,7 @@ describe('lots CSV: import, header', () => {
       seedsOnHand: 800,
       quantityEstimated: false,
       status: 'active',
+      treated: false,
       notes: null,
       line: 2,
     });
@@ -458,6 +472,42 @@ describe('lots CSV: import, rows', () => {
     ]);
   });
 
+  it('when the treated cell is spelled yes/no, true/false, 1/0 or left empty, then it is read; anything else fails its row', () => {
+    const spellings: [string, boolean][] = [
+      ['yes', true],
+      ['Yes', true],
+      ['TRUE', true],
+      ['1', true],
+      ['no', false],
+      ['False', false],
+      ['0', false],
+      ['', false],
+      [' yes ', true], // cells are trimmed (see the module notes)
+    ];
+    const good = [HEADER, ...spellings.map(([cell]) => line({ ...GOOD, treated: cell }))].join('\r\n');
+    expect(rowsOf(parseLotsCsv(good, resolve)).map((r) => r.treated)).toEqual(spellings.map(([, value]) => value));
+
+    const bad = [
+      HEADER,
+      line({ ...GOOD, treated: 'yes' }),
+      line({ ...GOOD, treated: 'coated' }),
+      line({ ...GOOD, treated: 'n' }),
+    ].join('\r\n');
+    const errors = errorsOf(parseLotsCsv(bad, resolve));
+    expect(errors.map((e) => [e.line, e.column])).toEqual([
+      [3, 'treated'],
+      [4, 'treated'],
+    ]);
+    expect(errors[0]?.message).toBe('Use yes (the seed is coated with fungicide or another treatment) or no; empty means no.');
+  });
+
+  it('when a file from before the treated column is imported, then it parses and no lot is treated', () => {
+    const older = LOT_CSV_COLUMNS.filter((c) => c !== 'treated');
+    const cells: Record<string, string> = { ...GOOD, code: 'TOM-OLD' };
+    const text = [older.join(','), older.map((c) => cells[c] ?? '').join(',')].join('\r\n');
+    expect(rowsOf(parseLotsCsv(text, resolve)).map((r) => [r.code, r.treated])).toEqual([['TOM-OLD', false]]);
+  });
+
   it('when a hand-typed cell carries the formula apostrophe, then import removes exactly that apostrophe', () => {
     const text = [HEADER, line({ ...GOOD, variety: "'=SUM(A1)", source_name: "'Tis ours" })].join('\r\n');
     const [row] = rowsOf(parseLotsCsv(text, resolve));
@@ -478,7 +528,7 @@ describe('lots CSV: import, rows', () => {
     expect(errors).toHaveLength(1);
     // RFC 4180 §2 rule 4: each line has the same number of fields.
     expect(errors[0]).toMatchObject({ line: 3 });
-    expect(errors[0]?.message).toMatch(/has 4 cells but the header has 17/);
+    expect(errors[0]?.message).toMatch(/has 4 cells but the header has 18/);
   });
 
   it('when a line has extra cells with values, then it is refused; empty extra cells are ignored', () => {

@@ -24,7 +24,8 @@
  *   it (ignoring it would silently drop whatever the user typed there); a column whose header cell
  *   is blank is allowed only while all its cells are blank (spreadsheets sometimes add one).
  *   Required columns: species, variety, origin, seeds_on_hand, and harvest_date or
- *   packed_for_season. Any other column may be left out; its cells then read as empty.
+ *   packed_for_season. Any other column may be left out; its cells then read as empty (so a file
+ *   from before a column existed, such as `treated`, still imports: its lots are not treated).
  * - `line` is the 1-based line of the file on which a record starts, header = line 1, counting
  *   every line break including those inside quoted cells (what a text editor shows). A
  *   spreadsheet's row number is the same unless an earlier cell holds a line break.
@@ -32,8 +33,9 @@
  *   "tom-1" and "TOM-1" in one file is a duplicate, reported on the later line.
  * - A file with only the header row parses to zero rows (ok), so an export of an empty bank
  *   re-imports cleanly; the route reports "0 lots imported".
- * - Cell values: yes/no also as true/false/1/0 (empty = no); origin, storage_place and status in
- *   any letter case; numbers with a point as decimal separator.
+ * - Cell values: yes/no (quantity_estimated, treated) also as true/false/1/0, in any letter case
+ *   (empty = no); origin, storage_place and status in any letter case; numbers with a point as
+ *   decimal separator.
  */
 import Papa from 'papaparse';
 import type { ParseError } from 'papaparse';
@@ -62,6 +64,7 @@ export const LOT_CSV_COLUMNS = [
   'storage_temp_c',
   'storage_humidity_pct',
   'status',
+  'treated',
   'notes',
 ] as const;
 export type LotCsvColumn = (typeof LOT_CSV_COLUMNS)[number];
@@ -89,6 +92,8 @@ export interface LotCsvRow {
   storageTempC: number | null;
   storageHumidityPct: number | null;
   status: 'active' | 'depleted' | 'retired';
+  /** Seed coated with fungicide or another treatment. */
+  treated: boolean;
   notes: string | null;
 }
 
@@ -131,6 +136,10 @@ function numberCell(value: number | null): string {
   return value === null ? '' : String(value);
 }
 
+function yesNoCell(value: boolean): string {
+  return value ? 'yes' : 'no';
+}
+
 function toCells(row: LotCsvRow): Record<LotCsvColumn, string> {
   return {
     code: textCell(row.code),
@@ -142,13 +151,14 @@ function toCells(row: LotCsvRow): Record<LotCsvColumn, string> {
     harvest_date: row.harvestDate ?? '',
     packed_for_season: numberCell(row.packedForSeason),
     seeds_on_hand: numberCell(row.seedsOnHand),
-    quantity_estimated: row.quantityEstimated ? 'yes' : 'no',
+    quantity_estimated: yesNoCell(row.quantityEstimated),
     plants_bulked: numberCell(row.plantsBulked),
     storage_place: row.storagePlace ?? '',
     storage_location: textCell(row.storageLocation),
     storage_temp_c: numberCell(row.storageTempC),
     storage_humidity_pct: numberCell(row.storageHumidityPct),
     status: row.status,
+    treated: yesNoCell(row.treated),
     notes: textCell(row.notes),
   };
 }
@@ -209,6 +219,11 @@ function choice<T extends z.ZodType<unknown, string>>(values: T) {
 
 const YES = new Set(['yes', 'true', '1']);
 
+/** yes/no, also as true/false/1/0 in any letter case; an empty cell (or a missing column) is no. */
+function yesNo(message: string) {
+  return choice(z.enum(['yes', 'no', 'true', 'false', '1', '0', ''], { message })).transform((v) => YES.has(v));
+}
+
 const rowSchema = z
   .object({
     code: z.preprocess(blankToNull, lotCodeSchema.nullable()),
@@ -230,9 +245,7 @@ const rowSchema = z
       wholeNumber(1900, 2100, 'Use a year from 1900 to 2100, like 2026.').nullable(),
     ),
     seeds_on_hand: wholeNumber(0, 10_000_000, 'Use a whole number of seeds from 0 to 10,000,000, like 250.'),
-    quantity_estimated: choice(
-      z.enum(['yes', 'no', 'true', 'false', '1', '0', ''], { message: 'Use yes or no.' }),
-    ).transform((v) => YES.has(v)),
+    quantity_estimated: yesNo('Use yes or no.'),
     plants_bulked: z.preprocess(
       blankToNull,
       wholeNumber(
@@ -268,6 +281,9 @@ const rowSchema = z
         z.enum(lotStatusSchema.enum, { message: 'Use active, depleted or retired (empty means active).' }),
       ),
     ),
+    treated: yesNo(
+      'Use yes (the seed is coated with fungicide or another treatment) or no; empty means no.',
+    ),
     notes: optionalText(4000, 'The notes'),
   })
   .superRefine((cells, ctx) => {
@@ -296,6 +312,7 @@ const rowSchema = z
     storageTempC: c.storage_temp_c,
     storageHumidityPct: c.storage_humidity_pct,
     status: c.status,
+    treated: c.treated,
     notes: c.notes,
   }));
 

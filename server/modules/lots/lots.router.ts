@@ -65,7 +65,7 @@ export function lotRoutes(lots: LotsService, species_: (bankId: string) => Promi
       throw new AppError(400, 'invalid_csv', `The file has ${parsed.errors.length} problem${parsed.errors.length === 1 ? '' : 's'}; nothing was imported.`, undefined, parsed.errors.slice(0, 200));
     }
     if (dryRun) {
-      return void res.json({ preview: parsed.rows.map((r) => ({ line: r.line, code: r.code, species: r.speciesName, variety: r.variety, seedsOnHand: r.seedsOnHand, harvestDate: r.harvestDate, packedForSeason: r.packedForSeason })) });
+      return void res.json({ preview: parsed.rows.map((r) => ({ line: r.line, code: r.code, species: r.speciesName, variety: r.variety, seedsOnHand: r.seedsOnHand, harvestDate: r.harvestDate, packedForSeason: r.packedForSeason, treated: r.treated })) });
     }
     res.json({ imported: await lots.importRows(req.bank!.id, req.auth!.userId, parsed.rows) });
   });

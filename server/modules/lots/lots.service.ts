@@ -179,6 +179,7 @@ export function createLotsService(deps: LotsServiceDeps) {
         packedForSeason: l.packedForSeason,
         seedsOnHand: l.seedsOnHand,
         quantityEstimated: l.quantityEstimated,
+        treated: l.treated,
         plantsBulked: l.plantsBulked,
         storagePlace: l.storage.place,
         storageLocation: l.storage.location,
@@ -214,6 +215,7 @@ export function createLotsService(deps: LotsServiceDeps) {
             plantsBulked: row.plantsBulked,
             storage: { place: row.storagePlace, location: row.storageLocation, temperatureC: row.storageTempC, humidityPct: row.storageHumidityPct },
             notes: row.notes,
+            treated: row.treated,
             ...(row.code ? { code: row.code } : {}),
             seedCount: row.seedsOnHand,
           }, { status: row.status, quantityEstimated: row.quantityEstimated, reason: 'Imported from a CSV file' });

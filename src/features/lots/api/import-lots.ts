@@ -14,6 +14,7 @@ export const importPreviewSchema = z.object({
       seedsOnHand: z.number(),
       harvestDate: z.string().nullable(),
       packedForSeason: z.number().nullable(),
+      treated: z.boolean(),
     }),
   ),
 });

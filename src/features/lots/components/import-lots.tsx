@@ -7,6 +7,7 @@ import { paths } from '../../../config/paths';
 import { formatDay } from '../../../lib/dates';
 import { csvProblems, useImportLots, usePreviewLotsImport, type CsvRowProblem, type ImportPreview } from '../api/import-lots';
 import { lotApiPaths } from '../api/keys';
+import { TreatedCaution } from './lot-form-parts';
 import { formatCount } from './lot-format';
 
 function ProblemsTable({ rows }: { rows: CsvRowProblem[] }) {
@@ -55,6 +56,7 @@ function PreviewTable({ rows }: { rows: ImportPreview }) {
               <td className="py-2 pr-3 align-top">
                 <span className="font-semibold">{row.species}</span> · {row.variety}
                 <span className="block text-sm text-loam-600">{row.code ?? 'code made on import'}</span>
+                {row.treated ? <span className="block text-sm font-semibold text-seedcoat-700">Treated seed</span> : null}
                 <span className="block text-sm text-loam-600 sm:hidden">
                   {row.harvestDate ? formatDay(row.harvestDate) : row.packedForSeason ? `Packed for ${row.packedForSeason}` : ''}
                 </span>
@@ -151,6 +153,7 @@ export function ImportLots({ bankId }: { bankId: string }) {
           description={`${preview.data.length === 1 ? '1 lot' : `${formatCount(preview.data.length)} lots`} in ${file?.name ?? 'the file'}. Nothing is saved yet.`}
         >
           <div className="grid gap-4">
+            {preview.data.some((row) => row.treated) ? <TreatedCaution /> : null}
             {preview.data.length ? <PreviewTable rows={preview.data} /> : <p>The file has no lots in it.</p>}
             <div className="flex flex-wrap gap-2">
               <Button
