@@ -112,6 +112,50 @@ describe('germination tests through the API', () => {
     expect(body.counts.map((c: { cumulative: number }) => c.cumulative)).toEqual([50, 70]);
   });
 
+  it('when several trays break a rule in one post, then the 422 names every one of them and saves none', async () => {
+    const lotId = await lotWith(400);
+    const { test, trays } = await fourTrayTest(lotId);
+    const url = `${base()}/tests/${test.id}/counts`;
+    const post = (date: string, values: number[]) =>
+      bank.grower.agent.post(url).send({ date, trays: trays.map((t, i) => ({ trayId: t.id, cumulative: values[i] })) });
+    expect((await post('2026-03-06', [30, 40, 35, 20])).status).toBe(201);
+    expect((await post('2026-03-12', [60, 70, 65, 50])).status).toBe(201);
+
+    // Tray 1 fits; tray 2 is above its 100 sown; tray 3 falls below its 03-06 count; tray 4 rises above its 03-12 count.
+    const bad = await post('2026-03-09', [45, 101, 30, 55]);
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.code).toBe('impossible');
+    expect(bad.body.error.message).toMatch(/^Nothing was saved: 3 trays need correcting\./);
+    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['trays.1.cumulative', 'trays.2.cumulative', 'trays.3.cumulative']);
+    expect(bad.body.error.fields['trays.1.cumulative']).toMatch(/^Tray 2: 101 sprouted is more than the 100 seeds sown/);
+    expect(bad.body.error.fields['trays.2.cumulative']).toMatch(/^Tray 3: 30 is fewer than the 35 counted on 2026-03-06/);
+    expect(bad.body.error.fields['trays.3.cumulative']).toMatch(/^Tray 4: 55 is more than the 50 counted later, on 2026-03-12/);
+    for (const reason of Object.values(bad.body.error.fields)) expect(bad.body.error.message).toContain(reason);
+
+    const one = await post('2026-03-09', [45, 50, 40, 55]);
+    expect(one.status).toBe(422);
+    expect(one.body.error.message).toMatch(/^Nothing was saved: 1 tray needs correcting\. Tray 4:/);
+    expect(Object.keys(one.body.error.fields)).toEqual(['trays.3.cumulative']);
+
+    // Nothing of either post was saved, not even tray 1's fitting count.
+    const { body } = await bank.viewer.agent.get(`${base()}/tests/${test.id}`);
+    expect(body.counts.filter((c: { date: string }) => c.date === '2026-03-09')).toEqual([]);
+    expect((await post('2026-03-09', [45, 50, 40, 45])).status).toBe(201);
+  });
+
+  it('when a tray is counted above 0 on the day the test started, then it is 422 and the test still opens', async () => {
+    const lotId = await lotWith(400);
+    const { test, trays } = await fourTrayTest(lotId);
+    const url = `${base()}/tests/${test.id}/counts`;
+    // Nothing sprouts on the day of sowing (day 0; common practice counts from the next day).
+    const dayZero = await bank.grower.agent.post(url).send({ date: '2026-03-01', trays: [{ trayId: trays[0]!.id, cumulative: 2 }] });
+    expect(dayZero.status).toBe(422);
+    expect(dayZero.body.error.fields['trays.0.cumulative']).toMatch(/^Tray 1: 2 sprouted on the day the test started/);
+    const zero = await bank.grower.agent.post(url).send({ date: '2026-03-01', trays: [{ trayId: trays[0]!.id, cumulative: 0 }] });
+    expect(zero.status).toBe(201);
+    expect((await bank.viewer.agent.get(`${base()}/tests/${test.id}`)).status).toBe(200);
+  });
+
   it('when a count is corrected or deleted, then the result follows', async () => {
     const lotId = await lotWith(400);
     const { test, trays } = await fourTrayTest(lotId);

@@ -119,15 +119,20 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
     await expect.poll(() => curvePaths(page)).toBe(5);
     const firstCurve = await page.locator('[data-chart="germination-curve"] path.recharts-line-curve').last().getAttribute('d');
 
-    // Second check day, four days later. A count below an earlier one is refused next to its tray.
+    // Second check day, four days later. Counts below earlier ones are refused, each next to its own tray.
     await server.clock.set('2026-03-14T09:00:00Z');
-    await enterCounts(page, '2026-03-14', 'Sat 14 Mar', [20, 10, 19, 21]);
+    await enterCounts(page, '2026-03-14', 'Sat 14 Mar', [20, 10, 8, 21]);
     await page.getByRole('button', { name: /^Save counts for/ }).tap();
     const tray2 = page.locator('li[data-tray="2"]');
-    await expect.poll(() => tray2.getByRole('alert').innerText()).toMatch(/Tray 2: 10 is fewer than the 12 counted on 2026-03-10/);
-    expect(await page.locator('li[data-tray="1"]').getByRole('alert').count()).toBe(0);
+    const tray3 = page.locator('li[data-tray="3"]');
+    await expect.poll(() => tray2.getByRole('alert').innerText()).toMatch(/^Tray 2: 10 is fewer than the 12 counted on 2026-03-10/);
+    expect(await tray3.getByRole('alert').innerText()).toMatch(/^Tray 3: 8 is fewer than the 9 counted on 2026-03-10/);
+    expect(await tray2.getByRole('alert').innerText()).not.toContain('Tray 3');
+    for (const n of [1, 4]) expect(await page.locator(`li[data-tray="${n}"]`).getByRole('alert').count()).toBe(0);
+    expect(await page.getByRole('alert').filter({ hasText: 'Not saved: check the 2 trays marked below.' }).count()).toBe(1);
 
     // The typed numbers survive a reload before they are saved.
+    await trayField(page, 3).fill('19');
     await trayField(page, 2).fill('22');
     await page.reload();
     await trayField(page, 2).waitFor();

@@ -8,6 +8,7 @@ import { AppError, conflict, notFound, unprocessable } from '../../http/errors';
 import { summarizeTest, type IntervalMethod } from '../../stats';
 import { findSpecies } from '../species/species.service';
 import { lockLot, stockOf } from '../lots/lots.repository';
+import { countProblems } from './count-rules';
 import { resultWords } from './result-words';
 
 const DAY_MS = 86_400_000;
@@ -210,43 +211,27 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         }
         if (body.date > today()) throw unprocessable('A count cannot be dated in the future.', { date: 'Use today or an earlier date.' });
         const trays = await trx.selectFrom('test_trays').selectAll().where('test_id', '=', testId).execute();
-        const byId = new Map(trays.map((tr) => [tr.id, tr]));
-        const seen = new Set<string>();
-        for (const [index, entry] of body.trays.entries()) {
-          const tray = byId.get(entry.trayId);
-          const field = `trays.${index}.cumulative`;
-          if (!tray) throw unprocessable('That tray is not part of this test.', { [`trays.${index}.trayId`]: 'Not a tray of this test.' });
-          if (seen.has(tray.id)) throw unprocessable(`Tray ${tray.position} is listed twice.`, { [field]: 'Listed twice.' });
-          seen.add(tray.id);
-          if (entry.cumulative > tray.seeds_sown) {
-            throw unprocessable(`Tray ${tray.position}: ${entry.cumulative} sprouted is more than the ${tray.seeds_sown} seeds sown.`, {
-              [field]: `At most ${tray.seeds_sown}.`,
-            });
-          }
-          const others = await trx
-            .selectFrom('tray_counts')
-            .select(['check_date', 'cumulative'])
-            .where('tray_id', '=', tray.id)
-            .where('check_date', '<>', body.date)
-            .orderBy('check_date')
-            .execute();
-          const before = others.filter((c) => c.check_date < body.date).at(-1);
-          const after = others.find((c) => c.check_date > body.date);
-          if (before && entry.cumulative < before.cumulative) {
-            throw unprocessable(
-              `Tray ${tray.position}: ${entry.cumulative} is fewer than the ${before.cumulative} counted on ${before.check_date}. Counts are cumulative: give the total sprouted so far.`,
-              { [field]: `At least ${before.cumulative}.` },
-            );
-          }
-          if (after && entry.cumulative > after.cumulative) {
-            throw unprocessable(
-              `Tray ${tray.position}: ${entry.cumulative} is more than the ${after.cumulative} counted later, on ${after.check_date}. Correct that later count first.`,
-              { [field]: `At most ${after.cumulative}.` },
-            );
-          }
+        const saved = trays.length
+          ? await trx
+              .selectFrom('tray_counts')
+              .select(['tray_id', 'check_date', 'cumulative'])
+              .where('tray_id', 'in', trays.map((tr) => tr.id))
+              .where('check_date', '<>', body.date)
+              .orderBy('check_date')
+              .execute()
+          : [];
+        const problems = countProblems(body, t.start_date, trays, saved);
+        if (problems.length > 0) {
+          const n = problems.length;
+          throw unprocessable(
+            `Nothing was saved: ${n} ${n === 1 ? 'tray needs' : 'trays need'} correcting. ${problems.map((p) => p.message).join(' ')}`,
+            Object.fromEntries(problems.map((p) => [p.field, p.message])),
+          );
+        }
+        for (const entry of body.trays) {
           await trx
             .insertInto('tray_counts')
-            .values({ tray_id: tray.id, check_date: body.date, cumulative: entry.cumulative, created_by: userId })
+            .values({ tray_id: entry.trayId, check_date: body.date, cumulative: entry.cumulative, created_by: userId })
             .onConflict((oc) => oc.columns(['tray_id', 'check_date']).doUpdateSet({ cumulative: entry.cumulative, created_by: userId }))
             .execute();
         }

@@ -6,7 +6,7 @@ import { apiPaths } from './keys';
 
 /**
  * POST /api/banks/:bankId/tests/:testId/counts (grower): the cumulative sprouted seeds of each tray
- * on one check date; posting a date again corrects it. 422 names the tray that does not fit.
+ * on one check date; posting a date again corrects it. 422 names every tray that does not fit.
  */
 export function recordCounts(
   bankId: string,

@@ -169,7 +169,12 @@ function CountRows({ bankId, detail, date, onDateError, justSaved, onSaved, onEd
         const placed = placeServerError(error.message, error.fields ?? {}, entries);
         setTrayErrors(placed.trays);
         if (placed.date) onDateError(placed.date);
-        setState({ kind: 'refused', message: error.message });
+        const marked = Object.keys(placed.trays).length;
+        // Each tray's own reason is beside it; repeating them all here would bury them.
+        setState({
+          kind: 'refused',
+          message: marked > 0 && !placed.date ? `Not saved: check the ${marked === 1 ? 'tray' : `${marked} trays`} marked below.` : error.message,
+        });
         return;
       }
       if (isApiError(error) && error.status >= 400 && error.status < 500 && error.status !== 408 && error.status !== 429) {
@@ -249,8 +254,8 @@ function CountRows({ bankId, detail, date, onDateError, justSaved, onSaved, onEd
 }
 
 /**
- * Puts a 422 next to the tray it is about: fields like `trays.1.cumulative` point into the array
- * that was sent; the server's message names the tray in words.
+ * Puts a 422 next to the trays it is about: fields like `trays.1.cumulative` point into the array
+ * that was sent, one per tray that does not fit, each a sentence that names its tray.
  */
 function placeServerError(
   message: string,
@@ -262,7 +267,7 @@ function placeServerError(
   for (const [key, detail] of Object.entries(fields)) {
     const match = /^trays\.(\d+)\./.exec(key);
     const trayId = match ? sent[Number(match[1])]?.trayId : undefined;
-    if (trayId) trays[trayId] = `${message} ${detail}`.trim();
+    if (trayId) trays[trayId] = detail;
     else if (key === 'date') date = `${message} ${detail}`.trim();
   }
   return { trays, date };

@@ -1,0 +1,69 @@
+import type { CountsBody } from '../../../shared/schemas/germination';
+
+export interface CountProblem {
+  /** The body path it is about, as in the error's `fields`: `trays.<index>.cumulative` or `.trayId`. */
+  field: string;
+  /** One sentence that names the tray, what is wrong and what would fit. */
+  message: string;
+}
+
+interface Tray {
+  id: string;
+  position: number;
+  seeds_sown: number;
+}
+
+interface SavedCount {
+  tray_id: string;
+  check_date: string;
+  cumulative: number;
+}
+
+/** The rule one tray's cumulative count breaks against its seeds and its other check dates, if any. */
+function trayProblem(tray: Tray, cumulative: number, date: string, startDate: string, saved: SavedCount[]): string | null {
+  const label = `Tray ${tray.position}`;
+  if (cumulative > tray.seeds_sown) {
+    return `${label}: ${cumulative} sprouted is more than the ${tray.seeds_sown} seeds sown. At most ${tray.seeds_sown}.`;
+  }
+  // Day 0: nothing has had time to sprout, and the timing statistics cannot place it.
+  if (date === startDate && cumulative > 0) {
+    return `${label}: ${cumulative} sprouted on the day the test started (${startDate}). Count on a later day, or give 0.`;
+  }
+  const mine = saved.filter((c) => c.tray_id === tray.id);
+  const before = mine.filter((c) => c.check_date < date).at(-1);
+  const after = mine.find((c) => c.check_date > date);
+  if (before && cumulative < before.cumulative) {
+    return `${label}: ${cumulative} is fewer than the ${before.cumulative} counted on ${before.check_date}. Counts are cumulative: give the total sprouted so far, at least ${before.cumulative}.`;
+  }
+  if (after && cumulative > after.cumulative) {
+    return `${label}: ${cumulative} is more than the ${after.cumulative} counted later, on ${after.check_date}. Correct that later count first, or give at most ${after.cumulative}.`;
+  }
+  return null;
+}
+
+/**
+ * Every tray of a counts body that cannot be saved, in the order sent: not a tray of the test,
+ * listed twice, above its seeds sown, sprouted on the start date, or out of cumulative order with
+ * its counts on other dates (`saved`, sorted by date). Empty when the whole body may be saved.
+ */
+export function countProblems(body: CountsBody, startDate: string, trays: Tray[], saved: SavedCount[]): CountProblem[] {
+  const byId = new Map(trays.map((tr) => [tr.id, tr]));
+  const seen = new Set<string>();
+  const problems: CountProblem[] = [];
+  for (const [index, entry] of body.trays.entries()) {
+    const tray = byId.get(entry.trayId);
+    if (!tray) {
+      problems.push({ field: `trays.${index}.trayId`, message: `Entry ${index + 1} is not a tray of this test.` });
+      continue;
+    }
+    const field = `trays.${index}.cumulative`;
+    if (seen.has(tray.id)) {
+      problems.push({ field, message: `Tray ${tray.position} is listed twice.` });
+      continue;
+    }
+    seen.add(tray.id);
+    const message = trayProblem(tray, entry.cumulative, body.date, startDate, saved);
+    if (message) problems.push({ field, message });
+  }
+  return problems;
+}
