@@ -1,3 +1,6 @@
+import { localNow } from '../shared/local-time';
+import type { DbOrTx } from './db/database';
+
 /** The app's only source of "now", so tests can move time. */
 export interface Clock {
   now(): Date;
@@ -20,9 +23,10 @@ export function createTestClock(start: Date | string): Clock & { set(at: Date | 
 }
 
 /**
- * The latest calendar date that is "today" somewhere (UTC+14). A date after it is in the future
- * for every grower, whatever the bank's time zone; one on or before it may be today for them.
+ * Today's calendar date (YYYY-MM-DD) on the bank's own wall clock, in its `time_zone`: a date after
+ * it is in the future for the bank's members, so a harvest, count or sowing cannot carry it.
  */
-export function latestToday(clock: Clock): string {
-  return new Date(clock.now().getTime() + 14 * 3_600_000).toISOString().slice(0, 10);
+export async function bankToday(db: DbOrTx, clock: Clock, bankId: string): Promise<string> {
+  const bank = await db.selectFrom('banks').select('time_zone').where('id', '=', bankId).executeTakeFirstOrThrow();
+  return localNow(clock.now(), bank.time_zone).date;
 }

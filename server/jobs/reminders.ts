@@ -1,6 +1,7 @@
 import { CompiledQuery, sql } from 'kysely';
 import PgBoss from 'pg-boss';
 import type { Logger } from 'pino';
+import { localNow } from '../../shared/local-time';
 import { addDays, daysBetween } from '../../shared/plan-dates';
 import type { Clock } from '../clock';
 import type { Db, DbOrTx } from '../db/database';
@@ -27,17 +28,6 @@ const PREF_OF: Record<ReminderKind, PrefColumn> = {
 
 /** A member's choice, or the role's default: on for owner and grower, off for viewer. */
 export const wantsReminder = (role: Role, choice: boolean | null) => choice ?? role !== 'viewer';
-
-/** The date and hour on the bank's wall clock. */
-export function localNow(now: Date, timeZone: string): { date: string; hour: number; weekday: number } {
-  const parts = Object.fromEntries(
-    new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', hourCycle: 'h23', weekday: 'short' })
-      .formatToParts(now)
-      .map((p) => [p.type, p.value]),
-  );
-  const weekday = ['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat'].indexOf(parts.weekday ?? 'Sun');
-  return { date: `${parts.year}-${parts.month}-${parts.day}`, hour: Number(parts.hour), weekday };
-}
 
 /** The days a running test is counted on: the first and final count days, and one between (common practice). */
 export function checkDays(first: number | null, final: number | null): number[] {

@@ -1,9 +1,8 @@
+import { localNow } from '../../shared/local-time';
+
 /** Today's calendar date, YYYY-MM-DD, in a time zone (a bank's), or the browser's own. */
 export function todayIn(timeZone?: string): string {
-  // en-CA writes dates as YYYY-MM-DD.
-  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(
-    new Date(),
-  );
+  return localNow(new Date(), timeZone).date;
 }
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];

@@ -103,7 +103,7 @@ describe('germination tests through the API', () => {
     const early = await send('2026-02-27', 1);
     expect(early.status).toBe(422);
     expect(early.body.error.message).toMatch(/before the test started/);
-    const future = await send('2026-03-22', 80); // after today everywhere (UTC+14)
+    const future = await send('2026-03-22', 80); // after today in the bank's time zone (UTC, the default)
     expect(future.status).toBe(422);
     const otherTray = await send('2026-03-11', 80, '00000000-0000-4000-8000-000000000000');
     expect(otherTray.status).toBe(422);

@@ -1,7 +1,7 @@
 import type { Updateable } from 'kysely';
 import type { z } from 'zod';
 import type { CountsBody, CreateTestBody, FinishBody, TestDetail, updateTestBodySchema } from '../../../shared/schemas/germination';
-import { latestToday, type Clock } from '../../clock';
+import { bankToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
 import type { GerminationTestTable } from '../../db/schema';
 import { AppError, conflict, notFound, unprocessable } from '../../http/errors';
@@ -29,7 +29,7 @@ export async function lotHasTests(db: DbOrTx, lotId: string): Promise<boolean> {
 }
 
 export function createGerminationService({ db, clock, removeSubjectPhotos }: GerminationDeps) {
-  const today = () => latestToday(clock);
+  const today = (on: DbOrTx, bankId: string) => bankToday(on, clock, bankId);
 
   async function loadTest(on: DbOrTx, bankId: string, testId: string, lock = false) {
     let q = on
@@ -117,7 +117,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
     detail,
 
     async create(bankId: string, lotId: string, userId: string, body: CreateTestBody) {
-      if (body.startDate > today()) {
+      if (body.startDate > (await today(db, bankId))) {
         throw unprocessable('A test cannot start in the future.', { startDate: 'Use today or an earlier date.' });
       }
       const testId = await db.transaction().execute(async (trx) => {
@@ -209,7 +209,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         if (body.date < t.start_date) {
           throw unprocessable(`A count cannot be dated before the test started (${t.start_date}).`, { date: 'Use a date on or after the start.' });
         }
-        if (body.date > today()) throw unprocessable('A count cannot be dated in the future.', { date: 'Use today or an earlier date.' });
+        if (body.date > (await today(trx, bankId))) throw unprocessable('A count cannot be dated in the future.', { date: 'Use today or an earlier date.' });
         const trays = await trx.selectFrom('test_trays').selectAll().where('test_id', '=', testId).execute();
         const saved = trays.length
           ? await trx
@@ -264,7 +264,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
           .execute();
         const lastDate = counts.at(-1)?.check_date ?? t.start_date;
         if (body.date < lastDate) throw unprocessable(`The test cannot finish before its last count (${lastDate}).`, { date: `On or after ${lastDate}.` });
-        if (body.date > today()) throw unprocessable('A test cannot finish in the future.', { date: 'Use today or an earlier date.' });
+        if (body.date > (await today(trx, bankId))) throw unprocessable('A test cannot finish in the future.', { date: 'Use today or an earlier date.' });
         const given = new Map(body.trays.map((e, i) => [e.trayId, { ...e, index: i }]));
         for (const tray of trays) {
           const entry = given.get(tray.id);

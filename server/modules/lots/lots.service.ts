@@ -1,6 +1,6 @@
 import { sql } from 'kysely';
 import type { CreateLotBody, StockBody, UpdateLotBody } from '../../../shared/schemas/lots';
-import { latestToday, type Clock } from '../../clock';
+import { bankToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
 import type { LotStatus, LotTable } from '../../db/schema';
 import type { LotCsvRow, ParsedLotCsvRow } from './lots.csv';
@@ -9,8 +9,6 @@ import { requireSpecies } from '../species/species.service';
 import { codePrefix, nextCode } from './lot-code';
 import * as repo from './lots.repository';
 import type { Updateable } from 'kysely';
-
-const isoDay = (d: Date) => d.toISOString().slice(0, 10);
 
 function uniqueViolation(error: unknown): boolean {
   return (error as { code?: string }).code === '23505';
@@ -62,15 +60,16 @@ export function createLotsService(deps: LotsServiceDeps) {
     return out;
   }
 
-  /** Writes one lot and its first stock movement inside `trx`. */
+  /** Writes one lot and its first stock movement inside `trx`; `today` is the bank's (bankToday). */
   async function insertLot(
     trx: DbOrTx,
     bankId: string,
     userId: string,
+    today: string,
     body: CreateLotBody,
     extra: { status?: LotStatus; quantityEstimated?: boolean; reason?: string } = {},
   ): Promise<string> {
-    if (body.harvestDate && body.harvestDate > latestToday(clock)) {
+    if (body.harvestDate && body.harvestDate > today) {
       throw unprocessable('A harvest date cannot be in the future.', { harvestDate: 'Use the day the seed was harvested.' });
     }
     const species = await requireSpecies(trx, bankId, body.speciesId);
@@ -121,7 +120,7 @@ export function createLotsService(deps: LotsServiceDeps) {
           lot_id: inserted.id,
           kind: 'initial',
           change: seeds,
-          date: body.harvestDate ?? isoDay(clock.now()),
+          date: body.harvestDate ?? today,
           reason:
             extra.reason ??
             (body.grams !== undefined
@@ -162,7 +161,7 @@ export function createLotsService(deps: LotsServiceDeps) {
     },
 
     async create(bankId: string, userId: string, body: CreateLotBody) {
-      const lotId = await db.transaction().execute((trx) => insertLot(trx, bankId, userId, body));
+      const lotId = await db.transaction().execute(async (trx) => insertLot(trx, bankId, userId, await bankToday(trx, clock, bankId), body));
       return get(bankId, lotId);
     },
 
@@ -194,18 +193,19 @@ export function createLotsService(deps: LotsServiceDeps) {
     async importRows(bankId: string, userId: string, rows: ParsedLotCsvRow[]) {
       return db.transaction().execute(async (trx) => {
         const taken = new Set((await trx.selectFrom('lots').select('code').where('bank_id', '=', bankId).execute()).map((r) => r.code.toLowerCase()));
-        const clashes = rows.filter((r) => r.code && taken.has(r.code.toLowerCase()));
-        if (clashes.length) {
-          throw new AppError(
-            400,
-            'invalid_csv',
-            `${clashes.length} code${clashes.length === 1 ? ' is' : 's are'} already used in this bank; nothing was imported.`,
-            undefined,
-            clashes.map((r) => ({ line: r.line, column: 'code', message: `The code ${r.code} is already used in this bank.` })),
-          );
+        const today = await bankToday(trx, clock, bankId);
+        // What only the bank can tell: codes it already uses, harvest dates after its today.
+        const problems = rows.flatMap((r) => [
+          ...(r.code && taken.has(r.code.toLowerCase()) ? [{ line: r.line, column: 'code', message: `The code ${r.code} is already used in this bank.` }] : []),
+          ...(r.harvestDate !== null && r.harvestDate > today
+            ? [{ line: r.line, column: 'harvest_date', message: `${r.harvestDate} is after today (${today} in the bank's time zone); use the day the seed was harvested.` }]
+            : []),
+        ]);
+        if (problems.length) {
+          throw new AppError(400, 'invalid_csv', `The file has ${problems.length} problem${problems.length === 1 ? '' : 's'}; nothing was imported.`, undefined, problems);
         }
         for (const row of rows) {
-          await insertLot(trx, bankId, userId, {
+          await insertLot(trx, bankId, userId, today, {
             speciesId: row.speciesId,
             variety: row.variety,
             origin: row.origin,
@@ -276,7 +276,7 @@ export function createLotsService(deps: LotsServiceDeps) {
     },
 
     async addMovement(bankId: string, lotId: string, userId: string, body: StockBody) {
-      if (body.date > latestToday(clock)) {
+      if (body.date > (await bankToday(db, clock, bankId))) {
         throw new AppError(422, 'impossible', 'A stock movement cannot be dated in the future.', { date: 'Use today or an earlier date.' });
       }
       return db.transaction().execute(async (trx) => {

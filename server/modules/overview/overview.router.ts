@@ -5,11 +5,11 @@ import { addDays, daysBetween } from '../../../shared/plan-dates';
 import { isoDateSchema } from '../../../shared/schemas/common';
 import { overviewSchema } from '../../../shared/schemas/overview';
 import { requireRole } from '../../auth/bank-access';
-import type { Clock } from '../../clock';
+import { bankToday, type Clock } from '../../clock';
 import type { Db } from '../../db/database';
 import { parse } from '../../http/errors';
 import { respond } from '../../http/respond';
-import { checkDays, localNow } from '../../jobs/reminders';
+import { checkDays } from '../../jobs/reminders';
 import { listSpecies } from '../species/species.service';
 import type { ViabilityService } from '../viability/viability.service';
 
@@ -22,8 +22,7 @@ export function overviewRoutes(deps: { db: Db; clock: Clock; viability: Viabilit
   const router = Router({ mergeParams: true });
   router.get('/', requireRole('viewer'), async (req, res) => {
     const bankId = req.bank!.id;
-    const bank = await db.selectFrom('banks').select('time_zone').where('id', '=', bankId).executeTakeFirstOrThrow();
-    const today = parse(z.object({ on: isoDateSchema.optional() }), req.query, 'query').on ?? localNow(deps.clock.now(), bank.time_zone).date;
+    const today = parse(z.object({ on: isoDateSchema.optional() }), req.query, 'query').on ?? (await bankToday(db, deps.clock, bankId));
     const weekEnd = addDays(today, 6);
     const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
 

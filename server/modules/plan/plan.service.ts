@@ -1,14 +1,12 @@
 import type { z } from 'zod';
 import { planDates, PlanDateError } from '../../../shared/plan-dates';
 import type { CreatePlanBody, PlanEntryDto, updatePlanBodySchema } from '../../../shared/schemas/plan';
-import { latestToday, type Clock } from '../../clock';
+import { bankToday, type Clock } from '../../clock';
 import type { Db } from '../../db/database';
 import { AppError, badRequest, conflict, notFound, unprocessable } from '../../http/errors';
 import { lockLot, stockOf } from '../lots/lots.repository';
 import { findSpecies } from '../species/species.service';
 import type { ViabilityService } from '../viability/viability.service';
-
-const isoDay = (d: Date) => d.toISOString().slice(0, 10);
 
 export function createPlanService({ db, clock, viability }: { db: Db; clock: Clock; viability: ViabilityService }) {
   const entries = (bankId: string) =>
@@ -167,8 +165,9 @@ export function createPlanService({ db, clock, viability }: { db: Db; clock: Clo
 
     /** Withdraws the entry's seeds from its lot, once, in one transaction with the mark. */
     async markSown(bankId: string, entryId: string, userId: string, date?: string) {
-      const on = date ?? isoDay(clock.now());
-      if (on > latestToday(clock)) throw unprocessable('A sowing cannot be dated in the future.', { date: 'Use today or an earlier date.' });
+      const today = await bankToday(db, clock, bankId);
+      const on = date ?? today;
+      if (on > today) throw unprocessable('A sowing cannot be dated in the future.', { date: 'Use today or an earlier date.' });
       await db.transaction().execute(async (trx) => {
         const entry = await trx.selectFrom('plan_entries').selectAll().where('id', '=', entryId).where('bank_id', '=', bankId).forUpdate().executeTakeFirst();
         if (!entry) throw notFound('No such plan entry in this bank.');
