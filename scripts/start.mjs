@@ -100,6 +100,9 @@ async function main() {
     PORT: String(appPort),
     HOST: '127.0.0.1',
     APP_ORIGIN: process.env.APP_ORIGIN ?? `http://127.0.0.1:${ports.PORT}`,
+    // `npm start` keeps the terminal to warnings and errors (a line a request buries the address
+    // and the sign-in); `npm run dev` logs every request. LOG_LEVEL overrides either.
+    LOG_LEVEL: process.env.LOG_LEVEL ?? (dev ? 'info' : 'warn'),
   };
 
   const prepare = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/db-prepare.ts', ...(resetDemo ? ['--reset-demo'] : [])], {
@@ -142,8 +145,8 @@ async function main() {
     [
       '',
       `  Hilum is running at ${url}${dev ? ' (Vite dev server, API on port ' + appPort + ')' : ''}`,
-      '  Demo sign-in: keeper@example.org (owner), grower@example.org (grower),',
-      '                viewer@example.org (viewer) — password hilum-demo-seeds',
+      '  Demo sign-in: keeper@example.org (owner), grower@example.org and grower2@example.org',
+      '                (growers), viewer@example.org (viewer) — password hilum-demo-seeds',
       `  Captured e-mail: ${url}/dev/mail (files in ${outboxDir})`,
       '  Press Ctrl-C to stop everything.',
       '',

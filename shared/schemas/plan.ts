@@ -35,6 +35,8 @@ export const planEntrySchema = z.object({
   plantsWanted: z.number(),
   start: startSchema,
   seedsToSow: z.number().nullable(),
+  /** The chosen or suggested lot's stock now (null without a lot). */
+  seedsOnHand: z.number().nullable(),
   sowFrom: z.string(),
   sowTo: z.string(),
   expectFrom: z.string().nullable(),

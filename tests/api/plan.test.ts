@@ -50,6 +50,9 @@ describe('the season plan', () => {
     expect(sown.body.entry.sownOn).toBe('2026-11-30');
     const after = (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot.seedsOnHand;
     expect(before - after).toBe(entry.seedsToSow);
+    // The entry carries the lot's stock, before and after the sowing.
+    expect(entry.seedsOnHand).toBe(before);
+    expect(sown.body.entry.seedsOnHand).toBe(after);
     const again = await bank.grower.agent.post(`${url()}/${entry.id}/sown`).send({});
     expect(again.status).toBe(409);
     expect((await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot.seedsOnHand).toBe(after);
@@ -62,6 +65,9 @@ describe('the season plan', () => {
     const res = await bank.grower.agent.post(url()).send({ season: 2027, speciesId: tomato, plantsWanted: 2000, start: 'indoors' });
     expect(res.status).toBe(201);
     expect(res.body.entry.notes.join(' ')).toMatch(/No lot has enough seed/);
+    // The stock it falls short of is on the entry, so the planner can say so before marking it sown.
+    expect(res.body.entry.seedsOnHand).toBeLessThan(res.body.entry.seedsToSow);
+    expect((await bank.grower.agent.post(`${url()}/${res.body.entry.id}/sown`).send({})).status).toBe(409);
   });
 
   it('when the bank has no frost date, then planning is 422 saying where to set it', async () => {

@@ -290,4 +290,19 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     await server.db.updateTable('banks').set({ sowing_assurance: 0.9 }).where('id', '=', bankId).execute();
     await context.close();
   });
+  it('when a planned sowing needs more seed than its lot holds, then the planner says so instead of offering Mark sown', async () => {
+    const api = request.agent(server.app);
+    await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
+    const tomato = await speciesId(server.db, 'tomato');
+    const created = await api.post(`/api/banks/${bankId}/plan`).send({ season: 2027, speciesId: tomato, plantsWanted: 1000, start: 'indoors', lotId });
+    expect(created.status).toBe(201);
+    const { context, page } = await open(DESKTOP);
+    await signIn(page, grower.email);
+    await page.goto(`${server.baseUrl}/banks/${bankId}/planner`);
+    const card = page.locator('article[data-entry]').filter({ hasText: '1,000 plants' });
+    await expect.poll(() => card.locator('[data-short-of-seed]').innerText()).toContain(`Lot ${lotCode} has ${stockBefore} seeds left`);
+    expect(await card.getByRole('button', { name: /Mark sown/ }).count()).toBe(0);
+    await context.close();
+    expect((await api.delete(`/api/banks/${bankId}/plan/${created.body.entry.id}`)).status).toBe(204);
+  });
 });

@@ -1,3 +1,4 @@
+import { sql } from 'kysely';
 import type { z } from 'zod';
 import { planDates, PlanDateError } from '../../../shared/plan-dates';
 import type { CreatePlanBody, PlanEntryDto, updatePlanBodySchema } from '../../../shared/schemas/plan';
@@ -16,6 +17,14 @@ export function createPlanService({ db, clock, viability }: { db: Db; clock: Clo
       .leftJoin('lots', 'lots.id', 'plan_entries.lot_id')
       .selectAll('plan_entries')
       .select(['species.common_name as species_name', 'lots.code as lot_code'])
+      // The lot's stock now, so the planner can say before "Mark sown" that it falls short.
+      .select((eb) =>
+        eb
+          .selectFrom('stock_movements')
+          .select(sql<number>`coalesce(sum(change), 0)::int`.as('total'))
+          .whereRef('stock_movements.lot_id', '=', 'plan_entries.lot_id')
+          .as('seeds_on_hand'),
+      )
       .where('plan_entries.bank_id', '=', bankId);
 
   type Row = Awaited<ReturnType<ReturnType<typeof entries>['executeTakeFirstOrThrow']>>;
@@ -30,6 +39,7 @@ export function createPlanService({ db, clock, viability }: { db: Db; clock: Clo
     plantsWanted: r.plants_wanted,
     start: r.start,
     seedsToSow: r.seeds_to_sow,
+    seedsOnHand: r.lot_id === null ? null : (r.seeds_on_hand ?? 0),
     sowFrom: r.sow_from,
     sowTo: r.sow_to,
     expectFrom: r.expect_from,

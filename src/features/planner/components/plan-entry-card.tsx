@@ -178,6 +178,14 @@ function MarkSown({ bankId, entry, today, onDone }: { bankId: string; entry: Pla
   if (!ready) {
     return <p className="text-sm text-loam-700">Choose a tested lot (Edit) before marking this sown.</p>;
   }
+  if (entry.seedsOnHand !== null && entry.seedsToSow !== null && entry.seedsOnHand < entry.seedsToSow) {
+    return (
+      <p role="note" className="text-sm text-clay-800" data-short-of-seed>
+        Lot {entry.lotCode} has {formatSeeds(entry.seedsOnHand)} seeds left, short of the {formatSeeds(entry.seedsToSow)} this
+        sowing needs. Choose another lot or fewer plants (Edit), or add seed to the lot’s stock first.
+      </p>
+    );
+  }
   return (
     <form
       noValidate
