@@ -108,6 +108,8 @@ describe('viability, ranking and seeds to sow', () => {
     expect(atLeast(res.body.seeds)).toBeGreaterThanOrEqual(0.9);
     expect(atLeast(res.body.seeds - 1)).toBeLessThan(0.9);
     expect(res.body.explanation).toMatch(/Sow \d+ seeds for 12 plants/);
+    // The sowing date in words, as every screen writes it.
+    expect(res.body.explanation).toContain('% on 1 Mar 2027,');
   });
 
   it('when a lot has no test, then seeds to sow is 422 saying to test first', async () => {

@@ -1,3 +1,5 @@
+import { dayInWords } from '../../../shared/day-words';
+
 export type Recommendation = 'sow' | 'sow-thick' | 'retest' | 'retire';
 
 export interface DecisionInput {
@@ -28,14 +30,14 @@ export function decide(input: DecisionInput): { recommendation: Recommendation; 
   if (projected && projected.high < RETIRE_BELOW_PERCENT) {
     return {
       recommendation: 'retire',
-      reason: `Projected at ${pct(projected.percent)} (at best ${pct(projected.high)}) on ${input.on}: too few would come up to be worth the space.`,
+      reason: `Projected at ${pct(projected.percent)} (at best ${pct(projected.high)}) on ${dayInWords(input.on)}: too few would come up to be worth the space.`,
     };
   }
   if (!projected || !input.hasTest) {
     return { recommendation: 'retest', reason: `${input.noFitReason ?? 'No usable test yet.'} Test a sample before relying on it.` };
   }
   if (input.retestBy && input.retestBy < input.on) {
-    return { recommendation: 'retest', reason: `The last test is out of date: it was due for a retest by ${input.retestBy}.` };
+    return { recommendation: 'retest', reason: `The last test is out of date: it was due for a retest by ${dayInWords(input.retestBy)}.` };
   }
   if (projected.high - projected.low > MAX_INTERVAL_WIDTH) {
     return {

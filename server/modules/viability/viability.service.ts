@@ -1,4 +1,5 @@
 import { sql } from 'kysely';
+import { dayInWords } from '../../../shared/day-words';
 import type { SpeciesDto } from '../../../shared/schemas/species';
 import type { Db } from '../../db/database';
 import { notFound, unprocessable } from '../../http/errors';
@@ -265,7 +266,7 @@ export function createViabilityService({ db }: { db: Db }) {
         basis: v.fit.basis,
         enoughStock: seeds <= v.lot.seedsOnHand,
         seedsOnHand: v.lot.seedsOnHand,
-        explanation: `Sow ${seeds} seeds for ${plants} plants: the lot is projected at ${Math.round(projected.percent)}% on ${on}, times ${Math.round(v.settings.establishment * 100)}% of seedlings that make a plant, with ${Math.round(chosen * 100)}% assurance of at least ${plants}.`,
+        explanation: `Sow ${seeds} seeds for ${plants} plants: the lot is projected at ${Math.round(projected.percent)}% on ${dayInWords(on)}, times ${Math.round(v.settings.establishment * 100)}% of seedlings that make a plant, with ${Math.round(chosen * 100)}% assurance of at least ${plants}.`,
       };
     },
 

@@ -1,7 +1,7 @@
 import type { Overview } from '../../../../shared/schemas/overview';
 import { Card } from '../../../components/ui/card';
 import { paths } from '../../../config/paths';
-import { datesInWords, daysFrom, formatCount, plural, weekDay } from './overview-format';
+import { daysFrom, formatCount, plural, weekDay } from './overview-format';
 import { Badge, CardEmpty, NextLink, OverviewList, type OverviewRow } from './overview-list';
 
 export interface WeekCardProps {
@@ -138,7 +138,7 @@ export function LotsToRetestCard({ bankId, overview }: WeekCardProps) {
     href: `${paths.lot.getHref(bankId, l.lotId)}#lot-tests`,
     title: `${l.species} · ${l.variety}`,
     badge: <span className="num text-sm font-semibold text-loam-600">{l.code}</span>,
-    detail: datesInWords(l.reason),
+    detail: l.reason,
   }));
   return (
     <Card
