@@ -13,7 +13,7 @@ import { PrintLabelLink } from '../../../features/labels/components/print-label-
 import { planApiPaths } from '../../../features/planner/api/keys';
 import { usePlan } from '../../../features/planner/api/get-plan';
 import { useRanking } from '../../../features/planner/api/get-ranking';
-import { monthSpan, seasonEvents } from '../../../features/planner/components/calendar-events';
+import { openingMonth, seasonEvents } from '../../../features/planner/components/calendar-events';
 import { PlanEntryCard } from '../../../features/planner/components/plan-entry-card';
 import { PlanEntryForm } from '../../../features/planner/components/plan-entry-form';
 import { comingSeason, dayMonth, monthOf, seasonFrost } from '../../../features/planner/components/plan-format';
@@ -60,8 +60,7 @@ export function PlannerPage() {
       { replace: !('view' in changes) && !(SEASON_PARAM in changes) },
     );
 
-  const span = monthSpan(events);
-  const defaultMonth = span && monthOf(today) >= span.first && monthOf(today) <= span.last ? monthOf(today) : (span?.first ?? (frost ? monthOf(frost) : `${season}-03`));
+  const defaultMonth = openingMonth(events, today) ?? (frost ? monthOf(frost) : `${season}-03`);
   const monthParam = search.get('month');
   const month = monthParam && /^\d{4}-(0[1-9]|1[0-2])$/.test(monthParam) ? monthParam : defaultMonth;
 

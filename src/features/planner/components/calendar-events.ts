@@ -61,10 +61,17 @@ export function seasonEvents(season: number, entries: readonly PlanEntryDto[], l
   return events.sort((a, b) => a.from.localeCompare(b.from) || ORDER.indexOf(a.kind) - ORDER.indexOf(b.kind) || a.title.localeCompare(b.title));
 }
 
-/** The months from the first marked day to the last, "YYYY-MM". */
-export function monthSpan(events: readonly CalendarEvent[]): { first: string; last: string } | null {
+/**
+ * The month the calendar opens on: this month when something falls in it; otherwise the next
+ * month with something in it, so a grower opening the season in winter lands on the first
+ * sowings rather than an empty page; for a season that is over, its first month. Null without
+ * events.
+ */
+export function openingMonth(events: readonly CalendarEvent[], today: string): string | null {
   if (events.length === 0) return null;
-  const first = events.reduce((m, e) => (e.from < m ? e.from : m), events[0]!.from).slice(0, 7);
-  const last = events.reduce((m, e) => (e.to > m ? e.to : m), events[0]!.to).slice(0, 7);
-  return { first, last };
+  const now = today.slice(0, 7);
+  const months = events.map((e) => ({ from: e.from.slice(0, 7), to: e.to.slice(0, 7) }));
+  if (months.some((m) => m.from <= now && now <= m.to)) return now;
+  const ahead = months.filter((m) => m.from > now).map((m) => m.from).sort();
+  return ahead[0] ?? months.map((m) => m.from).sort()[0]!;
 }
