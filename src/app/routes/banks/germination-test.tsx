@@ -10,6 +10,7 @@ import { formatDate, setupWords } from '../../../features/germination/components
 import { TestWorkbench } from '../../../features/germination/components/test-workbench';
 import type { BankNoticeState } from './bank-layout';
 import { CHECK_DATE_PARAM, EXACT_INTERVAL_PARAM, intervalFromSearch } from './germination-loaders';
+import { TrayPhotos } from './tray-photos';
 import { useRouteBank } from './use-route-bank';
 
 /** /banks/:bankId/tests/:testId — one germination test: counts at the bench, curve and result. */
@@ -87,6 +88,7 @@ export function GerminationTestPage() {
         date={dateParam.success ? dateParam.data : undefined}
         onDateChange={setCheckDate}
         onDeleted={onDeleted}
+        photos={(d) => <TrayPhotos bankId={bank.id} detail={d} canEdit={canWrite} />}
       />
     </>
   );

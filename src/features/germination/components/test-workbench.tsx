@@ -1,5 +1,6 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
+import type { TestDetail } from '../../../../shared/schemas/germination';
 import { Card } from '../../../components/ui/card';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { Loading } from '../../../components/ui/spinner';
@@ -24,6 +25,8 @@ export interface TestWorkbenchProps {
   date?: string | undefined;
   onDateChange: (date: string) => void;
   onDeleted: () => void | Promise<void>;
+  /** The trays' photos, drawn by the page (the photos feature), above the test's actions. */
+  photos?: (detail: TestDetail) => ReactNode;
 }
 
 const ENTRY_ID = 'count-entry';
@@ -38,6 +41,7 @@ export function TestWorkbench({
   date: chosenDate,
   onDateChange,
   onDeleted,
+  photos,
 }: TestWorkbenchProps) {
   const query = useQuery({ ...testQueryOptions(bankId, testId, interval), placeholderData: keepPreviousData });
   const [today] = useState(() => localToday());
@@ -84,6 +88,7 @@ export function TestWorkbench({
       <Card title="Counts by check date" description="Each number is the tray’s total sprouted so far.">
         <CountsTable bankId={bankId} detail={detail} canEdit={entering} onCorrect={correct} />
       </Card>
+      {photos?.(detail)}
       {canWrite ? <TestActions bankId={bankId} detail={detail} today={today} onDeleted={onDeleted} /> : null}
     </div>
   );

@@ -1,0 +1,101 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
+import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { jpeg } from '../helpers/images';
+import { journey } from '../helpers/journey';
+import { speciesId } from '../helpers/lots';
+
+// The people and the bank are the invented demo scenario of server/db/seed-demo.ts; the lot and its
+// test are invented here.
+const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
+const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;
+// 390 × 844 CSS pixels: a common phone held upright (from memory).
+const PHONE = { width: 390, height: 844 };
+
+describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () => {
+  let server: Awaited<ReturnType<typeof startTestServer>>;
+  let browser: Browser & { cleanup(): void };
+  let bankId: string;
+  let testId: string;
+  let trayIds: string[];
+  let tmp: string;
+
+  beforeAll(async () => {
+    server = await startTestServer({ now: '2026-03-10T09:00:00Z' });
+    await seedDemo(server.db);
+    bankId = (await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()).id;
+    const api = request.agent(server.app);
+    expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
+    const lot = await api
+      .post(`/api/banks/${bankId}/lots`)
+      .send({ speciesId: await speciesId(server.db, 'pepper'), variety: 'Tray Snap', origin: 'saved', harvestDate: '2025-09-10', seedCount: 200 });
+    expect(lot.status).toBe(201);
+    const test = await api
+      .post(`/api/banks/${bankId}/lots/${lot.body.lot.id}/tests`)
+      .send({ startDate: '2026-03-05', method: 'paper towel', trays: [{ seedsSown: 20 }, { seedsSown: 20 }, { seedsSown: 20 }] });
+    expect(test.status).toBe(201);
+    testId = test.body.test.id;
+    trayIds = (test.body.trays as { id: string }[]).map((t) => t.id);
+    tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-tray-photos-'));
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    browser?.cleanup();
+    await server?.stop();
+    if (tmp) fs.rmSync(tmp, { recursive: true, force: true });
+  });
+
+  async function signIn(page: Page, email: string) {
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
+  }
+
+  it('when a grower photographs tray 2 on a phone, then the photo belongs to tray 2 alone and a viewer sees it without an upload', async () => {
+    const context = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+    const page = await context.newPage();
+    const j = journey('tray-photos', page);
+    await j.step('sign in as grower', () => signIn(page, grower.email));
+    await j.step('photograph tray 2', async () => {
+      await page.goto(`${server.baseUrl}/banks/${bankId}/tests/${testId}`);
+      const card = page.locator('section').filter({ has: page.getByRole('heading', { name: 'Tray photos' }) });
+      await card.getByRole('button', { name: 'Tray 2' }).tap();
+      expect(await card.getByRole('button', { name: 'Tray 2' }).getAttribute('aria-pressed')).toBe('true');
+      const file = path.join(tmp, 'tray-2.jpg');
+      fs.writeFileSync(file, await jpeg({ width: 800, height: 600 }));
+      await card.getByLabel('Add a photo').setInputFiles(file);
+      await card.getByRole('button', { name: 'Upload photo' }).tap();
+      const thumb = card.getByRole('img', { name: /^Tray 2 of the PEP-/ });
+      await thumb.waitFor();
+      await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBeGreaterThan(0);
+    });
+    // Stored against tray 2 of this test, and no other tray.
+    const rows = await server.db.selectFrom('photos').select(['subject', 'subject_id']).where('bank_id', '=', bankId).where('subject', '=', 'tray').execute();
+    expect(rows).toEqual([{ subject: 'tray', subject_id: trayIds[1] }]);
+    await j.step('tray 1 has none', async () => {
+      const card = page.locator('section').filter({ has: page.getByRole('heading', { name: 'Tray photos' }) });
+      await card.getByRole('button', { name: 'Tray 1' }).tap();
+      await expect.poll(() => card.getByText('No photos yet.').count()).toBe(1);
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+    });
+    await context.close();
+
+    const viewerContext = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+    const viewerPage = await viewerContext.newPage();
+    await signIn(viewerPage, viewer.email);
+    await viewerPage.goto(`${server.baseUrl}/banks/${bankId}/tests/${testId}`);
+    const card = viewerPage.locator('section').filter({ has: viewerPage.getByRole('heading', { name: 'Tray photos' }) });
+    await card.getByRole('button', { name: 'Tray 2' }).tap();
+    await card.getByRole('img', { name: /^Tray 2 of the PEP-/ }).waitFor();
+    expect(await card.getByLabel('Add a photo').count()).toBe(0);
+    await viewerContext.close();
+  });
+});
