@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { dayInWords } from '../../shared/day-words';
+import { resultWords } from '../../server/modules/germination/result-words';
 import { decide } from '../../server/modules/viability/recommend';
+import { summarizeTest } from '../../server/stats/summarize-test';
 
 describe('days in words', () => {
   it('when an ISO calendar day is written out, then it reads day, short month, year with no time zone shift', () => {
@@ -30,5 +32,15 @@ describe('the reasons of the ranking', () => {
     const out = decide({ ...base, projected: { percent: 12, low: 6, high: 20 }, retestBy: null });
     expect(out.recommendation).toBe('retire');
     expect(out.reason).toContain('on 29 Mar 2027:');
+  });
+});
+
+describe('the result of a test in words', () => {
+  it('when no tray is counted yet, then it says when the first count is due, as a day in words', () => {
+    const summary = summarizeTest([
+      { id: 'a', seedsSown: 25, checks: [] },
+      { id: 'b', seedsSown: 25, checks: [] },
+    ]);
+    expect(resultWords(summary, '2026-03-12')).toEqual(['No counts yet. The first count is due around 12 Mar 2026.']);
   });
 });

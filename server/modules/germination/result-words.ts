@@ -1,3 +1,4 @@
+import { dayInWords } from '../../../shared/day-words';
 import type { TestSummary } from '../../stats';
 
 const pct = (v: number) => `${Math.round(v)}%`;
@@ -8,7 +9,7 @@ export function resultWords(r: TestSummary, firstCountDate: string | null): stri
   if (r.percent === null || r.sown === null || r.germinated === null) {
     return [
       firstCountDate
-        ? `No counts yet. The first count is due around ${firstCountDate}.`
+        ? `No counts yet. The first count is due around ${dayInWords(firstCountDate)}.`
         : 'No counts yet. Count the sprouted seeds in each tray on each check day.',
     ];
   }
