@@ -12,6 +12,15 @@ export function daysBetween(from: string, to: string): number {
   return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / DAY_MS);
 }
 
+/**
+ * The season planned by default: the coming spring. From September on, today's calendar day in
+ * the bank's time zone, that is next year's (Hilum's rule; spring sowing lies ahead by then).
+ */
+export function comingSeason(today: string): number {
+  const year = Number(today.slice(0, 4));
+  return Number(today.slice(5, 7)) >= 9 ? year + 1 : year;
+}
+
 /** The median last-frost date of a season; 02-29 falls back to 02-28 in a common year. */
 export function frostDateIn(season: number, monthDay: string): string {
   const [m, d] = monthDay.split('-').map(Number) as [number, number];

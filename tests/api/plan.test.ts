@@ -70,6 +70,13 @@ describe('the season plan', () => {
     expect((await bank.grower.agent.post(`${url()}/${res.body.entry.id}/sown`).send({})).status).toBe(409);
   });
 
+  it('when the plan is read without a season, then it is the coming spring’s on the bank’s calendar', async () => {
+    // The test clock reads 1 Dec 2026: from September on, the season planned is next year’s.
+    const res = await bank.viewer.agent.get(url());
+    expect(res.status).toBe(200);
+    expect(res.body.season).toBe(2027);
+  });
+
   it('when the bank has no frost date, then planning is 422 saying where to set it', async () => {
     const other = await bankWithRoles(ctx.app, ctx.db);
     await other.owner.agent.patch(`/api/banks/${other.bankId}`).send({ lastFrost: null });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { EMPTY_TRAITS } from '../../shared/schemas/species';
-import { addDays, frostDateIn, planDates, PlanDateError } from '../../shared/plan-dates';
+import { PlanDateError, addDays, comingSeason, frostDateIn, planDates } from '../../shared/plan-dates';
 
 const petunia = { ...EMPTY_TRAITS, startMethod: 'indoor' as const, startWeeksFrom: 12, startWeeksTo: 10, firstCountDay: 7, finalCountDay: 14 };
 
@@ -45,5 +45,14 @@ describe('sowing dates back from the frost date', () => {
   it('when the bank has no frost date or the species no window, then it says what to set', () => {
     expect(() => planDates({ season: 2027, lastFrost: null, marginDays: 7, traits: petunia, start: 'indoors' })).toThrow(PlanDateError);
     expect(() => planDates({ season: 2027, lastFrost: '05-24', marginDays: 7, traits: EMPTY_TRAITS, start: 'indoors' })).toThrow(/indoor start window/);
+  });
+});
+
+describe('the season planned by default', () => {
+  it('when it is spring or summer, then this year’s season; from September, next year’s (Hilum’s rule)', () => {
+    expect(comingSeason('2027-03-15')).toBe(2027);
+    expect(comingSeason('2026-08-31')).toBe(2026);
+    expect(comingSeason('2026-09-01')).toBe(2027);
+    expect(comingSeason('2026-12-02')).toBe(2027);
   });
 });

@@ -1,8 +1,9 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { comingSeason } from '../../../shared/plan-dates';
 import { createPlanBodySchema, planEntrySchema, planListResponseSchema, seasonSchema, sownBodySchema, updatePlanBodySchema } from '../../../shared/schemas/plan';
 import { requireRole } from '../../auth/bank-access';
-import type { Clock } from '../../clock';
+import { bankToday, type Clock } from '../../clock';
 import type { Db } from '../../db/database';
 import { parse } from '../../http/errors';
 import { idParam } from '../../http/params';
@@ -15,13 +16,13 @@ const one = z.object({ entry: planEntrySchema });
 
 export function planRoutes(plan: PlanService, deps: { db: Db; clock: Clock; viability: ViabilityService }) {
   const seasonQuery = z.object({ season: seasonSchema.optional() });
-  const thisSeason = () => deps.clock.now().getUTCFullYear() + (deps.clock.now().getUTCMonth() >= 8 ? 1 : 0);
+  const thisSeason = async (bankId: string) => comingSeason(await bankToday(deps.db, deps.clock, bankId));
   const entryId = (req: { params: Record<string, unknown> }) => idParam(req.params.entryId, 'plan entry');
 
   /** /api/banks/:bankId/plan */
   const router = Router({ mergeParams: true });
   router.get('/', requireRole('viewer'), async (req, res) => {
-    const season = parse(seasonQuery, req.query, 'query').season ?? thisSeason();
+    const season = parse(seasonQuery, req.query, 'query').season ?? (await thisSeason(req.bank!.id));
     respond(res, 200, planListResponseSchema, { season, items: await plan.list(req.bank!.id, season), nextCursor: null });
   });
   router.post('/', requireRole('grower'), async (req, res) => {
@@ -50,7 +51,7 @@ export function planRoutes(plan: PlanService, deps: { db: Db; clock: Clock; viab
   /** /api/banks/:bankId/plan.ics */
   const ics = Router({ mergeParams: true });
   ics.get('/', requireRole('viewer'), async (req, res) => {
-    const season = parse(seasonQuery, req.query, 'query').season ?? thisSeason();
+    const season = parse(seasonQuery, req.query, 'query').season ?? (await thisSeason(req.bank!.id));
     const bank = await deps.db.selectFrom('banks').select('name').where('id', '=', req.bank!.id).executeTakeFirstOrThrow();
     const entries = await plan.list(req.bank!.id, season);
     const ranking = await deps.viability.ranking(req.bank!.id, `${season}-01-01`);

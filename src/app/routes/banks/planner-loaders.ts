@@ -4,7 +4,7 @@ import { paths } from '../../../config/paths';
 import { bankQueryOptions } from '../../../features/banks/api/get-bank';
 import { planQueryOptions } from '../../../features/planner/api/get-plan';
 import { rankingQueryOptions } from '../../../features/planner/api/get-ranking';
-import { comingSeason } from '../../../features/planner/components/plan-format';
+import { comingSeason } from '../../../../shared/plan-dates';
 import { remindersQueryOptions } from '../../../features/reminders/api/get-reminders';
 import { speciesQueryOptions } from '../../../features/species/api/get-species';
 import { isApiError } from '../../../lib/api-client';

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
-import { addDays } from '../../../../shared/plan-dates';
+import { addDays, comingSeason } from '../../../../shared/plan-dates';
 import { buttonStyles } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -16,7 +16,7 @@ import { useRanking } from '../../../features/planner/api/get-ranking';
 import { openingMonth, seasonEvents } from '../../../features/planner/components/calendar-events';
 import { PlanEntryCard } from '../../../features/planner/components/plan-entry-card';
 import { PlanEntryForm } from '../../../features/planner/components/plan-entry-form';
-import { comingSeason, dayMonth, monthOf, seasonFrost } from '../../../features/planner/components/plan-format';
+import { dayMonth, monthOf, seasonFrost } from '../../../features/planner/components/plan-format';
 import { SeasonCalendar, type CalendarMode } from '../../../features/planner/components/season-calendar';
 import { useSpecies } from '../../../features/species/api/get-species';
 import { SpeciesCautions } from '../../../features/species/components/species-cautions';

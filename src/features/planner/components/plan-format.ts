@@ -52,15 +52,6 @@ export function monthWeeks(month: string): string[][] {
   return weeks;
 }
 
-/**
- * The season Hilum plans by default: the coming spring. From September on that is next year's
- * (the same rule as the server's default season).
- */
-export function comingSeason(today: string): number {
-  const [y, m] = parts(today);
-  return m >= 9 ? y + 1 : y;
-}
-
 /** The bank's last frost date in a season, or null while the bank has none. */
 export function seasonFrost(season: number, lastFrost: string | null): string | null {
   return lastFrost ? frostDateIn(season, lastFrost) : null;
