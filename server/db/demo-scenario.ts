@@ -3,7 +3,7 @@
 // viability equation (probit viability = Ki − age/σ), so the demo shows a realistic decline.
 import crypto from 'node:crypto';
 import sharp from 'sharp';
-import { addDays } from '../../shared/plan-dates';
+import { addDays, comingSeason } from '../../shared/plan-dates';
 import type { Clock } from '../clock';
 import type { Mailer } from '../mail/mailer';
 import { createInvitationsService } from '../modules/invitations/invitations.service';
@@ -294,11 +294,12 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
 
   // A plan for the coming season, with Hilum's suggested lots.
   const plan = createPlanService({ db, clock: deps.clock, viability: createViabilityService({ db }) });
-  const comingSeason = Number(today.slice(5, 7)) >= 6 ? thisYear + 1 : thisYear;
+  // The season the planner opens on by default, so the demo's plan is the one a visitor sees.
+  const season = comingSeason(today);
   const wanted: [string, number][] = [['tomato', 12], ['pepper', 6], ['petunia', 24], ['marigold', 18], ['lettuce', 20], ['kale', 8], ['onion', 40], ['bean', 30]];
   for (const [key, plants] of wanted) {
     await plan
-      .create(bank.id, keeper, { season: comingSeason, speciesId: species[key]!.id, plantsWanted: plants, start: DEMO_SPECIES[key]!.sow })
+      .create(bank.id, keeper, { season, speciesId: species[key]!.id, plantsWanted: plants, start: DEMO_SPECIES[key]!.sow })
       .catch(() => undefined);
   }
 
