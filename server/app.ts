@@ -21,6 +21,8 @@ import { createBanksService } from './modules/banks/banks.service';
 import { devRouter } from './modules/dev/dev.router';
 import { lotTestRoutes, testRoutes } from './modules/germination/germination.router';
 import { createGerminationService, lotHasTests } from './modules/germination/germination.service';
+import { testsCsvExport, testsCsvImport } from './modules/germination/tests-csv.router';
+import { createTestsCsvService } from './modules/germination/tests-csv.service';
 import { invitationsRouter } from './modules/invitations/invitations.router';
 import { overviewRoutes } from './modules/overview/overview.router';
 import { planRoutes } from './modules/plan/plan.router';
@@ -91,6 +93,7 @@ export function createApp(deps: AppDeps): Express {
     }),
     germination: createGerminationService({ ...deps, removeSubjectPhotos: photos.removeSubjectPhotos }),
     viability: createViabilityService(deps),
+    testsCsv: createTestsCsvService(deps),
   };
   const plan = createPlanService({ ...deps, viability: services.viability });
   const secureCookies = config.appOrigin.startsWith('https:');
@@ -120,7 +123,9 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/reminders', reminderRoutes(deps.db));
   bank.use('/overview', overviewRoutes({ ...deps, viability: services.viability }));
   bank.use('/tests/:testId/trays/:trayId/photos', subjectPhotoRoutes(services.photos, 'tray', 'trayId'));
+  bank.use('/tests/import', testsCsvImport(services.testsCsv));
   bank.use('/tests', testRoutes(services.germination));
+  bank.use('/tests.csv', testsCsvExport(services.testsCsv));
   bank.use('/lots.csv', lotsCsvExport(services.lots));
   bank.use('/lots', lotRoutes(services.lots, services.species.list));
   bank.use('/photos', bankPhotoRoutes(services.photos));

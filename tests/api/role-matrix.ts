@@ -7,6 +7,8 @@ export interface MatrixFixture {
   bankId: string;
   /** Ids of records made fresh for each call, so a destructive route has something to act on. */
   make(kind: 'member' | 'invitation' | 'lot' | 'plant' | 'photo' | 'species' | 'test' | 'plan'): Promise<string>;
+  /** The code of the lot `make('lot')` made last. */
+  lastLotCode(): string;
   /** The trays of the test `make('test')` made last. */
   lastTrayId(): string;
   lastTrayIds(): string[];
@@ -152,6 +154,21 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     method: 'post',
     path: (f) => `/api/banks/${f.bankId}/lots/import`,
     attach: () => ['file', Buffer.from('species,variety,origin,harvest_date,seeds_on_hand\nTomato,Matrix,saved,2025-09-01,5\n'), 'lots.csv'],
+    least: 'grower',
+    ok: 200,
+  },
+  'GET tests.csv': { method: 'get', path: (f) => `/api/banks/${f.bankId}/tests.csv`, least: 'viewer' },
+  'POST tests import': {
+    method: 'post',
+    path: async (f) => {
+      await f.make('lot');
+      return `/api/banks/${f.bankId}/tests/import`;
+    },
+    attach: (f) => [
+      'file',
+      Buffer.from(`test,lot_code,start_date,method,tray,seeds_sown,check_date,cumulative\nm,${f.lastLotCode()},2026-02-20,paper towel,1,2,2026-02-25,1\n`),
+      'tests.csv',
+    ],
     least: 'grower',
     ok: 200,
   },

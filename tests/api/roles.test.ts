@@ -35,12 +35,14 @@ describe('the role matrix of bank routes', () => {
     const bank = await bankWithRoles(ctx.app, ctx.db);
     const owner = bank.owner.agent;
     let trayIds: string[] = [];
+    let lotCode = '';
     const fixture: MatrixFixture = {
       bankId: bank.bankId,
       jpeg,
       tomatoId,
       lastTrayId: () => trayIds[0]!,
       lastTrayIds: () => trayIds,
+      lastLotCode: () => lotCode,
       async make(kind) {
         const base = `/api/banks/${bank.bankId}`;
         if (kind === 'plan') {
@@ -61,6 +63,7 @@ describe('the role matrix of bank routes', () => {
           const lot = await owner
             .post(`${base}/lots`)
             .send({ speciesId: tomatoId, variety: 'Fixture', origin: 'saved', harvestDate: '2025-09-01', seedCount: 10 });
+          lotCode = lot.body.lot.code as string;
           if (kind === 'lot') return lot.body.lot.id as string;
           const photo = await owner.post(`${base}/lots/${lot.body.lot.id}/photos`).attach('photo', jpeg, 'packet.jpg');
           return photo.body.photo.id as string;

@@ -67,3 +67,41 @@ export function countProblems(body: CountsBody, startDate: string, trays: Tray[]
   }
   return problems;
 }
+
+export interface FinishEntry {
+  abnormal: number;
+  ungerminated: number;
+  fresh?: number | null | undefined;
+  dead?: number | null | undefined;
+  hard?: number | null | undefined;
+}
+
+/**
+ * The rule a tray's finish values break, if any: its normal seedlings (the last cumulative count)
+ * plus abnormal plus ungerminated must be the seeds sown, and fresh + dead + hard, when any is
+ * given, the ungerminated. `field` is the value to correct, `hint` what would fit.
+ */
+export function finishProblem(
+  tray: Pick<Tray, 'position' | 'seeds_sown'>,
+  normal: number,
+  entry: FinishEntry,
+): { field: 'ungerminated' | 'fresh'; message: string; hint: string } | null {
+  const total = normal + entry.abnormal + entry.ungerminated;
+  if (total !== tray.seeds_sown) {
+    return {
+      field: 'ungerminated',
+      message: `Tray ${tray.position}: ${normal} normal + ${entry.abnormal} abnormal + ${entry.ungerminated} ungerminated = ${total}, but ${tray.seeds_sown} seeds were sown.`,
+      hint: `Should make the tray add up to ${tray.seeds_sown}.`,
+    };
+  }
+  const detailGiven = [entry.fresh, entry.dead, entry.hard].some((v) => v != null);
+  const split = (entry.fresh ?? 0) + (entry.dead ?? 0) + (entry.hard ?? 0);
+  if (detailGiven && split !== entry.ungerminated) {
+    return {
+      field: 'fresh',
+      message: `Tray ${tray.position}: fresh + dead + hard seeds (${split}) should equal the ${entry.ungerminated} ungerminated.`,
+      hint: 'Should add up to the ungerminated seeds.',
+    };
+  }
+  return null;
+}

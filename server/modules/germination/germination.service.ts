@@ -1,14 +1,14 @@
-import type { Updateable } from 'kysely';
+import type { Selectable, Updateable } from 'kysely';
 import type { z } from 'zod';
 import type { CountsBody, CreateTestBody, FinishBody, TestDetail, updateTestBodySchema } from '../../../shared/schemas/germination';
 import { bankToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
-import type { GerminationTestTable } from '../../db/schema';
+import type { GerminationTestTable, TestTrayTable } from '../../db/schema';
 import { AppError, conflict, notFound, unprocessable } from '../../http/errors';
 import { summarizeTest, type IntervalMethod } from '../../stats';
 import { findSpecies } from '../species/species.service';
 import { lockLot, stockOf } from '../lots/lots.repository';
-import { countProblems } from './count-rules';
+import { countProblems, finishProblem } from './count-rules';
 import { resultWords } from './result-words';
 
 const DAY_MS = 86_400_000;
@@ -23,6 +23,65 @@ export interface GerminationDeps {
   removeSubjectPhotos: (db: DbOrTx, bankId: string, subject: 'tray', subjectId: string) => Promise<() => Promise<void>>;
 }
 
+/** A bank's tests, each with its lot's code, variety and species. */
+export function testsWithLot(on: DbOrTx, bankId: string) {
+  return on
+    .selectFrom('germination_tests')
+    .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
+    .innerJoin('species', 'species.id', 'lots.species_id')
+    .selectAll('germination_tests')
+    .select(['lots.code as lot_code', 'lots.variety', 'lots.species_id', 'species.common_name'])
+    .where('germination_tests.bank_id', '=', bankId);
+}
+type TestWithLot = Awaited<ReturnType<ReturnType<typeof testsWithLot>['executeTakeFirstOrThrow']>>;
+
+/** What a test is, in the API's names (the detail and the CSV export both give it). */
+export function testFields(t: TestWithLot) {
+  return {
+    lotCode: t.lot_code,
+    speciesName: t.common_name,
+    variety: t.variety,
+    startDate: t.start_date,
+    method: t.method,
+    medium: t.medium,
+    temperatureC: num(t.temperature_c),
+    lightHours: num(t.light_hours),
+    pretreatment: t.pretreatment,
+    pretreatmentDays: t.pretreatment_days,
+    notes: t.notes,
+    finishedOn: t.finished_on,
+  };
+}
+
+/** The trays of the tests, by position, and their counts, by date. */
+export async function traysAndCounts(on: DbOrTx, testIds: string[]) {
+  const trays = testIds.length
+    ? await on.selectFrom('test_trays').selectAll().where('test_id', 'in', testIds).orderBy('position').execute()
+    : [];
+  const counts = trays.length
+    ? await on
+        .selectFrom('tray_counts')
+        .select(['tray_id', 'check_date', 'cumulative'])
+        .where('tray_id', 'in', trays.map((tr) => tr.id))
+        .orderBy('check_date')
+        .execute()
+    : [];
+  return { trays, counts };
+}
+
+/** What a tray is, in the API's names. */
+export function trayFields(tr: Selectable<TestTrayTable>) {
+  return {
+    position: tr.position,
+    seedsSown: tr.seeds_sown,
+    abnormal: tr.abnormal,
+    ungerminated: tr.ungerminated,
+    fresh: tr.fresh,
+    dead: tr.dead,
+    hard: tr.hard,
+  };
+}
+
 export async function lotHasTests(db: DbOrTx, lotId: string): Promise<boolean> {
   const row = await db.selectFrom('germination_tests').select('id').where('lot_id', '=', lotId).limit(1).executeTakeFirst();
   return Boolean(row);
@@ -32,14 +91,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
   const today = (on: DbOrTx, bankId: string) => bankToday(on, clock, bankId);
 
   async function loadTest(on: DbOrTx, bankId: string, testId: string, lock = false) {
-    let q = on
-      .selectFrom('germination_tests')
-      .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
-      .innerJoin('species', 'species.id', 'lots.species_id')
-      .selectAll('germination_tests')
-      .select(['lots.code as lot_code', 'lots.variety', 'lots.species_id', 'species.common_name'])
-      .where('germination_tests.id', '=', testId)
-      .where('germination_tests.bank_id', '=', bankId);
+    let q = testsWithLot(on, bankId).where('germination_tests.id', '=', testId);
     if (lock) q = q.forUpdate('germination_tests');
     const row = await q.executeTakeFirst();
     if (!row) throw notFound('No such germination test in this bank.');
@@ -48,15 +100,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
 
   async function detail(bankId: string, testId: string, intervalMethod: IntervalMethod = 'wilson', on: DbOrTx = db): Promise<TestDetail> {
     const t = await loadTest(on, bankId, testId);
-    const trays = await on.selectFrom('test_trays').selectAll().where('test_id', '=', testId).orderBy('position').execute();
-    const counts = trays.length
-      ? await on
-          .selectFrom('tray_counts')
-          .select(['tray_id', 'check_date', 'cumulative'])
-          .where('tray_id', 'in', trays.map((tr) => tr.id))
-          .orderBy('check_date')
-          .execute()
-      : [];
+    const { trays, counts } = await traysAndCounts(on, [testId]);
     const species = await findSpecies(on, bankId, t.species_id);
     const first = species?.traits.firstCountDay ?? null;
     const final = species?.traits.finalCountDay ?? null;
@@ -76,32 +120,12 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
       test: {
         id: t.id,
         lotId: t.lot_id,
-        lotCode: t.lot_code,
-        speciesName: t.common_name,
-        variety: t.variety,
-        startDate: t.start_date,
-        method: t.method,
-        medium: t.medium,
-        temperatureC: num(t.temperature_c),
-        lightHours: num(t.light_hours),
-        pretreatment: t.pretreatment,
-        pretreatmentDays: t.pretreatment_days,
-        notes: t.notes,
+        ...testFields(t),
         status: t.status,
-        finishedOn: t.finished_on,
         schedule,
         createdAt: t.created_at.toISOString(),
       },
-      trays: trays.map((tr) => ({
-        id: tr.id,
-        position: tr.position,
-        seedsSown: tr.seeds_sown,
-        abnormal: tr.abnormal,
-        ungerminated: tr.ungerminated,
-        fresh: tr.fresh,
-        dead: tr.dead,
-        hard: tr.hard,
-      })),
+      trays: trays.map((tr) => ({ id: tr.id, ...trayFields(tr) })),
       counts: counts.map((c) => ({ trayId: c.tray_id, date: c.check_date, day: daysBetween(t.start_date, c.check_date), cumulative: c.cumulative })),
       result: { ...summary, summary: resultWords(summary, schedule.firstCountDate) },
     };
@@ -270,21 +294,8 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
           const entry = given.get(tray.id);
           if (!entry) throw unprocessable(`Give the abnormal and ungerminated seeds of tray ${tray.position} too.`);
           const normal = counts.filter((c) => c.tray_id === tray.id).at(-1)?.cumulative ?? 0;
-          const total = normal + entry.abnormal + entry.ungerminated;
-          if (total !== tray.seeds_sown) {
-            throw unprocessable(
-              `Tray ${tray.position}: ${normal} normal + ${entry.abnormal} abnormal + ${entry.ungerminated} ungerminated = ${total}, but ${tray.seeds_sown} seeds were sown.`,
-              { [`trays.${entry.index}.ungerminated`]: `Should make the tray add up to ${tray.seeds_sown}.` },
-            );
-          }
-          const detailGiven = [entry.fresh, entry.dead, entry.hard].some((v) => v != null);
-          const split = (entry.fresh ?? 0) + (entry.dead ?? 0) + (entry.hard ?? 0);
-          if (detailGiven && split !== entry.ungerminated) {
-            throw unprocessable(
-              `Tray ${tray.position}: fresh + dead + hard seeds (${split}) should equal the ${entry.ungerminated} ungerminated.`,
-              { [`trays.${entry.index}.fresh`]: 'Should add up to the ungerminated seeds.' },
-            );
-          }
+          const problem = finishProblem(tray, normal, entry);
+          if (problem) throw unprocessable(problem.message, { [`trays.${entry.index}.${problem.field}`]: problem.hint });
           await trx
             .updateTable('test_trays')
             .set({ abnormal: entry.abnormal, ungerminated: entry.ungerminated, fresh: entry.fresh ?? null, dead: entry.dead ?? null, hard: entry.hard ?? null })

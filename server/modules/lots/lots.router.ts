@@ -9,9 +9,9 @@ import {
   updateLotBodySchema,
 } from '../../../shared/schemas/lots';
 import { requireRole } from '../../auth/bank-access';
-import multer from 'multer';
 import type { SpeciesDto } from '../../../shared/schemas/species';
-import { AppError, badRequest, parse } from '../../http/errors';
+import { csvFileText, csvUpload } from '../../csv/csv-upload';
+import { invalidCsv, parse } from '../../http/errors';
 import { lotsToCsv, parseLotsCsv } from './lots.csv';
 import { idParam } from '../../http/params';
 import { respond } from '../../http/respond';
@@ -21,8 +21,6 @@ const one = z.object({ lot: lotSchema });
 const list = z.object({ items: z.array(lotSchema), nextCursor: z.string().nullable() });
 const ledger = z.object({ items: z.array(movementSchema), seedsOnHand: z.number() });
 
-const csvUpload = multer({ storage: multer.memoryStorage(), limits: { fileSize: 5 * 1024 * 1024, files: 1 } });
-const importQuery = z.object({ dryRun: z.stringbool().default(false) });
 
 /** Matches a CSV row's species to the bank's list: scientific name first, then common name. */
 function resolveSpecies(list: SpeciesDto[], name: { speciesName: string; scientificName: string | null }): string | null {
@@ -57,12 +55,11 @@ export function lotRoutes(lots: LotsService, species_: (bankId: string) => Promi
     respond(res, 200, list, await lots.list(req.bank!.id, query));
   });
   router.post('/import', requireRole('grower'), csvUpload.single('file'), async (req, res) => {
-    const { dryRun } = parse(importQuery, req.query, 'query');
-    if (!req.file) throw badRequest('Choose a CSV file to import.', { file: 'Choose a CSV file.' });
+    const { dryRun, text } = csvFileText(req);
     const species = await species_(req.bank!.id);
-    const parsed = parseLotsCsv(req.file.buffer.toString('utf8'), (name) => resolveSpecies(species, name));
+    const parsed = parseLotsCsv(text, (name) => resolveSpecies(species, name));
     if (!parsed.ok) {
-      throw new AppError(400, 'invalid_csv', `The file has ${parsed.errors.length} problem${parsed.errors.length === 1 ? '' : 's'}; nothing was imported.`, undefined, parsed.errors.slice(0, 200));
+      throw invalidCsv(parsed.errors);
     }
     if (dryRun) {
       return void res.json({ preview: parsed.rows.map((r) => ({ line: r.line, code: r.code, species: r.speciesName, variety: r.variety, seedsOnHand: r.seedsOnHand, harvestDate: r.harvestDate, packedForSeason: r.packedForSeason, treated: r.treated })) });

@@ -4,7 +4,7 @@ import { bankToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
 import type { LotStatus, LotTable } from '../../db/schema';
 import type { LotCsvRow, ParsedLotCsvRow } from './lots.csv';
-import { AppError, badRequest, conflict, notFound, unprocessable } from '../../http/errors';
+import { AppError, badRequest, conflict, invalidCsv, notFound, unprocessable } from '../../http/errors';
 import { requireSpecies } from '../species/species.service';
 import { codePrefix, nextCode } from './lot-code';
 import * as repo from './lots.repository';
@@ -202,7 +202,7 @@ export function createLotsService(deps: LotsServiceDeps) {
             : []),
         ]);
         if (problems.length) {
-          throw new AppError(400, 'invalid_csv', `The file has ${problems.length} problem${problems.length === 1 ? '' : 's'}; nothing was imported.`, undefined, problems);
+          throw invalidCsv(problems);
         }
         for (const row of rows) {
           await insertLot(trx, bankId, userId, today, {

@@ -1,0 +1,47 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { requireRole } from '../../auth/bank-access';
+import { csvFileText, csvUpload } from '../../csv/csv-upload';
+import { respond } from '../../http/respond';
+import type { TestsCsvService } from './tests-csv.service';
+
+const previewSchema = z.object({
+  preview: z.array(
+    z.object({
+      line: z.number(),
+      test: z.string(),
+      lotCode: z.string(),
+      species: z.string(),
+      variety: z.string(),
+      startDate: z.string(),
+      trays: z.number(),
+      seedsSown: z.number(),
+      checkDays: z.number(),
+      finishedOn: z.string().nullable(),
+    }),
+  ),
+});
+const importedSchema = z.object({ imported: z.number() });
+
+/** GET /api/banks/:bankId/tests.csv */
+export function testsCsvExport(csv: TestsCsvService): Router {
+  const router = Router({ mergeParams: true });
+  router.get('/', requireRole('viewer'), async (req, res) => {
+    const text = await csv.exportCsv(req.bank!.id);
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    res.setHeader('Content-Disposition', 'attachment; filename="hilum-tests.csv"');
+    res.send(text);
+  });
+  return router;
+}
+
+/** POST /api/banks/:bankId/tests/import (multipart `file`; `?dryRun=true` only checks it). */
+export function testsCsvImport(csv: TestsCsvService): Router {
+  const router = Router({ mergeParams: true });
+  router.post('/', requireRole('grower'), csvUpload.single('file'), async (req, res) => {
+    const { dryRun, text } = csvFileText(req);
+    const outcome = await csv.importCsv(req.bank!.id, req.auth!.userId, text, { dryRun });
+    respond(res, 200, z.union([previewSchema, importedSchema]), outcome);
+  });
+  return router;
+}

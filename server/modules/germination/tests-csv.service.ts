@@ -1,0 +1,147 @@
+/**
+ * A bank's germination tests as a CSV file (format and checks: tests.csv.ts). The import writes
+ * every test of the file in one transaction, or none.
+ *
+ * Imported tests are history: their seeds are NOT withdrawn from the lot's stock ledger, because
+ * a lot's seeds on hand (logged or imported with the lot) already reflect the seeds those tests
+ * used. Deleting an imported test later gives no seeds back for the same reason.
+ */
+import { sql } from 'kysely';
+import { bankToday, type Clock } from '../../clock';
+import type { Db, DbOrTx } from '../../db/database';
+import { invalidCsv } from '../../http/errors';
+import { testFields, testsWithLot, trayFields, traysAndCounts } from './germination.service';
+import { parseTestsCsv, testsToCsv, type ParsedTestCsvTest, type TestCsvTest } from './tests.csv';
+
+export interface TestImportPreview {
+  line: number;
+  test: string;
+  lotCode: string;
+  species: string;
+  variety: string;
+  startDate: string;
+  trays: number;
+  seedsSown: number;
+  checkDays: number;
+  finishedOn: string | null;
+}
+
+export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
+  async function bankLots(bankId: string) {
+    const rows = await db
+      .selectFrom('lots')
+      .innerJoin('species', 'species.id', 'lots.species_id')
+      .select(['lots.id', 'lots.code', 'lots.variety', 'species.common_name'])
+      .where('lots.bank_id', '=', bankId)
+      .execute();
+    return new Map(rows.map((r) => [r.code.toLowerCase(), r]));
+  }
+
+  async function insertTest(trx: DbOrTx, bankId: string, userId: string, t: ParsedTestCsvTest, createdAt: Date) {
+    const test = await trx
+      .insertInto('germination_tests')
+      .values({
+        bank_id: bankId,
+        lot_id: t.lotId,
+        start_date: t.startDate,
+        method: t.method,
+        medium: t.medium,
+        temperature_c: t.temperatureC,
+        light_hours: t.lightHours,
+        pretreatment: t.pretreatment,
+        pretreatment_days: t.pretreatmentDays,
+        notes: t.notes,
+        status: t.finishedOn === null ? 'running' : 'finished',
+        finished_on: t.finishedOn,
+        created_by: userId,
+        created_at: createdAt,
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    for (const tray of t.trays) {
+      const row = await trx
+        .insertInto('test_trays')
+        .values({
+          test_id: test.id,
+          position: tray.position,
+          seeds_sown: tray.seedsSown,
+          abnormal: tray.abnormal,
+          ungerminated: tray.ungerminated,
+          fresh: tray.fresh,
+          dead: tray.dead,
+          hard: tray.hard,
+        })
+        .returning('id')
+        .executeTakeFirstOrThrow();
+      if (tray.counts.length > 0) {
+        await trx
+          .insertInto('tray_counts')
+          .values(tray.counts.map((c) => ({ tray_id: row.id, check_date: c.date, cumulative: c.cumulative, created_by: userId })))
+          .execute();
+      }
+    }
+  }
+
+  return {
+    /** Every test of the bank, by lot code, start date and the order they were logged. */
+    async exportCsv(bankId: string): Promise<string> {
+      const tests = await testsWithLot(db, bankId)
+        .orderBy(sql`lower(lots.code)`)
+        .orderBy('germination_tests.start_date')
+        .orderBy('germination_tests.created_at')
+        .orderBy('germination_tests.id')
+        .execute();
+      const { trays, counts } = await traysAndCounts(db, tests.map((t) => t.id));
+      const rows: TestCsvTest[] = tests.map((t) => ({
+        ...testFields(t),
+        trays: trays
+          .filter((tr) => tr.test_id === t.id)
+          .map((tr) => ({
+            ...trayFields(tr),
+            counts: counts.filter((c) => c.tray_id === tr.id).map((c) => ({ date: c.check_date, cumulative: c.cumulative })),
+          })),
+      }));
+      return testsToCsv(rows);
+    },
+
+    /**
+     * Checks the whole file against the bank's lots and today; refuses it with every problem, or
+     * (dry run) says what it would add, or adds every test in one transaction.
+     */
+    async importCsv(bankId: string, userId: string, text: string, options: { dryRun: boolean }) {
+      const lots = await bankLots(bankId);
+      const today = await bankToday(db, clock, bankId);
+      const parsed = parseTestsCsv(text, { today, resolveLot: (code) => lots.get(code.toLowerCase())?.id ?? null });
+      if (!parsed.ok) throw invalidCsv(parsed.errors);
+      if (options.dryRun) {
+        const byId = new Map([...lots.values()].map((l) => [l.id, l]));
+        const preview: TestImportPreview[] = parsed.tests.map((t) => {
+          const lot = byId.get(t.lotId)!;
+          return {
+            line: t.line,
+            test: t.ref,
+            lotCode: lot.code,
+            species: lot.common_name,
+            variety: lot.variety,
+            startDate: t.startDate,
+            trays: t.trays.length,
+            seedsSown: t.trays.reduce((s, tr) => s + tr.seedsSown, 0),
+            checkDays: new Set(t.trays.flatMap((tr) => tr.counts.map((c) => c.date))).size,
+            finishedOn: t.finishedOn,
+          };
+        });
+        return { preview };
+      }
+      const imported = await db.transaction().execute(async (trx) => {
+        // One millisecond apart, so a lot's tests started the same day keep the file's order (the
+        // export sorts them by when they were logged).
+        const now = clock.now().getTime();
+        for (const [i, t] of parsed.tests.entries()) await insertTest(trx, bankId, userId, t, new Date(now + i));
+        return parsed.tests.length;
+      });
+      return { imported };
+    },
+  };
+}
+
+export type TestsCsvService = ReturnType<typeof createTestsCsvService>;

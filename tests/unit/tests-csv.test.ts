@@ -1,0 +1,157 @@
+import { describe, expect, it } from 'vitest';
+import {
+  TEST_CSV_COLUMNS,
+  parseTestsCsv,
+  testReferences,
+  testsToCsv,
+  type TestCsvContext,
+  type TestCsvTest,
+} from '../../server/modules/germination/tests.csv';
+
+// Sources cited below:
+// - RFC 4180 §2 [read]: records end with CRLF (rule 1); fields holding commas, double quotes or
+//   line breaks are quoted (6), with a double quote inside doubled (7).
+// - OWASP, "CSV Injection" [from memory]: cells starting with = + - @ tab or carriage return are
+//   read as formulas by spreadsheets; a leading single quote makes them text.
+// Fixture lots and tests are invented.
+
+const BOM = '\uFEFF';
+const LOTS: Record<string, string> = { 'tom-1': 'lot-tom', 'mar-2': 'lot-mar' };
+const context: TestCsvContext = { today: '2026-03-01', resolveLot: (code) => LOTS[code.toLowerCase()] ?? null };
+const HEADER = 'test,lot_code,start_date,method,tray,seeds_sown,check_date,cumulative,finished_on,abnormal,ungerminated';
+const file = (...lines: string[]) => [HEADER, ...lines].join('\r\n');
+
+function finished(): TestCsvTest {
+  return {
+    lotCode: 'TOM-1',
+    speciesName: 'Tomato',
+    variety: 'Plum, early',
+    startDate: '2026-02-01',
+    method: '=paper towel',
+    medium: 'Towel "A"',
+    temperatureC: 21.5,
+    lightHours: null,
+    pretreatment: 'soak',
+    pretreatmentDays: 1,
+    notes: 'Line one\nline two',
+    finishedOn: '2026-02-12',
+    trays: [
+      { position: 1, seedsSown: 10, abnormal: 1, ungerminated: 2, fresh: 1, dead: 1, hard: 0, counts: [{ date: '2026-02-05', cumulative: 4 }, { date: '2026-02-10', cumulative: 7 }] },
+      { position: 2, seedsSown: 10, abnormal: 0, ungerminated: 10, fresh: null, dead: null, hard: null, counts: [] },
+    ],
+  };
+}
+
+describe('germination tests CSV, export', () => {
+  it('when a lot has two tests started the same day, then the second reference gets #2', () => {
+    expect(
+      testReferences([
+        { lotCode: 'TOM-1', startDate: '2026-02-01' },
+        { lotCode: 'TOM-1', startDate: '2026-02-01' },
+        { lotCode: 'MAR-2', startDate: '2026-02-01' },
+        { lotCode: 'TOM-1', startDate: '2026-02-01' },
+      ]),
+    ).toEqual(['TOM-1 2026-02-01', 'TOM-1 2026-02-01 #2', 'MAR-2 2026-02-01', 'TOM-1 2026-02-01 #3']);
+  });
+
+  it('when a test is written, then each tray has a record per check day, an uncounted tray one with no date, CRLF between them', () => {
+    const csv = testsToCsv([finished()]);
+    expect(csv.startsWith(`${BOM}${TEST_CSV_COLUMNS.join(',')}\r\n`)).toBe(true); // RFC 4180 §2 rule 1
+    const body = csv.slice(BOM.length);
+    // The notes' line break is inside quotes (RFC 4180 §2 rule 6), so split on CRLF only.
+    const records = body.split('\r\n').slice(1);
+    expect(records).toHaveLength(3);
+    expect(records[0]).toBe(
+      `TOM-1 2026-02-01,TOM-1,Tomato,"Plum, early",2026-02-01,'=paper towel,"Towel ""A""",21.5,,soak,1,"Line one\nline two",1,10,2026-02-05,4,2026-02-12,1,2,1,1,0`,
+    );
+    expect(records[2]).toMatch(/,2,10,,,2026-02-12,0,10,,,$/);
+  });
+
+  it('when the export is read back, then the test comes back as it was, formula guard removed', () => {
+    const { speciesName: _species, variety: _variety, ...test } = finished();
+    expect(parseTestsCsv(testsToCsv([finished()]), context)).toEqual({
+      ok: true,
+      tests: [{ ...test, ref: 'TOM-1 2026-02-01', line: 2, lotId: 'lot-tom' }],
+    });
+  });
+
+  it('when a file has only the header row, then it reads as no tests', () => {
+    expect(parseTestsCsv(`${BOM}${TEST_CSV_COLUMNS.join(',')}\r\n`, context)).toEqual({ ok: true, tests: [] });
+  });
+});
+
+describe('germination tests CSV, import checks', () => {
+  const errorsOf = (csv: string) => {
+    const result = parseTestsCsv(csv, context);
+    if (result.ok) throw new Error('expected problems');
+    return result.errors.map((e) => [e.line, e.column ?? null, e.message]);
+  };
+
+  it('when required columns are missing, then the header line names them', () => {
+    expect(errorsOf('test,lot_code,method\nx,TOM-1,paper towel\n')).toEqual([
+      [1, null, 'Missing columns: "start_date", "tray", "seeds_sown".'],
+    ]);
+  });
+
+  it('when the records of one test disagree or repeat, then each later line is named', () => {
+    const rows = errorsOf(
+      file(
+        'a,TOM-1,2026-02-01,paper towel,1,10,2026-02-05,3,,,',
+        'a,MAR-2,2026-02-01,paper towel,1,12,2026-02-05,3,,,', // 3: other lot, other seeds sown, day repeated
+        'a,TOM-1,2026-02-01,petri dish,2,10,,,,,', // 4: other method
+      ),
+    );
+    expect(rows.map(([line, column]) => [line, column])).toEqual([
+      [3, 'lot_code'],
+      [3, 'seeds_sown'],
+      [3, 'check_date'],
+      [4, 'method'],
+    ]);
+  });
+
+  it('when a check date comes without its count, then that line is named', () => {
+    expect(errorsOf(file('a,TOM-1,2026-02-01,paper towel,1,10,2026-02-05,,,,'))).toEqual([
+      [2, 'cumulative', expect.stringMatching(/^Give both the check date and the cumulative count/)],
+    ]);
+  });
+
+  it('when seedlings are counted on the start day, then the count rules of the API refuse it', () => {
+    expect(errorsOf(file('a,TOM-1,2026-02-01,paper towel,1,10,2026-02-01,2,,,'))).toEqual([
+      [2, 'cumulative', expect.stringMatching(/sprouted on the day the test started/)],
+    ]);
+  });
+
+  it('when a finished tray does not add up, or finish values come without finished_on, then the tray is named', () => {
+    const rows = errorsOf(
+      file(
+        'done,TOM-1,2026-02-01,paper towel,1,10,2026-02-09,6,2026-02-10,1,2', // 6 + 1 + 2 = 9 of 10
+        'open,MAR-2,2026-02-01,paper towel,1,10,2026-02-09,6,,1,3',
+        'early,MAR-2,2026-02-01,paper towel,1,10,2026-02-09,6,2026-02-08,1,3',
+      ),
+    );
+    expect(rows).toEqual([
+      [2, 'ungerminated', 'Tray 1: 6 normal + 1 abnormal + 2 ungerminated = 9, but 10 seeds were sown.'],
+      [3, 'finished_on', expect.stringMatching(/give finished_on too/)],
+      [4, 'finished_on', 'Test "early" cannot finish before its last count (2026-02-09).'],
+    ]);
+  });
+
+  it('when cold stratification has no days, then the API’s own test schema names the column', () => {
+    const csv = [
+      'test,lot_code,start_date,method,pretreatment,pretreatment_days,tray,seeds_sown',
+      'cold,TOM-1,2026-02-01,paper towel,Cold-Stratification,,1,10',
+    ].join('\n');
+    expect(errorsOf(csv)).toEqual([[2, 'pretreatment_days', 'Say how many days of cold stratification.']]);
+  });
+
+  it('when one line of a test is broken, then only that line is reported, not the test as a whole', () => {
+    const rows = errorsOf(
+      file(
+        'a,TOM-1,2026-02-01,paper towel,1,10,,,,,',
+        'a,TOM-1,2026-02-01,paper towel,two,10,,,,,', // tray 2 would be missing if this line were dropped
+        'a,TOM-1,2026-02-01,paper towel,3,10,,,,,',
+      ),
+    );
+    expect(rows).toEqual([[3, 'tray', 'Use the tray number, 1 to 8.']]);
+  });
+});
