@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { idSchema } from './common';
+import { originSchema } from './lots';
 
 const n = z.number();
 const nn = z.number().nullable();
@@ -47,6 +48,11 @@ export const rankingItemSchema = z.object({
   species: z.string(),
   variety: z.string(),
   status: z.enum(['active', 'depleted', 'retired']),
+  /** Where the seed came from, and from whom, as the lot records it. */
+  origin: originSchema,
+  sourceName: z.string().nullable(),
+  /** Treated seed (a fungicide coat): lists mark it, so nobody handles it unawares. */
+  treated: z.boolean(),
   ageYears: n,
   lastTestDate: z.string().nullable(),
   lastPercent: nn,

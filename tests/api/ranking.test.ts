@@ -96,6 +96,16 @@ describe('viability, ranking and seeds to sow', () => {
     expect(await count()).toBe(before);
   });
 
+  it('when a lot was swapped in as treated seed, then its ranking row says where it came from and that it is treated', async () => {
+    const res = await bank.grower.agent
+      .post(`${base()}/lots`)
+      .send({ speciesId: tomato, variety: 'Coated Swap', origin: 'swapped', sourceName: 'Orchard Lane circle', treated: true, harvestDate: '2025-09-01', seedCount: 50 });
+    expect(res.status).toBe(201);
+    const ranking = await bank.viewer.agent.get(`${base()}/ranking?on=2027-03-01`);
+    const row = (ranking.body.items as { lotId: string }[]).find((i) => i.lotId === res.body.lot.id);
+    expect(row).toMatchObject({ origin: 'swapped', sourceName: 'Orchard Lane circle', treated: true });
+  });
+
   it('when seeds to sow are asked for 12 plants, then the least n with enough assurance comes back', async () => {
     const lotId = await newLot('For sowing', 1000, '2025-09-01');
     await finishedTest(bank.grower.agent, bank.bankId, lotId, '2026-02-01', [{ sown: 100, germinated: 80 }]);

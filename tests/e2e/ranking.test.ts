@@ -276,6 +276,38 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
     await context.close();
   });
 
+  it('when a viewer keeps only swapped lots and searches a source, then the treated swap shows, marked as treated seed', async () => {
+    const api = request.agent(server.app);
+    await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
+    const swap = await api.post(`/api/banks/${bankId}/lots`).send({
+      speciesId: await speciesId(server.db, 'marigold'),
+      variety: 'Coated Gift',
+      origin: 'swapped',
+      sourceName: 'Brookside table',
+      treated: true,
+      harvestDate: '2026-08-01',
+      seedCount: 120,
+      code: 'RNK-SWAP',
+    });
+    expect(swap.status).toBe(201);
+    const context = await browser.newContext({ viewport: DESKTOP });
+    await context.clock.setFixedTime(new Date(NOW));
+    const page = await context.newPage();
+    await signIn(page, viewer.email);
+    await page.goto(`${server.baseUrl}/banks/${bankId}/lots`);
+    await page.getByRole('combobox', { name: 'Origin' }).selectOption('swapped');
+    await expect.poll(() => new URL(page.url()).searchParams.get('origin')).toBe('swapped');
+    // Every lot left came by swap (the server's own origins), and the one made here is among them.
+    const swapped = await api.get(`/api/banks/${bankId}/ranking?on=${ON}`);
+    const swappedCodes = (swapped.body.items as RankingItem[]).filter((i) => i.origin === 'swapped').map((i) => i.code);
+    await expect.poll(async () => (await rowCodes(page)).includes('RNK-SWAP')).toBe(true);
+    expect(swappedCodes).toEqual(expect.arrayContaining(await rowCodes(page)));
+    await page.getByRole('searchbox', { name: 'Search' }).fill('brookside');
+    await expect.poll(() => rowCodes(page)).toEqual(['RNK-SWAP']);
+    expect(await page.locator('tr[data-lot="RNK-SWAP"]').innerText()).toContain('treated seed');
+    await context.close();
+  });
+
   // Runs last: it fills the bank with lots the tests above would otherwise have to look past.
   it('when the bank holds 5,000 lots, then the table and the phone cards keep only the rows near the screen in the page', async () => {
     const BULK = 5000;

@@ -79,6 +79,7 @@ export function RankingCards({ table, lotHref }: RankingCardsProps) {
                   <p className="truncate font-semibold text-loam-900">
                     {lot.species} · {lot.variety}
                   </p>
+                  {lot.treated ? <p className="text-sm font-semibold text-clay-800">Treated seed: wear gloves</p> : null}
                 </div>
                 <input
                   type="checkbox"

@@ -104,6 +104,7 @@ export function rankingColumns({ lotHref, openReason }: RankingColumnsOptions) {
               {c.getValue()}
             </Link>
             {c.row.original.status === 'depleted' ? <span className="block text-xs text-loam-600">used up</span> : null}
+            {c.row.original.treated ? <span className="block text-xs font-semibold text-clay-800">treated seed</span> : null}
           </span>
         </span>
       ),

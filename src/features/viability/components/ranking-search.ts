@@ -1,6 +1,7 @@
 import type { SortingState } from '@tanstack/react-table';
 import { z } from 'zod';
 import { idSchema } from '../../../../shared/schemas/common';
+import { originSchema } from '../../../../shared/schemas/lots';
 import { recommendationSchema, type RecommendationValue } from '../../../../shared/schemas/viability';
 import { parseSowingDate } from './sowing-date';
 
@@ -30,6 +31,7 @@ export interface RankingView {
   speciesId: string | undefined;
   recommendation: RecommendationValue | undefined;
   status: RankingStatus | undefined;
+  origin: z.infer<typeof originSchema> | undefined;
   sorting: SortingState;
   hidden: RankingColumnId[];
 }
@@ -67,6 +69,7 @@ export function viewFromSearch(search: URLSearchParams): RankingView {
     speciesId: idSchema.safeParse(search.get('species')).data,
     recommendation: recommendationSchema.safeParse(search.get('rec')).data,
     status: rankingStatusSchema.safeParse(search.get('status')).data,
+    origin: originSchema.safeParse(search.get('origin')).data,
     sorting: parseSorting(search.get('sort')),
     hidden: [...new Set(hidden)],
   };
@@ -80,6 +83,7 @@ export function searchFromView(view: RankingView): URLSearchParams {
   if (view.speciesId) search.set('species', view.speciesId);
   if (view.recommendation) search.set('rec', view.recommendation);
   if (view.status) search.set('status', view.status);
+  if (view.origin) search.set('origin', view.origin);
   const sort = sortingText(view.sorting);
   if (sort !== sortingText(DEFAULT_SORTING)) search.set('sort', sort);
   if (view.hidden.length) search.set('hide', view.hidden.join(','));

@@ -6,6 +6,7 @@ import { TextField } from '../../../components/ui/text-field';
 import { columnMeta } from './ranking-columns';
 import { rankingStatusSchema, type RankingColumnId, type RankingView } from './ranking-search';
 import { recommendationLabels, recommendationOrder } from './viability-format';
+import { originSchema } from '../../../../shared/schemas/lots';
 import { recommendationSchema } from '../../../../shared/schemas/viability';
 
 export interface RankingToolbarProps {
@@ -41,13 +42,13 @@ export function RankingToolbar({ view, onChange, on, defaultOn, species }: Ranki
         event.preventDefault();
         onChange({ ...view, q: q.trim() || undefined });
       }}
-      className="grid grid-cols-2 gap-3 md:grid-cols-[minmax(0,1.6fr)_repeat(4,minmax(0,1fr))]"
+      className="grid grid-cols-2 gap-3 md:grid-cols-3 lg:grid-cols-[minmax(0,1.4fr)_repeat(5,minmax(0,1fr))]"
     >
       <TextField
         label="Search"
-        containerClassName="col-span-2 md:col-span-1"
+        containerClassName="col-span-2 md:col-span-3 lg:col-span-1"
         type="search"
-        placeholder="Code, species or variety"
+        placeholder="Code, variety, source…"
         value={q}
         onChange={(event) => setQ(event.target.value)}
       />
@@ -80,9 +81,19 @@ export function RankingToolbar({ view, onChange, on, defaultOn, species }: Ranki
         value={view.status ?? ''}
         onChange={(event) => onChange({ ...view, status: rankingStatusSchema.safeParse(event.target.value).data })}
       >
-        <option value="">Active and used up</option>
+        <option value="">Any status</option>
         <option value="active">Active</option>
         <option value="depleted">Used up</option>
+      </SelectField>
+      <SelectField
+        label="Origin"
+        value={view.origin ?? ''}
+        onChange={(event) => onChange({ ...view, origin: originSchema.safeParse(event.target.value).data })}
+      >
+        <option value="">Any origin</option>
+        <option value="saved">Saved</option>
+        <option value="swapped">Swapped</option>
+        <option value="bought">Bought</option>
       </SelectField>
       <TextField
         label="Sowing date"

@@ -41,8 +41,9 @@ function matches(item: RankingItem, view: View, words: string[]): boolean {
   if (view.speciesId && item.speciesId !== view.speciesId) return false;
   if (view.recommendation && item.recommendation !== view.recommendation) return false;
   if (view.status && item.status !== view.status) return false;
+  if (view.origin && item.origin !== view.origin) return false;
   if (words.length) {
-    const text = `${item.code} ${item.species} ${item.variety}`.toLowerCase();
+    const text = `${item.code} ${item.species} ${item.variety} ${item.sourceName ?? ''}`.toLowerCase();
     if (!words.every((w) => text.includes(w))) return false;
   }
   return true;
@@ -133,7 +134,7 @@ export function RankingView({ bankId, lastFrost, today, selectionActions }: Rank
 
   // Ticked lots stay ticked while filters hide them; only lots still in the ranking count.
   const selectedIds = all.filter((i) => selection[i.lotId]).map((i) => i.lotId);
-  const filtered = Boolean(view.q || view.speciesId || view.recommendation || view.status);
+  const filtered = Boolean(view.q || view.speciesId || view.recommendation || view.status || view.origin);
 
   let body: ReactNode;
   if (ranking.isPending) {
@@ -160,7 +161,7 @@ export function RankingView({ bankId, lastFrost, today, selectionActions }: Rank
         title="No lots match"
         description="Try another word, or clear the filters."
         action={
-          <Button variant="secondary" onClick={() => setView({ ...view, q: undefined, speciesId: undefined, recommendation: undefined, status: undefined })}>
+          <Button variant="secondary" onClick={() => setView({ ...view, q: undefined, speciesId: undefined, recommendation: undefined, status: undefined, origin: undefined })}>
             Clear search and filters
           </Button>
         }
