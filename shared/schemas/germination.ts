@@ -135,3 +135,24 @@ export const testDetailSchema = z.object({
   result: resultSchema,
 });
 export type TestDetail = z.infer<typeof testDetailSchema>;
+
+/** POST …/tests/import?dryRun=true: what a germination tests CSV would add, one entry per test. */
+export const testsImportPreviewSchema = z.object({
+  preview: z.array(
+    z.object({
+      /** The file line of the test's first record. */
+      line: z.number(),
+      /** The file's `test` reference. */
+      test: z.string(),
+      lotCode: z.string(),
+      species: z.string(),
+      variety: z.string(),
+      startDate: z.string(),
+      trays: z.number(),
+      seedsSown: z.number(),
+      checkDays: z.number(),
+      finishedOn: z.string().nullable(),
+    }),
+  ),
+});
+export type TestsImportPreview = z.infer<typeof testsImportPreviewSchema>['preview'];

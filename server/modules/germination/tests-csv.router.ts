@@ -1,26 +1,11 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { testsImportPreviewSchema } from '../../../shared/schemas/germination';
 import { requireRole } from '../../auth/bank-access';
 import { csvFileText, csvUpload } from '../../csv/csv-upload';
 import { respond } from '../../http/respond';
 import type { TestsCsvService } from './tests-csv.service';
 
-const previewSchema = z.object({
-  preview: z.array(
-    z.object({
-      line: z.number(),
-      test: z.string(),
-      lotCode: z.string(),
-      species: z.string(),
-      variety: z.string(),
-      startDate: z.string(),
-      trays: z.number(),
-      seedsSown: z.number(),
-      checkDays: z.number(),
-      finishedOn: z.string().nullable(),
-    }),
-  ),
-});
 const importedSchema = z.object({ imported: z.number() });
 
 /** GET /api/banks/:bankId/tests.csv */
@@ -41,7 +26,7 @@ export function testsCsvImport(csv: TestsCsvService): Router {
   router.post('/', requireRole('grower'), csvUpload.single('file'), async (req, res) => {
     const { dryRun, text } = csvFileText(req);
     const outcome = await csv.importCsv(req.bank!.id, req.auth!.userId, text, { dryRun });
-    respond(res, 200, z.union([previewSchema, importedSchema]), outcome);
+    respond(res, 200, z.union([testsImportPreviewSchema, importedSchema]), outcome);
   });
   return router;
 }

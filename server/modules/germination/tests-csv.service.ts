@@ -7,24 +7,12 @@
  * used. Deleting an imported test later gives no seeds back for the same reason.
  */
 import { sql } from 'kysely';
+import type { TestsImportPreview } from '../../../shared/schemas/germination';
 import { bankToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
 import { invalidCsv } from '../../http/errors';
 import { testFields, testsWithLot, trayFields, traysAndCounts } from './germination.service';
 import { parseTestsCsv, testsToCsv, type ParsedTestCsvTest, type TestCsvTest } from './tests.csv';
-
-export interface TestImportPreview {
-  line: number;
-  test: string;
-  lotCode: string;
-  species: string;
-  variety: string;
-  startDate: string;
-  trays: number;
-  seedsSown: number;
-  checkDays: number;
-  finishedOn: string | null;
-}
 
 export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
   async function bankLots(bankId: string) {
@@ -115,7 +103,7 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
       if (!parsed.ok) throw invalidCsv(parsed.errors);
       if (options.dryRun) {
         const byId = new Map([...lots.values()].map((l) => [l.id, l]));
-        const preview: TestImportPreview[] = parsed.tests.map((t) => {
+        const preview: TestsImportPreview = parsed.tests.map((t) => {
           const lot = byId.get(t.lotId)!;
           return {
             line: t.line,

@@ -3,6 +3,7 @@ import { buttonStyles } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { PageHeader } from '../../../components/ui/page-header';
 import { paths } from '../../../config/paths';
+import { apiPaths } from '../../../features/germination/api/keys';
 import { PrintLabelLink } from '../../../features/labels/components/print-label-link';
 import { useLots } from '../../../features/lots/api/get-lots';
 import { lotApiPaths } from '../../../features/lots/api/keys';
@@ -26,6 +27,9 @@ export function LotsPage() {
       ) : null}
       <a href={lotApiPaths.csv(bank.id)} download className={buttonStyles({ variant: 'secondary' })}>
         Export CSV
+      </a>
+      <a href={apiPaths.testsCsv(bank.id)} download className={buttonStyles({ variant: 'secondary' })}>
+        Export tests CSV
       </a>
       {canEdit ? (
         <Link to={paths.importLots.getHref(bank.id)} className={buttonStyles({ variant: 'secondary' })}>

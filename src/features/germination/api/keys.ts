@@ -21,6 +21,8 @@ const bankPath = (bankId: string) => `/api/banks/${encodeURIComponent(bankId)}`;
 const testPath = (bankId: string, testId: string) => `${bankPath(bankId)}/tests/${encodeURIComponent(testId)}`;
 
 export const apiPaths = {
+  testsCsv: (bankId: string) => `${bankPath(bankId)}/tests.csv`,
+  testsImport: (bankId: string, dryRun: boolean) => `${bankPath(bankId)}/tests/import${dryRun ? '?dryRun=true' : ''}`,
   lotTests: (bankId: string, lotId: string) => `${bankPath(bankId)}/lots/${encodeURIComponent(lotId)}/tests`,
   test: testPath,
   counts: (bankId: string, testId: string) => `${testPath(bankId, testId)}/counts`,
