@@ -279,7 +279,7 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       await j.step('sign in', () => signIn(page, email));
       await j.step('lots', async () => {
         await page.goto(`${server.baseUrl}/banks/${bankId}/lots`);
-        await page.getByRole('link', { name: 'Export CSV' }).waitFor();
+        await page.getByRole('link', { name: 'Export lots CSV' }).waitFor();
         expect([await count(page, 'link', 'New lot'), await count(page, 'link', 'Import CSV')]).toEqual([writes, writes]);
       });
       await j.step('a lot', async () => {

@@ -157,7 +157,7 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
 
     expect(await page.getByRole('link', { name: 'New lot' }).count()).toBe(0);
     expect(await page.getByRole('link', { name: 'Import CSV' }).count()).toBe(0);
-    expect(await page.getByRole('link', { name: 'Export CSV' }).count()).toBe(1);
+    expect(await page.getByRole('link', { name: 'Export lots CSV' }).count()).toBe(1);
 
     // Sorting by seeds on hand (numbers sort largest first on the first press) puts the larger lot
     // first, whatever the codes say.

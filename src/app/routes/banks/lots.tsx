@@ -26,7 +26,7 @@ export function LotsPage() {
         </Link>
       ) : null}
       <a href={lotApiPaths.csv(bank.id)} download className={buttonStyles({ variant: 'secondary' })}>
-        Export CSV
+        Export lots CSV
       </a>
       <a href={apiPaths.testsCsv(bank.id)} download className={buttonStyles({ variant: 'secondary' })}>
         Export tests CSV
