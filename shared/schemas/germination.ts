@@ -94,6 +94,8 @@ export const testSchema = z.object({
   notes: z.string().nullable(),
   status: z.enum(['running', 'finished']),
   finishedOn: z.string().nullable(),
+  /** Seeds the test took from the lot's stock ledger (0 for a test imported as history). */
+  seedsTaken: z.number(),
   /** Suggested check dates from the species' first and final count days. */
   schedule: z.object({ firstCountDate: z.string().nullable(), finalCountDate: z.string().nullable() }),
   createdAt: z.string(),

@@ -43,6 +43,8 @@ describe('germination tests through the API', () => {
     expect(test.schedule).toEqual({ firstCountDate: '2026-03-06', finalCountDate: '2026-03-15' });
     const ledger = await bank.viewer.agent.get(`${base()}/lots/${lotId}/stock`);
     expect(ledger.body.items.at(-1)).toMatchObject({ kind: 'test', change: -400, balance: 100, date: '2026-03-01' });
+    // The test says what it took, which is what deleting it gives back.
+    expect((await bank.viewer.agent.get(`${base()}/tests/${test.id}`)).body.test.seedsTaken).toBe(400);
   });
 
   it('when counts are posted over three check days, then the result matches the statistics functions', async () => {

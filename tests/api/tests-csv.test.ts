@@ -151,7 +151,8 @@ describe('CSV export and import of germination tests', () => {
       const details = [];
       for (const t of await testsOf(bank)) details.push((await bank.viewer.agent.get(`${base(bank)}/tests/${t.id}`)).body);
       return details.map((d) => {
-        const { id: _i, lotId: _l, lotCode: _c, createdAt: _ca, ...test } = d.test;
+        // What each test took from its lot's stock differs on purpose: see seedsTaken below.
+        const { id: _i, lotId: _l, lotCode: _c, createdAt: _ca, seedsTaken: _s, ...test } = d.test;
         const trayIds: string[] = d.trays.map((t: { id: string }) => t.id);
         return {
           test,
@@ -167,6 +168,15 @@ describe('CSV export and import of germination tests', () => {
     const before = await detailsOf(a);
     const after = await detailsOf(b);
     expect(after).toEqual(before);
+    // Tests started in bank A took their seeds from the ledger; the imported copies took none, and
+    // say so, so deleting one gives nothing back.
+    const taken = async (bank: Bank) => {
+      const out = [];
+      for (const t of await testsOf(bank)) out.push((await bank.viewer.agent.get(`${base(bank)}/tests/${t.id}`)).body.test.seedsTaken as number);
+      return out.sort((x, y) => x - y);
+    };
+    expect(await taken(a)).toEqual([8, 40, 100]);
+    expect(await taken(b)).toEqual([0, 0, 0]);
     expect(after[0]!.result.percent).toBeCloseTo(82, 10); // (20+22+19+21)/100 normal seedlings
     // The second bank's export is the first's, but for the lot code it was given in that bank.
     const again = (await b.viewer.agent.get(`${base(b)}/tests.csv`)).text;

@@ -80,6 +80,16 @@ describe.skipIf(!chromiumPath)('importing germination tests in Chromium', () => 
     // History: the lot's stock ledger is unchanged.
     const after = await server.db.selectFrom('stock_movements').select((eb) => eb.fn.sum<string>('change').as('s')).where('lot_id', '=', lot.id).executeTakeFirstOrThrow();
     expect(after.s).toBe(before.s);
+
+    // Deleting the imported test says it gives nothing back, and gives nothing back.
+    await item.getByRole('link').first().click();
+    await page.getByRole('button', { name: 'Delete this test…' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Delete this test?' });
+    await expect.poll(() => dialog.innerText()).toContain(`It took no seeds from lot ${lot.code}’s stock`);
+    await dialog.getByRole('button', { name: 'Delete the test' }).click();
+    await expect.poll(() => page.getByText(`Test deleted; lot ${lot.code}’s stock is as it was.`).count()).toBe(1);
+    const afterDelete = await server.db.selectFrom('stock_movements').select((eb) => eb.fn.sum<string>('change').as('s')).where('lot_id', '=', lot.id).executeTakeFirstOrThrow();
+    expect(afterDelete.s).toBe(before.s);
     await context.close();
   });
 });

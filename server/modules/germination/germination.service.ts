@@ -1,4 +1,4 @@
-import type { Selectable, Updateable } from 'kysely';
+import { sql, type Selectable, type Updateable } from 'kysely';
 import type { z } from 'zod';
 import type { CountsBody, CreateTestBody, FinishBody, TestDetail, updateTestBodySchema } from '../../../shared/schemas/germination';
 import { bankToday, type Clock } from '../../clock';
@@ -108,6 +108,13 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
       firstCountDate: first !== null ? addDays(t.start_date, first) : null,
       finalCountDate: final !== null ? addDays(t.start_date, final) : null,
     };
+    // What the test took from the lot's ledger (none for a test imported as history): what its
+    // deletion gives back.
+    const taken = await on
+      .selectFrom('stock_movements')
+      .select(sql<number>`coalesce(-sum(change), 0)::int`.as('seeds'))
+      .where('test_id', '=', testId)
+      .executeTakeFirstOrThrow();
     const summary = summarizeTest(
       trays.map((tr) => ({
         id: tr.id,
@@ -122,6 +129,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         lotId: t.lot_id,
         ...testFields(t),
         status: t.status,
+        seedsTaken: taken.seeds,
         schedule,
         createdAt: t.created_at.toISOString(),
       },

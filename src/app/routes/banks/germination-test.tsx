@@ -44,7 +44,11 @@ export function GerminationTestPage() {
 
   const onDeleted = async () => {
     const lotId = detail?.test.lotId;
-    const state: BankNoticeState = { notice: `Test deleted; its seeds are back in lot ${detail?.test.lotCode ?? ''}.` };
+    const state: BankNoticeState = {
+      notice: detail?.test.seedsTaken
+        ? `Test deleted; its ${detail.test.seedsTaken} seeds are back in lot ${detail.test.lotCode}.`
+        : `Test deleted; lot ${detail?.test.lotCode ?? ''}’s stock is as it was.`,
+    };
     await navigate(lotId ? paths.lot.getHref(bank.id, lotId) : paths.lots.getHref(bank.id), { replace: true, state });
     forgetTest(queryClient, bank.id, testId);
   };

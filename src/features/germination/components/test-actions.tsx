@@ -17,13 +17,12 @@ export interface TestActionsProps {
 
 /** Finish, reopen and delete: for growers only (the page leaves this out for viewers). */
 export function TestActions({ bankId, detail, today, onDeleted }: TestActionsProps) {
-  const { test, trays } = detail;
+  const { test } = detail;
   const reopen = useReopenTest(bankId, test.id);
   const remove = useDeleteTest(bankId, test.id);
   const [finishing, setFinishing] = useState(false);
   const [deleting, setDeleting] = useState(false);
   const [notice, setNotice] = useState<string>();
-  const sown = trays.reduce((sum, t) => sum + t.seedsSown, 0);
 
   return (
     <section aria-labelledby="test-actions-title" className="rounded-xl border border-loam-200 bg-white p-4 sm:p-5">
@@ -77,8 +76,11 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
         onCancel={() => setDeleting(false)}
         onConfirm={() => remove.mutate(undefined, { onSuccess: () => onDeleted() })}
       >
-        The test started {formatDate(test.startDate)}, its counts and tray photos are removed, and its {sown} seeds go
-        back into lot {test.lotCode}’s stock. Use this for a test entered by mistake.
+        The test started {formatDate(test.startDate)} and its counts and tray photos are removed.{' '}
+        {test.seedsTaken > 0
+          ? `Its ${test.seedsTaken} seeds go back into lot ${test.lotCode}’s stock.`
+          : `It took no seeds from lot ${test.lotCode}’s stock (it came in with a file of past tests), so the stock stays as it is.`}{' '}
+        Use this for a test entered by mistake.
       </ConfirmDialog>
     </section>
   );
