@@ -47,6 +47,23 @@ describe('germination tests through the API', () => {
     expect((await bank.viewer.agent.get(`${base()}/tests/${test.id}`)).body.test.seedsTaken).toBe(400);
   });
 
+  it('when a test would start before the lot was harvested, then it is 422 and no seeds leave the stock', async () => {
+    const lotId = await lotWith(300); // harvested 2025-09-10
+    const res = await bank.grower.agent.post(`${base()}/lots/${lotId}/tests`).send({ startDate: '2025-09-01', method: 'paper towel', trays: [{ seedsSown: 50 }] });
+    expect(res.status).toBe(422);
+    expect(res.body.error.message).toMatch(/before lot .* was harvested \(2025-09-10\)/);
+    expect(res.body.error.fields).toEqual({ startDate: 'Use a date on or after the harvest.' });
+    expect((await bank.viewer.agent.get(`${base()}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(300);
+    // The harvest day itself is fine.
+    const onHarvest = await bank.grower.agent.post(`${base()}/lots/${lotId}/tests`).send({ startDate: '2025-09-10', method: 'paper towel', trays: [{ seedsSown: 50 }] });
+    expect(onHarvest.status).toBe(201);
+    // Nor can the lot's harvest date be moved past its test afterwards.
+    const moved = await bank.grower.agent.patch(`${base()}/lots/${lotId}`).send({ harvestDate: '2025-09-20' });
+    expect(moved.status).toBe(422);
+    expect(moved.body.error.fields.harvestDate).toBe('Use a day on or before 2025-09-10.');
+    expect((await bank.viewer.agent.get(`${base()}/lots/${lotId}`)).body.lot.harvestDate).toBe('2025-09-10');
+  });
+
   it('when counts are posted over three check days, then the result matches the statistics functions', async () => {
     const lotId = await lotWith(400);
     const { test, trays } = await fourTrayTest(lotId);

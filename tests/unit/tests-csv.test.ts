@@ -154,4 +154,13 @@ describe('germination tests CSV, import checks', () => {
     );
     expect(rows).toEqual([[3, 'tray', 'Use the tray number, 1 to 8.']]);
   });
+
+  it('when a test starts before its lot was harvested, then that test’s first line says so', () => {
+    const withHarvest: TestCsvContext = { ...context, harvestDateOf: (lotId) => (lotId === 'lot-tom' ? '2026-02-10' : null) };
+    const result = parseTestsCsv(file('T1,TOM-1,2026-02-01,paper towel,1,10,,,,,', 'T2,MAR-2,2026-01-15,paper towel,1,10,,,,,'), withHarvest);
+    expect(result).toEqual({
+      ok: false,
+      errors: [{ line: 2, column: 'start_date', message: expect.stringMatching(/before lot TOM-1 was harvested \(2026-02-10\)/) }],
+    });
+  });
 });

@@ -105,3 +105,12 @@ export function finishProblem(
   }
   return null;
 }
+
+/**
+ * A test sows seed that exists: it cannot start before the lot was harvested. A lot known only by
+ * its packed-for season has no harvest day to check against.
+ */
+export function startBeforeHarvest(startDate: string, harvestDate: string | null, lotCode: string): string | null {
+  if (harvestDate === null || startDate >= harvestDate) return null;
+  return `The test starts on ${startDate}, before lot ${lotCode} was harvested (${harvestDate}). Check the start date, or the lot's harvest date.`;
+}

@@ -8,7 +8,7 @@ import { AppError, conflict, notFound, unprocessable } from '../../http/errors';
 import { summarizeTest, type IntervalMethod } from '../../stats';
 import { findSpecies } from '../species/species.service';
 import { lockLot, stockOf } from '../lots/lots.repository';
-import { countProblems, finishProblem } from './count-rules';
+import { countProblems, finishProblem, startBeforeHarvest } from './count-rules';
 import { resultWords } from './result-words';
 
 const DAY_MS = 86_400_000;
@@ -155,6 +155,8 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
       const testId = await db.transaction().execute(async (trx) => {
         const lot = await lockLot(trx, bankId, lotId);
         if (!lot) throw notFound('No such lot in this bank.');
+        const early = startBeforeHarvest(body.startDate, lot.harvest_date, lot.code);
+        if (early) throw unprocessable(early, { startDate: 'Use a date on or after the harvest.' });
         const needed = body.trays.reduce((s, t) => s + t.seedsSown, 0);
         const onHand = await stockOf(trx, lotId);
         if (onHand < needed) {

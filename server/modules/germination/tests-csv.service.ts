@@ -19,7 +19,7 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
     const rows = await db
       .selectFrom('lots')
       .innerJoin('species', 'species.id', 'lots.species_id')
-      .select(['lots.id', 'lots.code', 'lots.variety', 'species.common_name'])
+      .select(['lots.id', 'lots.code', 'lots.variety', 'lots.harvest_date', 'species.common_name'])
       .where('lots.bank_id', '=', bankId)
       .execute();
     return new Map(rows.map((r) => [r.code.toLowerCase(), r]));
@@ -99,7 +99,12 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
     async importCsv(bankId: string, userId: string, text: string, options: { dryRun: boolean }) {
       const lots = await bankLots(bankId);
       const today = await bankToday(db, clock, bankId);
-      const parsed = parseTestsCsv(text, { today, resolveLot: (code) => lots.get(code.toLowerCase())?.id ?? null });
+      const harvests = new Map([...lots.values()].map((l) => [l.id, l.harvest_date]));
+      const parsed = parseTestsCsv(text, {
+        today,
+        resolveLot: (code) => lots.get(code.toLowerCase())?.id ?? null,
+        harvestDateOf: (lotId) => harvests.get(lotId) ?? null,
+      });
       if (!parsed.ok) throw invalidCsv(parsed.errors);
       if (options.dryRun) {
         const byId = new Map([...lots.values()].map((l) => [l.id, l]));

@@ -38,7 +38,7 @@ import {
   type CsvError,
   type CsvLayout,
 } from '../../csv/csv-file';
-import { countProblems, finishProblem } from './count-rules';
+import { countProblems, finishProblem, startBeforeHarvest } from './count-rules';
 
 /** What a test is: every record of a test repeats these. */
 const SETUP_COLUMNS = [
@@ -234,6 +234,8 @@ export interface TestCsvContext {
   resolveLot: (code: string) => string | null;
   /** Today on the bank's calendar (YYYY-MM-DD): no date in the file may be later. */
   today: string;
+  /** The lot's harvest date, when it has one: no test of it may start earlier. */
+  harvestDateOf?: (lotId: string) => string | null;
 }
 
 function recordErrors(context: TestCsvContext, c: z.infer<typeof recordSchema>, line: number): CsvError[] {
@@ -287,7 +289,7 @@ function finishValue(records: TestCsvRecord[], column: (typeof FINISH_COLUMNS)[n
 const trayKey = (position: number) => `tray-${position}`;
 
 /** Every problem of one test's records taken together, and the test when there is none. */
-function checkTest(ref: string, records: TestCsvRecord[]): { errors: CsvError[]; test: ParsedTestCsvTest | null } {
+function checkTest(ref: string, records: TestCsvRecord[], context: TestCsvContext): { errors: CsvError[]; test: ParsedTestCsvTest | null } {
   const first = records[0]!;
   const what = `Test "${ref}"`;
   const errors: CsvError[] = [];
@@ -356,6 +358,8 @@ function checkTest(ref: string, records: TestCsvRecord[]): { errors: CsvError[];
     trays: trays.map((t) => ({ seedsSown: t.seedsSown })),
   } satisfies CreateTestBody;
   errors.push(...bodyErrors(body, first.line));
+  const early = startBeforeHarvest(first.start_date, context.harvestDateOf?.(first.lotId) ?? null, first.lot_code);
+  if (early) errors.push({ line: first.line, column: 'start_date', message: early });
   errors.push(...countErrors(first.start_date, trays, countLines));
   errors.push(...finishErrors(what, first, trays, byTray));
 
@@ -491,13 +495,13 @@ export function parseTestsCsv(text: string, context: TestCsvContext): TestCsvPar
   if (!read.ok) {
     // A test with a broken line is judged as a whole once the line is corrected: checking the
     // rest of it now would report trays or counts that only look missing.
-    const together = [...groups].filter(([ref]) => !broken.has(ref)).flatMap(([ref, records]) => checkTest(ref, records).errors);
+    const together = [...groups].filter(([ref]) => !broken.has(ref)).flatMap(([ref, records]) => checkTest(ref, records, context).errors);
     return { ok: false, errors: [...read.errors, ...together].sort((a, b) => a.line - b.line) };
   }
   const tests: ParsedTestCsvTest[] = [];
   const errors: CsvError[] = [];
   for (const [ref, records] of groups) {
-    const outcome = checkTest(ref, records);
+    const outcome = checkTest(ref, records, context);
     errors.push(...outcome.errors);
     if (outcome.test) tests.push(outcome.test);
   }

@@ -80,7 +80,7 @@ export function updateLot(db: DbOrTx, lotId: string, values: Updateable<LotTable
 export function lockLot(db: DbOrTx, bankId: string, lotId: string) {
   return db
     .selectFrom('lots')
-    .select(['id', 'status'])
+    .select(['id', 'status', 'code', 'harvest_date'])
     .where('id', '=', lotId)
     .where('bank_id', '=', bankId)
     .forUpdate()

@@ -23,6 +23,28 @@ export interface LotsServiceDeps {
   hasTests: (db: DbOrTx, lotId: string) => Promise<boolean>;
 }
 
+/**
+ * A corrected harvest date may not lie in the future on the bank's calendar, nor after a
+ * germination test of the lot started (seed is tested after it is harvested).
+ */
+async function checkHarvestChange(trx: DbOrTx, bankId: string, lotId: string, harvestDate: string, clock: Clock) {
+  if (harvestDate > (await bankToday(trx, clock, bankId))) {
+    throw unprocessable('A harvest date cannot be in the future.', { harvestDate: 'Use the day the seed was harvested.' });
+  }
+  const first = await trx
+    .selectFrom('germination_tests')
+    .select('start_date')
+    .where('lot_id', '=', lotId)
+    .orderBy('start_date')
+    .limit(1)
+    .executeTakeFirst();
+  if (first && harvestDate > first.start_date) {
+    throw unprocessable(`A germination test of this lot started on ${first.start_date}, before that harvest date.`, {
+      harvestDate: `Use a day on or before ${first.start_date}.`,
+    });
+  }
+}
+
 export function createLotsService(deps: LotsServiceDeps) {
   const { db, clock } = deps;
 
@@ -230,6 +252,7 @@ export function createLotsService(deps: LotsServiceDeps) {
         if (!lot) throw notFound('No such lot in this bank.');
         if (body.speciesId) await requireSpecies(trx, bankId, body.speciesId);
         await checkParents(trx, bankId, body.parentPlantIds);
+        if (body.harvestDate) await checkHarvestChange(trx, bankId, lotId, body.harvestDate, clock);
         const changes: Updateable<LotTable> = { updated_at: clock.now(), ...storageColumns(body.storage) };
         if (body.speciesId) changes.species_id = body.speciesId;
         if (body.variety !== undefined) changes.variety = body.variety;
