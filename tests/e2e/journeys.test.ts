@@ -285,6 +285,9 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       await j.step('a lot', async () => {
         await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lot.id}`);
         await page.getByRole('link', { name: 'Print label' }).waitFor();
+        // Each part of the page loads its own data: wait for the tests, the photos and the calculator.
+        await page.getByRole('list', { name: 'Germination tests of this lot' }).waitFor();
+        await page.getByRole('list', { name: 'Photos' }).or(page.getByText('No photos yet.')).first().waitFor();
         await expect.poll(() => page.getByTestId('seeds-to-sow').count()).toBe(1);
         expect({
           photo: await page.getByLabel('Add a photo').count(),
@@ -335,6 +338,8 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       ['planner', `/banks/${bankId}/planner`],
       ['members', `/banks/${bankId}/members`],
       ['settings', `/banks/${bankId}/settings`],
+      ['import', `/banks/${bankId}/lots/import?holds=tests`],
+      ['labels', `/banks/${bankId}/labels?lots=${lot.id}`],
     ] as const) {
       await page.goto(`${server.baseUrl}${url}`);
       await page.locator('main h1').first().waitFor();
