@@ -17,7 +17,7 @@ try {
   const bench = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/bench-ranking.ts'], {
     cwd: root,
     stdio: 'inherit',
-    env: { ...process.env, DATABASE_URL: pg.url, NODE_ENV: 'test', LOG_LEVEL: 'silent', HILUM_DATA_DIR: tmp },
+    env: { ...process.env, DATABASE_URL: pg.url, NODE_ENV: 'test', LOG_LEVEL: 'silent', HILUM_DATA_DIR: tmp, AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true' },
   });
   pg.stop();
   pg = null;
