@@ -41,6 +41,20 @@ describe('species', () => {
     expect(list.body.items.find((s: { id: string }) => s.id === tomatoId).traits.seedsPerGram).not.toBe(300);
   });
 
+  it('when a grower adds a species the reference set already has, then it is 409 naming the one to choose', async () => {
+    // By common name in another letter case, or by scientific name under another common name.
+    for (const body of [
+      { commonName: 'TOMATO', scientificName: 'Something else' },
+      { commonName: 'Love apple', scientificName: 'solanum lycopersicum' },
+    ]) {
+      const res = await bank.grower.agent.post(`/api/banks/${bank.bankId}/species`).send(body);
+      expect(res.status).toBe(409);
+      expect(res.body.error.message).toBe("Tomato (Solanum lycopersicum) is already in Hilum's list of species: choose it there.");
+    }
+    const list = await bank.viewer.agent.get(`/api/banks/${bank.bankId}/species`);
+    expect(list.body.items.filter((s: { commonName: string }) => /tomato|love apple/i.test(s.commonName))).toHaveLength(1);
+  });
+
   it('when traits contradict each other, then it is 400 naming the field', async () => {
     const res = await bank.grower.agent
       .post(`/api/banks/${bank.bankId}/species`)

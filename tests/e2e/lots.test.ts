@@ -116,6 +116,47 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
     await context.close();
   });
 
+  it('when a grower’s seed is of a species Hilum does not list, then they add it from the new-lot form and log the lot under it', async () => {
+    const context: BrowserContext = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+    const page = await context.newPage();
+    await signIn(page, grower.email);
+    await page.goto(`${server.baseUrl}/banks/${bankId}/lots/new`);
+    await page.getByRole('button', { name: 'Add a species' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Add a species' });
+
+    // One already in the reference set is refused, pointing at the one to choose.
+    await dialog.getByLabel('Common name').fill('Tomato');
+    await dialog.getByLabel('Scientific name').fill('Solanum lycopersicum');
+    await dialog.getByRole('button', { name: 'Add species' }).click();
+    await expect.poll(() => dialog.getByRole('alert').innerText()).toContain("is already in Hilum's list of species");
+
+    // Love-in-a-mist (Nigella damascena, Ranunculaceae) is not in the reference set.
+    await dialog.getByLabel('Common name').fill('Love-in-a-mist');
+    await dialog.getByLabel('Scientific name').fill('Nigella damascena');
+    await dialog.getByLabel('Family').fill('Ranunculaceae');
+    await dialog.getByLabel('Usually started').selectOption('direct');
+    await dialog.getByLabel('Typical seed life (years)').fill('2');
+    await dialog.getByRole('button', { name: 'Add species' }).click();
+    await expect.poll(() => dialog.isVisible()).toBe(false);
+    await expect.poll(() => page.getByRole('combobox', { name: /Species/ }).inputValue()).toBe('Love-in-a-mist');
+    expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+
+    await page.getByLabel('Variety').fill('Mixed blues');
+    await page.getByLabel('Number of seeds').fill('500');
+    await page.getByRole('button', { name: 'Save lot' }).click();
+    await page.waitForURL(new RegExp(`/banks/${bankId}/lots/[0-9a-f-]{36}$`));
+    await expect.poll(() => page.locator('main').innerText()).toContain('Nigella damascena');
+
+    const saved = await server.db
+      .selectFrom('species')
+      .select(['bank_id', 'common_name', 'scientific_name', 'family', 'traits'])
+      .where('scientific_name', '=', 'Nigella damascena')
+      .executeTakeFirstOrThrow();
+    expect(saved).toMatchObject({ bank_id: bankId, common_name: 'Love-in-a-mist', family: 'Ranunculaceae' });
+    expect(saved.traits).toMatchObject({ startMethod: 'direct', storageLifeYears: 2, poisonous: false });
+    await context.close();
+  });
+
   it('when a viewer opens Lots, then the table lists the bank’s lots and offers no New lot button', async () => {
     // A lot logged through the API as the grower, so this test stands on its own.
     const growerContext = await browser.newContext({ viewport: DESKTOP });

@@ -76,6 +76,21 @@ export function createSpeciesService({ db }: { db: Db }) {
     list: (bankId: string) => listSpecies(db, bankId),
 
     async create(bankId: string, body: CreateSpeciesBody) {
+      // The reference set already has it: one entry per species keeps one ranking and one caution.
+      const known = await db
+        .selectFrom('species')
+        .select(['common_name', 'scientific_name'])
+        .where('bank_id', 'is', null)
+        .where((eb) =>
+          eb.or([
+            eb(eb.fn('lower', ['common_name']), '=', body.commonName.toLowerCase()),
+            eb(eb.fn('lower', ['scientific_name']), '=', body.scientificName.toLowerCase()),
+          ]),
+        )
+        .executeTakeFirst();
+      if (known) {
+        throw conflict(`${known.common_name} (${known.scientific_name}) is already in Hilum's list of species: choose it there.`, 'duplicate_species');
+      }
       try {
         const row = await db
           .insertInto('species')

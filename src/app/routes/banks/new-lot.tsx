@@ -10,6 +10,7 @@ import { isRetryable, uploadFailureMessage, useUploadPhoto } from '../../../feat
 import { usePlants } from '../../../features/plants/api/get-plants';
 import { PlantForm } from '../../../features/plants/components/plant-form';
 import { useSpecies } from '../../../features/species/api/get-species';
+import { NewSpeciesForm } from '../../../features/species/components/new-species-form';
 import { SpeciesCautions } from '../../../features/species/components/species-cautions';
 import { TraitList } from '../../../features/species/components/trait-list';
 import { todayIn } from '../../../lib/dates';
@@ -24,6 +25,8 @@ export function NewLotPage() {
   const plants = usePlants(bank.id);
   const [addingPlant, setAddingPlant] = useState<{ speciesId: string | undefined } | null>(null);
   const [addedPlantId, setAddedPlantId] = useState<string>();
+  const [addingSpecies, setAddingSpecies] = useState(false);
+  const [addedSpeciesId, setAddedSpeciesId] = useState<string>();
   const today = todayIn(bank.timeZone);
 
   if (role === 'viewer') {
@@ -69,6 +72,8 @@ export function NewLotPage() {
           )}
           onAddPlant={(speciesId) => setAddingPlant({ speciesId })}
           addedPlantId={addedPlantId}
+          onAddSpecies={() => setAddingSpecies(true)}
+          addedSpeciesId={addedSpeciesId}
           onCreated={async (lot, photo, onPhotoProgress) => {
             const state: LotPageState = { notice: `Lot ${lot.code} is saved.` };
             if (photo) {
@@ -83,6 +88,19 @@ export function NewLotPage() {
           }}
         />
       )}
+
+      <Dialog open={addingSpecies} title="Add a species" onClose={() => setAddingSpecies(false)}>
+        {addingSpecies ? (
+          <NewSpeciesForm
+            bankId={bank.id}
+            onCancel={() => setAddingSpecies(false)}
+            onCreated={(added) => {
+              setAddedSpeciesId(added.id);
+              setAddingSpecies(false);
+            }}
+          />
+        ) : null}
+      </Dialog>
 
       <Dialog open={addingPlant !== null} title="Add a parent plant" onClose={() => setAddingPlant(null)}>
         {addingPlant && species.data ? (

@@ -67,6 +67,10 @@ export interface NewLotFormProps {
   onAddPlant?: (speciesId: string | undefined) => void;
   /** A plant just added that way, ticked for the lot. */
   addedPlantId?: string | undefined;
+  /** Opens a way to add a species the list lacks without leaving the form. */
+  onAddSpecies?: () => void;
+  /** A species just added that way, chosen for the lot. */
+  addedSpeciesId?: string | undefined;
   /** After the lot is saved: upload the photo (reporting progress) and move on. */
   onCreated: (lot: LotDto, photo: File | null, onPhotoProgress: (fraction: number) => void) => Promise<void>;
 }
@@ -79,6 +83,8 @@ export function NewLotForm({
   renderSpeciesNote,
   onAddPlant,
   addedPlantId,
+  onAddSpecies,
+  addedSpeciesId,
   onCreated,
 }: NewLotFormProps) {
   const create = useCreateLot(bankId);
@@ -129,6 +135,11 @@ export function NewLotForm({
     () => species.map((s) => ({ value: s.id, label: s.commonName, description: s.scientificName })),
     [species],
   );
+
+  // A species added from this form is chosen as soon as it shows up in the list.
+  useEffect(() => {
+    if (addedSpeciesId && species.some((s) => s.id === addedSpeciesId)) setValue('speciesId', addedSpeciesId, { shouldValidate: true });
+  }, [addedSpeciesId, species, setValue]);
 
   // A parent plant added from this form is ticked as soon as it shows up in the list.
   useEffect(() => {
@@ -192,6 +203,14 @@ export function NewLotForm({
             />
           )}
         />
+        {onAddSpecies ? (
+          <p className="-mt-2 text-sm text-loam-700">
+            Not in the list?{' '}
+            <button type="button" onClick={onAddSpecies} className="font-semibold text-moss-800 underline">
+              Add a species
+            </button>
+          </p>
+        ) : null}
         {chosen && renderSpeciesNote ? renderSpeciesNote(chosen) : null}
         <TextField
           label="Variety"

@@ -1,0 +1,110 @@
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { createSpeciesBodySchema, type SpeciesDto } from '../../../../shared/schemas/species';
+import { Button } from '../../../components/ui/button';
+import { FormAlert } from '../../../components/ui/form-alert';
+import { SelectField } from '../../../components/ui/select-field';
+import { TextField } from '../../../components/ui/text-field';
+import { applyServerError } from '../../../lib/form-errors';
+import { useCreateSpecies } from '../api/create-species';
+
+/** What the form asks; the rest of a species' traits are set later on its card ("Set this bank's values"). */
+interface Values {
+  commonName: string;
+  scientificName: string;
+  family: string;
+  startMethod: 'indoor' | 'direct' | 'either';
+  storageLifeYears: string;
+  poisonous: boolean;
+}
+
+export interface NewSpeciesFormProps {
+  bankId: string;
+  onCreated: (species: SpeciesDto) => void;
+  onCancel: () => void;
+}
+
+/** A species the reference set lacks, added to this bank: its names, how it is started, and a caution flag. */
+export function NewSpeciesForm({ bankId, onCreated, onCancel }: NewSpeciesFormProps) {
+  const create = useCreateSpecies(bankId);
+  const [formError, setFormError] = useState<string>();
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors, isSubmitting },
+  } = useForm<Values>({
+    defaultValues: { commonName: '', scientificName: '', family: '', startMethod: 'indoor', storageLifeYears: '', poisonous: false },
+  });
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(undefined);
+    const parsed = createSpeciesBodySchema.safeParse({
+      commonName: values.commonName,
+      scientificName: values.scientificName,
+      family: values.family.trim() || null,
+      traits: {
+        startMethod: values.startMethod,
+        storageLifeYears: values.storageLifeYears.trim() === '' ? null : Number(values.storageLifeYears),
+        poisonous: values.poisonous,
+      },
+    });
+    if (!parsed.success) {
+      for (const issue of parsed.error.issues) {
+        const field = (issue.path.at(-1) ?? 'commonName') as keyof Values;
+        setError(field, { type: 'client', message: field === 'storageLifeYears' ? 'A number of years, e.g. 3.' : issue.message });
+      }
+      return;
+    }
+    try {
+      onCreated(await create.mutateAsync(parsed.data));
+    } catch (error) {
+      setFormError(applyServerError(error, setError, ['commonName', 'scientificName', 'family']));
+    }
+  });
+
+  return (
+    <form noValidate onSubmit={onSubmit} className="grid gap-4" aria-label="New species">
+      <FormAlert>{formError}</FormAlert>
+      <p className="text-loam-700">
+        For a plant Hilum does not list. Its count days, temperatures and seeds per gram can be set later on a lot’s page,
+        under the species.
+      </p>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField label="Common name" required autoComplete="off" placeholder="e.g. love-in-a-mist" error={errors.commonName?.message} {...register('commonName')} />
+        <TextField label="Scientific name" required autoComplete="off" placeholder="e.g. Nigella damascena" error={errors.scientificName?.message} {...register('scientificName')} />
+        <TextField label="Family" autoComplete="off" placeholder="e.g. Ranunculaceae" error={errors.family?.message} {...register('family')} />
+        <SelectField label="Usually started" {...register('startMethod')}>
+          <option value="indoor">Indoors, before the last frost</option>
+          <option value="direct">Sown direct outdoors</option>
+          <option value="either">Either way</option>
+        </SelectField>
+        <TextField
+          label="Typical seed life (years)"
+          hint="How long its seed keeps in ordinary storage, if you know. It guides the decline until the lots are tested twice."
+          type="number"
+          inputMode="decimal"
+          min={0.5}
+          step={0.5}
+          error={errors.storageLifeYears?.message}
+          {...register('storageLifeYears')}
+        />
+      </div>
+      <label className="flex items-start gap-3 rounded-lg border border-loam-200 p-3">
+        <input type="checkbox" className="mt-1 size-5 accent-moss-700" {...register('poisonous')} />
+        <span>
+          <span className="block font-semibold text-loam-900">Its seed or plant is poisonous</span>
+          <span className="block text-sm text-loam-700">Hilum then shows the poisonous-seed caution on its lots. Your local poison centre or extension service can say which plants are.</span>
+        </span>
+      </label>
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" isLoading={isSubmitting}>
+          Add species
+        </Button>
+        <Button variant="secondary" onClick={onCancel}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
