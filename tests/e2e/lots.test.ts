@@ -134,7 +134,13 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
     await dialog.getByLabel('Common name').fill('Love-in-a-mist');
     await dialog.getByLabel('Scientific name').fill('Nigella damascena');
     await dialog.getByLabel('Family').fill('Ranunculaceae');
+    // An indoor window runs from the larger number of weeks before frost to the smaller.
+    await dialog.getByLabel('From (weeks before)').fill('4');
+    await dialog.getByLabel('Until (weeks before)').fill('8');
+    await dialog.getByRole('button', { name: 'Add species' }).click();
+    await expect.poll(() => dialog.getByText('Sowing starts earliest at the larger number of weeks before frost.').count()).toBe(1);
     await dialog.getByLabel('Usually started').selectOption('direct');
+    expect(await dialog.getByLabel('From (weeks before)').count()).toBe(0);
     await dialog.getByLabel('Typical seed life (years)').fill('2');
     await dialog.getByRole('button', { name: 'Add species' }).click();
     await expect.poll(() => dialog.isVisible()).toBe(false);

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { createSpeciesBodySchema, type SpeciesDto } from '../../../../shared/schemas/species';
 import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
@@ -8,12 +8,22 @@ import { TextField } from '../../../components/ui/text-field';
 import { applyServerError } from '../../../lib/form-errors';
 import { useCreateSpecies } from '../api/create-species';
 
+const numberOrNull = (value: string) => (value.trim() === '' ? null : Number(value));
+/** Messages for number boxes, plainer than the schema's (which speaks of types). */
+const numberHints = {
+  startWeeksFrom: 'Whole weeks, 0 to 26.',
+  startWeeksTo: 'Whole weeks, 0 to 26.',
+  storageLifeYears: 'A number of years, e.g. 3.',
+} as const;
+
 /** What the form asks; the rest of a species' traits are set later on its card ("Set this bank's values"). */
 interface Values {
   commonName: string;
   scientificName: string;
   family: string;
   startMethod: 'indoor' | 'direct' | 'either';
+  startWeeksFrom: string;
+  startWeeksTo: string;
   storageLifeYears: string;
   poisonous: boolean;
 }
@@ -32,10 +42,13 @@ export function NewSpeciesForm({ bankId, onCreated, onCancel }: NewSpeciesFormPr
     register,
     handleSubmit,
     setError,
+    control,
     formState: { errors, isSubmitting },
   } = useForm<Values>({
-    defaultValues: { commonName: '', scientificName: '', family: '', startMethod: 'indoor', storageLifeYears: '', poisonous: false },
+    defaultValues: { commonName: '', scientificName: '', family: '', startMethod: 'indoor', startWeeksFrom: '', startWeeksTo: '', storageLifeYears: '', poisonous: false },
   });
+
+  const startMethod = useWatch({ control, name: 'startMethod' });
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(undefined);
@@ -45,14 +58,16 @@ export function NewSpeciesForm({ bankId, onCreated, onCancel }: NewSpeciesFormPr
       family: values.family.trim() || null,
       traits: {
         startMethod: values.startMethod,
-        storageLifeYears: values.storageLifeYears.trim() === '' ? null : Number(values.storageLifeYears),
+        startWeeksFrom: values.startMethod === 'direct' ? null : numberOrNull(values.startWeeksFrom),
+        startWeeksTo: values.startMethod === 'direct' ? null : numberOrNull(values.startWeeksTo),
+        storageLifeYears: numberOrNull(values.storageLifeYears),
         poisonous: values.poisonous,
       },
     });
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         const field = (issue.path.at(-1) ?? 'commonName') as keyof Values;
-        setError(field, { type: 'client', message: field === 'storageLifeYears' ? 'A number of years, e.g. 3.' : issue.message });
+        setError(field, { type: 'client', message: (issue.code !== 'custom' && numberHints[field as keyof typeof numberHints]) || issue.message });
       }
       return;
     }
@@ -79,6 +94,16 @@ export function NewSpeciesForm({ bankId, onCreated, onCancel }: NewSpeciesFormPr
           <option value="direct">Sown direct outdoors</option>
           <option value="either">Either way</option>
         </SelectField>
+        {startMethod !== 'direct' ? (
+          <fieldset className="grid gap-2 sm:col-span-2">
+            <legend className="font-semibold text-loam-900">Indoor sowing window</legend>
+            <p className="text-sm text-loam-700">Weeks before the last spring frost, from the earliest to the latest sowing; the planner counts back from them.</p>
+            <div className="grid grid-cols-2 gap-4">
+              <TextField label="From (weeks before)" type="number" inputMode="numeric" min={0} max={26} error={errors.startWeeksFrom?.message} {...register('startWeeksFrom')} />
+              <TextField label="Until (weeks before)" type="number" inputMode="numeric" min={0} max={26} error={errors.startWeeksTo?.message} {...register('startWeeksTo')} />
+            </div>
+          </fieldset>
+        ) : null}
         <TextField
           label="Typical seed life (years)"
           hint="How long its seed keeps in ordinary storage, if you know. It guides the decline until the lots are tested twice."
