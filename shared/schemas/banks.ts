@@ -3,11 +3,25 @@ import { emailSchema, roleSchema } from './accounts';
 import { idSchema, monthDaySchema } from './common';
 
 const bankName = z.string({ message: 'Name the bank.' }).trim().min(1, { message: 'Name the bank.' }).max(120);
+/** An IANA time zone name the runtime knows: the bank's calendar for "today". */
+const timeZoneSchema = z.string().refine(
+  (tz) => {
+    try {
+      new Intl.DateTimeFormat('en', { timeZone: tz });
+      return true;
+    } catch {
+      return false;
+    }
+  },
+  { message: 'Not a known time zone (e.g. America/Chicago, Europe/Oslo).' },
+);
 
 export const createBankBodySchema = z.object({
   name: bankName,
   lastFrost: monthDaySchema.optional(),
   firstFrost: monthDaySchema.optional(),
+  /** The creator's own zone, as their browser gives it; UTC when left out. */
+  timeZone: timeZoneSchema.optional(),
 });
 export type CreateBankBody = z.infer<typeof createBankBodySchema>;
 
@@ -20,17 +34,7 @@ export const updateBankBodySchema = z
     sowThresholdPercent: z.number().int().min(1, { message: 'Between 1 and 100.' }).max(100, { message: 'Between 1 and 100.' }),
     establishmentFactor: z.number().gt(0, { message: 'Above 0 and at most 1.' }).max(1, { message: 'Above 0 and at most 1.' }),
     sowingAssurance: z.number().gt(0.5, { message: 'Between 0.5 and 0.99.' }).max(0.99, { message: 'Between 0.5 and 0.99.' }),
-    timeZone: z.string().refine(
-      (tz) => {
-        try {
-          new Intl.DateTimeFormat('en', { timeZone: tz });
-          return true;
-        } catch {
-          return false;
-        }
-      },
-      { message: 'Not a known time zone (e.g. America/Chicago, Europe/Oslo).' },
-    ),
+    timeZone: timeZoneSchema,
   })
   .partial()
   .refine((body) => Object.keys(body).length > 0, { message: 'Nothing to change.' });

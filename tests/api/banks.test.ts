@@ -22,6 +22,19 @@ describe('banks and members', () => {
     expect(bank.body.role).toBe('owner');
   });
 
+  it('when a bank is created with its creator’s time zone, then it keeps it; without one it is UTC; an unknown zone is 400 and no bank', async () => {
+    const { agent } = await signUp(ctx.app);
+    // IANA time zone database names (common practice): Pacific/Auckland is a real zone.
+    const zoned = await agent.post('/api/banks').send({ name: 'Zoned', timeZone: 'Pacific/Auckland' });
+    expect(zoned.status).toBe(201);
+    expect(zoned.body.bank.timeZone).toBe('Pacific/Auckland');
+    expect((await agent.post('/api/banks').send({ name: 'Plain' })).body.bank.timeZone).toBe('UTC');
+    const bad = await agent.post('/api/banks').send({ name: 'Nowhere', timeZone: 'Mars/Olympus' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields.timeZone).toMatch(/Not a known time zone/);
+    expect((await agent.get('/api/me')).body.memberships.map((m: { bankName: string }) => m.bankName).sort()).toEqual(['Plain', 'Zoned']);
+  });
+
   it('when a frost date is not a real month-day, then it is 400 naming the field', async () => {
     const { agent } = await signUp(ctx.app);
     const res = await agent.post('/api/banks').send({ name: 'X', lastFrost: '02-30' });

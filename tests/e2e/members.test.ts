@@ -116,4 +116,17 @@ describe.skipIf(!chromiumPath)('the members page in Chromium', () => {
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
     await context.close();
   });
+  it('when someone starts a new bank from a browser in another time zone, then the bank keeps that zone for its calendar', async () => {
+    // America/Winnipeg: a zone of the IANA time zone database, six hours behind UTC in winter.
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, timezoneId: 'America/Winnipeg' });
+    const page = await context.newPage();
+    await signIn(page, viewer.email);
+    await page.goto(`${server.baseUrl}/banks/new`);
+    await page.getByLabel('Name of the bank').fill('Porch Shelf Seeds');
+    await page.getByRole('button', { name: 'Start the bank' }).click();
+    await page.waitForURL(/\/banks\/[0-9a-f-]{36}\/overview/);
+    const created = await server.db.selectFrom('banks').select('time_zone').where('name', '=', 'Porch Shelf Seeds').executeTakeFirstOrThrow();
+    expect(created.time_zone).toBe('America/Winnipeg');
+    await context.close();
+  });
 });

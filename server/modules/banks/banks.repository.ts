@@ -1,10 +1,10 @@
 import type { DbOrTx } from '../../db/database';
 import type { BankUpdate, Role } from '../../db/schema';
 
-export function insertBank(db: DbOrTx, bank: { name: string; lastFrost: string | null; firstFrost: string | null }) {
+export function insertBank(db: DbOrTx, bank: { name: string; lastFrost: string | null; firstFrost: string | null; timeZone?: string | undefined }) {
   return db
     .insertInto('banks')
-    .values({ name: bank.name, last_frost: bank.lastFrost, first_frost: bank.firstFrost })
+    .values({ name: bank.name, last_frost: bank.lastFrost, first_frost: bank.firstFrost, ...(bank.timeZone ? { time_zone: bank.timeZone } : {}) })
     .returningAll()
     .executeTakeFirstOrThrow();
 }

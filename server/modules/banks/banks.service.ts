@@ -48,6 +48,7 @@ export function createBanksService({ db, clock }: { db: Db; clock: Clock }) {
           name: body.name,
           lastFrost: body.lastFrost ?? null,
           firstFrost: body.firstFrost ?? null,
+          timeZone: body.timeZone,
         });
         await repo.insertMembership(trx, bank.id, userId, 'owner');
         return toBankDto(bank);

@@ -28,7 +28,8 @@ export function CreateBankForm({ onCreated }: CreateBankFormProps) {
   const onSubmit = handleSubmit(async (body) => {
     setFormError(undefined);
     try {
-      await create.mutateAsync(body);
+      // The bank keeps the creator's own calendar for "today"; Settings can change it.
+      await create.mutateAsync({ ...body, timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone });
     } catch (error) {
       setFormError(applyServerError(error, setError, ['name', 'lastFrost', 'firstFrost']));
     }
