@@ -3,6 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import sharp from 'sharp';
+import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
 import { SPECIES_REFERENCE } from '../../shared/species-reference';
@@ -160,6 +161,42 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
       .executeTakeFirstOrThrow();
     expect(saved).toMatchObject({ bank_id: bankId, common_name: 'Love-in-a-mist', family: 'Ranunculaceae' });
     expect(saved.traits).toMatchObject({ startMethod: 'direct', storageLifeYears: 2, poisonous: false });
+    await context.close();
+  });
+
+  it('when a grower gives seed away on a phone, then the swap caution shows, the ledger takes it out, and more than is left is refused', async () => {
+    const api = request.agent(server.app);
+    await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
+    const made = await api
+      .post(`/api/banks/${bankId}/lots`)
+      .send({ speciesId: (await api.get(`/api/banks/${bankId}/species`)).body.items.find((x: { commonName: string }) => x.commonName === 'Calendula').id, variety: 'Ledger Gold', origin: 'saved', harvestDate: '2025-08-01', seedCount: 120 });
+    expect(made.status).toBe(201);
+    const lotId = made.body.lot.id as string;
+
+    const context: BrowserContext = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+    const page = await context.newPage();
+    await signIn(page, grower.email);
+    await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lotId}`);
+    const stock = page.locator('section').filter({ has: page.getByRole('heading', { name: 'Stock', exact: true }) });
+    await page.getByRole('heading', { name: 'Stock', exact: true }).waitFor();
+    await stock.getByLabel('What happened').selectOption('given');
+    await expect.poll(() => stock.getByRole('note').filter({ hasText: 'Swapping across regions or borders' }).count()).toBe(1);
+    await stock.getByLabel('Seeds taken out').fill('20');
+    await stock.getByLabel('Reason').fill('to the seed library table');
+    await stock.getByRole('button', { name: 'Record movement' }).click();
+    await expect.poll(() => stock.getByRole('status').innerText()).toContain('Recorded −20 seeds. 100 on hand now.');
+    await expect.poll(() => stock.getByRole('row').filter({ hasText: 'to the seed library table' }).innerText()).toContain('Given away');
+    expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+
+    // More than the ledger holds: refused (409), and the stock stays as it was.
+    await stock.getByLabel('What happened').selectOption('sown');
+    expect(await stock.getByRole('note').filter({ hasText: 'Swapping across regions' }).count()).toBe(0);
+    await stock.getByLabel('Seeds taken out').fill('500');
+    await stock.getByLabel('Reason').fill('the whole cold frame');
+    await stock.getByRole('button', { name: 'Record movement' }).click();
+    // The server's 409 shows beside the number it is about.
+    await expect.poll(() => stock.getByText('Only 100 seeds are on hand; taking 500 would leave the stock below zero.').count()).toBe(1);
+    expect((await api.get(`/api/banks/${bankId}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(100);
     await context.close();
   });
 

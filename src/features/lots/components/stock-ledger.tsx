@@ -15,7 +15,7 @@ import { applyServerError } from '../../../lib/form-errors';
 import { useAddStockMovement } from '../api/add-stock-movement';
 import { useStock } from '../api/get-stock';
 import { formatCount, movementLabels } from './lot-format';
-import { numberOrUndefined } from './lot-form-parts';
+import { numberOrUndefined, SwapCaution } from './lot-form-parts';
 
 const KINDS = ['sown', 'given', 'swapped-in', 'correction'] as const;
 type Kind = (typeof KINDS)[number];
@@ -120,6 +120,7 @@ function MovementForm({ bankId, lotId, today, start, saved, onSaved }: MovementF
         />
         <TextField label="Date" type="date" max={today} className="num" error={errors.date?.message} {...register('date')} />
       </div>
+      {kind === 'given' || kind === 'swapped-in' ? <SwapCaution /> : null}
       <TextField
         label="Reason"
         placeholder="e.g. sown in the cold frame, given to the seed library"
