@@ -196,6 +196,7 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
     await stock.getByRole('button', { name: 'Record movement' }).click();
     // The server's 409 shows beside the number it is about.
     await expect.poll(() => stock.getByText('Only 100 seeds are on hand; taking 500 would leave the stock below zero.').count()).toBe(1);
+    expect(await stock.getByText('Recorded −20 seeds').count()).toBe(0);
     expect((await api.get(`/api/banks/${bankId}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(100);
     await context.close();
   });

@@ -58,6 +58,8 @@ interface MovementFormProps {
 function MovementForm({ bankId, lotId, today, start, saved, onSaved }: MovementFormProps) {
   const add = useAddStockMovement(bankId, lotId);
   const [formError, setFormError] = useState<string>();
+  // The last save's message stays until the next try, which speaks for itself.
+  const [showSaved, setShowSaved] = useState(true);
   const {
     register,
     handleSubmit,
@@ -72,6 +74,7 @@ function MovementForm({ bankId, lotId, today, start, saved, onSaved }: MovementF
 
   const onSubmit = handleSubmit(async ({ kind: k, direction, count, reason, date }) => {
     setFormError(undefined);
+    setShowSaved(false);
     const change = (directionOf(k, direction) === 'out' ? -1 : 1) * count;
     try {
       const result = await add.mutateAsync({ kind: k, change, reason, date });
@@ -93,7 +96,7 @@ function MovementForm({ bankId, lotId, today, start, saved, onSaved }: MovementF
     <form noValidate onSubmit={onSubmit} className="grid gap-4 border-t border-loam-100 pt-4" aria-label="Record a stock movement">
       <h3 className="font-bold text-loam-900">Record a movement</h3>
       <FormAlert>{formError}</FormAlert>
-      {saved ? <FormAlert tone="success">{saved}</FormAlert> : null}
+      {saved && showSaved ? <FormAlert tone="success">{saved}</FormAlert> : null}
       <div className="grid gap-4 sm:grid-cols-2">
         <SelectField label="What happened" hint={kindHints[kind]} error={errors.kind?.message} {...register('kind')}>
           {KINDS.map((k) => (
