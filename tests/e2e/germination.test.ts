@@ -3,7 +3,7 @@ import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
 
 // The people and the bank are the invented demo scenario of server/db/seed-demo.ts; the lot below is
 // invented for this test.
@@ -71,13 +71,7 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
     await server?.stop();
   });
 
-  async function signIn(page: Page, email: string) {
-    await page.goto(`${server.baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
-  }
+  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
 
   const percentText = (page: Page) => page.locator('[data-result="percent"]').innerText();
   const curvePaths = (page: Page) => page.locator('[data-chart="germination-curve"] path.recharts-line-curve').count();

@@ -8,7 +8,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemoScenario } from '../../server/db/demo-scenario';
 import { DEMO_BANK_NAME, DEMO_PASSWORD } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
 import { journey, seriousViolations } from '../helpers/journey';
 
 // 390 × 844 CSS pixels: a common phone held upright (from memory).
@@ -38,13 +38,7 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
     if (tmp) fs.rmSync(tmp, { recursive: true, force: true });
   });
 
-  async function signIn(page: Page, email: string) {
-    await page.goto(`${server.baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
-  }
+  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
 
   it('journey 1: when a grower logs a harvested packet on a phone, then the lot is listed as needing a test', async () => {
     const context = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });

@@ -7,7 +7,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
 import { SPECIES_REFERENCE } from '../../shared/species-reference';
-import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
 
 // The people and the bank are the invented demo scenario of server/db/seed-demo.ts.
 const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
@@ -45,13 +45,7 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
     if (tmpDir) fs.rmSync(tmpDir, { recursive: true, force: true });
   });
 
-  async function signIn(page: Page, email: string) {
-    await page.goto(`${server.baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
-  }
+  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
 
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
 

@@ -1,7 +1,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { DEMO_ACCOUNTS, DEMO_BANK_NAME, seedDemo } from '../../server/db/seed-demo';
+import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
 import { waitForMail } from '../helpers/outbox';
 
 // The people and the bank below are the invented demo scenario of server/db/seed-demo.ts.
@@ -33,14 +33,7 @@ describe.skipIf(!chromiumPath)('the members page in Chromium', () => {
     await server?.stop();
   });
 
-  /** Signs in through the sign-in page, as a person would, and waits for their bank to open. */
-  async function signIn(page: Page, email: string) {
-    await page.goto(`${server.baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
-  }
+  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
 
   async function openMembers(page: Page) {
     await page.getByRole('link', { name: 'Members' }).click();

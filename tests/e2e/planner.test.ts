@@ -4,7 +4,7 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
 import { journey, seriousViolations } from '../helpers/journey';
 import { finishedTest, speciesId } from '../helpers/lots';
 
@@ -100,13 +100,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     return { context, page: await context.newPage() };
   }
 
-  async function signIn(page: Page, email: string) {
-    await page.goto(`${server.baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
-  }
+  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
 
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
   const fact = (page: Page, name: string) => page.locator(`article[data-entry] [data-fact="${name}"] dd`).first().innerText();

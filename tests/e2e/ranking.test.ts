@@ -3,7 +3,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RankingItem } from '../../shared/schemas/viability';
 import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
 import { journey, seriousViolations } from '../helpers/journey';
 import { finishedTest, speciesId } from '../helpers/lots';
 
@@ -78,13 +78,7 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
 
   const item = (code: string) => ranking.find((i) => i.code === code)!;
 
-  async function signIn(page: Page, email: string) {
-    await page.goto(`${server.baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
-  }
+  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
   const rowCodes = (page: Page) => page.locator('tbody tr[data-lot]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-lot')));
 

@@ -5,7 +5,7 @@ import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
 import { jpeg } from '../helpers/images';
 import { journey } from '../helpers/journey';
 import { speciesId } from '../helpers/lots';
@@ -51,13 +51,7 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
     if (tmp) fs.rmSync(tmp, { recursive: true, force: true });
   });
 
-  async function signIn(page: Page, email: string) {
-    await page.goto(`${server.baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
-  }
+  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
 
   it('when a grower photographs tray 2 on a phone, then the photo belongs to tray 2 alone and a viewer sees it without an upload', async () => {
     const context = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });

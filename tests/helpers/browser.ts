@@ -3,8 +3,9 @@ import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type Page } from 'playwright-core';
 import { createApp } from '../../server/app';
+import { DEMO_PASSWORD } from '../../server/db/seed-demo';
 import { createTestContext, type TestContext } from './context';
 
 export const chromiumPath = process.env.HILUM_CHROMIUM ?? (fs.existsSync('/usr/bin/chromium') ? '/usr/bin/chromium' : '');
@@ -55,4 +56,13 @@ export async function startTestServer(
       await ctx.close();
     },
   };
+}
+
+/** Signs in through the sign-in page, as a person would, and waits for the bank's overview to open. */
+export async function signInAt(page: Page, baseUrl: string, email: string, bankId: string, password = DEMO_PASSWORD) {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password', { exact: true }).fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(`${baseUrl}/banks/${bankId}/overview`);
 }
