@@ -23,14 +23,19 @@ export interface LotsServiceDeps {
   hasTests: (db: DbOrTx, lotId: string) => Promise<boolean>;
 }
 
+/** Seed is harvested on or before today, on the bank's calendar. */
+function refuseFutureHarvest(harvestDate: string, today: string) {
+  if (harvestDate > today) {
+    throw unprocessable('A harvest date cannot be in the future.', { harvestDate: 'Use the day the seed was harvested.' });
+  }
+}
+
 /**
  * A corrected harvest date may not lie in the future on the bank's calendar, nor after a
  * germination test of the lot started (seed is tested after it is harvested).
  */
 async function checkHarvestChange(trx: DbOrTx, bankId: string, lotId: string, harvestDate: string, clock: Clock) {
-  if (harvestDate > (await bankToday(trx, clock, bankId))) {
-    throw unprocessable('A harvest date cannot be in the future.', { harvestDate: 'Use the day the seed was harvested.' });
-  }
+  refuseFutureHarvest(harvestDate, await bankToday(trx, clock, bankId));
   const first = await trx
     .selectFrom('germination_tests')
     .select('start_date')
@@ -91,9 +96,7 @@ export function createLotsService(deps: LotsServiceDeps) {
     body: CreateLotBody,
     extra: { status?: LotStatus; quantityEstimated?: boolean; reason?: string } = {},
   ): Promise<string> {
-    if (body.harvestDate && body.harvestDate > today) {
-      throw unprocessable('A harvest date cannot be in the future.', { harvestDate: 'Use the day the seed was harvested.' });
-    }
+    if (body.harvestDate) refuseFutureHarvest(body.harvestDate, today);
     const species = await requireSpecies(trx, bankId, body.speciesId);
     await checkParents(trx, bankId, body.parentPlantIds);
     let seeds = body.seedCount ?? 0;
