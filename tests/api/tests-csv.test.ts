@@ -29,13 +29,19 @@ describe('CSV export and import of germination tests', () => {
     return res.body.lot.id as string;
   }
 
-  /** A test through the API: trays, counts per date (one number per tray), finished if asked. */
+  /**
+   * A test through the API: trays, counts per date (one number per tray, from tray 1; trays beyond
+   * the numbers given are not counted that day), finished if asked.
+   */
   async function test(
     b: Bank,
     lotId: string,
     body: CreateTestBody,
     counts: [string, number[]][],
-    finish?: { date: string; trays: { abnormal: number; ungerminated: number; fresh?: number; dead?: number; hard?: number }[] },
+    finish?: {
+      date: string;
+      trays: ({ abnormal: number; ungerminated: number; fresh?: number; dead?: number; hard?: number } | { setAsideReason: string })[];
+    },
   ) {
     const created = await b.grower.agent.post(`${base(b)}/lots/${lotId}/tests`).send(body);
     expect(created.status).toBe(201);
@@ -181,6 +187,74 @@ describe('CSV export and import of germination tests', () => {
     // The second bank's export is the first's, but for the lot code it was given in that bank.
     const again = (await b.viewer.agent.get(`${base(b)}/tests.csv`)).text;
     expect(again.replaceAll('tom-rt', 'TOM-RT')).toEqual(csv);
+  });
+
+  it('when a running test is counted in 2 of 4 trays and a finished one has a tray set aside, then germination_percent is the test page’s and the ranking’s figure, and an import into another bank keeps it and the reason', async () => {
+    const a = await bankWithRoles(ctx.app, ctx.db);
+    const b = await bankWithRoles(ctx.app, ctx.db);
+    const runLot = await lot(a, 'RUN-P');
+    const finLot = await lot(a, 'FIN-S');
+    await lot(b, 'RUN-P');
+    await lot(b, 'FIN-S');
+
+    const fourTrays = (seedsSown: number) => [{ seedsSown }, { seedsSown }, { seedsSown }, { seedsSown }];
+    // Running: 4 trays of 100, only trays 1 and 2 counted so far (80 and 90 normal seedlings).
+    const runId = await test(a, runLot, { startDate: '2026-02-01', method: 'paper towel', trays: fourTrays(100) }, [['2026-02-08', [80, 90]]]);
+    // Finished: 4 trays of 25; tray 4 was counted once, then spilled and set aside at the finish.
+    const finId = await test(
+      a,
+      finLot,
+      { startDate: '2026-01-10', method: 'paper towel', trays: fourTrays(25) },
+      [
+        ['2026-01-14', [5, 8, 3, 6]],
+        ['2026-01-24', [20, 22, 19]],
+      ],
+      { date: '2026-01-24', trays: [{ abnormal: 1, ungerminated: 4 }, { abnormal: 0, ungerminated: 3 }, { abnormal: 2, ungerminated: 4 }, { setAsideReason: 'Spilled' }] },
+    );
+
+    const csv = (await a.viewer.agent.get(`${base(a)}/tests.csv`)).text;
+    const rows = records(csv);
+    const percentOf = (code: string) => [...new Set(rows.filter((r) => r.lot_code === code).map((r) => r.germination_percent))];
+    // Pooled over the trays in the figures, rounded to the nearest whole percent as the seed-testing
+    // rules report a result (ISTA Rules, ch. 5, read; see ../shared/REFERENCES.md), by hand:
+    // (80 + 90) / 200 = 85%; (20 + 22 + 19) / 75 = 81.3% → 81%, tray 4 left out.
+    expect(percentOf('RUN-P')).toEqual(['85']);
+    expect(percentOf('FIN-S')).toEqual(['81']);
+    expect(rows.filter((r) => r.lot_code === 'FIN-S' && r.tray === '4').map((r) => [r.check_date, r.cumulative, r.set_aside_reason, r.abnormal, r.ungerminated])).toEqual([
+      ['2026-01-14', '6', 'Spilled', '', ''],
+    ]);
+    expect(rows.filter((r) => r.lot_code === 'RUN-P').map((r) => [r.tray, r.cumulative, r.set_aside_reason])).toEqual([
+      ['1', '80', ''],
+      ['2', '90', ''],
+      ['3', '', ''],
+      ['4', '', ''],
+    ]);
+
+    // The same figure as the test page and the ranking.
+    const page = async (bank: Bank, testId: string) => (await bank.viewer.agent.get(`${base(bank)}/tests/${testId}`)).body;
+    const ranking = (await a.viewer.agent.get(`${base(a)}/ranking?on=2026-03-01`)).body.items as { lotId: string; lastPercent: number | null }[];
+    const lastPercent = (lotId: string) => ranking.find((i) => i.lotId === lotId)!.lastPercent!;
+    for (const [code, testId, lotId] of [
+      ['RUN-P', runId, runLot],
+      ['FIN-S', finId, finLot],
+    ] as const) {
+      const percentRounded = (await page(a, testId)).result.percentRounded as number;
+      expect(percentOf(code)).toEqual([String(percentRounded)]);
+      expect(Math.round(lastPercent(lotId))).toBe(percentRounded);
+    }
+
+    // Round trip: the other bank's copies keep the reason and the same stored percent.
+    const imported = await importFile(b, csv);
+    expect(imported.status).toBe(200);
+    expect(imported.body).toEqual({ imported: 2 });
+    const copies = await testsOf(b);
+    const originals = await testsOf(a);
+    expect(copies.map((t) => [t.start_date, t.status, t.result_percent])).toEqual(originals.map((t) => [t.start_date, t.status, t.result_percent]));
+    const copyOfFin = copies.find((t) => t.start_date === '2026-01-10')!;
+    const copyPage = await page(b, copyOfFin.id);
+    expect(copyPage.result.percentRounded).toBe(81);
+    expect(copyPage.trays.map((t: { setAsideReason: string | null }) => t.setAsideReason)).toEqual([null, null, null, 'Spilled']);
+    expect((await b.viewer.agent.get(`${base(b)}/tests.csv`)).text).toEqual(csv);
   });
 
   it('when a file has several different mistakes, then each line is reported and nothing is written', async () => {

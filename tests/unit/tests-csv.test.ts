@@ -7,6 +7,7 @@ import {
   type TestCsvContext,
   type TestCsvTest,
 } from '../../server/modules/germination/tests.csv';
+import { uncountedAtFinish } from '../../server/modules/germination/count-rules';
 
 // Sources cited below:
 // - RFC 4180 §2 [read]: records end with CRLF (rule 1); fields holding commas, double quotes or
@@ -35,9 +36,11 @@ function finished(): TestCsvTest {
     pretreatmentDays: 1,
     notes: 'Line one\nline two',
     finishedOn: '2026-02-12',
+    // 7 normal seedlings of the 10 seeds in the figures (tray 2 is set aside): 70%.
+    germinationPercent: 70,
     trays: [
-      { position: 1, seedsSown: 10, abnormal: 1, ungerminated: 2, fresh: 1, dead: 1, hard: 0, counts: [{ date: '2026-02-05', cumulative: 4 }, { date: '2026-02-10', cumulative: 7 }] },
-      { position: 2, seedsSown: 10, abnormal: 0, ungerminated: 10, fresh: null, dead: null, hard: null, counts: [] },
+      { position: 1, seedsSown: 10, abnormal: 1, ungerminated: 2, fresh: 1, dead: 1, hard: 0, setAsideReason: null, counts: [{ date: '2026-02-05', cumulative: 4 }, { date: '2026-02-10', cumulative: 7 }] },
+      { position: 2, seedsSown: 10, abnormal: null, ungerminated: null, fresh: null, dead: null, hard: null, setAsideReason: '-dried out', counts: [] },
     ],
   };
 }
@@ -62,13 +65,14 @@ describe('germination tests CSV, export', () => {
     const records = body.split('\r\n').slice(1);
     expect(records).toHaveLength(3);
     expect(records[0]).toBe(
-      `TOM-1 2026-02-01,TOM-1,Tomato,"Plum, early",2026-02-01,'=paper towel,"Towel ""A""",21.5,,soak,1,"Line one\nline two",1,10,2026-02-05,4,2026-02-12,1,2,1,1,0`,
+      `TOM-1 2026-02-01,TOM-1,Tomato,"Plum, early",2026-02-01,'=paper towel,"Towel ""A""",21.5,,soak,1,"Line one\nline two",1,10,2026-02-05,4,2026-02-12,1,2,1,1,0,,70`,
     );
-    expect(records[2]).toMatch(/,2,10,,,2026-02-12,0,10,,,$/);
+    // The set-aside tray: no counts, no finish values, its reason behind the formula guard (OWASP).
+    expect(records[2]).toMatch(/,2,10,,,2026-02-12,,,,,,'-dried out,70$/);
   });
 
   it('when the export is read back, then the test comes back as it was, formula guard removed', () => {
-    const { speciesName: _species, variety: _variety, ...test } = finished();
+    const { speciesName: _species, variety: _variety, germinationPercent: _percent, ...test } = finished();
     expect(parseTestsCsv(testsToCsv([finished()]), context)).toEqual({
       ok: true,
       tests: [{ ...test, ref: 'TOM-1 2026-02-01', line: 2, lotId: 'lot-tom' }],
@@ -117,7 +121,7 @@ describe('germination tests CSV, import checks', () => {
 
   it('when seedlings are counted on the start day, then the count rules of the API refuse it', () => {
     expect(errorsOf(file('a,TOM-1,2026-02-01,paper towel,1,10,2026-02-01,2,,,'))).toEqual([
-      [2, 'cumulative', expect.stringMatching(/sprouted on the day the test started/)],
+      [2, 'cumulative', expect.stringMatching(/seedlings on the day the test started/)],
     ]);
   });
 
@@ -162,5 +166,116 @@ describe('germination tests CSV, import checks', () => {
       ok: false,
       errors: [{ line: 2, column: 'start_date', message: expect.stringMatching(/before lot TOM-1 was harvested \(2026-02-10\)/) }],
     });
+  });
+});
+
+describe('germination tests CSV, set-aside trays and the stored percent', () => {
+  const SET_ASIDE_HEADER = `${HEADER},set_aside_reason`;
+  const setAsideFile = (...lines: string[]) => [SET_ASIDE_HEADER, ...lines].join('\r\n');
+  const errorsOf = (csv: string) => {
+    const result = parseTestsCsv(csv, context);
+    if (result.ok) throw new Error('expected problems');
+    return result.errors.map((e) => [e.line, e.column ?? null, e.message]);
+  };
+
+  it('when germination_percent is edited or left out, then the import reads the same tests (it is written for people only)', () => {
+    const csv = testsToCsv([finished()]);
+    const edited = csv.replace(/,70(?=\r\n|$)/g, ',12');
+    expect(edited).not.toEqual(csv);
+    expect(parseTestsCsv(edited, context)).toEqual(parseTestsCsv(csv, context));
+    const [header, ...rows] = csv.slice(1).split('\r\n');
+    const cut = (line: string) => line.slice(0, line.lastIndexOf(','));
+    expect(header!.endsWith(',set_aside_reason,germination_percent')).toBe(true);
+    const dropped = [cut(header!), ...rows.map(cut)].join('\r\n');
+    expect(parseTestsCsv(dropped, context)).toEqual(parseTestsCsv(csv, context));
+  });
+
+  it('when no tray is in the figures yet, then germination_percent is empty', () => {
+    const test = { ...finished(), finishedOn: null, germinationPercent: null, trays: [{ ...finished().trays[1]!, setAsideReason: null }] };
+    const [, record] = testsToCsv([test]).slice(1).split('\r\n');
+    expect(record!.endsWith(',2,10,,,,,,,,,,')).toBe(true);
+  });
+
+  it('when a finished test has a tray counted and then set aside, and one never counted set aside, then both read back without finish values', () => {
+    const result = parseTestsCsv(
+      setAsideFile(
+        'f,TOM-1,2026-02-01,paper towel,1,10,2026-02-09,6,2026-02-10,1,3,',
+        'f,TOM-1,2026-02-01,paper towel,2,10,2026-02-05,2,2026-02-10,,,Spilled',
+        'f,TOM-1,2026-02-01,paper towel,2,10,2026-02-07,3,2026-02-10,,,', // the reason need not be repeated
+        'f,TOM-1,2026-02-01,paper towel,3,10,,,2026-02-10,,,Dried out',
+      ),
+      context,
+    );
+    if (!result.ok) throw new Error(JSON.stringify(result.errors));
+    expect(result.tests[0]!.trays.map((t) => [t.position, t.setAsideReason, t.abnormal, t.ungerminated, t.counts.length])).toEqual([
+      [1, null, 1, 3, 1],
+      [2, 'Spilled', null, null, 2],
+      [3, 'Dried out', null, null, 0],
+    ]);
+  });
+
+  it('when a running test has a tray set aside, then it reads back with its reason', () => {
+    const result = parseTestsCsv(setAsideFile('r,MAR-2,2026-02-01,paper towel,1,10,2026-02-05,2,,,,', 'r,MAR-2,2026-02-01,paper towel,2,10,,,,,,Eaten by mice'), context);
+    if (!result.ok) throw new Error(JSON.stringify(result.errors));
+    expect(result.tests[0]!.trays.map((t) => t.setAsideReason)).toEqual([null, 'Eaten by mice']);
+  });
+
+  it('when a finished test has a tray never counted and not set aside, then the finish rule of the API asks for a count or a reason', () => {
+    expect(
+      errorsOf(
+        setAsideFile(
+          'u,TOM-1,2026-02-01,paper towel,1,10,2026-02-09,6,2026-02-10,1,3,',
+          'u,TOM-1,2026-02-01,paper towel,2,10,,,2026-02-10,0,10,', // figures, but never counted
+        ),
+      ),
+    ).toEqual([[3, 'set_aside_reason', uncountedAtFinish(2)]]);
+    expect(uncountedAtFinish(2)).toMatch(/^Tray 2 has no counts: .*set it aside with a reason/);
+  });
+
+  it('when a tray of a finished test is set aside but gives finish values, then the line asks for one or the other', () => {
+    expect(
+      errorsOf(
+        setAsideFile(
+          's,TOM-1,2026-02-01,paper towel,1,10,2026-02-09,6,2026-02-10,1,3,',
+          's,TOM-1,2026-02-01,paper towel,2,10,2026-02-05,2,2026-02-10,0,8,spilled',
+        ),
+      ),
+    ).toEqual([
+      [
+        3,
+        'abnormal',
+        'Tray 2 is set aside (spilled), so it is left out of the figures and takes no finish values: leave abnormal, ungerminated empty, or empty set_aside_reason to keep the tray in the result.',
+      ],
+    ]);
+  });
+
+  it('when every tray of a finished test is set aside, then the test is refused: it has no result', () => {
+    expect(
+      errorsOf(
+        setAsideFile('all,TOM-1,2026-02-01,paper towel,1,10,2026-02-05,2,2026-02-10,,,mice', 'all,TOM-1,2026-02-01,paper towel,2,10,,,2026-02-10,,,spilled'),
+      ),
+    ).toEqual([[2, 'set_aside_reason', 'Test "all" is finished but every tray is set aside, so it has no result: keep at least one counted tray, or leave the test out of the file.']]);
+  });
+
+  it('when a counted tray of a finished test lacks its finish values, then the message offers a reason instead', () => {
+    expect(errorsOf(setAsideFile('m,TOM-1,2026-02-01,paper towel,1,10,2026-02-09,6,2026-02-10,,,'))).toEqual([
+      [2, 'abnormal', 'Test "m" is finished: give the abnormal and ungerminated seeds of tray 1, or a set_aside_reason to leave it out.'],
+    ]);
+  });
+
+  it('when the lines of a tray give different reasons, or one too long, then each such line is named', () => {
+    expect(
+      errorsOf(
+        setAsideFile(
+          'd,TOM-1,2026-02-01,paper towel,1,10,2026-02-05,2,,,,spilled',
+          'd,TOM-1,2026-02-01,paper towel,1,10,2026-02-07,3,,,,',
+          'd,TOM-1,2026-02-01,paper towel,1,10,2026-02-09,4,,,,dried out',
+          `long,MAR-2,2026-02-01,paper towel,1,10,,,,,,${'x'.repeat(201)}`,
+        ),
+      ),
+    ).toEqual([
+      [4, 'set_aside_reason', 'Tray 1 gives set_aside_reason spilled on line 2; every line of a tray gives the same.'],
+      [5, 'set_aside_reason', 'Keep the reason under 200 characters.'],
+    ]);
   });
 });

@@ -7,11 +7,12 @@
  * used. Deleting an imported test later gives no seeds back for the same reason.
  */
 import { sql } from 'kysely';
-import type { TestsImportPreview } from '../../../shared/schemas/germination';
+import { storedResultSchema, type TestsImportPreview } from '../../../shared/schemas/germination';
 import { bankToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
 import { invalidCsv } from '../../http/errors';
 import { testFields, testsWithLot, trayFields, traysAndCounts } from './germination.service';
+import { RESULT_VERSION, storeResults } from './test-results';
 import { parseTestsCsv, testsToCsv, type ParsedTestCsvTest, type TestCsvTest } from './tests.csv';
 
 export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
@@ -58,6 +59,7 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
           fresh: tray.fresh,
           dead: tray.dead,
           hard: tray.hard,
+          set_aside_reason: tray.setAsideReason,
         })
         .returning('id')
         .executeTakeFirstOrThrow();
@@ -68,6 +70,7 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
           .execute();
       }
     }
+    return test.id;
   }
 
   return {
@@ -80,8 +83,14 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
         .orderBy('germination_tests.id')
         .execute();
       const { trays, counts } = await traysAndCounts(db, tests.map((t) => t.id));
+      // The stored result every screen shows; one stored under an older definition is brought up
+      // to date first, as the test page does.
+      const stale = tests.filter((t) => t.result_version !== RESULT_VERSION || t.result === null).map((t) => t.id);
+      const fresh = await storeResults(db, stale);
+      const percentOf = (t: (typeof tests)[number]) => storedResultSchema.parse(fresh.get(t.id) ?? t.result).percentRounded;
       const rows: TestCsvTest[] = tests.map((t) => ({
         ...testFields(t),
+        germinationPercent: percentOf(t),
         trays: trays
           .filter((tr) => tr.test_id === t.id)
           .map((tr) => ({
@@ -129,7 +138,9 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
         // One millisecond apart, so a lot's tests started the same day keep the file's order (the
         // export sorts them by when they were logged).
         const now = clock.now().getTime();
-        for (const [i, t] of parsed.tests.entries()) await insertTest(trx, bankId, userId, t, new Date(now + i));
+        const ids: string[] = [];
+        for (const [i, t] of parsed.tests.entries()) ids.push(await insertTest(trx, bankId, userId, t, new Date(now + i)));
+        await storeResults(trx, ids);
         return parsed.tests.length;
       });
       return { imported };

@@ -19,6 +19,13 @@
  *   written for people reading the file and are not read back (the lot says what it is).
  * - A finished test has `finished_on` and, per tray, `abnormal` and `ungerminated` (and optionally
  *   the ungerminated split into `fresh`, `dead`, `hard`), repeated on each of the tray's records.
+ * - `set_aside_reason`, repeated on a tray's records like the finish values, sets the tray aside
+ *   (spilled, dried out): it is left out of every figure, so at a finish it has no finish values.
+ *   A finished test's tray that was never counted must be set aside, and at least one tray must be
+ *   left in the figures (the finish endpoint's rule).
+ * - `germination_percent` is the test's stored result (test-results.ts) rounded to the whole
+ *   percent, the figure the test page, the ranking and the labels show. Like species and variety it
+ *   is written for people and not read back: the import computes the result from the counts.
  * - The checks are the API's own: the test body's schema, count-rules.ts for the counts of each
  *   check day, and the finish rule, so a file can hold nothing the screens could not have entered.
  *   No date may be after the bank's today.
@@ -26,7 +33,7 @@
  *   the lot's seeds on hand already reflect them (the service says so too).
  */
 import { z } from 'zod';
-import { createTestBodySchema, pretreatmentSchema, type CreateTestBody } from '../../../shared/schemas/germination';
+import { createTestBodySchema, pretreatmentSchema, setAsideReasonSchema, type CreateTestBody } from '../../../shared/schemas/germination';
 import { blankToNull, choice, decimal, optionalDate, optionalText, requiredText, wholeNumber } from '../../csv/csv-cells';
 import {
   columnOf,
@@ -38,7 +45,7 @@ import {
   type CsvError,
   type CsvLayout,
 } from '../../csv/csv-file';
-import { countProblems, finishProblem, startBeforeHarvest } from './count-rules';
+import { countProblems, finishProblem, startBeforeHarvest, uncountedAtFinish } from './count-rules';
 
 /** What a test is: every record of a test repeats these. */
 const SETUP_COLUMNS = [
@@ -53,6 +60,8 @@ const SETUP_COLUMNS = [
 ] as const;
 /** A finished tray's seeds besides its normal seedlings; every record of a tray repeats these. */
 const FINISH_COLUMNS = ['abnormal', 'ungerminated', 'fresh', 'dead', 'hard'] as const;
+/** What every record of a tray repeats besides its seeds sown. */
+const TRAY_COLUMNS = [...FINISH_COLUMNS, 'set_aside_reason'] as const;
 
 export const TEST_CSV_COLUMNS = [
   'test',
@@ -65,7 +74,9 @@ export const TEST_CSV_COLUMNS = [
   'check_date',
   'cumulative',
   'finished_on',
-  ...FINISH_COLUMNS,
+  ...TRAY_COLUMNS,
+  // Written for people, not read back (the import computes the result from the counts).
+  'germination_percent',
 ] as const;
 export type TestCsvColumn = (typeof TEST_CSV_COLUMNS)[number];
 
@@ -82,6 +93,8 @@ export interface TestCsvTray {
   fresh: number | null;
   dead: number | null;
   hard: number | null;
+  /** Why the tray was set aside (spilled, dried out); such a tray is left out of every figure. */
+  setAsideReason: string | null;
   /** Cumulative normal seedlings by check date, in date order. */
   counts: { date: string; cumulative: number }[];
 }
@@ -104,6 +117,8 @@ interface TestCsvFields {
 export interface TestCsvTest extends TestCsvFields {
   speciesName: string;
   variety: string;
+  /** The stored result's whole percent (`percentRounded`); null while no tray is in the figures. */
+  germinationPercent: number | null;
 }
 
 /** One test as the import read it: its reference, its first line and the lot it belongs to. */
@@ -159,6 +174,8 @@ function trayRecords(ref: string, test: TestCsvTest, tray: TestCsvTray): Record<
     fresh: numberCell(tray.fresh),
     dead: numberCell(tray.dead),
     hard: numberCell(tray.hard),
+    set_aside_reason: textCell(tray.setAsideReason),
+    germination_percent: numberCell(test.germinationPercent),
   };
   if (tray.counts.length === 0) return [{ ...shared, check_date: '', cumulative: '' }];
   return tray.counts.map((c) => ({ ...shared, check_date: c.date, cumulative: String(c.cumulative) }));
@@ -214,6 +231,12 @@ const recordSchema = z
     fresh: count('fresh seeds'),
     dead: count('dead seeds'),
     hard: count('hard seeds'),
+    // The API's own rule for a reason (trimmed, at most 200 characters); empty: the tray is in the figures.
+    set_aside_reason: z
+      .string()
+      .transform(unprotectCsvText)
+      .transform((v) => (v === '' ? null : v))
+      .pipe(setAsideReasonSchema.nullable()),
   })
   .superRefine((c, ctx) => {
     if ((c.check_date === null) !== (c.cumulative === null)) {
@@ -270,8 +293,8 @@ function disagreements<K extends keyof TestCsvRecord>(first: TestCsvRecord, reco
     }));
 }
 
-/** A tray's finish values: the non-empty ones must agree; returns the value or a disagreement. */
-function finishValue(records: TestCsvRecord[], column: (typeof FINISH_COLUMNS)[number], errors: CsvError[]): number | null {
+/** A tray's repeated value (finish values, set-aside reason): the non-empty ones must agree; returns the value or a disagreement. */
+function trayValue<K extends (typeof TRAY_COLUMNS)[number]>(records: TestCsvRecord[], column: K, errors: CsvError[]): TestCsvRecord[K] | null {
   const given = records.filter((r) => r[column] !== null);
   const first = given[0];
   for (const r of given.slice(1)) {
@@ -279,7 +302,7 @@ function finishValue(records: TestCsvRecord[], column: (typeof FINISH_COLUMNS)[n
       errors.push({
         line: r.line,
         column,
-        message: `Tray ${r.tray} gives ${column} ${first![column]} on line ${first!.line}; every line of a tray gives the same.`,
+        message: `Tray ${r.tray} gives ${column} ${String(first![column])} on line ${first!.line}; every line of a tray gives the same.`,
       });
     }
   }
@@ -337,11 +360,12 @@ function checkTest(ref: string, records: TestCsvRecord[], context: TestCsvContex
     trays.push({
       position,
       seedsSown: mine[0]!.seeds_sown,
-      abnormal: finishValue(mine, 'abnormal', errors),
-      ungerminated: finishValue(mine, 'ungerminated', errors),
-      fresh: finishValue(mine, 'fresh', errors),
-      dead: finishValue(mine, 'dead', errors),
-      hard: finishValue(mine, 'hard', errors),
+      abnormal: trayValue(mine, 'abnormal', errors),
+      ungerminated: trayValue(mine, 'ungerminated', errors),
+      fresh: trayValue(mine, 'fresh', errors),
+      dead: trayValue(mine, 'dead', errors),
+      hard: trayValue(mine, 'hard', errors),
+      setAsideReason: trayValue(mine, 'set_aside_reason', errors),
       counts,
     });
   }
@@ -427,7 +451,10 @@ function countErrors(startDate: string, trays: TestCsvTray[], countLines: Map<st
   });
 }
 
-/** The finish endpoint's rules, when the test is finished: every tray adds up to its seeds sown. */
+/**
+ * The finish endpoint's rules, when the test is finished: every tray in the figures was counted and
+ * adds up to its seeds sown, a tray set aside has no finish values, and at least one tray is in the figures.
+ */
 function finishErrors(what: string, first: TestCsvRecord, trays: TestCsvTray[], byTray: Map<number, TestCsvRecord[]>): CsvError[] {
   const finishedOn = first.finished_on;
   const errors: CsvError[] = [];
@@ -447,13 +474,41 @@ function finishErrors(what: string, first: TestCsvRecord, trays: TestCsvTray[], 
     errors.push({ line: first.line, column: 'finished_on', message: `${what} cannot finish before its last count (${notBefore}).` });
   }
   for (const tray of trays) {
-    if (tray.abnormal === null || tray.ungerminated === null) {
-      errors.push({ line: lastLine(tray.position), column: tray.abnormal === null ? 'abnormal' : 'ungerminated', message: `${what} is finished: give the abnormal and ungerminated seeds of tray ${tray.position}.` });
+    if (tray.setAsideReason !== null) {
+      // The finish endpoint keeps no figures for a tray set aside; a file that gives some means
+      // either the reason or the figures are a slip, and only the grower knows which.
+      const given = FINISH_COLUMNS.filter((c) => tray[c] !== null);
+      if (given.length > 0) {
+        errors.push({
+          line: lastLine(tray.position),
+          column: given[0]!,
+          message: `Tray ${tray.position} is set aside (${tray.setAsideReason}), so it is left out of the figures and takes no finish values: leave ${given.join(', ')} empty, or empty set_aside_reason to keep the tray in the result.`,
+        });
+      }
       continue;
     }
-    const normal = tray.counts.at(-1)?.cumulative ?? 0;
+    if (tray.counts.length === 0) {
+      errors.push({ line: lastLine(tray.position), column: 'set_aside_reason', message: uncountedAtFinish(tray.position) });
+      continue;
+    }
+    if (tray.abnormal === null || tray.ungerminated === null) {
+      errors.push({
+        line: lastLine(tray.position),
+        column: tray.abnormal === null ? 'abnormal' : 'ungerminated',
+        message: `${what} is finished: give the abnormal and ungerminated seeds of tray ${tray.position}, or a set_aside_reason to leave it out.`,
+      });
+      continue;
+    }
+    const normal = tray.counts.at(-1)!.cumulative;
     const problem = finishProblem({ position: tray.position, seeds_sown: tray.seedsSown }, normal, { ...tray, abnormal: tray.abnormal, ungerminated: tray.ungerminated });
     if (problem) errors.push({ line: lastLine(tray.position), column: problem.field, message: problem.message });
+  }
+  if (trays.length > 0 && trays.every((t) => t.setAsideReason !== null)) {
+    errors.push({
+      line: first.line,
+      column: 'set_aside_reason',
+      message: `${what} is finished but every tray is set aside, so it has no result: keep at least one counted tray, or leave the test out of the file.`,
+    });
   }
   return errors;
 }
