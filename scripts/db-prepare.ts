@@ -7,6 +7,7 @@ import { seedDemoScenario } from '../server/db/demo-scenario';
 import { migrateToLatest } from '../server/db/migrate';
 import { DEMO_ACCOUNTS, DEMO_BANK_NAME, isDemoSeeded } from '../server/db/seed-demo';
 import { createMailer } from '../server/mail/mailer';
+import { refreshStaleResults } from '../server/modules/germination/test-results';
 import { syncReferenceSpecies } from '../server/modules/species/reference-sync';
 import { removePhotoObjects } from '../server/photos/store-photo';
 import { createObjectStore } from '../server/storage/object-store';
@@ -20,6 +21,9 @@ try {
   const applied = results?.filter((r) => r.status === 'Success').map((r) => r.migrationName) ?? [];
   if (applied.length) process.stdout.write(`hilum: applied migrations: ${applied.join(', ')}\n`);
   await syncReferenceSpecies(db);
+  // Tests stored before a change to the result's definition (or before results were stored).
+  const refreshed = await refreshStaleResults(db);
+  if (refreshed) process.stdout.write(`hilum: recomputed the stored results of ${refreshed} germination tests\n`);
   const reset = process.argv.includes('--reset-demo');
   if (reset) {
     const banks = await db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).execute();

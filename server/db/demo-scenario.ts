@@ -6,6 +6,7 @@ import sharp from 'sharp';
 import { addDays, comingSeason } from '../../shared/plan-dates';
 import type { Clock } from '../clock';
 import type { Mailer } from '../mail/mailer';
+import { refreshStaleResults } from '../modules/germination/test-results';
 import { createInvitationsService } from '../modules/invitations/invitations.service';
 import { codePrefix, nextCode } from '../modules/lots/lot-code';
 import { createPlanService } from '../modules/plan/plan.service';
@@ -266,6 +267,8 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
       }
       if (n < 12) photos.push({ lotId: lot.id, code, species: sp.common_name, variety });
     }
+    // The tests above were written row by row: each gets its stored result, as a grower's would.
+    await refreshStaleResults(trx);
   });
 
   // Packet photos go through the same pipeline as a grower's upload.

@@ -218,6 +218,15 @@ export interface GerminationTestTable {
   created_by: string | null;
   created_at: Timestamp;
   updated_at: Timestamp;
+  /** The stored result (summarizeTest's TestSummary as JSON), written with every change to the test. */
+  result: ColumnType<unknown, string | null | undefined, string | null>;
+  /** Which definition of the result computed it; older ones are recomputed at start. */
+  result_version: ColumnType<number, number | undefined, number>;
+  result_sown: ColumnType<number | null, number | null | undefined, number | null>;
+  result_germinated: ColumnType<number | null, number | null | undefined, number | null>;
+  result_percent: ColumnType<number | null, number | null | undefined, number | null>;
+  result_mean_days: ColumnType<number | null, number | null | undefined, number | null>;
+  result_last_count_date: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 export interface TestTrayTable {
@@ -230,6 +239,8 @@ export interface TestTrayTable {
   fresh: number | null;
   dead: number | null;
   hard: number | null;
+  /** Why the grower set the tray aside (spilled, dried out); such a tray is left out of every figure. */
+  set_aside_reason: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 export interface TrayCountTable {

@@ -133,6 +133,7 @@ export function createReminders(deps: RemindersDeps) {
           .selectFrom('test_trays')
           .select(['test_id', 'position', 'seeds_sown'])
           .where('test_id', 'in', running.map((t) => t.id))
+          .where('set_aside_reason', 'is', null)
           .orderBy('position')
           .execute()
       : [];
@@ -149,7 +150,7 @@ export function createReminders(deps: RemindersDeps) {
           dueOn: on,
           subject: `Count the trays of ${sp?.commonName ?? 'a'} test ${t.code} (day ${day})`,
           body: [
-            `Day ${day} of the germination test of lot ${t.code}, started ${t.start_date}: count the sprouted seeds in ${own
+            `Day ${day} of the germination test of lot ${t.code}, started ${t.start_date}: count the normal seedlings (sound root and shoot) in ${own
               .map((tr) => `tray ${tr.position} (${tr.seeds_sown} sown)`)
               .join(', ')}.`,
             '',

@@ -49,21 +49,36 @@ export const countsBodySchema = z.object({
 });
 export type CountsBody = z.infer<typeof countsBodySchema>;
 
+/** Why a tray is left out of every figure: spilled, dried out, eaten by mice… */
+export const setAsideReasonSchema = z
+  .string()
+  .trim()
+  .min(1, { message: 'Say why the tray is set aside (spilled, dried out…).' })
+  .max(200, { message: 'Keep the reason under 200 characters.' });
+
+/**
+ * Each tray at the finish: its abnormal and ungerminated seeds (the normal seedlings are its last
+ * count), or a reason to set it aside, when it cannot be counted to the end.
+ */
+export const finishTraySchema = z
+  .object({
+    trayId: idSchema,
+    abnormal: z.number().int().min(0).optional(),
+    ungerminated: z.number().int().min(0).optional(),
+    fresh: z.number().int().min(0).nullable().optional(),
+    dead: z.number().int().min(0).nullable().optional(),
+    hard: z.number().int().min(0).nullable().optional(),
+    setAsideReason: setAsideReasonSchema.optional(),
+  })
+  .refine((t) => t.setAsideReason !== undefined || (t.abnormal !== undefined && t.ungerminated !== undefined), {
+    path: ['ungerminated'],
+    message: 'Give the abnormal and ungerminated seeds of the tray, or a reason to set it aside.',
+  });
+export type FinishTray = z.infer<typeof finishTraySchema>;
+
 export const finishBodySchema = z.object({
   date: isoDateSchema,
-  trays: z
-    .array(
-      z.object({
-        trayId: idSchema,
-        abnormal: z.number().int().min(0),
-        ungerminated: z.number().int().min(0),
-        fresh: z.number().int().min(0).nullable().optional(),
-        dead: z.number().int().min(0).nullable().optional(),
-        hard: z.number().int().min(0).nullable().optional(),
-      }),
-    )
-    .min(1)
-    .max(8),
+  trays: z.array(finishTraySchema).min(1).max(8),
 });
 export type FinishBody = z.infer<typeof finishBodySchema>;
 
@@ -76,7 +91,12 @@ export const traySchema = z.object({
   fresh: z.number().nullable(),
   dead: z.number().nullable(),
   hard: z.number().nullable(),
+  /** Set when the grower set the tray aside; such a tray is left out of every figure. */
+  setAsideReason: z.string().nullable(),
 });
+
+/** PATCH …/tests/:testId/trays/:trayId: set a tray aside with a reason, or take it back (null). */
+export const trayUpdateBodySchema = z.object({ setAsideReason: setAsideReasonSchema.nullable() });
 
 export const testSchema = z.object({
   id: idSchema,
@@ -111,9 +131,37 @@ export const resultSchema = z.object({
   percent: nullableNumber,
   percentRounded: nullableNumber,
   interval: z.object({ low: z.number(), high: z.number(), method: z.enum(['wilson', 'clopper-pearson']), confidence: z.number() }).nullable(),
-  trayPercents: z.array(z.object({ id: z.string(), seedsSown: z.number(), germinated: nullableNumber, percent: nullableNumber })),
-  agreement: z.object({ maxRange: nullableNumber, observedRange: nullableNumber, ok: z.boolean().nullable() }),
+  trayPercents: z.array(
+    z.object({
+      id: z.string(),
+      seedsSown: z.number(),
+      /** counted: in the figures; not-counted: no count yet, left out; set-aside: left out of every figure. */
+      state: z.enum(['counted', 'not-counted', 'set-aside']),
+      setAsideReason: z.string().nullable(),
+      germinated: nullableNumber,
+      percent: nullableNumber,
+      abnormal: nullableNumber,
+      ungerminated: nullableNumber,
+      fresh: nullableNumber,
+      dead: nullableNumber,
+      hard: nullableNumber,
+    }),
+  ),
+  /** tolerance-table: trays of one size, range rule (maxRange); chi-square: trays of different sizes (pValue). */
+  agreement: z.object({
+    method: z.enum(['tolerance-table', 'chi-square']),
+    maxRange: nullableNumber,
+    observedRange: nullableNumber,
+    ok: z.boolean().nullable(),
+    pValue: nullableNumber,
+  }),
   homogeneity: z.object({ statistic: z.number(), df: z.number(), pValue: z.number() }).nullable(),
+  /** Pooled finish figures of the trays in the figures; null unless every one of them has it. */
+  abnormal: nullableNumber,
+  ungerminated: nullableNumber,
+  fresh: nullableNumber,
+  dead: nullableNumber,
+  hard: nullableNumber,
   meanDays: nullableNumber,
   variance: nullableNumber,
   rate: nullableNumber,
@@ -123,12 +171,19 @@ export const resultSchema = z.object({
   speedIndex: nullableNumber,
   uncertaintyBits: nullableNumber,
   synchrony: nullableNumber,
+  /** Why timing figures are null, in a grower's words; null when they are all given. */
+  timingNote: z.string().nullable(),
   traysCounted: z.number(),
   traysTotal: z.number(),
+  traysSetAside: z.number(),
   /** The result in plain words, for the result panel. */
   summary: z.array(z.string()),
 });
 export type TestResult = z.infer<typeof resultSchema>;
+
+/** A test's result as stored on the test (server/modules/germination/test-results.ts): without the words. */
+export const storedResultSchema = resultSchema.omit({ summary: true });
+export type StoredResult = z.infer<typeof storedResultSchema>;
 
 export const testDetailSchema = z.object({
   test: testSchema,

@@ -5,7 +5,18 @@ export const overviewSchema = z.object({
   today: z.string(),
   weekEnd: z.string(),
   traysToCount: z.array(
-    z.object({ testId: idSchema, lotId: idSchema, lotCode: z.string(), species: z.string(), checkDate: z.string(), day: z.number(), trays: z.number(), overdue: z.boolean() }),
+    z.object({
+      testId: idSchema,
+      lotId: idSchema,
+      lotCode: z.string(),
+      species: z.string(),
+      checkDate: z.string(),
+      day: z.number(),
+      trays: z.number(),
+      overdue: z.boolean(),
+      /** The test's stored germination so far (whole percent), null before any tray is counted. */
+      percentSoFar: z.number().nullable(),
+    }),
   ),
   sowingsDue: z.array(
     z.object({ entryId: idSchema, species: z.string(), lotCode: z.string().nullable(), sowFrom: z.string(), sowTo: z.string(), seedsToSow: z.number().nullable(), plantsWanted: z.number(), open: z.boolean() }),

@@ -23,17 +23,17 @@ interface SavedCount {
 function trayProblem(tray: Tray, cumulative: number, date: string, startDate: string, saved: SavedCount[]): string | null {
   const label = `Tray ${tray.position}`;
   if (cumulative > tray.seeds_sown) {
-    return `${label}: ${cumulative} sprouted is more than the ${tray.seeds_sown} seeds sown. At most ${tray.seeds_sown}.`;
+    return `${label}: ${cumulative} seedlings is more than the ${tray.seeds_sown} seeds sown. At most ${tray.seeds_sown}.`;
   }
   // Day 0: nothing has had time to sprout, and the timing statistics cannot place it.
   if (date === startDate && cumulative > 0) {
-    return `${label}: ${cumulative} sprouted on the day the test started (${startDate}). Count on a later day, or give 0.`;
+    return `${label}: ${cumulative} seedlings on the day the test started (${startDate}). Count on a later day, or give 0.`;
   }
   const mine = saved.filter((c) => c.tray_id === tray.id);
   const before = mine.filter((c) => c.check_date < date).at(-1);
   const after = mine.find((c) => c.check_date > date);
   if (before && cumulative < before.cumulative) {
-    return `${label}: ${cumulative} is fewer than the ${before.cumulative} counted on ${before.check_date}. Counts are cumulative: give the total sprouted so far, at least ${before.cumulative}.`;
+    return `${label}: ${cumulative} is fewer than the ${before.cumulative} counted on ${before.check_date}. Counts are cumulative: give the total seedlings so far, at least ${before.cumulative}.`;
   }
   if (after && cumulative > after.cumulative) {
     return `${label}: ${cumulative} is more than the ${after.cumulative} counted later, on ${after.check_date}. Correct that later count first, or give at most ${after.cumulative}.`;
@@ -66,6 +66,14 @@ export function countProblems(body: CountsBody, startDate: string, trays: Tray[]
     if (message) problems.push({ field, message });
   }
   return problems;
+}
+
+/**
+ * A tray that was never counted cannot be finished: its seedlings are unknown, so it would enter the
+ * result as a guess. The grower records a count (0 when nothing came up) or sets the tray aside.
+ */
+export function uncountedAtFinish(position: number): string {
+  return `Tray ${position} has no counts: record its seedlings on a check day (0 if none came up), or set it aside with a reason.`;
 }
 
 export interface FinishEntry {

@@ -5,6 +5,7 @@ import {
   createTestBodySchema,
   finishBodySchema,
   testDetailSchema,
+  trayUpdateBodySchema,
   updateTestBodySchema,
 } from '../../../shared/schemas/germination';
 import { isoDateSchema } from '../../../shared/schemas/common';
@@ -61,6 +62,11 @@ export function testRoutes(tests: GerminationService): Router {
   router.post('/:testId/finish', requireRole('grower'), async (req, res) => {
     const body = parse(finishBodySchema, req.body, 'finish');
     respond(res, 200, testDetailSchema, await tests.finish(req.bank!.id, testId(req), body));
+  });
+  router.patch('/:testId/trays/:trayId', requireRole('grower'), async (req, res) => {
+    const body = parse(trayUpdateBodySchema, req.body, 'tray');
+    const trayId = idParam(req.params.trayId, 'tray');
+    respond(res, 200, testDetailSchema, await tests.setTrayAside(req.bank!.id, testId(req), trayId, body.setAsideReason));
   });
   router.post('/:testId/reopen', requireRole('grower'), async (req, res) => {
     respond(res, 200, testDetailSchema, await tests.reopen(req.bank!.id, testId(req)));

@@ -1,21 +1,25 @@
 import { sql, type Selectable, type Updateable } from 'kysely';
 import type { z } from 'zod';
-import type { CountsBody, CreateTestBody, FinishBody, TestDetail, updateTestBodySchema } from '../../../shared/schemas/germination';
+import { storedResultSchema, type CountsBody, type CreateTestBody, type FinishBody, type TestDetail, type updateTestBodySchema } from '../../../shared/schemas/germination';
+import { addDays, daysBetween } from '../../../shared/plan-dates';
 import { bankToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
 import type { GerminationTestTable, TestTrayTable } from '../../db/schema';
 import { AppError, conflict, notFound, unprocessable } from '../../http/errors';
-import { summarizeTest, type IntervalMethod } from '../../stats';
+import { clopperPearsonInterval, type IntervalMethod } from '../../stats';
 import { findSpecies } from '../species/species.service';
 import { lockLot, stockOf } from '../lots/lots.repository';
-import { countProblems, finishProblem, startBeforeHarvest } from './count-rules';
+import { countProblems, finishProblem, startBeforeHarvest, uncountedAtFinish } from './count-rules';
 import { resultWords } from './result-words';
+import { RESULT_VERSION, storeResult } from './test-results';
 
-const DAY_MS = 86_400_000;
-const isoDay = (d: Date) => d.toISOString().slice(0, 10);
-const daysBetween = (from: string, to: string) => Math.round((Date.parse(to) - Date.parse(from)) / DAY_MS);
-const addDays = (date: string, n: number) => isoDay(new Date(Date.parse(date) + n * DAY_MS));
 const num = (v: string | null) => (v === null ? null : Number(v));
+
+/** The exact interval of a stored result's pooled counts, on request instead of Wilson's. */
+function cpInterval(germinated: number, sown: number, confidence: number) {
+  const b = clopperPearsonInterval(germinated, sown, confidence);
+  return { low: 100 * b.low, high: 100 * b.high, method: 'clopper-pearson' as const, confidence };
+}
 
 export interface GerminationDeps {
   db: Db;
@@ -79,6 +83,7 @@ export function trayFields(tr: Selectable<TestTrayTable>) {
     fresh: tr.fresh,
     dead: tr.dead,
     hard: tr.hard,
+    setAsideReason: tr.set_aside_reason,
   };
 }
 
@@ -115,14 +120,12 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
       .select(sql<number>`coalesce(-sum(change), 0)::int`.as('seeds'))
       .where('test_id', '=', testId)
       .executeTakeFirstOrThrow();
-    const summary = summarizeTest(
-      trays.map((tr) => ({
-        id: tr.id,
-        seedsSown: tr.seeds_sown,
-        checks: counts.filter((c) => c.tray_id === tr.id).map((c) => ({ day: daysBetween(t.start_date, c.check_date), cumulative: c.cumulative })),
-      })),
-      { intervalMethod },
-    );
+    // The stored result (test-results.ts); one stored under an older definition is brought up to date.
+    const stored = storedResultSchema.parse(t.result_version === RESULT_VERSION && t.result !== null ? t.result : await storeResult(on, testId));
+    const summary =
+      intervalMethod === 'clopper-pearson' && stored.interval && stored.sown !== null && stored.germinated !== null
+        ? { ...stored, interval: cpInterval(stored.germinated, stored.sown, stored.interval.confidence) }
+        : stored;
     return {
       test: {
         id: t.id,
@@ -135,7 +138,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
       },
       trays: trays.map((tr) => ({ id: tr.id, ...trayFields(tr) })),
       counts: counts.map((c) => ({ trayId: c.tray_id, date: c.check_date, day: daysBetween(t.start_date, c.check_date), cumulative: c.cumulative })),
-      result: { ...summary, summary: resultWords(summary, schedule.firstCountDate) },
+      result: { ...summary, summary: resultWords(summary, schedule.firstCountDate, t.status === 'finished') },
     };
   }
 
@@ -202,6 +205,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         if (onHand === needed && lot.status === 'active') {
           await trx.updateTable('lots').set({ status: 'depleted' }).where('id', '=', lotId).execute();
         }
+        await storeResult(trx, test.id);
         return test.id;
       });
       return detail(bankId, testId);
@@ -269,6 +273,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
             .onConflict((oc) => oc.columns(['tray_id', 'check_date']).doUpdateSet({ cumulative: entry.cumulative, created_by: userId }))
             .execute();
         }
+        await storeResult(trx, testId);
       });
       return detail(bankId, testId);
     },
@@ -281,6 +286,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         const trayIds = (await trx.selectFrom('test_trays').select('id').where('test_id', '=', testId).execute()).map((r) => r.id);
         const res = await trx.deleteFrom('tray_counts').where('tray_id', 'in', trayIds).where('check_date', '=', date).executeTakeFirst();
         if (!res.numDeletedRows) throw notFound(`No counts on ${date}.`);
+        await storeResult(trx, testId);
       });
       return detail(bankId, testId);
     },
@@ -299,21 +305,58 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         const lastDate = counts.at(-1)?.check_date ?? t.start_date;
         if (body.date < lastDate) throw unprocessable(`The test cannot finish before its last count (${lastDate}).`, { date: `On or after ${lastDate}.` });
         if (body.date > (await today(trx, bankId))) throw unprocessable('A test cannot finish in the future.', { date: 'Use today or an earlier date.' });
+        if (body.trays.some((e) => !trays.some((tr) => tr.id === e.trayId))) throw unprocessable('A tray listed is not part of this test.');
         const given = new Map(body.trays.map((e, i) => [e.trayId, { ...e, index: i }]));
+        let inFigures = 0;
         for (const tray of trays) {
           const entry = given.get(tray.id);
-          if (!entry) throw unprocessable(`Give the abnormal and ungerminated seeds of tray ${tray.position} too.`);
-          const normal = counts.filter((c) => c.tray_id === tray.id).at(-1)?.cumulative ?? 0;
-          const problem = finishProblem(tray, normal, entry);
+          if (!entry) {
+            // A tray set aside while the test ran stays aside; any other needs its figures.
+            if (tray.set_aside_reason !== null) continue;
+            throw unprocessable(`Give the abnormal and ungerminated seeds of tray ${tray.position}, or a reason to set it aside.`);
+          }
+          if (entry.setAsideReason !== undefined) {
+            await trx
+              .updateTable('test_trays')
+              .set({ set_aside_reason: entry.setAsideReason, abnormal: null, ungerminated: null, fresh: null, dead: null, hard: null })
+              .where('id', '=', tray.id)
+              .execute();
+            continue;
+          }
+          const mine = counts.filter((c) => c.tray_id === tray.id);
+          if (mine.length === 0) throw unprocessable(uncountedAtFinish(tray.position), { [`trays.${entry.index}.setAsideReason`]: 'Count this tray first, or set it aside.' });
+          const figures = { abnormal: entry.abnormal ?? 0, ungerminated: entry.ungerminated ?? 0, fresh: entry.fresh, dead: entry.dead, hard: entry.hard };
+          const problem = finishProblem(tray, mine.at(-1)!.cumulative, figures);
           if (problem) throw unprocessable(problem.message, { [`trays.${entry.index}.${problem.field}`]: problem.hint });
           await trx
             .updateTable('test_trays')
-            .set({ abnormal: entry.abnormal, ungerminated: entry.ungerminated, fresh: entry.fresh ?? null, dead: entry.dead ?? null, hard: entry.hard ?? null })
+            .set({ ...figures, fresh: figures.fresh ?? null, dead: figures.dead ?? null, hard: figures.hard ?? null, set_aside_reason: null })
             .where('id', '=', tray.id)
             .execute();
+          inFigures += 1;
         }
-        if (body.trays.some((e) => !trays.some((tr) => tr.id === e.trayId))) throw unprocessable('A tray listed is not part of this test.');
+        if (inFigures === 0) {
+          throw unprocessable('Every tray is set aside, so the test has no result. Keep at least one counted tray, or delete the test if it failed.');
+        }
         await trx.updateTable('germination_tests').set({ status: 'finished', finished_on: body.date, updated_at: clock.now() }).where('id', '=', testId).execute();
+        await storeResult(trx, testId);
+      });
+      return detail(bankId, testId);
+    },
+
+    /** Sets a tray aside with a reason (spilled, dried out), or takes it back, while the test runs. */
+    async setTrayAside(bankId: string, testId: string, trayId: string, reason: string | null) {
+      await db.transaction().execute(async (trx) => {
+        const t = await loadTest(trx, bankId, testId, true);
+        assertRunning(t);
+        const res = await trx
+          .updateTable('test_trays')
+          .set({ set_aside_reason: reason })
+          .where('id', '=', trayId)
+          .where('test_id', '=', testId)
+          .executeTakeFirst();
+        if (!res.numUpdatedRows) throw notFound('No such tray in this test.');
+        await storeResult(trx, testId);
       });
       return detail(bankId, testId);
     },

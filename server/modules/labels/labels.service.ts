@@ -10,9 +10,6 @@ export function lotPageUrl(appOrigin: string, bankId: string, lotId: string): st
   return `${appOrigin.replace(/\/+$/, '')}/banks/${encodeURIComponent(bankId)}/lots/${encodeURIComponent(lotId)}`;
 }
 
-/** Germination as the seed-testing rules report it: a whole percent, rounded to nearest (ISTA Rules, ch. 5). */
-const wholePercent = (germinated: number, sown: number) => Math.round((100 * germinated) / sown);
-
 export function createLabelsService({ db, appOrigin }: { db: Db; appOrigin: string }) {
   async function labelContent(bankId: string, lotId: string): Promise<LabelContent> {
     const row = await lotsQuery(db, bankId).where('lots.id', '=', lotId).executeTakeFirst();
@@ -28,7 +25,7 @@ export function createLabelsService({ db, appOrigin }: { db: Db; appOrigin: stri
       packedForSeason: lot.packedForSeason,
       lastTest: test
         ? {
-            percent: wholePercent(test.germinated, test.sown),
+            percent: test.percent,
             startDate: test.start_date,
             running: test.status === 'running',
           }

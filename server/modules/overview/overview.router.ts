@@ -29,10 +29,16 @@ export function overviewRoutes(deps: { db: Db; clock: Clock; viability: Viabilit
     const running = await db
       .selectFrom('germination_tests')
       .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
-      .select(['germination_tests.id', 'germination_tests.start_date', 'lots.id as lot_id', 'lots.code', 'lots.species_id'])
-      .select((eb) => eb.selectFrom('test_trays').select(eb.fn.countAll<number>().as('n')).whereRef('test_trays.test_id', '=', 'germination_tests.id').as('trays'))
-      .select(
-        sql<string | null>`(select max(c.check_date) from tray_counts c join test_trays tr on tr.id = c.tray_id where tr.test_id = germination_tests.id)`.as('last_count'),
+      .select(['germination_tests.id', 'germination_tests.start_date', 'lots.id as lot_id', 'lots.code', 'lots.species_id', 'germination_tests.result_last_count_date as last_count'])
+      .select(sql<number | null>`(germination_tests.result->>'percentRounded')::int`.as('percent_so_far'))
+      // Trays still to count: a set-aside tray is not counted any more.
+      .select((eb) =>
+        eb
+          .selectFrom('test_trays')
+          .select(eb.fn.countAll<number>().as('n'))
+          .whereRef('test_trays.test_id', '=', 'germination_tests.id')
+          .where('test_trays.set_aside_reason', 'is', null)
+          .as('trays'),
       )
       .where('germination_tests.bank_id', '=', bankId)
       .where('germination_tests.status', '=', 'running')
@@ -40,11 +46,11 @@ export function overviewRoutes(deps: { db: Db; clock: Clock; viability: Viabilit
     const traysToCount = running.flatMap((t) => {
       const sp = species.get(t.species_id);
       const days = checkDays(sp?.traits.firstCountDay ?? null, sp?.traits.finalCountDay ?? null);
-      const lastCount = (t.last_count as string | null) ?? null;
+      const lastCount = t.last_count;
       // The next check day not yet counted; an earlier uncounted one is overdue.
       const next = days.map((d) => ({ d, date: addDays(t.start_date, d) })).find((c) => !lastCount || c.date > lastCount);
       if (!next || next.date > weekEnd) return [];
-      return [{ testId: t.id, lotId: t.lot_id, lotCode: t.code, species: sp?.commonName ?? '', checkDate: next.date, day: next.d, trays: Number(t.trays ?? 0), overdue: next.date < today }];
+      return [{ testId: t.id, lotId: t.lot_id, lotCode: t.code, species: sp?.commonName ?? '', checkDate: next.date, day: next.d, trays: Number(t.trays ?? 0), overdue: next.date < today, percentSoFar: t.percent_so_far }];
     });
 
     const entries = await db

@@ -1,4 +1,3 @@
-import { sql } from 'kysely';
 import { dayInWords } from '../../../shared/day-words';
 import type { SpeciesDto } from '../../../shared/schemas/species';
 import type { Db } from '../../db/database';
@@ -47,55 +46,45 @@ export function storageTemperature(storage: { place: keyof typeof PLACE_TEMPERAT
   return storage.place ? PLACE_TEMPERATURE_C[storage.place] : null;
 }
 
+/** A test as the model and the ranking read it: its stored result (germination/test-results.ts). */
 interface TestAggregate {
   id: string;
   lot_id: string;
   start_date: string;
   status: 'running' | 'finished';
-  sown: number;
-  germinated: number;
+  /** Null while no tray of the test has been counted. */
+  sown: number | null;
+  germinated: number | null;
+  percent: number | null;
   last_count_date: string | null;
   mean_days: number | null;
 }
 
-/** Every test of the bank with its pooled totals and mean germination time, in one query. */
+/** Every test of the bank (or of one species) with its stored result, oldest first. */
 async function testAggregates(db: Db, bankId: string, speciesId?: string): Promise<TestAggregate[]> {
-  const { rows } = await sql<TestAggregate>`
-    with c as (
-      select tr.test_id, c.cumulative, c.check_date,
-        (c.check_date - t.start_date) as day,
-        c.cumulative - coalesce(lag(c.cumulative) over (partition by c.tray_id order by c.check_date), 0) as new,
-        row_number() over (partition by c.tray_id order by c.check_date desc) as from_last
-      from tray_counts c
-      join test_trays tr on tr.id = c.tray_id
-      join germination_tests t on t.id = tr.test_id
-      where t.bank_id = ${bankId}
-    ), counted as (
-      select test_id,
-        sum(cumulative) filter (where from_last = 1) as germinated,
-        max(check_date) as last_count_date,
-        sum(new * day)::float8 / nullif(sum(new), 0) as mean_days
-      from c group by test_id
-    ), sown as (
-      select tr.test_id, sum(tr.seeds_sown) as sown
-      from test_trays tr join germination_tests t on t.id = tr.test_id
-      where t.bank_id = ${bankId}
-      group by tr.test_id
-    )
-    select t.id, t.lot_id, t.start_date, t.status, sown.sown::int as sown,
-      coalesce(counted.germinated, 0)::int as germinated, counted.last_count_date, counted.mean_days
-    from germination_tests t
-    join lots l on l.id = t.lot_id
-    join sown on sown.test_id = t.id
-    left join counted on counted.test_id = t.id
-    where t.bank_id = ${bankId} ${speciesId ? sql`and l.species_id = ${speciesId}` : sql``}
-    order by t.start_date`.execute(db);
-  return rows;
+  let q = db
+    .selectFrom('germination_tests as t')
+    .select([
+      't.id',
+      't.lot_id',
+      't.start_date',
+      't.status',
+      't.result_sown as sown',
+      't.result_germinated as germinated',
+      't.result_percent as percent',
+      't.result_last_count_date as last_count_date',
+      't.result_mean_days as mean_days',
+    ])
+    .where('t.bank_id', '=', bankId)
+    .orderBy('t.start_date')
+    .orderBy('t.created_at');
+  if (speciesId) q = q.innerJoin('lots as l', 'l.id', 't.lot_id').where('l.species_id', '=', speciesId);
+  return q.execute();
 }
 
 /** A test counts toward the decline once finished, or once counted up to the species' final count day. */
-function usable(t: TestAggregate, species: SpeciesDto | undefined): boolean {
-  if (t.sown <= 0) return false;
+function usable(t: TestAggregate, species: SpeciesDto | undefined): t is TestAggregate & { sown: number; germinated: number } {
+  if (t.sown === null || t.germinated === null || t.sown <= 0) return false;
   if (t.status === 'finished') return true;
   const final = species?.traits.finalCountDay;
   return final != null && t.last_count_date !== null && Date.parse(t.last_count_date) - Date.parse(t.start_date) >= final * DAY_MS;
@@ -111,52 +100,51 @@ export interface LotViability {
 }
 
 type LotDto = ReturnType<typeof toLotDto>;
+type LotFit = Omit<LotViability, 'lastTest'>;
 
-/** Fits every lot of the given lists; the species' common slope is pooled once per species. */
-function fitLots(
-  lots: LotDto[],
-  tests: TestAggregate[],
-  species: Map<string, SpeciesDto>,
-  thresholdFor: (s: SpeciesDto | undefined) => number,
-): Map<string, LotViability> {
-  const testsByLot = new Map<string, TestAggregate[]>();
-  for (const t of tests) testsByLot.set(t.lot_id, [...(testsByLot.get(t.lot_id) ?? []), t]);
+/**
+ * Fitted models by their inputs. A species' lots are fitted together (they share a common slope),
+ * so the key is everything the fits of one species read: the lots' age references and storage, the
+ * usable tests' stored results, the species' traits and the threshold. Equal inputs give equal
+ * fits, so a cached fit is never stale, and a change to any input simply misses the cache.
+ */
+export class FitCache {
+  private readonly entries = new Map<string, Map<string, LotFit>>();
+  constructor(private readonly capacity = 256) {}
 
-  const modelTests = new Map<string, LotViability['tests']>();
-  for (const lot of lots) {
-    const sp = species.get(lot.speciesId);
-    const ref = harvestReference(lot);
-    modelTests.set(
-      lot.id,
-      (testsByLot.get(lot.id) ?? [])
-        .filter((t) => usable(t, sp))
-        .map((t) => ({ ageYears: Math.max(0, ageYears(ref, t.start_date)), germinated: t.germinated, sown: t.sown, date: t.start_date, testId: t.id })),
-    );
+  get(key: string): Map<string, LotFit> | undefined {
+    const hit = this.entries.get(key);
+    if (hit) {
+      // Most recently used last.
+      this.entries.delete(key);
+      this.entries.set(key, hit);
+    }
+    return hit;
   }
 
+  set(key: string, fits: Map<string, LotFit>): void {
+    this.entries.set(key, fits);
+    while (this.entries.size > this.capacity) this.entries.delete(this.entries.keys().next().value!);
+  }
+}
+
+/** One species' lots fitted together: the common slope pooled once, then each lot. */
+function fitSpeciesLots(lots: LotDto[], modelTests: Map<string, LotViability['tests']>, hasTests: Set<string>, sp: SpeciesDto | undefined, threshold: number) {
   // A lot with one test says nothing about the slope, so pooling every lot of the species that was
   // tested at two or more ages gives the same common slope as pooling "the other lots".
-  const slopes = new Map<string, SpeciesSlope>();
-  const bySpecies = new Map<string, LotViability['tests'][]>();
-  for (const lot of lots) {
-    const own = modelTests.get(lot.id)!;
-    if (new Set(own.map((t) => t.ageYears)).size >= 2) bySpecies.set(lot.speciesId, [...(bySpecies.get(lot.speciesId) ?? []), own]);
-  }
-  for (const [speciesId, groups] of bySpecies) {
+  const groups = lots.map((l) => modelTests.get(l.id)!).filter((own) => new Set(own.map((t) => t.ageYears)).size >= 2);
+  let slope: SpeciesSlope | undefined;
+  if (groups.length > 0) {
     try {
       const pooled = commonSlopeProbit(groups.map((g) => ({ points: g.map((t) => ({ x: t.ageYears, successes: t.germinated, trials: t.sown })) })));
-      if (pooled.converged && pooled.slope < 0 && Number.isFinite(pooled.seSlope)) slopes.set(speciesId, { slope: pooled.slope, slopeSe: pooled.seSlope });
+      if (pooled.converged && pooled.slope < 0 && Number.isFinite(pooled.seSlope)) slope = { slope: pooled.slope, slopeSe: pooled.seSlope };
     } catch {
       // No usable common slope for this species; lots fall back to the typical life.
     }
   }
-
-  const out = new Map<string, LotViability>();
+  const out = new Map<string, LotFit>();
   for (const lot of lots) {
-    const sp = species.get(lot.speciesId);
     const own = modelTests.get(lot.id)!;
-    const lotTests = testsByLot.get(lot.id) ?? [];
-    const lastTest = lotTests.at(-1) ?? null;
     const harvestRef = harvestReference(lot);
     const temp = storageTemperature(lot.storage);
     const factor = temp === null ? 1 : temperatureFactor(temp, REFERENCE_STORAGE_C);
@@ -167,26 +155,74 @@ function fitLots(
     let fit: ViabilityFit | null = null;
     let reasonNoFit: string | null = null;
     if (own.length === 0) {
-      reasonNoFit = lotTests.length ? 'The test is still running.' : 'No germination test yet.';
+      reasonNoFit = hasTests.has(lot.id) ? 'The test is still running.' : 'No germination test yet.';
     } else {
       const life = sp?.traits.storageLifeYears;
       try {
-        fit = fitViabilityDecline(
-          own,
-          { ...(slopes.has(lot.speciesId) ? { speciesSlope: slopes.get(lot.speciesId)! } : {}), ...(life ? { typicalLifeYears: life * factor } : {}) },
-          { retestThresholdPercent: thresholdFor(sp) },
-        );
+        fit = fitViabilityDecline(own, { ...(slope ? { speciesSlope: slope } : {}), ...(life ? { typicalLifeYears: life * factor } : {}) }, { retestThresholdPercent: threshold });
         if (fit.basis === 'typical' && storageNote) fit.notes.push(storageNote);
       } catch (error) {
         reasonNoFit = `The decline cannot be estimated yet (${error instanceof Error ? error.message : 'no rate of decline known'}).`;
       }
     }
-    out.set(lot.id, { fit, tests: own, lastTest, harvestRef, storageNote, reasonNoFit });
+    out.set(lot.id, { fit, tests: own, harvestRef, storageNote, reasonNoFit });
+  }
+  return out;
+}
+
+/** Fits every lot of the given lists, species by species, through the cache. */
+function fitLots(
+  lots: LotDto[],
+  tests: TestAggregate[],
+  species: Map<string, SpeciesDto>,
+  thresholdFor: (s: SpeciesDto | undefined) => number,
+  cache: FitCache,
+): Map<string, LotViability> {
+  const testsByLot = new Map<string, TestAggregate[]>();
+  for (const t of tests) {
+    const list = testsByLot.get(t.lot_id);
+    if (list) list.push(t);
+    else testsByLot.set(t.lot_id, [t]);
+  }
+  const modelTests = new Map<string, LotViability['tests']>();
+  const lotsBySpecies = new Map<string, LotDto[]>();
+  for (const lot of lots) {
+    const sp = species.get(lot.speciesId);
+    const ref = harvestReference(lot);
+    modelTests.set(
+      lot.id,
+      (testsByLot.get(lot.id) ?? [])
+        .filter((t) => usable(t, sp))
+        .map((t) => ({ ageYears: Math.max(0, ageYears(ref, t.start_date)), germinated: t.germinated!, sown: t.sown!, date: t.start_date, testId: t.id })),
+    );
+    const group = lotsBySpecies.get(lot.speciesId);
+    if (group) group.push(lot);
+    else lotsBySpecies.set(lot.speciesId, [lot]);
+  }
+  const hasTests = new Set(testsByLot.keys());
+
+  const out = new Map<string, LotViability>();
+  for (const [speciesId, group] of lotsBySpecies) {
+    const sp = species.get(speciesId);
+    const threshold = thresholdFor(sp);
+    const key = JSON.stringify([
+      speciesId,
+      sp?.traits.storageLifeYears ?? null,
+      threshold,
+      group.map((l) => [l.id, harvestReference(l), storageTemperature(l.storage), hasTests.has(l.id), modelTests.get(l.id)!.map((t) => [t.testId, t.date, t.germinated, t.sown])]),
+    ]);
+    let fits = cache.get(key);
+    if (!fits) {
+      fits = fitSpeciesLots(group, modelTests, hasTests, sp, threshold);
+      cache.set(key, fits);
+    }
+    for (const lot of group) out.set(lot.id, { ...fits.get(lot.id)!, lastTest: testsByLot.get(lot.id)?.at(-1) ?? null });
   }
   return out;
 }
 
 export function createViabilityService({ db }: { db: Db }) {
+  const cache = new FitCache();
   async function bankSettings(bankId: string) {
     const bank = await db
       .selectFrom('banks')
@@ -208,10 +244,10 @@ export function createViabilityService({ db }: { db: Db }) {
     const lotRow = await lotsQuery(db, bankId).where('lots.id', '=', lotId).executeTakeFirst();
     if (!lotRow) throw notFound('No such lot in this bank.');
     const lot = toLotDto(lotRow);
-    const siblings = (await lotsQuery(db, bankId).where('lots.species_id', '=', lot.speciesId).execute()).map(toLotDto);
+    const siblings = (await lotsQuery(db, bankId).where('lots.species_id', '=', lot.speciesId).orderBy('lots.code').execute()).map(toLotDto);
     const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
     const tests = await testAggregates(db, bankId, lot.speciesId);
-    const result = fitLots(siblings, tests, species, thresholdFor(settings.threshold)).get(lot.id)!;
+    const result = fitLots(siblings, tests, species, thresholdFor(settings.threshold), cache).get(lot.id)!;
     return { lot, settings, species: species.get(lot.speciesId), ...result };
   }
 
@@ -277,9 +313,11 @@ export function createViabilityService({ db }: { db: Db }) {
     async candidates(bankId: string, speciesId: string, on: string, plants: number) {
       const settings = await bankSettings(bankId);
       const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
-      const lots = (await lotsQuery(db, bankId).where('lots.species_id', '=', speciesId).where('lots.status', '=', 'active').execute()).map(toLotDto);
+      // Every lot of the species is fitted, as on the lot page and in the ranking (one model).
+      const all = (await lotsQuery(db, bankId).where('lots.species_id', '=', speciesId).orderBy('lots.code').execute()).map(toLotDto);
       const tests = await testAggregates(db, bankId, speciesId);
-      const fits = fitLots(lots, tests, species, thresholdFor(settings.threshold));
+      const fits = fitLots(all, tests, species, thresholdFor(settings.threshold), cache);
+      const lots = all.filter((l) => l.status === 'active');
       const out = [];
       for (const lot of lots) {
         const v = fits.get(lot.id)!;
@@ -293,13 +331,17 @@ export function createViabilityService({ db }: { db: Db }) {
       return out.sort((a, b) => Number(b.enough) - Number(a.enough) || b.projected.low - a.projected.low);
     },
 
-    /** Every active or depleted lot with its projection and a recommendation, in four queries. */
+    /**
+     * Every active or depleted lot with its projection and a recommendation. Every lot of the bank
+     * is fitted (a retired lot's tests still tell its species' decline), as on the lot page.
+     */
     async ranking(bankId: string, on: string) {
       const settings = await bankSettings(bankId);
       const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
-      const lots = (await lotsQuery(db, bankId).where('lots.status', 'in', ['active', 'depleted']).orderBy('lots.code').execute()).map(toLotDto);
+      const all = (await lotsQuery(db, bankId).orderBy('lots.code').execute()).map(toLotDto);
       const tests = await testAggregates(db, bankId);
-      const fits = fitLots(lots, tests, species, thresholdFor(settings.threshold));
+      const fits = fitLots(all, tests, species, thresholdFor(settings.threshold), cache);
+      const lots = all.filter((l) => l.status === 'active' || l.status === 'depleted');
       return lots.map((lot) => {
         const v = fits.get(lot.id)!;
         const sp = species.get(lot.speciesId);
@@ -330,7 +372,7 @@ export function createViabilityService({ db }: { db: Db }) {
           treated: lot.treated,
           ageYears: ageOn,
           lastTestDate: last?.start_date ?? null,
-          lastPercent: last && last.sown > 0 ? (last.germinated / last.sown) * 100 : null,
+          lastPercent: last?.percent ?? null,
           projectedPercent: projected?.percent ?? null,
           projectedLow: projected?.low ?? null,
           projectedHigh: projected?.high ?? null,

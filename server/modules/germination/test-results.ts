@@ -1,0 +1,128 @@
+// A germination test's result is one stored fact: computed by summarizeTest (server/stats) from the
+// test's trays and counts, and stored on the test in the same transaction as every write that
+// changes them. Every reader — test page, lot page, ranking, viability model, overview, labels,
+// reminders, CSV export — reads the stored result; nothing re-aggregates counts by its own rules.
+import { sql } from 'kysely';
+import { daysBetween } from '../../../shared/plan-dates';
+import type { DbOrTx } from '../../db/database';
+import { summarizeTest, type TestSummary } from '../../stats';
+
+/**
+ * The definition of the stored result. Raise it whenever summarizeTest or its inputs change
+ * meaning: every test stored under an older version is recomputed by refreshStaleResults.
+ */
+export const RESULT_VERSION = 2;
+
+
+/** The summaries of the given tests, computed from their trays and counts as they stand in `on`. */
+async function computeResults(on: DbOrTx, testIds: string[]): Promise<Map<string, TestSummary>> {
+  const out = new Map<string, TestSummary>();
+  if (testIds.length === 0) return out;
+  const tests = await on.selectFrom('germination_tests').select(['id', 'start_date']).where('id', 'in', testIds).execute();
+  const trays = await on.selectFrom('test_trays').selectAll().where('test_id', 'in', testIds).orderBy('test_id').orderBy('position').execute();
+  const counts = trays.length
+    ? await on
+        .selectFrom('tray_counts')
+        .select(['tray_id', 'check_date', 'cumulative'])
+        .where('tray_id', 'in', trays.map((t) => t.id))
+        .orderBy('check_date')
+        .execute()
+    : [];
+  const countsByTray = new Map<string, typeof counts>();
+  for (const c of counts) countsByTray.set(c.tray_id, [...(countsByTray.get(c.tray_id) ?? []), c]);
+  for (const test of tests) {
+    const mine = trays.filter((t) => t.test_id === test.id);
+    out.set(
+      test.id,
+      summarizeTest(
+        mine.map((tr) => ({
+          id: tr.id,
+          seedsSown: tr.seeds_sown,
+          checks: (countsByTray.get(tr.id) ?? []).map((c) => ({ day: daysBetween(test.start_date, c.check_date), cumulative: c.cumulative })),
+          setAsideReason: tr.set_aside_reason,
+          abnormal: tr.abnormal,
+          ungerminated: tr.ungerminated,
+          fresh: tr.fresh,
+          dead: tr.dead,
+          hard: tr.hard,
+        })),
+      ),
+    );
+  }
+  return out;
+}
+
+/** The last check date of the trays that enter the figures (set-aside trays are left out). */
+async function lastCountDates(on: DbOrTx, testIds: string[]): Promise<Map<string, string>> {
+  if (testIds.length === 0) return new Map();
+  const rows = await on
+    .selectFrom('tray_counts')
+    .innerJoin('test_trays', 'test_trays.id', 'tray_counts.tray_id')
+    .select(['test_trays.test_id', sql<string>`max(tray_counts.check_date)`.as('last')])
+    .where('test_trays.test_id', 'in', testIds)
+    .where('test_trays.set_aside_reason', 'is', null)
+    .groupBy('test_trays.test_id')
+    .execute();
+  return new Map(rows.map((r) => [r.test_id, r.last]));
+}
+
+/**
+ * Recomputes and stores the results of the given tests. Call it inside the transaction that changed
+ * their trays or counts, after the change; it returns the new summaries by test id.
+ */
+export async function storeResults(on: DbOrTx, testIds: string[]): Promise<Map<string, TestSummary>> {
+  const ids = [...new Set(testIds)];
+  const results = await computeResults(on, ids);
+  const last = await lastCountDates(on, ids);
+  if (results.size === 0) return results;
+  // One statement for the batch: the start-up refresh may recompute thousands of tests.
+  const rows = [...results].map(([testId, r]) => ({ testId, r }));
+  await sql`
+    update germination_tests g set
+      result = v.result::jsonb,
+      result_version = ${RESULT_VERSION},
+      result_sown = v.sown,
+      result_germinated = v.germinated,
+      result_percent = v.percent,
+      result_mean_days = v.mean_days,
+      result_last_count_date = v.last_count
+    from (
+      select unnest(${rows.map((x) => x.testId)}::uuid[]) as id,
+        unnest(${rows.map((x) => JSON.stringify(x.r))}::text[]) as result,
+        unnest(${rows.map((x) => x.r.sown)}::int[]) as sown,
+        unnest(${rows.map((x) => x.r.germinated)}::int[]) as germinated,
+        unnest(${rows.map((x) => x.r.percent)}::float8[]) as percent,
+        unnest(${rows.map((x) => x.r.meanDays)}::float8[]) as mean_days,
+        unnest(${rows.map((x) => last.get(x.testId) ?? null)}::date[]) as last_count
+    ) v
+    where g.id = v.id`.execute(on);
+  return results;
+}
+
+/** Stores one test's result (see storeResults). */
+export async function storeResult(on: DbOrTx, testId: string): Promise<TestSummary> {
+  const r = (await storeResults(on, [testId])).get(testId);
+  if (!r) throw new Error(`no germination test ${testId}`);
+  return r;
+}
+
+/**
+ * Computes the result of every test stored under an older definition (or never), in batches.
+ * Run at start after the migrations, and after writes that bypass the services (the benchmark's
+ * bulk seeding). Returns how many tests were recomputed.
+ */
+export async function refreshStaleResults(db: DbOrTx, batchSize = 500): Promise<number> {
+  let done = 0;
+  for (;;) {
+    const stale = await db
+      .selectFrom('germination_tests')
+      .select('id')
+      .where('result_version', '<', RESULT_VERSION)
+      .orderBy('id')
+      .limit(batchSize)
+      .execute();
+    if (stale.length === 0) return done;
+    await storeResults(db, stale.map((s) => s.id));
+    done += stale.length;
+  }
+}
