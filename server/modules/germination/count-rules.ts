@@ -23,7 +23,7 @@ interface SavedCount {
 function trayProblem(tray: Tray, cumulative: number, date: string, startDate: string, saved: SavedCount[]): string | null {
   const label = `Tray ${tray.position}`;
   if (cumulative > tray.seeds_sown) {
-    return `${label}: ${cumulative} seedlings is more than the ${tray.seeds_sown} seeds sown. At most ${tray.seeds_sown}.`;
+    return `${label}: ${cumulative} seedlings are more than the ${tray.seeds_sown} seeds sown. At most ${tray.seeds_sown}.`;
   }
   // Day 0: nothing has had time to sprout, and the timing statistics cannot place it.
   if (date === startDate && cumulative > 0) {
