@@ -2,21 +2,11 @@ import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
 import { probitRegression, probitRegressionGroups } from '../../../server/stats';
 import type { DosePoint } from '../../../server/stats';
+import { mulberry32 } from './seeded-random';
 
 // Inputs below are illustrative counts; every expected value comes from an independent computation
 // written here (a direct search of the log-likelihood, the information matrix written out by hand)
 // or from simulation with known parameters.
-
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function binomialDraw(n: number, p: number, uniform: () => number): number {
   let k = 0;

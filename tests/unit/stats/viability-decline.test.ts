@@ -8,23 +8,13 @@ import {
   retestAge,
 } from '../../../server/stats';
 import type { ViabilityTest } from '../../../server/stats';
+import { mulberry32 } from './seeded-random';
 
 // Test counts are illustrative; expected values come from the cited formula, an independent
 // computation here, or simulation with known Ki and σ.
 
 const PHI = (x: number) => jStat.normal.cdf(x, 0, 1);
 const PROBIT = (p: number) => jStat.normal.inv(p, 0, 1);
-
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function simulateLot(
   ki: number,

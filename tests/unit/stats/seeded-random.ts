@@ -1,0 +1,13 @@
+// Seeded random numbers for the simulation tests, so every run draws the same cases.
+
+/** Deterministic uniform generator on [0, 1) (mulberry32, a 32-bit public-domain generator). */
+export function mulberry32(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
