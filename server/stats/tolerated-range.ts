@@ -3,50 +3,52 @@ import { assertFinite, assertPercent } from './validate';
 
 /**
  * Maximum tolerated range between replicates at 2.5% probability, 7 CFR 201.55 (the same values
- * as the ISTA Rules' table), indexed by the whole-percent mean (50–99; for a mean below 50 the
- * table is read at 100 − mean). Rows for means 51–70 with four replicates are from memory (marked
- * [memory] in REFERENCES.md) and await confirmation against the printed table.
+ * as the ISTA Rules' table), indexed by the table's row: the whole-percent means 51–99. The printed
+ * table pairs each of these rows with a mean below 51 — 99 with 2, 98 with 3, … 71 with 30 — so a
+ * mean m of 50 or less reads the row 101 − m (see tableRow). Rows 71–99 were read in 7 CFR 201.55
+ * as printed; rows 51–70 for four replicates are from memory (marked [memory] in REFERENCES.md)
+ * and await confirmation against the printed table.
  */
 const FOUR_REPLICATES_OF_100: ReadonlyArray<readonly [minMean: number, maxMean: number, range: number]> = [
-  [99, 99, 5],
-  [98, 98, 6],
-  [97, 97, 7],
-  [96, 96, 8],
-  [95, 95, 9],
-  [93, 94, 10],
-  [91, 92, 11],
-  [90, 90, 12],
-  [89, 89, 12],
-  [88, 88, 13],
-  [87, 87, 13],
-  [84, 86, 14],
-  [81, 83, 15],
-  [78, 80, 16],
-  [76, 77, 17],
-  [73, 75, 17],
-  [71, 72, 18],
-  [67, 70, 18], // from memory
-  [56, 66, 19], // from memory
-  [51, 55, 20], // from memory
+  [99, 99, 5], // means 99 and 2: 7 CFR 201.55 as printed
+  [98, 98, 6], // means 98 and 3: 7 CFR 201.55 as printed
+  [97, 97, 7], // means 97 and 4: 7 CFR 201.55 as printed
+  [96, 96, 8], // means 96 and 5: 7 CFR 201.55 as printed
+  [95, 95, 9], // means 95 and 6: 7 CFR 201.55 as printed
+  [93, 94, 10], // means 93–94 and 7–8: 7 CFR 201.55 as printed
+  [91, 92, 11], // means 91–92 and 9–10: 7 CFR 201.55 as printed
+  [90, 90, 12], // means 90 and 11: 7 CFR 201.55 as printed
+  [89, 89, 12], // means 89 and 12: 7 CFR 201.55 as printed
+  [88, 88, 13], // means 88 and 13: 7 CFR 201.55 as printed
+  [87, 87, 13], // means 87 and 14: 7 CFR 201.55 as printed
+  [84, 86, 14], // means 84–86 and 15–17: 7 CFR 201.55 as printed
+  [81, 83, 15], // means 81–83 and 18–20: 7 CFR 201.55 as printed
+  [78, 80, 16], // means 78–80 and 21–23: 7 CFR 201.55 as printed
+  [76, 77, 17], // means 76–77 and 24–25: 7 CFR 201.55 as printed
+  [73, 75, 17], // means 73–75 and 26–28: 7 CFR 201.55 as printed
+  [71, 72, 18], // means 71–72 and 29–30: 7 CFR 201.55 as printed
+  [67, 70, 18], // means 67–70 and 31–34: from memory [memory], 7 CFR 201.55
+  [56, 66, 19], // means 56–66 and 35–45: from memory [memory], 7 CFR 201.55
+  [51, 55, 20], // means 51–55 and 46–50: from memory [memory], 7 CFR 201.55
 ];
 
-/** 7 CFR 201.55, two replicates of 100 seeds; printed for means 71–97 only. */
+/** 7 CFR 201.55 as printed, two replicates of 100 seeds; printed for rows 71–97 only. */
 const TWO_REPLICATES_OF_100: ReadonlyArray<readonly [minMean: number, maxMean: number, range: number]> = [
-  [97, 97, 6],
-  [96, 96, 6],
-  [95, 95, 7],
-  [93, 94, 8],
-  [91, 92, 9],
-  [90, 90, 9],
-  [89, 89, 10],
-  [88, 88, 10],
-  [87, 87, 11],
-  [84, 86, 11],
-  [81, 83, 12],
-  [78, 80, 13],
-  [76, 77, 13],
-  [73, 75, 14],
-  [71, 72, 14],
+  [97, 97, 6], // means 97 and 4: 7 CFR 201.55 as printed
+  [96, 96, 6], // means 96 and 5: 7 CFR 201.55 as printed
+  [95, 95, 7], // means 95 and 6: 7 CFR 201.55 as printed
+  [93, 94, 8], // means 93–94 and 7–8: 7 CFR 201.55 as printed
+  [91, 92, 9], // means 91–92 and 9–10: 7 CFR 201.55 as printed
+  [90, 90, 9], // means 90 and 11: 7 CFR 201.55 as printed
+  [89, 89, 10], // means 89 and 12: 7 CFR 201.55 as printed
+  [88, 88, 10], // means 88 and 13: 7 CFR 201.55 as printed
+  [87, 87, 11], // means 87 and 14: 7 CFR 201.55 as printed
+  [84, 86, 11], // means 84–86 and 15–17: 7 CFR 201.55 as printed
+  [81, 83, 12], // means 81–83 and 18–20: 7 CFR 201.55 as printed
+  [78, 80, 13], // means 78–80 and 21–23: 7 CFR 201.55 as printed
+  [76, 77, 13], // means 76–77 and 24–25: 7 CFR 201.55 as printed
+  [73, 75, 14], // means 73–75 and 26–28: 7 CFR 201.55 as printed
+  [71, 72, 14], // means 71–72 and 29–30: 7 CFR 201.55 as printed
 ];
 
 function lookUp(table: ReadonlyArray<readonly [number, number, number]>, mean: number): number | undefined {
@@ -72,16 +74,28 @@ export function computedToleratedRange(
 }
 
 /**
+ * The printed table's row for a whole-percent mean: the mean itself from 51 to 99, and 101 − mean
+ * from 2 to 50 (the table pairs 99 with 2, 98 with 3, … 71 with 30, 51 with 50; 7 CFR 201.55 as
+ * printed). The table has no row for 100, 1 or 0: those read the row 99 (Hilum's choice — a
+ * tolerated range of zero would be unattainable for a mean of, say, 99.75).
+ */
+export function tableRow(wholePercent: number): number {
+  const row = wholePercent >= 51 ? wholePercent : 101 - wholePercent;
+  return Math.min(99, row);
+}
+
+/**
  * Maximum tolerated range (percentage points) between the highest and lowest replicate of a
- * germination test, at 2.5% probability.
+ * germination test, at 2.5% probability. It assumes replicates of one size, as the table does;
+ * for trays of different sizes use a test made for them (replicate-agreement.ts).
  *
- * The mean is first rounded to the whole percent, as the rules report it, and a mean below 50 is
- * read at 100 − mean. A mean that rounds to 100 (or 0) is read at 99, the table's last row: a
- * range of zero would be unattainable for a mean of, say, 99.75.
+ * The mean is first rounded to the whole percent, as the rules report it.
  *
- * Method: for 4 or 2 replicates of exactly 100 seeds the printed table (7 CFR 201.55 / ISTA)
- * is the authority wherever it has a row; every other design — and the table's blank rows — use
- * computedToleratedRange (normal approximation, numeric range distribution).
+ * Method: for 4 or 2 replicates of exactly 100 seeds the printed table (7 CFR 201.55 / ISTA) is
+ * the authority wherever it has a row, read at tableRow(mean). Every other design — and the
+ * table's blank rows — uses computedToleratedRange at the rounded mean itself (the formula is
+ * symmetric in p and 100 − p, so it needs no pairing of rows), kept within 1–99 so a mean of 0 or
+ * 100 still allows some spread.
  */
 export function maxToleratedRange(meanPercent: number, replicates = 4, seedsPerReplicate = 100): number {
   assertPercent(meanPercent, 'meanPercent');
@@ -93,12 +107,11 @@ export function maxToleratedRange(meanPercent: number, replicates = 4, seedsPerR
     throw new RangeError(`seedsPerReplicate must be positive (got ${String(seedsPerReplicate)})`);
   }
   const rounded = Math.round(meanPercent);
-  const folded = Math.min(99, Math.max(rounded, 100 - rounded));
   if (seedsPerReplicate === 100) {
     const table =
       replicates === 4 ? FOUR_REPLICATES_OF_100 : replicates === 2 ? TWO_REPLICATES_OF_100 : undefined;
-    const printed = table === undefined ? undefined : lookUp(table, folded);
+    const printed = table === undefined ? undefined : lookUp(table, tableRow(rounded));
     if (printed !== undefined) return printed;
   }
-  return computedToleratedRange(folded, replicates, seedsPerReplicate);
+  return computedToleratedRange(Math.min(99, Math.max(1, rounded)), replicates, seedsPerReplicate);
 }

@@ -6,21 +6,16 @@ import {
   normalRangeCdf,
   normalRangeQuantile,
 } from '../../../server/stats';
+import { mulberry32 } from './seeded-random';
 
-/** Deterministic uniform generator (mulberry32), so the simulation below is repeatable. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-// 7 CFR 201.55 (same values as the ISTA Rules' table), four replicates of 100 seeds; rows read
-// from the regulation as quoted in REFERENCES.md [read].
+// The table of maximum tolerated ranges, 7 CFR 201.55 as printed (the same values as the ISTA
+// Rules' table; transcribed in ../shared/REFERENCES.md). Each printed row pairs a mean of 71–99
+// with one below it, row by row: 99 with 2, 98 with 3, … 71 with 30 — a mean m below 51 reads the
+// row 101 − m. Rows 71–99 were read in the printed regulation [read]; rows 51–70 are from memory
+// [memory] and are never a test's only expected value (each is checked against the formula behind
+// the table and against the exact binomial range distribution, below).
+//
+// Four replicates of 100 seeds, rows 71–99 [read: 7 CFR 201.55 as printed], [mean, range]:
 const FOUR_REPS_READ: [mean: number, range: number][] = [
   [99, 5],
   [98, 6],
@@ -52,7 +47,7 @@ const FOUR_REPS_READ: [mean: number, range: number][] = [
   [72, 18],
   [71, 18],
 ];
-// 7 CFR 201.55, four replicates, rows for means 51–70: from memory (marked [memory] in REFERENCES.md).
+// Four replicates of 100 seeds, rows 51–70: from memory [memory: 7 CFR 201.55, REFERENCES.md].
 const FOUR_REPS_FROM_MEMORY: [mean: number, range: number][] = [
   [70, 18],
   [67, 18],
@@ -62,7 +57,7 @@ const FOUR_REPS_FROM_MEMORY: [mean: number, range: number][] = [
   [55, 20],
   [51, 20],
 ];
-// 7 CFR 201.55, two replicates of 100 seeds [read].
+// Two replicates of 100 seeds, rows 71–97 [read: 7 CFR 201.55 as printed; rows 98 and 99 are blank].
 const TWO_REPS_READ: [mean: number, range: number][] = [
   [97, 6],
   [96, 6],
@@ -140,32 +135,66 @@ describe('normalRangeQuantile', () => {
   });
 });
 
+/**
+ * P(range > r) for k replicates of n seeds germinating independently with probability p, exactly:
+ * P(range ≤ r) = Σₐ [P(a ≤ X ≤ a + r)ᵏ − P(a + 1 ≤ X ≤ a + r)ᵏ] (the range of k iid discrete
+ * variables; binomial probabilities from jstat).
+ */
+function exactRangeTail(k: number, n: number, p: number, r: number): number {
+  const pdf = Array.from({ length: n + 1 }, (_, x) => jStat.binomial.pdf(x, n, p));
+  const between = (a: number, b: number) =>
+    pdf.slice(Math.max(a, 0), Math.min(b, n) + 1).reduce((s, v) => s + v, 0);
+  let within = 0;
+  for (let a = 0; a <= n; a++) within += between(a, a + r) ** k - between(a + 1, a + r) ** k;
+  return 1 - within;
+}
+
 describe('maxToleratedRange', () => {
   it.each(FOUR_REPS_READ)(
-    'when four replicates of 100 average %i percent, then the tolerated range is %i (7 CFR 201.55)',
+    'when four replicates of 100 average %i percent, then the tolerated range is %i (7 CFR 201.55 as printed)',
     (mean, range) => {
       expect(maxToleratedRange(mean, 4, 100)).toBe(range);
     },
   );
 
+  it.each(FOUR_REPS_READ)(
+    'when four replicates of 100 average 101 − %i percent, then the paired row gives %i (7 CFR 201.55 as printed)',
+    (row, range) => {
+      // The printed table pairs rows 99 ↔ 2, 98 ↔ 3, … 71 ↔ 30.
+      expect(maxToleratedRange(101 - row, 4, 100)).toBe(range);
+    },
+  );
+
   it.each(FOUR_REPS_FROM_MEMORY)(
-    'when four replicates of 100 average %i percent, then the tolerated range is %i (7 CFR 201.55 row from memory)',
+    'when four replicates of 100 average %i percent, then the tolerated range is %i (row from memory, checked two independent ways)',
     (mean, range) => {
+      // [memory] 7 CFR 201.55 row, so not the only check:
       expect(maxToleratedRange(mean)).toBe(range);
+      expect(maxToleratedRange(101 - mean)).toBe(range); // the paired row below 51
+      // (1) the formula behind the table (Miles 1963, as described by da Silva 2020) within one point;
+      expect(Math.abs(computedToleratedRange(mean, 4, 100) - range)).toBeLessThanOrEqual(1);
+      // (2) the exact binomial range distribution: the row's range holds the chance of exceeding it
+      //     near the table's 2.5% (under 3%), and one point less would not (over 2.5%).
+      expect(exactRangeTail(4, 100, mean / 100, range)).toBeLessThan(0.03);
+      expect(exactRangeTail(4, 100, mean / 100, range - 1)).toBeGreaterThan(0.025);
     },
   );
 
   it.each(TWO_REPS_READ)(
-    'when two replicates of 100 average %i percent, then the tolerated range is %i (7 CFR 201.55)',
+    'when two replicates of 100 average %i percent, then the tolerated range is %i (7 CFR 201.55 as printed)',
     (mean, range) => {
       expect(maxToleratedRange(mean, 2, 100)).toBe(range);
+      expect(maxToleratedRange(101 - mean, 2, 100)).toBe(range); // paired row 101 − mean (as printed)
     },
   );
 
-  it('when the mean is below 50, then the table is read at 100 − mean (7 CFR 201.55)', () => {
-    expect(maxToleratedRange(10)).toBe(12); // read as 90 → 12 (7 CFR 201.55)
-    expect(maxToleratedRange(25, 2)).toBe(14); // read as 75 → 14 (7 CFR 201.55)
-    expect(maxToleratedRange(40)).toBe(19); // read as 60 → 19 (7 CFR 201.55 row from memory)
+  it('when the mean is below 51, then the table is read at 101 − mean, not 100 − mean (7 CFR 201.55 as printed)', () => {
+    expect(maxToleratedRange(2)).toBe(5); // row 99 ↔ 2 → 5 (7 CFR 201.55 as printed)
+    expect(maxToleratedRange(10)).toBe(11); // row 91 ↔ 10 → 11, not row 90's 12 (7 CFR 201.55 as printed)
+    expect(maxToleratedRange(17)).toBe(14); // row 84 ↔ 17 → 14, not row 83's 15 (7 CFR 201.55 as printed)
+    expect(maxToleratedRange(30)).toBe(18); // row 71 ↔ 30 → 18 (7 CFR 201.55 as printed)
+    expect(maxToleratedRange(25, 2)).toBe(13); // row 76 ↔ 25 → 13, not row 75's 14 (7 CFR 201.55 as printed)
+    expect(maxToleratedRange(4, 2)).toBe(6); // row 97 ↔ 4 → 6 (7 CFR 201.55 as printed)
   });
 
   it('when the mean is fractional, then it is first rounded to the whole percent (ISTA Rules ch. 5 reporting)', () => {
@@ -173,8 +202,11 @@ describe('maxToleratedRange', () => {
     expect(maxToleratedRange(88.4)).toBe(13); // 88 → 13 (7 CFR 201.55)
   });
 
-  it('when the mean rounds to 100, then the last printed row (99) applies', () => {
-    expect(maxToleratedRange(99.75)).toBe(5); // 99 row of 7 CFR 201.55; Hilum's documented choice for 100
+  it('when the mean rounds to 100, 1 or 0, then the last printed row (99) applies', () => {
+    // 7 CFR 201.55 as printed has no row for 100 (nor its pair 1); Hilum's documented choice is row 99 → 5.
+    expect(maxToleratedRange(99.75)).toBe(5);
+    expect(maxToleratedRange(1)).toBe(5);
+    expect(maxToleratedRange(0)).toBe(5);
   });
 
   it('when the design is not in the table, then the range is q·√(p(100 − p)/n) (Miles 1963 via da Silva 2020)', () => {
@@ -192,7 +224,7 @@ describe('maxToleratedRange', () => {
 
   it('when the computed method is applied to the printed designs, then it stays within about one point of every row', () => {
     // da Silva 2020: the formula, rounded, does not reproduce every printed row, but comes close.
-    for (const [mean, range] of [...FOUR_REPS_READ, ...FOUR_REPS_FROM_MEMORY]) {
+    for (const [mean, range] of FOUR_REPS_READ) {
       expect(Math.abs(computedToleratedRange(mean, 4, 100) - range)).toBeLessThan(1.1);
     }
     for (const [mean, range] of TWO_REPS_READ) {
