@@ -30,7 +30,8 @@ export function homogeneityChiSquare(trays: readonly TrayCount[]): ChiSquareResu
   const germinated = trays.reduce((s, t) => s + t.germinated, 0);
   if (df === 0 || germinated === 0 || germinated === sown) return { statistic: 0, df, pValue: 1 };
   const share = germinated / sown;
-  // Σ (O − E)²/E over the 2k cells, added with simple-statistics' compensated (Kahan–Babuška) sum.
+  // Σ (O − E)²/E over the 2k cells, added with simple-statistics' compensated (Kahan–Babuška) sum,
+  // smallest first so the result does not depend on the order the trays are listed in.
   const cells = trays.flatMap((t) => {
     const expectedYes = t.sown * share;
     const expectedNo = t.sown - expectedYes;
@@ -39,6 +40,6 @@ export function homogeneityChiSquare(trays: readonly TrayCount[]): ChiSquareResu
       (t.sown - t.germinated - expectedNo) ** 2 / expectedNo,
     ];
   });
-  const statistic = sum(cells);
+  const statistic = sum(cells.sort((a, b) => a - b));
   return { statistic, df, pValue: chiSquareUpperTail(statistic, df) };
 }

@@ -3,19 +3,22 @@ export type { Interval } from './interval';
 export { wilsonInterval } from './wilson';
 export { clopperPearsonInterval } from './clopper-pearson';
 export { normalRangeCdf, normalRangeQuantile } from './normal-range';
-export { maxToleratedRange, computedToleratedRange } from './tolerated-range';
-export { germinationTiming } from './germination-timing';
+export { maxToleratedRange, computedToleratedRange, tableRow } from './tolerated-range';
+export { germinationTiming, timingNote } from './germination-timing';
 export type { GerminationCheck, GerminationTiming } from './germination-timing';
 export { homogeneityChiSquare } from './homogeneity';
 export type { TrayCount, ChiSquareResult } from './homogeneity';
-export { summarizeTest, poolChecks } from './summarize-test';
+export { replicateAgreement, agreementMethod, AGREEMENT_FALSE_ALARM } from './replicate-agreement';
+export type { Agreement, AgreementMethod } from './replicate-agreement';
+export { summarizeTest, poolChecks, FINISH_FIGURES } from './summarize-test';
 export type {
   TestTray,
   TestSummary,
   SummarizeOptions,
   IntervalMethod,
   TrayPercent,
-  Agreement,
+  TrayState,
+  FinishFigure,
 } from './summarize-test';
 export { probitRegression, probitRegressionGroups } from './probit-regression';
 export type { DosePoint, ProbitGroup, ProbitRegressionResult, ProbitGroupsResult } from './probit-regression';
@@ -39,5 +42,12 @@ export {
   UNIVERSAL_TEMPERATURE_TERMS,
 } from './storage-sigma';
 export type { StorageConditions, StorageSigma, ViabilityConstants } from './storage-sigma';
-export { seedsToSow, binomialUpperTail } from './seeds-to-sow';
+export {
+  seedsToSow,
+  binomialUpperTail,
+  seedsToSowPredictive,
+  betaBinomialUpperTail,
+  seedsToSowBetaBinomial,
+} from './seeds-to-sow';
+export type { GerminationDraw } from './seeds-to-sow';
 export type { Matrix } from './linear-algebra';

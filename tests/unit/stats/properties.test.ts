@@ -13,6 +13,8 @@ import type { GerminationCheck, TestTray } from '../../../server/stats';
 // (day, new germinants) pairs, must have (Newcombe 1998, Stat. Med. 17:857–872, on interval
 // behaviour; Ranal & Santana 2006, Revista Brasil. Bot. 29:1–11, for the timing measures).
 const RUNS = { numRuns: 200, seed: 42 } as const;
+/** For properties that summarize whole tests (each run is heavier). */
+const FEWER_RUNS = { numRuns: 100, seed: 42 } as const;
 
 const methods = [
   ['Wilson', wilsonInterval],
@@ -147,6 +149,33 @@ describe('summarizeTest properties', () => {
         },
       ),
       RUNS,
+    );
+  });
+
+  it('when any trays are summarized, then the summary is plain JSON (no undefined, NaN or infinity)', () => {
+    // The summary is stored as JSON and read everywhere: it must survive the round trip unchanged.
+    fc.assert(
+      fc.property(traysArbitrary, (trays) => {
+        const summary = summarizeTest(trays);
+        expect(JSON.parse(JSON.stringify(summary))).toStrictEqual(summary);
+      }),
+      FEWER_RUNS,
+    );
+  });
+
+  it('when a tray is set aside, then every pooled figure is as if the tray were not there', () => {
+    fc.assert(
+      fc.property(traysArbitrary, trayArbitrary('aside'), (trays, aside) => {
+        const { trayPercents: _a, traysTotal: _b, traysSetAside: _c, ...without } = summarizeTest(trays);
+        const withAside = summarizeTest([...trays, { ...aside, setAsideReason: 'Spilled' }]);
+        const { trayPercents, traysTotal, traysSetAside, ...figures } = withAside;
+        // The method of judging agreement is decided by the trays that can enter the figures.
+        expect(figures).toEqual(without);
+        expect(traysSetAside).toBe(1);
+        expect(traysTotal).toBe(trays.length + 1);
+        expect(trayPercents.at(-1)).toMatchObject({ state: 'set-aside', germinated: null, percent: null });
+      }),
+      FEWER_RUNS,
     );
   });
 });

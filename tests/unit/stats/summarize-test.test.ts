@@ -24,6 +24,15 @@ const WORKED_TRAYS = [
   tray('d', 25, [0, 2, 6, 6, 4, 2]),
 ];
 
+/** Trays of 100 with the given final counts and no other count (day 14 only). */
+function finalOnly(...finals: number[]): TestTray[] {
+  return finals.map((f, i) => ({
+    id: `f${String(i)}`,
+    seedsSown: 100,
+    checks: [{ day: 14, cumulative: f }],
+  }));
+}
+
 /** Four trays of 100 with the given final counts, all counted on day 7 and day 14. */
 function finalCounts(...finals: number[]): TestTray[] {
   return finals.map((f, i) => ({
@@ -63,7 +72,14 @@ describe('summarizeTest', () => {
       confidence: 0.95,
     });
     expect(r.trayPercents.map((t) => t.percent)).toEqual([95, 90, 88, 87]);
-    expect(r.agreement).toEqual({ maxRange: 12, observedRange: 8, ok: true }); // 90% → 12 (7 CFR 201.55)
+    // Trays of one size: the tolerance table; 90% → 12 (7 CFR 201.55 as printed).
+    expect(r.agreement).toEqual({
+      method: 'tolerance-table',
+      maxRange: 12,
+      observedRange: 8,
+      ok: true,
+      pValue: null,
+    });
     expect(r.homogeneity).toEqual(
       homogeneityChiSquare(
         finalCounts(95, 90, 88, 87).map((t) => ({ germinated: t.checks[1]?.cumulative ?? 0, sown: 100 })),
@@ -74,7 +90,13 @@ describe('summarizeTest', () => {
   it('when the replicates spread wider than the table allows, then agreement is not ok', () => {
     // Mean (97 + 92 + 88 + 83)/4 = 90 → tolerated 12 (7 CFR 201.55); observed 97 − 83 = 14.
     const r = summarizeTest(finalCounts(97, 92, 88, 83));
-    expect(r.agreement).toEqual({ maxRange: 12, observedRange: 14, ok: false });
+    expect(r.agreement).toEqual({
+      method: 'tolerance-table',
+      maxRange: 12,
+      observedRange: 14,
+      ok: false,
+      pValue: null,
+    });
   });
 
   it('when the pooled percentage ends in one half, then it is rounded up to the whole percent', () => {
@@ -147,8 +169,21 @@ describe('summarizeTest', () => {
     expect(r.traysCounted).toBe(2);
     expect(r.sown).toBe(200);
     expect(r.percent).toBe(85);
-    expect(r.trayPercents[2]).toEqual({ id: 'later', seedsSown: 100, germinated: null, percent: null });
-    expect(r.agreement.maxRange).toBe(11); // two replicates of 100 at 85% → 11 (7 CFR 201.55)
+    expect(r.trayPercents[2]).toEqual({
+      id: 'later',
+      seedsSown: 100,
+      state: 'not-counted',
+      setAsideReason: null,
+      germinated: null,
+      percent: null,
+      abnormal: null,
+      ungerminated: null,
+      fresh: null,
+      dead: null,
+      hard: null,
+    });
+    expect(r.trayPercents[0]?.state).toBe('counted');
+    expect(r.agreement.maxRange).toBe(11); // two replicates of 100 at 85% → 11 (7 CFR 201.55 as printed)
   });
 
   it('when no tray has been counted, then every figure is null', () => {
@@ -160,8 +195,15 @@ describe('summarizeTest', () => {
     expect(r.meanDays).toBeNull();
     expect(r.t50Days).toBeNull();
     expect(r.speedIndex).toBeNull();
-    expect(r.agreement).toEqual({ maxRange: null, observedRange: null, ok: null });
+    expect(r.agreement).toEqual({
+      method: 'tolerance-table',
+      maxRange: null,
+      observedRange: null,
+      ok: null,
+      pValue: null,
+    });
     expect(r.homogeneity).toBeNull();
+    expect(r.timingNote).toBeNull();
     expect(summarizeTest([]).percent).toBeNull();
   });
 
@@ -179,5 +221,138 @@ describe('summarizeTest', () => {
     expect(() => summarizeTest([...finalCounts(90), ...finalCounts(80)])).toThrow(RangeError);
     expect(() => summarizeTest([{ id: 'a', seedsSown: 0, checks: [] }])).toThrow(RangeError);
     expect(() => summarizeTest(finalCounts(90), { confidence: 1.5 })).toThrow(RangeError);
+    expect(() => summarizeTest([{ id: 'a', seedsSown: 10, checks: [], abnormal: -1 }])).toThrow(RangeError);
+    expect(() => summarizeTest([{ id: 'a', seedsSown: 10, checks: [], fresh: 1.5 }])).toThrow(RangeError);
+  });
+
+  it('when a tray is set aside, then it is left out of every figure and shown as set aside', () => {
+    // The 4-tray example of issue 12: trays of 100 at 80 and 90, a third set aside after counting 10.
+    const trays: TestTray[] = [
+      ...finalCounts(80, 90),
+      { id: 'spilled', seedsSown: 100, checks: [{ day: 7, cumulative: 10 }], setAsideReason: 'Spilled' },
+      { id: 'later', seedsSown: 100, checks: [] },
+    ];
+    const r = summarizeTest(trays);
+    const without = summarizeTest([...finalCounts(80, 90), { id: 'later', seedsSown: 100, checks: [] }]);
+    expect(r.percent).toBe(85); // 170/200: the set-aside tray's 10 enter nothing
+    expect(r.traysTotal).toBe(4);
+    expect(r.traysCounted).toBe(2);
+    expect(r.traysSetAside).toBe(1);
+    expect(r.trayPercents.map((t) => t.state)).toEqual(['counted', 'counted', 'set-aside', 'not-counted']);
+    expect(r.trayPercents[2]).toMatchObject({ setAsideReason: 'Spilled', germinated: null, percent: null });
+    const { trayPercents, traysTotal, traysSetAside, ...figures } = r;
+    const { trayPercents: _t, traysTotal: _n, traysSetAside: _s, ...figuresWithout } = without;
+    expect(figures).toEqual(figuresWithout);
+    expect(trayPercents).toHaveLength(traysTotal);
+    expect(traysSetAside).toBe(1);
+  });
+
+  it('when every tray has its finish figures, then they are pooled; when one lacks a figure, that figure is null', () => {
+    const finished: TestTray[] = [
+      { ...tray('a', 50, [0, 20, 20]), abnormal: 3, ungerminated: 7, fresh: 4, dead: 3, hard: 0 },
+      { ...tray('b', 50, [0, 25, 15]), abnormal: 2, ungerminated: 8, fresh: 5, dead: 3, hard: null },
+      { ...tray('c', 50, [0, 0, 5]), setAsideReason: 'Dried out', abnormal: 40, ungerminated: 5 },
+    ];
+    const r = summarizeTest(finished);
+    expect(r.abnormal).toBe(5);
+    expect(r.ungerminated).toBe(15);
+    expect(r.fresh).toBe(9);
+    expect(r.dead).toBe(6);
+    expect(r.hard).toBeNull(); // tray b has no hard-seed figure
+    expect(r.trayPercents[1]).toMatchObject({ abnormal: 2, ungerminated: 8, fresh: 5, dead: 3, hard: null });
+    const running = summarizeTest(finalCounts(80, 90));
+    expect([running.abnormal, running.ungerminated, running.fresh, running.dead, running.hard]).toEqual([
+      null,
+      null,
+      null,
+      null,
+      null,
+    ]);
+  });
+
+  it('when trays differ in size, then agreement is judged by the chi-square test, not the table', () => {
+    const r = summarizeTest([
+      { id: 'small', seedsSown: 10, checks: [{ day: 7, cumulative: 9 }] },
+      { id: 'large', seedsSown: 190, checks: [{ day: 7, cumulative: 171 }] },
+    ]);
+    expect(r.agreement).toEqual({
+      method: 'chi-square',
+      maxRange: null,
+      observedRange: 0,
+      ok: true,
+      pValue: 1,
+    });
+    // The method follows the trays that can enter the figures, even before they are all counted.
+    const partly = summarizeTest([
+      { id: 'small', seedsSown: 10, checks: [{ day: 7, cumulative: 9 }] },
+      { id: 'large', seedsSown: 190, checks: [] },
+    ]);
+    expect(partly.agreement.method).toBe('chi-square');
+    expect(partly.agreement.ok).toBeNull();
+  });
+
+  it('when every tray has only a final count, then the timing figures are null and the note says why', () => {
+    const r = summarizeTest(finalOnly(95, 90, 88, 87));
+    expect(r.percent).toBe(90);
+    expect([r.meanDays, r.t50Days, r.t50DaysCoolbear, r.uncertaintyBits, r.synchrony, r.variance]).toEqual([
+      null,
+      null,
+      null,
+      null,
+      null,
+      null,
+    ]);
+    expect(r.timingNote).toMatch(/day 14/);
+    expect(summarizeTest(WORKED_TRAYS).timingNote).toBeNull();
+  });
+
+  it('when a tray had not been checked yet on a day another counted none, then that day does not count as a zero count', () => {
+    // Tray x counted 0 on day 5; tray y was first counted on day 9 with 40 (it may have had seedlings
+    // on day 5). So the seedlings' days are not known: only day 9 found them.
+    const r = summarizeTest([
+      {
+        id: 'x',
+        seedsSown: 50,
+        checks: [
+          { day: 5, cumulative: 0 },
+          { day: 9, cumulative: 0 },
+        ],
+      },
+      { id: 'y', seedsSown: 50, checks: [{ day: 9, cumulative: 40 }] },
+    ]);
+    expect(r.meanDays).toBeNull();
+    // When both trays were counted on day 5, the zero is real and the interval (5, 9] is known.
+    const both = summarizeTest([
+      {
+        id: 'x',
+        seedsSown: 50,
+        checks: [
+          { day: 5, cumulative: 0 },
+          { day: 9, cumulative: 0 },
+        ],
+      },
+      {
+        id: 'y',
+        seedsSown: 50,
+        checks: [
+          { day: 5, cumulative: 0 },
+          { day: 9, cumulative: 40 },
+        ],
+      },
+    ]);
+    expect(both.meanDays).toBe(9);
+    expect(both.t50Days).toBeCloseTo(7, 12); // 5 + (20 − 0)(9 − 5)/(40 − 0) (Coolbear et al. 1984 formula, computed)
+  });
+
+  it('when summarized, then the result is plain JSON: no undefined, NaN or infinity', () => {
+    for (const trays of [
+      finalOnly(95, 90),
+      WORKED_TRAYS,
+      [{ id: 'a', seedsSown: 10, checks: [] }],
+      finalCounts(0, 0),
+    ]) {
+      const r = summarizeTest(trays);
+      expect(JSON.parse(JSON.stringify(r))).toStrictEqual(r);
+    }
   });
 });
