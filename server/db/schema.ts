@@ -227,6 +227,8 @@ export interface GerminationTestTable {
   result_percent: ColumnType<number | null, number | null | undefined, number | null>;
   result_mean_days: ColumnType<number | null, number | null | undefined, number | null>;
   result_last_count_date: ColumnType<string | null, string | null | undefined, string | null>;
+  /** Why the grower set the whole test aside (mouldy towel, too cold); it then leaves the model. */
+  set_aside_reason: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 export interface TestTrayTable {

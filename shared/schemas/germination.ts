@@ -95,6 +95,12 @@ export const traySchema = z.object({
   setAsideReason: z.string().nullable(),
 });
 
+/**
+ * POST …/tests/:testId/set-aside: set the whole test aside with a reason (mouldy towel, too cold),
+ * or take it back (null). It stays in the lot's history and leaves the viability model.
+ */
+export const testSetAsideBodySchema = z.object({ reason: setAsideReasonSchema.nullable() });
+
 /** PATCH …/tests/:testId/trays/:trayId: set a tray aside with a reason, or take it back (null). */
 export const trayUpdateBodySchema = z.object({ setAsideReason: setAsideReasonSchema.nullable() });
 
@@ -114,6 +120,8 @@ export const testSchema = z.object({
   notes: z.string().nullable(),
   status: z.enum(['running', 'finished']),
   finishedOn: z.string().nullable(),
+  /** Set when the grower set the whole test aside: it leaves the viability model. */
+  setAsideReason: z.string().nullable(),
   /** Seeds the test took from the lot's stock ledger (0 for a test imported as history). */
   seedsTaken: z.number(),
   /** Suggested check dates from the species' first and final count days. */

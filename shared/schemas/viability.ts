@@ -5,7 +5,8 @@ import { originSchema } from './lots';
 const n = z.number();
 const nn = z.number().nullable();
 
-export const recommendationSchema = z.enum(['sow', 'sow-thick', 'retest', 'retire']);
+/** The advice for a lot (server/modules/viability/recommend.ts; rules in docs/decisions.md). */
+export const recommendationSchema = z.enum(['test-first', 'sow', 'sow-thick', 'retest', 'grow-out', 'retire']);
 export type RecommendationValue = z.infer<typeof recommendationSchema>;
 export const basisSchema = z.enum(['lot', 'species', 'typical']);
 
@@ -20,9 +21,20 @@ export const viabilityResponseSchema = z.object({
   retestBy: z.string().nullable(),
   retestReason: z.string().nullable(),
   basis: basisSchema.nullable(),
+  /** No usable test of the lot: the projection is the species' typical figure, a guess. */
+  estimateOnly: z.boolean(),
+  /** The decision for the lot on `on`, the same as the ranking's. */
+  recommendation: recommendationSchema,
+  reason: z.string(),
+  /** The germination the decision holds the lot to: the species' standard or the bank's threshold. */
+  threshold: n,
   notes: z.array(z.string()),
   harvestReference: z.string(),
-  points: z.array(z.object({ testId: idSchema, date: z.string(), ageYears: n, percent: n, germinated: n, sown: n })),
+  /** Years until the projection falls to the threshold where the lot is kept now, in the fridge and in the freezer: estimates. */
+  storageAdvice: z.array(z.object({ place: z.enum(['room', 'fridge', 'freezer']), label: z.string(), current: z.boolean(), yearsToThreshold: nn })),
+  points: z.array(z.object({ testId: idSchema, date: z.string(), ageYears: n, percent: n, germinated: n, sown: n, heldBack: z.boolean() })),
+  /** Tests the grower set aside: out of the model, shown apart. */
+  setAside: z.array(z.object({ testId: idSchema, date: z.string(), reason: z.string() })),
   curve: z.array(z.object({ ageYears: n, percent: n, low: n, high: n })),
 });
 export type ViabilityResponse = z.infer<typeof viabilityResponseSchema>;
@@ -33,8 +45,12 @@ export const seedsToSowResponseSchema = z.object({
   assurance: n,
   plants: n,
   projectedPercent: n,
+  projectedLow: n,
+  projectedHigh: n,
   establishmentFactor: n,
   basis: basisSchema,
+  /** Not tested: the figure is the species' typical one, a guess. */
+  estimateOnly: z.boolean(),
   enoughStock: z.boolean(),
   seedsOnHand: n,
   explanation: z.string(),
@@ -62,6 +78,7 @@ export const rankingItemSchema = z.object({
   meanDays: nn,
   seedsOnHand: n,
   basis: basisSchema.nullable(),
+  estimateOnly: z.boolean(),
   retestBy: z.string().nullable(),
   thumbUrl: z.string().nullable(),
   recommendation: recommendationSchema,

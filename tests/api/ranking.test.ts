@@ -37,10 +37,16 @@ describe('viability, ranking and seeds to sow', () => {
     const a2 = res.body.points[1].ageYears; // → 2026-03-01 ≈ 2.5 years
     const slope = (probit(0.6) - probit(0.92)) / (a2 - a1); // ≈ (0.2533 − 1.4051)/2 = −0.576 per year
     const ki = probit(0.92) - slope * a1; // ≈ 1.693 probits → initial ≈ 95%
-    expect(res.body.sigmaYears).toBeCloseTo(-1 / slope, 3);
-    expect(res.body.initialPercent).toBeCloseTo(phi(ki) * 100, 2);
+    // The hierarchical model (server/stats/viability-model.ts) shrinks the lot's own rate a little
+    // toward its species' and bounds the initial viability, so it lands near, not on, the
+    // two-point line; its bands are checked by the seeded simulation (npm run check:coverage).
+    // The tomato's typical life (4 years) and this cool-room lot's age give an equivalent age equal
+    // to the calendar age (no storage recorded: taken as 15 °C).
+    expect(res.body.sigmaYears).toBeGreaterThan(0.7 * (-1 / slope));
+    expect(res.body.sigmaYears).toBeLessThan(1.3 * (-1 / slope));
+    expect(Math.abs(res.body.initialPercent - phi(ki) * 100)).toBeLessThan(5);
     const age = res.body.ageYears; // ≈ 3.5 years on 2027-03-01
-    expect(res.body.projected.percent).toBeCloseTo(phi(ki + slope * age) * 100, 2); // ≈ 37%
+    expect(Math.abs(res.body.projected.percent - phi(ki + slope * age) * 100)).toBeLessThan(10); // two-point line ≈ 37%
     expect(res.body.projected.percent).toBeLessThan(60);
     expect(res.body.projected.low).toBeLessThan(res.body.projected.percent);
     expect(res.body.projected.high).toBeGreaterThan(res.body.projected.percent);
@@ -62,7 +68,8 @@ describe('viability, ranking and seeds to sow', () => {
     await finishedTest(bank.grower.agent, bank.bankId, res0.body.lot.id, '2026-02-01', [{ sown: 100, germinated: 90 }]);
     const res = await bank.viewer.agent.get(`${base()}/lots/${res0.body.lot.id}/viability?on=2027-03-01`);
     expect(res.body.basis).toBe('typical');
-    expect(res.body.notes.join(' ')).toMatch(/Storage at about 5 °C lengthens/);
+    // Dickie et al. 1990 universal temperature terms: σ(5 °C)/σ(15 °C) = 10^(0.0329·10 + 0.000478·200) ≈ 2.66.
+    expect(res.body.notes.join(' ')).toMatch(/Storage at about 5 °C ages seed about 2\.7× slower/);
   });
 
   it('when the ranking is asked for, then every active lot appears once with a recommendation and a reason', async () => {
@@ -72,11 +79,11 @@ describe('viability, ranking and seeds to sow', () => {
     const active = await ctx.db.selectFrom('lots').select('id').where('bank_id', '=', bank.bankId).where('status', 'in', ['active', 'depleted']).execute();
     expect(res.body.items.map((i: { lotId: string }) => i.lotId).sort()).toEqual(active.map((l) => l.id).sort());
     for (const item of res.body.items) {
-      expect(['sow', 'sow-thick', 'retest', 'retire']).toContain(item.recommendation);
+      expect(['test-first', 'sow', 'sow-thick', 'retest', 'grow-out', 'retire']).toContain(item.recommendation);
       expect(item.reason.length).toBeGreaterThan(10);
     }
     const fresh = res.body.items.find((i: { lotId: string }) => i.lotId === untested);
-    expect(fresh).toMatchObject({ recommendation: 'retest', projectedPercent: null, lastTestDate: null });
+    expect(fresh).toMatchObject({ recommendation: 'test-first', estimateOnly: true, lastTestDate: null });
     const declining = res.body.items.find((i: { variety: string }) => i.variety === 'Declining');
     expect(declining.lastPercent).toBe(60);
     expect(declining.recommendation).not.toBe('sow');
@@ -106,26 +113,36 @@ describe('viability, ranking and seeds to sow', () => {
     expect(row).toMatchObject({ origin: 'swapped', sourceName: 'Orchard Lane circle', treated: true });
   });
 
-  it('when seeds to sow are asked for 12 plants, then the least n with enough assurance comes back', async () => {
-    const lotId = await newLot('For sowing', 1000, '2025-09-01');
-    await finishedTest(bank.grower.agent, bank.bankId, lotId, '2026-02-01', [{ sown: 100, germinated: 80 }]);
-    const res = await bank.viewer.agent.get(`${base()}/lots/${lotId}/seeds-to-sow?plants=12&assurance=0.9&on=2027-03-01`);
-    expect(res.status).toBe(200);
-    const p = res.body.germinationUsed;
-    expect(p).toBeCloseTo((res.body.projectedPercent / 100) * 0.9, 12);
-    // The least n with P(Binomial(n, p) ≥ 12) ≥ 0.9, checked by summing jStat's binomial pdf.
-    const atLeast = (n: number) => 1 - jStat.binomial.cdf(11, n, p);
-    expect(atLeast(res.body.seeds)).toBeGreaterThanOrEqual(0.9);
-    expect(atLeast(res.body.seeds - 1)).toBeLessThan(0.9);
-    expect(res.body.explanation).toMatch(/Sow \d+ seeds for 12 plants/);
+  it('when seeds to sow are asked for 12 plants, then the assurance holds over the whole band, so a small test asks for more seed', async () => {
+    const seedsFor = async (variety: string, trays: { sown: number; germinated: number }[]) => {
+      const lotId = await newLot(variety, 1000, '2025-09-01');
+      await finishedTest(bank.grower.agent, bank.bankId, lotId, '2026-02-01', trays);
+      const res = await bank.viewer.agent.get(`${base()}/lots/${lotId}/seeds-to-sow?plants=12&assurance=0.9&on=2027-03-01`);
+      expect(res.status).toBe(200);
+      return res.body;
+    };
+    const large = await seedsFor('Tested on 200', [{ sown: 100, germinated: 80 }, { sown: 100, germinated: 80 }]);
+    const small = await seedsFor('Tested on 10', [{ sown: 10, germinated: 8 }]);
+    // The point-estimate answer (least n with P(Binomial(n, p) ≥ 12) ≥ 0.9, from jStat's binomial
+    // cdf) ignores the uncertainty in p; the predictive answer is never below it.
+    const pointEstimate = (p: number) => {
+      let n = 12;
+      while (1 - jStat.binomial.cdf(11, n, p) < 0.9) n += 1;
+      return n;
+    };
+    expect(large.seeds).toBeGreaterThanOrEqual(pointEstimate(large.germinationUsed));
+    expect(small.seeds).toBeGreaterThan(large.seeds);
+    expect(large.explanation).toMatch(/Sow \d+ seeds for 12 plants/);
     // The sowing date in words, as every screen writes it.
-    expect(res.body.explanation).toContain('% on 1 Mar 2027,');
+    expect(large.explanation).toContain('on 1 Mar 2027,');
   });
 
-  it('when a lot has no test, then seeds to sow is 422 saying to test first', async () => {
+  it('when a lot has no test, then seeds to sow is a guess from the species, said in words, with a wide band', async () => {
     const lotId = await newLot('Unknown');
     const res = await bank.viewer.agent.get(`${base()}/lots/${lotId}/seeds-to-sow?plants=12`);
-    expect(res.status).toBe(422);
-    expect(res.body.error.message).toMatch(/Test the lot/);
+    expect(res.status).toBe(200);
+    expect(res.body.estimateOnly).toBe(true);
+    expect(res.body.explanation).toMatch(/Not tested — this is a guess.*Test 20 seeds first/);
+    expect(res.body.projectedHigh - res.body.projectedLow).toBeGreaterThan(30);
   });
 });

@@ -5,6 +5,7 @@ import {
   createTestBodySchema,
   finishBodySchema,
   testDetailSchema,
+  testSetAsideBodySchema,
   trayUpdateBodySchema,
   updateTestBodySchema,
 } from '../../../shared/schemas/germination';
@@ -67,6 +68,10 @@ export function testRoutes(tests: GerminationService): Router {
     const body = parse(trayUpdateBodySchema, req.body, 'tray');
     const trayId = idParam(req.params.trayId, 'tray');
     respond(res, 200, testDetailSchema, await tests.setTrayAside(req.bank!.id, testId(req), trayId, body.setAsideReason));
+  });
+  router.post('/:testId/set-aside', requireRole('grower'), async (req, res) => {
+    const body = parse(testSetAsideBodySchema, req.body, 'set aside');
+    respond(res, 200, testDetailSchema, await tests.setTestAside(req.bank!.id, testId(req), body.reason));
   });
   router.post('/:testId/reopen', requireRole('grower'), async (req, res) => {
     respond(res, 200, testDetailSchema, await tests.reopen(req.bank!.id, testId(req)));

@@ -132,6 +132,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         lotId: t.lot_id,
         ...testFields(t),
         status: t.status,
+        setAsideReason: t.set_aside_reason,
         seedsTaken: taken.seeds,
         schedule,
         createdAt: t.created_at.toISOString(),
@@ -340,6 +341,15 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         }
         await trx.updateTable('germination_tests').set({ status: 'finished', finished_on: body.date, updated_at: clock.now() }).where('id', '=', testId).execute();
         await storeResult(trx, testId);
+      });
+      return detail(bankId, testId);
+    },
+
+    /** Sets the whole test aside with a reason (running or finished), or takes it back. */
+    async setTestAside(bankId: string, testId: string, reason: string | null) {
+      await db.transaction().execute(async (trx) => {
+        await loadTest(trx, bankId, testId, true);
+        await trx.updateTable('germination_tests').set({ set_aside_reason: reason, updated_at: clock.now() }).where('id', '=', testId).execute();
       });
       return detail(bankId, testId);
     },

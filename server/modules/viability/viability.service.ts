@@ -1,25 +1,25 @@
+import { addDays as addCalendarDays } from '../../../shared/plan-dates';
 import { dayInWords } from '../../../shared/day-words';
 import type { SpeciesDto } from '../../../shared/schemas/species';
 import type { Db } from '../../db/database';
+import { sql } from 'kysely';
 import { notFound, unprocessable } from '../../http/errors';
+import { seedsToSowPredictive, temperatureFactor } from '../../stats';
 import {
-  fitViabilityDecline,
-  projectViability,
-  seedsToSow,
-  temperatureFactor,
-  type SpeciesSlope,
-  type ViabilityFit,
-  type ViabilityTest,
-} from '../../stats';
-import { commonSlopeProbit } from '../../stats/probit-common-slope';
+  fitSpeciesModel,
+  monitoringIntervalYears,
+  projectModel,
+  viabilityDistribution,
+  type LotModel,
+  type ModelTest,
+} from '../../stats/viability-model';
 import { listSpecies } from '../species/species.service';
 import { lotsQuery, toLotDto } from '../lots/lots.repository';
 import { decide, type Recommendation } from './recommend';
 
 const DAY_MS = 86_400_000;
 const YEAR_DAYS = 365.25;
-const isoDay = (d: Date) => d.toISOString().slice(0, 10);
-const addDays = (date: string, n: number) => isoDay(new Date(Date.parse(date) + Math.round(n) * DAY_MS));
+const addDays = (date: string, n: number) => addCalendarDays(date, Math.round(n));
 
 /**
  * When the seed was harvested, as the model's age zero. A bought packet "packed for" season S was
@@ -58,6 +58,10 @@ interface TestAggregate {
   percent: number | null;
   last_count_date: string | null;
   mean_days: number | null;
+  /** Fresh (dormant but alive) seeds recorded at the finish, pooled; null when not recorded. */
+  fresh: number | null;
+  /** Why the grower set the whole test aside (mouldy towel, too cold); it then leaves the model. */
+  set_aside_reason: string | null;
 }
 
 /** Every test of the bank (or of one species) with its stored result, oldest first. */
@@ -74,6 +78,8 @@ async function testAggregates(db: Db, bankId: string, speciesId?: string): Promi
       't.result_percent as percent',
       't.result_last_count_date as last_count_date',
       't.result_mean_days as mean_days',
+      sql<number | null>`(t.result->>'fresh')::int`.as('fresh'),
+      't.set_aside_reason',
     ])
     .where('t.bank_id', '=', bankId)
     .orderBy('t.start_date')
@@ -84,29 +90,45 @@ async function testAggregates(db: Db, bankId: string, speciesId?: string): Promi
 
 /** A test counts toward the decline once finished, or once counted up to the species' final count day. */
 function usable(t: TestAggregate, species: SpeciesDto | undefined): t is TestAggregate & { sown: number; germinated: number } {
-  if (t.sown === null || t.germinated === null || t.sown <= 0) return false;
+  if (t.sown === null || t.germinated === null || t.sown <= 0 || t.set_aside_reason !== null) return false;
   if (t.status === 'finished') return true;
   const final = species?.traits.finalCountDay;
   return final != null && t.last_count_date !== null && Date.parse(t.last_count_date) - Date.parse(t.start_date) >= final * DAY_MS;
 }
 
+/** A usable test as the lot page's chart and the model read it. */
+export interface ViabilityPoint {
+  testId: string;
+  date: string;
+  /** Calendar years since the harvest reference. */
+  ageYears: number;
+  germinated: number;
+  sown: number;
+  /** Fresh (dormant but alive) seeds, when recorded. */
+  fresh: number | null;
+}
+
 export interface LotViability {
-  fit: ViabilityFit | null;
-  tests: (ViabilityTest & { date: string; testId: string })[];
+  model: LotModel | null;
+  tests: ViabilityPoint[];
+  /** Tests the grower set aside, with their reasons: out of the model, shown apart. */
+  setAside: { testId: string; date: string; reason: string }[];
   lastTest: TestAggregate | null;
   harvestRef: string;
+  /** Equivalent years at the species' reference storage per calendar year at the lot's storage. */
+  rateFactor: number;
   storageNote: string | null;
   reasonNoFit: string | null;
 }
 
 type LotDto = ReturnType<typeof toLotDto>;
-type LotFit = Omit<LotViability, 'lastTest'>;
+type LotFit = Pick<LotViability, 'model' | 'reasonNoFit'>;
 
 /**
- * Fitted models by their inputs. A species' lots are fitted together (they share a common slope),
- * so the key is everything the fits of one species read: the lots' age references and storage, the
- * usable tests' stored results, the species' traits and the threshold. Equal inputs give equal
- * fits, so a cached fit is never stale, and a change to any input simply misses the cache.
+ * Fitted models by their inputs. A species' lots are fitted together (they share the species'
+ * rate), so the key is everything the fits of one species read: the lots' usable tests (stored
+ * results), their equivalent ages and the species' typical life. Equal inputs give equal fits, so a
+ * cached fit is never stale, and a change to any input simply misses the cache.
  */
 export class FitCache {
   private readonly entries = new Map<string, Map<string, LotFit>>();
@@ -128,97 +150,104 @@ export class FitCache {
   }
 }
 
-/** One species' lots fitted together: the common slope pooled once, then each lot. */
-function fitSpeciesLots(lots: LotDto[], modelTests: Map<string, LotViability['tests']>, hasTests: Set<string>, sp: SpeciesDto | undefined, threshold: number) {
-  // A lot with one test says nothing about the slope, so pooling every lot of the species that was
-  // tested at two or more ages gives the same common slope as pooling "the other lots".
-  const groups = lots.map((l) => modelTests.get(l.id)!).filter((own) => new Set(own.map((t) => t.ageYears)).size >= 2);
-  let slope: SpeciesSlope | undefined;
-  if (groups.length > 0) {
-    try {
-      const pooled = commonSlopeProbit(groups.map((g) => ({ points: g.map((t) => ({ x: t.ageYears, successes: t.germinated, trials: t.sown })) })));
-      if (pooled.converged && pooled.slope < 0 && Number.isFinite(pooled.seSlope)) slope = { slope: pooled.slope, slopeSe: pooled.seSlope };
-    } catch {
-      // No usable common slope for this species; lots fall back to the typical life.
-    }
+/** The storage's rate of ageing against the reference storage, and its note for the grower. */
+function storageScale(lot: LotDto): { rateFactor: number; note: string | null } {
+  const temp = storageTemperature(lot.storage);
+  if (temp === null) {
+    return { rateFactor: 1, note: 'Storage temperature not recorded: taken as a cool room (about 15 °C).' };
   }
-  const out = new Map<string, LotFit>();
-  for (const lot of lots) {
-    const own = modelTests.get(lot.id)!;
-    const harvestRef = harvestReference(lot);
-    const temp = storageTemperature(lot.storage);
-    const factor = temp === null ? 1 : temperatureFactor(temp, REFERENCE_STORAGE_C);
-    const storageNote =
-      temp === null
-        ? null
-        : `Storage at about ${Math.round(temp)} °C ${factor >= 1 ? 'lengthens' : 'shortens'} the typical seed life about ${factor >= 1 ? factor.toFixed(1) : (1 / factor).toFixed(1)}× (an estimate from the viability equation's temperature terms).`;
-    let fit: ViabilityFit | null = null;
-    let reasonNoFit: string | null = null;
-    if (own.length === 0) {
-      reasonNoFit = hasTests.has(lot.id) ? 'The test is still running.' : 'No germination test yet.';
-    } else {
-      const life = sp?.traits.storageLifeYears;
-      try {
-        fit = fitViabilityDecline(own, { ...(slope ? { speciesSlope: slope } : {}), ...(life ? { typicalLifeYears: life * factor } : {}) }, { retestThresholdPercent: threshold });
-        if (fit.basis === 'typical' && storageNote) fit.notes.push(storageNote);
-      } catch (error) {
-        reasonNoFit = `The decline cannot be estimated yet (${error instanceof Error ? error.message : 'no rate of decline known'}).`;
-      }
-    }
-    out.set(lot.id, { fit, tests: own, harvestRef, storageNote, reasonNoFit });
-  }
-  return out;
+  const factor = temperatureFactor(temp, REFERENCE_STORAGE_C);
+  return {
+    rateFactor: 1 / factor,
+    note: `Storage at about ${Math.round(temp)} °C ages seed about ${factor >= 1 ? `${factor.toFixed(1)}× slower` : `${(1 / factor).toFixed(1)}× faster`} than a cool room (an estimate from the viability equation's temperature terms; seed moisture is not modelled).`,
+  };
 }
 
 /** Fits every lot of the given lists, species by species, through the cache. */
-function fitLots(
-  lots: LotDto[],
-  tests: TestAggregate[],
-  species: Map<string, SpeciesDto>,
-  thresholdFor: (s: SpeciesDto | undefined) => number,
-  cache: FitCache,
-): Map<string, LotViability> {
+function fitLots(lots: LotDto[], tests: TestAggregate[], species: Map<string, SpeciesDto>, cache: FitCache): Map<string, LotViability> {
   const testsByLot = new Map<string, TestAggregate[]>();
   for (const t of tests) {
     const list = testsByLot.get(t.lot_id);
     if (list) list.push(t);
     else testsByLot.set(t.lot_id, [t]);
   }
-  const modelTests = new Map<string, LotViability['tests']>();
+  const out = new Map<string, LotViability>();
   const lotsBySpecies = new Map<string, LotDto[]>();
   for (const lot of lots) {
-    const sp = species.get(lot.speciesId);
-    const ref = harvestReference(lot);
-    modelTests.set(
-      lot.id,
-      (testsByLot.get(lot.id) ?? [])
-        .filter((t) => usable(t, sp))
-        .map((t) => ({ ageYears: Math.max(0, ageYears(ref, t.start_date)), germinated: t.germinated!, sown: t.sown!, date: t.start_date, testId: t.id })),
-    );
     const group = lotsBySpecies.get(lot.speciesId);
     if (group) group.push(lot);
     else lotsBySpecies.set(lot.speciesId, [lot]);
   }
-  const hasTests = new Set(testsByLot.keys());
-
-  const out = new Map<string, LotViability>();
   for (const [speciesId, group] of lotsBySpecies) {
     const sp = species.get(speciesId);
-    const threshold = thresholdFor(sp);
-    const key = JSON.stringify([
-      speciesId,
-      sp?.traits.storageLifeYears ?? null,
-      threshold,
-      group.map((l) => [l.id, harvestReference(l), storageTemperature(l.storage), hasTests.has(l.id), modelTests.get(l.id)!.map((t) => [t.testId, t.date, t.germinated, t.sown])]),
-    ]);
+    const prepared = group.map((lot) => {
+      const ref = harvestReference(lot);
+      const all = testsByLot.get(lot.id) ?? [];
+      const points: ViabilityPoint[] = all
+        .filter((t) => usable(t, sp))
+        .map((t) => ({ testId: t.id, date: t.start_date, ageYears: Math.max(0, ageYears(ref, t.start_date)), germinated: t.germinated!, sown: t.sown!, fresh: t.fresh }));
+      const scale = storageScale(lot);
+      const modelTests: ModelTest[] = points.map((p) => ({ id: p.testId, age: p.ageYears * scale.rateFactor, alive: p.germinated + (p.fresh ?? 0), sown: p.sown }));
+      return { lot, ref, all, points, scale, modelTests };
+    });
+    const typicalLifeYears = sp?.traits.storageLifeYears ?? null;
+    const key = JSON.stringify([speciesId, typicalLifeYears, prepared.map((p) => [p.lot.id, p.modelTests.map((t) => [t.id, t.age, t.alive, t.sown])])]);
     let fits = cache.get(key);
     if (!fits) {
-      fits = fitSpeciesLots(group, modelTests, hasTests, sp, threshold);
+      const results = fitSpeciesModel(
+        prepared.map((p) => ({ id: p.lot.id, tests: p.modelTests })),
+        { typicalLifeYears },
+      );
+      fits = new Map(
+        results.map((r) => [r.ok ? r.model.lotId : r.lotId, r.ok ? { model: r.model, reasonNoFit: null } : { model: null, reasonNoFit: `The decline cannot be estimated: ${r.reason}` }]),
+      );
       cache.set(key, fits);
     }
-    for (const lot of group) out.set(lot.id, { ...fits.get(lot.id)!, lastTest: testsByLot.get(lot.id)?.at(-1) ?? null });
+    for (const p of prepared) {
+      const fit = fits.get(p.lot.id)!;
+      out.set(p.lot.id, {
+        ...fit,
+        tests: p.points,
+        setAside: p.all.filter((t) => t.set_aside_reason !== null).map((t) => ({ testId: t.id, date: t.start_date, reason: t.set_aside_reason! })),
+        lastTest: p.all.filter((t) => t.set_aside_reason === null).at(-1) ?? null,
+        harvestRef: p.ref,
+        rateFactor: p.scale.rateFactor,
+        storageNote: p.scale.note,
+      });
+    }
   }
   return out;
+}
+
+/** Projected viability on a date, from the lot's model. */
+function projectOn(v: LotViability, on: string) {
+  return v.model ? projectModel(v.model, Math.max(0, ageYears(v.harvestRef, on)) * v.rateFactor) : null;
+}
+
+/** Storage places a grower can move a lot to, for the storage advice (temperatures as above). */
+const ADVICE_PLACES = [
+  { place: 'room', label: 'where it is kept now' },
+  { place: 'fridge', label: 'in the fridge (about 5 °C)' },
+  { place: 'freezer', label: 'in the freezer (about −18 °C)' },
+] as const;
+
+/**
+ * Calendar years from `on` until the lot's projected viability (posterior mean) falls to `threshold`
+ * percent when it ages `rateFactor` equivalent years a calendar year from now on; 0 when it is
+ * already below, null when it stays above for 100 years.
+ */
+function yearsUntil(model: LotModel, ageEqNow: number, rateFactor: number, threshold: number): number | null {
+  const at = (years: number) => projectModel(model, ageEqNow + years * rateFactor).percent;
+  if (at(0) <= threshold) return 0;
+  if (at(100) > threshold) return null;
+  let lo = 0;
+  let hi = 100;
+  for (let i = 0; i < 40; i++) {
+    const mid = (lo + hi) / 2;
+    if (at(mid) > threshold) lo = mid;
+    else hi = mid;
+  }
+  return (lo + hi) / 2;
 }
 
 export function createViabilityService({ db }: { db: Db }) {
@@ -235,8 +264,55 @@ export function createViabilityService({ db }: { db: Db }) {
       assurance: Number(bank.sowing_assurance),
     };
   }
+  type Settings = Awaited<ReturnType<typeof bankSettings>>;
 
   const thresholdFor = (bankThreshold: number) => (s: SpeciesDto | undefined) => s?.traits.minGerminationPercent ?? bankThreshold;
+
+  /** Seeds the bank's unsown plan entries need, by lot. */
+  async function seedsNeededByLot(bankId: string): Promise<Map<string, number>> {
+    const rows = await db
+      .selectFrom('plan_entries')
+      .select(['lot_id', sql<number>`sum(seeds_to_sow)::int`.as('seeds')])
+      .where('bank_id', '=', bankId)
+      .where('sown_on', 'is', null)
+      .where('lot_id', 'is not', null)
+      .groupBy('lot_id')
+      .execute();
+    return new Map(rows.map((r) => [r.lot_id!, r.seeds]));
+  }
+
+  /** The decision for one lot on `on`, with everything the rules read. One place for every screen. */
+  function decision(lot: LotDto, v: LotViability, all: LotDto[], sp: SpeciesDto | undefined, settings: Settings, seedsNeeded: number | null, on: string) {
+    const projected = projectOn(v, on);
+    const nextSeason = projectOn(v, addDays(on, YEAR_DAYS));
+    const threshold = thresholdFor(settings.threshold)(sp);
+    const lastUsable = v.tests.at(-1) ?? null;
+    const monitoring = v.model ? monitoringIntervalYears(v.model) / v.rateFactor : null;
+    const ref = harvestReference(lot);
+    const younger = all.some(
+      (o) => o.id !== lot.id && o.status === 'active' && o.speciesId === lot.speciesId && o.variety.trim().toLowerCase() === lot.variety.trim().toLowerCase() && harvestReference(o) > ref,
+    );
+    const d: { recommendation: Recommendation; reason: string } = decide({
+      on,
+      seedsOnHand: lot.seedsOnHand,
+      seedsNeeded,
+      tested: v.tests.length > 0,
+      testRunning: v.lastTest?.status === 'running',
+      estimateOnly: v.model?.estimateOnly ?? true,
+      projected,
+      projectedNextSeason: nextSeason,
+      initialPercent: v.model?.initial.percent ?? null,
+      lastTestDate: lastUsable?.date ?? null,
+      monitoringIntervalDays: monitoring === null ? null : monitoring * YEAR_DAYS,
+      threshold,
+      thresholdIsStandard: sp?.traits.minGerminationPercent != null,
+      establishment: settings.establishment,
+      youngerLotOfVariety: younger,
+      noFitReason: v.reasonNoFit,
+    });
+    const retestBy = lastUsable && monitoring !== null ? addDays(lastUsable.date, monitoring * YEAR_DAYS) : null;
+    return { ...d, projected, retestBy, threshold };
+  }
 
   /** The lot's decline, fitted together with the species' other lots in the bank. */
   async function lotViability(bankId: string, lotId: string) {
@@ -247,38 +323,55 @@ export function createViabilityService({ db }: { db: Db }) {
     const siblings = (await lotsQuery(db, bankId).where('lots.species_id', '=', lot.speciesId).orderBy('lots.code').execute()).map(toLotDto);
     const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
     const tests = await testAggregates(db, bankId, lot.speciesId);
-    const result = fitLots(siblings, tests, species, thresholdFor(settings.threshold), cache).get(lot.id)!;
-    return { lot, settings, species: species.get(lot.speciesId), ...result };
+    const result = fitLots(siblings, tests, species, cache).get(lot.id)!;
+    return { lot, siblings, settings, species: species.get(lot.speciesId), ...result };
+  }
+
+  /** Seeds to sow from the whole predictive distribution (null when no number will do). */
+  function seedsFor(v: LotViability, on: string, plants: number, establishment: number, assurance: number): number | null {
+    if (!v.model) return null;
+    const draws = viabilityDistribution(v.model, Math.max(0, ageYears(v.harvestRef, on)) * v.rateFactor).map((d) => ({ p: d.p * establishment, w: d.w }));
+    return seedsToSowPredictive(plants, draws, assurance);
   }
 
   return {
     async viability(bankId: string, lotId: string, on: string) {
       const v = await lotViability(bankId, lotId);
       const ageOn = ageYears(v.harvestRef, on);
-      const retestBy = v.fit ? addDays(v.harvestRef, v.fit.retestByAgeYears * YEAR_DAYS) : null;
-      const projected = v.fit ? projectViability(v.fit, Math.max(0, ageOn)) : null;
+      const needed = (await seedsNeededByLot(bankId)).get(lotId) ?? null;
+      const d = decision(v.lot, v, v.siblings, v.species, v.settings, needed, on);
       const maxAge = Math.max(ageOn, ...v.tests.map((t) => t.ageYears), 1) * 1.25;
+      const ageEqNow = Math.max(0, ageOn) * v.rateFactor;
+      const storageAdvice = v.model
+        ? ADVICE_PLACES.map(({ place, label }) => {
+            const rateFactor = place === 'room' ? v.rateFactor : 1 / temperatureFactor(storageTemperature({ place, temperatureC: null })!, REFERENCE_STORAGE_C);
+            return { place, label, current: place === 'room', yearsToThreshold: yearsUntil(v.model!, ageEqNow, rateFactor, d.threshold) };
+          })
+        : [];
       return {
         lotId: v.lot.id,
         on,
         ageYears: ageOn,
-        initialPercent: v.fit?.initialPercent ?? null,
-        sigmaYears: v.fit?.sigmaYears ?? null,
-        halfLifeYears: v.fit?.halfLifeYears ?? null,
-        projected,
-        retestBy,
-        retestReason: v.fit?.retestReason ?? null,
-        basis: v.fit?.basis ?? null,
-        notes: v.fit ? v.fit.notes : [v.reasonNoFit ?? 'No estimate yet.'],
+        initialPercent: v.model?.initial.percent ?? null,
+        sigmaYears: v.model ? v.model.sigmaYears / v.rateFactor : null,
+        halfLifeYears: v.model ? v.model.halfLifeYears / v.rateFactor : null,
+        projected: d.projected,
+        retestBy: d.retestBy,
+        retestReason: d.retestBy ? 'monitoring-interval' : null,
+        basis: v.model?.basis ?? null,
+        estimateOnly: v.model?.estimateOnly ?? true,
+        recommendation: d.recommendation,
+        reason: d.reason,
+        threshold: d.threshold,
+        notes: [...(v.model ? v.model.notes : [v.reasonNoFit ?? 'No estimate yet.']), ...(v.storageNote ? [v.storageNote] : [])],
         harvestReference: v.harvestRef,
-        points: v.tests.map((t) => {
-          const p = t.germinated / t.sown;
-          return { testId: t.testId, date: t.date, ageYears: t.ageYears, percent: p * 100, germinated: t.germinated, sown: t.sown };
-        }),
-        curve: v.fit
+        storageAdvice,
+        points: v.tests.map((t) => ({ testId: t.testId, date: t.date, ageYears: t.ageYears, percent: (100 * t.germinated) / t.sown, germinated: t.germinated, sown: t.sown, heldBack: v.model?.heldBack.includes(t.testId) ?? false })),
+        setAside: v.setAside,
+        curve: v.model
           ? Array.from({ length: 41 }, (_, i) => {
               const age = (maxAge * i) / 40;
-              return { ageYears: age, ...projectViability(v.fit!, age) };
+              return { ageYears: age, ...projectModel(v.model!, age * v.rateFactor) };
             })
           : [],
       };
@@ -286,29 +379,37 @@ export function createViabilityService({ db }: { db: Db }) {
 
     async seedsToSow(bankId: string, lotId: string, plants: number, on: string, assurance?: number) {
       const v = await lotViability(bankId, lotId);
-      if (!v.fit) throw unprocessable(`${v.reasonNoFit ?? 'No estimate yet.'} Test the lot before working out how many seeds to sow.`);
-      const projected = projectViability(v.fit, Math.max(0, ageYears(v.harvestRef, on)));
+      const needed = (await seedsNeededByLot(bankId)).get(lotId) ?? null;
+      const d = decision(v.lot, v, v.siblings, v.species, v.settings, needed, on);
+      if (d.recommendation === 'retire') throw unprocessable(`${d.reason} Hilum offers no seeds-to-sow for a lot to retire.`);
+      if (!v.model || !d.projected) throw unprocessable(`${v.reasonNoFit ?? 'No estimate yet.'} Test the lot before working out how many seeds to sow.`);
       const chosen = assurance ?? v.settings.assurance;
-      const germinationUsed = (projected.percent / 100) * v.settings.establishment;
-      if (germinationUsed <= 0) throw unprocessable('The projected germination is zero: no number of seeds will do.');
-      const seeds = seedsToSow(plants, germinationUsed, chosen);
+      const seeds = seedsFor(v, on, plants, v.settings.establishment, chosen);
+      if (seeds === null) throw unprocessable('The projected germination is too low: no number of seeds gives that assurance.');
+      const estimate = v.model.estimateOnly;
       return {
         seeds,
-        germinationUsed,
+        germinationUsed: (d.projected.percent / 100) * v.settings.establishment,
         assurance: chosen,
         plants,
-        projectedPercent: projected.percent,
+        projectedPercent: d.projected.percent,
+        projectedLow: d.projected.low,
+        projectedHigh: d.projected.high,
         establishmentFactor: v.settings.establishment,
-        basis: v.fit.basis,
+        basis: v.model.basis,
+        estimateOnly: estimate,
         enoughStock: seeds <= v.lot.seedsOnHand,
         seedsOnHand: v.lot.seedsOnHand,
-        explanation: `Sow ${seeds} seeds for ${plants} plants: the lot is projected at ${Math.round(projected.percent)}% on ${dayInWords(on)}, times ${Math.round(v.settings.establishment * 100)}% of seedlings that make a plant, with ${Math.round(chosen * 100)}% assurance of at least ${plants}.`,
+        explanation: estimate
+          ? `Not tested — this is a guess from the species' typical seed: sow about ${seeds} seeds for ${plants} plants (likely ${Math.round(d.projected.low)}–${Math.round(d.projected.high)}% on ${dayInWords(on)}). Test 20 seeds first for a real figure.`
+          : `Sow ${seeds} seeds for ${plants} plants: the lot is projected at ${Math.round(d.projected.percent)}% (likely ${Math.round(d.projected.low)}–${Math.round(d.projected.high)}%) on ${dayInWords(on)}, times ${Math.round(v.settings.establishment * 100)}% of seedlings that make a plant, with ${Math.round(chosen * 100)}% assurance of at least ${plants} over that whole range.`,
       };
     },
 
     /**
      * The species' lots that could fill a plan entry on `on`, best first: highest projected lower
-     * bound among those with enough seed, then the rest (not enough seed) after them.
+     * bound among those with enough seed, then the rest (not enough seed) after them. Lots to retire
+     * and untested lots are not offered.
      */
     async candidates(bankId: string, speciesId: string, on: string, plants: number) {
       const settings = await bankSettings(bankId);
@@ -316,17 +417,16 @@ export function createViabilityService({ db }: { db: Db }) {
       // Every lot of the species is fitted, as on the lot page and in the ranking (one model).
       const all = (await lotsQuery(db, bankId).where('lots.species_id', '=', speciesId).orderBy('lots.code').execute()).map(toLotDto);
       const tests = await testAggregates(db, bankId, speciesId);
-      const fits = fitLots(all, tests, species, thresholdFor(settings.threshold), cache);
-      const lots = all.filter((l) => l.status === 'active');
+      const fits = fitLots(all, tests, species, cache);
+      const needed = await seedsNeededByLot(bankId);
       const out = [];
-      for (const lot of lots) {
+      for (const lot of all.filter((l) => l.status === 'active')) {
         const v = fits.get(lot.id)!;
-        if (!v.fit) continue;
-        const projected = projectViability(v.fit, Math.max(0, ageYears(v.harvestRef, on)));
-        const p = (projected.percent / 100) * settings.establishment;
-        if (p <= 0) continue;
-        const seeds = seedsToSow(plants, p, settings.assurance);
-        out.push({ lotId: lot.id, code: lot.code, projected, seeds, seedsOnHand: lot.seedsOnHand, enough: seeds <= lot.seedsOnHand });
+        const d = decision(lot, v, all, species.get(speciesId), settings, needed.get(lot.id) ?? null, on);
+        if (!d.projected || !v.model || v.model.estimateOnly || d.recommendation === 'retire') continue;
+        const seeds = seedsFor(v, on, plants, settings.establishment, settings.assurance);
+        if (seeds === null) continue;
+        out.push({ lotId: lot.id, code: lot.code, projected: d.projected, seeds, seedsOnHand: lot.seedsOnHand, enough: seeds <= lot.seedsOnHand });
       }
       return out.sort((a, b) => Number(b.enough) - Number(a.enough) || b.projected.low - a.projected.low);
     },
@@ -340,50 +440,40 @@ export function createViabilityService({ db }: { db: Db }) {
       const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
       const all = (await lotsQuery(db, bankId).orderBy('lots.code').execute()).map(toLotDto);
       const tests = await testAggregates(db, bankId);
-      const fits = fitLots(all, tests, species, thresholdFor(settings.threshold), cache);
-      const lots = all.filter((l) => l.status === 'active' || l.status === 'depleted');
-      return lots.map((lot) => {
-        const v = fits.get(lot.id)!;
-        const sp = species.get(lot.speciesId);
-        const ageOn = ageYears(v.harvestRef, on);
-        const projected = v.fit ? projectViability(v.fit, Math.max(0, ageOn)) : null;
-        const retestBy = v.fit ? addDays(v.harvestRef, v.fit.retestByAgeYears * YEAR_DAYS) : null;
-        const last = v.lastTest;
-        const decision: { recommendation: Recommendation; reason: string } = decide({
-          seedsOnHand: lot.seedsOnHand,
-          projected,
-          hasTest: Boolean(v.fit),
-          noFitReason: v.reasonNoFit,
-          retestBy,
-          on,
-          threshold: thresholdFor(settings.threshold)(sp),
-          thresholdIsStandard: sp?.traits.minGerminationPercent != null,
-          establishment: settings.establishment,
+      const fits = fitLots(all, tests, species, cache);
+      const needed = await seedsNeededByLot(bankId);
+      return all
+        .filter((l) => l.status === 'active' || l.status === 'depleted')
+        .map((lot) => {
+          const v = fits.get(lot.id)!;
+          const d = decision(lot, v, all, species.get(lot.speciesId), settings, needed.get(lot.id) ?? null, on);
+          const last = v.lastTest;
+          return {
+            lotId: lot.id,
+            code: lot.code,
+            speciesId: lot.speciesId,
+            species: lot.speciesName,
+            variety: lot.variety,
+            status: lot.status,
+            origin: lot.origin,
+            sourceName: lot.sourceName,
+            treated: lot.treated,
+            ageYears: ageYears(v.harvestRef, on),
+            lastTestDate: last?.start_date ?? null,
+            lastPercent: last?.percent ?? null,
+            projectedPercent: d.projected?.percent ?? null,
+            projectedLow: d.projected?.low ?? null,
+            projectedHigh: d.projected?.high ?? null,
+            meanDays: last?.mean_days ?? null,
+            seedsOnHand: lot.seedsOnHand,
+            basis: v.model?.basis ?? null,
+            estimateOnly: v.model?.estimateOnly ?? true,
+            retestBy: d.retestBy,
+            thumbUrl: lot.thumbUrl,
+            recommendation: d.recommendation,
+            reason: d.reason,
+          };
         });
-        return {
-          lotId: lot.id,
-          code: lot.code,
-          speciesId: lot.speciesId,
-          species: lot.speciesName,
-          variety: lot.variety,
-          status: lot.status,
-          origin: lot.origin,
-          sourceName: lot.sourceName,
-          treated: lot.treated,
-          ageYears: ageOn,
-          lastTestDate: last?.start_date ?? null,
-          lastPercent: last?.percent ?? null,
-          projectedPercent: projected?.percent ?? null,
-          projectedLow: projected?.low ?? null,
-          projectedHigh: projected?.high ?? null,
-          meanDays: last?.mean_days ?? null,
-          seedsOnHand: lot.seedsOnHand,
-          basis: v.fit?.basis ?? null,
-          retestBy,
-          thumbUrl: lot.thumbUrl,
-          ...decision,
-        };
-      });
     },
   };
 }

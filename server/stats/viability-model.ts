@@ -1,0 +1,407 @@
+/**
+ * The viability decline of a species' lots, fitted together: a hierarchical form of the seed
+ * viability equation (Ellis & Roberts 1980, Ann. Bot. 45:13–30), v = Kᵢ − b·p, with v and Kᵢ in
+ * probits and p the storage time. Ages here are *equivalent* ages: years at the species' reference
+ * storage (the caller scales calendar age by storage temperature, storage-sigma.ts), so a room lot
+ * and a freezer lot of one species share one rate of decline per equivalent year.
+ *
+ * The model, for lot j with tests i:
+ *   germinated_ij ~ Binomial(sown_ij, Φ(K_j − b_j·age_ij))
+ *   K_j ~ Normal(μ_K, s_K²), truncated to [K_MIN, K_MAX]  (initial viability; seed cannot start
+ *        above 99.9%, so back-extrapolation is bounded)
+ *   log b_j ~ Normal(μ_s, τ²)                              (the lot's own rate around its species')
+ *   μ_s ~ Normal(log b₀, ω²)                               (b₀ from the species' typical seed life)
+ * and it is fitted exactly on grids (no iterative optimiser, so nothing fails to converge):
+ * μ_s on a grid, each lot's K integrated numerically around its conditional mode for each rate.
+ * Each lot borrows from its species through μ_s, computed without that lot's own tests (so a lot
+ * does not count its evidence twice), and a lot whose likelihood cannot be evaluated is left out
+ * of its species and reported, never changing another lot's result.
+ *
+ * A test that a later test beats by far more than chance (one-sided two-proportion z > Z_HELD_BACK)
+ * is read as held back (dormancy, or conditions), and enters only as "at least this many were
+ * alive": a result that rises with age is not read as decline.
+ */
+import { normalCdf, normalQuantile } from './distributions';
+import { regularizedBeta } from './special-functions';
+
+export interface ModelTest {
+  id: string;
+  /** Equivalent years at the species' reference storage. */
+  age: number;
+  /** Seeds alive at the test: normal seedlings, plus fresh (dormant) seeds when recorded. */
+  alive: number;
+  sown: number;
+}
+
+export interface ModelLot {
+  id: string;
+  tests: readonly ModelTest[];
+}
+
+export interface SpeciesPrior {
+  /**
+   * Typical seed life in years at the reference storage, read as the age at which a lot starting at
+   * TYPICAL_INITIAL falls to 50% (our reading of handbook "seed life" figures); null when unknown.
+   */
+  typicalLifeYears: number | null;
+}
+
+/** Hyperparameters: each an assumption, documented in docs/viability-model.md. */
+export const MODEL_CONSTANTS = {
+  /** Mean initial viability, probits: Φ⁻¹(0.90); home-saved and bought seed usually starts 80–98%. */
+  muK: normalQuantile(0.9),
+  /** Spread of initial viability between lots, probits (95% of lots between about 45% and 99.7%). */
+  sK: 0.75,
+  /** Bounds of initial viability, probits: Φ(−1.5) ≈ 7% to Φ(3.09) ≈ 99.9%. */
+  kMin: -1.5,
+  kMax: normalQuantile(0.999),
+  /** Handbook seed-life figures read as 85% → 50% (FAO 2014 4.3.2 asks > 85% initial). */
+  typicalInitial: 0.85,
+  /** log-scale spread of the species rate around the handbook figure: a factor of 3 either way at 95%. */
+  omega: Math.log(3) / 1.96,
+  /** Without a handbook figure: a 3-year life with a factor of 10 either way at 95%. */
+  unknownLifeYears: 3,
+  omegaUnknown: Math.log(10) / 1.96,
+  /** log-scale spread of a lot's rate around its species': a factor of 2 either way at 95%. */
+  tau: Math.log(2) / 1.96,
+  /** A later test beating an earlier one by more than this one-sided z reads the earlier as held back. */
+  zHeldBack: 3,
+} as const;
+
+const MU_GRID = 61;
+const RATE_GRID = 33;
+const K_GRID = 17;
+const K_SCAN = 13;
+/** Posterior draws kept per lot (systematic resampling of the grid), enough for 2.5% tails. */
+const DRAWS = 400;
+
+export interface Band {
+  percent: number;
+  low: number;
+  high: number;
+}
+
+/** A weighted draw of a lot's posterior: initial viability K (probits) and rate b (probits a year). */
+interface Point {
+  k: number;
+  b: number;
+  w: number;
+}
+
+export interface LotModel {
+  lotId: string;
+  /** How the rate is known: the lot's own tests at two or more ages ('lot'), its species' other lots ('species'), or the handbook figure alone ('typical'). */
+  basis: 'lot' | 'species' | 'typical';
+  /** No usable test of the lot: everything below is the species' estimate for such a lot. */
+  estimateOnly: boolean;
+  initial: Band;
+  /** Posterior median rate, probits per equivalent year, and σ = 1/b. */
+  rate: number;
+  sigmaYears: number;
+  /** Posterior median of the equivalent age at 50% viability (K/b; 0 when the lot started below 50%). */
+  halfLifeYears: number;
+  /** Test ids read as held back (dormancy or conditions): they enter only as a lower bound. */
+  heldBack: string[];
+  notes: string[];
+  points: Point[];
+}
+
+export type LotModelResult = { ok: true; model: LotModel } | { ok: false; lotId: string; reason: string };
+
+const LOG_EPS = 1e-300;
+
+/**
+ * log Φ(x) from a table of the exact Φ (distributions.ts) at steps of 1/1024 over [−38, 9],
+ * interpolated linearly: the fits evaluate Φ millions of times, and the exact function is slow.
+ * log Φ is smooth (|d²/dx²| ≤ 1), so the error is below 2e-7 in the log, i.e. a relative error
+ * below 2e-7 in Φ and in 1 − Φ alike, far into both tails.
+ */
+const TABLE_FROM = -38;
+const TABLE_TO = 9;
+const TABLE_STEP = 1 / 1024;
+let logPhiTable: Float64Array | null = null;
+export function logPhi(x: number): number {
+  if (x > TABLE_TO) return -Math.exp(logPhi(-x)); // log(1 − ε) ≈ −ε
+  if (x < TABLE_FROM) return -0.5 * x * x - Math.log(-x) - 0.5 * Math.log(2 * Math.PI); // Mills ratio
+  if (!logPhiTable) {
+    const n = Math.round((TABLE_TO - TABLE_FROM) / TABLE_STEP) + 1;
+    logPhiTable = new Float64Array(n);
+    for (let i = 0; i < n; i++) logPhiTable[i] = Math.log(normalCdf(TABLE_FROM + i * TABLE_STEP));
+  }
+  const u = (x - TABLE_FROM) / TABLE_STEP;
+  const i = Math.min(Math.floor(u), logPhiTable.length - 2);
+  const f = u - i;
+  return logPhiTable[i]! * (1 - f) + logPhiTable[i + 1]! * f;
+}
+const phi = (x: number) => Math.exp(logPhi(x));
+
+function logBinomialKernel(alive: number, sown: number, x: number): number {
+  return (alive > 0 ? alive * logPhi(x) : 0) + (sown > alive ? (sown - alive) * logPhi(-x) : 0);
+}
+
+/** log P(X ≥ alive), X ~ Binomial(sown, p): a held-back test says at least this many were alive. */
+function logAtLeast(alive: number, sown: number, p: number): number {
+  if (alive <= 0) return 0;
+  const q = Math.min(1 - 1e-15, Math.max(1e-15, p));
+  return Math.log(Math.max(LOG_EPS, regularizedBeta(q, alive, sown - alive + 1)));
+}
+
+function heldBackTests(tests: readonly ModelTest[]): Set<string> {
+  const out = new Set<string>();
+  for (const a of tests) {
+    for (const b of tests) {
+      if (b.age <= a.age) continue;
+      const pa = a.alive / a.sown;
+      const pb = b.alive / b.sown;
+      const pooled = (a.alive + b.alive) / (a.sown + b.sown);
+      const se = Math.sqrt(pooled * (1 - pooled) * (1 / a.sown + 1 / b.sown));
+      if (se > 0 && (pb - pa) / se > MODEL_CONSTANTS.zHeldBack) out.add(a.id);
+    }
+  }
+  return out;
+}
+
+function logLik(tests: readonly ModelTest[], heldBack: Set<string>, k: number, b: number): number {
+  let sum = 0;
+  for (const t of tests) {
+    const x = k - b * t.age;
+    sum += heldBack.size > 0 && heldBack.has(t.id) ? logAtLeast(t.alive, t.sown, phi(x)) : logBinomialKernel(t.alive, t.sown, x);
+  }
+  return sum;
+}
+
+const logNormalPdf = (x: number, mean: number, sd: number) => -0.5 * ((x - mean) / sd) ** 2 - Math.log(sd);
+
+function linspace(from: number, to: number, n: number): number[] {
+  return Array.from({ length: n }, (_, i) => from + ((to - from) * i) / (n - 1));
+}
+
+function logSumExp(xs: readonly number[]): number {
+  let max = Number.NEGATIVE_INFINITY;
+  for (const x of xs) if (x > max) max = x;
+  if (!Number.isFinite(max)) return max;
+  let s = 0;
+  for (const x of xs) s += Math.exp(x - max);
+  return max + Math.log(s);
+}
+
+/**
+ * For a fixed rate b: the K grid (around the conditional mode) and the log of prior × likelihood at
+ * each node, plus the log of their integral over K.
+ */
+function conditionalK(tests: readonly ModelTest[], heldBack: Set<string>, b: number) {
+  const { muK, sK, kMin, kMax } = MODEL_CONSTANTS;
+  const f = (k: number) => logNormalPdf(k, muK, sK) + logLik(tests, heldBack, k, b);
+  // A coarse scan finds the mode's neighbourhood; the fine grid spans it generously.
+  const coarse = linspace(kMin, kMax, K_SCAN);
+  let best = coarse[0]!;
+  let bestValue = Number.NEGATIVE_INFINITY;
+  for (const k of coarse) {
+    const v = f(k);
+    if (v > bestValue) {
+      bestValue = v;
+      best = k;
+    }
+  }
+  const step = (kMax - kMin) / (K_SCAN - 1);
+  // Curvature at the mode sets the fine grid's width (at least one coarse step either side).
+  const h = 1e-3;
+  const curvature = -(f(best + h) - 2 * bestValue + f(best - h)) / (h * h);
+  const sd = curvature > 0 && Number.isFinite(curvature) ? 1 / Math.sqrt(curvature) : step;
+  const half = Math.max(step * 1.5, 6 * sd);
+  const lo = Math.max(kMin, best - half);
+  const hi = Math.min(kMax, best + half);
+  const ks = linspace(lo, hi, K_GRID);
+  const dk = (hi - lo) / (K_GRID - 1);
+  const logs = ks.map((k, i) => f(k) + Math.log(dk * (i === 0 || i === K_GRID - 1 ? 0.5 : 1)));
+  return { ks, logs, logMarginal: logSumExp(logs) };
+}
+
+interface SpeciesGrid {
+  mus: number[];
+  /** Per lot with tests: log ∫ prior(K) L_j(K, b) dK at each rate of the grid. */
+  marginals: Map<string, number[]>;
+  logPrior: number[];
+  /** Per lot with tests: log ∫ L_j(b) N(log b; μ, τ²) d log b at each μ. */
+  contributions: Map<string, number[]>;
+  rates: number[];
+}
+
+function speciesPriorMean(prior: SpeciesPrior): { mean: number; sd: number } {
+  const c = MODEL_CONSTANTS;
+  const drop = normalQuantile(c.typicalInitial); // probits from 85% to 50%
+  const life = prior.typicalLifeYears ?? c.unknownLifeYears;
+  return { mean: Math.log(drop / life), sd: prior.typicalLifeYears ? c.omega : c.omegaUnknown };
+}
+
+/** Fits every lot of one species together. Lots without usable tests get the species' estimate. */
+export function fitSpeciesModel(lots: readonly ModelLot[], prior: SpeciesPrior): LotModelResult[] {
+  const c = MODEL_CONSTANTS;
+  const { mean: m0, sd: omega } = speciesPriorMean(prior);
+  const spread = Math.sqrt(omega * omega + c.tau * c.tau);
+  const mus = linspace(m0 - 4.5 * omega, m0 + 4.5 * omega, MU_GRID);
+  const logRates = linspace(m0 - 4.5 * spread - 1, m0 + 4.5 * spread + 1, RATE_GRID);
+  const dLogRate = logRates[1]! - logRates[0]!;
+
+  const failures = new Map<string, string>();
+  const heldBackByLot = new Map<string, Set<string>>();
+  // Each lot's marginal likelihood of its rate, on the shared log-rate grid.
+  const marginals = new Map<string, number[]>();
+  for (const lot of lots) {
+    if (lot.tests.length === 0) continue;
+    const bad = lot.tests.find((t) => !(t.sown > 0) || !(t.alive >= 0) || t.alive > t.sown || !Number.isFinite(t.age) || t.age < 0);
+    if (bad) {
+      failures.set(lot.id, 'One of its tests has counts that cannot be read (more alive than sown, or none sown).');
+      continue;
+    }
+    const held = heldBackTests(lot.tests);
+    heldBackByLot.set(lot.id, held);
+    const m = logRates.map((lr) => conditionalK(lot.tests, held, Math.exp(lr)).logMarginal);
+    if (m.some((v) => Number.isNaN(v)) || !m.some((v) => Number.isFinite(v))) {
+      failures.set(lot.id, 'Its tests could not be fitted together.');
+      continue;
+    }
+    marginals.set(lot.id, m);
+  }
+
+  // Each lot's factor in the species posterior: ∫ L_j(b) N(log b; μ, τ²) for every μ on the grid.
+  const contributions = new Map<string, number[]>();
+  for (const [lotId, m] of marginals) {
+    contributions.set(
+      lotId,
+      mus.map((mu) => logSumExp(m.map((v, i) => v + logNormalPdf(logRates[i]!, mu, c.tau) + Math.log(dLogRate)))),
+    );
+  }
+  const logPrior = mus.map((mu) => logNormalPdf(mu, m0, omega));
+  const total = mus.map((_, i) => logPrior[i]! + [...contributions.values()].reduce((s, contrib) => s + contrib[i]!, 0));
+  const grid: SpeciesGrid = { mus, marginals, logPrior, contributions, rates: logRates };
+
+  return lots.map((lot) => {
+    const failed = failures.get(lot.id);
+    if (failed) return { ok: false, lotId: lot.id, reason: failed };
+    return fitLot(lot, grid, total, heldBackByLot.get(lot.id) ?? new Set());
+  });
+}
+
+function fitLot(lot: ModelLot, grid: SpeciesGrid, total: number[], heldBack: Set<string>): LotModelResult {
+  const c = MODEL_CONSTANTS;
+  const own = grid.contributions.get(lot.id);
+  // The species' rate without this lot's own evidence, then the lot's rate prior around it.
+  const loo = total.map((v, i) => v - (own ? own[i]! : 0));
+  const looNorm = logSumExp(loo);
+  const muWeights = loo.map((v) => Math.exp(v - looNorm));
+  const otherLotsInform = grid.contributions.size - (own ? 1 : 0) > 0;
+  const logRatePrior = (lr: number) =>
+    Math.log(Math.max(LOG_EPS, grid.mus.reduce((s, mu, i) => s + muWeights[i]! * Math.exp(logNormalPdf(lr, mu, c.tau)), 0)));
+
+  // Posterior over (log b, K): log b on a grid, K integrated around its conditional mode.
+  const marginal = grid.marginals.get(lot.id);
+  const coarse = grid.rates.map((lr, i) => logRatePrior(lr) + (marginal ? marginal[i]! : 0));
+  const norm = logSumExp(coarse);
+  const w = coarse.map((v) => Math.exp(v - norm));
+  const mean = w.reduce((s, wi, i) => s + wi * grid.rates[i]!, 0);
+  const sd = Math.sqrt(Math.max(0, w.reduce((s, wi, i) => s + wi * (grid.rates[i]! - mean) ** 2, 0)));
+  const step = grid.rates[1]! - grid.rates[0]!;
+  const half = Math.max(2 * step, 6 * sd);
+  const fine = linspace(mean - half, mean + half, RATE_GRID);
+  const points: Point[] = [];
+  const logs: number[] = [];
+  for (const lr of fine) {
+    const b = Math.exp(lr);
+    const prior = logRatePrior(lr);
+    const cond = conditionalK(lot.tests, heldBack, b);
+    cond.ks.forEach((k, i) => {
+      points.push({ k, b, w: 0 });
+      logs.push(prior + cond.logs[i]!);
+    });
+  }
+  const z = logSumExp(logs);
+  if (!Number.isFinite(z)) return { ok: false, lotId: lot.id, reason: 'Its tests could not be fitted together.' };
+  points.forEach((p, i) => (p.w = Math.exp(logs[i]! - z)));
+  const kept = resample(points, DRAWS);
+
+  const ownAges = new Set(lot.tests.filter((t) => !heldBack.has(t.id)).map((t) => t.age));
+  const priorSd = Math.sqrt(c.tau * c.tau + Math.max(0, weightedVariance(grid.mus, muWeights)));
+  const basis: LotModel['basis'] = ownAges.size >= 2 && sd < 0.8 * priorSd ? 'lot' : otherLotsInform ? 'species' : 'typical';
+  const initial = band(kept, (p) => phi(p.k));
+  const rate = quantile(kept, (p) => p.b, 0.5);
+  const notes: string[] = [];
+  if (heldBack.size > 0) {
+    notes.push('A later test came up far better than an earlier one: the earlier test may have been held back by dormancy or by conditions, so it is read only as "at least this many were alive", not as decline.');
+  }
+  if (lot.tests.length === 0) notes.push('Not tested: this is the species’ typical figure for a lot of this age and storage, a guess until a test.');
+  return {
+    ok: true,
+    model: {
+      lotId: lot.id,
+      basis,
+      estimateOnly: lot.tests.length === 0,
+      initial,
+      rate,
+      sigmaYears: 1 / rate,
+      halfLifeYears: quantile(kept, (p) => Math.max(0, p.k / p.b), 0.5),
+      heldBack: [...heldBack],
+      notes,
+      points: kept,
+    },
+  };
+}
+
+/** Systematic resampling: `n` equally weighted draws that follow the grid's weights. */
+function resample(points: readonly Point[], n: number): Point[] {
+  const out: Point[] = [];
+  let acc = 0;
+  let j = 0;
+  for (const p of points) {
+    acc += p.w;
+    while (j < n && (j + 0.5) / n <= acc) {
+      out.push({ k: p.k, b: p.b, w: 1 / n });
+      j += 1;
+    }
+  }
+  while (out.length < n) out.push({ ...points.at(-1)!, w: 1 / n });
+  return out;
+}
+
+function weightedVariance(xs: readonly number[], ws: readonly number[]): number {
+  const m = xs.reduce((s, x, i) => s + x * ws[i]!, 0);
+  return xs.reduce((s, x, i) => s + ws[i]! * (x - m) ** 2, 0);
+}
+
+/** Weighted quantile of f over the posterior points. */
+function quantile(points: readonly Point[], f: (p: Point) => number, q: number): number {
+  const xs = points.map((p) => ({ x: f(p), w: p.w })).sort((a, b) => a.x - b.x);
+  const total = xs.reduce((s, x) => s + x.w, 0);
+  let acc = 0;
+  for (const x of xs) {
+    acc += x.w;
+    if (acc >= q * total) return x.x;
+  }
+  return xs.at(-1)!.x;
+}
+
+function band(points: readonly Point[], f: (p: Point) => number, confidence = 0.95): Band {
+  const mean = points.reduce((s, p) => s + p.w * f(p), 0) / points.reduce((s, p) => s + p.w, 0);
+  const tail = (1 - confidence) / 2;
+  return { percent: 100 * mean, low: 100 * quantile(points, f, tail), high: 100 * quantile(points, f, 1 - tail) };
+}
+
+/** Viability at an equivalent age: the posterior mean and its central 95% band, in percent. */
+export function projectModel(model: Pick<LotModel, 'points'>, age: number, confidence = 0.95): Band {
+  return band(model.points, (p) => phi(p.k - p.b * age), confidence);
+}
+
+/** The posterior distribution of viability at an equivalent age, as weighted values (for seeds to sow). */
+export function viabilityDistribution(model: Pick<LotModel, 'points'>, age: number): { p: number; w: number }[] {
+  return model.points.map((pt) => ({ p: phi(pt.k - pt.b * age), w: pt.w }));
+}
+
+/**
+ * The monitoring interval in equivalent years: one third of the time the lot takes to fall to 85%
+ * of its initial viability (FAO Genebank Standards 2014, 4.3.3 — from memory, see REFERENCES.md),
+ * from the posterior medians of its initial viability and rate.
+ */
+export function monitoringIntervalYears(model: Pick<LotModel, 'points'>): number {
+  const times = model.points.map((p) => ({ x: (p.k - normalQuantile(0.85 * phi(p.k))) / p.b, w: p.w }));
+  return quantile(times.map((t) => ({ k: t.x, b: 1, w: t.w })), (p) => p.k, 0.5) / 3;
+}
