@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { dayInWords } from '../../shared/day-words';
 import { resultWords } from '../../server/modules/germination/result-words';
-import { decide } from '../../server/modules/viability/recommend';
 import { summarizeTest } from '../../server/stats/summarize-test';
 
 describe('days in words', () => {
@@ -11,27 +10,6 @@ describe('days in words', () => {
     expect(dayInWords('2028-02-29')).toBe('29 Feb 2028');
     expect(dayInWords('2026-12-31')).toBe('31 Dec 2026');
     expect(dayInWords('not a date')).toBe('not a date');
-  });
-});
-
-describe('the reasons of the ranking', () => {
-  const base = {
-    seedsOnHand: 200,
-    hasTest: true,
-    noFitReason: null,
-    on: '2027-03-29',
-    threshold: 75,
-    thresholdIsStandard: true,
-    establishment: 0.9,
-  };
-  it('when a lot’s retest date has passed, then the reason names that day in words', () => {
-    const out = decide({ ...base, projected: { percent: 80, low: 70, high: 88 }, retestBy: '2026-03-02' });
-    expect(out).toEqual({ recommendation: 'retest', reason: 'The last test is out of date: it was due for a retest by 2 Mar 2026.' });
-  });
-  it('when a lot is projected too low to be worth the tray space, then the reason names the sowing day in words', () => {
-    const out = decide({ ...base, projected: { percent: 12, low: 6, high: 20 }, retestBy: null });
-    expect(out.recommendation).toBe('retire');
-    expect(out.reason).toContain('on 29 Mar 2027:');
   });
 });
 

@@ -4,13 +4,19 @@ import { cn } from '../../../lib/cn';
 import { recommendationLabels } from './viability-format';
 
 /*
- * Hilum's own marks for the four pieces of advice: palette pills, each with its own small drawing,
- * so they read apart without colour too.
+ * Hilum's own marks for the six pieces of advice: palette pills, each with its own small drawing
+ * and label, so they read apart without colour too; "test first" also has a dashed edge (nothing
+ * measured yet) and "grow out" a solid fill (sow it this year, for seed). Text contrast (WCAG 2.x,
+ * from tailwind.config.ts): moss-800 on moss-100 8.5 · seedcoat-800 on seedcoat-100 8.0 · white on
+ * moss-700 8.2 · frost-800 on frost-100 8.6 · loam-800 on white 12.5 · clay-800 on clay-100 8.0;
+ * the dashed loam-500 edge is 5.0 on white and 4.8 on husk-50 (3:1 needed for a shape's edge).
  */
 const looks: Record<RecommendationValue, string> = {
   sow: 'border-moss-300 bg-moss-100 text-moss-800',
   'sow-thick': 'border-seedcoat-300 bg-seedcoat-100 text-seedcoat-800',
+  'grow-out': 'border-moss-700 bg-moss-700 text-white',
   retest: 'border-frost-300 bg-frost-100 text-frost-800',
+  'test-first': 'border-dashed border-loam-500 bg-white text-loam-800',
   retire: 'border-clay-300 bg-clay-100 text-clay-800',
 };
 
@@ -31,11 +37,28 @@ const icons: Record<RecommendationValue, ReactNode> = {
       <ellipse cx="8" cy="5" rx="2.2" ry="3" fill="currentColor" fillOpacity="0.25" />
     </>
   ),
+  // A plant gone to seed, dropping fresh seed.
+  'grow-out': (
+    <>
+      <path d="M7 14.5V6.5" />
+      <path d="M7 11.5C7 9.3 5.4 8 2.5 8 2.5 10.2 4.1 11.5 7 11.5Z" fill="currentColor" fillOpacity="0.3" />
+      <ellipse cx="7" cy="4" rx="1.8" ry="2.5" fill="currentColor" fillOpacity="0.35" />
+      <circle cx="11.5" cy="9" r="1" fill="currentColor" />
+      <circle cx="13" cy="12.5" r="1" fill="currentColor" />
+    </>
+  ),
   // A tray with a count mark: test again.
   retest: (
     <>
       <path d="M2 9h12l-1.5 4h-9Z" fill="currentColor" fillOpacity="0.25" />
       <path d="M5 6.5 7 8.5l4-5" />
+    </>
+  ),
+  // A question: nothing measured yet.
+  'test-first': (
+    <>
+      <path d="M5.5 5.5a2.5 2.5 0 1 1 3.6 2.25C8.4 8.1 8 8.7 8 9.4v.8" />
+      <circle cx="8" cy="13" r="0.9" fill="currentColor" stroke="none" />
     </>
   ),
   // A packet put away.

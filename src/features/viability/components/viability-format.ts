@@ -6,11 +6,24 @@ export type Basis = z.infer<typeof basisSchema>;
 export const recommendationLabels: Record<RecommendationValue, string> = {
   sow: 'Sow',
   'sow-thick': 'Sow thick',
+  'grow-out': 'Grow out',
   retest: 'Retest',
+  'test-first': 'Test first',
   retire: 'Retire',
 };
-/** Best first: the order the recommendation column sorts in. */
-export const recommendationOrder: readonly RecommendationValue[] = ['sow', 'sow-thick', 'retest', 'retire'];
+/**
+ * Best first: the order the recommendation column sorts in and the advice filter lists. Lots to
+ * sow come first (grow-out is sown this year too, for fresh seed), then lots waiting on a test (a
+ * retest has a figure already, a first test has none), then lots to put away.
+ */
+export const recommendationOrder: readonly RecommendationValue[] = [
+  'sow',
+  'sow-thick',
+  'grow-out',
+  'retest',
+  'test-first',
+  'retire',
+];
 
 export const basisWords: Record<Basis, string> = {
   lot: 'fitted to this lot’s tests',
