@@ -4,6 +4,7 @@ import type { AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
+import { vi } from 'vitest';
 import { createApp } from '../../server/app';
 import { DEMO_PASSWORD } from '../../server/db/seed-demo';
 import { createTestContext, type TestContext } from './context';
@@ -13,6 +14,16 @@ export const chromiumPath = process.env.HILUM_CHROMIUM ?? (fs.existsSync('/usr/b
 if (!chromiumPath) {
   console.warn('\n!!! chromium not found: BROWSER TESTS ARE SKIPPED (apt-get install chromium) !!!\n');
 }
+
+/**
+ * How long a browser test's `expect.poll` waits for its condition, unless the call says otherwise.
+ * Vitest's own default is 1 s: on a busy 2-core machine a page often takes longer than that to fetch
+ * and draw, and the test failed although the page was right. A condition that holds returns at once,
+ * so the longer wait costs nothing unless the test fails. Set for the files that import this module
+ * (the browser tests) only.
+ */
+export const POLL_TIMEOUT_MS = 20_000;
+vi.setConfig({ expect: { poll: { timeout: POLL_TIMEOUT_MS } } });
 
 /** Debian's chromium, headless, with a fresh profile and no background traffic. */
 export async function launchBrowser(): Promise<Browser & { cleanup(): void }> {
