@@ -15,6 +15,7 @@ declare module 'jstat' {
     ibeta(x: number, a: number, b: number): number;
     ibetainv(p: number, a: number, b: number): number;
     combinationln(n: number, k: number): number;
+    betaln(a: number, b: number): number;
   };
   const _default: typeof jStat;
   export default _default;

@@ -380,13 +380,26 @@ function quantile(points: readonly Point[], f: (p: Point) => number, q: number):
   return xs.at(-1)!.x;
 }
 
+/**
+ * The posterior median and its central band, in percent. The median, not the mean, so the figure
+ * always lies inside its band (the mean of a skewed distribution near 0% can lie above it).
+ */
 function band(points: readonly Point[], f: (p: Point) => number, confidence = 0.95): Band {
-  const mean = points.reduce((s, p) => s + p.w * f(p), 0) / points.reduce((s, p) => s + p.w, 0);
+  const xs = points.map((p) => ({ x: f(p), w: p.w })).sort((a, b) => a.x - b.x);
+  const total = xs.reduce((s, x) => s + x.w, 0);
   const tail = (1 - confidence) / 2;
-  return { percent: 100 * mean, low: 100 * quantile(points, f, tail), high: 100 * quantile(points, f, 1 - tail) };
+  const at = (q: number) => {
+    let acc = 0;
+    for (const x of xs) {
+      acc += x.w;
+      if (acc >= q * total) return x.x;
+    }
+    return xs.at(-1)!.x;
+  };
+  return { percent: 100 * at(0.5), low: 100 * at(tail), high: 100 * at(1 - tail) };
 }
 
-/** Viability at an equivalent age: the posterior mean and its central 95% band, in percent. */
+/** Viability at an equivalent age: the posterior median and its central 95% band, in percent. */
 export function projectModel(model: Pick<LotModel, 'points'>, age: number, confidence = 0.95): Band {
   return band(model.points, (p) => phi(p.k - p.b * age), confidence);
 }

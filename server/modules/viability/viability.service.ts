@@ -1,6 +1,7 @@
 import { addDays as addCalendarDays } from '../../../shared/plan-dates';
 import { dayInWords } from '../../../shared/day-words';
 import type { SpeciesDto } from '../../../shared/schemas/species';
+import { bankToday, systemClock, type Clock } from '../../clock';
 import type { Db } from '../../db/database';
 import { sql } from 'kysely';
 import { notFound, unprocessable } from '../../http/errors';
@@ -15,7 +16,7 @@ import {
 } from '../../stats/viability-model';
 import { listSpecies } from '../species/species.service';
 import { lotsQuery, toLotDto } from '../lots/lots.repository';
-import { decide, type Recommendation } from './recommend';
+import { decide, retestDueDate, straddles, type Recommendation } from './recommend';
 
 const DAY_MS = 86_400_000;
 const YEAR_DAYS = 365.25;
@@ -250,7 +251,7 @@ function yearsUntil(model: LotModel, ageEqNow: number, rateFactor: number, thres
   return (lo + hi) / 2;
 }
 
-export function createViabilityService({ db }: { db: Db }) {
+export function createViabilityService({ db, clock = systemClock }: { db: Db; clock?: Clock }) {
   const cache = new FitCache();
   async function bankSettings(bankId: string) {
     const bank = await db
@@ -262,6 +263,8 @@ export function createViabilityService({ db }: { db: Db }) {
       threshold: bank.sow_threshold_percent,
       establishment: Number(bank.establishment_factor),
       assurance: Number(bank.sowing_assurance),
+      /** The bank's calendar day: a test's age is counted to it. */
+      today: await bankToday(db, clock, bankId),
     };
   }
   type Settings = Awaited<ReturnType<typeof bankSettings>>;
@@ -284,7 +287,7 @@ export function createViabilityService({ db }: { db: Db }) {
   /** The decision for one lot on `on`, with everything the rules read. One place for every screen. */
   function decision(lot: LotDto, v: LotViability, all: LotDto[], sp: SpeciesDto | undefined, settings: Settings, seedsNeeded: number | null, on: string) {
     const projected = projectOn(v, on);
-    const nextSeason = projectOn(v, addDays(on, YEAR_DAYS));
+    const nextSeason = projectOn(v, `${Number(on.slice(0, 4)) + 1}${on.slice(4)}`.replace('-02-29', '-02-28'));
     const threshold = thresholdFor(settings.threshold)(sp);
     const lastUsable = v.tests.at(-1) ?? null;
     const monitoring = v.model ? monitoringIntervalYears(v.model) / v.rateFactor : null;
@@ -292,8 +295,10 @@ export function createViabilityService({ db }: { db: Db }) {
     const younger = all.some(
       (o) => o.id !== lot.id && o.status === 'active' && o.speciesId === lot.speciesId && o.variety.trim().toLowerCase() === lot.variety.trim().toLowerCase() && harvestReference(o) > ref,
     );
+    const latest = v.lastTest && v.lastTest.percent !== null ? v.lastTest : null;
     const d: { recommendation: Recommendation; reason: string } = decide({
       on,
+      today: settings.today,
       seedsOnHand: lot.seedsOnHand,
       seedsNeeded,
       tested: v.tests.length > 0,
@@ -308,9 +313,12 @@ export function createViabilityService({ db }: { db: Db }) {
       thresholdIsStandard: sp?.traits.minGerminationPercent != null,
       establishment: settings.establishment,
       youngerLotOfVariety: younger,
-      noFitReason: v.reasonNoFit,
+      // Untested lots have their own words in the rules; only a failed fit needs its reason.
+      noFitReason: v.tests.length > 0 ? v.reasonNoFit : null,
+      latestResult: latest ? { percent: latest.percent!, low: latest.percent!, high: latest.percent! } : null,
     });
-    const retestBy = lastUsable && monitoring !== null ? addDays(lastUsable.date, monitoring * YEAR_DAYS) : null;
+    const retestBy =
+      lastUsable && monitoring !== null && projected ? retestDueDate(lastUsable.date, monitoring * YEAR_DAYS, straddles(projected, threshold)) : null;
     return { ...d, projected, retestBy, threshold };
   }
 
