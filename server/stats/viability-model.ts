@@ -265,15 +265,25 @@ export function fitSpeciesModel(lots: readonly ModelLot[], prior: SpeciesPrior):
   }
 
   // Each lot's factor in the species posterior: ∫ L_j(b) N(log b; μ, τ²) for every μ on the grid.
+  // The kernel N(log b; μ, τ²)·Δ is the same for every lot: computed once per species.
+  const kernel = mus.map((mu) => logRates.map((lr) => logNormalPdf(lr, mu, c.tau) + Math.log(dLogRate)));
   const contributions = new Map<string, number[]>();
   for (const [lotId, m] of marginals) {
+    let top = Number.NEGATIVE_INFINITY;
+    for (const v of m) if (v > top) top = v;
+    const scaled = m.map((v) => Math.exp(v - top));
     contributions.set(
       lotId,
-      mus.map((mu) => logSumExp(m.map((v, i) => v + logNormalPdf(logRates[i]!, mu, c.tau) + Math.log(dLogRate)))),
+      kernel.map((row) => {
+        let sum = 0;
+        for (let i = 0; i < row.length; i++) sum += scaled[i]! * Math.exp(row[i]!);
+        return top + Math.log(sum);
+      }),
     );
   }
   const logPrior = mus.map((mu) => logNormalPdf(mu, m0, omega));
-  const total = mus.map((_, i) => logPrior[i]! + [...contributions.values()].reduce((s, contrib) => s + contrib[i]!, 0));
+  const total = logPrior.slice();
+  for (const contrib of contributions.values()) contrib.forEach((v, i) => (total[i] = total[i]! + v));
   const grid: SpeciesGrid = { mus, marginals, logPrior, contributions, rates: logRates };
 
   return lots.map((lot) => {
