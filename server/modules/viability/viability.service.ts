@@ -1,4 +1,3 @@
-import { addDays as addCalendarDays } from '../../../shared/plan-dates';
 import { dayInWords } from '../../../shared/day-words';
 import type { SpeciesDto } from '../../../shared/schemas/species';
 import { bankToday, systemClock, type Clock } from '../../clock';
@@ -20,7 +19,6 @@ import { decide, retestDueDate, straddles, type Recommendation } from './recomme
 
 const DAY_MS = 86_400_000;
 const YEAR_DAYS = 365.25;
-const addDays = (date: string, n: number) => addCalendarDays(date, Math.round(n));
 
 /**
  * When the seed was harvested, as the model's age zero. A bought packet "packed for" season S was
