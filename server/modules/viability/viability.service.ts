@@ -219,8 +219,38 @@ function fitLots(lots: LotDto[], tests: TestAggregate[], species: Map<string, Sp
 }
 
 /** Projected viability on a date, from the lot's model. */
+/**
+ * Figures derived from a cached model, memoised on it: the ranking asks for the same sowing date
+ * over and over, and a model object lives exactly as long as its inputs are unchanged.
+ */
+const derived = new WeakMap<LotModel, Map<string, unknown>>();
+function memo<T>(model: LotModel, key: string, compute: () => T): T {
+  let m = derived.get(model);
+  if (!m) derived.set(model, (m = new Map()));
+  if (!m.has(key)) {
+    if (m.size > 64) m.clear();
+    m.set(key, compute());
+  }
+  return m.get(key) as T;
+}
+
 function projectOn(v: LotViability, on: string) {
-  return v.model ? projectModel(v.model, Math.max(0, ageYears(v.harvestRef, on)) * v.rateFactor) : null;
+  const model = v.model;
+  if (!model) return null;
+  const age = Math.max(0, ageYears(v.harvestRef, on)) * v.rateFactor;
+  return memo(model, `p:${age}`, () => projectModel(model, age));
+}
+
+/** For each lot, whether the bank holds a younger active lot of its species and variety. */
+function youngerLots(all: LotDto[]): (lot: LotDto) => boolean {
+  const key = (l: LotDto) => `${l.speciesId}\u0000${l.variety.trim().toLowerCase()}`;
+  const newest = new Map<string, string>();
+  for (const l of all) {
+    if (l.status !== 'active') continue;
+    const ref = harvestReference(l);
+    if ((newest.get(key(l)) ?? '') < ref) newest.set(key(l), ref);
+  }
+  return (lot) => (newest.get(key(lot)) ?? '') > harvestReference(lot);
 }
 
 /** Storage places a grower can move a lot to, for the storage advice (temperatures as above). */
@@ -283,16 +313,14 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
   }
 
   /** The decision for one lot on `on`, with everything the rules read. One place for every screen. */
-  function decision(lot: LotDto, v: LotViability, all: LotDto[], sp: SpeciesDto | undefined, settings: Settings, seedsNeeded: number | null, on: string) {
+  function decision(lot: LotDto, v: LotViability, hasYounger: (lot: LotDto) => boolean, sp: SpeciesDto | undefined, settings: Settings, seedsNeeded: number | null, on: string) {
     const projected = projectOn(v, on);
     const nextSeason = projectOn(v, `${Number(on.slice(0, 4)) + 1}${on.slice(4)}`.replace('-02-29', '-02-28'));
     const threshold = thresholdFor(settings.threshold)(sp);
     const lastUsable = v.tests.at(-1) ?? null;
-    const monitoring = v.model ? monitoringIntervalYears(v.model) / v.rateFactor : null;
-    const ref = harvestReference(lot);
-    const younger = all.some(
-      (o) => o.id !== lot.id && o.status === 'active' && o.speciesId === lot.speciesId && o.variety.trim().toLowerCase() === lot.variety.trim().toLowerCase() && harvestReference(o) > ref,
-    );
+    const model = v.model;
+    const monitoring = model ? memo(model, 'monitoring', () => monitoringIntervalYears(model)) / v.rateFactor : null;
+    const younger = hasYounger(lot);
     const latest = v.lastTest && v.lastTest.percent !== null ? v.lastTest : null;
     const d: { recommendation: Recommendation; reason: string } = decide({
       on,
@@ -345,7 +373,7 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
       const v = await lotViability(bankId, lotId);
       const ageOn = ageYears(v.harvestRef, on);
       const needed = (await seedsNeededByLot(bankId)).get(lotId) ?? null;
-      const d = decision(v.lot, v, v.siblings, v.species, v.settings, needed, on);
+      const d = decision(v.lot, v, youngerLots(v.siblings), v.species, v.settings, needed, on);
       const maxAge = Math.max(ageOn, ...v.tests.map((t) => t.ageYears), 1) * 1.25;
       const ageEqNow = Math.max(0, ageOn) * v.rateFactor;
       const storageAdvice = v.model
@@ -386,7 +414,7 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
     async seedsToSow(bankId: string, lotId: string, plants: number, on: string, assurance?: number) {
       const v = await lotViability(bankId, lotId);
       const needed = (await seedsNeededByLot(bankId)).get(lotId) ?? null;
-      const d = decision(v.lot, v, v.siblings, v.species, v.settings, needed, on);
+      const d = decision(v.lot, v, youngerLots(v.siblings), v.species, v.settings, needed, on);
       if (d.recommendation === 'retire') throw unprocessable(`${d.reason} Hilum offers no seeds-to-sow for a lot to retire.`);
       if (!v.model || !d.projected) throw unprocessable(`${v.reasonNoFit ?? 'No estimate yet.'} Test the lot before working out how many seeds to sow.`);
       const chosen = assurance ?? v.settings.assurance;
@@ -425,10 +453,11 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
       const tests = await testAggregates(db, bankId, speciesId);
       const fits = fitLots(all, tests, species, cache);
       const needed = await seedsNeededByLot(bankId);
+      const hasYounger = youngerLots(all);
       const out = [];
       for (const lot of all.filter((l) => l.status === 'active')) {
         const v = fits.get(lot.id)!;
-        const d = decision(lot, v, all, species.get(speciesId), settings, needed.get(lot.id) ?? null, on);
+        const d = decision(lot, v, hasYounger, species.get(speciesId), settings, needed.get(lot.id) ?? null, on);
         if (!d.projected || !v.model || v.model.estimateOnly || d.recommendation === 'retire') continue;
         const seeds = seedsFor(v, on, plants, settings.establishment, settings.assurance);
         if (seeds === null) continue;
@@ -448,11 +477,12 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
       const tests = await testAggregates(db, bankId);
       const fits = fitLots(all, tests, species, cache);
       const needed = await seedsNeededByLot(bankId);
+      const hasYounger = youngerLots(all);
       return all
         .filter((l) => l.status === 'active' || l.status === 'depleted')
         .map((lot) => {
           const v = fits.get(lot.id)!;
-          const d = decision(lot, v, all, species.get(lot.speciesId), settings, needed.get(lot.id) ?? null, on);
+          const d = decision(lot, v, hasYounger, species.get(lot.speciesId), settings, needed.get(lot.id) ?? null, on);
           const last = v.lastTest;
           return {
             lotId: lot.id,
