@@ -5,7 +5,7 @@ import { applyTestDetail } from './apply-test-detail';
 import { apiPaths } from './keys';
 
 /**
- * POST /api/banks/:bankId/tests/:testId/counts (grower): the cumulative sprouted seeds of each tray
+ * POST /api/banks/:bankId/tests/:testId/counts (grower): the cumulative normal seedlings of each tray
  * on one check date; posting a date again corrects it. 422 names every tray that does not fit.
  */
 export function recordCounts(

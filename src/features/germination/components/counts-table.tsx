@@ -5,6 +5,8 @@ import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { useDeleteCounts } from '../api/delete-counts';
 import { formatPercent, formatShortDate } from './format';
+import { pooledByDate } from './pooled-counts';
+import { NOT_COUNTED, setAsideWords, trayFigures } from './seedling-words';
 
 export interface CountsTableProps {
   bankId: string;
@@ -28,35 +30,48 @@ interface DateRow {
 
 function rowsOf(detail: TestDetail): DateRow[] {
   const rows = new Map<string, DateRow>();
+  const pooled = pooledByDate(detail);
   for (const count of detail.counts) {
-    const row = rows.get(count.date) ?? { date: count.date, day: count.day, byTray: new Map(), pooled: null };
+    const row = rows.get(count.date) ?? { date: count.date, day: count.day, byTray: new Map(), pooled: pooled.get(count.date) ?? null };
     row.byTray.set(count.trayId, count.cumulative);
     rows.set(count.date, row);
   }
-  const list = [...rows.values()].sort((a, b) => a.date.localeCompare(b.date));
-  for (const row of list) {
-    let germinated = 0;
-    let sown = 0;
-    for (const tray of detail.trays) {
-      const n = row.byTray.get(tray.id);
-      if (n === undefined) continue;
-      germinated += n;
-      sown += tray.seedsSown;
-    }
-    row.pooled = sown > 0 ? (100 * germinated) / sown : null;
-  }
-  return list;
+  return [...rows.values()].sort((a, b) => a.date.localeCompare(b.date));
 }
 
-/** Every check date with each tray's cumulative count; growers correct or delete a date here. */
+/**
+ * Every check date with each tray's cumulative normal seedlings; growers correct or delete a date
+ * here. A tray set aside is struck through and greyed, with its reason under the table; "All" is
+ * the pooled percent of the trays in the figures.
+ */
 export function CountsTable({ bankId, detail, canEdit, onCorrect }: CountsTableProps) {
   const rows = rowsOf(detail);
   const remove = useDeleteCounts(bankId, detail.test.id);
   const [confirming, setConfirming] = useState<string | null>(null);
   const [notice, setNotice] = useState<string>();
 
+  const trays = trayFigures(detail);
+  const aside = new Set(trays.filter((t) => t.state === 'set-aside').map((t) => t.tray.id));
+  const notes = trays.filter((t) => t.state !== 'counted');
+  const trayNotes =
+    notes.length > 0 ? (
+      <ul className="grid gap-1 text-sm text-loam-700" aria-label="Trays left out of the figures">
+        {notes.map((t) => (
+          <li key={t.tray.id} data-tray-state={t.state}>
+            <span className={cn('font-semibold', t.state === 'set-aside' && 'line-through')}>T{t.tray.position}</span>{' '}
+            {t.state === 'set-aside' ? setAsideWords(t.setAsideReason) : NOT_COUNTED}.
+          </li>
+        ))}
+      </ul>
+    ) : null;
+
   if (rows.length === 0) {
-    return <p className="text-loam-700">No counts yet.</p>;
+    return (
+      <div className="grid gap-2">
+        <p className="text-loam-700">No counts yet.</p>
+        {trayNotes}
+      </div>
+    );
   }
 
   return (
@@ -66,15 +81,25 @@ export function CountsTable({ bankId, detail, canEdit, onCorrect }: CountsTableP
       </div>
       <div className="overflow-x-auto rounded-lg border border-loam-200">
         <table className="w-full min-w-max border-collapse text-left">
-          <caption className="sr-only">Cumulative sprouted seeds by check date and tray</caption>
+          <caption className="sr-only">
+            Normal seedlings {detail.test.status === 'running' ? 'so far' : 'up to each check'} (cumulative) by check date and tray
+          </caption>
           <thead className="bg-husk-100 text-sm text-loam-700">
             <tr>
               <th scope="col" className="px-3 py-2 font-semibold">
                 Check date
               </th>
               {detail.trays.map((tray) => (
-                <th key={tray.id} scope="col" className="px-2 py-2 text-right font-semibold">
-                  <abbr title={`Tray ${tray.position}, ${tray.seedsSown} sown`} className="no-underline">
+                <th
+                  key={tray.id}
+                  scope="col"
+                  data-set-aside={aside.has(tray.id) || undefined}
+                  className={cn('px-2 py-2 text-right font-semibold', aside.has(tray.id) && 'text-loam-600 line-through')}
+                >
+                  <abbr
+                    title={`Tray ${tray.position}, ${tray.seedsSown} sown${aside.has(tray.id) ? `, ${setAsideWords(tray.setAsideReason)}` : ''}`}
+                    className="no-underline"
+                  >
                     T{tray.position}
                   </abbr>
                 </th>
@@ -115,8 +140,12 @@ export function CountsTable({ bankId, detail, canEdit, onCorrect }: CountsTableP
                   ) : null}
                 </th>
                 {detail.trays.map((tray) => (
-                  <td key={tray.id} className="px-2 py-2 text-right align-top text-lg">
-                    {row.byTray.get(tray.id) ?? '–'}
+                  <td key={tray.id} className={cn('px-2 py-2 text-right align-top text-lg', aside.has(tray.id) && 'bg-loam-50 text-loam-600')}>
+                    {row.byTray.has(tray.id) ? (
+                      <span className={cn(aside.has(tray.id) && 'line-through')}>{row.byTray.get(tray.id)}</span>
+                    ) : (
+                      '–'
+                    )}
                   </td>
                 ))}
                 <td className="px-3 py-2 text-right align-top text-lg font-bold">{formatPercent(row.pooled)}</td>
@@ -125,6 +154,7 @@ export function CountsTable({ bankId, detail, canEdit, onCorrect }: CountsTableP
           </tbody>
         </table>
       </div>
+      {trayNotes}
       <ConfirmDialog
         open={confirming !== null}
         title={confirming ? `Delete the counts of ${formatShortDate(confirming)}?` : 'Delete the counts?'}

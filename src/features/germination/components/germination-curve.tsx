@@ -1,15 +1,17 @@
 import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
 import type { TestDetail } from '../../../../shared/schemas/germination';
 import { daysBetween } from './format';
+import { pooledByDate } from './pooled-counts';
 
 // Tray lines in the palette's quieter tones (tailwind.config.ts); the pooled line is the strong moss.
 const TRAY_COLOURS = ['#447694', '#b5742c', '#a2462a', '#61873c', '#7d612b', '#635645', '#6091ae', '#d07655'];
 const POOLED_COLOUR = '#29391c';
+const SET_ASIDE_COLOUR = '#9e8d77';
 
 export interface CurvePoint {
   day: number;
   date: string;
-  /** Germinated of sown, in percent, over the trays counted that day. */
+  /** Normal seedlings of seeds sown, in percent, over the trays in the figures (pooledByDate). */
   pooled: number | null;
   [trayKey: `tray${number}`]: number | undefined;
 }
@@ -17,26 +19,18 @@ export interface CurvePoint {
 /** Cumulative percent per tray and pooled, one point per check day (days since sowing). */
 export function curvePoints(detail: TestDetail): CurvePoint[] {
   const byDate = new Map<string, CurvePoint>();
-  const sums = new Map<string, { germinated: number; sown: number }>();
   const trays = new Map(detail.trays.map((t) => [t.id, t]));
+  const pooled = pooledByDate(detail);
   const sorted = [...detail.counts].sort((a, b) => a.date.localeCompare(b.date));
   for (const count of sorted) {
     const tray = trays.get(count.trayId);
     if (!tray || tray.seedsSown <= 0) continue;
-    const point = byDate.get(count.date) ?? { day: count.day, date: count.date, pooled: null };
+    const point = byDate.get(count.date) ?? { day: count.day, date: count.date, pooled: pooled.get(count.date) ?? null };
     point[`tray${tray.position}`] = (100 * count.cumulative) / tray.seedsSown;
     byDate.set(count.date, point);
-    const sum = sums.get(count.date) ?? { germinated: 0, sown: 0 };
-    sum.germinated += count.cumulative;
-    sum.sown += tray.seedsSown;
-    sums.set(count.date, sum);
   }
   const points = [...byDate.values()];
-  for (const point of points) {
-    const sum = sums.get(point.date);
-    point.pooled = sum && sum.sown > 0 ? (100 * sum.germinated) / sum.sown : null;
-  }
-  // Day 0, nothing sprouted: the curves start from the sowing.
+  // Day 0, nothing up yet: the curves start from the sowing.
   if (points.length > 0 && points[0]!.day > 0) {
     const start: CurvePoint = { day: 0, date: detail.test.startDate, pooled: 0 };
     for (const tray of detail.trays) start[`tray${tray.position}`] = 0;
@@ -57,8 +51,9 @@ export function GerminationCurve({ detail }: { detail: TestDetail }) {
   return (
     <figure className="grid gap-2" aria-labelledby="germination-curve-caption" data-chart="germination-curve">
       <figcaption id="germination-curve-caption" className="text-sm text-loam-700">
-        Sprouted seeds so far, in percent of those sown, by days since sowing.
+        Normal seedlings{detail.test.status === 'running' ? ' so far' : ''}, in percent of the seeds sown, by days since sowing.
         {firstDay !== null || finalDay !== null ? ' Dashed lines mark the species’ first and final count days.' : null}
+        {detail.trays.some((t) => t.setAsideReason !== null) ? ' Trays set aside are dashed and grey, left out of “All trays”.' : null}
         {' '}The table below lists the same counts.
       </figcaption>
       {points.length === 0 ? (
@@ -116,8 +111,9 @@ export function GerminationCurve({ detail }: { detail: TestDetail }) {
               key={tray.id}
               type="linear"
               dataKey={`tray${tray.position}`}
-              name={`Tray ${tray.position}`}
-              stroke={TRAY_COLOURS[i % TRAY_COLOURS.length]}
+              name={tray.setAsideReason !== null ? `Tray ${tray.position} (set aside)` : `Tray ${tray.position}`}
+              stroke={tray.setAsideReason !== null ? SET_ASIDE_COLOUR : TRAY_COLOURS[i % TRAY_COLOURS.length]}
+              strokeDasharray={tray.setAsideReason !== null ? '4 4' : undefined}
               strokeWidth={1.75}
               dot={{ r: 2.5 }}
               connectNulls

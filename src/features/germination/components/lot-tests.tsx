@@ -55,7 +55,7 @@ export function LotTests({ bankId, lotId, canWrite, headingId }: LotTestsProps) 
       ) : tests.data.items.length === 0 ? (
         <EmptyState
           title="No tests yet"
-          description="Sow a counted number of seeds in trays or on damp paper towels and count what sprouts on each check day."
+          description="Sow a counted number of seeds in trays or on damp paper towels and count the normal seedlings on each check day."
           action={startLink ?? undefined}
         />
       ) : (
@@ -91,7 +91,9 @@ function LotTestItem({ bankId, detail }: { bankId: string; detail: TestDetail })
         </div>
         <div className="flex items-baseline gap-2 sm:block sm:text-right">
           <p className="num text-3xl font-bold leading-none text-moss-800">{formatPercent(result.percentRounded)}</p>
-          <p className="text-sm text-loam-700">{range ?? 'no counts yet'}</p>
+          <p className="text-sm text-loam-700">
+            {range ? `${test.status === 'running' ? 'so far, ' : ''}${range}` : 'no counts yet'}
+          </p>
         </div>
       </Link>
     </li>

@@ -3,6 +3,7 @@ import type { TestDetail } from '../../../../shared/schemas/germination';
 import { cn } from '../../../lib/cn';
 import type { IntervalMethod } from '../api/interval';
 import { formatDays, formatPercent, intervalWords } from './format';
+import { NORMAL_SEEDLING, NOT_COUNTED, sentence, setAsideWords, trayFigures } from './seedling-words';
 
 export interface ResultPanelProps {
   detail: TestDetail;
@@ -12,21 +13,27 @@ export interface ResultPanelProps {
   isRefreshing?: boolean;
 }
 
-export function AgreementBadge({ agreement }: { agreement: TestDetail['result']['agreement'] }) {
-  const { ok, observedRange, maxRange } = agreement;
-  const text =
-    ok === null
-      ? 'Agreement: count 2 trays'
-      : ok
-        ? 'Trays agree'
-        : 'Trays disagree';
-  const detail =
-    ok === null || observedRange === null || maxRange === null
-      ? undefined
-      : `${formatDays(observedRange)} points apart; up to ${formatDays(maxRange)} is within tolerance`;
+type Agreement = TestDetail['result']['agreement'];
+
+/** How the trays' agreement was judged, in words: the tolerance table for equal trays, chi-square otherwise. */
+function agreementDetail({ method, ok, observedRange, maxRange, pValue }: Agreement): string | undefined {
+  if (ok === null) return undefined;
+  if (method === 'chi-square') {
+    const p = pValue === null ? '' : `, p = ${pValue < 0.001 ? '< 0.001' : pValue.toFixed(pValue < 0.1 ? 3 : 2)}`;
+    return `Trays of different sizes, compared by a chi-square test${p}; below 0.025 they disagree`;
+  }
+  if (observedRange === null || maxRange === null) return undefined;
+  return `${formatDays(observedRange)} points apart; the tolerance table allows up to ${formatDays(maxRange)}`;
+}
+
+export function AgreementBadge({ agreement }: { agreement: Agreement }) {
+  const { ok } = agreement;
+  const text = ok === null ? 'Agreement: count 2 trays' : ok ? 'Trays agree' : 'Trays disagree';
+  const detail = agreementDetail(agreement);
   return (
     <span
       data-agreement={ok === null ? 'unknown' : ok ? 'ok' : 'not-ok'}
+      data-agreement-method={agreement.method}
       className={cn(
         'inline-flex flex-col rounded-lg border px-3 py-1.5 text-sm',
         ok === null && 'border-loam-200 bg-loam-50 text-loam-700',
@@ -40,11 +47,19 @@ export function AgreementBadge({ agreement }: { agreement: TestDetail['result'][
   );
 }
 
-/** The result at a glance: the whole percent, its likely range, tray agreement, speed, in words. */
+/** The result at a glance: the whole percent of normal seedlings, its likely range, the trays, speed, in words. */
 export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing = false }: ResultPanelProps) {
   const { result, test } = detail;
+  const finished = test.status === 'finished';
   const checkboxId = useId();
   const range = intervalWords(result);
+  const trays = trayFigures(detail);
+  const leftOut = trays.some((t) => t.state !== 'counted');
+  const timingMissing = result.t50Days === null || result.meanDays === null || result.speedIndex === null;
+  const showTimingNote = timingMissing && result.timingNote !== null;
+  // The note stands under the timing figures it explains, so the words below do not repeat it.
+  const words = showTimingNote ? result.summary.filter((w) => w !== result.timingNote) : result.summary;
+
   return (
     <section
       aria-labelledby={`${checkboxId}-title`}
@@ -53,23 +68,24 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
       data-testid="result-panel"
     >
       <h2 id={`${checkboxId}-title`} className="text-lg font-bold text-loam-900">
-        {test.status === 'finished' ? 'Result' : 'Result so far'}
+        {finished ? 'Result: normal seedlings' : 'Normal seedlings so far'}
       </h2>
-      <div className="mt-2 flex flex-wrap items-end gap-x-6 gap-y-3">
+      <p className="text-sm text-loam-600">{NORMAL_SEEDLING}</p>
+      <div className="mt-3 flex flex-wrap items-end gap-x-6 gap-y-3">
         <div>
           <p className="num text-6xl font-bold leading-none text-moss-800" data-result="percent">
             {formatPercent(result.percentRounded)}
           </p>
-          <p className="mt-1 text-loam-700">
+          <p className="mt-1 text-loam-700" data-result="of-sown">
             {result.germinated !== null && result.sown !== null
-              ? `${result.germinated} of ${result.sown} seeds sprouted`
-              : 'germinated — no counts yet'}
+              ? `${result.germinated} of ${result.sown} seeds sown${leftOut ? (finished ? ' in the trays kept' : ' in the counted trays') : ''}`
+              : 'no counts yet'}
           </p>
         </div>
         <div className="grid gap-2">
           {range ? (
             <p className="text-lg text-loam-900" data-result="interval">
-              {range.charAt(0).toUpperCase() + range.slice(1)}
+              {sentence(range)}
               <span className="block text-sm text-loam-600">
                 {Math.round((result.interval?.confidence ?? 0.95) * 100)}% interval,{' '}
                 {result.interval?.method === 'clopper-pearson' ? 'exact (Clopper–Pearson)' : 'Wilson score'}
@@ -80,19 +96,51 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
         </div>
       </div>
 
+      {finished && result.germinated !== null && result.sown !== null ? <FinishBreakdown result={result} /> : null}
+
+      <ol className="mt-4 grid gap-1.5" aria-label="Trays">
+        {trays.map(({ tray, state, normal, percent, setAsideReason }) => (
+          <li
+            key={tray.id}
+            data-tray-state={state}
+            data-tray={tray.position}
+            className={cn(
+              'flex flex-wrap items-baseline justify-between gap-x-3 rounded-lg px-3 py-1.5',
+              state === 'counted' ? 'bg-husk-100' : 'border border-dashed border-loam-300 bg-loam-50 text-loam-600',
+            )}
+          >
+            <span className={cn('font-semibold', state === 'set-aside' && 'line-through')}>
+              Tray {tray.position} · {tray.seedsSown} sown
+            </span>
+            <span className={cn(state === 'counted' ? 'num font-bold text-loam-900' : 'text-sm')}>
+              {state === 'counted'
+                ? `${normal ?? 0} normal · ${formatPercent(percent)}`
+                : state === 'set-aside'
+                  ? sentence(setAsideWords(setAsideReason))
+                  : sentence(NOT_COUNTED)}
+            </span>
+          </li>
+        ))}
+      </ol>
+
       <dl className="mt-4 grid grid-cols-2 gap-3 sm:grid-cols-4">
         <Stat label="Half up by" value={result.t50Days !== null ? `day ${formatDays(result.t50Days)}` : '–'} />
-        <Stat label="Mean days to sprout" value={formatDays(result.meanDays)} />
-        <Stat label="Trays counted" value={`${result.traysCounted} of ${result.traysTotal}`} />
+        <Stat label="Mean days to come up" value={formatDays(result.meanDays)} />
+        <Stat label="Trays counted" value={`${result.traysCounted} of ${result.traysTotal - result.traysSetAside}`} />
         <Stat label="Speed index" value={result.speedIndex !== null ? formatDays(result.speedIndex) : '–'} />
       </dl>
+      {showTimingNote ? (
+        <p className="mt-2 text-sm text-loam-700" data-result="timing-note">
+          {result.timingNote}
+        </p>
+      ) : null}
 
-      {result.summary.length > 0 ? (
+      {words.length > 0 ? (
         <ul className="mt-4 grid gap-1.5 border-t border-loam-100 pt-3 text-loam-800" aria-label="What the result means">
-          {result.summary.map((sentence) => (
-            <li key={sentence} className="flex gap-2">
+          {words.map((line) => (
+            <li key={line} className="flex gap-2">
               <span aria-hidden="true" className="mt-2.5 size-1.5 shrink-0 rounded-full bg-moss-600" />
-              <span>{tidySentence(sentence)}</span>
+              <span>{tidySentence(line)}</span>
             </li>
           ))}
         </ul>
@@ -112,6 +160,25 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
         </span>
       </label>
     </section>
+  );
+}
+
+/** A finished test's seeds, sorted: normal, abnormal and ungerminated (fresh, dead, hard) make the seeds sown. */
+function FinishBreakdown({ result }: { result: TestDetail['result'] }) {
+  const sown = result.sown ?? 0;
+  const part = (n: number | null) => (n === null || sown === 0 ? '' : ` (${formatPercent((100 * n) / sown)})`);
+  const split = [
+    result.fresh !== null ? `${result.fresh} fresh — dormant but alive` : null,
+    result.dead !== null ? `${result.dead} dead` : null,
+    result.hard !== null ? `${result.hard} hard` : null,
+  ].filter((s) => s !== null);
+  return (
+    <p className="mt-3 text-loam-800" data-result="breakdown">
+      Of the {sown} seeds sown: {result.germinated} normal seedlings{part(result.germinated)}
+      {result.abnormal !== null ? `, ${result.abnormal} abnormal${part(result.abnormal)}` : ''}
+      {result.ungerminated !== null ? `, ${result.ungerminated} ungerminated${part(result.ungerminated)}` : ''}
+      {split.length > 0 ? ` (${split.join(', ')})` : ''}.
+    </p>
   );
 }
 

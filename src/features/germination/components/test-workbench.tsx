@@ -85,7 +85,14 @@ export function TestWorkbench({
           </Card>
         </div>
       </div>
-      <Card title="Counts by check date" description="Each number is the tray’s total sprouted so far.">
+      <Card
+        title="Counts by check date"
+        description={
+          running
+            ? 'Each number is the tray’s normal seedlings so far, counted on that day; “All” is the trays in the figures.'
+            : 'Each number is the tray’s normal seedlings up to that day; “All” is the trays in the figures.'
+        }
+      >
         <CountsTable bankId={bankId} detail={detail} canEdit={entering} onCorrect={correct} />
       </Card>
       {photos?.(detail)}
