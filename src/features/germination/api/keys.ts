@@ -30,4 +30,5 @@ export const apiPaths = {
     `${testPath(bankId, testId)}/counts/${encodeURIComponent(date)}`,
   finish: (bankId: string, testId: string) => `${testPath(bankId, testId)}/finish`,
   reopen: (bankId: string, testId: string) => `${testPath(bankId, testId)}/reopen`,
+  tray: (bankId: string, testId: string, trayId: string) => `${testPath(bankId, testId)}/trays/${encodeURIComponent(trayId)}`,
 };

@@ -6,8 +6,11 @@ import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
 import { useRecordCounts } from '../api/record-counts';
+import { useSetTrayAside } from '../api/set-tray-aside';
 import { clearDraft, readDraft, writeDraft } from './count-draft';
 import { formatShortDate } from './format';
+import { SetAsideDialog } from './set-aside-dialog';
+import { ABNORMAL_APART, NORMAL_SEEDLING, NOT_COUNTED, sentence, setAsideWords } from './seedling-words';
 
 export interface CountEntryProps {
   bankId: string;
@@ -21,27 +24,39 @@ export interface CountEntryProps {
 
 type Tray = TestDetail['trays'][number];
 
-/** The tray's count on `date`, else its latest count before it, else 0: what to start typing from. */
-function prefillFor(detail: TestDetail, trayId: string, date: string): { value: number; previous: { date: string; cumulative: number } | null } {
+interface Prefill {
+  /** What to start typing from: the tray's count on the date, else its latest before it, else blank. */
+  value: string;
+  previous: { date: string; cumulative: number } | null;
+  /** The tray has a count saved on this very date (blanking it would not remove it). */
+  savedOnDate: boolean;
+}
+
+function prefillFor(detail: TestDetail, trayId: string, date: string): Prefill {
   const mine = detail.counts.filter((c) => c.trayId === trayId).sort((a, b) => a.date.localeCompare(b.date));
   const onDate = mine.find((c) => c.date === date);
   const before = mine.filter((c) => c.date < date).at(-1) ?? null;
   const previous = before ? { date: before.date, cumulative: before.cumulative } : null;
-  return { value: onDate?.cumulative ?? before?.cumulative ?? 0, previous };
+  const value = onDate?.cumulative ?? before?.cumulative;
+  return { value: value === undefined ? '' : String(value), previous, savedOnDate: onDate !== undefined };
 }
 
-/** What the saved counts of one date look like, so the rows start over when they change. */
+/** What the saved counts of one date and the trays set aside look like, so the rows start over when they change. */
 function savedSignature(detail: TestDetail, date: string): string {
-  return detail.counts
+  const counts = detail.counts
     .filter((c) => c.date === date)
     .map((c) => `${c.trayId}:${c.cumulative}`)
     .sort()
     .join(',');
+  const aside = detail.trays.filter((t) => t.setAsideReason !== null).map((t) => t.id);
+  return `${counts}|${aside.join(',')}`;
 }
 
 /**
  * Count entry built for the bench: one row per tray with big − / + steppers and a number field,
- * the check date, and one big Save. Typed numbers survive a reload or a dropped connection.
+ * the check date, and one big Save. Typed numbers survive a reload or a dropped connection. Each
+ * count is of normal seedlings (seedling-words.ts); a tray left blank is not counted that day, and
+ * a tray set aside is shown struck through, out of the count, with a way to take it back.
  */
 export function CountEntry({ bankId, detail, date, onDateChange, today }: CountEntryProps) {
   const dateId = useId();
@@ -49,16 +64,24 @@ export function CountEntry({ bankId, detail, date, onDateChange, today }: CountE
   const [dateError, setDateError] = useState<string>();
   // Kept here, not in the rows: the rows start over once the saved counts change.
   const [savedDate, setSavedDate] = useState<string | null>(null);
+  const [settingAside, setSettingAside] = useState<Tray | null>(null);
+  const [trayNotice, setTrayNotice] = useState<string>();
+  const takeBack = useSetTrayAside(bankId, detail.test.id);
+  const aside = detail.trays.filter((t) => t.setAsideReason !== null);
 
   return (
     <section aria-labelledby={`${dateId}-title`} className="rounded-xl border-2 border-moss-300 bg-white p-4 shadow-sm sm:p-5">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <h2 id={`${dateId}-title`} className="text-xl font-bold text-loam-950">
-          Count the sprouted seeds
+          Count the normal seedlings
         </h2>
       </div>
       <p className="mt-1 text-loam-700">
-        Give each tray’s total so far (every sprouted seed since sowing, not only the new ones).
+        Give each tray’s normal seedlings so far — every one since sowing, not only the new ones. Leave a tray blank to
+        skip it today.
+      </p>
+      <p className="mt-1 text-sm text-loam-600" data-definition="normal-seedling">
+        {NORMAL_SEEDLING} {ABNORMAL_APART}
       </p>
       <div className="mt-4 max-w-xs">
         <TextField
@@ -85,6 +108,58 @@ export function CountEntry({ bankId, detail, date, onDateChange, today }: CountE
         justSaved={savedDate === date}
         onSaved={setSavedDate}
         onEdited={() => setSavedDate(null)}
+        onSetAside={(tray) => {
+          setTrayNotice(undefined);
+          takeBack.reset();
+          setSettingAside(tray);
+        }}
+      />
+      {aside.length > 0 ? (
+        <ul className="mt-3 grid gap-2" aria-label="Trays set aside">
+          {aside.map((tray) => (
+            <li
+              key={tray.id}
+              data-tray={tray.position}
+              data-set-aside=""
+              className="flex flex-wrap items-center justify-between gap-x-3 gap-y-1 rounded-xl border border-dashed border-loam-300 bg-loam-50 px-3 py-2"
+            >
+              <p className="min-w-0 text-loam-700">
+                <span className="font-bold text-loam-600 line-through">
+                  Tray {tray.position} · {tray.seedsSown} sown
+                </span>{' '}
+                <span>{setAsideWords(tray.setAsideReason)}</span>
+              </p>
+              <Button
+                variant="quiet"
+                isLoading={takeBack.isPending && takeBack.variables.trayId === tray.id}
+                aria-label={`Take tray ${tray.position} back into the figures`}
+                onClick={() => {
+                  setTrayNotice(undefined);
+                  takeBack.mutate(
+                    { trayId: tray.id, reason: null },
+                    { onSuccess: () => setTrayNotice(`Tray ${tray.position} is back in the count and the figures.`) },
+                  );
+                }}
+              >
+                Take back
+              </Button>
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      <div aria-live="polite" className="mt-3 empty:hidden">
+        {trayNotice ? <FormAlert tone="success">{trayNotice}</FormAlert> : null}
+        <FormAlert>{takeBack.error?.message}</FormAlert>
+      </div>
+      <SetAsideDialog
+        bankId={bankId}
+        testId={detail.test.id}
+        tray={settingAside}
+        onClose={() => setSettingAside(null)}
+        onDone={(message) => {
+          setSettingAside(null);
+          setTrayNotice(message);
+        }}
       />
     </section>
   );
@@ -106,16 +181,19 @@ interface CountRowsProps {
   justSaved: boolean;
   onSaved: (date: string) => void;
   onEdited: () => void;
+  onSetAside: (tray: Tray) => void;
 }
 
-function CountRows({ bankId, detail, date, onDateError, justSaved, onSaved, onEdited }: CountRowsProps) {
+function CountRows({ bankId, detail, date, onDateError, justSaved, onSaved, onEdited, onSetAside }: CountRowsProps) {
   const testId = detail.test.id;
   const record = useRecordCounts(bankId, testId);
+  // A tray set aside is out of the count until it is taken back.
+  const trays = detail.trays.filter((t) => t.setAsideReason === null);
   const [draft] = useState(() => readDraft(testId, date));
   const [values, setValues] = useState<Record<string, string>>(() => {
     const start: Record<string, string> = {};
-    for (const tray of detail.trays) {
-      start[tray.id] = draft?.values[tray.id] ?? String(prefillFor(detail, tray.id, date).value);
+    for (const tray of trays) {
+      start[tray.id] = draft?.values[tray.id] ?? prefillFor(detail, tray.id, date).value;
     }
     return start;
   });
@@ -143,13 +221,25 @@ function CountRows({ bankId, detail, date, onDateError, justSaved, onSaved, onEd
   const save = async () => {
     onDateError(undefined);
     const local: Record<string, string> = {};
-    const entries = detail.trays.map((tray) => {
+    const entries: Array<{ trayId: string; cumulative: number }> = [];
+    for (const tray of trays) {
       const text = (values[tray.id] ?? '').trim();
+      // Blank: not counted on this date (a tray never counted stays out of the figures).
+      if (text === '') {
+        if (prefillFor(detail, tray.id, date).savedOnDate) {
+          local[tray.id] = `Tray ${tray.position} has a count saved on this day: type its normal seedlings (0 if none).`;
+        }
+        continue;
+      }
       const n = /^\d+$/.test(text) ? Number(text) : Number.NaN;
-      if (Number.isNaN(n)) local[tray.id] = `Tray ${tray.position}: type the number sprouted so far (0 if none).`;
+      if (Number.isNaN(n)) local[tray.id] = `Tray ${tray.position}: type its normal seedlings so far as a whole number (0 if none).`;
       else if (n > tray.seedsSown) local[tray.id] = `Tray ${tray.position}: ${n} is more than the ${tray.seedsSown} seeds sown.`;
-      return { trayId: tray.id, cumulative: n };
-    });
+      entries.push({ trayId: tray.id, cumulative: n });
+    }
+    if (entries.length === 0 && Object.keys(local).length === 0) {
+      setState({ kind: 'refused', message: 'Not saved: type the normal seedlings of at least one tray.' });
+      return;
+    }
     const body = countsBodySchema.safeParse({ date, trays: entries });
     if (Object.keys(local).length > 0 || !body.success) {
       setTrayErrors(local);
@@ -207,16 +297,18 @@ function CountRows({ bankId, detail, date, onDateError, justSaved, onSaved, onEd
   return (
     <form noValidate onSubmit={onSubmit} className="mt-4 grid grid-cols-1 gap-3" aria-label={`Counts for ${formatShortDate(date)}`}>
       <ol className="grid grid-cols-1 gap-3" aria-label="Trays">
-        {detail.trays.map((tray) => (
+        {trays.map((tray) => (
           <TrayRow
             key={tray.id}
             tray={tray}
             value={values[tray.id] ?? ''}
             previous={prefillFor(detail, tray.id, date).previous}
+            everCounted={detail.counts.some((c) => c.trayId === tray.id)}
             error={trayErrors[tray.id]}
             disabled={record.isPending}
             onChange={(value) => change(tray.id, value)}
             onStep={(by) => step(tray, by)}
+            onSetAside={() => onSetAside(tray)}
           />
         ))}
       </ol>
@@ -277,10 +369,13 @@ interface TrayRowProps {
   tray: Tray;
   value: string;
   previous: { date: string; cumulative: number } | null;
+  /** Counted on some date (a tray never counted is left out of the figures). */
+  everCounted: boolean;
   error: string | undefined;
   disabled: boolean;
   onChange: (value: string) => void;
   onStep: (by: number) => void;
+  onSetAside: () => void;
 }
 
 const stepperClass = cn(
@@ -289,7 +384,7 @@ const stepperClass = cn(
   'disabled:cursor-not-allowed disabled:opacity-50',
 );
 
-function TrayRow({ tray, value, previous, error, disabled, onChange, onStep }: TrayRowProps) {
+function TrayRow({ tray, value, previous, everCounted, error, disabled, onChange, onStep, onSetAside }: TrayRowProps) {
   const inputId = useId();
   const errorId = `${inputId}-error`;
   const label = `Tray ${tray.position} · ${tray.seedsSown} sown`;
@@ -298,26 +393,40 @@ function TrayRow({ tray, value, previous, error, disabled, onChange, onStep }: T
     <li
       data-tray={tray.position}
       className={cn(
-        'rounded-xl border p-3',
+        // Laid out by the row's own width: the entry is a narrow column beside the result on a wide screen.
+        '@container rounded-xl border p-3',
         error ? 'border-2 border-clay-700 bg-clay-50' : 'border-loam-200 bg-husk-50',
       )}
     >
-      <div className="flex flex-wrap items-center justify-between gap-x-4 gap-y-2">
-        <div className="min-w-0">
-          <label htmlFor={inputId} className="text-lg font-bold text-loam-900">
-            {label}
-          </label>
-          <p className="text-sm text-loam-600">
-            {previous ? (
-              <>
-                {previous.cumulative} on {formatShortDate(previous.date)}
-              </>
-            ) : (
-              'No count before this date'
-            )}
-          </p>
+      <div className="flex flex-col gap-2 @lg:flex-row @lg:items-center @lg:justify-between @lg:gap-4">
+        <div className="flex min-w-0 flex-1 items-start justify-between gap-2">
+          <div className="min-w-0">
+            <label htmlFor={inputId} className="text-lg font-bold text-loam-900">
+              {label}
+            </label>
+            <p className="text-sm text-loam-600" data-tray-note>
+              {previous ? (
+                <>
+                  {previous.cumulative} on {formatShortDate(previous.date)}
+                </>
+              ) : everCounted ? (
+                'No count before this date'
+              ) : (
+                sentence(NOT_COUNTED)
+              )}
+            </p>
+          </div>
+          <button
+            type="button"
+            className="inline-flex min-h-11 shrink-0 items-center rounded-lg px-2 text-sm font-semibold text-loam-700 underline underline-offset-2 hover:bg-loam-100 disabled:opacity-50"
+            aria-label={`Set tray ${tray.position} aside`}
+            disabled={disabled}
+            onClick={onSetAside}
+          >
+            Set aside…
+          </button>
         </div>
-        <div className="flex w-full items-center gap-2 sm:w-auto">
+        <div className="flex w-full items-center gap-2 @lg:w-auto">
           <button
             type="button"
             className={stepperClass}
@@ -341,7 +450,7 @@ function TrayRow({ tray, value, previous, error, disabled, onChange, onStep }: T
             onChange={(e) => onChange(e.target.value.replace(/[^\d]/g, ''))}
             onFocus={(e) => e.target.select()}
             className={cn(
-              'num h-14 w-0 min-w-0 flex-1 rounded-xl border-2 bg-white px-2 text-center text-3xl font-bold text-loam-950 sm:w-24 sm:flex-none',
+              'num h-14 w-0 min-w-0 flex-1 rounded-xl border-2 bg-white px-2 text-center text-3xl font-bold text-loam-950 @lg:w-24 @lg:flex-none',
               error ? 'border-clay-700' : 'border-loam-300',
             )}
           />
