@@ -1,11 +1,17 @@
-import { useEffect, useId, useRef, useState, type FormEvent } from 'react';
-import { finishBodySchema, type TestDetail } from '../../../../shared/schemas/germination';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useId, useState } from 'react';
+import { useForm, useWatch, type FieldErrors, type Path, type UseFormRegister } from 'react-hook-form';
+import { z } from 'zod';
+import { isoDateSchema } from '../../../../shared/schemas/common';
+import { setAsideReasonSchema, type FinishBody, type TestDetail } from '../../../../shared/schemas/germination';
 import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
 import { useFinishTest } from '../api/finish-test';
+import { FormDialog } from './form-dialog';
+import { NOT_COUNTED, SOUND_ROOT_AND_SHOOT, UNGERMINATED_KINDS } from './seedling-words';
 
 export interface FinishDialogProps {
   bankId: string;
@@ -16,49 +22,117 @@ export interface FinishDialogProps {
   onFinished: () => void;
 }
 
-interface TrayAnswers {
-  abnormal: string;
-  ungerminated: string;
-  /** Once typed in, ungerminated stops following "sown − normal − abnormal". */
-  ungerminatedTyped: boolean;
-  fresh: string;
-  dead: string;
-  hard: string;
-}
+type Tray = TestDetail['trays'][number];
 
+/** The reason offered for a tray that has no counts at the finish (the grower may change it). */
+const UNCOUNTED_REASON = 'Not counted by the end of the test';
+
+const SPLIT = ['fresh', 'dead', 'hard'] as const;
 const toInt = (text: string): number | null => (/^\d+$/.test(text.trim()) ? Number(text.trim()) : null);
 
-function latestNormal(detail: TestDetail, trayId: string): number {
+/** A tray's normal seedlings: its last count; null when it was never counted. */
+function lastCount(detail: TestDetail, trayId: string): number | null {
   const mine = detail.counts.filter((c) => c.trayId === trayId).sort((a, b) => a.date.localeCompare(b.date));
-  return mine.at(-1)?.cumulative ?? 0;
+  return mine.at(-1)?.cumulative ?? null;
+}
+
+const trayFormSchema = z.object({
+  trayId: z.string(),
+  /** Finish with figures, or set the tray aside with a reason. */
+  mode: z.enum(['figures', 'aside']),
+  setAsideReason: z.string(),
+  abnormal: z.string(),
+  ungerminated: z.string(),
+  fresh: z.string(),
+  dead: z.string(),
+  hard: z.string(),
+});
+
+/**
+ * The finish form's rules, per tray: normal (the last count) + abnormal + ungerminated = seeds sown,
+ * fresh + dead + hard = ungerminated when sorted, a reason for a tray set aside, and a tray with no
+ * counts only set aside (the server's rule, said before sending).
+ */
+function finishFormSchema(detail: TestDetail) {
+  return z
+    .object({
+      date: isoDateSchema,
+      sortUngerminated: z.boolean(),
+      trays: z.array(trayFormSchema),
+    })
+    .superRefine((form, ctx) => {
+      let kept = 0;
+      form.trays.forEach((t, i) => {
+        const tray = detail.trays[i];
+        if (!tray) return;
+        const at = (field: keyof typeof t) => ['trays', i, field];
+        if (t.mode === 'aside') {
+          const reason = setAsideReasonSchema.safeParse(t.setAsideReason);
+          if (!reason.success) ctx.addIssue({ code: 'custom', path: at('setAsideReason'), message: reason.error.issues[0]?.message ?? 'Give a reason.' });
+          return;
+        }
+        kept += 1;
+        const normal = lastCount(detail, tray.id);
+        if (normal === null) {
+          ctx.addIssue({ code: 'custom', path: at('setAsideReason'), message: `Tray ${tray.position} has no counts: set it aside, or record its count first.` });
+          return;
+        }
+        const abnormal = toInt(t.abnormal);
+        const ungerminated = toInt(t.ungerminated);
+        if (abnormal === null) ctx.addIssue({ code: 'custom', path: at('abnormal'), message: 'A whole number (0 if none).' });
+        if (ungerminated === null) ctx.addIssue({ code: 'custom', path: at('ungerminated'), message: 'A whole number (0 if none).' });
+        if (abnormal === null || ungerminated === null) return;
+        const total = normal + abnormal + ungerminated;
+        if (total !== tray.seedsSown) {
+          ctx.addIssue({ code: 'custom', path: at('ungerminated'), message: `Tray ${tray.position} adds up to ${total}, not the ${tray.seedsSown} sown.` });
+          return;
+        }
+        if (!form.sortUngerminated) return;
+        const split = SPLIT.map((k) => t[k]);
+        if (split.some((v) => v.trim() !== '' && toInt(v) === null)) {
+          ctx.addIssue({ code: 'custom', path: at('fresh'), message: 'Fresh, dead and hard take whole numbers.' });
+        } else if (split.some((v) => v.trim() !== '') && split.reduce((s, v) => s + (toInt(v) ?? 0), 0) !== ungerminated) {
+          ctx.addIssue({ code: 'custom', path: at('fresh'), message: `Fresh + dead + hard should make the ${ungerminated} ungerminated.` });
+        }
+      });
+      if (kept === 0) {
+        ctx.addIssue({ code: 'custom', path: ['trays'], message: 'Every tray is set aside, so the test would have no result: keep at least one tray with its figures.' });
+      }
+    });
+}
+
+type FinishForm = z.infer<ReturnType<typeof finishFormSchema>>;
+
+/** The body the server takes: every tray, with its figures or its reason, in the form's order. */
+function finishBody(form: FinishForm): FinishBody {
+  return {
+    date: form.date,
+    trays: form.trays.map((t) => {
+      if (t.mode === 'aside') return { trayId: t.trayId, setAsideReason: t.setAsideReason.trim() };
+      const split = form.sortUngerminated ? SPLIT.map((k) => toInt(t[k])) : [null, null, null];
+      return {
+        trayId: t.trayId,
+        abnormal: toInt(t.abnormal) ?? 0,
+        ungerminated: toInt(t.ungerminated) ?? 0,
+        fresh: split[0] ?? null,
+        dead: split[1] ?? null,
+        hard: split[2] ?? null,
+      };
+    }),
+  };
 }
 
 /**
- * Closes the test: for each tray the abnormal seedlings and the seeds that did not sprout, with
- * each tray's sum shown as it is typed, so the tray adds up to its seeds sown before saving.
+ * Closes the test: the normal seedlings of each tray come from its last count; the grower sorts the
+ * rest into abnormal seedlings and ungerminated seeds (fresh, dead, hard), each tray's sum shown as
+ * it is typed so it adds up to its seeds sown; or sets a tray aside with a reason.
  */
 export function FinishDialog({ bankId, detail, open, today, onClose, onFinished }: FinishDialogProps) {
-  const ref = useRef<HTMLDialogElement>(null);
   const titleId = useId();
-  useEffect(() => {
-    const dialog = ref.current;
-    if (!dialog) return;
-    if (open && !dialog.open) dialog.showModal();
-    if (!open && dialog.open) dialog.close();
-  }, [open]);
-
   return (
-    <dialog
-      ref={ref}
-      aria-labelledby={titleId}
-      onCancel={(event) => {
-        event.preventDefault();
-        onClose();
-      }}
-      className="m-auto max-h-[92dvh] w-[min(40rem,calc(100vw-1rem))] overflow-y-auto rounded-xl border border-loam-200 bg-white p-4 text-loam-900 shadow-xl backdrop:bg-loam-950/40 sm:p-5"
-    >
-      {open ? <FinishForm key={String(open)} titleId={titleId} bankId={bankId} detail={detail} today={today} onClose={onClose} onFinished={onFinished} /> : null}
-    </dialog>
+    <FormDialog open={open} titleId={titleId} onClose={onClose} className="w-[min(40rem,calc(100vw-1rem))]">
+      <FinishForm titleId={titleId} bankId={bankId} detail={detail} today={today} onClose={onClose} onFinished={onFinished} />
+    </FormDialog>
   );
 }
 
@@ -72,94 +146,59 @@ function FinishForm({
 }: Omit<FinishDialogProps, 'open'> & { titleId: string }) {
   const finish = useFinishTest(bankId, detail.test.id);
   const lastCountDate = [...detail.counts].map((c) => c.date).sort().at(-1);
-  const [date, setDate] = useState(() => (lastCountDate && lastCountDate > today ? lastCountDate : today));
-  const [sortUngerminated, setSortUngerminated] = useState(false);
-  const [answers, setAnswers] = useState<Record<string, TrayAnswers>>(() =>
-    Object.fromEntries(
-      detail.trays.map((tray) => [
-        tray.id,
-        {
+  const [formError, setFormError] = useState<string>();
+  // Once typed in, a tray's ungerminated stops following "sown − normal − abnormal".
+  const [typed] = useState(() => new Set<number>());
+  const {
+    register,
+    handleSubmit,
+    setValue,
+    setError,
+    control,
+    formState: { errors },
+  } = useForm<FinishForm>({
+    resolver: zodResolver(finishFormSchema(detail)),
+    defaultValues: {
+      date: lastCountDate && lastCountDate > today ? lastCountDate : today,
+      sortUngerminated: false,
+      trays: detail.trays.map((tray) => {
+        const normal = lastCount(detail, tray.id);
+        return {
+          trayId: tray.id,
+          mode: normal === null || tray.setAsideReason !== null ? 'aside' : 'figures',
+          setAsideReason: tray.setAsideReason ?? (normal === null ? UNCOUNTED_REASON : ''),
           abnormal: '0',
-          ungerminated: String(Math.max(0, tray.seedsSown - latestNormal(detail, tray.id))),
-          ungerminatedTyped: false,
+          ungerminated: String(Math.max(0, tray.seedsSown - (normal ?? 0))),
           fresh: '',
           dead: '',
           hard: '',
-        },
-      ]),
-    ),
-  );
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [formError, setFormError] = useState<string>();
+        };
+      }),
+    },
+  });
+  const values = useWatch({ control });
+  const sortUngerminated = values.sortUngerminated ?? false;
 
-  const update = (trayId: string, field: keyof TrayAnswers, value: string) => {
-    setAnswers((all) => {
-      const tray = detail.trays.find((t) => t.id === trayId);
-      const current = all[trayId];
-      if (!tray || !current) return all;
-      const next: TrayAnswers = { ...current, [field]: value };
-      if (field === 'ungerminated') next.ungerminatedTyped = true;
-      if (field === 'abnormal' && !current.ungerminatedTyped) {
-        const abnormal = toInt(value) ?? 0;
-        next.ungerminated = String(Math.max(0, tray.seedsSown - latestNormal(detail, trayId) - abnormal));
-      }
-      return { ...all, [trayId]: next };
-    });
-    setErrors(({ [trayId]: _dropped, ...rest }) => rest);
-  };
-
-  const onSubmit = async (event: FormEvent) => {
-    event.preventDefault();
+  const onSubmit = handleSubmit(async (form) => {
     setFormError(undefined);
-    const found: Record<string, string> = {};
-    const trays = detail.trays.map((tray) => {
-      const a = answers[tray.id]!;
-      const normal = latestNormal(detail, tray.id);
-      const abnormal = toInt(a.abnormal);
-      const ungerminated = toInt(a.ungerminated);
-      const split = sortUngerminated ? [toInt(a.fresh), toInt(a.dead), toInt(a.hard)] : [null, null, null];
-      if (abnormal === null || ungerminated === null) {
-        found[tray.id] = `Tray ${tray.position}: give whole numbers (0 if none).`;
-      } else if (normal + abnormal + ungerminated !== tray.seedsSown) {
-        found[tray.id] = `Tray ${tray.position} adds up to ${normal + abnormal + ungerminated}, not the ${tray.seedsSown} sown.`;
-      } else if (sortUngerminated && split.some((v, i) => v === null && [a.fresh, a.dead, a.hard][i]!.trim() !== '')) {
-        found[tray.id] = `Tray ${tray.position}: fresh, dead and hard take whole numbers.`;
-      } else if (sortUngerminated && split.some((v) => v !== null) && split.reduce<number>((s, v) => s + (v ?? 0), 0) !== ungerminated) {
-        found[tray.id] = `Tray ${tray.position}: fresh + dead + hard should make the ${ungerminated} ungerminated.`;
-      }
-      return {
-        trayId: tray.id,
-        abnormal: abnormal ?? 0,
-        ungerminated: ungerminated ?? 0,
-        fresh: split[0] ?? null,
-        dead: split[1] ?? null,
-        hard: split[2] ?? null,
-      };
-    });
-    const body = finishBodySchema.safeParse({ date, trays });
-    if (Object.keys(found).length > 0 || !body.success) {
-      setErrors(found);
-      setFormError('Some trays do not add up yet.');
-      return;
-    }
     try {
-      await finish.mutateAsync(body.data);
+      await finish.mutateAsync(finishBody(form));
       onFinished();
     } catch (error) {
-      if (isApiError(error)) {
-        const placed: Record<string, string> = {};
-        for (const key of Object.keys(error.fields ?? {})) {
-          const match = /^trays\.(\d+)\./.exec(key);
-          const trayId = match ? trays[Number(match[1])]?.trayId : undefined;
-          if (trayId) placed[trayId] = error.message;
-        }
-        setErrors(placed);
-        setFormError(error.message);
-      } else {
+      if (!isApiError(error)) {
         setFormError('Something went wrong. Try again.');
+        return;
       }
+      // The server names each field as `trays.<i>.<field>`, in the order sent: the form's own.
+      for (const [key, hint] of Object.entries(error.fields ?? {})) {
+        if (/^trays\.\d+\.\w+$/.test(key) || key === 'date') setError(key as Path<FinishForm>, { type: 'server', message: hint });
+      }
+      setFormError(error.message);
     }
-  };
+  });
+  const trayErrors = errors.trays;
+  const summaryError =
+    formError ?? trayErrors?.root?.message ?? trayErrors?.message ?? (trayErrors ? 'Some trays are not ready yet: see the trays marked below.' : undefined);
 
   return (
     <form noValidate onSubmit={onSubmit} className="grid gap-4">
@@ -168,102 +207,60 @@ function FinishForm({
           Finish the test
         </h2>
         <p className="mt-1 text-loam-700">
-          At the last check, sort the seeds that did not give a normal seedling. Each tray must add up to its seeds sown. A
-          finished test is read-only until you reopen it.
+          Each tray’s normal seedlings come from its last count. Sort the rest of its seeds: abnormal seedlings and
+          ungerminated seeds, so that the tray adds up to its seeds sown. A finished test is read-only until you reopen it.
         </p>
       </div>
-      <FormAlert>{formError}</FormAlert>
+      <FormAlert>{summaryError}</FormAlert>
       <TextField
         label="Finished on"
         type="date"
         min={lastCountDate ?? detail.test.startDate}
         max={today > (lastCountDate ?? '') ? today : undefined}
-        value={date}
-        onChange={(e) => setDate(e.target.value)}
+        error={errors.date?.message}
         containerClassName="max-w-xs"
+        {...register('date')}
       />
-      <p className="text-sm text-loam-700">
-        <strong>Abnormal</strong>: sprouted, but damaged or deformed. <strong>Ungerminated</strong>: did not sprout at all.
-      </p>
+      <ul className="grid gap-1 text-sm text-loam-700">
+        <li>
+          <strong>Normal</strong>: {SOUND_ROOT_AND_SHOOT}, as the seed-testing rules count them — each tray’s last count.
+        </li>
+        <li>
+          <strong>Abnormal</strong>: came up stunted, deformed or without a sound root or shoot — not counted on the check
+          days, recorded here.
+        </li>
+        <li>
+          <strong>Ungerminated</strong>: never came up.
+        </li>
+      </ul>
       <label className="flex min-h-11 cursor-pointer items-center gap-3">
-        <input
-          type="checkbox"
-          className="size-5 shrink-0 accent-moss-700"
-          checked={sortUngerminated}
-          onChange={(e) => setSortUngerminated(e.target.checked)}
-        />
+        <input type="checkbox" className="size-5 shrink-0 accent-moss-700" {...register('sortUngerminated')} />
         <span>
           Also sort the ungerminated seeds into fresh, dead and hard (optional)
           <span className="block text-sm text-loam-600">
-            Fresh: swollen and firm but not sprouted · Dead: soft, rotten or mouldy · Hard: still hard, never took up water.
+            {UNGERMINATED_KINDS.fresh} · {UNGERMINATED_KINDS.dead} · {UNGERMINATED_KINDS.hard}.
           </span>
         </span>
       </label>
       <ol className="grid gap-3" aria-label="Trays at the end of the test">
-        {detail.trays.map((tray) => {
-          const a = answers[tray.id]!;
-          const normal = latestNormal(detail, tray.id);
-          const abnormal = toInt(a.abnormal) ?? 0;
-          const ungerminated = toInt(a.ungerminated) ?? 0;
-          const total = normal + abnormal + ungerminated;
-          const adds = total === tray.seedsSown;
-          const split = (toInt(a.fresh) ?? 0) + (toInt(a.dead) ?? 0) + (toInt(a.hard) ?? 0);
-          return (
-            <li key={tray.id} className={cn('rounded-xl border p-3', errors[tray.id] ? 'border-2 border-clay-700 bg-clay-50' : 'border-loam-200 bg-husk-50')}>
-              <p className="font-bold text-loam-900">
-                Tray {tray.position} · {tray.seedsSown} sown · {normal} normal seedlings
-              </p>
-              <div className="mt-2 grid grid-cols-2 gap-3">
-                <TextField
-                  label="Abnormal"
-                  inputMode="numeric"
-                  pattern="[0-9]*"
-                  value={a.abnormal}
-                  onChange={(e) => update(tray.id, 'abnormal', e.target.value)}
-                />
-                <TextField
-                  label="Ungerminated"
-                  inputMode="numeric"
-                  pattern="[0-9]*"
-                  value={a.ungerminated}
-                  onChange={(e) => update(tray.id, 'ungerminated', e.target.value)}
-                />
-              </div>
-              {sortUngerminated ? (
-                <div className="mt-3 grid grid-cols-3 gap-2">
-                  {(['fresh', 'dead', 'hard'] as const).map((field) => (
-                    <TextField
-                      key={field}
-                      label={field.charAt(0).toUpperCase() + field.slice(1)}
-                      inputMode="numeric"
-                      pattern="[0-9]*"
-                      value={a[field]}
-                      onChange={(e) => update(tray.id, field, e.target.value)}
-                    />
-                  ))}
-                </div>
-              ) : null}
-              <p
-                aria-live="polite"
-                data-tray-sum={tray.position}
-                className={cn('num mt-2 font-semibold', adds ? 'text-moss-800' : 'text-clay-700')}
-              >
-                {normal} normal + {abnormal} abnormal + {ungerminated} ungerminated = {total}{' '}
-                {adds ? `✓ matches the ${tray.seedsSown} sown` : `— should be ${tray.seedsSown}`}
-              </p>
-              {sortUngerminated && (a.fresh || a.dead || a.hard) ? (
-                <p className={cn('num font-semibold', split === ungerminated ? 'text-moss-800' : 'text-clay-700')}>
-                  fresh + dead + hard = {split} {split === ungerminated ? '✓' : `— should be ${ungerminated}`}
-                </p>
-              ) : null}
-              {errors[tray.id] ? (
-                <p role="alert" className="mt-1 font-semibold text-clay-800">
-                  {errors[tray.id]}
-                </p>
-              ) : null}
-            </li>
-          );
-        })}
+        {detail.trays.map((tray, i) => (
+          <FinishTray
+            key={tray.id}
+            index={i}
+            tray={tray}
+            normal={lastCount(detail, tray.id)}
+            value={values.trays?.[i]}
+            sortUngerminated={sortUngerminated}
+            errors={trayErrors?.[i]}
+            register={register}
+            onAbnormal={(text) => {
+              if (typed.has(i)) return;
+              const normal = lastCount(detail, tray.id) ?? 0;
+              setValue(`trays.${i}.ungerminated`, String(Math.max(0, tray.seedsSown - normal - (toInt(text) ?? 0))));
+            }}
+            onUngerminatedTyped={() => typed.add(i)}
+          />
+        ))}
       </ol>
       <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
         <Button variant="secondary" onClick={onClose} disabled={finish.isPending}>
@@ -274,5 +271,123 @@ function FinishForm({
         </Button>
       </div>
     </form>
+  );
+}
+
+type TrayValues = Partial<FinishForm['trays'][number]> | undefined;
+type TrayErrors = FieldErrors<FinishForm['trays'][number]> | undefined;
+
+interface FinishTrayProps {
+  index: number;
+  tray: Tray;
+  /** The tray's last count; null when it was never counted (it can only be set aside). */
+  normal: number | null;
+  value: TrayValues;
+  sortUngerminated: boolean;
+  errors: TrayErrors;
+  register: UseFormRegister<FinishForm>;
+  onAbnormal: (text: string) => void;
+  onUngerminatedTyped: () => void;
+}
+
+function FinishTray({ index: i, tray, normal, value, sortUngerminated, errors, register, onAbnormal, onUngerminatedTyped }: FinishTrayProps) {
+  const aside = value?.mode === 'aside' || normal === null;
+  const abnormal = toInt(value?.abnormal ?? '') ?? 0;
+  const ungerminated = toInt(value?.ungerminated ?? '') ?? 0;
+  const total = (normal ?? 0) + abnormal + ungerminated;
+  const adds = total === tray.seedsSown;
+  const split = SPLIT.reduce((s, k) => s + (toInt(value?.[k] ?? '') ?? 0), 0);
+  const splitGiven = SPLIT.some((k) => (value?.[k] ?? '').trim() !== '');
+  const hasError = errors !== undefined && Object.keys(errors).length > 0;
+
+  return (
+    <li
+      data-finish-tray={tray.position}
+      className={cn(
+        'rounded-xl border p-3',
+        hasError ? 'border-2 border-clay-700 bg-clay-50' : aside ? 'border-dashed border-loam-300 bg-loam-50' : 'border-loam-200 bg-husk-50',
+      )}
+    >
+      <p className={cn('font-bold', aside ? 'text-loam-600' : 'text-loam-900')}>
+        <span className={cn(aside && 'line-through')}>
+          Tray {tray.position} · {tray.seedsSown} sown
+        </span>
+        {normal !== null ? ` · ${normal} normal seedlings at the last count` : tray.setAsideReason !== null ? ' · set aside while the test ran' : ` · ${NOT_COUNTED}`}
+      </p>
+      {normal === null ? (
+        <p className="mt-1 text-sm text-loam-700">
+          {tray.setAsideReason !== null
+            ? 'It has no counts, so it stays aside, with this reason.'
+            : 'With no count it has no figures to finish with: set it aside with a reason, or cancel and record its count first (0 if none came up).'}
+        </p>
+      ) : (
+        <fieldset className="mt-2">
+          <legend className="sr-only">Tray {tray.position} at the finish</legend>
+          <div className="flex flex-wrap gap-x-5">
+            <label className="flex min-h-11 cursor-pointer items-center gap-2">
+              <input type="radio" value="figures" className="size-5 accent-moss-700" {...register(`trays.${i}.mode`)} />
+              Give its figures
+            </label>
+            <label className="flex min-h-11 cursor-pointer items-center gap-2">
+              <input type="radio" value="aside" className="size-5 accent-moss-700" {...register(`trays.${i}.mode`)} />
+              Set it aside
+            </label>
+          </div>
+        </fieldset>
+      )}
+      {aside ? (
+        <TextField
+          label="Why is it set aside?"
+          hint="It is left out of every figure of the test, shown with this reason."
+          autoComplete="off"
+          maxLength={200}
+          containerClassName="mt-2"
+          error={errors?.setAsideReason?.message}
+          {...register(`trays.${i}.setAsideReason`)}
+        />
+      ) : (
+        <>
+          <div className="mt-2 grid grid-cols-2 gap-3">
+            <TextField
+              label="Abnormal"
+              inputMode="numeric"
+              pattern="[0-9]*"
+              error={errors?.abnormal?.message}
+              {...register(`trays.${i}.abnormal`, { onChange: (e: { target: { value: string } }) => onAbnormal(e.target.value) })}
+            />
+            <TextField
+              label="Ungerminated"
+              inputMode="numeric"
+              pattern="[0-9]*"
+              error={errors?.ungerminated?.message}
+              {...register(`trays.${i}.ungerminated`, { onChange: onUngerminatedTyped })}
+            />
+          </div>
+          {sortUngerminated ? (
+            <div className="mt-3 grid grid-cols-3 gap-2">
+              {SPLIT.map((field) => (
+                <TextField
+                  key={field}
+                  label={field.charAt(0).toUpperCase() + field.slice(1)}
+                  inputMode="numeric"
+                  pattern="[0-9]*"
+                  error={field === 'fresh' ? errors?.fresh?.message : undefined}
+                  {...register(`trays.${i}.${field}`)}
+                />
+              ))}
+            </div>
+          ) : null}
+          <p aria-live="polite" data-tray-sum={tray.position} className={cn('num mt-2 font-semibold', adds ? 'text-moss-800' : 'text-clay-700')}>
+            {normal} normal + {abnormal} abnormal + {ungerminated} ungerminated = {total}{' '}
+            {adds ? `✓ matches the ${tray.seedsSown} sown` : `— should be ${tray.seedsSown}`}
+          </p>
+          {sortUngerminated && splitGiven ? (
+            <p className={cn('num font-semibold', split === ungerminated ? 'text-moss-800' : 'text-clay-700')}>
+              fresh + dead + hard = {split} {split === ungerminated ? '✓' : `— should be ${ungerminated}`}
+            </p>
+          ) : null}
+        </>
+      )}
+    </li>
   );
 }
