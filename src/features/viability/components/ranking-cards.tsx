@@ -96,7 +96,7 @@ export function RankingCards({ table, lotHref }: RankingCardsProps) {
               <p className="num mt-1 flex flex-wrap justify-between gap-x-3 text-sm text-loam-700">
                 <span>
                   {lot.lastTestDate ? `Tested ${formatDay(lot.lastTestDate)}` : 'Not tested'}
-                  {lot.lastPercent !== null ? ` · ${pct(lot.lastPercent)}` : ''} · {years(Math.max(0, lot.ageYears))}
+                  {lot.lastPercent !== null ? ` · ${pct(lot.lastPercent)} germinated` : ''} · {years(Math.max(0, lot.ageYears))}
                 </span>
                 <span className="font-semibold text-loam-900">
                   {formatCount(lot.seedsOnHand)} seeds{lot.status === 'depleted' ? ' · used up' : ''}

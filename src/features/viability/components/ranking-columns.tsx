@@ -145,10 +145,12 @@ export function rankingColumns({ lotHref, openReason }: RankingColumnsOptions) {
     }),
     column.accessor((r) => r.lastPercent ?? undefined, {
       id: ids.lastPercent,
-      header: 'Last %',
+      // The latest test's stored result: normal seedlings of the seeds sown in the trays in its
+      // figures (a running test's counted trays so far), the same figure as on the test page.
+      header: 'Latest %',
       sortUndefined: 'last',
       sortDescFirst: true,
-      meta: meta('Last %', 76, true),
+      meta: meta('Latest germination', 76, true),
       cell: (c) => {
         const v = c.getValue();
         return v === undefined ? dash : pct(v);
