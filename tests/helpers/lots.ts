@@ -36,3 +36,15 @@ export async function finishedTest(
   if (finished.status !== 200) throw new Error(`finish refused: ${JSON.stringify(finished.body)}`);
   return testId;
 }
+
+/**
+ * Starts a running germination test through the API (paper towel, 24 °C), one tray per entry of
+ * `seedsSown`; returns the test's id and its trays' ids in tray order.
+ */
+export async function startedTest(agent: Agent, bankId: string, lotId: string, startDate: string, seedsSown: number[]) {
+  const created = await agent
+    .post(`/api/banks/${bankId}/lots/${lotId}/tests`)
+    .send({ startDate, method: 'paper towel', temperatureC: 24, trays: seedsSown.map((n) => ({ seedsSown: n })) });
+  if (created.status !== 201) throw new Error(`test not created: ${JSON.stringify(created.body)}`);
+  return { testId: created.body.test.id as string, trayIds: (created.body.trays as { id: string }[]).map((t) => t.id) };
+}
