@@ -4,6 +4,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
 import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
+import { journeyOfTests } from '../helpers/journey';
 
 // The people and the bank are the invented demo scenario of server/db/seed-demo.ts; the lot below is
 // invented for this test.
@@ -85,91 +86,105 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
     for (const [i, value] of values.entries()) expect(await trayField(page, i + 1).inputValue()).toBe(String(value));
   }
 
-  it('when a grower enters two check days on a phone, then the result panel and the curve follow the counts', async () => {
-    const context = await browser.newContext({ viewport: PHONE, hasTouch: true });
-    const page = await context.newPage();
-    await signIn(page, grower.email);
-    await page.goto(`${server.baseUrl}/banks/${bankId}/tests/${testId}`);
-    await trayField(page, 4).waitFor();
-    expect(await percentText(page)).toBe('–');
-    // Day 5 of a test started 03-05; tomato's first/final count days are 5/14 (REFERENCES.md, from
-    // memory), so the schedule names 10 and 19 March.
-    await expect.poll(() => page.locator('main').innerText()).toContain('First count around 10 Mar 2026');
+  // One test per step on a page shared by the block: the whole journey in one test ran near the 60 s
+  // timeout on a busy machine.
+  describe('when a grower enters two check days on a phone, then the result panel and the curve follow the counts', () => {
+    const j = journeyOfTests('germination-phone', () => browser.newContext({ viewport: PHONE, hasTouch: true }), {
+      first: { title: 'sign in as a grower', run: (page) => signIn(page, grower.email) },
+    });
+    // The pooled curve after the first check day, for the second to change.
+    let firstCurve: string | null = null;
 
-    // First check day (the browser's own clock is real, so the date is set by hand).
-    await enterCounts(page, '2026-03-10', 'Tue 10 Mar', [7, 12, 9, 11]);
-    const plus = page.getByRole('button', { name: 'One more in tray 1' });
-    const box = await plus.boundingBox();
-    // Tap targets at the bench are at least 56 px (our own rule, above WCAG's 44 px minimum, from memory).
-    expect(box!.width).toBeGreaterThanOrEqual(56);
-    expect(box!.height).toBeGreaterThanOrEqual(56);
-    for (let i = 0; i < 3; i += 1) await plus.tap();
-    expect(await trayField(page, 1).inputValue()).toBe('10');
-    await page.getByRole('button', { name: 'Save counts for Tue 10 Mar' }).tap();
-    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved the counts of' }).count()).toBe(1);
-    // 10 + 12 + 9 + 11 = 42 of 100 sown → 42%, reported as a whole number (ISTA Rules ch. 5).
-    await expect.poll(() => percentText(page)).toBe('42%');
-    // Four trays and the pooled line.
-    await expect.poll(() => curvePaths(page)).toBe(5);
-    const firstCurve = await page.locator('[data-chart="germination-curve"] path.recharts-line-curve').last().getAttribute('d');
+    j.step('the first check day', async (page) => {
+      await page.goto(`${server.baseUrl}/banks/${bankId}/tests/${testId}`);
+      await trayField(page, 4).waitFor();
+      expect(await percentText(page)).toBe('–');
+      // Day 5 of a test started 03-05; tomato's first/final count days are 5/14 (REFERENCES.md, from
+      // memory), so the schedule names 10 and 19 March.
+      await expect.poll(() => page.locator('main').innerText()).toContain('First count around 10 Mar 2026');
 
-    // Second check day, four days later. Counts below earlier ones are refused, each next to its own tray.
-    await server.clock.set('2026-03-14T09:00:00Z');
-    await enterCounts(page, '2026-03-14', 'Sat 14 Mar', [20, 10, 8, 21]);
-    await page.getByRole('button', { name: /^Save counts for/ }).tap();
-    const tray2 = page.locator('li[data-tray="2"]');
-    const tray3 = page.locator('li[data-tray="3"]');
-    await expect.poll(() => tray2.getByRole('alert').innerText()).toMatch(/^Tray 2: 10 is fewer than the 12 counted on 2026-03-10/);
-    expect(await tray3.getByRole('alert').innerText()).toMatch(/^Tray 3: 8 is fewer than the 9 counted on 2026-03-10/);
-    expect(await tray2.getByRole('alert').innerText()).not.toContain('Tray 3');
-    for (const n of [1, 4]) expect(await page.locator(`li[data-tray="${n}"]`).getByRole('alert').count()).toBe(0);
-    expect(await page.getByRole('alert').filter({ hasText: 'Not saved: check the 2 trays marked below.' }).count()).toBe(1);
+      // First check day (the browser's own clock is real, so the date is set by hand).
+      await enterCounts(page, '2026-03-10', 'Tue 10 Mar', [7, 12, 9, 11]);
+      const plus = page.getByRole('button', { name: 'One more in tray 1' });
+      const box = await plus.boundingBox();
+      // Tap targets at the bench are at least 56 px (our own rule, above WCAG's 44 px minimum, from memory).
+      expect(box!.width).toBeGreaterThanOrEqual(56);
+      expect(box!.height).toBeGreaterThanOrEqual(56);
+      for (let i = 0; i < 3; i += 1) await plus.tap();
+      expect(await trayField(page, 1).inputValue()).toBe('10');
+      await page.getByRole('button', { name: 'Save counts for Tue 10 Mar' }).tap();
+      await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved the counts of' }).count()).toBe(1);
+      // 10 + 12 + 9 + 11 = 42 of 100 sown → 42%, reported as a whole number (ISTA Rules ch. 5).
+      await expect.poll(() => percentText(page)).toBe('42%');
+      // Four trays and the pooled line.
+      await expect.poll(() => curvePaths(page)).toBe(5);
+      firstCurve = await page.locator('[data-chart="germination-curve"] path.recharts-line-curve').last().getAttribute('d');
+    });
 
-    // The typed numbers survive a reload before they are saved.
-    await trayField(page, 3).fill('19');
-    await trayField(page, 2).fill('22');
-    await page.reload();
-    await trayField(page, 2).waitFor();
-    for (const [i, value] of ['20', '22', '19', '21'].entries()) expect(await trayField(page, i + 1).inputValue()).toBe(value);
-    await expect.poll(() => page.getByRole('status').filter({ hasText: 'not saved yet' }).count()).toBe(1);
+    j.step('counts below earlier ones refused by their trays', async (page) => {
+      // Second check day, four days later. Counts below earlier ones are refused, each next to its own tray.
+      await server.clock.set('2026-03-14T09:00:00Z');
+      await enterCounts(page, '2026-03-14', 'Sat 14 Mar', [20, 10, 8, 21]);
+      await page.getByRole('button', { name: /^Save counts for/ }).tap();
+      const tray2 = page.locator('li[data-tray="2"]');
+      const tray3 = page.locator('li[data-tray="3"]');
+      await expect.poll(() => tray2.getByRole('alert').innerText()).toMatch(/^Tray 2: 10 is fewer than the 12 counted on 2026-03-10/);
+      expect(await tray3.getByRole('alert').innerText()).toMatch(/^Tray 3: 8 is fewer than the 9 counted on 2026-03-10/);
+      expect(await tray2.getByRole('alert').innerText()).not.toContain('Tray 3');
+      for (const n of [1, 4]) expect(await page.locator(`li[data-tray="${n}"]`).getByRole('alert').count()).toBe(0);
+      expect(await page.getByRole('alert').filter({ hasText: 'Not saved: check the 2 trays marked below.' }).count()).toBe(1);
+    });
 
-    // And a dropped connection keeps them too: the request fails as it does with the network gone.
-    const countsUrl = `**/api/banks/${bankId}/tests/${testId}/counts`;
-    await page.route(countsUrl, (route) => route.abort('internetdisconnected'));
-    await page.getByRole('button', { name: /^Save counts for/ }).tap();
-    await expect
-      .poll(() => page.getByRole('status').filter({ hasText: 'Not saved yet — will keep your numbers' }).count())
-      .toBe(1);
-    expect(await trayField(page, 2).inputValue()).toBe('22');
-    await page.unroute(countsUrl);
-    await page.getByRole('button', { name: 'Save again' }).tap();
-    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved the counts of' }).count()).toBe(1);
+    j.step('typed numbers survive a reload', async (page) => {
+      await trayField(page, 3).fill('19');
+      await trayField(page, 2).fill('22');
+      await page.reload();
+      await trayField(page, 2).waitFor();
+      for (const [i, value] of ['20', '22', '19', '21'].entries()) expect(await trayField(page, i + 1).inputValue()).toBe(value);
+      await expect.poll(() => page.getByRole('status').filter({ hasText: 'not saved yet' }).count()).toBe(1);
+    });
 
-    // 20 + 22 + 19 + 21 = 82 of 100 → 82%.
-    await expect.poll(() => percentText(page)).toBe('82%');
-    const wilson = wilsonPercent(82, 100);
-    await expect
-      .poll(() => page.locator('[data-result="interval"]').innerText())
-      .toContain(`Likely between ${Math.round(wilson.low)}% and ${Math.round(wilson.high)}%`);
-    // Trays at 80, 88, 76 and 84% differ by 12 points; for 25-seed replicates at a mean of 82% the
-    // tolerated range is about 3.98·√(82·18/25) ≈ 31 points (Miles 1963 via da Silva 2020, REFERENCES.md).
-    expect(await page.locator('[data-agreement]').getAttribute('data-agreement')).toBe('ok');
-    await expect.poll(() => page.getByRole('list', { name: 'What the result means' }).innerText()).toContain('About 82% came up so far');
-    await expect.poll(() => curvePaths(page)).toBe(5);
-    expect(await page.locator('[data-chart="germination-curve"] path.recharts-line-curve').last().getAttribute('d')).not.toBe(firstCurve);
-    await expect.poll(() => page.locator('tr[data-count-date]').count()).toBe(2);
+    j.step('and a dropped connection', async (page) => {
+      // The request fails as it does with the network gone.
+      const countsUrl = `**/api/banks/${bankId}/tests/${testId}/counts`;
+      await page.route(countsUrl, (route) => route.abort('internetdisconnected'));
+      await page.getByRole('button', { name: /^Save counts for/ }).tap();
+      await expect
+        .poll(() => page.getByRole('status').filter({ hasText: 'Not saved yet — will keep your numbers' }).count())
+        .toBe(1);
+      expect(await trayField(page, 2).inputValue()).toBe('22');
+      await page.unroute(countsUrl);
+      await page.getByRole('button', { name: 'Save again' }).tap();
+      await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved the counts of' }).count()).toBe(1);
+    });
 
-    // The server holds what the page shows.
-    const saved = await server.db
-      .selectFrom('tray_counts')
-      .select(['tray_id', 'cumulative'])
-      .where('check_date', '=', '2026-03-14')
-      .where('tray_id', 'in', trayIds)
-      .execute();
-    expect(trayIds.map((id) => saved.find((r) => r.tray_id === id)?.cumulative)).toEqual([20, 22, 19, 21]);
+    j.step('the result and the curve follow', async (page) => {
+      // 20 + 22 + 19 + 21 = 82 of 100 → 82%.
+      await expect.poll(() => percentText(page)).toBe('82%');
+      const wilson = wilsonPercent(82, 100);
+      await expect
+        .poll(() => page.locator('[data-result="interval"]').innerText())
+        .toContain(`Likely between ${Math.round(wilson.low)}% and ${Math.round(wilson.high)}%`);
+      // Trays at 80, 88, 76 and 84% differ by 12 points; for 25-seed replicates at a mean of 82% the
+      // tolerated range is about 3.98·√(82·18/25) ≈ 31 points (Miles 1963 via da Silva 2020, REFERENCES.md).
+      expect(await page.locator('[data-agreement]').getAttribute('data-agreement')).toBe('ok');
+      await expect
+        .poll(() => page.getByRole('list', { name: 'What the result means' }).innerText())
+        .toContain('About 82% so far — 82 normal seedlings');
+      await expect.poll(() => curvePaths(page)).toBe(5);
+      expect(await page.locator('[data-chart="germination-curve"] path.recharts-line-curve').last().getAttribute('d')).not.toBe(firstCurve);
+      await expect.poll(() => page.locator('tr[data-count-date]').count()).toBe(2);
 
-    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
-    await context.close();
+      // The server holds what the page shows.
+      const saved = await server.db
+        .selectFrom('tray_counts')
+        .select(['tray_id', 'cumulative'])
+        .where('check_date', '=', '2026-03-14')
+        .where('tray_id', 'in', trayIds)
+        .execute();
+      expect(trayIds.map((id) => saved.find((r) => r.tray_id === id)?.cumulative)).toEqual([20, 22, 19, 21]);
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+    });
   });
 
   it('when a viewer opens the test, then they see the result and curve with no count entry or actions', async () => {

@@ -81,7 +81,7 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
     await row.tap();
     await page.waitForURL(`${server.baseUrl}/banks/${bankId}/tests/${test.id}`);
     await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe(`Tomato · ${test.variety}`);
-    await expect.poll(() => page.getByRole('heading', { name: 'Count the sprouted seeds' }).count()).toBe(1);
+    await expect.poll(() => page.getByRole('heading', { name: 'Count the normal seedlings' }).count()).toBe(1);
     await expect.poll(() => page.getByRole('note').filter({ hasText: 'damping-off' }).count()).toBe(1);
     await context.close();
   });
