@@ -13,7 +13,7 @@ const upcoming: ReadonlyArray<{ title: string; text: string }> = [
   },
   {
     title: 'Test tray by tray',
-    text: 'Count sprouts on each check day; Hilum works out the germination and its interval.',
+    text: 'Count the healthy seedlings on each check day; Hilum works out the germination and its interval.',
   },
   {
     title: 'Sow from the frost date',

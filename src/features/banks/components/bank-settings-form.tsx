@@ -160,7 +160,7 @@ export function BankSettingsForm({ bank, canEdit }: BankSettingsFormProps) {
             />
             <TextField
               label="Seedling establishment"
-              hint="Of the seeds that sprout, the share you expect to grow on into plants; 0.9 is 9 in 10. Above 0, at most 1."
+              hint="Of the normal seedlings that come up, the share you expect to grow on into plants; 0.9 is 9 in 10. Above 0, at most 1."
               type="number"
               inputMode="decimal"
               min={0.01}

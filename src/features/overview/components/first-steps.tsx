@@ -63,7 +63,7 @@ export function FirstSteps({
       key: 'test',
       done: hasTests,
       title: 'Start a germination test',
-      text: `Sow a counted sample on a damp paper towel or a tray, and count what sprouts on each check day.${
+      text: `Sow a counted sample on a damp paper towel or a tray, and count the healthy seedlings on each check day.${
         hasLots ? '' : ' Start it from the lot’s page once the lot is logged.'
       }`,
       action:
