@@ -3,6 +3,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
+import { reportFigures } from './lib/bench-figures';
 
 const dist = process.argv[2] ?? 'dist';
 const html = fs.readFileSync(path.join(dist, 'index.html'), 'utf8');
@@ -18,3 +19,4 @@ for (const src of new Set(scripts)) {
 }
 const kb = (n: number) => `${(n / 1024).toFixed(1)} KB`;
 console.log(`client initial JS: ${new Set(scripts).size} file(s), ${kb(raw)} raw, ${kb(gzipped)} gzipped (target ≤ 170 KB gzipped)`);
+reportFigures({ initialJsGzipKb: Math.round((gzipped / 1024) * 10) / 10 });

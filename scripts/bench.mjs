@@ -1,10 +1,43 @@
-// `npm run bench`: the ranking benchmark on a throwaway PostgreSQL cluster, and the client's
-// initial bundle size. Prints figures; it is not a test and asserts nothing but that it ran.
+// `npm run bench`: the ranking and lot-list benchmarks on a throwaway PostgreSQL cluster, and the
+// client's initial bundle size. Prints figures; it is not a test and asserts nothing but that it ran.
+// `npm run bench -- --json` prints the same figures as one JSON object on stdout, and everything
+// else (the readable report, set-up messages, child processes' output) on stderr.
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { ensureDependencies, ensurePostgres, fail, freePort, log, root, startPostgres } from './lib/services.mjs';
+
+/** Each benchmark writes its figures to a file of this folder (HILUM_BENCH_FIGURES). */
+const FIGURES = ['rankingLots', 'rankingHttpMedianMs', 'rankingRawSelectMedianMs', 'lotListReqPerSec', 'bareExpressReqPerSec', 'initialJsGzipKb'];
+
+if (process.argv.includes('--json')) {
+  // The readable run again as a child whose stdout is our stderr, so nothing but the JSON reaches stdout.
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-bench-figures-'));
+  const run = spawnSync(process.execPath, [fileURLToPath(import.meta.url)], {
+    cwd: root,
+    stdio: ['ignore', 2, 2],
+    env: { ...process.env, HILUM_BENCH_FIGURES_DIR: dir },
+  });
+  const figures = Object.fromEntries(FIGURES.map((name) => [name, null]));
+  for (const file of fs.readdirSync(dir)) Object.assign(figures, JSON.parse(fs.readFileSync(path.join(dir, file), 'utf8')));
+  fs.rmSync(dir, { recursive: true, force: true });
+  if (run.status !== 0) process.exit(run.status ?? 1);
+  process.stdout.write(`${JSON.stringify(figures)}\n`);
+  process.exit(0);
+}
+
+const figuresDir = process.env.HILUM_BENCH_FIGURES_DIR;
+/** Runs a TypeScript benchmark script with tsx; its figures land in figuresDir/<name>.json. */
+function runScript(script, args, env = {}) {
+  const name = path.basename(script, '.ts');
+  return spawnSync(process.execPath, ['--import', 'tsx', script, ...args], {
+    cwd: root,
+    stdio: 'inherit',
+    env: { ...process.env, ...env, ...(figuresDir ? { HILUM_BENCH_FIGURES: path.join(figuresDir, `${name}.json`) } : {}) },
+  });
+}
 
 let pg;
 try {
@@ -13,23 +46,23 @@ try {
   const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-bench-'));
   fs.chmodSync(tmp, 0o755);
   pg = await startPostgres({ bin, dataDir: tmp, port: await freePort(), database: 'hilum_bench', durable: false });
+  const env = { DATABASE_URL: pg.url, NODE_ENV: 'test', LOG_LEVEL: 'silent', HILUM_DATA_DIR: tmp, AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true' };
   log('running the ranking benchmark (5,000 lots, 25,000 tests, 150,000 counts)…');
-  const bench = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/bench-ranking.ts'], {
-    cwd: root,
-    stdio: 'inherit',
-    env: { ...process.env, DATABASE_URL: pg.url, NODE_ENV: 'test', LOG_LEVEL: 'silent', HILUM_DATA_DIR: tmp, AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true' },
-  });
+  const ranking = runScript('scripts/bench-ranking.ts', [], env);
+  log('running the lot-list benchmark (the demo bank, concurrency 20)…');
+  const lots = ranking.status === 0 ? runScript('scripts/bench-lots.ts', [], env) : ranking;
   pg.stop();
   pg = null;
   fs.rmSync(tmp, { recursive: true, force: true });
-  if (bench.status !== 0) process.exit(bench.status ?? 1);
+  if (lots.status !== 0) process.exit(lots.status ?? 1);
 
   log('building the client to measure its initial JavaScript…');
   const out = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-bundle-'));
   const build = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'error', '--outDir', out], { cwd: root, stdio: 'inherit' });
   if (build.status !== 0) process.exit(1);
-  spawnSync(process.execPath, ['--import', 'tsx', 'scripts/bench-bundle.ts', out], { cwd: root, stdio: 'inherit' });
+  const bundle = runScript('scripts/bench-bundle.ts', [out]);
   fs.rmSync(out, { recursive: true, force: true });
+  if (bundle.status !== 0) process.exit(bundle.status ?? 1);
 } catch (error) {
   pg?.stop();
   fail(error);
