@@ -1,24 +1,61 @@
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
 import type { Clock } from '../clock';
 import type { Db } from '../db/database';
+import type { Role } from '../db/schema';
 import { unauthorized } from '../http/errors';
 import { SESSION_COOKIE, type SessionSigner } from './tokens';
 
-/** Resolves the session cookie to req.auth; a token whose row is gone is simply not signed in. */
+/** The caller's role in the bank a /banks/:bankId/… request names (null: not a member). */
+export interface PrefetchedMembership {
+  bankId: string;
+  role: Role | null;
+}
+
+const prefetched = new WeakMap<Request, PrefetchedMembership>();
+
+/**
+ * The membership the session middleware read together with the session, when the request names a
+ * bank; bankAccess uses it instead of asking the database again for the same request.
+ */
+export function prefetchedMembership(req: Request, bankId: string): PrefetchedMembership | undefined {
+  const found = prefetched.get(req);
+  return found?.bankId === bankId ? found : undefined;
+}
+
+const BANK_PATH = /^\/banks\/([0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12})(?:\/|$)/i;
+
+/**
+ * Resolves the session cookie to req.auth; a token whose row is gone or expired is simply not
+ * signed in. The row is read on every request, so a revoked session ends at once. On a request
+ * under /banks/:bankId the caller's membership of that bank comes in the same query.
+ */
 export function sessionMiddleware(db: Db, signer: SessionSigner, clock: Clock): RequestHandler {
   return async (req, _res, next) => {
     const token: unknown = req.cookies?.[SESSION_COOKIE];
     if (typeof token !== 'string' || token === '') return next();
     const sessionId = await signer.verify(token);
     if (!sessionId) return next();
+    const bankId = BANK_PATH.exec(req.path)?.[1];
     try {
-      const row = await db
+      const session = db
         .selectFrom('sessions')
-        .select(['id', 'user_id'])
-        .where('id', '=', sessionId)
-        .where('expires_at', '>', clock.now())
-        .executeTakeFirst();
-      if (row) req.auth = { userId: row.user_id, sessionId: row.id };
+        .select(['sessions.id', 'sessions.user_id'])
+        .where('sessions.id', '=', sessionId)
+        .where('sessions.expires_at', '>', clock.now());
+      const row = bankId
+        ? await session
+            .leftJoin('memberships', (join) =>
+              join
+                .onRef('memberships.user_id', '=', 'sessions.user_id')
+                .on('memberships.bank_id', '=', bankId),
+            )
+            .select('memberships.role')
+            .executeTakeFirst()
+        : await session.executeTakeFirst();
+      if (row) {
+        req.auth = { userId: row.user_id, sessionId: row.id };
+        if (bankId) prefetched.set(req, { bankId, role: (row as { role?: Role | null }).role ?? null });
+      }
       next();
     } catch (error) {
       next(error);

@@ -11,8 +11,17 @@ export interface SessionSigner {
   verify(token: string): Promise<string | null>;
 }
 
+/** How many verified tokens a signer remembers (a few hundred bytes each). */
+const VERIFIED_CACHE_SIZE = 10_000;
+
 export function createSessionSigner(secret: string, clock: Clock): SessionSigner {
   const key = new TextEncoder().encode(secret);
+  // A token's signature and claims never change, so a token that verified once is remembered with
+  // its expiry, and checked again only against the clock: the signature check (an asynchronous
+  // WebCrypto job) is not repeated on every request. Only tokens that passed are kept; the session
+  // row is still read on every request, so revoking a session still ends it at once.
+  const verified = new Map<string, { sessionId: string; exp: number }>();
+  const nowSeconds = () => Math.floor(clock.now().getTime() / 1000);
   return {
     sign: (sessionId, expiresAt) =>
       new SignJWT({})
@@ -23,13 +32,19 @@ export function createSessionSigner(secret: string, clock: Clock): SessionSigner
         .setIssuer('hilum')
         .sign(key),
     async verify(token) {
+      const known = verified.get(token);
+      if (known) return known.exp > nowSeconds() ? known.sessionId : null;
       try {
         const { payload } = await jwtVerify(token, key, {
           issuer: 'hilum',
           algorithms: ['HS256'],
           currentDate: clock.now(),
+          requiredClaims: ['exp', 'sub'],
         });
-        return typeof payload.sub === 'string' ? payload.sub : null;
+        if (typeof payload.sub !== 'string' || typeof payload.exp !== 'number') return null;
+        if (verified.size >= VERIFIED_CACHE_SIZE) verified.delete(verified.keys().next().value!);
+        verified.set(token, { sessionId: payload.sub, exp: payload.exp });
+        return payload.sub;
       } catch {
         return null;
       }
