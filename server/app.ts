@@ -4,12 +4,12 @@ import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import pino, { type Logger } from 'pino';
-import { pinoHttp } from 'pino-http';
 import type { Clock } from './clock';
 import type { Config } from './config';
 import type { Db } from './db/database';
 import { errorHandler, notFoundApi } from './http/errors';
 import { originCheck, originVariants } from './http/origin-check';
+import { requestLogging } from './http/request-log';
 import type { Mailer } from './mail/mailer';
 import { bankAccess } from './auth/bank-access';
 import { requireAuth, sessionMiddleware } from './auth/session.middleware';
@@ -72,7 +72,7 @@ export function createApp(deps: AppDeps): Express {
       strictTransportSecurity: config.appOrigin.startsWith('https:'),
     }),
   );
-  app.use(pinoHttp({ logger, autoLogging: config.env !== 'test', redact: ['req.headers.cookie'] }));
+  app.use(requestLogging(logger, config.env !== 'test'));
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
   app.use(originCheck(originVariants(config.appOrigin)));

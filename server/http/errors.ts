@@ -80,7 +80,9 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     } else if (isDatabaseDown(error)) {
       appError = serviceDown('The database is not reachable; try again shortly.');
     } else {
-      (req.log ?? logger).error({ err: error }, 'unhandled error');
+      // Without pino-http's per-request child logger (see requestLogging), the line names the request.
+      const request = req.id === undefined ? { req: { method: req.method, url: req.originalUrl } } : {};
+      (req.log ?? logger).error({ err: error, ...request }, 'unhandled error');
       appError = new AppError(500, 'internal', 'Something went wrong on our side.');
     }
     if (res.headersSent) return res.end();
