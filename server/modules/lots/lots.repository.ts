@@ -1,17 +1,45 @@
-import { sql, type ExpressionBuilder, type Insertable, type Updateable } from 'kysely';
+import { CompiledQuery, sql, type ExpressionBuilder, type Insertable, type Updateable } from 'kysely';
 import type { DbOrTx } from '../../db/database';
-import type { Database, LotTable } from '../../db/schema';
+import type { Database, LotStatus, LotTable } from '../../db/schema';
 
 const num = (v: string | null) => (v === null ? null : Number(v));
+
+/** A timestamp as JavaScript's toISOString writes it (UTC, milliseconds), formatted by PostgreSQL. */
+const isoTimestamp = (column: 'lots.created_at' | 'lots.updated_at') =>
+  sql<string>`to_char(${sql.ref(column)} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
 
 /** The lot with everything its page and list show, as one row. */
 export function lotsQuery(db: DbOrTx, bankId: string) {
   return db
     .selectFrom('lots')
     .innerJoin('species', 'species.id', 'lots.species_id')
-    .selectAll('lots')
-    .select(['species.common_name as species_name', 'species.scientific_name as scientific_name'])
+    .select([
+      'lots.id',
+      'lots.code',
+      'lots.species_id',
+      'lots.variety',
+      'lots.origin',
+      'lots.source_name',
+      'lots.harvest_date',
+      'lots.packed_for_season',
+      'lots.plants_bulked',
+      'lots.storage_place',
+      'lots.storage_location',
+      'lots.storage_temp_c',
+      'lots.storage_humidity_pct',
+      'lots.quantity_estimated',
+      'lots.treated',
+      'lots.grams_entered',
+      'lots.status',
+      'lots.notes',
+      'species.common_name as species_name',
+      'species.scientific_name as scientific_name',
+    ])
     .select((eb: ExpressionBuilder<Database, 'lots' | 'species'>) => [
+      // As text: parsing two timestamps into Dates per row, only to print them again, cost more
+      // than the rest of a row.
+      isoTimestamp('lots.created_at').as('created_at'),
+      isoTimestamp('lots.updated_at').as('updated_at'),
       eb
         .selectFrom('stock_movements')
         .select(sql<number>`coalesce(sum(change), 0)::int`.as('s'))
@@ -63,9 +91,73 @@ export function toLotDto(row: LotRow) {
     seedsOnHand: row.seeds_on_hand ?? 0,
     parentPlantIds: row.parent_plant_ids ?? [],
     thumbUrl: row.first_photo_id ? `/api/photos/${row.first_photo_id}?size=thumb` : null,
-    createdAt: row.created_at.toISOString(),
-    updatedAt: row.updated_at.toISOString(),
+    createdAt: row.created_at,
+    updatedAt: row.updated_at,
   };
+}
+
+export interface LotPageFilters {
+  limit: number;
+  /** The code the previous page ended on (compared lower-cased). */
+  cursor?: string | undefined;
+  q?: string | undefined;
+  speciesId?: string | undefined;
+  status?: LotStatus | undefined;
+}
+
+// Stand-ins for a page's values while its query is compiled (see lotsPage).
+const SLOT = {
+  bankId: '\u0000bankId',
+  status: '\u0000status',
+  speciesId: '\u0000speciesId',
+  like: '\u0000like',
+  cursor: '\u0000cursor',
+  limit: '\u0000limit',
+} as const;
+type Slot = keyof typeof SLOT;
+const slotOf = new Map<unknown, Slot>(Object.entries(SLOT).map(([name, marker]) => [marker, name as Slot]));
+const compiledPages = new Map<string, { sql: string; parameters: readonly unknown[] }>();
+
+/**
+ * One page of the bank's lots by code (lower-cased), `limit + 1` rows to tell whether more follow.
+ * Its query is lotsQuery with the filters given; it is built and compiled once for each combination
+ * of filters, with stand-ins for the values, and then run with each request's values: building the
+ * lot query and its three subqueries cost about as much as the rest of the list's own work.
+ */
+export async function lotsPage(db: DbOrTx, bankId: string, filters: LotPageFilters): Promise<LotRow[]> {
+  const shape = (['status', 'speciesId', 'q', 'cursor'] as const).filter((f) => filters[f]).join();
+  let compiled = compiledPages.get(shape);
+  if (!compiled) {
+    let q = lotsQuery(db, SLOT.bankId);
+    if (filters.status) q = q.where('lots.status', '=', SLOT.status as LotStatus);
+    if (filters.speciesId) q = q.where('lots.species_id', '=', SLOT.speciesId);
+    if (filters.q) {
+      q = q.where((eb) =>
+        eb.or([
+          eb('lots.code', 'ilike', SLOT.like),
+          eb('lots.variety', 'ilike', SLOT.like),
+          eb('species.common_name', 'ilike', SLOT.like),
+          eb('species.scientific_name', 'ilike', SLOT.like),
+        ]),
+      );
+    }
+    if (filters.cursor) q = q.where(sql<string>`lower(lots.code)`, '>', SLOT.cursor);
+    compiled = q.orderBy(sql`lower(lots.code)`).limit(sql<number>`${SLOT.limit}`).compile();
+    compiledPages.set(shape, compiled);
+  }
+  const values: Record<Slot, unknown> = {
+    bankId,
+    status: filters.status,
+    speciesId: filters.speciesId,
+    like: filters.q ? `%${filters.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%` : undefined,
+    cursor: filters.cursor?.toLowerCase(),
+    limit: filters.limit + 1,
+  };
+  const parameters = compiled.parameters.map((p) => {
+    const slot = slotOf.get(p);
+    return slot ? values[slot] : p;
+  });
+  return (await db.executeQuery<LotRow>(CompiledQuery.raw(compiled.sql, parameters))).rows;
 }
 
 export function insertLot(db: DbOrTx, values: Insertable<LotTable>) {

@@ -162,22 +162,7 @@ export function createLotsService(deps: LotsServiceDeps) {
     get,
 
     async list(bankId: string, query: { limit: number; cursor?: string; q?: string; speciesId?: string; status?: 'active' | 'depleted' | 'retired' }) {
-      let q = repo.lotsQuery(db, bankId);
-      if (query.status) q = q.where('lots.status', '=', query.status);
-      if (query.speciesId) q = q.where('lots.species_id', '=', query.speciesId);
-      if (query.q) {
-        const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-        q = q.where((eb) =>
-          eb.or([
-            eb('lots.code', 'ilike', like),
-            eb('lots.variety', 'ilike', like),
-            eb('species.common_name', 'ilike', like),
-            eb('species.scientific_name', 'ilike', like),
-          ]),
-        );
-      }
-      if (query.cursor) q = q.where(sql<string>`lower(lots.code)`, '>', query.cursor.toLowerCase());
-      const rows = await q.orderBy(sql`lower(lots.code)`).limit(query.limit + 1).execute();
+      const rows = await repo.lotsPage(db, bankId, query);
       const page = rows.slice(0, query.limit);
       return {
         items: page.map(repo.toLotDto),
