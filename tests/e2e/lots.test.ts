@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
 import { SPECIES_REFERENCE } from '../../shared/species-reference';
 import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
+import { journeyOfTests } from '../helpers/journey';
 
 // The people and the bank are the invented demo scenario of server/db/seed-demo.ts.
 const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
@@ -49,66 +50,75 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
 
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
 
-  it('when a grower on a phone logs a lot by weight with a packet photo, then its page shows the estimate and the thumbnail', async () => {
-    const context: BrowserContext = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
-    const page = await context.newPage();
-    await signIn(page, grower.email);
+  // One test per step on one page: the whole form in one test ran at 30-40 s of the 60 s timeout.
+  describe('when a grower on a phone logs a lot by weight with a packet photo, then its page shows the estimate and the thumbnail', () => {
+    let lotId = '';
+    const j = journeyOfTests('lot-by-weight-phone', () => browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }), {
+      first: { title: 'sign in as grower', run: (page) => signIn(page, grower.email) },
+    });
 
-    await page.getByRole('navigation', { name: 'Bank' }).getByRole('link', { name: 'Lots' }).click();
-    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots`);
-    await page.getByRole('link', { name: 'New lot' }).first().click();
-    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots/new`);
-    await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('New lot');
+    j.step('open the new-lot form from Lots', async (page) => {
+      await page.getByRole('navigation', { name: 'Bank' }).getByRole('link', { name: 'Lots' }).click();
+      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots`);
+      await page.getByRole('link', { name: 'New lot' }).first().click();
+      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots/new`);
+      await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('New lot');
+    });
 
-    // Type-to-search over common and scientific names: "lycopers" is part of Solanum lycopersicum.
-    const species = page.getByRole('combobox', { name: /Species/ });
-    await species.fill('lycopers');
-    await page.getByRole('option', { name: /Tomato/ }).click();
-    await expect.poll(() => species.inputValue()).toBe('Tomato');
-    // Tomato is flagged poisonous in the reference set (leaves and stems), so the caution shows.
-    expect(TOMATO.poisonous).toBe(true);
-    await expect.poll(() => page.getByRole('note').filter({ hasText: 'Poisonous' }).innerText()).toMatch(/poison centre/);
+    j.step('choose the species by part of its scientific name: the poison caution shows', async (page) => {
+      // Type-to-search over common and scientific names: "lycopers" is part of Solanum lycopersicum.
+      const species = page.getByRole('combobox', { name: /Species/ });
+      await species.fill('lycopers');
+      await page.getByRole('option', { name: /Tomato/ }).click();
+      await expect.poll(() => species.inputValue()).toBe('Tomato');
+      // Tomato is flagged poisonous in the reference set (leaves and stems), so the caution shows.
+      expect(TOMATO.poisonous).toBe(true);
+      await expect.poll(() => page.getByRole('note').filter({ hasText: 'Poisonous' }).innerText()).toMatch(/poison centre/);
+    });
 
-    await page.getByLabel('Variety').fill('Bench Trial Cherry');
-    // The harvest date starts at today (the demo bank's time zone is UTC unless set otherwise).
-    expect(await page.getByLabel('Harvest date', { exact: true }).inputValue()).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+    j.step('give the weight: the estimate shows before saving', async (page) => {
+      await page.getByLabel('Variety').fill('Bench Trial Cherry');
+      // The harvest date starts at today (the demo bank's time zone is UTC unless set otherwise).
+      expect(await page.getByLabel('Harvest date', { exact: true }).inputValue()).toMatch(/^\d{4}-\d{2}-\d{2}$/);
 
-    await page.getByRole('radio', { name: 'Weight in grams' }).check();
-    await page.getByLabel('Grams', { exact: true }).fill('2');
-    // 2 g × 390 seeds per gram = 780 seeds, shown before saving.
-    expect(TOMATO_PER_GRAM).toBe(390);
-    expect(2 * TOMATO_PER_GRAM).toBe(780);
-    await expect.poll(() => page.getByText(/seeds at about/).innerText()).toBe(`≈ 780 seeds at about ${TOMATO_PER_GRAM} seeds per gram`);
+      await page.getByRole('radio', { name: 'Weight in grams' }).check();
+      await page.getByLabel('Grams', { exact: true }).fill('2');
+      // 2 g × 390 seeds per gram = 780 seeds, shown before saving.
+      expect(TOMATO_PER_GRAM).toBe(390);
+      expect(2 * TOMATO_PER_GRAM).toBe(780);
+      await expect.poll(() => page.getByText(/seeds at about/).innerText()).toBe(`≈ 780 seeds at about ${TOMATO_PER_GRAM} seeds per gram`);
 
-    const jpeg = await sharp({ create: { width: 800, height: 600, channels: 3, background: '#8a6a3c' } }).jpeg().toBuffer();
-    const photoPath = path.join(tmpDir, 'packet.jpg');
-    fs.writeFileSync(photoPath, jpeg);
-    await page.getByLabel('Packet photo').setInputFiles(photoPath);
+      const jpeg = await sharp({ create: { width: 800, height: 600, channels: 3, background: '#8a6a3c' } }).jpeg().toBuffer();
+      const photoPath = path.join(tmpDir, 'packet.jpg');
+      fs.writeFileSync(photoPath, jpeg);
+      await page.getByLabel('Packet photo').setInputFiles(photoPath);
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
 
-    expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
-    await page.getByRole('button', { name: 'Save lot' }).click();
+    j.step('save: the lot page shows the estimate and the thumbnail', async (page) => {
+      await page.getByRole('button', { name: 'Save lot' }).click();
+      await page.waitForURL(new RegExp(`/banks/${bankId}/lots/[0-9a-f-]{36}$`));
+      lotId = page.url().split('/').pop()!;
+      await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toMatch(/^TOM/);
+      await expect.poll(() => page.getByText('seeds on hand', { exact: false }).first().innerText()).toContain('≈ 780 seeds on hand');
 
-    await page.waitForURL(new RegExp(`/banks/${bankId}/lots/[0-9a-f-]{36}$`));
-    const lotId = page.url().split('/').pop()!;
-    await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toMatch(/^TOM/);
-    await expect.poll(() => page.getByText('seeds on hand', { exact: false }).first().innerText()).toContain('≈ 780 seeds on hand');
+      const thumb = page.locator('img[src*="size=thumb"]').first();
+      await thumb.waitFor();
+      await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBeGreaterThan(0);
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
 
-    const thumb = page.locator('img[src*="size=thumb"]').first();
-    await thumb.waitFor();
-    await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBeGreaterThan(0);
-    expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
-
-    // The page did not just draw it: the server holds the lot, its estimated stock and one photo.
-    const lot = await server.db
-      .selectFrom('lots')
-      .select(['variety', 'origin', 'quantity_estimated', 'grams_entered'])
-      .where('id', '=', lotId)
-      .executeTakeFirstOrThrow();
-    expect(lot).toMatchObject({ variety: 'Bench Trial Cherry', origin: 'saved', quantity_estimated: true });
-    expect(Number(lot.grams_entered)).toBe(2);
-    const photos = await server.db.selectFrom('photos').select('id').where('subject_id', '=', lotId).execute();
-    expect(photos).toHaveLength(1);
-    await context.close();
+    it('the page did not just draw it: the server holds the lot, its estimated stock and one photo', async () => {
+      const lot = await server.db
+        .selectFrom('lots')
+        .select(['variety', 'origin', 'quantity_estimated', 'grams_entered'])
+        .where('id', '=', lotId)
+        .executeTakeFirstOrThrow();
+      expect(lot).toMatchObject({ variety: 'Bench Trial Cherry', origin: 'saved', quantity_estimated: true });
+      expect(Number(lot.grams_entered)).toBe(2);
+      const photos = await server.db.selectFrom('photos').select('id').where('subject_id', '=', lotId).execute();
+      expect(photos).toHaveLength(1);
+    });
   });
 
   it('when a grower’s seed is of a species Hilum does not list, then they add it from the new-lot form and log the lot under it', async () => {
@@ -196,27 +206,22 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
   });
 
   it('when a viewer opens Lots, then the table lists the bank’s lots and offers no New lot button', async () => {
-    // A lot logged through the API as the grower, so this test stands on its own.
-    const growerContext = await browser.newContext({ viewport: DESKTOP });
-    const growerPage = await growerContext.newPage();
-    await signIn(growerPage, grower.email);
-    const species = await growerPage.request.get(`${server.baseUrl}/api/banks/${bankId}/species`);
-    const marigold = ((await species.json()) as { items: { id: string; commonName: string }[] }).items.find(
-      (s) => s.commonName === 'Marigold',
-    )!;
-    const created = await growerPage.request.post(`${server.baseUrl}/api/banks/${bankId}/lots`, {
-      data: {
-        speciesId: marigold.id,
-        variety: 'Ember Edge',
-        origin: 'swapped',
-        sourceName: 'Hollow Lane seed table',
-        harvestDate: '2025-09-14',
-        seedCount: 1250,
-        code: 'MAR-VIEW-1',
-      },
+    // A lot logged through the API as the grower, so this test stands on its own (an API agent: a
+    // second browser signed in only for this cost a sign-in's time on a busy machine).
+    const api = request.agent(server.app);
+    expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
+    const species = await api.get(`/api/banks/${bankId}/species`);
+    const marigold = (species.body.items as { id: string; commonName: string }[]).find((s) => s.commonName === 'Marigold')!;
+    const created = await api.post(`/api/banks/${bankId}/lots`).send({
+      speciesId: marigold.id,
+      variety: 'Ember Edge',
+      origin: 'swapped',
+      sourceName: 'Hollow Lane seed table',
+      harvestDate: '2025-09-14',
+      seedCount: 1250,
+      code: 'MAR-VIEW-1',
     });
-    expect(created.status()).toBe(201);
-    await growerContext.close();
+    expect(created.status).toBe(201);
 
     const context = await browser.newContext({ viewport: DESKTOP });
     const page = await context.newPage();

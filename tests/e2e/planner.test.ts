@@ -5,7 +5,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
 import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
-import { journey, seriousViolations } from '../helpers/journey';
+import { journey, journeyOfTests, seriousViolations } from '../helpers/journey';
 import { finishedTest, speciesId } from '../helpers/lots';
 
 // The people and the bank are the invented demo scenario of server/db/seed-demo.ts (last spring
@@ -93,10 +93,14 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     await server?.stop();
   });
 
-  /** A browser whose clock reads the same day as the server's. */
-  async function open(viewport: { width: number; height: number }, phone = false): Promise<{ context: BrowserContext; page: Page }> {
+  /** A browser context whose clock reads the same day as the server's. */
+  async function newContext(viewport: { width: number; height: number }, phone = false): Promise<BrowserContext> {
     const context = await browser.newContext({ viewport, hasTouch: phone, isMobile: phone });
     await context.clock.setFixedTime(new Date(NOW));
+    return context;
+  }
+  async function open(viewport: { width: number; height: number }, phone = false): Promise<{ context: BrowserContext; page: Page }> {
+    const context = await newContext(viewport, phone);
     return { context, page: await context.newPage() };
   }
 
@@ -105,12 +109,13 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
   const fact = (page: Page, name: string) => page.locator(`article[data-entry] [data-fact="${name}"] dd`).first().innerText();
 
-  it('when a grower plans 12 tomato plants indoors and marks them sown, then the window, the suggested lot and the stock withdrawn follow', async () => {
-    const { context, page } = await open(DESKTOP);
-    const steps = journey('planner-grower', page);
-    await signIn(page, grower.email);
+  // One test per step on one page: the whole journey in one test ran near the 60 s timeout.
+  describe('when a grower plans 12 tomato plants indoors and marks them sown, then the window, the suggested lot and the stock withdrawn follow', () => {
+    const steps = journeyOfTests('planner-grower', () => newContext(DESKTOP), {
+      first: { title: 'sign in as grower', run: (page) => signIn(page, grower.email) },
+    });
 
-    await steps.step('planner', async () => {
+    steps.step('planner', async (page) => {
       await page.getByRole('navigation', { name: 'Bank' }).getByRole('link', { name: 'Planner' }).first().click();
       await page.waitForURL(`${server.baseUrl}/banks/${bankId}/planner`);
       // In December the coming spring is next year's.
@@ -118,7 +123,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       await expect.poll(() => page.locator('[data-frost]').innerText()).toContain('24 May');
     });
 
-    await steps.step('add-form', async () => {
+    steps.step('add-form', async (page) => {
       const species = page.getByRole('combobox', { name: /Species/ });
       await species.fill('tomato');
       await page.getByRole('option', { name: /Tomato/ }).click();
@@ -131,7 +136,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       await expect.poll(() => page.getByRole('status').filter({ hasText: 'Sow between' }).innerText()).toContain('Sow between 29 Mar and 12 Apr');
     });
 
-    await steps.step('entry', async () => {
+    steps.step('entry', async (page) => {
       await page.getByRole('button', { name: 'Add to plan' }).click();
       await page.locator('article[data-entry]').waitFor();
       expect(await page.locator('article[data-entry] h3').innerText()).toBe('Tomato');
@@ -146,7 +151,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       expect(await seriousViolations(page)).toEqual([]);
     });
 
-    await steps.step('sown', async () => {
+    steps.step('sown', async (page) => {
       // The sowing date starts at today (the bank's time zone is UTC in the demo).
       expect(await page.getByLabel('Sown on').inputValue()).toBe('2026-12-01');
       await page.getByRole('button', { name: `Mark sown (−${expectedSeeds} seeds)` }).click();
@@ -156,29 +161,30 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       expect(await page.getByRole('button', { name: 'Undo sowing' }).isVisible()).toBe(true);
     });
 
-    await steps.step('lot-page', async () => {
+    steps.step('lot-page', async (page) => {
       await page.locator('article[data-entry]').getByRole('link', { name: lotCode }).click();
       await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots/${lotId}`);
       await expect.poll(() => page.getByText(/seeds on hand$/).first().innerText()).toBe(`${stockBefore - expectedSeeds} seeds on hand`);
     });
 
     // Undo puts the seeds back, so the lot is whole again for the next test.
-    await page.goBack();
-    await page.getByRole('button', { name: 'Undo sowing' }).click();
-    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Sowing undone' }).innerText()).toContain(`${expectedSeeds} seeds went back into lot ${lotCode}`);
-    const api = request.agent(server.app);
-    await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
-    expect((await api.get(`/api/banks/${bankId}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(stockBefore);
-    await context.close();
+    steps.step('undo', async (page) => {
+      await page.goBack();
+      await page.getByRole('button', { name: 'Undo sowing' }).click();
+      await expect.poll(() => page.getByRole('status').filter({ hasText: 'Sowing undone' }).innerText()).toContain(`${expectedSeeds} seeds went back into lot ${lotCode}`);
+      const api = request.agent(server.app);
+      await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
+      expect((await api.get(`/api/banks/${bankId}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(stockBefore);
+    });
   });
 
-  it('when a viewer opens the season calendar on a phone, then it reads as a day list without sideways scrolling and offers no changes', async () => {
-    const { context, page } = await open(PHONE, true);
-    const steps = journey('planner-viewer-phone', page);
-    await signIn(page, viewer.email);
-    await page.goto(`${server.baseUrl}/banks/${bankId}/planner`);
+  describe('when a viewer opens the season calendar on a phone, then it reads as a day list without sideways scrolling and offers no changes', () => {
+    const steps = journeyOfTests('planner-viewer-phone', () => newContext(PHONE, true), {
+      first: { title: 'sign in as viewer', run: (page) => signIn(page, viewer.email) },
+    });
 
-    await steps.step('sowings', async () => {
+    steps.step('sowings', async (page) => {
+      await page.goto(`${server.baseUrl}/banks/${bankId}/planner`);
       await page.locator('article[data-entry]').waitFor();
       expect(await page.getByRole('button', { name: /Mark sown/ }).count()).toBe(0);
       expect(await page.getByRole('button', { name: 'Add to plan' }).count()).toBe(0);
@@ -186,7 +192,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
     });
 
-    await steps.step('calendar', async () => {
+    steps.step('calendar', async (page) => {
       await page.getByRole('button', { name: 'Calendar' }).click();
       // Today (1 Dec 2026) is outside the season, so the calendar opens on its first sowing month.
       await expect.poll(() => page.getByRole('heading', { name: 'March 2027' }).count()).toBe(1);
@@ -197,7 +203,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
     });
 
-    await steps.step('calendar-june', async () => {
+    steps.step('calendar-june', async (page) => {
       for (let i = 0; i < 3; i += 1) await page.getByRole('button', { name: /next month/ }).click();
       await expect.poll(() => page.getByRole('heading', { name: 'June 2027' }).count()).toBe(1);
       await expect.poll(() => page.locator('[data-calendar="agenda"]').innerText()).toContain('Plant out Tomato');
@@ -205,24 +211,25 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     });
 
     // "Add to my calendar" is the season's iCalendar file, which a real parser reads.
-    const href = await page.getByRole('link', { name: 'Add to my calendar' }).getAttribute('href');
-    const ics = await page.request.get(`${server.baseUrl}${href}`);
-    expect(ics.headers()['content-type']).toMatch(/text\/calendar/);
-    const events = Object.values(ical.sync.parseICS(await ics.text())).filter((e) => e?.type === 'VEVENT') as ical.VEvent[];
-    expect(events.some((e) => String(e.summary).startsWith('Sow Tomato'))).toBe(true);
-    await context.close();
+    steps.step('add-to-calendar', async (page) => {
+      const href = await page.getByRole('link', { name: 'Add to my calendar' }).getAttribute('href');
+      const ics = await page.request.get(`${server.baseUrl}${href}`);
+      expect(ics.headers()['content-type']).toMatch(/text\/calendar/);
+      const events = Object.values(ical.sync.parseICS(await ics.text())).filter((e) => e?.type === 'VEVENT') as ical.VEvent[];
+      expect(events.some((e) => String(e.summary).startsWith('Sow Tomato'))).toBe(true);
+    });
   });
 
-  it('when the month grid is open on a wide screen, then today is marked and the sowing window runs across its days', async () => {
-    const { context, page } = await open(DESKTOP);
-    const steps = journey('planner-month', page);
-    await signIn(page, grower.email);
-    await steps.step('december', async () => {
+  describe('when the month grid is open on a wide screen, then today is marked and the sowing window runs across its days', () => {
+    const steps = journeyOfTests('planner-month', () => newContext(DESKTOP), {
+      first: { title: 'sign in as grower', run: (page) => signIn(page, grower.email) },
+    });
+    steps.step('december', async (page) => {
       await page.goto(`${server.baseUrl}/banks/${bankId}/planner?view=calendar&month=2026-12`);
       const today = page.locator('[data-calendar="month"] td[aria-current="date"]');
       await expect.poll(() => today.getAttribute('data-day')).toBe('2026-12-01');
     });
-    await steps.step('april', async () => {
+    steps.step('april', async (page) => {
       await page.goto(`${server.baseUrl}/banks/${bankId}/planner?view=calendar&month=2027-04`);
       // 1–12 April lie in the sowing window, 13 April does not.
       const sowOn = (day: string) => page.locator(`td[data-day="${day}"] li[data-kind="sow"]`).count();
@@ -232,7 +239,6 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       expect(await page.locator('td[data-day="2027-04-03"] li[data-kind="sprout"]').count()).toBe(1);
       expect(await seriousViolations(page)).toEqual([]);
     });
-    await context.close();
   });
 
   it('when a viewer turns on sowing reminders under Account → Reminders, then the choice is kept', async () => {
