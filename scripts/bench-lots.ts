@@ -3,6 +3,7 @@
 // against a bare Express route serving the very bytes of that response, in the same process and run.
 // Load comes from autocannon in a child process, to 127.0.0.1 only. Prints requests/s; asserts nothing.
 import { spawn } from 'node:child_process';
+import fs from 'node:fs';
 import path from 'node:path';
 import express from 'express';
 import { sql } from 'kysely';
@@ -55,20 +56,54 @@ const bareUrl = `${await listenLocal(bareServer)}/lots`;
 
 const autocannonCli = path.resolve('node_modules/autocannon/autocannon.js');
 
+/**
+ * CPU seconds spent so far by PostgreSQL's server processes (Linux /proc, clock ticks of 10 ms),
+ * when scripts/bench.mjs names the cluster's postmaster.pid; null elsewhere.
+ */
+function postgresCpuSeconds(): number | null {
+  const pidFile = process.env.HILUM_BENCH_PG_PIDFILE;
+  if (!pidFile || !fs.existsSync(pidFile) || !fs.existsSync('/proc/self/stat')) return null;
+  const postmaster = Number(fs.readFileSync(pidFile, 'utf8').split('\n')[0]);
+  let ticks = 0;
+  for (const entry of fs.readdirSync('/proc')) {
+    if (!/^\d+$/.test(entry)) continue;
+    try {
+      const stat = fs.readFileSync(`/proc/${entry}/stat`, 'utf8');
+      const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+      // Fields after the name: state, ppid, …, utime (14th of the line), stime (15th).
+      if (Number(entry) === postmaster || Number(fields[1]) === postmaster) ticks += Number(fields[11]) + Number(fields[12]);
+    } catch {
+      // The process ended while being read.
+    }
+  }
+  return ticks / 100;
+}
+
+interface Run {
+  rate: number;
+  /** CPU microseconds per request: this process (the app and the bare route), and PostgreSQL. */
+  appCpuUs: number;
+  pgCpuUs: number | null;
+}
+
 /** Requests/s that autocannon reaches against `url` in `seconds`; any non-2xx answer is an error. */
-function load(url: string, seconds: number): Promise<number> {
+function load(url: string, seconds: number): Promise<Run> {
   return new Promise((resolve, reject) => {
     const child = spawn(
       process.execPath,
       [autocannonCli, '--json', '-c', String(CONNECTIONS), '-d', String(seconds), '-H', `cookie: ${cookie}`, url],
       { stdio: ['ignore', 'pipe', 'pipe'] },
     );
+    const cpu0 = process.cpuUsage();
+    const pg0 = postgresCpuSeconds();
     let out = '';
     let err = '';
     child.stdout.on('data', (chunk: Buffer) => (out += chunk.toString()));
     child.stderr.on('data', (chunk: Buffer) => (err += chunk.toString()));
     child.once('error', reject);
     child.once('exit', (code) => {
+      const cpu = process.cpuUsage(cpu0);
+      const pg1 = postgresCpuSeconds();
       if (code !== 0) return reject(new Error(`autocannon exited with ${code}: ${err.trim()}`));
       const result = JSON.parse(out.trim().split('\n').pop()!) as {
         requests: { average: number; total: number };
@@ -79,26 +114,41 @@ function load(url: string, seconds: number): Promise<number> {
       if (result.non2xx || result.errors || result.timeouts) {
         return reject(new Error(`${url}: ${result.non2xx} non-2xx answers, ${result.errors} errors, ${result.timeouts} timeouts`));
       }
-      resolve(result.requests.average);
+      const n = Math.max(1, result.requests.total);
+      resolve({
+        rate: result.requests.average,
+        appCpuUs: (cpu.user + cpu.system) / n,
+        pgCpuUs: pg0 === null || pg1 === null ? null : ((pg1 - pg0) * 1e6) / n,
+      });
     });
   });
 }
 
 await load(listUrl, WARM_UP_S);
 await load(bareUrl, WARM_UP_S);
-const listRates: number[] = [];
-const bareRates: number[] = [];
+const listRuns: Run[] = [];
+const bareRuns: Run[] = [];
 for (let round = 0; round < ROUNDS; round++) {
-  listRates.push(await load(listUrl, MEASURE_S));
-  bareRates.push(await load(bareUrl, MEASURE_S));
+  listRuns.push(await load(listUrl, MEASURE_S));
+  bareRuns.push(await load(bareUrl, MEASURE_S));
 }
+const listRates = listRuns.map((r) => r.rate);
+const bareRates = bareRuns.map((r) => r.rate);
 const listRate = median(listRates);
 const bareRate = median(bareRates);
+/** Median CPU per request of the runs, in words. */
+const cpuWords = (runs: Run[]) => {
+  const app = `${median(runs.map((r) => r.appCpuUs)).toFixed(0)} µs in Node`;
+  const pgUs = runs.every((r) => r.pgCpuUs !== null) ? median(runs.map((r) => r.pgCpuUs!)) : null;
+  return pgUs === null ? app : `${app} + ${pgUs.toFixed(0)} µs in PostgreSQL`;
+};
 const kb = (Buffer.byteLength(body) / 1024).toFixed(1);
 console.log(`lot list of the demo bank (${lots} lots, ${kb} KB), concurrency ${CONNECTIONS}, median of ${ROUNDS} runs of ${MEASURE_S} s each:`);
 console.log(`  signed-in lot list:            ${listRate.toFixed(0)} requests/s (${listRates.map((r) => r.toFixed(0)).join(', ')})`);
 console.log(`  bare Express, same bytes:      ${bareRate.toFixed(0)} requests/s (${bareRates.map((r) => r.toFixed(0)).join(', ')})`);
 console.log(`  ratio:                         ${((100 * listRate) / bareRate).toFixed(0)}% (target ≥ 50%)`);
+console.log(`  CPU per request, lot list:     ${cpuWords(listRuns)}`);
+console.log(`  CPU per request, bare route:   ${cpuWords(bareRuns)}`);
 reportFigures({ lotListReqPerSec: Math.round(listRate), bareExpressReqPerSec: Math.round(bareRate) });
 
 bareServer.closeAllConnections();

@@ -46,7 +46,15 @@ try {
   const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-bench-'));
   fs.chmodSync(tmp, 0o755);
   pg = await startPostgres({ bin, dataDir: tmp, port: await freePort(), database: 'hilum_bench', durable: false });
-  const env = { DATABASE_URL: pg.url, NODE_ENV: 'test', LOG_LEVEL: 'silent', HILUM_DATA_DIR: tmp, AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true' };
+  const env = {
+    DATABASE_URL: pg.url,
+    NODE_ENV: 'test',
+    LOG_LEVEL: 'silent',
+    HILUM_DATA_DIR: tmp,
+    AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
+    // The lot-list benchmark reports PostgreSQL's CPU per request from its processes.
+    HILUM_BENCH_PG_PIDFILE: path.join(tmp, 'pg', 'postmaster.pid'),
+  };
   log('running the ranking benchmark (5,000 lots, 25,000 tests, 150,000 counts)…');
   const ranking = runScript('scripts/bench-ranking.ts', [], env);
   log('running the lot-list benchmark (the demo bank, concurrency 20)…');
