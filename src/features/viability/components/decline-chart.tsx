@@ -1,19 +1,20 @@
 import { Area, CartesianGrid, ComposedChart, ErrorBar, Line, ReferenceLine, Scatter, Tooltip, XAxis, YAxis } from 'recharts';
 import type { ViabilityResponse } from '../../../../shared/schemas/viability';
 import { formatDay } from '../../../lib/dates';
+import { ASIDE, DOT, TestMark, type TestKind } from './test-mark';
 import { formatCount, pct, years } from './viability-format';
 import { wilsonInterval } from './wilson';
 
 // Palette values from tailwind.config.ts (recharts draws with plain colours).
 const CURVE = '#324520'; // moss-800
 const BAND = '#c6d8ab'; // moss-200
-const DOT = '#77491f'; // seedcoat-700
 const WHISKER = '#955c23'; // seedcoat-600
 const TODAY = '#635645'; // loam-600
 const SOWING = '#2d4d63'; // frost-700
 const AXIS = '#4e4337'; // loam-700
 
 export interface TestedPoint {
+  kind: TestKind;
   ageYears: number;
   tested: number;
   /** Distances below and above the percentage to its 95% Wilson bounds, for the error bar. */
@@ -23,25 +24,50 @@ export interface TestedPoint {
   date: string;
   germinated: number;
   sown: number;
+  /** Why the grower set the test aside (set-aside tests only). */
+  reason?: string;
+}
+
+/** A set-aside test as the chart draws it: its own result, at its age, out of the model. */
+export interface SetAsidePoint {
+  ageYears: number;
+  date: string;
+  germinated: number;
+  sown: number;
+  reason: string;
+}
+
+function point(kind: TestKind, p: { ageYears: number; date: string; germinated: number; sown: number; reason?: string }): TestedPoint {
+  const w = wilsonInterval(p.germinated, p.sown);
+  const tested = (100 * p.germinated) / p.sown;
+  return {
+    kind,
+    ageYears: p.ageYears,
+    tested,
+    err: [tested - 100 * w.low, 100 * w.high - tested],
+    low: 100 * w.low,
+    high: 100 * w.high,
+    date: p.date,
+    germinated: p.germinated,
+    sown: p.sown,
+    ...(p.reason !== undefined ? { reason: p.reason } : {}),
+  };
 }
 
 /** Each test as a dot with its 95% Wilson interval, worked out here from germinated of sown. */
 export function testedPoints(points: ViabilityResponse['points']): TestedPoint[] {
-  return points.map((p) => {
-    const w = wilsonInterval(p.germinated, p.sown);
-    const tested = (100 * p.germinated) / p.sown;
-    return {
-      ageYears: p.ageYears,
-      tested,
-      err: [tested - 100 * w.low, 100 * w.high - tested],
-      low: 100 * w.low,
-      high: 100 * w.high,
-      date: p.date,
-      germinated: p.germinated,
-      sown: p.sown,
-    };
-  });
+  return points.map((p) => point(p.heldBack ? 'held-back' : 'model', p));
 }
+
+/** Recharts draws each point through one of these: the marks of test-mark.tsx, as in the key. */
+const markOf = (kind: TestKind) =>
+  function Mark(props: unknown) {
+    const { cx, cy } = props as { cx?: number; cy?: number };
+    return cx === undefined || cy === undefined ? <g /> : <TestMark kind={kind} cx={cx} cy={cy} />;
+  };
+const MODEL_MARK = markOf('model');
+const HELD_BACK_MARK = markOf('held-back');
+const SET_ASIDE_MARK = markOf('set-aside');
 
 interface TipProps {
   active?: boolean;
@@ -56,10 +82,15 @@ function Tip({ active, payload }: TipProps) {
     <div className="rounded-lg border border-loam-200 bg-white px-3 py-2 text-sm text-loam-900 shadow">
       {dot ? (
         <>
-          <p className="font-semibold">Test of {formatDay(dot.date)}</p>
+          <p className="font-semibold">
+            Test of {formatDay(dot.date)}
+            {dot.kind === 'held-back' ? ' · held back' : dot.kind === 'set-aside' ? ' · set aside' : ''}
+          </p>
           <p>
             {pct(dot.tested)} ({formatCount(dot.germinated)} of {formatCount(dot.sown)}), 95% interval {pct(dot.low)}–{pct(dot.high)}
           </p>
+          {dot.kind === 'held-back' ? <p>Read as “at least this many alive”, not as decline.</p> : null}
+          {dot.kind === 'set-aside' ? <p>{dot.reason}: left out of the decline.</p> : null}
         </>
       ) : curve ? (
         <>
@@ -77,14 +108,19 @@ export interface DeclineChartProps {
   viability: ViabilityResponse;
   /** The seed's age today and on the sowing date, in years. */
   todayAge: number;
+  /** Tests the grower set aside whose results are known: drawn apart, out of the model. */
+  setAside?: readonly SetAsidePoint[];
 }
 
 /** Germination against seed age: the fitted decline with its band, and every test as a dot. */
-export function DeclineChart({ viability, todayAge }: DeclineChartProps) {
+export function DeclineChart({ viability, todayAge, setAside = [] }: DeclineChartProps) {
   const curve = viability.curve.map((c) => ({ ageYears: c.ageYears, percent: c.percent, band: [c.low, c.high] as [number, number] }));
-  const dots = testedPoints(viability.points);
+  const tested = testedPoints(viability.points);
+  const dots = tested.filter((d) => d.kind === 'model');
+  const heldBack = tested.filter((d) => d.kind === 'held-back');
+  const aside = setAside.map((p) => point('set-aside', p));
   const onAge = Math.max(0, viability.ageYears);
-  const maxAge = Math.max(1, curve.at(-1)?.ageYears ?? 0, onAge, todayAge, ...dots.map((d) => d.ageYears));
+  const maxAge = Math.max(1, curve.at(-1)?.ageYears ?? 0, onAge, todayAge, ...tested.map((d) => d.ageYears), ...aside.map((d) => d.ageYears));
 
   return (
     <ComposedChart
@@ -108,9 +144,18 @@ export function DeclineChart({ viability, todayAge }: DeclineChartProps) {
       <Tooltip content={<Tip />} />
       <Area dataKey="band" name="Likely range" type="monotone" stroke="none" fill={BAND} fillOpacity={0.7} isAnimationActive={false} activeDot={false} />
       <Line dataKey="percent" name="Fitted decline" type="monotone" stroke={CURVE} strokeWidth={3} dot={false} isAnimationActive={false} />
-      <Scatter data={dots} dataKey="tested" name="Tests" fill={DOT} isAnimationActive={false}>
-        <ErrorBar dataKey="err" direction="y" width={8} strokeWidth={1.75} stroke={WHISKER} />
-      </Scatter>
+      {/* A Scatter with no points would fall back to the chart's own data (the curve): drawn only with points. */}
+      {dots.length ? (
+        <Scatter data={dots} dataKey="tested" name="Tests" fill={DOT} shape={MODEL_MARK} isAnimationActive={false}>
+          <ErrorBar dataKey="err" direction="y" width={8} strokeWidth={1.75} stroke={WHISKER} />
+        </Scatter>
+      ) : null}
+      {heldBack.length ? (
+        <Scatter data={heldBack} dataKey="tested" name="Held back" fill="#ffffff" shape={HELD_BACK_MARK} isAnimationActive={false}>
+          <ErrorBar dataKey="err" direction="y" width={8} strokeWidth={1.75} stroke={WHISKER} />
+        </Scatter>
+      ) : null}
+      {aside.length ? <Scatter data={aside} dataKey="tested" name="Set aside" fill={ASIDE} shape={SET_ASIDE_MARK} isAnimationActive={false} /> : null}
       <ReferenceLine
         x={Math.max(0, todayAge)}
         stroke={TODAY}
