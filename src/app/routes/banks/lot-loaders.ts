@@ -8,6 +8,7 @@ import { stockQueryOptions } from '../../../features/lots/api/get-stock';
 import { photosQueryOptions } from '../../../features/photos/api/get-photos';
 import { plantsQueryOptions } from '../../../features/plants/api/get-plants';
 import { speciesQueryOptions } from '../../../features/species/api/get-species';
+import { lotViabilityQueryOptions } from '../../../features/viability/api/get-lot-viability';
 import { rankingQueryOptions } from '../../../features/viability/api/get-ranking';
 import { defaultSowingDate, parseSowingDate } from '../../../features/viability/components/sowing-date';
 import { isApiError } from '../../../lib/api-client';
@@ -72,13 +73,18 @@ export function lotLoader(queryClient: QueryClient) {
     if (!lotId) throw data('No lot in the address.', { status: 404 });
     void queryClient.prefetchQuery(stockQueryOptions(bankId, lotId));
     void queryClient.prefetchQuery(photosQueryOptions(bankId, 'lot', lotId));
+    const on = parseSowingDate(new URL(request.url).searchParams.get('on'));
     try {
-      await Promise.all([
+      const [{ bank }] = await Promise.all([
         queryClient.ensureQueryData(bankQueryOptions(bankId)),
         queryClient.ensureQueryData(lotQueryOptions(bankId, lotId)),
         queryClient.ensureQueryData(speciesQueryOptions(bankId)),
         queryClient.ensureQueryData(plantsQueryOptions(bankId)),
       ]);
+      // The advice, decline and storage cards share one answer: started here, drawn as it arrives.
+      void queryClient.prefetchQuery(
+        lotViabilityQueryOptions(bankId, lotId, on ?? defaultSowingDate(bank.lastFrost, todayIn(bank.timeZone))),
+      );
     } catch (error) {
       failure(error, request);
     }

@@ -2,6 +2,7 @@ import { Link, useLocation, useNavigate, useParams } from 'react-router-dom';
 import { buttonStyles } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { paths } from '../../../config/paths';
+import { useLotTests } from '../../../features/germination/api/get-lot-tests';
 import { LotTests } from '../../../features/germination/components/lot-tests';
 import { PrintLabelLink } from '../../../features/labels/components/print-label-link';
 import { useLot } from '../../../features/lots/api/get-lot';
@@ -15,7 +16,9 @@ import { PlantsList } from '../../../features/plants/components/plants-list';
 import { useSpecies } from '../../../features/species/api/get-species';
 import { SpeciesTraitsCard } from '../../../features/species/components/species-traits-card';
 import { DeclineCard } from '../../../features/viability/components/decline-card';
+import { LotAdviceCard } from '../../../features/viability/components/lot-advice-card';
 import { SeedsToSowCard } from '../../../features/viability/components/seeds-to-sow-card';
+import { StorageAdviceCard } from '../../../features/viability/components/storage-advice-card';
 import { useSowingDate } from '../../../features/viability/components/use-sowing-date';
 import { todayIn } from '../../../lib/dates';
 import type { BankNoticeState } from './bank-layout';
@@ -41,6 +44,15 @@ export function LotPage() {
   const photoFailure = (location.state as LotPageState | null)?.photoFailure;
   const today = todayIn(bank.timeZone);
   const sowing = useSowingDate(bank.lastFrost, today);
+  // The results of tests set aside, for the decline chart (the same cached list as the tests section).
+  const lotTests = useLotTests(bank.id, lot.id).data?.items ?? [];
+  const setAsideResults = Object.fromEntries(
+    lotTests.flatMap(({ test, result }) =>
+      test.setAsideReason !== null && result.germinated !== null && result.sown !== null
+        ? [[test.id, { germinated: result.germinated, sown: result.sown }]]
+        : [],
+    ),
+  );
 
   return (
     <>
@@ -63,6 +75,7 @@ export function LotPage() {
         }
       />
       <LotPageCautions lot={lot} species={species} />
+      <LotAdviceCard bankId={bank.id} lotId={lot.id} on={sowing.on} className="mb-6" />
       <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="grid min-w-0 gap-6">
           <Card title="Photos">
@@ -86,7 +99,7 @@ export function LotPage() {
           <section id="lot-tests" aria-labelledby="lot-tests-title">
             <LotTests bankId={bank.id} lotId={lot.id} canWrite={canEdit} headingId="lot-tests-title" />
           </section>
-          <DeclineCard bankId={bank.id} lotId={lot.id} on={sowing.on} today={today} />
+          <DeclineCard bankId={bank.id} lotId={lot.id} on={sowing.on} today={today} setAsideResults={setAsideResults} />
         </div>
 
         <div className="grid min-w-0 gap-6">
@@ -101,6 +114,7 @@ export function LotPage() {
             defaultAssurance={bank.sowingAssurance}
             canEdit={canEdit}
           />
+          <StorageAdviceCard bankId={bank.id} lotId={lot.id} on={sowing.on} place={lot.storage.place} temperatureC={lot.storage.temperatureC} />
           {species ? <SpeciesTraitsCard bankId={bank.id} species={species} canEdit={canEdit} showCautions={false} /> : null}
           <Card title="Parent plants" description={lot.plantsBulked ? `Seed bulked from ${lot.plantsBulked} plants` : undefined}>
             {parents.length ? (
@@ -120,10 +134,15 @@ export function LotPage() {
               lot={lot}
               onDone={(outcome) =>
                 outcome.outcome === 'deleted'
-                  ? void navigate(paths.lots.getHref(bank.id), { replace: true, state: { notice: `Lot ${lot.code} was deleted.` } })
+                  ? void navigate(paths.lots.getHref(bank.id), {
+                      replace: true,
+                      state: { notice: `Lot ${lot.code} was deleted.` },
+                    })
                   : void navigate(location.pathname, {
                       replace: true,
-                      state: { notice: `Lot ${lot.code} has germination tests, so it was retired instead of deleted.` },
+                      state: {
+                        notice: `Lot ${lot.code} has germination tests, so it was retired instead of deleted.`,
+                      },
                     })
               }
             />

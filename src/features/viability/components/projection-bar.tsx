@@ -5,6 +5,8 @@ export interface ProjectionBarProps {
   percent: number | null;
   low: number | null;
   high: number | null;
+  /** The germination the lot is held to, drawn as a dashed mark on the track when given. */
+  threshold?: number;
   className?: string;
 }
 
@@ -14,7 +16,7 @@ const clamp = (v: number) => Math.min(100, Math.max(0, v));
  * The projected germination on a 0–100 track: the band runs from the interval's low to its high
  * end and the dark tick marks the estimate. The numbers sit beside it.
  */
-export function ProjectionBar({ percent, low, high, className }: ProjectionBarProps) {
+export function ProjectionBar({ percent, low, high, threshold, className }: ProjectionBarProps) {
   if (percent === null || low === null || high === null) {
     return <span className={cn('text-sm text-loam-600', className)}>No estimate</span>;
   }
@@ -32,6 +34,13 @@ export function ProjectionBar({ percent, low, high, className }: ProjectionBarPr
           className="absolute inset-y-0 rounded-full bg-moss-300"
           style={{ left: `${from}%`, width: `${Math.max(to - from, 1.5)}%` }}
         />
+        {threshold !== undefined ? (
+          <span
+            data-threshold={threshold}
+            className="absolute -inset-y-1.5 w-0 -translate-x-1/2 border-l-2 border-dashed border-clay-700"
+            style={{ left: `${clamp(threshold)}%` }}
+          />
+        ) : null}
         <span
           className="absolute -inset-y-1 w-0.5 -translate-x-1/2 rounded bg-loam-900"
           style={{ left: `${clamp(percent)}%` }}

@@ -48,3 +48,25 @@ export const days = (value: number) => `${oneDecimal.format(value)} d`;
 
 const count = new Intl.NumberFormat('en');
 export const formatCount = (n: number) => count.format(n);
+
+const wholeOrOneDecimal = new Intl.NumberFormat('en', { maximumFractionDigits: 1 });
+
+/** A span of time in a grower's words: "about 8 months", "about 3.5 years", "about 24 years". */
+export function spanWords(yearsAhead: number): string {
+  if (yearsAhead < 1) {
+    const months = Math.max(1, Math.round(yearsAhead * 12));
+    return `about ${months} ${months === 1 ? 'month' : 'months'}`;
+  }
+  const shown = yearsAhead < 10 ? wholeOrOneDecimal.format(Math.round(yearsAhead * 2) / 2) : String(Math.round(yearsAhead));
+  return `about ${shown} ${shown === '1' ? 'year' : 'years'}`;
+}
+
+/**
+ * One line of the storage advice: how long until the lot's projection falls to the threshold.
+ * The server answers 0 when it is already at or under it, and null when it stays above for 100 years.
+ */
+export function keepsWords(yearsToThreshold: number | null, threshold: number): string {
+  if (yearsToThreshold === null) return `more than 100 years before it falls to ${pct(threshold)}`;
+  if (yearsToThreshold <= 0) return `already at or below ${pct(threshold)}`;
+  return `${spanWords(yearsToThreshold)} until it falls to ${pct(threshold)}`;
+}
