@@ -12,7 +12,9 @@ import { isApiError } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
 import { formatDay } from '../../../lib/dates';
 import { useAddToPlan } from '../api/add-to-plan';
+import { useLotViability } from '../api/get-lot-viability';
 import { useSeedsToSow } from '../api/get-seeds-to-sow';
+import { ProjectionBar } from './projection-bar';
 import { formatCount } from './viability-format';
 
 const plantsSchema = z.coerce
@@ -36,7 +38,10 @@ export interface SeedsToSowCardProps {
   canEdit: boolean;
 }
 
-/** "For 12 plants, sow 18 seeds": the binomial count for the lot's projected germination. */
+/**
+ * "For 12 plants, sow 18 seeds": the count that gives the plants with the chosen assurance over the
+ * whole likely range of the lot's germination. A lot to retire gets no count and no plan entry.
+ */
 export function SeedsToSowCard({ bankId, lotId, speciesId, startMethod, on, onChangeOn, defaultAssurance, canEdit }: SeedsToSowCardProps) {
   const plantsId = useId();
   const [plantsText, setPlantsText] = useState('12');
@@ -50,10 +55,13 @@ export function SeedsToSowCard({ bankId, lotId, speciesId, startMethod, on, onCh
     return () => clearTimeout(timer);
   }, [parsedPlants.success, parsedPlants.data, plants]);
 
-  const query = useSeedsToSow(bankId, lotId, { plants, assurance, on });
+  // The lot's advice (the same cached answer as the advice card): a lot to retire is not counted.
+  const advice = useLotViability(bankId, lotId, on).data;
+  const retire = advice?.recommendation === 'retire';
+  const query = useSeedsToSow(bankId, lotId, advice && !retire ? { plants, assurance, on } : null);
   const addToPlan = useAddToPlan(bankId);
-  const result = query.data;
-  const noTest = isApiError(query.error) && query.error.status === 422;
+  const result = retire ? undefined : query.data;
+  const noSeeds = isApiError(query.error) && query.error.status === 422;
   const choices = [...new Set([...ASSURANCES, defaultAssurance])].sort((a, b) => a - b);
   const season = Number(on.slice(0, 4));
   const start = startMethod === 'direct' ? 'direct' : 'indoors';
@@ -61,53 +69,65 @@ export function SeedsToSowCard({ bankId, lotId, speciesId, startMethod, on, onCh
   return (
     <Card title="Seeds to sow" description="How many seeds of this lot to sow so that enough plants come up.">
       <form className="grid gap-4" onSubmit={(event) => event.preventDefault()}>
-        <div className="flex flex-wrap items-baseline gap-x-2 gap-y-1 text-lg text-loam-900">
-          <label htmlFor={plantsId}>For</label>
-          <input
-            id={plantsId}
-            type="number"
-            inputMode="numeric"
-            min={1}
-            max={100_000}
-            step={1}
-            value={plantsText}
-            aria-label="Plants wanted"
-            aria-invalid={parsedPlants.success ? undefined : true}
-            onChange={(event) => setPlantsText(event.target.value)}
-            className={cn(
-              'num min-h-11 w-24 rounded-lg border bg-white px-3 py-1 text-lg font-semibold',
-              parsedPlants.success ? 'border-loam-300' : 'border-2 border-clay-700',
+        {retire ? (
+          <FormAlert tone="info" title="No seeds to sow: this lot is to retire">
+            <p data-testid="retire-reason">{advice.reason}</p>
+            <p className="mt-1">
+              Hilum works out no seeds to sow and adds no plan entry for a lot to retire: too few seeds would come up to be
+              worth the tray space. Plan another lot of this variety instead.
+            </p>
+          </FormAlert>
+        ) : (
+          <div className="flex flex-wrap items-baseline gap-x-2 gap-y-1 text-lg text-loam-900">
+            <label htmlFor={plantsId}>For</label>
+            <input
+              id={plantsId}
+              type="number"
+              inputMode="numeric"
+              min={1}
+              max={100_000}
+              step={1}
+              value={plantsText}
+              aria-label="Plants wanted"
+              aria-invalid={parsedPlants.success ? undefined : true}
+              onChange={(event) => setPlantsText(event.target.value)}
+              className={cn(
+                'num min-h-11 w-24 rounded-lg border bg-white px-3 py-1 text-lg font-semibold',
+                parsedPlants.success ? 'border-loam-300' : 'border-2 border-clay-700',
+              )}
+            />
+            <span>plants,</span>
+            {result && !noSeeds ? (
+              <span data-testid="seeds-to-sow" aria-live="polite">
+                sow <strong className="num text-2xl text-moss-800">{formatCount(result.seeds)}</strong> seeds
+              </span>
+            ) : query.isPending || query.isFetching ? (
+              <Spinner size="sm" label="Working it out" />
+            ) : (
+              <span className="text-loam-600">sow —</span>
             )}
-          />
-          <span>plants,</span>
-          {result && !noTest ? (
-            <span data-testid="seeds-to-sow" aria-live="polite">
-              sow <strong className="num text-2xl text-moss-800">{formatCount(result.seeds)}</strong> seeds
-            </span>
-          ) : query.isPending || query.isFetching ? (
-            <Spinner size="sm" label="Working it out" />
-          ) : (
-            <span className="text-loam-600">sow —</span>
-          )}
-          {query.isFetching && result ? <Spinner size="sm" label="Updating" /> : null}
-        </div>
-        {!parsedPlants.success ? (
+            {query.isFetching && result ? <Spinner size="sm" label="Updating" /> : null}
+          </div>
+        )}
+        {!parsedPlants.success && !retire ? (
           <p className="-mt-2 text-sm font-semibold text-clay-700">{parsedPlants.error.issues[0]?.message}</p>
         ) : null}
 
         <div className="grid gap-3 sm:grid-cols-2">
-          <SelectField
-            label="Assurance"
-            hint="How sure to be of at least that many plants."
-            value={String(assurance)}
-            onChange={(event) => setAssurance(Number(event.target.value))}
-          >
-            {choices.map((a) => (
-              <option key={a} value={a}>
-                {Math.round(a * 100)}%{a === defaultAssurance ? ' (bank default)' : ''}
-              </option>
-            ))}
-          </SelectField>
+          {retire ? null : (
+            <SelectField
+              label="Assurance"
+              hint="How sure to be of at least that many plants."
+              value={String(assurance)}
+              onChange={(event) => setAssurance(Number(event.target.value))}
+            >
+              {choices.map((a) => (
+                <option key={a} value={a}>
+                  {Math.round(a * 100)}%{a === defaultAssurance ? ' (bank default)' : ''}
+                </option>
+              ))}
+            </SelectField>
+          )}
           <TextField
             label="Sowing date"
             hint={`Projected to ${formatDay(on)}.`}
@@ -117,22 +137,31 @@ export function SeedsToSowCard({ bankId, lotId, speciesId, startMethod, on, onCh
           />
         </div>
 
-        {noTest ? (
-          <FormAlert tone="info" title="Test this lot first">
+        {retire ? null : noSeeds ? (
+          <FormAlert tone="info" title="No seeds to sow">
             <p>{query.error?.message}</p>
-            {canEdit ? (
-              <p className="mt-1">
-                <Link to={paths.newTest.getHref(bankId, lotId)} className="font-semibold underline">
-                  Start a germination test
-                </Link>
-              </p>
-            ) : null}
+            {canEdit ? <StartTestLink bankId={bankId} lotId={lotId} /> : null}
           </FormAlert>
         ) : query.isError ? (
           <FormAlert>{query.error.message}</FormAlert>
         ) : result ? (
           <>
-            <p className="text-loam-800">{result.explanation}</p>
+            <div className="grid gap-1">
+              <p className="text-sm font-semibold text-loam-800">
+                {result.estimateOnly ? 'Germination guessed' : 'Germination projected'} for {formatDay(on)}, with its likely range
+              </p>
+              <ProjectionBar percent={result.projectedPercent} low={result.projectedLow} high={result.projectedHigh} className="max-w-md" />
+            </div>
+            {result.estimateOnly ? (
+              <FormAlert tone="info" title="A guess, not a measurement">
+                <p data-testid="seeds-explanation">{result.explanation}</p>
+                {canEdit ? <StartTestLink bankId={bankId} lotId={lotId} /> : null}
+              </FormAlert>
+            ) : (
+              <p className="text-loam-800" data-testid="seeds-explanation">
+                {result.explanation}
+              </p>
+            )}
             {!result.enoughStock ? (
               <div role="alert" className="rounded-lg border border-clay-300 bg-clay-100 px-3 py-2.5 text-clay-800">
                 <p className="font-bold">Not enough seed in this lot</p>
@@ -147,7 +176,7 @@ export function SeedsToSowCard({ bankId, lotId, speciesId, startMethod, on, onCh
           </>
         ) : null}
 
-        {canEdit && result && !noTest ? (
+        {canEdit && result && !noSeeds ? (
           <div className="grid gap-2">
             <div>
               <Button
@@ -165,6 +194,7 @@ export function SeedsToSowCard({ bankId, lotId, speciesId, startMethod, on, onCh
             <p className="text-sm text-loam-700">
               {parsedPlants.success ? formatCount(parsedPlants.data) : '—'} plants from this lot, started{' '}
               {start === 'direct' ? 'by sowing direct outdoors' : 'indoors'}.
+              {result.estimateOnly ? ' The plan entry counts no seeds until the lot has a test.' : ''}
             </p>
             {addToPlan.isSuccess ? (
               <FormAlert tone="success">
@@ -180,5 +210,15 @@ export function SeedsToSowCard({ bankId, lotId, speciesId, startMethod, on, onCh
         ) : null}
       </form>
     </Card>
+  );
+}
+
+function StartTestLink({ bankId, lotId }: { bankId: string; lotId: string }) {
+  return (
+    <p className="mt-1">
+      <Link to={paths.newTest.getHref(bankId, lotId)} className="font-semibold underline">
+        Start a germination test
+      </Link>
+    </p>
   );
 }
