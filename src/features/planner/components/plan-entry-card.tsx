@@ -15,7 +15,7 @@ import { useMarkSown } from '../api/mark-sown';
 import { useUndoSown } from '../api/undo-sown';
 import { useUpdatePlanEntry } from '../api/update-plan-entry';
 import { dayMonth, dayRange, formatSeeds } from './plan-format';
-import { lotChoiceLabel, lotsOfSpecies } from './plan-lots';
+import { cannotPlan, lotChoiceLabel, lotsOfSpecies } from './plan-lots';
 
 /** Notes that ask the grower to act (no lot, too few seeds, no test) stand out from the others. */
 const WARNING = /no lot has enough|no tested lot|no germination test|has \d+ seeds|may need care/i;
@@ -292,7 +292,7 @@ function EditEntry({ bankId, entry, onDone }: { bankId: string; entry: PlanEntry
         <SelectField label="Lot" value={lot} onChange={(event) => setLot(event.target.value)} error={errors.lotId}>
           <option value={SUGGEST}>Let Hilum suggest the best tested lot</option>
           {lots.map((l) => (
-            <option key={l.lotId} value={l.lotId}>
+            <option key={l.lotId} value={l.lotId} disabled={cannotPlan(l) && l.lotId !== entry.lotId}>
               {lotChoiceLabel(l)}
             </option>
           ))}

@@ -15,7 +15,7 @@ import { applyServerError } from '../../../lib/form-errors';
 import { useCreatePlanEntry } from '../api/create-plan-entry';
 import { useRanking } from '../api/get-ranking';
 import { useSeedsToSow } from '../api/get-seeds-to-sow';
-import { defaultStart, lotChoiceLabel, lotsOfSpecies } from './plan-lots';
+import { cannotPlan, defaultStart, lotChoiceLabel, lotsOfSpecies } from './plan-lots';
 import { dayMonth, seasonFrost } from './plan-format';
 
 const formSchema = createPlanBodySchema.omit({ season: true });
@@ -82,7 +82,7 @@ export function PlanEntryForm({ bankId, season, species, lastFrost, marginDays, 
   const ranking = useRanking(bankId, chosen ? rankingOn : undefined);
   const lots = chosen ? lotsOfSpecies(ranking.data ?? [], chosen.id) : [];
   const chosenLot = lots.find((l) => l.lotId === lotId);
-  const seeds = useSeedsToSow(bankId, chosenLot?.projectedPercent != null ? lotId : '', plants, preview.dates?.sowFrom);
+  const seeds = useSeedsToSow(bankId, chosenLot && !chosenLot.estimateOnly && !cannotPlan(chosenLot) ? lotId : '', plants, preview.dates?.sowFrom);
 
   const onSubmit = handleSubmit(async (body) => {
     setFormError(undefined);
@@ -169,7 +169,7 @@ export function PlanEntryForm({ bankId, season, species, lastFrost, marginDays, 
         >
           <option value="">Let Hilum suggest the best tested lot</option>
           {lots.map((lot) => (
-            <option key={lot.lotId} value={lot.lotId}>
+            <option key={lot.lotId} value={lot.lotId} disabled={cannotPlan(lot)}>
               {lotChoiceLabel(lot)}
             </option>
           ))}
@@ -183,7 +183,9 @@ export function PlanEntryForm({ bankId, season, species, lastFrost, marginDays, 
             <span className="font-semibold">Sow between {dayMonth(preview.dates.sowFrom)} and {dayMonth(preview.dates.sowTo)}</span>
             {preview.dates.transplantOn ? <> · plant out from {dayMonth(preview.dates.transplantOn)}</> : null}
           </p>
-          {chosenLot && chosenLot.projectedPercent === null ? (
+          {chosenLot && cannotPlan(chosenLot) ? (
+            <p className="text-sm">Lot {chosenLot.code} is to retire: too few of its seeds would come up, so Hilum counts no seeds from it. Choose another lot.</p>
+          ) : chosenLot && chosenLot.estimateOnly ? (
             <p className="text-sm">This lot has no germination test yet, so the seeds to sow cannot be worked out. Test it first.</p>
           ) : seeds.data ? (
             <p className="text-sm">

@@ -16,8 +16,21 @@ export function lotsOfSpecies(ranking: readonly RankingItem[], speciesId: string
     .sort((a, b) => (b.projectedPercent ?? -1) - (a.projectedPercent ?? -1) || a.code.localeCompare(b.code));
 }
 
-/** "TOM-25-01 · Bench Red — about 87% by sowing, 480 seeds" for a lot picker. */
+/** A lot to retire gives no seeds to sow, so it cannot fill a sowing (docs/decisions.md): shown, not chosen. */
+export const cannotPlan = (lot: RankingItem): boolean => lot.recommendation === 'retire';
+
+/**
+ * "TOM-25-01 · Bench Red — about 87% by sowing, 480 seeds" for a lot picker; an untested lot's figure
+ * is named a guess, and a lot to retire says why it cannot be chosen.
+ */
 export function lotChoiceLabel(lot: RankingItem): string {
-  const expected = lot.projectedPercent !== null ? `about ${Math.round(lot.projectedPercent)}% by sowing` : 'not tested yet';
+  const percent = lot.projectedPercent !== null ? `${Math.round(lot.projectedPercent)}%` : null;
+  const expected = cannotPlan(lot)
+    ? `to retire, no seeds to sow${percent ? ` (about ${percent} by sowing)` : ''}`
+    : lot.estimateOnly
+      ? `not tested yet${percent ? `, a guess of about ${percent}` : ''}`
+      : percent
+        ? `about ${percent} by sowing`
+        : 'no estimate';
   return `${lot.code} · ${lot.variety} — ${expected}, ${formatSeeds(lot.seedsOnHand)} seeds`;
 }
