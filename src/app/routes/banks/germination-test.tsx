@@ -79,6 +79,11 @@ export function GerminationTestPage() {
                 </span>
               ) : null}
               {test.notes ? <span className="mt-1 block whitespace-pre-line">{test.notes}</span> : null}
+              {test.setAsideReason !== null ? (
+                <span className="mt-1 block font-semibold text-loam-900" data-testid="test-set-aside-status">
+                  Set aside ({test.setAsideReason}): left out of the lot’s decline and advice.
+                </span>
+              ) : null}
             </>
           ) : undefined
         }

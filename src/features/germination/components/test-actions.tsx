@@ -1,12 +1,27 @@
-import { useState } from 'react';
-import type { TestDetail } from '../../../../shared/schemas/germination';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useId, useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
+import { setAsideReasonSchema, type TestDetail } from '../../../../shared/schemas/germination';
 import { Button } from '../../../components/ui/button';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
+import { Dialog } from '../../../components/ui/dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
+import { TextField } from '../../../components/ui/text-field';
+import { applyServerError } from '../../../lib/form-errors';
 import { useDeleteTest } from '../api/delete-test';
 import { useReopenTest } from '../api/reopen-test';
+import { useSetTestAside } from '../api/set-test-aside';
 import { FinishDialog } from './finish-dialog';
 import { formatDate } from './format';
+
+/** Reasons offered for setting a whole test aside (the grower may write any other). */
+const TEST_ASIDE_REASONS = ['Mouldy towel', 'Too cold', 'Too hot', 'Dried out'] as const;
+
+// The shared rule for a reason, with this form's own words for an empty one.
+const setAsideFormSchema = z.object({
+  reason: z.string().trim().min(1, { message: 'Say why the test is set aside (mouldy towel, too cold…).' }).pipe(setAsideReasonSchema),
+});
 
 export interface TestActionsProps {
   bankId: string;
@@ -15,13 +30,15 @@ export interface TestActionsProps {
   onDeleted: () => void | Promise<void>;
 }
 
-/** Finish, reopen and delete: for growers only (the page leaves this out for viewers). */
+/** Finish, reopen, set aside and delete: for growers only (the page leaves this out for viewers). */
 export function TestActions({ bankId, detail, today, onDeleted }: TestActionsProps) {
   const { test } = detail;
   const reopen = useReopenTest(bankId, test.id);
   const remove = useDeleteTest(bankId, test.id);
+  const takeBack = useSetTestAside(bankId, test.id);
   const [finishing, setFinishing] = useState(false);
   const [deleting, setDeleting] = useState(false);
+  const [settingAside, setSettingAside] = useState(false);
   const [notice, setNotice] = useState<string>();
 
   return (
@@ -31,8 +48,16 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
       </h2>
       <div aria-live="polite" className="empty:hidden mt-2">
         {notice ? <FormAlert tone="success">{notice}</FormAlert> : null}
-        <FormAlert>{reopen.error?.message}</FormAlert>
+        <FormAlert>{reopen.error?.message ?? takeBack.error?.message}</FormAlert>
       </div>
+      {test.setAsideReason !== null ? (
+        <div data-testid="test-set-aside" className="mt-3 rounded-lg border border-dashed border-loam-500 bg-husk-50 px-3 py-2.5">
+          <p className="font-bold text-loam-900">Set aside: {test.setAsideReason}</p>
+          <p className="text-loam-800">
+            It stays in lot {test.lotCode}’s history, counts and all, but is left out of the lot’s decline, its advice and the ranking.
+          </p>
+        </div>
+      ) : null}
       <div className="mt-3 flex flex-col gap-2 sm:flex-row sm:flex-wrap">
         {test.status === 'running' ? (
           <Button onClick={() => setFinishing(true)} disabled={detail.counts.length === 0}>
@@ -45,6 +70,19 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
             onClick={() => reopen.mutate(undefined, { onSuccess: () => setNotice('Reopened: counts can be changed again.') })}
           >
             Reopen to change counts
+          </Button>
+        )}
+        {test.setAsideReason !== null ? (
+          <Button
+            variant="secondary"
+            isLoading={takeBack.isPending}
+            onClick={() => takeBack.mutate(null, { onSuccess: () => setNotice('Taken back: the test counts in the lot’s decline again.') })}
+          >
+            Take it back into the decline
+          </Button>
+        ) : (
+          <Button variant="secondary" onClick={() => setSettingAside(true)}>
+            Set the whole test aside…
           </Button>
         )}
         <Button variant="secondary" className="text-clay-800" onClick={() => setDeleting(true)}>
@@ -66,6 +104,17 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
           setNotice('Finished. The result is final unless you reopen the test.');
         }}
       />
+      <SetTestAsideDialog
+        bankId={bankId}
+        detail={detail}
+        open={settingAside}
+        onClose={() => setSettingAside(false)}
+        onDone={() => {
+          // The test's new state says it (below the heading), so no notice repeats it.
+          setSettingAside(false);
+          setNotice(undefined);
+        }}
+      />
       <ConfirmDialog
         open={deleting}
         title="Delete this test?"
@@ -83,5 +132,89 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
         Use this for a test entered by mistake.
       </ConfirmDialog>
     </section>
+  );
+}
+
+interface SetTestAsideDialogProps {
+  bankId: string;
+  detail: TestDetail;
+  open: boolean;
+  onClose: () => void;
+  onDone: () => void;
+}
+
+/** Sets the whole test aside with a reason: a test spoiled by its conditions, not by the seed. */
+function SetTestAsideDialog({ bankId, detail, open, onClose, onDone }: SetTestAsideDialogProps) {
+  const formId = useId();
+  const setAside = useSetTestAside(bankId, detail.test.id);
+  return (
+    <Dialog
+      open={open}
+      title="Set the whole test aside"
+      onClose={onClose}
+      actions={
+        <Button type="submit" form={formId} isLoading={setAside.isPending}>
+          Set the test aside
+        </Button>
+      }
+    >
+      <SetTestAsideForm formId={formId} detail={detail} setAside={setAside} onDone={onDone} />
+    </Dialog>
+  );
+}
+
+function SetTestAsideForm({
+  formId,
+  detail,
+  setAside,
+  onDone,
+}: {
+  formId: string;
+  detail: TestDetail;
+  setAside: ReturnType<typeof useSetTestAside>;
+  onDone: () => void;
+}) {
+  const [formError, setFormError] = useState<string>();
+  const {
+    register,
+    handleSubmit,
+    setValue,
+    setError,
+    formState: { errors },
+  } = useForm({ resolver: zodResolver(setAsideFormSchema), defaultValues: { reason: '' } });
+
+  const onSubmit = handleSubmit(async ({ reason }) => {
+    setFormError(undefined);
+    try {
+      await setAside.mutateAsync(reason);
+      onDone();
+    } catch (error) {
+      setFormError(applyServerError(error, setError, ['reason']));
+    }
+  });
+
+  return (
+    <form id={formId} noValidate onSubmit={onSubmit} className="grid gap-4">
+      <p className="text-loam-700">
+        A test spoiled by its conditions — a mouldy towel, a cold windowsill — says little about the seed. Set aside, it stays in lot{' '}
+        {detail.test.lotCode}’s history with its counts and reason, and is left out of the lot’s decline, its advice and the ranking. You
+        can take it back at any time.
+      </p>
+      <FormAlert>{formError}</FormAlert>
+      <div className="flex flex-wrap gap-2" role="group" aria-label="Common reasons">
+        {TEST_ASIDE_REASONS.map((reason) => (
+          <Button key={reason} variant="secondary" onClick={() => setValue('reason', reason, { shouldValidate: true, shouldDirty: true })}>
+            {reason}
+          </Button>
+        ))}
+      </div>
+      <TextField
+        label="Why is the test set aside?"
+        autoComplete="off"
+        maxLength={200}
+        error={errors.reason?.message}
+        {...register('reason')}
+      />
+    </form>
   );
 }
