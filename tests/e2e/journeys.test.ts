@@ -74,10 +74,12 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       await thumb.waitFor();
       await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBeGreaterThan(0);
     });
-    j.step('see it in the lots table with retest', async (page) => {
+    j.step('see it in the lots table, to be tested first', async (page) => {
       await page.goto(`${server.baseUrl}/banks/${bankId}/lots?q=${encodeURIComponent('Journey Blue')}`);
-      await expect.poll(() => page.locator('main').innerText()).toContain(lotCode);
-      await expect.poll(() => page.locator('main').innerText()).toMatch(/Retest/i);
+      // A lot never tested is to be tested first (docs/decisions.md), on its own row or card.
+      const lot = page.locator(`[data-lot="${lotCode}"]`);
+      await expect.poll(() => lot.count()).toBe(1);
+      await expect.poll(() => lot.innerText()).toContain('Test first');
     });
     it('the server holds the lot with the parent plant that was ticked', async () => {
       const saved = await server.db.selectFrom('lot_parents').select('parent_plant_id').where('lot_id', '=', lotId).execute();
