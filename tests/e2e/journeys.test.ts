@@ -191,15 +191,18 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       await expect.poll(() => page.getByText(/for 12 plants/).count()).toBeGreaterThan(0);
       await expect.poll(() => page.getByTestId('seeds-to-sow').innerText()).toMatch(/^sow \d+ seeds$/);
       chosen.seeds = Number((await page.getByTestId('seeds-to-sow').innerText()).replace(/\D/g, ''));
-      // The calculator's answer checked with a reference library: the least n for which 12 or more
-      // of n seeds come up with probability ≥ 0.9, at the germination the server says it used
-      // (jStat's binomial distribution).
+      // The calculator shows the server's answer. The answer holds its assurance over the whole band
+      // of germination (the predictive distribution, checked against an exact beta-binomial in
+      // tests/unit/stats/seeds-to-sow-predictive.test.ts), so it is never below the point-estimate
+      // answer: the least n for which 12 or more of n seeds come up with probability ≥ 0.9 at the
+      // projected germination (jStat's binomial distribution).
       const api = await keeperApi.get(`/api/banks/${bankId}/lots/${chosen.lotId}/seeds-to-sow?plants=12&assurance=0.9&on=${sowingDate}`);
       expect(api.status).toBe(200);
       expect(chosen.seeds).toBe(api.body.seeds);
       const atLeast12 = (n: number) => 1 - jStat.binomial.cdf(11, n, api.body.germinationUsed);
-      expect(atLeast12(chosen.seeds)).toBeGreaterThanOrEqual(0.9);
-      expect(atLeast12(chosen.seeds - 1)).toBeLessThan(0.9);
+      let pointEstimate = 12;
+      while (atLeast12(pointEstimate) < 0.9) pointEstimate += 1;
+      expect(chosen.seeds).toBeGreaterThanOrEqual(pointEstimate);
     });
     j.step('add it to the plan', async (page) => {
       const add = page.getByRole('button', { name: /^Add to the \d{4} plan$/ });

@@ -86,9 +86,10 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
   describe('when a viewer sorts the ranking by projected germination and filters to "sow", then the rows follow the server’s projections and the view survives a reload', () => {
     it('the server’s ranking holds the three lots as made', () => {
       // The tomato lot: 95 of 100 germinated two months after harvest, far above the 75% minimum for
-      // tomato seed (7 CFR 201.31), so "sow"; the lot nobody tested has no projection, so "retest".
+      // tomato seed (7 CFR 201.31), so "sow"; the lot nobody tested gets only the species' guess, so
+      // "test first" (docs/decisions.md).
       expect(item('RNK-GOOD')).toMatchObject({ recommendation: 'sow', lastPercent: 95 });
-      expect(item('RNK-NEW')).toMatchObject({ recommendation: 'retest', projectedPercent: null });
+      expect(item('RNK-NEW')).toMatchObject({ recommendation: 'test-first', estimateOnly: true, lastPercent: null });
       // Two tests four years apart: the lettuce lot's own decline, projected below its last test.
       expect(item('RNK-OLD').basis).toBe('lot');
       expect(item('RNK-OLD').projectedPercent!).toBeLessThan(42);
@@ -121,18 +122,22 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
     j.step('sort by projected germination', async (page) => {
       await page.getByRole('columnheader', { name: /Projected/ }).getByRole('button').click();
       await expect.poll(() => page.getByRole('columnheader', { name: /Projected/ }).getAttribute('aria-sort')).toBe('descending');
-      // Highest projection first, the lot without one last: the order of the server's numbers.
+      // Highest projection first: the order of the server's numbers (an untested lot's guess included).
       const expected = [...ranking]
         .sort((a, b) => (b.projectedPercent ?? -1) - (a.projectedPercent ?? -1))
         .map((i) => i.code);
-      expect(expected).toEqual(['RNK-GOOD', 'RNK-OLD', 'RNK-NEW']);
+      expect(expected.indexOf('RNK-GOOD')).toBeLessThan(expected.indexOf('RNK-OLD'));
       await expect.poll(() => rowCodes(page)).toEqual(expected);
       // Each bar draws the server's interval and estimate.
       const old = item('RNK-OLD');
       expect(await page.locator('tr[data-lot="RNK-OLD"] [data-projection]').getAttribute('data-projection')).toBe(
         `${Math.round(old.projectedLow!)}-${Math.round(old.projectedPercent!)}-${Math.round(old.projectedHigh!)}`,
       );
-      expect(await page.locator('tr[data-lot="RNK-NEW"]').innerText()).toContain('No estimate');
+      // The untested lot's bar is the species' guess, as wide as the server says.
+      const fresh = item('RNK-NEW');
+      expect(await page.locator('tr[data-lot="RNK-NEW"] [data-projection]').getAttribute('data-projection')).toBe(
+        `${Math.round(fresh.projectedLow!)}-${Math.round(fresh.projectedPercent!)}-${Math.round(fresh.projectedHigh!)}`,
+      );
     });
 
     j.step('filter to sow', async (page) => {
@@ -237,7 +242,7 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
 
     await j.step('tap the advice', async () => {
       const card = page.locator('li[data-lot="RNK-NEW"]');
-      const badge = card.getByRole('button', { name: /Retest/ });
+      const badge = card.getByRole('button', { name: /Test first/ });
       expect(await badge.getAttribute('aria-expanded')).toBe('false');
       await badge.tap();
       await expect.poll(() => badge.getAttribute('aria-expanded')).toBe('true');

@@ -46,7 +46,7 @@ export function LotsPage() {
       <PageHeader
         eyebrow={bank.name}
         title="Lots"
-        description="Every lot ranked by its projected germination on the coming sowing date, with what to do with it: sow, sow thick, retest or retire."
+        description="Every lot ranked by its projected germination on the coming sowing date, with what to do with it: test first, sow, sow thick, retest, grow out or retire."
         actions={actions}
       />
       <LotsSubnav bankId={bank.id} />
