@@ -17,8 +17,12 @@ export async function up(db: Kysely<any>): Promise<void> {
     .execute();
   // A tray the grower set aside (spilled, dried out) is left out of every figure, with the reason.
   await db.schema.alterTable('test_trays').addColumn('set_aside_reason', 'text').execute();
-  await sql`create index germination_tests_lot_start_idx on germination_tests (lot_id, start_date)`.execute(db);
-  await sql`create index germination_tests_stale_result_idx on germination_tests (result_version)`.execute(db);
+  await sql`create index germination_tests_lot_start_idx on germination_tests (lot_id, start_date)`.execute(
+    db,
+  );
+  await sql`create index germination_tests_stale_result_idx on germination_tests (result_version)`.execute(
+    db,
+  );
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

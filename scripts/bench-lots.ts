@@ -71,7 +71,8 @@ function postgresCpuSeconds(): number | null {
       const stat = fs.readFileSync(`/proc/${entry}/stat`, 'utf8');
       const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
       // Fields after the name: state, ppid, …, utime (14th of the line), stime (15th).
-      if (Number(entry) === postmaster || Number(fields[1]) === postmaster) ticks += Number(fields[11]) + Number(fields[12]);
+      if (Number(entry) === postmaster || Number(fields[1]) === postmaster)
+        ticks += Number(fields[11]) + Number(fields[12]);
     } catch {
       // The process ended while being read.
     }
@@ -91,7 +92,17 @@ function load(url: string, seconds: number): Promise<Run> {
   return new Promise((resolve, reject) => {
     const child = spawn(
       process.execPath,
-      [autocannonCli, '--json', '-c', String(CONNECTIONS), '-d', String(seconds), '-H', `cookie: ${cookie}`, url],
+      [
+        autocannonCli,
+        '--json',
+        '-c',
+        String(CONNECTIONS),
+        '-d',
+        String(seconds),
+        '-H',
+        `cookie: ${cookie}`,
+        url,
+      ],
       { stdio: ['ignore', 'pipe', 'pipe'] },
     );
     const cpu0 = process.cpuUsage();
@@ -112,7 +123,11 @@ function load(url: string, seconds: number): Promise<Run> {
         timeouts: number;
       };
       if (result.non2xx || result.errors || result.timeouts) {
-        return reject(new Error(`${url}: ${result.non2xx} non-2xx answers, ${result.errors} errors, ${result.timeouts} timeouts`));
+        return reject(
+          new Error(
+            `${url}: ${result.non2xx} non-2xx answers, ${result.errors} errors, ${result.timeouts} timeouts`,
+          ),
+        );
       }
       const n = Math.max(1, result.requests.total);
       resolve({
@@ -143,9 +158,15 @@ const cpuWords = (runs: Run[]) => {
   return pgUs === null ? app : `${app} + ${pgUs.toFixed(0)} µs in PostgreSQL`;
 };
 const kb = (Buffer.byteLength(body) / 1024).toFixed(1);
-console.log(`lot list of the demo bank (${lots} lots, ${kb} KB), concurrency ${CONNECTIONS}, median of ${ROUNDS} runs of ${MEASURE_S} s each:`);
-console.log(`  signed-in lot list:            ${listRate.toFixed(0)} requests/s (${listRates.map((r) => r.toFixed(0)).join(', ')})`);
-console.log(`  bare Express, same bytes:      ${bareRate.toFixed(0)} requests/s (${bareRates.map((r) => r.toFixed(0)).join(', ')})`);
+console.log(
+  `lot list of the demo bank (${lots} lots, ${kb} KB), concurrency ${CONNECTIONS}, median of ${ROUNDS} runs of ${MEASURE_S} s each:`,
+);
+console.log(
+  `  signed-in lot list:            ${listRate.toFixed(0)} requests/s (${listRates.map((r) => r.toFixed(0)).join(', ')})`,
+);
+console.log(
+  `  bare Express, same bytes:      ${bareRate.toFixed(0)} requests/s (${bareRates.map((r) => r.toFixed(0)).join(', ')})`,
+);
 console.log(`  ratio:                         ${((100 * listRate) / bareRate).toFixed(0)}% (target ≥ 50%)`);
 console.log(`  CPU per request, lot list:     ${cpuWords(listRuns)}`);
 console.log(`  CPU per request, bare route:   ${cpuWords(bareRuns)}`);

@@ -29,8 +29,16 @@ async function seed(): Promise<{ bankId: string; email: string; password: string
   await syncReferenceSpecies(db);
   const email = 'bench@example.org';
   const password = 'bench-password-123';
-  const user = await db.insertInto('users').values({ email, name: 'Bench', password_hash: await hashPassword(password) }).returning('id').executeTakeFirstOrThrow();
-  const bank = await db.insertInto('banks').values({ name: 'Bench bank' }).returning('id').executeTakeFirstOrThrow();
+  const user = await db
+    .insertInto('users')
+    .values({ email, name: 'Bench', password_hash: await hashPassword(password) })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const bank = await db
+    .insertInto('banks')
+    .values({ name: 'Bench bank' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
   await db.insertInto('memberships').values({ bank_id: bank.id, user_id: user.id, role: 'owner' }).execute();
   const b = bank.id;
   // Invented benchmark data: viability falls along a probit line per species, with noise.
@@ -39,7 +47,9 @@ async function seed(): Promise<{ bankId: string; email: string; password: string
     select ${b}, s.id, 'B-' || lpad(g::text, 5, '0'), 'Bench ' || g, 'saved',
       date '2016-09-01' + ((g * 37) % 3000), (array['room','fridge','freezer'])[1 + g % 3]
     from generate_series(1, ${LOTS}) g
-    join lateral (select id from species where bank_id is null order by ref_key offset (g % 32) limit 1) s on true`.execute(db);
+    join lateral (select id from species where bank_id is null order by ref_key offset (g % 32) limit 1) s on true`.execute(
+    db,
+  );
   await sql`insert into stock_movements (lot_id, kind, change, date, reason)
     select id, 'initial', 2000, harvest_date, 'bench' from lots where bank_id = ${b}`.execute(db);
   await sql`
@@ -47,7 +57,9 @@ async function seed(): Promise<{ bankId: string; email: string; password: string
     select ${b}, l.id, l.harvest_date + 120 + k * 200, 'paper towel', 'finished', l.harvest_date + 134 + k * 200
     from lots l, generate_series(0, ${TESTS_PER_LOT - 1}) k where l.bank_id = ${b}`.execute(db);
   await sql`insert into test_trays (test_id, position, seeds_sown)
-    select t.id, p, 50 from germination_tests t, generate_series(1, ${TRAYS_PER_TEST}) p where t.bank_id = ${b}`.execute(db);
+    select t.id, p, 50 from germination_tests t, generate_series(1, ${TRAYS_PER_TEST}) p where t.bank_id = ${b}`.execute(
+    db,
+  );
   await sql`
     insert into tray_counts (tray_id, check_date, cumulative)
     select tr.id, t.start_date + c * 4,
@@ -57,13 +69,23 @@ async function seed(): Promise<{ bankId: string; email: string; password: string
     join lots l on l.id = t.lot_id,
     generate_series(1, ${CHECKS_PER_TRAY}) c
     where t.bank_id = ${b}`.execute(db);
-  await sql`update test_trays tr set ungerminated = 50 - coalesce((select max(cumulative) from tray_counts c where c.tray_id = tr.id), 0), abnormal = 0`.execute(db);
+  await sql`update test_trays tr set ungerminated = 50 - coalesce((select max(cumulative) from tray_counts c where c.tray_id = tr.id), 0), abnormal = 0`.execute(
+    db,
+  );
   await sql`analyze`.execute(db);
   return { bankId: b, email, password };
 }
 
 /** The columns of a test's stored result (germination module, test-results.ts). */
-const RESULT_COLUMNS = ['result', 'result_sown', 'result_germinated', 'result_percent', 'result_mean_days', 'result_last_count_date', 'result_version'];
+const RESULT_COLUMNS = [
+  'result',
+  'result_sown',
+  'result_germinated',
+  'result_percent',
+  'result_mean_days',
+  'result_last_count_date',
+  'result_version',
+];
 
 const { bankId, email, password } = await seed();
 const counts = await sql<{ lots: number; tests: number; counts: number }>`
@@ -76,7 +98,9 @@ console.log(`data: ${JSON.stringify(counts.rows[0])}`);
 // them all, as the app does at start for tests stored under an older definition.
 const t0 = performance.now();
 const refreshed = await refreshStaleResults(db);
-console.log(`stored results: ${refreshed} tests computed in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+console.log(
+  `stored results: ${refreshed} tests computed in ${((performance.now() - t0) / 1000).toFixed(1)} s`,
+);
 await sql`analyze germination_tests`.execute(db);
 
 const app = await serveApp(config, db);
@@ -121,12 +145,16 @@ const tRaw = await time(RUNS, rawSql);
 const tService = await time(RUNS, () => service.ranking(bankId, ON));
 const tEndpoint = await time(RUNS, endpoint);
 const tFloor = await time(RUNS, bareSelect);
-console.log(`ranking of ${body.items.length} lots; the endpoint issues ${issued.length} queries (${issued.filter((q) => /^select/i.test(q.sql.trim())).length} selects)`);
+console.log(
+  `ranking of ${body.items.length} lots; the endpoint issues ${issued.length} queries (${issued.filter((q) => /^select/i.test(q.sql.trim())).length} selects)`,
+);
 console.log(`raw SQL through pg:                 ${tRaw.toFixed(0)} ms (median of ${RUNS})`);
 console.log(`service in-process (SQL + fits):    ${tService.toFixed(0)} ms`);
 console.log(`  of which model fits and decisions: ~${Math.max(0, tService - tRaw).toFixed(0)} ms`);
 console.log(`endpoint over HTTP (JSON, schema):  ${tEndpoint.toFixed(0)} ms (target ≤ 150 ms)`);
-console.log(`bare select of lots + latest results: ${tFloor.toFixed(0)} ms (${(await bareSelect()).toLocaleString('en')} rows; the floor)`);
+console.log(
+  `bare select of lots + latest results: ${tFloor.toFixed(0)} ms (${(await bareSelect()).toLocaleString('en')} rows; the floor)`,
+);
 console.log(`ratio endpoint / (raw SQL + fits):  ${(tEndpoint / tService).toFixed(2)}`);
 console.log(`ratio endpoint / raw SQL alone:     ${(tEndpoint / tRaw).toFixed(2)}`);
 reportFigures({

@@ -7,10 +7,25 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { ensureDependencies, ensurePostgres, fail, freePort, log, root, startPostgres } from './lib/services.mjs';
+import {
+  ensureDependencies,
+  ensurePostgres,
+  fail,
+  freePort,
+  log,
+  root,
+  startPostgres,
+} from './lib/services.mjs';
 
 /** Each benchmark writes its figures to a file of this folder (HILUM_BENCH_FIGURES). */
-const FIGURES = ['rankingLots', 'rankingHttpMedianMs', 'rankingRawSelectMedianMs', 'lotListReqPerSec', 'bareExpressReqPerSec', 'initialJsGzipKb'];
+const FIGURES = [
+  'rankingLots',
+  'rankingHttpMedianMs',
+  'rankingRawSelectMedianMs',
+  'lotListReqPerSec',
+  'bareExpressReqPerSec',
+  'initialJsGzipKb',
+];
 
 if (process.argv.includes('--json')) {
   // The readable run again as a child whose stdout is our stderr, so nothing but the JSON reaches stdout.
@@ -21,7 +36,8 @@ if (process.argv.includes('--json')) {
     env: { ...process.env, HILUM_BENCH_FIGURES_DIR: dir },
   });
   const figures = Object.fromEntries(FIGURES.map((name) => [name, null]));
-  for (const file of fs.readdirSync(dir)) Object.assign(figures, JSON.parse(fs.readFileSync(path.join(dir, file), 'utf8')));
+  for (const file of fs.readdirSync(dir))
+    Object.assign(figures, JSON.parse(fs.readFileSync(path.join(dir, file), 'utf8')));
   fs.rmSync(dir, { recursive: true, force: true });
   if (run.status !== 0) process.exit(run.status ?? 1);
   process.stdout.write(`${JSON.stringify(figures)}\n`);
@@ -35,7 +51,11 @@ function runScript(script, args, env = {}) {
   return spawnSync(process.execPath, ['--import', 'tsx', script, ...args], {
     cwd: root,
     stdio: 'inherit',
-    env: { ...process.env, ...env, ...(figuresDir ? { HILUM_BENCH_FIGURES: path.join(figuresDir, `${name}.json`) } : {}) },
+    env: {
+      ...process.env,
+      ...env,
+      ...(figuresDir ? { HILUM_BENCH_FIGURES: path.join(figuresDir, `${name}.json`) } : {}),
+    },
   });
 }
 
@@ -45,7 +65,13 @@ try {
   const bin = ensurePostgres();
   const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-bench-'));
   fs.chmodSync(tmp, 0o755);
-  pg = await startPostgres({ bin, dataDir: tmp, port: await freePort(), database: 'hilum_bench', durable: false });
+  pg = await startPostgres({
+    bin,
+    dataDir: tmp,
+    port: await freePort(),
+    database: 'hilum_bench',
+    durable: false,
+  });
   const env = {
     DATABASE_URL: pg.url,
     NODE_ENV: 'test',
@@ -66,7 +92,11 @@ try {
 
   log('building the client to measure its initial JavaScript…');
   const out = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-bundle-'));
-  const build = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'error', '--outDir', out], { cwd: root, stdio: 'inherit' });
+  const build = spawnSync(
+    path.join(root, 'node_modules', '.bin', 'vite'),
+    ['build', '--logLevel', 'error', '--outDir', out],
+    { cwd: root, stdio: 'inherit' },
+  );
   if (build.status !== 0) process.exit(1);
   const bundle = runScript('scripts/bench-bundle.ts', [out]);
   fs.rmSync(out, { recursive: true, force: true });
