@@ -1,5 +1,6 @@
-import { useEffect, useId, useRef, type ReactNode } from 'react';
+import { useId, type ReactNode } from 'react';
 import { Button } from './button';
+import { useModalDialog } from './use-modal-dialog';
 
 export interface ConfirmDialogProps {
   open: boolean;
@@ -32,24 +33,16 @@ export function ConfirmDialog({
   onConfirm,
   onCancel,
 }: ConfirmDialogProps) {
-  const ref = useRef<HTMLDialogElement>(null);
+  // Escape does nothing while the request runs.
+  const modal = useModalDialog(open, () => {
+    if (!isPending) onCancel();
+  });
   const titleId = useId();
-
-  useEffect(() => {
-    const dialog = ref.current;
-    if (!dialog) return;
-    if (open && !dialog.open) dialog.showModal();
-    if (!open && dialog.open) dialog.close();
-  }, [open]);
 
   return (
     <dialog
-      ref={ref}
+      {...modal}
       aria-labelledby={titleId}
-      onCancel={(event) => {
-        event.preventDefault();
-        if (!isPending) onCancel();
-      }}
       className="m-auto w-[min(28rem,calc(100vw-2rem))] rounded-xl border border-loam-200 bg-white p-5 text-loam-900 shadow-xl backdrop:bg-loam-950/40"
     >
       <h2 id={titleId} className="text-xl font-bold text-loam-950">

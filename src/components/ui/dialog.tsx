@@ -1,6 +1,7 @@
-import { useEffect, useId, useRef, type ReactNode } from 'react';
+import { useId, type ReactNode } from 'react';
 import { cn } from '../../lib/cn';
 import { Button } from './button';
+import { useModalDialog } from './use-modal-dialog';
 
 export interface DialogProps {
   open: boolean;
@@ -15,23 +16,13 @@ export interface DialogProps {
 
 /** A modal on the browser's own <dialog>: focus stays inside, Escape closes. */
 export function Dialog({ open, title, onClose, children, wide = false, actions }: DialogProps) {
-  const ref = useRef<HTMLDialogElement>(null);
+  const modal = useModalDialog(open, onClose);
   const titleId = useId();
-  useEffect(() => {
-    const dialog = ref.current;
-    if (!dialog) return;
-    if (open && !dialog.open) dialog.showModal();
-    if (!open && dialog.open) dialog.close();
-  }, [open]);
 
   return (
     <dialog
-      ref={ref}
+      {...modal}
       aria-labelledby={titleId}
-      onCancel={(event) => {
-        event.preventDefault();
-        onClose();
-      }}
       className={cn(
         'm-auto max-h-[calc(100dvh-2rem)] rounded-xl border border-loam-200 bg-white p-4 text-loam-900 shadow-xl backdrop:bg-loam-950/60 sm:p-5',
         wide ? 'w-[min(64rem,calc(100vw-1rem))]' : 'w-[min(32rem,calc(100vw-2rem))]',
@@ -49,6 +40,33 @@ export function Dialog({ open, title, onClose, children, wide = false, actions }
           Close
         </Button>
       </div>
+    </dialog>
+  );
+}
+
+export interface FormDialogProps {
+  open: boolean;
+  /** The id of the form's heading, which names the dialog. */
+  titleId: string;
+  onClose: () => void;
+  className?: string;
+  /** The form, drawn only while open so each opening starts afresh. */
+  children: ReactNode;
+}
+
+/** A modal around a form that brings its own heading and buttons: focus stays inside, Escape cancels. */
+export function FormDialog({ open, titleId, onClose, className, children }: FormDialogProps) {
+  const modal = useModalDialog(open, onClose);
+  return (
+    <dialog
+      {...modal}
+      aria-labelledby={titleId}
+      className={cn(
+        'm-auto max-h-[92dvh] overflow-y-auto rounded-xl border border-loam-200 bg-white p-4 text-loam-900 shadow-xl backdrop:bg-loam-950/40 sm:p-5',
+        className ?? 'w-[min(32rem,calc(100vw-1rem))]',
+      )}
+    >
+      {open ? children : null}
     </dialog>
   );
 }

@@ -5,12 +5,12 @@ import { z } from 'zod';
 import { isoDateSchema } from '../../../../shared/schemas/common';
 import { setAsideReasonSchema, type FinishBody, type TestDetail } from '../../../../shared/schemas/germination';
 import { Button } from '../../../components/ui/button';
+import { FormDialog } from '../../../components/ui/dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
 import { useFinishTest } from '../api/finish-test';
-import { FormDialog } from './form-dialog';
 import { NOT_COUNTED, SOUND_ROOT_AND_SHOOT, UNGERMINATED_KINDS } from './seedling-words';
 
 export interface FinishDialogProps {

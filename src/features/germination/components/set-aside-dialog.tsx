@@ -4,11 +4,11 @@ import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { setAsideReasonSchema, type TestDetail } from '../../../../shared/schemas/germination';
 import { Button } from '../../../components/ui/button';
+import { FormDialog } from '../../../components/ui/dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { TextField } from '../../../components/ui/text-field';
 import { applyServerError } from '../../../lib/form-errors';
 import { useSetTrayAside } from '../api/set-tray-aside';
-import { FormDialog } from './form-dialog';
 import { SET_ASIDE_REASONS } from './seedling-words';
 
 export interface SetAsideDialogProps {
