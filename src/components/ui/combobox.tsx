@@ -1,5 +1,6 @@
 import { useId, useMemo, useRef, useState, type ReactNode, type Ref } from 'react';
 import { cn } from '../../lib/cn';
+import { controlClass, Field, fieldAria } from './field';
 
 export interface ComboboxOption {
   value: string;
@@ -50,8 +51,6 @@ export function Combobox({
 }: ComboboxProps) {
   const id = useId();
   const listId = `${id}-list`;
-  const hintId = hint ? `${id}-hint` : undefined;
-  const errorId = error ? `${id}-error` : undefined;
   const chosen = options.find((o) => o.value === value);
   const [query, setQuery] = useState<string | null>(null);
   const [open, setOpen] = useState(false);
@@ -62,11 +61,15 @@ export function Combobox({
   const matches = useMemo(() => {
     const q = fold((query ?? '').trim());
     const found = q
-      ? options.filter((o) => fold(o.label).includes(q) || (o.description ? fold(o.description).includes(q) : false))
+      ? options.filter(
+          (o) => fold(o.label).includes(q) || (o.description ? fold(o.description).includes(q) : false),
+        )
       : options;
     // Names that start with the query come first: "pe" lists Pea and Pepper before Sweet pea.
     const starts = (o: ComboboxOption) =>
-      q && (fold(o.label).startsWith(q) || (o.description ? fold(o.description).startsWith(q) : false)) ? 0 : 1;
+      q && (fold(o.label).startsWith(q) || (o.description ? fold(o.description).startsWith(q) : false))
+        ? 0
+        : 1;
     return [...found].sort((a, b) => starts(a) - starts(b)).slice(0, limit);
   }, [options, query, limit]);
 
@@ -79,16 +82,7 @@ export function Combobox({
   const activeOption = open ? matches[Math.min(active, matches.length - 1)] : undefined;
 
   return (
-    <div className="relative flex flex-col gap-1">
-      <label htmlFor={id} className="font-semibold text-loam-900">
-        {label}
-        {required ? <span className="ml-1 font-normal text-loam-600">(required)</span> : null}
-      </label>
-      {hint ? (
-        <p id={hintId} className="text-sm text-loam-600">
-          {hint}
-        </p>
-      ) : null}
+    <Field id={id} label={label} hint={hint} error={error} required={required} className="relative">
       <input
         ref={ref}
         id={id}
@@ -104,8 +98,7 @@ export function Combobox({
         aria-controls={listId}
         aria-autocomplete="list"
         aria-activedescendant={activeOption ? `${id}-opt-${activeOption.value}` : undefined}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={[hintId, errorId].filter(Boolean).join(' ') || undefined}
+        {...fieldAria(id, { hint, error })}
         value={text}
         onFocus={() => setOpen(true)}
         onClick={() => setOpen(true)}
@@ -142,9 +135,8 @@ export function Combobox({
           }
         }}
         className={cn(
-          'min-h-11 w-full rounded-lg border bg-white px-3 py-2 text-base text-loam-900',
+          controlClass(error),
           'placeholder:text-loam-500 disabled:bg-loam-100 disabled:text-loam-600',
-          error ? 'border-2 border-clay-700' : 'border-loam-300',
         )}
       />
       <ul
@@ -172,18 +164,15 @@ export function Combobox({
             )}
           >
             <span className="font-semibold text-loam-900">{option.label}</span>
-            {option.description ? <span className="text-sm italic text-loam-600">{option.description}</span> : null}
+            {option.description ? (
+              <span className="text-sm italic text-loam-600">{option.description}</span>
+            ) : null}
           </li>
         ))}
       </ul>
       {open && query && matches.length === 0 ? (
         <p className="text-sm text-loam-600">Nothing matches “{query}”.</p>
       ) : null}
-      {error ? (
-        <p id={errorId} className="text-sm font-semibold text-clay-700">
-          {error}
-        </p>
-      ) : null}
-    </div>
+    </Field>
   );
 }

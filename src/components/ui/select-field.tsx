@@ -1,5 +1,6 @@
 import { useId, type ReactNode, type Ref, type SelectHTMLAttributes } from 'react';
 import { cn } from '../../lib/cn';
+import { controlClass, Field, fieldAria } from './field';
 
 export interface SelectFieldProps extends SelectHTMLAttributes<HTMLSelectElement> {
   label: ReactNode;
@@ -21,43 +22,29 @@ export function SelectField({
   containerClassName,
   ref,
   children,
+  'aria-describedby': describedBy,
   ...selectProps
 }: SelectFieldProps) {
   const generatedId = useId();
   const selectId = id ?? generatedId;
-  const hintId = hint ? `${selectId}-hint` : undefined;
-  const errorId = error ? `${selectId}-error` : undefined;
-  const describedBy = [selectProps['aria-describedby'], hintId, errorId].filter(Boolean).join(' ') || undefined;
   return (
-    <div className={cn('flex flex-col gap-1', containerClassName)}>
-      <label htmlFor={selectId} className={cn('font-semibold text-loam-900', hideLabel && 'sr-only')}>
-        {label}
-      </label>
-      {hint ? (
-        <p id={hintId} className="text-sm text-loam-600">
-          {hint}
-        </p>
-      ) : null}
+    <Field
+      id={selectId}
+      label={label}
+      hint={hint}
+      error={error}
+      hideLabel={hideLabel}
+      className={containerClassName}
+    >
       <select
         ref={ref}
         id={selectId}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy}
-        className={cn(
-          'min-h-11 w-full rounded-lg border bg-white px-3 py-2 text-base text-loam-900',
-          'disabled:bg-loam-100 disabled:text-loam-700',
-          error ? 'border-2 border-clay-700' : 'border-loam-300',
-          className,
-        )}
+        {...fieldAria(selectId, { hint, error, describedBy })}
+        className={cn(controlClass(error), 'disabled:bg-loam-100 disabled:text-loam-700', className)}
         {...selectProps}
       >
         {children}
       </select>
-      {error ? (
-        <p id={errorId} className="text-sm font-semibold text-clay-700">
-          {error}
-        </p>
-      ) : null}
-    </div>
+    </Field>
   );
 }
