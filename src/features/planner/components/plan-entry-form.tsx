@@ -1,13 +1,13 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useMemo, useState, type ReactNode } from 'react';
-import { Controller, useForm, useWatch } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { planDates, PlanDateError, type PlanDates } from '../../../../shared/plan-dates';
 import { createPlanBodySchema, type PlanEntryDto } from '../../../../shared/schemas/plan';
 import type { SpeciesDto } from '../../../../shared/schemas/species';
 import { Button } from '../../../components/ui/button';
-import { Combobox } from '../../../components/ui/combobox';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { SelectField } from '../../../components/ui/select-field';
+import { SpeciesPicker } from '../../../components/ui/species-picker';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
@@ -43,7 +43,15 @@ export interface PlanEntryFormProps {
 }
 
 /** "Add to plan": species, plants wanted, indoors or direct, and a lot or Hilum's suggestion. */
-export function PlanEntryForm({ bankId, season, species, lastFrost, marginDays, renderSpeciesNote, onCreated }: PlanEntryFormProps) {
+export function PlanEntryForm({
+  bankId,
+  season,
+  species,
+  lastFrost,
+  marginDays,
+  renderSpeciesNote,
+  onCreated,
+}: PlanEntryFormProps) {
   const create = useCreatePlanEntry(bankId);
   const [formError, setFormError] = useState<string>();
   const {
@@ -56,15 +64,18 @@ export function PlanEntryForm({ bankId, season, species, lastFrost, marginDays, 
     formState: { errors },
   } = useForm({
     resolver,
-    defaultValues: { speciesId: '', plantsWanted: 12, start: 'indoors' as 'indoors' | 'direct', lotId: null as string | null },
+    defaultValues: {
+      speciesId: '',
+      plantsWanted: 12,
+      start: 'indoors' as 'indoors' | 'direct',
+      lotId: null as string | null,
+    },
   });
   const speciesId = useWatch({ control, name: 'speciesId' });
   const start = useWatch({ control, name: 'start' });
   const lotId = useWatch({ control, name: 'lotId' }) ?? '';
   const plants = useWatch({ control, name: 'plantsWanted' });
   const chosen = species.find((s) => s.id === speciesId);
-
-  const options = useMemo(() => species.map((s) => ({ value: s.id, label: s.commonName, description: s.scientificName })), [species]);
 
   // The same date arithmetic as the server (shared/plan-dates.ts), so the window shows before saving.
   const preview = useMemo((): { dates?: PlanDates; problem?: string } => {
@@ -82,7 +93,12 @@ export function PlanEntryForm({ bankId, season, species, lastFrost, marginDays, 
   const ranking = useRanking(bankId, chosen ? rankingOn : undefined);
   const lots = chosen ? lotsOfSpecies(ranking.data ?? [], chosen.id) : [];
   const chosenLot = lots.find((l) => l.lotId === lotId);
-  const seeds = useSeedsToSow(bankId, chosenLot && !chosenLot.estimateOnly && !cannotPlan(chosenLot) ? lotId : '', plants, preview.dates?.sowFrom);
+  const seeds = useSeedsToSow(
+    bankId,
+    chosenLot && !chosenLot.estimateOnly && !cannotPlan(chosenLot) ? lotId : '',
+    plants,
+    preview.dates?.sowFrom,
+  );
 
   const onSubmit = handleSubmit(async (body) => {
     setFormError(undefined);
@@ -102,31 +118,17 @@ export function PlanEntryForm({ bankId, season, species, lastFrost, marginDays, 
   return (
     <form noValidate onSubmit={onSubmit} className="grid gap-4" aria-label="Add to plan">
       <FormAlert>{formError}</FormAlert>
-      <Controller
+      <SpeciesPicker
         control={control}
         name="speciesId"
-        render={({ field, fieldState }) => (
-          <Combobox
-            label="Species"
-            hint="Type part of the common or scientific name."
-            placeholder="e.g. tomato or Solanum"
-            required
-            options={options}
-            value={field.value}
-            ref={field.ref}
-            name={field.name}
-            onBlur={field.onBlur}
-            onChange={(next) => {
-              field.onChange(next);
-              const s = species.find((x) => x.id === next);
-              if (s) setValue('start', defaultStart(s.traits));
-              setValue('lotId', null);
-            }}
-            error={fieldState.error?.message}
-          />
-        )}
+        species={species}
+        onChosen={(next) => {
+          const s = species.find((x) => x.id === next);
+          if (s) setValue('start', defaultStart(s.traits));
+          setValue('lotId', null);
+        }}
+        renderSpeciesNote={renderSpeciesNote}
       />
-      {chosen && renderSpeciesNote ? renderSpeciesNote(chosen) : null}
 
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField
@@ -142,14 +144,18 @@ export function PlanEntryForm({ bankId, season, species, lastFrost, marginDays, 
         />
         <fieldset className="flex flex-col gap-1">
           <legend className="font-semibold text-loam-900">Start</legend>
-          <p className="text-sm text-loam-600">{chosen ? startHint(chosen) : 'Set from the species once you choose one.'}</p>
+          <p className="text-sm text-loam-600">
+            {chosen ? startHint(chosen) : 'Set from the species once you choose one.'}
+          </p>
           <div className="mt-1 grid grid-cols-2 gap-2">
             {(['indoors', 'direct'] as const).map((value) => (
               <label
                 key={value}
                 className={cn(
                   'flex min-h-11 cursor-pointer items-center justify-center gap-2 rounded-lg border px-3 font-semibold',
-                  start === value ? 'border-2 border-moss-700 bg-moss-50 text-moss-900' : 'border-loam-300 bg-white text-loam-800',
+                  start === value
+                    ? 'border-2 border-moss-700 bg-moss-50 text-moss-900'
+                    : 'border-loam-300 bg-white text-loam-800',
                 )}
               >
                 <input type="radio" value={value} className="size-4 accent-moss-700" {...register('start')} />
@@ -163,7 +169,11 @@ export function PlanEntryForm({ bankId, season, species, lastFrost, marginDays, 
       {chosen ? (
         <SelectField
           label="Lot"
-          hint={lots.length ? 'Leave it to Hilum, or choose one of this species’ lots.' : 'No lot of this species yet: Hilum will say so in the plan.'}
+          hint={
+            lots.length
+              ? 'Leave it to Hilum, or choose one of this species’ lots.'
+              : 'No lot of this species yet: Hilum will say so in the plan.'
+          }
           error={errors.lotId?.message}
           {...register('lotId', { setValueAs: emptyToNull })}
         >
@@ -180,26 +190,45 @@ export function PlanEntryForm({ bankId, season, species, lastFrost, marginDays, 
       {preview.dates ? (
         <div role="status" className="rounded-lg border border-moss-200 bg-moss-50 px-3 py-2.5 text-moss-900">
           <p>
-            <span className="font-semibold">Sow between {dayMonth(preview.dates.sowFrom)} and {dayMonth(preview.dates.sowTo)}</span>
-            {preview.dates.transplantOn ? <> · plant out from {dayMonth(preview.dates.transplantOn)}</> : null}
+            <span className="font-semibold">
+              Sow between {dayMonth(preview.dates.sowFrom)} and {dayMonth(preview.dates.sowTo)}
+            </span>
+            {preview.dates.transplantOn ? (
+              <> · plant out from {dayMonth(preview.dates.transplantOn)}</>
+            ) : null}
           </p>
           {chosenLot && cannotPlan(chosenLot) ? (
-            <p className="text-sm">Lot {chosenLot.code} is to retire: too few of its seeds would come up, so Hilum counts no seeds from it. Choose another lot.</p>
+            <p className="text-sm">
+              Lot {chosenLot.code} is to retire: too few of its seeds would come up, so Hilum counts no seeds
+              from it. Choose another lot.
+            </p>
           ) : chosenLot && chosenLot.estimateOnly ? (
-            <p className="text-sm">This lot has no germination test yet, so the seeds to sow cannot be worked out. Test it first.</p>
+            <p className="text-sm">
+              This lot has no germination test yet, so the seeds to sow cannot be worked out. Test it first.
+            </p>
           ) : seeds.data ? (
             <p className="text-sm">
               {seeds.data.explanation}
-              {seeds.data.enoughStock ? null : <strong className="text-clay-800"> The lot has only {seeds.data.seedsOnHand} seeds.</strong>}
+              {seeds.data.enoughStock ? null : (
+                <strong className="text-clay-800"> The lot has only {seeds.data.seedsOnHand} seeds.</strong>
+              )}
             </p>
           ) : !lotId ? (
-            <p className="text-sm">Hilum chooses the tested lot most likely to give these plants, and works out how many seeds to sow.</p>
+            <p className="text-sm">
+              Hilum chooses the tested lot most likely to give these plants, and works out how many seeds to
+              sow.
+            </p>
           ) : null}
         </div>
       ) : null}
 
       <div>
-        <Button type="submit" isLoading={create.isPending} disabled={Boolean(preview.problem)} className="w-full sm:w-auto">
+        <Button
+          type="submit"
+          isLoading={create.isPending}
+          disabled={Boolean(preview.problem)}
+          className="w-full sm:w-auto"
+        >
           {create.isPending ? 'Adding…' : 'Add to plan'}
         </Button>
       </div>
@@ -209,8 +238,12 @@ export function PlanEntryForm({ bankId, season, species, lastFrost, marginDays, 
 
 function startHint(species: SpeciesDto): string {
   const t = species.traits;
-  const window = t.startWeeksFrom != null && t.startWeeksTo != null ? ` ${t.startWeeksFrom}–${t.startWeeksTo} weeks before the last frost` : '';
+  const window =
+    t.startWeeksFrom != null && t.startWeeksTo != null
+      ? ` ${t.startWeeksFrom}–${t.startWeeksTo} weeks before the last frost`
+      : '';
   if (t.startMethod === 'direct') return `${species.commonName} is usually sown direct.`;
-  if (t.startMethod === 'either') return `${species.commonName} can be started indoors${window} or sown direct.`;
+  if (t.startMethod === 'either')
+    return `${species.commonName} can be started indoors${window} or sown direct.`;
   return `${species.commonName} is usually started indoors${window}.`;
 }

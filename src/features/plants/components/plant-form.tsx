@@ -1,22 +1,25 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useMemo, useState } from 'react';
-import { Controller, useForm, useWatch } from 'react-hook-form';
+import { useState } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
 import { createPlantBodySchema, type ParentPlantDto } from '../../../../shared/schemas/lots';
 import type { SpeciesDto } from '../../../../shared/schemas/species';
 import { Button } from '../../../components/ui/button';
-import { Combobox } from '../../../components/ui/combobox';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { PhotoPicker } from '../../../components/ui/photo-picker';
 import { ProgressBar } from '../../../components/ui/progress-bar';
+import { SpeciesPicker } from '../../../components/ui/species-picker';
+import { TextAreaField } from '../../../components/ui/text-area-field';
 import { TextField } from '../../../components/ui/text-field';
 import { applyServerError } from '../../../lib/form-errors';
 import { useCreatePlant } from '../api/create-plant';
 import { HybridCaution } from './plant-cautions';
 
 const resolver = zodResolver(createPlantBodySchema, {
-  error: (issue) => ((issue as { expected?: unknown }).expected === 'number' ? 'Enter a year, e.g. 2025.' : undefined),
+  error: (issue) =>
+    (issue as { expected?: unknown }).expected === 'number' ? 'Enter a year, e.g. 2025.' : undefined,
 });
-const numberOrNull = (value: unknown) => (value === '' || value === null || value === undefined ? null : Number(value));
+const numberOrNull = (value: unknown) =>
+  value === '' || value === null || value === undefined ? null : Number(value);
 
 export interface PlantFormProps {
   bankId: string;
@@ -26,12 +29,23 @@ export interface PlantFormProps {
   /** The current season, to start the season box with. */
   season: number;
   /** After the plant is saved: upload the photo (reporting progress) and move on. */
-  onCreated: (plant: ParentPlantDto, photo: File | null, onPhotoProgress: (fraction: number) => void) => Promise<void>;
+  onCreated: (
+    plant: ParentPlantDto,
+    photo: File | null,
+    onPhotoProgress: (fraction: number) => void,
+  ) => Promise<void>;
   onCancel?: () => void;
 }
 
 /** A parent plant or row that seed is saved from. */
-export function PlantForm({ bankId, species, initialSpeciesId, season, onCreated, onCancel }: PlantFormProps) {
+export function PlantForm({
+  bankId,
+  species,
+  initialSpeciesId,
+  season,
+  onCreated,
+  onCancel,
+}: PlantFormProps) {
   const create = useCreatePlant(bankId);
   const [formError, setFormError] = useState<string>();
   const [photo, setPhoto] = useState<File | null>(null);
@@ -57,10 +71,6 @@ export function PlantForm({ bankId, species, initialSpeciesId, season, onCreated
     },
   });
   const hybrid = useWatch({ control, name: 'hybrid' });
-  const options = useMemo(
-    () => species.map((s) => ({ value: s.id, label: s.commonName, description: s.scientificName })),
-    [species],
-  );
 
   const onSubmit = handleSubmit(async (body) => {
     setFormError(undefined);
@@ -72,10 +82,28 @@ export function PlantForm({ bankId, species, initialSpeciesId, season, onCreated
         setProgress(0);
       }
       await onCreated(plant, photo, setProgress);
-      reset({ speciesId: body.speciesId, label: '', variety: body.variety ?? '', location: body.location ?? '', season: body.season ?? season, hybrid: false, notes: '' });
+      reset({
+        speciesId: body.speciesId,
+        label: '',
+        variety: body.variety ?? '',
+        location: body.location ?? '',
+        season: body.season ?? season,
+        hybrid: false,
+        notes: '',
+      });
       setPhoto(null);
     } catch (error) {
-      setFormError(applyServerError(error, setError, ['speciesId', 'label', 'variety', 'location', 'season', 'hybrid', 'notes']));
+      setFormError(
+        applyServerError(error, setError, [
+          'speciesId',
+          'label',
+          'variety',
+          'location',
+          'season',
+          'hybrid',
+          'notes',
+        ]),
+      );
     } finally {
       setPhase(null);
     }
@@ -84,23 +112,12 @@ export function PlantForm({ bankId, species, initialSpeciesId, season, onCreated
   return (
     <form noValidate onSubmit={onSubmit} className="grid gap-4" aria-label="New parent plant">
       <FormAlert>{formError}</FormAlert>
-      <Controller
+      <SpeciesPicker
         control={control}
         name="speciesId"
-        render={({ field, fieldState }) => (
-          <Combobox
-            label="Species"
-            required
-            placeholder="Type to search"
-            options={options}
-            value={field.value}
-            onChange={field.onChange}
-            onBlur={field.onBlur}
-            ref={field.ref}
-            name={field.name}
-            error={fieldState.error ? 'Choose a species from the list.' : undefined}
-          />
-        )}
+        species={species}
+        hint={null}
+        placeholder="Type to search"
       />
       <TextField
         label="Label"
@@ -112,8 +129,18 @@ export function PlantForm({ bankId, species, initialSpeciesId, season, onCreated
         {...register('label')}
       />
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Variety" autoComplete="off" error={errors.variety?.message} {...register('variety')} />
-        <TextField label="Garden location" autoComplete="off" error={errors.location?.message} {...register('location')} />
+        <TextField
+          label="Variety"
+          autoComplete="off"
+          error={errors.variety?.message}
+          {...register('variety')}
+        />
+        <TextField
+          label="Garden location"
+          autoComplete="off"
+          error={errors.location?.message}
+          {...register('location')}
+        />
         <TextField
           label="Season"
           type="number"
@@ -130,18 +157,14 @@ export function PlantForm({ bankId, species, initialSpeciesId, season, onCreated
         <span className="font-semibold text-loam-900">An F1 hybrid</span>
       </label>
       {hybrid ? <HybridCaution /> : null}
-      <div className="flex flex-col gap-1">
-        <label htmlFor="plant-notes" className="font-semibold text-loam-900">
-          Notes
-        </label>
-        <textarea
-          id="plant-notes"
-          rows={3}
-          className="w-full rounded-lg border border-loam-300 bg-white px-3 py-2 text-base text-loam-900"
-          {...register('notes')}
-        />
-      </div>
-      <PhotoPicker label="Photo" hint="Optional. Uploaded once the plant is saved." file={photo} onChange={setPhoto} disabled={phase !== null} />
+      <TextAreaField label="Notes" error={errors.notes?.message} {...register('notes')} />
+      <PhotoPicker
+        label="Photo"
+        hint="Optional. Uploaded once the plant is saved."
+        file={photo}
+        onChange={setPhoto}
+        disabled={phase !== null}
+      />
       {phase === 'uploading' ? <ProgressBar value={progress} label="Uploading the photo" /> : null}
       <div className="flex flex-wrap gap-2">
         <Button type="submit" isLoading={phase !== null}>
