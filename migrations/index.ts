@@ -11,6 +11,7 @@ import * as m20261201000600 from './2026_12_01_000600_reminders';
 import * as m20261201000700 from './2026_12_01_000700_treated_seed';
 import * as m20261202000000 from './2026_12_02_000000_stored_test_results';
 import * as m20261202000100 from './2026_12_02_000100_test_set_aside';
+import * as m20261202000200 from './2026_12_02_000200_stored_lot_figures';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_000000_accounts_and_banks': m20261201000000,
@@ -23,4 +24,5 @@ export const migrations: Record<string, Migration> = {
   '2026_12_01_000700_treated_seed': m20261201000700,
   '2026_12_02_000000_stored_test_results': m20261202000000,
   '2026_12_02_000100_test_set_aside': m20261202000100,
+  '2026_12_02_000200_stored_lot_figures': m20261202000200,
 };

@@ -9,7 +9,9 @@ export interface Clock {
 export const systemClock: Clock = { now: () => new Date() };
 
 /** A clock for tests: starts at `start` and moves only when told. */
-export function createTestClock(start: Date | string): Clock & { set(at: Date | string): void; advanceDays(days: number): void } {
+export function createTestClock(
+  start: Date | string,
+): Clock & { set(at: Date | string): void; advanceDays(days: number): void } {
   let current = new Date(start);
   return {
     now: () => new Date(current),
@@ -27,6 +29,13 @@ export function createTestClock(start: Date | string): Clock & { set(at: Date | 
  * it is in the future for the bank's members, so a harvest, count or sowing cannot carry it.
  */
 export async function bankToday(db: DbOrTx, clock: Clock, bankId: string): Promise<string> {
-  const bank = await db.selectFrom('banks').select('time_zone').where('id', '=', bankId).executeTakeFirstOrThrow();
-  return localNow(clock.now(), bank.time_zone).date;
+  const bank = await db
+    .selectFrom('banks')
+    .select('time_zone')
+    .where('id', '=', bankId)
+    .executeTakeFirstOrThrow();
+  return todayInZone(clock, bank.time_zone);
 }
+
+/** The same day, for a caller that has already read the bank's `time_zone`. */
+export const todayInZone = (clock: Clock, timeZone: string): string => localNow(clock.now(), timeZone).date;

@@ -178,6 +178,17 @@ export interface LotTable {
   created_by: string | null;
   created_at: Timestamp;
   updated_at: Timestamp;
+  /** Kept by the database from the stock ledger, lot_parents and photos (never written by the app). */
+  seeds_on_hand: ColumnType<number, never, never>;
+  parent_plant_ids: ColumnType<string[], never, never>;
+  first_photo_id: ColumnType<string | null, never, never>;
+}
+
+/** Moves whenever an input of a bank's viability fits of one species changes (set by triggers). */
+export interface ViabilityStampTable {
+  bank_id: string;
+  species_id: string;
+  stamp: ColumnType<number, never, never>;
 }
 
 export interface LotParentTable {
@@ -298,6 +309,7 @@ export interface Database {
   tray_counts: TrayCountTable;
   plan_entries: PlanEntryTable;
   reminders: ReminderTable;
+  viability_stamps: ViabilityStampTable;
 }
 
 export type User = Selectable<UserTable>;

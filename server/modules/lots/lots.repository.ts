@@ -1,6 +1,6 @@
-import { CompiledQuery, sql, type ExpressionBuilder, type Insertable, type Updateable } from 'kysely';
+import { CompiledQuery, sql, type Insertable, type Updateable } from 'kysely';
 import type { DbOrTx } from '../../db/database';
-import type { Database, LotStatus, LotTable } from '../../db/schema';
+import type { LotStatus, LotTable } from '../../db/schema';
 
 const num = (v: string | null) => (v === null ? null : Number(v));
 
@@ -34,35 +34,71 @@ export function lotsQuery(db: DbOrTx, bankId: string) {
       'lots.notes',
       'species.common_name as species_name',
       'species.scientific_name as scientific_name',
+      // Kept on the row by the database from the stock ledger, lot_parents and photos.
+      'lots.seeds_on_hand',
+      'lots.parent_plant_ids',
+      'lots.first_photo_id',
     ])
-    .select((eb: ExpressionBuilder<Database, 'lots' | 'species'>) => [
+    .select([
       // As text: parsing two timestamps into Dates per row, only to print them again, cost more
       // than the rest of a row.
       isoTimestamp('lots.created_at').as('created_at'),
       isoTimestamp('lots.updated_at').as('updated_at'),
-      eb
-        .selectFrom('stock_movements')
-        .select(sql<number>`coalesce(sum(change), 0)::int`.as('s'))
-        .whereRef('stock_movements.lot_id', '=', 'lots.id')
-        .as('seeds_on_hand'),
-      eb
-        .selectFrom('lot_parents')
-        .select(sql<string[]>`coalesce(array_agg(parent_plant_id::text order by parent_plant_id), '{}')`.as('p'))
-        .whereRef('lot_parents.lot_id', '=', 'lots.id')
-        .as('parent_plant_ids'),
-      eb
-        .selectFrom('photos')
-        .select('photos.id')
-        .whereRef('photos.subject_id', '=', 'lots.id')
-        .where('photos.subject', '=', 'lot')
-        .orderBy('photos.created_at')
-        .limit(1)
-        .as('first_photo_id'),
     ])
     .where('lots.bank_id', '=', bankId);
 }
 
 export type LotRow = Awaited<ReturnType<ReturnType<typeof lotsQuery>['executeTakeFirstOrThrow']>>;
+
+const thumbUrl = (photoId: string | null) => (photoId ? `/api/photos/${photoId}?size=thumb` : null);
+
+/**
+ * The lots of a bank (or of one species) with only what viability fits and decisions read: the
+ * ranking reads thousands of them, so nothing else is fetched or parsed.
+ */
+export async function lotsForDecisions(db: DbOrTx, bankId: string, speciesId?: string) {
+  let q = db
+    .selectFrom('lots')
+    .innerJoin('species', 'species.id', 'lots.species_id')
+    .select([
+      'lots.id',
+      'lots.code',
+      'lots.species_id',
+      'species.common_name as species_name',
+      'lots.variety',
+      'lots.origin',
+      'lots.source_name',
+      'lots.harvest_date',
+      'lots.packed_for_season',
+      'lots.storage_place',
+      'lots.storage_temp_c',
+      'lots.treated',
+      'lots.status',
+      'lots.seeds_on_hand',
+      'lots.first_photo_id',
+    ])
+    .where('lots.bank_id', '=', bankId);
+  if (speciesId) q = q.where('lots.species_id', '=', speciesId);
+  const rows = await q.orderBy('lots.code').execute();
+  return rows.map((row) => ({
+    id: row.id,
+    code: row.code,
+    speciesId: row.species_id,
+    speciesName: row.species_name,
+    variety: row.variety,
+    origin: row.origin,
+    sourceName: row.source_name,
+    harvestDate: row.harvest_date,
+    packedForSeason: row.packed_for_season,
+    storage: { place: row.storage_place, temperatureC: num(row.storage_temp_c) },
+    treated: row.treated,
+    status: row.status,
+    seedsOnHand: row.seeds_on_hand,
+    thumbUrl: thumbUrl(row.first_photo_id),
+  }));
+}
+
+export type DecisionLot = Awaited<ReturnType<typeof lotsForDecisions>>[number];
 
 export function toLotDto(row: LotRow) {
   return {
@@ -90,7 +126,7 @@ export function toLotDto(row: LotRow) {
     notes: row.notes,
     seedsOnHand: row.seeds_on_hand ?? 0,
     parentPlantIds: row.parent_plant_ids ?? [],
-    thumbUrl: row.first_photo_id ? `/api/photos/${row.first_photo_id}?size=thumb` : null,
+    thumbUrl: thumbUrl(row.first_photo_id),
     createdAt: row.created_at,
     updatedAt: row.updated_at,
   };
@@ -142,7 +178,10 @@ export async function lotsPage(db: DbOrTx, bankId: string, filters: LotPageFilte
       );
     }
     if (filters.cursor) q = q.where(sql<string>`lower(lots.code)`, '>', SLOT.cursor);
-    compiled = q.orderBy(sql`lower(lots.code)`).limit(sql<number>`${SLOT.limit}`).compile();
+    compiled = q
+      .orderBy(sql`lower(lots.code)`)
+      .limit(sql<number>`${SLOT.limit}`)
+      .compile();
     compiledPages.set(shape, compiled);
   }
   const values: Record<Slot, unknown> = {

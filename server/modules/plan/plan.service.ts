@@ -1,4 +1,3 @@
-import { sql } from 'kysely';
 import type { z } from 'zod';
 import { planDates, PlanDateError } from '../../../shared/plan-dates';
 import type { CreatePlanBody, PlanEntryDto, updatePlanBodySchema } from '../../../shared/schemas/plan';
@@ -9,22 +8,24 @@ import { lockLot, stockOf } from '../lots/lots.repository';
 import { findSpecies } from '../species/species.service';
 import type { ViabilityService } from '../viability/viability.service';
 
-export function createPlanService({ db, clock, viability }: { db: Db; clock: Clock; viability: ViabilityService }) {
+export function createPlanService({
+  db,
+  clock,
+  viability,
+}: {
+  db: Db;
+  clock: Clock;
+  viability: ViabilityService;
+}) {
   const entries = (bankId: string) =>
     db
       .selectFrom('plan_entries')
       .innerJoin('species', 'species.id', 'plan_entries.species_id')
       .leftJoin('lots', 'lots.id', 'plan_entries.lot_id')
       .selectAll('plan_entries')
-      .select(['species.common_name as species_name', 'lots.code as lot_code'])
-      // The lot's stock now, so the planner can say before "Mark sown" that it falls short.
-      .select((eb) =>
-        eb
-          .selectFrom('stock_movements')
-          .select(sql<number>`coalesce(sum(change), 0)::int`.as('total'))
-          .whereRef('stock_movements.lot_id', '=', 'plan_entries.lot_id')
-          .as('seeds_on_hand'),
-      )
+      // The lot's stock now (kept on the lot from its ledger), so the planner can say before
+      // "Mark sown" that it falls short.
+      .select(['species.common_name as species_name', 'lots.code as lot_code', 'lots.seeds_on_hand'])
       .where('plan_entries.bank_id', '=', bankId);
 
   type Row = Awaited<ReturnType<ReturnType<typeof entries>['executeTakeFirstOrThrow']>>;
@@ -57,13 +58,33 @@ export function createPlanService({ db, clock, viability }: { db: Db; clock: Clo
   }
 
   /** Dates from the frost date, the suggested (or chosen) lot, and the seeds to sow. */
-  async function compute(bankId: string, input: { season: number; speciesId: string; plantsWanted: number; start: 'indoors' | 'direct'; lotId: string | null }) {
-    const bank = await db.selectFrom('banks').select(['last_frost', 'frost_margin_days']).where('id', '=', bankId).executeTakeFirstOrThrow();
+  async function compute(
+    bankId: string,
+    input: {
+      season: number;
+      speciesId: string;
+      plantsWanted: number;
+      start: 'indoors' | 'direct';
+      lotId: string | null;
+    },
+  ) {
+    const bank = await db
+      .selectFrom('banks')
+      .select(['last_frost', 'frost_margin_days'])
+      .where('id', '=', bankId)
+      .executeTakeFirstOrThrow();
     const species = await findSpecies(db, bankId, input.speciesId);
-    if (!species) throw badRequest('That species is not in the list.', { speciesId: 'Choose a species from the list.' });
+    if (!species)
+      throw badRequest('That species is not in the list.', { speciesId: 'Choose a species from the list.' });
     let dates;
     try {
-      dates = planDates({ season: input.season, lastFrost: bank.last_frost, marginDays: bank.frost_margin_days, traits: species.traits, start: input.start });
+      dates = planDates({
+        season: input.season,
+        lastFrost: bank.last_frost,
+        marginDays: bank.frost_margin_days,
+        traits: species.traits,
+        start: input.start,
+      });
     } catch (error) {
       if (error instanceof PlanDateError) throw unprocessable(error.message);
       throw error;
@@ -73,19 +94,34 @@ export function createPlanService({ db, clock, viability }: { db: Db; clock: Clo
     let lotId = input.lotId;
     let seeds: number | null = null;
     if (lotId) {
-      const lot = await db.selectFrom('lots').select(['id', 'species_id']).where('id', '=', lotId).where('bank_id', '=', bankId).executeTakeFirst();
-      if (!lot || lot.species_id !== species.id) throw badRequest('Choose a lot of this species from this bank.', { lotId: 'Not a lot of this species.' });
+      const lot = await db
+        .selectFrom('lots')
+        .select(['id', 'species_id'])
+        .where('id', '=', lotId)
+        .where('bank_id', '=', bankId)
+        .executeTakeFirst();
+      if (!lot || lot.species_id !== species.id)
+        throw badRequest('Choose a lot of this species from this bank.', {
+          lotId: 'Not a lot of this species.',
+        });
       const c = candidates.find((x) => x.lotId === lotId);
       if (c) {
         seeds = c.seeds;
-        if (!c.enough) notes.push(`Lot ${c.code} has ${c.seedsOnHand} seeds; ${c.seeds} are needed for ${input.plantsWanted} plants.`);
+        if (!c.enough)
+          notes.push(
+            `Lot ${c.code} has ${c.seedsOnHand} seeds; ${c.seeds} are needed for ${input.plantsWanted} plants.`,
+          );
       } else {
-        notes.push('The chosen lot has no germination test yet, so the seeds to sow cannot be worked out. Test it first.');
+        notes.push(
+          'The chosen lot has no germination test yet, so the seeds to sow cannot be worked out. Test it first.',
+        );
       }
     } else {
       const best = candidates[0];
       if (!best) {
-        notes.push(`No tested lot of ${species.commonName} to suggest. Log a lot and test it, or choose one.`);
+        notes.push(
+          `No tested lot of ${species.commonName} to suggest. Log a lot and test it, or choose one.`,
+        );
       } else {
         lotId = best.lotId;
         seeds = best.seeds;
@@ -102,7 +138,11 @@ export function createPlanService({ db, clock, viability }: { db: Db; clock: Clo
   return {
     get,
     async list(bankId: string, season: number) {
-      const rows = await entries(bankId).where('plan_entries.season', '=', season).orderBy('plan_entries.sow_from').orderBy('species.common_name').execute();
+      const rows = await entries(bankId)
+        .where('plan_entries.season', '=', season)
+        .orderBy('plan_entries.sow_from')
+        .orderBy('species.common_name')
+        .execute();
       return rows.map(toDto);
     },
 
@@ -135,7 +175,8 @@ export function createPlanService({ db, clock, viability }: { db: Db; clock: Clo
 
     async update(bankId: string, entryId: string, body: z.infer<typeof updatePlanBodySchema>) {
       const current = await get(bankId, entryId);
-      if (current.sownOn) throw conflict('This entry is marked sown. Undo that first to change it.', 'already_sown');
+      if (current.sownOn)
+        throw conflict('This entry is marked sown. Undo that first to change it.', 'already_sown');
       const lotChosen = body.lotId !== undefined ? body.lotId !== null : current.lotChosen;
       const input = {
         season: current.season,
@@ -169,7 +210,11 @@ export function createPlanService({ db, clock, viability }: { db: Db; clock: Clo
 
     async remove(bankId: string, entryId: string) {
       const current = await get(bankId, entryId);
-      if (current.sownOn) throw conflict('This entry is marked sown. Undo that first, so the seeds go back to the lot.', 'already_sown');
+      if (current.sownOn)
+        throw conflict(
+          'This entry is marked sown. Undo that first, so the seeds go back to the lot.',
+          'already_sown',
+        );
       await db.deleteFrom('plan_entries').where('id', '=', entryId).execute();
     },
 
@@ -177,24 +222,51 @@ export function createPlanService({ db, clock, viability }: { db: Db; clock: Clo
     async markSown(bankId: string, entryId: string, userId: string, date?: string) {
       const today = await bankToday(db, clock, bankId);
       const on = date ?? today;
-      if (on > today) throw unprocessable('A sowing cannot be dated in the future.', { date: 'Use today or an earlier date.' });
+      if (on > today)
+        throw unprocessable('A sowing cannot be dated in the future.', {
+          date: 'Use today or an earlier date.',
+        });
       await db.transaction().execute(async (trx) => {
-        const entry = await trx.selectFrom('plan_entries').selectAll().where('id', '=', entryId).where('bank_id', '=', bankId).forUpdate().executeTakeFirst();
+        const entry = await trx
+          .selectFrom('plan_entries')
+          .selectAll()
+          .where('id', '=', entryId)
+          .where('bank_id', '=', bankId)
+          .forUpdate()
+          .executeTakeFirst();
         if (!entry) throw notFound('No such plan entry in this bank.');
         if (entry.sown_on) throw conflict(`Already marked sown on ${entry.sown_on}.`, 'already_sown');
-        if (!entry.lot_id || !entry.seeds_to_sow) throw unprocessable('Choose a tested lot for this entry first, so Hilum knows how many seeds to take.');
+        if (!entry.lot_id || !entry.seeds_to_sow)
+          throw unprocessable(
+            'Choose a tested lot for this entry first, so Hilum knows how many seeds to take.',
+          );
         const lot = await lockLot(trx, bankId, entry.lot_id);
         if (!lot) throw notFound('The lot of this entry is gone.');
         const onHand = await stockOf(trx, entry.lot_id);
         if (onHand < entry.seeds_to_sow) {
-          throw new AppError(409, 'stock_below_zero', `The lot has ${onHand} seeds; this sowing needs ${entry.seeds_to_sow}. Sow fewer or choose another lot.`);
+          throw new AppError(
+            409,
+            'stock_below_zero',
+            `The lot has ${onHand} seeds; this sowing needs ${entry.seeds_to_sow}. Sow fewer or choose another lot.`,
+          );
         }
         const movement = await trx
           .insertInto('stock_movements')
-          .values({ lot_id: entry.lot_id, kind: 'sown', change: -entry.seeds_to_sow, date: on, reason: `Sown for ${entry.plants_wanted} plants (season plan ${entry.season})`, created_by: userId })
+          .values({
+            lot_id: entry.lot_id,
+            kind: 'sown',
+            change: -entry.seeds_to_sow,
+            date: on,
+            reason: `Sown for ${entry.plants_wanted} plants (season plan ${entry.season})`,
+            created_by: userId,
+          })
           .returning('id')
           .executeTakeFirstOrThrow();
-        await trx.updateTable('plan_entries').set({ sown_on: on, sown_movement_id: movement.id, updated_at: clock.now() }).where('id', '=', entryId).execute();
+        await trx
+          .updateTable('plan_entries')
+          .set({ sown_on: on, sown_movement_id: movement.id, updated_at: clock.now() })
+          .where('id', '=', entryId)
+          .execute();
         if (onHand === entry.seeds_to_sow && lot.status === 'active') {
           await trx.updateTable('lots').set({ status: 'depleted' }).where('id', '=', entry.lot_id).execute();
         }
@@ -205,11 +277,22 @@ export function createPlanService({ db, clock, viability }: { db: Db; clock: Clo
     /** Puts the seeds back: the ledger line goes, the mark goes. */
     async undoSown(bankId: string, entryId: string) {
       await db.transaction().execute(async (trx) => {
-        const entry = await trx.selectFrom('plan_entries').selectAll().where('id', '=', entryId).where('bank_id', '=', bankId).forUpdate().executeTakeFirst();
+        const entry = await trx
+          .selectFrom('plan_entries')
+          .selectAll()
+          .where('id', '=', entryId)
+          .where('bank_id', '=', bankId)
+          .forUpdate()
+          .executeTakeFirst();
         if (!entry) throw notFound('No such plan entry in this bank.');
         if (!entry.sown_on) throw conflict('This entry is not marked sown.', 'not_sown');
-        if (entry.sown_movement_id) await trx.deleteFrom('stock_movements').where('id', '=', entry.sown_movement_id).execute();
-        await trx.updateTable('plan_entries').set({ sown_on: null, sown_movement_id: null, updated_at: clock.now() }).where('id', '=', entryId).execute();
+        if (entry.sown_movement_id)
+          await trx.deleteFrom('stock_movements').where('id', '=', entry.sown_movement_id).execute();
+        await trx
+          .updateTable('plan_entries')
+          .set({ sown_on: null, sown_movement_id: null, updated_at: clock.now() })
+          .where('id', '=', entryId)
+          .execute();
         if (entry.lot_id) {
           const lot = await lockLot(trx, bankId, entry.lot_id);
           if (lot?.status === 'depleted' && (await stockOf(trx, entry.lot_id)) > 0) {

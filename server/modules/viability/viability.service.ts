@@ -1,6 +1,6 @@
 import { dayInWords } from '../../../shared/day-words';
 import type { SpeciesDto } from '../../../shared/schemas/species';
-import { bankToday, systemClock, type Clock } from '../../clock';
+import { systemClock, todayInZone, type Clock } from '../../clock';
 import type { Db } from '../../db/database';
 import { sql } from 'kysely';
 import { notFound, unprocessable } from '../../http/errors';
@@ -14,7 +14,7 @@ import {
   type ModelTest,
 } from '../../stats/viability-model';
 import { listSpecies } from '../species/species.service';
-import { lotsQuery, toLotDto } from '../lots/lots.repository';
+import { lotsForDecisions, type DecisionLot } from '../lots/lots.repository';
 import { decide, retestDueDate, straddles, type Recommendation } from './recommend';
 
 const DAY_MS = 86_400_000;
@@ -24,11 +24,15 @@ const YEAR_DAYS = 365.25;
  * When the seed was harvested, as the model's age zero. A bought packet "packed for" season S was
  * most likely harvested the autumn before: we take 1 September of S − 1 (our assumption).
  */
-export function harvestReference(lot: { harvestDate: string | null; packedForSeason: number | null }): string {
+export function harvestReference(lot: {
+  harvestDate: string | null;
+  packedForSeason: number | null;
+}): string {
   return lot.harvestDate ?? `${(lot.packedForSeason ?? 2000) - 1}-09-01`;
 }
 
-export const ageYears = (from: string, to: string) => (Date.parse(to) - Date.parse(from)) / DAY_MS / YEAR_DAYS;
+export const ageYears = (from: string, to: string) =>
+  (Date.parse(to) - Date.parse(from)) / DAY_MS / YEAR_DAYS;
 
 /**
  * Storage scaling of the typical seed life. We read a handbook's "seed life under good storage"
@@ -40,7 +44,10 @@ export const ageYears = (from: string, to: string) => (Date.parse(to) - Date.par
 const REFERENCE_STORAGE_C = 15;
 const PLACE_TEMPERATURE_C = { room: 20, fridge: 5, freezer: -18, other: null } as const;
 
-export function storageTemperature(storage: { place: keyof typeof PLACE_TEMPERATURE_C | null; temperatureC: number | null }): number | null {
+export function storageTemperature(storage: {
+  place: keyof typeof PLACE_TEMPERATURE_C | null;
+  temperatureC: number | null;
+}): number | null {
   if (storage.temperatureC !== null) return storage.temperatureC;
   return storage.place ? PLACE_TEMPERATURE_C[storage.place] : null;
 }
@@ -63,10 +70,12 @@ interface TestAggregate {
   set_aside_reason: string | null;
 }
 
-/** Every test of the bank (or of one species) with its stored result, oldest first. */
-async function testAggregates(db: Db, bankId: string, speciesId?: string): Promise<TestAggregate[]> {
-  let q = db
+/** The tests of the bank's lots of the given species, with their stored results, oldest first. */
+async function testAggregates(db: Db, bankId: string, speciesIds: string[]): Promise<TestAggregate[]> {
+  if (speciesIds.length === 0) return [];
+  return db
     .selectFrom('germination_tests as t')
+    .innerJoin('lots as l', 'l.id', 't.lot_id')
     .select([
       't.id',
       't.lot_id',
@@ -81,18 +90,35 @@ async function testAggregates(db: Db, bankId: string, speciesId?: string): Promi
       't.set_aside_reason',
     ])
     .where('t.bank_id', '=', bankId)
+    .where('l.species_id', 'in', speciesIds)
     .orderBy('t.start_date')
-    .orderBy('t.created_at');
-  if (speciesId) q = q.innerJoin('lots as l', 'l.id', 't.lot_id').where('l.species_id', '=', speciesId);
-  return q.execute();
+    .orderBy('t.created_at')
+    .execute();
+}
+
+/** Each species' viability stamp in the bank: it moves whenever an input of its fits changes. */
+async function viabilityStamps(db: Db, bankId: string): Promise<Map<string, string>> {
+  const rows = await db
+    .selectFrom('viability_stamps')
+    .select(['species_id', 'stamp'])
+    .where('bank_id', '=', bankId)
+    .execute();
+  return new Map(rows.map((r) => [r.species_id, String(r.stamp)]));
 }
 
 /** A test counts toward the decline once finished, or once counted up to the species' final count day. */
-function usable(t: TestAggregate, species: SpeciesDto | undefined): t is TestAggregate & { sown: number; germinated: number } {
+function usable(
+  t: TestAggregate,
+  species: SpeciesDto | undefined,
+): t is TestAggregate & { sown: number; germinated: number } {
   if (t.sown === null || t.germinated === null || t.sown <= 0 || t.set_aside_reason !== null) return false;
   if (t.status === 'finished') return true;
   const final = species?.traits.finalCountDay;
-  return final != null && t.last_count_date !== null && Date.parse(t.last_count_date) - Date.parse(t.start_date) >= final * DAY_MS;
+  return (
+    final != null &&
+    t.last_count_date !== null &&
+    Date.parse(t.last_count_date) - Date.parse(t.start_date) >= final * DAY_MS
+  );
 }
 
 /** A usable test as the lot page's chart and the model read it. */
@@ -120,37 +146,45 @@ export interface LotViability {
   reasonNoFit: string | null;
 }
 
-type LotDto = ReturnType<typeof toLotDto>;
 type LotFit = Pick<LotViability, 'model' | 'reasonNoFit'>;
 
+/** One species' fitted lots in one bank, with what they were fitted from. */
+interface SpeciesFits {
+  /** The species' viability stamp when its lots and tests were read (see viabilityStamps). */
+  stamp: string;
+  /** The species traits the fits read. */
+  traits: string;
+  byLot: Map<string, LotViability>;
+}
+
 /**
- * Fitted models by their inputs. A species' lots are fitted together (they share the species'
- * rate), so the key is everything the fits of one species read: the lots' usable tests (stored
- * results), their equivalent ages and the species' typical life. Equal inputs give equal fits, so a
- * cached fit is never stale, and a change to any input simply misses the cache.
+ * Fitted lots by bank and species, most recently used last. A species' lots are fitted together
+ * (they share the species' rate); an entry is current while the species' stamp (moved by the
+ * database on every change to its lots' dates or storage and to their tests), its traits and its
+ * set of lots are unchanged. A stale entry is simply fitted again.
  */
 export class FitCache {
-  private readonly entries = new Map<string, Map<string, LotFit>>();
+  private readonly entries = new Map<string, SpeciesFits>();
   constructor(private readonly capacity = 256) {}
 
-  get(key: string): Map<string, LotFit> | undefined {
+  get(key: string): SpeciesFits | undefined {
     const hit = this.entries.get(key);
     if (hit) {
-      // Most recently used last.
       this.entries.delete(key);
       this.entries.set(key, hit);
     }
     return hit;
   }
 
-  set(key: string, fits: Map<string, LotFit>): void {
+  set(key: string, fits: SpeciesFits): void {
+    this.entries.delete(key);
     this.entries.set(key, fits);
     while (this.entries.size > this.capacity) this.entries.delete(this.entries.keys().next().value!);
   }
 }
 
 /** The storage's rate of ageing against the reference storage, and its note for the grower. */
-function storageScale(lot: LotDto): { rateFactor: number; note: string | null } {
+function storageScale(lot: DecisionLot): { rateFactor: number; note: string | null } {
   const temp = storageTemperature(lot.storage);
   if (temp === null) {
     return { rateFactor: 1, note: 'Storage temperature not recorded: taken as a cool room (about 15 °C).' };
@@ -162,58 +196,127 @@ function storageScale(lot: LotDto): { rateFactor: number; note: string | null } 
   };
 }
 
-/** Fits every lot of the given lists, species by species, through the cache. */
-function fitLots(lots: LotDto[], tests: TestAggregate[], species: Map<string, SpeciesDto>, cache: FitCache): Map<string, LotViability> {
+/** Fits one species' lots together, from their usable tests. */
+function fitSpecies(
+  group: DecisionLot[],
+  tests: TestAggregate[],
+  sp: SpeciesDto | undefined,
+): Map<string, LotViability> {
   const testsByLot = new Map<string, TestAggregate[]>();
   for (const t of tests) {
     const list = testsByLot.get(t.lot_id);
     if (list) list.push(t);
     else testsByLot.set(t.lot_id, [t]);
   }
-  const out = new Map<string, LotViability>();
-  const lotsBySpecies = new Map<string, LotDto[]>();
+  const prepared = group.map((lot) => {
+    const ref = harvestReference(lot);
+    const all = testsByLot.get(lot.id) ?? [];
+    const points: ViabilityPoint[] = all
+      .filter((t) => usable(t, sp))
+      .map((t) => ({
+        testId: t.id,
+        date: t.start_date,
+        ageYears: Math.max(0, ageYears(ref, t.start_date)),
+        germinated: t.germinated!,
+        sown: t.sown!,
+        fresh: t.fresh,
+      }));
+    const scale = storageScale(lot);
+    const modelTests: ModelTest[] = points.map((p) => ({
+      id: p.testId,
+      age: p.ageYears * scale.rateFactor,
+      alive: p.germinated + (p.fresh ?? 0),
+      sown: p.sown,
+    }));
+    return { lot, ref, all, points, scale, modelTests };
+  });
+  const results = fitSpeciesModel(
+    prepared.map((p) => ({ id: p.lot.id, tests: p.modelTests })),
+    { typicalLifeYears: sp?.traits.storageLifeYears ?? null },
+  );
+  const fits = new Map<string, LotFit>(
+    results.map((r) => [
+      r.ok ? r.model.lotId : r.lotId,
+      r.ok
+        ? { model: r.model, reasonNoFit: null }
+        : { model: null, reasonNoFit: `The decline cannot be estimated: ${r.reason}` },
+    ]),
+  );
+  return new Map(
+    prepared.map((p) => [
+      p.lot.id,
+      {
+        ...fits.get(p.lot.id)!,
+        tests: p.points,
+        setAside: p.all
+          .filter((t) => t.set_aside_reason !== null)
+          .map((t) => ({ testId: t.id, date: t.start_date, reason: t.set_aside_reason! })),
+        lastTest: p.all.filter((t) => t.set_aside_reason === null).at(-1) ?? null,
+        harvestRef: p.ref,
+        rateFactor: p.scale.rateFactor,
+        storageNote: p.scale.note,
+      },
+    ]),
+  );
+}
+
+/**
+ * Every given lot fitted, species by species, through the cache: `lots` holds every lot of each
+ * species it names (a species' lots are fitted together), read after `stamps`, so a fit cached under
+ * a stamp was made from data at least as new as the stamp.
+ */
+async function fitLots(
+  db: Db,
+  bankId: string,
+  stamps: Map<string, string>,
+  lots: DecisionLot[],
+  species: Map<string, SpeciesDto>,
+  cache: FitCache,
+): Promise<Map<string, LotViability>> {
+  const lotsBySpecies = new Map<string, DecisionLot[]>();
   for (const lot of lots) {
     const group = lotsBySpecies.get(lot.speciesId);
     if (group) group.push(lot);
     else lotsBySpecies.set(lot.speciesId, [lot]);
   }
+  const out = new Map<string, LotViability>();
+  const stale: { speciesId: string; key: string; stamp: string; traits: string; group: DecisionLot[] }[] = [];
   for (const [speciesId, group] of lotsBySpecies) {
-    const sp = species.get(speciesId);
-    const prepared = group.map((lot) => {
-      const ref = harvestReference(lot);
-      const all = testsByLot.get(lot.id) ?? [];
-      const points: ViabilityPoint[] = all
-        .filter((t) => usable(t, sp))
-        .map((t) => ({ testId: t.id, date: t.start_date, ageYears: Math.max(0, ageYears(ref, t.start_date)), germinated: t.germinated!, sown: t.sown!, fresh: t.fresh }));
-      const scale = storageScale(lot);
-      const modelTests: ModelTest[] = points.map((p) => ({ id: p.testId, age: p.ageYears * scale.rateFactor, alive: p.germinated + (p.fresh ?? 0), sown: p.sown }));
-      return { lot, ref, all, points, scale, modelTests };
-    });
-    const typicalLifeYears = sp?.traits.storageLifeYears ?? null;
-    const key = JSON.stringify([speciesId, typicalLifeYears, prepared.map((p) => [p.lot.id, p.modelTests.map((t) => [t.id, t.age, t.alive, t.sown])])]);
-    let fits = cache.get(key);
-    if (!fits) {
-      const results = fitSpeciesModel(
-        prepared.map((p) => ({ id: p.lot.id, tests: p.modelTests })),
-        { typicalLifeYears },
-      );
-      fits = new Map(
-        results.map((r) => [r.ok ? r.model.lotId : r.lotId, r.ok ? { model: r.model, reasonNoFit: null } : { model: null, reasonNoFit: `The decline cannot be estimated: ${r.reason}` }]),
-      );
-      cache.set(key, fits);
+    const t = species.get(speciesId)?.traits;
+    const traits = JSON.stringify([t?.storageLifeYears ?? null, t?.finalCountDay ?? null]);
+    const key = `${bankId}:${speciesId}`;
+    const stamp = stamps.get(speciesId) ?? '0';
+    const hit = cache.get(key);
+    if (
+      hit &&
+      hit.stamp === stamp &&
+      hit.traits === traits &&
+      hit.byLot.size === group.length &&
+      group.every((l) => hit.byLot.has(l.id))
+    ) {
+      for (const lot of group) out.set(lot.id, hit.byLot.get(lot.id)!);
+    } else {
+      stale.push({ speciesId, key, stamp, traits, group });
     }
-    for (const p of prepared) {
-      const fit = fits.get(p.lot.id)!;
-      out.set(p.lot.id, {
-        ...fit,
-        tests: p.points,
-        setAside: p.all.filter((t) => t.set_aside_reason !== null).map((t) => ({ testId: t.id, date: t.start_date, reason: t.set_aside_reason! })),
-        lastTest: p.all.filter((t) => t.set_aside_reason === null).at(-1) ?? null,
-        harvestRef: p.ref,
-        rateFactor: p.scale.rateFactor,
-        storageNote: p.scale.note,
-      });
-    }
+  }
+  const tests = await testAggregates(
+    db,
+    bankId,
+    stale.map((s) => s.speciesId),
+  );
+  const lotSpecies = new Map(lots.map((l) => [l.id, l.speciesId]));
+  const testsBySpecies = new Map<string, TestAggregate[]>();
+  for (const t of tests) {
+    const sp = lotSpecies.get(t.lot_id);
+    if (sp === undefined) continue;
+    const list = testsBySpecies.get(sp);
+    if (list) list.push(t);
+    else testsBySpecies.set(sp, [t]);
+  }
+  for (const s of stale) {
+    const byLot = fitSpecies(s.group, testsBySpecies.get(s.speciesId) ?? [], species.get(s.speciesId));
+    cache.set(s.key, { stamp: s.stamp, traits: s.traits, byLot });
+    for (const [id, v] of byLot) out.set(id, v);
   }
   return out;
 }
@@ -242,8 +345,8 @@ function projectOn(v: LotViability, on: string) {
 }
 
 /** For each lot, whether the bank holds a younger active lot of its species and variety. */
-function youngerLots(all: LotDto[]): (lot: LotDto) => boolean {
-  const key = (l: LotDto) => `${l.speciesId}\u0000${l.variety.trim().toLowerCase()}`;
+function youngerLots(all: DecisionLot[]): (lot: DecisionLot) => boolean {
+  const key = (l: DecisionLot) => `${l.speciesId}\u0000${l.variety.trim().toLowerCase()}`;
   const newest = new Map<string, string>();
   for (const l of all) {
     if (l.status !== 'active') continue;
@@ -281,10 +384,12 @@ function yearsUntil(model: LotModel, ageEqNow: number, rateFactor: number, thres
 
 export function createViabilityService({ db, clock = systemClock }: { db: Db; clock?: Clock }) {
   const cache = new FitCache();
+  /** Decisions memoised on the fit they read (see decision). */
+  const decisions = new WeakMap<LotViability, Map<string, ReturnType<typeof decide_>>>();
   async function bankSettings(bankId: string) {
     const bank = await db
       .selectFrom('banks')
-      .select(['sow_threshold_percent', 'establishment_factor', 'sowing_assurance'])
+      .select(['sow_threshold_percent', 'establishment_factor', 'sowing_assurance', 'time_zone'])
       .where('id', '=', bankId)
       .executeTakeFirstOrThrow();
     return {
@@ -292,12 +397,13 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
       establishment: Number(bank.establishment_factor),
       assurance: Number(bank.sowing_assurance),
       /** The bank's calendar day: a test's age is counted to it. */
-      today: await bankToday(db, clock, bankId),
+      today: todayInZone(clock, bank.time_zone),
     };
   }
   type Settings = Awaited<ReturnType<typeof bankSettings>>;
 
-  const thresholdFor = (bankThreshold: number) => (s: SpeciesDto | undefined) => s?.traits.minGerminationPercent ?? bankThreshold;
+  const thresholdFor = (bankThreshold: number) => (s: SpeciesDto | undefined) =>
+    s?.traits.minGerminationPercent ?? bankThreshold;
 
   /** Seeds the bank's unsown plan entries need, by lot. */
   async function seedsNeededByLot(bankId: string): Promise<Map<string, number>> {
@@ -312,15 +418,52 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
     return new Map(rows.map((r) => [r.lot_id!, r.seeds]));
   }
 
-  /** The decision for one lot on `on`, with everything the rules read. One place for every screen. */
-  function decision(lot: LotDto, v: LotViability, hasYounger: (lot: LotDto) => boolean, sp: SpeciesDto | undefined, settings: Settings, seedsNeeded: number | null, on: string) {
-    const projected = projectOn(v, on);
-    const nextSeason = projectOn(v, `${Number(on.slice(0, 4)) + 1}${on.slice(4)}`.replace('-02-29', '-02-28'));
+  /**
+   * The decision for one lot on `on`, with everything the rules read. One place for every screen.
+   * Memoised on the lot's fit (which lives while its inputs are unchanged) by the other inputs.
+   */
+  function decision(
+    lot: DecisionLot,
+    v: LotViability,
+    hasYounger: (lot: DecisionLot) => boolean,
+    sp: SpeciesDto | undefined,
+    settings: Settings,
+    seedsNeeded: number | null,
+    on: string,
+  ) {
+    const younger = hasYounger(lot);
     const threshold = thresholdFor(settings.threshold)(sp);
+    const key = `${on}|${settings.today}|${threshold}|${sp?.traits.minGerminationPercent != null}|${settings.establishment}|${lot.seedsOnHand}|${seedsNeeded}|${younger}`;
+    let memo = decisions.get(v);
+    if (!memo) decisions.set(v, (memo = new Map()));
+    let d = memo.get(key);
+    if (!d) {
+      if (memo.size > 16) memo.clear();
+      memo.set(key, (d = decide_(lot, v, younger, threshold, sp, settings, seedsNeeded, on)));
+    }
+    return d;
+  }
+
+  function decide_(
+    lot: DecisionLot,
+    v: LotViability,
+    younger: boolean,
+    threshold: number,
+    sp: SpeciesDto | undefined,
+    settings: Settings,
+    seedsNeeded: number | null,
+    on: string,
+  ) {
+    const projected = projectOn(v, on);
+    const nextSeason = projectOn(
+      v,
+      `${Number(on.slice(0, 4)) + 1}${on.slice(4)}`.replace('-02-29', '-02-28'),
+    );
     const lastUsable = v.tests.at(-1) ?? null;
     const model = v.model;
-    const monitoring = model ? memo(model, 'monitoring', () => monitoringIntervalYears(model)) / v.rateFactor : null;
-    const younger = hasYounger(lot);
+    const monitoring = model
+      ? memo(model, 'monitoring', () => monitoringIntervalYears(model)) / v.rateFactor
+      : null;
     const latest = v.lastTest && v.lastTest.percent !== null ? v.lastTest : null;
     const d: { recommendation: Recommendation; reason: string } = decide({
       on,
@@ -344,27 +487,44 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
       latestResult: latest ? { percent: latest.percent!, low: latest.percent!, high: latest.percent! } : null,
     });
     const retestBy =
-      lastUsable && monitoring !== null && projected ? retestDueDate(lastUsable.date, monitoring * YEAR_DAYS, straddles(projected, threshold)) : null;
+      lastUsable && monitoring !== null && projected
+        ? retestDueDate(lastUsable.date, monitoring * YEAR_DAYS, straddles(projected, threshold))
+        : null;
     return { ...d, projected, retestBy, threshold };
   }
 
   /** The lot's decline, fitted together with the species' other lots in the bank. */
   async function lotViability(bankId: string, lotId: string) {
     const settings = await bankSettings(bankId);
-    const lotRow = await lotsQuery(db, bankId).where('lots.id', '=', lotId).executeTakeFirst();
-    if (!lotRow) throw notFound('No such lot in this bank.');
-    const lot = toLotDto(lotRow);
-    const siblings = (await lotsQuery(db, bankId).where('lots.species_id', '=', lot.speciesId).orderBy('lots.code').execute()).map(toLotDto);
+    const found = await db
+      .selectFrom('lots')
+      .select('species_id')
+      .where('id', '=', lotId)
+      .where('bank_id', '=', bankId)
+      .executeTakeFirst();
+    if (!found) throw notFound('No such lot in this bank.');
+    // The stamps before the lots and tests they vouch for (see fitLots).
+    const stamps = await viabilityStamps(db, bankId);
+    const siblings = await lotsForDecisions(db, bankId, found.species_id);
+    const lot = siblings.find((l) => l.id === lotId);
+    if (!lot) throw notFound('No such lot in this bank.');
     const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
-    const tests = await testAggregates(db, bankId, lot.speciesId);
-    const result = fitLots(siblings, tests, species, cache).get(lot.id)!;
+    const result = (await fitLots(db, bankId, stamps, siblings, species, cache)).get(lot.id)!;
     return { lot, siblings, settings, species: species.get(lot.speciesId), ...result };
   }
 
   /** Seeds to sow from the whole predictive distribution (null when no number will do). */
-  function seedsFor(v: LotViability, on: string, plants: number, establishment: number, assurance: number): number | null {
+  function seedsFor(
+    v: LotViability,
+    on: string,
+    plants: number,
+    establishment: number,
+    assurance: number,
+  ): number | null {
     if (!v.model) return null;
-    const draws = viabilityDistribution(v.model, Math.max(0, ageYears(v.harvestRef, on)) * v.rateFactor).map((d) => ({ p: d.p * establishment, w: d.w }));
+    const draws = viabilityDistribution(v.model, Math.max(0, ageYears(v.harvestRef, on)) * v.rateFactor).map(
+      (d) => ({ p: d.p * establishment, w: d.w }),
+    );
     return seedsToSowPredictive(plants, draws, assurance);
   }
 
@@ -378,8 +538,17 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
       const ageEqNow = Math.max(0, ageOn) * v.rateFactor;
       const storageAdvice = v.model
         ? ADVICE_PLACES.map(({ place, label }) => {
-            const rateFactor = place === 'room' ? v.rateFactor : 1 / temperatureFactor(storageTemperature({ place, temperatureC: null })!, REFERENCE_STORAGE_C);
-            return { place, label, current: place === 'room', yearsToThreshold: yearsUntil(v.model!, ageEqNow, rateFactor, d.threshold) };
+            const rateFactor =
+              place === 'room'
+                ? v.rateFactor
+                : 1 /
+                  temperatureFactor(storageTemperature({ place, temperatureC: null })!, REFERENCE_STORAGE_C);
+            return {
+              place,
+              label,
+              current: place === 'room',
+              yearsToThreshold: yearsUntil(v.model!, ageEqNow, rateFactor, d.threshold),
+            };
           })
         : [];
       return {
@@ -397,10 +566,21 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
         recommendation: d.recommendation,
         reason: d.reason,
         threshold: d.threshold,
-        notes: [...(v.model ? v.model.notes : [v.reasonNoFit ?? 'No estimate yet.']), ...(v.storageNote ? [v.storageNote] : [])],
+        notes: [
+          ...(v.model ? v.model.notes : [v.reasonNoFit ?? 'No estimate yet.']),
+          ...(v.storageNote ? [v.storageNote] : []),
+        ],
         harvestReference: v.harvestRef,
         storageAdvice,
-        points: v.tests.map((t) => ({ testId: t.testId, date: t.date, ageYears: t.ageYears, percent: (100 * t.germinated) / t.sown, germinated: t.germinated, sown: t.sown, heldBack: v.model?.heldBack.includes(t.testId) ?? false })),
+        points: v.tests.map((t) => ({
+          testId: t.testId,
+          date: t.date,
+          ageYears: t.ageYears,
+          percent: (100 * t.germinated) / t.sown,
+          germinated: t.germinated,
+          sown: t.sown,
+          heldBack: v.model?.heldBack.includes(t.testId) ?? false,
+        })),
         setAside: v.setAside,
         curve: v.model
           ? Array.from({ length: 41 }, (_, i) => {
@@ -415,11 +595,16 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
       const v = await lotViability(bankId, lotId);
       const needed = (await seedsNeededByLot(bankId)).get(lotId) ?? null;
       const d = decision(v.lot, v, youngerLots(v.siblings), v.species, v.settings, needed, on);
-      if (d.recommendation === 'retire') throw unprocessable(`${d.reason} Hilum offers no seeds-to-sow for a lot to retire.`);
-      if (!v.model || !d.projected) throw unprocessable(`${v.reasonNoFit ?? 'No estimate yet.'} Test the lot before working out how many seeds to sow.`);
+      if (d.recommendation === 'retire')
+        throw unprocessable(`${d.reason} Hilum offers no seeds-to-sow for a lot to retire.`);
+      if (!v.model || !d.projected)
+        throw unprocessable(
+          `${v.reasonNoFit ?? 'No estimate yet.'} Test the lot before working out how many seeds to sow.`,
+        );
       const chosen = assurance ?? v.settings.assurance;
       const seeds = seedsFor(v, on, plants, v.settings.establishment, chosen);
-      if (seeds === null) throw unprocessable('The projected germination is too low: no number of seeds gives that assurance.');
+      if (seeds === null)
+        throw unprocessable('The projected germination is too low: no number of seeds gives that assurance.');
       const estimate = v.model.estimateOnly;
       return {
         seeds,
@@ -449,19 +634,34 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
       const settings = await bankSettings(bankId);
       const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
       // Every lot of the species is fitted, as on the lot page and in the ranking (one model).
-      const all = (await lotsQuery(db, bankId).where('lots.species_id', '=', speciesId).orderBy('lots.code').execute()).map(toLotDto);
-      const tests = await testAggregates(db, bankId, speciesId);
-      const fits = fitLots(all, tests, species, cache);
+      const stamps = await viabilityStamps(db, bankId);
+      const all = await lotsForDecisions(db, bankId, speciesId);
+      const fits = await fitLots(db, bankId, stamps, all, species, cache);
       const needed = await seedsNeededByLot(bankId);
       const hasYounger = youngerLots(all);
       const out = [];
       for (const lot of all.filter((l) => l.status === 'active')) {
         const v = fits.get(lot.id)!;
-        const d = decision(lot, v, hasYounger, species.get(speciesId), settings, needed.get(lot.id) ?? null, on);
+        const d = decision(
+          lot,
+          v,
+          hasYounger,
+          species.get(speciesId),
+          settings,
+          needed.get(lot.id) ?? null,
+          on,
+        );
         if (!d.projected || !v.model || v.model.estimateOnly || d.recommendation === 'retire') continue;
         const seeds = seedsFor(v, on, plants, settings.establishment, settings.assurance);
         if (seeds === null) continue;
-        out.push({ lotId: lot.id, code: lot.code, projected: d.projected, seeds, seedsOnHand: lot.seedsOnHand, enough: seeds <= lot.seedsOnHand });
+        out.push({
+          lotId: lot.id,
+          code: lot.code,
+          projected: d.projected,
+          seeds,
+          seedsOnHand: lot.seedsOnHand,
+          enough: seeds <= lot.seedsOnHand,
+        });
       }
       return out.sort((a, b) => Number(b.enough) - Number(a.enough) || b.projected.low - a.projected.low);
     },
@@ -473,16 +673,24 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
     async ranking(bankId: string, on: string) {
       const settings = await bankSettings(bankId);
       const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
-      const all = (await lotsQuery(db, bankId).orderBy('lots.code').execute()).map(toLotDto);
-      const tests = await testAggregates(db, bankId);
-      const fits = fitLots(all, tests, species, cache);
+      const stamps = await viabilityStamps(db, bankId);
+      const all = await lotsForDecisions(db, bankId);
+      const fits = await fitLots(db, bankId, stamps, all, species, cache);
       const needed = await seedsNeededByLot(bankId);
       const hasYounger = youngerLots(all);
       return all
         .filter((l) => l.status === 'active' || l.status === 'depleted')
         .map((lot) => {
           const v = fits.get(lot.id)!;
-          const d = decision(lot, v, hasYounger, species.get(lot.speciesId), settings, needed.get(lot.id) ?? null, on);
+          const d = decision(
+            lot,
+            v,
+            hasYounger,
+            species.get(lot.speciesId),
+            settings,
+            needed.get(lot.id) ?? null,
+            on,
+          );
           const last = v.lastTest;
           return {
             lotId: lot.id,
