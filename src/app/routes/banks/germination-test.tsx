@@ -5,7 +5,7 @@ import { PageHeader } from '../../../components/ui/page-header';
 import { paths } from '../../../config/paths';
 import { forgetTest } from '../../../features/germination/api/delete-test';
 import { testQueryOptions } from '../../../features/germination/api/get-test';
-import type { IntervalMethod } from '../../../features/germination/api/interval';
+import type { IntervalMethod } from '../../../lib/bank-api';
 import { formatDate, setupWords } from '../../../features/germination/components/format';
 import { TestWorkbench } from '../../../features/germination/components/test-workbench';
 import type { BankNoticeState } from './bank-layout';

@@ -3,11 +3,10 @@ import { buttonStyles } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { PageHeader } from '../../../components/ui/page-header';
 import { paths } from '../../../config/paths';
-import { apiPaths } from '../../../features/germination/api/keys';
 import { PrintLabelLink } from '../../../features/labels/components/print-label-link';
 import { useLots } from '../../../features/lots/api/get-lots';
-import { lotApiPaths } from '../../../features/lots/api/keys';
 import { RankingView } from '../../../features/viability/components/ranking-view';
+import { bankPaths } from '../../../lib/bank-api';
 import { todayIn } from '../../../lib/dates';
 import { LotsSubnav } from './lots-subnav';
 import { useRouteBank } from './use-route-bank';
@@ -25,10 +24,10 @@ export function LotsPage() {
           New lot
         </Link>
       ) : null}
-      <a href={lotApiPaths.csv(bank.id)} download className={buttonStyles({ variant: 'secondary' })}>
+      <a href={bankPaths.lotsCsv(bank.id)} download className={buttonStyles({ variant: 'secondary' })}>
         Export lots CSV
       </a>
-      <a href={apiPaths.testsCsv(bank.id)} download className={buttonStyles({ variant: 'secondary' })}>
+      <a href={bankPaths.testsCsv(bank.id)} download className={buttonStyles({ variant: 'secondary' })}>
         Export tests CSV
       </a>
       {canEdit ? (

@@ -10,7 +10,7 @@ import { PageHeader } from '../../../components/ui/page-header';
 import { SelectField } from '../../../components/ui/select-field';
 import { paths } from '../../../config/paths';
 import { PrintLabelLink } from '../../../features/labels/components/print-label-link';
-import { planApiPaths } from '../../../features/planner/api/keys';
+import { bankPaths } from '../../../lib/bank-api';
 import { usePlan } from '../../../features/planner/api/get-plan';
 import { useRanking } from '../../../features/planner/api/get-ranking';
 import { openingMonth, seasonEvents } from '../../../features/planner/components/calendar-events';
@@ -88,7 +88,7 @@ export function PlannerPage() {
                 </option>
               ))}
             </SelectField>
-            <a href={planApiPaths.ics(bank.id, season)} download={`hilum-plan-${season}.ics`} className={buttonStyles({ variant: 'secondary' })}>
+            <a href={bankPaths.planIcs(bank.id, season)} download={`hilum-plan-${season}.ics`} className={buttonStyles({ variant: 'secondary' })}>
               Add to my calendar
             </a>
             {plannedLots.length ? <PrintLabelLink bankId={bank.id} lotIds={plannedLots} /> : null}

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import type { TestDetail } from '../../../../shared/schemas/germination';
 import { Card } from '../../../components/ui/card';
-import { traySubjectId } from '../../../features/photos/api/keys';
+import { traySubjectId } from '../../../lib/bank-api';
 import { PhotoGallery } from '../../../features/photos/components/photo-gallery';
 import { cn } from '../../../lib/cn';
 

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/
 import { z } from 'zod';
 import { bankSchema, type BankDto, type CreateBankBody } from '../../../../shared/schemas/banks';
 import { apiFetch } from '../../../lib/api-client';
-import { bankKeys } from './keys';
+import { bankKeys } from '../../../lib/bank-api';
 
 const createBankResponseSchema = z.object({ bank: bankSchema });
 
@@ -16,7 +16,7 @@ export function useCreateBank(options: Pick<UseMutationOptions<BankDto, Error, C
   return useMutation({
     mutationFn: createBank,
     onSuccess: async (bank, ...rest) => {
-      queryClient.setQueryData(bankKeys.detail(bank.id), { bank, role: 'owner' as const });
+      queryClient.setQueryData(bankKeys.bank(bank.id), { bank, role: 'owner' as const });
       await options.onSuccess?.(bank, ...rest);
     },
   });

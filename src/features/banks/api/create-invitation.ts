@@ -2,13 +2,13 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { invitationSchema, type CreateInvitationBody, type InvitationDto } from '../../../../shared/schemas/banks';
 import { apiFetch } from '../../../lib/api-client';
-import { apiPaths, bankKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 const createInvitationResponseSchema = z.object({ invitation: invitationSchema });
 
 /** POST /api/banks/:bankId/invitations (owner): e-mails a link; 409 already_member. */
 export async function createInvitation(bankId: string, body: CreateInvitationBody): Promise<InvitationDto> {
-  const response = await apiFetch(apiPaths.invitations(bankId), {
+  const response = await apiFetch(bankPaths.invitations(bankId), {
     method: 'POST',
     body,
     schema: createInvitationResponseSchema,

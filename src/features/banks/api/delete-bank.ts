@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/react-query';
 import { apiFetch } from '../../../lib/api-client';
-import { apiPaths, bankKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 /** DELETE /api/banks/:bankId (owner): the bank and everything in it. */
 export async function deleteBank(bankId: string): Promise<void> {
-  await apiFetch(apiPaths.bank(bankId), { method: 'DELETE' });
+  await apiFetch(bankPaths.bank(bankId), { method: 'DELETE' });
 }
 
 export function useDeleteBank(bankId: string, options: Pick<UseMutationOptions<void, Error, void>, 'onSuccess'> = {}) {
@@ -14,7 +14,7 @@ export function useDeleteBank(bankId: string, options: Pick<UseMutationOptions<v
     onSuccess: async (...args) => {
       // The caller moves away first; only then is the bank's data dropped, so no page refetches it.
       await options.onSuccess?.(...args);
-      queryClient.removeQueries({ queryKey: bankKeys.detail(bankId) });
+      queryClient.removeQueries({ queryKey: bankKeys.bank(bankId) });
     },
   });
 }

@@ -2,18 +2,18 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { z } from 'zod';
 import { bankResponseSchema } from '../../../../shared/schemas/banks';
 import { apiFetch } from '../../../lib/api-client';
-import { apiPaths, bankKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 export type BankResponse = z.infer<typeof bankResponseSchema>;
 
 /** GET /api/banks/:bankId: the bank and the caller's role in it (404 for a non-member). */
 export function getBank(bankId: string, { signal }: { signal?: AbortSignal } = {}): Promise<BankResponse> {
-  return apiFetch(apiPaths.bank(bankId), { schema: bankResponseSchema, signal });
+  return apiFetch(bankPaths.bank(bankId), { schema: bankResponseSchema, signal });
 }
 
 export function bankQueryOptions(bankId: string) {
   return queryOptions({
-    queryKey: bankKeys.detail(bankId),
+    queryKey: bankKeys.bank(bankId),
     queryFn: ({ signal }) => getBank(bankId, { signal }),
   });
 }

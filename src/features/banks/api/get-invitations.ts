@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { z } from 'zod';
 import { invitationsResponseSchema } from '../../../../shared/schemas/banks';
 import { apiFetch } from '../../../lib/api-client';
-import { apiPaths, bankKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 export type InvitationsResponse = z.infer<typeof invitationsResponseSchema>;
 
@@ -11,7 +11,7 @@ export function getInvitations(
   bankId: string,
   { signal }: { signal?: AbortSignal } = {},
 ): Promise<InvitationsResponse> {
-  return apiFetch(apiPaths.invitations(bankId), { schema: invitationsResponseSchema, signal });
+  return apiFetch(bankPaths.invitations(bankId), { schema: invitationsResponseSchema, signal });
 }
 
 export function invitationsQueryOptions(bankId: string) {

@@ -2,13 +2,13 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { z } from 'zod';
 import { membersResponseSchema } from '../../../../shared/schemas/banks';
 import { apiFetch } from '../../../lib/api-client';
-import { apiPaths, bankKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 export type MembersResponse = z.infer<typeof membersResponseSchema>;
 
 /** GET /api/banks/:bankId/members: everyone in the bank with their role. */
 export function getMembers(bankId: string, { signal }: { signal?: AbortSignal } = {}): Promise<MembersResponse> {
-  return apiFetch(apiPaths.members(bankId), { schema: membersResponseSchema, signal });
+  return apiFetch(bankPaths.members(bankId), { schema: membersResponseSchema, signal });
 }
 
 export function membersQueryOptions(bankId: string) {

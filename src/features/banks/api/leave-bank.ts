@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/react-query';
 import { apiFetch } from '../../../lib/api-client';
-import { apiPaths, bankKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 /** POST /api/banks/:bankId/leave: the caller leaves; 409 last_owner for the last owner. */
 export async function leaveBank(bankId: string): Promise<void> {
-  await apiFetch(apiPaths.leave(bankId), { method: 'POST' });
+  await apiFetch(bankPaths.leave(bankId), { method: 'POST' });
 }
 
 export function useLeaveBank(bankId: string, options: Pick<UseMutationOptions<void, Error, void>, 'onSuccess'> = {}) {
@@ -13,7 +13,7 @@ export function useLeaveBank(bankId: string, options: Pick<UseMutationOptions<vo
     mutationFn: () => leaveBank(bankId),
     onSuccess: async (...args) => {
       await options.onSuccess?.(...args);
-      queryClient.removeQueries({ queryKey: bankKeys.detail(bankId) });
+      queryClient.removeQueries({ queryKey: bankKeys.bank(bankId) });
     },
   });
 }

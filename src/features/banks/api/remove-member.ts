@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/react-query';
 import { apiFetch } from '../../../lib/api-client';
-import { apiPaths, bankKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 /** DELETE /api/banks/:bankId/members/:userId (owner); 409 last_owner for the last owner. */
 export async function removeMember(bankId: string, userId: string): Promise<void> {
-  await apiFetch(apiPaths.member(bankId, userId), { method: 'DELETE' });
+  await apiFetch(bankPaths.member(bankId, userId), { method: 'DELETE' });
 }
 
 export function useRemoveMember(bankId: string, options: Pick<UseMutationOptions<void, Error, string>, 'onSuccess'> = {}) {

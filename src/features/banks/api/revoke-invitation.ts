@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '../../../lib/api-client';
-import { apiPaths, bankKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 /** DELETE /api/banks/:bankId/invitations/:invitationId (owner): the link stops working. */
 export async function revokeInvitation(bankId: string, invitationId: string): Promise<void> {
-  await apiFetch(apiPaths.invitation(bankId, invitationId), { method: 'DELETE' });
+  await apiFetch(bankPaths.invitation(bankId, invitationId), { method: 'DELETE' });
 }
 
 export function useRevokeInvitation(bankId: string) {

@@ -2,11 +2,11 @@ import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/
 import { bankResponseSchema, type UpdateBankBody } from '../../../../shared/schemas/banks';
 import { apiFetch } from '../../../lib/api-client';
 import type { BankResponse } from './get-bank';
-import { apiPaths, bankKeys } from './keys';
+import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
 
 /** PATCH /api/banks/:bankId (owner). */
 export function updateBank(bankId: string, body: UpdateBankBody): Promise<BankResponse> {
-  return apiFetch(apiPaths.bank(bankId), { method: 'PATCH', body, schema: bankResponseSchema });
+  return apiFetch(bankPaths.bank(bankId), { method: 'PATCH', body, schema: bankResponseSchema });
 }
 
 export function useUpdateBank(
@@ -17,7 +17,9 @@ export function useUpdateBank(
   return useMutation({
     mutationFn: (body: UpdateBankBody) => updateBank(bankId, body),
     onSuccess: async (response, ...rest) => {
-      queryClient.setQueryData(bankKeys.detail(bankId), response);
+      queryClient.setQueryData(bankKeys.bank(bankId), response);
+      // Frost dates, time zone and assurance feed every projection, the plan's dates and the overview.
+      await refresh(queryClient, stale.projections(bankId));
       await options.onSuccess?.(response, ...rest);
     },
   });

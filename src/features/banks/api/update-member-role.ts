@@ -3,7 +3,7 @@ import type { Role } from '../../../../shared/schemas/accounts';
 import { membersResponseSchema } from '../../../../shared/schemas/banks';
 import { apiFetch } from '../../../lib/api-client';
 import type { MembersResponse } from './get-members';
-import { apiPaths, bankKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 export interface UpdateMemberRoleInput {
   userId: string;
@@ -12,7 +12,7 @@ export interface UpdateMemberRoleInput {
 
 /** PATCH /api/banks/:bankId/members/:userId (owner); 409 last_owner when it would leave no owner. */
 export function updateMemberRole(bankId: string, { userId, role }: UpdateMemberRoleInput): Promise<MembersResponse> {
-  return apiFetch(apiPaths.member(bankId, userId), { method: 'PATCH', body: { role }, schema: membersResponseSchema });
+  return apiFetch(bankPaths.member(bankId, userId), { method: 'PATCH', body: { role }, schema: membersResponseSchema });
 }
 
 export function useUpdateMemberRole(
@@ -25,7 +25,7 @@ export function useUpdateMemberRole(
     onSuccess: async (members, ...rest) => {
       queryClient.setQueryData(bankKeys.members(bankId), members);
       // The caller's own role may be the one that changed; the bank answer carries it.
-      await queryClient.invalidateQueries({ queryKey: bankKeys.detail(bankId), exact: true });
+      await queryClient.invalidateQueries({ queryKey: bankKeys.bank(bankId), exact: true });
       await options.onSuccess?.(members, ...rest);
     },
   });

@@ -2,11 +2,11 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { testDetailSchema, type TestDetail } from '../../../../shared/schemas/germination';
 import { apiFetch } from '../../../lib/api-client';
 import { applyTestDetail } from './apply-test-detail';
-import { apiPaths } from './keys';
+import { bankPaths } from '../../../lib/bank-api';
 
 /** DELETE /api/banks/:bankId/tests/:testId/counts/:date (grower): removes one check date's counts. */
 export function deleteCounts(bankId: string, testId: string, date: string): Promise<TestDetail> {
-  return apiFetch(apiPaths.countsOn(bankId, testId, date), { method: 'DELETE', schema: testDetailSchema });
+  return apiFetch(bankPaths.testCountsOn(bankId, testId, date), { method: 'DELETE', schema: testDetailSchema });
 }
 
 export function useDeleteCounts(bankId: string, testId: string) {

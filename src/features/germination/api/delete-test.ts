@@ -1,23 +1,22 @@
 import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { apiFetch } from '../../../lib/api-client';
-import { invalidateLots } from './apply-test-detail';
-import { apiPaths, germinationKeys } from './keys';
+import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
 
 /** Drops a deleted test from the cache, once no page shows it. */
 export function forgetTest(queryClient: QueryClient, bankId: string, testId: string): void {
-  queryClient.removeQueries({ queryKey: germinationKeys.test(bankId, testId) });
+  queryClient.removeQueries({ queryKey: bankKeys.test(bankId, testId) });
 }
 
 /** DELETE /api/banks/:bankId/tests/:testId (grower) → 204; the test's seeds go back to its lot. */
 export async function deleteTest(bankId: string, testId: string): Promise<void> {
-  await apiFetch(apiPaths.test(bankId, testId), { method: 'DELETE' });
+  await apiFetch(bankPaths.test(bankId, testId), { method: 'DELETE' });
 }
 
-export function useDeleteTest(bankId: string, testId: string) {
+export function useDeleteTest(bankId: string, testId: string, lotId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: () => deleteTest(bankId, testId),
     // The page leaves first and then forgets the test (removing it under a mounted page refetches it).
-    onSuccess: () => invalidateLots(queryClient, bankId),
+    onSuccess: () => refresh(queryClient, stale.germination(bankId, lotId), stale.stockMoved(bankId, lotId)),
   });
 }

@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { testDetailSchema } from '../../../../shared/schemas/germination';
 import { apiFetch } from '../../../lib/api-client';
-import { apiPaths, germinationKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 export const lotTestsResponseSchema = z.object({ items: z.array(testDetailSchema) });
 export type LotTestsResponse = z.infer<typeof lotTestsResponseSchema>;
@@ -13,12 +13,12 @@ export function getLotTests(
   lotId: string,
   { signal }: { signal?: AbortSignal } = {},
 ): Promise<LotTestsResponse> {
-  return apiFetch(apiPaths.lotTests(bankId, lotId), { schema: lotTestsResponseSchema, signal });
+  return apiFetch(bankPaths.lotTests(bankId, lotId), { schema: lotTestsResponseSchema, signal });
 }
 
 export function lotTestsQueryOptions(bankId: string, lotId: string) {
   return queryOptions({
-    queryKey: germinationKeys.lotTests(bankId, lotId),
+    queryKey: bankKeys.lotTests(bankId, lotId),
     queryFn: ({ signal }) => getLotTests(bankId, lotId, { signal }),
   });
 }

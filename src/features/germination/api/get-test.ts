@@ -1,8 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { testDetailSchema, type TestDetail } from '../../../../shared/schemas/germination';
 import { apiFetch } from '../../../lib/api-client';
-import type { IntervalMethod } from './interval';
-import { apiPaths, germinationKeys } from './keys';
+import { bankKeys, bankPaths, type IntervalMethod } from '../../../lib/bank-api';
 
 /** GET /api/banks/:bankId/tests/:testId[?interval=clopper-pearson]: trays, counts and the result. */
 export function getTest(
@@ -11,13 +10,12 @@ export function getTest(
   interval: IntervalMethod,
   { signal }: { signal?: AbortSignal } = {},
 ): Promise<TestDetail> {
-  const query = interval === 'wilson' ? '' : `?interval=${interval}`;
-  return apiFetch(`${apiPaths.test(bankId, testId)}${query}`, { schema: testDetailSchema, signal });
+  return apiFetch(bankPaths.test(bankId, testId, interval), { schema: testDetailSchema, signal });
 }
 
 export function testQueryOptions(bankId: string, testId: string, interval: IntervalMethod = 'wilson') {
   return queryOptions({
-    queryKey: germinationKeys.testDetail(bankId, testId, interval),
+    queryKey: bankKeys.testDetail(bankId, testId, interval),
     queryFn: ({ signal }) => getTest(bankId, testId, interval, { signal }),
   });
 }

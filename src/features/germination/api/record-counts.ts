@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { testDetailSchema, type CountsBody, type TestDetail } from '../../../../shared/schemas/germination';
 import { apiFetch } from '../../../lib/api-client';
 import { applyTestDetail } from './apply-test-detail';
-import { apiPaths } from './keys';
+import { bankPaths } from '../../../lib/bank-api';
 
 /**
  * POST /api/banks/:bankId/tests/:testId/counts (grower): the cumulative normal seedlings of each tray
@@ -14,7 +14,7 @@ export function recordCounts(
   body: CountsBody,
   { signal }: { signal?: AbortSignal } = {},
 ): Promise<TestDetail> {
-  return apiFetch(apiPaths.counts(bankId, testId), { method: 'POST', body, schema: testDetailSchema, signal });
+  return apiFetch(bankPaths.testCounts(bankId, testId), { method: 'POST', body, schema: testDetailSchema, signal });
 }
 
 // A bench with weak Wi-Fi can leave a request hanging; give up after this and keep the numbers.

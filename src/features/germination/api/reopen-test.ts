@@ -2,11 +2,11 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { testDetailSchema, type TestDetail } from '../../../../shared/schemas/germination';
 import { apiFetch } from '../../../lib/api-client';
 import { applyTestDetail } from './apply-test-detail';
-import { apiPaths } from './keys';
+import { bankPaths } from '../../../lib/bank-api';
 
 /** POST /api/banks/:bankId/tests/:testId/reopen (grower): a finished test takes counts again. */
 export function reopenTest(bankId: string, testId: string): Promise<TestDetail> {
-  return apiFetch(apiPaths.reopen(bankId, testId), { method: 'POST', schema: testDetailSchema });
+  return apiFetch(bankPaths.testReopen(bankId, testId), { method: 'POST', schema: testDetailSchema });
 }
 
 export function useReopenTest(bankId: string, testId: string) {

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { testDetailSchema, type TestDetail } from '../../../../shared/schemas/germination';
 import { apiFetch } from '../../../lib/api-client';
 import { applyTestDetail } from './apply-test-detail';
-import { apiPaths } from './keys';
+import { bankPaths } from '../../../lib/bank-api';
 
 /**
  * POST /api/banks/:bankId/tests/:testId/set-aside (grower, running or finished tests): sets the whole
@@ -10,7 +10,7 @@ import { apiPaths } from './keys';
  * staying in its history, or takes it back (null).
  */
 export function setTestAside(bankId: string, testId: string, reason: string | null): Promise<TestDetail> {
-  return apiFetch(`${apiPaths.test(bankId, testId)}/set-aside`, {
+  return apiFetch(bankPaths.testSetAside(bankId, testId), {
     method: 'POST',
     body: { reason },
     schema: testDetailSchema,

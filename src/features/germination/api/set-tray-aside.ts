@@ -2,14 +2,14 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { testDetailSchema, type TestDetail } from '../../../../shared/schemas/germination';
 import { apiFetch } from '../../../lib/api-client';
 import { applyTestDetail } from './apply-test-detail';
-import { apiPaths } from './keys';
+import { bankPaths } from '../../../lib/bank-api';
 
 /**
  * PATCH /api/banks/:bankId/tests/:testId/trays/:trayId (grower, running tests): sets a tray aside
  * with a reason (spilled, dried out), leaving it out of every figure, or takes it back (null).
  */
 export function setTrayAside(bankId: string, testId: string, trayId: string, setAsideReason: string | null): Promise<TestDetail> {
-  return apiFetch(apiPaths.tray(bankId, testId, trayId), { method: 'PATCH', body: { setAsideReason }, schema: testDetailSchema });
+  return apiFetch(bankPaths.tray(bankId, testId, trayId), { method: 'PATCH', body: { setAsideReason }, schema: testDetailSchema });
 }
 
 export function useSetTrayAside(bankId: string, testId: string) {

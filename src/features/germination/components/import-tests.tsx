@@ -2,7 +2,7 @@ import { CsvImport, CsvTable } from '../../../components/ui/csv-import';
 import { formatDay } from '../../../lib/dates';
 import type { TestsImportPreview } from '../../../../shared/schemas/germination';
 import { useImportTests, usePreviewTestsImport } from '../api/import-tests';
-import { apiPaths } from '../api/keys';
+import { bankPaths } from '../../../lib/bank-api';
 
 const count = new Intl.NumberFormat('en');
 const testCount = (n: number) => (n === 1 ? '1 germination test' : `${count.format(n)} germination tests`);
@@ -57,7 +57,7 @@ export function ImportTests({ bankId, doneHref }: { bankId: string; doneHref: st
           One line per tray and check day; lots are found by their code in this bank. A tray set aside (spilled,
           dried out) gives its reason in set_aside_reason and no finish figures; germination_percent is there to
           read and is not imported. Not sure of the columns?{' '}
-          <a href={apiPaths.testsCsv(bankId)} download className="font-semibold text-moss-800 underline">
+          <a href={bankPaths.testsCsv(bankId)} download className="font-semibold text-moss-800 underline">
             Export the bank’s tests
           </a>{' '}
           and use that file as a template.

@@ -34,7 +34,7 @@ export interface TestActionsProps {
 export function TestActions({ bankId, detail, today, onDeleted }: TestActionsProps) {
   const { test } = detail;
   const reopen = useReopenTest(bankId, test.id);
-  const remove = useDeleteTest(bankId, test.id);
+  const remove = useDeleteTest(bankId, test.id, test.lotId);
   const takeBack = useSetTestAside(bankId, test.id);
   const [finishing, setFinishing] = useState(false);
   const [deleting, setDeleting] = useState(false);

@@ -5,7 +5,7 @@ import { Card } from '../../../components/ui/card';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { Loading } from '../../../components/ui/spinner';
 import { testQueryOptions } from '../api/get-test';
-import type { IntervalMethod } from '../api/interval';
+import type { IntervalMethod } from '../../../lib/bank-api';
 import { CountEntry } from './count-entry';
 import { CountsTable } from './counts-table';
 import { formatDate, localToday } from './format';

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { cn } from '../../../lib/cn';
-import { labelSvgUrl } from '../api/label-url';
+import { bankPaths } from '../../../lib/bank-api';
 import { CUT_LINE_MM, LABEL_MM, PAGE_MARGIN_MM, PAPERS, sheetGrid, type Paper } from './paper';
 import { PrinterIcon } from './print-label-link';
 
@@ -106,7 +106,7 @@ export function LabelSheet({ bankId, labels, paper, onPaperChange }: LabelSheetP
                     </p>
                   ) : (
                     <img
-                      src={labelSvgUrl(bankId, label.lotId)}
+                      src={bankPaths.lotLabel(bankId, label.lotId)}
                       alt={label.alt}
                       onLoad={() => settle(label.lotId, 'loaded')}
                       onError={() => settle(label.lotId, 'failed')}

@@ -2,25 +2,20 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { movementSchema, type StockBody } from '../../../../shared/schemas/lots';
 import { apiFetch } from '../../../lib/api-client';
-import { lotApiPaths, lotKeys } from './keys';
+import { bankPaths, refresh, stale } from '../../../lib/bank-api';
 
 const addedSchema = z.object({ movement: movementSchema, seedsOnHand: z.number() });
 
 /** POST /api/banks/:bankId/lots/:lotId/stock (grower); 409 stock_below_zero, 422 for a future date. */
 export function addStockMovement(bankId: string, lotId: string, body: StockBody) {
-  return apiFetch(lotApiPaths.stock(bankId, lotId), { method: 'POST', body, schema: addedSchema });
+  return apiFetch(bankPaths.lotStock(bankId, lotId), { method: 'POST', body, schema: addedSchema });
 }
 
 export function useAddStockMovement(bankId: string, lotId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: StockBody) => addStockMovement(bankId, lotId, body),
-    // The balance, the lot's seeds on hand and maybe its status all move: refresh the lot's prefix.
-    onSuccess: async () => {
-      await Promise.all([
-        queryClient.invalidateQueries({ queryKey: lotKeys.detail(bankId, lotId) }),
-        queryClient.invalidateQueries({ queryKey: lotKeys.lists(bankId) }),
-      ]);
-    },
+    // The balance, the lot's seeds on hand and maybe its status all move.
+    onSuccess: () => refresh(queryClient, stale.stockMoved(bankId, lotId)),
   });
 }

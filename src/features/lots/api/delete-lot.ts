@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { lotSchema, type LotDto } from '../../../../shared/schemas/lots';
 import { apiFetch } from '../../../lib/api-client';
-import { lotApiPaths, lotKeys } from './keys';
+import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
 
 const retiredSchema = z.object({ lot: lotSchema, retired: z.literal(true) });
 
@@ -13,7 +13,7 @@ export type DeleteLotOutcome = { outcome: 'deleted' } | { outcome: 'retired'; lo
  * retired instead when germination tests refer to it (their history is kept).
  */
 export async function deleteLot(bankId: string, lotId: string): Promise<DeleteLotOutcome> {
-  const body = await apiFetch(lotApiPaths.lot(bankId, lotId), { method: 'DELETE' });
+  const body = await apiFetch(bankPaths.lot(bankId, lotId), { method: 'DELETE' });
   if (body === undefined) return { outcome: 'deleted' };
   const parsed = retiredSchema.parse(body);
   return { outcome: 'retired', lot: parsed.lot };
@@ -25,8 +25,8 @@ export function useDeleteLot(bankId: string, lotId: string) {
     mutationFn: () => deleteLot(bankId, lotId),
     onSuccess: async (result) => {
       // A deleted lot's own query is left to expire: its page is still on screen until the caller moves on.
-      if (result.outcome === 'retired') queryClient.setQueryData(lotKeys.detail(bankId, lotId), result.lot);
-      await queryClient.invalidateQueries({ queryKey: lotKeys.lists(bankId) });
+      if (result.outcome === 'retired') queryClient.setQueryData(bankKeys.lot(bankId, lotId), result.lot);
+      await refresh(queryClient, stale.lotsAddedOrRemoved(bankId));
     },
   });
 }

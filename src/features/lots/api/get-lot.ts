@@ -2,18 +2,18 @@ import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { lotSchema } from '../../../../shared/schemas/lots';
 import { apiFetch } from '../../../lib/api-client';
-import { lotApiPaths, lotKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 export const lotResponseSchema = z.object({ lot: lotSchema });
 
 /** GET /api/banks/:bankId/lots/:lotId */
 export async function getLot(bankId: string, lotId: string, { signal }: { signal?: AbortSignal } = {}) {
-  return (await apiFetch(lotApiPaths.lot(bankId, lotId), { schema: lotResponseSchema, signal })).lot;
+  return (await apiFetch(bankPaths.lot(bankId, lotId), { schema: lotResponseSchema, signal })).lot;
 }
 
 export function lotQueryOptions(bankId: string, lotId: string) {
   return queryOptions({
-    queryKey: lotKeys.detail(bankId, lotId),
+    queryKey: bankKeys.lot(bankId, lotId),
     queryFn: ({ signal }) => getLot(bankId, lotId, { signal }),
   });
 }

@@ -2,7 +2,7 @@ import { infiniteQueryOptions, useInfiniteQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { lotSchema } from '../../../../shared/schemas/lots';
 import { apiFetch } from '../../../lib/api-client';
-import { lotApiPaths, lotKeys, type LotFilters } from './keys';
+import { bankKeys, bankPaths, type LotFilters } from '../../../lib/bank-api';
 
 export const lotsPageSchema = z.object({ items: z.array(lotSchema), nextCursor: z.string().nullable() });
 export type LotsPage = z.infer<typeof lotsPageSchema>;
@@ -21,12 +21,12 @@ export function getLots(
   if (filters.q) search.set('q', filters.q);
   if (filters.speciesId) search.set('speciesId', filters.speciesId);
   if (filters.status) search.set('status', filters.status);
-  return apiFetch(`${lotApiPaths.lots(bankId)}?${search}`, { schema: lotsPageSchema, signal });
+  return apiFetch(`${bankPaths.lots(bankId)}?${search}`, { schema: lotsPageSchema, signal });
 }
 
 export function lotsQueryOptions(bankId: string, filters: LotFilters) {
   return infiniteQueryOptions({
-    queryKey: lotKeys.list(bankId, filters),
+    queryKey: bankKeys.lotList(bankId, filters),
     queryFn: ({ pageParam, signal }) => getLots(bankId, { ...filters, cursor: pageParam }, { signal }),
     initialPageParam: undefined as string | undefined,
     getNextPageParam: (last) => last.nextCursor ?? undefined,

@@ -2,19 +2,19 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { movementSchema } from '../../../../shared/schemas/lots';
 import { apiFetch } from '../../../lib/api-client';
-import { lotApiPaths, lotKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 export const stockResponseSchema = z.object({ items: z.array(movementSchema), seedsOnHand: z.number() });
 export type StockResponse = z.infer<typeof stockResponseSchema>;
 
 /** GET /api/banks/:bankId/lots/:lotId/stock: every movement, oldest first, with the running balance. */
 export function getStock(bankId: string, lotId: string, { signal }: { signal?: AbortSignal } = {}) {
-  return apiFetch(lotApiPaths.stock(bankId, lotId), { schema: stockResponseSchema, signal });
+  return apiFetch(bankPaths.lotStock(bankId, lotId), { schema: stockResponseSchema, signal });
 }
 
 export function stockQueryOptions(bankId: string, lotId: string) {
   return queryOptions({
-    queryKey: lotKeys.stock(bankId, lotId),
+    queryKey: bankKeys.lotStock(bankId, lotId),
     queryFn: ({ signal }) => getStock(bankId, lotId, { signal }),
   });
 }

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiFetch } from '../../../lib/api-client';
 import { csvForm } from '../../../lib/csv-import';
-import { lotApiPaths, lotKeys } from './keys';
+import { bankPaths, refresh, stale } from '../../../lib/bank-api';
 
 export const importPreviewSchema = z.object({
   preview: z.array(
@@ -23,12 +23,12 @@ const importedSchema = z.object({ imported: z.number() });
 
 /** POST /api/banks/:bankId/lots/import?dryRun=true: what would be imported, nothing written. */
 export async function previewLotsImport(bankId: string, file: File) {
-  return (await apiFetch(lotApiPaths.import(bankId, true), { method: 'POST', body: csvForm(file), schema: importPreviewSchema })).preview;
+  return (await apiFetch(bankPaths.lotsImport(bankId, true), { method: 'POST', body: csvForm(file), schema: importPreviewSchema })).preview;
 }
 
 /** POST /api/banks/:bankId/lots/import: every row in one transaction, or nothing. */
 export async function importLots(bankId: string, file: File) {
-  return (await apiFetch(lotApiPaths.import(bankId, false), { method: 'POST', body: csvForm(file), schema: importedSchema })).imported;
+  return (await apiFetch(bankPaths.lotsImport(bankId, false), { method: 'POST', body: csvForm(file), schema: importedSchema })).imported;
 }
 
 export function usePreviewLotsImport(bankId: string) {
@@ -39,6 +39,6 @@ export function useImportLots(bankId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (file: File) => importLots(bankId, file),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: lotKeys.all(bankId) }),
+    onSuccess: () => refresh(queryClient, stale.lotsAddedOrRemoved(bankId)),
   });
 }

@@ -2,11 +2,11 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { UpdateLotBody } from '../../../../shared/schemas/lots';
 import { apiFetch } from '../../../lib/api-client';
 import { lotResponseSchema } from './get-lot';
-import { lotApiPaths, lotKeys } from './keys';
+import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
 
 /** PATCH /api/banks/:bankId/lots/:lotId (grower): only the fields sent change. */
 export async function updateLot(bankId: string, lotId: string, body: UpdateLotBody) {
-  return (await apiFetch(lotApiPaths.lot(bankId, lotId), { method: 'PATCH', body, schema: lotResponseSchema })).lot;
+  return (await apiFetch(bankPaths.lot(bankId, lotId), { method: 'PATCH', body, schema: lotResponseSchema })).lot;
 }
 
 export function useUpdateLot(bankId: string, lotId: string) {
@@ -14,8 +14,8 @@ export function useUpdateLot(bankId: string, lotId: string) {
   return useMutation({
     mutationFn: (body: UpdateLotBody) => updateLot(bankId, lotId, body),
     onSuccess: async (lot) => {
-      queryClient.setQueryData(lotKeys.detail(bankId, lotId), lot);
-      await queryClient.invalidateQueries({ queryKey: lotKeys.lists(bankId) });
+      queryClient.setQueryData(bankKeys.lot(bankId, lotId), lot);
+      await refresh(queryClient, stale.lotEdited(bankId, lotId));
     },
   });
 }

@@ -2,7 +2,7 @@ import { CsvImport, CsvTable } from '../../../components/ui/csv-import';
 import { paths } from '../../../config/paths';
 import { formatDay } from '../../../lib/dates';
 import { useImportLots, usePreviewLotsImport, type ImportPreview } from '../api/import-lots';
-import { lotApiPaths } from '../api/keys';
+import { bankPaths } from '../../../lib/bank-api';
 import { TreatedCaution } from './lot-form-parts';
 import { formatCount } from './lot-format';
 
@@ -55,7 +55,7 @@ export function ImportLots({ bankId }: { bankId: string }) {
       template={
         <>
           Not sure of the columns?{' '}
-          <a href={lotApiPaths.csv(bankId)} download className="font-semibold text-moss-800 underline">
+          <a href={bankPaths.lotsCsv(bankId)} download className="font-semibold text-moss-800 underline">
             Export the bank’s lots
           </a>{' '}
           and use that file as a template.

@@ -1,5 +1,5 @@
 import { cn } from '../../../lib/cn';
-import type { LotStatus } from '../api/keys';
+import type { LotStatus } from '../../../lib/bank-api';
 import { statusLabels } from './lot-format';
 
 const looks: Record<LotStatus, string> = {

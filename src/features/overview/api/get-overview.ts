@@ -1,16 +1,16 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { overviewSchema } from '../../../../shared/schemas/overview';
 import { apiFetch } from '../../../lib/api-client';
-import { overviewApiPaths, overviewKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 /** GET /api/banks/:bankId/overview[?on=YYYY-MM-DD]: what needs doing in the week from that day. */
 export function getOverview(bankId: string, on?: string, { signal }: { signal?: AbortSignal } = {}) {
-  return apiFetch(overviewApiPaths.overview(bankId, on), { schema: overviewSchema, signal });
+  return apiFetch(bankPaths.overview(bankId, on), { schema: overviewSchema, signal });
 }
 
 export function overviewQueryOptions(bankId: string, on?: string) {
   return queryOptions({
-    queryKey: overviewKeys.on(bankId, on),
+    queryKey: bankKeys.overview(bankId, on),
     queryFn: ({ signal }) => getOverview(bankId, on, { signal }),
     // Counts and sowings change on other pages; coming back here should show them at once.
     staleTime: 0,

@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { photoSchema } from '../../../../shared/schemas/lots';
 import { apiFetch } from '../../../lib/api-client';
-import { photoApiPaths, photoKeys, type PhotoSubject } from './keys';
+import { bankKeys, bankPaths, type PhotoSubject } from '../../../lib/bank-api';
 
 const photosResponseSchema = z.object({ items: z.array(photoSchema) });
 
@@ -13,13 +13,13 @@ export async function getPhotos(
   subjectId: string,
   { signal }: { signal?: AbortSignal } = {},
 ) {
-  return (await apiFetch(photoApiPaths.ofSubject(bankId, subject, subjectId), { schema: photosResponseSchema, signal }))
+  return (await apiFetch(bankPaths.photos(bankId, subject, subjectId), { schema: photosResponseSchema, signal }))
     .items;
 }
 
 export function photosQueryOptions(bankId: string, subject: PhotoSubject, subjectId: string) {
   return queryOptions({
-    queryKey: photoKeys.ofSubject(bankId, subject, subjectId),
+    queryKey: bankKeys.photosOf(bankId, subject, subjectId),
     queryFn: ({ signal }) => getPhotos(bankId, subject, subjectId, { signal }),
   });
 }

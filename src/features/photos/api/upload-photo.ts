@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { photoSchema } from '../../../../shared/schemas/lots';
 import { isApiError } from '../../../lib/api-client';
 import { uploadWithProgress } from '../../../lib/upload';
-import { photoApiPaths, type PhotoSubject } from './keys';
+import { bankPaths, refresh, stale, type PhotoSubject } from '../../../lib/bank-api';
 
 const uploadedSchema = z.object({ photo: photoSchema });
 
@@ -25,7 +25,7 @@ export interface UploadPhotoInput {
 export async function uploadPhoto(bankId: string, { subject, subjectId, file, onProgress }: UploadPhotoInput) {
   const body = new FormData();
   body.append('photo', file);
-  const path = photoApiPaths.ofSubject(bankId, subject, subjectId);
+  const path = bankPaths.photos(bankId, subject, subjectId);
   return (await uploadWithProgress(path, { body, schema: uploadedSchema, onProgress })).photo;
 }
 
@@ -46,8 +46,7 @@ export function useUploadPhoto(bankId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: UploadPhotoInput) => uploadPhoto(bankId, input),
-    // A lot's thumbnail and a plant's photo list come with the lot and the plant: refresh the bank's
-    // queries (only the ones on screen refetch).
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['banks', bankId] }),
+    // The subject's photos, and the lot's thumbnail or the plant's photo list that come with them.
+    onSuccess: (_photo, { subject, subjectId }) => refresh(queryClient, stale.photos(bankId, subject, subjectId)),
   });
 }

@@ -9,7 +9,7 @@ import { ProgressBar } from '../../../components/ui/progress-bar';
 import { Loading } from '../../../components/ui/spinner';
 import { useDeletePhoto } from '../api/delete-photo';
 import { usePhotos } from '../api/get-photos';
-import type { PhotoSubject } from '../api/keys';
+import type { PhotoSubject } from '../../../lib/bank-api';
 import { isRetryable, uploadFailureMessage, useUploadPhoto } from '../api/upload-photo';
 
 /** An upload that failed before this page opened (the new-lot form hands it over). */
@@ -34,7 +34,7 @@ export interface PhotoGalleryProps {
 export function PhotoGallery({ bankId, subject, subjectId, describe, canEdit, failedUpload }: PhotoGalleryProps) {
   const photos = usePhotos(bankId, subject, subjectId);
   const upload = useUploadPhoto(bankId);
-  const remove = useDeletePhoto(bankId);
+  const remove = useDeletePhoto(bankId, subject, subjectId);
   const [open, setOpen] = useState<{ photo: PhotoDto; index: number } | null>(null);
   const [confirmDelete, setConfirmDelete] = useState<PhotoDto | null>(null);
   const [file, setFile] = useState<File | null>(null);

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { planEntrySchema, type CreatePlanBody } from '../../../../shared/schemas/plan';
 import { apiFetch } from '../../../lib/api-client';
 import { putEntry, refreshAfterPlanChange } from './invalidate-plan';
-import { planApiPaths } from './keys';
+import { bankPaths } from '../../../lib/bank-api';
 
 export const planEntryResponseSchema = z.object({ entry: planEntrySchema });
 
@@ -12,7 +12,7 @@ export const planEntryResponseSchema = z.object({ entry: planEntrySchema });
  * or the species has no indoor window; 400 with fields for a bad species or lot.
  */
 export async function createPlanEntry(bankId: string, body: CreatePlanBody) {
-  return (await apiFetch(planApiPaths.plan(bankId), { method: 'POST', body, schema: planEntryResponseSchema })).entry;
+  return (await apiFetch(bankPaths.plan(bankId), { method: 'POST', body, schema: planEntryResponseSchema })).entry;
 }
 
 export function useCreatePlanEntry(bankId: string) {
@@ -21,7 +21,7 @@ export function useCreatePlanEntry(bankId: string) {
     mutationFn: (body: CreatePlanBody) => createPlanEntry(bankId, body),
     onSuccess: async (entry) => {
       putEntry(queryClient, bankId, entry);
-      await refreshAfterPlanChange(queryClient, bankId, { stockMoved: false });
+      await refreshAfterPlanChange(queryClient, bankId, entry, { stockMoved: false });
     },
   });
 }

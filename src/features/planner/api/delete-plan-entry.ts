@@ -2,11 +2,11 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { PlanEntryDto } from '../../../../shared/schemas/plan';
 import { apiFetch } from '../../../lib/api-client';
 import { refreshAfterPlanChange } from './invalidate-plan';
-import { planApiPaths, planKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 /** DELETE /api/banks/:bankId/plan/:entryId (grower) → 204; 409 already_sown while it is sown. */
 export async function deletePlanEntry(bankId: string, entryId: string): Promise<void> {
-  await apiFetch(planApiPaths.entry(bankId, entryId), { method: 'DELETE' });
+  await apiFetch(bankPaths.planEntry(bankId, entryId), { method: 'DELETE' });
 }
 
 export function useDeletePlanEntry(bankId: string, entry: PlanEntryDto) {
@@ -14,10 +14,10 @@ export function useDeletePlanEntry(bankId: string, entry: PlanEntryDto) {
   return useMutation({
     mutationFn: () => deletePlanEntry(bankId, entry.id),
     onSuccess: async () => {
-      queryClient.setQueryData<PlanEntryDto[]>(planKeys.season(bankId, entry.season), (list) =>
+      queryClient.setQueryData<PlanEntryDto[]>(bankKeys.planSeason(bankId, entry.season), (list) =>
         list?.filter((e) => e.id !== entry.id),
       );
-      await refreshAfterPlanChange(queryClient, bankId, { stockMoved: false });
+      await refreshAfterPlanChange(queryClient, bankId, entry, { stockMoved: false });
     },
   });
 }

@@ -1,16 +1,16 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { planListResponseSchema } from '../../../../shared/schemas/plan';
 import { apiFetch } from '../../../lib/api-client';
-import { planApiPaths, planKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 /** GET /api/banks/:bankId/plan?season=YYYY: the season's entries, earliest sowing first. */
 export async function getPlan(bankId: string, season: number, { signal }: { signal?: AbortSignal } = {}) {
-  return (await apiFetch(planApiPaths.season(bankId, season), { schema: planListResponseSchema, signal })).items;
+  return (await apiFetch(bankPaths.planSeason(bankId, season), { schema: planListResponseSchema, signal })).items;
 }
 
 export function planQueryOptions(bankId: string, season: number) {
   return queryOptions({
-    queryKey: planKeys.season(bankId, season),
+    queryKey: bankKeys.planSeason(bankId, season),
     queryFn: ({ signal }) => getPlan(bankId, season, { signal }),
   });
 }

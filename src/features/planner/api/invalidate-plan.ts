@@ -1,26 +1,23 @@
 import type { QueryClient } from '@tanstack/react-query';
 import type { PlanEntryDto } from '../../../../shared/schemas/plan';
-import { planKeys } from './keys';
+import { bankKeys, refresh, stale } from '../../../lib/bank-api';
 
 /**
- * After a plan change: the season's list, and — when seeds moved — every lot query (stock, ledger,
- * ranking) and the overview's "sowings due".
+ * After a plan change: the season's entries and the overview's sowings due, and — when the entry's
+ * seeds left or went back into its lot — that lot's stock wherever it shows.
  */
 export async function refreshAfterPlanChange(
   queryClient: QueryClient,
   bankId: string,
+  entry: Pick<PlanEntryDto, 'lotId'>,
   { stockMoved }: { stockMoved: boolean },
 ): Promise<void> {
-  await Promise.all([
-    queryClient.invalidateQueries({ queryKey: planKeys.all(bankId) }),
-    queryClient.invalidateQueries({ queryKey: planKeys.overview(bankId) }),
-    stockMoved ? queryClient.invalidateQueries({ queryKey: planKeys.lots(bankId) }) : Promise.resolve(),
-  ]);
+  await refresh(queryClient, stale.plan(bankId), stockMoved && entry.lotId ? stale.stockMoved(bankId, entry.lotId) : []);
 }
 
 /** Puts an entry the server answered with into its season's cached list, in sowing order. */
 export function putEntry(queryClient: QueryClient, bankId: string, entry: PlanEntryDto): void {
-  queryClient.setQueryData<PlanEntryDto[]>(planKeys.season(bankId, entry.season), (list) => {
+  queryClient.setQueryData<PlanEntryDto[]>(bankKeys.planSeason(bankId, entry.season), (list) => {
     if (!list) return list;
     const others = list.filter((e) => e.id !== entry.id);
     return [...others, entry].sort(

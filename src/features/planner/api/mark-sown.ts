@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '../../../lib/api-client';
 import { planEntryResponseSchema } from './create-plan-entry';
 import { putEntry, refreshAfterPlanChange } from './invalidate-plan';
-import { planApiPaths } from './keys';
+import { bankPaths } from '../../../lib/bank-api';
 
 /**
  * POST /api/banks/:bankId/plan/:entryId/sown { date? } (grower): withdraws the entry's seeds from
@@ -10,7 +10,7 @@ import { planApiPaths } from './keys';
  * date in the future.
  */
 export async function markSown(bankId: string, entryId: string, date: string) {
-  return (await apiFetch(planApiPaths.sown(bankId, entryId), { method: 'POST', body: { date }, schema: planEntryResponseSchema }))
+  return (await apiFetch(bankPaths.planSown(bankId, entryId), { method: 'POST', body: { date }, schema: planEntryResponseSchema }))
     .entry;
 }
 
@@ -20,7 +20,7 @@ export function useMarkSown(bankId: string, entryId: string) {
     mutationFn: (date: string) => markSown(bankId, entryId, date),
     onSuccess: async (entry) => {
       putEntry(queryClient, bankId, entry);
-      await refreshAfterPlanChange(queryClient, bankId, { stockMoved: true });
+      await refreshAfterPlanChange(queryClient, bankId, entry, { stockMoved: true });
     },
   });
 }

@@ -2,11 +2,11 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '../../../lib/api-client';
 import { planEntryResponseSchema } from './create-plan-entry';
 import { putEntry, refreshAfterPlanChange } from './invalidate-plan';
-import { planApiPaths } from './keys';
+import { bankPaths } from '../../../lib/bank-api';
 
 /** DELETE /api/banks/:bankId/plan/:entryId/sown (grower): the seeds go back into the lot's stock. */
 export async function undoSown(bankId: string, entryId: string) {
-  return (await apiFetch(planApiPaths.sown(bankId, entryId), { method: 'DELETE', schema: planEntryResponseSchema })).entry;
+  return (await apiFetch(bankPaths.planSown(bankId, entryId), { method: 'DELETE', schema: planEntryResponseSchema })).entry;
 }
 
 export function useUndoSown(bankId: string, entryId: string) {
@@ -15,7 +15,7 @@ export function useUndoSown(bankId: string, entryId: string) {
     mutationFn: () => undoSown(bankId, entryId),
     onSuccess: async (entry) => {
       putEntry(queryClient, bankId, entry);
-      await refreshAfterPlanChange(queryClient, bankId, { stockMoved: true });
+      await refreshAfterPlanChange(queryClient, bankId, entry, { stockMoved: true });
     },
   });
 }

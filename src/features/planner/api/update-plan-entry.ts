@@ -4,13 +4,13 @@ import type { updatePlanBodySchema } from '../../../../shared/schemas/plan';
 import { apiFetch } from '../../../lib/api-client';
 import { planEntryResponseSchema } from './create-plan-entry';
 import { putEntry, refreshAfterPlanChange } from './invalidate-plan';
-import { planApiPaths } from './keys';
+import { bankPaths } from '../../../lib/bank-api';
 
 export type UpdatePlanBody = z.input<typeof updatePlanBodySchema>;
 
 /** PATCH /api/banks/:bankId/plan/:entryId (grower); 409 already_sown once the entry is sown. */
 export async function updatePlanEntry(bankId: string, entryId: string, body: UpdatePlanBody) {
-  return (await apiFetch(planApiPaths.entry(bankId, entryId), { method: 'PATCH', body, schema: planEntryResponseSchema }))
+  return (await apiFetch(bankPaths.planEntry(bankId, entryId), { method: 'PATCH', body, schema: planEntryResponseSchema }))
     .entry;
 }
 
@@ -20,7 +20,7 @@ export function useUpdatePlanEntry(bankId: string, entryId: string) {
     mutationFn: (body: UpdatePlanBody) => updatePlanEntry(bankId, entryId, body),
     onSuccess: async (entry) => {
       putEntry(queryClient, bankId, entry);
-      await refreshAfterPlanChange(queryClient, bankId, { stockMoved: false });
+      await refreshAfterPlanChange(queryClient, bankId, entry, { stockMoved: false });
     },
   });
 }

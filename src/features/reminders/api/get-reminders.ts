@@ -2,18 +2,18 @@ import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { reminderPrefsSchema } from '../../../../shared/schemas/reminders';
 import { apiFetch } from '../../../lib/api-client';
-import { reminderApiPaths, reminderKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 export const remindersResponseSchema = z.object({ preferences: reminderPrefsSchema });
 
 /** GET /api/banks/:bankId/reminders: the signed-in member's own choices in that bank (any role). */
 export async function getReminders(bankId: string, { signal }: { signal?: AbortSignal } = {}) {
-  return (await apiFetch(reminderApiPaths.reminders(bankId), { schema: remindersResponseSchema, signal })).preferences;
+  return (await apiFetch(bankPaths.reminders(bankId), { schema: remindersResponseSchema, signal })).preferences;
 }
 
 export function remindersQueryOptions(bankId: string) {
   return queryOptions({
-    queryKey: reminderKeys.all(bankId),
+    queryKey: bankKeys.reminders(bankId),
     queryFn: ({ signal }) => getReminders(bankId, { signal }),
   });
 }

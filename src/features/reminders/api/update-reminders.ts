@@ -2,12 +2,12 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ReminderPrefs } from '../../../../shared/schemas/reminders';
 import { apiFetch } from '../../../lib/api-client';
 import { remindersResponseSchema } from './get-reminders';
-import { reminderApiPaths, reminderKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 /** PATCH /api/banks/:bankId/reminders with the choices that change → the member's full choices. */
 export async function updateReminders(bankId: string, body: Partial<ReminderPrefs>) {
   return (
-    await apiFetch(reminderApiPaths.reminders(bankId), { method: 'PATCH', body, schema: remindersResponseSchema })
+    await apiFetch(bankPaths.reminders(bankId), { method: 'PATCH', body, schema: remindersResponseSchema })
   ).preferences;
 }
 
@@ -15,6 +15,6 @@ export function useUpdateReminders(bankId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: Partial<ReminderPrefs>) => updateReminders(bankId, body),
-    onSuccess: (preferences) => queryClient.setQueryData(reminderKeys.all(bankId), preferences),
+    onSuccess: (preferences) => queryClient.setQueryData(bankKeys.reminders(bankId), preferences),
   });
 }

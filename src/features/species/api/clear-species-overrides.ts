@@ -1,13 +1,13 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SpeciesDto } from '../../../../shared/schemas/species';
 import { apiFetch } from '../../../lib/api-client';
-import { speciesApiPaths, speciesKeys } from './keys';
+import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
 import { replaceInList, speciesResponseSchema } from './update-species-traits';
 
 /** DELETE /api/banks/:bankId/species/:speciesId/overrides (grower): back to the reference values. */
 export async function clearSpeciesOverrides(bankId: string, speciesId: string) {
   return (
-    await apiFetch(speciesApiPaths.overrides(bankId, speciesId), { method: 'DELETE', schema: speciesResponseSchema })
+    await apiFetch(bankPaths.speciesOverrides(bankId, speciesId), { method: 'DELETE', schema: speciesResponseSchema })
   ).species;
 }
 
@@ -15,8 +15,9 @@ export function useClearSpeciesOverrides(bankId: string, speciesId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: () => clearSpeciesOverrides(bankId, speciesId),
-    onSuccess: (species) => {
-      queryClient.setQueryData<SpeciesDto[]>(speciesKeys.list(bankId), (list) => replaceInList(list, species));
+    onSuccess: async (species) => {
+      queryClient.setQueryData<SpeciesDto[]>(bankKeys.speciesList(bankId), (list) => replaceInList(list, species));
+      await refresh(queryClient, stale.projections(bankId));
     },
   });
 }

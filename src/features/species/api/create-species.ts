@@ -1,12 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateSpeciesBody, SpeciesDto } from '../../../../shared/schemas/species';
 import { apiFetch } from '../../../lib/api-client';
-import { speciesApiPaths, speciesKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 import { speciesResponseSchema } from './update-species-traits';
 
 /** POST /api/banks/:bankId/species (grower): a species of this bank's own, beside the reference set. */
 export async function createSpecies(bankId: string, body: CreateSpeciesBody) {
-  return (await apiFetch(speciesApiPaths.list(bankId), { method: 'POST', body, schema: speciesResponseSchema })).species;
+  return (await apiFetch(bankPaths.species(bankId), { method: 'POST', body, schema: speciesResponseSchema })).species;
 }
 
 export function useCreateSpecies(bankId: string) {
@@ -15,10 +15,10 @@ export function useCreateSpecies(bankId: string) {
     mutationFn: (body: CreateSpeciesBody) => createSpecies(bankId, body),
     onSuccess: (species) => {
       // Into the cached list at once, so the picker can choose it before any refetch.
-      queryClient.setQueryData<SpeciesDto[]>(speciesKeys.list(bankId), (list) =>
+      queryClient.setQueryData<SpeciesDto[]>(bankKeys.speciesList(bankId), (list) =>
         list ? [...list, species].sort((a, b) => a.commonName.localeCompare(b.commonName)) : list,
       );
-      void queryClient.invalidateQueries({ queryKey: speciesKeys.all(bankId) });
+      void queryClient.invalidateQueries({ queryKey: bankKeys.species(bankId) });
     },
   });
 }

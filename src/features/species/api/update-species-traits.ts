@@ -2,14 +2,14 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { speciesSchema, type SpeciesDto, type SpeciesTraits } from '../../../../shared/schemas/species';
 import { apiFetch } from '../../../lib/api-client';
-import { speciesApiPaths, speciesKeys } from './keys';
+import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
 
 export const speciesResponseSchema = z.object({ species: speciesSchema });
 
 /** PATCH /api/banks/:bankId/species/:speciesId (grower): this bank's own values over the reference. */
 export async function updateSpeciesTraits(bankId: string, speciesId: string, traits: Partial<SpeciesTraits>) {
   return (
-    await apiFetch(speciesApiPaths.one(bankId, speciesId), {
+    await apiFetch(bankPaths.speciesOne(bankId, speciesId), {
       method: 'PATCH',
       body: { traits },
       schema: speciesResponseSchema,
@@ -26,8 +26,10 @@ export function useUpdateSpeciesTraits(bankId: string, speciesId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (traits: Partial<SpeciesTraits>) => updateSpeciesTraits(bankId, speciesId, traits),
-    onSuccess: (species) => {
-      queryClient.setQueryData<SpeciesDto[]>(speciesKeys.list(bankId), (list) => replaceInList(list, species));
+    // Storage and timing traits feed every lot's decline, the ranking, the plan and the overview.
+    onSuccess: async (species) => {
+      queryClient.setQueryData<SpeciesDto[]>(bankKeys.speciesList(bankId), (list) => replaceInList(list, species));
+      await refresh(queryClient, stale.projections(bankId));
     },
   });
 }

@@ -2,23 +2,19 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { planEntrySchema, type CreatePlanBody } from '../../../../shared/schemas/plan';
 import { apiFetch } from '../../../lib/api-client';
-import { viabilityApiPaths, viabilityKeys } from './keys';
+import { bankPaths, refresh, stale } from '../../../lib/bank-api';
 
 const createdSchema = z.object({ entry: planEntrySchema });
 
 /** POST /api/banks/:bankId/plan (grower): a sowing-plan entry for this lot's species, with the lot chosen. */
 export async function addToPlan(bankId: string, body: CreatePlanBody) {
-  return (await apiFetch(viabilityApiPaths.plan(bankId), { method: 'POST', body, schema: createdSchema })).entry;
+  return (await apiFetch(bankPaths.plan(bankId), { method: 'POST', body, schema: createdSchema })).entry;
 }
 
 export function useAddToPlan(bankId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: CreatePlanBody) => addToPlan(bankId, body),
-    onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: viabilityKeys.plan(bankId) }),
-        queryClient.invalidateQueries({ queryKey: viabilityKeys.overview(bankId) }),
-      ]),
+    onSuccess: () => refresh(queryClient, stale.plan(bankId)),
   });
 }

@@ -1,16 +1,16 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { viabilityResponseSchema } from '../../../../shared/schemas/viability';
 import { apiFetch } from '../../../lib/api-client';
-import { viabilityApiPaths, viabilityKeys } from './keys';
+import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 /** GET /api/banks/:bankId/lots/:lotId/viability?on=: the lot's fitted decline and its tests. */
 export function getLotViability(bankId: string, lotId: string, on: string, { signal }: { signal?: AbortSignal } = {}) {
-  return apiFetch(viabilityApiPaths.decline(bankId, lotId, on), { schema: viabilityResponseSchema, signal });
+  return apiFetch(bankPaths.lotViability(bankId, lotId, on), { schema: viabilityResponseSchema, signal });
 }
 
 export function lotViabilityQueryOptions(bankId: string, lotId: string, on: string) {
   return queryOptions({
-    queryKey: viabilityKeys.decline(bankId, lotId, on),
+    queryKey: bankKeys.lotViability(bankId, lotId, on),
     queryFn: ({ signal }) => getLotViability(bankId, lotId, on, { signal }),
   });
 }
