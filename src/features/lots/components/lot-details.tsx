@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState, type ReactNode } from 'react';
-import { useController, useForm, useWatch } from 'react-hook-form';
+import { FormProvider, useForm } from 'react-hook-form';
 import { updateLotBodySchema, type LotDto, type ParentPlantDto } from '../../../../shared/schemas/lots';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
@@ -12,6 +12,17 @@ import { formatDay } from '../../../lib/dates';
 import { applyServerError } from '../../../lib/form-errors';
 import { useUpdateLot } from '../api/update-lot';
 import {
+  HarvestDateField,
+  LotCodeField,
+  LotNotesField,
+  PackedForSeasonField,
+  ParentPlantsField,
+  PlantsBulkedField,
+  StorageFields,
+  TreatedAndCautions,
+  VarietyField,
+} from './lot-fieldsets';
+import {
   formatCount,
   harvestLabel,
   originLabels,
@@ -19,21 +30,11 @@ import {
   statusOrder,
   storageLabels,
   type Origin,
-  type StoragePlace,
 } from './lot-format';
-import {
-  emptyToNull,
-  friendlyNumberError,
-  numberOrNull,
-  ParentPlantPicker,
-  SwapCaution,
-  TreatedCaution,
-  TreatedCheckbox,
-} from './lot-form-parts';
+import { friendlyNumberError } from './lot-form-parts';
 
 const resolver = zodResolver(updateLotBodySchema, { error: friendlyNumberError });
 const ORIGINS: readonly Origin[] = ['saved', 'swapped', 'bought'];
-const PLACES: readonly StoragePlace[] = ['room', 'fridge', 'freezer', 'other'];
 const SERVER_FIELDS = [
   'code',
   'variety',
@@ -131,7 +132,9 @@ export function LotDetails({ bankId, lot, plants, canEdit }: LotDetailsProps) {
                 ? 'Estimated'
                 : 'Counted'}
           </Detail>
-          <Detail label="Plants bulked">{lot.plantsBulked !== null ? formatCount(lot.plantsBulked) : 'Not said'}</Detail>
+          <Detail label="Plants bulked">
+            {lot.plantsBulked !== null ? formatCount(lot.plantsBulked) : 'Not said'}
+          </Detail>
           <Detail label="Storage">{storageWords(lot)}</Detail>
           <Detail label="Seed treatment">{lot.treated ? 'Treated (coated)' : 'Not treated'}</Detail>
           <Detail label="Logged">{formatDay(lot.createdAt.slice(0, 10))}</Detail>
@@ -146,19 +149,26 @@ export function LotDetails({ bankId, lot, plants, canEdit }: LotDetailsProps) {
   );
 }
 
-function LotEditForm({ bankId, lot, plants, onDone }: { bankId: string; lot: LotDto; plants: ParentPlantDto[]; onDone: () => void }) {
+function LotEditForm({
+  bankId,
+  lot,
+  plants,
+  onDone,
+}: {
+  bankId: string;
+  lot: LotDto;
+  plants: ParentPlantDto[];
+  onDone: () => void;
+}) {
   const update = useUpdateLot(bankId, lot.id);
   const [formError, setFormError] = useState<string>();
+  const form = useForm({ resolver, defaultValues: toFormValues(lot) });
   const {
     register,
-    control,
     handleSubmit,
     setError,
     formState: { errors },
-  } = useForm({ resolver, defaultValues: toFormValues(lot) });
-  const parents = useController({ control, name: 'parentPlantIds' });
-  const origin = useWatch({ control, name: 'origin' });
-  const treated = useWatch({ control, name: 'treated' });
+  } = form;
 
   const onSubmit = handleSubmit(async (body) => {
     setFormError(undefined);
@@ -175,122 +185,60 @@ function LotEditForm({ bankId, lot, plants, onDone }: { bankId: string; lot: Lot
   });
 
   return (
-    <form noValidate onSubmit={onSubmit} className="grid gap-4">
-      <FormAlert>{formError}</FormAlert>
-      <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Lot code" autoComplete="off" spellCheck={false} error={errors.code?.message} {...register('code')} />
-        <TextField label="Variety" autoComplete="off" error={errors.variety?.message} {...register('variety')} />
-        <SelectField label="Origin" error={errors.origin?.message} {...register('origin')}>
-          {ORIGINS.map((value) => (
-            <option key={value} value={value}>
-              {originLabels[value]}
-            </option>
-          ))}
-        </SelectField>
-        <TextField
-          label="Source"
-          hint="Who it was swapped with or bought from."
-          autoComplete="off"
-          error={errors.sourceName?.message}
-          {...register('sourceName')}
-        />
-        <TextField
-          label="Harvest date"
-          type="date"
-          className="num"
-          error={errors.harvestDate?.message}
-          {...register('harvestDate', { setValueAs: emptyToNull })}
-        />
-        <TextField
-          label="Packed for season"
-          type="number"
-          inputMode="numeric"
-          className="num"
-          error={errors.packedForSeason?.message}
-          {...register('packedForSeason', { setValueAs: numberOrNull })}
-        />
-        <TextField
-          label="Plants bulked"
-          type="number"
-          inputMode="numeric"
-          min={1}
-          className="num"
-          error={errors.plantsBulked?.message}
-          {...register('plantsBulked', { setValueAs: numberOrNull })}
-        />
-        <SelectField
-          label="Status"
-          hint="Used up follows the stock by itself; retire a lot you no longer sow from."
-          error={errors.status?.message}
-          {...register('status')}
-        >
-          {statusOrder.map((status) => (
-            <option key={status} value={status}>
-              {statusLabels[status]}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label="Kept in" error={errors.storage?.place?.message} {...register('storage.place', { setValueAs: emptyToNull })}>
-          <option value="">Not said</option>
-          {PLACES.map((place) => (
-            <option key={place} value={place}>
-              {storageLabels[place]}
-            </option>
-          ))}
-        </SelectField>
-        <TextField label="Storage location" autoComplete="off" error={errors.storage?.location?.message} {...register('storage.location')} />
-        <TextField
-          label="Temperature (°C)"
-          type="number"
-          inputMode="decimal"
-          step="any"
-          className="num"
-          error={errors.storage?.temperatureC?.message}
-          {...register('storage.temperatureC', { setValueAs: numberOrNull })}
-        />
-        <TextField
-          label="Relative humidity (%)"
-          type="number"
-          inputMode="decimal"
-          step="any"
-          className="num"
-          error={errors.storage?.humidityPct?.message}
-          {...register('storage.humidityPct', { setValueAs: numberOrNull })}
-        />
-      </div>
-      {origin === 'swapped' ? <SwapCaution /> : null}
-      <TreatedCheckbox field={register('treated')} />
-      {treated ? <TreatedCaution /> : null}
-      {plants.length > 0 ? (
-        <div className="grid gap-2">
-          <p className="font-semibold text-loam-900">Parent plants</p>
-          <ParentPlantPicker
-            plants={plants}
-            value={parents.field.value ?? []}
-            onChange={parents.field.onChange}
-            error={errors.parentPlantIds?.message}
+    <FormProvider {...form}>
+      <form noValidate onSubmit={onSubmit} className="grid gap-4">
+        <FormAlert>{formError}</FormAlert>
+        <div className="grid gap-4 sm:grid-cols-2">
+          <LotCodeField />
+          <VarietyField />
+          <SelectField label="Origin" error={errors.origin?.message} {...register('origin')}>
+            {ORIGINS.map((value) => (
+              <option key={value} value={value}>
+                {originLabels[value]}
+              </option>
+            ))}
+          </SelectField>
+          <TextField
+            label="Source"
+            hint="Who it was swapped with or bought from."
+            autoComplete="off"
+            error={errors.sourceName?.message}
+            {...register('sourceName')}
           />
+          <HarvestDateField />
+          <PackedForSeasonField />
+          <PlantsBulkedField />
+          <SelectField
+            label="Status"
+            hint="Used up follows the stock by itself; retire a lot you no longer sow from."
+            error={errors.status?.message}
+            {...register('status')}
+          >
+            {statusOrder.map((status) => (
+              <option key={status} value={status}>
+                {statusLabels[status]}
+              </option>
+            ))}
+          </SelectField>
+          <StorageFields locationLabel="Storage location" />
         </div>
-      ) : null}
-      <div className="flex flex-col gap-1">
-        <label htmlFor={`notes-${lot.id}`} className="font-semibold text-loam-900">
-          Notes
-        </label>
-        <textarea
-          id={`notes-${lot.id}`}
-          rows={3}
-          className="w-full rounded-lg border border-loam-300 bg-white px-3 py-2 text-base text-loam-900"
-          {...register('notes')}
-        />
-      </div>
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" isLoading={update.isPending}>
-          Save changes
-        </Button>
-        <Button variant="secondary" onClick={onDone} disabled={update.isPending}>
-          Cancel
-        </Button>
-      </div>
-    </form>
+        <TreatedAndCautions />
+        {plants.length > 0 ? (
+          <div className="grid gap-2">
+            <p className="font-semibold text-loam-900">Parent plants</p>
+            <ParentPlantsField plants={plants} />
+          </div>
+        ) : null}
+        <LotNotesField />
+        <div className="flex flex-wrap gap-2">
+          <Button type="submit" isLoading={update.isPending}>
+            Save changes
+          </Button>
+          <Button variant="secondary" onClick={onDone} disabled={update.isPending}>
+            Cancel
+          </Button>
+        </div>
+      </form>
+    </FormProvider>
   );
 }
