@@ -1,13 +1,17 @@
-import { useId, useState, type FormEvent, type ReactNode } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState, type ReactNode } from 'react';
+import { useFieldArray, useForm, useWatch, type Path } from 'react-hook-form';
+import { z } from 'zod';
 import {
   createTestBodySchema,
+  pretreatmentSchema,
   TEST_METHODS,
-  type CreateTestBody,
   type TestDetail,
 } from '../../../../shared/schemas/germination';
 import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { SelectField } from '../../../components/ui/select-field';
+import { TextAreaField } from '../../../components/ui/text-area-field';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
@@ -47,8 +51,6 @@ export function defaultSeedsPerTray(seedsOnHand: number | undefined): number {
   return seedsOnHand !== undefined && seedsOnHand >= 4000 ? 100 : 25;
 }
 
-type FieldErrors = Partial<Record<string, string>>;
-
 /** '' → null; a number → the number; anything else → NaN (reported as "use a number"). */
 function numberOrNull(text: string): number | null {
   const trimmed = text.trim().replace(',', '.');
@@ -56,94 +58,145 @@ function numberOrNull(text: string): number | null {
   return /^-?\d+(\.\d+)?$/.test(trimmed) ? Number(trimmed) : Number.NaN;
 }
 
-export function StartTestForm({ bankId, lotId, lot, renderStockLink, onCreated, onCancel }: StartTestFormProps) {
+/**
+ * The form as typed (numbers as text, the method as a choice or words of one's own), read into the
+ * request body and checked by the body's own schema, so every message lands on the field it names.
+ */
+const startTestFormSchema = z
+  .object({
+    startDate: z.string(),
+    /** One of TEST_METHODS, or OTHER for the grower's own words in `method`. */
+    methodChoice: z.string(),
+    method: z.string(),
+    medium: z.string(),
+    temperatureC: z.string(),
+    lightHours: z.string(),
+    pretreatment: pretreatmentSchema,
+    pretreatmentDays: z.string(),
+    notes: z.string(),
+    trays: z.array(z.object({ seedsSown: z.string() })),
+  })
+  .transform((form): z.input<typeof createTestBodySchema> => ({
+    startDate: form.startDate,
+    method: (form.methodChoice === OTHER ? form.method : form.methodChoice).trim(),
+    medium: form.medium.trim() === '' ? null : form.medium.trim(),
+    temperatureC: numberOrNull(form.temperatureC),
+    lightHours: numberOrNull(form.lightHours),
+    pretreatment: form.pretreatment,
+    pretreatmentDays:
+      form.pretreatment === 'cold-stratification' ? numberOrNull(form.pretreatmentDays) : null,
+    notes: form.notes.trim() === '' ? null : form.notes.trim(),
+    // A blank tray is as wrong as one that is not a number.
+    trays: form.trays.map((t) => ({ seedsSown: numberOrNull(t.seedsSown) ?? Number.NaN })),
+  }))
+  .pipe(createTestBodySchema);
+
+type StartTestValues = z.input<typeof startTestFormSchema>;
+
+/** What to say of a box that does not hold a number. */
+function notANumber(path: string): string | undefined {
+  if (path === 'temperatureC') return 'Use a number of degrees, like 21.';
+  if (path === 'lightHours') return 'Use a number of hours, like 14 (0 for dark).';
+  if (path === 'pretreatmentDays') return 'Use a whole number of days.';
+  if (/^trays\.\d+\.seedsSown$/.test(path)) return 'How many seeds in this tray?';
+  return undefined;
+}
+
+const resolver = zodResolver(startTestFormSchema, {
+  error: (issue) => (issue.code === 'invalid_type' ? notANumber(issue.path?.join('.') ?? '') : undefined),
+});
+
+export function StartTestForm({
+  bankId,
+  lotId,
+  lot,
+  renderStockLink,
+  onCreated,
+  onCancel,
+}: StartTestFormProps) {
   const create = useCreateTest(bankId, lotId);
   const [today] = useState(() => localToday());
-  const perTrayDefault = defaultSeedsPerTray(lot?.seedsOnHand);
-  const [startDate, setStartDate] = useState(today);
-  const [methodChoice, setMethodChoice] = useState<string>(TEST_METHODS[0]);
-  const [otherMethod, setOtherMethod] = useState('');
-  const [medium, setMedium] = useState('');
-  const [temperature, setTemperature] = useState('');
-  const [lightHours, setLightHours] = useState('');
-  const [pretreatment, setPretreatment] = useState<CreateTestBody['pretreatment']>('none');
-  const [pretreatmentDays, setPretreatmentDays] = useState('');
-  const [notes, setNotes] = useState('');
-  const [trays, setTrays] = useState<string[]>(() => Array.from({ length: DEFAULT_TRAYS }, () => String(perTrayDefault)));
-  const [errors, setErrors] = useState<FieldErrors>({});
+  const perTrayDefault = String(defaultSeedsPerTray(lot?.seedsOnHand));
   const [formError, setFormError] = useState<ReactNode>();
-  const perTrayId = useId();
+  const {
+    register,
+    control,
+    handleSubmit,
+    setValue,
+    getValues,
+    setError,
+    formState: { errors },
+  } = useForm({
+    resolver,
+    defaultValues: {
+      startDate: today,
+      methodChoice: TEST_METHODS[0],
+      method: '',
+      medium: '',
+      temperatureC: '',
+      lightHours: '',
+      pretreatment: 'none',
+      pretreatmentDays: '',
+      notes: '',
+      trays: Array.from({ length: DEFAULT_TRAYS }, () => ({ seedsSown: perTrayDefault })),
+    } satisfies StartTestValues,
+  });
+  const trayFields = useFieldArray({ control, name: 'trays' });
+  const watched = useWatch({ control });
+  const methodChoice = watched.methodChoice ?? TEST_METHODS[0];
+  const pretreatment = watched.pretreatment ?? 'none';
+  const trays = (watched.trays ?? []).map((t) => t?.seedsSown ?? '');
 
-  const method = methodChoice === OTHER ? otherMethod : methodChoice;
-  const sownNumbers = trays.map((t) => numberOrNull(t));
-  const total = sownNumbers.reduce<number>((sum, n) => sum + (n !== null && Number.isFinite(n) ? n : 0), 0);
+  const total = trays.reduce((sum, t) => {
+    const n = numberOrNull(t);
+    return sum + (n !== null && Number.isFinite(n) ? n : 0);
+  }, 0);
   const allSame = trays.every((t) => t === trays[0]);
   const short = lot !== undefined && total > lot.seedsOnHand;
-  const fittingPerTray = lot !== undefined ? Math.floor(lot.seedsOnHand / trays.length) : 0;
+  const fittingPerTray =
+    lot !== undefined && trays.length > 0 ? Math.floor(lot.seedsOnHand / trays.length) : 0;
 
   const setTrayCount = (count: number) => {
-    setTrays((current) => {
-      const fill = current.at(-1) ?? String(perTrayDefault);
-      return Array.from({ length: count }, (_, i) => current[i] ?? fill);
-    });
+    const current = getValues('trays');
+    if (count < current.length) {
+      trayFields.remove(Array.from({ length: current.length - count }, (_, i) => count + i));
+    } else if (count > current.length) {
+      const fill = current.at(-1)?.seedsSown ?? perTrayDefault;
+      trayFields.append(Array.from({ length: count - current.length }, () => ({ seedsSown: fill })));
+    }
   };
-  const setAllTrays = (value: string) => setTrays((current) => current.map(() => value));
-  const setTray = (index: number, value: string) =>
-    setTrays((current) => current.map((t, i) => (i === index ? value : t)));
+  const setAllTrays = (value: string) => {
+    getValues('trays').forEach((_, i) =>
+      setValue(`trays.${i}.seedsSown`, value, { shouldValidate: errors.trays !== undefined }),
+    );
+  };
 
-  const onSubmit = async (event: FormEvent) => {
-    event.preventDefault();
-    setFormError(undefined);
-    const found: FieldErrors = {};
-    const temperatureC = numberOrNull(temperature);
-    const light = numberOrNull(lightHours);
-    const days = pretreatment === 'cold-stratification' ? numberOrNull(pretreatmentDays) : null;
-    if (Number.isNaN(temperatureC)) found.temperatureC = 'Use a number of degrees, like 21.';
-    if (Number.isNaN(light)) found.lightHours = 'Use a number of hours, like 14 (0 for dark).';
-    if (Number.isNaN(days)) found.pretreatmentDays = 'Use a whole number of days.';
-    sownNumbers.forEach((n, i) => {
-      if (n === null || Number.isNaN(n)) found[`trays.${i}.seedsSown`] = 'How many seeds in this tray?';
-    });
-    const body = {
-      startDate,
-      method: method.trim(),
-      medium: medium.trim() === '' ? null : medium.trim(),
-      temperatureC,
-      lightHours: light,
-      pretreatment,
-      pretreatmentDays: days,
-      notes: notes.trim() === '' ? null : notes.trim(),
-      trays: sownNumbers.map((n) => ({ seedsSown: n ?? 0 })),
-    };
-    const parsed = createTestBodySchema.safeParse(body);
-    if (!parsed.success) {
-      for (const issue of parsed.error.issues) {
-        const key = issue.path.join('.');
-        found[key] ??= issue.message;
+  const onSubmit = handleSubmit(
+    async (body) => {
+      setFormError(undefined);
+      try {
+        const detail = await create.mutateAsync(body);
+        await onCreated(detail);
+      } catch (error) {
+        if (isApiError(error) && error.code === 'stock_short') {
+          setFormError(
+            <>
+              {error.message} {renderStockLink('Open the lot page to correct its stock.')}
+            </>,
+          );
+          return;
+        }
+        // The server names fields as the body does, and the form's fields carry the same names.
+        for (const [key, message] of Object.entries(isApiError(error) ? (error.fields ?? {}) : {})) {
+          setError(key as Path<StartTestValues>, { type: 'server', message });
+        }
+        setFormError(isApiError(error) ? error.message : 'Something went wrong. Try again.');
       }
-    }
-    if (Object.keys(found).length > 0 || !parsed.success) {
-      setErrors(found);
-      setFormError('Some answers need a look: see the messages by the fields.');
-      return;
-    }
-    setErrors({});
-    try {
-      const detail = await create.mutateAsync(parsed.data);
-      await onCreated(detail);
-    } catch (error) {
-      if (isApiError(error) && error.code === 'stock_short') {
-        setFormError(
-          <>
-            {error.message} {renderStockLink('Open the lot page to correct its stock.')}
-          </>,
-        );
-        return;
-      }
-      if (isApiError(error) && error.fields) setErrors(error.fields);
-      setFormError(isApiError(error) ? error.message : 'Something went wrong. Try again.');
-    }
-  };
+    },
+    () => setFormError('Some answers need a look: see the messages by the fields.'),
+  );
+
+  const trayListError = errors.trays?.root?.message ?? errors.trays?.message;
 
   return (
     <form noValidate onSubmit={onSubmit} className="grid gap-6" aria-label="Start a germination test">
@@ -157,13 +210,12 @@ export function StartTestForm({ bankId, lotId, lot, renderStockLink, onCreated, 
           label="Start date"
           type="date"
           max={today}
-          value={startDate}
-          onChange={(e) => setStartDate(e.target.value)}
-          error={errors.startDate}
+          error={errors.startDate?.message}
           hint="The day the seeds went onto the towel or into the trays."
+          {...register('startDate')}
         />
         <div className="grid gap-3">
-          <SelectField label="Method" value={methodChoice} onChange={(e) => setMethodChoice(e.target.value)}>
+          <SelectField label="Method" {...register('methodChoice')}>
             {TEST_METHODS.map((m) => (
               <option key={m} value={m}>
                 {m.charAt(0).toUpperCase() + m.slice(1)}
@@ -174,46 +226,38 @@ export function StartTestForm({ bankId, lotId, lot, renderStockLink, onCreated, 
           {methodChoice === OTHER ? (
             <TextField
               label="Your method"
-              value={otherMethod}
-              onChange={(e) => setOtherMethod(e.target.value)}
-              error={errors.method}
+              error={errors.method?.message}
               maxLength={80}
               hint="In a few words, e.g. “jar of damp sand”."
+              {...register('method')}
             />
           ) : errors.method ? (
-            <p className="text-sm font-semibold text-clay-700">{errors.method}</p>
+            <p className="text-sm font-semibold text-clay-700">{errors.method.message}</p>
           ) : null}
         </div>
         <TextField
           label="Medium (optional)"
-          value={medium}
-          onChange={(e) => setMedium(e.target.value)}
-          error={errors.medium}
+          error={errors.medium?.message}
           maxLength={120}
           hint="e.g. seed-starting mix, vermiculite, kitchen paper."
           containerClassName="sm:col-span-2"
+          {...register('medium')}
         />
         <TextField
           label="Temperature, °C (optional)"
           inputMode="decimal"
-          value={temperature}
-          onChange={(e) => setTemperature(e.target.value)}
-          error={errors.temperatureC}
+          error={errors.temperatureC?.message}
           hint="Where the trays sit, e.g. 21."
+          {...register('temperatureC')}
         />
         <TextField
           label="Light, hours a day (optional)"
           inputMode="decimal"
-          value={lightHours}
-          onChange={(e) => setLightHours(e.target.value)}
-          error={errors.lightHours}
+          error={errors.lightHours?.message}
           hint="0 for a dark cupboard."
+          {...register('lightHours')}
         />
-        <SelectField
-          label="Pre-treatment"
-          value={pretreatment}
-          onChange={(e) => setPretreatment(e.target.value as CreateTestBody['pretreatment'])}
-        >
+        <SelectField label="Pre-treatment" {...register('pretreatment')}>
           {Object.entries(pretreatmentLabels).map(([value, label]) => (
             <option key={value} value={value}>
               {label}
@@ -225,15 +269,21 @@ export function StartTestForm({ bankId, lotId, lot, renderStockLink, onCreated, 
             label="Days of cold stratification"
             inputMode="numeric"
             pattern="[0-9]*"
-            value={pretreatmentDays}
-            onChange={(e) => setPretreatmentDays(e.target.value)}
-            error={errors.pretreatmentDays}
+            error={errors.pretreatmentDays?.message}
             hint="Days in the cold, damp, before the test began."
+            {...register('pretreatmentDays')}
           />
         ) : null}
       </fieldset>
 
-      <TestCautions setup={{ method, medium, temperatureC: numberOrNull(temperature), lightHours: numberOrNull(lightHours) }} />
+      <TestCautions
+        setup={{
+          method: methodChoice === OTHER ? (watched.method ?? '') : methodChoice,
+          medium: watched.medium ?? '',
+          temperatureC: numberOrNull(watched.temperatureC ?? ''),
+          lightHours: numberOrNull(watched.lightHours ?? ''),
+        }}
+      />
 
       <fieldset className="grid gap-4">
         <legend className="mb-2 text-lg font-bold text-loam-900">Trays and seeds</legend>
@@ -241,7 +291,7 @@ export function StartTestForm({ bankId, lotId, lot, renderStockLink, onCreated, 
           <SelectField
             label="Number of trays"
             hint="Each tray (or towel) is one replicate; 4 lets Hilum check that they agree."
-            value={trays.length}
+            value={trayFields.fields.length}
             onChange={(e) => setTrayCount(Number(e.target.value))}
           >
             {TRAY_CHOICES.map((n) => (
@@ -251,7 +301,6 @@ export function StartTestForm({ bankId, lotId, lot, renderStockLink, onCreated, 
             ))}
           </SelectField>
           <TextField
-            id={perTrayId}
             label="Seeds in each tray"
             inputMode="numeric"
             pattern="[0-9]*"
@@ -262,20 +311,19 @@ export function StartTestForm({ bankId, lotId, lot, renderStockLink, onCreated, 
           />
         </div>
         <ol className="grid grid-cols-2 gap-3 sm:grid-cols-4" aria-label="Seeds sown per tray">
-          {trays.map((value, i) => (
-            <li key={i}>
+          {trayFields.fields.map((field, i) => (
+            <li key={field.id}>
               <TextField
                 label={`Tray ${i + 1}`}
                 inputMode="numeric"
                 pattern="[0-9]*"
-                value={value}
-                onChange={(e) => setTray(i, e.target.value)}
-                error={errors[`trays.${i}.seedsSown`]}
+                error={errors.trays?.[i]?.seedsSown?.message}
+                {...register(`trays.${i}.seedsSown`)}
               />
             </li>
           ))}
         </ol>
-        {errors.trays ? <p className="text-sm font-semibold text-clay-700">{errors.trays}</p> : null}
+        {trayListError ? <p className="text-sm font-semibold text-clay-700">{trayListError}</p> : null}
         <div
           aria-live="polite"
           className={cn(
@@ -289,7 +337,13 @@ export function StartTestForm({ bankId, lotId, lot, renderStockLink, onCreated, 
               <>
                 {' '}
                 (on hand: <span className="num">{lot.seedsOnHand}</span>
-                {short ? ')' : <>, <span className="num">{lot.seedsOnHand - total}</span> left after)</>}
+                {short ? (
+                  ')'
+                ) : (
+                  <>
+                    , <span className="num">{lot.seedsOnHand - total}</span> left after)
+                  </>
+                )}
               </>
             ) : null}
             .
@@ -311,19 +365,12 @@ export function StartTestForm({ bankId, lotId, lot, renderStockLink, onCreated, 
         </div>
       </fieldset>
 
-      <div className="flex flex-col gap-1">
-        <label htmlFor={`${perTrayId}-notes`} className="font-semibold text-loam-900">
-          Notes (optional)
-        </label>
-        <textarea
-          id={`${perTrayId}-notes`}
-          value={notes}
-          onChange={(e) => setNotes(e.target.value)}
-          maxLength={4000}
-          rows={3}
-          className="w-full rounded-lg border border-loam-300 bg-white px-3 py-2 text-base text-loam-900"
-        />
-      </div>
+      <TextAreaField
+        label="Notes (optional)"
+        maxLength={4000}
+        error={errors.notes?.message}
+        {...register('notes')}
+      />
 
       <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
         {onCancel ? (
