@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { defaultSowingDate } from '../../src/features/viability/components/sowing-date';
-import { wilsonInterval } from '../../src/features/viability/components/wilson';
+import { seedAgeYears } from '../../shared/seed-age';
+import { wilsonScoreInterval as wilsonInterval } from '../../shared/wilson';
 
-describe('the decline chart’s Wilson interval (computed in the browser)', () => {
+describe('the shared Wilson interval (the decline chart’s whiskers in the browser)', () => {
   it.each([
     [81, 263, 0.2553, 0.3662], // Newcombe 1998, Stat. Med. 17:857–872, Table II (score method), as quoted in Hilum's issue text
     [0, 20, 0, 0.1611], // Newcombe 1998, Table II, as quoted in Hilum's issue text
@@ -17,6 +18,23 @@ describe('the decline chart’s Wilson interval (computed in the browser)', () =
     expect(wilsonInterval(20, 20).high).toBe(1);
     // And it mirrors 0 of 20: the score interval is symmetric in x and n − x (algebra).
     expect(wilsonInterval(20, 20).low).toBeCloseTo(1 - 0.1611, 4); // Newcombe 1998, Table II, 0 of 20, mirrored
+  });
+});
+
+describe('seed age', () => {
+  it('when four calendar years pass, then the seed is exactly four years older', () => {
+    // Gregorian calendar: 14 Sep 2021 to 14 Sep 2025 holds one 29 February, so 1461 days, and the
+    // year seed age counts in is the Julian year of 365.25 days (IAU 1976 system of astronomical
+    // constants): 1461 / 365.25 = 4.
+    expect(seedAgeYears('2021-09-14', '2025-09-14')).toBe(4);
+  });
+
+  it('when one calendar year passes, then the age is its days over 365.25', () => {
+    // 14 Sep 2023 to 14 Sep 2024 crosses 29 Feb 2024: 366 days; the next year 365 (calendar).
+    expect(seedAgeYears('2023-09-14', '2024-09-14')).toBeCloseTo(366 / 365.25, 12);
+    expect(seedAgeYears('2024-09-14', '2025-09-14')).toBeCloseTo(365 / 365.25, 12);
+    // Before the harvest reference the age is negative (the chart clamps it at 0).
+    expect(seedAgeYears('2025-09-14', '2025-09-13')).toBeCloseTo(-1 / 365.25, 12);
   });
 });
 

@@ -1,3 +1,4 @@
+import { seedlingsAboveSown } from '../../../shared/count-rules';
 import type { CountsBody } from '../../../shared/schemas/germination';
 
 export interface CountProblem {
@@ -22,9 +23,8 @@ interface SavedCount {
 /** The rule one tray's cumulative count breaks against its seeds and its other check dates, if any. */
 function trayProblem(tray: Tray, cumulative: number, date: string, startDate: string, saved: SavedCount[]): string | null {
   const label = `Tray ${tray.position}`;
-  if (cumulative > tray.seeds_sown) {
-    return `${label}: ${cumulative} seedlings are more than the ${tray.seeds_sown} seeds sown. At most ${tray.seeds_sown}.`;
-  }
+  const aboveSown = seedlingsAboveSown(tray.position, cumulative, tray.seeds_sown);
+  if (aboveSown) return aboveSown;
   // Day 0: nothing has had time to sprout, and the timing statistics cannot place it.
   if (date === startDate && cumulative > 0) {
     return `${label}: ${cumulative} seedlings on the day the test started (${startDate}). Count on a later day, or give 0.`;

@@ -1,4 +1,5 @@
 import { useEffect, useId, useRef, useState, type FormEvent } from 'react';
+import { seedlingsAboveSown } from '../../../../shared/count-rules';
 import { countsBodySchema, type TestDetail } from '../../../../shared/schemas/germination';
 import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
@@ -232,8 +233,9 @@ function CountRows({ bankId, detail, date, onDateError, justSaved, onSaved, onEd
         continue;
       }
       const n = /^\d+$/.test(text) ? Number(text) : Number.NaN;
+      const aboveSown = Number.isNaN(n) ? null : seedlingsAboveSown(tray.position, n, tray.seedsSown);
       if (Number.isNaN(n)) local[tray.id] = `Tray ${tray.position}: type its normal seedlings so far as a whole number (0 if none).`;
-      else if (n > tray.seedsSown) local[tray.id] = `Tray ${tray.position}: ${n} is more than the ${tray.seedsSown} seeds sown.`;
+      else if (aboveSown) local[tray.id] = aboveSown;
       entries.push({ trayId: tray.id, cumulative: n });
     }
     if (entries.length === 0 && Object.keys(local).length === 0) {

@@ -1,15 +1,15 @@
 import { lazy, Suspense, type ReactNode } from 'react';
 import type { ViabilityResponse } from '../../../../shared/schemas/viability';
+import { seedAgeYears } from '../../../../shared/seed-age';
+import { wilsonScoreInterval } from '../../../../shared/wilson';
 import { Card } from '../../../components/ui/card';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { Loading } from '../../../components/ui/spinner';
 import { formatDay } from '../../../lib/dates';
 import { useLotViability } from '../api/get-lot-viability';
 import type { SetAsidePoint } from './decline-chart';
-import { ageOn } from './sowing-date';
 import { TestMark, type TestKind } from './test-mark';
 import { basisWords, pct, retestReasonWords, years } from './viability-format';
-import { wilsonInterval } from './wilson';
 
 // The chart library loads with the chart, not with the app.
 const DeclineChart = lazy(() => import('./decline-chart'));
@@ -138,7 +138,7 @@ export function DeclineCard({ bankId, lotId, on, today, setAsideResults = {} }: 
     ? v.setAside.flatMap((t) => {
         const r = setAsideResults[t.testId];
         if (!r || r.sown <= 0) return [];
-        return [{ ageYears: Math.max(0, ageOn(v.harvestReference, t.date)), date: t.date, germinated: r.germinated, sown: r.sown, reason: t.reason }];
+        return [{ ageYears: Math.max(0, seedAgeYears(v.harvestReference, t.date)), date: t.date, germinated: r.germinated, sown: r.sown, reason: t.reason }];
       })
     : [];
   const kinds = new Set<TestKind>(v?.points.map((p) => (p.heldBack ? 'held-back' : 'model')));
@@ -171,13 +171,13 @@ export function DeclineCard({ bankId, lotId, on, today, setAsideResults = {} }: 
                   : 'The line is the lot’s projected decline, from its tests and the species’ other lots in the bank, and the shaded band its likely range.'}
               </figcaption>
               <Suspense fallback={<Loading label="Drawing the chart" />}>
-                <DeclineChart viability={v} todayAge={ageOn(v.harvestReference, today)} setAside={aside} />
+                <DeclineChart viability={v} todayAge={seedAgeYears(v.harvestReference, today)} setAside={aside} />
               </Suspense>
               <Legend kinds={kinds} curve={v.curve.length > 0} guess={v.estimateOnly} />
               {v.points.length ? (
                 <ul aria-label="Tests in the chart" className="grid gap-0.5 text-sm text-loam-800">
                   {v.points.map((p) => {
-                    const w = wilsonInterval(p.germinated, p.sown);
+                    const w = wilsonScoreInterval(p.germinated, p.sown);
                     return (
                       <li key={p.testId} className="num" data-held-back={p.heldBack || undefined}>
                         {formatDay(p.date)} at {years(Math.max(0, p.ageYears))}: {pct(p.percent)} ({p.germinated} of {p.sown}; 95%

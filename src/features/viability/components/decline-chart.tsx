@@ -1,9 +1,9 @@
 import { Area, CartesianGrid, ComposedChart, ErrorBar, Line, ReferenceLine, Scatter, Tooltip, XAxis, YAxis } from 'recharts';
 import type { ViabilityResponse } from '../../../../shared/schemas/viability';
+import { wilsonScoreInterval } from '../../../../shared/wilson';
 import { formatDay } from '../../../lib/dates';
 import { ASIDE, DOT, TestMark, type TestKind } from './test-mark';
 import { formatCount, pct, years } from './viability-format';
-import { wilsonInterval } from './wilson';
 
 // Palette values from tailwind.config.ts (recharts draws with plain colours).
 const CURVE = '#324520'; // moss-800
@@ -38,7 +38,7 @@ export interface SetAsidePoint {
 }
 
 function point(kind: TestKind, p: { ageYears: number; date: string; germinated: number; sown: number; reason?: string }): TestedPoint {
-  const w = wilsonInterval(p.germinated, p.sown);
+  const w = wilsonScoreInterval(p.germinated, p.sown);
   const tested = (100 * p.germinated) / p.sown;
   return {
     kind,

@@ -1,8 +1,6 @@
 import { isoDateSchema } from '../../../../shared/schemas/common';
 
 const DAY_MS = 86_400_000;
-/** The server's year for seed age (server/modules/viability: days / 365.25). */
-const YEAR_DAYS = 365.25;
 /** A first guess at the coming sowing date: eight weeks before the last spring frost (Hilum's rule). */
 export const WEEKS_BEFORE_FROST = 8;
 /** Without a frost date, a season ahead (Hilum's rule). */
@@ -36,9 +34,4 @@ export function defaultSowingDate(lastFrost: string | null, today: string): stri
 export function parseSowingDate(value: string | null): string | undefined {
   const parsed = isoDateSchema.safeParse(value);
   return parsed.success ? parsed.data : undefined;
-}
-
-/** Seed age in years on `date`, counted from the model's age zero the way the server counts it. */
-export function ageOn(harvestReference: string, date: string): number {
-  return (Date.parse(date) - Date.parse(harvestReference)) / DAY_MS / YEAR_DAYS;
 }
