@@ -1,4 +1,7 @@
-import { useEffect, useId, useRef, useState, type FormEvent } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useEffect, useId, useRef, useState } from 'react';
+import { Controller, useForm } from 'react-hook-form';
+import { z } from 'zod';
 import { seedlingsAboveSown } from '../../../../shared/count-rules';
 import { countsBodySchema, type TestDetail } from '../../../../shared/schemas/germination';
 import { Button } from '../../../components/ui/button';
@@ -71,15 +74,18 @@ export function CountEntry({ bankId, detail, date, onDateChange, today }: CountE
   const aside = detail.trays.filter((t) => t.setAsideReason !== null);
 
   return (
-    <section aria-labelledby={`${dateId}-title`} className="rounded-xl border-2 border-moss-300 bg-white p-4 shadow-sm sm:p-5">
+    <section
+      aria-labelledby={`${dateId}-title`}
+      className="rounded-xl border-2 border-moss-300 bg-white p-4 shadow-sm sm:p-5"
+    >
       <div className="flex flex-wrap items-end justify-between gap-3">
         <h2 id={`${dateId}-title`} className="text-xl font-bold text-loam-950">
           Count the normal seedlings
         </h2>
       </div>
       <p className="mt-1 text-loam-700">
-        Give each tray’s normal seedlings so far — every one since sowing, not only the new ones. Leave a tray blank to
-        skip it today.
+        Give each tray’s normal seedlings so far — every one since sowing, not only the new ones. Leave a tray
+        blank to skip it today.
       </p>
       <p className="mt-1 text-sm text-loam-600" data-definition="normal-seedling">
         {NORMAL_SEEDLING} {ABNORMAL_APART}
@@ -97,7 +103,9 @@ export function CountEntry({ bankId, detail, date, onDateChange, today }: CountE
             setDateError(undefined);
             if (e.target.value) onDateChange(e.target.value);
           }}
-          hint={hasSaved ? `Counts of ${formatShortDate(date)} are saved; saving again corrects them.` : undefined}
+          hint={
+            hasSaved ? `Counts of ${formatShortDate(date)} are saved; saving again corrects them.` : undefined
+          }
         />
       </div>
       <CountRows
@@ -138,7 +146,10 @@ export function CountEntry({ bankId, detail, date, onDateChange, today }: CountE
                   setTrayNotice(undefined);
                   takeBack.mutate(
                     { trayId: tray.id, reason: null },
-                    { onSuccess: () => setTrayNotice(`Tray ${tray.position} is back in the count and the figures.`) },
+                    {
+                      onSuccess: () =>
+                        setTrayNotice(`Tray ${tray.position} is back in the count and the figures.`),
+                    },
                   );
                 }}
               >
@@ -185,98 +196,157 @@ interface CountRowsProps {
   onSetAside: (tray: Tray) => void;
 }
 
-function CountRows({ bankId, detail, date, onDateError, justSaved, onSaved, onEdited, onSetAside }: CountRowsProps) {
+/** Said when every tray is left blank: nothing to save. */
+const NOTHING_TYPED = 'Not saved: type the normal seedlings of at least one tray.';
+
+/**
+ * The counts as typed, one box per tray in the figures (in `trays` order): a blank tray is not
+ * counted that day, unless it has a count saved on the date (blanking would not remove it); a
+ * count is a whole number no more than the tray's seeds sown. Read into the request body, which
+ * its own schema checks.
+ */
+function countsFormSchema(detail: TestDetail, date: string, trays: Tray[]) {
+  return z
+    .object({ counts: z.array(z.string()) })
+    .superRefine(({ counts }, ctx) => {
+      let typed = 0;
+      let flagged = 0;
+      trays.forEach((tray, i) => {
+        const text = (counts[i] ?? '').trim();
+        const at = (message: string) => {
+          flagged += 1;
+          ctx.addIssue({ code: 'custom', path: ['counts', i], message });
+        };
+        if (text === '') {
+          if (prefillFor(detail, tray.id, date).savedOnDate) {
+            at(`Tray ${tray.position} has a count saved on this day: type its normal seedlings (0 if none).`);
+          }
+          return;
+        }
+        typed += 1;
+        if (!/^\d+$/.test(text)) {
+          at(`Tray ${tray.position}: type its normal seedlings so far as a whole number (0 if none).`);
+          return;
+        }
+        const aboveSown = seedlingsAboveSown(tray.position, Number(text), tray.seedsSown);
+        if (aboveSown) at(aboveSown);
+      });
+      if (typed === 0 && flagged === 0) {
+        ctx.addIssue({ code: 'custom', path: ['counts'], message: NOTHING_TYPED });
+      }
+    })
+    .transform(({ counts }): z.input<typeof countsBodySchema> => ({
+      date,
+      trays: trays.flatMap((tray, i) => {
+        const text = (counts[i] ?? '').trim();
+        return text === '' ? [] : [{ trayId: tray.id, cumulative: Number(text) }];
+      }),
+    }))
+    .pipe(countsBodySchema);
+}
+
+function CountRows({
+  bankId,
+  detail,
+  date,
+  onDateError,
+  justSaved,
+  onSaved,
+  onEdited,
+  onSetAside,
+}: CountRowsProps) {
   const testId = detail.test.id;
   const record = useRecordCounts(bankId, testId);
   // A tray set aside is out of the count until it is taken back.
   const trays = detail.trays.filter((t) => t.setAsideReason === null);
   const [draft] = useState(() => readDraft(testId, date));
-  const [values, setValues] = useState<Record<string, string>>(() => {
-    const start: Record<string, string> = {};
-    for (const tray of trays) {
-      start[tray.id] = draft?.values[tray.id] ?? prefillFor(detail, tray.id, date).value;
-    }
-    return start;
+  const {
+    control,
+    handleSubmit,
+    getValues,
+    setValue,
+    setError,
+    formState: { isSubmitted },
+  } = useForm({
+    resolver: zodResolver(countsFormSchema(detail, date, trays)),
+    defaultValues: {
+      counts: trays.map((tray) => draft?.values[tray.id] ?? prefillFor(detail, tray.id, date).value),
+    },
+    // At the bench a refused save should not pop the keyboard up over the messages.
+    shouldFocusError: false,
   });
   const [unsaved, setUnsaved] = useState(draft !== null);
-  const [trayErrors, setTrayErrors] = useState<Record<string, string>>({});
-  const [state, setState] = useState<SaveState>(() =>
-    draft ? { kind: 'restored' } : { kind: 'idle' },
-  );
+  const [state, setState] = useState<SaveState>(() => (draft ? { kind: 'restored' } : { kind: 'idle' }));
 
-  const change = (trayId: string, value: string) => {
-    const next = { ...values, [trayId]: value };
-    setValues(next);
+  const change = (index: number, value: string) => {
+    setValue(`counts.${index}`, value, { shouldDirty: true, shouldValidate: isSubmitted });
     setUnsaved(true);
-    writeDraft(testId, date, next);
-    setTrayErrors(({ [trayId]: _dropped, ...rest }) => rest);
+    const counts = getValues('counts');
+    writeDraft(testId, date, Object.fromEntries(trays.map((tray, i) => [tray.id, counts[i] ?? ''])));
     if (justSaved) onEdited();
   };
 
-  const step = (tray: Tray, by: number) => {
-    const current = Number.parseInt(values[tray.id] ?? '0', 10);
+  const step = (index: number, tray: Tray, by: number) => {
+    const current = Number.parseInt(getValues(`counts.${index}`) ?? '0', 10);
     const base = Number.isFinite(current) ? current : 0;
-    change(tray.id, String(Math.min(tray.seedsSown, Math.max(0, base + by))));
+    change(index, String(Math.min(tray.seedsSown, Math.max(0, base + by))));
   };
 
-  const save = async () => {
-    onDateError(undefined);
-    const local: Record<string, string> = {};
-    const entries: Array<{ trayId: string; cumulative: number }> = [];
-    for (const tray of trays) {
-      const text = (values[tray.id] ?? '').trim();
-      // Blank: not counted on this date (a tray never counted stays out of the figures).
-      if (text === '') {
-        if (prefillFor(detail, tray.id, date).savedOnDate) {
-          local[tray.id] = `Tray ${tray.position} has a count saved on this day: type its normal seedlings (0 if none).`;
-        }
-        continue;
-      }
-      const n = /^\d+$/.test(text) ? Number(text) : Number.NaN;
-      const aboveSown = Number.isNaN(n) ? null : seedlingsAboveSown(tray.position, n, tray.seedsSown);
-      if (Number.isNaN(n)) local[tray.id] = `Tray ${tray.position}: type its normal seedlings so far as a whole number (0 if none).`;
-      else if (aboveSown) local[tray.id] = aboveSown;
-      entries.push({ trayId: tray.id, cumulative: n });
-    }
-    if (entries.length === 0 && Object.keys(local).length === 0) {
-      setState({ kind: 'refused', message: 'Not saved: type the normal seedlings of at least one tray.' });
-      return;
-    }
-    const body = countsBodySchema.safeParse({ date, trays: entries });
-    if (Object.keys(local).length > 0 || !body.success) {
-      setTrayErrors(local);
-      setState({ kind: 'refused', message: 'Not saved: check the trays marked below.' });
-      return;
-    }
-    setTrayErrors({});
-    setState({ kind: 'idle' });
-    try {
-      await record.mutateAsync(body.data);
-      clearDraft(testId, date);
-      setUnsaved(false);
+  const save = handleSubmit(
+    async (body) => {
+      onDateError(undefined);
       setState({ kind: 'idle' });
-      onSaved(date);
-    } catch (error) {
-      if (isApiError(error) && error.status === 422) {
-        const placed = placeServerError(error.message, error.fields ?? {}, entries);
-        setTrayErrors(placed.trays);
-        if (placed.date) onDateError(placed.date);
-        const marked = Object.keys(placed.trays).length;
-        // Each tray's own reason is beside it; repeating them all here would bury them.
+      try {
+        await record.mutateAsync(body);
+        clearDraft(testId, date);
+        setUnsaved(false);
+        setState({ kind: 'idle' });
+        onSaved(date);
+      } catch (error) {
+        if (isApiError(error) && error.status === 422) {
+          const placed = placeServerError(error.message, error.fields ?? {}, body.trays);
+          for (const [trayId, message] of Object.entries(placed.trays)) {
+            const index = trays.findIndex((t) => t.id === trayId);
+            if (index >= 0) setError(`counts.${index}`, { type: 'server', message });
+          }
+          if (placed.date) onDateError(placed.date);
+          const marked = Object.keys(placed.trays).length;
+          // Each tray's own reason is beside it; repeating them all here would bury them.
+          setState({
+            kind: 'refused',
+            message:
+              marked > 0 && !placed.date
+                ? `Not saved: check the ${marked === 1 ? 'tray' : `${marked} trays`} marked below.`
+                : error.message,
+          });
+          return;
+        }
+        if (
+          isApiError(error) &&
+          error.status >= 400 &&
+          error.status < 500 &&
+          error.status !== 408 &&
+          error.status !== 429
+        ) {
+          setState({ kind: 'refused', message: error.message });
+          return;
+        }
+        // No connection, a server restarting, a timeout: the numbers stay here and in the draft.
         setState({
-          kind: 'refused',
-          message: marked > 0 && !placed.date ? `Not saved: check the ${marked === 1 ? 'tray' : `${marked} trays`} marked below.` : error.message,
+          kind: 'kept',
+          message: 'Not saved yet — will keep your numbers. Press Save again when the connection is back.',
         });
-        return;
       }
-      if (isApiError(error) && error.status >= 400 && error.status < 500 && error.status !== 408 && error.status !== 429) {
-        setState({ kind: 'refused', message: error.message });
-        return;
-      }
-      // No connection, a server restarting, a timeout: the numbers stay here and in the draft.
-      setState({ kind: 'kept', message: 'Not saved yet — will keep your numbers. Press Save again when the connection is back.' });
-    }
-  };
+    },
+    (errors) => {
+      onDateError(undefined);
+      const nothing = (errors.counts?.root?.message ?? errors.counts?.message) === NOTHING_TYPED;
+      setState({
+        kind: 'refused',
+        message: nothing ? NOTHING_TYPED : 'Not saved: check the trays marked below.',
+      });
+    },
+  );
 
   // Back online after a failed save: try once more by itself.
   const retryWhenOnline = state.kind === 'kept' && unsaved;
@@ -291,30 +361,35 @@ function CountRows({ bankId, detail, date, onDateError, justSaved, onSaved, onEd
     return () => window.removeEventListener('online', onOnline);
   }, [retryWhenOnline]);
 
-  const onSubmit = (event: FormEvent) => {
-    event.preventDefault();
-    void save();
-  };
-
   return (
-    <form noValidate onSubmit={onSubmit} className="mt-4 grid grid-cols-1 gap-3" aria-label={`Counts for ${formatShortDate(date)}`}>
+    <form
+      noValidate
+      onSubmit={(event) => void save(event)}
+      className="mt-4 grid grid-cols-1 gap-3"
+      aria-label={`Counts for ${formatShortDate(date)}`}
+    >
       <ol className="grid grid-cols-1 gap-3" aria-label="Trays">
-        {trays.map((tray) => (
-          <TrayRow
+        {trays.map((tray, i) => (
+          <Controller
             key={tray.id}
-            tray={tray}
-            value={values[tray.id] ?? ''}
-            previous={prefillFor(detail, tray.id, date).previous}
-            everCounted={detail.counts.some((c) => c.trayId === tray.id)}
-            error={trayErrors[tray.id]}
-            disabled={record.isPending}
-            onChange={(value) => change(tray.id, value)}
-            onStep={(by) => step(tray, by)}
-            onSetAside={() => onSetAside(tray)}
+            control={control}
+            name={`counts.${i}`}
+            render={({ field, fieldState }) => (
+              <TrayRow
+                tray={tray}
+                value={field.value ?? ''}
+                previous={prefillFor(detail, tray.id, date).previous}
+                everCounted={detail.counts.some((c) => c.trayId === tray.id)}
+                error={fieldState.error?.message}
+                disabled={record.isPending}
+                onChange={(value) => change(i, value)}
+                onStep={(by) => step(i, tray, by)}
+                onSetAside={() => onSetAside(tray)}
+              />
+            )}
           />
         ))}
       </ol>
-
       <div aria-live="polite" className="empty:hidden">
         {justSaved && !unsaved ? (
           <FormAlert tone="success">Saved the counts of {formatShortDate(date)}.</FormAlert>
@@ -331,17 +406,17 @@ function CountRows({ bankId, detail, date, onDateError, justSaved, onSaved, onEd
         ) : null}
       </div>
 
-      <Button
-        type="submit"
-        size="lg"
-        fullWidth
-        isLoading={record.isPending}
-        className="min-h-14 text-xl"
-      >
-        {record.isPending ? 'Saving…' : state.kind === 'kept' ? 'Save again' : `Save counts for ${formatShortDate(date)}`}
+      <Button type="submit" size="lg" fullWidth isLoading={record.isPending} className="min-h-14 text-xl">
+        {record.isPending
+          ? 'Saving…'
+          : state.kind === 'kept'
+            ? 'Save again'
+            : `Save counts for ${formatShortDate(date)}`}
       </Button>
       {unsaved && !record.isPending && state.kind === 'idle' ? (
-        <p className="text-center text-sm text-loam-600">Changes not saved yet; they are kept on this device until you save.</p>
+        <p className="text-center text-sm text-loam-600">
+          Changes not saved yet; they are kept on this device until you save.
+        </p>
       ) : null}
     </form>
   );
@@ -386,7 +461,17 @@ const stepperClass = cn(
   'disabled:cursor-not-allowed disabled:opacity-50',
 );
 
-function TrayRow({ tray, value, previous, everCounted, error, disabled, onChange, onStep, onSetAside }: TrayRowProps) {
+function TrayRow({
+  tray,
+  value,
+  previous,
+  everCounted,
+  error,
+  disabled,
+  onChange,
+  onStep,
+  onSetAside,
+}: TrayRowProps) {
   const inputId = useId();
   const errorId = `${inputId}-error`;
   const label = `Tray ${tray.position} · ${tray.seedsSown} sown`;
