@@ -106,13 +106,22 @@ await sql`analyze germination_tests`.execute(db);
 const app = await serveApp(config, db);
 const cookie = await signIn(app.base, email, password);
 
-const endpoint = async () => {
+/**
+ * One ranking request, timed to its last byte: parsing 5,000 items into objects is the client's
+ * work (a browser's, on another machine), so the timed call only reads the body.
+ */
+const request = async () => {
   const res = await fetch(`${app.base}/api/banks/${bankId}/ranking?on=${ON}`, { headers: { cookie } });
   if (res.status !== 200) throw new Error(`ranking answered ${res.status}`);
-  return res.json();
+  return res.arrayBuffer();
 };
+const endpoint = async () => JSON.parse(Buffer.from(await request()).toString('utf8')) as unknown;
 
 // The SQL the endpoint issues, captured once and replayed straight through pg.
+// The first request after a start fits every species; later ones find the fits current.
+const tCold = performance.now();
+await request();
+console.log(`first ranking after start (every species fitted): ${(performance.now() - tCold).toFixed(0)} ms`);
 capture = [];
 const body = (await endpoint()) as { items: unknown[] };
 const issued = capture;
@@ -143,10 +152,10 @@ const bareSelect = async () => (await raw.query(latestResults, [bankId])).rows.l
 const RUNS = 7;
 const tRaw = await time(RUNS, rawSql);
 const tService = await time(RUNS, () => service.ranking(bankId, ON));
-const tEndpoint = await time(RUNS, endpoint);
+const tEndpoint = await time(RUNS, request);
 const tFloor = await time(RUNS, bareSelect);
 console.log(
-  `ranking of ${body.items.length} lots; the endpoint issues ${issued.length} queries (${issued.filter((q) => /^select/i.test(q.sql.trim())).length} selects)`,
+  `ranking of ${body.items.length} lots (${((await request()).byteLength / 1e6).toFixed(1)} MB of JSON); the endpoint issues ${issued.length} queries (${issued.filter((q) => /^select/i.test(q.sql.trim())).length} selects)`,
 );
 console.log(`raw SQL through pg:                 ${tRaw.toFixed(0)} ms (median of ${RUNS})`);
 console.log(`service in-process (SQL + fits):    ${tService.toFixed(0)} ms`);

@@ -1,5 +1,7 @@
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { z } from 'zod';
+import { rankingItemSchema, rankingResponseSchema } from '../../shared/schemas/viability';
 import { createViabilityService } from '../../server/modules/viability/viability.service';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
@@ -209,6 +211,42 @@ describe('figures stored for the lists, and fitted models kept between requests'
       expect(set.status).toBe(200);
       const after = (await agree())[b]!;
       expect(after.projectedPercent).not.toBe(before.projectedPercent);
+    });
+
+    it("when a lot's name, stock or status changes, then its ranking row shows it at once, and only the schema's fields", async () => {
+      await agree();
+      expect(
+        (await bank.grower.agent.patch(`${base()}/lots/${b}`).send({ variety: 'Renamed B', code: 'REN-B' }))
+          .status,
+      ).toBe(200);
+      expect(
+        (
+          await bank.grower.agent
+            .post(`${base()}/lots/${b}/stock`)
+            .send({ change: -300, reason: 'sown', date: '2026-11-30', kind: 'sown' })
+        ).status,
+      ).toBe(201);
+      const row = (await agree())[b]!;
+      expect(row).toMatchObject({
+        variety: 'Renamed B',
+        code: 'REN-B',
+        seedsOnHand: (await stored(b)).seeds_on_hand,
+      });
+      const res = await bank.viewer.agent.get(`${base()}/ranking?on=${on}`);
+      expect(res.headers['content-type']).toMatch(/^application\/json/);
+      // Strict: a field the schema does not list would fail here.
+      rankingResponseSchema
+        .extend({ items: z.array(rankingItemSchema.strict()) })
+        .strict()
+        .parse(res.body);
+      expect((await bank.grower.agent.patch(`${base()}/lots/${b}`).send({ status: 'retired' })).status).toBe(
+        200,
+      );
+      expect((await agree())[b]).toBeUndefined();
+      expect((await bank.grower.agent.patch(`${base()}/lots/${b}`).send({ status: 'active' })).status).toBe(
+        200,
+      );
+      expect((await agree())[b]).toBeDefined();
     });
 
     it('when a tested lot is deleted or a test is removed, then the ranking follows at once', async () => {

@@ -1,12 +1,16 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { isoDateSchema } from '../../../shared/schemas/common';
-import { rankingResponseSchema, seedsToSowResponseSchema, viabilityResponseSchema } from '../../../shared/schemas/viability';
+import {
+  rankingItemSchema,
+  seedsToSowResponseSchema,
+  viabilityResponseSchema,
+} from '../../../shared/schemas/viability';
 import { requireRole } from '../../auth/bank-access';
 import type { Clock } from '../../clock';
 import { parse } from '../../http/errors';
 import { idParam } from '../../http/params';
-import { respond } from '../../http/respond';
+import { respond, respondRendered, rowRenderer } from '../../http/respond';
 import type { ViabilityService } from './viability.service';
 
 export function viabilityRoutes(service: ViabilityService, clock: Clock) {
@@ -14,7 +18,11 @@ export function viabilityRoutes(service: ViabilityService, clock: Clock) {
   const onQuery = z.object({ on: isoDateSchema.optional() });
   const sowQuery = z.object({
     plants: z.coerce.number().int().min(1, { message: 'At least one plant.' }).max(100_000),
-    assurance: z.coerce.number().gt(0.5, { message: 'Between 0.5 and 0.999.' }).max(0.999, { message: 'Between 0.5 and 0.999.' }).optional(),
+    assurance: z.coerce
+      .number()
+      .gt(0.5, { message: 'Between 0.5 and 0.999.' })
+      .max(0.999, { message: 'Between 0.5 and 0.999.' })
+      .optional(),
     on: isoDateSchema.optional(),
   });
 
@@ -22,19 +30,36 @@ export function viabilityRoutes(service: ViabilityService, clock: Clock) {
   const lot = Router({ mergeParams: true });
   lot.get('/viability', requireRole('viewer'), async (req, res) => {
     const { on } = parse(onQuery, req.query, 'query');
-    respond(res, 200, viabilityResponseSchema, await service.viability(req.bank!.id, idParam(req.params.lotId, 'lot'), on ?? today()));
+    respond(
+      res,
+      200,
+      viabilityResponseSchema,
+      await service.viability(req.bank!.id, idParam(req.params.lotId, 'lot'), on ?? today()),
+    );
   });
   lot.get('/seeds-to-sow', requireRole('viewer'), async (req, res) => {
     const q = parse(sowQuery, req.query, 'query');
-    respond(res, 200, seedsToSowResponseSchema, await service.seedsToSow(req.bank!.id, idParam(req.params.lotId, 'lot'), q.plants, q.on ?? today(), q.assurance));
+    respond(
+      res,
+      200,
+      seedsToSowResponseSchema,
+      await service.seedsToSow(
+        req.bank!.id,
+        idParam(req.params.lotId, 'lot'),
+        q.plants,
+        q.on ?? today(),
+        q.assurance,
+      ),
+    );
   });
 
-  /** Mounted at /ranking */
+  /** Mounted at /ranking: thousands of rows, each rendered once per change (see rankingJson). */
+  const renderRankingRow = rowRenderer(rankingItemSchema);
   const ranking = Router({ mergeParams: true });
   ranking.get('/', requireRole('viewer'), async (req, res) => {
     const { on } = parse(onQuery, req.query, 'query');
     const date = on ?? today();
-    respond(res, 200, rankingResponseSchema, { on: date, items: await service.ranking(req.bank!.id, date) });
+    respondRendered(res, 200, await service.rankingJson(req.bank!.id, date, renderRankingRow));
   });
   return { lot, ranking };
 }

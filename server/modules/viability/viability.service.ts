@@ -1,5 +1,6 @@
 import { dayInWords } from '../../../shared/day-words';
 import type { SpeciesDto } from '../../../shared/schemas/species';
+import type { RankingItem as RankingRow } from '../../../shared/schemas/viability';
 import { systemClock, todayInZone, type Clock } from '../../clock';
 import type { Db } from '../../db/database';
 import { sql } from 'kysely';
@@ -282,6 +283,8 @@ async function fitLots(
   const out = new Map<string, LotViability>();
   const stale: { speciesId: string; key: string; stamp: string; traits: string; group: DecisionLot[] }[] = [];
   for (const [speciesId, group] of lotsBySpecies) {
+    // One order for a fit whatever order the caller read the lots in (codes can be renamed).
+    group.sort((x, y) => (x.id < y.id ? -1 : x.id > y.id ? 1 : 0));
     const t = species.get(speciesId)?.traits;
     const traits = JSON.stringify([t?.storageLifeYears ?? null, t?.finalCountDay ?? null]);
     const key = `${bankId}:${speciesId}`;
@@ -386,6 +389,8 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
   const cache = new FitCache();
   /** Decisions memoised on the fit they read (see decision). */
   const decisions = new WeakMap<LotViability, Map<string, ReturnType<typeof decide_>>>();
+  /** Ranking rows memoised on the fit they read, with their rendered form once asked for. */
+  const rankingRows = new WeakMap<LotViability, Map<string, { item: RankingRow; rendered?: Buffer }>>();
   async function bankSettings(bankId: string) {
     const bank = await db
       .selectFrom('banks')
@@ -433,16 +438,22 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
   ) {
     const younger = hasYounger(lot);
     const threshold = thresholdFor(settings.threshold)(sp);
-    const key = `${on}|${settings.today}|${threshold}|${sp?.traits.minGerminationPercent != null}|${settings.establishment}|${lot.seedsOnHand}|${seedsNeeded}|${younger}`;
-    let memo = decisions.get(v);
-    if (!memo) decisions.set(v, (memo = new Map()));
-    let d = memo.get(key);
-    if (!d) {
-      if (memo.size > 16) memo.clear();
-      memo.set(key, (d = decide_(lot, v, younger, threshold, sp, settings, seedsNeeded, on)));
-    }
-    return d;
+    return memoOn(decisions, v, decisionKey(lot, younger, threshold, sp, settings, seedsNeeded, on), () =>
+      decide_(lot, v, younger, threshold, sp, settings, seedsNeeded, on),
+    );
   }
+
+  /** Everything besides the fit that a decision reads, as a memo key. */
+  const decisionKey = (
+    lot: DecisionLot,
+    younger: boolean,
+    threshold: number,
+    sp: SpeciesDto | undefined,
+    settings: Settings,
+    seedsNeeded: number | null,
+    on: string,
+  ) =>
+    `${on}|${settings.today}|${threshold}|${sp?.traits.minGerminationPercent != null}|${settings.establishment}|${lot.seedsOnHand}|${seedsNeeded}|${younger}`;
 
   function decide_(
     lot: DecisionLot,
@@ -526,6 +537,60 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
       (d) => ({ p: d.p * establishment, w: d.w }),
     );
     return seedsToSowPredictive(plants, draws, assurance);
+  }
+
+  /** The bank's active and depleted lots with their projections and decisions, as ranking rows. */
+  async function rankingRowsOf(bankId: string, on: string) {
+    const settings = await bankSettings(bankId);
+    const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
+    // The stamps before the lots and tests they vouch for (see fitLots).
+    const stamps = await viabilityStamps(db, bankId);
+    const all = await lotsForDecisions(db, bankId);
+    const fits = await fitLots(db, bankId, stamps, all, species, cache);
+    const needed = await seedsNeededByLot(bankId);
+    const hasYounger = youngerLots(all);
+    return all
+      .filter((l) => l.status === 'active' || l.status === 'depleted')
+      .map((lot) => {
+        const v = fits.get(lot.id)!;
+        const sp = species.get(lot.speciesId);
+        const seedsNeeded = needed.get(lot.id) ?? null;
+        const younger = hasYounger(lot);
+        const threshold = thresholdFor(settings.threshold)(sp);
+        // Everything a row shows besides its fit.
+        const key = `${decisionKey(lot, younger, threshold, sp, settings, seedsNeeded, on)}|${lot.code}|${lot.speciesName}|${lot.variety}|${lot.status}|${lot.origin}|${lot.sourceName}|${lot.treated}|${lot.thumbUrl}`;
+        return memoOn(rankingRows, v, key, (): { item: RankingRow; rendered?: Buffer } => {
+          const d = decision(lot, v, hasYounger, sp, settings, seedsNeeded, on);
+          const last = v.lastTest;
+          return {
+            item: {
+              lotId: lot.id,
+              code: lot.code,
+              speciesId: lot.speciesId,
+              species: lot.speciesName,
+              variety: lot.variety,
+              status: lot.status,
+              origin: lot.origin,
+              sourceName: lot.sourceName,
+              treated: lot.treated,
+              ageYears: ageYears(v.harvestRef, on),
+              lastTestDate: last?.start_date ?? null,
+              lastPercent: last?.percent ?? null,
+              projectedPercent: d.projected?.percent ?? null,
+              projectedLow: d.projected?.low ?? null,
+              projectedHigh: d.projected?.high ?? null,
+              meanDays: last?.mean_days ?? null,
+              seedsOnHand: lot.seedsOnHand,
+              basis: v.model?.basis ?? null,
+              estimateOnly: v.model?.estimateOnly ?? true,
+              retestBy: d.retestBy,
+              thumbUrl: lot.thumbUrl,
+              recommendation: d.recommendation,
+              reason: d.reason,
+            },
+          };
+        });
+      });
   }
 
   return {
@@ -670,56 +735,45 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
      * Every active or depleted lot with its projection and a recommendation. Every lot of the bank
      * is fitted (a retired lot's tests still tell its species' decline), as on the lot page.
      */
-    async ranking(bankId: string, on: string) {
-      const settings = await bankSettings(bankId);
-      const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
-      const stamps = await viabilityStamps(db, bankId);
-      const all = await lotsForDecisions(db, bankId);
-      const fits = await fitLots(db, bankId, stamps, all, species, cache);
-      const needed = await seedsNeededByLot(bankId);
-      const hasYounger = youngerLots(all);
-      return all
-        .filter((l) => l.status === 'active' || l.status === 'depleted')
-        .map((lot) => {
-          const v = fits.get(lot.id)!;
-          const d = decision(
-            lot,
-            v,
-            hasYounger,
-            species.get(lot.speciesId),
-            settings,
-            needed.get(lot.id) ?? null,
-            on,
-          );
-          const last = v.lastTest;
-          return {
-            lotId: lot.id,
-            code: lot.code,
-            speciesId: lot.speciesId,
-            species: lot.speciesName,
-            variety: lot.variety,
-            status: lot.status,
-            origin: lot.origin,
-            sourceName: lot.sourceName,
-            treated: lot.treated,
-            ageYears: ageYears(v.harvestRef, on),
-            lastTestDate: last?.start_date ?? null,
-            lastPercent: last?.percent ?? null,
-            projectedPercent: d.projected?.percent ?? null,
-            projectedLow: d.projected?.low ?? null,
-            projectedHigh: d.projected?.high ?? null,
-            meanDays: last?.mean_days ?? null,
-            seedsOnHand: lot.seedsOnHand,
-            basis: v.model?.basis ?? null,
-            estimateOnly: v.model?.estimateOnly ?? true,
-            retestBy: d.retestBy,
-            thumbUrl: lot.thumbUrl,
-            recommendation: d.recommendation,
-            reason: d.reason,
-          };
-        });
+    async ranking(bankId: string, on: string): Promise<RankingRow[]> {
+      return (await rankingRowsOf(bankId, on)).map((r) => r.item);
+    },
+
+    /**
+     * The ranking as JSON text, each row rendered by `render` (the response schema's allowlist,
+     * then JSON) once per fit and inputs and kept with the fit: a bank of thousands of lots is
+     * served without rebuilding rows nobody changed.
+     */
+    async rankingJson(bankId: string, on: string, render: (item: RankingRow) => Buffer): Promise<Buffer> {
+      const rows = await rankingRowsOf(bankId, on);
+      const parts: Buffer[] = [Buffer.from(`{"on":${JSON.stringify(on)},"items":[`)];
+      rows.forEach((r, i) => {
+        if (i > 0) parts.push(COMMA);
+        parts.push((r.rendered ??= render(r.item)));
+      });
+      parts.push(Buffer.from(']}'));
+      return Buffer.concat(parts);
     },
   };
+}
+
+const COMMA = Buffer.from(',');
+
+/** Memoises `compute` on `v` (a fit, which lives while its inputs are unchanged) by `key`. */
+function memoOn<T>(
+  memo: WeakMap<LotViability, Map<string, T>>,
+  v: LotViability,
+  key: string,
+  compute: () => T,
+): T {
+  let m = memo.get(v);
+  if (!m) memo.set(v, (m = new Map()));
+  let value = m.get(key);
+  if (value === undefined) {
+    if (m.size > 16) m.clear();
+    m.set(key, (value = compute()));
+  }
+  return value;
 }
 
 export type ViabilityService = ReturnType<typeof createViabilityService>;
