@@ -3,7 +3,7 @@ import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Db } from '../../server/db/database';
 import { seedDemoScenario } from '../../server/db/demo-scenario';
-import { defaultSowingDate } from '../../src/features/viability/components/sowing-date';
+import { defaultSowingDate } from '../../src/lib/sowing-date';
 import { signIn } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { waitForMail } from '../helpers/outbox';

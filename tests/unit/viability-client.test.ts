@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { defaultSowingDate } from '../../src/features/viability/components/sowing-date';
+import { defaultSowingDate } from '../../src/lib/sowing-date';
 import { seedAgeYears } from '../../shared/seed-age';
 import { wilsonScoreInterval as wilsonInterval } from '../../shared/wilson';
 

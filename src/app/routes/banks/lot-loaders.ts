@@ -4,13 +4,13 @@ import { paths } from '../../../config/paths';
 import { bankQueryOptions } from '../../../features/banks/api/get-bank';
 import { lotsQueryOptions } from '../../../features/lots/api/get-lots';
 import { lotQueryOptions } from '../../../features/lots/api/get-lot';
+import { rankingQueryOptions } from '../../../features/lots/api/get-ranking';
 import { stockQueryOptions } from '../../../features/lots/api/get-stock';
 import { photosQueryOptions } from '../../../features/photos/api/get-photos';
 import { plantsQueryOptions } from '../../../features/plants/api/get-plants';
 import { speciesQueryOptions } from '../../../features/species/api/get-species';
 import { lotViabilityQueryOptions } from '../../../features/viability/api/get-lot-viability';
-import { rankingQueryOptions } from '../../../features/viability/api/get-ranking';
-import { defaultSowingDate, parseSowingDate } from '../../../features/viability/components/sowing-date';
+import { defaultSowingDate, parseSowingDate } from '../../../lib/sowing-date';
 import { isApiError } from '../../../lib/api-client';
 import { todayIn } from '../../../lib/dates';
 

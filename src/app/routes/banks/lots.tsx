@@ -5,7 +5,7 @@ import { PageHeader } from '../../../components/ui/page-header';
 import { paths } from '../../../config/paths';
 import { PrintLabelLink } from '../../../features/labels/components/print-label-link';
 import { useLots } from '../../../features/lots/api/get-lots';
-import { RankingView } from '../../../features/viability/components/ranking-view';
+import { RankingView } from '../../../features/lots/components/ranking-view';
 import { bankPaths } from '../../../lib/bank-api';
 import { todayIn } from '../../../lib/dates';
 import { LotsSubnav } from './lots-subnav';

@@ -9,7 +9,7 @@ import { formatDay } from '../../../lib/dates';
 import { useLotViability } from '../api/get-lot-viability';
 import type { SetAsidePoint } from './decline-chart';
 import { TestMark, type TestKind } from './test-mark';
-import { basisWords, pct, retestReasonWords, years } from './viability-format';
+import { basisWords, pct, retestReasonWords, years } from '../../../components/viability/viability-format';
 
 // The chart library loads with the chart, not with the app.
 const DeclineChart = lazy(() => import('./decline-chart'));

@@ -3,7 +3,7 @@ import type { ViabilityResponse } from '../../../../shared/schemas/viability';
 import { wilsonScoreInterval } from '../../../../shared/wilson';
 import { formatDay } from '../../../lib/dates';
 import { ASIDE, DOT, TestMark, type TestKind } from './test-mark';
-import { formatCount, pct, years } from './viability-format';
+import { formatCount, pct, years } from '../../../components/viability/viability-format';
 
 // Palette values from tailwind.config.ts (recharts draws with plain colours).
 const CURVE = '#324520'; // moss-800

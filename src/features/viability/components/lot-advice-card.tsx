@@ -4,9 +4,9 @@ import { FormAlert } from '../../../components/ui/form-alert';
 import { Loading } from '../../../components/ui/spinner';
 import { formatDay } from '../../../lib/dates';
 import { useLotViability } from '../api/get-lot-viability';
-import { ProjectionBar } from './projection-bar';
-import { RecommendationBadge } from './recommendation-badge';
-import { pct } from './viability-format';
+import { ProjectionBar } from '../../../components/viability/projection-bar';
+import { RecommendationBadge } from '../../../components/viability/recommendation-badge';
+import { pct } from '../../../components/viability/viability-format';
 
 export interface LotAdviceCardProps {
   bankId: string;

@@ -14,8 +14,8 @@ import { formatDay } from '../../../lib/dates';
 import { useAddToPlan } from '../api/add-to-plan';
 import { useLotViability } from '../api/get-lot-viability';
 import { useSeedsToSow } from '../api/get-seeds-to-sow';
-import { ProjectionBar } from './projection-bar';
-import { formatCount } from './viability-format';
+import { ProjectionBar } from '../../../components/viability/projection-bar';
+import { formatCount } from '../../../components/viability/viability-format';
 
 const plantsSchema = z.coerce
   .number({ message: 'A whole number of plants.' })

@@ -3,7 +3,7 @@ import { FormAlert } from '../../../components/ui/form-alert';
 import { Loading } from '../../../components/ui/spinner';
 import { formatDay } from '../../../lib/dates';
 import { useLotViability } from '../api/get-lot-viability';
-import { keepsWords } from './viability-format';
+import { keepsWords } from '../../../components/viability/viability-format';
 
 export interface StorageAdviceCardProps {
   bankId: string;

@@ -5,7 +5,7 @@ import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { columnMeta } from './ranking-columns';
 import { rankingStatusSchema, type RankingColumnId, type RankingView } from './ranking-search';
-import { recommendationLabels, recommendationOrder } from './viability-format';
+import { recommendationLabels, recommendationOrder } from '../../../components/viability/viability-format';
 import { originSchema } from '../../../../shared/schemas/lots';
 import { recommendationSchema } from '../../../../shared/schemas/viability';
 

@@ -1,4 +1,4 @@
-import { isoDateSchema } from '../../../../shared/schemas/common';
+import { isoDateSchema } from '../../shared/schemas/common';
 
 const DAY_MS = 86_400_000;
 /** A first guess at the coming sowing date: eight weeks before the last spring frost (Hilum's rule). */

@@ -25,8 +25,8 @@ import { DEFAULT_SORTING, searchFromView, viewFromSearch, type RankingView as Vi
 import { RankingTable } from './ranking-table';
 import { ColumnsMenu, RankingToolbar } from './ranking-toolbar';
 import { ReasonPopover, type OpenReason } from './reason-popover';
-import { defaultSowingDate } from './sowing-date';
-import { formatCount } from './viability-format';
+import { defaultSowingDate } from '../../../lib/sowing-date';
+import { formatCount } from '../../../components/viability/viability-format';
 
 export interface RankingViewProps {
   bankId: string;

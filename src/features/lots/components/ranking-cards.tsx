@@ -5,10 +5,10 @@ import { Link } from 'react-router-dom';
 import type { RankingItem } from '../../../../shared/schemas/viability';
 import { cn } from '../../../lib/cn';
 import { formatDay } from '../../../lib/dates';
-import { ProjectionBar } from './projection-bar';
-import { RecommendationButton } from './recommendation-badge';
+import { ProjectionBar } from '../../../components/viability/projection-bar';
+import { RecommendationButton } from '../../../components/viability/recommendation-badge';
 import { Thumb } from './ranking-columns';
-import { formatCount, pct, years } from './viability-format';
+import { formatCount, pct, years } from '../../../components/viability/viability-format';
 
 export interface RankingCardsProps {
   table: Table<RankingItem>;

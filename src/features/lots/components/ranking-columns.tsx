@@ -3,10 +3,10 @@ import { Link } from 'react-router-dom';
 import type { RankingItem } from '../../../../shared/schemas/viability';
 import { cn } from '../../../lib/cn';
 import { formatDay } from '../../../lib/dates';
-import { ProjectionBar } from './projection-bar';
-import { RecommendationButton } from './recommendation-badge';
+import { ProjectionBar } from '../../../components/viability/projection-bar';
+import { RecommendationButton } from '../../../components/viability/recommendation-badge';
 import type { RankingColumnId } from './ranking-search';
-import { days, formatCount, pct, recommendationOrder, years } from './viability-format';
+import { days, formatCount, pct, recommendationOrder, years } from '../../../components/viability/viability-format';
 
 export interface RankingColumnMeta {
   /** The column's name in the visibility menu and the phone's sort picker. */

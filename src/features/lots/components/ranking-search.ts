@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { idSchema } from '../../../../shared/schemas/common';
 import { originSchema } from '../../../../shared/schemas/lots';
 import { recommendationSchema, type RecommendationValue } from '../../../../shared/schemas/viability';
-import { parseSowingDate } from './sowing-date';
+import { parseSowingDate } from '../../../lib/sowing-date';
 
 /** The ranking's columns, by the ids the address uses. */
 export const rankingColumnIds = [
