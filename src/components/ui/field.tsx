@@ -69,14 +69,19 @@ export function Field({
         </p>
       ) : null}
       {children}
-      {error ? (
-        <p id={`${id}-error`} className="flex items-start gap-1.5 text-sm font-semibold text-clay-700">
-          <svg viewBox="0 0 20 20" aria-hidden="true" className="mt-0.5 size-4 shrink-0" fill="currentColor">
-            <path d="M10 2a8 8 0 1 0 0 16 8 8 0 0 0 0-16Zm-.9 4h1.8v5.5H9.1V6Zm0 7h1.8v1.8H9.1V13Z" />
-          </svg>
-          <span>{error}</span>
-        </p>
-      ) : null}
+      {error ? <FieldError id={`${id}-error`}>{error}</FieldError> : null}
     </div>
+  );
+}
+
+/** A field's message, with a mark beside it; also for a group of controls (trays, parent plants). */
+export function FieldError({ id, children }: { id?: string | undefined; children: ReactNode }) {
+  return (
+    <p id={id} className="flex items-start gap-1.5 text-sm font-semibold text-clay-700">
+      <svg viewBox="0 0 20 20" aria-hidden="true" className="mt-0.5 size-4 shrink-0" fill="currentColor">
+        <path d="M10 2a8 8 0 1 0 0 16 8 8 0 0 0 0-16Zm-.9 4h1.8v5.5H9.1V6Zm0 7h1.8v1.8H9.1V13Z" />
+      </svg>
+      <span>{children}</span>
+    </p>
   );
 }

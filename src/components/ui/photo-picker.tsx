@@ -1,5 +1,6 @@
 import { useEffect, useId, useMemo, useRef, type ReactNode } from 'react';
 import { cn } from '../../lib/cn';
+import { FieldError } from './field';
 
 export interface PhotoPickerProps {
   label: ReactNode;
@@ -58,7 +59,7 @@ export function PhotoPicker({ label, hint, file, onChange, error, disabled }: Ph
           </button>
         ) : null}
       </div>
-      {error ? <p className="text-sm font-semibold text-clay-700">{error}</p> : null}
+      {error ? <FieldError>{error}</FieldError> : null}
     </div>
   );
 }

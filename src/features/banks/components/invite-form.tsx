@@ -4,6 +4,7 @@ import { useForm } from 'react-hook-form';
 import { createInvitationBodySchema } from '../../../../shared/schemas/banks';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
+import { FieldError } from '../../../components/ui/field';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
@@ -79,7 +80,7 @@ export function InviteForm({ bankId }: { bankId: string }) {
               </span>
             </label>
           ))}
-          {errors.role?.message ? <p className="text-sm font-semibold text-clay-700">{errors.role.message}</p> : null}
+          {errors.role?.message ? <FieldError>{errors.role.message}</FieldError> : null}
         </fieldset>
         <div>
           <Button type="submit" isLoading={invite.isPending} className="w-full sm:w-auto">

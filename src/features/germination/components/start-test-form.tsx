@@ -9,6 +9,7 @@ import {
   type TestDetail,
 } from '../../../../shared/schemas/germination';
 import { Button } from '../../../components/ui/button';
+import { FieldError } from '../../../components/ui/field';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextAreaField } from '../../../components/ui/text-area-field';
@@ -232,7 +233,7 @@ export function StartTestForm({
               {...register('method')}
             />
           ) : errors.method ? (
-            <p className="text-sm font-semibold text-clay-700">{errors.method.message}</p>
+            <FieldError>{errors.method.message}</FieldError>
           ) : null}
         </div>
         <TextField
@@ -323,7 +324,7 @@ export function StartTestForm({
             </li>
           ))}
         </ol>
-        {trayListError ? <p className="text-sm font-semibold text-clay-700">{trayListError}</p> : null}
+        {trayListError ? <FieldError>{trayListError}</FieldError> : null}
         <div
           aria-live="polite"
           className={cn(

@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import type { UseFormRegisterReturn } from 'react-hook-form';
 import type { ParentPlantDto } from '../../../../shared/schemas/lots';
 import { Caution } from '../../../components/ui/caution';
+import { FieldError } from '../../../components/ui/field';
 import { cn } from '../../../lib/cn';
 
 /** Empty boxes leave a number out (undefined); anything else is read as a number. */
@@ -140,7 +141,7 @@ export function ParentPlantPicker({ plants, value, onChange, error }: ParentPlan
           />
         );
       })}
-      {error ? <p className="text-sm font-semibold text-clay-700">{error}</p> : null}
+      {error ? <FieldError>{error}</FieldError> : null}
     </div>
   );
 }
