@@ -50,7 +50,10 @@ export function ConfirmDialog({
       </h2>
       {children !== undefined ? <div className="mt-2 text-loam-700">{children}</div> : null}
       {error ? (
-        <p role="alert" className="mt-3 rounded-lg border border-clay-300 bg-clay-100 px-3 py-2 font-semibold text-clay-800">
+        <p
+          role="alert"
+          className="mt-3 rounded-lg border border-clay-300 bg-clay-100 px-3 py-2 font-semibold text-clay-800"
+        >
           {error}
         </p>
       ) : null}
