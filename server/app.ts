@@ -12,6 +12,7 @@ import { originCheck, originVariants } from './http/origin-check';
 import { requestLogging } from './http/request-log';
 import type { Mailer } from './mail/mailer';
 import { bankAccess } from './auth/bank-access';
+import type { PasswordHasher } from './auth/password';
 import { requireAuth, sessionMiddleware } from './auth/session.middleware';
 import { createSessionSigner } from './auth/tokens';
 import { authRouter, meRouter } from './modules/auth/auth.router';
@@ -51,6 +52,8 @@ export interface AppDeps {
   mailer: Mailer;
   clock: Clock;
   logger?: Logger;
+  /** argon2id at full strength unless given; API tests pass a cheap one. */
+  hasher?: PasswordHasher;
 }
 
 export function createApp(deps: AppDeps): Express {

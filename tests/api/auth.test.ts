@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createApp } from '../../server/app';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { PASSWORD, signIn, signUp, uniqueEmail } from '../helpers/accounts';
 import { linkIn, waitForMail } from '../helpers/outbox';
@@ -37,6 +38,21 @@ describe('accounts', () => {
     const row = await ctx.db.selectFrom('users').select('password_hash').where('id', '=', user.id).executeTakeFirstOrThrow();
     expect(row.password_hash).toMatch(/^\$argon2id\$/);
     expect(row.password_hash).not.toContain(PASSWORD);
+  });
+
+  // The other tests run the app with a cheap hasher (tests/helpers/context.ts); this one runs it as
+  // production does, with none given.
+  it('when the production app stores a password, then it is argon2id at full strength, and signing in checks it', async () => {
+    const app = createApp({ ...ctx, hasher: undefined });
+    const { user, email } = await signUp(app);
+    const row = await ctx.db.selectFrom('users').select('password_hash').where('id', '=', user.id).executeTakeFirstOrThrow();
+    // PHC string of argon2id, version 0x13 = 19 (RFC 9106, section 3.1), with the argon2 package's
+    // defaults: 65536 KiB, 3 passes, 4 lanes (documented in its argon2.d.cts). OWASP's Password Storage
+    // Cheat Sheet asks for at least 19 MiB, 2 passes, 1 lane (from memory; the package is the source).
+    expect(row.password_hash).toMatch(/^\$argon2id\$v=19\$m=65536,t=3,p=4\$/);
+    expect(row.password_hash).not.toContain(PASSWORD);
+    expect((await request(app).post('/api/auth/login').send({ email, password: PASSWORD })).status).toBe(200);
+    expect((await request(app).post('/api/auth/login').send({ email, password: 'not the password' })).status).toBe(401);
   });
 
   it('when the e-mail is taken in any letter case, then registering again is 409', async () => {

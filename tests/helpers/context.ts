@@ -1,8 +1,10 @@
 import crypto from 'node:crypto';
+import argon2 from 'argon2';
 import type { Express } from 'express';
 import { Kysely, PostgresDialect, sql } from 'kysely';
 import pg from 'pg';
 import { createApp } from '../../server/app';
+import { verifyPassword, type PasswordHasher } from '../../server/auth/password';
 import { createTestClock } from '../../server/clock';
 import { loadConfig, type Config } from '../../server/config';
 import { createDb, type Db } from '../../server/db/database';
@@ -58,6 +60,17 @@ export function testConfig(overrides: Partial<Config> = {}): Config {
   return { ...loadConfig(process.env), ...overrides };
 }
 
+/**
+ * The tests' password hasher: real argon2id at the least cost the library accepts (8 KiB, 1 pass,
+ * 1 lane), checked by the app's own verifyPassword. Full strength costs about 2 s a sign-up on this
+ * 2-core machine, and the API tests sign up hundreds of people. The production hasher has a test
+ * of its own (tests/api/auth.test.ts).
+ */
+export const cheapTestHasher: PasswordHasher = {
+  hash: (password) => argon2.hash(password, { type: argon2.argon2id, memoryCost: 8, timeCost: 1, parallelism: 1 }),
+  verify: verifyPassword,
+};
+
 export interface TestContext {
   app: Express;
   db: Db;
@@ -65,6 +78,7 @@ export interface TestContext {
   storage: ObjectStore;
   mailer: Mailer;
   clock: ReturnType<typeof createTestClock>;
+  hasher: PasswordHasher;
   close(): Promise<void>;
 }
 
@@ -77,7 +91,8 @@ export async function createTestContext(
   const storage = createObjectStore(config.storage);
   const mailer = createMailer(config.mail);
   const clock = createTestClock(options.now ?? '2026-03-01T09:00:00Z');
-  const app = createApp({ config, db: database.db, storage, mailer, clock });
+  const hasher = cheapTestHasher;
+  const app = createApp({ config, db: database.db, storage, mailer, clock, hasher });
   return {
     app,
     db: database.db,
@@ -85,6 +100,7 @@ export async function createTestContext(
     storage,
     mailer,
     clock,
+    hasher,
     async close() {
       storage.close();
       mailer.close();

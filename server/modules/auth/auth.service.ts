@@ -1,5 +1,5 @@
 import type { LoginBody, RegisterBody } from '../../../shared/schemas/accounts';
-import { hashPassword, verifyPassword } from '../../auth/password';
+import { argon2idHasher, lazyDecoyHash, type PasswordHasher } from '../../auth/password';
 import { SESSION_DAYS, hashLinkToken, newLinkToken, type SessionSigner } from '../../auth/tokens';
 import type { Clock } from '../../clock';
 import type { Db } from '../../db/database';
@@ -8,8 +8,6 @@ import type { Mailer } from '../../mail/mailer';
 import * as users from './users.repository';
 
 const RESET_VALID_MS = 60 * 60 * 1000;
-// A real argon2id hash of a random string, so an unknown e-mail costs the same time as a wrong password.
-const decoyHash = hashPassword(`decoy-${Math.random()}`);
 
 export interface AuthServiceDeps {
   db: Db;
@@ -17,9 +15,14 @@ export interface AuthServiceDeps {
   signer: SessionSigner;
   mailer: Mailer;
   appOrigin: string;
+  /** argon2id at full strength unless given (API tests pass a cheap one). */
+  hasher?: PasswordHasher;
 }
 
-export function createAuthService({ db, clock, signer, mailer, appOrigin }: AuthServiceDeps) {
+export function createAuthService({ db, clock, signer, mailer, appOrigin, hasher = argon2idHasher }: AuthServiceDeps) {
+  // A hash of a random string by the same hasher, so an unknown e-mail costs the same time as a wrong password.
+  const decoyHash = lazyDecoyHash(hasher);
+
   async function startSession(userId: string, userAgent: string | null) {
     const now = clock.now();
     const expiresAt = new Date(now.getTime() + SESSION_DAYS * 86_400_000);
@@ -32,7 +35,7 @@ export function createAuthService({ db, clock, signer, mailer, appOrigin }: Auth
       if (await users.findUserByEmail(db, body.email)) {
         throw conflict('An account with that e-mail address already exists.', 'email_taken');
       }
-      const passwordHash = await hashPassword(body.password);
+      const passwordHash = await hasher.hash(body.password);
       let user;
       try {
         user = await users.insertUser(db, { email: body.email, name: body.name, passwordHash });
@@ -48,7 +51,7 @@ export function createAuthService({ db, clock, signer, mailer, appOrigin }: Auth
 
     async login(body: LoginBody, userAgent: string | null) {
       const found = await users.findUserByEmail(db, body.email);
-      const ok = await verifyPassword(found?.password_hash ?? (await decoyHash), body.password);
+      const ok = await hasher.verify(found?.password_hash ?? (await decoyHash()), body.password);
       if (!found || !ok) throw unauthorized('That e-mail and password do not match an account.');
       const user = { id: found.id, email: found.email, name: found.name };
       return { user, session: await startSession(found.id, userAgent) };
@@ -94,7 +97,7 @@ export function createAuthService({ db, clock, signer, mailer, appOrigin }: Auth
     },
 
     async confirmPasswordReset(token: string, password: string) {
-      const passwordHash = await hashPassword(password);
+      const passwordHash = await hasher.hash(password);
       await db.transaction().execute(async (trx) => {
         const now = clock.now();
         const reset = await users.consumePasswordReset(trx, hashLinkToken(token), now);
