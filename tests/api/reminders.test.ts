@@ -2,9 +2,10 @@ import fs from 'node:fs';
 import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
+import { sql } from 'kysely';
 import { SMTPServer } from 'smtp-server';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createReminders } from '../../server/jobs/reminders';
+import { REMINDER_QUEUE, createReminders } from '../../server/jobs/reminders';
 import { createMailer } from '../../server/mail/mailer';
 import { readOutbox } from '../../server/mail/outbox';
 import { createViabilityService } from '../../server/modules/viability/viability.service';
@@ -53,6 +54,20 @@ describe('e-mail reminders on the durable queue', () => {
       retryDelaySeconds: 1,
       pollingIntervalSeconds: 0.5,
     });
+  /**
+   * Waits until the queue holds no reminder job waiting, retrying or running (pg-boss's job states
+   * before 'completed'): from then on no further mail can go out, so a count of the mail is final.
+   */
+  const queueSettled = () =>
+    expect
+      .poll(
+        async () => {
+          const { rows } = await sql<{ n: string }>`select count(*) as n from pgboss.job where name = ${REMINDER_QUEUE} and state < 'completed'`.execute(ctx.db);
+          return Number(rows[0]!.n);
+        },
+        { timeout: 30_000, interval: 200 },
+      )
+      .toBe(0);
   const mailsAbout = async (text: string) => (await readOutbox(process.env.OUTBOX_DIR!, 1000)).filter((m) => m.subject.includes(text));
 
   it('when the clock reaches a check day, then each opted-in member gets exactly one mail and the one who opted out none', async () => {
@@ -65,7 +80,7 @@ describe('e-mail reminders on the durable queue', () => {
       await waitForMail((m) => m.subject.includes(testCode) && m.to.includes(bank.owner.email));
       await waitForMail((m) => m.subject.includes(testCode) && m.to.includes(bank.viewer.email));
       expect(await jobs.tick()).toBe(0);
-      await new Promise((r) => setTimeout(r, 1500));
+      await queueSettled();
       const mails = await mailsAbout(testCode);
       expect(mails.map((m) => m.to[0]).sort()).toEqual([bank.owner.email, bank.viewer.email].sort());
       expect(mails[0]!.text).toMatch(/tray 1 \(25 sown\), tray 2 \(25 sown\)/);
@@ -104,7 +119,7 @@ describe('e-mail reminders on the durable queue', () => {
     await again.start();
     try {
       expect(await again.tick()).toBe(0);
-      await new Promise((r) => setTimeout(r, 1500));
+      await queueSettled();
     } finally {
       await again.stop();
     }
@@ -124,8 +139,10 @@ describe('e-mail reminders on the durable queue', () => {
       // The final count day, 14 (from memory): 2026-03-15, a new check reminder for the owner and viewer.
       ctx.clock.set('2026-03-15T09:00:00Z');
       expect(await jobs.tick()).toBe(2);
-      await new Promise((r) => setTimeout(r, 2500)); // a send or two fail while nothing listens
-      const failed = await ctx.db.selectFrom('reminders').select(['attempts', 'sent_at']).where('due_on', '=', '2026-03-15').execute();
+      // A send or two fail while nothing listens.
+      const failedRows = () => ctx.db.selectFrom('reminders').select(['attempts', 'sent_at']).where('due_on', '=', '2026-03-15').execute();
+      await expect.poll(async () => (await failedRows()).some((r) => r.attempts >= 1), { timeout: 30_000, interval: 200 }).toBe(true);
+      const failed = await failedRows();
       expect(failed.every((r) => r.sent_at === null)).toBe(true);
       expect(failed.some((r) => r.attempts >= 1)).toBe(true);
 
@@ -142,9 +159,9 @@ describe('e-mail reminders on the durable queue', () => {
         },
       });
       await new Promise<void>((resolve) => smtp!.listen(port, '127.0.0.1', resolve));
-      const deadline = Date.now() + 30_000;
-      while (received.length < 2 && Date.now() < deadline) await new Promise((r) => setTimeout(r, 250));
-      await new Promise((r) => setTimeout(r, 1500));
+      // Retries back off from 1 s, doubling: the next one may be some seconds away.
+      await expect.poll(() => received.length, { timeout: 40_000, interval: 250 }).toBeGreaterThanOrEqual(2);
+      await queueSettled();
       expect(received.sort()).toEqual([bank.owner.email, bank.viewer.email].sort());
       const rows = await ctx.db.selectFrom('reminders').select('sent_at').where('due_on', '=', '2026-03-15').execute();
       expect(rows.every((r) => r.sent_at !== null)).toBe(true);
@@ -154,5 +171,5 @@ describe('e-mail reminders on the durable queue', () => {
       await new Promise((r) => (smtp ? smtp.close(() => r(null)) : r(null)));
       fs.rmSync(dir, { recursive: true, force: true });
     }
-  }, 60_000);
+  }, 90_000);
 });
