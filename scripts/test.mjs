@@ -61,7 +61,7 @@ async function main() {
   const vitestArgs = process.argv.slice(2);
   const quick = vitestArgs.length > 0;
   if (!quick) {
-    step('type check (tsc --noEmit)', process.execPath, ['node_modules/tsgo/bin/tsc', '-p', 'tsconfig.json', '--noEmit']);
+    step('type check (client, server and tests configs)', process.execPath, ['scripts/typecheck.mjs']);
     step('lint (eslint)', process.execPath, ['node_modules/eslint/bin/eslint.js', '.', '--max-warnings', '0']);
   }
   const chromium = ensureChromium();
