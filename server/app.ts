@@ -43,6 +43,7 @@ import { speciesRoutes } from './modules/species/species.router';
 import { createSpeciesService } from './modules/species/species.service';
 import { createInvitationsService } from './modules/invitations/invitations.service';
 import { healthRouter } from './modules/health/health.router';
+import { openApiRoutes } from './openapi/openapi.router';
 import type { ObjectStore } from './storage/object-store';
 
 export interface AppDeps {
@@ -103,6 +104,7 @@ export function createApp(deps: AppDeps): Express {
 
   const api = express.Router();
   api.use('/health', healthRouter(deps));
+  api.use(openApiRoutes({ production: config.env === 'production' }));
   api.use(sessionMiddleware(deps.db, signer, deps.clock));
   api.use('/auth', authRouter(services.auth, { secureCookies }));
   api.use('/me', meRouter(services.auth));

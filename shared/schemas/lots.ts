@@ -118,6 +118,23 @@ export const lotsListQuerySchema = z.object({
   status: lotStatusSchema.optional(),
 });
 
+/** POST …/lots/import?dryRun=true: what a lots CSV would add, one entry per row. */
+export const lotsImportPreviewSchema = z.object({
+  preview: z.array(
+    z.object({
+      line: z.number(),
+      code: z.string().nullable(),
+      species: z.string(),
+      variety: z.string(),
+      seedsOnHand: z.number(),
+      harvestDate: z.string().nullable(),
+      packedForSeason: z.number().nullable(),
+      treated: z.boolean(),
+    }),
+  ),
+});
+export type LotsImportPreview = z.infer<typeof lotsImportPreviewSchema>['preview'];
+
 export const movementSchema = z.object({
   id: idSchema,
   kind: movementKindSchema,

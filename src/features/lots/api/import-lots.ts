@@ -3,27 +3,14 @@ import { z } from 'zod';
 import { apiFetch } from '../../../lib/api-client';
 import { csvForm } from '../../../lib/csv-import';
 import { bankPaths, refresh, stale } from '../../../lib/bank-api';
+import { lotsImportPreviewSchema, type LotsImportPreview } from '../../../../shared/schemas/lots';
 
-export const importPreviewSchema = z.object({
-  preview: z.array(
-    z.object({
-      line: z.number(),
-      code: z.string().nullable(),
-      species: z.string(),
-      variety: z.string(),
-      seedsOnHand: z.number(),
-      harvestDate: z.string().nullable(),
-      packedForSeason: z.number().nullable(),
-      treated: z.boolean(),
-    }),
-  ),
-});
-export type ImportPreview = z.infer<typeof importPreviewSchema>['preview'];
+export type ImportPreview = LotsImportPreview;
 const importedSchema = z.object({ imported: z.number() });
 
 /** POST /api/banks/:bankId/lots/import?dryRun=true: what would be imported, nothing written. */
 export async function previewLotsImport(bankId: string, file: File) {
-  return (await apiFetch(bankPaths.lotsImport(bankId, true), { method: 'POST', body: csvForm(file), schema: importPreviewSchema })).preview;
+  return (await apiFetch(bankPaths.lotsImport(bankId, true), { method: 'POST', body: csvForm(file), schema: lotsImportPreviewSchema })).preview;
 }
 
 /** POST /api/banks/:bankId/lots/import: every row in one transaction, or nothing. */

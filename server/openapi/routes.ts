@@ -1,0 +1,725 @@
+import { z } from 'zod';
+import {
+  loginBodySchema,
+  meResponseSchema,
+  passwordResetBodySchema,
+  passwordResetConfirmBodySchema,
+  registerBodySchema,
+  userSchema,
+} from '../../shared/schemas/accounts';
+import {
+  acceptInvitationBodySchema,
+  acceptInvitationResponseSchema,
+  bankResponseSchema,
+  bankSchema,
+  createBankBodySchema,
+  createInvitationBodySchema,
+  invitationSchema,
+  invitationsResponseSchema,
+  membersResponseSchema,
+  updateBankBodySchema,
+  updateMemberBodySchema,
+} from '../../shared/schemas/banks';
+import { isoDateSchema } from '../../shared/schemas/common';
+import {
+  countsBodySchema,
+  createTestBodySchema,
+  finishBodySchema,
+  testDetailSchema,
+  testSetAsideBodySchema,
+  testsImportPreviewSchema,
+  trayUpdateBodySchema,
+  updateTestBodySchema,
+} from '../../shared/schemas/germination';
+import {
+  createLotBodySchema,
+  createPlantBodySchema,
+  lotSchema,
+  lotsImportPreviewSchema,
+  lotsListQuerySchema,
+  movementSchema,
+  parentPlantSchema,
+  photoSchema,
+  stockBodySchema,
+  updateLotBodySchema,
+  updatePlantBodySchema,
+} from '../../shared/schemas/lots';
+import { overviewSchema } from '../../shared/schemas/overview';
+import {
+  createPlanBodySchema,
+  planEntrySchema,
+  planListResponseSchema,
+  seasonSchema,
+  sownBodySchema,
+  updatePlanBodySchema,
+} from '../../shared/schemas/plan';
+import { reminderPrefsBodySchema, reminderPrefsSchema } from '../../shared/schemas/reminders';
+import {
+  createSpeciesBodySchema,
+  overrideTraitsBodySchema,
+  speciesListResponseSchema,
+  speciesSchema,
+} from '../../shared/schemas/species';
+import {
+  rankingResponseSchema,
+  seedsToSowResponseSchema,
+  viabilityResponseSchema,
+} from '../../shared/schemas/viability';
+
+/**
+ * The API's one route table: every route mounted under /api, with the zod schemas its router parses
+ * (`parse(schema, req.body | req.query)`) and sends (`respond(res, status, schema, body)`). The
+ * OpenAPI document (document.ts) is generated from it, and tests/api/openapi.test.ts walks the
+ * app's Express router stack and fails when a mounted route is missing here. Adding a route: add
+ * its entry beside its module's others, with the same schemas the router uses.
+ *
+ * A few envelopes (`{ lot }`, `{ items, nextCursor }`) and small query objects are declared inside
+ * their routers; they are written again here from the same shared schemas until the routers import
+ * them from shared/schemas.
+ */
+
+export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
+/** Who may call a route: anyone, any signed-in person, or a member of the bank with at least this role. */
+export type Access = 'public' | 'signed-in' | 'viewer' | 'grower' | 'owner';
+
+export interface ApiResponse {
+  status: number;
+  description: string;
+  /** The JSON body's schema; none for an empty body or a file. */
+  json?: z.ZodType;
+  /** A non-JSON body: its media type. */
+  file?: string;
+}
+
+export interface ApiRoute {
+  method: Method;
+  /** The full path as Express mounts it, with `:param` segments. */
+  path: string;
+  summary: string;
+  access: Access;
+  query?: z.ZodObject;
+  /** A JSON request body. */
+  body?: z.ZodType;
+  /** A multipart/form-data upload: the name of its one file field and its media type. */
+  upload?: { field: string; accept: string };
+  responses: ApiResponse[];
+  /** Mounted outside production only. */
+  devOnly?: boolean;
+}
+
+const ok = (json: z.ZodType, description = 'OK.'): ApiResponse => ({ status: 200, description, json });
+const created = (json: z.ZodType, description = 'Created.'): ApiResponse => ({
+  status: 201,
+  description,
+  json,
+});
+const noContent = (description = 'Done; no body.'): ApiResponse => ({ status: 204, description });
+const file = (type: string, description: string): ApiResponse => ({ status: 200, description, file: type });
+
+// Envelopes and queries written inside the routers (see above).
+const userEnvelope = z.object({ user: userSchema });
+const lotEnvelope = z.object({ lot: lotSchema });
+const plantEnvelope = z.object({ plant: parentPlantSchema });
+const photoEnvelope = z.object({ photo: photoSchema });
+const speciesEnvelope = z.object({ species: speciesSchema });
+const entryEnvelope = z.object({ entry: planEntrySchema });
+const preferencesEnvelope = z.object({ preferences: reminderPrefsSchema });
+const onQuery = z.object({ on: isoDateSchema.optional() });
+const seasonQuery = z.object({ season: seasonSchema.optional() });
+const importQuery = z.object({ dryRun: z.stringbool().default(false) });
+const csvUpload = { field: 'file', accept: 'text/csv' };
+
+// Bodies their routers send without a schema; documented here from the handler's code (the lots
+// import preview is the schema the client reads it with).
+const healthSchema = z.object({
+  ok: z.boolean(),
+  database: z.enum(['up', 'down']),
+  objectStore: z.enum(['up', 'down']),
+  mail: z.enum(['up', 'down']),
+  environment: z.string(),
+});
+const lotsImportSchema = z.union([lotsImportPreviewSchema, z.object({ imported: z.number() })]);
+
+const BANK = '/api/banks/:bankId';
+
+export const apiRoutes: ApiRoute[] = [
+  // Service
+  {
+    method: 'get',
+    path: '/api/health',
+    summary: 'Whether the database, object store and mail server answer (503 when one does not).',
+    access: 'public',
+    responses: [
+      ok(healthSchema),
+      { status: 503, description: 'A backing service is down.', json: healthSchema },
+    ],
+  },
+  {
+    method: 'get',
+    path: '/api/openapi.json',
+    summary: 'This document.',
+    access: 'public',
+    responses: [
+      { status: 200, description: 'The OpenAPI document.', json: z.record(z.string(), z.unknown()) },
+    ],
+  },
+  {
+    method: 'get',
+    path: '/api/docs',
+    summary: 'This document as a page to read.',
+    access: 'public',
+    devOnly: true,
+    responses: [file('text/html', 'The document as HTML.')],
+  },
+
+  // Accounts
+  {
+    method: 'post',
+    path: '/api/auth/register',
+    summary: 'Sign up; sets the session cookie.',
+    access: 'public',
+    body: registerBodySchema,
+    responses: [created(userEnvelope)],
+  },
+  {
+    method: 'post',
+    path: '/api/auth/login',
+    summary: 'Sign in; sets the session cookie (rate-limited per address and e-mail).',
+    access: 'public',
+    body: loginBodySchema,
+    responses: [ok(userEnvelope)],
+  },
+  {
+    method: 'post',
+    path: '/api/auth/logout',
+    summary: 'Sign out of this session.',
+    access: 'public',
+    responses: [noContent()],
+  },
+  {
+    method: 'post',
+    path: '/api/auth/logout-all',
+    summary: 'Sign out of every session.',
+    access: 'signed-in',
+    responses: [noContent()],
+  },
+  {
+    method: 'post',
+    path: '/api/auth/password-reset',
+    summary: 'Mail a reset link if the address has an account (same answer either way).',
+    access: 'public',
+    body: passwordResetBodySchema,
+    responses: [{ status: 202, description: 'Accepted.', json: z.object({ ok: z.literal(true) }) }],
+  },
+  {
+    method: 'post',
+    path: '/api/auth/password-reset/confirm',
+    summary: 'Set a new password with a reset token; ends every session.',
+    access: 'public',
+    body: passwordResetConfirmBodySchema,
+    responses: [noContent()],
+  },
+  {
+    method: 'get',
+    path: '/api/me',
+    summary: 'The signed-in person and their banks.',
+    access: 'signed-in',
+    responses: [ok(meResponseSchema)],
+  },
+  {
+    method: 'post',
+    path: '/api/invitations/accept',
+    summary: 'Join a bank with an invitation token.',
+    access: 'signed-in',
+    body: acceptInvitationBodySchema,
+    responses: [ok(acceptInvitationResponseSchema)],
+  },
+  {
+    method: 'get',
+    path: '/api/photos/:photoId',
+    summary: 'A photo file (WebP), to members of its bank.',
+    access: 'signed-in',
+    query: z.object({ size: z.enum(['full', 'thumb']).default('full') }),
+    responses: [file('image/webp', 'The photo.'), { status: 304, description: 'Not modified (ETag).' }],
+  },
+
+  // Banks, members, invitations
+  {
+    method: 'post',
+    path: '/api/banks',
+    summary: 'Start a bank; the caller becomes its owner.',
+    access: 'signed-in',
+    body: createBankBodySchema,
+    responses: [created(z.object({ bank: bankSchema }))],
+  },
+  {
+    method: 'get',
+    path: BANK,
+    summary: 'The bank and the caller’s role in it.',
+    access: 'viewer',
+    responses: [ok(bankResponseSchema)],
+  },
+  {
+    method: 'patch',
+    path: BANK,
+    summary: 'Change the bank’s settings.',
+    access: 'owner',
+    body: updateBankBodySchema,
+    responses: [ok(bankResponseSchema)],
+  },
+  {
+    method: 'delete',
+    path: BANK,
+    summary: 'Delete the bank and everything in it.',
+    access: 'owner',
+    responses: [noContent()],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/members`,
+    summary: 'The bank’s members.',
+    access: 'viewer',
+    responses: [ok(membersResponseSchema)],
+  },
+  {
+    method: 'patch',
+    path: `${BANK}/members/:userId`,
+    summary: 'Change a member’s role.',
+    access: 'owner',
+    body: updateMemberBodySchema,
+    responses: [ok(membersResponseSchema)],
+  },
+  {
+    method: 'delete',
+    path: `${BANK}/members/:userId`,
+    summary: 'Remove a member.',
+    access: 'owner',
+    responses: [noContent()],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/leave`,
+    summary: 'Leave the bank.',
+    access: 'viewer',
+    responses: [noContent()],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/invitations`,
+    summary: 'Open invitations.',
+    access: 'owner',
+    responses: [ok(invitationsResponseSchema)],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/invitations`,
+    summary: 'Invite someone by e-mail.',
+    access: 'owner',
+    body: createInvitationBodySchema,
+    responses: [created(z.object({ invitation: invitationSchema }))],
+  },
+  {
+    method: 'delete',
+    path: `${BANK}/invitations/:invitationId`,
+    summary: 'Revoke an invitation.',
+    access: 'owner',
+    responses: [noContent()],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/reminders`,
+    summary: 'The caller’s reminder choices in this bank.',
+    access: 'viewer',
+    responses: [ok(preferencesEnvelope)],
+  },
+  {
+    method: 'patch',
+    path: `${BANK}/reminders`,
+    summary: 'Change the caller’s reminder choices.',
+    access: 'viewer',
+    body: reminderPrefsBodySchema,
+    responses: [ok(preferencesEnvelope)],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/overview`,
+    summary: 'What needs doing this week (from the bank’s today, or `on`).',
+    access: 'viewer',
+    query: onQuery,
+    responses: [ok(overviewSchema)],
+  },
+
+  // Species
+  {
+    method: 'get',
+    path: `${BANK}/species`,
+    summary: 'The reference species and the bank’s own.',
+    access: 'viewer',
+    responses: [ok(speciesListResponseSchema)],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/species`,
+    summary: 'Add a species of the bank’s own.',
+    access: 'grower',
+    body: createSpeciesBodySchema,
+    responses: [created(speciesEnvelope)],
+  },
+  {
+    method: 'patch',
+    path: `${BANK}/species/:speciesId`,
+    summary: 'Override a species’ traits for this bank.',
+    access: 'grower',
+    body: overrideTraitsBodySchema,
+    responses: [ok(speciesEnvelope)],
+  },
+  {
+    method: 'delete',
+    path: `${BANK}/species/:speciesId/overrides`,
+    summary: 'Go back to the reference traits.',
+    access: 'grower',
+    responses: [ok(speciesEnvelope)],
+  },
+
+  // Lots
+  {
+    method: 'get',
+    path: `${BANK}/lots`,
+    summary: 'Lots, a page at a time.',
+    access: 'viewer',
+    query: lotsListQuerySchema,
+    responses: [ok(z.object({ items: z.array(lotSchema), nextCursor: z.string().nullable() }))],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/lots`,
+    summary: 'Log a lot.',
+    access: 'grower',
+    body: createLotBodySchema,
+    responses: [created(lotEnvelope)],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/lots/import`,
+    summary: 'Import lots from CSV, all or nothing (`dryRun=true` only shows what it would add).',
+    access: 'grower',
+    query: importQuery,
+    upload: csvUpload,
+    responses: [ok(lotsImportSchema)],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/lots.csv`,
+    summary: 'Every lot as CSV.',
+    access: 'viewer',
+    responses: [file('text/csv', 'The lots.')],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/lots/:lotId`,
+    summary: 'One lot.',
+    access: 'viewer',
+    responses: [ok(lotEnvelope)],
+  },
+  {
+    method: 'patch',
+    path: `${BANK}/lots/:lotId`,
+    summary: 'Change a lot.',
+    access: 'grower',
+    body: updateLotBodySchema,
+    responses: [ok(lotEnvelope)],
+  },
+  {
+    method: 'delete',
+    path: `${BANK}/lots/:lotId`,
+    summary: 'Delete a lot, or retire it when it has tests.',
+    access: 'grower',
+    responses: [
+      noContent('Deleted.'),
+      ok(z.object({ lot: lotSchema, retired: z.literal(true) }), 'Retired: the lot has tests.'),
+    ],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/lots/:lotId/stock`,
+    summary: 'The lot’s stock ledger.',
+    access: 'viewer',
+    responses: [ok(z.object({ items: z.array(movementSchema), seedsOnHand: z.number() }))],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/lots/:lotId/stock`,
+    summary: 'Record a stock movement.',
+    access: 'grower',
+    body: stockBodySchema,
+    responses: [created(z.object({ movement: movementSchema, seedsOnHand: z.number() }))],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/lots/:lotId/label.svg`,
+    summary: 'The lot’s packet label with a QR code.',
+    access: 'viewer',
+    responses: [file('image/svg+xml', 'The label.')],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/lots/:lotId/viability`,
+    summary: 'The lot’s viability on a date (today in UTC unless `on`).',
+    access: 'viewer',
+    query: onQuery,
+    responses: [ok(viabilityResponseSchema)],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/lots/:lotId/seeds-to-sow`,
+    summary: 'Seeds to sow for a number of plants at an assurance.',
+    access: 'viewer',
+    query: z.object({
+      plants: z.coerce.number().int().min(1).max(100_000),
+      assurance: z.coerce.number().gt(0.5).max(0.999).optional(),
+      on: isoDateSchema.optional(),
+    }),
+    responses: [ok(seedsToSowResponseSchema)],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/ranking`,
+    summary: 'Every lot ranked with its advice (rows rendered through the row schema).',
+    access: 'viewer',
+    query: onQuery,
+    responses: [ok(rankingResponseSchema)],
+  },
+
+  // Germination tests
+  {
+    method: 'get',
+    path: `${BANK}/lots/:lotId/tests`,
+    summary: 'The lot’s germination tests.',
+    access: 'viewer',
+    responses: [ok(z.object({ items: z.array(testDetailSchema), nextCursor: z.null() }))],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/lots/:lotId/tests`,
+    summary: 'Start a germination test.',
+    access: 'grower',
+    body: createTestBodySchema,
+    responses: [created(testDetailSchema)],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/tests/:testId`,
+    summary: 'A germination test with its result.',
+    access: 'viewer',
+    query: z.object({ interval: z.enum(['wilson', 'clopper-pearson']).default('wilson') }),
+    responses: [ok(testDetailSchema)],
+  },
+  {
+    method: 'patch',
+    path: `${BANK}/tests/:testId`,
+    summary: 'Change a germination test.',
+    access: 'grower',
+    body: updateTestBodySchema,
+    responses: [ok(testDetailSchema)],
+  },
+  {
+    method: 'delete',
+    path: `${BANK}/tests/:testId`,
+    summary: 'Delete a germination test.',
+    access: 'grower',
+    responses: [noContent()],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/tests/:testId/counts`,
+    summary: 'Record one check day’s counts.',
+    access: 'grower',
+    body: countsBodySchema,
+    responses: [created(testDetailSchema)],
+  },
+  {
+    method: 'delete',
+    path: `${BANK}/tests/:testId/counts/:date`,
+    summary: 'Remove one check day’s counts.',
+    access: 'grower',
+    responses: [ok(testDetailSchema)],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/tests/:testId/finish`,
+    summary: 'Finish the test with abnormal and ungerminated seeds.',
+    access: 'grower',
+    body: finishBodySchema,
+    responses: [ok(testDetailSchema)],
+  },
+  {
+    method: 'patch',
+    path: `${BANK}/tests/:testId/trays/:trayId`,
+    summary: 'Set a tray aside, or bring it back.',
+    access: 'grower',
+    body: trayUpdateBodySchema,
+    responses: [ok(testDetailSchema)],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/tests/:testId/set-aside`,
+    summary: 'Set the whole test aside, or bring it back.',
+    access: 'grower',
+    body: testSetAsideBodySchema,
+    responses: [ok(testDetailSchema)],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/tests/:testId/reopen`,
+    summary: 'Reopen a finished test.',
+    access: 'grower',
+    responses: [ok(testDetailSchema)],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/tests/import`,
+    summary:
+      'Import past germination tests from CSV, all or nothing (`dryRun=true` only shows what it would add).',
+    access: 'grower',
+    query: importQuery,
+    upload: csvUpload,
+    responses: [ok(z.union([testsImportPreviewSchema, z.object({ imported: z.number() })]))],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/tests.csv`,
+    summary: 'Every germination test as CSV, one record per tray and check day.',
+    access: 'viewer',
+    responses: [file('text/csv', 'The tests.')],
+  },
+
+  // Photos
+  ...(['lots/:lotId', 'plants/:plantId', 'tests/:testId/trays/:trayId'] as const).flatMap(
+    (subject): ApiRoute[] => [
+      {
+        method: 'get',
+        path: `${BANK}/${subject}/photos`,
+        summary: 'The subject’s photos.',
+        access: 'viewer',
+        responses: [ok(z.object({ items: z.array(photoSchema) }))],
+      },
+      {
+        method: 'post',
+        path: `${BANK}/${subject}/photos`,
+        summary: 'Upload a photo (checked, turned upright, stripped of location data).',
+        access: 'grower',
+        upload: { field: 'photo', accept: 'image/*' },
+        responses: [created(photoEnvelope)],
+      },
+    ],
+  ),
+  {
+    method: 'delete',
+    path: `${BANK}/photos/:photoId`,
+    summary: 'Delete a photo.',
+    access: 'grower',
+    responses: [noContent()],
+  },
+
+  // Parent plants
+  {
+    method: 'get',
+    path: `${BANK}/plants`,
+    summary: 'The bank’s parent plants.',
+    access: 'viewer',
+    responses: [ok(z.object({ items: z.array(parentPlantSchema), nextCursor: z.null() }))],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/plants`,
+    summary: 'Add a parent plant.',
+    access: 'grower',
+    body: createPlantBodySchema,
+    responses: [created(plantEnvelope)],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/plants/:plantId`,
+    summary: 'One parent plant.',
+    access: 'viewer',
+    responses: [ok(plantEnvelope)],
+  },
+  {
+    method: 'patch',
+    path: `${BANK}/plants/:plantId`,
+    summary: 'Change a parent plant.',
+    access: 'grower',
+    body: updatePlantBodySchema,
+    responses: [ok(plantEnvelope)],
+  },
+  {
+    method: 'delete',
+    path: `${BANK}/plants/:plantId`,
+    summary: 'Delete a parent plant.',
+    access: 'grower',
+    responses: [noContent()],
+  },
+
+  // Plan
+  {
+    method: 'get',
+    path: `${BANK}/plan`,
+    summary: 'The season’s plan (the coming season unless `season`).',
+    access: 'viewer',
+    query: seasonQuery,
+    responses: [ok(planListResponseSchema)],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/plan`,
+    summary: 'Plan a sowing.',
+    access: 'grower',
+    body: createPlanBodySchema,
+    responses: [created(entryEnvelope)],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/plan/:entryId`,
+    summary: 'One plan entry.',
+    access: 'viewer',
+    responses: [ok(entryEnvelope)],
+  },
+  {
+    method: 'patch',
+    path: `${BANK}/plan/:entryId`,
+    summary: 'Change a plan entry.',
+    access: 'grower',
+    body: updatePlanBodySchema,
+    responses: [ok(entryEnvelope)],
+  },
+  {
+    method: 'delete',
+    path: `${BANK}/plan/:entryId`,
+    summary: 'Delete a plan entry.',
+    access: 'grower',
+    responses: [noContent()],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/plan/:entryId/sown`,
+    summary: 'Mark sown; takes the seeds from the lot’s ledger.',
+    access: 'grower',
+    body: sownBodySchema,
+    responses: [ok(entryEnvelope)],
+  },
+  {
+    method: 'delete',
+    path: `${BANK}/plan/:entryId/sown`,
+    summary: 'Undo sown; puts the seeds back.',
+    access: 'grower',
+    responses: [ok(entryEnvelope)],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/plan.ics`,
+    summary: 'The season’s plan and retests as an iCalendar file.',
+    access: 'viewer',
+    query: seasonQuery,
+    responses: [file('text/calendar', 'The calendar.')],
+  },
+];
