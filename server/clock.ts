@@ -1,4 +1,4 @@
-import { localNow } from '../shared/local-time';
+import { DAY_MS, dayIn } from '../shared/dates';
 import type { DbOrTx } from './db/database';
 
 /** The app's only source of "now", so tests can move time. */
@@ -19,7 +19,7 @@ export function createTestClock(
       current = new Date(at);
     },
     advanceDays(days) {
-      current = new Date(current.getTime() + days * 86_400_000);
+      current = new Date(current.getTime() + days * DAY_MS);
     },
   };
 }
@@ -38,4 +38,4 @@ export async function bankToday(db: DbOrTx, clock: Clock, bankId: string): Promi
 }
 
 /** The same day, for a caller that has already read the bank's `time_zone`. */
-export const todayInZone = (clock: Clock, timeZone: string): string => localNow(clock.now(), timeZone).date;
+export const todayInZone = (clock: Clock, timeZone: string): string => dayIn(timeZone, clock.now());

@@ -1,16 +1,10 @@
 // Sowing-calendar arithmetic back from the frost date. Pure and shared: the server stores what
 // it computes here and the client may preview it. Dates are ISO YYYY-MM-DD in the bank's calendar.
+import { addDays, frostDateIn } from './dates';
 import type { SpeciesTraits } from './schemas/species';
 
-const DAY_MS = 86_400_000;
-
-export function addDays(date: string, days: number): string {
-  return new Date(Date.parse(`${date}T00:00:00Z`) + days * DAY_MS).toISOString().slice(0, 10);
-}
-
-export function daysBetween(from: string, to: string): number {
-  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / DAY_MS);
-}
+// Day arithmetic lives in ./dates; this re-export serves callers not yet moved to it (to be removed).
+export { addDays, daysBetween } from './dates';
 
 /**
  * The season planned by default: the coming spring. From September on, today's calendar day in
@@ -19,14 +13,6 @@ export function daysBetween(from: string, to: string): number {
 export function comingSeason(today: string): number {
   const year = Number(today.slice(0, 4));
   return Number(today.slice(5, 7)) >= 9 ? year + 1 : year;
-}
-
-/** The median last-frost date of a season; 02-29 falls back to 02-28 in a common year. */
-export function frostDateIn(season: number, monthDay: string): string {
-  const [m, d] = monthDay.split('-').map(Number) as [number, number];
-  const leap = (season % 4 === 0 && season % 100 !== 0) || season % 400 === 0;
-  const day = m === 2 && d === 29 && !leap ? 28 : d;
-  return `${season}-${String(m).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
 }
 
 export interface PlanDates {

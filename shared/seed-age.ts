@@ -1,4 +1,4 @@
-import { daysBetween } from './plan-dates';
+import { daysBetween } from './dates';
 
 /** Days in the year that seed age is counted in (the mean calendar year, leap days included). */
 export const YEAR_DAYS = 365.25;

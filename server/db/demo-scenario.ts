@@ -4,8 +4,9 @@
 // Its dates are counted back from the day it is seeded, so it reads as a live season whenever that is.
 import crypto from 'node:crypto';
 import sharp from 'sharp';
-import { addDays, comingSeason } from '../../shared/plan-dates';
-import type { Clock } from '../clock';
+import { addDays } from '../../shared/dates';
+import { comingSeason } from '../../shared/plan-dates';
+import { bankToday, type Clock } from '../clock';
 import type { Mailer } from '../mail/mailer';
 import { refreshStaleResults } from '../modules/germination/test-results';
 import { createInvitationsService } from '../modules/invitations/invitations.service';
@@ -119,7 +120,7 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
   const already = await db.selectFrom('lots').select('id').where('bank_id', '=', bank.id).limit(1).executeTakeFirst();
   if (already) return null;
   const rnd = generator(20261201);
-  const today = deps.clock.now().toISOString().slice(0, 10);
+  const today = await bankToday(db, deps.clock, bank.id);
   const thisYear = Number(today.slice(0, 4));
   // The latest harvest already in the tins: this year's from November on, else last year's.
   const latest = Number(today.slice(5, 7)) >= 11 ? thisYear : thisYear - 1;

@@ -1,9 +1,9 @@
 import { dayInWords } from '../../shared/day-words';
-import { localNow } from '../../shared/local-time';
+import { dayIn } from '../../shared/dates';
 
-/** Today's calendar date, YYYY-MM-DD, in a time zone (a bank's), or the browser's own. */
-export function todayIn(timeZone?: string): string {
-  return localNow(new Date(), timeZone).date;
+/** Today's calendar date, YYYY-MM-DD, on the bank's calendar: pass the bank's `timeZone`. */
+export function todayIn(timeZone: string): string {
+  return dayIn(timeZone, new Date());
 }
 
 /** An ISO date in words for a table ("14 Sep 2025"), read as a calendar day. */

@@ -1,16 +1,10 @@
+import { addDays, frostDateIn } from '../../shared/dates';
 import { isoDateSchema } from '../../shared/schemas/common';
 
-const DAY_MS = 86_400_000;
 /** A first guess at the coming sowing date: eight weeks before the last spring frost (Hilum's rule). */
 export const WEEKS_BEFORE_FROST = 8;
 /** Without a frost date, a season ahead (Hilum's rule). */
 export const DAYS_AHEAD_WITHOUT_FROST = 90;
-
-const isoDay = (ms: number) => new Date(ms).toISOString().slice(0, 10);
-
-export function addDays(iso: string, days: number): string {
-  return isoDay(Date.parse(`${iso}T00:00:00Z`) + days * DAY_MS);
-}
 
 /**
  * The coming sowing date: eight weeks before the next last-frost date whose sowing day is still
@@ -18,12 +12,10 @@ export function addDays(iso: string, days: number): string {
  * `lastFrost` is the bank's "MM-DD"; `today` is the bank's calendar day.
  */
 export function defaultSowingDate(lastFrost: string | null, today: string): string {
-  const match = lastFrost ? /^(\d{2})-(\d{2})$/.exec(lastFrost) : null;
-  if (!match) return addDays(today, DAYS_AHEAD_WITHOUT_FROST);
+  if (!lastFrost || !/^\d{2}-\d{2}$/.test(lastFrost)) return addDays(today, DAYS_AHEAD_WITHOUT_FROST);
   const year = Number(today.slice(0, 4));
   for (const y of [year, year + 1, year + 2]) {
-    // Date.UTC rolls a 29 February into 1 March in a common year, which is near enough.
-    const frost = isoDay(Date.UTC(y, Number(match[1]) - 1, Number(match[2])));
+    const frost = frostDateIn(y, lastFrost);
     const sow = addDays(frost, -7 * WEEKS_BEFORE_FROST);
     if (sow >= today) return sow;
   }

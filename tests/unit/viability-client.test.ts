@@ -48,6 +48,13 @@ describe('the coming sowing date', () => {
     expect(defaultSowingDate('05-24', '2026-03-30')).toBe('2027-03-29');
   });
 
+  it('when the bank’s frost date is 29 February, then a common year counts from 28 February', () => {
+    // 28 Feb 2027 − 56 days = 3 Jan 2027 (28 days back to 31 Jan, 28 more to 3 Jan; calendar).
+    expect(defaultSowingDate('02-29', '2026-06-01')).toBe('2027-01-03');
+    // 2028 is a leap year: 29 Feb 2028 − 56 days = 4 Jan 2028 (29 back to 31 Jan, 27 more).
+    expect(defaultSowingDate('02-29', '2027-06-01')).toBe('2028-01-04');
+  });
+
   it('when the bank has no frost date, then it is 90 days ahead', () => {
     // 1 Dec 2026 + 90 days = 1 Mar 2027 (30 days to 31 Dec, 31 to 31 Jan, 28 to 28 Feb, 1 more).
     expect(defaultSowingDate(null, '2026-12-01')).toBe('2027-03-01');

@@ -8,6 +8,7 @@ import {
   userSchema,
 } from '../../../shared/schemas/accounts';
 import { z } from 'zod';
+import { DAY_MS } from '../../../shared/dates';
 import { requireAuth } from '../../auth/session.middleware';
 import { SESSION_COOKIE, SESSION_DAYS } from '../../auth/tokens';
 import { parse } from '../../http/errors';
@@ -29,7 +30,7 @@ export function authRouter(service: AuthService, options: { secureCookies: boole
   };
   // Max-Age rather than Expires: the browser's clock decides, and the session row is the authority.
   const setSession = (res: Response, session: { token: string }) =>
-    res.cookie(SESSION_COOKIE, session.token, { ...cookie, maxAge: SESSION_DAYS * 86_400_000 });
+    res.cookie(SESSION_COOKIE, session.token, { ...cookie, maxAge: SESSION_DAYS * DAY_MS });
 
   router.post('/register', async (req, res) => {
     const body = parse(registerBodySchema, req.body, 'sign-up');

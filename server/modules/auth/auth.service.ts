@@ -1,3 +1,4 @@
+import { DAY_MS } from '../../../shared/dates';
 import type { LoginBody, RegisterBody } from '../../../shared/schemas/accounts';
 import { argon2idHasher, lazyDecoyHash, type PasswordHasher } from '../../auth/password';
 import { SESSION_DAYS, hashLinkToken, newLinkToken, type SessionSigner } from '../../auth/tokens';
@@ -25,7 +26,7 @@ export function createAuthService({ db, clock, signer, mailer, appOrigin, hasher
 
   async function startSession(userId: string, userAgent: string | null) {
     const now = clock.now();
-    const expiresAt = new Date(now.getTime() + SESSION_DAYS * 86_400_000);
+    const expiresAt = new Date(now.getTime() + SESSION_DAYS * DAY_MS);
     const { id } = await users.insertSession(db, { userId, expiresAt, userAgent, now });
     return { token: await signer.sign(id, expiresAt), expiresAt };
   }

@@ -1,5 +1,5 @@
 import { createEvents, type EventAttributes } from 'ics';
-import { addDays } from '../../../shared/plan-dates';
+import { addDays } from '../../../shared/dates';
 import type { PlanEntryDto } from '../../../shared/schemas/plan';
 
 const ymd = (date: string): [number, number, number] => {

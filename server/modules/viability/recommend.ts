@@ -15,7 +15,7 @@
  *   6. sow-thick  — otherwise: sow more, so many seeds per plant.
  */
 import { dayInWords } from '../../../shared/day-words';
-import { addDays, frostDateIn } from '../../../shared/plan-dates';
+import { addDays, frostDateIn } from '../../../shared/dates';
 import type { RecommendationValue } from '../../../shared/schemas/viability';
 
 /** 'test-first' | 'sow' | 'sow-thick' | 'retest' | 'grow-out' | 'retire' (the API's enum, one place). */

@@ -1,4 +1,6 @@
+import { addYears, daysBetween } from '../../../shared/dates';
 import { dayInWords } from '../../../shared/day-words';
+import { YEAR_DAYS, seedAgeYears } from '../../../shared/seed-age';
 import type { SpeciesDto } from '../../../shared/schemas/species';
 import type { RankingItem as RankingRow } from '../../../shared/schemas/viability';
 import { systemClock, todayInZone, type Clock } from '../../clock';
@@ -18,9 +20,6 @@ import { listSpecies } from '../species/species.service';
 import { lotsForDecisions, type DecisionLot } from '../lots/lots.repository';
 import { decide, retestDueDate, straddles, type Recommendation } from './recommend';
 
-const DAY_MS = 86_400_000;
-const YEAR_DAYS = 365.25;
-
 /**
  * When the seed was harvested, as the model's age zero. A bought packet "packed for" season S was
  * most likely harvested the autumn before: we take 1 September of S − 1 (our assumption).
@@ -32,8 +31,7 @@ export function harvestReference(lot: {
   return lot.harvestDate ?? `${(lot.packedForSeason ?? 2000) - 1}-09-01`;
 }
 
-export const ageYears = (from: string, to: string) =>
-  (Date.parse(to) - Date.parse(from)) / DAY_MS / YEAR_DAYS;
+export const ageYears = seedAgeYears;
 
 /**
  * Storage scaling of the typical seed life. We read a handbook's "seed life under good storage"
@@ -115,11 +113,7 @@ function usable(
   if (t.sown === null || t.germinated === null || t.sown <= 0 || t.set_aside_reason !== null) return false;
   if (t.status === 'finished') return true;
   const final = species?.traits.finalCountDay;
-  return (
-    final != null &&
-    t.last_count_date !== null &&
-    Date.parse(t.last_count_date) - Date.parse(t.start_date) >= final * DAY_MS
-  );
+  return final != null && t.last_count_date !== null && daysBetween(t.start_date, t.last_count_date) >= final;
 }
 
 /** A usable test as the lot page's chart and the model read it. */
@@ -466,10 +460,7 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
     on: string,
   ) {
     const projected = projectOn(v, on);
-    const nextSeason = projectOn(
-      v,
-      `${Number(on.slice(0, 4)) + 1}${on.slice(4)}`.replace('-02-29', '-02-28'),
-    );
+    const nextSeason = projectOn(v, addYears(on, 1));
     const lastUsable = v.tests.at(-1) ?? null;
     const model = v.model;
     const monitoring = model
@@ -594,6 +585,10 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
   }
 
   return {
+    /** Today on the bank's calendar (its time zone): the date advice is given for when none is asked. */
+    async today(bankId: string): Promise<string> {
+      return (await bankSettings(bankId)).today;
+    },
     async viability(bankId: string, lotId: string, on: string) {
       const v = await lotViability(bankId, lotId);
       const ageOn = ageYears(v.harvestRef, on);

@@ -8,6 +8,7 @@ import { testQueryOptions } from '../../../features/germination/api/get-test';
 import type { IntervalMethod } from '../../../lib/bank-api';
 import { formatDate, setupWords } from '../../../features/germination/components/format';
 import { TestWorkbench } from '../../../features/germination/components/test-workbench';
+import { todayIn } from '../../../lib/dates';
 import type { BankNoticeState } from './bank-layout';
 import { CHECK_DATE_PARAM, EXACT_INTERVAL_PARAM, intervalFromSearch } from './germination-loaders';
 import { TrayPhotos } from './tray-photos';
@@ -96,6 +97,7 @@ export function GerminationTestPage() {
         onIntervalChange={setInterval}
         date={dateParam.success ? dateParam.data : undefined}
         onDateChange={setCheckDate}
+        today={todayIn(bank.timeZone)}
         onDeleted={onDeleted}
         photos={(d) => <TrayPhotos bankId={bank.id} detail={d} canEdit={canWrite} />}
       />

@@ -6,6 +6,7 @@ import { paths } from '../../../config/paths';
 import { StartTestForm } from '../../../features/germination/components/start-test-form';
 import { useLot } from '../../../features/lots/api/get-lot';
 import { TreatedCaution } from '../../../features/lots/components/lot-form-parts';
+import { todayIn } from '../../../lib/dates';
 import type { BankNoticeState } from './bank-layout';
 import { useRouteBank } from './use-route-bank';
 
@@ -41,6 +42,7 @@ export function NewGerminationTestPage() {
               bankId={bank.id}
               lotId={lotId}
               lot={lot}
+              today={todayIn(bank.timeZone)}
               renderStockLink={(label) => (
                 <Link to={lotHref} className="underline">
                   {label}

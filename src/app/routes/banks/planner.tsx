@@ -1,6 +1,7 @@
 import { useMemo, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
-import { addDays, comingSeason } from '../../../../shared/plan-dates';
+import { addDays } from '../../../../shared/dates';
+import { comingSeason } from '../../../../shared/plan-dates';
 import { buttonStyles } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';

@@ -17,7 +17,7 @@ import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
 import { useCreateTest } from '../api/create-test';
-import { localToday, pretreatmentLabels } from './format';
+import { pretreatmentLabels } from './format';
 import { TestCautions } from './test-cautions';
 
 /** What the form needs to know of the lot (the route reads it from the lots API). */
@@ -32,6 +32,8 @@ export interface StartTestFormProps {
   bankId: string;
   lotId: string;
   lot?: LotForTest | undefined;
+  /** Today on the bank's calendar (its time zone): the default start date and the latest allowed. */
+  today: string;
   /** Link target for "record a stock correction" when the ledger is short. */
   renderStockLink: (label: string) => ReactNode;
   onCreated: (detail: TestDetail) => void | Promise<void>;
@@ -111,12 +113,12 @@ export function StartTestForm({
   bankId,
   lotId,
   lot,
+  today,
   renderStockLink,
   onCreated,
   onCancel,
 }: StartTestFormProps) {
   const create = useCreateTest(bankId, lotId);
-  const [today] = useState(() => localToday());
   const perTrayDefault = String(defaultSeedsPerTray(lot?.seedsOnHand));
   const [formError, setFormError] = useState<ReactNode>();
   const {

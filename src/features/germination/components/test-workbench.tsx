@@ -1,5 +1,5 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
-import { useState, type ReactNode } from 'react';
+import type { ReactNode } from 'react';
 import type { TestDetail } from '../../../../shared/schemas/germination';
 import { Card } from '../../../components/ui/card';
 import { FormAlert } from '../../../components/ui/form-alert';
@@ -8,7 +8,7 @@ import { testQueryOptions } from '../api/get-test';
 import type { IntervalMethod } from '../../../lib/bank-api';
 import { CountEntry } from './count-entry';
 import { CountsTable } from './counts-table';
-import { formatDate, localToday } from './format';
+import { formatDate } from './format';
 import { GerminationCurve } from './germination-curve';
 import { ResultPanel } from './result-panel';
 import { TestActions } from './test-actions';
@@ -24,6 +24,8 @@ export interface TestWorkbenchProps {
   /** The check date in the count entry, when the address names one (so a reload keeps it). */
   date?: string | undefined;
   onDateChange: (date: string) => void;
+  /** Today on the bank's calendar (its time zone): the check date when the address names none. */
+  today: string;
   onDeleted: () => void | Promise<void>;
   /** The trays' photos, drawn by the page (the photos feature), above the test's actions. */
   photos?: (detail: TestDetail) => ReactNode;
@@ -40,11 +42,11 @@ export function TestWorkbench({
   onIntervalChange,
   date: chosenDate,
   onDateChange,
+  today,
   onDeleted,
   photos,
 }: TestWorkbenchProps) {
   const query = useQuery({ ...testQueryOptions(bankId, testId, interval), placeholderData: keepPreviousData });
-  const [today] = useState(() => localToday());
   const date = chosenDate ?? today;
 
   if (query.isPending) return <Loading label="Reading the test" />;

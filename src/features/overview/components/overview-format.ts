@@ -1,6 +1,5 @@
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 const WEEKDAYS = ['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat'];
-const DAY_MS = 86_400_000;
 
 const utcOf = (iso: string) => Date.parse(`${iso.slice(0, 10)}T00:00:00Z`);
 
@@ -10,11 +9,6 @@ export function weekDay(iso: string): string {
   if (Number.isNaN(ms)) return iso;
   const d = new Date(ms);
   return `${WEEKDAYS[d.getUTCDay()]} ${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]}`;
-}
-
-/** Whole calendar days from one ISO date to another. */
-export function daysFrom(from: string, to: string): number {
-  return Math.round((utcOf(to) - utcOf(from)) / DAY_MS);
 }
 
 const countFormat = new Intl.NumberFormat('en-GB');

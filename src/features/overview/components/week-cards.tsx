@@ -1,7 +1,8 @@
 import type { Overview } from '../../../../shared/schemas/overview';
 import { Card } from '../../../components/ui/card';
 import { paths } from '../../../config/paths';
-import { daysFrom, formatCount, plural, weekDay } from './overview-format';
+import { daysBetween } from '../../../../shared/dates';
+import { formatCount, plural, weekDay } from './overview-format';
 import { Badge, CardEmpty, NextLink, OverviewList, type OverviewRow } from './overview-list';
 
 export interface WeekCardProps {
@@ -21,7 +22,7 @@ const countBadge = (n: number) =>
 function checkWhen(checkDate: string, today: string, overdue: boolean) {
   if (checkDate === today) return <Badge tone="now">Due today</Badge>;
   if (overdue) {
-    const late = daysFrom(checkDate, today);
+    const late = daysBetween(checkDate, today);
     return <Badge tone="urgent">{late === 1 ? 'A day late' : `${late} days late`}</Badge>;
   }
   return <Badge tone="later">{weekDay(checkDate)}</Badge>;
@@ -73,7 +74,7 @@ export function TraysToCountCard({ bankId, overview, canEdit }: WeekCardProps) {
 
 function sowWhen(sowFrom: string, sowTo: string, today: string, open: boolean) {
   if (open) {
-    const left = daysFrom(today, sowTo);
+    const left = daysBetween(today, sowTo);
     return (
       <Badge tone={left <= 2 ? 'urgent' : 'now'}>
         {left === 0 ? 'Last day today' : `Sow by ${weekDay(sowTo)}`}

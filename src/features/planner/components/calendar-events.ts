@@ -1,4 +1,4 @@
-import { addDays } from '../../../../shared/plan-dates';
+import { addDays } from '../../../../shared/dates';
 import type { PlanEntryDto } from '../../../../shared/schemas/plan';
 import type { RankingItem } from '../../../../shared/schemas/viability';
 import { formatSeeds } from './plan-format';

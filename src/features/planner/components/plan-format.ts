@@ -1,4 +1,4 @@
-import { addDays, frostDateIn } from '../../../../shared/plan-dates';
+import { addDays, frostDateIn, weekdayOf } from '../../../../shared/dates';
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 const LONG_MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
@@ -29,9 +29,7 @@ export function monthTitle(month: string): string {
 }
 
 /** 0 = Sunday … 6 = Saturday, for an ISO calendar date. */
-export function weekday(iso: string): number {
-  return new Date(Date.parse(`${iso}T00:00:00Z`)).getUTCDay();
-}
+export const weekday = weekdayOf;
 
 export const monthOf = (iso: string) => iso.slice(0, 7);
 
