@@ -1,4 +1,3 @@
-import { sql } from 'kysely';
 import type { CreateLotBody, StockBody, UpdateLotBody } from '../../../shared/schemas/lots';
 import { bankToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
@@ -36,13 +35,7 @@ function refuseFutureHarvest(harvestDate: string, today: string) {
  */
 async function checkHarvestChange(trx: DbOrTx, bankId: string, lotId: string, harvestDate: string, clock: Clock) {
   refuseFutureHarvest(harvestDate, await bankToday(trx, clock, bankId));
-  const first = await trx
-    .selectFrom('germination_tests')
-    .select('start_date')
-    .where('lot_id', '=', lotId)
-    .orderBy('start_date')
-    .limit(1)
-    .executeTakeFirst();
+  const first = await repo.firstTestStart(trx, lotId);
   if (first && harvestDate > first.start_date) {
     throw unprocessable(`A germination test of this lot started on ${first.start_date}, before that harvest date.`, {
       harvestDate: `Use a day on or before ${first.start_date}.`,
@@ -61,12 +54,7 @@ export function createLotsService(deps: LotsServiceDeps) {
 
   async function checkParents(trx: DbOrTx, bankId: string, ids: string[] | undefined) {
     if (!ids?.length) return;
-    const found = await trx
-      .selectFrom('parent_plants')
-      .select('id')
-      .where('bank_id', '=', bankId)
-      .where('id', 'in', ids)
-      .execute();
+    const found = await repo.parentPlantsOfBank(trx, bankId, ids);
     if (found.length !== new Set(ids).size) {
       throw badRequest('A parent plant is not in this bank.', { parentPlantIds: 'Choose parent plants from this bank.' });
     }
@@ -139,21 +127,18 @@ export function createLotsService(deps: LotsServiceDeps) {
     }
     await repo.setParents(trx, inserted.id, body.parentPlantIds ?? []);
     if (seeds > 0) {
-      await trx
-        .insertInto('stock_movements')
-        .values({
-          lot_id: inserted.id,
-          kind: 'initial',
-          change: seeds,
-          date: body.harvestDate ?? today,
-          reason:
-            extra.reason ??
-            (body.grams !== undefined
-              ? `Estimated from ${body.grams} g at about ${species.traits.seedsPerGram} seeds per gram`
-              : 'Counted when the lot was logged'),
-          created_by: userId,
-        })
-        .execute();
+      await repo.insertMovement(trx, {
+        lot_id: inserted.id,
+        kind: 'initial',
+        change: seeds,
+        date: body.harvestDate ?? today,
+        reason:
+          extra.reason ??
+          (body.grams !== undefined
+            ? `Estimated from ${body.grams} g at about ${species.traits.seedsPerGram} seeds per gram`
+            : 'Counted when the lot was logged'),
+        created_by: userId,
+      });
     }
     return inserted.id;
   }
@@ -176,7 +161,7 @@ export function createLotsService(deps: LotsServiceDeps) {
     },
 
     async exportRows(bankId: string): Promise<LotCsvRow[]> {
-      const rows = await repo.lotsQuery(db, bankId).orderBy(sql`lower(lots.code)`).execute();
+      const rows = await repo.lotsByCode(db, bankId);
       return rows.map(repo.toLotDto).map((l) => ({
         code: l.code,
         speciesName: l.speciesName,
@@ -202,7 +187,7 @@ export function createLotsService(deps: LotsServiceDeps) {
     /** Imports parsed CSV rows in one transaction: every lot, or none. */
     async importRows(bankId: string, userId: string, rows: ParsedLotCsvRow[]) {
       return db.transaction().execute(async (trx) => {
-        const taken = new Set((await trx.selectFrom('lots').select('code').where('bank_id', '=', bankId).execute()).map((r) => r.code.toLowerCase()));
+        const taken = new Set((await repo.bankCodes(trx, bankId)).map((code) => code.toLowerCase()));
         const today = await bankToday(trx, clock, bankId);
         // What only the bank can tell: codes it already uses, harvest dates after its today.
         const problems = rows.flatMap((r) => [
@@ -278,7 +263,7 @@ export function createLotsService(deps: LotsServiceDeps) {
           return 'retired' as const;
         }
         cleanup = await deps.removeSubjectPhotos(trx, bankId, 'lot', lotId);
-        await trx.deleteFrom('lots').where('id', '=', lotId).execute();
+        await repo.deleteLot(trx, lotId);
         return 'deleted' as const;
       });
       // Objects go only once the rows are gone for good.
@@ -301,11 +286,7 @@ export function createLotsService(deps: LotsServiceDeps) {
             'stock_below_zero',
           );
         }
-        const movement = await trx
-          .insertInto('stock_movements')
-          .values({ lot_id: lotId, kind: body.kind ?? 'correction', change: body.change, date: body.date, reason: body.reason, created_by: userId })
-          .returning('id')
-          .executeTakeFirstOrThrow();
+        const movement = await repo.insertMovement(trx, { lot_id: lotId, kind: body.kind ?? 'correction', change: body.change, date: body.date, reason: body.reason, created_by: userId });
         // An emptied lot is depleted; seeds found again bring it back.
         if (after === 0 && lot.status === 'active') await repo.updateLot(trx, lotId, { status: 'depleted' });
         if (after > 0 && lot.status === 'depleted') await repo.updateLot(trx, lotId, { status: 'active' });
