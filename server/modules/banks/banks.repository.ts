@@ -13,6 +13,11 @@ export function findBank(db: DbOrTx, bankId: string) {
   return db.selectFrom('banks').selectAll().where('id', '=', bankId).executeTakeFirst();
 }
 
+/** The bank's name, for other modules' mail and calendars. */
+export function bankName(db: DbOrTx, bankId: string) {
+  return db.selectFrom('banks').select('name').where('id', '=', bankId).executeTakeFirstOrThrow();
+}
+
 export function updateBank(db: DbOrTx, bankId: string, changes: BankUpdate) {
   return db.updateTable('banks').set(changes).where('id', '=', bankId).returningAll().executeTakeFirstOrThrow();
 }

@@ -4,28 +4,12 @@ import type { Clock } from '../../clock';
 import type { Db } from '../../db/database';
 import { AppError, conflict, notFound } from '../../http/errors';
 import type { Mailer } from '../../mail/mailer';
-import { sql } from 'kysely';
+import { bankName as findBankName, insertMembership } from '../banks/banks.repository';
+import * as repo from './invitations.repository';
 
 export const INVITATION_DAYS = 7;
 
 export function createInvitationsService({ db, clock, mailer, appOrigin }: { db: Db; clock: Clock; mailer: Mailer; appOrigin: string }) {
-  const pending = (bankId: string) =>
-    db
-      .selectFrom('invitations')
-      .leftJoin('users', 'users.id', 'invitations.invited_by')
-      .select([
-        'invitations.id',
-        'invitations.email',
-        'invitations.role',
-        'invitations.created_at',
-        'invitations.expires_at',
-        'users.name as invitedBy',
-      ])
-      .where('invitations.bank_id', '=', bankId)
-      .where('invitations.accepted_at', 'is', null)
-      .where('invitations.revoked_at', 'is', null)
-      .where('invitations.expires_at', '>', clock.now());
-
   const toDto = (row: { id: string; email: string; role: 'owner' | 'grower' | 'viewer'; created_at: Date; expires_at: Date; invitedBy: string | null }) => ({
     id: row.id,
     email: row.email,
@@ -36,44 +20,27 @@ export function createInvitationsService({ db, clock, mailer, appOrigin }: { db:
   });
 
   return {
-    list: async (bankId: string) => (await pending(bankId).orderBy('invitations.created_at', 'desc').execute()).map(toDto),
+    list: async (bankId: string) => (await repo.listPending(db, bankId, clock.now())).map(toDto),
 
     async invite(bankId: string, inviterId: string, body: CreateInvitationBody) {
       const now = clock.now();
       const { token, hash } = newLinkToken();
       const { invitation, bankName, inviterName } = await db.transaction().execute(async (trx) => {
-        const member = await trx
-          .selectFrom('memberships')
-          .innerJoin('users', 'users.id', 'memberships.user_id')
-          .select('users.id')
-          .where('memberships.bank_id', '=', bankId)
-          .where(sql<string>`lower(users.email)`, '=', body.email)
-          .executeTakeFirst();
+        const member = await repo.findMemberByEmail(trx, bankId, body.email);
         if (member) throw conflict('That person is already a member of this bank.', 'already_member');
         // A new invitation to the same address replaces any that is still open.
-        await trx
-          .updateTable('invitations')
-          .set({ revoked_at: now })
-          .where('bank_id', '=', bankId)
-          .where('email', '=', body.email)
-          .where('accepted_at', 'is', null)
-          .where('revoked_at', 'is', null)
-          .execute();
-        const row = await trx
-          .insertInto('invitations')
-          .values({
-            bank_id: bankId,
-            email: body.email,
-            role: body.role,
-            token_hash: hash,
-            invited_by: inviterId,
-            created_at: now,
-            expires_at: new Date(now.getTime() + INVITATION_DAYS * 86_400_000),
-          })
-          .returning(['id', 'email', 'role', 'created_at', 'expires_at'])
-          .executeTakeFirstOrThrow();
-        const bank = await trx.selectFrom('banks').select('name').where('id', '=', bankId).executeTakeFirstOrThrow();
-        const inviter = await trx.selectFrom('users').select('name').where('id', '=', inviterId).executeTakeFirstOrThrow();
+        await repo.revokeOpenTo(trx, bankId, body.email, now);
+        const row = await repo.insertInvitation(trx, {
+          bank_id: bankId,
+          email: body.email,
+          role: body.role,
+          token_hash: hash,
+          invited_by: inviterId,
+          created_at: now,
+          expires_at: new Date(now.getTime() + INVITATION_DAYS * 86_400_000),
+        });
+        const bank = await findBankName(trx, bankId);
+        const inviter = await repo.userName(trx, inviterId);
         return { invitation: { ...row, invitedBy: inviter.name }, bankName: bank.name, inviterName: inviter.name };
       });
       const link = `${appOrigin}/invitations/accept?token=${token}`;
@@ -96,41 +63,21 @@ export function createInvitationsService({ db, clock, mailer, appOrigin }: { db:
     },
 
     async revoke(bankId: string, invitationId: string) {
-      const result = await db
-        .updateTable('invitations')
-        .set({ revoked_at: clock.now() })
-        .where('id', '=', invitationId)
-        .where('bank_id', '=', bankId)
-        .where('accepted_at', 'is', null)
-        .where('revoked_at', 'is', null)
-        .executeTakeFirst();
+      const result = await repo.revokeOpen(db, bankId, invitationId, clock.now());
       if (!result.numUpdatedRows) throw notFound('No open invitation with that id.');
     },
 
     async accept(userId: string, token: string) {
       const now = clock.now();
       return db.transaction().execute(async (trx) => {
-        const invitation = await trx
-          .updateTable('invitations')
-          .set({ accepted_at: now, accepted_by: userId })
-          .where('token_hash', '=', hashLinkToken(token))
-          .where('accepted_at', 'is', null)
-          .where('revoked_at', 'is', null)
-          .where('expires_at', '>', now)
-          .returning(['bank_id', 'role'])
-          .executeTakeFirst();
+        const invitation = await repo.acceptOpen(trx, hashLinkToken(token), userId, now);
         if (!invitation) {
           throw new AppError(400, 'invalid_token', 'This invitation has expired or was already used. Ask the bank’s owner for a new one.');
         }
-        const existing = await trx
-          .selectFrom('memberships')
-          .select('role')
-          .where('bank_id', '=', invitation.bank_id)
-          .where('user_id', '=', userId)
-          .executeTakeFirst();
+        const existing = await repo.findMembership(trx, invitation.bank_id, userId);
         if (existing) throw conflict('You are already a member of this bank.', 'already_member');
-        await trx.insertInto('memberships').values({ bank_id: invitation.bank_id, user_id: userId, role: invitation.role }).execute();
-        const bank = await trx.selectFrom('banks').select('name').where('id', '=', invitation.bank_id).executeTakeFirstOrThrow();
+        await insertMembership(trx, invitation.bank_id, userId, invitation.role);
+        const bank = await findBankName(trx, invitation.bank_id);
         return { bankId: invitation.bank_id, role: invitation.role, bankName: bank.name };
       });
     },
