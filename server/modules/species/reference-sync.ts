@@ -1,6 +1,7 @@
 import { SOURCES, SPECIES_REFERENCE, type SpeciesReference, type TraitKey } from '../../../shared/species-reference';
 import type { SpeciesTraits, TraitName } from '../../../shared/schemas/species';
 import type { DbOrTx } from '../../db/database';
+import { upsertReferenceSpecies } from './species.repository';
 
 /** Which reference trait key carries the source of each of Hilum's computed traits. */
 const SOURCE_OF: Record<TraitName, TraitKey> = {
@@ -62,20 +63,7 @@ export async function syncReferenceSpecies(db: DbOrTx): Promise<number> {
       traits: JSON.stringify(referenceTraits(s)),
       sources: JSON.stringify(referenceSources(s)),
     };
-    await db
-      .insertInto('species')
-      .values(values)
-      .onConflict((oc) =>
-        oc.column('ref_key').doUpdateSet({
-          common_name: values.common_name,
-          scientific_name: values.scientific_name,
-          family: values.family,
-          traits: values.traits,
-          sources: values.sources,
-          updated_at: new Date(),
-        }),
-      )
-      .execute();
+    await upsertReferenceSpecies(db, values);
   }
   return SPECIES_REFERENCE.length;
 }

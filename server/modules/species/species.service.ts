@@ -7,6 +7,7 @@ import {
 } from '../../../shared/schemas/species';
 import type { Db, DbOrTx } from '../../db/database';
 import { badRequest, conflict, notFound } from '../../http/errors';
+import * as repo from './species.repository';
 
 interface SpeciesRowWithOverride {
   id: string;
@@ -34,33 +35,13 @@ function toDto(row: SpeciesRowWithOverride): SpeciesDto {
   };
 }
 
-/** Reference species and the bank's own, with the bank's overrides merged in. */
-function visibleSpecies(db: DbOrTx, bankId: string) {
-  return db
-    .selectFrom('species')
-    .leftJoin('species_overrides', (join) =>
-      join.onRef('species_overrides.species_id', '=', 'species.id').on('species_overrides.bank_id', '=', bankId),
-    )
-    .select([
-      'species.id',
-      'species.bank_id',
-      'species.common_name',
-      'species.scientific_name',
-      'species.family',
-      'species.traits',
-      'species.sources',
-      'species_overrides.traits as override',
-    ])
-    .where((eb) => eb.or([eb('species.bank_id', 'is', null), eb('species.bank_id', '=', bankId)]));
-}
-
 export async function findSpecies(db: DbOrTx, bankId: string, speciesId: string): Promise<SpeciesDto | null> {
-  const row = await visibleSpecies(db, bankId).where('species.id', '=', speciesId).executeTakeFirst();
+  const row = await repo.findVisibleSpecies(db, bankId, speciesId);
   return row ? toDto(row) : null;
 }
 
 export async function listSpecies(db: DbOrTx, bankId: string): Promise<SpeciesDto[]> {
-  const rows = await visibleSpecies(db, bankId).orderBy('species.common_name').execute();
+  const rows = await repo.listVisibleSpecies(db, bankId);
   return rows.map(toDto);
 }
 
@@ -77,32 +58,18 @@ export function createSpeciesService({ db }: { db: Db }) {
 
     async create(bankId: string, body: CreateSpeciesBody) {
       // The reference set already has it: one entry per species keeps one ranking and one caution.
-      const known = await db
-        .selectFrom('species')
-        .select(['common_name', 'scientific_name'])
-        .where('bank_id', 'is', null)
-        .where((eb) =>
-          eb.or([
-            eb(eb.fn('lower', ['common_name']), '=', body.commonName.toLowerCase()),
-            eb(eb.fn('lower', ['scientific_name']), '=', body.scientificName.toLowerCase()),
-          ]),
-        )
-        .executeTakeFirst();
+      const known = await repo.findReferenceByName(db, body.commonName, body.scientificName);
       if (known) {
         throw conflict(`${known.common_name} (${known.scientific_name}) is already in Hilum's list of species: choose it there.`, 'duplicate_species');
       }
       try {
-        const row = await db
-          .insertInto('species')
-          .values({
-            bank_id: bankId,
-            common_name: body.commonName,
-            scientific_name: body.scientificName,
-            family: body.family ?? null,
-            traits: JSON.stringify({ ...EMPTY_TRAITS, ...body.traits }),
-          })
-          .returning('id')
-          .executeTakeFirstOrThrow();
+        const row = await repo.insertBankSpecies(db, {
+          bank_id: bankId,
+          common_name: body.commonName,
+          scientific_name: body.scientificName,
+          family: body.family ?? null,
+          traits: JSON.stringify({ ...EMPTY_TRAITS, ...body.traits }),
+        });
         return (await findSpecies(db, bankId, row.id))!;
       } catch (error) {
         if ((error as { code?: string }).code === '23505') {
@@ -116,31 +83,18 @@ export function createSpeciesService({ db }: { db: Db }) {
       const species = await findSpecies(db, bankId, speciesId);
       if (!species) throw notFound('No such species in this bank.');
       if (species.reference) {
-        const existing = await db
-          .selectFrom('species_overrides')
-          .select('traits')
-          .where('bank_id', '=', bankId)
-          .where('species_id', '=', speciesId)
-          .executeTakeFirst();
+        const existing = await repo.findOverrideTraits(db, bankId, speciesId);
         const merged = JSON.stringify({ ...((existing?.traits as object) ?? {}), ...traits });
-        await db
-          .insertInto('species_overrides')
-          .values({ bank_id: bankId, species_id: speciesId, traits: merged })
-          .onConflict((oc) => oc.columns(['bank_id', 'species_id']).doUpdateSet({ traits: merged, updated_at: new Date() }))
-          .execute();
+        await repo.upsertOverrideTraits(db, bankId, speciesId, merged);
       } else {
-        await db
-          .updateTable('species')
-          .set({ traits: JSON.stringify({ ...species.traits, ...traits }), updated_at: new Date() })
-          .where('id', '=', speciesId)
-          .execute();
+        await repo.updateSpeciesTraits(db, speciesId, JSON.stringify({ ...species.traits, ...traits }));
       }
       return (await findSpecies(db, bankId, speciesId))!;
     },
 
     /** Drops the bank's own values for a reference species, back to the shipped ones. */
     async clearOverrides(bankId: string, speciesId: string) {
-      await db.deleteFrom('species_overrides').where('bank_id', '=', bankId).where('species_id', '=', speciesId).execute();
+      await repo.deleteOverride(db, bankId, speciesId);
       const species = await findSpecies(db, bankId, speciesId);
       if (!species) throw notFound('No such species in this bank.');
       return species;
