@@ -6,6 +6,7 @@ import type { ParentPlantTable } from '../../db/schema';
 import { notFound } from '../../http/errors';
 import { listSpecies, requireSpecies } from '../species/species.service';
 import { plantCautions } from './plant-cautions';
+import * as repo from './plants.repository';
 import type { Updateable } from 'kysely';
 import type { PhotoDto } from '../../../shared/schemas/lots';
 
@@ -20,7 +21,7 @@ export interface PlantsServiceDeps {
 }
 
 export function createPlantsService({ db, clock, photosOf, removeSubjectPhotos }: PlantsServiceDeps) {
-  async function dtos(bankId: string, rows: { id: string; species_id: string; label: string; variety: string | null; location: string | null; season: number | null; hybrid: boolean; notes: string | null }[]) {
+  async function dtos(bankId: string, rows: repo.PlantRow[]) {
     const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
     const photos = await photosOf(db, 'plant', rows.map((r) => r.id));
     return rows.map((r) => {
@@ -41,14 +42,8 @@ export function createPlantsService({ db, clock, photosOf, removeSubjectPhotos }
     });
   }
 
-  const base = (bankId: string) =>
-    db
-      .selectFrom('parent_plants')
-      .select(['id', 'species_id', 'label', 'variety', 'location', 'season', 'hybrid', 'notes'])
-      .where('bank_id', '=', bankId);
-
   async function get(bankId: string, plantId: string) {
-    const row = await base(bankId).where('id', '=', plantId).executeTakeFirst();
+    const row = await repo.findPlant(db, bankId, plantId);
     if (!row) throw notFound('No such parent plant in this bank.');
     return (await dtos(bankId, [row]))[0]!;
   }
@@ -56,24 +51,20 @@ export function createPlantsService({ db, clock, photosOf, removeSubjectPhotos }
   return {
     get,
     async list(bankId: string) {
-      return dtos(bankId, await base(bankId).orderBy('season', 'desc').orderBy('label').execute());
+      return dtos(bankId, await repo.listPlants(db, bankId));
     },
     async create(bankId: string, body: CreatePlant) {
       await requireSpecies(db, bankId, body.speciesId);
-      const row = await db
-        .insertInto('parent_plants')
-        .values({
-          bank_id: bankId,
-          species_id: body.speciesId,
-          label: body.label,
-          variety: body.variety ?? null,
-          location: body.location ?? null,
-          season: body.season ?? null,
-          hybrid: body.hybrid ?? false,
-          notes: body.notes ?? null,
-        })
-        .returning('id')
-        .executeTakeFirstOrThrow();
+      const row = await repo.insertPlant(db, {
+        bank_id: bankId,
+        species_id: body.speciesId,
+        label: body.label,
+        variety: body.variety ?? null,
+        location: body.location ?? null,
+        season: body.season ?? null,
+        hybrid: body.hybrid ?? false,
+        notes: body.notes ?? null,
+      });
       return get(bankId, row.id);
     },
     async update(bankId: string, plantId: string, body: UpdatePlant) {
@@ -87,14 +78,14 @@ export function createPlantsService({ db, clock, photosOf, removeSubjectPhotos }
       if (body.season !== undefined) changes.season = body.season;
       if (body.hybrid !== undefined) changes.hybrid = body.hybrid;
       if (body.notes !== undefined) changes.notes = body.notes;
-      await db.updateTable('parent_plants').set(changes).where('id', '=', plantId).execute();
+      await repo.updatePlant(db, plantId, changes);
       return get(bankId, plantId);
     },
     async remove(bankId: string, plantId: string) {
       await get(bankId, plantId);
       const cleanup = await db.transaction().execute(async (trx) => {
         const done = await removeSubjectPhotos(trx, bankId, 'plant', plantId);
-        await trx.deleteFrom('parent_plants').where('id', '=', plantId).execute();
+        await repo.deletePlant(trx, plantId);
         return done;
       });
       await cleanup();
