@@ -8,8 +8,7 @@ import { AppError, notFound } from '../../http/errors';
 import { processPhoto } from '../../photos/process-photo';
 import { removePhotoObjects, storeProcessedPhoto } from '../../photos/store-photo';
 import type { ObjectStore } from '../../storage/object-store';
-
-const SUBJECT_TABLE = { lot: 'lots', plant: 'parent_plants' } as const;
+import * as repo from './photos.repository';
 
 function toDto(row: { id: string; width: number; height: number; created_at: Date }): PhotoDto {
   return {
@@ -25,16 +24,12 @@ function toDto(row: { id: string; width: number; height: number; created_at: Dat
 export function createPhotosService({ db, storage, logger }: { db: Db; storage: ObjectStore; logger?: Logger }) {
   /** Deletes objects whose rows are gone; what the store refuses now stays queued for later. */
   async function drainDeletions(keys?: string[]) {
-    let q = db.selectFrom('object_deletions').select('key');
-    if (keys) {
-      if (keys.length === 0) return;
-      q = q.where('key', 'in', keys);
-    }
-    const pending = (await q.limit(500).execute()).map((r) => r.key);
+    if (keys && keys.length === 0) return;
+    const pending = await repo.queuedDeletions(db, keys);
     if (pending.length === 0) return;
     try {
       await removePhotoObjects(storage, pending);
-      await db.deleteFrom('object_deletions').where('key', 'in', pending).execute();
+      await repo.dropQueuedDeletions(db, pending);
     } catch (error) {
       logger?.warn({ err: error, keys: pending.length }, 'object deletions left queued');
     }
@@ -42,16 +37,10 @@ export function createPhotosService({ db, storage, logger }: { db: Db; storage: 
 
   /** Removes a subject's photo rows inside `trx` and queues their objects; call the result after commit. */
   async function removeSubjectPhotos(trx: DbOrTx, bankId: string, subject: PhotoSubject, subjectId: string) {
-    const rows = await trx
-      .deleteFrom('photos')
-      .where('bank_id', '=', bankId)
-      .where('subject', '=', subject)
-      .where('subject_id', '=', subjectId)
-      .returning(['full_key', 'thumb_key'])
-      .execute();
+    const rows = await repo.deleteSubjectPhotos(trx, bankId, subject, subjectId);
     const keys = rows.flatMap((r) => [r.full_key, r.thumb_key]);
     if (keys.length) {
-      await trx.insertInto('object_deletions').values(keys.map((key) => ({ key }))).onConflict((oc) => oc.doNothing()).execute();
+      await repo.queueDeletions(trx, keys);
     }
     return () => drainDeletions(keys);
   }
@@ -63,67 +52,36 @@ export function createPhotosService({ db, storage, logger }: { db: Db; storage: 
     async photosOf(on: DbOrTx, subject: PhotoSubject, subjectIds: string[]) {
       const map = new Map<string, PhotoDto[]>();
       if (subjectIds.length === 0) return map;
-      const rows = await on
-        .selectFrom('photos')
-        .select(['id', 'subject_id', 'width', 'height', 'created_at'])
-        .where('subject', '=', subject)
-        .where('subject_id', 'in', subjectIds)
-        .orderBy('created_at')
-        .execute();
+      const rows = await repo.photosOfSubjects(on, subject, subjectIds);
       for (const row of rows) map.set(row.subject_id, [...(map.get(row.subject_id) ?? []), toDto(row)]);
       return map;
     },
 
     async list(bankId: string, subject: PhotoSubject, subjectId: string) {
-      const rows = await db
-        .selectFrom('photos')
-        .select(['id', 'width', 'height', 'created_at'])
-        .where('bank_id', '=', bankId)
-        .where('subject', '=', subject)
-        .where('subject_id', '=', subjectId)
-        .orderBy('created_at')
-        .execute();
+      const rows = await repo.listSubjectPhotos(db, bankId, subject, subjectId);
       return rows.map(toDto);
     },
 
     /** Checks, processes and stores a photo; the row is written only once both objects are stored. */
     async upload(bankId: string, subject: PhotoSubject, subjectId: string, userId: string, input: Buffer) {
-      const owner =
-        subject === 'tray'
-          ? await db
-              .selectFrom('test_trays')
-              .innerJoin('germination_tests', 'germination_tests.id', 'test_trays.test_id')
-              .select('test_trays.id')
-              .where('test_trays.id', '=', subjectId)
-              .where('germination_tests.bank_id', '=', bankId)
-              .executeTakeFirst()
-          : await db
-              .selectFrom(SUBJECT_TABLE[subject])
-              .select('id')
-              .where('id', '=', subjectId)
-              .where('bank_id', '=', bankId)
-              .executeTakeFirst();
+      const owner = await repo.findSubjectInBank(db, bankId, subject, subjectId);
       if (!owner) throw notFound(`No such ${subject} in this bank.`);
       const processed = await processPhoto(input);
       const photoId = crypto.randomUUID();
       const { fullKey, thumbKey } = await storeProcessedPhoto(storage, bankId, photoId, processed);
       try {
-        const row = await db
-          .insertInto('photos')
-          .values({
-            id: photoId,
-            bank_id: bankId,
-            subject,
-            subject_id: subjectId,
-            full_key: fullKey,
-            thumb_key: thumbKey,
-            width: processed.display.width,
-            height: processed.display.height,
-            bytes: processed.display.data.length + processed.thumb.data.length,
-            created_by: userId,
-          })
-          .returning(['id', 'width', 'height', 'created_at'])
-          .executeTakeFirstOrThrow();
+        const row = await repo.insertPhoto(db, {
+          id: photoId,
+          bank_id: bankId,
+          subject,
+          subject_id: subjectId,
+          full_key: fullKey,
+          thumb_key: thumbKey,
+          width: processed.display.width,
+          height: processed.display.height,
+          bytes: processed.display.data.length + processed.thumb.data.length,
+          created_by: userId,
+        });
         return toDto(row);
       } catch (error) {
         await removePhotoObjects(storage, [fullKey, thumbKey]).catch(() => undefined);
@@ -133,15 +91,10 @@ export function createPhotosService({ db, storage, logger }: { db: Db; storage: 
 
     async remove(bankId: string, photoId: string) {
       const keys = await db.transaction().execute(async (trx) => {
-        const row = await trx
-          .deleteFrom('photos')
-          .where('id', '=', photoId)
-          .where('bank_id', '=', bankId)
-          .returning(['full_key', 'thumb_key'])
-          .executeTakeFirst();
+        const row = await repo.deletePhoto(trx, bankId, photoId);
         if (!row) throw notFound('No such photo in this bank.');
         const list = [row.full_key, row.thumb_key];
-        await trx.insertInto('object_deletions').values(list.map((key) => ({ key }))).onConflict((oc) => oc.doNothing()).execute();
+        await repo.queueDeletions(trx, list);
         return list;
       });
       await drainDeletions(keys);
@@ -149,14 +102,7 @@ export function createPhotosService({ db, storage, logger }: { db: Db; storage: 
 
     /** The image for a member of the photo's bank; anyone else gets the same 404 as a missing photo. */
     async open(photoId: string, userId: string, size: 'full' | 'thumb'): Promise<{ body: Readable; length?: number }> {
-      const row = await db
-        .selectFrom('photos')
-        .innerJoin('memberships', (join) =>
-          join.onRef('memberships.bank_id', '=', 'photos.bank_id').on('memberships.user_id', '=', userId),
-        )
-        .select(['photos.full_key', 'photos.thumb_key'])
-        .where('photos.id', '=', photoId)
-        .executeTakeFirst();
+      const row = await repo.findPhotoForMember(db, photoId, userId);
       if (!row) throw notFound('No such photo.');
       let object;
       try {
