@@ -9,7 +9,6 @@ import { parse } from '../../http/errors';
 import { idParam } from '../../http/params';
 import { respond } from '../../http/respond';
 import type { ViabilityService } from '../viability/viability.service';
-import { planCalendar } from './plan-calendar';
 import type { PlanService } from './plan.service';
 
 const one = z.object({ entry: planEntrySchema });
@@ -52,13 +51,10 @@ export function planRoutes(plan: PlanService, deps: { db: Db; clock: Clock; viab
   const ics = Router({ mergeParams: true });
   ics.get('/', requireRole('viewer'), async (req, res) => {
     const season = parse(seasonQuery, req.query, 'query').season ?? (await thisSeason(req.bank!.id));
-    const bank = await deps.db.selectFrom('banks').select('name').where('id', '=', req.bank!.id).executeTakeFirstOrThrow();
-    const entries = await plan.list(req.bank!.id, season);
-    const ranking = await deps.viability.ranking(req.bank!.id, `${season}-01-01`);
-    const retests = ranking.filter((r) => r.retestBy).map((r) => ({ lotId: r.lotId, code: r.code, species: r.species, retestBy: r.retestBy! }));
+    const calendar = await plan.calendar(req.bank!.id, season);
     res.setHeader('Content-Type', 'text/calendar; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="hilum-plan-${season}.ics"`);
-    res.send(planCalendar(bank.name, season, entries, retests));
+    res.send(calendar);
   });
   return { router, ics };
 }

@@ -4,9 +4,12 @@ import type { CreatePlanBody, PlanEntryDto, updatePlanBodySchema } from '../../.
 import { bankToday, type Clock } from '../../clock';
 import type { Db } from '../../db/database';
 import { AppError, badRequest, conflict, notFound, unprocessable } from '../../http/errors';
-import { lockLot, stockOf } from '../lots/lots.repository';
+import { bankName } from '../banks/banks.repository';
+import { insertMovement, lockLot, stockOf, updateLot } from '../lots/lots.repository';
 import { findSpecies } from '../species/species.service';
 import type { ViabilityService } from '../viability/viability.service';
+import { planCalendar } from './plan-calendar';
+import * as repo from './plan.repository';
 
 export function createPlanService({
   db,
@@ -17,19 +20,7 @@ export function createPlanService({
   clock: Clock;
   viability: ViabilityService;
 }) {
-  const entries = (bankId: string) =>
-    db
-      .selectFrom('plan_entries')
-      .innerJoin('species', 'species.id', 'plan_entries.species_id')
-      .leftJoin('lots', 'lots.id', 'plan_entries.lot_id')
-      .selectAll('plan_entries')
-      // The lot's stock now (kept on the lot from its ledger), so the planner can say before
-      // "Mark sown" that it falls short.
-      .select(['species.common_name as species_name', 'lots.code as lot_code', 'lots.seeds_on_hand'])
-      .where('plan_entries.bank_id', '=', bankId);
-
-  type Row = Awaited<ReturnType<ReturnType<typeof entries>['executeTakeFirstOrThrow']>>;
-  const toDto = (r: Row): PlanEntryDto => ({
+  const toDto = (r: repo.PlanEntryRow): PlanEntryDto => ({
     id: r.id,
     season: r.season,
     speciesId: r.species_id,
@@ -52,7 +43,7 @@ export function createPlanService({
   });
 
   async function get(bankId: string, entryId: string) {
-    const row = await entries(bankId).where('plan_entries.id', '=', entryId).executeTakeFirst();
+    const row = await repo.findEntry(db, bankId, entryId);
     if (!row) throw notFound('No such plan entry in this bank.');
     return toDto(row);
   }
@@ -68,11 +59,7 @@ export function createPlanService({
       lotId: string | null;
     },
   ) {
-    const bank = await db
-      .selectFrom('banks')
-      .select(['last_frost', 'frost_margin_days'])
-      .where('id', '=', bankId)
-      .executeTakeFirstOrThrow();
+    const bank = await repo.frostSettings(db, bankId);
     const species = await findSpecies(db, bankId, input.speciesId);
     if (!species)
       throw badRequest('That species is not in the list.', { speciesId: 'Choose a species from the list.' });
@@ -94,12 +81,7 @@ export function createPlanService({
     let lotId = input.lotId;
     let seeds: number | null = null;
     if (lotId) {
-      const lot = await db
-        .selectFrom('lots')
-        .select(['id', 'species_id'])
-        .where('id', '=', lotId)
-        .where('bank_id', '=', bankId)
-        .executeTakeFirst();
+      const lot = await repo.findLotOfBank(db, bankId, lotId);
       if (!lot || lot.species_id !== species.id)
         throw badRequest('Choose a lot of this species from this bank.', {
           lotId: 'Not a lot of this species.',
@@ -135,41 +117,44 @@ export function createPlanService({
     return { dates, notes, lotId, seeds };
   }
 
+  async function list(bankId: string, season: number) {
+    const rows = await repo.listSeason(db, bankId, season);
+    return rows.map(toDto);
+  }
+
   return {
     get,
-    async list(bankId: string, season: number) {
-      const rows = await entries(bankId)
-        .where('plan_entries.season', '=', season)
-        .orderBy('plan_entries.sow_from')
-        .orderBy('species.common_name')
-        .execute();
-      return rows.map(toDto);
+    list,
+
+    /** The season's plan and the retests due, as an iCalendar file. */
+    async calendar(bankId: string, season: number) {
+      const bank = await bankName(db, bankId);
+      const entries = await list(bankId, season);
+      const ranking = await viability.ranking(bankId, `${season}-01-01`);
+      const retests = ranking.filter((r) => r.retestBy).map((r) => ({ lotId: r.lotId, code: r.code, species: r.species, retestBy: r.retestBy! }));
+      return planCalendar(bank.name, season, entries, retests);
     },
 
     async create(bankId: string, userId: string, body: CreatePlanBody) {
       const c = await compute(bankId, { ...body, lotId: body.lotId ?? null });
-      const row = await db
-        .insertInto('plan_entries')
-        .values({
-          bank_id: bankId,
-          season: body.season,
-          species_id: body.speciesId,
-          lot_id: c.lotId,
-          lot_chosen: Boolean(body.lotId),
-          plants_wanted: body.plantsWanted,
-          start: body.start,
-          seeds_to_sow: c.seeds,
-          sow_from: c.dates.sowFrom,
-          sow_to: c.dates.sowTo,
-          expect_from: c.dates.expectFrom,
-          expect_by: c.dates.expectBy,
-          harden_from: c.dates.hardenFrom,
-          transplant_on: c.dates.transplantOn,
-          notes: JSON.stringify(c.notes),
-          created_by: userId,
-        })
-        .returning('id')
-        .executeTakeFirstOrThrow();
+      const row = await repo.insertEntry(db, {
+        bank_id: bankId,
+        season: body.season,
+        species_id: body.speciesId,
+        lot_id: c.lotId,
+        lot_chosen: Boolean(body.lotId),
+        plants_wanted: body.plantsWanted,
+        start: body.start,
+        seeds_to_sow: c.seeds,
+        sow_from: c.dates.sowFrom,
+        sow_to: c.dates.sowTo,
+        expect_from: c.dates.expectFrom,
+        expect_by: c.dates.expectBy,
+        harden_from: c.dates.hardenFrom,
+        transplant_on: c.dates.transplantOn,
+        notes: JSON.stringify(c.notes),
+        created_by: userId,
+      });
       return get(bankId, row.id);
     },
 
@@ -186,25 +171,21 @@ export function createPlanService({
         lotId: body.lotId !== undefined ? body.lotId : current.lotChosen ? current.lotId : null,
       };
       const c = await compute(bankId, input);
-      await db
-        .updateTable('plan_entries')
-        .set({
-          lot_id: c.lotId,
-          lot_chosen: lotChosen,
-          plants_wanted: input.plantsWanted,
-          start: input.start,
-          seeds_to_sow: c.seeds,
-          sow_from: c.dates.sowFrom,
-          sow_to: c.dates.sowTo,
-          expect_from: c.dates.expectFrom,
-          expect_by: c.dates.expectBy,
-          harden_from: c.dates.hardenFrom,
-          transplant_on: c.dates.transplantOn,
-          notes: JSON.stringify(c.notes),
-          updated_at: clock.now(),
-        })
-        .where('id', '=', entryId)
-        .execute();
+      await repo.updateEntry(db, entryId, {
+        lot_id: c.lotId,
+        lot_chosen: lotChosen,
+        plants_wanted: input.plantsWanted,
+        start: input.start,
+        seeds_to_sow: c.seeds,
+        sow_from: c.dates.sowFrom,
+        sow_to: c.dates.sowTo,
+        expect_from: c.dates.expectFrom,
+        expect_by: c.dates.expectBy,
+        harden_from: c.dates.hardenFrom,
+        transplant_on: c.dates.transplantOn,
+        notes: JSON.stringify(c.notes),
+        updated_at: clock.now(),
+      });
       return get(bankId, entryId);
     },
 
@@ -215,7 +196,7 @@ export function createPlanService({
           'This entry is marked sown. Undo that first, so the seeds go back to the lot.',
           'already_sown',
         );
-      await db.deleteFrom('plan_entries').where('id', '=', entryId).execute();
+      await repo.deleteEntry(db, entryId);
     },
 
     /** Withdraws the entry's seeds from its lot, once, in one transaction with the mark. */
@@ -227,13 +208,7 @@ export function createPlanService({
           date: 'Use today or an earlier date.',
         });
       await db.transaction().execute(async (trx) => {
-        const entry = await trx
-          .selectFrom('plan_entries')
-          .selectAll()
-          .where('id', '=', entryId)
-          .where('bank_id', '=', bankId)
-          .forUpdate()
-          .executeTakeFirst();
+        const entry = await repo.lockEntry(trx, bankId, entryId);
         if (!entry) throw notFound('No such plan entry in this bank.');
         if (entry.sown_on) throw conflict(`Already marked sown on ${entry.sown_on}.`, 'already_sown');
         if (!entry.lot_id || !entry.seeds_to_sow)
@@ -250,25 +225,17 @@ export function createPlanService({
             `The lot has ${onHand} seeds; this sowing needs ${entry.seeds_to_sow}. Sow fewer or choose another lot.`,
           );
         }
-        const movement = await trx
-          .insertInto('stock_movements')
-          .values({
-            lot_id: entry.lot_id,
-            kind: 'sown',
-            change: -entry.seeds_to_sow,
-            date: on,
-            reason: `Sown for ${entry.plants_wanted} plants (season plan ${entry.season})`,
-            created_by: userId,
-          })
-          .returning('id')
-          .executeTakeFirstOrThrow();
-        await trx
-          .updateTable('plan_entries')
-          .set({ sown_on: on, sown_movement_id: movement.id, updated_at: clock.now() })
-          .where('id', '=', entryId)
-          .execute();
+        const movement = await insertMovement(trx, {
+          lot_id: entry.lot_id,
+          kind: 'sown',
+          change: -entry.seeds_to_sow,
+          date: on,
+          reason: `Sown for ${entry.plants_wanted} plants (season plan ${entry.season})`,
+          created_by: userId,
+        });
+        await repo.updateEntry(trx, entryId, { sown_on: on, sown_movement_id: movement.id, updated_at: clock.now() });
         if (onHand === entry.seeds_to_sow && lot.status === 'active') {
-          await trx.updateTable('lots').set({ status: 'depleted' }).where('id', '=', entry.lot_id).execute();
+          await updateLot(trx, entry.lot_id, { status: 'depleted' });
         }
       });
       return get(bankId, entryId);
@@ -277,26 +244,16 @@ export function createPlanService({
     /** Puts the seeds back: the ledger line goes, the mark goes. */
     async undoSown(bankId: string, entryId: string) {
       await db.transaction().execute(async (trx) => {
-        const entry = await trx
-          .selectFrom('plan_entries')
-          .selectAll()
-          .where('id', '=', entryId)
-          .where('bank_id', '=', bankId)
-          .forUpdate()
-          .executeTakeFirst();
+        const entry = await repo.lockEntry(trx, bankId, entryId);
         if (!entry) throw notFound('No such plan entry in this bank.');
         if (!entry.sown_on) throw conflict('This entry is not marked sown.', 'not_sown');
         if (entry.sown_movement_id)
-          await trx.deleteFrom('stock_movements').where('id', '=', entry.sown_movement_id).execute();
-        await trx
-          .updateTable('plan_entries')
-          .set({ sown_on: null, sown_movement_id: null, updated_at: clock.now() })
-          .where('id', '=', entryId)
-          .execute();
+          await repo.deleteMovement(trx, entry.sown_movement_id);
+        await repo.updateEntry(trx, entryId, { sown_on: null, sown_movement_id: null, updated_at: clock.now() });
         if (entry.lot_id) {
           const lot = await lockLot(trx, bankId, entry.lot_id);
           if (lot?.status === 'depleted' && (await stockOf(trx, entry.lot_id)) > 0) {
-            await trx.updateTable('lots').set({ status: 'active' }).where('id', '=', entry.lot_id).execute();
+            await updateLot(trx, entry.lot_id, { status: 'active' });
           }
         }
       });
