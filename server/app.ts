@@ -119,7 +119,7 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/lots/:lotId/photos', subjectPhotoRoutes(services.photos, 'lot', 'lotId'));
   bank.use('/lots/:lotId/tests', lotTestRoutes(services.germination));
   bank.use('/lots/:lotId/label.svg', labelRoutes(createLabelsService({ db: deps.db, appOrigin: config.appOrigin })));
-  const viability = viabilityRoutes(services.viability, deps.clock);
+  const viability = viabilityRoutes(services.viability);
   bank.use('/lots/:lotId', viability.lot);
   bank.use('/ranking', viability.ranking);
   const planRouters = planRoutes(plan, { ...deps, viability: services.viability });

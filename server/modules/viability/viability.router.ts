@@ -7,14 +7,13 @@ import {
   viabilityResponseSchema,
 } from '../../../shared/schemas/viability';
 import { requireRole } from '../../auth/bank-access';
-import type { Clock } from '../../clock';
 import { parse } from '../../http/errors';
 import { idParam } from '../../http/params';
 import { respond, respondRendered, rowRenderer } from '../../http/respond';
 import type { ViabilityService } from './viability.service';
 
-export function viabilityRoutes(service: ViabilityService, clock: Clock) {
-  const today = () => clock.now().toISOString().slice(0, 10);
+export function viabilityRoutes(service: ViabilityService) {
+  // Without `on`, advice is for today on the bank's calendar (its time zone), as everywhere.
   const onQuery = z.object({ on: isoDateSchema.optional() });
   const sowQuery = z.object({
     plants: z.coerce.number().int().min(1, { message: 'At least one plant.' }).max(100_000),
@@ -34,7 +33,11 @@ export function viabilityRoutes(service: ViabilityService, clock: Clock) {
       res,
       200,
       viabilityResponseSchema,
-      await service.viability(req.bank!.id, idParam(req.params.lotId, 'lot'), on ?? today()),
+      await service.viability(
+        req.bank!.id,
+        idParam(req.params.lotId, 'lot'),
+        on ?? (await service.today(req.bank!.id)),
+      ),
     );
   });
   lot.get('/seeds-to-sow', requireRole('viewer'), async (req, res) => {
@@ -47,7 +50,7 @@ export function viabilityRoutes(service: ViabilityService, clock: Clock) {
         req.bank!.id,
         idParam(req.params.lotId, 'lot'),
         q.plants,
-        q.on ?? today(),
+        q.on ?? (await service.today(req.bank!.id)),
         q.assurance,
       ),
     );
@@ -58,7 +61,7 @@ export function viabilityRoutes(service: ViabilityService, clock: Clock) {
   const ranking = Router({ mergeParams: true });
   ranking.get('/', requireRole('viewer'), async (req, res) => {
     const { on } = parse(onQuery, req.query, 'query');
-    const date = on ?? today();
+    const date = on ?? (await service.today(req.bank!.id));
     respondRendered(res, 200, await service.rankingJson(req.bank!.id, date, renderRankingRow));
   });
   return { lot, ranking };
