@@ -59,31 +59,44 @@ describe.each(ZONES)('today in a bank $where ($zone)', ({ zone, today, tomorrow 
     expect((await bank.viewer.agent.get(`${base()}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(190);
   });
 
-  it('when a germination test starts, is counted or finishes tomorrow in the bank, then it is 422; today is accepted', async () => {
-    const lotId = (await newLot()).body.lot.id as string;
-    const start = (startDate: string) =>
+  describe('a germination test', () => {
+    const start = (lotId: string, startDate: string) =>
       bank.grower.agent.post(`${base()}/lots/${lotId}/tests`).send({ startDate, method: 'paper towel', trays: [{ seedsSown: 20 }] });
-    const futureStart = await start(tomorrow);
-    expect(futureStart.status).toBe(422);
-    expect(futureStart.body.error.fields).toHaveProperty('startDate');
-    expect((await start(today)).status).toBe(201);
+    /** A one-tray test started a few days before, and a count of it on `date`. */
+    const startedBefore = async () => {
+      const started = await start((await newLot()).body.lot.id as string, '2026-03-15');
+      const testId = started.body.test.id as string;
+      const trayId = started.body.trays[0].id as string;
+      const count = (date: string) => bank.grower.agent.post(`${base()}/tests/${testId}/counts`).send({ date, trays: [{ trayId, cumulative: 3 }] });
+      return { testId, trayId, count };
+    };
 
-    // Counted and finished on a test started a few days before.
-    const started = await start('2026-03-15');
-    const testId = started.body.test.id as string;
-    const trayId = started.body.trays[0].id as string;
-    const count = (date: string) => bank.grower.agent.post(`${base()}/tests/${testId}/counts`).send({ date, trays: [{ trayId, cumulative: 3 }] });
-    const futureCount = await count(tomorrow);
-    expect(futureCount.status).toBe(422);
-    expect(futureCount.body.error.fields).toHaveProperty('date');
-    expect((await count(today)).status).toBe(201);
+    it('when it starts tomorrow in the bank, then it is 422; today is accepted', async () => {
+      const lotId = (await newLot()).body.lot.id as string;
+      const futureStart = await start(lotId, tomorrow);
+      expect(futureStart.status).toBe(422);
+      expect(futureStart.body.error.fields).toHaveProperty('startDate');
+      expect((await start(lotId, today)).status).toBe(201);
+    });
 
-    const finish = (date: string) =>
-      bank.grower.agent.post(`${base()}/tests/${testId}/finish`).send({ date, trays: [{ trayId, abnormal: 0, ungerminated: 17 }] });
-    expect((await finish(tomorrow)).status).toBe(422);
-    const finished = await finish(today);
-    expect(finished.status).toBe(200);
-    expect(finished.body.test.finishedOn).toBe(today);
+    it('when it is counted tomorrow in the bank, then it is 422; today is accepted', async () => {
+      const { count } = await startedBefore();
+      const futureCount = await count(tomorrow);
+      expect(futureCount.status).toBe(422);
+      expect(futureCount.body.error.fields).toHaveProperty('date');
+      expect((await count(today)).status).toBe(201);
+    });
+
+    it('when it finishes tomorrow in the bank, then it is 422; today is accepted', async () => {
+      const { testId, trayId, count } = await startedBefore();
+      expect((await count(today)).status).toBe(201);
+      const finish = (date: string) =>
+        bank.grower.agent.post(`${base()}/tests/${testId}/finish`).send({ date, trays: [{ trayId, abnormal: 0, ungerminated: 17 }] });
+      expect((await finish(tomorrow)).status).toBe(422);
+      const finished = await finish(today);
+      expect(finished.status).toBe(200);
+      expect(finished.body.test.finishedOn).toBe(today);
+    });
   });
 
   it('when a planned sowing is marked sown tomorrow in the bank, then it is 422; with no date it is sown today in the bank', async () => {

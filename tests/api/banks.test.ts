@@ -22,17 +22,30 @@ describe('banks and members', () => {
     expect(bank.body.role).toBe('owner');
   });
 
-  it('when a bank is created with its creator’s time zone, then it keeps it; without one it is UTC; an unknown zone is 400 and no bank', async () => {
+  const bankNames = async (agent: ReturnType<typeof request.agent>) =>
+    (await agent.get('/api/me')).body.memberships.map((m: { bankName: string }) => m.bankName).sort();
+
+  it('when a bank is created with its creator’s time zone, then it keeps it', async () => {
     const { agent } = await signUp(ctx.app);
     // IANA time zone database names (common practice): Pacific/Auckland is a real zone.
     const zoned = await agent.post('/api/banks').send({ name: 'Zoned', timeZone: 'Pacific/Auckland' });
     expect(zoned.status).toBe(201);
     expect(zoned.body.bank.timeZone).toBe('Pacific/Auckland');
+    expect(await bankNames(agent)).toEqual(['Zoned']);
+  });
+
+  it('when a bank is created without a time zone, then it is UTC', async () => {
+    const { agent } = await signUp(ctx.app);
     expect((await agent.post('/api/banks').send({ name: 'Plain' })).body.bank.timeZone).toBe('UTC');
+    expect(await bankNames(agent)).toEqual(['Plain']);
+  });
+
+  it('when a bank is created with an unknown time zone, then it is 400 and no bank', async () => {
+    const { agent } = await signUp(ctx.app);
     const bad = await agent.post('/api/banks').send({ name: 'Nowhere', timeZone: 'Mars/Olympus' });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields.timeZone).toMatch(/Not a known time zone/);
-    expect((await agent.get('/api/me')).body.memberships.map((m: { bankName: string }) => m.bankName).sort()).toEqual(['Plain', 'Zoned']);
+    expect(await bankNames(agent)).toEqual([]);
   });
 
   it('when a frost date is not a real month-day, then it is 400 naming the field', async () => {
@@ -42,24 +55,45 @@ describe('banks and members', () => {
     expect(res.body.error.fields.lastFrost).toBeTruthy();
   });
 
-  it('when the owner updates settings, then they are kept; a bad time zone is 400', async () => {
+  it('when the owner updates settings, then they are kept', async () => {
     const { agent } = await signUp(ctx.app);
     const { body } = await agent.post('/api/banks').send({ name: 'Y' });
     const patched = await agent.patch(`/api/banks/${body.bank.id}`).send({ frostMarginDays: 14, timeZone: 'America/Winnipeg' });
     expect(patched.status).toBe(200);
     expect(patched.body.bank).toMatchObject({ frostMarginDays: 14, timeZone: 'America/Winnipeg' });
+  });
+
+  it('when the owner sets a bad time zone, then it is 400', async () => {
+    const { agent } = await signUp(ctx.app);
+    const { body } = await agent.post('/api/banks').send({ name: 'Y' });
     expect((await agent.patch(`/api/banks/${body.bank.id}`).send({ timeZone: 'Mars/Olympus' })).status).toBe(400);
   });
 
-  it('when the last owner is demoted or removed, then it is 409 and nothing changes', async () => {
-    const { bankId, owner } = await bankWithRoles(ctx.app, ctx.db);
-    const demote = await owner.agent.patch(`/api/banks/${bankId}/members/${owner.user.id}`).send({ role: 'grower' });
-    expect(demote.status).toBe(409);
-    expect(demote.body.error.code).toBe('last_owner');
-    expect((await owner.agent.delete(`/api/banks/${bankId}/members/${owner.user.id}`)).status).toBe(409);
-    expect((await owner.agent.post(`/api/banks/${bankId}/leave`)).status).toBe(409);
-    const members = await owner.agent.get(`/api/banks/${bankId}/members`);
-    expect(members.body.items.find((m: { userId: string }) => m.userId === owner.user.id).role).toBe('owner');
+  describe('when the last owner', () => {
+    const stillOwner = async ({ bankId, owner }: Awaited<ReturnType<typeof bankWithRoles>>) => {
+      const members = await owner.agent.get(`/api/banks/${bankId}/members`);
+      expect(members.body.items.find((m: { userId: string }) => m.userId === owner.user.id).role).toBe('owner');
+    };
+
+    it('is demoted, then it is 409 and nothing changes', async () => {
+      const bank = await bankWithRoles(ctx.app, ctx.db);
+      const demote = await bank.owner.agent.patch(`/api/banks/${bank.bankId}/members/${bank.owner.user.id}`).send({ role: 'grower' });
+      expect(demote.status).toBe(409);
+      expect(demote.body.error.code).toBe('last_owner');
+      await stillOwner(bank);
+    });
+
+    it('is removed, then it is 409 and nothing changes', async () => {
+      const bank = await bankWithRoles(ctx.app, ctx.db);
+      expect((await bank.owner.agent.delete(`/api/banks/${bank.bankId}/members/${bank.owner.user.id}`)).status).toBe(409);
+      await stillOwner(bank);
+    });
+
+    it('leaves, then it is 409 and nothing changes', async () => {
+      const bank = await bankWithRoles(ctx.app, ctx.db);
+      expect((await bank.owner.agent.post(`/api/banks/${bank.bankId}/leave`)).status).toBe(409);
+      await stillOwner(bank);
+    });
   });
 
   it('when a second owner exists, then the first may step down', async () => {
@@ -69,10 +103,14 @@ describe('banks and members', () => {
     expect((await owner.agent.get(`/api/banks/${bankId}`)).body.role).toBe('viewer');
   });
 
-  it('when a member leaves or is removed, then the bank is 404 to them', async () => {
-    const { bankId, owner, grower, viewer } = await bankWithRoles(ctx.app, ctx.db);
+  it('when a member leaves, then the bank is 404 to them', async () => {
+    const { bankId, viewer } = await bankWithRoles(ctx.app, ctx.db);
     expect((await viewer.agent.post(`/api/banks/${bankId}/leave`)).status).toBe(204);
     expect((await viewer.agent.get(`/api/banks/${bankId}`)).status).toBe(404);
+  });
+
+  it('when a member is removed, then the bank is 404 to them', async () => {
+    const { bankId, owner, grower } = await bankWithRoles(ctx.app, ctx.db);
     expect((await owner.agent.delete(`/api/banks/${bankId}/members/${grower.user.id}`)).status).toBe(204);
     expect((await grower.agent.get(`/api/banks/${bankId}/members`)).status).toBe(404);
   });

@@ -101,34 +101,68 @@ describe('germination tests through the API', () => {
     expect(exact.body.result.interval.low).toBeCloseTo(cp.low * 100, 10);
   });
 
-  it('when a count breaks a rule, then it is 422 naming the tray and why, and nothing is saved', async () => {
-    const lotId = await lotWith(400);
-    const { test, trays } = await fourTrayTest(lotId);
-    const url = `${base()}/tests/${test.id}/counts`;
-    const send = (date: string, cumulative: number, trayId = trays[1]!.id) =>
-      bank.grower.agent.post(url).send({ date, trays: [{ trayId, cumulative }] });
-    expect((await send('2026-03-06', 50)).status).toBe(201);
-    expect((await send('2026-03-10', 70)).status).toBe(201);
+  describe('when a count breaks a rule, then it is 422 naming the tray and why, and nothing is saved', () => {
+    /** A 4-tray test whose tray 2 was counted 50 on 6 March and 70 on 10 March; `send` posts one more count. */
+    async function countedTest() {
+      const lotId = await lotWith(400);
+      const { test, trays } = await fourTrayTest(lotId);
+      const url = `${base()}/tests/${test.id}/counts`;
+      const send = (date: string, cumulative: number, trayId = trays[1]!.id) =>
+        bank.grower.agent.post(url).send({ date, trays: [{ trayId, cumulative }] });
+      expect((await send('2026-03-06', 50)).status).toBe(201);
+      expect((await send('2026-03-10', 70)).status).toBe(201);
+      const nothingSaved = async () => {
+        const { body } = await bank.viewer.agent.get(`${base()}/tests/${test.id}`);
+        expect(body.counts.map((c: { cumulative: number }) => c.cumulative)).toEqual([50, 70]);
+      };
+      return { send, nothingSaved };
+    }
 
-    const above = await send('2026-03-11', 101);
-    expect(above.status).toBe(422);
-    expect(above.body.error.message).toMatch(/Tray 2: 101 .* more than the 100 seeds sown/);
-    const below = await send('2026-03-11', 60);
-    expect(below.status).toBe(422);
-    expect(below.body.error.message).toMatch(/Tray 2: 60 is fewer than the 70 counted on 2026-03-10/);
-    const between = await send('2026-03-08', 75);
-    expect(between.status).toBe(422);
-    expect(between.body.error.message).toMatch(/more than the 70 counted later/);
-    const early = await send('2026-02-27', 1);
-    expect(early.status).toBe(422);
-    expect(early.body.error.message).toMatch(/before the test started/);
-    const future = await send('2026-03-22', 80); // after today in the bank's time zone (UTC, the default)
-    expect(future.status).toBe(422);
-    const otherTray = await send('2026-03-11', 80, '00000000-0000-4000-8000-000000000000');
-    expect(otherTray.status).toBe(422);
+    it('more than the seeds sown', async () => {
+      const { send, nothingSaved } = await countedTest();
+      const above = await send('2026-03-11', 101);
+      expect(above.status).toBe(422);
+      expect(above.body.error.message).toMatch(/Tray 2: 101 .* more than the 100 seeds sown/);
+      await nothingSaved();
+    });
 
-    const { body } = await bank.viewer.agent.get(`${base()}/tests/${test.id}`);
-    expect(body.counts.map((c: { cumulative: number }) => c.cumulative)).toEqual([50, 70]);
+    it('fewer than an earlier count', async () => {
+      const { send, nothingSaved } = await countedTest();
+      const below = await send('2026-03-11', 60);
+      expect(below.status).toBe(422);
+      expect(below.body.error.message).toMatch(/Tray 2: 60 is fewer than the 70 counted on 2026-03-10/);
+      await nothingSaved();
+    });
+
+    it('more than a later count', async () => {
+      const { send, nothingSaved } = await countedTest();
+      const between = await send('2026-03-08', 75);
+      expect(between.status).toBe(422);
+      expect(between.body.error.message).toMatch(/more than the 70 counted later/);
+      await nothingSaved();
+    });
+
+    it('dated before the test started', async () => {
+      const { send, nothingSaved } = await countedTest();
+      const early = await send('2026-02-27', 1);
+      expect(early.status).toBe(422);
+      expect(early.body.error.message).toMatch(/before the test started/);
+      await nothingSaved();
+    });
+
+    it('dated after today in the bank', async () => {
+      const { send, nothingSaved } = await countedTest();
+      const future = await send('2026-03-22', 80); // after today in the bank's time zone (UTC, the default)
+      expect(future.status).toBe(422);
+      await nothingSaved();
+    });
+
+    it('for a tray not in the test', async () => {
+      const { send, nothingSaved } = await countedTest();
+      const otherTray = await send('2026-03-11', 80, '00000000-0000-4000-8000-000000000000');
+      expect(otherTray.status).toBe(422);
+      await nothingSaved();
+    });
   });
 
   it('when several trays break a rule in one post, then the 422 names every one of them and saves none', async () => {

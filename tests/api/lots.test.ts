@@ -163,23 +163,39 @@ describe('lots and the stock ledger', () => {
     expect((await bank.viewer.agent.get(`${lotsUrl()}/${id}`)).body.lot).toMatchObject({ status: 'active', seedsOnHand: 5 });
   });
 
-  it('when a movement is dated in the future or has the wrong sign for its kind, then it is refused', async () => {
-    const { body } = await bank.grower.agent
-      .post(lotsUrl())
-      .send({ speciesId: tomato, variety: 'Dated', origin: 'saved', harvestDate: '2025-09-04', seedCount: 10 });
-    const url = `${lotsUrl()}/${body.lot.id}/stock`;
-    expect((await bank.grower.agent.post(url).send({ change: -1, reason: 'x', date: '2026-03-05', kind: 'sown' })).status).toBe(422);
-    expect((await bank.grower.agent.post(url).send({ change: 2, reason: 'x', date: '2026-02-05', kind: 'sown' })).status).toBe(400);
+  describe('when a movement', () => {
+    const stockUrl = async () => {
+      const { body } = await bank.grower.agent
+        .post(lotsUrl())
+        .send({ speciesId: tomato, variety: 'Dated', origin: 'saved', harvestDate: '2025-09-04', seedCount: 10 });
+      return `${lotsUrl()}/${body.lot.id}/stock`;
+    };
+
+    it('is dated in the future, then it is refused (422)', async () => {
+      expect((await bank.grower.agent.post(await stockUrl()).send({ change: -1, reason: 'x', date: '2026-03-05', kind: 'sown' })).status).toBe(422);
+    });
+
+    it('has the wrong sign for its kind, then it is refused (400)', async () => {
+      expect((await bank.grower.agent.post(await stockUrl()).send({ change: 2, reason: 'x', date: '2026-02-05', kind: 'sown' })).status).toBe(400);
+    });
   });
 
-  it('when a lot is edited, then its fields change; a clashing code is 409', async () => {
+  const editableLot = async () => {
     const { body } = await bank.grower.agent
       .post(lotsUrl())
       .send({ speciesId: tomato, variety: 'Editable', origin: 'saved', harvestDate: '2025-09-05', seedCount: 10 });
-    const url = `${lotsUrl()}/${body.lot.id}`;
+    return `${lotsUrl()}/${body.lot.id}`;
+  };
+
+  it('when a lot is edited, then its fields change', async () => {
+    const url = await editableLot();
     const res = await bank.grower.agent.patch(url).send({ variety: 'Edited', treated: true, storage: { place: 'fridge', temperatureC: 4, humidityPct: 30 }, code: 'MY-TOM-1' });
     expect(res.status).toBe(200);
     expect(res.body.lot).toMatchObject({ variety: 'Edited', treated: true, code: 'MY-TOM-1', storage: { place: 'fridge', temperatureC: 4, humidityPct: 30 } });
+  });
+
+  it('when a lot is given a code another lot has, then it is 409', async () => {
+    const url = await editableLot();
     expect((await bank.grower.agent.patch(url).send({ code: 'TOM-25-01' })).status).toBe(409);
   });
 
@@ -208,18 +224,29 @@ describe('lots and the stock ledger', () => {
     expect(res.body.plant.cautions.join(' ')).toMatch(/cross-pollinated/);
   });
 
-  it('when lots are listed, then search, filters and the cursor work', async () => {
-    const all = await bank.viewer.agent.get(`${lotsUrl()}?limit=2`);
-    expect(all.body.items).toHaveLength(2);
-    expect(all.body.nextCursor).toEqual(expect.any(String));
-    const next = await bank.viewer.agent.get(`${lotsUrl()}?limit=2&cursor=${encodeURIComponent(all.body.nextCursor)}`);
-    expect(next.body.items[0].code > all.body.items[1].code).toBe(true);
-    const search = await bank.viewer.agent.get(`${lotsUrl()}?q=pear`);
-    expect(search.body.items.map((l: { variety: string }) => l.variety)).toEqual(['Yellow Pear']);
-    const bySpecies = await bank.viewer.agent.get(`${lotsUrl()}?speciesId=${lettuce}`);
-    expect(bySpecies.body.items.every((l: { speciesId: string }) => l.speciesId === lettuce)).toBe(true);
-    const depleted = await bank.viewer.agent.get(`${lotsUrl()}?status=depleted`);
-    expect(depleted.body.items.every((l: { status: string }) => l.status === 'depleted')).toBe(true);
+  describe('when lots are listed', () => {
+    it('then the cursor gives the next page', async () => {
+      const all = await bank.viewer.agent.get(`${lotsUrl()}?limit=2`);
+      expect(all.body.items).toHaveLength(2);
+      expect(all.body.nextCursor).toEqual(expect.any(String));
+      const next = await bank.viewer.agent.get(`${lotsUrl()}?limit=2&cursor=${encodeURIComponent(all.body.nextCursor)}`);
+      expect(next.body.items[0].code > all.body.items[1].code).toBe(true);
+    });
+
+    it('then search finds by variety', async () => {
+      const search = await bank.viewer.agent.get(`${lotsUrl()}?q=pear`);
+      expect(search.body.items.map((l: { variety: string }) => l.variety)).toEqual(['Yellow Pear']);
+    });
+
+    it('then the species filter keeps that species', async () => {
+      const bySpecies = await bank.viewer.agent.get(`${lotsUrl()}?speciesId=${lettuce}`);
+      expect(bySpecies.body.items.every((l: { speciesId: string }) => l.speciesId === lettuce)).toBe(true);
+    });
+
+    it('then the status filter keeps that status', async () => {
+      const depleted = await bank.viewer.agent.get(`${lotsUrl()}?status=depleted`);
+      expect(depleted.body.items.every((l: { status: string }) => l.status === 'depleted')).toBe(true);
+    });
   });
 
   it('when a lot without tests is deleted, then it and its ledger are gone', async () => {

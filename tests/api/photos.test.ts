@@ -97,9 +97,13 @@ describe('packet photos through the API', () => {
     expect((await upload(await jpegWithExif(), 'x.jpg', bank.viewer.agent)).status).toBe(403);
   });
 
-  it('when someone outside the bank asks for a photo, then it is 404, and signed out 401', async () => {
+  it('when someone outside the bank asks for a photo, then it is 404', async () => {
     const res = await upload(await jpegWithExif(), 'x.jpg');
     expect((await bank.outsider.agent.get(res.body.photo.url)).status).toBe(404);
+  });
+
+  it('when someone signed out asks for a photo, then it is 401', async () => {
+    const res = await upload(await jpegWithExif(), 'x.jpg');
     expect((await request(ctx.app).get(res.body.photo.url)).status).toBe(401);
   });
 
