@@ -1,3 +1,4 @@
+import { DAY_MS } from '../../../shared/dates';
 import type { CreateInvitationBody } from '../../../shared/schemas/banks';
 import { hashLinkToken, newLinkToken } from '../../auth/tokens';
 import type { Clock } from '../../clock';
@@ -37,7 +38,7 @@ export function createInvitationsService({ db, clock, mailer, appOrigin }: { db:
           token_hash: hash,
           invited_by: inviterId,
           created_at: now,
-          expires_at: new Date(now.getTime() + INVITATION_DAYS * 86_400_000),
+          expires_at: new Date(now.getTime() + INVITATION_DAYS * DAY_MS),
         });
         const bank = await findBankName(trx, bankId);
         const inviter = await repo.userName(trx, inviterId);
