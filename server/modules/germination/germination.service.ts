@@ -1,14 +1,15 @@
-import { sql, type Selectable, type Updateable } from 'kysely';
+import type { Selectable, Updateable } from 'kysely';
 import type { z } from 'zod';
 import { storedResultSchema, type CountsBody, type CreateTestBody, type FinishBody, type TestDetail, type updateTestBodySchema } from '../../../shared/schemas/germination';
-import { addDays, daysBetween } from '../../../shared/plan-dates';
+import { addDays, daysBetween } from '../../../shared/dates';
 import { bankToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
 import type { GerminationTestTable, TestTrayTable } from '../../db/schema';
 import { AppError, conflict, notFound, unprocessable } from '../../http/errors';
 import { clopperPearsonInterval, type IntervalMethod } from '../../stats';
 import { findSpecies } from '../species/species.service';
-import { lockLot, stockOf } from '../lots/lots.repository';
+import { insertMovement, lockLot, stockOf, updateLot } from '../lots/lots.repository';
+import * as repo from './germination.repository';
 import { countProblems, finishProblem, startBeforeHarvest, uncountedAtFinish } from './count-rules';
 import { resultWords } from './result-words';
 import { RESULT_VERSION, storeResult } from './test-results';
@@ -27,20 +28,9 @@ export interface GerminationDeps {
   removeSubjectPhotos: (db: DbOrTx, bankId: string, subject: 'tray', subjectId: string) => Promise<() => Promise<void>>;
 }
 
-/** A bank's tests, each with its lot's code, variety and species. */
-export function testsWithLot(on: DbOrTx, bankId: string) {
-  return on
-    .selectFrom('germination_tests')
-    .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
-    .innerJoin('species', 'species.id', 'lots.species_id')
-    .selectAll('germination_tests')
-    .select(['lots.code as lot_code', 'lots.variety', 'lots.species_id', 'species.common_name'])
-    .where('germination_tests.bank_id', '=', bankId);
-}
-type TestWithLot = Awaited<ReturnType<ReturnType<typeof testsWithLot>['executeTakeFirstOrThrow']>>;
 
 /** What a test is, in the API's names (the detail and the CSV export both give it). */
-export function testFields(t: TestWithLot) {
+export function testFields(t: repo.TestWithLot) {
   return {
     lotCode: t.lot_code,
     speciesName: t.common_name,
@@ -57,22 +47,6 @@ export function testFields(t: TestWithLot) {
   };
 }
 
-/** The trays of the tests, by position, and their counts, by date. */
-export async function traysAndCounts(on: DbOrTx, testIds: string[]) {
-  const trays = testIds.length
-    ? await on.selectFrom('test_trays').selectAll().where('test_id', 'in', testIds).orderBy('position').execute()
-    : [];
-  const counts = trays.length
-    ? await on
-        .selectFrom('tray_counts')
-        .select(['tray_id', 'check_date', 'cumulative'])
-        .where('tray_id', 'in', trays.map((tr) => tr.id))
-        .orderBy('check_date')
-        .execute()
-    : [];
-  return { trays, counts };
-}
-
 /** What a tray is, in the API's names. */
 export function trayFields(tr: Selectable<TestTrayTable>) {
   return {
@@ -87,25 +61,20 @@ export function trayFields(tr: Selectable<TestTrayTable>) {
   };
 }
 
-export async function lotHasTests(db: DbOrTx, lotId: string): Promise<boolean> {
-  const row = await db.selectFrom('germination_tests').select('id').where('lot_id', '=', lotId).limit(1).executeTakeFirst();
-  return Boolean(row);
-}
+export { lotHasTests } from './germination.repository';
 
 export function createGerminationService({ db, clock, removeSubjectPhotos }: GerminationDeps) {
   const today = (on: DbOrTx, bankId: string) => bankToday(on, clock, bankId);
 
   async function loadTest(on: DbOrTx, bankId: string, testId: string, lock = false) {
-    let q = testsWithLot(on, bankId).where('germination_tests.id', '=', testId);
-    if (lock) q = q.forUpdate('germination_tests');
-    const row = await q.executeTakeFirst();
+    const row = await repo.findTest(on, bankId, testId, lock);
     if (!row) throw notFound('No such germination test in this bank.');
     return row;
   }
 
   async function detail(bankId: string, testId: string, intervalMethod: IntervalMethod = 'wilson', on: DbOrTx = db): Promise<TestDetail> {
     const t = await loadTest(on, bankId, testId);
-    const { trays, counts } = await traysAndCounts(on, [testId]);
+    const { trays, counts } = await repo.traysAndCounts(on, [testId]);
     const species = await findSpecies(on, bankId, t.species_id);
     const first = species?.traits.firstCountDay ?? null;
     const final = species?.traits.finalCountDay ?? null;
@@ -115,11 +84,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
     };
     // What the test took from the lot's ledger (none for a test imported as history): what its
     // deletion gives back.
-    const taken = await on
-      .selectFrom('stock_movements')
-      .select(sql<number>`coalesce(-sum(change), 0)::int`.as('seeds'))
-      .where('test_id', '=', testId)
-      .executeTakeFirstOrThrow();
+    const seedsTaken = await repo.seedsTakenBy(on, testId);
     // The stored result (test-results.ts); one stored under an older definition is brought up to date.
     const stored = storedResultSchema.parse(t.result_version === RESULT_VERSION && t.result !== null ? t.result : await storeResult(on, testId));
     const summary =
@@ -133,7 +98,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         ...testFields(t),
         status: t.status,
         setAsideReason: t.set_aside_reason,
-        seedsTaken: taken.seeds,
+        seedsTaken,
         schedule,
         createdAt: t.created_at.toISOString(),
       },
@@ -170,41 +135,31 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
             `The trays need ${needed} seeds but the ledger shows ${onHand} on hand. If you have more than that, record a correction in the stock ledger first.`,
           );
         }
-        const test = await trx
-          .insertInto('germination_tests')
-          .values({
-            bank_id: bankId,
-            lot_id: lotId,
-            start_date: body.startDate,
-            method: body.method,
-            medium: body.medium ?? null,
-            temperature_c: body.temperatureC ?? null,
-            light_hours: body.lightHours ?? null,
-            pretreatment: body.pretreatment ?? 'none',
-            pretreatment_days: body.pretreatmentDays ?? null,
-            notes: body.notes ?? null,
-            created_by: userId,
-          })
-          .returning('id')
-          .executeTakeFirstOrThrow();
-        await trx
-          .insertInto('test_trays')
-          .values(body.trays.map((t, i) => ({ test_id: test.id, position: i + 1, seeds_sown: t.seedsSown })))
-          .execute();
-        await trx
-          .insertInto('stock_movements')
-          .values({
-            lot_id: lotId,
-            kind: 'test',
-            change: -needed,
-            date: body.startDate,
-            reason: `Germination test: ${needed} seeds in ${body.trays.length} ${body.trays.length === 1 ? 'tray' : 'trays'}`,
-            created_by: userId,
-            test_id: test.id,
-          })
-          .execute();
+        const test = await repo.insertTest(trx, {
+          bank_id: bankId,
+          lot_id: lotId,
+          start_date: body.startDate,
+          method: body.method,
+          medium: body.medium ?? null,
+          temperature_c: body.temperatureC ?? null,
+          light_hours: body.lightHours ?? null,
+          pretreatment: body.pretreatment ?? 'none',
+          pretreatment_days: body.pretreatmentDays ?? null,
+          notes: body.notes ?? null,
+          created_by: userId,
+        });
+        await repo.insertTrays(trx, body.trays.map((t, i) => ({ test_id: test.id, position: i + 1, seeds_sown: t.seedsSown })));
+        await insertMovement(trx, {
+          lot_id: lotId,
+          kind: 'test',
+          change: -needed,
+          date: body.startDate,
+          reason: `Germination test: ${needed} seeds in ${body.trays.length} ${body.trays.length === 1 ? 'tray' : 'trays'}`,
+          created_by: userId,
+          test_id: test.id,
+        });
         if (onHand === needed && lot.status === 'active') {
-          await trx.updateTable('lots').set({ status: 'depleted' }).where('id', '=', lotId).execute();
+          await updateLot(trx, lotId, { status: 'depleted' });
         }
         await storeResult(trx, test.id);
         return test.id;
@@ -213,14 +168,8 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
     },
 
     async listForLot(bankId: string, lotId: string) {
-      const rows = await db
-        .selectFrom('germination_tests')
-        .select('id')
-        .where('bank_id', '=', bankId)
-        .where('lot_id', '=', lotId)
-        .orderBy('start_date', 'desc')
-        .execute();
-      return Promise.all(rows.map((r) => detail(bankId, r.id)));
+      const ids = await repo.testIdsOfLot(db, bankId, lotId);
+      return Promise.all(ids.map((id) => detail(bankId, id)));
     },
 
     async update(bankId: string, testId: string, body: z.infer<typeof updateTestBodySchema>) {
@@ -235,7 +184,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         if (body.pretreatment !== undefined) changes.pretreatment = body.pretreatment;
         if (body.pretreatmentDays !== undefined) changes.pretreatment_days = body.pretreatmentDays;
         if (body.notes !== undefined) changes.notes = body.notes;
-        await trx.updateTable('germination_tests').set(changes).where('id', '=', testId).execute();
+        await repo.updateTest(trx, testId, changes);
       });
       return detail(bankId, testId);
     },
@@ -249,16 +198,8 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
           throw unprocessable(`A count cannot be dated before the test started (${t.start_date}).`, { date: 'Use a date on or after the start.' });
         }
         if (body.date > (await today(trx, bankId))) throw unprocessable('A count cannot be dated in the future.', { date: 'Use today or an earlier date.' });
-        const trays = await trx.selectFrom('test_trays').selectAll().where('test_id', '=', testId).execute();
-        const saved = trays.length
-          ? await trx
-              .selectFrom('tray_counts')
-              .select(['tray_id', 'check_date', 'cumulative'])
-              .where('tray_id', 'in', trays.map((tr) => tr.id))
-              .where('check_date', '<>', body.date)
-              .orderBy('check_date')
-              .execute()
-          : [];
+        const trays = await repo.traysOf(trx, testId);
+        const saved = trays.length ? await repo.countsOtherThan(trx, trays.map((tr) => tr.id), body.date) : [];
         const problems = countProblems(body, t.start_date, trays, saved);
         if (problems.length > 0) {
           const n = problems.length;
@@ -268,11 +209,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
           );
         }
         for (const entry of body.trays) {
-          await trx
-            .insertInto('tray_counts')
-            .values({ tray_id: entry.trayId, check_date: body.date, cumulative: entry.cumulative, created_by: userId })
-            .onConflict((oc) => oc.columns(['tray_id', 'check_date']).doUpdateSet({ cumulative: entry.cumulative, created_by: userId }))
-            .execute();
+          await repo.upsertCount(trx, entry.trayId, body.date, entry.cumulative, userId);
         }
         await storeResult(trx, testId);
       });
@@ -284,8 +221,8 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
       await db.transaction().execute(async (trx) => {
         const t = await loadTest(trx, bankId, testId, true);
         assertRunning(t);
-        const trayIds = (await trx.selectFrom('test_trays').select('id').where('test_id', '=', testId).execute()).map((r) => r.id);
-        const res = await trx.deleteFrom('tray_counts').where('tray_id', 'in', trayIds).where('check_date', '=', date).executeTakeFirst();
+        const trayIds = await repo.trayIdsOf(trx, testId);
+        const res = await repo.deleteCountsOn(trx, trayIds, date);
         if (!res.numDeletedRows) throw notFound(`No counts on ${date}.`);
         await storeResult(trx, testId);
       });
@@ -296,13 +233,8 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
       await db.transaction().execute(async (trx) => {
         const t = await loadTest(trx, bankId, testId, true);
         assertRunning(t);
-        const trays = await trx.selectFrom('test_trays').selectAll().where('test_id', '=', testId).orderBy('position').execute();
-        const counts = await trx
-          .selectFrom('tray_counts')
-          .select(['tray_id', 'check_date', 'cumulative'])
-          .where('tray_id', 'in', trays.map((tr) => tr.id))
-          .orderBy('check_date')
-          .execute();
+        const trays = await repo.traysInOrder(trx, testId);
+        const counts = await repo.countsOfTrays(trx, trays.map((tr) => tr.id));
         const lastDate = counts.at(-1)?.check_date ?? t.start_date;
         if (body.date < lastDate) throw unprocessable(`The test cannot finish before its last count (${lastDate}).`, { date: `On or after ${lastDate}.` });
         if (body.date > (await today(trx, bankId))) throw unprocessable('A test cannot finish in the future.', { date: 'Use today or an earlier date.' });
@@ -317,11 +249,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
             throw unprocessable(`Give the abnormal and ungerminated seeds of tray ${tray.position}, or a reason to set it aside.`);
           }
           if (entry.setAsideReason !== undefined) {
-            await trx
-              .updateTable('test_trays')
-              .set({ set_aside_reason: entry.setAsideReason, abnormal: null, ungerminated: null, fresh: null, dead: null, hard: null })
-              .where('id', '=', tray.id)
-              .execute();
+            await repo.updateTray(trx, tray.id, { set_aside_reason: entry.setAsideReason, abnormal: null, ungerminated: null, fresh: null, dead: null, hard: null });
             continue;
           }
           const mine = counts.filter((c) => c.tray_id === tray.id);
@@ -329,17 +257,13 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
           const figures = { abnormal: entry.abnormal ?? 0, ungerminated: entry.ungerminated ?? 0, fresh: entry.fresh, dead: entry.dead, hard: entry.hard };
           const problem = finishProblem(tray, mine.at(-1)!.cumulative, figures);
           if (problem) throw unprocessable(problem.message, { [`trays.${entry.index}.${problem.field}`]: problem.hint });
-          await trx
-            .updateTable('test_trays')
-            .set({ ...figures, fresh: figures.fresh ?? null, dead: figures.dead ?? null, hard: figures.hard ?? null, set_aside_reason: null })
-            .where('id', '=', tray.id)
-            .execute();
+          await repo.updateTray(trx, tray.id, { ...figures, fresh: figures.fresh ?? null, dead: figures.dead ?? null, hard: figures.hard ?? null, set_aside_reason: null });
           inFigures += 1;
         }
         if (inFigures === 0) {
           throw unprocessable('Every tray is set aside, so the test has no result. Keep at least one counted tray, or delete the test if it failed.');
         }
-        await trx.updateTable('germination_tests').set({ status: 'finished', finished_on: body.date, updated_at: clock.now() }).where('id', '=', testId).execute();
+        await repo.updateTest(trx, testId, { status: 'finished', finished_on: body.date, updated_at: clock.now() });
         await storeResult(trx, testId);
       });
       return detail(bankId, testId);
@@ -349,7 +273,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
     async setTestAside(bankId: string, testId: string, reason: string | null) {
       await db.transaction().execute(async (trx) => {
         await loadTest(trx, bankId, testId, true);
-        await trx.updateTable('germination_tests').set({ set_aside_reason: reason, updated_at: clock.now() }).where('id', '=', testId).execute();
+        await repo.updateTest(trx, testId, { set_aside_reason: reason, updated_at: clock.now() });
       });
       return detail(bankId, testId);
     },
@@ -359,12 +283,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
       await db.transaction().execute(async (trx) => {
         const t = await loadTest(trx, bankId, testId, true);
         assertRunning(t);
-        const res = await trx
-          .updateTable('test_trays')
-          .set({ set_aside_reason: reason })
-          .where('id', '=', trayId)
-          .where('test_id', '=', testId)
-          .executeTakeFirst();
+        const res = await repo.setTrayAsideReason(trx, testId, trayId, reason);
         if (!res.numUpdatedRows) throw notFound('No such tray in this test.');
         await storeResult(trx, testId);
       });
@@ -375,7 +294,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
       await db.transaction().execute(async (trx) => {
         const t = await loadTest(trx, bankId, testId, true);
         if (t.status === 'running') throw conflict('This test is still running.', 'test_running');
-        await trx.updateTable('germination_tests').set({ status: 'running', finished_on: null, updated_at: clock.now() }).where('id', '=', testId).execute();
+        await repo.updateTest(trx, testId, { status: 'running', finished_on: null, updated_at: clock.now() });
       });
       return detail(bankId, testId);
     },
@@ -384,10 +303,10 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
     async remove(bankId: string, testId: string) {
       const cleanups = await db.transaction().execute(async (trx) => {
         await loadTest(trx, bankId, testId, true);
-        const trays = await trx.selectFrom('test_trays').select('id').where('test_id', '=', testId).execute();
+        const trayIds = await repo.trayIdsOf(trx, testId);
         const done = [];
-        for (const tray of trays) done.push(await removeSubjectPhotos(trx, bankId, 'tray', tray.id));
-        await trx.deleteFrom('germination_tests').where('id', '=', testId).execute();
+        for (const trayId of trayIds) done.push(await removeSubjectPhotos(trx, bankId, 'tray', trayId));
+        await repo.deleteTest(trx, testId);
         return done;
       });
       for (const cleanup of cleanups) await cleanup();

@@ -2,10 +2,10 @@
 // test's trays and counts, and stored on the test in the same transaction as every write that
 // changes them. Every reader — test page, lot page, ranking, viability model, overview, labels,
 // reminders, CSV export — reads the stored result; nothing re-aggregates counts by its own rules.
-import { sql } from 'kysely';
-import { daysBetween } from '../../../shared/plan-dates';
+import { daysBetween } from '../../../shared/dates';
 import type { DbOrTx } from '../../db/database';
 import { summarizeTest, type TestSummary } from '../../stats';
+import * as repo from './germination.repository';
 
 /**
  * The definition of the stored result. Raise it whenever summarizeTest or its inputs change
@@ -18,16 +18,9 @@ export const RESULT_VERSION = 2;
 async function computeResults(on: DbOrTx, testIds: string[]): Promise<Map<string, TestSummary>> {
   const out = new Map<string, TestSummary>();
   if (testIds.length === 0) return out;
-  const tests = await on.selectFrom('germination_tests').select(['id', 'start_date']).where('id', 'in', testIds).execute();
-  const trays = await on.selectFrom('test_trays').selectAll().where('test_id', 'in', testIds).orderBy('test_id').orderBy('position').execute();
-  const counts = trays.length
-    ? await on
-        .selectFrom('tray_counts')
-        .select(['tray_id', 'check_date', 'cumulative'])
-        .where('tray_id', 'in', trays.map((t) => t.id))
-        .orderBy('check_date')
-        .execute()
-    : [];
+  const tests = await repo.testStartDates(on, testIds);
+  const trays = await repo.traysOfTests(on, testIds);
+  const counts = trays.length ? await repo.countsOfTrays(on, trays.map((t) => t.id)) : [];
   const countsByTray = new Map<string, typeof counts>();
   for (const c of counts) countsByTray.set(c.tray_id, [...(countsByTray.get(c.tray_id) ?? []), c]);
   for (const test of tests) {
@@ -55,14 +48,7 @@ async function computeResults(on: DbOrTx, testIds: string[]): Promise<Map<string
 /** The last check date of the trays that enter the figures (set-aside trays are left out). */
 async function lastCountDates(on: DbOrTx, testIds: string[]): Promise<Map<string, string>> {
   if (testIds.length === 0) return new Map();
-  const rows = await on
-    .selectFrom('tray_counts')
-    .innerJoin('test_trays', 'test_trays.id', 'tray_counts.tray_id')
-    .select(['test_trays.test_id', sql<string>`max(tray_counts.check_date)`.as('last')])
-    .where('test_trays.test_id', 'in', testIds)
-    .where('test_trays.set_aside_reason', 'is', null)
-    .groupBy('test_trays.test_id')
-    .execute();
+  const rows = await repo.lastCountRows(on, testIds);
   return new Map(rows.map((r) => [r.test_id, r.last]));
 }
 
@@ -77,25 +63,7 @@ export async function storeResults(on: DbOrTx, testIds: string[]): Promise<Map<s
   if (results.size === 0) return results;
   // One statement for the batch: the start-up refresh may recompute thousands of tests.
   const rows = [...results].map(([testId, r]) => ({ testId, r }));
-  await sql`
-    update germination_tests g set
-      result = v.result::jsonb,
-      result_version = ${RESULT_VERSION},
-      result_sown = v.sown,
-      result_germinated = v.germinated,
-      result_percent = v.percent,
-      result_mean_days = v.mean_days,
-      result_last_count_date = v.last_count
-    from (
-      select unnest(${rows.map((x) => x.testId)}::uuid[]) as id,
-        unnest(${rows.map((x) => JSON.stringify(x.r))}::text[]) as result,
-        unnest(${rows.map((x) => x.r.sown)}::int[]) as sown,
-        unnest(${rows.map((x) => x.r.germinated)}::int[]) as germinated,
-        unnest(${rows.map((x) => x.r.percent)}::float8[]) as percent,
-        unnest(${rows.map((x) => x.r.meanDays)}::float8[]) as mean_days,
-        unnest(${rows.map((x) => last.get(x.testId) ?? null)}::date[]) as last_count
-    ) v
-    where g.id = v.id`.execute(on);
+  await repo.writeResults(on, rows, last, RESULT_VERSION);
   return results;
 }
 
@@ -114,13 +82,7 @@ export async function storeResult(on: DbOrTx, testId: string): Promise<TestSumma
 export async function refreshStaleResults(db: DbOrTx, batchSize = 500): Promise<number> {
   let done = 0;
   for (;;) {
-    const stale = await db
-      .selectFrom('germination_tests')
-      .select('id')
-      .where('result_version', '<', RESULT_VERSION)
-      .orderBy('id')
-      .limit(batchSize)
-      .execute();
+    const stale = await repo.staleTestIds(db, RESULT_VERSION, batchSize);
     if (stale.length === 0) return done;
     await storeResults(db, stale.map((s) => s.id));
     done += stale.length;

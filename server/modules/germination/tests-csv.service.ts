@@ -6,68 +6,52 @@
  * a lot's seeds on hand (logged or imported with the lot) already reflect the seeds those tests
  * used. Deleting an imported test later gives no seeds back for the same reason.
  */
-import { sql } from 'kysely';
 import { storedResultSchema, type TestsImportPreview } from '../../../shared/schemas/germination';
 import { bankToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
 import { invalidCsv } from '../../http/errors';
-import { testFields, testsWithLot, trayFields, traysAndCounts } from './germination.service';
+import * as repo from './germination.repository';
+import { testFields, trayFields } from './germination.service';
 import { RESULT_VERSION, storeResults } from './test-results';
 import { parseTestsCsv, testsToCsv, type ParsedTestCsvTest, type TestCsvTest } from './tests.csv';
 
 export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
   async function bankLots(bankId: string) {
-    const rows = await db
-      .selectFrom('lots')
-      .innerJoin('species', 'species.id', 'lots.species_id')
-      .select(['lots.id', 'lots.code', 'lots.variety', 'lots.harvest_date', 'species.common_name'])
-      .where('lots.bank_id', '=', bankId)
-      .execute();
+    const rows = await repo.lotsForImport(db, bankId);
     return new Map(rows.map((r) => [r.code.toLowerCase(), r]));
   }
 
   async function insertTest(trx: DbOrTx, bankId: string, userId: string, t: ParsedTestCsvTest, createdAt: Date) {
-    const test = await trx
-      .insertInto('germination_tests')
-      .values({
-        bank_id: bankId,
-        lot_id: t.lotId,
-        start_date: t.startDate,
-        method: t.method,
-        medium: t.medium,
-        temperature_c: t.temperatureC,
-        light_hours: t.lightHours,
-        pretreatment: t.pretreatment,
-        pretreatment_days: t.pretreatmentDays,
-        notes: t.notes,
-        status: t.finishedOn === null ? 'running' : 'finished',
-        finished_on: t.finishedOn,
-        created_by: userId,
-        created_at: createdAt,
-      })
-      .returning('id')
-      .executeTakeFirstOrThrow();
+    const test = await repo.insertTest(trx, {
+      bank_id: bankId,
+      lot_id: t.lotId,
+      start_date: t.startDate,
+      method: t.method,
+      medium: t.medium,
+      temperature_c: t.temperatureC,
+      light_hours: t.lightHours,
+      pretreatment: t.pretreatment,
+      pretreatment_days: t.pretreatmentDays,
+      notes: t.notes,
+      status: t.finishedOn === null ? 'running' : 'finished',
+      finished_on: t.finishedOn,
+      created_by: userId,
+      created_at: createdAt,
+    });
     for (const tray of t.trays) {
-      const row = await trx
-        .insertInto('test_trays')
-        .values({
-          test_id: test.id,
-          position: tray.position,
-          seeds_sown: tray.seedsSown,
-          abnormal: tray.abnormal,
-          ungerminated: tray.ungerminated,
-          fresh: tray.fresh,
-          dead: tray.dead,
-          hard: tray.hard,
-          set_aside_reason: tray.setAsideReason,
-        })
-        .returning('id')
-        .executeTakeFirstOrThrow();
+      const row = await repo.insertTray(trx, {
+        test_id: test.id,
+        position: tray.position,
+        seeds_sown: tray.seedsSown,
+        abnormal: tray.abnormal,
+        ungerminated: tray.ungerminated,
+        fresh: tray.fresh,
+        dead: tray.dead,
+        hard: tray.hard,
+        set_aside_reason: tray.setAsideReason,
+      });
       if (tray.counts.length > 0) {
-        await trx
-          .insertInto('tray_counts')
-          .values(tray.counts.map((c) => ({ tray_id: row.id, check_date: c.date, cumulative: c.cumulative, created_by: userId })))
-          .execute();
+        await repo.insertCounts(trx, tray.counts.map((c) => ({ tray_id: row.id, check_date: c.date, cumulative: c.cumulative, created_by: userId })));
       }
     }
     return test.id;
@@ -76,13 +60,8 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
   return {
     /** Every test of the bank, by lot code, start date and the order they were logged. */
     async exportCsv(bankId: string): Promise<string> {
-      const tests = await testsWithLot(db, bankId)
-        .orderBy(sql`lower(lots.code)`)
-        .orderBy('germination_tests.start_date')
-        .orderBy('germination_tests.created_at')
-        .orderBy('germination_tests.id')
-        .execute();
-      const { trays, counts } = await traysAndCounts(db, tests.map((t) => t.id));
+      const tests = await repo.testsWithLotByCode(db, bankId);
+      const { trays, counts } = await repo.traysAndCounts(db, tests.map((t) => t.id));
       // The stored result every screen shows; one stored under an older definition is brought up
       // to date first, as the test page does.
       const stale = tests.filter((t) => t.result_version !== RESULT_VERSION || t.result === null).map((t) => t.id);
