@@ -5,7 +5,7 @@ import { createApp } from './app';
 import { systemClock } from './clock';
 import { ConfigError, loadConfig } from './config';
 import { createDb } from './db/database';
-import { createReminders } from './jobs/reminders';
+import { createReminders } from './modules/reminders/reminders.service';
 import { createMailer } from './mail/mailer';
 import { createViabilityService } from './modules/viability/viability.service';
 import { createObjectStore } from './storage/object-store';

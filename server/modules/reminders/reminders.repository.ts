@@ -1,0 +1,136 @@
+import { sql, type Insertable } from 'kysely';
+import type { DbOrTx } from '../../db/database';
+import type { ReminderKind, ReminderTable } from '../../db/schema';
+
+type PrefColumn = 'remind_sowing' | 'remind_checks' | 'remind_retest' | 'remind_digest';
+const PREF_OF: Record<ReminderKind, PrefColumn> = {
+  sowing: 'remind_sowing',
+  check: 'remind_checks',
+  retest: 'remind_retest',
+  digest: 'remind_digest',
+};
+
+/** A member's role and reminder choices in the bank. */
+export const memberChoices = (db: DbOrTx, bankId: string, userId: string) =>
+  db
+    .selectFrom('memberships')
+    .select(['role', 'remind_sowing', 'remind_checks', 'remind_retest', 'remind_digest'])
+    .where('bank_id', '=', bankId)
+    .where('user_id', '=', userId)
+    .executeTakeFirstOrThrow();
+
+export const setMemberChoices = (
+  db: DbOrTx,
+  bankId: string,
+  userId: string,
+  choices: Partial<Record<PrefColumn, boolean | null>>,
+) =>
+  db
+    .updateTable('memberships')
+    .set(choices)
+    .where('bank_id', '=', bankId)
+    .where('user_id', '=', userId)
+    .execute();
+
+/** The bank's members with their choice for this kind of reminder. */
+export const membersWithChoice = (db: DbOrTx, bankId: string, kind: ReminderKind) =>
+  db
+    .selectFrom('memberships')
+    .innerJoin('users', 'users.id', 'memberships.user_id')
+    .select([
+      'users.id',
+      'users.email',
+      'users.name',
+      'memberships.role',
+      `memberships.${PREF_OF[kind]} as choice`,
+    ])
+    .where('memberships.bank_id', '=', bankId)
+    .execute();
+
+/** Unsown plan entries whose sowing window opened between `earliest` and `today`. */
+export const sowingsOpened = (db: DbOrTx, bankId: string, earliest: string, today: string) =>
+  db
+    .selectFrom('plan_entries')
+    .innerJoin('species', 'species.id', 'plan_entries.species_id')
+    .leftJoin('lots', 'lots.id', 'plan_entries.lot_id')
+    .select([
+      'plan_entries.id',
+      'plan_entries.sow_from',
+      'plan_entries.sow_to',
+      'plan_entries.seeds_to_sow',
+      'plan_entries.plants_wanted',
+      'plan_entries.start',
+      'species.common_name',
+      'lots.code',
+    ])
+    .where('plan_entries.bank_id', '=', bankId)
+    .where('plan_entries.sown_on', 'is', null)
+    .where('plan_entries.sow_from', '<=', today)
+    .where('plan_entries.sow_from', '>=', earliest)
+    .execute();
+
+export const runningTests = (db: DbOrTx, bankId: string) =>
+  db
+    .selectFrom('germination_tests')
+    .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
+    .select(['germination_tests.id', 'germination_tests.start_date', 'lots.code', 'lots.species_id'])
+    .where('germination_tests.bank_id', '=', bankId)
+    .where('germination_tests.status', '=', 'running')
+    .execute();
+
+/** The trays of these tests still counted (not set aside), in order. */
+export const traysToCount = (db: DbOrTx, testIds: string[]) =>
+  db
+    .selectFrom('test_trays')
+    .select(['test_id', 'position', 'seeds_sown'])
+    .where('test_id', 'in', testIds)
+    .where('set_aside_reason', 'is', null)
+    .orderBy('position')
+    .execute();
+
+/** Unsown plan entries whose sowing window opens between `from` and `to`. */
+export const sowingsOpening = (db: DbOrTx, bankId: string, from: string, to: string) =>
+  db
+    .selectFrom('plan_entries')
+    .innerJoin('species', 'species.id', 'plan_entries.species_id')
+    .select(['species.common_name', 'plan_entries.sow_from'])
+    .where('plan_entries.bank_id', '=', bankId)
+    .where('plan_entries.sown_on', 'is', null)
+    .where('plan_entries.sow_from', '>=', from)
+    .where('plan_entries.sow_from', '<=', to)
+    .execute();
+
+export const allBanks = (db: DbOrTx) => db.selectFrom('banks').select(['id', 'name', 'time_zone']).execute();
+
+/** The new reminder's id, or undefined when one with the same key exists. */
+export const insertReminder = (db: DbOrTx, values: Insertable<ReminderTable>) =>
+  db
+    .insertInto('reminders')
+    .values(values)
+    .onConflict((oc) => oc.column('dedupe_key').doNothing())
+    .returning('id')
+    .executeTakeFirst();
+
+/** Claims an unsent reminder not being sent (or whose send began before `staleBefore`). */
+export const claimReminder = (db: DbOrTx, reminderId: string, now: Date, staleBefore: Date) =>
+  db
+    .updateTable('reminders')
+    .set({ sending_since: now, attempts: sql`attempts + 1` })
+    .where('id', '=', reminderId)
+    .where('sent_at', 'is', null)
+    .where((eb) => eb.or([eb('sending_since', 'is', null), eb('sending_since', '<', staleBefore)]))
+    .returning(['subject', 'body', 'user_id'])
+    .executeTakeFirst();
+
+export const userEmail = (db: DbOrTx, userId: string) =>
+  db.selectFrom('users').select('email').where('id', '=', userId).executeTakeFirstOrThrow();
+
+export const releaseReminder = (db: DbOrTx, reminderId: string) =>
+  db.updateTable('reminders').set({ sending_since: null }).where('id', '=', reminderId).execute();
+
+export const markReminderSent = (db: DbOrTx, reminderId: string, now: Date) =>
+  db
+    .updateTable('reminders')
+    .set({ sent_at: now, sending_since: null })
+    .where('id', '=', reminderId)
+    .execute();

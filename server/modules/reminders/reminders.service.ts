@@ -1,0 +1,260 @@
+import type { z } from 'zod';
+import type { reminderPrefsBodySchema } from '../../../shared/schemas/reminders';
+import { addDays, daysBetween } from '../../../shared/dates';
+import { localNow } from '../../../shared/local-time';
+import type { Clock } from '../../clock';
+import type { Db, DbOrTx } from '../../db/database';
+import { createReminderQueue, type ReminderQueueOptions } from '../../jobs/reminders';
+import type { ReminderKind, Role } from '../../db/schema';
+import type { Mailer } from '../../mail/mailer';
+import { listSpecies } from '../species/species.service';
+import type { ViabilityService } from '../viability/viability.service';
+import * as repo from './reminders.repository';
+
+/** Reminders go out from this local hour: "the morning" a sowing window opens. */
+export const MORNING_HOUR = 7;
+/** A reminder missed while the server was down is still sent for this many days. */
+const CATCH_UP_DAYS = 2;
+/** A send that has not finished within this time is taken to have died, and may be retried. */
+const SENDING_TIMEOUT_MS = 10 * 60 * 1000;
+
+/** A member's choice, or the role's default: on for owner and grower, off for viewer. */
+export const wantsReminder = (role: Role, choice: boolean | null) => choice ?? role !== 'viewer';
+
+/** The days a running test is counted on: the first and final count days, and one between (common practice). */
+export function checkDays(first: number | null, final: number | null): number[] {
+  if (first == null || final == null) return first != null ? [first] : [];
+  return [...new Set([first, Math.round((first + final) / 2), final])];
+}
+
+/** The member's reminder choices in the bank, defaults filled in. */
+export async function reminderPreferences(db: DbOrTx, bankId: string, userId: string) {
+  const m = await repo.memberChoices(db, bankId, userId);
+  return {
+    sowing: wantsReminder(m.role, m.remind_sowing),
+    checks: wantsReminder(m.role, m.remind_checks),
+    retest: wantsReminder(m.role, m.remind_retest),
+    digest: wantsReminder(m.role, m.remind_digest),
+  };
+}
+
+/** Stores the choices given and returns them all. */
+export async function setReminderPreferences(
+  db: DbOrTx,
+  bankId: string,
+  userId: string,
+  body: z.infer<typeof reminderPrefsBodySchema>,
+) {
+  await repo.setMemberChoices(db, bankId, userId, {
+    ...(body.sowing !== undefined ? { remind_sowing: body.sowing } : {}),
+    ...(body.checks !== undefined ? { remind_checks: body.checks } : {}),
+    ...(body.retest !== undefined ? { remind_retest: body.retest } : {}),
+    ...(body.digest !== undefined ? { remind_digest: body.digest } : {}),
+  });
+  return reminderPreferences(db, bankId, userId);
+}
+
+interface Due {
+  key: string;
+  bankId: string;
+  kind: ReminderKind;
+  dueOn: string;
+  subject: string;
+  body: string;
+}
+
+export interface RemindersServiceDeps {
+  db: Db;
+  mailer: Mailer;
+  clock: Clock;
+  appOrigin: string;
+  viability: ViabilityService;
+}
+
+/**
+ * What is due on each bank's calendar, turned into reminder rows unique by what they are about,
+ * and the sending of one row at most once. The queue that carries the rows is the caller's.
+ */
+export function createRemindersService(deps: RemindersServiceDeps) {
+  const { db, clock, mailer } = deps;
+
+  async function members(bankId: string, kind: ReminderKind) {
+    const rows = await repo.membersWithChoice(db, bankId, kind);
+    return rows.filter((r) => wantsReminder(r.role, r.choice as boolean | null));
+  }
+
+  async function dueForBank(
+    bank: { id: string; name: string; time_zone: string },
+    today: string,
+    weekday: number,
+  ): Promise<Due[]> {
+    const due: Due[] = [];
+    const link = (path: string) => `${deps.appOrigin}/banks/${bank.id}${path}`;
+    const earliest = addDays(today, -CATCH_UP_DAYS);
+
+    const sowings = await repo.sowingsOpened(db, bank.id, earliest, today);
+    for (const e of sowings) {
+      const what = `${e.common_name}${e.code ? ` (${e.code})` : ''}`;
+      due.push({
+        key: `sowing:${e.id}`,
+        bankId: bank.id,
+        kind: 'sowing',
+        dueOn: e.sow_from,
+        subject: `Sowing time: ${what}`,
+        body: [
+          `The sowing window for ${what} opened on ${e.sow_from} and runs until ${e.sow_to}${e.start === 'indoors' ? ', indoors' : ', sown direct'}.`,
+          e.seeds_to_sow
+            ? `Sow ${e.seeds_to_sow} seeds for ${e.plants_wanted} plants.`
+            : `${e.plants_wanted} plants wanted.`,
+          '',
+          `The plan: ${link('/planner')}`,
+        ].join('\n'),
+      });
+    }
+
+    const species = new Map((await listSpecies(db, bank.id)).map((s) => [s.id, s]));
+    const running = await repo.runningTests(db, bank.id);
+    const trays = running.length
+      ? await repo.traysToCount(
+          db,
+          running.map((t) => t.id),
+        )
+      : [];
+    for (const t of running) {
+      const sp = species.get(t.species_id);
+      for (const day of checkDays(sp?.traits.firstCountDay ?? null, sp?.traits.finalCountDay ?? null)) {
+        const on = addDays(t.start_date, day);
+        if (on > today || on < earliest) continue;
+        const own = trays.filter((tr) => tr.test_id === t.id);
+        due.push({
+          key: `check:${t.id}:${on}`,
+          bankId: bank.id,
+          kind: 'check',
+          dueOn: on,
+          subject: `Count the trays of ${sp?.commonName ?? 'a'} test ${t.code} (day ${day})`,
+          body: [
+            `Day ${day} of the germination test of lot ${t.code}, started ${t.start_date}: count the normal seedlings (sound root and shoot) in ${own
+              .map((tr) => `tray ${tr.position} (${tr.seeds_sown} sown)`)
+              .join(', ')}.`,
+            '',
+            `Enter the counts: ${link(`/tests/${t.id}`)}`,
+          ].join('\n'),
+        });
+      }
+    }
+
+    const ranking = await deps.viability.ranking(bank.id, today);
+    for (const r of ranking) {
+      if (!r.retestBy || r.retestBy > today || r.retestBy < earliest) continue;
+      due.push({
+        key: `retest:${r.lotId}:${r.retestBy}`,
+        bankId: bank.id,
+        kind: 'retest',
+        dueOn: r.retestBy,
+        subject: `Time to retest ${r.species} ${r.code}`,
+        body: [
+          `Lot ${r.code} (${r.species}, ${r.variety}) is due for a germination test (${r.reason})`,
+          '',
+          `The lot: ${link(`/lots/${r.lotId}`)}`,
+        ].join('\n'),
+      });
+    }
+
+    if (weekday === 1) {
+      const weekEnd = addDays(today, 6);
+      const lines = [
+        ...(await repo.sowingsOpening(db, bank.id, today, weekEnd)).map(
+          (e) => `- Sow ${e.common_name} from ${e.sow_from}`,
+        ),
+        ...running.flatMap((t) => {
+          const sp = species.get(t.species_id);
+          return checkDays(sp?.traits.firstCountDay ?? null, sp?.traits.finalCountDay ?? null)
+            .map((d) => addDays(t.start_date, d))
+            .filter((on) => on >= today && on <= weekEnd)
+            .map((on) => `- Count test ${t.code} on ${on}`);
+        }),
+        ...ranking
+          .filter((r) => r.retestBy && r.retestBy <= weekEnd && daysBetween(r.retestBy, today) < 30)
+          .map((r) => `- Retest ${r.code} (${r.species})`),
+      ];
+      if (lines.length) {
+        due.push({
+          key: `digest:${bank.id}:${today}`,
+          bankId: bank.id,
+          kind: 'digest',
+          dueOn: today,
+          subject: `This week in ${bank.name}`,
+          body: [
+            `What is due in ${bank.name} from ${today} to ${weekEnd}:`,
+            '',
+            ...lines,
+            '',
+            `Overview: ${link('/overview')}`,
+          ].join('\n'),
+        });
+      }
+    }
+    return due;
+  }
+
+  return {
+    /**
+     * Finds what is due now and writes a reminder row for each member who wants it; `enqueue`
+     * runs in the row's transaction, so the row and its job commit together. Returns how many
+     * reminders were newly queued.
+     */
+    async queueDue(enqueue: (trx: DbOrTx, reminderId: string) => Promise<void>): Promise<number> {
+      const banks = await repo.allBanks(db);
+      let queued = 0;
+      for (const bank of banks) {
+        const now = localNow(clock.now(), bank.time_zone);
+        if (now.hour < MORNING_HOUR) continue;
+        for (const item of await dueForBank(bank, now.date, now.weekday)) {
+          for (const member of await members(bank.id, item.kind)) {
+            queued += await db.transaction().execute(async (trx) => {
+              const row = await repo.insertReminder(trx, {
+                dedupe_key: `${item.key}:${member.id}`,
+                bank_id: item.bankId,
+                user_id: member.id,
+                kind: item.kind,
+                due_on: item.dueOn,
+                subject: item.subject,
+                body: `Hello ${member.name},\n\n${item.body}\n\nYou get this because reminders of this kind are on for you in ${bank.name}; change that under Account → Reminders.`,
+              });
+              if (!row) return 0;
+              await enqueue(trx, row.id);
+              return 1;
+            });
+          }
+        }
+      }
+      return queued;
+    },
+
+    /** Sends one reminder at most once: claim, send, mark sent; a failure releases the claim. */
+    async deliver(reminderId: string) {
+      const claimed = await repo.claimReminder(
+        db,
+        reminderId,
+        new Date(),
+        new Date(Date.now() - SENDING_TIMEOUT_MS),
+      );
+      if (!claimed) return;
+      const user = await repo.userEmail(db, claimed.user_id);
+      try {
+        await mailer.send({ to: user.email, subject: claimed.subject, text: claimed.body });
+      } catch (error) {
+        await repo.releaseReminder(db, reminderId);
+        throw error;
+      }
+      await repo.markReminderSent(db, reminderId, new Date());
+    },
+  };
+}
+
+export type RemindersService = ReturnType<typeof createRemindersService>;
+
+/** The reminders service on its durable queue: what the server starts and the tests drive. */
+export function createReminders(deps: RemindersServiceDeps & ReminderQueueOptions) {
+  return createReminderQueue(createRemindersService(deps), deps);
+}
