@@ -1,10 +1,9 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect } from 'vitest';
+import { beforeAll, describe, expect } from 'vitest';
 import type { RankingItem, RecommendationValue, SeedsToSowResponse, ViabilityResponse } from '../../shared/schemas/viability';
-import { seedDemoScenario } from '../../server/db/demo-scenario';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
+import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests, seriousViolations } from '../helpers/journey';
 import { finishedTest, speciesId } from '../helpers/lots';
 
@@ -32,25 +31,20 @@ const LABELS: Record<RecommendationValue, string> = {
 const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
 
 describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: Browser & { cleanup(): void };
-  let bankId: string;
+  const suite = browserSuite({ now: NOW, demo: 'season' });
   let api: ReturnType<typeof request.agent>;
   let ranking: RankingItem[];
   const pick: Partial<Record<'sow' | 'retire' | 'guess', RankingItem>> = {};
   let heldBackLot: string;
 
   beforeAll(async () => {
-    server = await startTestServer({ now: NOW });
-    const seeded = await seedDemoScenario({ db: server.db, storage: server.storage, mailer: server.mailer, clock: server.clock, appOrigin: server.baseUrl });
-    bankId = seeded!.bankId;
-    api = request.agent(server.app);
+    api = request.agent(suite.server.app);
     expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
     // One lot more, of a species the demo season does not hold (so no demo lot's fit moves): fresh
     // from harvest it came up 30 of 100, a year later 95 of 100 — the earlier test was held back
     // (dormancy, or conditions), the case the issue names (invented figures).
-    const lot = await api.post(`/api/banks/${bankId}/lots`).send({
-      speciesId: await speciesId(server.db, 'squash'),
+    const lot = await api.post(`/api/banks/${suite.bankId}/lots`).send({
+      speciesId: await speciesId(suite.server.db, 'squash'),
       variety: 'Late Riser',
       origin: 'saved',
       harvestDate: '2024-09-01',
@@ -59,19 +53,19 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
     });
     expect(lot.status).toBe(201);
     heldBackLot = lot.body.lot.id as string;
-    await finishedTest(api, bankId, heldBackLot, '2024-10-01', [{ sown: 100, germinated: 30 }]);
-    await finishedTest(api, bankId, heldBackLot, '2025-10-01', [{ sown: 100, germinated: 95 }]);
-    const res = await api.get(`/api/banks/${bankId}/ranking?on=${ON}`);
+    await finishedTest(api, suite.bankId, heldBackLot, '2024-10-01', [{ sown: 100, germinated: 30 }]);
+    await finishedTest(api, suite.bankId, heldBackLot, '2025-10-01', [{ sown: 100, germinated: 95 }]);
+    const res = await api.get(`/api/banks/${suite.bankId}/ranking?on=${ON}`);
     expect(res.status).toBe(200);
     ranking = res.body.items as RankingItem[];
     // Lots to open: a tested lot to sow with seed on hand and two tests or more (one is set aside
     // below), a lot to retire for its low germination (not for an empty ledger), and a lot never tested.
     const testCounts = new Map(
       (
-        await server.db
+        await suite.server.db
           .selectFrom('germination_tests')
-          .select(['lot_id', server.db.fn.countAll<string>().as('n')])
-          .where('bank_id', '=', bankId)
+          .select(['lot_id', suite.server.db.fn.countAll<string>().as('n')])
+          .where('bank_id', '=', suite.bankId)
           .where('status', '=', 'finished')
           .groupBy('lot_id')
           .execute()
@@ -81,31 +75,25 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
     pick.retire = ranking.find((i) => i.recommendation === 'retire' && i.seedsOnHand > 0 && i.projectedHigh !== null);
     pick.guess = ranking.find((i) => i.recommendation === 'test-first' && i.lastTestDate === null);
     expect(pick.sow && pick.retire && pick.guess).toBeTruthy();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    browser?.cleanup();
-    await server?.stop();
   });
 
   const viability = async (lotId: string) => {
-    const res = await api.get(`/api/banks/${bankId}/lots/${lotId}/viability?on=${ON}`);
+    const res = await api.get(`/api/banks/${suite.bankId}/lots/${lotId}/viability?on=${ON}`);
     expect(res.status).toBe(200);
     return res.body as ViabilityResponse;
   };
   const rowCodes = (page: Page) => page.locator('tbody tr[data-lot]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-lot')));
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
   const newContext = (viewport: { width: number; height: number }, phone = false) => async () => {
-    const context = await browser.newContext({ viewport, ...(phone ? { hasTouch: true, isMobile: true } : {}) });
+    const context = await suite.browser.newContext({ viewport, ...(phone ? { hasTouch: true, isMobile: true } : {}) });
     await context.clock.setFixedTime(new Date(NOW));
     return context;
   };
-  const signIn = (page: Page) => signInAt(page, server.baseUrl, grower.email, bankId);
+  const signIn = (page: Page) => signInAt(page, suite.server.baseUrl, grower.email, suite.bankId);
 
   /** The lot page's advice, band, seeds to sow and storage advice, read against the server's answers. */
   async function checkLotPage(page: Page, item: RankingItem, width: number) {
-    await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${item.lotId}`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${item.lotId}`);
     const v = await viability(item.lotId);
     // The lot page and the ranking give one decision with one reason.
     expect(v.recommendation).toBe(item.recommendation);
@@ -143,7 +131,7 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
   /** Seeds to sow on the page equal the server's count for 12 plants at the bank's assurance (90%). */
   async function checkSeedsToSow(page: Page, item: RankingItem) {
     await expect.poll(() => page.getByTestId('seeds-to-sow').innerText()).toMatch(/^sow \d+ seeds$/);
-    const res = await api.get(`/api/banks/${bankId}/lots/${item.lotId}/seeds-to-sow?plants=12&assurance=0.9&on=${ON}`);
+    const res = await api.get(`/api/banks/${suite.bankId}/lots/${item.lotId}/seeds-to-sow?plants=12&assurance=0.9&on=${ON}`);
     expect(res.status).toBe(200);
     const s = res.body as SeedsToSowResponse;
     expect(Number((await page.getByTestId('seeds-to-sow').innerText()).replace(/\D/g, ''))).toBe(s.seeds);
@@ -157,7 +145,7 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
     j.step('the ranking shows all six decisions', async (page) => {
       // The demo season holds every decision (the server's own ranking says so)…
       expect(new Set(ranking.map((i) => i.recommendation))).toEqual(new Set(Object.keys(LABELS)));
-      await page.goto(`${server.baseUrl}/banks/${bankId}/lots`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots`);
       // …and the table shows each: filtered to one piece of advice, the rows are that advice's lots.
       for (const value of Object.keys(LABELS) as RecommendationValue[]) {
         const codes = ranking.filter((i) => i.recommendation === value).map((i) => i.code);
@@ -205,13 +193,13 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
       expect(await page.getByTestId('seeds-to-sow').count()).toBe(0);
       expect(await page.getByRole('button', { name: /Add to the/ }).count()).toBe(0);
       // The server agrees: a lot to retire has no seeds to sow (422).
-      expect((await api.get(`/api/banks/${bankId}/lots/${item.lotId}/seeds-to-sow?plants=12&on=${ON}`)).status).toBe(422);
+      expect((await api.get(`/api/banks/${suite.bankId}/lots/${item.lotId}/seeds-to-sow?plants=12&on=${ON}`)).status).toBe(422);
     });
 
     j.step('a lot whose first test was held back: marked apart on the chart, with its key', async (page) => {
       const v = await viability(heldBackLot);
       expect(v.points.map((p) => p.heldBack)).toEqual([true, false]);
-      await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${heldBackLot}`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${heldBackLot}`);
       await expect.poll(() => page.getByRole('list', { name: 'Key to the chart' }).innerText()).toContain('Held back');
       const tests = page.getByRole('list', { name: 'Tests in the chart' });
       expect(await tests.locator('li[data-held-back]').innerText()).toContain('30% (30 of 100');
@@ -226,7 +214,7 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
       const item = pick.sow!;
       const before = await viability(item.lotId);
       const testId = before.points.at(-1)!.testId;
-      await page.goto(`${server.baseUrl}/banks/${bankId}/tests/${testId}`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
       await page.getByRole('button', { name: 'Set the whole test aside…' }).click();
       const dialog = page.getByRole('dialog', { name: 'Set the whole test aside' });
       // An empty reason is refused in words, before anything is sent.
@@ -243,7 +231,7 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
 
     j.step('the lot page shows the test set aside, apart from the decline', async (page) => {
       const item = pick.sow!;
-      await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${item.lotId}`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${item.lotId}`);
       await expect.poll(() => page.getByRole('list', { name: 'Tests set aside' }).innerText()).toContain('Mouldy towel');
       await expect.poll(() => page.getByRole('list', { name: 'Key to the chart' }).innerText()).toContain('Set aside: left out of the decline');
       // The set-aside test is drawn as its own mark (a cross) beside the tests in the model.
@@ -254,7 +242,7 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
     j.step('take the test back', async (page) => {
       const item = pick.sow!;
       const testId = (await viability(item.lotId)).setAside[0]!.testId;
-      await page.goto(`${server.baseUrl}/banks/${bankId}/tests/${testId}`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
       await page.getByRole('button', { name: 'Take it back into the decline' }).click();
       await expect.poll(() => page.getByText('Taken back').count()).toBe(1);
       expect(await page.getByTestId('test-set-aside').count()).toBe(0);
@@ -270,7 +258,7 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
 
     j.step('the ranking cards show all six decisions', async (page) => {
       for (const value of Object.keys(LABELS) as RecommendationValue[]) {
-        await page.goto(`${server.baseUrl}/banks/${bankId}/lots?rec=${value}`);
+        await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots?rec=${value}`);
         const cards = page.getByRole('list', { name: /Lots ranked/ }).locator('li[data-lot]');
         await expect.poll(() => cards.count()).toBeGreaterThan(0);
         const codes = ranking.filter((i) => i.recommendation === value).map((i) => i.code);

@@ -1,10 +1,10 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect } from 'vitest';
+import { beforeAll, describe, expect } from 'vitest';
 import type { TestDetail } from '../../shared/schemas/germination';
 import type { RankingItem } from '../../shared/schemas/viability';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/db/seed-demo';
+import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
 import { speciesId, startedTest } from '../helpers/lots';
 
@@ -21,23 +21,17 @@ const PHONE = { width: 390, height: 844 };
 const DESKTOP = { width: 1280, height: 900 };
 
 describe.skipIf(!chromiumPath)('trays not counted yet and trays set aside, on the test page and the Lots screen', () => {
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: Browser & { cleanup(): void };
+  const suite = browserSuite({ now: NOW, demo: 'people' });
   let api: ReturnType<typeof request.agent>;
-  let bankId: string;
   let testId: string;
   let trayIds: string[];
 
   beforeAll(async () => {
-    server = await startTestServer({ now: NOW });
-    await seedDemo(server.db);
-    bankId = (await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()).id;
-
     // A saved tomato lot like the demo's, and a test of four trays of 50 seeds, through the API.
-    api = request.agent(server.app);
+    api = request.agent(suite.server.app);
     expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
-    const lot = await api.post(`/api/banks/${bankId}/lots`).send({
-      speciesId: await speciesId(server.db, 'tomato'),
+    const lot = await api.post(`/api/banks/${suite.bankId}/lots`).send({
+      speciesId: await speciesId(suite.server.db, 'tomato'),
       variety: 'Four Tray Red',
       origin: 'saved',
       harvestDate: '2025-09-10',
@@ -45,33 +39,27 @@ describe.skipIf(!chromiumPath)('trays not counted yet and trays set aside, on th
       code: CODE,
     });
     expect(lot.status).toBe(201);
-    ({ testId, trayIds } = await startedTest(api, bankId, lot.body.lot.id, '2026-03-05', [50, 50, 50, 50]));
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    browser?.cleanup();
-    await server?.stop();
+    ({ testId, trayIds } = await startedTest(api, suite.bankId, lot.body.lot.id, '2026-03-05', [50, 50, 50, 50]));
   });
 
-  const testUrl = () => `${server.baseUrl}/banks/${bankId}/tests/${testId}`;
-  const lotsUrl = () => `${server.baseUrl}/banks/${bankId}/lots?q=${CODE}`;
+  const testUrl = () => `${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`;
+  const lotsUrl = () => `${suite.server.baseUrl}/banks/${suite.bankId}/lots?q=${CODE}`;
   const percentText = (page: Page) => page.locator('[data-result="percent"]').innerText();
   const trayField = (page: Page, n: number) => page.getByRole('textbox', { name: `Tray ${n} · 50 sown` });
   const resultTray = (page: Page, n: number) => page.getByTestId('result-panel').locator(`li[data-tray="${n}"]`);
   const card = (page: Page) => page.getByRole('list', { name: /Lots ranked/ }).locator(`li[data-lot="${CODE}"]`);
-  const apiResult = async () => ((await api.get(`/api/banks/${bankId}/tests/${testId}`)).body as TestDetail).result;
+  const apiResult = async () => ((await api.get(`/api/banks/${suite.bankId}/tests/${testId}`)).body as TestDetail).result;
   const apiRanking = async () =>
-    ((await api.get(`/api/banks/${bankId}/ranking`)).body.items as RankingItem[]).find((i) => i.code === CODE)!;
+    ((await api.get(`/api/banks/${suite.bankId}/ranking`)).body.items as RankingItem[]).find((i) => i.code === CODE)!;
 
   const context = (viewport: typeof PHONE, at: string) => async () => {
     const phone = viewport === PHONE;
-    const made = await browser.newContext({ viewport, ...(phone ? { hasTouch: true, isMobile: true } : {}) });
+    const made = await suite.browser.newContext({ viewport, ...(phone ? { hasTouch: true, isMobile: true } : {}) });
     // The page's "today" is the server's day, so the check date and finish date default to it.
     await made.clock.setFixedTime(new Date(at));
     return made;
   };
-  const signIn = { title: 'sign in as a grower', run: (page: Page) => signInAt(page, server.baseUrl, grower.email, bankId) };
+  const signIn = { title: 'sign in as a grower', run: (page: Page) => signInAt(page, suite.server.baseUrl, grower.email, suite.bankId) };
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
 
   // Steps that build on each other, one test each on a page shared by their block (journeyOfTests).
@@ -149,7 +137,7 @@ describe.skipIf(!chromiumPath)('trays not counted yet and trays set aside, on th
       await expect.poll(() => resultTray(page, 3).innerText()).toContain('Set aside: Spilled when watering — left out of the figures');
       expect(await resultTray(page, 4).innerText()).toContain('Not counted yet — left out of the figures');
       expect(await percentText(page)).toBe('85%');
-      const row = await server.db.selectFrom('test_trays').select('set_aside_reason').where('id', '=', trayIds[2]!).executeTakeFirstOrThrow();
+      const row = await suite.server.db.selectFrom('test_trays').select('set_aside_reason').where('id', '=', trayIds[2]!).executeTakeFirstOrThrow();
       expect(row.set_aside_reason).toBe('Spilled when watering');
     });
 
@@ -177,7 +165,7 @@ describe.skipIf(!chromiumPath)('trays not counted yet and trays set aside, on th
   });
 
   describe('when the grower counts the last day and finishes with one tray set aside, then the test speaks in final words and the Lots screen gives the same figure', () => {
-    beforeAll(() => server.clock.set(LATER));
+    beforeAll(() => suite.server.clock.set(LATER));
     const j = journeyOfTests('trays-3-finish-phone', context(PHONE, LATER), { first: signIn });
 
     j.step('count the last day, tray 4 as well', async (page) => {

@@ -1,9 +1,9 @@
 import jStat from 'jstat';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/db/seed-demo';
+import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
 
 // The people and the bank are the invented demo scenario of server/db/seed-demo.ts; the lot below is
@@ -28,25 +28,18 @@ function wilsonPercent(x: number, n: number): { low: number; high: number } {
 }
 
 describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: Browser & { cleanup(): void };
-  let bankId: string;
+  const suite = browserSuite({ now: '2026-03-10T09:00:00Z', demo: 'people' });
   let testId: string;
   let trayIds: string[];
 
   beforeAll(async () => {
-    server = await startTestServer({ now: '2026-03-10T09:00:00Z' });
-    await seedDemo(server.db);
-    const bank = await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow();
-    bankId = bank.id;
-
     // The lot and a 4-tray test, through the API as the grower.
-    const api = request.agent(server.app);
+    const api = request.agent(suite.server.app);
     expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
-    const species = await api.get(`/api/banks/${bankId}/species`);
+    const species = await api.get(`/api/banks/${suite.bankId}/species`);
     const tomato = (species.body.items as { id: string; commonName: string }[]).find((s) => /^tomato$/i.test(s.commonName));
     expect(tomato).toBeDefined();
-    const lot = await api.post(`/api/banks/${bankId}/lots`).send({
+    const lot = await api.post(`/api/banks/${suite.bankId}/lots`).send({
       speciesId: tomato!.id,
       variety: 'Bench Test Red',
       origin: 'saved',
@@ -54,7 +47,7 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
       seedCount: 300,
     });
     expect(lot.status).toBe(201);
-    const test = await api.post(`/api/banks/${bankId}/lots/${lot.body.lot.id}/tests`).send({
+    const test = await api.post(`/api/banks/${suite.bankId}/lots/${lot.body.lot.id}/tests`).send({
       startDate: '2026-03-05',
       method: 'paper towel',
       temperatureC: 24,
@@ -63,16 +56,9 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
     expect(test.status).toBe(201);
     testId = test.body.test.id;
     trayIds = (test.body.trays as { id: string }[]).map((t) => t.id);
-
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    browser?.cleanup();
-    await server?.stop();
   });
 
-  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
+  const signIn = (page: Page, email: string) => signInAt(page, suite.server.baseUrl, email, suite.bankId);
 
   const percentText = (page: Page) => page.locator('[data-result="percent"]').innerText();
   const curvePaths = (page: Page) => page.locator('[data-chart="germination-curve"] path.recharts-line-curve').count();
@@ -89,14 +75,14 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
   // One test per step on a page shared by the block: the whole journey in one test ran near the 60 s
   // timeout on a busy machine.
   describe('when a grower enters two check days on a phone, then the result panel and the curve follow the counts', () => {
-    const j = journeyOfTests('germination-phone', () => browser.newContext({ viewport: PHONE, hasTouch: true }), {
+    const j = journeyOfTests('germination-phone', () => suite.browser.newContext({ viewport: PHONE, hasTouch: true }), {
       first: { title: 'sign in as a grower', run: (page) => signIn(page, grower.email) },
     });
     // The pooled curve after the first check day, for the second to change.
     let firstCurve: string | null = null;
 
     j.step('the first check day', async (page) => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/tests/${testId}`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
       await trayField(page, 4).waitFor();
       expect(await percentText(page)).toBe('–');
       // Day 5 of a test started 03-05; tomato's first/final count days are 5/14 (REFERENCES.md, from
@@ -123,7 +109,7 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
 
     j.step('counts below earlier ones refused by their trays', async (page) => {
       // Second check day, four days later. Counts below earlier ones are refused, each next to its own tray.
-      await server.clock.set('2026-03-14T09:00:00Z');
+      await suite.server.clock.set('2026-03-14T09:00:00Z');
       await enterCounts(page, '2026-03-14', 'Sat 14 Mar', [20, 10, 8, 21]);
       await page.getByRole('button', { name: /^Save counts for/ }).tap();
       const tray2 = page.locator('li[data-tray="2"]');
@@ -146,7 +132,7 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
 
     j.step('and a dropped connection', async (page) => {
       // The request fails as it does with the network gone.
-      const countsUrl = `**/api/banks/${bankId}/tests/${testId}/counts`;
+      const countsUrl = `**/api/banks/${suite.bankId}/tests/${testId}/counts`;
       await page.route(countsUrl, (route) => route.abort('internetdisconnected'));
       await page.getByRole('button', { name: /^Save counts for/ }).tap();
       await expect
@@ -176,7 +162,7 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
       await expect.poll(() => page.locator('tr[data-count-date]').count()).toBe(2);
 
       // The server holds what the page shows.
-      const saved = await server.db
+      const saved = await suite.server.db
         .selectFrom('tray_counts')
         .select(['tray_id', 'cumulative'])
         .where('check_date', '=', '2026-03-14')
@@ -188,9 +174,9 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
   });
 
   it('when a viewer opens the test, then they see the result and curve with no count entry or actions', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await suite.browser.newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, viewer.email);
-    await page.goto(`${server.baseUrl}/banks/${bankId}/tests/${testId}`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
     await expect.poll(() => percentText(page)).toBe('82%');
     await expect.poll(() => curvePaths(page)).toBe(5);
     expect(await page.getByLabel('Check date').count()).toBe(0);
@@ -201,9 +187,9 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
   });
 
   it('when a grower finishes the test, then each tray adds up as it is typed and the page turns read-only', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await suite.browser.newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, grower.email);
-    await page.goto(`${server.baseUrl}/banks/${bankId}/tests/${testId}`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
     await page.getByRole('button', { name: 'Finish the test…' }).click();
     const dialog = page.getByRole('dialog', { name: 'Finish the test' });
     await dialog.getByLabel('Finished on').fill('2026-03-14');
@@ -219,18 +205,18 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
     expect(await page.getByLabel('Check date').count()).toBe(0);
     expect(await page.getByRole('button', { name: 'Reopen to change counts' }).count()).toBe(1);
 
-    const row = await server.db.selectFrom('germination_tests').select(['status', 'finished_on']).where('id', '=', testId).executeTakeFirstOrThrow();
+    const row = await suite.server.db.selectFrom('germination_tests').select(['status', 'finished_on']).where('id', '=', testId).executeTakeFirstOrThrow();
     expect(row).toEqual({ status: 'finished', finished_on: '2026-03-14' });
-    const tray = await server.db.selectFrom('test_trays').select(['abnormal', 'ungerminated']).where('id', '=', trayIds[0]!).executeTakeFirstOrThrow();
+    const tray = await suite.server.db.selectFrom('test_trays').select(['abnormal', 'ungerminated']).where('id', '=', trayIds[0]!).executeTakeFirstOrThrow();
     expect(tray).toEqual({ abnormal: 2, ungerminated: 3 });
     await page.close();
   });
 
   it('when a grower starts a test from the lot page, then its seeds leave the stock and the test page opens', async () => {
-    const page = await browser.newPage({ viewport: PHONE, hasTouch: true });
+    const page = await suite.browser.newPage({ viewport: PHONE, hasTouch: true });
     await signIn(page, grower.email);
-    const lotId = (await server.db.selectFrom('germination_tests').select('lot_id').where('id', '=', testId).executeTakeFirstOrThrow()).lot_id;
-    await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lotId}`);
+    const lotId = (await suite.server.db.selectFrom('germination_tests').select('lot_id').where('id', '=', testId).executeTakeFirstOrThrow()).lot_id;
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lotId}`);
     const tests = page.locator('#lot-tests');
     await expect.poll(() => tests.getByRole('listitem').count()).toBe(1);
     await expect.poll(() => tests.getByRole('listitem').innerText()).toContain('Finished');
@@ -247,7 +233,7 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
     await expect.poll(() => page.getByRole('status').filter({ hasText: 'Test started: 40 seeds taken' }).count()).toBe(1);
     await page.getByRole('textbox', { name: 'Tray 2 · 20 sown' }).waitFor();
     // 300 logged − 100 in the first test − 40 now = 160 on hand.
-    const stock = await server.db.selectFrom('stock_movements').select((eb) => eb.fn.sum<string>('change').as('total')).where('lot_id', '=', lotId).executeTakeFirstOrThrow();
+    const stock = await suite.server.db.selectFrom('stock_movements').select((eb) => eb.fn.sum<string>('change').as('total')).where('lot_id', '=', lotId).executeTakeFirstOrThrow();
     expect(Number(stock.total)).toBe(160);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
     await page.close();

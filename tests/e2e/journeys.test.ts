@@ -1,14 +1,13 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import jStat from 'jstat';
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seedDemoScenario } from '../../server/db/demo-scenario';
-import { DEMO_BANK_NAME, DEMO_PASSWORD } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
+import { DEMO_PASSWORD } from '../../server/db/seed-demo';
+import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { enterCounts } from '../helpers/count-entry';
 import { journeyOfTests, seriousViolations } from '../helpers/journey';
 
@@ -17,36 +16,27 @@ const PHONE = { width: 390, height: 844 };
 const DESKTOP = { width: 1280, height: 900 };
 
 describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo season', () => {
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: Browser & { cleanup(): void };
-  let bankId: string;
+  // The server's clock at the real time, since the pages' default dates come from the browser.
+  const suite = browserSuite({ now: new Date().toISOString(), demo: 'season', timeoutMs: 180_000 });
   let tmp: string;
   let lotCode = '';
   let lotId = '';
 
-  beforeAll(async () => {
-    // The server's clock at the real time, since the pages' default dates come from the browser.
-    server = await startTestServer({ now: new Date().toISOString() });
-    await seedDemoScenario({ db: server.db, storage: server.storage, mailer: server.mailer, clock: server.clock, appOrigin: server.baseUrl });
-    bankId = (await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()).id;
-    browser = await launchBrowser();
+  beforeAll(() => {
     tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-journeys-'));
-  }, 180_000);
+  });
   afterAll(async () => {
-    await browser?.close();
-    browser?.cleanup();
-    await server?.stop();
     if (tmp) fs.rmSync(tmp, { recursive: true, force: true });
   });
 
-  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
+  const signIn = (page: Page, email: string) => signInAt(page, suite.server.baseUrl, email, suite.bankId);
 
   describe('journey 1: when a grower logs a harvested packet on a phone, then the lot is listed as needing a test', () => {
-    const j = journeyOfTests('1-log-a-packet', () => browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }), {
+    const j = journeyOfTests('1-log-a-packet', () => suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }), {
       first: { title: 'sign in as grower', run: (page) => signIn(page, 'grower@example.org') },
     });
     j.step('open the new-lot form', async (page) => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/lots/new`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/new`);
       await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('New lot');
     });
     j.step('fill in the packet', async (page) => {
@@ -66,7 +56,7 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
     });
     j.step('save and see the lot page with its photo', async (page) => {
       await page.getByRole('button', { name: 'Save lot' }).click();
-      await page.waitForURL(new RegExp(`/banks/${bankId}/lots/[0-9a-f-]{36}$`));
+      await page.waitForURL(new RegExp(`/banks/${suite.bankId}/lots/[0-9a-f-]{36}$`));
       lotId = page.url().split('/').pop()!;
       await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toMatch(/^KAL-/);
       lotCode = (await page.getByRole('heading', { level: 1 }).innerText()).trim().split(/\s/)[0]!;
@@ -75,14 +65,14 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBeGreaterThan(0);
     });
     j.step('see it in the lots table, to be tested first', async (page) => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/lots?q=${encodeURIComponent('Journey Blue')}`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots?q=${encodeURIComponent('Journey Blue')}`);
       // A lot never tested is to be tested first (docs/decisions.md), on its own row or card.
       const lot = page.locator(`[data-lot="${lotCode}"]`);
       await expect.poll(() => lot.count()).toBe(1);
       await expect.poll(() => lot.innerText()).toContain('Test first');
     });
     it('the server holds the lot with the parent plant that was ticked', async () => {
-      const saved = await server.db.selectFrom('lot_parents').select('parent_plant_id').where('lot_id', '=', lotId).execute();
+      const saved = await suite.server.db.selectFrom('lot_parents').select('parent_plant_id').where('lot_id', '=', lotId).execute();
       expect(saved).toHaveLength(1);
     });
   });
@@ -90,19 +80,19 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
   describe('journey 2: when a grower records a 4-tray trial over three check days, then the result and curve show', () => {
     const start = new Date(Date.now() - 10 * 86_400_000).toISOString().slice(0, 10);
     const day = (n: number) => new Date(Date.parse(start) + n * 86_400_000).toISOString().slice(0, 10);
-    const j = journeyOfTests('2-tray-trial', () => browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }), {
+    const j = journeyOfTests('2-tray-trial', () => suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }), {
       first: { title: 'sign in as grower', run: (page) => signIn(page, 'grower@example.org') },
     });
     j.step('start a 4-tray test', async (page) => {
       // The lot logged in journey 1.
       expect(lotId).not.toBe('');
-      await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lotId}/tests/new`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lotId}/tests/new`);
       await page.getByLabel('Start date').fill(start);
       await page.getByLabel('Method').selectOption('paper towel');
       await page.getByLabel('Number of trays').selectOption('4');
       await page.getByLabel('Seeds in each tray').fill('25');
       await page.getByRole('button', { name: /Start the test/ }).click();
-      await page.waitForURL(new RegExp(`/banks/${bankId}/tests/[0-9a-f-]{36}`));
+      await page.waitForURL(new RegExp(`/banks/${suite.bankId}/tests/[0-9a-f-]{36}`));
     });
     const counts: [number, number[]][] = [
       [4, [8, 6, 9, 7]],
@@ -112,7 +102,7 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
     for (const [d, values] of counts) {
       j.step(`count on day ${d}`, async (page) => {
         // The server's clock moves to the check day, as the grower's days pass.
-        server.clock.set(`${day(d)}T10:00:00Z`);
+        suite.server.clock.set(`${day(d)}T10:00:00Z`);
         const label = await enterCounts(page, day(d), values, (n) => `Tray ${n} · 25 sown`);
         await page.getByRole('button', { name: `Save counts for ${label}` }).tap();
         await expect.poll(() => page.getByRole('status').filter({ hasText: `Saved the counts of ${label}` }).count()).toBe(1);
@@ -148,7 +138,7 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
     let sowingDate = '';
     let keeperApi: ReturnType<typeof request.agent>;
     beforeAll(async () => {
-      const bank = await server.db.selectFrom('banks').select(['last_frost']).where('id', '=', bankId).executeTakeFirstOrThrow();
+      const bank = await suite.server.db.selectFrom('banks').select(['last_frost']).where('id', '=', suite.bankId).executeTakeFirstOrThrow();
       const today = new Date().toISOString().slice(0, 10);
       // Indoor starts are counted back from the last spring frost; eight weeks before it is the usual
       // first guess for bedding plants and tomatoes (common practice). The next such day still ahead:
@@ -156,15 +146,15 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
         .map((k) => new Date(Date.UTC(Number(today.slice(0, 4)) + k, Number(bank.last_frost!.slice(0, 2)) - 1, Number(bank.last_frost!.slice(3)) - 56)))
         .map((d) => d.toISOString().slice(0, 10))
         .find((d) => d >= today)!;
-      keeperApi = request.agent(server.app);
+      keeperApi = request.agent(suite.server.app);
       expect((await keeperApi.post('/api/auth/login').send({ email: 'keeper@example.org', password: DEMO_PASSWORD })).status).toBe(200);
     });
-    const j = journeyOfTests('3-decide-what-to-sow', () => browser.newContext({ viewport: DESKTOP }), {
+    const j = journeyOfTests('3-decide-what-to-sow', () => suite.browser.newContext({ viewport: DESKTOP }), {
       first: { title: 'sign in as keeper', run: (page) => signIn(page, 'keeper@example.org') },
     });
     j.step('open the ranking for the coming sowing date', async (page) => {
       await page.getByRole('navigation', { name: 'Bank' }).getByRole('link', { name: 'Lots' }).click();
-      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots`);
+      await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/lots`);
       await expect.poll(() => page.getByLabel('Sowing date').inputValue()).toBe(sowingDate);
       await expect.poll(() => page.locator('tbody tr[data-lot]').count()).toBeGreaterThan(10);
       await j.readmeShot('ranking.png');
@@ -175,7 +165,7 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       const rows = page.locator('tbody tr[data-lot]');
       await expect.poll(() => rows.count()).toBeGreaterThan(0);
       // Every row left is one the server advises sowing on that date.
-      const ranking = await keeperApi.get(`/api/banks/${bankId}/ranking?on=${sowingDate}`);
+      const ranking = await keeperApi.get(`/api/banks/${suite.bankId}/ranking?on=${sowingDate}`);
       expect(ranking.status).toBe(200);
       const worthSowing = (ranking.body.items as { code: string; recommendation: string }[]).filter((i) => i.recommendation === 'sow').map((i) => i.code);
       const shown = await rows.evaluateAll((trs) => trs.map((tr) => tr.getAttribute('data-lot')!));
@@ -185,7 +175,7 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
     });
     j.step('open the lot and work out the seeds for 12 plants', async (page) => {
       await page.getByRole('link', { name: chosen.code, exact: true }).click();
-      await page.waitForURL(new RegExp(`/banks/${bankId}/lots/[0-9a-f-]{36}`));
+      await page.waitForURL(new RegExp(`/banks/${suite.bankId}/lots/[0-9a-f-]{36}`));
       chosen.lotId = new URL(page.url()).pathname.split('/').pop()!;
       await page.getByLabel('Plants wanted').fill('12');
       await expect.poll(() => page.getByText(/for 12 plants/).count()).toBeGreaterThan(0);
@@ -196,7 +186,7 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       // tests/unit/stats/seeds-to-sow-predictive.test.ts), so it is never below the point-estimate
       // answer: the least n for which 12 or more of n seeds come up with probability ≥ 0.9 at the
       // projected germination (jStat's binomial distribution).
-      const api = await keeperApi.get(`/api/banks/${bankId}/lots/${chosen.lotId}/seeds-to-sow?plants=12&assurance=0.9&on=${sowingDate}`);
+      const api = await keeperApi.get(`/api/banks/${suite.bankId}/lots/${chosen.lotId}/seeds-to-sow?plants=12&assurance=0.9&on=${sowingDate}`);
       expect(api.status).toBe(200);
       expect(chosen.seeds).toBe(api.body.seeds);
       const atLeast12 = (n: number) => 1 - jStat.binomial.cdf(11, n, api.body.germinationUsed);
@@ -209,7 +199,7 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       const season = Number((await add.innerText()).replace(/\D/g, ''));
       // The lot may already be the suggested lot of another sowing: count its entries before.
       const planned = async () =>
-        ((await keeperApi.get(`/api/banks/${bankId}/plan?season=${season}`)).body.items as { lotId: string | null; plantsWanted: number }[]).filter(
+        ((await keeperApi.get(`/api/banks/${suite.bankId}/plan?season=${season}`)).body.items as { lotId: string | null; plantsWanted: number }[]).filter(
           (e) => e.lotId === chosen.lotId,
         );
       const before = (await planned()).length;
@@ -217,13 +207,13 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       await expect.poll(() => page.getByRole('status').filter({ hasText: `Added to the ${season} plan` }).count()).toBe(1);
       expect((await planned()).filter((e) => e.plantsWanted === 12).length).toBeGreaterThan(0);
       await page.getByRole('link', { name: 'Open the planner' }).click();
-      await page.waitForURL(new RegExp(`/banks/${bankId}/planner`));
+      await page.waitForURL(new RegExp(`/banks/${suite.bankId}/planner`));
       const entries = page.locator('article[data-entry]').filter({ has: page.getByRole('link', { name: chosen.code }) });
       await expect.poll(() => entries.count()).toBe(before + 1);
     });
     j.step('print the labels of the planned lots', async (page) => {
       await page.getByRole('link', { name: /^Print (label|\d+ labels)$/ }).click();
-      await page.waitForURL(new RegExp(`/banks/${bankId}/labels\\?lots=`));
+      await page.waitForURL(new RegExp(`/banks/${suite.bankId}/labels\\?lots=`));
       expect(new URL(page.url()).searchParams.get('lots')!.split(',')).toContain(chosen.lotId);
       const label = page.getByRole('img', { name: new RegExp(`^Label for lot ${chosen.code}:`) });
       await expect.poll(() => label.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
@@ -240,7 +230,7 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       expect(await label.isVisible()).toBe(true);
     });
     it('the server holds the plan entry for 12 plants', async () => {
-      const planned = await server.db.selectFrom('plan_entries').select(['plants_wanted', 'seeds_to_sow']).where('lot_id', '=', chosen.lotId).execute();
+      const planned = await suite.server.db.selectFrom('plan_entries').select(['plants_wanted', 'seeds_to_sow']).where('lot_id', '=', chosen.lotId).execute();
       expect(planned).toContainEqual(expect.objectContaining({ plants_wanted: 12 }));
     });
   });
@@ -253,20 +243,20 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
     beforeAll(async () => {
       // A lot with a finished test, so that its calculator has a germination to work from (a lot whose
       // only test still runs offers no seed count and no "Add to the plan").
-      lot = await server.db
+      lot = await suite.server.db
         .selectFrom('lots')
         .innerJoin('germination_tests', 'germination_tests.lot_id', 'lots.id')
         .select(['lots.id', 'lots.code'])
-        .where('lots.bank_id', '=', bankId)
+        .where('lots.bank_id', '=', suite.bankId)
         .where('lots.status', '=', 'active')
         .where('germination_tests.status', '=', 'finished')
         .orderBy('lots.code')
         .limit(1)
         .executeTakeFirstOrThrow();
-      running = await server.db
+      running = await suite.server.db
         .selectFrom('germination_tests')
         .select('id')
-        .where('bank_id', '=', bankId)
+        .where('bank_id', '=', suite.bankId)
         .where('status', '=', 'running')
         .orderBy('start_date', 'desc')
         .limit(1)
@@ -284,17 +274,17 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
     ] as const)('$email, $role', ({ email, role }) => {
       const writes = role === 'viewer' ? 0 : 1;
       const owns = role === 'owner' ? 1 : 0;
-      const j = journeyOfTests(`roles-${email.split('@')[0]}`, () => browser.newContext({ viewport: DESKTOP }), {
+      const j = journeyOfTests(`roles-${email.split('@')[0]}`, () => suite.browser.newContext({ viewport: DESKTOP }), {
         first: { title: 'sign in', run: (page) => signIn(page, email) },
         chained: false,
       });
       j.step('lots: New lot and Import CSV', async (page) => {
-        await page.goto(`${server.baseUrl}/banks/${bankId}/lots`);
+        await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots`);
         await page.getByRole('link', { name: 'Export lots CSV' }).waitFor();
         expect([await count(page, 'link', 'New lot'), await count(page, 'link', 'Import CSV')]).toEqual([writes, writes]);
       });
       j.step('a lot: photo, test, plan and delete', async (page) => {
-        await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lot.id}`);
+        await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lot.id}`);
         await page.getByRole('link', { name: 'Print label' }).waitFor();
         // Each part of the page loads its own data: wait for the tests, the photos and the calculator.
         await page.getByRole('list', { name: 'Germination tests of this lot' }).waitFor();
@@ -308,24 +298,24 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
         }).toEqual({ photo: writes, test: writes, plan: writes, remove: writes });
       });
       j.step('the running test: count entry', async (page) => {
-        await page.goto(`${server.baseUrl}/banks/${bankId}/tests/${running.id}`);
+        await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${running.id}`);
         await page.locator('main h1').waitFor();
         await page.waitForLoadState('networkidle');
         expect(await count(page, 'button', /^Save counts for/)).toBe(writes);
       });
       j.step('planner: add and mark sown', async (page) => {
-        await page.goto(`${server.baseUrl}/banks/${bankId}/planner`);
+        await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/planner`);
         await page.locator('article[data-entry]').first().waitFor();
         expect(await count(page, 'button', 'Add to plan')).toBe(writes);
         expect((await count(page, 'button', /^Mark sown/)) > 0 ? 1 : 0).toBe(writes);
       });
       j.step('members: invitations', async (page) => {
-        await page.goto(`${server.baseUrl}/banks/${bankId}/members`);
+        await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/members`);
         await page.getByRole('list', { name: 'Members of this bank' }).waitFor();
         expect(await count(page, 'button', 'Send invitation')).toBe(owns);
       });
       j.step('settings: save', async (page) => {
-        await page.goto(`${server.baseUrl}/banks/${bankId}/settings`);
+        await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/settings`);
         await page.locator('main h1').waitFor();
         await page.waitForLoadState('networkidle');
         expect(await count(page, 'button', 'Save settings')).toBe(owns);
@@ -337,39 +327,39 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
   describe('when the main pages are checked with axe-core, then there are no serious or critical violations', () => {
     const ids = { lot: '', test: '' };
     beforeAll(async () => {
-      ids.lot = (await server.db.selectFrom('lots').select('id').where('bank_id', '=', bankId).orderBy('code').limit(1).executeTakeFirstOrThrow()).id;
-      ids.test = (await server.db.selectFrom('germination_tests').select('id').where('bank_id', '=', bankId).orderBy('start_date').limit(1).executeTakeFirstOrThrow()).id;
+      ids.lot = (await suite.server.db.selectFrom('lots').select('id').where('bank_id', '=', suite.bankId).orderBy('code').limit(1).executeTakeFirstOrThrow()).id;
+      ids.test = (await suite.server.db.selectFrom('germination_tests').select('id').where('bank_id', '=', suite.bankId).orderBy('start_date').limit(1).executeTakeFirstOrThrow()).id;
     });
 
     it('sign-in', async () => {
-      const context = await browser.newContext({ viewport: DESKTOP });
+      const context = await suite.browser.newContext({ viewport: DESKTOP });
       const page = await context.newPage();
-      await page.goto(`${server.baseUrl}/sign-in`);
+      await page.goto(`${suite.server.baseUrl}/sign-in`);
       await page.getByRole('button', { name: 'Sign in' }).waitFor();
       const found = await seriousViolations(page);
       await context.close();
       expect(found).toEqual([]);
     });
 
-    const j = journeyOfTests('axe-keeper', () => browser.newContext({ viewport: DESKTOP }), {
+    const j = journeyOfTests('axe-keeper', () => suite.browser.newContext({ viewport: DESKTOP }), {
       first: { title: 'sign in', run: (page) => signIn(page, 'keeper@example.org') },
       chained: false,
     });
     const pages: [string, () => string][] = [
-      ['overview', () => `/banks/${bankId}/overview`],
-      ['lots', () => `/banks/${bankId}/lots`],
-      ['lot', () => `/banks/${bankId}/lots/${ids.lot}`],
-      ['new lot', () => `/banks/${bankId}/lots/new`],
-      ['test', () => `/banks/${bankId}/tests/${ids.test}`],
-      ['planner', () => `/banks/${bankId}/planner`],
-      ['members', () => `/banks/${bankId}/members`],
-      ['settings', () => `/banks/${bankId}/settings`],
-      ['import', () => `/banks/${bankId}/lots/import?holds=tests`],
-      ['labels', () => `/banks/${bankId}/labels?lots=${ids.lot}`],
+      ['overview', () => `/banks/${suite.bankId}/overview`],
+      ['lots', () => `/banks/${suite.bankId}/lots`],
+      ['lot', () => `/banks/${suite.bankId}/lots/${ids.lot}`],
+      ['new lot', () => `/banks/${suite.bankId}/lots/new`],
+      ['test', () => `/banks/${suite.bankId}/tests/${ids.test}`],
+      ['planner', () => `/banks/${suite.bankId}/planner`],
+      ['members', () => `/banks/${suite.bankId}/members`],
+      ['settings', () => `/banks/${suite.bankId}/settings`],
+      ['import', () => `/banks/${suite.bankId}/lots/import?holds=tests`],
+      ['labels', () => `/banks/${suite.bankId}/labels?lots=${ids.lot}`],
     ];
     for (const [name, url] of pages) {
       j.step(name, async (page) => {
-        await page.goto(`${server.baseUrl}${url()}`);
+        await page.goto(`${suite.server.baseUrl}${url()}`);
         await page.locator('main h1').first().waitFor();
         await page.waitForLoadState('networkidle');
         expect(await seriousViolations(page)).toEqual([]);

@@ -1,13 +1,13 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { BrowserContext, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/db/seed-demo';
 import { SPECIES_REFERENCE } from '../../shared/species-reference';
-import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
+import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
 
 // The people and the bank are the invented demo scenario of server/db/seed-demo.ts.
@@ -24,44 +24,33 @@ const TOMATO = SPECIES_REFERENCE.find((s) => s.commonName === 'Tomato')!;
 const TOMATO_PER_GRAM = TOMATO.seedsPerGram?.typical ?? 0;
 
 describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: Browser & { cleanup(): void };
-  let bankId: string;
+  // The server's clock at the real time: the form's default dates come from the browser's clock.
+  const suite = browserSuite({ now: new Date().toISOString(), demo: 'people' });
   let tmpDir: string;
 
-  beforeAll(async () => {
-    // The server's clock at the real time: the form's default dates come from the browser's clock.
-    server = await startTestServer({ now: new Date().toISOString() });
-    await seedDemo(server.db);
-    bankId = (
-      await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()
-    ).id;
-    browser = await launchBrowser();
+  beforeAll(() => {
     tmpDir = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-lots-e2e-'));
   });
   afterAll(async () => {
-    await browser?.close();
-    browser?.cleanup();
-    await server?.stop();
     if (tmpDir) fs.rmSync(tmpDir, { recursive: true, force: true });
   });
 
-  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
+  const signIn = (page: Page, email: string) => signInAt(page, suite.server.baseUrl, email, suite.bankId);
 
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
 
   // One test per step on one page: the whole form in one test ran at 30-40 s of the 60 s timeout.
   describe('when a grower on a phone logs a lot by weight with a packet photo, then its page shows the estimate and the thumbnail', () => {
     let lotId = '';
-    const j = journeyOfTests('lot-by-weight-phone', () => browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }), {
+    const j = journeyOfTests('lot-by-weight-phone', () => suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }), {
       first: { title: 'sign in as grower', run: (page) => signIn(page, grower.email) },
     });
 
     j.step('open the new-lot form from Lots', async (page) => {
       await page.getByRole('navigation', { name: 'Bank' }).getByRole('link', { name: 'Lots' }).click();
-      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots`);
+      await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/lots`);
       await page.getByRole('link', { name: 'New lot' }).first().click();
-      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots/new`);
+      await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/new`);
       await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('New lot');
     });
 
@@ -97,7 +86,7 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
 
     j.step('save: the lot page shows the estimate and the thumbnail', async (page) => {
       await page.getByRole('button', { name: 'Save lot' }).click();
-      await page.waitForURL(new RegExp(`/banks/${bankId}/lots/[0-9a-f-]{36}$`));
+      await page.waitForURL(new RegExp(`/banks/${suite.bankId}/lots/[0-9a-f-]{36}$`));
       lotId = page.url().split('/').pop()!;
       await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toMatch(/^TOM/);
       await expect.poll(() => page.getByText('seeds on hand', { exact: false }).first().innerText()).toContain('≈ 780 seeds on hand');
@@ -111,23 +100,23 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
     });
 
     it('the page did not just draw it: the server holds the lot, its estimated stock and one photo', async () => {
-      const lot = await server.db
+      const lot = await suite.server.db
         .selectFrom('lots')
         .select(['variety', 'origin', 'quantity_estimated', 'grams_entered'])
         .where('id', '=', lotId)
         .executeTakeFirstOrThrow();
       expect(lot).toMatchObject({ variety: 'Bench Trial Cherry', origin: 'saved', quantity_estimated: true });
       expect(Number(lot.grams_entered)).toBe(2);
-      const photos = await server.db.selectFrom('photos').select('id').where('subject_id', '=', lotId).execute();
+      const photos = await suite.server.db.selectFrom('photos').select('id').where('subject_id', '=', lotId).execute();
       expect(photos).toHaveLength(1);
     });
   });
 
   it('when a grower’s seed is of a species Hilum does not list, then they add it from the new-lot form and log the lot under it', async () => {
-    const context: BrowserContext = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+    const context: BrowserContext = await suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
     const page = await context.newPage();
     await signIn(page, grower.email);
-    await page.goto(`${server.baseUrl}/banks/${bankId}/lots/new`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/new`);
     await page.getByRole('button', { name: 'Add a species' }).click();
     const dialog = page.getByRole('dialog', { name: 'Add a species' });
 
@@ -157,32 +146,32 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
     await page.getByLabel('Variety').fill('Mixed blues');
     await page.getByLabel('Number of seeds').fill('500');
     await page.getByRole('button', { name: 'Save lot' }).click();
-    await page.waitForURL(new RegExp(`/banks/${bankId}/lots/[0-9a-f-]{36}$`));
+    await page.waitForURL(new RegExp(`/banks/${suite.bankId}/lots/[0-9a-f-]{36}$`));
     await expect.poll(() => page.locator('main').innerText()).toContain('Nigella damascena');
 
-    const saved = await server.db
+    const saved = await suite.server.db
       .selectFrom('species')
       .select(['bank_id', 'common_name', 'scientific_name', 'family', 'traits'])
       .where('scientific_name', '=', 'Nigella damascena')
       .executeTakeFirstOrThrow();
-    expect(saved).toMatchObject({ bank_id: bankId, common_name: 'Love-in-a-mist', family: 'Ranunculaceae' });
+    expect(saved).toMatchObject({ bank_id: suite.bankId, common_name: 'Love-in-a-mist', family: 'Ranunculaceae' });
     expect(saved.traits).toMatchObject({ startMethod: 'direct', storageLifeYears: 2, poisonous: false });
     await context.close();
   });
 
   it('when a grower gives seed away on a phone, then the swap caution shows, the ledger takes it out, and more than is left is refused', async () => {
-    const api = request.agent(server.app);
+    const api = request.agent(suite.server.app);
     await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
     const made = await api
-      .post(`/api/banks/${bankId}/lots`)
-      .send({ speciesId: (await api.get(`/api/banks/${bankId}/species`)).body.items.find((x: { commonName: string }) => x.commonName === 'Calendula').id, variety: 'Ledger Gold', origin: 'saved', harvestDate: '2025-08-01', seedCount: 120 });
+      .post(`/api/banks/${suite.bankId}/lots`)
+      .send({ speciesId: (await api.get(`/api/banks/${suite.bankId}/species`)).body.items.find((x: { commonName: string }) => x.commonName === 'Calendula').id, variety: 'Ledger Gold', origin: 'saved', harvestDate: '2025-08-01', seedCount: 120 });
     expect(made.status).toBe(201);
     const lotId = made.body.lot.id as string;
 
-    const context: BrowserContext = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+    const context: BrowserContext = await suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
     const page = await context.newPage();
     await signIn(page, grower.email);
-    await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lotId}`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lotId}`);
     const stock = page.locator('section').filter({ has: page.getByRole('heading', { name: 'Stock', exact: true }) });
     await page.getByRole('heading', { name: 'Stock', exact: true }).waitFor();
     await stock.getByLabel('What happened').selectOption('given');
@@ -203,18 +192,18 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
     // The server's 409 shows beside the number it is about.
     await expect.poll(() => stock.getByText('Only 100 seeds are on hand; taking 500 would leave the stock below zero.').count()).toBe(1);
     expect(await stock.getByText('Recorded −20 seeds').count()).toBe(0);
-    expect((await api.get(`/api/banks/${bankId}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(100);
+    expect((await api.get(`/api/banks/${suite.bankId}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(100);
     await context.close();
   });
 
   it('when a viewer opens Lots, then the table lists the bank’s lots and offers no New lot button', async () => {
     // A lot logged through the API as the grower, so this test stands on its own (an API agent: a
     // second browser signed in only for this cost a sign-in's time on a busy machine).
-    const api = request.agent(server.app);
+    const api = request.agent(suite.server.app);
     expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
-    const species = await api.get(`/api/banks/${bankId}/species`);
+    const species = await api.get(`/api/banks/${suite.bankId}/species`);
     const marigold = (species.body.items as { id: string; commonName: string }[]).find((s) => s.commonName === 'Marigold')!;
-    const created = await api.post(`/api/banks/${bankId}/lots`).send({
+    const created = await api.post(`/api/banks/${suite.bankId}/lots`).send({
       speciesId: marigold.id,
       variety: 'Ember Edge',
       origin: 'swapped',
@@ -225,10 +214,10 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
     });
     expect(created.status).toBe(201);
 
-    const context = await browser.newContext({ viewport: DESKTOP });
+    const context = await suite.browser.newContext({ viewport: DESKTOP });
     const page = await context.newPage();
     await signIn(page, viewer.email);
-    await page.goto(`${server.baseUrl}/banks/${bankId}/lots`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots`);
     await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Lots');
 
     const row = page.getByRole('row').filter({ hasText: 'MAR-VIEW-1' });
@@ -256,10 +245,10 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
   });
 
   it('when a grower checks a CSV file with treated seed in it, then the preview marks that lot and shows the caution before importing', async () => {
-    const context = await browser.newContext({ viewport: DESKTOP });
+    const context = await suite.browser.newContext({ viewport: DESKTOP });
     const page = await context.newPage();
     await signIn(page, grower.email);
-    await page.goto(`${server.baseUrl}/banks/${bankId}/lots/import`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/import`);
     const csv = [
       'code,species,variety,origin,harvest_date,seeds_on_hand,treated',
       'IMP-PLAIN-1,Tomato,Porch Plain,saved,2025-09-01,30,no',
@@ -275,7 +264,7 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
 
     await page.getByRole('button', { name: 'Import 2 lots' }).click();
     await expect.poll(() => page.getByRole('status').filter({ hasText: '2 lots were added' }).count()).toBe(1);
-    const treated = await server.db.selectFrom('lots').select(['code', 'treated']).where('code', 'like', 'IMP-%').orderBy('code').execute();
+    const treated = await suite.server.db.selectFrom('lots').select(['code', 'treated']).where('code', 'like', 'IMP-%').orderBy('code').execute();
     expect(treated).toEqual([
       { code: 'IMP-COAT-1', treated: true },
       { code: 'IMP-PLAIN-1', treated: false },

@@ -1,7 +1,7 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME, seedDemo } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { DEMO_ACCOUNTS, DEMO_BANK_NAME } from '../../server/db/seed-demo';
+import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { waitForMail } from '../helpers/outbox';
 
 // The people and the bank below are the invented demo scenario of server/db/seed-demo.ts.
@@ -12,37 +12,18 @@ const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;
 const PHONE = { width: 390, height: 844 };
 
 describe.skipIf(!chromiumPath)('the members page in Chromium', () => {
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: Browser & { cleanup(): void };
-  let bankId: string;
+  const suite = browserSuite({ demo: 'people' });
 
-  beforeAll(async () => {
-    server = await startTestServer();
-    await seedDemo(server.db);
-    const bank = await server.db
-      .selectFrom('banks')
-      .select('id')
-      .where('name', '=', DEMO_BANK_NAME)
-      .executeTakeFirstOrThrow();
-    bankId = bank.id;
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    browser?.cleanup();
-    await server?.stop();
-  });
-
-  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
+  const signIn = (page: Page, email: string) => signInAt(page, suite.server.baseUrl, email, suite.bankId);
 
   async function openMembers(page: Page) {
     await page.getByRole('link', { name: 'Members' }).click();
-    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/members`);
+    await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/members`);
     await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Members');
   }
 
   it('when the owner signs in and invites someone as a grower, then the invitation is listed as open and mailed', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await suite.browser.newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, owner.email);
     await openMembers(page);
 
@@ -62,19 +43,19 @@ describe.skipIf(!chromiumPath)('the members page in Chromium', () => {
       .toContain(`Sent by ${owner.name}`);
 
     // The page did not just draw it: the server holds the invitation and sent the e-mail.
-    const row = await server.db
+    const row = await suite.server.db
       .selectFrom('invitations')
       .select(['role', 'accepted_at', 'revoked_at'])
       .where('email', '=', invitee)
       .executeTakeFirstOrThrow();
     expect(row).toEqual({ role: 'grower', accepted_at: null, revoked_at: null });
     const mail = await waitForMail((m) => m.to.includes(invitee));
-    expect(mail.text).toContain(`${server.baseUrl}/invitations/accept?token=`);
+    expect(mail.text).toContain(`${suite.server.baseUrl}/invitations/accept?token=`);
     await page.close();
   });
 
   it('when a viewer opens Members, then every member is listed with a role and nothing can be changed', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await suite.browser.newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, viewer.email);
     await openMembers(page);
 
@@ -96,9 +77,9 @@ describe.skipIf(!chromiumPath)('the members page in Chromium', () => {
   });
 
   it('when a phone opens sign-in and then Members, then neither page scrolls sideways', async () => {
-    const context = await browser.newContext({ viewport: PHONE, hasTouch: true });
+    const context = await suite.browser.newContext({ viewport: PHONE, hasTouch: true });
     const page = await context.newPage();
-    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.goto(`${suite.server.baseUrl}/sign-in`);
     await page.getByRole('button', { name: 'Sign in' }).waitFor();
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
 
@@ -111,14 +92,14 @@ describe.skipIf(!chromiumPath)('the members page in Chromium', () => {
   });
   it('when someone starts a new bank from a browser in another time zone, then the bank keeps that zone for its calendar', async () => {
     // America/Winnipeg: a zone of the IANA time zone database, six hours behind UTC in winter.
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, timezoneId: 'America/Winnipeg' });
+    const context = await suite.browser.newContext({ viewport: { width: 1280, height: 900 }, timezoneId: 'America/Winnipeg' });
     const page = await context.newPage();
     await signIn(page, viewer.email);
-    await page.goto(`${server.baseUrl}/banks/new`);
+    await page.goto(`${suite.server.baseUrl}/banks/new`);
     await page.getByLabel('Name of the bank').fill('Porch Shelf Seeds');
     await page.getByRole('button', { name: 'Start the bank' }).click();
     await page.waitForURL(/\/banks\/[0-9a-f-]{36}\/overview/);
-    const created = await server.db.selectFrom('banks').select('time_zone').where('name', '=', 'Porch Shelf Seeds').executeTakeFirstOrThrow();
+    const created = await suite.server.db.selectFrom('banks').select('time_zone').where('name', '=', 'Porch Shelf Seeds').executeTakeFirstOrThrow();
     expect(created.time_zone).toBe('America/Winnipeg');
     await context.close();
   });

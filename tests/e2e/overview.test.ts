@@ -1,8 +1,7 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { addDays } from '../../shared/plan-dates';
-import { seedDemoScenario } from '../../server/db/demo-scenario';
-import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { browserSuite, chromiumPath } from '../helpers/browser';
 
 // The circle, its people, lots and running test are the invented demo scenario of
 // server/db/demo-scenario.ts, seeded as of the server's fake "now" below.
@@ -17,46 +16,25 @@ const PHONE = { width: 390, height: 844 };
 const TOMATO_FIRST_COUNT_DAY = 5;
 
 describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium', () => {
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: Browser & { cleanup(): void };
-  let bankId: string;
-
-  beforeAll(async () => {
-    server = await startTestServer({ now: NOW });
-    const seeded = await seedDemoScenario({
-      db: server.db,
-      storage: server.storage,
-      mailer: server.mailer,
-      clock: server.clock,
-      appOrigin: server.baseUrl,
-    });
-    expect(seeded).not.toBeNull();
-    bankId = seeded!.bankId;
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    browser?.cleanup();
-    await server?.stop();
-  });
+  const suite = browserSuite({ now: NOW, demo: 'season' });
 
   /** Signs in with one tap on the sign-in page's demo panel, and waits for the bank's overview. */
   async function signInFromDemoPanel(page: Page, email: string) {
-    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.goto(`${suite.server.baseUrl}/sign-in`);
     const panel = page.getByRole('region', { name: 'Try the demo circle' });
     await expect.poll(() => panel.innerText()).toContain('invented seed circle');
     await panel.getByRole('button', { name: email }).tap();
-    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/overview`);
+    await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/overview`);
   }
 
   it('when the keeper signs in from the demo panel on a phone, then the overview shows the tray count due today and links to its test', async () => {
     // The running test, read from the database rather than from the page.
-    const running = await server.db
+    const running = await suite.server.db
       .selectFrom('germination_tests')
       .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
       .innerJoin('species', 'species.id', 'lots.species_id')
       .select(['germination_tests.id', 'germination_tests.start_date', 'lots.code', 'lots.variety', 'species.common_name'])
-      .where('germination_tests.bank_id', '=', bankId)
+      .where('germination_tests.bank_id', '=', suite.bankId)
       .where('germination_tests.status', '=', 'running')
       .execute();
     expect(running).toHaveLength(1);
@@ -64,7 +42,7 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
     expect(test.common_name).toBe('Tomato');
     expect(addDays(test.start_date, TOMATO_FIRST_COUNT_DAY)).toBe(TODAY);
 
-    const context = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+    const context = await suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
     const page = await context.newPage();
     await signInFromDemoPanel(page, 'keeper@example.org');
 
@@ -79,7 +57,7 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
 
     await row.tap();
-    await page.waitForURL(`${server.baseUrl}/banks/${bankId}/tests/${test.id}`);
+    await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${test.id}`);
     await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe(`Tomato · ${test.variety}`);
     await expect.poll(() => page.getByRole('heading', { name: 'Count the normal seedlings' }).count()).toBe(1);
     await expect.poll(() => page.getByRole('note').filter({ hasText: 'damping-off' }).count()).toBe(1);
@@ -88,21 +66,21 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
 
   it('when a grower marks a lot as treated seed, then its page shows the treated-seed caution', async () => {
     // A lot the demo saved from its own plants, untreated, of a species without a poison flag.
-    const lot = await server.db
+    const lot = await suite.server.db
       .selectFrom('lots')
       .innerJoin('species', 'species.id', 'lots.species_id')
       .select(['lots.id', 'lots.code'])
-      .where('lots.bank_id', '=', bankId)
+      .where('lots.bank_id', '=', suite.bankId)
       .where('lots.treated', '=', false)
       .where('lots.origin', '=', 'saved')
       .where('species.ref_key', '=', 'lettuce')
       .orderBy('lots.code')
       .executeTakeFirstOrThrow();
 
-    const context = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+    const context = await suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
     const page = await context.newPage();
     await signInFromDemoPanel(page, 'grower@example.org');
-    await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lot.id}`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lot.id}`);
     await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toContain(lot.code);
     const treatedNote = page.getByRole('note').filter({ hasText: 'Treated seed' });
     expect(await treatedNote.count()).toBe(0);
@@ -115,7 +93,7 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
     await expect.poll(() => page.getByRole('button', { name: 'Edit details' }).count()).toBe(1);
 
     // Saved on the server…
-    const saved = await server.db.selectFrom('lots').select('treated').where('id', '=', lot.id).executeTakeFirstOrThrow();
+    const saved = await suite.server.db.selectFrom('lots').select('treated').where('id', '=', lot.id).executeTakeFirstOrThrow();
     expect(saved.treated).toBe(true);
     // …and the page's caution says the usual things, in plain words (common practice for treated seed).
     await expect.poll(() => treatedNote.count()).toBe(1);
@@ -129,7 +107,7 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
     expect(noteTop).toBeLessThan(photosTop);
 
     // Starting a test means counting that seed by hand: the caution comes along.
-    await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lot.id}/tests/new`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lot.id}/tests/new`);
     await expect.poll(() => page.getByRole('note').filter({ hasText: 'Treated seed' }).count()).toBe(1);
     await context.close();
   });

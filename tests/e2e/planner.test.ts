@@ -1,10 +1,10 @@
 import jStat from 'jstat';
 import ical from 'node-ical';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { BrowserContext, Page } from 'playwright-core';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/db/seed-demo';
+import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journey, journeyOfTests, seriousViolations } from '../helpers/journey';
 import { finishedTest, speciesId } from '../helpers/lots';
 
@@ -47,55 +47,42 @@ function seedsFor(plants: number, p: number, assurance: number): number {
 }
 
 describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: Browser & { cleanup(): void };
-  let bankId: string;
+  const suite = browserSuite({ now: NOW, demo: 'people' });
   let lotId: string;
   let lotCode: string;
   let stockBefore: number;
   let expectedSeeds: number;
 
   beforeAll(async () => {
-    server = await startTestServer({ now: NOW });
-    await seedDemo(server.db);
-    bankId = (await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()).id;
-
     // A tomato lot of 400 seeds with a finished two-tray test, through the API as the grower.
-    const api = request.agent(server.app);
+    const api = request.agent(suite.server.app);
     expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
-    const tomato = await speciesId(server.db, 'tomato');
+    const tomato = await speciesId(suite.server.db, 'tomato');
     const lot = await api
-      .post(`/api/banks/${bankId}/lots`)
+      .post(`/api/banks/${suite.bankId}/lots`)
       .send({ speciesId: tomato, variety: 'Planner Trial Red', origin: 'saved', harvestDate: '2025-09-01', seedCount: 400 });
     expect(lot.status).toBe(201);
     lotId = lot.body.lot.id;
     lotCode = lot.body.lot.code;
-    await finishedTest(api, bankId, lotId, '2026-11-01', [
+    await finishedTest(api, suite.bankId, lotId, '2026-11-01', [
       { sown: 50, germinated: 46 },
       { sown: 50, germinated: 45 },
     ]);
     // 400 logged − 2 × 50 counted into the test's trays (the stock is a ledger, DESIGN.md).
-    stockBefore = (await api.get(`/api/banks/${bankId}/lots/${lotId}`)).body.lot.seedsOnHand;
+    stockBefore = (await api.get(`/api/banks/${suite.bankId}/lots/${lotId}`)).body.lot.seedsOnHand;
     expect(stockBefore).toBe(300);
 
     // The lot's germination projected to the first sowing day (the server's viability fit), then the
     // seeds for 12 plants worked out independently: × 0.9 establishment and 0.9 assurance, the
     // bank's defaults (migrations/2026_12_01_000400_bank_decision_settings.ts).
-    const ranking = await api.get(`/api/banks/${bankId}/ranking?on=${SOW_FROM}`);
+    const ranking = await api.get(`/api/banks/${suite.bankId}/ranking?on=${SOW_FROM}`);
     const item = (ranking.body.items as { lotId: string; projectedPercent: number }[]).find((r) => r.lotId === lotId)!;
     expectedSeeds = seedsFor(12, (item.projectedPercent / 100) * 0.9, 0.9);
-
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    browser?.cleanup();
-    await server?.stop();
   });
 
   /** A browser context whose clock reads the same day as the server's. */
   async function newContext(viewport: { width: number; height: number }, phone = false): Promise<BrowserContext> {
-    const context = await browser.newContext({ viewport, hasTouch: phone, isMobile: phone });
+    const context = await suite.browser.newContext({ viewport, hasTouch: phone, isMobile: phone });
     await context.clock.setFixedTime(new Date(NOW));
     return context;
   }
@@ -104,7 +91,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     return { context, page: await context.newPage() };
   }
 
-  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
+  const signIn = (page: Page, email: string) => signInAt(page, suite.server.baseUrl, email, suite.bankId);
 
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
   const fact = (page: Page, name: string) => page.locator(`article[data-entry] [data-fact="${name}"] dd`).first().innerText();
@@ -117,7 +104,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
 
     steps.step('planner', async (page) => {
       await page.getByRole('navigation', { name: 'Bank' }).getByRole('link', { name: 'Planner' }).first().click();
-      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/planner`);
+      await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/planner`);
       // In December the coming spring is next year's.
       expect(await page.getByRole('combobox', { name: 'Season' }).inputValue()).toBe('2027');
       await expect.poll(() => page.locator('[data-frost]').innerText()).toContain('24 May');
@@ -163,7 +150,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
 
     steps.step('lot-page', async (page) => {
       await page.locator('article[data-entry]').getByRole('link', { name: lotCode }).click();
-      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots/${lotId}`);
+      await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lotId}`);
       await expect.poll(() => page.getByText(/seeds on hand$/).first().innerText()).toBe(`${stockBefore - expectedSeeds} seeds on hand`);
     });
 
@@ -172,9 +159,9 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       await page.goBack();
       await page.getByRole('button', { name: 'Undo sowing' }).click();
       await expect.poll(() => page.getByRole('status').filter({ hasText: 'Sowing undone' }).innerText()).toContain(`${expectedSeeds} seeds went back into lot ${lotCode}`);
-      const api = request.agent(server.app);
+      const api = request.agent(suite.server.app);
       await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
-      expect((await api.get(`/api/banks/${bankId}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(stockBefore);
+      expect((await api.get(`/api/banks/${suite.bankId}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(stockBefore);
     });
   });
 
@@ -184,7 +171,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     });
 
     steps.step('sowings', async (page) => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/planner`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/planner`);
       await page.locator('article[data-entry]').waitFor();
       expect(await page.getByRole('button', { name: /Mark sown/ }).count()).toBe(0);
       expect(await page.getByRole('button', { name: 'Add to plan' }).count()).toBe(0);
@@ -213,7 +200,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     // "Add to my calendar" is the season's iCalendar file, which a real parser reads.
     steps.step('add-to-calendar', async (page) => {
       const href = await page.getByRole('link', { name: 'Add to my calendar' }).getAttribute('href');
-      const ics = await page.request.get(`${server.baseUrl}${href}`);
+      const ics = await page.request.get(`${suite.server.baseUrl}${href}`);
       expect(ics.headers()['content-type']).toMatch(/text\/calendar/);
       const events = Object.values(ical.sync.parseICS(await ics.text())).filter((e) => e?.type === 'VEVENT') as ical.VEvent[];
       expect(events.some((e) => String(e.summary).startsWith('Sow Tomato'))).toBe(true);
@@ -225,12 +212,12 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       first: { title: 'sign in as grower', run: (page) => signIn(page, grower.email) },
     });
     steps.step('december', async (page) => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/planner?view=calendar&month=2026-12`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/planner?view=calendar&month=2026-12`);
       const today = page.locator('[data-calendar="month"] td[aria-current="date"]');
       await expect.poll(() => today.getAttribute('data-day')).toBe('2026-12-01');
     });
     steps.step('april', async (page) => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/planner?view=calendar&month=2027-04`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/planner?view=calendar&month=2027-04`);
       // 1–12 April lie in the sowing window, 13 April does not.
       const sowOn = (day: string) => page.locator(`td[data-day="${day}"] li[data-kind="sow"]`).count();
       await expect.poll(() => sowOn('2027-04-01')).toBe(1);
@@ -248,7 +235,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     await steps.step('reminders', async () => {
       await page.getByRole('button', { name: 'Account' }).click();
       await page.getByRole('link', { name: 'Reminders' }).click();
-      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/reminders`);
+      await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/reminders`);
       const sowing = page.getByRole('switch', { name: 'Sowing days' });
       // Off by default for a viewer (server/jobs/reminders.ts: on for owner and grower).
       expect(await sowing.getAttribute('aria-checked')).toBe('false');
@@ -268,7 +255,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     const steps = journey('settings-decisions', page);
     await signIn(page, owner.email);
     await steps.step('settings', async () => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/settings`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/settings`);
       const main = page.locator('main');
       await expect.poll(() => main.innerText()).toContain('Frost dates are local averages');
       expect(await main.innerText()).toContain('Hilum never guesses them from a location');
@@ -285,24 +272,24 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved.' }).count()).toBe(1);
       expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
     });
-    const saved = await server.db.selectFrom('banks').select('sowing_assurance').where('id', '=', bankId).executeTakeFirstOrThrow();
+    const saved = await suite.server.db.selectFrom('banks').select('sowing_assurance').where('id', '=', suite.bankId).executeTakeFirstOrThrow();
     expect(Number(saved.sowing_assurance)).toBe(0.95);
-    await server.db.updateTable('banks').set({ sowing_assurance: 0.9 }).where('id', '=', bankId).execute();
+    await suite.server.db.updateTable('banks').set({ sowing_assurance: 0.9 }).where('id', '=', suite.bankId).execute();
     await context.close();
   });
   it('when a planned sowing needs more seed than its lot holds, then the planner says so instead of offering Mark sown', async () => {
-    const api = request.agent(server.app);
+    const api = request.agent(suite.server.app);
     await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
-    const tomato = await speciesId(server.db, 'tomato');
-    const created = await api.post(`/api/banks/${bankId}/plan`).send({ season: 2027, speciesId: tomato, plantsWanted: 1000, start: 'indoors', lotId });
+    const tomato = await speciesId(suite.server.db, 'tomato');
+    const created = await api.post(`/api/banks/${suite.bankId}/plan`).send({ season: 2027, speciesId: tomato, plantsWanted: 1000, start: 'indoors', lotId });
     expect(created.status).toBe(201);
     const { context, page } = await open(DESKTOP);
     await signIn(page, grower.email);
-    await page.goto(`${server.baseUrl}/banks/${bankId}/planner`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/planner`);
     const card = page.locator('article[data-entry]').filter({ hasText: '1,000 plants' });
     await expect.poll(() => card.locator('[data-short-of-seed]').innerText()).toContain(`Lot ${lotCode} has ${stockBefore} seeds left`);
     expect(await card.getByRole('button', { name: /Mark sown/ }).count()).toBe(0);
     await context.close();
-    expect((await api.delete(`/api/banks/${bankId}/plan/${created.body.entry.id}`)).status).toBe(204);
+    expect((await api.delete(`/api/banks/${suite.bankId}/plan/${created.body.entry.id}`)).status).toBe(204);
   });
 });

@@ -1,9 +1,9 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type { RankingItem } from '../../shared/schemas/viability';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, signInAt, signInThroughApi, startTestServer } from '../helpers/browser';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/db/seed-demo';
+import { browserSuite, chromiumPath, signInAt, signInThroughApi } from '../helpers/browser';
 import { journey, journeyOfTests, seriousViolations } from '../helpers/journey';
 import { finishedTest, speciesId } from '../helpers/lots';
 
@@ -23,39 +23,33 @@ const PHONE = { width: 390, height: 844 };
 const DESKTOP = { width: 1280, height: 900 };
 
 describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', () => {
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: Browser & { cleanup(): void };
-  let bankId: string;
+  const suite = browserSuite({ now: NOW, demo: 'people' });
   const lots: Record<'good' | 'old' | 'new', string> = { good: '', old: '', new: '' };
   let ranking: RankingItem[];
 
   beforeAll(async () => {
-    server = await startTestServer({ now: NOW });
-    await seedDemo(server.db);
-    bankId = (await server.db.selectFrom('banks').select(['id', 'last_frost']).where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()).id;
-
-    const agent = request.agent(server.app);
+    const agent = request.agent(suite.server.app);
     expect((await agent.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
     const newLot = async (key: string, code: string, variety: string, harvestDate: string, seedCount: number) => {
       const res = await agent
-        .post(`/api/banks/${bankId}/lots`)
-        .send({ speciesId: await speciesId(server.db, key), variety, origin: 'saved', harvestDate, seedCount, code });
+        .post(`/api/banks/${suite.bankId}/lots`)
+        .send({ speciesId: await speciesId(suite.server.db, key), variety, origin: 'saved', harvestDate, seedCount, code });
       if (res.status !== 201) throw new Error(`lot not created: ${JSON.stringify(res.body)}`);
       return res.body.lot.id as string;
     };
     // A fresh tomato lot that came up well, a lettuce lot tested young and again four years on,
     // and a marigold lot nobody has tested yet (invented lots, like all demo data).
     lots.good = await newLot('tomato', 'RNK-GOOD', 'Bench Gold', '2026-08-20', 800);
-    await finishedTest(agent, bankId, lots.good, '2026-09-15', [
+    await finishedTest(agent, suite.bankId, lots.good, '2026-09-15', [
       { sown: 50, germinated: 48 },
       { sown: 50, germinated: 47 },
     ]);
     lots.old = await newLot('lettuce', 'RNK-OLD', 'Old Leaf', '2022-07-15', 2000);
-    await finishedTest(agent, bankId, lots.old, '2023-02-01', [
+    await finishedTest(agent, suite.bankId, lots.old, '2023-02-01', [
       { sown: 50, germinated: 46 },
       { sown: 50, germinated: 44 },
     ]);
-    await finishedTest(agent, bankId, lots.old, '2026-10-01', [
+    await finishedTest(agent, suite.bankId, lots.old, '2026-10-01', [
       { sown: 50, germinated: 22 },
       { sown: 50, germinated: 20 },
     ]);
@@ -64,21 +58,15 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
     await newLot('marigold', 'SIDE-1', 'Left Out', '2026-09-01', 300);
 
     // The server's own ranking for the default sowing date: what the table must show.
-    const res = await agent.get(`/api/banks/${bankId}/ranking?on=${ON}`);
+    const res = await agent.get(`/api/banks/${suite.bankId}/ranking?on=${ON}`);
     expect(res.status).toBe(200);
     ranking = (res.body.items as RankingItem[]).filter((i) => i.code.startsWith('RNK-'));
     expect(ranking).toHaveLength(3);
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    browser?.cleanup();
-    await server?.stop();
   });
 
   const item = (code: string) => ranking.find((i) => i.code === code)!;
 
-  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
+  const signIn = (page: Page, email: string) => signInAt(page, suite.server.baseUrl, email, suite.bankId);
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
   const rowCodes = (page: Page) => page.locator('tbody tr[data-lot]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-lot')));
 
@@ -98,7 +86,7 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
     const j = journeyOfTests(
       'ranking-desktop',
       async () => {
-        const context = await browser.newContext({ viewport: DESKTOP });
+        const context = await suite.browser.newContext({ viewport: DESKTOP });
         await context.clock.setFixedTime(new Date(NOW));
         return context;
       },
@@ -107,7 +95,7 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
 
     j.step('open the ranking', async (page) => {
       await page.getByRole('navigation', { name: 'Bank' }).getByRole('link', { name: 'Lots' }).click();
-      await page.waitForURL(`${server.baseUrl}/banks/${bankId}/lots`);
+      await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/lots`);
       await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Lots');
       await expect.poll(() => page.getByLabel('Sowing date').inputValue()).toBe(ON);
       await expect.poll(async () => (await rowCodes(page)).includes('SIDE-1')).toBe(true);
@@ -169,7 +157,7 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
       await page.getByRole('checkbox', { name: 'Select RNK-GOOD' }).check();
       // One lot ticked: the labels page's own link, "Print label", for that lot.
       const link = page.getByRole('link', { name: /^Print/ });
-      expect(await link.getAttribute('href')).toBe(`/banks/${bankId}/labels?lots=${lots.good}`);
+      expect(await link.getAttribute('href')).toBe(`/banks/${suite.bankId}/labels?lots=${lots.good}`);
     });
 
     j.step('hide a column', async (page) => {
@@ -185,7 +173,7 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
 
     j.step('open the lot and see its decline', async (page) => {
       await page.getByRole('link', { name: 'RNK-GOOD' }).click();
-      await page.waitForURL(new RegExp(`/banks/${bankId}/lots/${lots.good}`));
+      await page.waitForURL(new RegExp(`/banks/${suite.bankId}/lots/${lots.good}`));
       const chart = page.locator('figure[data-chart="decline"] svg.recharts-surface');
       await chart.waitFor();
       // The fitted curve is drawn as a path, and the one test as one dot.
@@ -197,7 +185,7 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
     });
 
     j.step('the declining lot', async (page) => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lots.old}`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lots.old}`);
       const chart = page.locator('figure[data-chart="decline"] svg.recharts-surface');
       await chart.waitFor();
       await expect.poll(() => chart.locator('.recharts-scatter-symbol').count()).toBe(2);
@@ -212,9 +200,9 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
       // The calculator asks the server for 12 plants at the bank's assurance (90% by default).
       await expect.poll(() => page.getByTestId('seeds-to-sow').innerText()).toMatch(/^sow \d+ seeds$/);
       const seeds = Number((await page.getByTestId('seeds-to-sow').innerText()).replace(/\D/g, ''));
-      const viewerAgent = request.agent(server.app);
+      const viewerAgent = request.agent(suite.server.app);
       await viewerAgent.post('/api/auth/login').send({ email: viewer.email, password: DEMO_PASSWORD });
-      const api = await viewerAgent.get(`/api/banks/${bankId}/lots/${lots.old}/seeds-to-sow?plants=12&assurance=0.9&on=${ON}`);
+      const api = await viewerAgent.get(`/api/banks/${suite.bankId}/lots/${lots.old}/seeds-to-sow?plants=12&assurance=0.9&on=${ON}`);
       expect(api.status).toBe(200);
       expect(seeds).toBe(api.body.seeds);
       // With germination at a third or so, 12 plants need well over 12 seeds.
@@ -226,14 +214,14 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
   });
 
   it('when a viewer opens the ranking on a phone, then lots show as cards whose advice opens its reason, with no sideways scroll', async () => {
-    const context = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+    const context = await suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
     await context.clock.setFixedTime(new Date(NOW));
     const page = await context.newPage();
     const j = journey('ranking-phone', page);
     await signIn(page, viewer.email);
 
     await j.step('cards', async () => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/lots?q=RNK-`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots?q=RNK-`);
       const cards = page.getByRole('list', { name: /Lots ranked/ }).locator('li[data-lot]');
       await expect.poll(() => cards.count()).toBe(3);
       expect(await page.locator('table').count()).toBe(0);
@@ -251,7 +239,7 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
     });
 
     await j.step('the lot page', async () => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lots.old}`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lots.old}`);
       await page.locator('figure[data-chart="decline"] svg.recharts-surface').waitFor();
       await expect.poll(() => page.getByTestId('seeds-to-sow').innerText()).toMatch(/^sow \d+ seeds$/);
       expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
@@ -260,32 +248,32 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
   });
 
   it('when a grower adds the calculated sowing to the plan, then the plan holds an entry for the lot, its species and the plants wanted', async () => {
-    const context = await browser.newContext({ viewport: DESKTOP });
+    const context = await suite.browser.newContext({ viewport: DESKTOP });
     await context.clock.setFixedTime(new Date(NOW));
     const page = await context.newPage();
     await signIn(page, grower.email);
-    await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lots.good}`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lots.good}`);
     await page.getByLabel('Plants wanted').fill('20');
     await expect.poll(() => page.getByTestId('seeds-to-sow').innerText()).toMatch(/^sow \d+ seeds$/);
     await expect.poll(() => page.getByText(/for 20 plants/).count()).toBeGreaterThan(0);
     await page.getByRole('button', { name: 'Add to the 2027 plan' }).click();
     await expect.poll(() => page.getByRole('status').filter({ hasText: 'Added to the 2027 plan' }).count()).toBe(1);
 
-    const entries = await server.db
+    const entries = await suite.server.db
       .selectFrom('plan_entries')
       .select(['season', 'lot_id', 'species_id', 'plants_wanted', 'start'])
       .where('lot_id', '=', lots.good)
       .execute();
     // Tomato starts indoors in the reference set (startMethod 'indoor'), so the entry does too.
-    expect(entries).toEqual([{ season: 2027, lot_id: lots.good, species_id: await speciesId(server.db, 'tomato'), plants_wanted: 20, start: 'indoors' }]);
+    expect(entries).toEqual([{ season: 2027, lot_id: lots.good, species_id: await speciesId(suite.server.db, 'tomato'), plants_wanted: 20, start: 'indoors' }]);
     await context.close();
   });
 
   it('when a viewer keeps only swapped lots and searches a source, then the treated swap shows, marked as treated seed', async () => {
-    const api = request.agent(server.app);
+    const api = request.agent(suite.server.app);
     await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
-    const swap = await api.post(`/api/banks/${bankId}/lots`).send({
-      speciesId: await speciesId(server.db, 'marigold'),
+    const swap = await api.post(`/api/banks/${suite.bankId}/lots`).send({
+      speciesId: await speciesId(suite.server.db, 'marigold'),
       variety: 'Coated Gift',
       origin: 'swapped',
       sourceName: 'Brookside table',
@@ -295,15 +283,15 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
       code: 'RNK-SWAP',
     });
     expect(swap.status).toBe(201);
-    const context = await browser.newContext({ viewport: DESKTOP });
+    const context = await suite.browser.newContext({ viewport: DESKTOP });
     await context.clock.setFixedTime(new Date(NOW));
     const page = await context.newPage();
     await signIn(page, viewer.email);
-    await page.goto(`${server.baseUrl}/banks/${bankId}/lots`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots`);
     await page.getByRole('combobox', { name: 'Origin' }).selectOption('swapped');
     await expect.poll(() => new URL(page.url()).searchParams.get('origin')).toBe('swapped');
     // Every lot left came by swap (the server's own origins), and the one made here is among them.
-    const swapped = await api.get(`/api/banks/${bankId}/ranking?on=${ON}`);
+    const swapped = await api.get(`/api/banks/${suite.bankId}/ranking?on=${ON}`);
     const swappedCodes = (swapped.body.items as RankingItem[]).filter((i) => i.origin === 'swapped').map((i) => i.code);
     await expect.poll(async () => (await rowCodes(page)).includes('RNK-SWAP')).toBe(true);
     expect(swappedCodes).toEqual(expect.arrayContaining(await rowCodes(page)));
@@ -319,30 +307,30 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
     // Signed in through the API, not the sign-in page: that lands on the overview, which in a bank of
     // 5,000 lots took 36 s to answer on a busy 2-core machine (the subject here is the lots table).
     beforeAll(async () => {
-      const marigold = await speciesId(server.db, 'marigold');
+      const marigold = await speciesId(suite.server.db, 'marigold');
       const values = Array.from({ length: BULK }, (_, i) => ({
-        bank_id: bankId,
+        bank_id: suite.bankId,
         species_id: marigold,
         code: `BULK-${String(i + 1).padStart(4, '0')}`,
         variety: `Bulk ${i + 1}`,
         origin: 'saved' as const,
         harvest_date: '2025-09-01',
       }));
-      for (let i = 0; i < values.length; i += 1000) await server.db.insertInto('lots').values(values.slice(i, i + 1000)).execute();
+      for (let i = 0; i < values.length; i += 1000) await suite.server.db.insertInto('lots').values(values.slice(i, i + 1000)).execute();
       // The bank's ranking asked for once before the pages open, as a bank's would have been: its
       // first fit of 5,000 lots took ~30 s on a busy 2-core machine (a server cost, which
       // `npm run bench` times), and the subject here is what the pages draw.
-      const agent = request.agent(server.app);
+      const agent = request.agent(suite.server.app);
       expect((await agent.post('/api/auth/login').send({ email: viewer.email, password: DEMO_PASSWORD })).status).toBe(200);
-      expect((await agent.get(`/api/banks/${bankId}/ranking?on=${ON}`)).status).toBe(200);
+      expect((await agent.get(`/api/banks/${suite.bankId}/ranking?on=${ON}`)).status).toBe(200);
     });
 
     it('the table, scrolled from the first lot to the last', async () => {
-      const context = await browser.newContext({ viewport: DESKTOP });
+      const context = await suite.browser.newContext({ viewport: DESKTOP });
       await context.clock.setFixedTime(new Date(NOW));
-      await signInThroughApi(context, server.baseUrl, viewer.email);
+      await signInThroughApi(context, suite.server.baseUrl, viewer.email);
       const page = await context.newPage();
-      await page.goto(`${server.baseUrl}/banks/${bankId}/lots?q=BULK-&sort=code:asc`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots?q=BULK-&sort=code:asc`);
       await expect.poll(() => page.getByText(/projected to/).innerText()).toContain(`${BULK.toLocaleString('en')} of`);
       await expect.poll(async () => (await rowCodes(page))[0]).toBe('BULK-0001');
       const rendered = (await rowCodes(page)).length;
@@ -357,11 +345,11 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
     });
 
     it('the phone cards', async () => {
-      const phone = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+      const phone = await suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
       await phone.clock.setFixedTime(new Date(NOW));
-      await signInThroughApi(phone, server.baseUrl, viewer.email);
+      await signInThroughApi(phone, suite.server.baseUrl, viewer.email);
       const phonePage = await phone.newPage();
-      await phonePage.goto(`${server.baseUrl}/banks/${bankId}/lots?q=BULK-`);
+      await phonePage.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots?q=BULK-`);
       const cards = phonePage.locator('li[data-lot]');
       await expect.poll(() => cards.count()).toBeGreaterThan(2);
       expect(await cards.count()).toBeLessThan(30);

@@ -1,25 +1,14 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromiumPath, launchBrowser, startTestServer } from '../helpers/browser';
+import { describe, expect, it } from 'vitest';
+import { browserSuite, chromiumPath } from '../helpers/browser';
 
 describe.skipIf(!chromiumPath)('the built app in Chromium', () => {
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: Browser & { cleanup(): void };
-  beforeAll(async () => {
-    server = await startTestServer();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    browser?.cleanup();
-    await server?.stop();
-  });
+  const suite = browserSuite();
 
   it('when the home page loads, then it is set in Source Sans 3 and no request leaves 127.0.0.1', async () => {
-    const page = await browser.newPage();
+    const page = await suite.browser.newPage();
     const hosts = new Set<string>();
     page.on('request', (req) => hosts.add(new URL(req.url()).hostname));
-    await page.goto(server.baseUrl, { waitUntil: 'networkidle' });
+    await page.goto(suite.server.baseUrl, { waitUntil: 'networkidle' });
     await page.evaluate(() => document.fonts.ready);
 
     const family = await page.evaluate(() => getComputedStyle(document.body).fontFamily);
@@ -33,8 +22,8 @@ describe.skipIf(!chromiumPath)('the built app in Chromium', () => {
   });
 
   it('when an unknown path is opened, then the not-found page shows', async () => {
-    const page = await browser.newPage();
-    await page.goto(`${server.baseUrl}/no/such/page`);
+    const page = await suite.browser.newPage();
+    await page.goto(`${suite.server.baseUrl}/no/such/page`);
     await expect.poll(() => page.locator('body').innerText()).toMatch(/not found|no page|nothing here/i);
     await page.close();
   });

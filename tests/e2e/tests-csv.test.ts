@@ -1,8 +1,8 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
+import type { Page } from 'playwright-core';
+import { beforeAll, describe, expect } from 'vitest';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/db/seed-demo';
 import { signIn } from '../helpers/accounts';
-import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
+import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
 import { speciesId } from '../helpers/lots';
 
@@ -12,33 +12,19 @@ const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
 const DESKTOP = { width: 1280, height: 900 };
 
 describe.skipIf(!chromiumPath)('importing germination tests in Chromium', () => {
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: Browser & { cleanup(): void };
-  let bankId: string;
-
-  beforeAll(async () => {
-    server = await startTestServer({ now: new Date().toISOString() });
-    await seedDemo(server.db);
-    bankId = (await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()).id;
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    browser?.cleanup();
-    await server?.stop();
-  });
+  const suite = browserSuite({ now: new Date().toISOString(), demo: 'people' });
 
   // One test per step on one page: the whole import in one test ran near the 60 s timeout.
   describe('when a grower imports a small tests file, then the preview lists the test and the lot page shows it with its result', () => {
     let lot: { id: string; code: string };
     let before: string | null;
     const stock = async () =>
-      (await server.db.selectFrom('stock_movements').select((eb) => eb.fn.sum<string>('change').as('s')).where('lot_id', '=', lot.id).executeTakeFirstOrThrow()).s;
+      (await suite.server.db.selectFrom('stock_movements').select((eb) => eb.fn.sum<string>('change').as('s')).where('lot_id', '=', lot.id).executeTakeFirstOrThrow()).s;
     beforeAll(async () => {
-      const api = await signIn(server.app, grower.email, DEMO_PASSWORD);
+      const api = await signIn(suite.server.app, grower.email, DEMO_PASSWORD);
       const created = await api
-        .post(`/api/banks/${bankId}/lots`)
-        .send({ speciesId: await speciesId(server.db, 'tomato'), variety: 'Winter Window', origin: 'saved', harvestDate: '2025-09-01', seedCount: 150, code: 'TOM-WIN-1' });
+        .post(`/api/banks/${suite.bankId}/lots`)
+        .send({ speciesId: await speciesId(suite.server.db, 'tomato'), variety: 'Winter Window', origin: 'saved', harvestDate: '2025-09-01', seedCount: 150, code: 'TOM-WIN-1' });
       expect(created.status).toBe(201);
       lot = created.body.lot as { id: string; code: string };
       before = await stock();
@@ -54,12 +40,12 @@ describe.skipIf(!chromiumPath)('importing germination tests in Chromium', () => 
     const testItem = (page: Page) =>
       page.getByRole('list', { name: 'Germination tests of this lot' }).getByRole('listitem').filter({ hasText: 'folded towel' });
 
-    const j = journeyOfTests('tests-csv', () => browser.newContext({ viewport: DESKTOP }), {
-      first: { title: 'sign in as grower', run: (page) => signInAt(page, server.baseUrl, grower.email, bankId) },
+    const j = journeyOfTests('tests-csv', () => suite.browser.newContext({ viewport: DESKTOP }), {
+      first: { title: 'sign in as grower', run: (page) => signInAt(page, suite.server.baseUrl, grower.email, suite.bankId) },
     });
     j.step('open the tests import from the lots page', async (page) => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/lots`);
-      expect(await page.getByRole('link', { name: 'Export tests CSV' }).getAttribute('href')).toBe(`/api/banks/${bankId}/tests.csv`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots`);
+      expect(await page.getByRole('link', { name: 'Export tests CSV' }).getAttribute('href')).toBe(`/api/banks/${suite.bankId}/tests.csv`);
       await page.getByRole('link', { name: 'Import CSV' }).first().click();
       await page.getByRole('radio', { name: /Germination tests/ }).check();
       await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Import germination tests from CSV');
@@ -80,7 +66,7 @@ describe.skipIf(!chromiumPath)('importing germination tests in Chromium', () => 
       await expect.poll(() => page.getByRole('status').filter({ hasText: '1 germination test was added' }).count()).toBe(1);
     });
     j.step('the lot page shows it with its result, and the stock is as it was', async (page) => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/lots/${lot.id}`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lot.id}`);
       const item = testItem(page);
       await expect.poll(() => item.count()).toBe(1);
       const text = await item.innerText();

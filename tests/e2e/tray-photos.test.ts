@@ -1,11 +1,11 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
-import { chromiumPath, launchBrowser, signInAt, startTestServer } from '../helpers/browser';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/db/seed-demo';
+import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { jpeg } from '../helpers/images';
 import { journeyOfTests } from '../helpers/journey';
 import { speciesId } from '../helpers/lots';
@@ -18,50 +18,41 @@ const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;
 const PHONE = { width: 390, height: 844 };
 
 describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () => {
-  let server: Awaited<ReturnType<typeof startTestServer>>;
-  let browser: Browser & { cleanup(): void };
-  let bankId: string;
+  const suite = browserSuite({ now: '2026-03-10T09:00:00Z', demo: 'people' });
   let testId: string;
   let trayIds: string[];
   let tmp: string;
 
   beforeAll(async () => {
-    server = await startTestServer({ now: '2026-03-10T09:00:00Z' });
-    await seedDemo(server.db);
-    bankId = (await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()).id;
-    const api = request.agent(server.app);
+    const api = request.agent(suite.server.app);
     expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
     const lot = await api
-      .post(`/api/banks/${bankId}/lots`)
-      .send({ speciesId: await speciesId(server.db, 'pepper'), variety: 'Tray Snap', origin: 'saved', harvestDate: '2025-09-10', seedCount: 200 });
+      .post(`/api/banks/${suite.bankId}/lots`)
+      .send({ speciesId: await speciesId(suite.server.db, 'pepper'), variety: 'Tray Snap', origin: 'saved', harvestDate: '2025-09-10', seedCount: 200 });
     expect(lot.status).toBe(201);
     const test = await api
-      .post(`/api/banks/${bankId}/lots/${lot.body.lot.id}/tests`)
+      .post(`/api/banks/${suite.bankId}/lots/${lot.body.lot.id}/tests`)
       .send({ startDate: '2026-03-05', method: 'paper towel', trays: [{ seedsSown: 20 }, { seedsSown: 20 }, { seedsSown: 20 }] });
     expect(test.status).toBe(201);
     testId = test.body.test.id;
     trayIds = (test.body.trays as { id: string }[]).map((t) => t.id);
     tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-tray-photos-'));
-    browser = await launchBrowser();
   });
   afterAll(async () => {
-    await browser?.close();
-    browser?.cleanup();
-    await server?.stop();
     if (tmp) fs.rmSync(tmp, { recursive: true, force: true });
   });
 
-  const signIn = (page: Page, email: string) => signInAt(page, server.baseUrl, email, bankId);
+  const signIn = (page: Page, email: string) => signInAt(page, suite.server.baseUrl, email, suite.bankId);
 
   // The grower's steps are tests of their own on one page, and the viewer's look another: one test
   // for all of it ran near the 60 s timeout on a busy machine.
   describe('when a grower photographs tray 2 on a phone, then the photo belongs to tray 2 alone and a viewer sees it without an upload', () => {
     const trayPhotos = (page: Page) => page.locator('section').filter({ has: page.getByRole('heading', { name: 'Tray photos' }) });
-    const j = journeyOfTests('tray-photos', () => browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }), {
+    const j = journeyOfTests('tray-photos', () => suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }), {
       first: { title: 'sign in as grower', run: (page) => signIn(page, grower.email) },
     });
     j.step('photograph tray 2', async (page) => {
-      await page.goto(`${server.baseUrl}/banks/${bankId}/tests/${testId}`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
       const card = trayPhotos(page);
       await card.getByRole('button', { name: 'Tray 2' }).tap();
       expect(await card.getByRole('button', { name: 'Tray 2' }).getAttribute('aria-pressed')).toBe('true');
@@ -74,7 +65,7 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
       await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBeGreaterThan(0);
     });
     it('the server stores it against tray 2 of this test, and no other tray', async () => {
-      const rows = await server.db.selectFrom('photos').select(['subject', 'subject_id']).where('bank_id', '=', bankId).where('subject', '=', 'tray').execute();
+      const rows = await suite.server.db.selectFrom('photos').select(['subject', 'subject_id']).where('bank_id', '=', suite.bankId).where('subject', '=', 'tray').execute();
       expect(rows).toEqual([{ subject: 'tray', subject_id: trayIds[1] }]);
     });
     j.step('tray 1 has none', async (page) => {
@@ -84,10 +75,10 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
       expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
     });
     it('a viewer sees the photo of tray 2 and is offered no upload', async () => {
-      const viewerContext = await browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+      const viewerContext = await suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
       const viewerPage = await viewerContext.newPage();
       await signIn(viewerPage, viewer.email);
-      await viewerPage.goto(`${server.baseUrl}/banks/${bankId}/tests/${testId}`);
+      await viewerPage.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
       const card = trayPhotos(viewerPage);
       await card.getByRole('button', { name: 'Tray 2' }).tap();
       await card.getByRole('img', { name: /^Tray 2 of the PEP-/ }).waitFor();

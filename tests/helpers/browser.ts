@@ -4,9 +4,9 @@ import type { AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { vi } from 'vitest';
-import { createApp } from '../../server/app';
-import { DEMO_PASSWORD } from '../../server/db/seed-demo';
+import { afterAll, beforeAll, vi } from 'vitest';
+import { seedDemoScenario } from '../../server/db/demo-scenario';
+import { DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
 import { createTestContext, type TestContext } from './context';
 
 export const chromiumPath = process.env.HILUM_CHROMIUM ?? (fs.existsSync('/usr/bin/chromium') ? '/usr/bin/chromium' : '');
@@ -25,8 +25,11 @@ if (!chromiumPath) {
 export const POLL_TIMEOUT_MS = 20_000;
 vi.setConfig({ expect: { poll: { timeout: POLL_TIMEOUT_MS } } });
 
+export type TestBrowser = Browser & { cleanup(): void };
+export type TestServer = Awaited<ReturnType<typeof startTestServer>>;
+
 /** Debian's chromium, headless, with a fresh profile and no background traffic. */
-export async function launchBrowser(): Promise<Browser & { cleanup(): void }> {
+export async function launchBrowser(): Promise<TestBrowser> {
   const home = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-chromium-'));
   const browser = await chromium.launch({
     executablePath: chromiumPath,
@@ -55,16 +58,70 @@ export async function startTestServer(
   const { port } = server.address() as AddressInfo;
   const baseUrl = `http://127.0.0.1:${port}`;
   const ctx = await createTestContext({ ...options, config: { ...options.config, appOrigin: baseUrl } });
-  const app = createApp({ config: ctx.config, db: ctx.db, storage: ctx.storage, mailer: ctx.mailer, clock: ctx.clock });
-  server.on('request', app);
+  server.on('request', ctx.app);
   return {
     ...ctx,
-    app,
     baseUrl,
     async stop() {
       server.closeAllConnections();
       await new Promise((r) => server.close(r));
       await ctx.close();
+    },
+  };
+}
+
+export interface BrowserSuite {
+  /** The real app with the built client on a free loopback port. */
+  readonly server: TestServer;
+  readonly browser: TestBrowser;
+  /** The demo bank's id; only with `demo: 'people'` or `'season'`. */
+  readonly bankId: string;
+}
+
+/**
+ * The setup every browser test file shares, as a beforeAll and an afterAll of the describe block it
+ * is called in (call it first, so the block's own beforeAll runs after it): the real app on a free
+ * port with its test clock at `now`; with `demo: 'people'` the demo people and bank
+ * (server/db/seed-demo.ts), with `demo: 'season'` the whole demo season of lots and tests
+ * (server/db/demo-scenario.ts) as of `now`; and a headless Chromium. All of it is closed after the
+ * block. `timeoutMs` is the beforeAll's timeout, for the longer set-ups.
+ */
+export function browserSuite(
+  options: { now?: string; demo?: 'people' | 'season'; timeoutMs?: number } = {},
+): BrowserSuite {
+  let server: TestServer | undefined;
+  let browser: TestBrowser | undefined;
+  let bankId: string | undefined;
+  beforeAll(async () => {
+    server = await startTestServer(options.now ? { now: options.now } : {});
+    if (options.demo === 'season') {
+      const seeded = await seedDemoScenario({ db: server.db, storage: server.storage, mailer: server.mailer, clock: server.clock, appOrigin: server.baseUrl });
+      if (!seeded) throw new Error('the demo season was not seeded: its database already held lots');
+      bankId = seeded.bankId;
+    } else if (options.demo === 'people') {
+      await seedDemo(server.db);
+      bankId = (await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()).id;
+    }
+    browser = await launchBrowser();
+  }, options.timeoutMs);
+  afterAll(async () => {
+    await browser?.close();
+    browser?.cleanup();
+    await server?.stop();
+  });
+  const ready = <T>(value: T | undefined, what: string): T => {
+    if (value === undefined) throw new Error(`the browser suite has no ${what}: its beforeAll did not run or failed`);
+    return value;
+  };
+  return {
+    get server() {
+      return ready(server, 'server');
+    },
+    get browser() {
+      return ready(browser, 'browser');
+    },
+    get bankId() {
+      return ready(bankId, "bank (pass demo: 'people' or 'season')");
     },
   };
 }
