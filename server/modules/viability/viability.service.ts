@@ -5,7 +5,6 @@ import type { SpeciesDto } from '../../../shared/schemas/species';
 import type { RankingItem as RankingRow } from '../../../shared/schemas/viability';
 import { systemClock, todayInZone, type Clock } from '../../clock';
 import type { Db } from '../../db/database';
-import { sql } from 'kysely';
 import { notFound, unprocessable } from '../../http/errors';
 import { seedsToSowPredictive, temperatureFactor } from '../../stats';
 import {
@@ -18,6 +17,8 @@ import {
 } from '../../stats/viability-model';
 import { listSpecies } from '../species/species.service';
 import { lotsForDecisions, type DecisionLot } from '../lots/lots.repository';
+import * as repo from './viability.repository';
+import { testAggregates, viabilityStamps, type TestAggregate } from './viability.repository';
 import { decide, retestDueDate, straddles, type Recommendation } from './recommend';
 
 /**
@@ -49,60 +50,6 @@ export function storageTemperature(storage: {
 }): number | null {
   if (storage.temperatureC !== null) return storage.temperatureC;
   return storage.place ? PLACE_TEMPERATURE_C[storage.place] : null;
-}
-
-/** A test as the model and the ranking read it: its stored result (germination/test-results.ts). */
-interface TestAggregate {
-  id: string;
-  lot_id: string;
-  start_date: string;
-  status: 'running' | 'finished';
-  /** Null while no tray of the test has been counted. */
-  sown: number | null;
-  germinated: number | null;
-  percent: number | null;
-  last_count_date: string | null;
-  mean_days: number | null;
-  /** Fresh (dormant but alive) seeds recorded at the finish, pooled; null when not recorded. */
-  fresh: number | null;
-  /** Why the grower set the whole test aside (mouldy towel, too cold); it then leaves the model. */
-  set_aside_reason: string | null;
-}
-
-/** The tests of the bank's lots of the given species, with their stored results, oldest first. */
-async function testAggregates(db: Db, bankId: string, speciesIds: string[]): Promise<TestAggregate[]> {
-  if (speciesIds.length === 0) return [];
-  return db
-    .selectFrom('germination_tests as t')
-    .innerJoin('lots as l', 'l.id', 't.lot_id')
-    .select([
-      't.id',
-      't.lot_id',
-      't.start_date',
-      't.status',
-      't.result_sown as sown',
-      't.result_germinated as germinated',
-      't.result_percent as percent',
-      't.result_last_count_date as last_count_date',
-      't.result_mean_days as mean_days',
-      sql<number | null>`(t.result->>'fresh')::int`.as('fresh'),
-      't.set_aside_reason',
-    ])
-    .where('t.bank_id', '=', bankId)
-    .where('l.species_id', 'in', speciesIds)
-    .orderBy('t.start_date')
-    .orderBy('t.created_at')
-    .execute();
-}
-
-/** Each species' viability stamp in the bank: it moves whenever an input of its fits changes. */
-async function viabilityStamps(db: Db, bankId: string): Promise<Map<string, string>> {
-  const rows = await db
-    .selectFrom('viability_stamps')
-    .select(['species_id', 'stamp'])
-    .where('bank_id', '=', bankId)
-    .execute();
-  return new Map(rows.map((r) => [r.species_id, String(r.stamp)]));
 }
 
 /** A test counts toward the decline once finished, or once counted up to the species' final count day. */
@@ -386,11 +333,7 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
   /** Ranking rows memoised on the fit they read, with their rendered form once asked for. */
   const rankingRows = new WeakMap<LotViability, Map<string, { item: RankingRow; rendered?: Buffer }>>();
   async function bankSettings(bankId: string) {
-    const bank = await db
-      .selectFrom('banks')
-      .select(['sow_threshold_percent', 'establishment_factor', 'sowing_assurance', 'time_zone'])
-      .where('id', '=', bankId)
-      .executeTakeFirstOrThrow();
+    const bank = await repo.viabilitySettings(db, bankId);
     return {
       threshold: bank.sow_threshold_percent,
       establishment: Number(bank.establishment_factor),
@@ -406,14 +349,7 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
 
   /** Seeds the bank's unsown plan entries need, by lot. */
   async function seedsNeededByLot(bankId: string): Promise<Map<string, number>> {
-    const rows = await db
-      .selectFrom('plan_entries')
-      .select(['lot_id', sql<number>`sum(seeds_to_sow)::int`.as('seeds')])
-      .where('bank_id', '=', bankId)
-      .where('sown_on', 'is', null)
-      .where('lot_id', 'is not', null)
-      .groupBy('lot_id')
-      .execute();
+    const rows = await repo.unsownSeedsByLot(db, bankId);
     return new Map(rows.map((r) => [r.lot_id!, r.seeds]));
   }
 
@@ -498,12 +434,7 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
   /** The lot's decline, fitted together with the species' other lots in the bank. */
   async function lotViability(bankId: string, lotId: string) {
     const settings = await bankSettings(bankId);
-    const found = await db
-      .selectFrom('lots')
-      .select('species_id')
-      .where('id', '=', lotId)
-      .where('bank_id', '=', bankId)
-      .executeTakeFirst();
+    const found = await repo.lotSpecies(db, bankId, lotId);
     if (!found) throw notFound('No such lot in this bank.');
     // The stamps before the lots and tests they vouch for (see fitLots).
     const stamps = await viabilityStamps(db, bankId);

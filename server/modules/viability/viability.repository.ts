@@ -1,0 +1,84 @@
+import { sql } from 'kysely';
+import type { DbOrTx } from '../../db/database';
+
+/** A test as the model and the ranking read it: its stored result (germination/test-results.ts). */
+export interface TestAggregate {
+  id: string;
+  lot_id: string;
+  start_date: string;
+  status: 'running' | 'finished';
+  /** Null while no tray of the test has been counted. */
+  sown: number | null;
+  germinated: number | null;
+  percent: number | null;
+  last_count_date: string | null;
+  mean_days: number | null;
+  /** Fresh (dormant but alive) seeds recorded at the finish, pooled; null when not recorded. */
+  fresh: number | null;
+  /** Why the grower set the whole test aside (mouldy towel, too cold); it then leaves the model. */
+  set_aside_reason: string | null;
+}
+
+/** The tests of the bank's lots of the given species, with their stored results, oldest first. */
+export async function testAggregates(db: DbOrTx, bankId: string, speciesIds: string[]): Promise<TestAggregate[]> {
+  if (speciesIds.length === 0) return [];
+  return db
+    .selectFrom('germination_tests as t')
+    .innerJoin('lots as l', 'l.id', 't.lot_id')
+    .select([
+      't.id',
+      't.lot_id',
+      't.start_date',
+      't.status',
+      't.result_sown as sown',
+      't.result_germinated as germinated',
+      't.result_percent as percent',
+      't.result_last_count_date as last_count_date',
+      't.result_mean_days as mean_days',
+      sql<number | null>`(t.result->>'fresh')::int`.as('fresh'),
+      't.set_aside_reason',
+    ])
+    .where('t.bank_id', '=', bankId)
+    .where('l.species_id', 'in', speciesIds)
+    .orderBy('t.start_date')
+    .orderBy('t.created_at')
+    .execute();
+}
+
+/** Each species' viability stamp in the bank: it moves whenever an input of its fits changes. */
+export async function viabilityStamps(db: DbOrTx, bankId: string): Promise<Map<string, string>> {
+  const rows = await db
+    .selectFrom('viability_stamps')
+    .select(['species_id', 'stamp'])
+    .where('bank_id', '=', bankId)
+    .execute();
+  return new Map(rows.map((r) => [r.species_id, String(r.stamp)]));
+}
+
+/** The bank's settings the decisions read. */
+export const viabilitySettings = (db: DbOrTx, bankId: string) =>
+  db
+    .selectFrom('banks')
+    .select(['sow_threshold_percent', 'establishment_factor', 'sowing_assurance', 'time_zone'])
+    .where('id', '=', bankId)
+    .executeTakeFirstOrThrow();
+
+/** Seeds the bank's unsown plan entries need, summed by lot. */
+export const unsownSeedsByLot = (db: DbOrTx, bankId: string) =>
+  db
+    .selectFrom('plan_entries')
+    .select(['lot_id', sql<number>`sum(seeds_to_sow)::int`.as('seeds')])
+    .where('bank_id', '=', bankId)
+    .where('sown_on', 'is', null)
+    .where('lot_id', 'is not', null)
+    .groupBy('lot_id')
+    .execute();
+
+/** The lot's species, when the lot is in the bank. */
+export const lotSpecies = (db: DbOrTx, bankId: string, lotId: string) =>
+  db
+    .selectFrom('lots')
+    .select('species_id')
+    .where('id', '=', lotId)
+    .where('bank_id', '=', bankId)
+    .executeTakeFirst();
