@@ -15,7 +15,8 @@ function nonRepositoryFiles(dir: string): string[] {
   });
 }
 
-const withoutComments = (source: string) => source.replace(/\/\*[\s\S]*?\*\//g, '').replace(/(^|[^:'"`])\/\/.*$/gm, '$1');
+const withoutComments = (source: string) =>
+  source.replace(/\/\*[\s\S]*?\*\//g, '').replace(/(^|[^:'"`])\/\/.*$/gm, '$1');
 
 const QUERY_CALL = /\.\s*(selectFrom|insertInto|updateTable|deleteFrom)\s*\(/;
 /** Kysely's raw `sql` tag, however it is brought in or used. */
@@ -46,6 +47,8 @@ describe('server modules reach the database only through their repositories', ()
     expect(queriesIn('await sql`select 1`.execute(db);')).toHaveLength(1);
     expect(queriesIn('const n = sql<number>`count(*)`;')).toHaveLength(1);
     expect(queriesIn("// the repository's selectFrom('lots') does this\nconst x = 1;")).toEqual([]);
-    expect(queriesIn("import type { Selectable } from 'kysely';\nconst url = 'https://example.org/sql';")).toEqual([]);
+    expect(
+      queriesIn("import type { Selectable } from 'kysely';\nconst url = 'https://example.org/sql';"),
+    ).toEqual([]);
   });
 });

@@ -34,19 +34,41 @@ export function testsWithLotByCode(on: DbOrTx, bankId: string) {
 
 /** The counts of these trays, by date. */
 export function countsOfTrays(on: DbOrTx, trayIds: string[]) {
-  return on.selectFrom('tray_counts').select(['tray_id', 'check_date', 'cumulative']).where('tray_id', 'in', trayIds).orderBy('check_date').execute();
+  return on
+    .selectFrom('tray_counts')
+    .select(['tray_id', 'check_date', 'cumulative'])
+    .where('tray_id', 'in', trayIds)
+    .orderBy('check_date')
+    .execute();
 }
 
 /** The trays of the tests, by position, and their counts, by date. */
 export async function traysAndCounts(on: DbOrTx, testIds: string[]) {
-  const trays = testIds.length ? await on.selectFrom('test_trays').selectAll().where('test_id', 'in', testIds).orderBy('position').execute() : [];
-  const counts = trays.length ? await countsOfTrays(on, trays.map((tr) => tr.id)) : [];
+  const trays = testIds.length
+    ? await on
+        .selectFrom('test_trays')
+        .selectAll()
+        .where('test_id', 'in', testIds)
+        .orderBy('position')
+        .execute()
+    : [];
+  const counts = trays.length
+    ? await countsOfTrays(
+        on,
+        trays.map((tr) => tr.id),
+      )
+    : [];
   return { trays, counts };
 }
 
 /** Whether the lot has any germination test (shared: the lots module asks before deleting a lot). */
 export async function lotHasTests(db: DbOrTx, lotId: string): Promise<boolean> {
-  const row = await db.selectFrom('germination_tests').select('id').where('lot_id', '=', lotId).limit(1).executeTakeFirst();
+  const row = await db
+    .selectFrom('germination_tests')
+    .select('id')
+    .where('lot_id', '=', lotId)
+    .limit(1)
+    .executeTakeFirst();
   return Boolean(row);
 }
 
@@ -72,7 +94,10 @@ export function insertTrays(on: DbOrTx, values: Insertable<TestTrayTable>[]) {
   return on.insertInto('test_trays').values(values).execute();
 }
 
-export function insertCounts(on: DbOrTx, values: { tray_id: string; check_date: string; cumulative: number; created_by: string }[]) {
+export function insertCounts(
+  on: DbOrTx,
+  values: { tray_id: string; check_date: string; cumulative: number; created_by: string }[],
+) {
   return on.insertInto('tray_counts').values(values).execute();
 }
 
@@ -103,7 +128,9 @@ export function traysInOrder(on: DbOrTx, testId: string) {
 }
 
 export async function trayIdsOf(on: DbOrTx, testId: string): Promise<string[]> {
-  return (await on.selectFrom('test_trays').select('id').where('test_id', '=', testId).execute()).map((r) => r.id);
+  return (await on.selectFrom('test_trays').select('id').where('test_id', '=', testId).execute()).map(
+    (r) => r.id,
+  );
 }
 
 /** The counts of these trays on every date but `date`, by date. */
@@ -127,7 +154,11 @@ export function upsertCount(on: DbOrTx, trayId: string, date: string, cumulative
 }
 
 export function deleteCountsOn(on: DbOrTx, trayIds: string[], date: string) {
-  return on.deleteFrom('tray_counts').where('tray_id', 'in', trayIds).where('check_date', '=', date).executeTakeFirst();
+  return on
+    .deleteFrom('tray_counts')
+    .where('tray_id', 'in', trayIds)
+    .where('check_date', '=', date)
+    .executeTakeFirst();
 }
 
 export function updateTray(on: DbOrTx, trayId: string, changes: Updateable<TestTrayTable>) {
@@ -136,7 +167,12 @@ export function updateTray(on: DbOrTx, trayId: string, changes: Updateable<TestT
 
 /** Sets a tray of the test aside (or back); the result says whether the tray was found. */
 export function setTrayAsideReason(on: DbOrTx, testId: string, trayId: string, reason: string | null) {
-  return on.updateTable('test_trays').set({ set_aside_reason: reason }).where('id', '=', trayId).where('test_id', '=', testId).executeTakeFirst();
+  return on
+    .updateTable('test_trays')
+    .set({ set_aside_reason: reason })
+    .where('id', '=', trayId)
+    .where('test_id', '=', testId)
+    .executeTakeFirst();
 }
 
 export function deleteTest(on: DbOrTx, testId: string) {
@@ -161,7 +197,13 @@ export function testStartDates(on: DbOrTx, testIds: string[]) {
 
 /** The trays of the tests, by test and position. */
 export function traysOfTests(on: DbOrTx, testIds: string[]) {
-  return on.selectFrom('test_trays').selectAll().where('test_id', 'in', testIds).orderBy('test_id').orderBy('position').execute();
+  return on
+    .selectFrom('test_trays')
+    .selectAll()
+    .where('test_id', 'in', testIds)
+    .orderBy('test_id')
+    .orderBy('position')
+    .execute();
 }
 
 /** The last check date of each test's trays that enter the figures (set-aside trays left out). */
@@ -177,7 +219,12 @@ export function lastCountRows(on: DbOrTx, testIds: string[]) {
 }
 
 /** Writes the results of a batch of tests in one statement, stamped with `version`. */
-export async function writeResults(on: DbOrTx, rows: { testId: string; r: TestSummary }[], last: Map<string, string>, version: number) {
+export async function writeResults(
+  on: DbOrTx,
+  rows: { testId: string; r: TestSummary }[],
+  last: Map<string, string>,
+  version: number,
+) {
   await sql`
     update germination_tests g set
       result = v.result::jsonb,
@@ -201,5 +248,11 @@ export async function writeResults(on: DbOrTx, rows: { testId: string; r: TestSu
 
 /** Up to `limit` tests stored under a definition older than `version`, by id. */
 export function staleTestIds(on: DbOrTx, version: number, limit: number) {
-  return on.selectFrom('germination_tests').select('id').where('result_version', '<', version).orderBy('id').limit(limit).execute();
+  return on
+    .selectFrom('germination_tests')
+    .select('id')
+    .where('result_version', '<', version)
+    .orderBy('id')
+    .limit(limit)
+    .execute();
 }

@@ -16,7 +16,9 @@ export function overviewRoutes(deps: { db: Db; clock: Clock; viability: Viabilit
   const router = Router({ mergeParams: true });
   router.get('/', requireRole('viewer'), async (req, res) => {
     const bankId = req.bank!.id;
-    const today = parse(z.object({ on: isoDateSchema.optional() }), req.query, 'query').on ?? (await bankToday(deps.db, deps.clock, bankId));
+    const today =
+      parse(z.object({ on: isoDateSchema.optional() }), req.query, 'query').on ??
+      (await bankToday(deps.db, deps.clock, bankId));
     respond(res, 200, overviewSchema, await overview.week(bankId, today));
   });
   return router;

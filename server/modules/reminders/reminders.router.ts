@@ -17,7 +17,9 @@ export function reminderRoutes(db: Db): Router {
   });
   router.patch('/', requireRole('viewer'), async (req, res) => {
     const body = parse(reminderPrefsBodySchema, req.body, 'reminder choices');
-    respond(res, 200, one, { preferences: await setReminderPreferences(db, req.bank!.id, req.auth!.userId, body) });
+    respond(res, 200, one, {
+      preferences: await setReminderPreferences(db, req.bank!.id, req.auth!.userId, body),
+    });
   });
   return router;
 }

@@ -20,7 +20,11 @@ export interface TestAggregate {
 }
 
 /** The tests of the bank's lots of the given species, with their stored results, oldest first. */
-export async function testAggregates(db: DbOrTx, bankId: string, speciesIds: string[]): Promise<TestAggregate[]> {
+export async function testAggregates(
+  db: DbOrTx,
+  bankId: string,
+  speciesIds: string[],
+): Promise<TestAggregate[]> {
   if (speciesIds.length === 0) return [];
   return db
     .selectFrom('germination_tests as t')
