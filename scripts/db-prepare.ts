@@ -3,9 +3,9 @@
 import { systemClock } from '../server/clock';
 import { loadConfig } from '../server/config';
 import { createDb } from '../server/db/database';
-import { seedDemoScenario } from '../server/db/demo-scenario';
+import { seedDemoScenario } from '../server/demo/demo-scenario';
 import { migrateToLatest } from '../server/db/migrate';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME, isDemoSeeded } from '../server/db/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_BANK_NAME, isDemoSeeded } from '../server/demo/seed-demo';
 import { createMailer } from '../server/mail/mailer';
 import { refreshStaleResults } from '../server/modules/germination/test-results';
 import { syncReferenceSpecies } from '../server/modules/species/reference-sync';

@@ -2,12 +2,12 @@ import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { beforeAll, describe, expect } from 'vitest';
 import type { RankingItem, RecommendationValue, SeedsToSowResponse, ViabilityResponse } from '../../shared/schemas/viability';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/db/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/seed-demo';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests, seriousViolations } from '../helpers/journey';
 import { finishedTest, speciesId } from '../helpers/lots';
 
-// The circle, its people, lots and tests are the invented demo season of server/db/demo-scenario.ts,
+// The circle, its people, lots and tests are the invented demo season of server/demo/demo-scenario.ts,
 // seeded as of the server's fake "now" below; the advice is the server's own (docs/decisions.md).
 const NOW = '2026-12-01T09:00:00Z';
 // The demo bank's last frost is 24 May (seed-demo.ts); Hilum's default sowing date is eight weeks

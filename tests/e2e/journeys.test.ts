@@ -6,7 +6,7 @@ import jStat from 'jstat';
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../server/db/seed-demo';
+import { DEMO_PASSWORD } from '../../server/demo/seed-demo';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { enterCounts } from '../helpers/count-entry';
 import { journeyOfTests, seriousViolations } from '../helpers/journey';

@@ -4,7 +4,7 @@ import { addDays } from '../../shared/plan-dates';
 import { browserSuite, chromiumPath } from '../helpers/browser';
 
 // The circle, its people, lots and running test are the invented demo scenario of
-// server/db/demo-scenario.ts, seeded as of the server's fake "now" below.
+// server/demo/demo-scenario.ts, seeded as of the server's fake "now" below.
 const NOW = '2026-12-01T09:00:00Z';
 const TODAY = NOW.slice(0, 10);
 

@@ -2,12 +2,12 @@ import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { RankingItem } from '../../shared/schemas/viability';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/db/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/seed-demo';
 import { browserSuite, chromiumPath, signInAt, signInThroughApi } from '../helpers/browser';
 import { journey, journeyOfTests, seriousViolations } from '../helpers/journey';
 import { finishedTest, speciesId } from '../helpers/lots';
 
-// The people and the bank are the invented demo scenario of server/db/seed-demo.ts; the lots
+// The people and the bank are the invented demo scenario of server/demo/seed-demo.ts; the lots
 // below are made here (codes RNK-…), so the test does not lean on whatever else the demo holds.
 const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
 const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;

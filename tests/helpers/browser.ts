@@ -5,8 +5,8 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll, vi } from 'vitest';
-import { seedDemoScenario } from '../../server/db/demo-scenario';
-import { DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/db/seed-demo';
+import { seedDemoScenario } from '../../server/demo/demo-scenario';
+import { DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/demo/seed-demo';
 import { createTestContext, type TestContext } from './context';
 
 export const chromiumPath = process.env.HILUM_CHROMIUM ?? (fs.existsSync('/usr/bin/chromium') ? '/usr/bin/chromium' : '');
@@ -82,8 +82,8 @@ export interface BrowserSuite {
  * The setup every browser test file shares, as a beforeAll and an afterAll of the describe block it
  * is called in (call it first, so the block's own beforeAll runs after it): the real app on a free
  * port with its test clock at `now`; with `demo: 'people'` the demo people and bank
- * (server/db/seed-demo.ts), with `demo: 'season'` the whole demo season of lots and tests
- * (server/db/demo-scenario.ts) as of `now`; and a headless Chromium. All of it is closed after the
+ * (server/demo/seed-demo.ts), with `demo: 'season'` the whole demo season of lots and tests
+ * (server/demo/demo-scenario.ts) as of `now`; and a headless Chromium. All of it is closed after the
  * block. `timeoutMs` is the beforeAll's timeout, for the longer set-ups.
  */
 export function browserSuite(

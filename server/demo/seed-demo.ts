@@ -1,6 +1,6 @@
 import { hashPassword } from '../auth/password';
-import type { Db } from './database';
-import type { Role } from './schema';
+import type { Db } from '../db/database';
+import type { Role } from '../db/schema';
 
 // Everything here is an invented scenario for the demo: no real people, places or data.
 export const DEMO_PASSWORD = 'hilum-demo-seeds';

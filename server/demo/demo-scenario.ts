@@ -17,7 +17,7 @@ import { processPhoto } from '../photos/process-photo';
 import { storeProcessedPhoto } from '../photos/store-photo';
 import type { ObjectStore } from '../storage/object-store';
 import { normalCdf } from '../stats/distributions';
-import type { Db } from './database';
+import type { Db } from '../db/database';
 import { DEMO_BANK_NAME, seedDemo } from './seed-demo';
 
 /** mulberry32: a small seeded generator, so the demo is the same on every machine. */
