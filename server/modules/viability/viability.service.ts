@@ -257,7 +257,9 @@ async function fitLots(
     if (list) list.push(t);
     else testsBySpecies.set(sp, [t]);
   }
-  for (const s of stale) {
+  for (const [i, s] of stale.entries()) {
+    // A bank's first fits can take seconds: let other requests in between species.
+    if (i > 0) await new Promise((resolve) => setImmediate(resolve));
     const byLot = fitSpecies(s.group, testsBySpecies.get(s.speciesId) ?? [], species.get(s.speciesId));
     cache.set(s.key, { stamp: s.stamp, traits: s.traits, byLot });
     for (const [id, v] of byLot) out.set(id, v);
