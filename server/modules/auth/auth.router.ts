@@ -15,6 +15,7 @@ import { parse } from '../../http/errors';
 import { limitPerIpAndEmail } from '../../http/rate-limit';
 import { respond } from '../../http/respond';
 import type { AuthService } from './auth.service';
+import { authOf } from '../../http/request-context';
 
 const userResponse = z.object({ user: userSchema });
 const FIFTEEN_MINUTES = 15 * 60 * 1000;
@@ -60,7 +61,7 @@ export function authRouter(service: AuthService, options: { secureCookies: boole
   });
 
   router.post('/logout-all', requireAuth, async (req, res) => {
-    await service.logoutEverywhere(req.auth!.userId);
+    await service.logoutEverywhere(authOf(req).userId);
     res.clearCookie(SESSION_COOKIE, cookie);
     res.status(204).end();
   });
@@ -92,7 +93,7 @@ export function authRouter(service: AuthService, options: { secureCookies: boole
 export function meRouter(service: AuthService): Router {
   const router = Router();
   router.get('/', requireAuth, async (req, res) => {
-    respond(res, 200, meResponseSchema, await service.me(req.auth!.userId));
+    respond(res, 200, meResponseSchema, await service.me(authOf(req).userId));
   });
   return router;
 }

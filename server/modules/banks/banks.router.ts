@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import { z } from 'zod';
 import {
   bankResponseSchema,
@@ -17,6 +17,7 @@ import { notFound, parse } from '../../http/errors';
 import { respond } from '../../http/respond';
 import type { InvitationsService } from '../invitations/invitations.service';
 import type { BanksService } from './banks.service';
+import { authOf, bankOf } from '../../http/request-context';
 
 const userIdParam = z.object({ userId: idSchema });
 const invitationIdParam = z.object({ invitationId: idSchema });
@@ -26,7 +27,7 @@ export function createBankRouter(banks: BanksService): Router {
   const router = Router();
   router.post('/', async (req, res) => {
     const body = parse(createBankBodySchema, req.body, 'bank');
-    const bank = await banks.create(req.auth!.userId, body);
+    const bank = await banks.create(authOf(req).userId, body);
     respond(res, 201, z.object({ bank: bankSchema }), { bank });
   });
   return router;
@@ -35,7 +36,7 @@ export function createBankRouter(banks: BanksService): Router {
 /** Routes under /api/banks/:bankId, behind bankAccess; each names the least role it needs. */
 export function bankRoutes(banks: BanksService, invitations: InvitationsService): Router {
   const router = Router({ mergeParams: true });
-  const bankId = (req: { bank?: { id: string } }) => req.bank!.id;
+  const bankId = (req: Request) => bankOf(req).id;
   const param = <S extends z.ZodType>(schema: S, params: unknown) => {
     const parsed = schema.safeParse(params);
     if (!parsed.success) throw notFound();
@@ -43,11 +44,14 @@ export function bankRoutes(banks: BanksService, invitations: InvitationsService)
   };
 
   router.get('/', requireRole('viewer'), async (req, res) => {
-    respond(res, 200, bankResponseSchema, { bank: await banks.get(bankId(req)), role: req.bank!.role });
+    respond(res, 200, bankResponseSchema, { bank: await banks.get(bankId(req)), role: bankOf(req).role });
   });
   router.patch('/', requireRole('owner'), async (req, res) => {
     const body = parse(updateBankBodySchema, req.body, 'bank settings');
-    respond(res, 200, bankResponseSchema, { bank: await banks.update(bankId(req), body), role: req.bank!.role });
+    respond(res, 200, bankResponseSchema, {
+      bank: await banks.update(bankId(req), body),
+      role: bankOf(req).role,
+    });
   });
   router.delete('/', requireRole('owner'), async (req, res) => {
     await banks.remove(bankId(req));
@@ -69,7 +73,7 @@ export function bankRoutes(banks: BanksService, invitations: InvitationsService)
     res.status(204).end();
   });
   router.post('/leave', requireRole('viewer'), async (req, res) => {
-    await banks.removeMember(bankId(req), req.auth!.userId);
+    await banks.removeMember(bankId(req), authOf(req).userId);
     res.status(204).end();
   });
 
@@ -78,7 +82,7 @@ export function bankRoutes(banks: BanksService, invitations: InvitationsService)
   });
   router.post('/invitations', requireRole('owner'), async (req, res) => {
     const body = parse(createInvitationBodySchema, req.body, 'invitation');
-    const invitation = await invitations.invite(bankId(req), req.auth!.userId, body);
+    const invitation = await invitations.invite(bankId(req), authOf(req).userId, body);
     respond(res, 201, z.object({ invitation: invitationSchema }), { invitation });
   });
   router.delete('/invitations/:invitationId', requireRole('owner'), async (req, res) => {

@@ -15,6 +15,7 @@ import { notFound, parse } from '../../http/errors';
 import { idParam } from '../../http/params';
 import { respond } from '../../http/respond';
 import type { GerminationService } from './germination.service';
+import { authOf, bankOf } from '../../http/request-context';
 
 const detailQuery = z.object({ interval: z.enum(['wilson', 'clopper-pearson']).default('wilson') });
 
@@ -24,11 +25,16 @@ export function lotTestRoutes(tests: GerminationService): Router {
   const lotId = (req: { params: Record<string, unknown> }) => idParam(req.params.lotId, 'lot');
   router.post('/', requireRole('grower'), async (req, res) => {
     const body = parse(createTestBodySchema, req.body, 'germination test');
-    respond(res, 201, testDetailSchema, await tests.create(req.bank!.id, lotId(req), req.auth!.userId, body));
+    respond(
+      res,
+      201,
+      testDetailSchema,
+      await tests.create(bankOf(req).id, lotId(req), authOf(req).userId, body),
+    );
   });
   router.get('/', requireRole('viewer'), async (req, res) => {
     respond(res, 200, z.object({ items: z.array(testDetailSchema), nextCursor: z.null() }), {
-      items: await tests.listForLot(req.bank!.id, lotId(req)),
+      items: await tests.listForLot(bankOf(req).id, lotId(req)),
       nextCursor: null,
     });
   });
@@ -41,40 +47,50 @@ export function testRoutes(tests: GerminationService): Router {
   const testId = (req: { params: Record<string, unknown> }) => idParam(req.params.testId, 'test');
   router.get('/:testId', requireRole('viewer'), async (req, res) => {
     const { interval } = parse(detailQuery, req.query, 'query');
-    respond(res, 200, testDetailSchema, await tests.detail(req.bank!.id, testId(req), interval));
+    respond(res, 200, testDetailSchema, await tests.detail(bankOf(req).id, testId(req), interval));
   });
   router.patch('/:testId', requireRole('grower'), async (req, res) => {
     const body = parse(updateTestBodySchema, req.body, 'germination test');
-    respond(res, 200, testDetailSchema, await tests.update(req.bank!.id, testId(req), body));
+    respond(res, 200, testDetailSchema, await tests.update(bankOf(req).id, testId(req), body));
   });
   router.delete('/:testId', requireRole('grower'), async (req, res) => {
-    await tests.remove(req.bank!.id, testId(req));
+    await tests.remove(bankOf(req).id, testId(req));
     res.status(204).end();
   });
   router.post('/:testId/counts', requireRole('grower'), async (req, res) => {
     const body = parse(countsBodySchema, req.body, 'counts');
-    respond(res, 201, testDetailSchema, await tests.recordCounts(req.bank!.id, testId(req), req.auth!.userId, body));
+    respond(
+      res,
+      201,
+      testDetailSchema,
+      await tests.recordCounts(bankOf(req).id, testId(req), authOf(req).userId, body),
+    );
   });
   router.delete('/:testId/counts/:date', requireRole('grower'), async (req, res) => {
     const date = isoDateSchema.safeParse(req.params.date);
     if (!date.success) throw notFound('No counts on that date.');
-    respond(res, 200, testDetailSchema, await tests.deleteCounts(req.bank!.id, testId(req), date.data));
+    respond(res, 200, testDetailSchema, await tests.deleteCounts(bankOf(req).id, testId(req), date.data));
   });
   router.post('/:testId/finish', requireRole('grower'), async (req, res) => {
     const body = parse(finishBodySchema, req.body, 'finish');
-    respond(res, 200, testDetailSchema, await tests.finish(req.bank!.id, testId(req), body));
+    respond(res, 200, testDetailSchema, await tests.finish(bankOf(req).id, testId(req), body));
   });
   router.patch('/:testId/trays/:trayId', requireRole('grower'), async (req, res) => {
     const body = parse(trayUpdateBodySchema, req.body, 'tray');
     const trayId = idParam(req.params.trayId, 'tray');
-    respond(res, 200, testDetailSchema, await tests.setTrayAside(req.bank!.id, testId(req), trayId, body.setAsideReason));
+    respond(
+      res,
+      200,
+      testDetailSchema,
+      await tests.setTrayAside(bankOf(req).id, testId(req), trayId, body.setAsideReason),
+    );
   });
   router.post('/:testId/set-aside', requireRole('grower'), async (req, res) => {
     const body = parse(testSetAsideBodySchema, req.body, 'set aside');
-    respond(res, 200, testDetailSchema, await tests.setTestAside(req.bank!.id, testId(req), body.reason));
+    respond(res, 200, testDetailSchema, await tests.setTestAside(bankOf(req).id, testId(req), body.reason));
   });
   router.post('/:testId/reopen', requireRole('grower'), async (req, res) => {
-    respond(res, 200, testDetailSchema, await tests.reopen(req.bank!.id, testId(req)));
+    respond(res, 200, testDetailSchema, await tests.reopen(bankOf(req).id, testId(req)));
   });
   return router;
 }

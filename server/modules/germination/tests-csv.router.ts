@@ -5,6 +5,7 @@ import { requireRole } from '../../auth/bank-access';
 import { csvFileText, csvUpload } from '../../csv/csv-upload';
 import { respond } from '../../http/respond';
 import type { TestsCsvService } from './tests-csv.service';
+import { authOf, bankOf } from '../../http/request-context';
 
 const importedSchema = z.object({ imported: z.number() });
 
@@ -12,7 +13,7 @@ const importedSchema = z.object({ imported: z.number() });
 export function testsCsvExport(csv: TestsCsvService): Router {
   const router = Router({ mergeParams: true });
   router.get('/', requireRole('viewer'), async (req, res) => {
-    const text = await csv.exportCsv(req.bank!.id);
+    const text = await csv.exportCsv(bankOf(req).id);
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', 'attachment; filename="hilum-tests.csv"');
     res.send(text);
@@ -25,7 +26,7 @@ export function testsCsvImport(csv: TestsCsvService): Router {
   const router = Router({ mergeParams: true });
   router.post('/', requireRole('grower'), csvUpload.single('file'), async (req, res) => {
     const { dryRun, text } = csvFileText(req);
-    const outcome = await csv.importCsv(req.bank!.id, req.auth!.userId, text, { dryRun });
+    const outcome = await csv.importCsv(bankOf(req).id, authOf(req).userId, text, { dryRun });
     respond(res, 200, z.union([testsImportPreviewSchema, importedSchema]), outcome);
   });
   return router;

@@ -4,12 +4,13 @@ import { requireAuth } from '../../auth/session.middleware';
 import { parse } from '../../http/errors';
 import { respond } from '../../http/respond';
 import type { InvitationsService } from './invitations.service';
+import { authOf } from '../../http/request-context';
 
 export function invitationsRouter(invitations: InvitationsService): Router {
   const router = Router();
   router.post('/accept', requireAuth, async (req, res) => {
     const { token } = parse(acceptInvitationBodySchema, req.body, 'invitation');
-    respond(res, 200, acceptInvitationResponseSchema, await invitations.accept(req.auth!.userId, token));
+    respond(res, 200, acceptInvitationResponseSchema, await invitations.accept(authOf(req).userId, token));
   });
   return router;
 }

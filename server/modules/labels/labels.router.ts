@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { requireRole } from '../../auth/bank-access';
 import { idParam } from '../../http/params';
 import type { LabelsService } from './labels.service';
+import { bankOf } from '../../http/request-context';
 
 /**
  * The label may carry any text a member typed, so it is served with a policy that lets it load
@@ -13,7 +14,7 @@ const LABEL_CSP = "default-src 'none'; style-src 'unsafe-inline'; font-src data:
 export function labelRoutes(labels: LabelsService): Router {
   const router = Router({ mergeParams: true });
   router.get('/', requireRole('viewer'), async (req, res) => {
-    const { code, svg } = await labels.lotLabelSvg(req.bank!.id, idParam(req.params.lotId, 'lot'));
+    const { code, svg } = await labels.lotLabelSvg(bankOf(req).id, idParam(req.params.lotId, 'lot'));
     const filename = `hilum-label-${code.replace(/[^A-Za-z0-9._-]+/g, '_')}.svg`;
     res.setHeader('Content-Type', 'image/svg+xml; charset=utf-8');
     res.setHeader('Content-Disposition', `inline; filename="${filename}"`);

@@ -16,18 +16,23 @@ import { lotsToCsv, parseLotsCsv } from './lots.csv';
 import { idParam } from '../../http/params';
 import { respond } from '../../http/respond';
 import type { LotsService } from './lots.service';
+import { authOf, bankOf } from '../../http/request-context';
 
 const one = z.object({ lot: lotSchema });
 const list = z.object({ items: z.array(lotSchema), nextCursor: z.string().nullable() });
 const ledger = z.object({ items: z.array(movementSchema), seedsOnHand: z.number() });
 
-
 /** Matches a CSV row's species to the bank's list: scientific name first, then common name. */
-function resolveSpecies(list: SpeciesDto[], name: { speciesName: string; scientificName: string | null }): string | null {
+function resolveSpecies(
+  list: SpeciesDto[],
+  name: { speciesName: string; scientificName: string | null },
+): string | null {
   const sci = name.scientificName?.toLowerCase();
   const common = name.speciesName.toLowerCase();
   return (
-    (sci && list.find((s) => s.scientificName.toLowerCase() === sci && s.commonName.toLowerCase() === common)?.id) ||
+    (sci &&
+      list.find((s) => s.scientificName.toLowerCase() === sci && s.commonName.toLowerCase() === common)
+        ?.id) ||
     (sci && list.find((s) => s.scientificName.toLowerCase() === sci)?.id) ||
     list.find((s) => s.commonName.toLowerCase() === common)?.id ||
     null
@@ -38,7 +43,7 @@ function resolveSpecies(list: SpeciesDto[], name: { speciesName: string; scienti
 export function lotsCsvExport(lots: LotsService): Router {
   const router = Router({ mergeParams: true });
   router.get('/', requireRole('viewer'), async (req, res) => {
-    const csv = lotsToCsv(await lots.exportRows(req.bank!.id));
+    const csv = lotsToCsv(await lots.exportRows(bankOf(req).id));
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', 'attachment; filename="hilum-lots.csv"');
     res.send(csv);
@@ -52,48 +57,59 @@ export function lotRoutes(lots: LotsService, species_: (bankId: string) => Promi
 
   router.get('/', requireRole('viewer'), async (req, res) => {
     const query = parse(lotsListQuerySchema, req.query, 'query');
-    respond(res, 200, list, await lots.list(req.bank!.id, query));
+    respond(res, 200, list, await lots.list(bankOf(req).id, query));
   });
   router.post('/import', requireRole('grower'), csvUpload.single('file'), async (req, res) => {
     const { dryRun, text } = csvFileText(req);
-    const species = await species_(req.bank!.id);
+    const species = await species_(bankOf(req).id);
     const parsed = parseLotsCsv(text, (name) => resolveSpecies(species, name));
     if (!parsed.ok) {
       throw invalidCsv(parsed.errors);
     }
     if (dryRun) {
-      return void res.json({ preview: parsed.rows.map((r) => ({ line: r.line, code: r.code, species: r.speciesName, variety: r.variety, seedsOnHand: r.seedsOnHand, harvestDate: r.harvestDate, packedForSeason: r.packedForSeason, treated: r.treated })) });
+      return void res.json({
+        preview: parsed.rows.map((r) => ({
+          line: r.line,
+          code: r.code,
+          species: r.speciesName,
+          variety: r.variety,
+          seedsOnHand: r.seedsOnHand,
+          harvestDate: r.harvestDate,
+          packedForSeason: r.packedForSeason,
+          treated: r.treated,
+        })),
+      });
     }
-    res.json({ imported: await lots.importRows(req.bank!.id, req.auth!.userId, parsed.rows) });
+    res.json({ imported: await lots.importRows(bankOf(req).id, authOf(req).userId, parsed.rows) });
   });
   router.post('/', requireRole('grower'), async (req, res) => {
     const body = parse(createLotBodySchema, req.body, 'lot');
-    respond(res, 201, one, { lot: await lots.create(req.bank!.id, req.auth!.userId, body) });
+    respond(res, 201, one, { lot: await lots.create(bankOf(req).id, authOf(req).userId, body) });
   });
   router.get('/:lotId', requireRole('viewer'), async (req, res) => {
-    respond(res, 200, one, { lot: await lots.get(req.bank!.id, lotId(req)) });
+    respond(res, 200, one, { lot: await lots.get(bankOf(req).id, lotId(req)) });
   });
   router.patch('/:lotId', requireRole('grower'), async (req, res) => {
     const body = parse(updateLotBodySchema, req.body, 'lot');
-    respond(res, 200, one, { lot: await lots.update(req.bank!.id, lotId(req), body) });
+    respond(res, 200, one, { lot: await lots.update(bankOf(req).id, lotId(req), body) });
   });
   router.delete('/:lotId', requireRole('grower'), async (req, res) => {
-    const outcome = await lots.remove(req.bank!.id, lotId(req));
+    const outcome = await lots.remove(bankOf(req).id, lotId(req));
     if (outcome === 'deleted') return void res.status(204).end();
     respond(res, 200, z.object({ lot: lotSchema, retired: z.literal(true) }), {
-      lot: await lots.get(req.bank!.id, lotId(req)),
+      lot: await lots.get(bankOf(req).id, lotId(req)),
       retired: true,
     });
   });
 
   router.get('/:lotId/stock', requireRole('viewer'), async (req, res) => {
-    const items = await lots.movements(req.bank!.id, lotId(req));
+    const items = await lots.movements(bankOf(req).id, lotId(req));
     respond(res, 200, ledger, { items, seedsOnHand: items.at(-1)?.balance ?? 0 });
   });
   router.post('/:lotId/stock', requireRole('grower'), async (req, res) => {
     const body = parse(stockBodySchema, req.body, 'stock movement');
-    const result = await lots.addMovement(req.bank!.id, lotId(req), req.auth!.userId, body);
-    const items = await lots.movements(req.bank!.id, lotId(req));
+    const result = await lots.addMovement(bankOf(req).id, lotId(req), authOf(req).userId, body);
+    const items = await lots.movements(bankOf(req).id, lotId(req));
     respond(res, 201, z.object({ movement: movementSchema, seedsOnHand: z.number() }), {
       movement: items.find((m) => m.id === result.movementId)!,
       seedsOnHand: result.seedsOnHand,

@@ -9,13 +9,14 @@ import { parse } from '../../http/errors';
 import { respond } from '../../http/respond';
 import type { ViabilityService } from '../viability/viability.service';
 import { createOverviewService } from './overview.service';
+import { bankOf } from '../../http/request-context';
 
 /** GET /api/banks/:bankId/overview — what needs doing this week. */
 export function overviewRoutes(deps: { db: Db; clock: Clock; viability: ViabilityService }): Router {
   const overview = createOverviewService(deps);
   const router = Router({ mergeParams: true });
   router.get('/', requireRole('viewer'), async (req, res) => {
-    const bankId = req.bank!.id;
+    const bankId = bankOf(req).id;
     const today =
       parse(z.object({ on: isoDateSchema.optional() }), req.query, 'query').on ??
       (await bankToday(deps.db, deps.clock, bankId));

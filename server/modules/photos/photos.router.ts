@@ -8,20 +8,31 @@ import { idParam } from '../../http/params';
 import { respond } from '../../http/respond';
 import { singlePhoto } from '../../photos/upload';
 import type { PhotosService } from './photos.service';
+import { authOf, bankOf } from '../../http/request-context';
 
 const one = z.object({ photo: photoSchema });
 
 /** Upload routes for a subject, mounted under its path, e.g. /lots/:lotId/photos. */
-export function subjectPhotoRoutes(photos: PhotosService, subject: 'lot' | 'plant' | 'tray', param: string): Router {
+export function subjectPhotoRoutes(
+  photos: PhotosService,
+  subject: 'lot' | 'plant' | 'tray',
+  param: string,
+): Router {
   const router = Router({ mergeParams: true });
   router.post('/', requireRole('grower'), singlePhoto('photo'), async (req, res) => {
     const subjectId = idParam((req.params as Record<string, unknown>)[param], subject);
-    const photo = await photos.upload(req.bank!.id, subject, subjectId, req.auth!.userId, req.file!.buffer);
+    const photo = await photos.upload(
+      bankOf(req).id,
+      subject,
+      subjectId,
+      authOf(req).userId,
+      req.file!.buffer,
+    );
     respond(res, 201, one, { photo });
   });
   router.get('/', requireRole('viewer'), async (req, res) => {
     const subjectId = idParam((req.params as Record<string, unknown>)[param], subject);
-    const items = await photos.list(req.bank!.id, subject, subjectId);
+    const items = await photos.list(bankOf(req).id, subject, subjectId);
     respond(res, 200, z.object({ items: z.array(photoSchema) }), { items });
   });
   return router;
@@ -31,7 +42,7 @@ export function subjectPhotoRoutes(photos: PhotosService, subject: 'lot' | 'plan
 export function bankPhotoRoutes(photos: PhotosService): Router {
   const router = Router({ mergeParams: true });
   router.delete('/:photoId', requireRole('grower'), async (req, res) => {
-    await photos.remove(req.bank!.id, idParam(req.params.photoId, 'photo'));
+    await photos.remove(bankOf(req).id, idParam(req.params.photoId, 'photo'));
     res.status(204).end();
   });
   return router;
@@ -44,7 +55,7 @@ export function photoFileRoutes(photos: PhotosService): Router {
   router.get('/:photoId', requireAuth, async (req, res) => {
     const { size } = parse(query, req.query, 'query');
     const photoId = idParam(req.params.photoId, 'photo');
-    const file = await photos.open(photoId, req.auth!.userId, size);
+    const file = await photos.open(photoId, authOf(req).userId, size);
     res.setHeader('Content-Type', 'image/webp');
     // Photos never change under an id: cache for long, but only in the member's own browser.
     res.setHeader('Cache-Control', 'private, max-age=31536000, immutable');

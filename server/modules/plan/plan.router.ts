@@ -1,7 +1,14 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { comingSeason } from '../../../shared/plan-dates';
-import { createPlanBodySchema, planEntrySchema, planListResponseSchema, seasonSchema, sownBodySchema, updatePlanBodySchema } from '../../../shared/schemas/plan';
+import {
+  createPlanBodySchema,
+  planEntrySchema,
+  planListResponseSchema,
+  seasonSchema,
+  sownBodySchema,
+  updatePlanBodySchema,
+} from '../../../shared/schemas/plan';
 import { requireRole } from '../../auth/bank-access';
 import { bankToday, type Clock } from '../../clock';
 import type { Db } from '../../db/database';
@@ -10,6 +17,7 @@ import { idParam } from '../../http/params';
 import { respond } from '../../http/respond';
 import type { ViabilityService } from '../viability/viability.service';
 import type { PlanService } from './plan.service';
+import { authOf, bankOf } from '../../http/request-context';
 
 const one = z.object({ entry: planEntrySchema });
 
@@ -21,37 +29,43 @@ export function planRoutes(plan: PlanService, deps: { db: Db; clock: Clock; viab
   /** /api/banks/:bankId/plan */
   const router = Router({ mergeParams: true });
   router.get('/', requireRole('viewer'), async (req, res) => {
-    const season = parse(seasonQuery, req.query, 'query').season ?? (await thisSeason(req.bank!.id));
-    respond(res, 200, planListResponseSchema, { season, items: await plan.list(req.bank!.id, season), nextCursor: null });
+    const season = parse(seasonQuery, req.query, 'query').season ?? (await thisSeason(bankOf(req).id));
+    respond(res, 200, planListResponseSchema, {
+      season,
+      items: await plan.list(bankOf(req).id, season),
+      nextCursor: null,
+    });
   });
   router.post('/', requireRole('grower'), async (req, res) => {
     const body = parse(createPlanBodySchema, req.body, 'plan entry');
-    respond(res, 201, one, { entry: await plan.create(req.bank!.id, req.auth!.userId, body) });
+    respond(res, 201, one, { entry: await plan.create(bankOf(req).id, authOf(req).userId, body) });
   });
   router.get('/:entryId', requireRole('viewer'), async (req, res) => {
-    respond(res, 200, one, { entry: await plan.get(req.bank!.id, entryId(req)) });
+    respond(res, 200, one, { entry: await plan.get(bankOf(req).id, entryId(req)) });
   });
   router.patch('/:entryId', requireRole('grower'), async (req, res) => {
     const body = parse(updatePlanBodySchema, req.body, 'plan entry');
-    respond(res, 200, one, { entry: await plan.update(req.bank!.id, entryId(req), body) });
+    respond(res, 200, one, { entry: await plan.update(bankOf(req).id, entryId(req), body) });
   });
   router.delete('/:entryId', requireRole('grower'), async (req, res) => {
-    await plan.remove(req.bank!.id, entryId(req));
+    await plan.remove(bankOf(req).id, entryId(req));
     res.status(204).end();
   });
   router.post('/:entryId/sown', requireRole('grower'), async (req, res) => {
     const { date } = parse(sownBodySchema, req.body ?? {}, 'sowing');
-    respond(res, 200, one, { entry: await plan.markSown(req.bank!.id, entryId(req), req.auth!.userId, date) });
+    respond(res, 200, one, {
+      entry: await plan.markSown(bankOf(req).id, entryId(req), authOf(req).userId, date),
+    });
   });
   router.delete('/:entryId/sown', requireRole('grower'), async (req, res) => {
-    respond(res, 200, one, { entry: await plan.undoSown(req.bank!.id, entryId(req)) });
+    respond(res, 200, one, { entry: await plan.undoSown(bankOf(req).id, entryId(req)) });
   });
 
   /** /api/banks/:bankId/plan.ics */
   const ics = Router({ mergeParams: true });
   ics.get('/', requireRole('viewer'), async (req, res) => {
-    const season = parse(seasonQuery, req.query, 'query').season ?? (await thisSeason(req.bank!.id));
-    const calendar = await plan.calendar(req.bank!.id, season);
+    const season = parse(seasonQuery, req.query, 'query').season ?? (await thisSeason(bankOf(req).id));
+    const calendar = await plan.calendar(bankOf(req).id, season);
     res.setHeader('Content-Type', 'text/calendar; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="hilum-plan-${season}.ics"`);
     res.send(calendar);

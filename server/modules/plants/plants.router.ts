@@ -1,11 +1,16 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { createPlantBodySchema, parentPlantSchema, updatePlantBodySchema } from '../../../shared/schemas/lots';
+import {
+  createPlantBodySchema,
+  parentPlantSchema,
+  updatePlantBodySchema,
+} from '../../../shared/schemas/lots';
 import { requireRole } from '../../auth/bank-access';
 import { parse } from '../../http/errors';
 import { idParam } from '../../http/params';
 import { respond } from '../../http/respond';
 import type { PlantsService } from './plants.service';
+import { bankOf } from '../../http/request-context';
 
 const one = z.object({ plant: parentPlantSchema });
 
@@ -14,23 +19,23 @@ export function plantRoutes(plants: PlantsService): Router {
   const plantId = (req: { params: Record<string, unknown> }) => idParam(req.params.plantId, 'parent plant');
   router.get('/', requireRole('viewer'), async (req, res) => {
     respond(res, 200, z.object({ items: z.array(parentPlantSchema), nextCursor: z.null() }), {
-      items: await plants.list(req.bank!.id),
+      items: await plants.list(bankOf(req).id),
       nextCursor: null,
     });
   });
   router.post('/', requireRole('grower'), async (req, res) => {
     const body = parse(createPlantBodySchema, req.body, 'parent plant');
-    respond(res, 201, one, { plant: await plants.create(req.bank!.id, body) });
+    respond(res, 201, one, { plant: await plants.create(bankOf(req).id, body) });
   });
   router.get('/:plantId', requireRole('viewer'), async (req, res) => {
-    respond(res, 200, one, { plant: await plants.get(req.bank!.id, plantId(req)) });
+    respond(res, 200, one, { plant: await plants.get(bankOf(req).id, plantId(req)) });
   });
   router.patch('/:plantId', requireRole('grower'), async (req, res) => {
     const body = parse(updatePlantBodySchema, req.body, 'parent plant');
-    respond(res, 200, one, { plant: await plants.update(req.bank!.id, plantId(req), body) });
+    respond(res, 200, one, { plant: await plants.update(bankOf(req).id, plantId(req), body) });
   });
   router.delete('/:plantId', requireRole('grower'), async (req, res) => {
-    await plants.remove(req.bank!.id, plantId(req));
+    await plants.remove(bankOf(req).id, plantId(req));
     res.status(204).end();
   });
   return router;

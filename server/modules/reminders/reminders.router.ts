@@ -6,6 +6,7 @@ import type { Db } from '../../db/database';
 import { parse } from '../../http/errors';
 import { respond } from '../../http/respond';
 import { reminderPreferences, setReminderPreferences } from './reminders.service';
+import { authOf, bankOf } from '../../http/request-context';
 
 const one = z.object({ preferences: reminderPrefsSchema });
 
@@ -13,12 +14,14 @@ const one = z.object({ preferences: reminderPrefsSchema });
 export function reminderRoutes(db: Db): Router {
   const router = Router({ mergeParams: true });
   router.get('/', requireRole('viewer'), async (req, res) => {
-    respond(res, 200, one, { preferences: await reminderPreferences(db, req.bank!.id, req.auth!.userId) });
+    respond(res, 200, one, {
+      preferences: await reminderPreferences(db, bankOf(req).id, authOf(req).userId),
+    });
   });
   router.patch('/', requireRole('viewer'), async (req, res) => {
     const body = parse(reminderPrefsBodySchema, req.body, 'reminder choices');
     respond(res, 200, one, {
-      preferences: await setReminderPreferences(db, req.bank!.id, req.auth!.userId, body),
+      preferences: await setReminderPreferences(db, bankOf(req).id, authOf(req).userId, body),
     });
   });
   return router;

@@ -11,27 +11,27 @@ import { parse } from '../../http/errors';
 import { respond } from '../../http/respond';
 import { idParam } from '../../http/params';
 import type { SpeciesService } from './species.service';
+import { bankOf } from '../../http/request-context';
 
 const one = z.object({ species: speciesSchema });
 
 export function speciesRoutes(service: SpeciesService): Router {
   const router = Router({ mergeParams: true });
   router.get('/', requireRole('viewer'), async (req, res) => {
-    respond(res, 200, speciesListResponseSchema, { items: await service.list(req.bank!.id) });
+    respond(res, 200, speciesListResponseSchema, { items: await service.list(bankOf(req).id) });
   });
   router.post('/', requireRole('grower'), async (req, res) => {
     const body = parse(createSpeciesBodySchema, req.body, 'species');
-    respond(res, 201, one, { species: await service.create(req.bank!.id, body) });
+    respond(res, 201, one, { species: await service.create(bankOf(req).id, body) });
   });
   router.patch('/:speciesId', requireRole('grower'), async (req, res) => {
     const speciesId = idParam(req.params.speciesId);
     const { traits } = parse(overrideTraitsBodySchema, req.body, 'species traits');
-    respond(res, 200, one, { species: await service.setTraits(req.bank!.id, speciesId, traits) });
+    respond(res, 200, one, { species: await service.setTraits(bankOf(req).id, speciesId, traits) });
   });
   router.delete('/:speciesId/overrides', requireRole('grower'), async (req, res) => {
     const speciesId = idParam(req.params.speciesId);
-    respond(res, 200, one, { species: await service.clearOverrides(req.bank!.id, speciesId) });
+    respond(res, 200, one, { species: await service.clearOverrides(bankOf(req).id, speciesId) });
   });
   return router;
 }
-

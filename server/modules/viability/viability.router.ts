@@ -11,6 +11,7 @@ import { parse } from '../../http/errors';
 import { idParam } from '../../http/params';
 import { respond, respondRendered, rowRenderer } from '../../http/respond';
 import type { ViabilityService } from './viability.service';
+import { bankOf } from '../../http/request-context';
 
 export function viabilityRoutes(service: ViabilityService) {
   // Without `on`, advice is for today on the bank's calendar (its time zone), as everywhere.
@@ -34,9 +35,9 @@ export function viabilityRoutes(service: ViabilityService) {
       200,
       viabilityResponseSchema,
       await service.viability(
-        req.bank!.id,
+        bankOf(req).id,
         idParam(req.params.lotId, 'lot'),
-        on ?? (await service.today(req.bank!.id)),
+        on ?? (await service.today(bankOf(req).id)),
       ),
     );
   });
@@ -47,10 +48,10 @@ export function viabilityRoutes(service: ViabilityService) {
       200,
       seedsToSowResponseSchema,
       await service.seedsToSow(
-        req.bank!.id,
+        bankOf(req).id,
         idParam(req.params.lotId, 'lot'),
         q.plants,
-        q.on ?? (await service.today(req.bank!.id)),
+        q.on ?? (await service.today(bankOf(req).id)),
         q.assurance,
       ),
     );
@@ -61,8 +62,8 @@ export function viabilityRoutes(service: ViabilityService) {
   const ranking = Router({ mergeParams: true });
   ranking.get('/', requireRole('viewer'), async (req, res) => {
     const { on } = parse(onQuery, req.query, 'query');
-    const date = on ?? (await service.today(req.bank!.id));
-    respondRendered(res, 200, await service.rankingJson(req.bank!.id, date, renderRankingRow));
+    const date = on ?? (await service.today(bankOf(req).id));
+    respondRendered(res, 200, await service.rankingJson(bankOf(req).id, date, renderRankingRow));
   });
   return { lot, ranking };
 }
