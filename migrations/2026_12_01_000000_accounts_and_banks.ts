@@ -37,9 +37,18 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(sql`gen_random_uuid()`))
     .addColumn('name', 'text', (c) => c.notNull())
     // Month-day of the median last spring frost and first autumn frost, e.g. '05-20'.
-    .addColumn('last_frost', 'text', (c) => c.check(sql`last_frost ~ '^(0[1-9]|1[0-2])-(0[1-9]|[12][0-9]|3[01])$'`))
-    .addColumn('first_frost', 'text', (c) => c.check(sql`first_frost ~ '^(0[1-9]|1[0-2])-(0[1-9]|[12][0-9]|3[01])$'`))
-    .addColumn('frost_margin_days', 'integer', (c) => c.notNull().defaultTo(7).check(sql`frost_margin_days between 0 and 60`))
+    .addColumn('last_frost', 'text', (c) =>
+      c.check(sql`last_frost ~ '^(0[1-9]|1[0-2])-(0[1-9]|[12][0-9]|3[01])$'`),
+    )
+    .addColumn('first_frost', 'text', (c) =>
+      c.check(sql`first_frost ~ '^(0[1-9]|1[0-2])-(0[1-9]|[12][0-9]|3[01])$'`),
+    )
+    .addColumn('frost_margin_days', 'integer', (c) =>
+      c
+        .notNull()
+        .defaultTo(7)
+        .check(sql`frost_margin_days between 0 and 60`),
+    )
     .addColumn('time_zone', 'text', (c) => c.notNull().defaultTo('UTC'))
     .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
     .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))

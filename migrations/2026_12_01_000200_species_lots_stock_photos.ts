@@ -16,7 +16,9 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
     .addCheckConstraint('species_owner', sql`(bank_id is null) = (ref_key is not null)`)
     .execute();
-  await sql`create unique index species_bank_name_key on species (bank_id, lower(common_name), lower(scientific_name)) where bank_id is not null`.execute(db);
+  await sql`create unique index species_bank_name_key on species (bank_id, lower(common_name), lower(scientific_name)) where bank_id is not null`.execute(
+    db,
+  );
 
   // A bank's own values for a reference species' traits, merged over the reference values.
   await db.schema
@@ -80,13 +82,20 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('harvest_date', 'date')
     .addColumn('packed_for_season', 'integer', (c) => c.check(sql`packed_for_season between 1900 and 2100`))
     .addColumn('plants_bulked', 'integer', (c) => c.check(sql`plants_bulked >= 1`))
-    .addColumn('storage_place', 'text', (c) => c.check(sql`storage_place in ('room', 'fridge', 'freezer', 'other')`))
+    .addColumn('storage_place', 'text', (c) =>
+      c.check(sql`storage_place in ('room', 'fridge', 'freezer', 'other')`),
+    )
     .addColumn('storage_location', 'text')
     .addColumn('storage_temp_c', 'numeric')
     .addColumn('storage_humidity_pct', 'numeric', (c) => c.check(sql`storage_humidity_pct between 0 and 100`))
     .addColumn('quantity_estimated', 'boolean', (c) => c.notNull().defaultTo(false))
     .addColumn('grams_entered', 'numeric')
-    .addColumn('status', 'text', (c) => c.notNull().defaultTo('active').check(sql`status in ('active', 'depleted', 'retired')`))
+    .addColumn('status', 'text', (c) =>
+      c
+        .notNull()
+        .defaultTo('active')
+        .check(sql`status in ('active', 'depleted', 'retired')`),
+    )
     .addColumn('notes', 'text')
     .addColumn('created_by', 'uuid', (c) => c.references('users.id').onDelete('set null'))
     .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
@@ -98,7 +107,9 @@ export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .createTable('lot_parents')
     .addColumn('lot_id', 'uuid', (c) => c.notNull().references('lots.id').onDelete('cascade'))
-    .addColumn('parent_plant_id', 'uuid', (c) => c.notNull().references('parent_plants.id').onDelete('cascade'))
+    .addColumn('parent_plant_id', 'uuid', (c) =>
+      c.notNull().references('parent_plants.id').onDelete('cascade'),
+    )
     .addPrimaryKeyConstraint('lot_parents_pkey', ['lot_id', 'parent_plant_id'])
     .execute();
 
@@ -120,7 +131,16 @@ export async function up(db: Kysely<any>): Promise<void> {
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
-  for (const table of ['stock_movements', 'lot_parents', 'lots', 'parent_plants', 'photos', 'object_deletions', 'species_overrides', 'species']) {
+  for (const table of [
+    'stock_movements',
+    'lot_parents',
+    'lots',
+    'parent_plants',
+    'photos',
+    'object_deletions',
+    'species_overrides',
+    'species',
+  ]) {
     await db.schema.dropTable(table).execute();
   }
 }

@@ -13,11 +13,19 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('temperature_c', 'numeric', (c) => c.check(sql`temperature_c between -5 and 45`))
     .addColumn('light_hours', 'numeric', (c) => c.check(sql`light_hours between 0 and 24`))
     .addColumn('pretreatment', 'text', (c) =>
-      c.notNull().defaultTo('none').check(sql`pretreatment in ('none', 'soak', 'cold-stratification', 'scarification')`),
+      c
+        .notNull()
+        .defaultTo('none')
+        .check(sql`pretreatment in ('none', 'soak', 'cold-stratification', 'scarification')`),
     )
     .addColumn('pretreatment_days', 'integer', (c) => c.check(sql`pretreatment_days between 0 and 365`))
     .addColumn('notes', 'text')
-    .addColumn('status', 'text', (c) => c.notNull().defaultTo('running').check(sql`status in ('running', 'finished')`))
+    .addColumn('status', 'text', (c) =>
+      c
+        .notNull()
+        .defaultTo('running')
+        .check(sql`status in ('running', 'finished')`),
+    )
     .addColumn('finished_on', 'date')
     .addColumn('created_by', 'uuid', (c) => c.references('users.id').onDelete('set null'))
     .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))

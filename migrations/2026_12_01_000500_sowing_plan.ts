@@ -26,7 +26,11 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
     .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
     .execute();
-  await db.schema.createIndex('plan_entries_bank_season_idx').on('plan_entries').columns(['bank_id', 'season']).execute();
+  await db.schema
+    .createIndex('plan_entries_bank_season_idx')
+    .on('plan_entries')
+    .columns(['bank_id', 'season'])
+    .execute();
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

@@ -23,13 +23,21 @@ try {
   await syncReferenceSpecies(db);
   // Tests stored before a change to the result's definition (or before results were stored).
   const refreshed = await refreshStaleResults(db);
-  if (refreshed) process.stdout.write(`hilum: recomputed the stored results of ${refreshed} germination tests\n`);
+  if (refreshed)
+    process.stdout.write(`hilum: recomputed the stored results of ${refreshed} germination tests\n`);
   const reset = process.argv.includes('--reset-demo');
   if (reset) {
     const banks = await db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).execute();
     for (const bank of banks) {
-      const keys = await db.selectFrom('photos').select(['full_key', 'thumb_key']).where('bank_id', '=', bank.id).execute();
-      await removePhotoObjects(storage, keys.flatMap((k) => [k.full_key, k.thumb_key]));
+      const keys = await db
+        .selectFrom('photos')
+        .select(['full_key', 'thumb_key'])
+        .where('bank_id', '=', bank.id)
+        .execute();
+      await removePhotoObjects(
+        storage,
+        keys.flatMap((k) => [k.full_key, k.thumb_key]),
+      );
     }
     await db.transaction().execute(async (trx) => {
       if (banks.length) {
@@ -38,7 +46,10 @@ try {
         await trx.deleteFrom('germination_tests').where('bank_id', 'in', ids).execute();
         await trx.deleteFrom('banks').where('id', 'in', ids).execute();
       }
-      await trx.deleteFrom('users').where('email', 'in', [...DEMO_ACCOUNTS.map((a) => a.email), 'grower2@example.org']).execute();
+      await trx
+        .deleteFrom('users')
+        .where('email', 'in', [...DEMO_ACCOUNTS.map((a) => a.email), 'grower2@example.org'])
+        .execute();
       await trx.deleteFrom('app_meta').where('key', '=', 'demo_seeded_at').execute();
     });
     process.stdout.write('hilum: removed the demo season\n');

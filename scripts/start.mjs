@@ -68,8 +68,13 @@ async function main() {
   // A cluster left running by a run that was killed is ours: stop it before checking ports.
   const existingBin = findPostgresBin();
   if (existingBin && fs.existsSync(path.join(dataDir, 'pg', 'postmaster.pid'))) {
-    const runAs = process.getuid?.() === 0 ? ['runuser', ['-u', 'postgres', '--', path.join(existingBin, 'pg_ctl')]] : [path.join(existingBin, 'pg_ctl'), []];
-    spawnSync(runAs[0], [...runAs[1], 'stop', '-D', path.join(dataDir, 'pg'), '-m', 'fast', '-w'], { stdio: 'ignore' });
+    const runAs =
+      process.getuid?.() === 0
+        ? ['runuser', ['-u', 'postgres', '--', path.join(existingBin, 'pg_ctl')]]
+        : [path.join(existingBin, 'pg_ctl'), []];
+    spawnSync(runAs[0], [...runAs[1], 'stop', '-D', path.join(dataDir, 'pg'), '-m', 'fast', '-w'], {
+      stdio: 'ignore',
+    });
   }
   await assertPortsFree(ports);
 
@@ -105,20 +110,30 @@ async function main() {
     LOG_LEVEL: process.env.LOG_LEVEL ?? (dev ? 'info' : 'warn'),
     // This machine's Node is 20, which the object-store SDK warns about on every start (known; the
     // SDK's own switch for it). Production should run a current Node LTS instead.
-    AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ?? 'true',
+    AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED:
+      process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ?? 'true',
   };
 
-  const prepare = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/db-prepare.ts', ...(resetDemo ? ['--reset-demo'] : [])], {
-    cwd: root,
-    env,
-    stdio: 'inherit',
-  });
+  const prepare = spawnSync(
+    process.execPath,
+    ['--import', 'tsx', 'scripts/db-prepare.ts', ...(resetDemo ? ['--reset-demo'] : [])],
+    {
+      cwd: root,
+      env,
+      stdio: 'inherit',
+    },
+  );
   if (prepare.status !== 0) throw new SetupError('the database could not be prepared; see above');
 
   if (!dev) buildClientIfStale();
 
   const serverArgs = dev
-    ? [path.join(root, 'node_modules', 'tsx', 'dist', 'cli.mjs'), 'watch', '--clear-screen=false', 'server/index.ts']
+    ? [
+        path.join(root, 'node_modules', 'tsx', 'dist', 'cli.mjs'),
+        'watch',
+        '--clear-screen=false',
+        'server/index.ts',
+      ]
     : ['--import', 'tsx', 'server/index.ts'];
   const server = spawn(process.execPath, serverArgs, {
     cwd: root,
@@ -134,11 +149,15 @@ async function main() {
   });
 
   if (dev) {
-    const vite = spawn(path.join(root, 'node_modules', '.bin', 'vite'), ['--port', String(ports.PORT), '--strictPort', '--host', '127.0.0.1'], {
-      cwd: root,
-      env: { ...env, PORT: String(ports.PORT), HILUM_API_PORT: String(ports.HILUM_API_PORT) },
-      stdio: ['ignore', 'inherit', 'inherit'],
-    });
+    const vite = spawn(
+      path.join(root, 'node_modules', '.bin', 'vite'),
+      ['--port', String(ports.PORT), '--strictPort', '--host', '127.0.0.1'],
+      {
+        cwd: root,
+        env: { ...env, PORT: String(ports.PORT), HILUM_API_PORT: String(ports.HILUM_API_PORT) },
+        stdio: ['ignore', 'inherit', 'inherit'],
+      },
+    );
     cleanups.push(() => stopChild(vite));
   }
 

@@ -62,7 +62,19 @@ async function main() {
   const quick = vitestArgs.length > 0;
   if (!quick) {
     step('type check (client, server and tests configs)', process.execPath, ['scripts/typecheck.mjs']);
-    step('lint (eslint)', process.execPath, ['node_modules/eslint/bin/eslint.js', '.', '--max-warnings', '0']);
+    step('lint (eslint)', process.execPath, [
+      'node_modules/eslint/bin/eslint.js',
+      '.',
+      '--max-warnings',
+      '0',
+    ]);
+    step('format (prettier --check; `npm run format` fixes it)', process.execPath, [
+      'node_modules/prettier/bin/prettier.cjs',
+      '--check',
+      '.',
+      '--log-level',
+      'warn',
+    ]);
   }
   const chromium = ensureChromium();
   const bin = ensurePostgres();
@@ -85,7 +97,12 @@ async function main() {
 
   const staticDir = path.join(tmp, 'dist');
   step('client build (vite build)', path.join(root, 'node_modules', '.bin', 'vite'), [
-    'build', '--logLevel', 'warn', '--outDir', staticDir, '--emptyOutDir',
+    'build',
+    '--logLevel',
+    'warn',
+    '--outDir',
+    staticDir,
+    '--emptyOutDir',
   ]);
 
   const env = {
@@ -101,7 +118,8 @@ async function main() {
     HILUM_CHROMIUM: chromium,
     // This machine's Node is 20, which the object-store SDK warns about on every start (known; the
     // SDK's own switch for it). Production should run a current Node LTS instead.
-    AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ?? 'true',
+    AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED:
+      process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ?? 'true',
     HILUM_S3_PORT: String(s3Port),
     HILUM_S3_DIR: path.join(tmp, 's3'),
   };

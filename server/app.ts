@@ -89,7 +89,11 @@ export function createApp(deps: AppDeps): Express {
     invitations: createInvitationsService({ ...deps, appOrigin: config.appOrigin }),
     species: createSpeciesService(deps),
     photos,
-    plants: createPlantsService({ ...deps, photosOf: photos.photosOf, removeSubjectPhotos: photos.removeSubjectPhotos }),
+    plants: createPlantsService({
+      ...deps,
+      photosOf: photos.photosOf,
+      removeSubjectPhotos: photos.removeSubjectPhotos,
+    }),
     lots: createLotsService({
       ...deps,
       removeSubjectPhotos: photos.removeSubjectPhotos,
@@ -118,7 +122,10 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/plants', plantRoutes(services.plants));
   bank.use('/lots/:lotId/photos', subjectPhotoRoutes(services.photos, 'lot', 'lotId'));
   bank.use('/lots/:lotId/tests', lotTestRoutes(services.germination));
-  bank.use('/lots/:lotId/label.svg', labelRoutes(createLabelsService({ db: deps.db, appOrigin: config.appOrigin })));
+  bank.use(
+    '/lots/:lotId/label.svg',
+    labelRoutes(createLabelsService({ db: deps.db, appOrigin: config.appOrigin })),
+  );
   const viability = viabilityRoutes(services.viability);
   bank.use('/lots/:lotId', viability.lot);
   bank.use('/ranking', viability.ranking);

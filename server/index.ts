@@ -55,7 +55,8 @@ server.on('listening', () => {
   process.send?.({ type: 'listening', port });
 });
 server.on('error', (error: NodeJS.ErrnoException) => {
-  const reason = error.code === 'EADDRINUSE' ? `port ${config.port} is already in use (set PORT)` : error.message;
+  const reason =
+    error.code === 'EADDRINUSE' ? `port ${config.port} is already in use (set PORT)` : error.message;
   process.stderr.write(`hilum: the server could not start: ${reason}\n`);
   process.exit(1);
 });

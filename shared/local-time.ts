@@ -16,7 +16,15 @@ const WEEKDAYS = ['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat'];
 export function localNow(now: Date, timeZone?: string): LocalTime {
   const parts = Object.fromEntries(
     // en-CA writes the parts as digits we can join into YYYY-MM-DD.
-    new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', hourCycle: 'h23', weekday: 'short' })
+    new Intl.DateTimeFormat('en-CA', {
+      timeZone,
+      year: 'numeric',
+      month: '2-digit',
+      day: '2-digit',
+      hour: '2-digit',
+      hourCycle: 'h23',
+      weekday: 'short',
+    })
       .formatToParts(now)
       .map((p) => [p.type, p.value]),
   );

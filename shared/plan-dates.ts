@@ -44,7 +44,9 @@ export function planDates(input: {
   start: 'indoors' | 'direct';
 }): PlanDates {
   if (!input.lastFrost) {
-    throw new PlanDateError('Set the bank’s last spring frost date in Settings first: every sowing date counts back from it.');
+    throw new PlanDateError(
+      'Set the bank’s last spring frost date in Settings first: every sowing date counts back from it.',
+    );
   }
   const lastFrost = frostDateIn(input.season, input.lastFrost);
   const safeAfter = addDays(lastFrost, input.marginDays);
@@ -56,9 +58,14 @@ export function planDates(input: {
   let transplantOn: string | null = null;
   if (input.start === 'indoors') {
     if (traits.startWeeksFrom == null || traits.startWeeksTo == null) {
-      throw new PlanDateError('This species has no indoor start window. Set one for the species (weeks before the last frost), or sow it direct.');
+      throw new PlanDateError(
+        'This species has no indoor start window. Set one for the species (weeks before the last frost), or sow it direct.',
+      );
     }
-    if (traits.startMethod === 'direct') notes.push('This species is usually sown direct; starting it indoors may need care when transplanting.');
+    if (traits.startMethod === 'direct')
+      notes.push(
+        'This species is usually sown direct; starting it indoors may need care when transplanting.',
+      );
     sowFrom = addDays(lastFrost, -7 * traits.startWeeksFrom);
     sowTo = addDays(lastFrost, -7 * traits.startWeeksTo);
     transplantOn = safeAfter;
@@ -66,7 +73,9 @@ export function planDates(input: {
   } else {
     sowFrom = safeAfter;
     sowTo = addDays(safeAfter, DIRECT_WINDOW_DAYS);
-    notes.push('Direct sowing is set after the frost date plus margin; hardy crops can often go in earlier — follow local advice.');
+    notes.push(
+      'Direct sowing is set after the frost date plus margin; hardy crops can often go in earlier — follow local advice.',
+    );
   }
   const expectFrom = traits.firstCountDay != null ? addDays(sowFrom, traits.firstCountDay) : null;
   const expectBy = traits.finalCountDay != null ? addDays(sowFrom, traits.finalCountDay) : null;

@@ -11,7 +11,11 @@ export const Z_95 = 1.959963984540054;
  * fractions 0–1. It stays inside 0–1 and behaves at 0%, 100% and the small counts of a home test,
  * where the plain ±z·√(p(1−p)/n) interval does not. No trials, no information: the whole 0–1.
  */
-export function wilsonScoreInterval(successes: number, trials: number, z = Z_95): { low: number; high: number } {
+export function wilsonScoreInterval(
+  successes: number,
+  trials: number,
+  z = Z_95,
+): { low: number; high: number } {
   if (trials <= 0) return { low: 0, high: 1 };
   const n = trials;
   const p = successes / n;

@@ -37,8 +37,7 @@ function run(cmd, args, options = {}) {
 export function ensureDependencies() {
   const lock = path.join(root, 'package-lock.json');
   const marker = path.join(root, 'node_modules', '.package-lock.json');
-  const stale =
-    !fs.existsSync(marker) || fs.statSync(marker).mtimeMs < fs.statSync(lock).mtimeMs;
+  const stale = !fs.existsSync(marker) || fs.statSync(marker).mtimeMs < fs.statSync(lock).mtimeMs;
   if (!stale) return;
   log('installing dependencies (npm ci)…');
   if (run('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root }) !== 0) {
@@ -158,8 +157,20 @@ export async function startPostgres({ bin, dataDir, port, database = 'hilum', du
     fs.writeFileSync(pwFile, password);
     if (isRoot) spawnSync('chown', ['postgres:postgres', pgData, pwFile]);
     const init = asPostgresUser(path.join(bin, 'initdb'), [
-      '-D', pgData, '-U', 'hilum', '--pwfile', pwFile, '-E', 'UTF8', '--locale', 'C.UTF-8',
-      '--auth-local', 'trust', '--auth-host', 'scram-sha-256',
+      '-D',
+      pgData,
+      '-U',
+      'hilum',
+      '--pwfile',
+      pwFile,
+      '-E',
+      'UTF8',
+      '--locale',
+      'C.UTF-8',
+      '--auth-local',
+      'trust',
+      '--auth-host',
+      'scram-sha-256',
     ]);
     fs.rmSync(pwFile, { force: true });
     if (init.status !== 0) {
@@ -174,10 +185,21 @@ export async function startPostgres({ bin, dataDir, port, database = 'hilum', du
   }
   const opts = `-c listen_addresses=127.0.0.1 -p ${port} -k ${socketDir} -c fsync=${durable ? 'on' : 'off'}`;
   const started = asPostgresUser(path.join(bin, 'pg_ctl'), [
-    'start', '-D', pgData, '-l', logFile, '-w', '-t', '60', '-o', opts,
+    'start',
+    '-D',
+    pgData,
+    '-l',
+    logFile,
+    '-w',
+    '-t',
+    '60',
+    '-o',
+    opts,
   ]);
   if (started.status !== 0) {
-    const tail = fs.existsSync(logFile) ? fs.readFileSync(logFile, 'utf8').trim().split('\n').slice(-3).join(' | ') : '';
+    const tail = fs.existsSync(logFile)
+      ? fs.readFileSync(logFile, 'utf8').trim().split('\n').slice(-3).join(' | ')
+      : '';
     throw new SetupError(`PostgreSQL did not start (${tail || started.stderr?.trim()})`);
   }
   const stop = () => {
@@ -185,7 +207,18 @@ export async function startPostgres({ bin, dataDir, port, database = 'hilum', du
   };
   // Create the application database on first run (psql over the socket, trusted locally).
   const psql = (sql, db = 'postgres') =>
-    asPostgresUser(path.join(bin, 'psql'), ['-h', socketDir, '-p', String(port), '-U', 'hilum', '-d', db, '-tAc', sql]);
+    asPostgresUser(path.join(bin, 'psql'), [
+      '-h',
+      socketDir,
+      '-p',
+      String(port),
+      '-U',
+      'hilum',
+      '-d',
+      db,
+      '-tAc',
+      sql,
+    ]);
   const exists = psql(`select 1 from pg_database where datname = '${database}'`);
   if (exists.status !== 0) {
     stop();
@@ -220,7 +253,9 @@ export function startChild(name, script, args, env = {}) {
     };
     child.stdout.on('data', onData);
     child.stderr.on('data', (chunk) => (output += chunk.toString()));
-    child.once('exit', (code) => reject(new SetupError(`${name} stopped (exit ${code}): ${output.trim().split('\n').pop()}`)));
+    child.once('exit', (code) =>
+      reject(new SetupError(`${name} stopped (exit ${code}): ${output.trim().split('\n').pop()}`)),
+    );
   });
 }
 
@@ -239,10 +274,18 @@ export function stopChild(child, signal = 'SIGTERM') {
 /** Starts both fakes; returns their children and the environment the app needs to reach them. */
 export async function startFakes({ s3Port, smtpPort, s3Dir, outboxDir, bucket = 'hilum' }) {
   const s3 = await startChild('object-store fake', 'scripts/s3-fake.mjs', [
-    '--port', String(s3Port), '--dir', s3Dir, '--bucket', bucket,
+    '--port',
+    String(s3Port),
+    '--dir',
+    s3Dir,
+    '--bucket',
+    bucket,
   ]);
   const smtp = await startChild('SMTP fake', 'scripts/smtp-fake.mjs', [
-    '--port', String(smtpPort), '--dir', outboxDir,
+    '--port',
+    String(smtpPort),
+    '--dir',
+    outboxDir,
   ]);
   return {
     children: { s3, smtp },
@@ -277,10 +320,20 @@ export function newestMtime(paths) {
 /** Builds the client when dist/ is missing or older than its sources. */
 export function buildClientIfStale() {
   const built = path.join(root, 'dist', 'index.html');
-  const sources = newestMtime(['src', 'shared', 'index.html', 'vite.config.ts', 'tailwind.config.ts', 'public', 'package-lock.json']);
+  const sources = newestMtime([
+    'src',
+    'shared',
+    'index.html',
+    'vite.config.ts',
+    'tailwind.config.ts',
+    'public',
+    'package-lock.json',
+  ]);
   if (fs.existsSync(built) && fs.statSync(built).mtimeMs >= sources) return;
   log('building the client (vite build)…');
-  if (run(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], { cwd: root }) !== 0) {
+  if (
+    run(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], { cwd: root }) !== 0
+  ) {
     throw new SetupError('vite build failed; see the messages above');
   }
 }

@@ -53,7 +53,9 @@ const YES = new Set(['yes', 'true', '1']);
 
 /** yes/no, also as true/false/1/0 in any letter case; an empty cell (or a missing column) is no. */
 export function yesNo(message: string) {
-  return choice(z.enum(['yes', 'no', 'true', 'false', '1', '0', ''], { message })).transform((v) => YES.has(v));
+  return choice(z.enum(['yes', 'no', 'true', 'false', '1', '0', ''], { message })).transform((v) =>
+    YES.has(v),
+  );
 }
 
 /** A date that exists, YYYY-MM-DD; empty is null. */

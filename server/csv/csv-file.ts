@@ -129,7 +129,11 @@ function listNames(names: readonly string[]): string {
   return names.map((n) => `"${n}"`).join(', ');
 }
 
-function checkHeader<C extends string>(layout: CsvLayout<C>, headers: readonly string[], firstLine: string): CsvError[] {
+function checkHeader<C extends string>(
+  layout: CsvLayout<C>,
+  headers: readonly string[],
+  firstLine: string,
+): CsvError[] {
   const knownNames = new Set<string>(layout.columns);
   const known = headers.filter((h) => knownNames.has(h));
   if (known.length === 0) {
@@ -237,10 +241,16 @@ export function readCsv<C extends string>(
 ): { ok: true } | { ok: false; errors: CsvError[] } {
   const body = text.startsWith(BOM) ? text.slice(1) : text;
   if (body.trim() === '') {
-    return fail(1, `The file is empty. A ${layout.what} CSV starts with the header row: ${layout.columns.join(',')}.`);
+    return fail(
+      1,
+      `The file is empty. A ${layout.what} CSV starts with the header row: ${layout.columns.join(',')}.`,
+    );
   }
   if (body.includes('\u0000')) {
-    return fail(1, 'This is not a CSV text file (a spreadsheet workbook, perhaps). Save it as "CSV UTF-8" and try again.');
+    return fail(
+      1,
+      'This is not a CSV text file (a spreadsheet workbook, perhaps). Save it as "CSV UTF-8" and try again.',
+    );
   }
   const lineAt = lineCounter(body);
   const undecodable = body.indexOf('\uFFFD');

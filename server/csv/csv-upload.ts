@@ -4,7 +4,10 @@ import { z } from 'zod';
 import { badRequest, parse } from '../http/errors';
 
 /** One CSV file in the multipart field `file`, up to 5 MB, kept in memory. */
-export const csvUpload = multer({ storage: multer.memoryStorage(), limits: { fileSize: 5 * 1024 * 1024, files: 1 } });
+export const csvUpload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: 5 * 1024 * 1024, files: 1 },
+});
 
 const importQuery = z.object({ dryRun: z.stringbool().default(false) });
 

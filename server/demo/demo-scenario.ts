@@ -33,7 +33,8 @@ function generator(seed: number) {
     next,
     int: (lo: number, hi: number) => lo + Math.floor(next() * (hi - lo + 1)),
     pick: <T>(xs: readonly T[]): T => xs[Math.floor(next() * xs.length)]!,
-    normal: (mean: number, sd: number) => mean + sd * Math.sqrt(-2 * Math.log(1 - next())) * Math.cos(2 * Math.PI * next()),
+    normal: (mean: number, sd: number) =>
+      mean + sd * Math.sqrt(-2 * Math.log(1 - next())) * Math.cos(2 * Math.PI * next()),
     binomial: (n: number, p: number) => {
       let k = 0;
       for (let i = 0; i < n; i++) if (next() < p) k++;
@@ -82,7 +83,8 @@ const PACKET_COLOURS = ['#b5835a', '#8a9a5b', '#c9a66b', '#a0522d', '#6b8e7f', '
 
 /** A paper seed packet, drawn: the photo a grower would take of it, made here with sharp. */
 async function packetPhoto(code: string, species: string, variety: string, colour: string): Promise<Buffer> {
-  const esc = (s: string) => s.replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c]!);
+  const esc = (s: string) =>
+    s.replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c]!);
   const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="900" height="1200">
     <rect width="900" height="1200" fill="#e8e0d0"/>
     <g transform="rotate(-4 450 600)">
@@ -116,8 +118,17 @@ export interface DemoDeps {
 export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string } | null> {
   const { db } = deps;
   await seedDemo(db);
-  const bank = await db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow();
-  const already = await db.selectFrom('lots').select('id').where('bank_id', '=', bank.id).limit(1).executeTakeFirst();
+  const bank = await db
+    .selectFrom('banks')
+    .select('id')
+    .where('name', '=', DEMO_BANK_NAME)
+    .executeTakeFirstOrThrow();
+  const already = await db
+    .selectFrom('lots')
+    .select('id')
+    .where('bank_id', '=', bank.id)
+    .limit(1)
+    .executeTakeFirst();
   if (already) return null;
   const rnd = generator(20261201);
   const today = await bankToday(db, deps.clock, bank.id);
@@ -131,18 +142,37 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
   const grower = users['grower@example.org']!;
 
   const species = Object.fromEntries(
-    (await db.selectFrom('species').select(['id', 'ref_key', 'common_name', 'traits']).where('ref_key', 'in', Object.keys(DEMO_SPECIES)).execute()).map(
-      (s) => [s.ref_key!, s],
-    ),
+    (
+      await db
+        .selectFrom('species')
+        .select(['id', 'ref_key', 'common_name', 'traits'])
+        .where('ref_key', 'in', Object.keys(DEMO_SPECIES))
+        .execute()
+    ).map((s) => [s.ref_key!, s]),
   );
 
   const photos: { lotId: string; code: string; species: string; variety: string }[] = [];
   await db.transaction().execute(async (trx) => {
     let second = users[EXTRA_GROWER.email];
     if (!second) {
-      const hash = (await trx.selectFrom('users').select('password_hash').where('id', '=', grower).executeTakeFirstOrThrow()).password_hash;
-      second = (await trx.insertInto('users').values({ email: EXTRA_GROWER.email, name: EXTRA_GROWER.name, password_hash: hash }).returning('id').executeTakeFirstOrThrow()).id;
-      await trx.insertInto('memberships').values({ bank_id: bank.id, user_id: second, role: 'grower' }).execute();
+      const hash = (
+        await trx
+          .selectFrom('users')
+          .select('password_hash')
+          .where('id', '=', grower)
+          .executeTakeFirstOrThrow()
+      ).password_hash;
+      second = (
+        await trx
+          .insertInto('users')
+          .values({ email: EXTRA_GROWER.email, name: EXTRA_GROWER.name, password_hash: hash })
+          .returning('id')
+          .executeTakeFirstOrThrow()
+      ).id;
+      await trx
+        .insertInto('memberships')
+        .values({ bank_id: bank.id, user_id: second, role: 'grower' })
+        .execute();
     }
     const people = [keeper, grower, second];
 
@@ -194,7 +224,10 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
       const sp = species[l.key]!;
       const code = nextCode(codePrefix(sp.common_name, l.harvest ? l.season : l.season + 1), codes);
       codes.push(code);
-      const ref = harvestReference({ harvestDate: l.harvest, packedForSeason: l.harvest ? null : l.season + 1 });
+      const ref = harvestReference({
+        harvestDate: l.harvest,
+        packedForSeason: l.harvest ? null : l.season + 1,
+      });
       const lot = await trx
         .insertInto('lots')
         .values({
@@ -203,7 +236,12 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
           code,
           variety: l.variety,
           origin: l.origin,
-          source_name: l.origin === 'bought' ? 'Valley Mercantile seed rack' : l.origin === 'swapped' ? 'Spring swap at the grange hall' : null,
+          source_name:
+            l.origin === 'bought'
+              ? 'Valley Mercantile seed rack'
+              : l.origin === 'swapped'
+                ? 'Spring swap at the grange hall'
+                : null,
           harvest_date: l.harvest,
           packed_for_season: l.harvest ? null : l.season + 1,
           plants_bulked: l.origin === 'saved' ? rnd.int(1, 12) : null,
@@ -218,7 +256,14 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
         .executeTakeFirstOrThrow();
       await trx
         .insertInto('stock_movements')
-        .values({ lot_id: lot.id, kind: 'initial', change: l.stock, date: ref, reason: 'Counted when the lot was logged', created_by: keeper })
+        .values({
+          lot_id: lot.id,
+          kind: 'initial',
+          change: l.stock,
+          date: ref,
+          reason: 'Counted when the lot was logged',
+          created_by: keeper,
+        })
         .execute();
       return { id: lot.id, code, ref, key: l.key };
     }
@@ -228,7 +273,13 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
      * final count), `perTray` seeds each, counted on some of the species' check days up to today.
      * Returns the seeds it took from the lot.
      */
-    async function addTest(lot: { id: string; key: string }, start: string, perTray: number, germinated: number[], running = false) {
+    async function addTest(
+      lot: { id: string; key: string },
+      start: string,
+      perTray: number,
+      germinated: number[],
+      running = false,
+    ) {
       const { first, final } = countDays(lot.key);
       const sown = perTray * germinated.length;
       const test = await trx
@@ -249,23 +300,51 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
         .executeTakeFirstOrThrow();
       await trx
         .insertInto('stock_movements')
-        .values({ lot_id: lot.id, kind: 'test', change: -sown, date: start, reason: `Germination test: ${sown} seeds in ${germinated.length} trays`, created_by: keeper, test_id: test.id })
+        .values({
+          lot_id: lot.id,
+          kind: 'test',
+          change: -sown,
+          date: start,
+          reason: `Germination test: ${sown} seeds in ${germinated.length} trays`,
+          created_by: keeper,
+          test_id: test.id,
+        })
         .execute();
       // Check days between the first and final count day; emergence spread around the middle.
-      const checks = [...new Set([first - 1, first, Math.round((first + final) / 2), final - 1, final].filter((d) => d >= 2))].sort((a, b) => a - b).slice(0, rnd.int(3, 5));
+      const checks = [
+        ...new Set(
+          [first - 1, first, Math.round((first + final) / 2), final - 1, final].filter((d) => d >= 2),
+        ),
+      ]
+        .sort((a, b) => a - b)
+        .slice(0, rnd.int(3, 5));
       for (const [i, total] of germinated.entries()) {
-        const row = await trx.insertInto('test_trays').values({ test_id: test.id, position: i + 1, seeds_sown: perTray }).returning('id').executeTakeFirstOrThrow();
+        const row = await trx
+          .insertInto('test_trays')
+          .values({ test_id: test.id, position: i + 1, seeds_sown: perTray })
+          .returning('id')
+          .executeTakeFirstOrThrow();
         let cumulative = 0;
         for (const [j, day] of checks.entries()) {
           const date = addDays(start, day);
           if (date > today || (running && date >= today)) break;
           const share = normalCdf((day - (first + final) / 2 + 1.5) / 2);
-          cumulative = Math.max(cumulative, j === checks.length - 1 && !running ? total : Math.round(total * share));
-          await trx.insertInto('tray_counts').values({ tray_id: row.id, check_date: date, cumulative, created_by: rnd.pick(people) }).execute();
+          cumulative = Math.max(
+            cumulative,
+            j === checks.length - 1 && !running ? total : Math.round(total * share),
+          );
+          await trx
+            .insertInto('tray_counts')
+            .values({ tray_id: row.id, check_date: date, cumulative, created_by: rnd.pick(people) })
+            .execute();
         }
         if (!running) {
           const abnormal = Math.min(perTray - cumulative, rnd.int(0, 2));
-          await trx.updateTable('test_trays').set({ abnormal, ungerminated: perTray - cumulative - abnormal }).where('id', '=', row.id).execute();
+          await trx
+            .updateTable('test_trays')
+            .set({ abnormal, ungerminated: perTray - cumulative - abnormal })
+            .where('id', '=', row.id)
+            .execute();
         }
       }
       return sown;
@@ -281,7 +360,8 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
       const season = latest - ((n + round) % 3);
       const origin = n % 5 === 3 ? 'bought' : n % 5 === 4 ? 'swapped' : 'saved';
       // A short season: seed is saved in August and September, before the first frost.
-      const harvest = origin === 'bought' ? null : `${season}-0${rnd.int(8, 9)}-${String(rnd.int(1, 28)).padStart(2, '0')}`;
+      const harvest =
+        origin === 'bought' ? null : `${season}-0${rnd.int(8, 9)}-${String(rnd.int(1, 28)).padStart(2, '0')}`;
       const place = rnd.pick(['room', 'room', 'fridge', 'freezer'] as const);
       const initial = rnd.int(3, 14) * 50;
       const lot = await addLot({
@@ -295,13 +375,17 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
         ...(n === 7 ? { notes: 'Bought coated with fungicide (pink coating).', treated: true } : {}),
       });
       if (plantIds[key] && origin === 'saved' && n % 2 === 0) {
-        await trx.insertInto('lot_parents').values({ lot_id: lot.id, parent_plant_id: plantIds[key]![0]! }).execute();
+        await trx
+          .insertInto('lot_parents')
+          .values({ lot_id: lot.id, parent_plant_id: plantIds[key]![0]! })
+          .execute();
       }
       let stock = initial;
 
       // The lot's invented truth: initial viability and decline, a few storage-damaged lots.
       const ki = rnd.normal(n % 9 === 0 ? 1.0 : 1.75, 0.25);
-      const sigma = def.sigma * (place === 'freezer' ? 3 : place === 'fridge' ? 1.8 : 1) * (n % 11 === 5 ? 0.35 : 1);
+      const sigma =
+        def.sigma * (place === 'freezer' ? 3 : place === 'fridge' ? 1.8 : 1) * (n % 11 === 5 ? 0.35 : 1);
       const testCount = n % 8 === 6 ? 0 : Math.min(3, 1 + Math.floor(rnd.next() * 3));
       // The newest tomato lot has a test on the bench now, due for its first count today.
       const running = n === 0;
@@ -314,7 +398,12 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
         const perTray = stock > trays * 60 ? 50 : 25;
         if (stock < trays * perTray) break;
         const p = normalCdf(ki - ageYears(lot.ref, start) / sigma);
-        stock -= await addTest(lot, start, perTray, Array.from({ length: trays }, () => rnd.binomial(perTray, p)));
+        stock -= await addTest(
+          lot,
+          start,
+          perTray,
+          Array.from({ length: trays }, () => rnd.binomial(perTray, p)),
+        );
       }
       if (running) {
         const begun = addDays(today, -first);
@@ -327,25 +416,51 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
         const given = rnd.int(2, 6) * 10;
         await trx
           .insertInto('stock_movements')
-          .values({ lot_id: lot.id, kind: 'given', change: -given, date: givenOn, reason: 'Shared at the circle’s autumn meeting', created_by: rnd.pick(people) })
+          .values({
+            lot_id: lot.id,
+            kind: 'given',
+            change: -given,
+            date: givenOn,
+            reason: 'Shared at the circle’s autumn meeting',
+            created_by: rnd.pick(people),
+          })
           .execute();
         stock -= given;
       }
       // Two older lots were sown to the last seed (an empty lot is retired whatever its tests say).
       if (n % 13 === 11) {
         if (stock > 0) {
-          await trx.insertInto('stock_movements').values({ lot_id: lot.id, kind: 'sown', change: -stock, date: addDays(lot.ref, 240), reason: 'Sown the last of it', created_by: grower }).execute();
+          await trx
+            .insertInto('stock_movements')
+            .values({
+              lot_id: lot.id,
+              kind: 'sown',
+              change: -stock,
+              date: addDays(lot.ref, 240),
+              reason: 'Sown the last of it',
+              created_by: grower,
+            })
+            .execute();
         }
         await trx.updateTable('lots').set({ status: 'depleted' }).where('id', '=', lot.id).execute();
       }
-      if (n < 12) photos.push({ lotId: lot.id, code: lot.code, species: species[key]!.common_name, variety: def.varieties[round % def.varieties.length]! });
+      if (n < 12)
+        photos.push({
+          lotId: lot.id,
+          code: lot.code,
+          species: species[key]!.common_name,
+          variety: def.varieties[round % def.varieties.length]!,
+        });
     }
 
     // Five lots with a story a seed circle knows, so every piece of advice shows on the demo bank
     // whatever day it is seeded: their dates are fixed seasons back from the latest harvest, and the
     // lots a grower has just rechecked were tested a few weeks before today. Each story's counts
     // are what an invented truth on the viability equation gives, so the advice arises from the data.
-    const story = async (lot: Parameters<typeof addLot>[0], tests: { start: string; perTray: number; germinated: number[] }[]) => {
+    const story = async (
+      lot: Parameters<typeof addLot>[0],
+      tests: { start: string; perTray: number; germinated: number[] }[],
+    ) => {
       const row = await addLot(lot);
       for (const t of tests) await addTest(row, t.start, t.perTray, t.germinated);
       return row;
@@ -361,22 +476,49 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
     // newer lot of the same line waits in the fridge: sow the old one thickly, the new one as usual.
     const oldRose = `${latest - 3}-09-12`;
     await story(
-      { key: 'tomato', variety: 'Crackle Rose', origin: 'saved', season: latest - 3, harvest: oldRose, place: 'room', stock: 400, notes: 'The older envelope of this line; the newer one is in the fridge.' },
+      {
+        key: 'tomato',
+        variety: 'Crackle Rose',
+        origin: 'saved',
+        season: latest - 3,
+        harvest: oldRose,
+        place: 'room',
+        stock: 400,
+        notes: 'The older envelope of this line; the newer one is in the fridge.',
+      },
       [
         { start: `${latest - 3}-12-10`, perTray: 25, germinated: split(45, 2) },
         { start: `${latest - 2}-12-05`, perTray: 25, germinated: split(42, 2) },
         recheck(oldRose, 1.4, 3.2, addDays(today, -34)),
       ],
     );
-    await story({ key: 'tomato', variety: 'Crackle Rose', origin: 'saved', season: latest - 1, harvest: `${latest - 1}-09-20`, place: 'fridge', stock: 300 }, [
-      { start: `${latest}-01-08`, perTray: 25, germinated: split(95, 4) },
-    ]);
+    await story(
+      {
+        key: 'tomato',
+        variety: 'Crackle Rose',
+        origin: 'saved',
+        season: latest - 1,
+        harvest: `${latest - 1}-09-20`,
+        place: 'fridge',
+        stock: 300,
+      },
+      [{ start: `${latest}-01-08`, perTray: 25, germinated: split(95, 4) }],
+    );
 
     // The circle's only lettuce of its kind, years on a shelf and sagging (rechecked six weeks ago):
     // still worth sowing, but grown out this year for fresh seed.
     const ripple = `${latest - 4}-08-25`;
     await story(
-      { key: 'lettuce', variety: 'Bronze Ripple', origin: 'saved', season: latest - 4, harvest: ripple, place: 'room', stock: 600, notes: 'The only envelope of this one in the circle.' },
+      {
+        key: 'lettuce',
+        variety: 'Bronze Ripple',
+        origin: 'saved',
+        season: latest - 4,
+        harvest: ripple,
+        place: 'room',
+        stock: 600,
+        notes: 'The only envelope of this one in the circle.',
+      },
       [
         { start: `${latest - 4}-11-20`, perTray: 50, germinated: split(94, 2) },
         { start: `${latest - 2}-01-15`, perTray: 25, germinated: split(45, 2) },
@@ -387,7 +529,16 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
     // A pole bean that went into the freezer the winter it was saved and was tested only then:
     // more than three years ago, so a new test is asked for, whatever the projection says.
     await story(
-      { key: 'bean', variety: 'Creek Pole', origin: 'saved', season: latest - 5, harvest: `${latest - 5}-09-05`, place: 'freezer', stock: 350, notes: 'Frozen the winter it was saved.' },
+      {
+        key: 'bean',
+        variety: 'Creek Pole',
+        origin: 'saved',
+        season: latest - 5,
+        harvest: `${latest - 5}-09-05`,
+        place: 'freezer',
+        stock: 350,
+        notes: 'Frozen the winter it was saved.',
+      },
       [{ start: `${latest - 5}-12-02`, perTray: 25, germinated: split(48, 2) }],
     );
 
@@ -395,7 +546,16 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
     // recheck three weeks ago found little alive. Retired.
     const stoveOnion = `${latest - 2}-09-10`;
     await story(
-      { key: 'onion', variety: 'Long Keeper Yellow', origin: 'saved', season: latest - 2, harvest: stoveOnion, place: 'room', location: 'Kitchen shelf, by the stove', stock: 180 },
+      {
+        key: 'onion',
+        variety: 'Long Keeper Yellow',
+        origin: 'saved',
+        season: latest - 2,
+        harvest: stoveOnion,
+        place: 'room',
+        location: 'Kitchen shelf, by the stove',
+        stock: 180,
+      },
       [
         { start: `${latest - 2}-12-12`, perTray: 25, germinated: split(44, 2) },
         { start: `${latest - 1}-12-01`, perTray: 25, germinated: split(28, 2) },
@@ -409,7 +569,9 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
   // Packet photos go through the same pipeline as a grower's upload.
   if (deps.storage) {
     for (const [i, p] of photos.entries()) {
-      const processed = await processPhoto(await packetPhoto(p.code, p.species, p.variety, PACKET_COLOURS[i % PACKET_COLOURS.length]!));
+      const processed = await processPhoto(
+        await packetPhoto(p.code, p.species, p.variety, PACKET_COLOURS[i % PACKET_COLOURS.length]!),
+      );
       const photoId = crypto.randomUUID();
       const keys = await storeProcessedPhoto(deps.storage, bank.id, photoId, processed);
       await db
@@ -431,20 +593,45 @@ export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string
   }
 
   // A plan for the coming season, with Hilum's suggested lots.
-  const plan = createPlanService({ db, clock: deps.clock, viability: createViabilityService({ db, clock: deps.clock }) });
+  const plan = createPlanService({
+    db,
+    clock: deps.clock,
+    viability: createViabilityService({ db, clock: deps.clock }),
+  });
   // The season the planner opens on by default, so the demo's plan is the one a visitor sees.
   const season = comingSeason(today);
-  const wanted: [string, number][] = [['tomato', 12], ['pepper', 6], ['petunia', 24], ['marigold', 18], ['lettuce', 20], ['kale', 8], ['onion', 40], ['bean', 30]];
+  const wanted: [string, number][] = [
+    ['tomato', 12],
+    ['pepper', 6],
+    ['petunia', 24],
+    ['marigold', 18],
+    ['lettuce', 20],
+    ['kale', 8],
+    ['onion', 40],
+    ['bean', 30],
+  ];
   for (const [key, plants] of wanted) {
     await plan
-      .create(bank.id, keeper, { season, speciesId: species[key]!.id, plantsWanted: plants, start: DEMO_SPECIES[key]!.sow })
+      .create(bank.id, keeper, {
+        season,
+        speciesId: species[key]!.id,
+        plantsWanted: plants,
+        start: DEMO_SPECIES[key]!.sow,
+      })
       .catch(() => undefined);
   }
 
   // Some captured mail: an invitation to a neighbour who has not joined yet.
   if (deps.mailer) {
-    const invitations = createInvitationsService({ db, clock: deps.clock, mailer: deps.mailer, appOrigin: deps.appOrigin });
-    await invitations.invite(bank.id, keeper, { email: 'new-neighbour@example.org', role: 'viewer' }).catch(() => undefined);
+    const invitations = createInvitationsService({
+      db,
+      clock: deps.clock,
+      mailer: deps.mailer,
+      appOrigin: deps.appOrigin,
+    });
+    await invitations
+      .invite(bank.id, keeper, { email: 'new-neighbour@example.org', role: 'viewer' })
+      .catch(() => undefined);
   }
   return { bankId: bank.id };
 }

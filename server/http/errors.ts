@@ -28,7 +28,13 @@ export const unprocessable = (message: string, fields?: Record<string, string>) 
 /** A refused CSV file (400 invalid_csv): every problem, by line, beside the message; nothing imported. */
 export function invalidCsv(rows: { line: number; column?: string; message: string }[]): AppError {
   const n = rows.length;
-  return new AppError(400, 'invalid_csv', `The file has ${n} problem${n === 1 ? '' : 's'}; nothing was imported.`, undefined, rows.slice(0, 200));
+  return new AppError(
+    400,
+    'invalid_csv',
+    `The file has ${n} problem${n === 1 ? '' : 's'}; nothing was imported.`,
+    undefined,
+    rows.slice(0, 200),
+  );
 }
 export const serviceDown = (message: string) => new AppError(503, 'service_unavailable', message);
 

@@ -82,7 +82,8 @@ export function commonSlopeProbit(groups: readonly ProbitGroup[], maxIterations 
       sumBR += (b[g]! * r[g]!) / D[g]!;
     }
     schur = c - sumBB;
-    if (!(schur > 0)) throw new RangeError('a common slope needs some group observed at two or more distinct x values');
+    if (!(schur > 0))
+      throw new RangeError('a common slope needs some group observed at two or more distinct x values');
     const nextBeta = (rBeta - sumBR) / schur;
     const nextAlpha = alpha.map((_, g) => (r[g]! - b[g]! * nextBeta) / D[g]!);
     // Step-halving keeps the deviance from rising (safe near 0% and 100% points).

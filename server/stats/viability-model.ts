@@ -165,7 +165,10 @@ function logLik(tests: readonly ModelTest[], heldBack: Set<string>, k: number, b
   let sum = 0;
   for (const t of tests) {
     const x = k - b * t.age;
-    sum += heldBack.size > 0 && heldBack.has(t.id) ? logAtLeast(t.alive, t.sown, phi(x)) : logBinomialKernel(t.alive, t.sown, x);
+    sum +=
+      heldBack.size > 0 && heldBack.has(t.id)
+        ? logAtLeast(t.alive, t.sown, phi(x))
+        : logBinomialKernel(t.alive, t.sown, x);
   }
   return sum;
 }
@@ -249,9 +252,14 @@ export function fitSpeciesModel(lots: readonly ModelLot[], prior: SpeciesPrior):
   const marginals = new Map<string, number[]>();
   for (const lot of lots) {
     if (lot.tests.length === 0) continue;
-    const bad = lot.tests.find((t) => !(t.sown > 0) || !(t.alive >= 0) || t.alive > t.sown || !Number.isFinite(t.age) || t.age < 0);
+    const bad = lot.tests.find(
+      (t) => !(t.sown > 0) || !(t.alive >= 0) || t.alive > t.sown || !Number.isFinite(t.age) || t.age < 0,
+    );
     if (bad) {
-      failures.set(lot.id, 'One of its tests has counts that cannot be read (more alive than sown, or none sown).');
+      failures.set(
+        lot.id,
+        'One of its tests has counts that cannot be read (more alive than sown, or none sown).',
+      );
       continue;
     }
     const held = heldBackTests(lot.tests);
@@ -302,7 +310,12 @@ function fitLot(lot: ModelLot, grid: SpeciesGrid, total: number[], heldBack: Set
   const muWeights = loo.map((v) => Math.exp(v - looNorm));
   const otherLotsInform = grid.contributions.size - (own ? 1 : 0) > 0;
   const logRatePrior = (lr: number) =>
-    Math.log(Math.max(LOG_EPS, grid.mus.reduce((s, mu, i) => s + muWeights[i]! * Math.exp(logNormalPdf(lr, mu, c.tau)), 0)));
+    Math.log(
+      Math.max(
+        LOG_EPS,
+        grid.mus.reduce((s, mu, i) => s + muWeights[i]! * Math.exp(logNormalPdf(lr, mu, c.tau)), 0),
+      ),
+    );
 
   // Posterior over (log b, K): log b on a grid, K integrated around its conditional mode.
   const marginal = grid.marginals.get(lot.id);
@@ -310,7 +323,12 @@ function fitLot(lot: ModelLot, grid: SpeciesGrid, total: number[], heldBack: Set
   const norm = logSumExp(coarse);
   const w = coarse.map((v) => Math.exp(v - norm));
   const mean = w.reduce((s, wi, i) => s + wi * grid.rates[i]!, 0);
-  const sd = Math.sqrt(Math.max(0, w.reduce((s, wi, i) => s + wi * (grid.rates[i]! - mean) ** 2, 0)));
+  const sd = Math.sqrt(
+    Math.max(
+      0,
+      w.reduce((s, wi, i) => s + wi * (grid.rates[i]! - mean) ** 2, 0),
+    ),
+  );
   const step = grid.rates[1]! - grid.rates[0]!;
   const half = Math.max(2 * step, 6 * sd);
   const fine = linspace(mean - half, mean + half, RATE_GRID);
@@ -326,20 +344,27 @@ function fitLot(lot: ModelLot, grid: SpeciesGrid, total: number[], heldBack: Set
     });
   }
   const z = logSumExp(logs);
-  if (!Number.isFinite(z)) return { ok: false, lotId: lot.id, reason: 'Its tests could not be fitted together.' };
+  if (!Number.isFinite(z))
+    return { ok: false, lotId: lot.id, reason: 'Its tests could not be fitted together.' };
   points.forEach((p, i) => (p.w = Math.exp(logs[i]! - z)));
   const kept = resample(points, DRAWS);
 
   const ownAges = new Set(lot.tests.filter((t) => !heldBack.has(t.id)).map((t) => t.age));
   const priorSd = Math.sqrt(c.tau * c.tau + Math.max(0, weightedVariance(grid.mus, muWeights)));
-  const basis: LotModel['basis'] = ownAges.size >= 2 && sd < 0.8 * priorSd ? 'lot' : otherLotsInform ? 'species' : 'typical';
+  const basis: LotModel['basis'] =
+    ownAges.size >= 2 && sd < 0.8 * priorSd ? 'lot' : otherLotsInform ? 'species' : 'typical';
   const initial = band(kept, (p) => phi(p.k));
   const rate = quantile(kept, (p) => p.b, 0.5);
   const notes: string[] = [];
   if (heldBack.size > 0) {
-    notes.push('A later test came up far better than an earlier one: the earlier test may have been held back by dormancy or by conditions, so it is read only as "at least this many were alive", not as decline.');
+    notes.push(
+      'A later test came up far better than an earlier one: the earlier test may have been held back by dormancy or by conditions, so it is read only as "at least this many were alive", not as decline.',
+    );
   }
-  if (lot.tests.length === 0) notes.push('Not tested: this is the species’ typical figure for a lot of this age and storage, a guess until a test.');
+  if (lot.tests.length === 0)
+    notes.push(
+      'Not tested: this is the species’ typical figure for a lot of this age and storage, a guess until a test.',
+    );
   return {
     ok: true,
     model: {
@@ -415,7 +440,10 @@ export function projectModel(model: Pick<LotModel, 'points'>, age: number, confi
 }
 
 /** The posterior distribution of viability at an equivalent age, as weighted values (for seeds to sow). */
-export function viabilityDistribution(model: Pick<LotModel, 'points'>, age: number): { p: number; w: number }[] {
+export function viabilityDistribution(
+  model: Pick<LotModel, 'points'>,
+  age: number,
+): { p: number; w: number }[] {
   return model.points.map((pt) => ({ p: phi(pt.k - pt.b * age), w: pt.w }));
 }
 
@@ -426,5 +454,11 @@ export function viabilityDistribution(model: Pick<LotModel, 'points'>, age: numb
  */
 export function monitoringIntervalYears(model: Pick<LotModel, 'points'>): number {
   const times = model.points.map((p) => ({ x: (p.k - normalQuantile(0.85 * phi(p.k))) / p.b, w: p.w }));
-  return quantile(times.map((t) => ({ k: t.x, b: 1, w: t.w })), (p) => p.k, 0.5) / 3;
+  return (
+    quantile(
+      times.map((t) => ({ k: t.x, b: 1, w: t.w })),
+      (p) => p.k,
+      0.5,
+    ) / 3
+  );
 }

@@ -21,7 +21,10 @@ export type RegisterBody = z.infer<typeof registerBodySchema>;
 
 export const loginBodySchema = z.object({
   email: emailSchema,
-  password: z.string({ message: 'Enter your password.' }).min(1, { message: 'Enter your password.' }).max(200),
+  password: z
+    .string({ message: 'Enter your password.' })
+    .min(1, { message: 'Enter your password.' })
+    .max(200),
 });
 export type LoginBody = z.infer<typeof loginBodySchema>;
 

@@ -2,7 +2,11 @@ import { z } from 'zod';
 import { emailSchema, roleSchema } from './accounts';
 import { idSchema, monthDaySchema } from './common';
 
-const bankName = z.string({ message: 'Name the bank.' }).trim().min(1, { message: 'Name the bank.' }).max(120);
+const bankName = z
+  .string({ message: 'Name the bank.' })
+  .trim()
+  .min(1, { message: 'Name the bank.' })
+  .max(120);
 /** An IANA time zone name the runtime knows: the bank's calendar for "today". */
 const timeZoneSchema = z.string().refine(
   (tz) => {
@@ -30,10 +34,24 @@ export const updateBankBodySchema = z
     name: bankName,
     lastFrost: monthDaySchema.nullable(),
     firstFrost: monthDaySchema.nullable(),
-    frostMarginDays: z.number({ message: 'Enter a whole number of days from 0 to 60.' }).int({ message: 'Enter a whole number of days from 0 to 60.' }).min(0, { message: 'Enter a whole number of days from 0 to 60.' }).max(60, { message: 'Enter a whole number of days from 0 to 60.' }),
-    sowThresholdPercent: z.number().int().min(1, { message: 'Between 1 and 100.' }).max(100, { message: 'Between 1 and 100.' }),
-    establishmentFactor: z.number().gt(0, { message: 'Above 0 and at most 1.' }).max(1, { message: 'Above 0 and at most 1.' }),
-    sowingAssurance: z.number().gt(0.5, { message: 'Between 0.5 and 0.99.' }).max(0.99, { message: 'Between 0.5 and 0.99.' }),
+    frostMarginDays: z
+      .number({ message: 'Enter a whole number of days from 0 to 60.' })
+      .int({ message: 'Enter a whole number of days from 0 to 60.' })
+      .min(0, { message: 'Enter a whole number of days from 0 to 60.' })
+      .max(60, { message: 'Enter a whole number of days from 0 to 60.' }),
+    sowThresholdPercent: z
+      .number()
+      .int()
+      .min(1, { message: 'Between 1 and 100.' })
+      .max(100, { message: 'Between 1 and 100.' }),
+    establishmentFactor: z
+      .number()
+      .gt(0, { message: 'Above 0 and at most 1.' })
+      .max(1, { message: 'Above 0 and at most 1.' }),
+    sowingAssurance: z
+      .number()
+      .gt(0.5, { message: 'Between 0.5 and 0.99.' })
+      .max(0.99, { message: 'Between 0.5 and 0.99.' }),
     timeZone: timeZoneSchema,
   })
   .partial()
@@ -56,7 +74,12 @@ export type BankDto = z.infer<typeof bankSchema>;
 
 export const bankResponseSchema = z.object({ bank: bankSchema, role: roleSchema });
 
-export const memberSchema = z.object({ userId: idSchema, name: z.string(), email: z.string(), role: roleSchema });
+export const memberSchema = z.object({
+  userId: idSchema,
+  name: z.string(),
+  email: z.string(),
+  role: roleSchema,
+});
 export type Member = z.infer<typeof memberSchema>;
 export const membersResponseSchema = z.object({ items: z.array(memberSchema) });
 
@@ -77,4 +100,8 @@ export type InvitationDto = z.infer<typeof invitationSchema>;
 export const invitationsResponseSchema = z.object({ items: z.array(invitationSchema) });
 
 export const acceptInvitationBodySchema = z.object({ token: z.string().min(10).max(200) });
-export const acceptInvitationResponseSchema = z.object({ bankId: idSchema, role: roleSchema, bankName: z.string() });
+export const acceptInvitationResponseSchema = z.object({
+  bankId: idSchema,
+  role: roleSchema,
+  bankName: z.string(),
+});

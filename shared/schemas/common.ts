@@ -20,7 +20,9 @@ export const errorResponseSchema = z.object({
     code: z.string(),
     message: z.string(),
     fields: z.record(z.string(), z.string()).optional(),
-    rows: z.array(z.object({ line: z.number(), column: z.string().optional(), message: z.string() })).optional(),
+    rows: z
+      .array(z.object({ line: z.number(), column: z.string().optional(), message: z.string() }))
+      .optional(),
   }),
 });
 export type ErrorResponse = z.infer<typeof errorResponseSchema>;

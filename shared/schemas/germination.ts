@@ -16,7 +16,9 @@ export const createTestBodySchema = z
     pretreatmentDays: z.number().int().min(0).max(365).nullable().optional(),
     notes: z.string().trim().max(4000).nullable().optional(),
     trays: z
-      .array(z.object({ seedsSown: z.number().int().min(1, { message: 'Sow at least one seed.' }).max(10_000) }))
+      .array(
+        z.object({ seedsSown: z.number().int().min(1, { message: 'Sow at least one seed.' }).max(10_000) }),
+      )
       .min(1, { message: 'A test has at least one tray.' })
       .max(8, { message: 'A test has at most 8 trays.' }),
   })
@@ -43,7 +45,12 @@ export const updateTestBodySchema = z
 export const countsBodySchema = z.object({
   date: isoDateSchema,
   trays: z
-    .array(z.object({ trayId: idSchema, cumulative: z.number().int().min(0, { message: 'A count cannot be negative.' }) }))
+    .array(
+      z.object({
+        trayId: idSchema,
+        cumulative: z.number().int().min(0, { message: 'A count cannot be negative.' }),
+      }),
+    )
     .min(1, { message: 'Count at least one tray.' })
     .max(8),
 });
@@ -70,10 +77,13 @@ export const finishTraySchema = z
     hard: z.number().int().min(0).nullable().optional(),
     setAsideReason: setAsideReasonSchema.optional(),
   })
-  .refine((t) => t.setAsideReason !== undefined || (t.abnormal !== undefined && t.ungerminated !== undefined), {
-    path: ['ungerminated'],
-    message: 'Give the abnormal and ungerminated seeds of the tray, or a reason to set it aside.',
-  });
+  .refine(
+    (t) => t.setAsideReason !== undefined || (t.abnormal !== undefined && t.ungerminated !== undefined),
+    {
+      path: ['ungerminated'],
+      message: 'Give the abnormal and ungerminated seeds of the tray, or a reason to set it aside.',
+    },
+  );
 export type FinishTray = z.infer<typeof finishTraySchema>;
 
 export const finishBodySchema = z.object({
@@ -130,7 +140,12 @@ export const testSchema = z.object({
 });
 export type TestDto = z.infer<typeof testSchema>;
 
-export const countSchema = z.object({ trayId: idSchema, date: z.string(), day: z.number(), cumulative: z.number() });
+export const countSchema = z.object({
+  trayId: idSchema,
+  date: z.string(),
+  day: z.number(),
+  cumulative: z.number(),
+});
 
 const nullableNumber = z.number().nullable();
 export const resultSchema = z.object({
@@ -138,7 +153,14 @@ export const resultSchema = z.object({
   germinated: nullableNumber,
   percent: nullableNumber,
   percentRounded: nullableNumber,
-  interval: z.object({ low: z.number(), high: z.number(), method: z.enum(['wilson', 'clopper-pearson']), confidence: z.number() }).nullable(),
+  interval: z
+    .object({
+      low: z.number(),
+      high: z.number(),
+      method: z.enum(['wilson', 'clopper-pearson']),
+      confidence: z.number(),
+    })
+    .nullable(),
   trayPercents: z.array(
     z.object({
       id: z.string(),

@@ -1,7 +1,9 @@
 import { z } from 'zod';
 import { idSchema, isoDateSchema } from './common';
 
-export const originSchema = z.enum(['saved', 'swapped', 'bought'], { message: 'Choose saved, swapped or bought.' });
+export const originSchema = z.enum(['saved', 'swapped', 'bought'], {
+  message: 'Choose saved, swapped or bought.',
+});
 export const lotStatusSchema = z.enum(['active', 'depleted', 'retired']);
 export const storagePlaceSchema = z.enum(['room', 'fridge', 'freezer', 'other']);
 export const movementKindSchema = z.enum(['initial', 'sown', 'given', 'swapped-in', 'test', 'correction']);
@@ -149,7 +151,10 @@ export type MovementDto = z.infer<typeof movementSchema>;
 
 export const stockBodySchema = z
   .object({
-    change: z.number().int().refine((n) => n !== 0, { message: 'A movement changes the stock by at least one seed.' }),
+    change: z
+      .number()
+      .int()
+      .refine((n) => n !== 0, { message: 'A movement changes the stock by at least one seed.' }),
     reason: text(300).min(1, { message: 'Say why (sown, given to …, found more, …).' }),
     date: isoDateSchema,
     kind: movementKindSchema.exclude(['initial', 'test']).optional(),
@@ -157,10 +162,18 @@ export const stockBodySchema = z
   .superRefine((b, ctx) => {
     const kind = b.kind ?? 'correction';
     if ((kind === 'sown' || kind === 'given') && b.change > 0) {
-      ctx.addIssue({ code: 'custom', path: ['change'], message: 'Sown or given seeds leave the lot: use a negative number.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['change'],
+        message: 'Sown or given seeds leave the lot: use a negative number.',
+      });
     }
     if (kind === 'swapped-in' && b.change < 0) {
-      ctx.addIssue({ code: 'custom', path: ['change'], message: 'Seeds swapped in add to the lot: use a positive number.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['change'],
+        message: 'Seeds swapped in add to the lot: use a positive number.',
+      });
     }
   });
 export type StockBody = z.infer<typeof stockBodySchema>;

@@ -19,10 +19,36 @@ export const overviewSchema = z.object({
     }),
   ),
   sowingsDue: z.array(
-    z.object({ entryId: idSchema, species: z.string(), lotCode: z.string().nullable(), sowFrom: z.string(), sowTo: z.string(), seedsToSow: z.number().nullable(), plantsWanted: z.number(), open: z.boolean() }),
+    z.object({
+      entryId: idSchema,
+      species: z.string(),
+      lotCode: z.string().nullable(),
+      sowFrom: z.string(),
+      sowTo: z.string(),
+      seedsToSow: z.number().nullable(),
+      plantsWanted: z.number(),
+      open: z.boolean(),
+    }),
   ),
-  lotsToRetest: z.array(z.object({ lotId: idSchema, code: z.string(), species: z.string(), variety: z.string(), reason: z.string() })),
-  lowStock: z.array(z.object({ lotId: idSchema, code: z.string(), species: z.string(), variety: z.string(), seedsOnHand: z.number(), needed: z.number().nullable() })),
+  lotsToRetest: z.array(
+    z.object({
+      lotId: idSchema,
+      code: z.string(),
+      species: z.string(),
+      variety: z.string(),
+      reason: z.string(),
+    }),
+  ),
+  lowStock: z.array(
+    z.object({
+      lotId: idSchema,
+      code: z.string(),
+      species: z.string(),
+      variety: z.string(),
+      seedsOnHand: z.number(),
+      needed: z.number().nullable(),
+    }),
+  ),
   counts: z.object({ lots: z.number(), runningTests: z.number(), planEntries: z.number() }),
 });
 export type Overview = z.infer<typeof overviewSchema>;

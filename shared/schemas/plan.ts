@@ -5,9 +5,17 @@ export const seasonSchema = z.coerce.number().int().min(1900).max(2100);
 export const startSchema = z.enum(['indoors', 'direct'], { message: 'Choose indoors or direct.' });
 
 export const createPlanBodySchema = z.object({
-  season: z.number().int().min(1900, { message: 'A year like 2027.' }).max(2100, { message: 'A year like 2027.' }),
+  season: z
+    .number()
+    .int()
+    .min(1900, { message: 'A year like 2027.' })
+    .max(2100, { message: 'A year like 2027.' }),
   speciesId: idSchema,
-  plantsWanted: z.number({ message: 'How many plants?' }).int().min(1, { message: 'At least one plant.' }).max(100_000),
+  plantsWanted: z
+    .number({ message: 'How many plants?' })
+    .int()
+    .min(1, { message: 'At least one plant.' })
+    .max(100_000),
   start: startSchema,
   lotId: idSchema.nullable().optional(),
 });
@@ -47,4 +55,8 @@ export const planEntrySchema = z.object({
   sownOn: z.string().nullable(),
 });
 export type PlanEntryDto = z.infer<typeof planEntrySchema>;
-export const planListResponseSchema = z.object({ season: z.number(), items: z.array(planEntrySchema), nextCursor: z.null() });
+export const planListResponseSchema = z.object({
+  season: z.number(),
+  items: z.array(planEntrySchema),
+  nextCursor: z.null(),
+});

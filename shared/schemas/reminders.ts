@@ -11,4 +11,6 @@ export const reminderPrefsSchema = z.object({
   digest: z.boolean(),
 });
 export type ReminderPrefs = z.infer<typeof reminderPrefsSchema>;
-export const reminderPrefsBodySchema = reminderPrefsSchema.partial().refine((b) => Object.keys(b).length > 0, { message: 'Nothing to change.' });
+export const reminderPrefsBodySchema = reminderPrefsSchema
+  .partial()
+  .refine((b) => Object.keys(b).length > 0, { message: 'Nothing to change.' });

@@ -44,13 +44,25 @@ export const EMPTY_TRAITS: SpeciesTraits = {
 
 function consistent(t: Partial<SpeciesTraits>, ctx: z.RefinementCtx) {
   if (t.firstCountDay != null && t.finalCountDay != null && t.firstCountDay > t.finalCountDay) {
-    ctx.addIssue({ code: 'custom', path: ['finalCountDay'], message: 'The final count day comes after the first.' });
+    ctx.addIssue({
+      code: 'custom',
+      path: ['finalCountDay'],
+      message: 'The final count day comes after the first.',
+    });
   }
   if (t.germTempMinC != null && t.germTempMaxC != null && t.germTempMinC > t.germTempMaxC) {
-    ctx.addIssue({ code: 'custom', path: ['germTempMaxC'], message: 'The highest temperature must be at least the lowest.' });
+    ctx.addIssue({
+      code: 'custom',
+      path: ['germTempMaxC'],
+      message: 'The highest temperature must be at least the lowest.',
+    });
   }
   if (t.startWeeksFrom != null && t.startWeeksTo != null && t.startWeeksFrom < t.startWeeksTo) {
-    ctx.addIssue({ code: 'custom', path: ['startWeeksTo'], message: 'Sowing starts earliest at the larger number of weeks before frost.' });
+    ctx.addIssue({
+      code: 'custom',
+      path: ['startWeeksTo'],
+      message: 'Sowing starts earliest at the larger number of weeks before frost.',
+    });
   }
 }
 

@@ -6,7 +6,14 @@ const n = z.number();
 const nn = z.number().nullable();
 
 /** The advice for a lot (server/modules/viability/recommend.ts; rules in docs/decisions.md). */
-export const recommendationSchema = z.enum(['test-first', 'sow', 'sow-thick', 'retest', 'grow-out', 'retire']);
+export const recommendationSchema = z.enum([
+  'test-first',
+  'sow',
+  'sow-thick',
+  'retest',
+  'grow-out',
+  'retire',
+]);
 export type RecommendationValue = z.infer<typeof recommendationSchema>;
 export const basisSchema = z.enum(['lot', 'species', 'typical']);
 
@@ -31,8 +38,25 @@ export const viabilityResponseSchema = z.object({
   notes: z.array(z.string()),
   harvestReference: z.string(),
   /** Years until the projection falls to the threshold where the lot is kept now, in the fridge and in the freezer: estimates. */
-  storageAdvice: z.array(z.object({ place: z.enum(['room', 'fridge', 'freezer']), label: z.string(), current: z.boolean(), yearsToThreshold: nn })),
-  points: z.array(z.object({ testId: idSchema, date: z.string(), ageYears: n, percent: n, germinated: n, sown: n, heldBack: z.boolean() })),
+  storageAdvice: z.array(
+    z.object({
+      place: z.enum(['room', 'fridge', 'freezer']),
+      label: z.string(),
+      current: z.boolean(),
+      yearsToThreshold: nn,
+    }),
+  ),
+  points: z.array(
+    z.object({
+      testId: idSchema,
+      date: z.string(),
+      ageYears: n,
+      percent: n,
+      germinated: n,
+      sown: n,
+      heldBack: z.boolean(),
+    }),
+  ),
   /** Tests the grower set aside: out of the model, shown apart. */
   setAside: z.array(z.object({ testId: idSchema, date: z.string(), reason: z.string() })),
   curve: z.array(z.object({ ageYears: n, percent: n, low: n, high: n })),

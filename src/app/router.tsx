@@ -37,10 +37,24 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
           errorElement: <RouteError />,
           children: [
             // Open to everyone.
-            { path: paths.signIn.path, loader: redirectIfSignedIn(queryClient), lazy: page(() => import('./routes/auth/sign-in'), 'SignInPage') },
-            { path: paths.signUp.path, loader: redirectIfSignedIn(queryClient), lazy: page(() => import('./routes/auth/sign-up'), 'SignUpPage') },
-            { path: paths.forgotPassword.path, lazy: page(() => import('./routes/auth/forgot-password'), 'ForgotPasswordPage') },
-            { path: paths.resetPassword.path, lazy: page(() => import('./routes/auth/reset-password'), 'ResetPasswordPage') },
+            {
+              path: paths.signIn.path,
+              loader: redirectIfSignedIn(queryClient),
+              lazy: page(() => import('./routes/auth/sign-in'), 'SignInPage'),
+            },
+            {
+              path: paths.signUp.path,
+              loader: redirectIfSignedIn(queryClient),
+              lazy: page(() => import('./routes/auth/sign-up'), 'SignUpPage'),
+            },
+            {
+              path: paths.forgotPassword.path,
+              lazy: page(() => import('./routes/auth/forgot-password'), 'ForgotPasswordPage'),
+            },
+            {
+              path: paths.resetPassword.path,
+              lazy: page(() => import('./routes/auth/reset-password'), 'ResetPasswordPage'),
+            },
             {
               path: paths.acceptInvitation.path,
               loader: async () => {
@@ -63,20 +77,53 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             {
               loader: requireSignIn(queryClient),
               children: [
-                { index: true, loader: homeLoader(queryClient), lazy: page(() => import('./routes/home'), 'HomePage') },
-                { path: paths.newBank.path, lazy: page(() => import('./routes/banks/new-bank'), 'NewBankPage') },
+                {
+                  index: true,
+                  loader: homeLoader(queryClient),
+                  lazy: page(() => import('./routes/home'), 'HomePage'),
+                },
+                {
+                  path: paths.newBank.path,
+                  lazy: page(() => import('./routes/banks/new-bank'), 'NewBankPage'),
+                },
                 {
                   path: paths.bank.path,
                   loader: bankLoader(queryClient),
                   lazy: page(() => import('./routes/banks/bank-layout'), 'BankLayout'),
                   children: [
-                    { index: true, loader: ({ params }) => redirect(paths.overview.getHref(params.bankId ?? '')) },
-                    { path: paths.overview.path, loader: overviewLoader(queryClient), lazy: page(() => import('./routes/banks/overview'), 'OverviewPage') },
-                    { path: paths.lots.path, loader: lotsLoader(queryClient), lazy: page(() => import('./routes/banks/lots'), 'LotsPage') },
-                    { path: paths.newLot.path, loader: speciesAndPlantsLoader(queryClient), lazy: page(() => import('./routes/banks/new-lot'), 'NewLotPage') },
-                    { path: paths.importLots.path, lazy: page(() => import('./routes/banks/import-lots'), 'ImportLotsPage') },
-                    { path: paths.lot.path, loader: lotLoader(queryClient), lazy: page(() => import('./routes/banks/lot'), 'LotPage') },
-                    { path: paths.plants.path, loader: speciesAndPlantsLoader(queryClient), lazy: page(() => import('./routes/banks/plants'), 'PlantsPage') },
+                    {
+                      index: true,
+                      loader: ({ params }) => redirect(paths.overview.getHref(params.bankId ?? '')),
+                    },
+                    {
+                      path: paths.overview.path,
+                      loader: overviewLoader(queryClient),
+                      lazy: page(() => import('./routes/banks/overview'), 'OverviewPage'),
+                    },
+                    {
+                      path: paths.lots.path,
+                      loader: lotsLoader(queryClient),
+                      lazy: page(() => import('./routes/banks/lots'), 'LotsPage'),
+                    },
+                    {
+                      path: paths.newLot.path,
+                      loader: speciesAndPlantsLoader(queryClient),
+                      lazy: page(() => import('./routes/banks/new-lot'), 'NewLotPage'),
+                    },
+                    {
+                      path: paths.importLots.path,
+                      lazy: page(() => import('./routes/banks/import-lots'), 'ImportLotsPage'),
+                    },
+                    {
+                      path: paths.lot.path,
+                      loader: lotLoader(queryClient),
+                      lazy: page(() => import('./routes/banks/lot'), 'LotPage'),
+                    },
+                    {
+                      path: paths.plants.path,
+                      loader: speciesAndPlantsLoader(queryClient),
+                      lazy: page(() => import('./routes/banks/plants'), 'PlantsPage'),
+                    },
                     {
                       path: paths.labels.path,
                       lazy: page(() => import('./routes/banks/labels'), 'LabelsPage'),
@@ -84,17 +131,35 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                     {
                       path: paths.newTest.path,
                       loader: newTestLoader(queryClient),
-                      lazy: page(() => import('./routes/banks/new-germination-test'), 'NewGerminationTestPage'),
+                      lazy: page(
+                        () => import('./routes/banks/new-germination-test'),
+                        'NewGerminationTestPage',
+                      ),
                     },
                     {
                       path: paths.test.path,
                       loader: testLoader(queryClient),
                       lazy: page(() => import('./routes/banks/germination-test'), 'GerminationTestPage'),
                     },
-                    { path: paths.planner.path, loader: plannerLoader(queryClient), lazy: page(() => import('./routes/banks/planner'), 'PlannerPage') },
-                    { path: paths.reminders.path, loader: remindersLoader(queryClient), lazy: page(() => import('./routes/banks/reminders'), 'RemindersPage') },
-                    { path: paths.members.path, loader: membersLoader(queryClient), lazy: page(() => import('./routes/banks/members'), 'MembersPage') },
-                    { path: paths.settings.path, lazy: page(() => import('./routes/banks/settings'), 'SettingsPage') },
+                    {
+                      path: paths.planner.path,
+                      loader: plannerLoader(queryClient),
+                      lazy: page(() => import('./routes/banks/planner'), 'PlannerPage'),
+                    },
+                    {
+                      path: paths.reminders.path,
+                      loader: remindersLoader(queryClient),
+                      lazy: page(() => import('./routes/banks/reminders'), 'RemindersPage'),
+                    },
+                    {
+                      path: paths.members.path,
+                      loader: membersLoader(queryClient),
+                      lazy: page(() => import('./routes/banks/members'), 'MembersPage'),
+                    },
+                    {
+                      path: paths.settings.path,
+                      lazy: page(() => import('./routes/banks/settings'), 'SettingsPage'),
+                    },
                   ],
                 },
               ],

@@ -44,7 +44,8 @@ export const paths = {
   },
   newTest: {
     path: 'lots/:lotId/tests/new',
-    getHref: (bankId: string, lotId: string) => bankHref(bankId, `lots/${encodeURIComponent(lotId)}/tests/new`),
+    getHref: (bankId: string, lotId: string) =>
+      bankHref(bankId, `lots/${encodeURIComponent(lotId)}/tests/new`),
   },
   test: {
     path: 'tests/:testId',

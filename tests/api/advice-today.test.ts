@@ -28,15 +28,13 @@ describe.each(ZONES)('the default date of advice in a bank $where ($zone)', ({ z
     expect(created.status).toBe(201);
     bankId = created.body.bank.id as string;
     expect(created.body.bank.timeZone).toBe(zone);
-    const lot = await owner.agent
-      .post(`/api/banks/${bankId}/lots`)
-      .send({
-        speciesId: await speciesId(ctx.db, 'tomato'),
-        variety: 'Dateline Red',
-        origin: 'saved',
-        harvestDate: '2025-09-01',
-        seedCount: 200,
-      });
+    const lot = await owner.agent.post(`/api/banks/${bankId}/lots`).send({
+      speciesId: await speciesId(ctx.db, 'tomato'),
+      variety: 'Dateline Red',
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+      seedCount: 200,
+    });
     expect(lot.status).toBe(201);
     lotId = lot.body.lot.id as string;
   });

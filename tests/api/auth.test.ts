@@ -15,7 +15,9 @@ describe('accounts', () => {
   it('when a person registers, then they are signed in, and after sign-out /api/me is 401', async () => {
     const agent = request.agent(ctx.app);
     const email = uniqueEmail();
-    const reg = await agent.post('/api/auth/register').send({ email: `  ${email.toUpperCase()} `, password: PASSWORD, name: ' Ada ' });
+    const reg = await agent
+      .post('/api/auth/register')
+      .send({ email: `  ${email.toUpperCase()} `, password: PASSWORD, name: ' Ada ' });
     expect(reg.status).toBe(201);
     expect(reg.body.user).toEqual({ id: expect.any(String), email, name: 'Ada' });
     expect(reg.body.user.passwordHash ?? reg.body.user.password_hash).toBeUndefined();
@@ -35,7 +37,11 @@ describe('accounts', () => {
 
   it('when the password is stored, then it is an argon2id hash, never the password', async () => {
     const { user } = await signUp(ctx.app);
-    const row = await ctx.db.selectFrom('users').select('password_hash').where('id', '=', user.id).executeTakeFirstOrThrow();
+    const row = await ctx.db
+      .selectFrom('users')
+      .select('password_hash')
+      .where('id', '=', user.id)
+      .executeTakeFirstOrThrow();
     expect(row.password_hash).toMatch(/^\$argon2id\$/);
     expect(row.password_hash).not.toContain(PASSWORD);
   });
@@ -45,33 +51,47 @@ describe('accounts', () => {
   it('when the production app stores a password, then it is argon2id at full strength, and signing in checks it', async () => {
     const app = createApp({ ...ctx, hasher: undefined });
     const { user, email } = await signUp(app);
-    const row = await ctx.db.selectFrom('users').select('password_hash').where('id', '=', user.id).executeTakeFirstOrThrow();
+    const row = await ctx.db
+      .selectFrom('users')
+      .select('password_hash')
+      .where('id', '=', user.id)
+      .executeTakeFirstOrThrow();
     // PHC string of argon2id, version 0x13 = 19 (RFC 9106, section 3.1), with the argon2 package's
     // defaults: 65536 KiB, 3 passes, 4 lanes (documented in its argon2.d.cts). OWASP's Password Storage
     // Cheat Sheet asks for at least 19 MiB, 2 passes, 1 lane (from memory; the package is the source).
     expect(row.password_hash).toMatch(/^\$argon2id\$v=19\$m=65536,t=3,p=4\$/);
     expect(row.password_hash).not.toContain(PASSWORD);
     expect((await request(app).post('/api/auth/login').send({ email, password: PASSWORD })).status).toBe(200);
-    expect((await request(app).post('/api/auth/login').send({ email, password: 'not the password' })).status).toBe(401);
+    expect(
+      (await request(app).post('/api/auth/login').send({ email, password: 'not the password' })).status,
+    ).toBe(401);
   });
 
   it('when the e-mail is taken in any letter case, then registering again is 409', async () => {
     const { email } = await signUp(ctx.app);
-    const res = await request(ctx.app).post('/api/auth/register').send({ email: email.toUpperCase(), password: PASSWORD, name: 'Twin' });
+    const res = await request(ctx.app)
+      .post('/api/auth/register')
+      .send({ email: email.toUpperCase(), password: PASSWORD, name: 'Twin' });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('email_taken');
   });
 
   it('when the password is shorter than 10 characters, then it is 400 naming the field', async () => {
-    const res = await request(ctx.app).post('/api/auth/register').send({ email: uniqueEmail(), password: 'short', name: 'X' });
+    const res = await request(ctx.app)
+      .post('/api/auth/register')
+      .send({ email: uniqueEmail(), password: 'short', name: 'X' });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.password).toMatch(/10 characters/);
   });
 
   it('when the password is wrong or the e-mail unknown, then both are 401 with the same message', async () => {
     const { email } = await signUp(ctx.app);
-    const wrong = await request(ctx.app).post('/api/auth/login').send({ email, password: 'not the password' });
-    const unknown = await request(ctx.app).post('/api/auth/login').send({ email: uniqueEmail('nobody'), password: PASSWORD });
+    const wrong = await request(ctx.app)
+      .post('/api/auth/login')
+      .send({ email, password: 'not the password' });
+    const unknown = await request(ctx.app)
+      .post('/api/auth/login')
+      .send({ email: uniqueEmail('nobody'), password: PASSWORD });
     expect(wrong.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(wrong.body).toEqual(unknown.body);
@@ -95,7 +115,9 @@ describe('accounts', () => {
   });
 
   it('when a forged token is sent, then the caller is not signed in', async () => {
-    const res = await request(ctx.app).get('/api/me').set('Cookie', 'hilum_session=eyJhbGciOiJIUzI1NiJ9.e30.x');
+    const res = await request(ctx.app)
+      .get('/api/me')
+      .set('Cookie', 'hilum_session=eyJhbGciOiJIUzI1NiJ9.e30.x');
     expect(res.status).toBe(401);
   });
 
@@ -112,7 +134,9 @@ describe('accounts', () => {
     const { email } = await signUp(ctx.app);
     const statuses: number[] = [];
     for (let i = 0; i < 6; i++) {
-      statuses.push((await request(ctx.app).post('/api/auth/login').send({ email, password: 'wrong password' })).status);
+      statuses.push(
+        (await request(ctx.app).post('/api/auth/login').send({ email, password: 'wrong password' })).status,
+      );
     }
     expect(statuses.slice(0, 5)).toEqual([401, 401, 401, 401, 401]);
     const res = await request(ctx.app).post('/api/auth/login').send({ email, password: PASSWORD });
@@ -137,7 +161,9 @@ describe('password reset by e-mail', () => {
 
   it('when the mailed link is used, then the password changes, old sessions end, and the link works once', async () => {
     const { agent, email } = await signUp(ctx.app);
-    expect((await request(ctx.app).post('/api/auth/password-reset').send({ email: email.toUpperCase() })).status).toBe(202);
+    expect(
+      (await request(ctx.app).post('/api/auth/password-reset').send({ email: email.toUpperCase() })).status,
+    ).toBe(202);
     const mail = await waitForMail((m) => m.to.includes(email) && /reset/i.test(m.subject));
     const link = new URL(linkIn(mail, `${ctx.config.appOrigin}/reset-password?token=`));
     const token = link.searchParams.get('token')!;
@@ -146,12 +172,21 @@ describe('password reset by e-mail', () => {
     expect(stored.map((r) => r.token_hash)).not.toContain(token);
 
     const newPassword = 'a brand new password';
-    expect((await request(ctx.app).post('/api/auth/password-reset/confirm').send({ token, password: newPassword })).status).toBe(204);
+    expect(
+      (await request(ctx.app).post('/api/auth/password-reset/confirm').send({ token, password: newPassword }))
+        .status,
+    ).toBe(204);
     expect((await agent.get('/api/me')).status).toBe(401);
-    expect((await request(ctx.app).post('/api/auth/login').send({ email, password: PASSWORD })).status).toBe(401);
-    expect((await request(ctx.app).post('/api/auth/login').send({ email, password: newPassword })).status).toBe(200);
+    expect((await request(ctx.app).post('/api/auth/login').send({ email, password: PASSWORD })).status).toBe(
+      401,
+    );
+    expect(
+      (await request(ctx.app).post('/api/auth/login').send({ email, password: newPassword })).status,
+    ).toBe(200);
 
-    const reused = await request(ctx.app).post('/api/auth/password-reset/confirm').send({ token, password: 'yet another password' });
+    const reused = await request(ctx.app)
+      .post('/api/auth/password-reset/confirm')
+      .send({ token, password: 'yet another password' });
     expect(reused.status).toBe(400);
     expect(reused.body.error.code).toBe('invalid_token');
   });
@@ -162,14 +197,17 @@ describe('password reset by e-mail', () => {
     const mail = await waitForMail((m) => m.to.includes(email));
     const token = new URL(linkIn(mail, ctx.config.appOrigin)).searchParams.get('token')!;
     ctx.clock.set(new Date(ctx.clock.now().getTime() + 61 * 60_000));
-    const res = await request(ctx.app).post('/api/auth/password-reset/confirm').send({ token, password: 'a brand new password' });
+    const res = await request(ctx.app)
+      .post('/api/auth/password-reset/confirm')
+      .send({ token, password: 'a brand new password' });
     expect(res.status).toBe(400);
   });
 
   it('when resets are asked for too often for one address, then it answers 429', async () => {
     const email = uniqueEmail('many');
     const statuses = [];
-    for (let i = 0; i < 4; i++) statuses.push((await request(ctx.app).post('/api/auth/password-reset').send({ email })).status);
+    for (let i = 0; i < 4; i++)
+      statuses.push((await request(ctx.app).post('/api/auth/password-reset').send({ email })).status);
     expect(statuses).toEqual([202, 202, 202, 429]);
   });
 });

@@ -28,9 +28,14 @@ describe.each(ZONES)('today in a bank $where ($zone)', ({ zone, today, tomorrow 
 
   const base = () => `/api/banks/${bank.bankId}`;
   const newLot = (body: object = {}) =>
-    bank.grower.agent
-      .post(`${base()}/lots`)
-      .send({ speciesId: tomato, variety: 'Clock Red', origin: 'saved', harvestDate: '2025-09-01', seedCount: 200, ...body });
+    bank.grower.agent.post(`${base()}/lots`).send({
+      speciesId: tomato,
+      variety: 'Clock Red',
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+      seedCount: 200,
+      ...body,
+    });
 
   it('when a harvest date is tomorrow in the bank, then it is 422; today in the bank is accepted', async () => {
     const future = await newLot({ harvestDate: tomorrow });
@@ -44,13 +49,17 @@ describe.each(ZONES)('today in a bank $where ($zone)', ({ zone, today, tomorrow 
   it('when a lot is logged without a harvest date, then its first ledger line is dated today in the bank', async () => {
     const { body } = await newLot({ harvestDate: undefined, packedForSeason: 2026, seedCount: 40 });
     const ledger = await bank.viewer.agent.get(`${base()}/lots/${body.lot.id}/stock`);
-    expect(ledger.body.items).toEqual([expect.objectContaining({ kind: 'initial', change: 40, date: today })]);
+    expect(ledger.body.items).toEqual([
+      expect.objectContaining({ kind: 'initial', change: 40, date: today }),
+    ]);
   });
 
   it('when a stock movement is dated tomorrow in the bank, then it is 422 and the stock is unchanged; today is accepted', async () => {
     const lotId = (await newLot()).body.lot.id as string;
     const move = (date: string) =>
-      bank.grower.agent.post(`${base()}/lots/${lotId}/stock`).send({ change: -10, reason: 'Given to a neighbour', date, kind: 'given' });
+      bank.grower.agent
+        .post(`${base()}/lots/${lotId}/stock`)
+        .send({ change: -10, reason: 'Given to a neighbour', date, kind: 'given' });
     const future = await move(tomorrow);
     expect(future.status).toBe(422);
     expect(future.body.error.fields).toHaveProperty('date');
@@ -61,13 +70,18 @@ describe.each(ZONES)('today in a bank $where ($zone)', ({ zone, today, tomorrow 
 
   describe('a germination test', () => {
     const start = (lotId: string, startDate: string) =>
-      bank.grower.agent.post(`${base()}/lots/${lotId}/tests`).send({ startDate, method: 'paper towel', trays: [{ seedsSown: 20 }] });
+      bank.grower.agent
+        .post(`${base()}/lots/${lotId}/tests`)
+        .send({ startDate, method: 'paper towel', trays: [{ seedsSown: 20 }] });
     /** A one-tray test started a few days before, and a count of it on `date`. */
     const startedBefore = async () => {
       const started = await start((await newLot()).body.lot.id as string, '2026-03-15');
       const testId = started.body.test.id as string;
       const trayId = started.body.trays[0].id as string;
-      const count = (date: string) => bank.grower.agent.post(`${base()}/tests/${testId}/counts`).send({ date, trays: [{ trayId, cumulative: 3 }] });
+      const count = (date: string) =>
+        bank.grower.agent
+          .post(`${base()}/tests/${testId}/counts`)
+          .send({ date, trays: [{ trayId, cumulative: 3 }] });
       return { testId, trayId, count };
     };
 
@@ -91,7 +105,9 @@ describe.each(ZONES)('today in a bank $where ($zone)', ({ zone, today, tomorrow 
       const { testId, trayId, count } = await startedBefore();
       expect((await count(today)).status).toBe(201);
       const finish = (date: string) =>
-        bank.grower.agent.post(`${base()}/tests/${testId}/finish`).send({ date, trays: [{ trayId, abnormal: 0, ungerminated: 17 }] });
+        bank.grower.agent
+          .post(`${base()}/tests/${testId}/finish`)
+          .send({ date, trays: [{ trayId, abnormal: 0, ungerminated: 17 }] });
       expect((await finish(tomorrow)).status).toBe(422);
       const finished = await finish(today);
       expect(finished.status).toBe(200);
@@ -102,7 +118,9 @@ describe.each(ZONES)('today in a bank $where ($zone)', ({ zone, today, tomorrow 
   it('when a planned sowing is marked sown tomorrow in the bank, then it is 422; with no date it is sown today in the bank', async () => {
     const lotId = (await newLot({ seedCount: 400 })).body.lot.id as string;
     await finishedTest(bank.grower.agent, bank.bankId, lotId, '2026-02-01', [{ sown: 50, germinated: 45 }]);
-    const planned = await bank.grower.agent.post(`${base()}/plan`).send({ season: 2026, speciesId: tomato, plantsWanted: 4, start: 'indoors', lotId });
+    const planned = await bank.grower.agent
+      .post(`${base()}/plan`)
+      .send({ season: 2026, speciesId: tomato, plantsWanted: 4, start: 'indoors', lotId });
     expect(planned.status).toBe(201);
     const entryId = planned.body.entry.id as string;
     const future = await bank.grower.agent.post(`${base()}/plan/${entryId}/sown`).send({ date: tomorrow });
@@ -116,8 +134,11 @@ describe.each(ZONES)('today in a bank $where ($zone)', ({ zone, today, tomorrow 
     const b = await bankWithRoles(ctx.app, ctx.db);
     await b.owner.agent.patch(`/api/banks/${b.bankId}`).send({ timeZone: zone });
     const file = (date: string) =>
-      Buffer.from(`species,variety,origin,harvest_date,seeds_on_hand\nTomato,Fine,saved,2025-09-01,10\nTomato,Fresh,saved,${date},10\n`);
-    const upload = (date: string) => b.grower.agent.post(`/api/banks/${b.bankId}/lots/import`).attach('file', file(date), 'lots.csv');
+      Buffer.from(
+        `species,variety,origin,harvest_date,seeds_on_hand\nTomato,Fine,saved,2025-09-01,10\nTomato,Fresh,saved,${date},10\n`,
+      );
+    const upload = (date: string) =>
+      b.grower.agent.post(`/api/banks/${b.bankId}/lots/import`).attach('file', file(date), 'lots.csv');
     const future = await upload(tomorrow);
     expect(future.status).toBe(400);
     expect(future.body.error.rows).toEqual([expect.objectContaining({ line: 3, column: 'harvest_date' })]);

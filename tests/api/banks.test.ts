@@ -13,11 +13,15 @@ describe('banks and members', () => {
 
   it('when someone creates a bank, then they are its owner and it shows in /api/me', async () => {
     const { agent } = await signUp(ctx.app);
-    const res = await agent.post('/api/banks').send({ name: 'Hillside swap', lastFrost: '05-24', firstFrost: '09-20' });
+    const res = await agent
+      .post('/api/banks')
+      .send({ name: 'Hillside swap', lastFrost: '05-24', firstFrost: '09-20' });
     expect(res.status).toBe(201);
     expect(res.body.bank).toMatchObject({ name: 'Hillside swap', lastFrost: '05-24', firstFrost: '09-20' });
     const me = await agent.get('/api/me');
-    expect(me.body.memberships).toEqual([{ bankId: res.body.bank.id, bankName: 'Hillside swap', role: 'owner' }]);
+    expect(me.body.memberships).toEqual([
+      { bankId: res.body.bank.id, bankName: 'Hillside swap', role: 'owner' },
+    ]);
     const bank = await agent.get(`/api/banks/${res.body.bank.id}`);
     expect(bank.body.role).toBe('owner');
   });
@@ -58,7 +62,9 @@ describe('banks and members', () => {
   it('when the owner updates settings, then they are kept', async () => {
     const { agent } = await signUp(ctx.app);
     const { body } = await agent.post('/api/banks').send({ name: 'Y' });
-    const patched = await agent.patch(`/api/banks/${body.bank.id}`).send({ frostMarginDays: 14, timeZone: 'America/Winnipeg' });
+    const patched = await agent
+      .patch(`/api/banks/${body.bank.id}`)
+      .send({ frostMarginDays: 14, timeZone: 'America/Winnipeg' });
     expect(patched.status).toBe(200);
     expect(patched.body.bank).toMatchObject({ frostMarginDays: 14, timeZone: 'America/Winnipeg' });
   });
@@ -66,18 +72,24 @@ describe('banks and members', () => {
   it('when the owner sets a bad time zone, then it is 400', async () => {
     const { agent } = await signUp(ctx.app);
     const { body } = await agent.post('/api/banks').send({ name: 'Y' });
-    expect((await agent.patch(`/api/banks/${body.bank.id}`).send({ timeZone: 'Mars/Olympus' })).status).toBe(400);
+    expect((await agent.patch(`/api/banks/${body.bank.id}`).send({ timeZone: 'Mars/Olympus' })).status).toBe(
+      400,
+    );
   });
 
   describe('when the last owner', () => {
     const stillOwner = async ({ bankId, owner }: Awaited<ReturnType<typeof bankWithRoles>>) => {
       const members = await owner.agent.get(`/api/banks/${bankId}/members`);
-      expect(members.body.items.find((m: { userId: string }) => m.userId === owner.user.id).role).toBe('owner');
+      expect(members.body.items.find((m: { userId: string }) => m.userId === owner.user.id).role).toBe(
+        'owner',
+      );
     };
 
     it('is demoted, then it is 409 and nothing changes', async () => {
       const bank = await bankWithRoles(ctx.app, ctx.db);
-      const demote = await bank.owner.agent.patch(`/api/banks/${bank.bankId}/members/${bank.owner.user.id}`).send({ role: 'grower' });
+      const demote = await bank.owner.agent
+        .patch(`/api/banks/${bank.bankId}/members/${bank.owner.user.id}`)
+        .send({ role: 'grower' });
       expect(demote.status).toBe(409);
       expect(demote.body.error.code).toBe('last_owner');
       await stillOwner(bank);
@@ -85,7 +97,9 @@ describe('banks and members', () => {
 
     it('is removed, then it is 409 and nothing changes', async () => {
       const bank = await bankWithRoles(ctx.app, ctx.db);
-      expect((await bank.owner.agent.delete(`/api/banks/${bank.bankId}/members/${bank.owner.user.id}`)).status).toBe(409);
+      expect(
+        (await bank.owner.agent.delete(`/api/banks/${bank.bankId}/members/${bank.owner.user.id}`)).status,
+      ).toBe(409);
       await stillOwner(bank);
     });
 
@@ -98,8 +112,14 @@ describe('banks and members', () => {
 
   it('when a second owner exists, then the first may step down', async () => {
     const { bankId, owner, grower } = await bankWithRoles(ctx.app, ctx.db);
-    expect((await owner.agent.patch(`/api/banks/${bankId}/members/${grower.user.id}`).send({ role: 'owner' })).status).toBe(200);
-    expect((await owner.agent.patch(`/api/banks/${bankId}/members/${owner.user.id}`).send({ role: 'viewer' })).status).toBe(200);
+    expect(
+      (await owner.agent.patch(`/api/banks/${bankId}/members/${grower.user.id}`).send({ role: 'owner' }))
+        .status,
+    ).toBe(200);
+    expect(
+      (await owner.agent.patch(`/api/banks/${bankId}/members/${owner.user.id}`).send({ role: 'viewer' }))
+        .status,
+    ).toBe(200);
     expect((await owner.agent.get(`/api/banks/${bankId}`)).body.role).toBe('viewer');
   });
 
@@ -138,7 +158,9 @@ describe('invitations by e-mail', () => {
     const res = await owner.agent.post(`/api/banks/${bankId}/invitations`).send({ email, role });
     expect(res.status).toBe(201);
     const mail = await waitForMail((m) => m.to.includes(email));
-    const token = new URL(linkIn(mail, `${ctx.config.appOrigin}/invitations/accept?token=`)).searchParams.get('token')!;
+    const token = new URL(linkIn(mail, `${ctx.config.appOrigin}/invitations/accept?token=`)).searchParams.get(
+      'token',
+    )!;
     return { bankId, owner, email, token, mail };
   }
 
@@ -146,7 +168,9 @@ describe('invitations by e-mail', () => {
     const { bankId, owner, email, token, mail } = await invite('grower');
     expect(mail.subject).toMatch(/Test circle/);
     const listed = await owner.agent.get(`/api/banks/${bankId}/invitations`);
-    expect(listed.body.items).toEqual([expect.objectContaining({ email, role: 'grower', invitedBy: 'Owner' })]);
+    expect(listed.body.items).toEqual([
+      expect.objectContaining({ email, role: 'grower', invitedBy: 'Owner' }),
+    ]);
 
     const invitee = await signUp(ctx.app, { email });
     const accepted = await invitee.agent.post('/api/invitations/accept').send({ token });
@@ -180,7 +204,9 @@ describe('invitations by e-mail', () => {
 
   it('when an existing member is invited, then it is 409', async () => {
     const { bankId, owner, grower } = await bankWithRoles(ctx.app, ctx.db);
-    const res = await owner.agent.post(`/api/banks/${bankId}/invitations`).send({ email: grower.email.toUpperCase(), role: 'viewer' });
+    const res = await owner.agent
+      .post(`/api/banks/${bankId}/invitations`)
+      .send({ email: grower.email.toUpperCase(), role: 'viewer' });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('already_member');
   });
@@ -188,7 +214,9 @@ describe('invitations by e-mail', () => {
   it('when an invitation is revoked, then its link no longer works', async () => {
     const { bankId, owner, email, token } = await invite();
     const { body } = await owner.agent.get(`/api/banks/${bankId}/invitations`);
-    expect((await owner.agent.delete(`/api/banks/${bankId}/invitations/${body.items[0].id}`)).status).toBe(204);
+    expect((await owner.agent.delete(`/api/banks/${bankId}/invitations/${body.items[0].id}`)).status).toBe(
+      204,
+    );
     const invitee = await signUp(ctx.app, { email });
     expect((await invitee.agent.post('/api/invitations/accept').send({ token })).status).toBe(400);
   });

@@ -43,7 +43,9 @@ async function expectNothingAfter(db: Db, today: string) {
     ['tray_counts', 'check_date'],
   ] as const;
   for (const [table, column] of dated) {
-    const { rows } = await sql<{ latest: string | null }>`select max(${sql.ref(column)})::text as latest from ${sql.table(table)}`.execute(db);
+    const { rows } = await sql<{
+      latest: string | null;
+    }>`select max(${sql.ref(column)})::text as latest from ${sql.table(table)}`.execute(db);
     expect(rows[0]!.latest ?? today, `${table}.${column}`).toSatisfy((latest: string) => latest <= today);
   }
 }
@@ -71,14 +73,28 @@ describe('the demo season', () => {
   let bankId: string;
   beforeAll(async () => {
     ctx = await createTestContext({ now: '2026-12-01T09:00:00Z' });
-    const seeded = await seedDemoScenario({ db: ctx.db, storage: ctx.storage, mailer: ctx.mailer, clock: ctx.clock, appOrigin: ctx.config.appOrigin });
+    const seeded = await seedDemoScenario({
+      db: ctx.db,
+      storage: ctx.storage,
+      mailer: ctx.mailer,
+      clock: ctx.clock,
+      appOrigin: ctx.config.appOrigin,
+    });
     bankId = seeded!.bankId;
   }, 120_000);
   afterAll(() => ctx.close());
 
   it('when seeded, then it has about 40 lots, about 60 tests, photos, parent plants and a plan', async () => {
     const count = async (table: 'lots' | 'germination_tests' | 'photos' | 'parent_plants' | 'plan_entries') =>
-      Number((await ctx.db.selectFrom(table).select(ctx.db.fn.countAll().as('n')).where('bank_id', '=', bankId).executeTakeFirstOrThrow()).n);
+      Number(
+        (
+          await ctx.db
+            .selectFrom(table)
+            .select(ctx.db.fn.countAll().as('n'))
+            .where('bank_id', '=', bankId)
+            .executeTakeFirstOrThrow()
+        ).n,
+      );
     expect(await count('lots')).toBe(40);
     expect(await count('germination_tests')).toBeGreaterThanOrEqual(45);
     expect(await count('germination_tests')).toBeLessThanOrEqual(80);
@@ -91,7 +107,8 @@ describe('the demo season', () => {
     const { on, items } = await expectEveryPieceOfAdvice(ctx.app, bankId);
     // Last frost 24 May less eight weeks: the coming sowing date seen on 1 Dec 2026.
     expect(on).toBe('2027-03-29');
-    const advice = (variety: string) => items.filter((i) => i.variety === variety).map((i) => i.recommendation);
+    const advice = (variety: string) =>
+      items.filter((i) => i.variety === variety).map((i) => i.recommendation);
     // The lots with a story: an old tomato envelope sown thickly while a younger lot of its line
     // is sown as usual; the only lettuce of its kind grown out; a bean tested once, years ago,
     // retested; onion seed that a recheck found all but dead, retired.
@@ -108,7 +125,13 @@ describe('the demo season', () => {
       .select('id')
       .where('bank_id', '=', bankId)
       .where('status', '=', 'active')
-      .where(({ not, exists, selectFrom }) => not(exists(selectFrom('germination_tests').select('id').whereRef('germination_tests.lot_id', '=', 'lots.id'))))
+      .where(({ not, exists, selectFrom }) =>
+        not(
+          exists(
+            selectFrom('germination_tests').select('id').whereRef('germination_tests.lot_id', '=', 'lots.id'),
+          ),
+        ),
+      )
       .execute();
     expect(untested.length).toBeGreaterThan(0);
     for (const { id } of untested) {
@@ -128,7 +151,12 @@ describe('the demo season', () => {
   });
 
   it('when seeded, then one test is running with a count due today', async () => {
-    const running = await ctx.db.selectFrom('germination_tests').select(['start_date']).where('bank_id', '=', bankId).where('status', '=', 'running').execute();
+    const running = await ctx.db
+      .selectFrom('germination_tests')
+      .select(['start_date'])
+      .where('bank_id', '=', bankId)
+      .where('status', '=', 'running')
+      .execute();
     expect(running).toHaveLength(1);
     // Tomato's first count day is day 5 (from memory): started 5 days before today.
     expect(running[0]!.start_date).toBe('2026-11-26');
@@ -139,7 +167,9 @@ describe('the demo season', () => {
   });
 
   it('when seeded twice, then nothing is added the second time', async () => {
-    expect(await seedDemoScenario({ db: ctx.db, clock: ctx.clock, appOrigin: ctx.config.appOrigin })).toBeNull();
+    expect(
+      await seedDemoScenario({ db: ctx.db, clock: ctx.clock, appOrigin: ctx.config.appOrigin }),
+    ).toBeNull();
   });
 
   describe('the bank overview on the demo season', () => {
@@ -148,7 +178,9 @@ describe('the demo season', () => {
       const res = await keeper.get(`/api/banks/${bankId}/overview`);
       expect(res.status).toBe(200);
       expect(res.body.today).toBe('2026-12-01');
-      expect(res.body.traysToCount).toEqual([expect.objectContaining({ checkDate: '2026-12-01', day: 5, overdue: false })]);
+      expect(res.body.traysToCount).toEqual([
+        expect.objectContaining({ checkDate: '2026-12-01', day: 5, overdue: false }),
+      ]);
       expect(res.body.lotsToRetest.length).toBeGreaterThan(0);
       expect(res.body.counts.lots).toBeGreaterThan(30);
     });
@@ -156,9 +188,13 @@ describe('the demo season', () => {
     it('when the sowing season comes, then the plan entries show as sowings due', async () => {
       const keeper = await signIn(ctx.app, 'keeper@example.org', 'hilum-demo-seeds');
       const { body } = await keeper.get(`/api/banks/${bankId}/plan?season=2027`);
-      const first = [...body.items].sort((a: { sowFrom: string }, b: { sowFrom: string }) => a.sowFrom.localeCompare(b.sowFrom))[0];
+      const first = [...body.items].sort((a: { sowFrom: string }, b: { sowFrom: string }) =>
+        a.sowFrom.localeCompare(b.sowFrom),
+      )[0];
       const res = await keeper.get(`/api/banks/${bankId}/overview?on=${first.sowFrom}`);
-      expect(res.body.sowingsDue.some((s: { entryId: string; open: boolean }) => s.entryId === first.id && s.open)).toBe(true);
+      expect(
+        res.body.sowingsDue.some((s: { entryId: string; open: boolean }) => s.entryId === first.id && s.open),
+      ).toBe(true);
     });
   });
 });
@@ -172,7 +208,8 @@ describe.each(['2027-03-30T09:00:00Z', '2027-10-31T09:00:00Z'])('the demo season
   let bankId: string;
   beforeAll(async () => {
     ctx = await createTestContext({ now });
-    bankId = (await seedDemoScenario({ db: ctx.db, clock: ctx.clock, appOrigin: ctx.config.appOrigin }))!.bankId;
+    bankId = (await seedDemoScenario({ db: ctx.db, clock: ctx.clock, appOrigin: ctx.config.appOrigin }))!
+      .bankId;
   }, 120_000);
   afterAll(() => ctx.close());
 
@@ -183,6 +220,12 @@ describe.each(['2027-03-30T09:00:00Z', '2027-10-31T09:00:00Z'])('the demo season
 
   it('when seeded, then nothing in it is dated after today and one test is running', async () => {
     await expectNothingAfter(ctx.db, now.slice(0, 10));
-    expect(await ctx.db.selectFrom('germination_tests').select('start_date').where('status', '=', 'running').execute()).toHaveLength(1);
+    expect(
+      await ctx.db
+        .selectFrom('germination_tests')
+        .select('start_date')
+        .where('status', '=', 'running')
+        .execute(),
+    ).toHaveLength(1);
   });
 });

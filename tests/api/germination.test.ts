@@ -16,9 +16,13 @@ describe('germination tests through the API', () => {
   afterAll(() => ctx.close());
 
   async function lotWith(seeds: number) {
-    const res = await bank.grower.agent
-      .post(`/api/banks/${bank.bankId}/lots`)
-      .send({ speciesId: tomato, variety: 'Test lot', origin: 'saved', harvestDate: '2025-09-10', seedCount: seeds });
+    const res = await bank.grower.agent.post(`/api/banks/${bank.bankId}/lots`).send({
+      speciesId: tomato,
+      variety: 'Test lot',
+      origin: 'saved',
+      harvestDate: '2025-09-10',
+      seedCount: seeds,
+    });
     return res.body.lot.id as string;
   }
   const base = () => `/api/banks/${bank.bankId}`;
@@ -32,7 +36,10 @@ describe('germination tests through the API', () => {
       trays: [{ seedsSown: 100 }, { seedsSown: 100 }, { seedsSown: 100 }, { seedsSown: 100 }],
     });
     expect(res.status).toBe(201);
-    return res.body as { test: { id: string; schedule: { firstCountDate: string; finalCountDate: string } }; trays: { id: string }[] };
+    return res.body as {
+      test: { id: string; schedule: { firstCountDate: string; finalCountDate: string } };
+      trays: { id: string }[];
+    };
   }
 
   it('when a 4-tray test is started, then its seeds leave the lot through the ledger', async () => {
@@ -42,23 +49,34 @@ describe('germination tests through the API', () => {
     // Tomato first/final count days 5/14 (REFERENCES.md, from memory) → check dates after a 03-01 start.
     expect(test.schedule).toEqual({ firstCountDate: '2026-03-06', finalCountDate: '2026-03-15' });
     const ledger = await bank.viewer.agent.get(`${base()}/lots/${lotId}/stock`);
-    expect(ledger.body.items.at(-1)).toMatchObject({ kind: 'test', change: -400, balance: 100, date: '2026-03-01' });
+    expect(ledger.body.items.at(-1)).toMatchObject({
+      kind: 'test',
+      change: -400,
+      balance: 100,
+      date: '2026-03-01',
+    });
     // The test says what it took, which is what deleting it gives back.
     expect((await bank.viewer.agent.get(`${base()}/tests/${test.id}`)).body.test.seedsTaken).toBe(400);
   });
 
   it('when a test would start before the lot was harvested, then it is 422 and no seeds leave the stock', async () => {
     const lotId = await lotWith(300); // harvested 2025-09-10
-    const res = await bank.grower.agent.post(`${base()}/lots/${lotId}/tests`).send({ startDate: '2025-09-01', method: 'paper towel', trays: [{ seedsSown: 50 }] });
+    const res = await bank.grower.agent
+      .post(`${base()}/lots/${lotId}/tests`)
+      .send({ startDate: '2025-09-01', method: 'paper towel', trays: [{ seedsSown: 50 }] });
     expect(res.status).toBe(422);
     expect(res.body.error.message).toMatch(/before lot .* was harvested \(2025-09-10\)/);
     expect(res.body.error.fields).toEqual({ startDate: 'Use a date on or after the harvest.' });
     expect((await bank.viewer.agent.get(`${base()}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(300);
     // The harvest day itself is fine.
-    const onHarvest = await bank.grower.agent.post(`${base()}/lots/${lotId}/tests`).send({ startDate: '2025-09-10', method: 'paper towel', trays: [{ seedsSown: 50 }] });
+    const onHarvest = await bank.grower.agent
+      .post(`${base()}/lots/${lotId}/tests`)
+      .send({ startDate: '2025-09-10', method: 'paper towel', trays: [{ seedsSown: 50 }] });
     expect(onHarvest.status).toBe(201);
     // Nor can the lot's harvest date be moved past its test afterwards.
-    const moved = await bank.grower.agent.patch(`${base()}/lots/${lotId}`).send({ harvestDate: '2025-09-20' });
+    const moved = await bank.grower.agent
+      .patch(`${base()}/lots/${lotId}`)
+      .send({ harvestDate: '2025-09-20' });
     expect(moved.status).toBe(422);
     expect(moved.body.error.fields.harvestDate).toBe('Use a day on or before 2025-09-10.');
     expect((await bank.viewer.agent.get(`${base()}/lots/${lotId}`)).body.lot.harvestDate).toBe('2025-09-10');
@@ -69,7 +87,9 @@ describe('germination tests through the API', () => {
     const { test, trays } = await fourTrayTest(lotId);
     const ids = trays.map((t) => t.id);
     const post = (date: string, values: number[]) =>
-      bank.grower.agent.post(`${base()}/tests/${test.id}/counts`).send({ date, trays: ids.map((trayId, i) => ({ trayId, cumulative: values[i] })) });
+      bank.grower.agent
+        .post(`${base()}/tests/${test.id}/counts`)
+        .send({ date, trays: ids.map((trayId, i) => ({ trayId, cumulative: values[i] })) });
     expect((await post('2026-03-05', [40, 35, 45, 38])).status).toBe(201);
     expect((await post('2026-03-08', [80, 76, 85, 80])).status).toBe(201);
     const last = await post('2026-03-12', [90, 85, 92, 88]);
@@ -90,7 +110,12 @@ describe('germination tests through the API', () => {
     expect(result.summary.join(' ')).toMatch(/between 85% and 91%/);
     // 7 CFR 201.55: four replicates of 100 at a mean of 89% tolerate a range of 12.
     expect(maxToleratedRange(89, 4, 100)).toBe(12);
-    expect(result.agreement).toMatchObject({ method: 'tolerance-table', maxRange: 12, observedRange: 7, ok: true });
+    expect(result.agreement).toMatchObject({
+      method: 'tolerance-table',
+      maxRange: 12,
+      observedRange: 7,
+      ok: true,
+    });
     expect(result.trayPercents.map((t: { percent: number }) => t.percent)).toEqual([90, 85, 92, 88]);
     expect(result.meanDays).toBeGreaterThan(4);
     expect(result.summary.join(' ')).toMatch(/About 89% so far/);
@@ -170,7 +195,9 @@ describe('germination tests through the API', () => {
     const { test, trays } = await fourTrayTest(lotId);
     const url = `${base()}/tests/${test.id}/counts`;
     const post = (date: string, values: number[]) =>
-      bank.grower.agent.post(url).send({ date, trays: trays.map((t, i) => ({ trayId: t.id, cumulative: values[i] })) });
+      bank.grower.agent
+        .post(url)
+        .send({ date, trays: trays.map((t, i) => ({ trayId: t.id, cumulative: values[i] })) });
     expect((await post('2026-03-06', [30, 40, 35, 20])).status).toBe(201);
     expect((await post('2026-03-12', [60, 70, 65, 50])).status).toBe(201);
 
@@ -179,11 +206,22 @@ describe('germination tests through the API', () => {
     expect(bad.status).toBe(422);
     expect(bad.body.error.code).toBe('impossible');
     expect(bad.body.error.message).toMatch(/^Nothing was saved: 3 trays need correcting\./);
-    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['trays.1.cumulative', 'trays.2.cumulative', 'trays.3.cumulative']);
-    expect(bad.body.error.fields['trays.1.cumulative']).toMatch(/^Tray 2: 101 seedlings are more than the 100 seeds sown/);
-    expect(bad.body.error.fields['trays.2.cumulative']).toMatch(/^Tray 3: 30 is fewer than the 35 counted on 2026-03-06/);
-    expect(bad.body.error.fields['trays.3.cumulative']).toMatch(/^Tray 4: 55 is more than the 50 counted later, on 2026-03-12/);
-    for (const reason of Object.values(bad.body.error.fields)) expect(bad.body.error.message).toContain(reason);
+    expect(Object.keys(bad.body.error.fields).sort()).toEqual([
+      'trays.1.cumulative',
+      'trays.2.cumulative',
+      'trays.3.cumulative',
+    ]);
+    expect(bad.body.error.fields['trays.1.cumulative']).toMatch(
+      /^Tray 2: 101 seedlings are more than the 100 seeds sown/,
+    );
+    expect(bad.body.error.fields['trays.2.cumulative']).toMatch(
+      /^Tray 3: 30 is fewer than the 35 counted on 2026-03-06/,
+    );
+    expect(bad.body.error.fields['trays.3.cumulative']).toMatch(
+      /^Tray 4: 55 is more than the 50 counted later, on 2026-03-12/,
+    );
+    for (const reason of Object.values(bad.body.error.fields))
+      expect(bad.body.error.message).toContain(reason);
 
     const one = await post('2026-03-09', [45, 50, 40, 55]);
     expect(one.status).toBe(422);
@@ -201,10 +239,16 @@ describe('germination tests through the API', () => {
     const { test, trays } = await fourTrayTest(lotId);
     const url = `${base()}/tests/${test.id}/counts`;
     // Nothing sprouts on the day of sowing (day 0; common practice counts from the next day).
-    const dayZero = await bank.grower.agent.post(url).send({ date: '2026-03-01', trays: [{ trayId: trays[0]!.id, cumulative: 2 }] });
+    const dayZero = await bank.grower.agent
+      .post(url)
+      .send({ date: '2026-03-01', trays: [{ trayId: trays[0]!.id, cumulative: 2 }] });
     expect(dayZero.status).toBe(422);
-    expect(dayZero.body.error.fields['trays.0.cumulative']).toMatch(/^Tray 1: 2 seedlings on the day the test started/);
-    const zero = await bank.grower.agent.post(url).send({ date: '2026-03-01', trays: [{ trayId: trays[0]!.id, cumulative: 0 }] });
+    expect(dayZero.body.error.fields['trays.0.cumulative']).toMatch(
+      /^Tray 1: 2 seedlings on the day the test started/,
+    );
+    const zero = await bank.grower.agent
+      .post(url)
+      .send({ date: '2026-03-01', trays: [{ trayId: trays[0]!.id, cumulative: 0 }] });
     expect(zero.status).toBe(201);
     expect((await bank.viewer.agent.get(`${base()}/tests/${test.id}`)).status).toBe(200);
   });
@@ -213,8 +257,12 @@ describe('germination tests through the API', () => {
     const lotId = await lotWith(400);
     const { test, trays } = await fourTrayTest(lotId);
     const url = `${base()}/tests/${test.id}/counts`;
-    await bank.grower.agent.post(url).send({ date: '2026-03-06', trays: [{ trayId: trays[0]!.id, cumulative: 30 }] });
-    const fixed = await bank.grower.agent.post(url).send({ date: '2026-03-06', trays: [{ trayId: trays[0]!.id, cumulative: 33 }] });
+    await bank.grower.agent
+      .post(url)
+      .send({ date: '2026-03-06', trays: [{ trayId: trays[0]!.id, cumulative: 30 }] });
+    const fixed = await bank.grower.agent
+      .post(url)
+      .send({ date: '2026-03-06', trays: [{ trayId: trays[0]!.id, cumulative: 33 }] });
     expect(fixed.body.result.germinated).toBe(33);
     const gone = await bank.grower.agent.delete(`${url}/2026-03-06`);
     expect(gone.status).toBe(200);
@@ -224,19 +272,26 @@ describe('germination tests through the API', () => {
   it('when a test is finished, then every tray must add up, and afterwards it is read-only until reopened', async () => {
     const lotId = await lotWith(400);
     const { test, trays } = await fourTrayTest(lotId);
-    await bank.grower.agent
-      .post(`${base()}/tests/${test.id}/counts`)
-      .send({ date: '2026-03-12', trays: trays.map((t, i) => ({ trayId: t.id, cumulative: [90, 85, 92, 88][i] })) });
+    await bank.grower.agent.post(`${base()}/tests/${test.id}/counts`).send({
+      date: '2026-03-12',
+      trays: trays.map((t, i) => ({ trayId: t.id, cumulative: [90, 85, 92, 88][i] })),
+    });
     const finishUrl = `${base()}/tests/${test.id}/finish`;
     const wrong = await bank.grower.agent.post(finishUrl).send({
       date: '2026-03-14',
       trays: trays.map((t) => ({ trayId: t.id, abnormal: 2, ungerminated: 5 })),
     });
     expect(wrong.status).toBe(422);
-    expect(wrong.body.error.message).toMatch(/Tray 1: 90 normal \+ 2 abnormal \+ 5 ungerminated = 97, but 100/);
+    expect(wrong.body.error.message).toMatch(
+      /Tray 1: 90 normal \+ 2 abnormal \+ 5 ungerminated = 97, but 100/,
+    );
     const right = await bank.grower.agent.post(finishUrl).send({
       date: '2026-03-14',
-      trays: trays.map((t, i) => ({ trayId: t.id, abnormal: 2, ungerminated: 100 - 2 - [90, 85, 92, 88][i]! })),
+      trays: trays.map((t, i) => ({
+        trayId: t.id,
+        abnormal: 2,
+        ungerminated: 100 - 2 - [90, 85, 92, 88][i]!,
+      })),
     });
     expect(right.status).toBe(200);
     expect(right.body.test).toMatchObject({ status: 'finished', finishedOn: '2026-03-14' });
@@ -244,17 +299,25 @@ describe('germination tests through the API', () => {
       .post(`${base()}/tests/${test.id}/counts`)
       .send({ date: '2026-03-14', trays: [{ trayId: trays[0]!.id, cumulative: 91 }] });
     expect(locked.status).toBe(409);
-    expect((await bank.grower.agent.post(`${base()}/tests/${test.id}/reopen`)).body.test.status).toBe('running');
+    expect((await bank.grower.agent.post(`${base()}/tests/${test.id}/reopen`)).body.test.status).toBe(
+      'running',
+    );
   });
 
   it('when the lot has too few seeds for the trays, then it is 409 and nothing is written', async () => {
     const lotId = await lotWith(150);
-    const res = await bank.grower.agent
-      .post(`${base()}/lots/${lotId}/tests`)
-      .send({ startDate: '2026-03-01', method: 'paper towel', trays: [{ seedsSown: 100 }, { seedsSown: 100 }] });
+    const res = await bank.grower.agent.post(`${base()}/lots/${lotId}/tests`).send({
+      startDate: '2026-03-01',
+      method: 'paper towel',
+      trays: [{ seedsSown: 100 }, { seedsSown: 100 }],
+    });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/need 200 seeds .* 150 on hand/);
-    const tests = await ctx.db.selectFrom('germination_tests').select('id').where('lot_id', '=', lotId).execute();
+    const tests = await ctx.db
+      .selectFrom('germination_tests')
+      .select('id')
+      .where('lot_id', '=', lotId)
+      .execute();
     expect(tests).toEqual([]);
     expect((await bank.viewer.agent.get(`${base()}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(150);
   });
@@ -262,7 +325,9 @@ describe('germination tests through the API', () => {
   it('when a viewer tries to count, then it is 403', async () => {
     const lotId = await lotWith(400);
     const { test, trays } = await fourTrayTest(lotId);
-    const res = await bank.viewer.agent.post(`${base()}/tests/${test.id}/counts`).send({ date: '2026-03-05', trays: [{ trayId: trays[0]!.id, cumulative: 1 }] });
+    const res = await bank.viewer.agent
+      .post(`${base()}/tests/${test.id}/counts`)
+      .send({ date: '2026-03-05', trays: [{ trayId: trays[0]!.id, cumulative: 1 }] });
     expect(res.status).toBe(403);
   });
 

@@ -38,7 +38,13 @@ describe('GET /api/health', () => {
     // An object-store fake of this test's own, so stopping it disturbs no other test.
     const port = await freePort();
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-s3-'));
-    const s3 = new S3rver({ address: '127.0.0.1', port, directory: dir, silent: true, configureBuckets: [{ name: 'hilum' }] });
+    const s3 = new S3rver({
+      address: '127.0.0.1',
+      port,
+      directory: dir,
+      silent: true,
+      configureBuckets: [{ name: 'hilum' }],
+    });
     await s3.run();
     const config = testConfig({ databaseUrl: ctx.config.databaseUrl });
     const storage = createObjectStore({ ...config.storage, endpoint: `http://127.0.0.1:${port}` });

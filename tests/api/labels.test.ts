@@ -127,15 +127,13 @@ describe('packet labels', () => {
 
   it('when a lot has no test, then its label says so', async () => {
     const tomato = await speciesId(ctx.db, 'tomato');
-    const lot = await bank.grower.agent
-      .post(`/api/banks/${bank.bankId}/lots`)
-      .send({
-        speciesId: tomato,
-        variety: 'Untested',
-        origin: 'saved',
-        harvestDate: '2025-09-01',
-        seedCount: 10,
-      });
+    const lot = await bank.grower.agent.post(`/api/banks/${bank.bankId}/lots`).send({
+      speciesId: tomato,
+      variety: 'Untested',
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+      seedCount: 10,
+    });
     const text = textsOf(
       (await getLabel(bank.viewer.agent, `/api/banks/${bank.bankId}/lots/${lot.body.lot.id}/label.svg`)).body,
     );

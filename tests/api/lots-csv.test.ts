@@ -13,11 +13,22 @@ describe('CSV export and import of lots', () => {
   type Bank = Awaited<ReturnType<typeof bankWithRoles>>;
   /** Imports the lines as one CSV file, as the bank's grower. */
   const importLines = (b: Bank, lines: string[], eol = '\n') =>
-    b.grower.agent.post(`/api/banks/${b.bankId}/lots/import`).attach('file', Buffer.from(lines.join(eol)), 'lots.csv');
-  const lotsOf = async (b: Bank) => (await b.owner.agent.get(`/api/banks/${b.bankId}/lots`)).body.items as Record<string, unknown>[];
+    b.grower.agent
+      .post(`/api/banks/${b.bankId}/lots/import`)
+      .attach('file', Buffer.from(lines.join(eol)), 'lots.csv');
+  const lotsOf = async (b: Bank) =>
+    (await b.owner.agent.get(`/api/banks/${b.bankId}/lots`)).body.items as Record<string, unknown>[];
 
   const comparable = (l: Record<string, unknown>) => {
-    const { id: _id, speciesId: _s, createdAt: _c, updatedAt: _u, thumbUrl: _t, parentPlantIds: _p, ...rest } = l;
+    const {
+      id: _id,
+      speciesId: _s,
+      createdAt: _c,
+      updatedAt: _u,
+      thumbUrl: _t,
+      parentPlantIds: _p,
+      ...rest
+    } = l;
     return rest;
   };
 
@@ -27,40 +38,96 @@ describe('CSV export and import of lots', () => {
     const tomato = await speciesId(ctx.db, 'tomato');
     const marigold = await speciesId(ctx.db, 'marigold');
     const post = (body: object) => a.grower.agent.post(`/api/banks/${a.bankId}/lots`).send(body);
-    await post({ speciesId: tomato, variety: 'Stripey, "Dawn"', origin: 'saved', harvestDate: '2025-09-14', seedCount: 120, notes: 'Line one\nline two, with comma', storage: { place: 'fridge', temperatureC: 4.5, humidityPct: 35, location: 'Crisper drawer' }, plantsBulked: 3 });
-    await post({ speciesId: marigold, variety: '=Orange Flare', origin: 'swapped', sourceName: 'Spring swap table', packedForSeason: 2026, seedCount: 0 });
-    await post({ speciesId: tomato, variety: 'Café Noir', origin: 'bought', harvestDate: '2024-08-01', seedCount: 25, code: 'MY-TOM' });
-    await post({ speciesId: marigold, variety: 'Coated Gold', origin: 'bought', packedForSeason: 2026, seedCount: 50, treated: true });
+    await post({
+      speciesId: tomato,
+      variety: 'Stripey, "Dawn"',
+      origin: 'saved',
+      harvestDate: '2025-09-14',
+      seedCount: 120,
+      notes: 'Line one\nline two, with comma',
+      storage: { place: 'fridge', temperatureC: 4.5, humidityPct: 35, location: 'Crisper drawer' },
+      plantsBulked: 3,
+    });
+    await post({
+      speciesId: marigold,
+      variety: '=Orange Flare',
+      origin: 'swapped',
+      sourceName: 'Spring swap table',
+      packedForSeason: 2026,
+      seedCount: 0,
+    });
+    await post({
+      speciesId: tomato,
+      variety: 'Café Noir',
+      origin: 'bought',
+      harvestDate: '2024-08-01',
+      seedCount: 25,
+      code: 'MY-TOM',
+    });
+    await post({
+      speciesId: marigold,
+      variety: 'Coated Gold',
+      origin: 'bought',
+      packedForSeason: 2026,
+      seedCount: 50,
+      treated: true,
+    });
 
     const exported = await a.viewer.agent.get(`/api/banks/${a.bankId}/lots.csv`);
     expect(exported.status).toBe(200);
     expect(exported.headers['content-type']).toMatch(/text\/csv/);
     const csv = exported.text;
 
-    const preview = await b.grower.agent.post(`/api/banks/${b.bankId}/lots/import?dryRun=true`).attach('file', Buffer.from(csv), 'lots.csv');
+    const preview = await b.grower.agent
+      .post(`/api/banks/${b.bankId}/lots/import?dryRun=true`)
+      .attach('file', Buffer.from(csv), 'lots.csv');
     expect(preview.status).toBe(200);
     expect(preview.body.preview).toHaveLength(4);
-    expect(preview.body.preview.filter((p: { treated: boolean }) => p.treated).map((p: { variety: string }) => p.variety)).toEqual(['Coated Gold']);
+    expect(
+      preview.body.preview
+        .filter((p: { treated: boolean }) => p.treated)
+        .map((p: { variety: string }) => p.variety),
+    ).toEqual(['Coated Gold']);
     expect((await b.owner.agent.get(`/api/banks/${b.bankId}/lots`)).body.items).toHaveLength(0);
 
-    const imported = await b.grower.agent.post(`/api/banks/${b.bankId}/lots/import`).attach('file', Buffer.from(csv), 'lots.csv');
+    const imported = await b.grower.agent
+      .post(`/api/banks/${b.bankId}/lots/import`)
+      .attach('file', Buffer.from(csv), 'lots.csv');
     expect(imported.status).toBe(200);
     expect(imported.body).toEqual({ imported: 4 });
     const before = (await a.owner.agent.get(`/api/banks/${a.bankId}/lots`)).body.items.map(comparable);
     const after = (await b.owner.agent.get(`/api/banks/${b.bankId}/lots`)).body.items.map(comparable);
     expect(after).toEqual(before);
-    expect(after.filter((l: { treated: boolean }) => l.treated).map((l: { variety: string }) => l.variety)).toEqual(['Coated Gold']);
+    expect(
+      after.filter((l: { treated: boolean }) => l.treated).map((l: { variety: string }) => l.variety),
+    ).toEqual(['Coated Gold']);
   });
 
   it('when the export holds a treated lot, then its treated cell is yes and the others no', async () => {
     const a = await bankWithRoles(ctx.app, ctx.db);
     const tomato = await speciesId(ctx.db, 'tomato');
     const post = (body: object) => a.grower.agent.post(`/api/banks/${a.bankId}/lots`).send(body);
-    await post({ speciesId: tomato, variety: 'Plain', origin: 'saved', harvestDate: '2025-09-01', seedCount: 10, code: 'T-PLAIN' });
-    await post({ speciesId: tomato, variety: 'Dusted', origin: 'bought', harvestDate: '2025-09-01', seedCount: 10, code: 'T-DUSTED', treated: true });
+    await post({
+      speciesId: tomato,
+      variety: 'Plain',
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+      seedCount: 10,
+      code: 'T-PLAIN',
+    });
+    await post({
+      speciesId: tomato,
+      variety: 'Dusted',
+      origin: 'bought',
+      harvestDate: '2025-09-01',
+      seedCount: 10,
+      code: 'T-DUSTED',
+      treated: true,
+    });
     const csv = (await a.viewer.agent.get(`/api/banks/${a.bankId}/lots.csv`)).text;
     const [header, ...records] = csv.replace(/^\uFEFF/, '').split('\r\n');
-    const cells = (record: string) => Object.fromEntries(header!.split(',').map((name, i) => [name, record.split(',')[i]]));
+    const cells = (record: string) =>
+      Object.fromEntries(header!.split(',').map((name, i) => [name, record.split(',')[i]]));
     expect(records.map(cells).map((r) => [r.code, r.treated])).toEqual([
       ['T-DUSTED', 'yes'],
       ['T-PLAIN', 'no'],
@@ -93,13 +160,16 @@ describe('CSV export and import of lots', () => {
       ],
       treated: [['OLD-1', false]],
     },
-  ])('when a file has $what, then every lot is imported, treated or not as it says', async ({ lines, treated }) => {
-    const b = await bankWithRoles(ctx.app, ctx.db);
-    const res = await importLines(b, lines, '\r\n');
-    expect(res.status).toBe(200);
-    expect(res.body).toEqual({ imported: treated.length });
-    expect((await lotsOf(b)).map((l) => [l.code, l.treated])).toEqual(treated);
-  });
+  ])(
+    'when a file has $what, then every lot is imported, treated or not as it says',
+    async ({ lines, treated }) => {
+      const b = await bankWithRoles(ctx.app, ctx.db);
+      const res = await importLines(b, lines, '\r\n');
+      expect(res.status).toBe(200);
+      expect(res.body).toEqual({ imported: treated.length });
+      expect((await lotsOf(b)).map((l) => [l.code, l.treated])).toEqual(treated);
+    },
+  );
 
   it.each([
     {
@@ -124,20 +194,30 @@ describe('CSV export and import of lots', () => {
         'Lettuce,Good two,bought,2025-07-01,50,',
       ],
     },
-  ])('when one row of a file has $what, then nothing is imported and the row is named', async ({ column, message, lines }) => {
-    const b = await bankWithRoles(ctx.app, ctx.db);
-    const res = await importLines(b, lines);
-    expect(res.status).toBe(400);
-    expect(res.body.error.rows).toEqual([expect.objectContaining({ line: 3, column, message: expect.stringMatching(message) })]);
-    expect(await lotsOf(b)).toHaveLength(0);
-  });
+  ])(
+    'when one row of a file has $what, then nothing is imported and the row is named',
+    async ({ column, message, lines }) => {
+      const b = await bankWithRoles(ctx.app, ctx.db);
+      const res = await importLines(b, lines);
+      expect(res.status).toBe(400);
+      expect(res.body.error.rows).toEqual([
+        expect.objectContaining({ line: 3, column, message: expect.stringMatching(message) }),
+      ]);
+      expect(await lotsOf(b)).toHaveLength(0);
+    },
+  );
 
   it('when a code in the file is already used in the bank, then nothing is imported', async () => {
     const b = await bankWithRoles(ctx.app, ctx.db);
     const tomato = await speciesId(ctx.db, 'tomato');
-    await b.grower.agent.post(`/api/banks/${b.bankId}/lots`).send({ speciesId: tomato, variety: 'Old', origin: 'saved', harvestDate: '2025-09-01', code: 'TOM-1' });
-    const csv = 'code,species,variety,origin,harvest_date,seeds_on_hand\nNEW-1,Tomato,A,saved,2025-09-01,5\ntom-1,Tomato,B,saved,2025-09-01,5\n';
-    const res = await b.grower.agent.post(`/api/banks/${b.bankId}/lots/import`).attach('file', Buffer.from(csv), 'lots.csv');
+    await b.grower.agent
+      .post(`/api/banks/${b.bankId}/lots`)
+      .send({ speciesId: tomato, variety: 'Old', origin: 'saved', harvestDate: '2025-09-01', code: 'TOM-1' });
+    const csv =
+      'code,species,variety,origin,harvest_date,seeds_on_hand\nNEW-1,Tomato,A,saved,2025-09-01,5\ntom-1,Tomato,B,saved,2025-09-01,5\n';
+    const res = await b.grower.agent
+      .post(`/api/banks/${b.bankId}/lots/import`)
+      .attach('file', Buffer.from(csv), 'lots.csv');
     expect(res.status).toBe(400);
     expect(res.body.error.rows).toEqual([expect.objectContaining({ line: 3, column: 'code' })]);
     expect((await b.owner.agent.get(`/api/banks/${b.bankId}/lots`)).body.items).toHaveLength(1);
@@ -145,7 +225,9 @@ describe('CSV export and import of lots', () => {
 
   it('when a viewer tries to import, then it is 403', async () => {
     const b = await bankWithRoles(ctx.app, ctx.db);
-    const res = await b.viewer.agent.post(`/api/banks/${b.bankId}/lots/import`).attach('file', Buffer.from('species\n'), 'x.csv');
+    const res = await b.viewer.agent
+      .post(`/api/banks/${b.bankId}/lots/import`)
+      .attach('file', Buffer.from('species\n'), 'x.csv');
     expect(res.status).toBe(403);
   });
 });

@@ -16,9 +16,13 @@ describe('one germination figure on every screen', () => {
   let lotId: string;
   const base = () => `/api/banks/${bank.bankId}`;
   const newLot = async (variety: string) => {
-    const lot = await bank.grower.agent
-      .post(`${base()}/lots`)
-      .send({ speciesId: await speciesId(ctx.db, 'tomato'), variety, origin: 'saved', harvestDate: '2026-08-20', seedCount: 2000 });
+    const lot = await bank.grower.agent.post(`${base()}/lots`).send({
+      speciesId: await speciesId(ctx.db, 'tomato'),
+      variety,
+      origin: 'saved',
+      harvestDate: '2026-08-20',
+      seedCount: 2000,
+    });
     return lot.body.lot.id as string;
   };
 
@@ -30,9 +34,14 @@ describe('one germination figure on every screen', () => {
   afterAll(() => ctx.close());
 
   async function startTest(startDate: string, sown: number[]) {
-    const res = await bank.grower.agent.post(`${base()}/lots/${lotId}/tests`).send({ startDate, method: 'tray of mix', trays: sown.map((seedsSown) => ({ seedsSown })) });
+    const res = await bank.grower.agent
+      .post(`${base()}/lots/${lotId}/tests`)
+      .send({ startDate, method: 'tray of mix', trays: sown.map((seedsSown) => ({ seedsSown })) });
     expect(res.status).toBe(201);
-    return { testId: res.body.test.id as string, trayIds: res.body.trays.map((t: { id: string }) => t.id) as string[] };
+    return {
+      testId: res.body.test.id as string,
+      trayIds: res.body.trays.map((t: { id: string }) => t.id) as string[],
+    };
   }
 
   /** Every place a grower reads the lot's latest germination, as whole percents. */
@@ -42,12 +51,16 @@ describe('one germination figure on every screen', () => {
     const ranking = await bank.viewer.agent.get(`${base()}/ranking?on=2027-03-01`);
     const csv = await bank.viewer.agent.get(`${base()}/tests.csv`);
     const label = await bank.viewer.agent.get(`${base()}/lots/${lotId}/label.svg`).buffer(true);
-    const records = Papa.parse<Record<string, string>>(csv.text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: true }).data;
+    const records = Papa.parse<Record<string, string>>(csv.text.replace(/^\uFEFF/, ''), {
+      header: true,
+      skipEmptyLines: true,
+    }).data;
     const mine = records.filter((r) => r.start_date === page.body.test.startDate);
     const row = ranking.body.items.find((i: { lotId: string }) => i.lotId === lotId);
     return {
       page: page.body.result,
-      lotPage: lotTests.body.items.find((t: { test: { id: string } }) => t.test.id === testId).result.percentRounded as number,
+      lotPage: lotTests.body.items.find((t: { test: { id: string } }) => t.test.id === testId).result
+        .percentRounded as number,
       ranking: Math.round(row.lastPercent as number),
       csv: [...new Set(mine.map((r) => r.germination_percent))],
       label: Buffer.isBuffer(label.body) ? label.body.toString('utf8') : '',
@@ -70,7 +83,12 @@ describe('one germination figure on every screen', () => {
     expect(seen.page.percent).toBe(85);
     expect(seen.page.percentRounded).toBe(85);
     expect(seen.page.traysCounted).toBe(2);
-    expect(seen.page.trayPercents.map((t: { state: string }) => t.state)).toEqual(['counted', 'counted', 'not-counted', 'not-counted']);
+    expect(seen.page.trayPercents.map((t: { state: string }) => t.state)).toEqual([
+      'counted',
+      'counted',
+      'not-counted',
+      'not-counted',
+    ]);
     expect(seen.page.summary.join(' ')).toMatch(/Trays 3 and 4 are not counted yet/);
     expect(seen.lotPage).toBe(85);
     expect(seen.ranking).toBe(85);
@@ -84,7 +102,13 @@ describe('one germination figure on every screen', () => {
 
   it('when a tray never counted is to be finished, then it is refused until the tray is counted or set aside', async () => {
     const { testId, trayIds } = await startTest('2026-11-10', [50, 50, 50]);
-    await bank.grower.agent.post(`${base()}/tests/${testId}/counts`).send({ date: '2026-11-20', trays: [{ trayId: trayIds[0], cumulative: 40 }, { trayId: trayIds[1], cumulative: 44 }] });
+    await bank.grower.agent.post(`${base()}/tests/${testId}/counts`).send({
+      date: '2026-11-20',
+      trays: [
+        { trayId: trayIds[0], cumulative: 40 },
+        { trayId: trayIds[1], cumulative: 44 },
+      ],
+    });
     const refused = await bank.grower.agent.post(`${base()}/tests/${testId}/finish`).send({
       date: '2026-11-24',
       trays: trayIds.map((trayId, i) => ({ trayId, abnormal: 0, ungerminated: [10, 6, 50][i] })),
@@ -99,16 +123,38 @@ describe('one germination figure on every screen', () => {
 
   it('when a tray is set aside while the test runs, then it leaves the figures and can be taken back; a viewer cannot do it', async () => {
     const { testId, trayIds } = await startTest('2026-11-12', [40, 40]);
-    await bank.grower.agent.post(`${base()}/tests/${testId}/counts`).send({ date: '2026-11-20', trays: [{ trayId: trayIds[0], cumulative: 30 }, { trayId: trayIds[1], cumulative: 10 }] });
+    await bank.grower.agent.post(`${base()}/tests/${testId}/counts`).send({
+      date: '2026-11-20',
+      trays: [
+        { trayId: trayIds[0], cumulative: 30 },
+        { trayId: trayIds[1], cumulative: 10 },
+      ],
+    });
     expect((await bank.viewer.agent.get(`${base()}/tests/${testId}`)).body.result.percent).toBe(50); // 40 / 80
-    const aside = await bank.grower.agent.patch(`${base()}/tests/${testId}/trays/${trayIds[1]}`).send({ setAsideReason: 'Dried out over the weekend' });
+    const aside = await bank.grower.agent
+      .patch(`${base()}/tests/${testId}/trays/${trayIds[1]}`)
+      .send({ setAsideReason: 'Dried out over the weekend' });
     expect(aside.status).toBe(200);
     expect(aside.body.result.percent).toBe(75); // 30 / 40
     expect(aside.body.trays[1].setAsideReason).toBe('Dried out over the weekend');
     expect(aside.body.result.trayPercents[1].state).toBe('set-aside');
-    expect((await bank.viewer.agent.patch(`${base()}/tests/${testId}/trays/${trayIds[1]}`).send({ setAsideReason: null })).status).toBe(403);
-    expect((await bank.grower.agent.patch(`${base()}/tests/${testId}/trays/${trayIds[1]}`).send({ setAsideReason: '' })).status).toBe(400);
-    const back = await bank.grower.agent.patch(`${base()}/tests/${testId}/trays/${trayIds[1]}`).send({ setAsideReason: null });
+    expect(
+      (
+        await bank.viewer.agent
+          .patch(`${base()}/tests/${testId}/trays/${trayIds[1]}`)
+          .send({ setAsideReason: null })
+      ).status,
+    ).toBe(403);
+    expect(
+      (
+        await bank.grower.agent
+          .patch(`${base()}/tests/${testId}/trays/${trayIds[1]}`)
+          .send({ setAsideReason: '' })
+      ).status,
+    ).toBe(400);
+    const back = await bank.grower.agent
+      .patch(`${base()}/tests/${testId}/trays/${trayIds[1]}`)
+      .send({ setAsideReason: null });
     expect(back.body.result.percent).toBe(50);
     await bank.grower.agent.delete(`${base()}/tests/${testId}`).expect(204);
   });
@@ -140,7 +186,10 @@ describe('one germination figure on every screen', () => {
     expect(seen.page.percent).toBe(80);
     expect(seen.page.traysSetAside).toBe(1);
     expect(seen.page.abnormal).toBe(3);
-    expect(seen.page.trayPercents[3]).toMatchObject({ state: 'set-aside', setAsideReason: 'Knocked off the shelf' });
+    expect(seen.page.trayPercents[3]).toMatchObject({
+      state: 'set-aside',
+      setAsideReason: 'Knocked off the shelf',
+    });
     expect(seen.page.summary.join(' ')).not.toMatch(/so far/);
     expect(seen.lotPage).toBe(80);
     expect(seen.ranking).toBe(80);
@@ -152,10 +201,24 @@ describe('one germination figure on every screen', () => {
   });
 
   it('when stored results are from an older definition, then the start-up refresh recomputes them to the same figures', async () => {
-    const before = await ctx.db.selectFrom('germination_tests').select(['id', 'result_percent', 'result_sown']).where('bank_id', '=', bank.bankId).orderBy('id').execute();
-    await ctx.db.updateTable('germination_tests').set({ result_version: 0, result: null, result_percent: null, result_sown: null }).where('bank_id', '=', bank.bankId).execute();
+    const before = await ctx.db
+      .selectFrom('germination_tests')
+      .select(['id', 'result_percent', 'result_sown'])
+      .where('bank_id', '=', bank.bankId)
+      .orderBy('id')
+      .execute();
+    await ctx.db
+      .updateTable('germination_tests')
+      .set({ result_version: 0, result: null, result_percent: null, result_sown: null })
+      .where('bank_id', '=', bank.bankId)
+      .execute();
     expect(await refreshStaleResults(ctx.db)).toBe(before.length);
-    const after = await ctx.db.selectFrom('germination_tests').select(['id', 'result_percent', 'result_sown']).where('bank_id', '=', bank.bankId).orderBy('id').execute();
+    const after = await ctx.db
+      .selectFrom('germination_tests')
+      .select(['id', 'result_percent', 'result_sown'])
+      .where('bank_id', '=', bank.bankId)
+      .orderBy('id')
+      .execute();
     expect(after).toEqual(before);
     expect(await refreshStaleResults(ctx.db)).toBe(0);
   });

@@ -10,7 +10,15 @@ import { createApp } from '../../server/app';
 import { createObjectStore } from '../../server/storage/object-store';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
-import { bigUpload, heicLikeBuffer, jpegWithExif, pngBomb, svgFile, textFile, truncatedJpeg } from '../helpers/images';
+import {
+  bigUpload,
+  heicLikeBuffer,
+  jpegWithExif,
+  pngBomb,
+  svgFile,
+  textFile,
+  truncatedJpeg,
+} from '../helpers/images';
 import { speciesId } from '../helpers/lots';
 
 /** Every object file the object-store fake holds for one bank. */
@@ -29,15 +37,20 @@ describe('packet photos through the API', () => {
   beforeAll(async () => {
     ctx = await createTestContext({ now: '2026-03-01T09:00:00Z' });
     bank = await bankWithRoles(ctx.app, ctx.db);
-    const lot = await bank.grower.agent
-      .post(`/api/banks/${bank.bankId}/lots`)
-      .send({ speciesId: await speciesId(ctx.db, 'tomato'), variety: 'Photo lot', origin: 'saved', harvestDate: '2025-09-01', seedCount: 50 });
+    const lot = await bank.grower.agent.post(`/api/banks/${bank.bankId}/lots`).send({
+      speciesId: await speciesId(ctx.db, 'tomato'),
+      variety: 'Photo lot',
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+      seedCount: 50,
+    });
     lotId = lot.body.lot.id;
   });
   afterAll(() => ctx.close());
   const upload = (file: Buffer, name: string, agent = bank.grower.agent) =>
     agent.post(`/api/banks/${bank.bankId}/lots/${lotId}/photos`).attach('photo', file, name);
-  const photoRows = () => ctx.db.selectFrom('photos').select('id').where('bank_id', '=', bank.bankId).execute();
+  const photoRows = () =>
+    ctx.db.selectFrom('photos').select('id').where('bank_id', '=', bank.bankId).execute();
 
   it('when a phone JPEG with orientation 6 and GPS is uploaded, then it comes back upright with no metadata', async () => {
     const input = await jpegWithExif({ orientation: 6, gps: true, width: 400, height: 200 });
@@ -49,11 +62,14 @@ describe('packet photos through the API', () => {
     expect(res.status).toBe(201);
     // Exif 2.32, tag 0x0112 value 6: the stored image must be turned 90° clockwise to view (from memory).
     expect(res.body.photo).toMatchObject({ width: 200, height: 400 });
-    const full = await bank.viewer.agent.get(res.body.photo.url).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const full = await bank.viewer.agent
+      .get(res.body.photo.url)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(full.status).toBe(200);
     expect(full.headers['content-type']).toBe('image/webp');
     expect(full.headers['cache-control']).toMatch(/private/);
@@ -110,7 +126,9 @@ describe('packet photos through the API', () => {
   it('when a photo is deleted, then its objects are removed from the store', async () => {
     const res = await upload(await jpegWithExif(), 'x.jpg');
     const before = objectsOfBank(s3Dir, bank.bankId).length;
-    expect((await bank.grower.agent.delete(`/api/banks/${bank.bankId}/photos/${res.body.photo.id}`)).status).toBe(204);
+    expect(
+      (await bank.grower.agent.delete(`/api/banks/${bank.bankId}/photos/${res.body.photo.id}`)).status,
+    ).toBe(204);
     expect(objectsOfBank(s3Dir, bank.bankId).length).toBe(before - 2);
     expect((await bank.viewer.agent.get(res.body.photo.url)).status).toBe(404);
   });
@@ -124,7 +142,13 @@ describe('packet photos through the API', () => {
       });
     });
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-s3-down-'));
-    const s3 = new S3rver({ address: '127.0.0.1', port, directory: dir, silent: true, configureBuckets: [{ name: 'hilum' }] });
+    const s3 = new S3rver({
+      address: '127.0.0.1',
+      port,
+      directory: dir,
+      silent: true,
+      configureBuckets: [{ name: 'hilum' }],
+    });
     await s3.run();
     await s3.close();
     const storage = createObjectStore({ ...ctx.config.storage, endpoint: `http://127.0.0.1:${port}` });
@@ -132,7 +156,9 @@ describe('packet photos through the API', () => {
     const rowsBefore = (await photoRows()).length;
     const agent = request.agent(app);
     await agent.post('/api/auth/login').send({ email: bank.grower.email, password: 'correct horse battery' });
-    const res = await agent.post(`/api/banks/${bank.bankId}/lots/${lotId}/photos`).attach('photo', await jpegWithExif(), 'x.jpg');
+    const res = await agent
+      .post(`/api/banks/${bank.bankId}/lots/${lotId}/photos`)
+      .attach('photo', await jpegWithExif(), 'x.jpg');
     expect(res.status).toBe(503);
     expect((await photoRows()).length).toBe(rowsBefore);
     storage.close();

@@ -15,17 +15,26 @@ describe('the season plan', () => {
     bank = await bankWithRoles(ctx.app, ctx.db); // last frost 05-20, margin 7 days (the default)
     tomato = await speciesId(ctx.db, 'tomato');
     const lot = (variety: string, seeds: number) =>
-      bank.grower.agent.post(`/api/banks/${bank.bankId}/lots`).send({ speciesId: tomato, variety, origin: 'saved', harvestDate: '2025-09-01', seedCount: seeds });
+      bank.grower.agent
+        .post(`/api/banks/${bank.bankId}/lots`)
+        .send({ speciesId: tomato, variety, origin: 'saved', harvestDate: '2025-09-01', seedCount: seeds });
     goodLot = (await lot('Good', 500)).body.lot.id;
     smallLot = (await lot('Small but fine', 110)).body.lot.id;
-    await finishedTest(bank.grower.agent, bank.bankId, goodLot, '2026-02-01', [{ sown: 50, germinated: 46 }, { sown: 50, germinated: 45 }]);
-    await finishedTest(bank.grower.agent, bank.bankId, smallLot, '2026-02-01', [{ sown: 50, germinated: 40 }]);
+    await finishedTest(bank.grower.agent, bank.bankId, goodLot, '2026-02-01', [
+      { sown: 50, germinated: 46 },
+      { sown: 50, germinated: 45 },
+    ]);
+    await finishedTest(bank.grower.agent, bank.bankId, smallLot, '2026-02-01', [
+      { sown: 50, germinated: 40 },
+    ]);
   });
   afterAll(() => ctx.close());
   const url = () => `/api/banks/${bank.bankId}/plan`;
 
   it('when an indoor tomato sowing is planned, then the dates count back from the frost date and the best lot is suggested', async () => {
-    const res = await bank.grower.agent.post(url()).send({ season: 2027, speciesId: tomato, plantsWanted: 12, start: 'indoors' });
+    const res = await bank.grower.agent
+      .post(url())
+      .send({ season: 2027, speciesId: tomato, plantsWanted: 12, start: 'indoors' });
     expect(res.status).toBe(201);
     const e = res.body.entry;
     // Tomato indoor window 8–6 weeks before the last frost (reference set, common practice):
@@ -35,34 +44,46 @@ describe('the season plan', () => {
     expect(e).toMatchObject({ transplantOn: '2027-05-27', hardenFrom: '2027-05-20' });
     // Seedlings expected 5–14 days after the first sowing (tomato count days, from memory).
     expect(e).toMatchObject({ expectFrom: '2027-03-30', expectBy: '2027-04-08' });
-    const sow = await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${goodLot}/seeds-to-sow?plants=12&on=2027-03-25`);
+    const sow = await bank.viewer.agent.get(
+      `/api/banks/${bank.bankId}/lots/${goodLot}/seeds-to-sow?plants=12&on=2027-03-25`,
+    );
     expect(e.seedsToSow).toBe(sow.body.seeds);
     expect(e.notes.join(' ')).toMatch(/Suggested lot/);
   });
 
   it('when an entry is marked sown, then the seeds leave the lot once; twice is 409; undo puts them back', async () => {
-    const { body } = await bank.grower.agent.post(url()).send({ season: 2027, speciesId: tomato, plantsWanted: 6, start: 'indoors', lotId: smallLot });
+    const { body } = await bank.grower.agent
+      .post(url())
+      .send({ season: 2027, speciesId: tomato, plantsWanted: 6, start: 'indoors', lotId: smallLot });
     const entry = body.entry;
     expect(entry.lotId).toBe(smallLot);
-    const before = (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot.seedsOnHand;
+    const before = (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot
+      .seedsOnHand;
     const sown = await bank.grower.agent.post(`${url()}/${entry.id}/sown`).send({ date: '2026-11-30' });
     expect(sown.status).toBe(200);
     expect(sown.body.entry.sownOn).toBe('2026-11-30');
-    const after = (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot.seedsOnHand;
+    const after = (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot
+      .seedsOnHand;
     expect(before - after).toBe(entry.seedsToSow);
     // The entry carries the lot's stock, before and after the sowing.
     expect(entry.seedsOnHand).toBe(before);
     expect(sown.body.entry.seedsOnHand).toBe(after);
     const again = await bank.grower.agent.post(`${url()}/${entry.id}/sown`).send({});
     expect(again.status).toBe(409);
-    expect((await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot.seedsOnHand).toBe(after);
+    expect(
+      (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot.seedsOnHand,
+    ).toBe(after);
     const undone = await bank.grower.agent.delete(`${url()}/${entry.id}/sown`);
     expect(undone.body.entry.sownOn).toBeNull();
-    expect((await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot.seedsOnHand).toBe(before);
+    expect(
+      (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot.seedsOnHand,
+    ).toBe(before);
   });
 
   it('when no lot has enough seed, then the entry warns', async () => {
-    const res = await bank.grower.agent.post(url()).send({ season: 2027, speciesId: tomato, plantsWanted: 2000, start: 'indoors' });
+    const res = await bank.grower.agent
+      .post(url())
+      .send({ season: 2027, speciesId: tomato, plantsWanted: 2000, start: 'indoors' });
     expect(res.status).toBe(201);
     expect(res.body.entry.notes.join(' ')).toMatch(/No lot has enough seed/);
     // The stock it falls short of is on the entry, so the planner can say so before marking it sown.
@@ -80,7 +101,9 @@ describe('the season plan', () => {
   it('when the bank has no frost date, then planning is 422 saying where to set it', async () => {
     const other = await bankWithRoles(ctx.app, ctx.db);
     await other.owner.agent.patch(`/api/banks/${other.bankId}`).send({ lastFrost: null });
-    const res = await other.grower.agent.post(`/api/banks/${other.bankId}/plan`).send({ season: 2027, speciesId: tomato, plantsWanted: 4, start: 'indoors' });
+    const res = await other.grower.agent
+      .post(`/api/banks/${other.bankId}/plan`)
+      .send({ season: 2027, speciesId: tomato, plantsWanted: 4, start: 'indoors' });
     expect(res.status).toBe(422);
     expect(res.body.error.message).toMatch(/frost date in Settings/);
   });
@@ -89,7 +112,9 @@ describe('the season plan', () => {
     const res = await bank.viewer.agent.get(`/api/banks/${bank.bankId}/plan.ics?season=2027`);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/calendar/);
-    const events = Object.values(ical.sync.parseICS(res.text)).filter((e) => e?.type === 'VEVENT') as ical.VEvent[];
+    const events = Object.values(ical.sync.parseICS(res.text)).filter(
+      (e) => e?.type === 'VEVENT',
+    ) as ical.VEvent[];
     const sow = events.find((e) => String(e.summary).startsWith('Sow Tomato'));
     expect(sow).toBeDefined();
     const start = sow!.start as Date;

@@ -19,8 +19,14 @@ describe('the ranking under random lots', () => {
     bank = await bankWithRoles(ctx.app, ctx.db);
     const rand = mulberry32(1302);
     const pick = <T>(xs: readonly T[]): T => xs[Math.floor(rand() * xs.length)]!;
-    const species = await ctx.db.selectFrom('species').select('id').where('bank_id', 'is', null).orderBy('ref_key').execute();
-    const addDays = (date: string, n: number) => new Date(Date.parse(date) + n * 86_400_000).toISOString().slice(0, 10);
+    const species = await ctx.db
+      .selectFrom('species')
+      .select('id')
+      .where('bank_id', 'is', null)
+      .orderBy('ref_key')
+      .execute();
+    const addDays = (date: string, n: number) =>
+      new Date(Date.parse(date) + n * 86_400_000).toISOString().slice(0, 10);
     await ctx.db.transaction().execute(async (trx) => {
       for (let i = 0; i < LOTS; i++) {
         const harvest = addDays('2016-08-01', Math.floor(rand() * 3500));
@@ -39,24 +45,66 @@ describe('the ranking under random lots', () => {
           .returning('id')
           .executeTakeFirstOrThrow();
         const stock = pick([0, 5, 100, 2000]);
-        if (stock > 0) await trx.insertInto('stock_movements').values({ lot_id: lot.id, kind: 'initial', change: stock, date: harvest, reason: 'fuzz' }).execute();
+        if (stock > 0)
+          await trx
+            .insertInto('stock_movements')
+            .values({ lot_id: lot.id, kind: 'initial', change: stock, date: harvest, reason: 'fuzz' })
+            .execute();
         const kind = pick(['none', 'one', 'close', 'equal', 'all', 'none-up', 'rising', 'random', 'running']);
-        const nTests = kind === 'none' ? 0 : kind === 'one' || kind === 'running' ? 1 : kind === 'random' ? 1 + Math.floor(rand() * 5) : 2;
+        const nTests =
+          kind === 'none'
+            ? 0
+            : kind === 'one' || kind === 'running'
+              ? 1
+              : kind === 'random'
+                ? 1 + Math.floor(rand() * 5)
+                : 2;
         let start = addDays(harvest, 20 + Math.floor(rand() * 200));
         for (let k = 0; k < nTests && start < '2026-11-20'; k++) {
           const sown = pick([1, 5, 10, 25, 50, 100]);
           const share =
-            kind === 'all' ? 1 : kind === 'none-up' ? 0 : kind === 'equal' ? 0.9 : kind === 'close' ? 0.96 - 0.01 * k : kind === 'rising' ? (k === 0 ? 0.3 : 0.95) : rand();
+            kind === 'all'
+              ? 1
+              : kind === 'none-up'
+                ? 0
+                : kind === 'equal'
+                  ? 0.9
+                  : kind === 'close'
+                    ? 0.96 - 0.01 * k
+                    : kind === 'rising'
+                      ? k === 0
+                        ? 0.3
+                        : 0.95
+                      : rand();
           const running = kind === 'running';
           const test = await trx
             .insertInto('germination_tests')
-            .values({ bank_id: bank.bankId, lot_id: lot.id, start_date: start, method: 'paper towel', status: running ? 'running' : 'finished', finished_on: running ? null : addDays(start, 14) })
+            .values({
+              bank_id: bank.bankId,
+              lot_id: lot.id,
+              start_date: start,
+              method: 'paper towel',
+              status: running ? 'running' : 'finished',
+              finished_on: running ? null : addDays(start, 14),
+            })
             .returning('id')
             .executeTakeFirstOrThrow();
-          const tray = await trx.insertInto('test_trays').values({ test_id: test.id, position: 1, seeds_sown: sown }).returning('id').executeTakeFirstOrThrow();
+          const tray = await trx
+            .insertInto('test_trays')
+            .values({ test_id: test.id, position: 1, seeds_sown: sown })
+            .returning('id')
+            .executeTakeFirstOrThrow();
           const up = Math.round(sown * share);
-          await trx.insertInto('tray_counts').values({ tray_id: tray.id, check_date: addDays(start, 7), cumulative: up }).execute();
-          if (!running) await trx.updateTable('test_trays').set({ abnormal: 0, ungerminated: sown - up }).where('id', '=', tray.id).execute();
+          await trx
+            .insertInto('tray_counts')
+            .values({ tray_id: tray.id, check_date: addDays(start, 7), cumulative: up })
+            .execute();
+          if (!running)
+            await trx
+              .updateTable('test_trays')
+              .set({ abnormal: 0, ungerminated: sown - up })
+              .where('id', '=', tray.id)
+              .execute();
           start = addDays(start, kind === 'close' ? 240 : 120 + Math.floor(rand() * 700));
         }
       }
@@ -82,17 +130,22 @@ describe('the ranking under random lots', () => {
         expect(item.lastPercent).toBeGreaterThanOrEqual(0);
         expect(item.lastPercent).toBeLessThanOrEqual(100);
       }
-      expect(['test-first', 'sow', 'sow-thick', 'retest', 'grow-out', 'retire']).toContain(item.recommendation);
+      expect(['test-first', 'sow', 'sow-thick', 'retest', 'grow-out', 'retire']).toContain(
+        item.recommendation,
+      );
       expect(item.reason.length).toBeGreaterThan(10);
       if (item.seedsOnHand <= 0) expect(item.recommendation).toBe('retire');
-      if (item.lastTestDate === null) expect(item.recommendation === 'test-first' || item.recommendation === 'retire').toBe(true);
+      if (item.lastTestDate === null)
+        expect(item.recommendation === 'test-first' || item.recommendation === 'retire').toBe(true);
     }
   });
 
   it('when the lot pages of random lots are opened, then each answers 200 with its decision and a finite band', async () => {
     const ranking = await bank.viewer.agent.get(`/api/banks/${bank.bankId}/ranking?on=2027-03-01`);
     for (const item of ranking.body.items.slice(0, 40)) {
-      const res = await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${item.lotId}/viability?on=2027-03-01`);
+      const res = await bank.viewer.agent.get(
+        `/api/banks/${bank.bankId}/lots/${item.lotId}/viability?on=2027-03-01`,
+      );
       expect(res.status).toBe(200);
       expect(res.body.recommendation).toBe(item.recommendation);
       expect(res.body.projected.percent).toBeCloseTo(item.projectedPercent, 9);

@@ -68,16 +68,14 @@ describe('viability, ranking and seeds to sow', () => {
 
   it('when a species has no other lots with a decline, then the typical seed life is used (basis typical)', async () => {
     const lettuce = await speciesId(ctx.db, 'lettuce');
-    const res0 = await bank.grower.agent
-      .post(`${base()}/lots`)
-      .send({
-        speciesId: lettuce,
-        variety: 'Lone',
-        origin: 'bought',
-        packedForSeason: 2026,
-        seedCount: 500,
-        storage: { place: 'fridge' },
-      });
+    const res0 = await bank.grower.agent.post(`${base()}/lots`).send({
+      speciesId: lettuce,
+      variety: 'Lone',
+      origin: 'bought',
+      packedForSeason: 2026,
+      seedCount: 500,
+      storage: { place: 'fridge' },
+    });
     await finishedTest(bank.grower.agent, bank.bankId, res0.body.lot.id, '2026-02-01', [
       { sown: 100, germinated: 90 },
     ]);
@@ -133,17 +131,15 @@ describe('viability, ranking and seeds to sow', () => {
   });
 
   it('when a lot was swapped in as treated seed, then its ranking row says where it came from and that it is treated', async () => {
-    const res = await bank.grower.agent
-      .post(`${base()}/lots`)
-      .send({
-        speciesId: tomato,
-        variety: 'Coated Swap',
-        origin: 'swapped',
-        sourceName: 'Orchard Lane circle',
-        treated: true,
-        harvestDate: '2025-09-01',
-        seedCount: 50,
-      });
+    const res = await bank.grower.agent.post(`${base()}/lots`).send({
+      speciesId: tomato,
+      variety: 'Coated Swap',
+      origin: 'swapped',
+      sourceName: 'Orchard Lane circle',
+      treated: true,
+      harvestDate: '2025-09-01',
+      seedCount: 50,
+    });
     expect(res.status).toBe(201);
     const ranking = await bank.viewer.agent.get(`${base()}/ranking?on=2027-03-01`);
     const row = (ranking.body.items as { lotId: string }[]).find((i) => i.lotId === res.body.lot.id);

@@ -31,16 +31,28 @@ describe('e-mail reminders on the durable queue', () => {
     ctx = await createTestContext({ now: '2026-03-01T09:00:00Z' });
     bank = await bankWithRoles(ctx.app, ctx.db);
     const tomato = await speciesId(ctx.db, 'tomato');
-    const lot = await bank.grower.agent
-      .post(`/api/banks/${bank.bankId}/lots`)
-      .send({ speciesId: tomato, variety: 'Reminder lot', origin: 'saved', harvestDate: '2025-09-01', seedCount: 200 });
+    const lot = await bank.grower.agent.post(`/api/banks/${bank.bankId}/lots`).send({
+      speciesId: tomato,
+      variety: 'Reminder lot',
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+      seedCount: 200,
+    });
     testCode = lot.body.lot.code;
-    await bank.grower.agent
-      .post(`/api/banks/${bank.bankId}/lots/${lot.body.lot.id}/tests`)
-      .send({ startDate: '2026-03-01', method: 'paper towel', trays: [{ seedsSown: 25 }, { seedsSown: 25 }] });
+    await bank.grower.agent.post(`/api/banks/${bank.bankId}/lots/${lot.body.lot.id}/tests`).send({
+      startDate: '2026-03-01',
+      method: 'paper towel',
+      trays: [{ seedsSown: 25 }, { seedsSown: 25 }],
+    });
     // The viewer opts in to check-day mail; the grower opts out; the owner keeps the default (on).
-    expect((await bank.viewer.agent.patch(`/api/banks/${bank.bankId}/reminders`).send({ checks: true })).body.preferences.checks).toBe(true);
-    expect((await bank.grower.agent.patch(`/api/banks/${bank.bankId}/reminders`).send({ checks: false })).body.preferences.checks).toBe(false);
+    expect(
+      (await bank.viewer.agent.patch(`/api/banks/${bank.bankId}/reminders`).send({ checks: true })).body
+        .preferences.checks,
+    ).toBe(true);
+    expect(
+      (await bank.grower.agent.patch(`/api/banks/${bank.bankId}/reminders`).send({ checks: false })).body
+        .preferences.checks,
+    ).toBe(false);
   });
   afterAll(() => ctx.close());
 
@@ -63,13 +75,18 @@ describe('e-mail reminders on the durable queue', () => {
     expect
       .poll(
         async () => {
-          const { rows } = await sql<{ n: string }>`select count(*) as n from pgboss.job where name = ${REMINDER_QUEUE} and state < 'completed'`.execute(ctx.db);
+          const { rows } = await sql<{
+            n: string;
+          }>`select count(*) as n from pgboss.job where name = ${REMINDER_QUEUE} and state < 'completed'`.execute(
+            ctx.db,
+          );
           return Number(rows[0]!.n);
         },
         { timeout: 30_000, interval: 200 },
       )
       .toBe(0);
-  const mailsAbout = async (text: string) => (await readOutbox(process.env.OUTBOX_DIR!, 1000)).filter((m) => m.subject.includes(text));
+  const mailsAbout = async (text: string) =>
+    (await readOutbox(process.env.OUTBOX_DIR!, 1000)).filter((m) => m.subject.includes(text));
 
   it('when the clock reaches a check day, then each opted-in member gets exactly one mail and the one who opted out none', async () => {
     const jobs = reminders();
@@ -93,9 +110,13 @@ describe('e-mail reminders on the durable queue', () => {
   it('when the server restarts between planning and the sowing day, then the reminder is still sent once', async () => {
     ctx.clock.set('2026-03-07T09:00:00Z');
     const petunia = await speciesId(ctx.db, 'petunia');
-    const lot = await bank.grower.agent
-      .post(`/api/banks/${bank.bankId}/lots`)
-      .send({ speciesId: petunia, variety: 'Restart', origin: 'saved', harvestDate: '2025-09-01', seedCount: 500 });
+    const lot = await bank.grower.agent.post(`/api/banks/${bank.bankId}/lots`).send({
+      speciesId: petunia,
+      variety: 'Restart',
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+      seedCount: 500,
+    });
     const entry = await bank.grower.agent
       .post(`/api/banks/${bank.bankId}/plan`)
       .send({ season: 2026, speciesId: petunia, plantsWanted: 10, start: 'indoors', lotId: lot.body.lot.id });
@@ -111,7 +132,9 @@ describe('e-mail reminders on the durable queue', () => {
     await second.start();
     try {
       expect(await second.tick()).toBe(2); // owner and grower: sowing reminders default on
-      await waitForMail((m) => m.subject.includes('Sowing time: Petunia') && m.to.includes(bank.grower.email));
+      await waitForMail(
+        (m) => m.subject.includes('Sowing time: Petunia') && m.to.includes(bank.grower.email),
+      );
       expect(await second.tick()).toBe(0);
     } finally {
       await second.stop();
@@ -141,8 +164,18 @@ describe('e-mail reminders on the durable queue', () => {
       ctx.clock.set('2026-03-15T09:00:00Z');
       expect(await jobs.tick()).toBe(2);
       // A send or two fail while nothing listens.
-      const failedRows = () => ctx.db.selectFrom('reminders').select(['attempts', 'sent_at']).where('due_on', '=', '2026-03-15').execute();
-      await expect.poll(async () => (await failedRows()).some((r) => r.attempts >= 1), { timeout: 30_000, interval: 200 }).toBe(true);
+      const failedRows = () =>
+        ctx.db
+          .selectFrom('reminders')
+          .select(['attempts', 'sent_at'])
+          .where('due_on', '=', '2026-03-15')
+          .execute();
+      await expect
+        .poll(async () => (await failedRows()).some((r) => r.attempts >= 1), {
+          timeout: 30_000,
+          interval: 200,
+        })
+        .toBe(true);
       const failed = await failedRows();
       expect(failed.every((r) => r.sent_at === null)).toBe(true);
       expect(failed.some((r) => r.attempts >= 1)).toBe(true);
@@ -164,7 +197,11 @@ describe('e-mail reminders on the durable queue', () => {
       await expect.poll(() => received.length, { timeout: 40_000, interval: 250 }).toBeGreaterThanOrEqual(2);
       await queueSettled();
       expect(received.sort()).toEqual([bank.owner.email, bank.viewer.email].sort());
-      const rows = await ctx.db.selectFrom('reminders').select('sent_at').where('due_on', '=', '2026-03-15').execute();
+      const rows = await ctx.db
+        .selectFrom('reminders')
+        .select('sent_at')
+        .where('due_on', '=', '2026-03-15')
+        .execute();
       expect(rows.every((r) => r.sent_at !== null)).toBe(true);
     } finally {
       await jobs.stop();

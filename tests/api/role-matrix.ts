@@ -6,7 +6,9 @@ import type { Role } from '../../server/db/schema';
 export interface MatrixFixture {
   bankId: string;
   /** Ids of records made fresh for each call, so a destructive route has something to act on. */
-  make(kind: 'member' | 'invitation' | 'lot' | 'plant' | 'photo' | 'species' | 'test' | 'plan'): Promise<string>;
+  make(
+    kind: 'member' | 'invitation' | 'lot' | 'plant' | 'photo' | 'species' | 'test' | 'plan',
+  ): Promise<string>;
   /** The code of the lot `make('lot')` made last. */
   lastLotCode(): string;
   /** The trays of the test `make('test')` made last. */
@@ -89,7 +91,11 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     least: 'grower',
     ok: 201,
   },
-  'GET plant': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/plants/${await f.make('plant')}`, least: 'viewer' },
+  'GET plant': {
+    method: 'get',
+    path: async (f) => `/api/banks/${f.bankId}/plants/${await f.make('plant')}`,
+    least: 'viewer',
+  },
   'PATCH plant': {
     method: 'patch',
     path: async (f) => `/api/banks/${f.bankId}/plants/${await f.make('plant')}`,
@@ -106,11 +112,21 @@ export const bankRoutes: Record<string, MatrixRoute> = {
   'POST lot': {
     method: 'post',
     path: (f) => `/api/banks/${f.bankId}/lots`,
-    body: (f) => ({ speciesId: f.tomatoId, variety: 'Matrix', origin: 'saved', harvestDate: '2025-09-01', seedCount: 10 }),
+    body: (f) => ({
+      speciesId: f.tomatoId,
+      variety: 'Matrix',
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+      seedCount: 10,
+    }),
     least: 'grower',
     ok: 201,
   },
-  'GET lot': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}`, least: 'viewer' },
+  'GET lot': {
+    method: 'get',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}`,
+    least: 'viewer',
+  },
   'PATCH lot': {
     method: 'patch',
     path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}`,
@@ -123,7 +139,11 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     least: 'grower',
     ok: 204,
   },
-  'GET stock': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/stock`, least: 'viewer' },
+  'GET stock': {
+    method: 'get',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/stock`,
+    least: 'viewer',
+  },
   'POST stock': {
     method: 'post',
     path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/stock`,
@@ -153,7 +173,11 @@ export const bankRoutes: Record<string, MatrixRoute> = {
   'POST lots import': {
     method: 'post',
     path: (f) => `/api/banks/${f.bankId}/lots/import`,
-    attach: () => ['file', Buffer.from('species,variety,origin,harvest_date,seeds_on_hand\nTomato,Matrix,saved,2025-09-01,5\n'), 'lots.csv'],
+    attach: () => [
+      'file',
+      Buffer.from('species,variety,origin,harvest_date,seeds_on_hand\nTomato,Matrix,saved,2025-09-01,5\n'),
+      'lots.csv',
+    ],
     least: 'grower',
     ok: 200,
   },
@@ -166,7 +190,9 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     },
     attach: (f) => [
       'file',
-      Buffer.from(`test,lot_code,start_date,method,tray,seeds_sown,check_date,cumulative\nm,${f.lastLotCode()},2026-02-20,paper towel,1,2,2026-02-25,1\n`),
+      Buffer.from(
+        `test,lot_code,start_date,method,tray,seeds_sown,check_date,cumulative\nm,${f.lastLotCode()},2026-02-20,paper towel,1,2,2026-02-25,1\n`,
+      ),
       'tests.csv',
     ],
     least: 'grower',
@@ -175,19 +201,36 @@ export const bankRoutes: Record<string, MatrixRoute> = {
   'POST lot test': {
     method: 'post',
     path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/tests`,
-    body: () => ({ startDate: '2026-02-20', method: 'paper towel', trays: [{ seedsSown: 2 }, { seedsSown: 2 }] }),
+    body: () => ({
+      startDate: '2026-02-20',
+      method: 'paper towel',
+      trays: [{ seedsSown: 2 }, { seedsSown: 2 }],
+    }),
     least: 'grower',
     ok: 201,
   },
-  'GET lot tests': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/tests`, least: 'viewer' },
-  'GET test': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/tests/${await f.make('test')}`, least: 'viewer' },
+  'GET lot tests': {
+    method: 'get',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/tests`,
+    least: 'viewer',
+  },
+  'GET test': {
+    method: 'get',
+    path: async (f) => `/api/banks/${f.bankId}/tests/${await f.make('test')}`,
+    least: 'viewer',
+  },
   'PATCH test': {
     method: 'patch',
     path: async (f) => `/api/banks/${f.bankId}/tests/${await f.make('test')}`,
     body: () => ({ notes: 'on the fridge top' }),
     least: 'grower',
   },
-  'DELETE test': { method: 'delete', path: async (f) => `/api/banks/${f.bankId}/tests/${await f.make('test')}`, least: 'grower', ok: 204 },
+  'DELETE test': {
+    method: 'delete',
+    path: async (f) => `/api/banks/${f.bankId}/tests/${await f.make('test')}`,
+    least: 'grower',
+    ok: 204,
+  },
   'POST counts': {
     method: 'post',
     path: async (f) => `/api/banks/${f.bankId}/tests/${await f.make('test')}/counts`,
@@ -198,7 +241,10 @@ export const bankRoutes: Record<string, MatrixRoute> = {
   'POST finish': {
     method: 'post',
     path: async (f) => `/api/banks/${f.bankId}/tests/${await f.make('test')}/finish`,
-    body: (f) => ({ date: '2026-02-25', trays: f.lastTrayIds().map((trayId) => ({ trayId, abnormal: 0, ungerminated: 2 })) }),
+    body: (f) => ({
+      date: '2026-02-25',
+      trays: f.lastTrayIds().map((trayId) => ({ trayId, abnormal: 0, ungerminated: 2 })),
+    }),
     least: 'grower',
     // A fresh test has no counts: once the role is allowed, the finish rule refuses its uncounted
     // trays (count them or set them aside) with 422.
@@ -214,14 +260,23 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     least: 'grower',
     ok: 201,
   },
-  'GET viability': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/viability`, least: 'viewer' },
+  'GET viability': {
+    method: 'get',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/viability`,
+    least: 'viewer',
+  },
   'GET seeds-to-sow': {
     method: 'get',
     path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/seeds-to-sow?plants=12`,
     least: 'viewer',
     // A fresh lot has no test yet: the answer is the species' guess, said in words (200).
   },
-  'GET lot label.svg': { method: 'get', path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/label.svg`, least: 'viewer', ok: 200 },
+  'GET lot label.svg': {
+    method: 'get',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/label.svg`,
+    least: 'viewer',
+    ok: 200,
+  },
   'GET ranking': { method: 'get', path: (f) => `/api/banks/${f.bankId}/ranking`, least: 'viewer' },
   'GET plan': { method: 'get', path: (f) => `/api/banks/${f.bankId}/plan?season=2027`, least: 'viewer' },
   'POST plan entry': {
@@ -237,7 +292,12 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     body: () => ({ plantsWanted: 5 }),
     least: 'grower',
   },
-  'DELETE plan entry': { method: 'delete', path: async (f) => `/api/banks/${f.bankId}/plan/${await f.make('plan')}`, least: 'grower', ok: 204 },
+  'DELETE plan entry': {
+    method: 'delete',
+    path: async (f) => `/api/banks/${f.bankId}/plan/${await f.make('plan')}`,
+    least: 'grower',
+    ok: 204,
+  },
   'POST plan sown': {
     method: 'post',
     path: async (f) => `/api/banks/${f.bankId}/plan/${await f.make('plan')}/sown`,
@@ -246,9 +306,18 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     // The fixture's entry has no tested lot, so nothing can be withdrawn (API.md: 422).
     ok: 422,
   },
-  'GET plan.ics': { method: 'get', path: (f) => `/api/banks/${f.bankId}/plan.ics?season=2027`, least: 'viewer' },
+  'GET plan.ics': {
+    method: 'get',
+    path: (f) => `/api/banks/${f.bankId}/plan.ics?season=2027`,
+    least: 'viewer',
+  },
   'GET reminders': { method: 'get', path: (f) => `/api/banks/${f.bankId}/reminders`, least: 'viewer' },
-  'PATCH reminders': { method: 'patch', path: (f) => `/api/banks/${f.bankId}/reminders`, body: () => ({ digest: false }), least: 'viewer' },
+  'PATCH reminders': {
+    method: 'patch',
+    path: (f) => `/api/banks/${f.bankId}/reminders`,
+    body: () => ({ digest: false }),
+    least: 'viewer',
+  },
   'GET overview': { method: 'get', path: (f) => `/api/banks/${f.bankId}/overview`, least: 'viewer' },
   'POST leave': {
     method: 'post',
@@ -259,5 +328,11 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     overrides: { owner: 409 },
     destructive: true,
   },
-  'DELETE bank': { method: 'delete', path: (f) => `/api/banks/${f.bankId}`, least: 'owner', ok: 204, destructive: true },
+  'DELETE bank': {
+    method: 'delete',
+    path: (f) => `/api/banks/${f.bankId}`,
+    least: 'owner',
+    ok: 204,
+    destructive: true,
+  },
 };

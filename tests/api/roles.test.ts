@@ -26,7 +26,9 @@ describe('the role matrix of bank routes', () => {
   let tomatoId: string;
   beforeAll(async () => {
     ctx = await createTestContext({ now: '2026-03-01T09:00:00Z' });
-    jpeg = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#7a5c3a' } }).jpeg().toBuffer();
+    jpeg = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#7a5c3a' } })
+      .jpeg()
+      .toBuffer();
     tomatoId = await speciesId(ctx.db, 'tomato');
   });
   afterAll(() => ctx.close());
@@ -46,37 +48,59 @@ describe('the role matrix of bank routes', () => {
       async make(kind) {
         const base = `/api/banks/${bank.bankId}`;
         if (kind === 'plan') {
-          const entry = await owner.post(`${base}/plan`).send({ season: 2027, speciesId: tomatoId, plantsWanted: 4, start: 'indoors' });
+          const entry = await owner
+            .post(`${base}/plan`)
+            .send({ season: 2027, speciesId: tomatoId, plantsWanted: 4, start: 'indoors' });
           return entry.body.entry.id as string;
         }
         if (kind === 'test') {
-          const lot = await owner
-            .post(`${base}/lots`)
-            .send({ speciesId: tomatoId, variety: 'Fixture', origin: 'saved', harvestDate: '2025-09-01', seedCount: 10 });
-          const test = await owner
-            .post(`${base}/lots/${lot.body.lot.id}/tests`)
-            .send({ startDate: '2026-02-20', method: 'paper towel', trays: [{ seedsSown: 2 }, { seedsSown: 2 }] });
+          const lot = await owner.post(`${base}/lots`).send({
+            speciesId: tomatoId,
+            variety: 'Fixture',
+            origin: 'saved',
+            harvestDate: '2025-09-01',
+            seedCount: 10,
+          });
+          const test = await owner.post(`${base}/lots/${lot.body.lot.id}/tests`).send({
+            startDate: '2026-02-20',
+            method: 'paper towel',
+            trays: [{ seedsSown: 2 }, { seedsSown: 2 }],
+          });
           trayIds = test.body.trays.map((t: { id: string }) => t.id);
           return test.body.test.id as string;
         }
         if (kind === 'lot' || kind === 'photo') {
-          const lot = await owner
-            .post(`${base}/lots`)
-            .send({ speciesId: tomatoId, variety: 'Fixture', origin: 'saved', harvestDate: '2025-09-01', seedCount: 10 });
+          const lot = await owner.post(`${base}/lots`).send({
+            speciesId: tomatoId,
+            variety: 'Fixture',
+            origin: 'saved',
+            harvestDate: '2025-09-01',
+            seedCount: 10,
+          });
           lotCode = lot.body.lot.code as string;
           if (kind === 'lot') return lot.body.lot.id as string;
-          const photo = await owner.post(`${base}/lots/${lot.body.lot.id}/photos`).attach('photo', jpeg, 'packet.jpg');
+          const photo = await owner
+            .post(`${base}/lots/${lot.body.lot.id}/photos`)
+            .attach('photo', jpeg, 'packet.jpg');
           return photo.body.photo.id as string;
         }
         if (kind === 'plant') {
-          return (await owner.post(`${base}/plants`).send({ speciesId: tomatoId, label: 'Fixture row' })).body.plant.id as string;
+          return (await owner.post(`${base}/plants`).send({ speciesId: tomatoId, label: 'Fixture row' })).body
+            .plant.id as string;
         }
         if (kind === 'species') {
-          return (await owner.post(`${base}/species`).send({ commonName: `F ${Math.random()}`, scientificName: 'F f' })).body.species.id as string;
+          return (
+            await owner
+              .post(`${base}/species`)
+              .send({ commonName: `F ${Math.random()}`, scientificName: 'F f' })
+          ).body.species.id as string;
         }
         if (kind === 'member') {
           const extra = await signUp(ctx.app, { name: 'Extra' });
-          await ctx.db.insertInto('memberships').values({ bank_id: bank.bankId, user_id: extra.user.id, role: 'viewer' }).execute();
+          await ctx.db
+            .insertInto('memberships')
+            .values({ bank_id: bank.bankId, user_id: extra.user.id, role: 'viewer' })
+            .execute();
           return extra.user.id;
         }
         const res = await bank.owner.agent

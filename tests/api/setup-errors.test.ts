@@ -51,7 +51,9 @@ describe('npm start with bad set-up input', () => {
     const { code, out } = await start(env);
     blocker.close();
     expect(code).not.toBe(0);
-    expect(out.trim()).toBe(`hilum: port ${env.PORT} (PORT) is already in use; stop what uses it or set PORT`);
+    expect(out.trim()).toBe(
+      `hilum: port ${env.PORT} (PORT) is already in use; stop what uses it or set PORT`,
+    );
   });
 
   it('when the data directory cannot be written, then it exits non-zero with one clear line', async () => {
@@ -59,23 +61,32 @@ describe('npm start with bad set-up input', () => {
     fs.writeFileSync(file, 'not a directory');
     const { code, out } = await start(await portsEnv(path.join(file, 'data')));
     expect(code).not.toBe(0);
-    expect(out).toMatch(/^hilum: the data directory .* cannot be written; choose another with HILUM_DATA_DIR\n$/);
+    expect(out).toMatch(
+      /^hilum: the data directory .* cannot be written; choose another with HILUM_DATA_DIR\n$/,
+    );
     expect(out).not.toMatch(/\bat .*\.m?js:\d+/);
   });
 
   const isRoot = process.getuid?.() === 0;
-  it.runIf(isRoot)('when PostgreSQL is missing and it is not run as root, then it names the command to run', async () => {
-    // As an unprivileged user, on a machine where the PostgreSQL binaries are not found.
-    const dataDir = path.join(tmp, 'nobody');
-    fs.mkdirSync(dataDir, { recursive: true });
-    fs.chownSync(dataDir, 65534, 65534);
-    const { code, out } = await start(
-      { ...(await portsEnv(dataDir)), HILUM_S3_DIR: path.join(dataDir, 's3'), HILUM_PG_BASE: '/nonexistent' },
-      'nobody',
-    );
-    expect(code).not.toBe(0);
-    expect(out.trim()).toBe(
-      'hilum: PostgreSQL server is not installed; run: sudo apt-get update && sudo apt-get install -y postgresql',
-    );
-  });
+  it.runIf(isRoot)(
+    'when PostgreSQL is missing and it is not run as root, then it names the command to run',
+    async () => {
+      // As an unprivileged user, on a machine where the PostgreSQL binaries are not found.
+      const dataDir = path.join(tmp, 'nobody');
+      fs.mkdirSync(dataDir, { recursive: true });
+      fs.chownSync(dataDir, 65534, 65534);
+      const { code, out } = await start(
+        {
+          ...(await portsEnv(dataDir)),
+          HILUM_S3_DIR: path.join(dataDir, 's3'),
+          HILUM_PG_BASE: '/nonexistent',
+        },
+        'nobody',
+      );
+      expect(code).not.toBe(0);
+      expect(out.trim()).toBe(
+        'hilum: PostgreSQL server is not installed; run: sudo apt-get update && sudo apt-get install -y postgresql',
+      );
+    },
+  );
 });

@@ -19,12 +19,19 @@ describe('CSV export and import of germination tests', () => {
   type Bank = Awaited<ReturnType<typeof bankWithRoles>>;
   const base = (b: Bank) => `/api/banks/${b.bankId}`;
   const importFile = (b: Bank, csv: string, dryRun = false) =>
-    b.grower.agent.post(`${base(b)}/tests/import${dryRun ? '?dryRun=true' : ''}`).attach('file', Buffer.from(csv), 'tests.csv');
+    b.grower.agent
+      .post(`${base(b)}/tests/import${dryRun ? '?dryRun=true' : ''}`)
+      .attach('file', Buffer.from(csv), 'tests.csv');
 
   async function lot(b: Bank, code: string, species = tomato, seedCount = 500) {
-    const res = await b.grower.agent
-      .post(`${base(b)}/lots`)
-      .send({ speciesId: species, variety: `Variety of ${code.toUpperCase()}`, origin: 'saved', harvestDate: '2025-09-01', seedCount, code });
+    const res = await b.grower.agent.post(`${base(b)}/lots`).send({
+      speciesId: species,
+      variety: `Variety of ${code.toUpperCase()}`,
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+      seedCount,
+      code,
+    });
     expect(res.status).toBe(201);
     return res.body.lot.id as string;
   }
@@ -40,7 +47,10 @@ describe('CSV export and import of germination tests', () => {
     counts: [string, number[]][],
     finish?: {
       date: string;
-      trays: ({ abnormal: number; ungerminated: number; fresh?: number; dead?: number; hard?: number } | { setAsideReason: string })[];
+      trays: (
+        | { abnormal: number; ungerminated: number; fresh?: number; dead?: number; hard?: number }
+        | { setAsideReason: string }
+      )[];
     },
   ) {
     const created = await b.grower.agent.post(`${base(b)}/lots/${lotId}/tests`).send(body);
@@ -63,8 +73,15 @@ describe('CSV export and import of germination tests', () => {
   }
 
   const testsOf = async (b: Bank) =>
-    (await ctx.db.selectFrom('germination_tests').selectAll().where('bank_id', '=', b.bankId).orderBy('start_date').orderBy('created_at').execute());
-  const stockOf = async (b: Bank, lotId: string) => (await b.viewer.agent.get(`${base(b)}/lots/${lotId}`)).body.lot.seedsOnHand as number;
+    await ctx.db
+      .selectFrom('germination_tests')
+      .selectAll()
+      .where('bank_id', '=', b.bankId)
+      .orderBy('start_date')
+      .orderBy('created_at')
+      .execute();
+  const stockOf = async (b: Bank, lotId: string) =>
+    (await b.viewer.agent.get(`${base(b)}/lots/${lotId}`)).body.lot.seedsOnHand as number;
 
   /** The export's records as header name → cell. */
   function records(csv: string) {
@@ -80,23 +97,60 @@ describe('CSV export and import of germination tests', () => {
     await test(
       b,
       tom,
-      { startDate: '2026-02-01', method: 'paper towel', temperatureC: 24, lightHours: 0, trays: [{ seedsSown: 10 }, { seedsSown: 10 }] },
+      {
+        startDate: '2026-02-01',
+        method: 'paper towel',
+        temperatureC: 24,
+        lightHours: 0,
+        trays: [{ seedsSown: 10 }, { seedsSown: 10 }],
+      },
       [
         ['2026-02-05', [3, 4]],
         ['2026-02-09', [7, 8]],
       ],
-      { date: '2026-02-10', trays: [{ abnormal: 1, ungerminated: 2 }, { abnormal: 0, ungerminated: 2, fresh: 1, dead: 1, hard: 0 }] },
+      {
+        date: '2026-02-10',
+        trays: [
+          { abnormal: 1, ungerminated: 2 },
+          { abnormal: 0, ungerminated: 2, fresh: 1, dead: 1, hard: 0 },
+        ],
+      },
     );
     // Two tests of the same lot the same day; the second is still running and not yet counted.
-    await test(b, tom, { startDate: '2026-02-20', method: 'tray of mix', trays: [{ seedsSown: 5 }] }, [['2026-02-25', [2]]]);
-    await test(b, tom, { startDate: '2026-02-20', method: 'rag doll', pretreatment: 'soak', pretreatmentDays: 1, trays: [{ seedsSown: 6 }] }, []);
+    await test(b, tom, { startDate: '2026-02-20', method: 'tray of mix', trays: [{ seedsSown: 5 }] }, [
+      ['2026-02-25', [2]],
+    ]);
+    await test(
+      b,
+      tom,
+      {
+        startDate: '2026-02-20',
+        method: 'rag doll',
+        pretreatment: 'soak',
+        pretreatmentDays: 1,
+        trays: [{ seedsSown: 6 }],
+      },
+      [],
+    );
 
     const res = await b.viewer.agent.get(`${base(b)}/tests.csv`);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     expect(res.headers['content-disposition']).toMatch(/hilum-tests\.csv/);
     const rows = records(res.text);
-    expect(rows.map((r) => [r.test, r.tray, r.seeds_sown, r.check_date, r.cumulative, r.finished_on, r.abnormal, r.ungerminated, r.fresh])).toEqual([
+    expect(
+      rows.map((r) => [
+        r.test,
+        r.tray,
+        r.seeds_sown,
+        r.check_date,
+        r.cumulative,
+        r.finished_on,
+        r.abnormal,
+        r.ungerminated,
+        r.fresh,
+      ]),
+    ).toEqual([
       ['TOM-A 2026-02-01', '1', '10', '2026-02-05', '3', '2026-02-10', '1', '2', ''],
       ['TOM-A 2026-02-01', '1', '10', '2026-02-09', '7', '2026-02-10', '1', '2', ''],
       ['TOM-A 2026-02-01', '2', '10', '2026-02-05', '4', '2026-02-10', '0', '2', '1'],
@@ -104,14 +158,24 @@ describe('CSV export and import of germination tests', () => {
       ['TOM-A 2026-02-20', '1', '5', '2026-02-25', '2', '', '', '', ''],
       ['TOM-A 2026-02-20 #2', '1', '6', '', '', '', '', '', ''],
     ]);
-    expect(rows[0]).toMatchObject({ lot_code: 'TOM-A', species: 'Tomato', variety: 'Variety of TOM-A', method: 'paper towel', temperature_c: '24', light_hours: '0', pretreatment: 'none' });
+    expect(rows[0]).toMatchObject({
+      lot_code: 'TOM-A',
+      species: 'Tomato',
+      variety: 'Variety of TOM-A',
+      method: 'paper towel',
+      temperature_c: '24',
+      light_hours: '0',
+      pretreatment: 'none',
+    });
     expect(rows[5]).toMatchObject({ method: 'rag doll', pretreatment: 'soak', pretreatment_days: '1' });
   });
 
   it('when a bank with no tests exports, then the file is just the header and imports as 0 tests', async () => {
     const b = await bankWithRoles(ctx.app, ctx.db);
     const res = await b.viewer.agent.get(`${base(b)}/tests.csv`);
-    expect(res.text.slice(1).split('\r\n').filter(Boolean)).toEqual([expect.stringMatching(/^test,lot_code,/)]);
+    expect(res.text.slice(1).split('\r\n').filter(Boolean)).toEqual([
+      expect.stringMatching(/^test,lot_code,/),
+    ]);
     const again = await importFile(b, res.text);
     expect(again.status).toBe(200);
     expect(again.body).toEqual({ imported: 0 });
@@ -127,24 +191,67 @@ describe('CSV export and import of germination tests', () => {
     await test(
       a,
       aTom,
-      { startDate: '2026-01-10', method: 'paper towel', medium: 'Kitchen paper, "unbleached", folded', temperatureC: 22.5, lightHours: 12, notes: '=on the fridge top', trays: [{ seedsSown: 25 }, { seedsSown: 25 }, { seedsSown: 25 }, { seedsSown: 25 }] },
+      {
+        startDate: '2026-01-10',
+        method: 'paper towel',
+        medium: 'Kitchen paper, "unbleached", folded',
+        temperatureC: 22.5,
+        lightHours: 12,
+        notes: '=on the fridge top',
+        trays: [{ seedsSown: 25 }, { seedsSown: 25 }, { seedsSown: 25 }, { seedsSown: 25 }],
+      },
       [
         ['2026-01-14', [5, 8, 3, 6]],
         ['2026-01-17', [15, 17, 14, 16]],
         ['2026-01-24', [20, 22, 19, 21]],
       ],
-      { date: '2026-01-24', trays: [{ abnormal: 1, ungerminated: 4 }, { abnormal: 0, ungerminated: 3 }, { abnormal: 2, ungerminated: 4 }, { abnormal: 1, ungerminated: 3 }] },
+      {
+        date: '2026-01-24',
+        trays: [
+          { abnormal: 1, ungerminated: 4 },
+          { abnormal: 0, ungerminated: 3 },
+          { abnormal: 2, ungerminated: 4 },
+          { abnormal: 1, ungerminated: 3 },
+        ],
+      },
     );
-    await test(a, aMar, { startDate: '2026-02-15', method: 'soil block', pretreatment: 'cold-stratification', pretreatmentDays: 14, trays: [{ seedsSown: 20 }, { seedsSown: 20 }] }, [['2026-02-22', [9, 0]]]);
+    await test(
+      a,
+      aMar,
+      {
+        startDate: '2026-02-15',
+        method: 'soil block',
+        pretreatment: 'cold-stratification',
+        pretreatmentDays: 14,
+        trays: [{ seedsSown: 20 }, { seedsSown: 20 }],
+      },
+      [['2026-02-22', [9, 0]]],
+    );
     await test(a, aMar, { startDate: '2026-02-15', method: 'petri dish', trays: [{ seedsSown: 8 }] }, []);
 
     const csv = (await a.viewer.agent.get(`${base(a)}/tests.csv`)).text;
     const preview = await importFile(b, csv, true);
     expect(preview.status).toBe(200);
     expect(preview.body.preview).toEqual([
-      expect.objectContaining({ line: 2, test: 'MAR-RT 2026-02-15', lotCode: 'MAR-RT', trays: 2, seedsSown: 40, checkDays: 1, finishedOn: null }),
+      expect.objectContaining({
+        line: 2,
+        test: 'MAR-RT 2026-02-15',
+        lotCode: 'MAR-RT',
+        trays: 2,
+        seedsSown: 40,
+        checkDays: 1,
+        finishedOn: null,
+      }),
       expect.objectContaining({ test: 'MAR-RT 2026-02-15 #2', trays: 1, seedsSown: 8, checkDays: 0 }),
-      expect.objectContaining({ test: 'TOM-RT 2026-01-10', lotCode: 'tom-rt', species: 'Tomato', trays: 4, seedsSown: 100, checkDays: 3, finishedOn: '2026-01-24' }),
+      expect.objectContaining({
+        test: 'TOM-RT 2026-01-10',
+        lotCode: 'tom-rt',
+        species: 'Tomato',
+        trays: 4,
+        seedsSown: 100,
+        checkDays: 3,
+        finishedOn: '2026-01-24',
+      }),
     ]);
     expect(await testsOf(b)).toHaveLength(0);
 
@@ -155,7 +262,8 @@ describe('CSV export and import of germination tests', () => {
 
     const detailsOf = async (bank: Bank) => {
       const details = [];
-      for (const t of await testsOf(bank)) details.push((await bank.viewer.agent.get(`${base(bank)}/tests/${t.id}`)).body);
+      for (const t of await testsOf(bank))
+        details.push((await bank.viewer.agent.get(`${base(bank)}/tests/${t.id}`)).body);
       return details.map((d) => {
         // What each test took from its lot's stock differs on purpose: see seedsTaken below.
         const { id: _i, lotId: _l, lotCode: _c, createdAt: _ca, seedsTaken: _s, ...test } = d.test;
@@ -166,8 +274,14 @@ describe('CSV export and import of germination tests', () => {
           // Counts of one day come in no particular tray order.
           counts: d.counts
             .map((c: { trayId: string; date: string }) => ({ ...c, trayId: trayIds.indexOf(c.trayId) }))
-            .sort((x: { date: string; trayId: number }, y: { date: string; trayId: number }) => x.date.localeCompare(y.date) || x.trayId - y.trayId),
-          result: { ...d.result, trayPercents: d.result.trayPercents.map(({ id: _id, ...t }: { id: string }) => t) },
+            .sort(
+              (x: { date: string; trayId: number }, y: { date: string; trayId: number }) =>
+                x.date.localeCompare(y.date) || x.trayId - y.trayId,
+            ),
+          result: {
+            ...d.result,
+            trayPercents: d.result.trayPercents.map(({ id: _id, ...t }: { id: string }) => t),
+          },
         };
       });
     };
@@ -178,7 +292,8 @@ describe('CSV export and import of germination tests', () => {
     // say so, so deleting one gives nothing back.
     const taken = async (bank: Bank) => {
       const out = [];
-      for (const t of await testsOf(bank)) out.push((await bank.viewer.agent.get(`${base(bank)}/tests/${t.id}`)).body.test.seedsTaken as number);
+      for (const t of await testsOf(bank))
+        out.push((await bank.viewer.agent.get(`${base(bank)}/tests/${t.id}`)).body.test.seedsTaken as number);
       return out.sort((x, y) => x - y);
     };
     expect(await taken(a)).toEqual([8, 40, 100]);
@@ -199,7 +314,12 @@ describe('CSV export and import of germination tests', () => {
 
     const fourTrays = (seedsSown: number) => [{ seedsSown }, { seedsSown }, { seedsSown }, { seedsSown }];
     // Running: 4 trays of 100, only trays 1 and 2 counted so far (80 and 90 normal seedlings).
-    const runId = await test(a, runLot, { startDate: '2026-02-01', method: 'paper towel', trays: fourTrays(100) }, [['2026-02-08', [80, 90]]]);
+    const runId = await test(
+      a,
+      runLot,
+      { startDate: '2026-02-01', method: 'paper towel', trays: fourTrays(100) },
+      [['2026-02-08', [80, 90]]],
+    );
     // Finished: 4 trays of 25; tray 4 was counted once, then spilled and set aside at the finish.
     const finId = await test(
       a,
@@ -209,21 +329,35 @@ describe('CSV export and import of germination tests', () => {
         ['2026-01-14', [5, 8, 3, 6]],
         ['2026-01-24', [20, 22, 19]],
       ],
-      { date: '2026-01-24', trays: [{ abnormal: 1, ungerminated: 4 }, { abnormal: 0, ungerminated: 3 }, { abnormal: 2, ungerminated: 4 }, { setAsideReason: 'Spilled' }] },
+      {
+        date: '2026-01-24',
+        trays: [
+          { abnormal: 1, ungerminated: 4 },
+          { abnormal: 0, ungerminated: 3 },
+          { abnormal: 2, ungerminated: 4 },
+          { setAsideReason: 'Spilled' },
+        ],
+      },
     );
 
     const csv = (await a.viewer.agent.get(`${base(a)}/tests.csv`)).text;
     const rows = records(csv);
-    const percentOf = (code: string) => [...new Set(rows.filter((r) => r.lot_code === code).map((r) => r.germination_percent))];
+    const percentOf = (code: string) => [
+      ...new Set(rows.filter((r) => r.lot_code === code).map((r) => r.germination_percent)),
+    ];
     // Pooled over the trays in the figures, rounded to the nearest whole percent as the seed-testing
     // rules report a result (ISTA Rules, ch. 5, read; see ../shared/REFERENCES.md), by hand:
     // (80 + 90) / 200 = 85%; (20 + 22 + 19) / 75 = 81.3% → 81%, tray 4 left out.
     expect(percentOf('RUN-P')).toEqual(['85']);
     expect(percentOf('FIN-S')).toEqual(['81']);
-    expect(rows.filter((r) => r.lot_code === 'FIN-S' && r.tray === '4').map((r) => [r.check_date, r.cumulative, r.set_aside_reason, r.abnormal, r.ungerminated])).toEqual([
-      ['2026-01-14', '6', 'Spilled', '', ''],
-    ]);
-    expect(rows.filter((r) => r.lot_code === 'RUN-P').map((r) => [r.tray, r.cumulative, r.set_aside_reason])).toEqual([
+    expect(
+      rows
+        .filter((r) => r.lot_code === 'FIN-S' && r.tray === '4')
+        .map((r) => [r.check_date, r.cumulative, r.set_aside_reason, r.abnormal, r.ungerminated]),
+    ).toEqual([['2026-01-14', '6', 'Spilled', '', '']]);
+    expect(
+      rows.filter((r) => r.lot_code === 'RUN-P').map((r) => [r.tray, r.cumulative, r.set_aside_reason]),
+    ).toEqual([
       ['1', '80', ''],
       ['2', '90', ''],
       ['3', '', ''],
@@ -231,8 +365,12 @@ describe('CSV export and import of germination tests', () => {
     ]);
 
     // The same figure as the test page and the ranking.
-    const page = async (bank: Bank, testId: string) => (await bank.viewer.agent.get(`${base(bank)}/tests/${testId}`)).body;
-    const ranking = (await a.viewer.agent.get(`${base(a)}/ranking?on=2026-03-01`)).body.items as { lotId: string; lastPercent: number | null }[];
+    const page = async (bank: Bank, testId: string) =>
+      (await bank.viewer.agent.get(`${base(bank)}/tests/${testId}`)).body;
+    const ranking = (await a.viewer.agent.get(`${base(a)}/ranking?on=2026-03-01`)).body.items as {
+      lotId: string;
+      lastPercent: number | null;
+    }[];
     const lastPercent = (lotId: string) => ranking.find((i) => i.lotId === lotId)!.lastPercent!;
     for (const [code, testId, lotId] of [
       ['RUN-P', runId, runLot],
@@ -249,11 +387,18 @@ describe('CSV export and import of germination tests', () => {
     expect(imported.body).toEqual({ imported: 2 });
     const copies = await testsOf(b);
     const originals = await testsOf(a);
-    expect(copies.map((t) => [t.start_date, t.status, t.result_percent])).toEqual(originals.map((t) => [t.start_date, t.status, t.result_percent]));
+    expect(copies.map((t) => [t.start_date, t.status, t.result_percent])).toEqual(
+      originals.map((t) => [t.start_date, t.status, t.result_percent]),
+    );
     const copyOfFin = copies.find((t) => t.start_date === '2026-01-10')!;
     const copyPage = await page(b, copyOfFin.id);
     expect(copyPage.result.percentRounded).toBe(81);
-    expect(copyPage.trays.map((t: { setAsideReason: string | null }) => t.setAsideReason)).toEqual([null, null, null, 'Spilled']);
+    expect(copyPage.trays.map((t: { setAsideReason: string | null }) => t.setAsideReason)).toEqual([
+      null,
+      null,
+      null,
+      'Spilled',
+    ]);
     expect((await b.viewer.agent.get(`${base(b)}/tests.csv`)).text).toEqual(csv);
   });
 
@@ -299,7 +444,12 @@ describe('CSV export and import of germination tests', () => {
     expect(rows[3]!.message).toMatch(/no lot with the code "ELSE-1"/);
     expect(rows[5]!.message).toMatch(/after today \(2026-03-01/);
     expect(await testsOf(b)).toHaveLength(0);
-    const trays = await ctx.db.selectFrom('test_trays').innerJoin('germination_tests', 'germination_tests.id', 'test_trays.test_id').select('test_trays.id').where('bank_id', '=', b.bankId).execute();
+    const trays = await ctx.db
+      .selectFrom('test_trays')
+      .innerJoin('germination_tests', 'germination_tests.id', 'test_trays.test_id')
+      .select('test_trays.id')
+      .where('bank_id', '=', b.bankId)
+      .execute();
     expect(trays).toHaveLength(0);
   });
 
@@ -308,7 +458,11 @@ describe('CSV export and import of germination tests', () => {
     await lot(b, 'TOM-V');
     const res = await b.viewer.agent
       .post(`${base(b)}/tests/import`)
-      .attach('file', Buffer.from('test,lot_code,start_date,method,tray,seeds_sown\nv,TOM-V,2026-02-01,paper towel,1,10\n'), 'tests.csv');
+      .attach(
+        'file',
+        Buffer.from('test,lot_code,start_date,method,tray,seeds_sown\nv,TOM-V,2026-02-01,paper towel,1,10\n'),
+        'tests.csv',
+      );
     expect(res.status).toBe(403);
     expect(await testsOf(b)).toHaveLength(0);
   });
@@ -323,7 +477,9 @@ describe('CSV export and import of germination tests', () => {
       'spring check,TOM-H,2026-02-01,paper towel,2,20,2026-02-12,16,2026-02-12,2,2',
       'running,TOM-H,2026-02-25,petri dish,1,30,,,,,',
     ].join('\n');
-    const res = await b.owner.agent.post(`${base(b)}/tests/import`).attach('file', Buffer.from(csv), 'tests.csv');
+    const res = await b.owner.agent
+      .post(`${base(b)}/tests/import`)
+      .attach('file', Buffer.from(csv), 'tests.csv');
     expect(res.status).toBe(200);
     expect(res.body).toEqual({ imported: 2 });
     const saved = await testsOf(b);
@@ -334,7 +490,9 @@ describe('CSV export and import of germination tests', () => {
     const detail = (await b.viewer.agent.get(`${base(b)}/tests/${saved[0]!.id}`)).body;
     expect(detail.result.germinated).toBe(34);
     expect(detail.result.percent).toBeCloseTo(85, 10); // 34 of 40 seeds
-    expect(detail.trays.map((t: { abnormal: number; ungerminated: number }) => [t.abnormal, t.ungerminated])).toEqual([
+    expect(
+      detail.trays.map((t: { abnormal: number; ungerminated: number }) => [t.abnormal, t.ungerminated]),
+    ).toEqual([
       [1, 1],
       [2, 2],
     ]);

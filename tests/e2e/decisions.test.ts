@@ -1,7 +1,12 @@
 import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { beforeAll, describe, expect } from 'vitest';
-import type { RankingItem, RecommendationValue, SeedsToSowResponse, ViabilityResponse } from '../../shared/schemas/viability';
+import type {
+  RankingItem,
+  RecommendationValue,
+  SeedsToSowResponse,
+  ViabilityResponse,
+} from '../../shared/schemas/viability';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/seed-demo';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests, seriousViolations } from '../helpers/journey';
@@ -39,7 +44,9 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
 
   beforeAll(async () => {
     api = request.agent(suite.server.app);
-    expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
+    expect(
+      (await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status,
+    ).toBe(200);
     // One lot more, of a species the demo season does not hold (so no demo lot's fit moves): fresh
     // from harvest it came up 30 of 100, a year later 95 of 100 — the earlier test was held back
     // (dormancy, or conditions), the case the issue names (invented figures).
@@ -71,8 +78,12 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
           .execute()
       ).map((r) => [r.lot_id, Number(r.n)]),
     );
-    pick.sow = ranking.find((i) => i.recommendation === 'sow' && i.seedsOnHand > 100 && (testCounts.get(i.lotId) ?? 0) >= 2);
-    pick.retire = ranking.find((i) => i.recommendation === 'retire' && i.seedsOnHand > 0 && i.projectedHigh !== null);
+    pick.sow = ranking.find(
+      (i) => i.recommendation === 'sow' && i.seedsOnHand > 100 && (testCounts.get(i.lotId) ?? 0) >= 2,
+    );
+    pick.retire = ranking.find(
+      (i) => i.recommendation === 'retire' && i.seedsOnHand > 0 && i.projectedHigh !== null,
+    );
     pick.guess = ranking.find((i) => i.recommendation === 'test-first' && i.lastTestDate === null);
     expect(pick.sow && pick.retire && pick.guess).toBeTruthy();
   });
@@ -82,13 +93,19 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
     expect(res.status).toBe(200);
     return res.body as ViabilityResponse;
   };
-  const rowCodes = (page: Page) => page.locator('tbody tr[data-lot]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-lot')));
+  const rowCodes = (page: Page) =>
+    page.locator('tbody tr[data-lot]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-lot')));
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
-  const newContext = (viewport: { width: number; height: number }, phone = false) => async () => {
-    const context = await suite.browser.newContext({ viewport, ...(phone ? { hasTouch: true, isMobile: true } : {}) });
-    await context.clock.setFixedTime(new Date(NOW));
-    return context;
-  };
+  const newContext =
+    (viewport: { width: number; height: number }, phone = false) =>
+    async () => {
+      const context = await suite.browser.newContext({
+        viewport,
+        ...(phone ? { hasTouch: true, isMobile: true } : {}),
+      });
+      await context.clock.setFixedTime(new Date(NOW));
+      return context;
+    };
   const signIn = (page: Page) => signInAt(page, suite.server.baseUrl, grower.email, suite.bankId);
 
   /** The lot page's advice, band, seeds to sow and storage advice, read against the server's answers. */
@@ -113,10 +130,13 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
     expect(v.storageAdvice.map((a) => a.place)).toEqual(['room', 'fridge', 'freezer']);
     for (const a of v.storageAdvice) {
       // Each line starts with a capital; compared in lower case.
-      const line = (await storage.locator(`[data-place="${a.current ? 'current' : a.place}"]`).innerText()).toLowerCase();
+      const line = (
+        await storage.locator(`[data-place="${a.current ? 'current' : a.place}"]`).innerText()
+      ).toLowerCase();
       expect(line).toContain(a.label.toLowerCase());
       if (a.yearsToThreshold === null) expect(line).toContain('more than 100 years');
-      else if (a.yearsToThreshold === 0) expect(line).toContain(`already at or below ${Math.round(v.threshold)}%`);
+      else if (a.yearsToThreshold === 0)
+        expect(line).toContain(`already at or below ${Math.round(v.threshold)}%`);
       else {
         expect(line).toContain(`until it falls to ${Math.round(v.threshold)}%`);
         const [, figure, unit] = /about ([\d.]+) (years?|months?)/.exec(line) ?? [];
@@ -131,7 +151,9 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
   /** Seeds to sow on the page equal the server's count for 12 plants at the bank's assurance (90%). */
   async function checkSeedsToSow(page: Page, item: RankingItem) {
     await expect.poll(() => page.getByTestId('seeds-to-sow').innerText()).toMatch(/^sow \d+ seeds$/);
-    const res = await api.get(`/api/banks/${suite.bankId}/lots/${item.lotId}/seeds-to-sow?plants=12&assurance=0.9&on=${ON}`);
+    const res = await api.get(
+      `/api/banks/${suite.bankId}/lots/${item.lotId}/seeds-to-sow?plants=12&assurance=0.9&on=${ON}`,
+    );
     expect(res.status).toBe(200);
     const s = res.body as SeedsToSowResponse;
     expect(Number((await page.getByTestId('seeds-to-sow').innerText()).replace(/\D/g, ''))).toBe(s.seeds);
@@ -140,7 +162,9 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
   }
 
   describe('on a desktop, as a grower', () => {
-    const j = journeyOfTests('decisions-desktop', newContext(DESKTOP), { first: { title: 'sign in', run: signIn } });
+    const j = journeyOfTests('decisions-desktop', newContext(DESKTOP), {
+      first: { title: 'sign in', run: signIn },
+    });
 
     j.step('the ranking shows all six decisions', async (page) => {
       // The demo season holds every decision (the server's own ranking says so)…
@@ -150,11 +174,15 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
       for (const value of Object.keys(LABELS) as RecommendationValue[]) {
         const codes = ranking.filter((i) => i.recommendation === value).map((i) => i.code);
         await page.getByRole('combobox', { name: 'Advice' }).selectOption(value);
-        await expect.poll(() => page.getByText(/projected to/).innerText()).toContain(`${codes.length} of ${ranking.length} lots`);
+        await expect
+          .poll(() => page.getByText(/projected to/).innerText())
+          .toContain(`${codes.length} of ${ranking.length} lots`);
         const shown = await rowCodes(page);
         expect(shown.length).toBeGreaterThan(0);
         expect(codes).toEqual(expect.arrayContaining(shown));
-        const firstBadge = page.locator(`tr[data-lot="${shown[0]}"]`).getByRole('button', { name: new RegExp(`^${LABELS[value]}`) });
+        const firstBadge = page
+          .locator(`tr[data-lot="${shown[0]}"]`)
+          .getByRole('button', { name: new RegExp(`^${LABELS[value]}`) });
         expect(await firstBadge.count()).toBe(1);
       }
       await page.getByRole('combobox', { name: 'Advice' }).selectOption('');
@@ -171,7 +199,9 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
       // The decline chart: this lot's tests as dots, with the key beside it.
       const chart = page.locator('figure[data-chart="decline"] svg.recharts-surface');
       await chart.waitFor();
-      expect(await page.getByRole('list', { name: 'Key to the chart' }).innerText()).toContain('Test, with its 95% interval');
+      expect(await page.getByRole('list', { name: 'Key to the chart' }).innerText()).toContain(
+        'Test, with its 95% interval',
+      );
       expect(await seriousViolations(page)).toEqual([]);
     });
 
@@ -182,7 +212,9 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
       const s = await checkSeedsToSow(page, item);
       expect(s.estimateOnly).toBe(true);
       expect(s.explanation).toMatch(/^Not tested — this is a guess/);
-      expect(await page.locator('#lot-storage').innerText()).toContain('a guess, as the lot is not tested yet');
+      expect(await page.locator('#lot-storage').innerText()).toContain(
+        'a guess, as the lot is not tested yet',
+      );
     });
 
     j.step('a lot to retire: no seeds to sow and no plan entry, and why', async (page) => {
@@ -193,21 +225,30 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
       expect(await page.getByTestId('seeds-to-sow').count()).toBe(0);
       expect(await page.getByRole('button', { name: /Add to the/ }).count()).toBe(0);
       // The server agrees: a lot to retire has no seeds to sow (422).
-      expect((await api.get(`/api/banks/${suite.bankId}/lots/${item.lotId}/seeds-to-sow?plants=12&on=${ON}`)).status).toBe(422);
+      expect(
+        (await api.get(`/api/banks/${suite.bankId}/lots/${item.lotId}/seeds-to-sow?plants=12&on=${ON}`))
+          .status,
+      ).toBe(422);
     });
 
     j.step('a lot whose first test was held back: marked apart on the chart, with its key', async (page) => {
       const v = await viability(heldBackLot);
       expect(v.points.map((p) => p.heldBack)).toEqual([true, false]);
       await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${heldBackLot}`);
-      await expect.poll(() => page.getByRole('list', { name: 'Key to the chart' }).innerText()).toContain('Held back');
+      await expect
+        .poll(() => page.getByRole('list', { name: 'Key to the chart' }).innerText())
+        .toContain('Held back');
       const tests = page.getByRole('list', { name: 'Tests in the chart' });
       expect(await tests.locator('li[data-held-back]').innerText()).toContain('30% (30 of 100');
-      expect(await tests.locator('li[data-held-back]').innerText()).toContain('held back by dormancy or conditions');
+      expect(await tests.locator('li[data-held-back]').innerText()).toContain(
+        'held back by dormancy or conditions',
+      );
       // Two marks in the chart: the held-back test (a hollow diamond) and the later one (a dot).
       const chart = page.locator('figure[data-chart="decline"] svg.recharts-surface');
       await expect.poll(() => chart.locator('.recharts-scatter-symbol').count()).toBe(2);
-      expect(await page.locator('#lot-viability').innerText()).toContain('held back by dormancy or by conditions');
+      expect(await page.locator('#lot-viability').innerText()).toContain(
+        'held back by dormancy or by conditions',
+      );
     });
 
     j.step('set a test aside from its page', async (page) => {
@@ -222,8 +263,12 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
       await expect.poll(() => dialog.innerText()).toContain('Say why the test is set aside');
       await dialog.getByRole('button', { name: 'Mouldy towel' }).click();
       await dialog.getByRole('button', { name: 'Set the test aside' }).click();
-      await expect.poll(() => page.getByTestId('test-set-aside').innerText()).toContain('Set aside: Mouldy towel');
-      expect(await page.getByTestId('test-set-aside-status').innerText()).toContain('left out of the lot’s decline');
+      await expect
+        .poll(() => page.getByTestId('test-set-aside').innerText())
+        .toContain('Set aside: Mouldy towel');
+      expect(await page.getByTestId('test-set-aside-status').innerText()).toContain(
+        'left out of the lot’s decline',
+      );
       const after = await viability(item.lotId);
       expect(after.setAside).toEqual([expect.objectContaining({ testId, reason: 'Mouldy towel' })]);
       expect(after.points.map((p) => p.testId)).not.toContain(testId);
@@ -232,11 +277,17 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
     j.step('the lot page shows the test set aside, apart from the decline', async (page) => {
       const item = pick.sow!;
       await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${item.lotId}`);
-      await expect.poll(() => page.getByRole('list', { name: 'Tests set aside' }).innerText()).toContain('Mouldy towel');
-      await expect.poll(() => page.getByRole('list', { name: 'Key to the chart' }).innerText()).toContain('Set aside: left out of the decline');
+      await expect
+        .poll(() => page.getByRole('list', { name: 'Tests set aside' }).innerText())
+        .toContain('Mouldy towel');
+      await expect
+        .poll(() => page.getByRole('list', { name: 'Key to the chart' }).innerText())
+        .toContain('Set aside: left out of the decline');
       // The set-aside test is drawn as its own mark (a cross) beside the tests in the model.
       const chart = page.locator('figure[data-chart="decline"] svg.recharts-surface');
-      await expect.poll(() => chart.locator('.recharts-scatter-symbol').count()).toBe((await viability(item.lotId)).points.length + 1);
+      await expect
+        .poll(() => chart.locator('.recharts-scatter-symbol').count())
+        .toBe((await viability(item.lotId)).points.length + 1);
     });
 
     j.step('take the test back', async (page) => {
@@ -254,7 +305,9 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
   });
 
   describe('on a phone', () => {
-    const j = journeyOfTests('decisions-phone', newContext(PHONE, true), { first: { title: 'sign in', run: signIn } });
+    const j = journeyOfTests('decisions-phone', newContext(PHONE, true), {
+      first: { title: 'sign in', run: signIn },
+    });
 
     j.step('the ranking cards show all six decisions', async (page) => {
       for (const value of Object.keys(LABELS) as RecommendationValue[]) {
@@ -263,7 +316,12 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
         await expect.poll(() => cards.count()).toBeGreaterThan(0);
         const codes = ranking.filter((i) => i.recommendation === value).map((i) => i.code);
         expect(codes).toContain(await cards.first().getAttribute('data-lot'));
-        expect(await cards.first().getByRole('button', { name: new RegExp(`^${LABELS[value]}`) }).count()).toBe(1);
+        expect(
+          await cards
+            .first()
+            .getByRole('button', { name: new RegExp(`^${LABELS[value]}`) })
+            .count(),
+        ).toBe(1);
       }
       expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
     });

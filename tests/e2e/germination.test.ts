@@ -35,9 +35,13 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
   beforeAll(async () => {
     // The lot and a 4-tray test, through the API as the grower.
     const api = request.agent(suite.server.app);
-    expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
+    expect(
+      (await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status,
+    ).toBe(200);
     const species = await api.get(`/api/banks/${suite.bankId}/species`);
-    const tomato = (species.body.items as { id: string; commonName: string }[]).find((s) => /^tomato$/i.test(s.commonName));
+    const tomato = (species.body.items as { id: string; commonName: string }[]).find((s) =>
+      /^tomato$/i.test(s.commonName),
+    );
     expect(tomato).toBeDefined();
     const lot = await api.post(`/api/banks/${suite.bankId}/lots`).send({
       speciesId: tomato!.id,
@@ -61,7 +65,8 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
   const signIn = (page: Page, email: string) => signInAt(page, suite.server.baseUrl, email, suite.bankId);
 
   const percentText = (page: Page) => page.locator('[data-result="percent"]').innerText();
-  const curvePaths = (page: Page) => page.locator('[data-chart="germination-curve"] path.recharts-line-curve').count();
+  const curvePaths = (page: Page) =>
+    page.locator('[data-chart="germination-curve"] path.recharts-line-curve').count();
   const trayField = (page: Page, n: number) => page.getByRole('textbox', { name: `Tray ${n} · 25 sown` });
 
   /** Sets the check date, waits for the rows of that date to replace the old ones, types the counts. */
@@ -69,15 +74,20 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
     await page.getByLabel('Check date').fill(date);
     await page.getByRole('button', { name: `Save counts for ${dayLabel}` }).waitFor();
     for (const [i, value] of values.entries()) await trayField(page, i + 1).fill(String(value));
-    for (const [i, value] of values.entries()) expect(await trayField(page, i + 1).inputValue()).toBe(String(value));
+    for (const [i, value] of values.entries())
+      expect(await trayField(page, i + 1).inputValue()).toBe(String(value));
   }
 
   // One test per step on a page shared by the block: the whole journey in one test ran near the 60 s
   // timeout on a busy machine.
   describe('when a grower enters two check days on a phone, then the result panel and the curve follow the counts', () => {
-    const j = journeyOfTests('germination-phone', () => suite.browser.newContext({ viewport: PHONE, hasTouch: true }), {
-      first: { title: 'sign in as a grower', run: (page) => signIn(page, grower.email) },
-    });
+    const j = journeyOfTests(
+      'germination-phone',
+      () => suite.browser.newContext({ viewport: PHONE, hasTouch: true }),
+      {
+        first: { title: 'sign in as a grower', run: (page) => signIn(page, grower.email) },
+      },
+    );
     // The pooled curve after the first check day, for the second to change.
     let firstCurve: string | null = null;
 
@@ -99,12 +109,17 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
       for (let i = 0; i < 3; i += 1) await plus.tap();
       expect(await trayField(page, 1).inputValue()).toBe('10');
       await page.getByRole('button', { name: 'Save counts for Tue 10 Mar' }).tap();
-      await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved the counts of' }).count()).toBe(1);
+      await expect
+        .poll(() => page.getByRole('status').filter({ hasText: 'Saved the counts of' }).count())
+        .toBe(1);
       // 10 + 12 + 9 + 11 = 42 of 100 sown → 42%, reported as a whole number (ISTA Rules ch. 5).
       await expect.poll(() => percentText(page)).toBe('42%');
       // Four trays and the pooled line.
       await expect.poll(() => curvePaths(page)).toBe(5);
-      firstCurve = await page.locator('[data-chart="germination-curve"] path.recharts-line-curve').last().getAttribute('d');
+      firstCurve = await page
+        .locator('[data-chart="germination-curve"] path.recharts-line-curve')
+        .last()
+        .getAttribute('d');
     });
 
     j.step('counts below earlier ones refused by their trays', async (page) => {
@@ -114,11 +129,21 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
       await page.getByRole('button', { name: /^Save counts for/ }).tap();
       const tray2 = page.locator('li[data-tray="2"]');
       const tray3 = page.locator('li[data-tray="3"]');
-      await expect.poll(() => tray2.getByRole('alert').innerText()).toMatch(/^Tray 2: 10 is fewer than the 12 counted on 2026-03-10/);
-      expect(await tray3.getByRole('alert').innerText()).toMatch(/^Tray 3: 8 is fewer than the 9 counted on 2026-03-10/);
+      await expect
+        .poll(() => tray2.getByRole('alert').innerText())
+        .toMatch(/^Tray 2: 10 is fewer than the 12 counted on 2026-03-10/);
+      expect(await tray3.getByRole('alert').innerText()).toMatch(
+        /^Tray 3: 8 is fewer than the 9 counted on 2026-03-10/,
+      );
       expect(await tray2.getByRole('alert').innerText()).not.toContain('Tray 3');
-      for (const n of [1, 4]) expect(await page.locator(`li[data-tray="${n}"]`).getByRole('alert').count()).toBe(0);
-      expect(await page.getByRole('alert').filter({ hasText: 'Not saved: check the 2 trays marked below.' }).count()).toBe(1);
+      for (const n of [1, 4])
+        expect(await page.locator(`li[data-tray="${n}"]`).getByRole('alert').count()).toBe(0);
+      expect(
+        await page
+          .getByRole('alert')
+          .filter({ hasText: 'Not saved: check the 2 trays marked below.' })
+          .count(),
+      ).toBe(1);
     });
 
     j.step('typed numbers survive a reload', async (page) => {
@@ -126,7 +151,8 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
       await trayField(page, 2).fill('22');
       await page.reload();
       await trayField(page, 2).waitFor();
-      for (const [i, value] of ['20', '22', '19', '21'].entries()) expect(await trayField(page, i + 1).inputValue()).toBe(value);
+      for (const [i, value] of ['20', '22', '19', '21'].entries())
+        expect(await trayField(page, i + 1).inputValue()).toBe(value);
       await expect.poll(() => page.getByRole('status').filter({ hasText: 'not saved yet' }).count()).toBe(1);
     });
 
@@ -136,12 +162,16 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
       await page.route(countsUrl, (route) => route.abort('internetdisconnected'));
       await page.getByRole('button', { name: /^Save counts for/ }).tap();
       await expect
-        .poll(() => page.getByRole('status').filter({ hasText: 'Not saved yet — will keep your numbers' }).count())
+        .poll(() =>
+          page.getByRole('status').filter({ hasText: 'Not saved yet — will keep your numbers' }).count(),
+        )
         .toBe(1);
       expect(await trayField(page, 2).inputValue()).toBe('22');
       await page.unroute(countsUrl);
       await page.getByRole('button', { name: 'Save again' }).tap();
-      await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved the counts of' }).count()).toBe(1);
+      await expect
+        .poll(() => page.getByRole('status').filter({ hasText: 'Saved the counts of' }).count())
+        .toBe(1);
     });
 
     j.step('the result and the curve follow', async (page) => {
@@ -158,7 +188,12 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
         .poll(() => page.getByRole('list', { name: 'What the result means' }).innerText())
         .toContain('About 82% so far — 82 normal seedlings');
       await expect.poll(() => curvePaths(page)).toBe(5);
-      expect(await page.locator('[data-chart="germination-curve"] path.recharts-line-curve').last().getAttribute('d')).not.toBe(firstCurve);
+      expect(
+        await page
+          .locator('[data-chart="germination-curve"] path.recharts-line-curve')
+          .last()
+          .getAttribute('d'),
+      ).not.toBe(firstCurve);
       await expect.poll(() => page.locator('tr[data-count-date]').count()).toBe(2);
 
       // The server holds what the page shows.
@@ -169,7 +204,9 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
         .where('tray_id', 'in', trayIds)
         .execute();
       expect(trayIds.map((id) => saved.find((r) => r.tray_id === id)?.cumulative)).toEqual([20, 22, 19, 21]);
-      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(
+        PHONE.width,
+      );
     });
   });
 
@@ -196,18 +233,30 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
     const tray1 = dialog.getByRole('listitem').filter({ hasText: 'Tray 1 · 25 sown' });
     await tray1.getByLabel('Abnormal').fill('2');
     // Normal + abnormal + ungerminated = seeds sown (REFERENCES.md: the fractions make 100%, from memory).
-    await expect.poll(() => tray1.locator('[data-tray-sum]').innerText()).toBe('20 normal + 2 abnormal + 3 ungerminated = 25 ✓ matches the 25 sown');
+    await expect
+      .poll(() => tray1.locator('[data-tray-sum]').innerText())
+      .toBe('20 normal + 2 abnormal + 3 ungerminated = 25 ✓ matches the 25 sown');
     await tray1.getByLabel('Ungerminated').fill('4');
     await expect.poll(() => tray1.locator('[data-tray-sum]').innerText()).toContain('= 26 — should be 25');
     await tray1.getByLabel('Ungerminated').fill('3');
     await dialog.getByRole('button', { name: 'Finish the test' }).click();
-    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Finished on 14 Mar 2026' }).count()).toBe(1);
+    await expect
+      .poll(() => page.getByRole('status').filter({ hasText: 'Finished on 14 Mar 2026' }).count())
+      .toBe(1);
     expect(await page.getByLabel('Check date').count()).toBe(0);
     expect(await page.getByRole('button', { name: 'Reopen to change counts' }).count()).toBe(1);
 
-    const row = await suite.server.db.selectFrom('germination_tests').select(['status', 'finished_on']).where('id', '=', testId).executeTakeFirstOrThrow();
+    const row = await suite.server.db
+      .selectFrom('germination_tests')
+      .select(['status', 'finished_on'])
+      .where('id', '=', testId)
+      .executeTakeFirstOrThrow();
     expect(row).toEqual({ status: 'finished', finished_on: '2026-03-14' });
-    const tray = await suite.server.db.selectFrom('test_trays').select(['abnormal', 'ungerminated']).where('id', '=', trayIds[0]!).executeTakeFirstOrThrow();
+    const tray = await suite.server.db
+      .selectFrom('test_trays')
+      .select(['abnormal', 'ungerminated'])
+      .where('id', '=', trayIds[0]!)
+      .executeTakeFirstOrThrow();
     expect(tray).toEqual({ abnormal: 2, ungerminated: 3 });
     await page.close();
   });
@@ -215,7 +264,13 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
   it('when a grower starts a test from the lot page, then its seeds leave the stock and the test page opens', async () => {
     const page = await suite.browser.newPage({ viewport: PHONE, hasTouch: true });
     await signIn(page, grower.email);
-    const lotId = (await suite.server.db.selectFrom('germination_tests').select('lot_id').where('id', '=', testId).executeTakeFirstOrThrow()).lot_id;
+    const lotId = (
+      await suite.server.db
+        .selectFrom('germination_tests')
+        .select('lot_id')
+        .where('id', '=', testId)
+        .executeTakeFirstOrThrow()
+    ).lot_id;
     await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lotId}`);
     const tests = page.locator('#lot-tests');
     await expect.poll(() => tests.getByRole('listitem').count()).toBe(1);
@@ -227,13 +282,21 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
     await expect.poll(() => page.locator('[data-caution="scald"]').count()).toBe(1);
     await page.getByLabel('Number of trays').selectOption('2');
     await page.getByLabel('Seeds in each tray').fill('20');
-    await expect.poll(() => page.getByText(/seeds will be taken from the lot/).innerText()).toMatch(/^40 seeds will be taken/);
+    await expect
+      .poll(() => page.getByText(/seeds will be taken from the lot/).innerText())
+      .toMatch(/^40 seeds will be taken/);
     await page.getByRole('button', { name: 'Start the test' }).tap();
     await page.waitForURL(/\/tests\/[0-9a-f-]+$/);
-    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Test started: 40 seeds taken' }).count()).toBe(1);
+    await expect
+      .poll(() => page.getByRole('status').filter({ hasText: 'Test started: 40 seeds taken' }).count())
+      .toBe(1);
     await page.getByRole('textbox', { name: 'Tray 2 · 20 sown' }).waitFor();
     // 300 logged − 100 in the first test − 40 now = 160 on hand.
-    const stock = await suite.server.db.selectFrom('stock_movements').select((eb) => eb.fn.sum<string>('change').as('total')).where('lot_id', '=', lotId).executeTakeFirstOrThrow();
+    const stock = await suite.server.db
+      .selectFrom('stock_movements')
+      .select((eb) => eb.fn.sum<string>('change').as('total'))
+      .where('lot_id', '=', lotId)
+      .executeTakeFirstOrThrow();
     expect(Number(stock.total)).toBe(160);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
     await page.close();

@@ -32,9 +32,13 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
   const signIn = (page: Page, email: string) => signInAt(page, suite.server.baseUrl, email, suite.bankId);
 
   describe('journey 1: when a grower logs a harvested packet on a phone, then the lot is listed as needing a test', () => {
-    const j = journeyOfTests('1-log-a-packet', () => suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }), {
-      first: { title: 'sign in as grower', run: (page) => signIn(page, 'grower@example.org') },
-    });
+    const j = journeyOfTests(
+      '1-log-a-packet',
+      () => suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }),
+      {
+        first: { title: 'sign in as grower', run: (page) => signIn(page, 'grower@example.org') },
+      },
+    );
     j.step('open the new-lot form', async (page) => {
       await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/new`);
       await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('New lot');
@@ -44,12 +48,16 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       await species.fill('Kale');
       await page.getByRole('option', { name: /Kale/ }).first().click();
       await page.getByLabel('Variety').fill('Journey Blue');
-      await page.getByLabel('Harvest date', { exact: true }).fill(new Date(Date.now() - 20 * 86_400_000).toISOString().slice(0, 10));
+      await page
+        .getByLabel('Harvest date', { exact: true })
+        .fill(new Date(Date.now() - 20 * 86_400_000).toISOString().slice(0, 10));
       // The demo circle saved kale from one of its parent plants: tick it.
       const parents = page.getByRole('group', { name: 'Parent plants' }).getByRole('checkbox');
       await parents.first().check();
       await page.getByLabel('Number of seeds').fill('400');
-      const jpeg = await sharp({ create: { width: 900, height: 1200, channels: 3, background: '#7d8f5a' } }).jpeg().toBuffer();
+      const jpeg = await sharp({ create: { width: 900, height: 1200, channels: 3, background: '#7d8f5a' } })
+        .jpeg()
+        .toBuffer();
       const photo = path.join(tmp, 'kale-packet.jpg');
       fs.writeFileSync(photo, jpeg);
       await page.getByLabel('Packet photo').setInputFiles(photo);
@@ -62,17 +70,25 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       lotCode = (await page.getByRole('heading', { level: 1 }).innerText()).trim().split(/\s/)[0]!;
       const thumb = page.locator('img[src*="size=thumb"]').first();
       await thumb.waitFor();
-      await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBeGreaterThan(0);
+      await expect
+        .poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth))
+        .toBeGreaterThan(0);
     });
     j.step('see it in the lots table, to be tested first', async (page) => {
-      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots?q=${encodeURIComponent('Journey Blue')}`);
+      await page.goto(
+        `${suite.server.baseUrl}/banks/${suite.bankId}/lots?q=${encodeURIComponent('Journey Blue')}`,
+      );
       // A lot never tested is to be tested first (docs/decisions.md), on its own row or card.
       const lot = page.locator(`[data-lot="${lotCode}"]`);
       await expect.poll(() => lot.count()).toBe(1);
       await expect.poll(() => lot.innerText()).toContain('Test first');
     });
     it('the server holds the lot with the parent plant that was ticked', async () => {
-      const saved = await suite.server.db.selectFrom('lot_parents').select('parent_plant_id').where('lot_id', '=', lotId).execute();
+      const saved = await suite.server.db
+        .selectFrom('lot_parents')
+        .select('parent_plant_id')
+        .where('lot_id', '=', lotId)
+        .execute();
       expect(saved).toHaveLength(1);
     });
   });
@@ -80,9 +96,13 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
   describe('journey 2: when a grower records a 4-tray trial over three check days, then the result and curve show', () => {
     const start = new Date(Date.now() - 10 * 86_400_000).toISOString().slice(0, 10);
     const day = (n: number) => new Date(Date.parse(start) + n * 86_400_000).toISOString().slice(0, 10);
-    const j = journeyOfTests('2-tray-trial', () => suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }), {
-      first: { title: 'sign in as grower', run: (page) => signIn(page, 'grower@example.org') },
-    });
+    const j = journeyOfTests(
+      '2-tray-trial',
+      () => suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }),
+      {
+        first: { title: 'sign in as grower', run: (page) => signIn(page, 'grower@example.org') },
+      },
+    );
     j.step('start a 4-tray test', async (page) => {
       // The lot logged in journey 1.
       expect(lotId).not.toBe('');
@@ -105,7 +125,14 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
         suite.server.clock.set(`${day(d)}T10:00:00Z`);
         const label = await enterCounts(page, day(d), values, (n) => `Tray ${n} · 25 sown`);
         await page.getByRole('button', { name: `Save counts for ${label}` }).tap();
-        await expect.poll(() => page.getByRole('status').filter({ hasText: `Saved the counts of ${label}` }).count()).toBe(1);
+        await expect
+          .poll(() =>
+            page
+              .getByRole('status')
+              .filter({ hasText: `Saved the counts of ${label}` })
+              .count(),
+          )
+          .toBe(1);
         if (d === 10) {
           await page.evaluate(() => window.scrollTo(0, 0));
           await j.readmeShot('test-page.png');
@@ -129,7 +156,9 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       await expect.poll(() => page.locator('[data-result="percent"]').innerText()).toContain('82');
       await expect.poll(() => page.locator('[data-result="interval"]').innerText()).toMatch(/\d+%.*\d+%/);
       expect(await page.locator('[data-agreement]').getAttribute('data-agreement')).toBe('ok');
-      expect(await page.locator('[data-chart="germination-curve"] path.recharts-line-curve').count()).toBeGreaterThanOrEqual(4);
+      expect(
+        await page.locator('[data-chart="germination-curve"] path.recharts-line-curve').count(),
+      ).toBeGreaterThanOrEqual(4);
     });
   });
 
@@ -138,16 +167,35 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
     let sowingDate = '';
     let keeperApi: ReturnType<typeof request.agent>;
     beforeAll(async () => {
-      const bank = await suite.server.db.selectFrom('banks').select(['last_frost']).where('id', '=', suite.bankId).executeTakeFirstOrThrow();
+      const bank = await suite.server.db
+        .selectFrom('banks')
+        .select(['last_frost'])
+        .where('id', '=', suite.bankId)
+        .executeTakeFirstOrThrow();
       const today = new Date().toISOString().slice(0, 10);
       // Indoor starts are counted back from the last spring frost; eight weeks before it is the usual
       // first guess for bedding plants and tomatoes (common practice). The next such day still ahead:
       sowingDate = [0, 1, 2]
-        .map((k) => new Date(Date.UTC(Number(today.slice(0, 4)) + k, Number(bank.last_frost!.slice(0, 2)) - 1, Number(bank.last_frost!.slice(3)) - 56)))
+        .map(
+          (k) =>
+            new Date(
+              Date.UTC(
+                Number(today.slice(0, 4)) + k,
+                Number(bank.last_frost!.slice(0, 2)) - 1,
+                Number(bank.last_frost!.slice(3)) - 56,
+              ),
+            ),
+        )
         .map((d) => d.toISOString().slice(0, 10))
         .find((d) => d >= today)!;
       keeperApi = request.agent(suite.server.app);
-      expect((await keeperApi.post('/api/auth/login').send({ email: 'keeper@example.org', password: DEMO_PASSWORD })).status).toBe(200);
+      expect(
+        (
+          await keeperApi
+            .post('/api/auth/login')
+            .send({ email: 'keeper@example.org', password: DEMO_PASSWORD })
+        ).status,
+      ).toBe(200);
     });
     const j = journeyOfTests('3-decide-what-to-sow', () => suite.browser.newContext({ viewport: DESKTOP }), {
       first: { title: 'sign in as keeper', run: (page) => signIn(page, 'keeper@example.org') },
@@ -167,7 +215,9 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       // Every row left is one the server advises sowing on that date.
       const ranking = await keeperApi.get(`/api/banks/${suite.bankId}/ranking?on=${sowingDate}`);
       expect(ranking.status).toBe(200);
-      const worthSowing = (ranking.body.items as { code: string; recommendation: string }[]).filter((i) => i.recommendation === 'sow').map((i) => i.code);
+      const worthSowing = (ranking.body.items as { code: string; recommendation: string }[])
+        .filter((i) => i.recommendation === 'sow')
+        .map((i) => i.code);
       const shown = await rows.evaluateAll((trs) => trs.map((tr) => tr.getAttribute('data-lot')!));
       expect(worthSowing).toEqual(expect.arrayContaining(shown));
       const first = rows.first();
@@ -186,7 +236,9 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       // tests/unit/stats/seeds-to-sow-predictive.test.ts), so it is never below the point-estimate
       // answer: the least n for which 12 or more of n seeds come up with probability ≥ 0.9 at the
       // projected germination (jStat's binomial distribution).
-      const api = await keeperApi.get(`/api/banks/${suite.bankId}/lots/${chosen.lotId}/seeds-to-sow?plants=12&assurance=0.9&on=${sowingDate}`);
+      const api = await keeperApi.get(
+        `/api/banks/${suite.bankId}/lots/${chosen.lotId}/seeds-to-sow?plants=12&assurance=0.9&on=${sowingDate}`,
+      );
       expect(api.status).toBe(200);
       expect(chosen.seeds).toBe(api.body.seeds);
       const atLeast12 = (n: number) => 1 - jStat.binomial.cdf(11, n, api.body.germinationUsed);
@@ -199,16 +251,28 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       const season = Number((await add.innerText()).replace(/\D/g, ''));
       // The lot may already be the suggested lot of another sowing: count its entries before.
       const planned = async () =>
-        ((await keeperApi.get(`/api/banks/${suite.bankId}/plan?season=${season}`)).body.items as { lotId: string | null; plantsWanted: number }[]).filter(
-          (e) => e.lotId === chosen.lotId,
-        );
+        (
+          (await keeperApi.get(`/api/banks/${suite.bankId}/plan?season=${season}`)).body.items as {
+            lotId: string | null;
+            plantsWanted: number;
+          }[]
+        ).filter((e) => e.lotId === chosen.lotId);
       const before = (await planned()).length;
       await add.click();
-      await expect.poll(() => page.getByRole('status').filter({ hasText: `Added to the ${season} plan` }).count()).toBe(1);
+      await expect
+        .poll(() =>
+          page
+            .getByRole('status')
+            .filter({ hasText: `Added to the ${season} plan` })
+            .count(),
+        )
+        .toBe(1);
       expect((await planned()).filter((e) => e.plantsWanted === 12).length).toBeGreaterThan(0);
       await page.getByRole('link', { name: 'Open the planner' }).click();
       await page.waitForURL(new RegExp(`/banks/${suite.bankId}/planner`));
-      const entries = page.locator('article[data-entry]').filter({ has: page.getByRole('link', { name: chosen.code }) });
+      const entries = page
+        .locator('article[data-entry]')
+        .filter({ has: page.getByRole('link', { name: chosen.code }) });
       await expect.poll(() => entries.count()).toBe(before + 1);
     });
     j.step('print the labels of the planned lots', async (page) => {
@@ -216,7 +280,9 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       await page.waitForURL(new RegExp(`/banks/${suite.bankId}/labels\\?lots=`));
       expect(new URL(page.url()).searchParams.get('lots')!.split(',')).toContain(chosen.lotId);
       const label = page.getByRole('img', { name: new RegExp(`^Label for lot ${chosen.code}:`) });
-      await expect.poll(() => label.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
+      await expect
+        .poll(() => label.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0))
+        .toBe(true);
       // The browser's print dialog cannot be driven headless: count the calls instead.
       await page.evaluate(() => {
         (window as unknown as { printed: number }).printed = 0;
@@ -230,7 +296,11 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       expect(await label.isVisible()).toBe(true);
     });
     it('the server holds the plan entry for 12 plants', async () => {
-      const planned = await suite.server.db.selectFrom('plan_entries').select(['plants_wanted', 'seeds_to_sow']).where('lot_id', '=', chosen.lotId).execute();
+      const planned = await suite.server.db
+        .selectFrom('plan_entries')
+        .select(['plants_wanted', 'seeds_to_sow'])
+        .where('lot_id', '=', chosen.lotId)
+        .execute();
       expect(planned).toContainEqual(expect.objectContaining({ plants_wanted: 12 }));
     });
   });
@@ -262,7 +332,8 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
         .limit(1)
         .executeTakeFirstOrThrow();
     });
-    const count = (page: Page, role: 'link' | 'button', name: string | RegExp) => page.getByRole(role, { name, exact: typeof name === 'string' }).count();
+    const count = (page: Page, role: 'link' | 'button', name: string | RegExp) =>
+      page.getByRole(role, { name, exact: typeof name === 'string' }).count();
 
     // What each role may do (DESIGN.md): an owner everything; a grower lots, tests, counts and
     // plans but not members or settings; a viewer reads and changes nothing.
@@ -274,21 +345,32 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
     ] as const)('$email, $role', ({ email, role }) => {
       const writes = role === 'viewer' ? 0 : 1;
       const owns = role === 'owner' ? 1 : 0;
-      const j = journeyOfTests(`roles-${email.split('@')[0]}`, () => suite.browser.newContext({ viewport: DESKTOP }), {
-        first: { title: 'sign in', run: (page) => signIn(page, email) },
-        chained: false,
-      });
+      const j = journeyOfTests(
+        `roles-${email.split('@')[0]}`,
+        () => suite.browser.newContext({ viewport: DESKTOP }),
+        {
+          first: { title: 'sign in', run: (page) => signIn(page, email) },
+          chained: false,
+        },
+      );
       j.step('lots: New lot and Import CSV', async (page) => {
         await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots`);
         await page.getByRole('link', { name: 'Export lots CSV' }).waitFor();
-        expect([await count(page, 'link', 'New lot'), await count(page, 'link', 'Import CSV')]).toEqual([writes, writes]);
+        expect([await count(page, 'link', 'New lot'), await count(page, 'link', 'Import CSV')]).toEqual([
+          writes,
+          writes,
+        ]);
       });
       j.step('a lot: photo, test, plan and delete', async (page) => {
         await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lot.id}`);
         await page.getByRole('link', { name: 'Print label' }).waitFor();
         // Each part of the page loads its own data: wait for the tests, the photos and the calculator.
         await page.getByRole('list', { name: 'Germination tests of this lot' }).waitFor();
-        await page.getByRole('list', { name: 'Photos' }).or(page.getByText('No photos yet.')).first().waitFor();
+        await page
+          .getByRole('list', { name: 'Photos' })
+          .or(page.getByText('No photos yet.'))
+          .first()
+          .waitFor();
         await page.getByTestId('seeds-to-sow').waitFor();
         expect({
           photo: await page.getByLabel('Add a photo').count(),
@@ -327,8 +409,24 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
   describe('when the main pages are checked with axe-core, then there are no serious or critical violations', () => {
     const ids = { lot: '', test: '' };
     beforeAll(async () => {
-      ids.lot = (await suite.server.db.selectFrom('lots').select('id').where('bank_id', '=', suite.bankId).orderBy('code').limit(1).executeTakeFirstOrThrow()).id;
-      ids.test = (await suite.server.db.selectFrom('germination_tests').select('id').where('bank_id', '=', suite.bankId).orderBy('start_date').limit(1).executeTakeFirstOrThrow()).id;
+      ids.lot = (
+        await suite.server.db
+          .selectFrom('lots')
+          .select('id')
+          .where('bank_id', '=', suite.bankId)
+          .orderBy('code')
+          .limit(1)
+          .executeTakeFirstOrThrow()
+      ).id;
+      ids.test = (
+        await suite.server.db
+          .selectFrom('germination_tests')
+          .select('id')
+          .where('bank_id', '=', suite.bankId)
+          .orderBy('start_date')
+          .limit(1)
+          .executeTakeFirstOrThrow()
+      ).id;
     });
 
     it('sign-in', async () => {

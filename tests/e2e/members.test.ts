@@ -38,9 +38,7 @@ describe.skipIf(!chromiumPath)('the members page in Chromium', () => {
     const open = page.getByRole('list', { name: 'Open invitations' }).getByRole('listitem');
     await expect.poll(() => open.filter({ hasText: invitee }).count()).toBe(1);
     await expect.poll(() => open.filter({ hasText: invitee }).innerText()).toMatch(/Grower/);
-    await expect
-      .poll(() => open.filter({ hasText: invitee }).innerText())
-      .toContain(`Sent by ${owner.name}`);
+    await expect.poll(() => open.filter({ hasText: invitee }).innerText()).toContain(`Sent by ${owner.name}`);
 
     // The page did not just draw it: the server holds the invitation and sent the e-mail.
     const row = await suite.server.db
@@ -92,14 +90,21 @@ describe.skipIf(!chromiumPath)('the members page in Chromium', () => {
   });
   it('when someone starts a new bank from a browser in another time zone, then the bank keeps that zone for its calendar', async () => {
     // America/Winnipeg: a zone of the IANA time zone database, six hours behind UTC in winter.
-    const context = await suite.browser.newContext({ viewport: { width: 1280, height: 900 }, timezoneId: 'America/Winnipeg' });
+    const context = await suite.browser.newContext({
+      viewport: { width: 1280, height: 900 },
+      timezoneId: 'America/Winnipeg',
+    });
     const page = await context.newPage();
     await signIn(page, viewer.email);
     await page.goto(`${suite.server.baseUrl}/banks/new`);
     await page.getByLabel('Name of the bank').fill('Porch Shelf Seeds');
     await page.getByRole('button', { name: 'Start the bank' }).click();
     await page.waitForURL(/\/banks\/[0-9a-f-]{36}\/overview/);
-    const created = await suite.server.db.selectFrom('banks').select('time_zone').where('name', '=', 'Porch Shelf Seeds').executeTakeFirstOrThrow();
+    const created = await suite.server.db
+      .selectFrom('banks')
+      .select('time_zone')
+      .where('name', '=', 'Porch Shelf Seeds')
+      .executeTakeFirstOrThrow();
     expect(created.time_zone).toBe('America/Winnipeg');
     await context.close();
   });

@@ -33,7 +33,13 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
       .selectFrom('germination_tests')
       .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
       .innerJoin('species', 'species.id', 'lots.species_id')
-      .select(['germination_tests.id', 'germination_tests.start_date', 'lots.code', 'lots.variety', 'species.common_name'])
+      .select([
+        'germination_tests.id',
+        'germination_tests.start_date',
+        'lots.code',
+        'lots.variety',
+        'species.common_name',
+      ])
       .where('germination_tests.bank_id', '=', suite.bankId)
       .where('germination_tests.status', '=', 'running')
       .execute();
@@ -58,8 +64,12 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
 
     await row.tap();
     await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${test.id}`);
-    await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe(`Tomato · ${test.variety}`);
-    await expect.poll(() => page.getByRole('heading', { name: 'Count the normal seedlings' }).count()).toBe(1);
+    await expect
+      .poll(() => page.getByRole('heading', { level: 1 }).innerText())
+      .toBe(`Tomato · ${test.variety}`);
+    await expect
+      .poll(() => page.getByRole('heading', { name: 'Count the normal seedlings' }).count())
+      .toBe(1);
     await expect.poll(() => page.getByRole('note').filter({ hasText: 'damping-off' }).count()).toBe(1);
     await context.close();
   });
@@ -86,14 +96,20 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
     expect(await treatedNote.count()).toBe(0);
 
     await page.getByRole('button', { name: 'Edit details' }).tap();
-    await page.getByRole('checkbox', { name: /Treated seed \(coated with fungicide or another treatment\)/ }).check();
+    await page
+      .getByRole('checkbox', { name: /Treated seed \(coated with fungicide or another treatment\)/ })
+      .check();
     // The form shows the caution as soon as the box is ticked.
     await expect.poll(() => treatedNote.count()).toBe(1);
     await page.getByRole('button', { name: 'Save changes' }).tap();
     await expect.poll(() => page.getByRole('button', { name: 'Edit details' }).count()).toBe(1);
 
     // Saved on the server…
-    const saved = await suite.server.db.selectFrom('lots').select('treated').where('id', '=', lot.id).executeTakeFirstOrThrow();
+    const saved = await suite.server.db
+      .selectFrom('lots')
+      .select('treated')
+      .where('id', '=', lot.id)
+      .executeTakeFirstOrThrow();
     expect(saved.treated).toBe(true);
     // …and the page's caution says the usual things, in plain words (common practice for treated seed).
     await expect.poll(() => treatedNote.count()).toBe(1);

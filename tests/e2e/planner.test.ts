@@ -56,11 +56,17 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
   beforeAll(async () => {
     // A tomato lot of 400 seeds with a finished two-tray test, through the API as the grower.
     const api = request.agent(suite.server.app);
-    expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
+    expect(
+      (await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status,
+    ).toBe(200);
     const tomato = await speciesId(suite.server.db, 'tomato');
-    const lot = await api
-      .post(`/api/banks/${suite.bankId}/lots`)
-      .send({ speciesId: tomato, variety: 'Planner Trial Red', origin: 'saved', harvestDate: '2025-09-01', seedCount: 400 });
+    const lot = await api.post(`/api/banks/${suite.bankId}/lots`).send({
+      speciesId: tomato,
+      variety: 'Planner Trial Red',
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+      seedCount: 400,
+    });
     expect(lot.status).toBe(201);
     lotId = lot.body.lot.id;
     lotCode = lot.body.lot.code;
@@ -76,17 +82,25 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     // seeds for 12 plants worked out independently: × 0.9 establishment and 0.9 assurance, the
     // bank's defaults (migrations/2026_12_01_000400_bank_decision_settings.ts).
     const ranking = await api.get(`/api/banks/${suite.bankId}/ranking?on=${SOW_FROM}`);
-    const item = (ranking.body.items as { lotId: string; projectedPercent: number }[]).find((r) => r.lotId === lotId)!;
+    const item = (ranking.body.items as { lotId: string; projectedPercent: number }[]).find(
+      (r) => r.lotId === lotId,
+    )!;
     expectedSeeds = seedsFor(12, (item.projectedPercent / 100) * 0.9, 0.9);
   });
 
   /** A browser context whose clock reads the same day as the server's. */
-  async function newContext(viewport: { width: number; height: number }, phone = false): Promise<BrowserContext> {
+  async function newContext(
+    viewport: { width: number; height: number },
+    phone = false,
+  ): Promise<BrowserContext> {
     const context = await suite.browser.newContext({ viewport, hasTouch: phone, isMobile: phone });
     await context.clock.setFixedTime(new Date(NOW));
     return context;
   }
-  async function open(viewport: { width: number; height: number }, phone = false): Promise<{ context: BrowserContext; page: Page }> {
+  async function open(
+    viewport: { width: number; height: number },
+    phone = false,
+  ): Promise<{ context: BrowserContext; page: Page }> {
     const context = await newContext(viewport, phone);
     return { context, page: await context.newPage() };
   }
@@ -94,7 +108,8 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
   const signIn = (page: Page, email: string) => signInAt(page, suite.server.baseUrl, email, suite.bankId);
 
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
-  const fact = (page: Page, name: string) => page.locator(`article[data-entry] [data-fact="${name}"] dd`).first().innerText();
+  const fact = (page: Page, name: string) =>
+    page.locator(`article[data-entry] [data-fact="${name}"] dd`).first().innerText();
 
   // One test per step on one page: the whole journey in one test ran near the 60 s timeout.
   describe('when a grower plans 12 tomato plants indoors and marks them sown, then the window, the suggested lot and the stock withdrawn follow', () => {
@@ -103,7 +118,11 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     });
 
     steps.step('planner', async (page) => {
-      await page.getByRole('navigation', { name: 'Bank' }).getByRole('link', { name: 'Planner' }).first().click();
+      await page
+        .getByRole('navigation', { name: 'Bank' })
+        .getByRole('link', { name: 'Planner' })
+        .first()
+        .click();
       await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/planner`);
       // In December the coming spring is next year's.
       expect(await page.getByRole('combobox', { name: 'Season' }).inputValue()).toBe('2027');
@@ -119,8 +138,12 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       await page.getByLabel('Plants wanted').fill('12');
       expect(await page.getByRole('combobox', { name: 'Lot' }).inputValue()).toBe('');
       // The lot is offered with its projection and stock.
-      await expect.poll(() => page.getByRole('combobox', { name: 'Lot' }).innerText()).toContain(`${lotCode} · Planner Trial Red`);
-      await expect.poll(() => page.getByRole('status').filter({ hasText: 'Sow between' }).innerText()).toContain('Sow between 29 Mar and 12 Apr');
+      await expect
+        .poll(() => page.getByRole('combobox', { name: 'Lot' }).innerText())
+        .toContain(`${lotCode} · Planner Trial Red`);
+      await expect
+        .poll(() => page.getByRole('status').filter({ hasText: 'Sow between' }).innerText())
+        .toContain('Sow between 29 Mar and 12 Apr');
     });
 
     steps.step('entry', async (page) => {
@@ -134,7 +157,9 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       expect(await page.locator('[data-fact="lot"] dt').innerText()).toBe('Lot (suggested)');
       expect(await fact(page, 'lot')).toBe(lotCode);
       expect(await fact(page, 'seeds')).toBe(String(expectedSeeds));
-      await expect.poll(() => page.locator('article[data-entry]').getByRole('list', { name: 'Notes' }).innerText()).toContain(`Suggested lot ${lotCode}`);
+      await expect
+        .poll(() => page.locator('article[data-entry]').getByRole('list', { name: 'Notes' }).innerText())
+        .toContain(`Suggested lot ${lotCode}`);
       expect(await seriousViolations(page)).toEqual([]);
     });
 
@@ -151,17 +176,28 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     steps.step('lot-page', async (page) => {
       await page.locator('article[data-entry]').getByRole('link', { name: lotCode }).click();
       await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lotId}`);
-      await expect.poll(() => page.getByText(/seeds on hand$/).first().innerText()).toBe(`${stockBefore - expectedSeeds} seeds on hand`);
+      await expect
+        .poll(() =>
+          page
+            .getByText(/seeds on hand$/)
+            .first()
+            .innerText(),
+        )
+        .toBe(`${stockBefore - expectedSeeds} seeds on hand`);
     });
 
     // Undo puts the seeds back, so the lot is whole again for the next test.
     steps.step('undo', async (page) => {
       await page.goBack();
       await page.getByRole('button', { name: 'Undo sowing' }).click();
-      await expect.poll(() => page.getByRole('status').filter({ hasText: 'Sowing undone' }).innerText()).toContain(`${expectedSeeds} seeds went back into lot ${lotCode}`);
+      await expect
+        .poll(() => page.getByRole('status').filter({ hasText: 'Sowing undone' }).innerText())
+        .toContain(`${expectedSeeds} seeds went back into lot ${lotCode}`);
       const api = request.agent(suite.server.app);
       await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
-      expect((await api.get(`/api/banks/${suite.bankId}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(stockBefore);
+      expect((await api.get(`/api/banks/${suite.bankId}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(
+        stockBefore,
+      );
     });
   });
 
@@ -193,7 +229,9 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     steps.step('calendar-june', async (page) => {
       for (let i = 0; i < 3; i += 1) await page.getByRole('button', { name: /next month/ }).click();
       await expect.poll(() => page.getByRole('heading', { name: 'June 2027' }).count()).toBe(1);
-      await expect.poll(() => page.locator('[data-calendar="agenda"]').innerText()).toContain('Plant out Tomato');
+      await expect
+        .poll(() => page.locator('[data-calendar="agenda"]').innerText())
+        .toContain('Plant out Tomato');
       expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
     });
 
@@ -202,7 +240,9 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       const href = await page.getByRole('link', { name: 'Add to my calendar' }).getAttribute('href');
       const ics = await page.request.get(`${suite.server.baseUrl}${href}`);
       expect(ics.headers()['content-type']).toMatch(/text\/calendar/);
-      const events = Object.values(ical.sync.parseICS(await ics.text())).filter((e) => e?.type === 'VEVENT') as ical.VEvent[];
+      const events = Object.values(ical.sync.parseICS(await ics.text())).filter(
+        (e) => e?.type === 'VEVENT',
+      ) as ical.VEvent[];
       expect(events.some((e) => String(e.summary).startsWith('Sow Tomato'))).toBe(true);
     });
   });
@@ -239,14 +279,22 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       const sowing = page.getByRole('switch', { name: 'Sowing days' });
       // Off by default for a viewer (server/jobs/reminders.ts: on for owner and grower).
       expect(await sowing.getAttribute('aria-checked')).toBe('false');
-      expect(await page.getByText('The morning a sowing window of the season plan opens.').isVisible()).toBe(true);
+      expect(await page.getByText('The morning a sowing window of the season plan opens.').isVisible()).toBe(
+        true,
+      );
       await sowing.click();
-      await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved' }).innerText()).toBe('Saved: sowing days on.');
+      await expect
+        .poll(() => page.getByRole('status').filter({ hasText: 'Saved' }).innerText())
+        .toBe('Saved: sowing days on.');
       expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
     });
     await page.reload();
-    await expect.poll(() => page.getByRole('switch', { name: 'Sowing days' }).getAttribute('aria-checked')).toBe('true');
-    expect(await page.getByRole('switch', { name: 'Weekly summary' }).getAttribute('aria-checked')).toBe('false');
+    await expect
+      .poll(() => page.getByRole('switch', { name: 'Sowing days' }).getAttribute('aria-checked'))
+      .toBe('true');
+    expect(await page.getByRole('switch', { name: 'Weekly summary' }).getAttribute('aria-checked')).toBe(
+      'false',
+    );
     await context.close();
   });
 
@@ -272,22 +320,34 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       await expect.poll(() => page.getByRole('status').filter({ hasText: 'Saved.' }).count()).toBe(1);
       expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
     });
-    const saved = await suite.server.db.selectFrom('banks').select('sowing_assurance').where('id', '=', suite.bankId).executeTakeFirstOrThrow();
+    const saved = await suite.server.db
+      .selectFrom('banks')
+      .select('sowing_assurance')
+      .where('id', '=', suite.bankId)
+      .executeTakeFirstOrThrow();
     expect(Number(saved.sowing_assurance)).toBe(0.95);
-    await suite.server.db.updateTable('banks').set({ sowing_assurance: 0.9 }).where('id', '=', suite.bankId).execute();
+    await suite.server.db
+      .updateTable('banks')
+      .set({ sowing_assurance: 0.9 })
+      .where('id', '=', suite.bankId)
+      .execute();
     await context.close();
   });
   it('when a planned sowing needs more seed than its lot holds, then the planner says so instead of offering Mark sown', async () => {
     const api = request.agent(suite.server.app);
     await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
     const tomato = await speciesId(suite.server.db, 'tomato');
-    const created = await api.post(`/api/banks/${suite.bankId}/plan`).send({ season: 2027, speciesId: tomato, plantsWanted: 1000, start: 'indoors', lotId });
+    const created = await api
+      .post(`/api/banks/${suite.bankId}/plan`)
+      .send({ season: 2027, speciesId: tomato, plantsWanted: 1000, start: 'indoors', lotId });
     expect(created.status).toBe(201);
     const { context, page } = await open(DESKTOP);
     await signIn(page, grower.email);
     await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/planner`);
     const card = page.locator('article[data-entry]').filter({ hasText: '1,000 plants' });
-    await expect.poll(() => card.locator('[data-short-of-seed]').innerText()).toContain(`Lot ${lotCode} has ${stockBefore} seeds left`);
+    await expect
+      .poll(() => card.locator('[data-short-of-seed]').innerText())
+      .toContain(`Lot ${lotCode} has ${stockBefore} seeds left`);
     expect(await card.getByRole('button', { name: /Mark sown/ }).count()).toBe(0);
     await context.close();
     expect((await api.delete(`/api/banks/${suite.bankId}/plan/${created.body.entry.id}`)).status).toBe(204);

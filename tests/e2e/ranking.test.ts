@@ -29,11 +29,24 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
 
   beforeAll(async () => {
     const agent = request.agent(suite.server.app);
-    expect((await agent.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
-    const newLot = async (key: string, code: string, variety: string, harvestDate: string, seedCount: number) => {
-      const res = await agent
-        .post(`/api/banks/${suite.bankId}/lots`)
-        .send({ speciesId: await speciesId(suite.server.db, key), variety, origin: 'saved', harvestDate, seedCount, code });
+    expect(
+      (await agent.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status,
+    ).toBe(200);
+    const newLot = async (
+      key: string,
+      code: string,
+      variety: string,
+      harvestDate: string,
+      seedCount: number,
+    ) => {
+      const res = await agent.post(`/api/banks/${suite.bankId}/lots`).send({
+        speciesId: await speciesId(suite.server.db, key),
+        variety,
+        origin: 'saved',
+        harvestDate,
+        seedCount,
+        code,
+      });
       if (res.status !== 201) throw new Error(`lot not created: ${JSON.stringify(res.body)}`);
       return res.body.lot.id as string;
     };
@@ -68,7 +81,8 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
 
   const signIn = (page: Page, email: string) => signInAt(page, suite.server.baseUrl, email, suite.bankId);
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
-  const rowCodes = (page: Page) => page.locator('tbody tr[data-lot]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-lot')));
+  const rowCodes = (page: Page) =>
+    page.locator('tbody tr[data-lot]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-lot')));
 
   // One test per step, on one page: the whole journey in one test ran near the 60 s timeout.
   describe('when a viewer sorts the ranking by projected germination and filters to "sow", then the rows follow the server’s projections and the view survives a reload', () => {
@@ -77,7 +91,11 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
       // tomato seed (7 CFR 201.31), so "sow"; the lot nobody tested gets only the species' guess, so
       // "test first" (docs/decisions.md).
       expect(item('RNK-GOOD')).toMatchObject({ recommendation: 'sow', lastPercent: 95 });
-      expect(item('RNK-NEW')).toMatchObject({ recommendation: 'test-first', estimateOnly: true, lastPercent: null });
+      expect(item('RNK-NEW')).toMatchObject({
+        recommendation: 'test-first',
+        estimateOnly: true,
+        lastPercent: null,
+      });
       // Two tests four years apart: the lettuce lot's own decline, projected below its last test.
       expect(item('RNK-OLD').basis).toBe('lot');
       expect(item('RNK-OLD').projectedPercent!).toBeLessThan(42);
@@ -101,15 +119,22 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
       await expect.poll(async () => (await rowCodes(page)).includes('SIDE-1')).toBe(true);
       await page.getByRole('searchbox', { name: 'Search' }).fill('RNK-');
       await page.getByRole('searchbox', { name: 'Search' }).press('Enter');
-      await expect.poll(async () => (await rowCodes(page)).sort()).toEqual(['RNK-GOOD', 'RNK-NEW', 'RNK-OLD']);
+      await expect
+        .poll(async () => (await rowCodes(page)).sort())
+        .toEqual(['RNK-GOOD', 'RNK-NEW', 'RNK-OLD']);
       expect(await page.getByText(/projected to/).innerText()).toContain('29 Mar 2027');
       expect(await page.getByRole('link', { name: 'New lot' }).count()).toBe(0);
       expect(await scrollWidth(page)).toBeLessThanOrEqual(DESKTOP.width);
     });
 
     j.step('sort by projected germination', async (page) => {
-      await page.getByRole('columnheader', { name: /Projected/ }).getByRole('button').click();
-      await expect.poll(() => page.getByRole('columnheader', { name: /Projected/ }).getAttribute('aria-sort')).toBe('descending');
+      await page
+        .getByRole('columnheader', { name: /Projected/ })
+        .getByRole('button')
+        .click();
+      await expect
+        .poll(() => page.getByRole('columnheader', { name: /Projected/ }).getAttribute('aria-sort'))
+        .toBe('descending');
       // Highest projection first: the order of the server's numbers (an untested lot's guess included).
       const expected = [...ranking]
         .sort((a, b) => (b.projectedPercent ?? -1) - (a.projectedPercent ?? -1))
@@ -118,12 +143,16 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
       await expect.poll(() => rowCodes(page)).toEqual(expected);
       // Each bar draws the server's interval and estimate.
       const old = item('RNK-OLD');
-      expect(await page.locator('tr[data-lot="RNK-OLD"] [data-projection]').getAttribute('data-projection')).toBe(
+      expect(
+        await page.locator('tr[data-lot="RNK-OLD"] [data-projection]').getAttribute('data-projection'),
+      ).toBe(
         `${Math.round(old.projectedLow!)}-${Math.round(old.projectedPercent!)}-${Math.round(old.projectedHigh!)}`,
       );
       // The untested lot's bar is the species' guess, as wide as the server says.
       const fresh = item('RNK-NEW');
-      expect(await page.locator('tr[data-lot="RNK-NEW"] [data-projection]').getAttribute('data-projection')).toBe(
+      expect(
+        await page.locator('tr[data-lot="RNK-NEW"] [data-projection]').getAttribute('data-projection'),
+      ).toBe(
         `${Math.round(fresh.projectedLow!)}-${Math.round(fresh.projectedPercent!)}-${Math.round(fresh.projectedHigh!)}`,
       );
     });
@@ -149,7 +178,9 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
       await page.reload();
       await expect.poll(() => rowCodes(page)).toEqual(['RNK-GOOD']);
       expect(await page.getByRole('combobox', { name: 'Advice' }).inputValue()).toBe('sow');
-      expect(await page.getByRole('columnheader', { name: /Projected/ }).getAttribute('aria-sort')).toBe('descending');
+      expect(await page.getByRole('columnheader', { name: /Projected/ }).getAttribute('aria-sort')).toBe(
+        'descending',
+      );
       expect(await seriousViolations(page)).toEqual([]);
     });
 
@@ -202,7 +233,9 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
       const seeds = Number((await page.getByTestId('seeds-to-sow').innerText()).replace(/\D/g, ''));
       const viewerAgent = request.agent(suite.server.app);
       await viewerAgent.post('/api/auth/login').send({ email: viewer.email, password: DEMO_PASSWORD });
-      const api = await viewerAgent.get(`/api/banks/${suite.bankId}/lots/${lots.old}/seeds-to-sow?plants=12&assurance=0.9&on=${ON}`);
+      const api = await viewerAgent.get(
+        `/api/banks/${suite.bankId}/lots/${lots.old}/seeds-to-sow?plants=12&assurance=0.9&on=${ON}`,
+      );
       expect(api.status).toBe(200);
       expect(seeds).toBe(api.body.seeds);
       // With germination at a third or so, 12 plants need well over 12 seeds.
@@ -257,7 +290,9 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
     await expect.poll(() => page.getByTestId('seeds-to-sow').innerText()).toMatch(/^sow \d+ seeds$/);
     await expect.poll(() => page.getByText(/for 20 plants/).count()).toBeGreaterThan(0);
     await page.getByRole('button', { name: 'Add to the 2027 plan' }).click();
-    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Added to the 2027 plan' }).count()).toBe(1);
+    await expect
+      .poll(() => page.getByRole('status').filter({ hasText: 'Added to the 2027 plan' }).count())
+      .toBe(1);
 
     const entries = await suite.server.db
       .selectFrom('plan_entries')
@@ -265,7 +300,15 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
       .where('lot_id', '=', lots.good)
       .execute();
     // Tomato starts indoors in the reference set (startMethod 'indoor'), so the entry does too.
-    expect(entries).toEqual([{ season: 2027, lot_id: lots.good, species_id: await speciesId(suite.server.db, 'tomato'), plants_wanted: 20, start: 'indoors' }]);
+    expect(entries).toEqual([
+      {
+        season: 2027,
+        lot_id: lots.good,
+        species_id: await speciesId(suite.server.db, 'tomato'),
+        plants_wanted: 20,
+        start: 'indoors',
+      },
+    ]);
     await context.close();
   });
 
@@ -292,7 +335,9 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
     await expect.poll(() => new URL(page.url()).searchParams.get('origin')).toBe('swapped');
     // Every lot left came by swap (the server's own origins), and the one made here is among them.
     const swapped = await api.get(`/api/banks/${suite.bankId}/ranking?on=${ON}`);
-    const swappedCodes = (swapped.body.items as RankingItem[]).filter((i) => i.origin === 'swapped').map((i) => i.code);
+    const swappedCodes = (swapped.body.items as RankingItem[])
+      .filter((i) => i.origin === 'swapped')
+      .map((i) => i.code);
     await expect.poll(async () => (await rowCodes(page)).includes('RNK-SWAP')).toBe(true);
     expect(swappedCodes).toEqual(expect.arrayContaining(await rowCodes(page)));
     await page.getByRole('searchbox', { name: 'Search' }).fill('brookside');
@@ -316,12 +361,18 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
         origin: 'saved' as const,
         harvest_date: '2025-09-01',
       }));
-      for (let i = 0; i < values.length; i += 1000) await suite.server.db.insertInto('lots').values(values.slice(i, i + 1000)).execute();
+      for (let i = 0; i < values.length; i += 1000)
+        await suite.server.db
+          .insertInto('lots')
+          .values(values.slice(i, i + 1000))
+          .execute();
       // The bank's ranking asked for once before the pages open, as a bank's would have been: its
       // first fit of 5,000 lots took ~30 s on a busy 2-core machine (a server cost, which
       // `npm run bench` times), and the subject here is what the pages draw.
       const agent = request.agent(suite.server.app);
-      expect((await agent.post('/api/auth/login').send({ email: viewer.email, password: DEMO_PASSWORD })).status).toBe(200);
+      expect(
+        (await agent.post('/api/auth/login').send({ email: viewer.email, password: DEMO_PASSWORD })).status,
+      ).toBe(200);
       expect((await agent.get(`/api/banks/${suite.bankId}/ranking?on=${ON}`)).status).toBe(200);
     });
 
@@ -331,7 +382,9 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
       await signInThroughApi(context, suite.server.baseUrl, viewer.email);
       const page = await context.newPage();
       await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots?q=BULK-&sort=code:asc`);
-      await expect.poll(() => page.getByText(/projected to/).innerText()).toContain(`${BULK.toLocaleString('en')} of`);
+      await expect
+        .poll(() => page.getByText(/projected to/).innerText())
+        .toContain(`${BULK.toLocaleString('en')} of`);
       await expect.poll(async () => (await rowCodes(page))[0]).toBe('BULK-0001');
       const rendered = (await rowCodes(page)).length;
       expect(rendered).toBeGreaterThan(5);

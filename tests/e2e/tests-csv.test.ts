@@ -19,12 +19,23 @@ describe.skipIf(!chromiumPath)('importing germination tests in Chromium', () => 
     let lot: { id: string; code: string };
     let before: string | null;
     const stock = async () =>
-      (await suite.server.db.selectFrom('stock_movements').select((eb) => eb.fn.sum<string>('change').as('s')).where('lot_id', '=', lot.id).executeTakeFirstOrThrow()).s;
+      (
+        await suite.server.db
+          .selectFrom('stock_movements')
+          .select((eb) => eb.fn.sum<string>('change').as('s'))
+          .where('lot_id', '=', lot.id)
+          .executeTakeFirstOrThrow()
+      ).s;
     beforeAll(async () => {
       const api = await signIn(suite.server.app, grower.email, DEMO_PASSWORD);
-      const created = await api
-        .post(`/api/banks/${suite.bankId}/lots`)
-        .send({ speciesId: await speciesId(suite.server.db, 'tomato'), variety: 'Winter Window', origin: 'saved', harvestDate: '2025-09-01', seedCount: 150, code: 'TOM-WIN-1' });
+      const created = await api.post(`/api/banks/${suite.bankId}/lots`).send({
+        speciesId: await speciesId(suite.server.db, 'tomato'),
+        variety: 'Winter Window',
+        origin: 'saved',
+        harvestDate: '2025-09-01',
+        seedCount: 150,
+        code: 'TOM-WIN-1',
+      });
       expect(created.status).toBe(201);
       lot = created.body.lot as { id: string; code: string };
       before = await stock();
@@ -38,21 +49,33 @@ describe.skipIf(!chromiumPath)('importing germination tests in Chromium', () => 
         `winter,${lot.code},2025-12-01,folded towel,2,25,2025-12-12,21,2025-12-12,0,4`,
       ].join('\r\n');
     const testItem = (page: Page) =>
-      page.getByRole('list', { name: 'Germination tests of this lot' }).getByRole('listitem').filter({ hasText: 'folded towel' });
+      page
+        .getByRole('list', { name: 'Germination tests of this lot' })
+        .getByRole('listitem')
+        .filter({ hasText: 'folded towel' });
 
     const j = journeyOfTests('tests-csv', () => suite.browser.newContext({ viewport: DESKTOP }), {
-      first: { title: 'sign in as grower', run: (page) => signInAt(page, suite.server.baseUrl, grower.email, suite.bankId) },
+      first: {
+        title: 'sign in as grower',
+        run: (page) => signInAt(page, suite.server.baseUrl, grower.email, suite.bankId),
+      },
     });
     j.step('open the tests import from the lots page', async (page) => {
       await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots`);
-      expect(await page.getByRole('link', { name: 'Export tests CSV' }).getAttribute('href')).toBe(`/api/banks/${suite.bankId}/tests.csv`);
+      expect(await page.getByRole('link', { name: 'Export tests CSV' }).getAttribute('href')).toBe(
+        `/api/banks/${suite.bankId}/tests.csv`,
+      );
       await page.getByRole('link', { name: 'Import CSV' }).first().click();
       await page.getByRole('radio', { name: /Germination tests/ }).check();
-      await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('Import germination tests from CSV');
+      await expect
+        .poll(() => page.getByRole('heading', { level: 1 }).innerText())
+        .toBe('Import germination tests from CSV');
       expect(await page.getByText('their seeds are not taken from the lots’ stock').count()).toBe(1);
     });
     j.step('preview the file', async (page) => {
-      await page.getByLabel('CSV file').setInputFiles({ name: 'tests.csv', mimeType: 'text/csv', buffer: Buffer.from(csv()) });
+      await page
+        .getByLabel('CSV file')
+        .setInputFiles({ name: 'tests.csv', mimeType: 'text/csv', buffer: Buffer.from(csv()) });
       const preview = page.getByRole('table', { name: 'Germination tests the file would add' });
       await expect.poll(() => preview.getByRole('row').count()).toBe(2);
       const row = await preview.getByRole('row').nth(1).innerText();
@@ -63,7 +86,9 @@ describe.skipIf(!chromiumPath)('importing germination tests in Chromium', () => 
     });
     j.step('import it', async (page) => {
       await page.getByRole('button', { name: 'Import 1 germination test' }).click();
-      await expect.poll(() => page.getByRole('status').filter({ hasText: '1 germination test was added' }).count()).toBe(1);
+      await expect
+        .poll(() => page.getByRole('status').filter({ hasText: '1 germination test was added' }).count())
+        .toBe(1);
     });
     j.step('the lot page shows it with its result, and the stock is as it was', async (page) => {
       await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lot.id}`);
@@ -82,7 +107,9 @@ describe.skipIf(!chromiumPath)('importing germination tests in Chromium', () => 
       const dialog = page.getByRole('dialog', { name: 'Delete this test?' });
       await expect.poll(() => dialog.innerText()).toContain(`It took no seeds from lot ${lot.code}’s stock`);
       await dialog.getByRole('button', { name: 'Delete the test' }).click();
-      await expect.poll(() => page.getByText(`Test deleted; lot ${lot.code}’s stock is as it was.`).count()).toBe(1);
+      await expect
+        .poll(() => page.getByText(`Test deleted; lot ${lot.code}’s stock is as it was.`).count())
+        .toBe(1);
       expect(await stock()).toBe(before);
     });
   });

@@ -25,14 +25,22 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
 
   beforeAll(async () => {
     const api = request.agent(suite.server.app);
-    expect((await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status).toBe(200);
-    const lot = await api
-      .post(`/api/banks/${suite.bankId}/lots`)
-      .send({ speciesId: await speciesId(suite.server.db, 'pepper'), variety: 'Tray Snap', origin: 'saved', harvestDate: '2025-09-10', seedCount: 200 });
+    expect(
+      (await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status,
+    ).toBe(200);
+    const lot = await api.post(`/api/banks/${suite.bankId}/lots`).send({
+      speciesId: await speciesId(suite.server.db, 'pepper'),
+      variety: 'Tray Snap',
+      origin: 'saved',
+      harvestDate: '2025-09-10',
+      seedCount: 200,
+    });
     expect(lot.status).toBe(201);
-    const test = await api
-      .post(`/api/banks/${suite.bankId}/lots/${lot.body.lot.id}/tests`)
-      .send({ startDate: '2026-03-05', method: 'paper towel', trays: [{ seedsSown: 20 }, { seedsSown: 20 }, { seedsSown: 20 }] });
+    const test = await api.post(`/api/banks/${suite.bankId}/lots/${lot.body.lot.id}/tests`).send({
+      startDate: '2026-03-05',
+      method: 'paper towel',
+      trays: [{ seedsSown: 20 }, { seedsSown: 20 }, { seedsSown: 20 }],
+    });
     expect(test.status).toBe(201);
     testId = test.body.test.id;
     trayIds = (test.body.trays as { id: string }[]).map((t) => t.id);
@@ -47,10 +55,15 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
   // The grower's steps are tests of their own on one page, and the viewer's look another: one test
   // for all of it ran near the 60 s timeout on a busy machine.
   describe('when a grower photographs tray 2 on a phone, then the photo belongs to tray 2 alone and a viewer sees it without an upload', () => {
-    const trayPhotos = (page: Page) => page.locator('section').filter({ has: page.getByRole('heading', { name: 'Tray photos' }) });
-    const j = journeyOfTests('tray-photos', () => suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }), {
-      first: { title: 'sign in as grower', run: (page) => signIn(page, grower.email) },
-    });
+    const trayPhotos = (page: Page) =>
+      page.locator('section').filter({ has: page.getByRole('heading', { name: 'Tray photos' }) });
+    const j = journeyOfTests(
+      'tray-photos',
+      () => suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }),
+      {
+        first: { title: 'sign in as grower', run: (page) => signIn(page, grower.email) },
+      },
+    );
     j.step('photograph tray 2', async (page) => {
       await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
       const card = trayPhotos(page);
@@ -62,20 +75,33 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
       await card.getByRole('button', { name: 'Upload photo' }).tap();
       const thumb = card.getByRole('img', { name: /^Tray 2 of the PEP-/ });
       await thumb.waitFor();
-      await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBeGreaterThan(0);
+      await expect
+        .poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth))
+        .toBeGreaterThan(0);
     });
     it('the server stores it against tray 2 of this test, and no other tray', async () => {
-      const rows = await suite.server.db.selectFrom('photos').select(['subject', 'subject_id']).where('bank_id', '=', suite.bankId).where('subject', '=', 'tray').execute();
+      const rows = await suite.server.db
+        .selectFrom('photos')
+        .select(['subject', 'subject_id'])
+        .where('bank_id', '=', suite.bankId)
+        .where('subject', '=', 'tray')
+        .execute();
       expect(rows).toEqual([{ subject: 'tray', subject_id: trayIds[1] }]);
     });
     j.step('tray 1 has none', async (page) => {
       const card = trayPhotos(page);
       await card.getByRole('button', { name: 'Tray 1' }).tap();
       await expect.poll(() => card.getByText('No photos yet.').count()).toBe(1);
-      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(
+        PHONE.width,
+      );
     });
     it('a viewer sees the photo of tray 2 and is offered no upload', async () => {
-      const viewerContext = await suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
+      const viewerContext = await suite.browser.newContext({
+        viewport: PHONE,
+        hasTouch: true,
+        isMobile: true,
+      });
       const viewerPage = await viewerContext.newPage();
       await signIn(viewerPage, viewer.email);
       await viewerPage.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);

@@ -9,7 +9,8 @@ import { seedDemoScenario } from '../../server/demo/demo-scenario';
 import { DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/demo/seed-demo';
 import { createTestContext, type TestContext } from './context';
 
-export const chromiumPath = process.env.HILUM_CHROMIUM ?? (fs.existsSync('/usr/bin/chromium') ? '/usr/bin/chromium' : '');
+export const chromiumPath =
+  process.env.HILUM_CHROMIUM ?? (fs.existsSync('/usr/bin/chromium') ? '/usr/bin/chromium' : '');
 
 if (!chromiumPath) {
   console.warn('\n!!! chromium not found: BROWSER TESTS ARE SKIPPED (apt-get install chromium) !!!\n');
@@ -95,12 +96,24 @@ export function browserSuite(
   beforeAll(async () => {
     server = await startTestServer(options.now ? { now: options.now } : {});
     if (options.demo === 'season') {
-      const seeded = await seedDemoScenario({ db: server.db, storage: server.storage, mailer: server.mailer, clock: server.clock, appOrigin: server.baseUrl });
+      const seeded = await seedDemoScenario({
+        db: server.db,
+        storage: server.storage,
+        mailer: server.mailer,
+        clock: server.clock,
+        appOrigin: server.baseUrl,
+      });
       if (!seeded) throw new Error('the demo season was not seeded: its database already held lots');
       bankId = seeded.bankId;
     } else if (options.demo === 'people') {
       await seedDemo(server.db);
-      bankId = (await server.db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()).id;
+      bankId = (
+        await server.db
+          .selectFrom('banks')
+          .select('id')
+          .where('name', '=', DEMO_BANK_NAME)
+          .executeTakeFirstOrThrow()
+      ).id;
     }
     browser = await launchBrowser();
   }, options.timeoutMs);
@@ -110,7 +123,8 @@ export function browserSuite(
     await server?.stop();
   });
   const ready = <T>(value: T | undefined, what: string): T => {
-    if (value === undefined) throw new Error(`the browser suite has no ${what}: its beforeAll did not run or failed`);
+    if (value === undefined)
+      throw new Error(`the browser suite has no ${what}: its beforeAll did not run or failed`);
     return value;
   };
   return {
@@ -131,13 +145,24 @@ export function browserSuite(
  * opens. For tests whose subject is another page, where going through the sign-in page would also
  * wait on the bank's overview (slow in a bank of thousands of lots).
  */
-export async function signInThroughApi(context: BrowserContext, baseUrl: string, email: string, password = DEMO_PASSWORD) {
+export async function signInThroughApi(
+  context: BrowserContext,
+  baseUrl: string,
+  email: string,
+  password = DEMO_PASSWORD,
+) {
   const res = await context.request.post(`${baseUrl}/api/auth/login`, { data: { email, password } });
   if (res.status() !== 200) throw new Error(`sign-in failed: ${res.status()} ${await res.text()}`);
 }
 
 /** Signs in through the sign-in page, as a person would, and waits for the bank's overview to open. */
-export async function signInAt(page: Page, baseUrl: string, email: string, bankId: string, password = DEMO_PASSWORD) {
+export async function signInAt(
+  page: Page,
+  baseUrl: string,
+  email: string,
+  bankId: string,
+  password = DEMO_PASSWORD,
+) {
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password', { exact: true }).fill(password);

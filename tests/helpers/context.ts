@@ -37,7 +37,9 @@ async function admin<T>(run: (db: Kysely<unknown>) => Promise<T>): Promise<T> {
 }
 
 /** A fresh, empty database of its own for one test file; `migrate: false` leaves it bare. */
-export async function createTestDatabase(options: { migrate?: boolean; onQuery?: (sql: string) => void } = {}) {
+export async function createTestDatabase(
+  options: { migrate?: boolean; onQuery?: (sql: string) => void } = {},
+) {
   const name = `hilum_t_${crypto.randomBytes(6).toString('hex')}`;
   await admin((db) => sql`create database ${sql.id(name)}`.execute(db));
   const url = withDatabase(adminUrl(), name);
@@ -67,7 +69,8 @@ export function testConfig(overrides: Partial<Config> = {}): Config {
  * of its own (tests/api/auth.test.ts).
  */
 export const cheapTestHasher: PasswordHasher = {
-  hash: (password) => argon2.hash(password, { type: argon2.argon2id, memoryCost: 8, timeCost: 1, parallelism: 1 }),
+  hash: (password) =>
+    argon2.hash(password, { type: argon2.argon2id, memoryCost: 8, timeCost: 1, parallelism: 1 }),
   verify: verifyPassword,
 };
 

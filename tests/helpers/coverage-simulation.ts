@@ -5,7 +5,12 @@
 // viability one year after the last test (today, for an untested lot).
 import { normalCdf, normalQuantile } from '../../server/stats/distributions';
 import { temperatureFactor } from '../../server/stats/storage-sigma';
-import { fitSpeciesModel, MODEL_CONSTANTS, projectModel, type ModelLot } from '../../server/stats/viability-model';
+import {
+  fitSpeciesModel,
+  MODEL_CONSTANTS,
+  projectModel,
+  type ModelLot,
+} from '../../server/stats/viability-model';
 import { mulberry32 } from '../unit/stats/seeded-random';
 
 export interface CoverageRow {
@@ -50,11 +55,23 @@ export function simulateCoverage(species: number, seed = 20261202): CoverageRow[
       let age = 0.1 + rand() * 1.5;
       for (let i = 0; i < nTests; i++) {
         const sown = pick([10, 20, 25, 50, 100, 200]);
-        tests.push({ id: `${s}-${j}-${i}`, age: age * rf, alive: binomial(sown, normalCdf(k - b * age * rf)), sown });
+        tests.push({
+          id: `${s}-${j}-${i}`,
+          age: age * rf,
+          alive: binomial(sown, normalCdf(k - b * age * rf)),
+          sown,
+        });
         age += 0.4 + rand() * 2;
       }
       const target = (nTests === 0 ? age : age + 1) * rf;
-      const group = nTests === 0 ? 'untested' : nTests === 1 ? 'one test' : nTests === 2 ? 'two tests' : 'three or more tests';
+      const group =
+        nTests === 0
+          ? 'untested'
+          : nTests === 1
+            ? 'one test'
+            : nTests === 2
+              ? 'two tests'
+              : 'three or more tests';
       lots.push({ id: `${s}-${j}`, tests, k, b, rf, target, group });
     }
     const fits = fitSpeciesModel(lots, { typicalLifeYears: life });
@@ -66,7 +83,12 @@ export function simulateCoverage(species: number, seed = 20261202): CoverageRow[
       }
       const band = projectModel(r.model, lot.target);
       const truth = 100 * normalCdf(lot.k - lot.b * lot.target);
-      outcomes.push({ group: lot.group, basis: r.model.basis, covered: truth >= band.low && truth <= band.high, width: band.high - band.low });
+      outcomes.push({
+        group: lot.group,
+        basis: r.model.basis,
+        covered: truth >= band.low && truth <= band.high,
+        width: band.high - band.low,
+      });
     });
   }
   const summarise = (key: (o: (typeof outcomes)[number]) => string): CoverageRow[] => {
@@ -79,5 +101,9 @@ export function simulateCoverage(species: number, seed = 20261202): CoverageRow[
       medianWidth: [...os.map((o) => o.width)].sort((a, b) => a - b)[Math.floor(os.length / 2)]!,
     }));
   };
-  return [...summarise((o) => `tests: ${o.group}`), ...summarise((o) => `basis: ${o.basis}`), ...summarise(() => 'all lots')];
+  return [
+    ...summarise((o) => `tests: ${o.group}`),
+    ...summarise((o) => `basis: ${o.basis}`),
+    ...summarise(() => 'all lots'),
+  ];
 }

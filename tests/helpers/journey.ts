@@ -26,7 +26,9 @@ export function journey(name: string, page: Page) {
         await run();
         await page.screenshot({ path: path.join(dir, `${file}.png`), fullPage: true });
       } catch (error) {
-        await page.screenshot({ path: path.join(dir, `${file}-FAILED.png`), fullPage: true }).catch(() => undefined);
+        await page
+          .screenshot({ path: path.join(dir, `${file}-FAILED.png`), fullPage: true })
+          .catch(() => undefined);
         fs.writeFileSync(path.join(dir, `${file}-console.log`), consoleLog.join('\n'));
         throw error;
       }
@@ -130,5 +132,10 @@ export async function seriousViolations(page: Page) {
     .analyze();
   return results.violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .map((v) => ({ id: v.id, impact: v.impact, help: v.help, nodes: v.nodes.slice(0, 3).map((x) => x.target.join(' ')) }));
+    .map((v) => ({
+      id: v.id,
+      impact: v.impact,
+      help: v.help,
+      nodes: v.nodes.slice(0, 3).map((x) => x.target.join(' ')),
+    }));
 }

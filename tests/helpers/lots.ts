@@ -3,7 +3,11 @@ import type { Db } from '../../server/db/database';
 
 /** The id of a reference species by its key in shared/species-reference.ts. */
 export async function speciesId(db: Db, key: string): Promise<string> {
-  const row = await db.selectFrom('species').select('id').where('ref_key', '=', key).executeTakeFirstOrThrow();
+  const row = await db
+    .selectFrom('species')
+    .select('id')
+    .where('ref_key', '=', key)
+    .executeTakeFirstOrThrow();
   return row.id;
 }
 
@@ -31,7 +35,11 @@ export async function finishedTest(
   if (counted.status !== 201) throw new Error(`counts refused: ${JSON.stringify(counted.body)}`);
   const finished = await agent.post(`/api/banks/${bankId}/tests/${testId}/finish`).send({
     date: countDate,
-    trays: ids.map((trayId, i) => ({ trayId, abnormal: 0, ungerminated: trays[i]!.sown - trays[i]!.germinated })),
+    trays: ids.map((trayId, i) => ({
+      trayId,
+      abnormal: 0,
+      ungerminated: trays[i]!.sown - trays[i]!.germinated,
+    })),
   });
   if (finished.status !== 200) throw new Error(`finish refused: ${JSON.stringify(finished.body)}`);
   return testId;
@@ -41,10 +49,22 @@ export async function finishedTest(
  * Starts a running germination test through the API (paper towel, 24 °C), one tray per entry of
  * `seedsSown`; returns the test's id and its trays' ids in tray order.
  */
-export async function startedTest(agent: Agent, bankId: string, lotId: string, startDate: string, seedsSown: number[]) {
-  const created = await agent
-    .post(`/api/banks/${bankId}/lots/${lotId}/tests`)
-    .send({ startDate, method: 'paper towel', temperatureC: 24, trays: seedsSown.map((n) => ({ seedsSown: n })) });
+export async function startedTest(
+  agent: Agent,
+  bankId: string,
+  lotId: string,
+  startDate: string,
+  seedsSown: number[],
+) {
+  const created = await agent.post(`/api/banks/${bankId}/lots/${lotId}/tests`).send({
+    startDate,
+    method: 'paper towel',
+    temperatureC: 24,
+    trays: seedsSown.map((n) => ({ seedsSown: n })),
+  });
   if (created.status !== 201) throw new Error(`test not created: ${JSON.stringify(created.body)}`);
-  return { testId: created.body.test.id as string, trayIds: (created.body.trays as { id: string }[]).map((t) => t.id) };
+  return {
+    testId: created.body.test.id as string,
+    trayIds: (created.body.trays as { id: string }[]).map((t) => t.id),
+  };
 }

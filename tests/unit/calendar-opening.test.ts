@@ -2,7 +2,14 @@ import { describe, expect, it } from 'vitest';
 import { openingMonth, type CalendarEvent } from '../../src/features/planner/components/calendar-events';
 
 // Invented events of a season plan; the rule is Hilum's own (which month a grower should see first).
-const event = (from: string, to = from): CalendarEvent => ({ key: `${from}:${to}`, kind: 'sow', from, to, title: 'Sow', detail: '' });
+const event = (from: string, to = from): CalendarEvent => ({
+  key: `${from}:${to}`,
+  kind: 'sow',
+  from,
+  to,
+  title: 'Sow',
+  detail: '',
+});
 
 describe('the month the season calendar opens on', () => {
   const season = [event('2026-10-20'), event('2027-03-01', '2027-03-15'), event('2027-04-12', '2027-04-26')];

@@ -19,6 +19,8 @@ describe('the result of a test in words', () => {
       { id: 'a', seedsSown: 25, checks: [] },
       { id: 'b', seedsSown: 25, checks: [] },
     ]);
-    expect(resultWords(summary, '2026-03-12')).toEqual(['No counts yet. The first count is due around 12 Mar 2026.']);
+    expect(resultWords(summary, '2026-03-12')).toEqual([
+      'No counts yet. The first count is due around 12 Mar 2026.',
+    ]);
   });
 });

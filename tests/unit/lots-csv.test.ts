@@ -106,7 +106,10 @@ describe('lots CSV: export', () => {
 
   it('when a lot is treated seed, then its treated cell says yes, and no for the others', () => {
     // No cell holds a comma, so splitting on commas finds the cells.
-    const csv = lotsToCsv([lot({ treated: true, storageLocation: 'Shelf 2' }), lot({ code: 'TOM-2025-02', storageLocation: null })]);
+    const csv = lotsToCsv([
+      lot({ treated: true, storageLocation: 'Shelf 2' }),
+      lot({ code: 'TOM-2025-02', storageLocation: null }),
+    ]);
     const [header, first, second] = csv.slice(1).split('\r\n');
     const column = header!.split(',').indexOf('treated');
     expect(column).toBeGreaterThan(-1);
@@ -485,7 +488,9 @@ describe('lots CSV: import, rows', () => {
       [' yes ', true], // cells are trimmed (see the module notes)
     ];
     const good = [HEADER, ...spellings.map(([cell]) => line({ ...GOOD, treated: cell }))].join('\r\n');
-    expect(rowsOf(parseLotsCsv(good, resolve)).map((r) => r.treated)).toEqual(spellings.map(([, value]) => value));
+    expect(rowsOf(parseLotsCsv(good, resolve)).map((r) => r.treated)).toEqual(
+      spellings.map(([, value]) => value),
+    );
 
     const bad = [
       HEADER,
@@ -498,7 +503,9 @@ describe('lots CSV: import, rows', () => {
       [3, 'treated'],
       [4, 'treated'],
     ]);
-    expect(errors[0]?.message).toBe('Use yes (the seed is coated with fungicide or another treatment) or no; empty means no.');
+    expect(errors[0]?.message).toBe(
+      'Use yes (the seed is coated with fungicide or another treatment) or no; empty means no.',
+    );
   });
 
   it('when a file from before the treated column is imported, then it parses and no lot is treated', () => {

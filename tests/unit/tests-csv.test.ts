@@ -18,8 +18,12 @@ import { uncountedAtFinish } from '../../server/modules/germination/count-rules'
 
 const BOM = '\uFEFF';
 const LOTS: Record<string, string> = { 'tom-1': 'lot-tom', 'mar-2': 'lot-mar' };
-const context: TestCsvContext = { today: '2026-03-01', resolveLot: (code) => LOTS[code.toLowerCase()] ?? null };
-const HEADER = 'test,lot_code,start_date,method,tray,seeds_sown,check_date,cumulative,finished_on,abnormal,ungerminated';
+const context: TestCsvContext = {
+  today: '2026-03-01',
+  resolveLot: (code) => LOTS[code.toLowerCase()] ?? null,
+};
+const HEADER =
+  'test,lot_code,start_date,method,tray,seeds_sown,check_date,cumulative,finished_on,abnormal,ungerminated';
 const file = (...lines: string[]) => [HEADER, ...lines].join('\r\n');
 
 function finished(): TestCsvTest {
@@ -39,8 +43,31 @@ function finished(): TestCsvTest {
     // 7 normal seedlings of the 10 seeds in the figures (tray 2 is set aside): 70%.
     germinationPercent: 70,
     trays: [
-      { position: 1, seedsSown: 10, abnormal: 1, ungerminated: 2, fresh: 1, dead: 1, hard: 0, setAsideReason: null, counts: [{ date: '2026-02-05', cumulative: 4 }, { date: '2026-02-10', cumulative: 7 }] },
-      { position: 2, seedsSown: 10, abnormal: null, ungerminated: null, fresh: null, dead: null, hard: null, setAsideReason: '-dried out', counts: [] },
+      {
+        position: 1,
+        seedsSown: 10,
+        abnormal: 1,
+        ungerminated: 2,
+        fresh: 1,
+        dead: 1,
+        hard: 0,
+        setAsideReason: null,
+        counts: [
+          { date: '2026-02-05', cumulative: 4 },
+          { date: '2026-02-10', cumulative: 7 },
+        ],
+      },
+      {
+        position: 2,
+        seedsSown: 10,
+        abnormal: null,
+        ungerminated: null,
+        fresh: null,
+        dead: null,
+        hard: null,
+        setAsideReason: '-dried out',
+        counts: [],
+      },
     ],
   };
 }
@@ -80,7 +107,10 @@ describe('germination tests CSV, export', () => {
   });
 
   it('when a file has only the header row, then it reads as no tests', () => {
-    expect(parseTestsCsv(`${BOM}${TEST_CSV_COLUMNS.join(',')}\r\n`, context)).toEqual({ ok: true, tests: [] });
+    expect(parseTestsCsv(`${BOM}${TEST_CSV_COLUMNS.join(',')}\r\n`, context)).toEqual({
+      ok: true,
+      tests: [],
+    });
   });
 });
 
@@ -160,11 +190,23 @@ describe('germination tests CSV, import checks', () => {
   });
 
   it('when a test starts before its lot was harvested, then that test’s first line says so', () => {
-    const withHarvest: TestCsvContext = { ...context, harvestDateOf: (lotId) => (lotId === 'lot-tom' ? '2026-02-10' : null) };
-    const result = parseTestsCsv(file('T1,TOM-1,2026-02-01,paper towel,1,10,,,,,', 'T2,MAR-2,2026-01-15,paper towel,1,10,,,,,'), withHarvest);
+    const withHarvest: TestCsvContext = {
+      ...context,
+      harvestDateOf: (lotId) => (lotId === 'lot-tom' ? '2026-02-10' : null),
+    };
+    const result = parseTestsCsv(
+      file('T1,TOM-1,2026-02-01,paper towel,1,10,,,,,', 'T2,MAR-2,2026-01-15,paper towel,1,10,,,,,'),
+      withHarvest,
+    );
     expect(result).toEqual({
       ok: false,
-      errors: [{ line: 2, column: 'start_date', message: expect.stringMatching(/before lot TOM-1 was harvested \(2026-02-10\)/) }],
+      errors: [
+        {
+          line: 2,
+          column: 'start_date',
+          message: expect.stringMatching(/before lot TOM-1 was harvested \(2026-02-10\)/),
+        },
+      ],
     });
   });
 });
@@ -191,7 +233,12 @@ describe('germination tests CSV, set-aside trays and the stored percent', () => 
   });
 
   it('when no tray is in the figures yet, then germination_percent is empty', () => {
-    const test = { ...finished(), finishedOn: null, germinationPercent: null, trays: [{ ...finished().trays[1]!, setAsideReason: null }] };
+    const test = {
+      ...finished(),
+      finishedOn: null,
+      germinationPercent: null,
+      trays: [{ ...finished().trays[1]!, setAsideReason: null }],
+    };
     const [, record] = testsToCsv([test]).slice(1).split('\r\n');
     expect(record!.endsWith(',2,10,,,,,,,,,,')).toBe(true);
   });
@@ -207,7 +254,15 @@ describe('germination tests CSV, set-aside trays and the stored percent', () => 
       context,
     );
     if (!result.ok) throw new Error(JSON.stringify(result.errors));
-    expect(result.tests[0]!.trays.map((t) => [t.position, t.setAsideReason, t.abnormal, t.ungerminated, t.counts.length])).toEqual([
+    expect(
+      result.tests[0]!.trays.map((t) => [
+        t.position,
+        t.setAsideReason,
+        t.abnormal,
+        t.ungerminated,
+        t.counts.length,
+      ]),
+    ).toEqual([
       [1, null, 1, 3, 1],
       [2, 'Spilled', null, null, 2],
       [3, 'Dried out', null, null, 0],
@@ -215,7 +270,13 @@ describe('germination tests CSV, set-aside trays and the stored percent', () => 
   });
 
   it('when a running test has a tray set aside, then it reads back with its reason', () => {
-    const result = parseTestsCsv(setAsideFile('r,MAR-2,2026-02-01,paper towel,1,10,2026-02-05,2,,,,', 'r,MAR-2,2026-02-01,paper towel,2,10,,,,,,Eaten by mice'), context);
+    const result = parseTestsCsv(
+      setAsideFile(
+        'r,MAR-2,2026-02-01,paper towel,1,10,2026-02-05,2,,,,',
+        'r,MAR-2,2026-02-01,paper towel,2,10,,,,,,Eaten by mice',
+      ),
+      context,
+    );
     if (!result.ok) throw new Error(JSON.stringify(result.errors));
     expect(result.tests[0]!.trays.map((t) => t.setAsideReason)).toEqual([null, 'Eaten by mice']);
   });
@@ -252,14 +313,27 @@ describe('germination tests CSV, set-aside trays and the stored percent', () => 
   it('when every tray of a finished test is set aside, then the test is refused: it has no result', () => {
     expect(
       errorsOf(
-        setAsideFile('all,TOM-1,2026-02-01,paper towel,1,10,2026-02-05,2,2026-02-10,,,mice', 'all,TOM-1,2026-02-01,paper towel,2,10,,,2026-02-10,,,spilled'),
+        setAsideFile(
+          'all,TOM-1,2026-02-01,paper towel,1,10,2026-02-05,2,2026-02-10,,,mice',
+          'all,TOM-1,2026-02-01,paper towel,2,10,,,2026-02-10,,,spilled',
+        ),
       ),
-    ).toEqual([[2, 'set_aside_reason', 'Test "all" is finished but every tray is set aside, so it has no result: keep at least one counted tray, or leave the test out of the file.']]);
+    ).toEqual([
+      [
+        2,
+        'set_aside_reason',
+        'Test "all" is finished but every tray is set aside, so it has no result: keep at least one counted tray, or leave the test out of the file.',
+      ],
+    ]);
   });
 
   it('when a counted tray of a finished test lacks its finish values, then the message offers a reason instead', () => {
     expect(errorsOf(setAsideFile('m,TOM-1,2026-02-01,paper towel,1,10,2026-02-09,6,2026-02-10,,,'))).toEqual([
-      [2, 'abnormal', 'Test "m" is finished: give the abnormal and ungerminated seeds of tray 1, or a set_aside_reason to leave it out.'],
+      [
+        2,
+        'abnormal',
+        'Test "m" is finished: give the abnormal and ungerminated seeds of tray 1, or a set_aside_reason to leave it out.',
+      ],
     ]);
   });
 
@@ -274,7 +348,11 @@ describe('germination tests CSV, set-aside trays and the stored percent', () => 
         ),
       ),
     ).toEqual([
-      [4, 'set_aside_reason', 'Tray 1 gives set_aside_reason spilled on line 2; every line of a tray gives the same.'],
+      [
+        4,
+        'set_aside_reason',
+        'Tray 1 gives set_aside_reason spilled on line 2; every line of a tray gives the same.',
+      ],
       [5, 'set_aside_reason', 'Keep the reason under 200 characters.'],
     ]);
   });

@@ -20,7 +20,14 @@ export interface AuthServiceDeps {
   hasher?: PasswordHasher;
 }
 
-export function createAuthService({ db, clock, signer, mailer, appOrigin, hasher = argon2idHasher }: AuthServiceDeps) {
+export function createAuthService({
+  db,
+  clock,
+  signer,
+  mailer,
+  appOrigin,
+  hasher = argon2idHasher,
+}: AuthServiceDeps) {
   // A hash of a random string by the same hasher, so an unknown e-mail costs the same time as a wrong password.
   const decoyHash = lazyDecoyHash(hasher);
 
@@ -103,7 +110,11 @@ export function createAuthService({ db, clock, signer, mailer, appOrigin, hasher
         const now = clock.now();
         const reset = await users.consumePasswordReset(trx, hashLinkToken(token), now);
         if (!reset) {
-          throw new AppError(400, 'invalid_token', 'This reset link has expired or was already used. Ask for a new one.');
+          throw new AppError(
+            400,
+            'invalid_token',
+            'This reset link has expired or was already used. Ask for a new one.',
+          );
         }
         await users.setPassword(trx, reset.user_id, passwordHash, now);
         await users.deleteUserSessions(trx, reset.user_id);

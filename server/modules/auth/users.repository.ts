@@ -29,7 +29,10 @@ export function setPassword(db: DbOrTx, userId: string, passwordHash: string, no
     .execute();
 }
 
-export function insertSession(db: DbOrTx, session: { userId: string; expiresAt: Date; userAgent: string | null; now: Date }) {
+export function insertSession(
+  db: DbOrTx,
+  session: { userId: string; expiresAt: Date; userAgent: string | null; now: Date },
+) {
   return db
     .insertInto('sessions')
     .values({
@@ -61,10 +64,18 @@ export function membershipsOf(db: DbOrTx, userId: string) {
     .execute();
 }
 
-export function insertPasswordReset(db: DbOrTx, reset: { userId: string; tokenHash: string; expiresAt: Date; now: Date }) {
+export function insertPasswordReset(
+  db: DbOrTx,
+  reset: { userId: string; tokenHash: string; expiresAt: Date; now: Date },
+) {
   return db
     .insertInto('password_resets')
-    .values({ user_id: reset.userId, token_hash: reset.tokenHash, expires_at: reset.expiresAt, created_at: reset.now })
+    .values({
+      user_id: reset.userId,
+      token_hash: reset.tokenHash,
+      expires_at: reset.expiresAt,
+      created_at: reset.now,
+    })
     .execute();
 }
 

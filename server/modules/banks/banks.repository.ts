@@ -1,10 +1,18 @@
 import type { DbOrTx } from '../../db/database';
 import type { BankUpdate, Role } from '../../db/schema';
 
-export function insertBank(db: DbOrTx, bank: { name: string; lastFrost: string | null; firstFrost: string | null; timeZone?: string | undefined }) {
+export function insertBank(
+  db: DbOrTx,
+  bank: { name: string; lastFrost: string | null; firstFrost: string | null; timeZone?: string | undefined },
+) {
   return db
     .insertInto('banks')
-    .values({ name: bank.name, last_frost: bank.lastFrost, first_frost: bank.firstFrost, ...(bank.timeZone ? { time_zone: bank.timeZone } : {}) })
+    .values({
+      name: bank.name,
+      last_frost: bank.lastFrost,
+      first_frost: bank.firstFrost,
+      ...(bank.timeZone ? { time_zone: bank.timeZone } : {}),
+    })
     .returningAll()
     .executeTakeFirstOrThrow();
 }
@@ -19,7 +27,12 @@ export function bankName(db: DbOrTx, bankId: string) {
 }
 
 export function updateBank(db: DbOrTx, bankId: string, changes: BankUpdate) {
-  return db.updateTable('banks').set(changes).where('id', '=', bankId).returningAll().executeTakeFirstOrThrow();
+  return db
+    .updateTable('banks')
+    .set(changes)
+    .where('id', '=', bankId)
+    .returningAll()
+    .executeTakeFirstOrThrow();
 }
 
 export function deleteBank(db: DbOrTx, bankId: string) {
@@ -64,7 +77,12 @@ export async function lockOwners(db: DbOrTx, bankId: string): Promise<number> {
 }
 
 export function setRole(db: DbOrTx, bankId: string, userId: string, role: Role) {
-  return db.updateTable('memberships').set({ role }).where('bank_id', '=', bankId).where('user_id', '=', userId).execute();
+  return db
+    .updateTable('memberships')
+    .set({ role })
+    .where('bank_id', '=', bankId)
+    .where('user_id', '=', userId)
+    .execute();
 }
 
 export function deleteMembership(db: DbOrTx, bankId: string, userId: string) {

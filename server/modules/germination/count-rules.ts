@@ -21,7 +21,13 @@ interface SavedCount {
 }
 
 /** The rule one tray's cumulative count breaks against its seeds and its other check dates, if any. */
-function trayProblem(tray: Tray, cumulative: number, date: string, startDate: string, saved: SavedCount[]): string | null {
+function trayProblem(
+  tray: Tray,
+  cumulative: number,
+  date: string,
+  startDate: string,
+  saved: SavedCount[],
+): string | null {
   const label = `Tray ${tray.position}`;
   const aboveSown = seedlingsAboveSown(tray.position, cumulative, tray.seeds_sown);
   if (aboveSown) return aboveSown;
@@ -46,14 +52,22 @@ function trayProblem(tray: Tray, cumulative: number, date: string, startDate: st
  * listed twice, above its seeds sown, sprouted on the start date, or out of cumulative order with
  * its counts on other dates (`saved`, sorted by date). Empty when the whole body may be saved.
  */
-export function countProblems(body: CountsBody, startDate: string, trays: Tray[], saved: SavedCount[]): CountProblem[] {
+export function countProblems(
+  body: CountsBody,
+  startDate: string,
+  trays: Tray[],
+  saved: SavedCount[],
+): CountProblem[] {
   const byId = new Map(trays.map((tr) => [tr.id, tr]));
   const seen = new Set<string>();
   const problems: CountProblem[] = [];
   for (const [index, entry] of body.trays.entries()) {
     const tray = byId.get(entry.trayId);
     if (!tray) {
-      problems.push({ field: `trays.${index}.trayId`, message: `Entry ${index + 1} is not a tray of this test.` });
+      problems.push({
+        field: `trays.${index}.trayId`,
+        message: `Entry ${index + 1} is not a tray of this test.`,
+      });
       continue;
     }
     const field = `trays.${index}.cumulative`;
@@ -118,7 +132,11 @@ export function finishProblem(
  * A test sows seed that exists: it cannot start before the lot was harvested. A lot known only by
  * its packed-for season has no harvest day to check against.
  */
-export function startBeforeHarvest(startDate: string, harvestDate: string | null, lotCode: string): string | null {
+export function startBeforeHarvest(
+  startDate: string,
+  harvestDate: string | null,
+  lotCode: string,
+): string | null {
   if (harvestDate === null || startDate >= harvestDate) return null;
   return `The test starts on ${startDate}, before lot ${lotCode} was harvested (${harvestDate}). Check the start date, or the lot's harvest date.`;
 }

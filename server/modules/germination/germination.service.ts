@@ -1,6 +1,13 @@
 import type { Selectable, Updateable } from 'kysely';
 import type { z } from 'zod';
-import { storedResultSchema, type CountsBody, type CreateTestBody, type FinishBody, type TestDetail, type updateTestBodySchema } from '../../../shared/schemas/germination';
+import {
+  storedResultSchema,
+  type CountsBody,
+  type CreateTestBody,
+  type FinishBody,
+  type TestDetail,
+  type updateTestBodySchema,
+} from '../../../shared/schemas/germination';
 import { addDays, daysBetween } from '../../../shared/dates';
 import { bankToday, type Clock } from '../../clock';
 import type { Db, DbOrTx } from '../../db/database';
@@ -25,9 +32,13 @@ function cpInterval(germinated: number, sown: number, confidence: number) {
 export interface GerminationDeps {
   db: Db;
   clock: Clock;
-  removeSubjectPhotos: (db: DbOrTx, bankId: string, subject: 'tray', subjectId: string) => Promise<() => Promise<void>>;
+  removeSubjectPhotos: (
+    db: DbOrTx,
+    bankId: string,
+    subject: 'tray',
+    subjectId: string,
+  ) => Promise<() => Promise<void>>;
 }
-
 
 /** What a test is, in the API's names (the detail and the CSV export both give it). */
 export function testFields(t: repo.TestWithLot) {
@@ -72,7 +83,12 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
     return row;
   }
 
-  async function detail(bankId: string, testId: string, intervalMethod: IntervalMethod = 'wilson', on: DbOrTx = db): Promise<TestDetail> {
+  async function detail(
+    bankId: string,
+    testId: string,
+    intervalMethod: IntervalMethod = 'wilson',
+    on: DbOrTx = db,
+  ): Promise<TestDetail> {
     const t = await loadTest(on, bankId, testId);
     const { trays, counts } = await repo.traysAndCounts(on, [testId]);
     const species = await findSpecies(on, bankId, t.species_id);
@@ -86,9 +102,14 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
     // deletion gives back.
     const seedsTaken = await repo.seedsTakenBy(on, testId);
     // The stored result (test-results.ts); one stored under an older definition is brought up to date.
-    const stored = storedResultSchema.parse(t.result_version === RESULT_VERSION && t.result !== null ? t.result : await storeResult(on, testId));
+    const stored = storedResultSchema.parse(
+      t.result_version === RESULT_VERSION && t.result !== null ? t.result : await storeResult(on, testId),
+    );
     const summary =
-      intervalMethod === 'clopper-pearson' && stored.interval && stored.sown !== null && stored.germinated !== null
+      intervalMethod === 'clopper-pearson' &&
+      stored.interval &&
+      stored.sown !== null &&
+      stored.germinated !== null
         ? { ...stored, interval: cpInterval(stored.germinated, stored.sown, stored.interval.confidence) }
         : stored;
     return {
@@ -103,7 +124,12 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         createdAt: t.created_at.toISOString(),
       },
       trays: trays.map((tr) => ({ id: tr.id, ...trayFields(tr) })),
-      counts: counts.map((c) => ({ trayId: c.tray_id, date: c.check_date, day: daysBetween(t.start_date, c.check_date), cumulative: c.cumulative })),
+      counts: counts.map((c) => ({
+        trayId: c.tray_id,
+        date: c.check_date,
+        day: daysBetween(t.start_date, c.check_date),
+        cumulative: c.cumulative,
+      })),
       result: { ...summary, summary: resultWords(summary, schedule.firstCountDate, t.status === 'finished') },
     };
   }
@@ -119,7 +145,9 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
 
     async create(bankId: string, lotId: string, userId: string, body: CreateTestBody) {
       if (body.startDate > (await today(db, bankId))) {
-        throw unprocessable('A test cannot start in the future.', { startDate: 'Use today or an earlier date.' });
+        throw unprocessable('A test cannot start in the future.', {
+          startDate: 'Use today or an earlier date.',
+        });
       }
       const testId = await db.transaction().execute(async (trx) => {
         const lot = await lockLot(trx, bankId, lotId);
@@ -148,7 +176,10 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
           notes: body.notes ?? null,
           created_by: userId,
         });
-        await repo.insertTrays(trx, body.trays.map((t, i) => ({ test_id: test.id, position: i + 1, seeds_sown: t.seedsSown })));
+        await repo.insertTrays(
+          trx,
+          body.trays.map((t, i) => ({ test_id: test.id, position: i + 1, seeds_sown: t.seedsSown })),
+        );
         await insertMovement(trx, {
           lot_id: lotId,
           kind: 'test',
@@ -195,11 +226,22 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         const t = await loadTest(trx, bankId, testId, true);
         assertRunning(t);
         if (body.date < t.start_date) {
-          throw unprocessable(`A count cannot be dated before the test started (${t.start_date}).`, { date: 'Use a date on or after the start.' });
+          throw unprocessable(`A count cannot be dated before the test started (${t.start_date}).`, {
+            date: 'Use a date on or after the start.',
+          });
         }
-        if (body.date > (await today(trx, bankId))) throw unprocessable('A count cannot be dated in the future.', { date: 'Use today or an earlier date.' });
+        if (body.date > (await today(trx, bankId)))
+          throw unprocessable('A count cannot be dated in the future.', {
+            date: 'Use today or an earlier date.',
+          });
         const trays = await repo.traysOf(trx, testId);
-        const saved = trays.length ? await repo.countsOtherThan(trx, trays.map((tr) => tr.id), body.date) : [];
+        const saved = trays.length
+          ? await repo.countsOtherThan(
+              trx,
+              trays.map((tr) => tr.id),
+              body.date,
+            )
+          : [];
         const problems = countProblems(body, t.start_date, trays, saved);
         if (problems.length > 0) {
           const n = problems.length;
@@ -234,11 +276,21 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         const t = await loadTest(trx, bankId, testId, true);
         assertRunning(t);
         const trays = await repo.traysInOrder(trx, testId);
-        const counts = await repo.countsOfTrays(trx, trays.map((tr) => tr.id));
+        const counts = await repo.countsOfTrays(
+          trx,
+          trays.map((tr) => tr.id),
+        );
         const lastDate = counts.at(-1)?.check_date ?? t.start_date;
-        if (body.date < lastDate) throw unprocessable(`The test cannot finish before its last count (${lastDate}).`, { date: `On or after ${lastDate}.` });
-        if (body.date > (await today(trx, bankId))) throw unprocessable('A test cannot finish in the future.', { date: 'Use today or an earlier date.' });
-        if (body.trays.some((e) => !trays.some((tr) => tr.id === e.trayId))) throw unprocessable('A tray listed is not part of this test.');
+        if (body.date < lastDate)
+          throw unprocessable(`The test cannot finish before its last count (${lastDate}).`, {
+            date: `On or after ${lastDate}.`,
+          });
+        if (body.date > (await today(trx, bankId)))
+          throw unprocessable('A test cannot finish in the future.', {
+            date: 'Use today or an earlier date.',
+          });
+        if (body.trays.some((e) => !trays.some((tr) => tr.id === e.trayId)))
+          throw unprocessable('A tray listed is not part of this test.');
         const given = new Map(body.trays.map((e, i) => [e.trayId, { ...e, index: i }]));
         let inFigures = 0;
         for (const tray of trays) {
@@ -246,24 +298,55 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
           if (!entry) {
             // A tray set aside while the test ran stays aside; any other needs its figures.
             if (tray.set_aside_reason !== null) continue;
-            throw unprocessable(`Give the abnormal and ungerminated seeds of tray ${tray.position}, or a reason to set it aside.`);
+            throw unprocessable(
+              `Give the abnormal and ungerminated seeds of tray ${tray.position}, or a reason to set it aside.`,
+            );
           }
           if (entry.setAsideReason !== undefined) {
-            await repo.updateTray(trx, tray.id, { set_aside_reason: entry.setAsideReason, abnormal: null, ungerminated: null, fresh: null, dead: null, hard: null });
+            await repo.updateTray(trx, tray.id, {
+              set_aside_reason: entry.setAsideReason,
+              abnormal: null,
+              ungerminated: null,
+              fresh: null,
+              dead: null,
+              hard: null,
+            });
             continue;
           }
           const mine = counts.filter((c) => c.tray_id === tray.id);
-          if (mine.length === 0) throw unprocessable(uncountedAtFinish(tray.position), { [`trays.${entry.index}.setAsideReason`]: 'Count this tray first, or set it aside.' });
-          const figures = { abnormal: entry.abnormal ?? 0, ungerminated: entry.ungerminated ?? 0, fresh: entry.fresh, dead: entry.dead, hard: entry.hard };
+          if (mine.length === 0)
+            throw unprocessable(uncountedAtFinish(tray.position), {
+              [`trays.${entry.index}.setAsideReason`]: 'Count this tray first, or set it aside.',
+            });
+          const figures = {
+            abnormal: entry.abnormal ?? 0,
+            ungerminated: entry.ungerminated ?? 0,
+            fresh: entry.fresh,
+            dead: entry.dead,
+            hard: entry.hard,
+          };
           const problem = finishProblem(tray, mine.at(-1)!.cumulative, figures);
-          if (problem) throw unprocessable(problem.message, { [`trays.${entry.index}.${problem.field}`]: problem.hint });
-          await repo.updateTray(trx, tray.id, { ...figures, fresh: figures.fresh ?? null, dead: figures.dead ?? null, hard: figures.hard ?? null, set_aside_reason: null });
+          if (problem)
+            throw unprocessable(problem.message, { [`trays.${entry.index}.${problem.field}`]: problem.hint });
+          await repo.updateTray(trx, tray.id, {
+            ...figures,
+            fresh: figures.fresh ?? null,
+            dead: figures.dead ?? null,
+            hard: figures.hard ?? null,
+            set_aside_reason: null,
+          });
           inFigures += 1;
         }
         if (inFigures === 0) {
-          throw unprocessable('Every tray is set aside, so the test has no result. Keep at least one counted tray, or delete the test if it failed.');
+          throw unprocessable(
+            'Every tray is set aside, so the test has no result. Keep at least one counted tray, or delete the test if it failed.',
+          );
         }
-        await repo.updateTest(trx, testId, { status: 'finished', finished_on: body.date, updated_at: clock.now() });
+        await repo.updateTest(trx, testId, {
+          status: 'finished',
+          finished_on: body.date,
+          updated_at: clock.now(),
+        });
         await storeResult(trx, testId);
       });
       return detail(bankId, testId);

@@ -13,14 +13,18 @@ import * as repo from './germination.repository';
  */
 export const RESULT_VERSION = 2;
 
-
 /** The summaries of the given tests, computed from their trays and counts as they stand in `on`. */
 async function computeResults(on: DbOrTx, testIds: string[]): Promise<Map<string, TestSummary>> {
   const out = new Map<string, TestSummary>();
   if (testIds.length === 0) return out;
   const tests = await repo.testStartDates(on, testIds);
   const trays = await repo.traysOfTests(on, testIds);
-  const counts = trays.length ? await repo.countsOfTrays(on, trays.map((t) => t.id)) : [];
+  const counts = trays.length
+    ? await repo.countsOfTrays(
+        on,
+        trays.map((t) => t.id),
+      )
+    : [];
   const countsByTray = new Map<string, typeof counts>();
   for (const c of counts) countsByTray.set(c.tray_id, [...(countsByTray.get(c.tray_id) ?? []), c]);
   for (const test of tests) {
@@ -31,7 +35,10 @@ async function computeResults(on: DbOrTx, testIds: string[]): Promise<Map<string
         mine.map((tr) => ({
           id: tr.id,
           seedsSown: tr.seeds_sown,
-          checks: (countsByTray.get(tr.id) ?? []).map((c) => ({ day: daysBetween(test.start_date, c.check_date), cumulative: c.cumulative })),
+          checks: (countsByTray.get(tr.id) ?? []).map((c) => ({
+            day: daysBetween(test.start_date, c.check_date),
+            cumulative: c.cumulative,
+          })),
           setAsideReason: tr.set_aside_reason,
           abnormal: tr.abnormal,
           ungerminated: tr.ungerminated,
@@ -84,7 +91,10 @@ export async function refreshStaleResults(db: DbOrTx, batchSize = 500): Promise<
   for (;;) {
     const stale = await repo.staleTestIds(db, RESULT_VERSION, batchSize);
     if (stale.length === 0) return done;
-    await storeResults(db, stale.map((s) => s.id));
+    await storeResults(
+      db,
+      stale.map((s) => s.id),
+    );
     done += stale.length;
   }
 }

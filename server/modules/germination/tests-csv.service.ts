@@ -21,7 +21,13 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
     return new Map(rows.map((r) => [r.code.toLowerCase(), r]));
   }
 
-  async function insertTest(trx: DbOrTx, bankId: string, userId: string, t: ParsedTestCsvTest, createdAt: Date) {
+  async function insertTest(
+    trx: DbOrTx,
+    bankId: string,
+    userId: string,
+    t: ParsedTestCsvTest,
+    createdAt: Date,
+  ) {
     const test = await repo.insertTest(trx, {
       bank_id: bankId,
       lot_id: t.lotId,
@@ -51,7 +57,15 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
         set_aside_reason: tray.setAsideReason,
       });
       if (tray.counts.length > 0) {
-        await repo.insertCounts(trx, tray.counts.map((c) => ({ tray_id: row.id, check_date: c.date, cumulative: c.cumulative, created_by: userId })));
+        await repo.insertCounts(
+          trx,
+          tray.counts.map((c) => ({
+            tray_id: row.id,
+            check_date: c.date,
+            cumulative: c.cumulative,
+            created_by: userId,
+          })),
+        );
       }
     }
     return test.id;
@@ -61,12 +75,18 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
     /** Every test of the bank, by lot code, start date and the order they were logged. */
     async exportCsv(bankId: string): Promise<string> {
       const tests = await repo.testsWithLotByCode(db, bankId);
-      const { trays, counts } = await repo.traysAndCounts(db, tests.map((t) => t.id));
+      const { trays, counts } = await repo.traysAndCounts(
+        db,
+        tests.map((t) => t.id),
+      );
       // The stored result every screen shows; one stored under an older definition is brought up
       // to date first, as the test page does.
-      const stale = tests.filter((t) => t.result_version !== RESULT_VERSION || t.result === null).map((t) => t.id);
+      const stale = tests
+        .filter((t) => t.result_version !== RESULT_VERSION || t.result === null)
+        .map((t) => t.id);
       const fresh = await storeResults(db, stale);
-      const percentOf = (t: (typeof tests)[number]) => storedResultSchema.parse(fresh.get(t.id) ?? t.result).percentRounded;
+      const percentOf = (t: (typeof tests)[number]) =>
+        storedResultSchema.parse(fresh.get(t.id) ?? t.result).percentRounded;
       const rows: TestCsvTest[] = tests.map((t) => ({
         ...testFields(t),
         germinationPercent: percentOf(t),
@@ -74,7 +94,9 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
           .filter((tr) => tr.test_id === t.id)
           .map((tr) => ({
             ...trayFields(tr),
-            counts: counts.filter((c) => c.tray_id === tr.id).map((c) => ({ date: c.check_date, cumulative: c.cumulative })),
+            counts: counts
+              .filter((c) => c.tray_id === tr.id)
+              .map((c) => ({ date: c.check_date, cumulative: c.cumulative })),
           })),
       }));
       return testsToCsv(rows);
@@ -118,7 +140,8 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
         // export sorts them by when they were logged).
         const now = clock.now().getTime();
         const ids: string[] = [];
-        for (const [i, t] of parsed.tests.entries()) ids.push(await insertTest(trx, bankId, userId, t, new Date(now + i)));
+        for (const [i, t] of parsed.tests.entries())
+          ids.push(await insertTest(trx, bankId, userId, t, new Date(now + i)));
         await storeResults(trx, ids);
         return parsed.tests.length;
       });

@@ -33,8 +33,21 @@
  *   the lot's seeds on hand already reflect them (the service says so too).
  */
 import { z } from 'zod';
-import { createTestBodySchema, pretreatmentSchema, setAsideReasonSchema, type CreateTestBody } from '../../../shared/schemas/germination';
-import { blankToNull, choice, decimal, optionalDate, optionalText, requiredText, wholeNumber } from '../../csv/csv-cells';
+import {
+  createTestBodySchema,
+  pretreatmentSchema,
+  setAsideReasonSchema,
+  type CreateTestBody,
+} from '../../../shared/schemas/germination';
+import {
+  blankToNull,
+  choice,
+  decimal,
+  optionalDate,
+  optionalText,
+  requiredText,
+  wholeNumber,
+} from '../../csv/csv-cells';
 import {
   columnOf,
   numberCell,
@@ -80,7 +93,14 @@ export const TEST_CSV_COLUMNS = [
 ] as const;
 export type TestCsvColumn = (typeof TEST_CSV_COLUMNS)[number];
 
-const REQUIRED_COLUMNS: readonly TestCsvColumn[] = ['test', 'lot_code', 'start_date', 'method', 'tray', 'seeds_sown'];
+const REQUIRED_COLUMNS: readonly TestCsvColumn[] = [
+  'test',
+  'lot_code',
+  'start_date',
+  'method',
+  'tray',
+  'seeds_sown',
+];
 export const MAX_TEST_CSV_RECORDS = 20_000;
 
 type Pretreatment = z.infer<typeof pretreatmentSchema>;
@@ -194,20 +214,36 @@ export function testsToCsv(tests: TestCsvTest[]): string {
 // One record's cells
 
 const count = (what: string) =>
-  z.preprocess(blankToNull, wholeNumber(0, 10_000, `Use a whole number of ${what} from 0 to 10,000, or leave it empty.`).nullable());
+  z.preprocess(
+    blankToNull,
+    wholeNumber(0, 10_000, `Use a whole number of ${what} from 0 to 10,000, or leave it empty.`).nullable(),
+  );
 
 const recordSchema = z
   .object({
-    test: requiredText(120, 'The test reference', 'Give the test this line belongs to (lines of one test share it).'),
+    test: requiredText(
+      120,
+      'The test reference',
+      'Give the test this line belongs to (lines of one test share it).',
+    ),
     lot_code: requiredText(40, 'The lot code', 'Give the code of the lot tested, as in this bank.'),
-    start_date: z.iso.date({ message: 'Use the day the test started, a date that exists written YYYY-MM-DD, like 2026-02-20.' }),
+    start_date: z.iso.date({
+      message: 'Use the day the test started, a date that exists written YYYY-MM-DD, like 2026-02-20.',
+    }),
     method: requiredText(80, 'The method', 'Say how the seeds were tested, like paper towel.'),
     medium: optionalText(120, 'The medium'),
     temperature_c: z.preprocess(
       blankToNull,
-      decimal(-5, 45, 'Use a temperature in °C from -5 to 45 (a point for decimals), or leave it empty.').nullable(),
+      decimal(
+        -5,
+        45,
+        'Use a temperature in °C from -5 to 45 (a point for decimals), or leave it empty.',
+      ).nullable(),
     ),
-    light_hours: z.preprocess(blankToNull, decimal(0, 24, 'Use hours of light a day from 0 to 24, or leave it empty.').nullable()),
+    light_hours: z.preprocess(
+      blankToNull,
+      decimal(0, 24, 'Use hours of light a day from 0 to 24, or leave it empty.').nullable(),
+    ),
     pretreatment: z.preprocess(
       (v) => (v === '' ? 'none' : v),
       choice(
@@ -243,7 +279,8 @@ const recordSchema = z
       ctx.addIssue({
         code: 'custom',
         path: [c.check_date === null ? 'check_date' : 'cumulative'],
-        message: 'Give both the check date and the cumulative count, or leave both empty (a tray not yet counted).',
+        message:
+          'Give both the check date and the cumulative count, or leave both empty (a tray not yet counted).',
       });
     }
   });
@@ -265,14 +302,22 @@ function recordErrors(context: TestCsvContext, c: z.infer<typeof recordSchema>, 
   const errors: CsvError[] = [];
   const future = (column: 'start_date' | 'check_date' | 'finished_on', date: string | null) => {
     if (date !== null && date > context.today) {
-      errors.push({ line, column, message: `${date} is after today (${context.today} in the bank's time zone).` });
+      errors.push({
+        line,
+        column,
+        message: `${date} is after today (${context.today} in the bank's time zone).`,
+      });
     }
   };
   future('start_date', c.start_date);
   future('check_date', c.check_date);
   future('finished_on', c.finished_on);
   if (c.check_date !== null && c.check_date < c.start_date) {
-    errors.push({ line, column: 'check_date', message: `A count cannot be dated before the test started (${c.start_date}).` });
+    errors.push({
+      line,
+      column: 'check_date',
+      message: `A count cannot be dated before the test started (${c.start_date}).`,
+    });
   }
   return errors;
 }
@@ -283,7 +328,12 @@ function recordErrors(context: TestCsvContext, c: z.infer<typeof recordSchema>, 
 const same = (a: unknown, b: unknown) => a === b;
 
 /** The columns of `columns` on which `record` differs from `first`. */
-function disagreements<K extends keyof TestCsvRecord>(first: TestCsvRecord, record: TestCsvRecord, columns: readonly K[], what: string): CsvError[] {
+function disagreements<K extends keyof TestCsvRecord>(
+  first: TestCsvRecord,
+  record: TestCsvRecord,
+  columns: readonly K[],
+  what: string,
+): CsvError[] {
   return columns
     .filter((column) => !same(first[column], record[column]))
     .map((column) => ({
@@ -294,7 +344,11 @@ function disagreements<K extends keyof TestCsvRecord>(first: TestCsvRecord, reco
 }
 
 /** A tray's repeated value (finish values, set-aside reason): the non-empty ones must agree; returns the value or a disagreement. */
-function trayValue<K extends (typeof TRAY_COLUMNS)[number]>(records: TestCsvRecord[], column: K, errors: CsvError[]): TestCsvRecord[K] | null {
+function trayValue<K extends (typeof TRAY_COLUMNS)[number]>(
+  records: TestCsvRecord[],
+  column: K,
+  errors: CsvError[],
+): TestCsvRecord[K] | null {
   const given = records.filter((r) => r[column] !== null);
   const first = given[0];
   for (const r of given.slice(1)) {
@@ -312,13 +366,21 @@ function trayValue<K extends (typeof TRAY_COLUMNS)[number]>(records: TestCsvReco
 const trayKey = (position: number) => `tray-${position}`;
 
 /** Every problem of one test's records taken together, and the test when there is none. */
-function checkTest(ref: string, records: TestCsvRecord[], context: TestCsvContext): { errors: CsvError[]; test: ParsedTestCsvTest | null } {
+function checkTest(
+  ref: string,
+  records: TestCsvRecord[],
+  context: TestCsvContext,
+): { errors: CsvError[]; test: ParsedTestCsvTest | null } {
   const first = records[0]!;
   const what = `Test "${ref}"`;
   const errors: CsvError[] = [];
   for (const r of records.slice(1)) {
     if (r.lotId !== first.lotId) {
-      errors.push({ line: r.line, column: 'lot_code', message: `${what} is of lot ${first.lot_code} on line ${first.line}; one test tests one lot.` });
+      errors.push({
+        line: r.line,
+        column: 'lot_code',
+        message: `${what} is of lot ${first.lot_code} on line ${first.line}; one test tests one lot.`,
+      });
     }
     errors.push(...disagreements(first, r, TEST_COLUMNS, what));
   }
@@ -341,7 +403,11 @@ function checkTest(ref: string, records: TestCsvRecord[], context: TestCsvContex
     const mine = byTray.get(position)!;
     for (const r of mine.slice(1)) {
       if (r.seeds_sown !== mine[0]!.seeds_sown) {
-        errors.push({ line: r.line, column: 'seeds_sown', message: `Tray ${position} of ${what.toLowerCase()} has ${mine[0]!.seeds_sown} seeds sown on line ${mine[0]!.line}; give one number for the tray.` });
+        errors.push({
+          line: r.line,
+          column: 'seeds_sown',
+          message: `Tray ${position} of ${what.toLowerCase()} has ${mine[0]!.seeds_sown} seeds sown on line ${mine[0]!.line}; give one number for the tray.`,
+        });
       }
     }
     const counts: TestCsvTray['counts'] = [];
@@ -350,7 +416,11 @@ function checkTest(ref: string, records: TestCsvRecord[], context: TestCsvContex
       const key = `${position} ${r.check_date}`;
       const earlier = countLines.get(key);
       if (earlier !== undefined) {
-        errors.push({ line: r.line, column: 'check_date', message: `Tray ${position} is already counted on ${r.check_date}, on line ${earlier}.` });
+        errors.push({
+          line: r.line,
+          column: 'check_date',
+          message: `Tray ${position} is already counted on ${r.check_date}, on line ${earlier}.`,
+        });
         continue;
       }
       countLines.set(key, r.line);
@@ -382,7 +452,11 @@ function checkTest(ref: string, records: TestCsvRecord[], context: TestCsvContex
     trays: trays.map((t) => ({ seedsSown: t.seedsSown })),
   } satisfies CreateTestBody;
   errors.push(...bodyErrors(body, first.line));
-  const early = startBeforeHarvest(first.start_date, context.harvestDateOf?.(first.lotId) ?? null, first.lot_code);
+  const early = startBeforeHarvest(
+    first.start_date,
+    context.harvestDateOf?.(first.lotId) ?? null,
+    first.lot_code,
+  );
   if (early) errors.push({ line: first.line, column: 'start_date', message: early });
   errors.push(...countErrors(first.start_date, trays, countLines));
   errors.push(...finishErrors(what, first, trays, byTray));
@@ -436,7 +510,14 @@ function bodyErrors(body: CreateTestBody, line: number): CsvError[] {
 function countErrors(startDate: string, trays: TestCsvTray[], countLines: Map<string, number>): CsvError[] {
   const rows = trays.map((t) => ({ id: trayKey(t.position), position: t.position, seeds_sown: t.seedsSown }));
   const all = trays
-    .flatMap((t) => t.counts.map((c) => ({ tray_id: trayKey(t.position), position: t.position, check_date: c.date, cumulative: c.cumulative })))
+    .flatMap((t) =>
+      t.counts.map((c) => ({
+        tray_id: trayKey(t.position),
+        position: t.position,
+        check_date: c.date,
+        cumulative: c.cumulative,
+      })),
+    )
     .sort((a, b) => a.check_date.localeCompare(b.check_date));
   const dates = [...new Set(all.map((c) => c.check_date))];
   return dates.flatMap((date) => {
@@ -455,7 +536,12 @@ function countErrors(startDate: string, trays: TestCsvTray[], countLines: Map<st
  * The finish endpoint's rules, when the test is finished: every tray in the figures was counted and
  * adds up to its seeds sown, a tray set aside has no finish values, and at least one tray is in the figures.
  */
-function finishErrors(what: string, first: TestCsvRecord, trays: TestCsvTray[], byTray: Map<number, TestCsvRecord[]>): CsvError[] {
+function finishErrors(
+  what: string,
+  first: TestCsvRecord,
+  trays: TestCsvTray[],
+  byTray: Map<number, TestCsvRecord[]>,
+): CsvError[] {
   const finishedOn = first.finished_on;
   const errors: CsvError[] = [];
   const lastLine = (position: number) => byTray.get(position)!.at(-1)!.line;
@@ -463,15 +549,26 @@ function finishErrors(what: string, first: TestCsvRecord, trays: TestCsvTray[], 
     for (const tray of trays) {
       const given = FINISH_COLUMNS.find((c) => tray[c] !== null);
       if (given) {
-        errors.push({ line: lastLine(tray.position), column: 'finished_on', message: `Tray ${tray.position} gives ${given} seeds, which are counted when a test is finished: give finished_on too, or leave ${given} empty.` });
+        errors.push({
+          line: lastLine(tray.position),
+          column: 'finished_on',
+          message: `Tray ${tray.position} gives ${given} seeds, which are counted when a test is finished: give finished_on too, or leave ${given} empty.`,
+        });
       }
     }
     return errors;
   }
-  const lastCount = trays.flatMap((t) => t.counts.map((c) => c.date)).sort().at(-1);
+  const lastCount = trays
+    .flatMap((t) => t.counts.map((c) => c.date))
+    .sort()
+    .at(-1);
   const notBefore = lastCount ?? first.start_date;
   if (finishedOn < notBefore) {
-    errors.push({ line: first.line, column: 'finished_on', message: `${what} cannot finish before its last count (${notBefore}).` });
+    errors.push({
+      line: first.line,
+      column: 'finished_on',
+      message: `${what} cannot finish before its last count (${notBefore}).`,
+    });
   }
   for (const tray of trays) {
     if (tray.setAsideReason !== null) {
@@ -488,7 +585,11 @@ function finishErrors(what: string, first: TestCsvRecord, trays: TestCsvTray[], 
       continue;
     }
     if (tray.counts.length === 0) {
-      errors.push({ line: lastLine(tray.position), column: 'set_aside_reason', message: uncountedAtFinish(tray.position) });
+      errors.push({
+        line: lastLine(tray.position),
+        column: 'set_aside_reason',
+        message: uncountedAtFinish(tray.position),
+      });
       continue;
     }
     if (tray.abnormal === null || tray.ungerminated === null) {
@@ -500,8 +601,13 @@ function finishErrors(what: string, first: TestCsvRecord, trays: TestCsvTray[], 
       continue;
     }
     const normal = tray.counts.at(-1)!.cumulative;
-    const problem = finishProblem({ position: tray.position, seeds_sown: tray.seedsSown }, normal, { ...tray, abnormal: tray.abnormal, ungerminated: tray.ungerminated });
-    if (problem) errors.push({ line: lastLine(tray.position), column: problem.field, message: problem.message });
+    const problem = finishProblem({ position: tray.position, seeds_sown: tray.seedsSown }, normal, {
+      ...tray,
+      abnormal: tray.abnormal,
+      ungerminated: tray.ungerminated,
+    });
+    if (problem)
+      errors.push({ line: lastLine(tray.position), column: problem.field, message: problem.message });
   }
   if (trays.length > 0 && trays.every((t) => t.setAsideReason !== null)) {
     errors.push({
@@ -530,14 +636,20 @@ export function parseTestsCsv(text: string, context: TestCsvContext): TestCsvPar
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         const column = columnOf(issue.path);
-        errors.push(column === undefined ? { line, message: issue.message } : { line, column, message: issue.message });
+        errors.push(
+          column === undefined ? { line, message: issue.message } : { line, column, message: issue.message },
+        );
       }
     }
     // Checked even when other cells failed, so the user sees every problem of the line at once.
     const code = unprotectCsvText(cells.lot_code);
     const lotId = code === '' ? null : context.resolveLot(code);
     if (code !== '' && lotId === null) {
-      errors.push({ line, column: 'lot_code', message: `This bank has no lot with the code "${code}"; add the lot first (or import it from a lots CSV).` });
+      errors.push({
+        line,
+        column: 'lot_code',
+        message: `This bank has no lot with the code "${code}"; add the lot first (or import it from a lots CSV).`,
+      });
     }
     if (parsed.success) errors.push(...recordErrors(context, parsed.data, line));
     if (errors.length > 0 || !parsed.success || lotId === null) {
@@ -550,7 +662,9 @@ export function parseTestsCsv(text: string, context: TestCsvContext): TestCsvPar
   if (!read.ok) {
     // A test with a broken line is judged as a whole once the line is corrected: checking the
     // rest of it now would report trays or counts that only look missing.
-    const together = [...groups].filter(([ref]) => !broken.has(ref)).flatMap(([ref, records]) => checkTest(ref, records, context).errors);
+    const together = [...groups]
+      .filter(([ref]) => !broken.has(ref))
+      .flatMap(([ref, records]) => checkTest(ref, records, context).errors);
     return { ok: false, errors: [...read.errors, ...together].sort((a, b) => a.line - b.line) };
   }
   const tests: ParsedTestCsvTest[] = [];

@@ -10,8 +10,25 @@ import * as repo from './invitations.repository';
 
 export const INVITATION_DAYS = 7;
 
-export function createInvitationsService({ db, clock, mailer, appOrigin }: { db: Db; clock: Clock; mailer: Mailer; appOrigin: string }) {
-  const toDto = (row: { id: string; email: string; role: 'owner' | 'grower' | 'viewer'; created_at: Date; expires_at: Date; invitedBy: string | null }) => ({
+export function createInvitationsService({
+  db,
+  clock,
+  mailer,
+  appOrigin,
+}: {
+  db: Db;
+  clock: Clock;
+  mailer: Mailer;
+  appOrigin: string;
+}) {
+  const toDto = (row: {
+    id: string;
+    email: string;
+    role: 'owner' | 'grower' | 'viewer';
+    created_at: Date;
+    expires_at: Date;
+    invitedBy: string | null;
+  }) => ({
     id: row.id,
     email: row.email,
     role: row.role,
@@ -42,7 +59,11 @@ export function createInvitationsService({ db, clock, mailer, appOrigin }: { db:
         });
         const bank = await findBankName(trx, bankId);
         const inviter = await repo.userName(trx, inviterId);
-        return { invitation: { ...row, invitedBy: inviter.name }, bankName: bank.name, inviterName: inviter.name };
+        return {
+          invitation: { ...row, invitedBy: inviter.name },
+          bankName: bank.name,
+          inviterName: inviter.name,
+        };
       });
       const link = `${appOrigin}/invitations/accept?token=${token}`;
       const as = body.role === 'viewer' ? 'a viewer' : `a ${body.role}`;
@@ -73,7 +94,11 @@ export function createInvitationsService({ db, clock, mailer, appOrigin }: { db:
       return db.transaction().execute(async (trx) => {
         const invitation = await repo.acceptOpen(trx, hashLinkToken(token), userId, now);
         if (!invitation) {
-          throw new AppError(400, 'invalid_token', 'This invitation has expired or was already used. Ask the bank’s owner for a new one.');
+          throw new AppError(
+            400,
+            'invalid_token',
+            'This invitation has expired or was already used. Ask the bank’s owner for a new one.',
+          );
         }
         const existing = await repo.findMembership(trx, invitation.bank_id, userId);
         if (existing) throw conflict('You are already a member of this bank.', 'already_member');

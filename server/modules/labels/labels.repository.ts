@@ -12,7 +12,11 @@ export interface LastTestRow {
  * The lot's latest test by start date with a result (at least one tray counted), read from the
  * stored result (germination/test-results.ts), the same figure every screen shows.
  */
-export async function lastCountedTest(db: DbOrTx, bankId: string, lotId: string): Promise<LastTestRow | null> {
+export async function lastCountedTest(
+  db: DbOrTx,
+  bankId: string,
+  lotId: string,
+): Promise<LastTestRow | null> {
   const row = await db
     .selectFrom('germination_tests')
     .select(['start_date', 'status', sql<number | null>`(result->>'percentRounded')::int`.as('percent')])
@@ -23,5 +27,7 @@ export async function lastCountedTest(db: DbOrTx, bankId: string, lotId: string)
     .orderBy('created_at', 'desc')
     .limit(1)
     .executeTakeFirst();
-  return row && row.percent !== null ? { start_date: row.start_date, status: row.status, percent: row.percent } : null;
+  return row && row.percent !== null
+    ? { start_date: row.start_date, status: row.status, percent: row.percent }
+    : null;
 }

@@ -19,7 +19,15 @@
  *   decimal separator.
  */
 import { z } from 'zod';
-import { blankToNull, choice, decimal, optionalText, requiredText, wholeNumber, yesNo } from '../../csv/csv-cells';
+import {
+  blankToNull,
+  choice,
+  decimal,
+  optionalText,
+  requiredText,
+  wholeNumber,
+  yesNo,
+} from '../../csv/csv-cells';
 import {
   columnOf,
   numberCell,
@@ -199,9 +207,7 @@ const rowSchema = z
         z.enum(lotStatusSchema.enum, { message: 'Use active, depleted or retired (empty means active).' }),
       ),
     ),
-    treated: yesNo(
-      'Use yes (the seed is coated with fungicide or another treatment) or no; empty means no.',
-    ),
+    treated: yesNo('Use yes (the seed is coated with fungicide or another treatment) or no; empty means no.'),
     notes: optionalText(4000, 'The notes'),
   })
   .superRefine((cells, ctx) => {

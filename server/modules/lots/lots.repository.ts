@@ -220,12 +220,16 @@ export function lockLot(db: DbOrTx, bankId: string, lotId: string) {
 
 /** Every lot of the bank, ordered by code as people read it (case-insensitively). */
 export function lotsByCode(db: DbOrTx, bankId: string) {
-  return lotsQuery(db, bankId).orderBy(sql`lower(lots.code)`).execute();
+  return lotsQuery(db, bankId)
+    .orderBy(sql`lower(lots.code)`)
+    .execute();
 }
 
 /** The codes the bank uses. */
 export async function bankCodes(db: DbOrTx, bankId: string): Promise<string[]> {
-  return (await db.selectFrom('lots').select('code').where('bank_id', '=', bankId).execute()).map((r) => r.code);
+  return (await db.selectFrom('lots').select('code').where('bank_id', '=', bankId).execute()).map(
+    (r) => r.code,
+  );
 }
 
 export function deleteLot(db: DbOrTx, lotId: string) {
@@ -234,12 +238,23 @@ export function deleteLot(db: DbOrTx, lotId: string) {
 
 /** The start date of the lot's earliest germination test, if it has one. */
 export function firstTestStart(db: DbOrTx, lotId: string) {
-  return db.selectFrom('germination_tests').select('start_date').where('lot_id', '=', lotId).orderBy('start_date').limit(1).executeTakeFirst();
+  return db
+    .selectFrom('germination_tests')
+    .select('start_date')
+    .where('lot_id', '=', lotId)
+    .orderBy('start_date')
+    .limit(1)
+    .executeTakeFirst();
 }
 
 /** Which of these parent plants are in the bank. */
 export function parentPlantsOfBank(db: DbOrTx, bankId: string, ids: string[]) {
-  return db.selectFrom('parent_plants').select('id').where('bank_id', '=', bankId).where('id', 'in', ids).execute();
+  return db
+    .selectFrom('parent_plants')
+    .select('id')
+    .where('bank_id', '=', bankId)
+    .where('id', 'in', ids)
+    .execute();
 }
 
 /** Writes one line of the lot's stock ledger (other modules call this for sowings and tests). */

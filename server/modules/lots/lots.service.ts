@@ -17,7 +17,12 @@ export interface LotsServiceDeps {
   db: Db;
   clock: Clock;
   /** Removes photo objects from the store after their rows are gone (photos module). */
-  removeSubjectPhotos: (db: DbOrTx, bankId: string, subject: 'lot', subjectId: string) => Promise<() => Promise<void>>;
+  removeSubjectPhotos: (
+    db: DbOrTx,
+    bankId: string,
+    subject: 'lot',
+    subjectId: string,
+  ) => Promise<() => Promise<void>>;
   /** Whether the lot has germination tests, which keep it from being deleted outright. */
   hasTests: (db: DbOrTx, lotId: string) => Promise<boolean>;
 }
@@ -25,7 +30,9 @@ export interface LotsServiceDeps {
 /** Seed is harvested on or before today, on the bank's calendar. */
 function refuseFutureHarvest(harvestDate: string, today: string) {
   if (harvestDate > today) {
-    throw unprocessable('A harvest date cannot be in the future.', { harvestDate: 'Use the day the seed was harvested.' });
+    throw unprocessable('A harvest date cannot be in the future.', {
+      harvestDate: 'Use the day the seed was harvested.',
+    });
   }
 }
 
@@ -33,13 +40,22 @@ function refuseFutureHarvest(harvestDate: string, today: string) {
  * A corrected harvest date may not lie in the future on the bank's calendar, nor after a
  * germination test of the lot started (seed is tested after it is harvested).
  */
-async function checkHarvestChange(trx: DbOrTx, bankId: string, lotId: string, harvestDate: string, clock: Clock) {
+async function checkHarvestChange(
+  trx: DbOrTx,
+  bankId: string,
+  lotId: string,
+  harvestDate: string,
+  clock: Clock,
+) {
   refuseFutureHarvest(harvestDate, await bankToday(trx, clock, bankId));
   const first = await repo.firstTestStart(trx, lotId);
   if (first && harvestDate > first.start_date) {
-    throw unprocessable(`A germination test of this lot started on ${first.start_date}, before that harvest date.`, {
-      harvestDate: `Use a day on or before ${first.start_date}.`,
-    });
+    throw unprocessable(
+      `A germination test of this lot started on ${first.start_date}, before that harvest date.`,
+      {
+        harvestDate: `Use a day on or before ${first.start_date}.`,
+      },
+    );
   }
 }
 
@@ -56,7 +72,9 @@ export function createLotsService(deps: LotsServiceDeps) {
     if (!ids?.length) return;
     const found = await repo.parentPlantsOfBank(trx, bankId, ids);
     if (found.length !== new Set(ids).size) {
-      throw badRequest('A parent plant is not in this bank.', { parentPlantIds: 'Choose parent plants from this bank.' });
+      throw badRequest('A parent plant is not in this bank.', {
+        parentPlantIds: 'Choose parent plants from this bank.',
+      });
     }
   }
 
@@ -122,7 +140,8 @@ export function createLotsService(deps: LotsServiceDeps) {
         ...(extra.status ? { status: extra.status } : {}),
       });
     } catch (error) {
-      if (uniqueViolation(error)) throw conflict(`The code ${code} is already used in this bank.`, 'duplicate_code');
+      if (uniqueViolation(error))
+        throw conflict(`The code ${code} is already used in this bank.`, 'duplicate_code');
       throw error;
     }
     await repo.setParents(trx, inserted.id, body.parentPlantIds ?? []);
@@ -146,7 +165,16 @@ export function createLotsService(deps: LotsServiceDeps) {
   return {
     get,
 
-    async list(bankId: string, query: { limit: number; cursor?: string; q?: string; speciesId?: string; status?: 'active' | 'depleted' | 'retired' }) {
+    async list(
+      bankId: string,
+      query: {
+        limit: number;
+        cursor?: string;
+        q?: string;
+        speciesId?: string;
+        status?: 'active' | 'depleted' | 'retired';
+      },
+    ) {
       const rows = await repo.lotsPage(db, bankId, query);
       const page = rows.slice(0, query.limit);
       return {
@@ -156,7 +184,9 @@ export function createLotsService(deps: LotsServiceDeps) {
     },
 
     async create(bankId: string, userId: string, body: CreateLotBody) {
-      const lotId = await db.transaction().execute(async (trx) => insertLot(trx, bankId, userId, await bankToday(trx, clock, bankId), body));
+      const lotId = await db
+        .transaction()
+        .execute(async (trx) => insertLot(trx, bankId, userId, await bankToday(trx, clock, bankId), body));
       return get(bankId, lotId);
     },
 
@@ -191,29 +221,53 @@ export function createLotsService(deps: LotsServiceDeps) {
         const today = await bankToday(trx, clock, bankId);
         // What only the bank can tell: codes it already uses, harvest dates after its today.
         const problems = rows.flatMap((r) => [
-          ...(r.code && taken.has(r.code.toLowerCase()) ? [{ line: r.line, column: 'code', message: `The code ${r.code} is already used in this bank.` }] : []),
+          ...(r.code && taken.has(r.code.toLowerCase())
+            ? [{ line: r.line, column: 'code', message: `The code ${r.code} is already used in this bank.` }]
+            : []),
           ...(r.harvestDate !== null && r.harvestDate > today
-            ? [{ line: r.line, column: 'harvest_date', message: `${r.harvestDate} is after today (${today} in the bank's time zone); use the day the seed was harvested.` }]
+            ? [
+                {
+                  line: r.line,
+                  column: 'harvest_date',
+                  message: `${r.harvestDate} is after today (${today} in the bank's time zone); use the day the seed was harvested.`,
+                },
+              ]
             : []),
         ]);
         if (problems.length) {
           throw invalidCsv(problems);
         }
         for (const row of rows) {
-          await insertLot(trx, bankId, userId, today, {
-            speciesId: row.speciesId,
-            variety: row.variety,
-            origin: row.origin,
-            sourceName: row.sourceName,
-            harvestDate: row.harvestDate,
-            packedForSeason: row.packedForSeason,
-            plantsBulked: row.plantsBulked,
-            storage: { place: row.storagePlace, location: row.storageLocation, temperatureC: row.storageTempC, humidityPct: row.storageHumidityPct },
-            notes: row.notes,
-            treated: row.treated,
-            ...(row.code ? { code: row.code } : {}),
-            seedCount: row.seedsOnHand,
-          }, { status: row.status, quantityEstimated: row.quantityEstimated, reason: 'Imported from a CSV file' });
+          await insertLot(
+            trx,
+            bankId,
+            userId,
+            today,
+            {
+              speciesId: row.speciesId,
+              variety: row.variety,
+              origin: row.origin,
+              sourceName: row.sourceName,
+              harvestDate: row.harvestDate,
+              packedForSeason: row.packedForSeason,
+              plantsBulked: row.plantsBulked,
+              storage: {
+                place: row.storagePlace,
+                location: row.storageLocation,
+                temperatureC: row.storageTempC,
+                humidityPct: row.storageHumidityPct,
+              },
+              notes: row.notes,
+              treated: row.treated,
+              ...(row.code ? { code: row.code } : {}),
+              seedCount: row.seedsOnHand,
+            },
+            {
+              status: row.status,
+              quantityEstimated: row.quantityEstimated,
+              reason: 'Imported from a CSV file',
+            },
+          );
         }
         return rows.length;
       });
@@ -241,9 +295,12 @@ export function createLotsService(deps: LotsServiceDeps) {
         try {
           await repo.updateLot(trx, lotId, changes);
         } catch (error) {
-          if (uniqueViolation(error)) throw conflict(`The code ${body.code} is already used in this bank.`, 'duplicate_code');
+          if (uniqueViolation(error))
+            throw conflict(`The code ${body.code} is already used in this bank.`, 'duplicate_code');
           if ((error as { constraint?: string }).constraint === 'lots_dated') {
-            throw badRequest('A lot needs a harvest date or a packed-for season.', { harvestDate: 'Give the harvest date or the season.' });
+            throw badRequest('A lot needs a harvest date or a packed-for season.', {
+              harvestDate: 'Give the harvest date or the season.',
+            });
           }
           throw error;
         }
@@ -273,7 +330,9 @@ export function createLotsService(deps: LotsServiceDeps) {
 
     async addMovement(bankId: string, lotId: string, userId: string, body: StockBody) {
       if (body.date > (await bankToday(db, clock, bankId))) {
-        throw new AppError(422, 'impossible', 'A stock movement cannot be dated in the future.', { date: 'Use today or an earlier date.' });
+        throw new AppError(422, 'impossible', 'A stock movement cannot be dated in the future.', {
+          date: 'Use today or an earlier date.',
+        });
       }
       return db.transaction().execute(async (trx) => {
         const lot = await repo.lockLot(trx, bankId, lotId);
@@ -286,7 +345,14 @@ export function createLotsService(deps: LotsServiceDeps) {
             'stock_below_zero',
           );
         }
-        const movement = await repo.insertMovement(trx, { lot_id: lotId, kind: body.kind ?? 'correction', change: body.change, date: body.date, reason: body.reason, created_by: userId });
+        const movement = await repo.insertMovement(trx, {
+          lot_id: lotId,
+          kind: body.kind ?? 'correction',
+          change: body.change,
+          date: body.date,
+          reason: body.reason,
+          created_by: userId,
+        });
         // An emptied lot is depleted; seeds found again bring it back.
         if (after === 0 && lot.status === 'active') await repo.updateLot(trx, lotId, { status: 'depleted' });
         if (after > 0 && lot.status === 'depleted') await repo.updateLot(trx, lotId, { status: 'active' });
@@ -299,7 +365,16 @@ export function createLotsService(deps: LotsServiceDeps) {
       let balance = 0;
       return (await repo.movementsOf(db, lotId)).map((m) => {
         balance += m.change;
-        return { id: m.id, kind: m.kind, change: m.change, date: m.date, reason: m.reason, by: m.by, balance, createdAt: m.created_at.toISOString() };
+        return {
+          id: m.id,
+          kind: m.kind,
+          change: m.change,
+          date: m.date,
+          reason: m.reason,
+          by: m.by,
+          balance,
+          createdAt: m.created_at.toISOString(),
+        };
       });
     },
   };

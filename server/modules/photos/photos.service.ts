@@ -21,7 +21,15 @@ function toDto(row: { id: string; width: number; height: number; created_at: Dat
   };
 }
 
-export function createPhotosService({ db, storage, logger }: { db: Db; storage: ObjectStore; logger?: Logger }) {
+export function createPhotosService({
+  db,
+  storage,
+  logger,
+}: {
+  db: Db;
+  storage: ObjectStore;
+  logger?: Logger;
+}) {
   /** Deletes objects whose rows are gone; what the store refuses now stays queued for later. */
   async function drainDeletions(keys?: string[]) {
     if (keys && keys.length === 0) return;
@@ -101,7 +109,11 @@ export function createPhotosService({ db, storage, logger }: { db: Db; storage: 
     },
 
     /** The image for a member of the photo's bank; anyone else gets the same 404 as a missing photo. */
-    async open(photoId: string, userId: string, size: 'full' | 'thumb'): Promise<{ body: Readable; length?: number }> {
+    async open(
+      photoId: string,
+      userId: string,
+      size: 'full' | 'thumb',
+    ): Promise<{ body: Readable; length?: number }> {
       const row = await repo.findPhotoForMember(db, photoId, userId);
       if (!row) throw notFound('No such photo.');
       let object;

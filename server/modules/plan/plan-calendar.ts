@@ -29,26 +29,81 @@ export interface RetestEvent {
 }
 
 /** The season's plan as an iCalendar file (RFC 5545) a grower can import or subscribe to. */
-export function planCalendar(bankName: string, season: number, entries: PlanEntryDto[], retests: RetestEvent[]): string {
+export function planCalendar(
+  bankName: string,
+  season: number,
+  entries: PlanEntryDto[],
+  retests: RetestEvent[],
+): string {
   const events: EventAttributes[] = [];
   for (const e of entries) {
     const what = `${e.speciesName}${e.lotCode ? ` (${e.lotCode})` : ''}`;
-    const seeds = e.seedsToSow ? `${e.seedsToSow} seeds for ${e.plantsWanted} plants` : `${e.plantsWanted} plants wanted`;
-    events.push(allDay(`${e.id}-sow@hilum`, `Sow ${what}`, e.sowFrom, e.sowTo, `${seeds}, ${e.start === 'indoors' ? 'indoors' : 'direct'}. ${bankName}.`));
+    const seeds = e.seedsToSow
+      ? `${e.seedsToSow} seeds for ${e.plantsWanted} plants`
+      : `${e.plantsWanted} plants wanted`;
+    events.push(
+      allDay(
+        `${e.id}-sow@hilum`,
+        `Sow ${what}`,
+        e.sowFrom,
+        e.sowTo,
+        `${seeds}, ${e.start === 'indoors' ? 'indoors' : 'direct'}. ${bankName}.`,
+      ),
+    );
     if (e.expectFrom && e.expectBy) {
-      events.push(allDay(`${e.id}-expect@hilum`, `Seedlings due: ${what}`, e.expectFrom, e.expectBy, 'Check the sowing for seedlings.'));
+      events.push(
+        allDay(
+          `${e.id}-expect@hilum`,
+          `Seedlings due: ${what}`,
+          e.expectFrom,
+          e.expectBy,
+          'Check the sowing for seedlings.',
+        ),
+      );
     }
     if (e.hardenFrom && e.transplantOn) {
-      events.push(allDay(`${e.id}-harden@hilum`, `Harden off ${what}`, e.hardenFrom, addDays(e.transplantOn, -1), 'A few hours outside each day, more each day.'));
-      events.push(allDay(`${e.id}-plant@hilum`, `Plant out ${what}`, e.transplantOn, e.transplantOn, 'After the frost date plus the bank’s margin.'));
+      events.push(
+        allDay(
+          `${e.id}-harden@hilum`,
+          `Harden off ${what}`,
+          e.hardenFrom,
+          addDays(e.transplantOn, -1),
+          'A few hours outside each day, more each day.',
+        ),
+      );
+      events.push(
+        allDay(
+          `${e.id}-plant@hilum`,
+          `Plant out ${what}`,
+          e.transplantOn,
+          e.transplantOn,
+          'After the frost date plus the bank’s margin.',
+        ),
+      );
     }
   }
   for (const r of retests) {
     if (Number(r.retestBy.slice(0, 4)) !== season) continue;
-    events.push(allDay(`${r.lotId}-retest-${season}@hilum`, `Retest ${r.species} (${r.code})`, r.retestBy, r.retestBy, 'A germination test is due for this lot.'));
+    events.push(
+      allDay(
+        `${r.lotId}-retest-${season}@hilum`,
+        `Retest ${r.species} (${r.code})`,
+        r.retestBy,
+        r.retestBy,
+        'A germination test is due for this lot.',
+      ),
+    );
   }
   if (events.length === 0) {
-    return ['BEGIN:VCALENDAR', 'VERSION:2.0', 'PRODID:hilum/plan', 'CALSCALE:GREGORIAN', 'X-WR-CALNAME:Hilum sowing plan', 'END:VCALENDAR', ''].join('\r\n');
+    return [
+      'BEGIN:VCALENDAR',
+      'VERSION:2.0',
+      'PRODID:hilum/plan',
+      'CALSCALE:GREGORIAN',
+      'X-WR-CALNAME:Hilum sowing plan',
+      'END:VCALENDAR',
+      '',
+    ].join('\r\n');
   }
   const { error, value } = createEvents(events);
   if (error || !value) throw error ?? new Error('calendar could not be written');

@@ -131,7 +131,9 @@ export function createPlanService({
       const bank = await bankName(db, bankId);
       const entries = await list(bankId, season);
       const ranking = await viability.ranking(bankId, `${season}-01-01`);
-      const retests = ranking.filter((r) => r.retestBy).map((r) => ({ lotId: r.lotId, code: r.code, species: r.species, retestBy: r.retestBy! }));
+      const retests = ranking
+        .filter((r) => r.retestBy)
+        .map((r) => ({ lotId: r.lotId, code: r.code, species: r.species, retestBy: r.retestBy! }));
       return planCalendar(bank.name, season, entries, retests);
     },
 
@@ -233,7 +235,11 @@ export function createPlanService({
           reason: `Sown for ${entry.plants_wanted} plants (season plan ${entry.season})`,
           created_by: userId,
         });
-        await repo.updateEntry(trx, entryId, { sown_on: on, sown_movement_id: movement.id, updated_at: clock.now() });
+        await repo.updateEntry(trx, entryId, {
+          sown_on: on,
+          sown_movement_id: movement.id,
+          updated_at: clock.now(),
+        });
         if (onHand === entry.seeds_to_sow && lot.status === 'active') {
           await updateLot(trx, entry.lot_id, { status: 'depleted' });
         }
@@ -247,9 +253,12 @@ export function createPlanService({
         const entry = await repo.lockEntry(trx, bankId, entryId);
         if (!entry) throw notFound('No such plan entry in this bank.');
         if (!entry.sown_on) throw conflict('This entry is not marked sown.', 'not_sown');
-        if (entry.sown_movement_id)
-          await repo.deleteMovement(trx, entry.sown_movement_id);
-        await repo.updateEntry(trx, entryId, { sown_on: null, sown_movement_id: null, updated_at: clock.now() });
+        if (entry.sown_movement_id) await repo.deleteMovement(trx, entry.sown_movement_id);
+        await repo.updateEntry(trx, entryId, {
+          sown_on: null,
+          sown_movement_id: null,
+          updated_at: clock.now(),
+        });
         if (entry.lot_id) {
           const lot = await lockLot(trx, bankId, entry.lot_id);
           if (lot?.status === 'depleted' && (await stockOf(trx, entry.lot_id)) > 0) {

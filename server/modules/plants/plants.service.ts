@@ -17,13 +17,22 @@ export interface PlantsServiceDeps {
   db: Db;
   clock: Clock;
   photosOf: (db: DbOrTx, subject: 'plant', subjectIds: string[]) => Promise<Map<string, PhotoDto[]>>;
-  removeSubjectPhotos: (db: DbOrTx, bankId: string, subject: 'plant', subjectId: string) => Promise<() => Promise<void>>;
+  removeSubjectPhotos: (
+    db: DbOrTx,
+    bankId: string,
+    subject: 'plant',
+    subjectId: string,
+  ) => Promise<() => Promise<void>>;
 }
 
 export function createPlantsService({ db, clock, photosOf, removeSubjectPhotos }: PlantsServiceDeps) {
   async function dtos(bankId: string, rows: repo.PlantRow[]) {
     const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
-    const photos = await photosOf(db, 'plant', rows.map((r) => r.id));
+    const photos = await photosOf(
+      db,
+      'plant',
+      rows.map((r) => r.id),
+    );
     return rows.map((r) => {
       const sp = species.get(r.species_id);
       return {

@@ -1,4 +1,9 @@
-import { SOURCES, SPECIES_REFERENCE, type SpeciesReference, type TraitKey } from '../../../shared/species-reference';
+import {
+  SOURCES,
+  SPECIES_REFERENCE,
+  type SpeciesReference,
+  type TraitKey,
+} from '../../../shared/species-reference';
 import type { SpeciesTraits, TraitName } from '../../../shared/schemas/species';
 import type { DbOrTx } from '../../db/database';
 import { upsertReferenceSpecies } from './species.repository';

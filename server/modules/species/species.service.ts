@@ -48,7 +48,8 @@ export async function listSpecies(db: DbOrTx, bankId: string): Promise<SpeciesDt
 /** The species id, or a 400 naming the field: an unknown species is bad input, not a 404. */
 export async function requireSpecies(db: DbOrTx, bankId: string, speciesId: string, field = 'speciesId') {
   const species = await findSpecies(db, bankId, speciesId);
-  if (!species) throw badRequest('That species is not in the list.', { [field]: 'Choose a species from the list.' });
+  if (!species)
+    throw badRequest('That species is not in the list.', { [field]: 'Choose a species from the list.' });
   return species;
 }
 
@@ -60,7 +61,10 @@ export function createSpeciesService({ db }: { db: Db }) {
       // The reference set already has it: one entry per species keeps one ranking and one caution.
       const known = await repo.findReferenceByName(db, body.commonName, body.scientificName);
       if (known) {
-        throw conflict(`${known.common_name} (${known.scientific_name}) is already in Hilum's list of species: choose it there.`, 'duplicate_species');
+        throw conflict(
+          `${known.common_name} (${known.scientific_name}) is already in Hilum's list of species: choose it there.`,
+          'duplicate_species',
+        );
       }
       try {
         const row = await repo.insertBankSpecies(db, {

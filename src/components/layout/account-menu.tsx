@@ -32,7 +32,11 @@ export function AccountMenu({ user, onSignOut, signingOut, signOutError, reminde
   if (!user) {
     if (onAuthPage) return null;
     // Come back to this page afterwards (an invitation waiting to be accepted, say).
-    const noReturn: readonly string[] = [paths.home.path, paths.forgotPassword.path, paths.resetPassword.path];
+    const noReturn: readonly string[] = [
+      paths.home.path,
+      paths.forgotPassword.path,
+      paths.resetPassword.path,
+    ];
     const staysPut = noReturn.includes(location.pathname);
     const here = staysPut ? undefined : location.pathname + location.search;
     return (
@@ -75,7 +79,11 @@ export function AccountMenu({ user, onSignOut, signingOut, signOutError, reminde
         ) : null}
         <div className="mt-4 grid gap-2">
           {remindersHref ? (
-            <Link to={remindersHref} onClick={() => setOpen(false)} className={buttonStyles({ variant: 'secondary', fullWidth: true })}>
+            <Link
+              to={remindersHref}
+              onClick={() => setOpen(false)}
+              className={buttonStyles({ variant: 'secondary', fullWidth: true })}
+            >
               Reminders
             </Link>
           ) : null}

@@ -107,7 +107,10 @@ export function AppShell({
                 <span className="sr-only"> (development mailbox)</span>
               </NavLink>
             ) : null}
-            <AccountMenu {...account} remindersHref={currentBankId ? paths.reminders.getHref(currentBankId) : undefined} />
+            <AccountMenu
+              {...account}
+              remindersHref={currentBankId ? paths.reminders.getHref(currentBankId) : undefined}
+            />
           </div>
         </div>
       </header>
@@ -132,40 +135,40 @@ export function AppShell({
       </main>
 
       {hasNav ? (
-      <nav
-        aria-label="Bank"
-        className="fixed inset-x-0 bottom-0 z-20 border-t border-husk-300 bg-husk-100 pb-[env(safe-area-inset-bottom)] lg:hidden"
-      >
-        <ul className="grid grid-cols-5">
-          {navItems.map((item) => (
-            <li key={item.area}>
-              <NavLink
-                to={item.href}
-                className={({ isActive }) =>
-                  cn(
-                    'flex min-h-16 flex-col items-center justify-center gap-0.5 px-1 text-xs font-semibold',
-                    isActive ? 'text-moss-800' : 'text-loam-700 active:bg-husk-200',
-                  )
-                }
-              >
-                {({ isActive }) => (
-                  <>
-                    <span
-                      className={cn(
-                        'inline-flex h-8 w-12 items-center justify-center rounded-full',
-                        isActive && 'bg-moss-100',
-                      )}
-                    >
-                      {item.icon}
-                    </span>
-                    {item.label}
-                  </>
-                )}
-              </NavLink>
-            </li>
-          ))}
-        </ul>
-      </nav>
+        <nav
+          aria-label="Bank"
+          className="fixed inset-x-0 bottom-0 z-20 border-t border-husk-300 bg-husk-100 pb-[env(safe-area-inset-bottom)] lg:hidden"
+        >
+          <ul className="grid grid-cols-5">
+            {navItems.map((item) => (
+              <li key={item.area}>
+                <NavLink
+                  to={item.href}
+                  className={({ isActive }) =>
+                    cn(
+                      'flex min-h-16 flex-col items-center justify-center gap-0.5 px-1 text-xs font-semibold',
+                      isActive ? 'text-moss-800' : 'text-loam-700 active:bg-husk-200',
+                    )
+                  }
+                >
+                  {({ isActive }) => (
+                    <>
+                      <span
+                        className={cn(
+                          'inline-flex h-8 w-12 items-center justify-center rounded-full',
+                          isActive && 'bg-moss-100',
+                        )}
+                      >
+                        {item.icon}
+                      </span>
+                      {item.label}
+                    </>
+                  )}
+                </NavLink>
+              </li>
+            ))}
+          </ul>
+        </nav>
       ) : null}
     </div>
   );

@@ -20,7 +20,12 @@ export function Caution({ title, children, className }: CautionProps) {
         className,
       )}
     >
-      <svg viewBox="0 0 20 20" aria-hidden="true" className="mt-0.5 size-5 shrink-0 text-seedcoat-700" fill="currentColor">
+      <svg
+        viewBox="0 0 20 20"
+        aria-hidden="true"
+        className="mt-0.5 size-5 shrink-0 text-seedcoat-700"
+        fill="currentColor"
+      >
         <path d="M10 2 1 18h18L10 2Zm-.9 5h1.8v5.5H9.1V7Zm0 7h1.8v1.8H9.1V14Z" />
       </svg>
       <div className="min-w-0">

@@ -24,7 +24,11 @@ export function CsvTable({
         <thead className="border-b border-loam-200 text-loam-700">
           <tr>
             {columns.map((column) => (
-              <th key={column.label} scope="col" className={cn('py-2 pr-3 font-semibold last:pr-0', column.className)}>
+              <th
+                key={column.label}
+                scope="col"
+                className={cn('py-2 pr-3 font-semibold last:pr-0', column.className)}
+              >
                 {column.label}
               </th>
             ))}

@@ -32,7 +32,11 @@ export function PhotoPicker({ label, hint, file, onChange, error, disabled }: Ph
       {hint ? <p className="text-sm text-loam-600">{hint}</p> : null}
       <div className="flex flex-wrap items-center gap-3">
         {preview ? (
-          <img src={preview} alt="" className="size-16 shrink-0 rounded-lg border border-loam-200 object-cover" />
+          <img
+            src={preview}
+            alt=""
+            className="size-16 shrink-0 rounded-lg border border-loam-200 object-cover"
+          />
         ) : null}
         <input
           ref={inputRef}

@@ -24,7 +24,10 @@ export function ProgressBar({ value, label, className }: ProgressBarProps) {
         aria-valuenow={percent}
         className="h-2.5 overflow-hidden rounded-full bg-loam-100"
       >
-        <div className="h-full rounded-full bg-moss-600 transition-[width]" style={{ width: `${percent}%` }} />
+        <div
+          className="h-full rounded-full bg-moss-600 transition-[width]"
+          style={{ width: `${percent}%` }}
+        />
       </div>
     </div>
   );

@@ -87,10 +87,19 @@ export function RecommendationIcon({ value, className }: { value: Recommendation
   );
 }
 
-const pill = 'inline-flex items-center gap-1 rounded-full border px-2.5 py-0.5 text-sm font-semibold whitespace-nowrap';
+const pill =
+  'inline-flex items-center gap-1 rounded-full border px-2.5 py-0.5 text-sm font-semibold whitespace-nowrap';
 
 /** The advice as a plain pill. */
-export function RecommendationBadge({ value, reason, className }: { value: RecommendationValue; reason?: string; className?: string }) {
+export function RecommendationBadge({
+  value,
+  reason,
+  className,
+}: {
+  value: RecommendationValue;
+  reason?: string;
+  className?: string;
+}) {
   return (
     <span title={reason} className={cn(pill, looks[value], className)}>
       <RecommendationIcon value={value} />
@@ -110,7 +119,12 @@ export function RecommendationButton({
     <button
       type="button"
       title={reason}
-      className={cn(pill, looks[value], 'min-h-8 cursor-pointer hover:brightness-95 active:brightness-90', className)}
+      className={cn(
+        pill,
+        looks[value],
+        'min-h-8 cursor-pointer hover:brightness-95 active:brightness-90',
+        className,
+      )}
       {...rest}
     >
       <RecommendationIcon value={value} />

@@ -57,7 +57,10 @@ export function spanWords(yearsAhead: number): string {
     const months = Math.max(1, Math.round(yearsAhead * 12));
     return `about ${months} ${months === 1 ? 'month' : 'months'}`;
   }
-  const shown = yearsAhead < 10 ? wholeOrOneDecimal.format(Math.round(yearsAhead * 2) / 2) : String(Math.round(yearsAhead));
+  const shown =
+    yearsAhead < 10
+      ? wholeOrOneDecimal.format(Math.round(yearsAhead * 2) / 2)
+      : String(Math.round(yearsAhead));
   return `about ${shown} ${shown === '1' ? 'year' : 'years'}`;
 }
 

@@ -14,7 +14,8 @@ import { bankKeys, bankPaths, type SeedsToSowQuery } from '../bank-api';
 export function rankingQueryOptions(bankId: string, on: string) {
   return queryOptions({
     queryKey: bankKeys.ranking(bankId, on),
-    queryFn: ({ signal }) => apiFetch(bankPaths.ranking(bankId, on), { schema: rankingResponseSchema, signal }),
+    queryFn: ({ signal }) =>
+      apiFetch(bankPaths.ranking(bankId, on), { schema: rankingResponseSchema, signal }),
   });
 }
 
@@ -25,6 +26,7 @@ export function rankingQueryOptions(bankId: string, on: string) {
 export function seedsToSowQueryOptions(bankId: string, lotId: string, query: SeedsToSowQuery) {
   return queryOptions({
     queryKey: bankKeys.lotSeedsToSow(bankId, lotId, query),
-    queryFn: ({ signal }) => apiFetch(bankPaths.lotSeedsToSow(bankId, lotId, query), { schema: seedsToSowResponseSchema, signal }),
+    queryFn: ({ signal }) =>
+      apiFetch(bankPaths.lotSeedsToSow(bankId, lotId, query), { schema: seedsToSowResponseSchema, signal }),
   });
 }

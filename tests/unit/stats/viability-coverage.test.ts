@@ -6,13 +6,26 @@ import { describe, expect, it } from 'vitest';
 import { simulateCoverage } from '../../helpers/coverage-simulation';
 
 describe('the viability bands, by seeded simulation', () => {
-  it('when 1,600 simulated lots are fitted, then every group’s 95% band covers the truth 93–97% of the time', { timeout: 120_000 }, () => {
-    const rows = simulateCoverage(200, 7);
-    for (const row of rows) {
-      expect(row.lots, row.group).toBeGreaterThanOrEqual(150);
-      expect(row.coveragePercent, row.group).toBeGreaterThanOrEqual(93);
-      expect(row.coveragePercent, row.group).toBeLessThanOrEqual(97);
-    }
-    expect(rows.map((r) => r.group)).toEqual(expect.arrayContaining(['tests: untested', 'tests: one test', 'tests: two tests', 'tests: three or more tests', 'basis: lot', 'basis: species']));
-  });
+  it(
+    'when 1,600 simulated lots are fitted, then every group’s 95% band covers the truth 93–97% of the time',
+    { timeout: 120_000 },
+    () => {
+      const rows = simulateCoverage(200, 7);
+      for (const row of rows) {
+        expect(row.lots, row.group).toBeGreaterThanOrEqual(150);
+        expect(row.coveragePercent, row.group).toBeGreaterThanOrEqual(93);
+        expect(row.coveragePercent, row.group).toBeLessThanOrEqual(97);
+      }
+      expect(rows.map((r) => r.group)).toEqual(
+        expect.arrayContaining([
+          'tests: untested',
+          'tests: one test',
+          'tests: two tests',
+          'tests: three or more tests',
+          'basis: lot',
+          'basis: species',
+        ]),
+      );
+    },
+  );
 });

@@ -136,11 +136,9 @@ describe('fitViabilityDecline', () => {
       typicalLifeYears: 3,
     });
     const pooled = probitRegressionGroups(
-      otherLots
-        .slice(0, 2)
-        .map((lot) => ({
-          points: lot.map((t) => ({ x: t.ageYears, successes: t.germinated, trials: t.sown })),
-        })),
+      otherLots.slice(0, 2).map((lot) => ({
+        points: lot.map((t) => ({ x: t.ageYears, successes: t.germinated, trials: t.sown })),
+      })),
     );
     expect(fit.basis).toBe('species');
     expect(fit.slopePerYear).toBeCloseTo(pooled.slope, 12);

@@ -5,7 +5,14 @@
 // Ann. Bot. 45:13–30) — viability falls along a probit line with storage time, never rises.
 import { describe, expect, it } from 'vitest';
 import { normalCdf } from '../../../server/stats/distributions';
-import { fitSpeciesModel, logPhi, monitoringIntervalYears, projectModel, type LotModel, type ModelLot } from '../../../server/stats/viability-model';
+import {
+  fitSpeciesModel,
+  logPhi,
+  monitoringIntervalYears,
+  projectModel,
+  type LotModel,
+  type ModelLot,
+} from '../../../server/stats/viability-model';
 
 const TOMATO = { typicalLifeYears: 4 }; // ISU Yard & Garden 1999 (Knott's Handbook): tomato 4 years [read]
 
@@ -87,9 +94,15 @@ describe('the viability model', () => {
   });
 
   it('when a lot rises against the species (a borrowed rate), then nothing becomes NaN and its siblings are unchanged', () => {
-    const siblings: ModelLot[] = Array.from({ length: 6 }, (_, j) => ({ id: `s${j}`, tests: [test(`s${j}a`, 0.5, 92), test(`s${j}b`, 3, 55)] }));
+    const siblings: ModelLot[] = Array.from({ length: 6 }, (_, j) => ({
+      id: `s${j}`,
+      tests: [test(`s${j}a`, 0.5, 92), test(`s${j}b`, 3, 55)],
+    }));
     const alone = fitSpeciesModel(siblings, TOMATO);
-    const withOdd = fitSpeciesModel([{ id: 'odd', tests: [test('o1', 0.2, 8, 20), test('o2', 2.5, 20, 20)] }, ...siblings], TOMATO);
+    const withOdd = fitSpeciesModel(
+      [{ id: 'odd', tests: [test('o1', 0.2, 8, 20), test('o2', 2.5, 20, 20)] }, ...siblings],
+      TOMATO,
+    );
     const odd = withOdd[0]!;
     expect(odd.ok).toBe(true);
     if (odd.ok) expectSensible(odd.model, [0, 2.5, 5]);
@@ -97,13 +110,18 @@ describe('the viability model', () => {
     alone.forEach((r, j) => {
       const other = withOdd[j + 1]!;
       if (!r.ok || !other.ok) throw new Error('sibling not fitted');
-      expect(Math.abs(projectModel(r.model, 4).percent - projectModel(other.model, 4).percent)).toBeLessThan(3);
+      expect(Math.abs(projectModel(r.model, 4).percent - projectModel(other.model, 4).percent)).toBeLessThan(
+        3,
+      );
     });
   });
 
   it('when one lot was tested 100% then 95%, then its siblings with one test keep sensible bands', () => {
     const results = fitSpeciesModel(
-      [{ id: 'poison', tests: [test('p1', 1, 100), test('p2', 2, 95)] }, { id: 'sib', tests: [test('x', 0.5, 90)] }],
+      [
+        { id: 'poison', tests: [test('p1', 1, 100), test('p2', 2, 95)] },
+        { id: 'sib', tests: [test('x', 0.5, 90)] },
+      ],
       TOMATO,
     );
     const sib = results[1]!;
@@ -116,8 +134,14 @@ describe('the viability model', () => {
   it('when a room lot sits beside freezer lots, then on equivalent age it declines faster per calendar year', () => {
     // The caller scales calendar age by storage: 20 °C ages seed ≈ 1.77× a 15 °C room, −18 °C ≈ 0.09×
     // (Dickie et al. 1990 universal temperature terms, storage-sigma.ts temperatureFactor).
-    const freezer = (id: string) => ({ id, tests: [test(`${id}a`, 0.5 * 0.092, 95), test(`${id}b`, 4 * 0.092, 94)] });
-    const results = fitSpeciesModel([{ id: 'room', tests: [test('r', 0.5 * 1.77, 93)] }, freezer('f1'), freezer('f2')], TOMATO);
+    const freezer = (id: string) => ({
+      id,
+      tests: [test(`${id}a`, 0.5 * 0.092, 95), test(`${id}b`, 4 * 0.092, 94)],
+    });
+    const results = fitSpeciesModel(
+      [{ id: 'room', tests: [test('r', 0.5 * 1.77, 93)] }, freezer('f1'), freezer('f2')],
+      TOMATO,
+    );
     const room = results[0]!;
     const cold = results[1]!;
     if (!room.ok || !cold.ok) throw new Error('not fitted');
@@ -136,7 +160,13 @@ describe('the viability model', () => {
   });
 
   it('when a test has impossible counts, then that lot says so and the others are still fitted', () => {
-    const results = fitSpeciesModel([{ id: 'bad', tests: [test('b', 1, 120)] }, { id: 'good', tests: [test('g', 1, 80)] }], TOMATO);
+    const results = fitSpeciesModel(
+      [
+        { id: 'bad', tests: [test('b', 1, 120)] },
+        { id: 'good', tests: [test('g', 1, 80)] },
+      ],
+      TOMATO,
+    );
     expect(results[0]).toMatchObject({ ok: false, lotId: 'bad' });
     expect(results[1]!.ok).toBe(true);
   });

@@ -3,9 +3,11 @@ import { FormAlert } from '../../../components/ui/form-alert';
 import type { SignInState } from '../../session';
 
 const messages = {
-  'session-ended': 'Your session ended — perhaps you signed out on another device. Sign in again to carry on.',
+  'session-ended':
+    'Your session ended — perhaps you signed out on another device. Sign in again to carry on.',
   'signed-out': 'You are signed out.',
-  'password-changed': 'Your new password is saved and every device was signed out. Sign in with the new password.',
+  'password-changed':
+    'Your new password is saved and every device was signed out. Sign in with the new password.',
 } as const;
 
 /** Why the person landed on the sign-in page, when another page sent them here. */

@@ -14,7 +14,8 @@ export const intervalFromSearch = (search: URLSearchParams) =>
 
 function failure(error: unknown, request: Request): never {
   const url = new URL(request.url);
-  if (isApiError(error) && error.status === 401) throw redirect(paths.signIn.getHref(url.pathname + url.search));
+  if (isApiError(error) && error.status === 401)
+    throw redirect(paths.signIn.getHref(url.pathname + url.search));
   if (isApiError(error) && error.status === 404) throw data(error.message, { status: 404 });
   throw error;
 }
@@ -30,7 +31,9 @@ export function testLoader(queryClient: QueryClient) {
   return async ({ params, request }: LoaderFunctionArgs) => {
     const interval = intervalFromSearch(new URL(request.url).searchParams);
     try {
-      await queryClient.ensureQueryData(testQueryOptions(param(params, 'bankId'), param(params, 'testId'), interval));
+      await queryClient.ensureQueryData(
+        testQueryOptions(param(params, 'bankId'), param(params, 'testId'), interval),
+      );
     } catch (error) {
       failure(error, request);
     }

@@ -50,7 +50,10 @@ export function GerminationTestPage() {
         ? `Test deleted; its ${detail.test.seedsTaken} seeds are back in lot ${detail.test.lotCode}.`
         : `Test deleted; lot ${detail?.test.lotCode ?? ''}’s stock is as it was.`,
     };
-    await navigate(lotId ? paths.lot.getHref(bank.id, lotId) : paths.lots.getHref(bank.id), { replace: true, state });
+    await navigate(lotId ? paths.lot.getHref(bank.id, lotId) : paths.lots.getHref(bank.id), {
+      replace: true,
+      state,
+    });
     forgetTest(queryClient, bank.id, testId);
   };
 
@@ -74,9 +77,14 @@ export function GerminationTestPage() {
               Germination test started {formatDate(test.startDate)} · {setupWords(test)}
               {test.schedule.firstCountDate || test.schedule.finalCountDate ? (
                 <span className="mt-1 block text-frost-700">
-                  {test.schedule.firstCountDate ? `First count around ${formatDate(test.schedule.firstCountDate)}` : ''}
+                  {test.schedule.firstCountDate
+                    ? `First count around ${formatDate(test.schedule.firstCountDate)}`
+                    : ''}
                   {test.schedule.firstCountDate && test.schedule.finalCountDate ? ', ' : ''}
-                  {test.schedule.finalCountDate ? `final count around ${formatDate(test.schedule.finalCountDate)}` : ''}.
+                  {test.schedule.finalCountDate
+                    ? `final count around ${formatDate(test.schedule.finalCountDate)}`
+                    : ''}
+                  .
                 </span>
               ) : null}
               {test.notes ? <span className="mt-1 block whitespace-pre-line">{test.notes}</span> : null}

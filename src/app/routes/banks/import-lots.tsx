@@ -11,7 +11,11 @@ import { useRouteBank } from './use-route-bank';
 type Holds = 'lots' | 'tests';
 const choices: { value: Holds; label: string; hint: string }[] = [
   { value: 'lots', label: 'Lots', hint: 'One line per lot: species, variety, origin, seeds on hand…' },
-  { value: 'tests', label: 'Germination tests', hint: 'One line per tray and check day, for lots already in this bank.' },
+  {
+    value: 'tests',
+    label: 'Germination tests',
+    hint: 'One line per tray and check day, for lots already in this bank.',
+  },
 ];
 
 /** What the file holds, kept in the address (?holds=tests) so a link can open either import. */
@@ -69,7 +73,9 @@ export function ImportLotsPage() {
         }
       />
       {role === 'viewer' ? (
-        <FormAlert tone="info">As a viewer you can export this bank’s lots and tests but not import them.</FormAlert>
+        <FormAlert tone="info">
+          As a viewer you can export this bank’s lots and tests but not import them.
+        </FormAlert>
       ) : (
         <div className="grid gap-5">
           <HoldsChoice holds={holds} onChange={choose} />

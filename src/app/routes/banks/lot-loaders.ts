@@ -21,7 +21,8 @@ import { todayIn } from '../../../lib/dates';
 
 function failure(error: unknown, request: Request): never {
   const url = new URL(request.url);
-  if (isApiError(error) && error.status === 401) throw redirect(paths.signIn.getHref(url.pathname + url.search));
+  if (isApiError(error) && error.status === 401)
+    throw redirect(paths.signIn.getHref(url.pathname + url.search));
   if (isApiError(error) && error.status === 404) throw data(error.message, { status: 404 });
   throw error;
 }
@@ -42,7 +43,9 @@ export function lotsLoader(queryClient: QueryClient) {
         queryClient.ensureInfiniteQueryData(lotsQueryOptions(bankId, {})),
       ]);
       // The ranking can take a moment on a big bank: the page shows its own loading state meanwhile.
-      void queryClient.prefetchQuery(rankingQueryOptions(bankId, on ?? defaultSowingDate(bank.lastFrost, todayIn(bank.timeZone))));
+      void queryClient.prefetchQuery(
+        rankingQueryOptions(bankId, on ?? defaultSowingDate(bank.lastFrost, todayIn(bank.timeZone))),
+      );
     } catch (error) {
       failure(error, request);
     }
@@ -83,7 +86,11 @@ export function lotLoader(queryClient: QueryClient) {
       ]);
       // The advice, decline and storage cards share one answer: started here, drawn as it arrives.
       void queryClient.prefetchQuery(
-        lotViabilityQueryOptions(bankId, lotId, on ?? defaultSowingDate(bank.lastFrost, todayIn(bank.timeZone))),
+        lotViabilityQueryOptions(
+          bankId,
+          lotId,
+          on ?? defaultSowingDate(bank.lastFrost, todayIn(bank.timeZone)),
+        ),
       );
     } catch (error) {
       failure(error, request);

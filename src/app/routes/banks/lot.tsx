@@ -89,7 +89,13 @@ export function LotPage() {
               describe={(i) => `Packet of ${lot.code}${i > 0 ? `, photo ${i + 1}` : ''}`}
             />
           </Card>
-          <LotDetails key={lot.updatedAt} bankId={bank.id} lot={lot} plants={speciesPlants} canEdit={canEdit} />
+          <LotDetails
+            key={lot.updatedAt}
+            bankId={bank.id}
+            lot={lot}
+            plants={speciesPlants}
+            canEdit={canEdit}
+          />
           <StockLedger bankId={bank.id} lotId={lot.id} canEdit={canEdit} today={today} />
 
           {/*
@@ -99,7 +105,13 @@ export function LotPage() {
           <section id="lot-tests" aria-labelledby="lot-tests-title">
             <LotTests bankId={bank.id} lotId={lot.id} canWrite={canEdit} headingId="lot-tests-title" />
           </section>
-          <DeclineCard bankId={bank.id} lotId={lot.id} on={sowing.on} today={today} setAsideResults={setAsideResults} />
+          <DeclineCard
+            bankId={bank.id}
+            lotId={lot.id}
+            on={sowing.on}
+            today={today}
+            setAsideResults={setAsideResults}
+          />
         </div>
 
         <div className="grid min-w-0 gap-6">
@@ -114,11 +126,27 @@ export function LotPage() {
             defaultAssurance={bank.sowingAssurance}
             canEdit={canEdit}
           />
-          <StorageAdviceCard bankId={bank.id} lotId={lot.id} on={sowing.on} place={lot.storage.place} temperatureC={lot.storage.temperatureC} />
-          {species ? <SpeciesTraitsCard bankId={bank.id} species={species} canEdit={canEdit} showCautions={false} /> : null}
-          <Card title="Parent plants" description={lot.plantsBulked ? `Seed bulked from ${lot.plantsBulked} plants` : undefined}>
+          <StorageAdviceCard
+            bankId={bank.id}
+            lotId={lot.id}
+            on={sowing.on}
+            place={lot.storage.place}
+            temperatureC={lot.storage.temperatureC}
+          />
+          {species ? (
+            <SpeciesTraitsCard bankId={bank.id} species={species} canEdit={canEdit} showCautions={false} />
+          ) : null}
+          <Card
+            title="Parent plants"
+            description={lot.plantsBulked ? `Seed bulked from ${lot.plantsBulked} plants` : undefined}
+          >
             {parents.length ? (
-              <PlantsList bankId={bank.id} plants={parents} canEdit={false} label={`Parent plants of ${lot.code}`} />
+              <PlantsList
+                bankId={bank.id}
+                plants={parents}
+                canEdit={false}
+                label={`Parent plants of ${lot.code}`}
+              />
             ) : (
               <p className="text-loam-700">No parent plants recorded for this lot.</p>
             )}

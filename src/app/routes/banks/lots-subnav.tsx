@@ -19,7 +19,9 @@ export function LotsSubnav({ bankId }: { bankId: string }) {
               className={({ isActive }) =>
                 cn(
                   'inline-flex min-h-11 items-center border-b-2 px-3 font-semibold',
-                  isActive ? 'border-moss-700 text-moss-800' : 'border-transparent text-loam-700 hover:text-loam-950',
+                  isActive
+                    ? 'border-moss-700 text-moss-800'
+                    : 'border-transparent text-loam-700 hover:text-loam-950',
                 )
               }
             >

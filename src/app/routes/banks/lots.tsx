@@ -63,7 +63,10 @@ export function LotsPage() {
                 <Link to={paths.newLot.getHref(bank.id)} className={buttonStyles()}>
                   Log the first lot
                 </Link>
-                <Link to={paths.importLots.getHref(bank.id)} className={buttonStyles({ variant: 'secondary' })}>
+                <Link
+                  to={paths.importLots.getHref(bank.id)}
+                  className={buttonStyles({ variant: 'secondary' })}
+                >
                   Import CSV
                 </Link>
               </div>

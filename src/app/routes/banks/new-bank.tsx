@@ -21,7 +21,9 @@ export function NewBankPage() {
         <CreateBankForm
           onCreated={async (bank) => {
             await queryClient.invalidateQueries({ queryKey: authKeys.me(), refetchType: 'all' });
-            const state: BankNoticeState = { notice: `${bank.name} is ready. Invite the people you share seed with from Members.` };
+            const state: BankNoticeState = {
+              notice: `${bank.name} is ready. Invite the people you share seed with from Members.`,
+            };
             await navigate(paths.overview.getHref(bank.id), { state });
           }}
         />

@@ -78,10 +78,19 @@ export function NewLotPage() {
             const state: LotPageState = { notice: `Lot ${lot.code} is saved.` };
             if (photo) {
               try {
-                await upload.mutateAsync({ subject: 'lot', subjectId: lot.id, file: photo, onProgress: onPhotoProgress });
+                await upload.mutateAsync({
+                  subject: 'lot',
+                  subjectId: lot.id,
+                  file: photo,
+                  onProgress: onPhotoProgress,
+                });
               } catch (error) {
                 // The lot is saved either way; its page says what went wrong and offers a retry.
-                state.photoFailure = { file: photo, message: uploadFailureMessage(error), retryable: isRetryable(error) };
+                state.photoFailure = {
+                  file: photo,
+                  message: uploadFailureMessage(error),
+                  retryable: isRetryable(error),
+                };
               }
             }
             await navigate(paths.lot.getHref(bank.id, lot.id), { state });
@@ -112,9 +121,16 @@ export function NewLotPage() {
             onCancel={() => setAddingPlant(null)}
             onCreated={async (plant, photo, onPhotoProgress) => {
               if (photo) {
-                await upload.mutateAsync({ subject: 'plant', subjectId: plant.id, file: photo, onProgress: onPhotoProgress }).catch(
-                  () => undefined, // the plant is saved; a photo can be added on the plants page
-                );
+                await upload
+                  .mutateAsync({
+                    subject: 'plant',
+                    subjectId: plant.id,
+                    file: photo,
+                    onProgress: onPhotoProgress,
+                  })
+                  .catch(
+                    () => undefined, // the plant is saved; a photo can be added on the plants page
+                  );
               }
               setAddedPlantId(plant.id);
               setAddingPlant(null);

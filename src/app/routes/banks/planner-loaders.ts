@@ -20,7 +20,8 @@ export function seasonFromSearch(search: URLSearchParams, today: string): number
 
 function failure(error: unknown, request: Request): never {
   const url = new URL(request.url);
-  if (isApiError(error) && error.status === 401) throw redirect(paths.signIn.getHref(url.pathname + url.search));
+  if (isApiError(error) && error.status === 401)
+    throw redirect(paths.signIn.getHref(url.pathname + url.search));
   if (isApiError(error) && error.status === 404) throw data(error.message, { status: 404 });
   throw error;
 }

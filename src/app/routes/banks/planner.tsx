@@ -42,10 +42,16 @@ export function PlannerPage() {
   const ranking = useRanking(bank.id, today);
   const [added, setAdded] = useState<string>();
   const entries = useMemo(() => plan.data ?? [], [plan.data]);
-  const events = useMemo(() => seasonEvents(season, entries, ranking.data ?? []), [season, entries, ranking.data]);
+  const events = useMemo(
+    () => seasonEvents(season, entries, ranking.data ?? []),
+    [season, entries, ranking.data],
+  );
   const frost = seasonFrost(season, bank.lastFrost);
   // Labels for the packets this season's sowings draw on, each lot once.
-  const plannedLots = useMemo(() => [...new Set(entries.flatMap((e) => (e.lotId ? [e.lotId] : [])))], [entries]);
+  const plannedLots = useMemo(
+    () => [...new Set(entries.flatMap((e) => (e.lotId ? [e.lotId] : [])))],
+    [entries],
+  );
 
   /** Changes some of the address's choices; a new view or season is a step "back" can undo. */
   const setParams = (changes: Record<string, string | null>) =>
@@ -89,7 +95,11 @@ export function PlannerPage() {
                 </option>
               ))}
             </SelectField>
-            <a href={bankPaths.planIcs(bank.id, season)} download={`hilum-plan-${season}.ics`} className={buttonStyles({ variant: 'secondary' })}>
+            <a
+              href={bankPaths.planIcs(bank.id, season)}
+              download={`hilum-plan-${season}.ics`}
+              className={buttonStyles({ variant: 'secondary' })}
+            >
               Add to my calendar
             </a>
             {plannedLots.length ? <PrintLabelLink bankId={bank.id} lotIds={plannedLots} /> : null}
@@ -97,16 +107,28 @@ export function PlannerPage() {
         }
       />
 
-      <FrostLine bankId={bank.id} frost={frost} marginDays={bank.frostMarginDays} isOwner={role === 'owner'} />
+      <FrostLine
+        bankId={bank.id}
+        frost={frost}
+        marginDays={bank.frostMarginDays}
+        isOwner={role === 'owner'}
+      />
 
-      <div role="group" aria-label="Planner view" className="mb-5 mt-5 inline-flex rounded-lg border border-loam-300 bg-white p-0.5">
+      <div
+        role="group"
+        aria-label="Planner view"
+        className="mb-5 mt-5 inline-flex rounded-lg border border-loam-300 bg-white p-0.5"
+      >
         {(['sowings', 'calendar'] as const).map((v) => (
           <button
             key={v}
             type="button"
             aria-pressed={view === v}
             onClick={() => setParams({ view: v === 'sowings' ? null : v })}
-            className={cn('min-h-11 rounded-md px-4 font-semibold', view === v ? 'bg-moss-700 text-white' : 'text-loam-800 hover:bg-husk-100')}
+            className={cn(
+              'min-h-11 rounded-md px-4 font-semibold',
+              view === v ? 'bg-moss-700 text-white' : 'text-loam-800 hover:bg-husk-100',
+            )}
           >
             {v === 'sowings' ? `Sowings (${entries.length})` : 'Calendar'}
           </button>
@@ -114,7 +136,10 @@ export function PlannerPage() {
       </div>
 
       {view === 'calendar' ? (
-        <Card title={`Season ${season}`} description="Sowing windows, expected seedlings, hardening off, planting out and retests due.">
+        <Card
+          title={`Season ${season}`}
+          description="Sowing windows, expected seedlings, hardening off, planting out and retests due."
+        >
           {ranking.isPending ? <Loading label="Loading the retest dates" className="py-2" /> : null}
           <SeasonCalendar
             events={events}
@@ -143,7 +168,11 @@ export function PlannerPage() {
             ) : entries.length === 0 ? (
               <EmptyState
                 title={`Nothing planned for ${season} yet`}
-                description={canEdit ? 'Add a species to the plan: Hilum works out when to sow it, from which lot and how many seeds.' : 'A grower or owner of this bank plans the sowings.'}
+                description={
+                  canEdit
+                    ? 'Add a species to the plan: Hilum works out when to sow it, from which lot and how many seeds.'
+                    : 'A grower or owner of this bank plans the sowings.'
+                }
               />
             ) : (
               <ol className="grid gap-4">
@@ -156,12 +185,21 @@ export function PlannerPage() {
             )}
           </section>
 
-          <div className={cn('min-w-0 lg:sticky lg:top-20 lg:order-2', entries.length > 0 ? 'order-2' : 'order-1')}>
+          <div
+            className={cn(
+              'min-w-0 lg:sticky lg:top-20 lg:order-2',
+              entries.length > 0 ? 'order-2' : 'order-1',
+            )}
+          >
             {!canEdit ? (
-              <FormAlert tone="info">As a viewer you can read this bank’s plan; a grower or owner adds and sows the entries.</FormAlert>
+              <FormAlert tone="info">
+                As a viewer you can read this bank’s plan; a grower or owner adds and sows the entries.
+              </FormAlert>
             ) : !bank.lastFrost ? (
               <Card title="Add to plan">
-                <p className="text-loam-700">Every sowing date counts back from the last spring frost date, so the bank needs one first.</p>
+                <p className="text-loam-700">
+                  Every sowing date counts back from the last spring frost date, so the bank needs one first.
+                </p>
               </Card>
             ) : (
               <Card title="Add to plan">
@@ -172,7 +210,11 @@ export function PlannerPage() {
                   lastFrost={bank.lastFrost}
                   marginDays={bank.frostMarginDays}
                   renderSpeciesNote={(s) => <SpeciesCautions species={s} />}
-                  onCreated={(entry) => setAdded(`Added ${entry.speciesName}: sow between ${dayMonth(entry.sowFrom)} and ${dayMonth(entry.sowTo)}.`)}
+                  onCreated={(entry) =>
+                    setAdded(
+                      `Added ${entry.speciesName}: sow between ${dayMonth(entry.sowFrom)} and ${dayMonth(entry.sowTo)}.`,
+                    )
+                  }
                 />
               </Card>
             )}
@@ -183,7 +225,17 @@ export function PlannerPage() {
   );
 }
 
-function FrostLine({ bankId, frost, marginDays, isOwner }: { bankId: string; frost: string | null; marginDays: number; isOwner: boolean }) {
+function FrostLine({
+  bankId,
+  frost,
+  marginDays,
+  isOwner,
+}: {
+  bankId: string;
+  frost: string | null;
+  marginDays: number;
+  isOwner: boolean;
+}) {
   if (!frost) {
     return (
       <FormAlert tone="info" title="No last spring frost date yet">
@@ -205,9 +257,13 @@ function FrostLine({ bankId, frost, marginDays, isOwner }: { bankId: string; fro
     );
   }
   return (
-    <p className="rounded-lg border border-frost-200 bg-frost-50 px-3 py-2.5 text-frost-800" data-frost={frost}>
-      Last spring frost (local average): <strong className="num">{dayMonth(frost)}</strong>. Tender plants go out from{' '}
-      <strong className="num">{dayMonth(addDays(frost, marginDays))}</strong>, after the bank’s {marginDays}-day margin.{' '}
+    <p
+      className="rounded-lg border border-frost-200 bg-frost-50 px-3 py-2.5 text-frost-800"
+      data-frost={frost}
+    >
+      Last spring frost (local average): <strong className="num">{dayMonth(frost)}</strong>. Tender plants go
+      out from <strong className="num">{dayMonth(addDays(frost, marginDays))}</strong>, after the bank’s{' '}
+      {marginDays}-day margin.{' '}
       <Link to={paths.settings.getHref(bankId)} className="underline">
         Frost settings
       </Link>

@@ -31,7 +31,10 @@ export function PlantsPage() {
       />
       <LotsSubnav bankId={bank.id} />
       <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-        <Card title="Plants in this bank" description={plants.data ? `${plants.data.length} recorded` : undefined}>
+        <Card
+          title="Plants in this bank"
+          description={plants.data ? `${plants.data.length} recorded` : undefined}
+        >
           {plants.isPending ? (
             <Loading label="Loading the plants" />
           ) : plants.isError ? (
@@ -60,9 +63,16 @@ export function PlantsPage() {
                 setPhotoError(undefined);
                 if (!photo) return;
                 try {
-                  await upload.mutateAsync({ subject: 'plant', subjectId: plant.id, file: photo, onProgress: onPhotoProgress });
+                  await upload.mutateAsync({
+                    subject: 'plant',
+                    subjectId: plant.id,
+                    file: photo,
+                    onProgress: onPhotoProgress,
+                  });
                 } catch (error) {
-                  setPhotoError(`${plant.label} is saved, but its photo is not. ${uploadFailureMessage(error)}`);
+                  setPhotoError(
+                    `${plant.label} is saved, but its photo is not. ${uploadFailureMessage(error)}`,
+                  );
                 }
               }}
             />

@@ -21,14 +21,22 @@ export function RemindersPage() {
       />
       <div className="grid gap-6">
         <Card title={bank.name}>
-          <ReminderChoices bankId={bank.id} bankName={bank.name} timeZone={bank.timeZone} email={me?.user.email} />
+          <ReminderChoices
+            bankId={bank.id}
+            bankName={bank.name}
+            timeZone={bank.timeZone}
+            email={me?.user.email}
+          />
         </Card>
         {otherBanks.length > 0 ? (
           <Card title="Your other banks" description="Each bank has its own choices.">
             <ul className="grid gap-1">
               {otherBanks.map((m) => (
                 <li key={m.bankId}>
-                  <Link to={paths.reminders.getHref(m.bankId)} className="inline-flex min-h-11 items-center font-semibold text-moss-800 underline">
+                  <Link
+                    to={paths.reminders.getHref(m.bankId)}
+                    className="inline-flex min-h-11 items-center font-semibold text-moss-800 underline"
+                  >
                     Reminders in {m.bankName}
                   </Link>
                 </li>

@@ -27,7 +27,9 @@ export function AcceptInvitationPage() {
     onSuccess: async (joined) => {
       // The new membership must be in the bank switcher before the bank opens.
       await queryClient.invalidateQueries({ queryKey: authKeys.me(), refetchType: 'all' });
-      const state: BankNoticeState = { notice: `Welcome to ${joined.bankName}. You joined as ${joined.role}.` };
+      const state: BankNoticeState = {
+        notice: `Welcome to ${joined.bankName}. You joined as ${joined.role}.`,
+      };
       await navigate(paths.overview.getHref(joined.bankId), { replace: true, state });
     },
   });
@@ -39,8 +41,8 @@ export function AcceptInvitationPage() {
   if (!tokenLooksRight) {
     body = (
       <FormAlert>
-        This invitation link is incomplete. Open the link from the e-mail again, or ask the bank’s owner to send a new
-        invitation.
+        This invitation link is incomplete. Open the link from the e-mail again, or ask the bank’s owner to
+        send a new invitation.
       </FormAlert>
     );
   } else if (me.isPending) {
@@ -49,8 +51,8 @@ export function AcceptInvitationPage() {
     body = (
       <div className="grid gap-3">
         <p className="text-loam-800">
-          To join, sign in to your Hilum account — or create one, it takes a minute. You come straight back here
-          afterwards to accept.
+          To join, sign in to your Hilum account — or create one, it takes a minute. You come straight back
+          here afterwards to accept.
         </p>
         <Link to={paths.signIn.getHref(here)} className={buttonStyles({ size: 'lg', fullWidth: true })}>
           Sign in to accept
@@ -71,16 +73,23 @@ export function AcceptInvitationPage() {
       <div className="grid gap-4">
         <p className="text-loam-800">
           You are signed in as <span className="font-semibold">{me.data.user.name}</span>{' '}
-          <span className="break-all text-loam-600">({me.data.user.email})</span>. To accept with another account,
-          sign out first from the account menu.
+          <span className="break-all text-loam-600">({me.data.user.email})</span>. To accept with another
+          account, sign out first from the account menu.
         </p>
         {refused ? (
-          <FormAlert title={isApiError(refused) && refused.code === 'already_member' ? 'Already in' : undefined}>
+          <FormAlert
+            title={isApiError(refused) && refused.code === 'already_member' ? 'Already in' : undefined}
+          >
             {refused.message}
           </FormAlert>
         ) : null}
-        {refused && isApiError(refused) && (refused.code === 'already_member' || refused.code === 'invalid_token') ? (
-          <Link to={paths.home.getHref()} className={buttonStyles({ variant: 'secondary', size: 'lg', fullWidth: true })}>
+        {refused &&
+        isApiError(refused) &&
+        (refused.code === 'already_member' || refused.code === 'invalid_token') ? (
+          <Link
+            to={paths.home.getHref()}
+            className={buttonStyles({ variant: 'secondary', size: 'lg', fullWidth: true })}
+          >
             Go to my banks
           </Link>
         ) : (

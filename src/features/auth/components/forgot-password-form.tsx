@@ -33,9 +33,9 @@ export function ForgotPasswordForm() {
   if (sentTo !== undefined) {
     return (
       <FormAlert tone="success" title="Check your inbox">
-        If an account exists for <strong className="break-all">{sentTo}</strong>, we have sent it a link to choose
-        a new password. The link works once, for one hour. Nothing arrived? Look in the spam folder, or ask again
-        in a few minutes.
+        If an account exists for <strong className="break-all">{sentTo}</strong>, we have sent it a link to
+        choose a new password. The link works once, for one hour. Nothing arrived? Look in the spam folder, or
+        ask again in a few minutes.
       </FormAlert>
     );
   }

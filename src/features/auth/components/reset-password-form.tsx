@@ -22,7 +22,10 @@ export function ResetPasswordForm({ token, onDone }: ResetPasswordFormProps) {
     handleSubmit,
     setError,
     formState: { errors },
-  } = useForm({ resolver: zodResolver(passwordResetConfirmBodySchema), defaultValues: { token, password: '' } });
+  } = useForm({
+    resolver: zodResolver(passwordResetConfirmBodySchema),
+    defaultValues: { token, password: '' },
+  });
 
   const onSubmit = handleSubmit(async (body) => {
     setFormError(undefined);

@@ -11,7 +11,9 @@ export async function createBank(body: CreateBankBody): Promise<BankDto> {
   return (await apiFetch('/api/banks', { method: 'POST', body, schema: createBankResponseSchema })).bank;
 }
 
-export function useCreateBank(options: Pick<UseMutationOptions<BankDto, Error, CreateBankBody>, 'onSuccess'> = {}) {
+export function useCreateBank(
+  options: Pick<UseMutationOptions<BankDto, Error, CreateBankBody>, 'onSuccess'> = {},
+) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createBank,

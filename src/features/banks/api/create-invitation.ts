@@ -1,6 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { invitationSchema, type CreateInvitationBody, type InvitationDto } from '../../../../shared/schemas/banks';
+import {
+  invitationSchema,
+  type CreateInvitationBody,
+  type InvitationDto,
+} from '../../../../shared/schemas/banks';
 import { apiFetch } from '../../../lib/api-client';
 import { bankKeys, bankPaths } from '../../../lib/bank-api';
 

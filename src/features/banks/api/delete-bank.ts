@@ -7,7 +7,10 @@ export async function deleteBank(bankId: string): Promise<void> {
   await apiFetch(bankPaths.bank(bankId), { method: 'DELETE' });
 }
 
-export function useDeleteBank(bankId: string, options: Pick<UseMutationOptions<void, Error, void>, 'onSuccess'> = {}) {
+export function useDeleteBank(
+  bankId: string,
+  options: Pick<UseMutationOptions<void, Error, void>, 'onSuccess'> = {},
+) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: () => deleteBank(bankId),

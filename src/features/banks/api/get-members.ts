@@ -7,7 +7,10 @@ import { bankKeys, bankPaths } from '../../../lib/bank-api';
 export type MembersResponse = z.infer<typeof membersResponseSchema>;
 
 /** GET /api/banks/:bankId/members: everyone in the bank with their role. */
-export function getMembers(bankId: string, { signal }: { signal?: AbortSignal } = {}): Promise<MembersResponse> {
+export function getMembers(
+  bankId: string,
+  { signal }: { signal?: AbortSignal } = {},
+): Promise<MembersResponse> {
   return apiFetch(bankPaths.members(bankId), { schema: membersResponseSchema, signal });
 }
 

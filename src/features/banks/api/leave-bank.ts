@@ -7,7 +7,10 @@ export async function leaveBank(bankId: string): Promise<void> {
   await apiFetch(bankPaths.leave(bankId), { method: 'POST' });
 }
 
-export function useLeaveBank(bankId: string, options: Pick<UseMutationOptions<void, Error, void>, 'onSuccess'> = {}) {
+export function useLeaveBank(
+  bankId: string,
+  options: Pick<UseMutationOptions<void, Error, void>, 'onSuccess'> = {},
+) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: () => leaveBank(bankId),

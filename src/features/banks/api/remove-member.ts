@@ -7,7 +7,10 @@ export async function removeMember(bankId: string, userId: string): Promise<void
   await apiFetch(bankPaths.member(bankId, userId), { method: 'DELETE' });
 }
 
-export function useRemoveMember(bankId: string, options: Pick<UseMutationOptions<void, Error, string>, 'onSuccess'> = {}) {
+export function useRemoveMember(
+  bankId: string,
+  options: Pick<UseMutationOptions<void, Error, string>, 'onSuccess'> = {},
+) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (userId: string) => removeMember(bankId, userId),

@@ -11,8 +11,15 @@ export interface UpdateMemberRoleInput {
 }
 
 /** PATCH /api/banks/:bankId/members/:userId (owner); 409 last_owner when it would leave no owner. */
-export function updateMemberRole(bankId: string, { userId, role }: UpdateMemberRoleInput): Promise<MembersResponse> {
-  return apiFetch(bankPaths.member(bankId, userId), { method: 'PATCH', body: { role }, schema: membersResponseSchema });
+export function updateMemberRole(
+  bankId: string,
+  { userId, role }: UpdateMemberRoleInput,
+): Promise<MembersResponse> {
+  return apiFetch(bankPaths.member(bankId, userId), {
+    method: 'PATCH',
+    body: { role },
+    schema: membersResponseSchema,
+  });
 }
 
 export function useUpdateMemberRole(

@@ -86,12 +86,19 @@ export function BankSettingsForm({ bank, canEdit }: BankSettingsFormProps) {
   return (
     <form noValidate onSubmit={onSubmit} onChange={() => setSaved(false)} className="grid gap-5">
       {!canEdit ? (
-        <FormAlert tone="info">Only an owner of this bank can change its settings. You can read them here.</FormAlert>
+        <FormAlert tone="info">
+          Only an owner of this bank can change its settings. You can read them here.
+        </FormAlert>
       ) : null}
       <FormAlert>{formError}</FormAlert>
       <fieldset disabled={!canEdit || update.isPending} className="grid gap-5">
         <legend className="sr-only">Bank settings</legend>
-        <TextField label="Name of the bank" autoComplete="off" error={errors.name?.message} {...register('name')} />
+        <TextField
+          label="Name of the bank"
+          autoComplete="off"
+          error={errors.name?.message}
+          {...register('name')}
+        />
         <FrostDatesNote />
         <div className="grid gap-4 sm:grid-cols-2">
           <TextField
@@ -140,10 +147,12 @@ export function BankSettingsForm({ bank, canEdit }: BankSettingsFormProps) {
           </SelectField>
         </div>
         <fieldset className="grid gap-4 border-t border-loam-200 pt-5">
-          <legend className="float-left mb-1 w-full text-lg font-bold text-loam-900">How Hilum decides</legend>
+          <legend className="float-left mb-1 w-full text-lg font-bold text-loam-900">
+            How Hilum decides
+          </legend>
           <p className="text-loam-700">
-            What the lot ranking and the seeds to sow work from. A species with a published minimum germination
-            standard is judged by that standard instead of the threshold.
+            What the lot ranking and the seeds to sow work from. A species with a published minimum
+            germination standard is judged by that standard instead of the threshold.
           </p>
           <div className="grid gap-4 sm:grid-cols-3">
             <TextField

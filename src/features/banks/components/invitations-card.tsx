@@ -34,7 +34,10 @@ export function InvitationsCard({ bankId }: { bankId: string }) {
           {items.map((invitation) => {
             const revoking = revoke.isPending && revoke.variables === invitation.id;
             return (
-              <li key={invitation.id} className="flex flex-wrap items-center gap-x-4 gap-y-2 px-4 py-3 sm:px-5">
+              <li
+                key={invitation.id}
+                className="flex flex-wrap items-center gap-x-4 gap-y-2 px-4 py-3 sm:px-5"
+              >
                 <div className="min-w-0 flex-1 basis-48">
                   <p className="break-all font-semibold text-loam-900">{invitation.email}</p>
                   <p className="text-sm text-loam-600">

@@ -73,7 +73,12 @@ export function InviteForm({ bankId }: { bankId: string }) {
                 'has-checked:border-moss-600 has-checked:bg-moss-50',
               )}
             >
-              <input type="radio" value={role} className="mt-1 size-5 shrink-0 accent-moss-700" {...register('role')} />
+              <input
+                type="radio"
+                value={role}
+                className="mt-1 size-5 shrink-0 accent-moss-700"
+                {...register('role')}
+              />
               <span>
                 <span className="block font-semibold text-loam-900">{roleLabels[role]}</span>
                 <span className="block text-sm text-loam-700">{roleSummaries[role]}</span>

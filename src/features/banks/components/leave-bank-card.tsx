@@ -14,7 +14,10 @@ export function LeaveBankCard({ bankId, bankName, onLeft }: LeaveBankCardProps) 
   const [confirming, setConfirming] = useState(false);
   const leave = useLeaveBank(bankId, { onSuccess: () => onLeft() });
   return (
-    <Card title="Leave this bank" description="You stop seeing its lots, tests and plans. An owner can invite you back.">
+    <Card
+      title="Leave this bank"
+      description="You stop seeing its lots, tests and plans. An owner can invite you back."
+    >
       <Button
         variant="secondary"
         className="w-full sm:w-auto"

@@ -39,7 +39,9 @@ export function MembersCard({ bankId, currentUserId, canManage, onOwnMembershipC
       {
         onSuccess: async () => {
           setPending(null);
-          setNotice(`${member.name} is now ${role === 'owner' ? 'an' : 'a'} ${roleLabels[role].toLowerCase()}.`);
+          setNotice(
+            `${member.name} is now ${role === 'owner' ? 'an' : 'a'} ${roleLabels[role].toLowerCase()}.`,
+          );
           if (member.userId === currentUserId) await onOwnMembershipChanged('role');
         },
         onError: (failure) => {
@@ -72,7 +74,11 @@ export function MembersCard({ bankId, currentUserId, canManage, onOwnMembershipC
       description={members.data ? (count === 1 ? '1 person' : `${count} people`) : undefined}
     >
       <div aria-live="polite" className="empty:hidden px-4 pt-3 sm:px-5">
-        {error ? <FormAlert title="Not changed">{error}</FormAlert> : notice ? <FormAlert tone="success">{notice}</FormAlert> : null}
+        {error ? (
+          <FormAlert title="Not changed">{error}</FormAlert>
+        ) : notice ? (
+          <FormAlert tone="success">{notice}</FormAlert>
+        ) : null}
       </div>
       {members.isPending ? (
         <Loading label="Reading the member list" />
@@ -85,7 +91,10 @@ export function MembersCard({ bankId, currentUserId, canManage, onOwnMembershipC
           {items.map((member) => {
             const isSelf = member.userId === currentUserId;
             return (
-              <li key={member.userId} className="flex flex-wrap items-center gap-x-4 gap-y-2 px-4 py-3 sm:px-5">
+              <li
+                key={member.userId}
+                className="flex flex-wrap items-center gap-x-4 gap-y-2 px-4 py-3 sm:px-5"
+              >
                 <div className="min-w-0 flex-1 basis-48">
                   <p className="font-semibold text-loam-900">
                     {member.name}
@@ -104,7 +113,8 @@ export function MembersCard({ bankId, currentUserId, canManage, onOwnMembershipC
                       onChange={(event) => {
                         const role = event.target.value as Role;
                         if (role === member.role) return;
-                        if (isSelf && member.role === 'owner') setPending({ kind: 'demote-self', member, role });
+                        if (isSelf && member.role === 'owner')
+                          setPending({ kind: 'demote-self', member, role });
                         else changeRole(member, role);
                       }}
                     >
@@ -152,13 +162,15 @@ export function MembersCard({ bankId, currentUserId, canManage, onOwnMembershipC
       <ConfirmDialog
         open={pending?.kind === 'demote-self'}
         title="Give up owning this bank?"
-        confirmLabel={pending?.kind === 'demote-self' ? `Become ${roleLabels[pending.role].toLowerCase()}` : 'Confirm'}
+        confirmLabel={
+          pending?.kind === 'demote-self' ? `Become ${roleLabels[pending.role].toLowerCase()}` : 'Confirm'
+        }
         isPending={updateRole.isPending}
         onCancel={() => setPending(null)}
         onConfirm={() => pending?.kind === 'demote-self' && changeRole(pending.member, pending.role)}
       >
-        You will no longer be able to manage members, invitations or settings. Another owner can make you an owner
-        again.
+        You will no longer be able to manage members, invitations or settings. Another owner can make you an
+        owner again.
       </ConfirmDialog>
     </Card>
   );

@@ -1,5 +1,9 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { testDetailSchema, type CreateTestBody, type TestDetail } from '../../../../shared/schemas/germination';
+import {
+  testDetailSchema,
+  type CreateTestBody,
+  type TestDetail,
+} from '../../../../shared/schemas/germination';
 import { apiFetch } from '../../../lib/api-client';
 import { applyTestDetail } from './apply-test-detail';
 import { bankPaths } from '../../../lib/bank-api';

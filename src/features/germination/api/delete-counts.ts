@@ -6,7 +6,10 @@ import { bankPaths } from '../../../lib/bank-api';
 
 /** DELETE /api/banks/:bankId/tests/:testId/counts/:date (grower): removes one check date's counts. */
 export function deleteCounts(bankId: string, testId: string, date: string): Promise<TestDetail> {
-  return apiFetch(bankPaths.testCountsOn(bankId, testId, date), { method: 'DELETE', schema: testDetailSchema });
+  return apiFetch(bankPaths.testCountsOn(bankId, testId, date), {
+    method: 'DELETE',
+    schema: testDetailSchema,
+  });
 }
 
 export function useDeleteCounts(bankId: string, testId: string) {

@@ -9,12 +9,24 @@ const importedSchema = z.object({ imported: z.number() });
 
 /** POST /api/banks/:bankId/tests/import?dryRun=true: the tests the file would add, nothing written. */
 export async function previewTestsImport(bankId: string, file: File) {
-  return (await apiFetch(bankPaths.testsImport(bankId, true), { method: 'POST', body: csvForm(file), schema: testsImportPreviewSchema })).preview;
+  return (
+    await apiFetch(bankPaths.testsImport(bankId, true), {
+      method: 'POST',
+      body: csvForm(file),
+      schema: testsImportPreviewSchema,
+    })
+  ).preview;
 }
 
 /** POST /api/banks/:bankId/tests/import: every test in one transaction, or nothing. */
 export async function importTests(bankId: string, file: File) {
-  return (await apiFetch(bankPaths.testsImport(bankId, false), { method: 'POST', body: csvForm(file), schema: importedSchema })).imported;
+  return (
+    await apiFetch(bankPaths.testsImport(bankId, false), {
+      method: 'POST',
+      body: csvForm(file),
+      schema: importedSchema,
+    })
+  ).imported;
 }
 
 export function usePreviewTestsImport(bankId: string) {

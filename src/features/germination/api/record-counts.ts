@@ -14,7 +14,12 @@ export function recordCounts(
   body: CountsBody,
   { signal }: { signal?: AbortSignal } = {},
 ): Promise<TestDetail> {
-  return apiFetch(bankPaths.testCounts(bankId, testId), { method: 'POST', body, schema: testDetailSchema, signal });
+  return apiFetch(bankPaths.testCounts(bankId, testId), {
+    method: 'POST',
+    body,
+    schema: testDetailSchema,
+    signal,
+  });
 }
 
 // A bench with weak Wi-Fi can leave a request hanging; give up after this and keep the numbers.
@@ -23,7 +28,8 @@ const SAVE_TIMEOUT_MS = 20_000;
 export function useRecordCounts(bankId: string, testId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: CountsBody) => recordCounts(bankId, testId, body, { signal: AbortSignal.timeout(SAVE_TIMEOUT_MS) }),
+    mutationFn: (body: CountsBody) =>
+      recordCounts(bankId, testId, body, { signal: AbortSignal.timeout(SAVE_TIMEOUT_MS) }),
     onSuccess: (detail) => applyTestDetail(queryClient, bankId, detail),
   });
 }

@@ -32,7 +32,12 @@ function rowsOf(detail: TestDetail): DateRow[] {
   const rows = new Map<string, DateRow>();
   const pooled = pooledByDate(detail);
   for (const count of detail.counts) {
-    const row = rows.get(count.date) ?? { date: count.date, day: count.day, byTray: new Map(), pooled: pooled.get(count.date) ?? null };
+    const row = rows.get(count.date) ?? {
+      date: count.date,
+      day: count.day,
+      byTray: new Map(),
+      pooled: pooled.get(count.date) ?? null,
+    };
     row.byTray.set(count.trayId, count.cumulative);
     rows.set(count.date, row);
   }
@@ -58,7 +63,9 @@ export function CountsTable({ bankId, detail, canEdit, onCorrect }: CountsTableP
       <ul className="grid gap-1 text-sm text-loam-700" aria-label="Trays left out of the figures">
         {notes.map((t) => (
           <li key={t.tray.id} data-tray-state={t.state}>
-            <span className={cn('font-semibold', t.state === 'set-aside' && 'line-through')}>T{t.tray.position}</span>{' '}
+            <span className={cn('font-semibold', t.state === 'set-aside' && 'line-through')}>
+              T{t.tray.position}
+            </span>{' '}
             {t.state === 'set-aside' ? setAsideWords(t.setAsideReason) : NOT_COUNTED}.
           </li>
         ))}
@@ -82,7 +89,8 @@ export function CountsTable({ bankId, detail, canEdit, onCorrect }: CountsTableP
       <div className="overflow-x-auto rounded-lg border border-loam-200">
         <table className="w-full min-w-max border-collapse text-left">
           <caption className="sr-only">
-            Normal seedlings {detail.test.status === 'running' ? 'so far' : 'up to each check'} (cumulative) by check date and tray
+            Normal seedlings {detail.test.status === 'running' ? 'so far' : 'up to each check'} (cumulative)
+            by check date and tray
           </caption>
           <thead className="bg-husk-100 text-sm text-loam-700">
             <tr>
@@ -94,7 +102,10 @@ export function CountsTable({ bankId, detail, canEdit, onCorrect }: CountsTableP
                   key={tray.id}
                   scope="col"
                   data-set-aside={aside.has(tray.id) || undefined}
-                  className={cn('px-2 py-2 text-right font-semibold', aside.has(tray.id) && 'text-loam-600 line-through')}
+                  className={cn(
+                    'px-2 py-2 text-right font-semibold',
+                    aside.has(tray.id) && 'text-loam-600 line-through',
+                  )}
                 >
                   <abbr
                     title={`Tray ${tray.position}, ${tray.seedsSown} sown${aside.has(tray.id) ? `, ${setAsideWords(tray.setAsideReason)}` : ''}`}
@@ -140,15 +151,25 @@ export function CountsTable({ bankId, detail, canEdit, onCorrect }: CountsTableP
                   ) : null}
                 </th>
                 {detail.trays.map((tray) => (
-                  <td key={tray.id} className={cn('px-2 py-2 text-right align-top text-lg', aside.has(tray.id) && 'bg-loam-50 text-loam-600')}>
+                  <td
+                    key={tray.id}
+                    className={cn(
+                      'px-2 py-2 text-right align-top text-lg',
+                      aside.has(tray.id) && 'bg-loam-50 text-loam-600',
+                    )}
+                  >
                     {row.byTray.has(tray.id) ? (
-                      <span className={cn(aside.has(tray.id) && 'line-through')}>{row.byTray.get(tray.id)}</span>
+                      <span className={cn(aside.has(tray.id) && 'line-through')}>
+                        {row.byTray.get(tray.id)}
+                      </span>
                     ) : (
                       '–'
                     )}
                   </td>
                 ))}
-                <td className="px-3 py-2 text-right align-top text-lg font-bold">{formatPercent(row.pooled)}</td>
+                <td className="px-3 py-2 text-right align-top text-lg font-bold">
+                  {formatPercent(row.pooled)}
+                </td>
               </tr>
             ))}
           </tbody>

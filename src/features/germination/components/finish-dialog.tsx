@@ -3,7 +3,11 @@ import { useId, useState } from 'react';
 import { useForm, useWatch, type FieldErrors, type Path, type UseFormRegister } from 'react-hook-form';
 import { z } from 'zod';
 import { isoDateSchema } from '../../../../shared/schemas/common';
-import { setAsideReasonSchema, type FinishBody, type TestDetail } from '../../../../shared/schemas/germination';
+import {
+  setAsideReasonSchema,
+  type FinishBody,
+  type TestDetail,
+} from '../../../../shared/schemas/germination';
 import { Button } from '../../../components/ui/button';
 import { FormDialog } from '../../../components/ui/dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
@@ -68,35 +72,66 @@ function finishFormSchema(detail: TestDetail) {
         const at = (field: keyof typeof t) => ['trays', i, field];
         if (t.mode === 'aside') {
           const reason = setAsideReasonSchema.safeParse(t.setAsideReason);
-          if (!reason.success) ctx.addIssue({ code: 'custom', path: at('setAsideReason'), message: reason.error.issues[0]?.message ?? 'Give a reason.' });
+          if (!reason.success)
+            ctx.addIssue({
+              code: 'custom',
+              path: at('setAsideReason'),
+              message: reason.error.issues[0]?.message ?? 'Give a reason.',
+            });
           return;
         }
         kept += 1;
         const normal = lastCount(detail, tray.id);
         if (normal === null) {
-          ctx.addIssue({ code: 'custom', path: at('setAsideReason'), message: `Tray ${tray.position} has no counts: set it aside, or record its count first.` });
+          ctx.addIssue({
+            code: 'custom',
+            path: at('setAsideReason'),
+            message: `Tray ${tray.position} has no counts: set it aside, or record its count first.`,
+          });
           return;
         }
         const abnormal = toInt(t.abnormal);
         const ungerminated = toInt(t.ungerminated);
-        if (abnormal === null) ctx.addIssue({ code: 'custom', path: at('abnormal'), message: 'A whole number (0 if none).' });
-        if (ungerminated === null) ctx.addIssue({ code: 'custom', path: at('ungerminated'), message: 'A whole number (0 if none).' });
+        if (abnormal === null)
+          ctx.addIssue({ code: 'custom', path: at('abnormal'), message: 'A whole number (0 if none).' });
+        if (ungerminated === null)
+          ctx.addIssue({ code: 'custom', path: at('ungerminated'), message: 'A whole number (0 if none).' });
         if (abnormal === null || ungerminated === null) return;
         const total = normal + abnormal + ungerminated;
         if (total !== tray.seedsSown) {
-          ctx.addIssue({ code: 'custom', path: at('ungerminated'), message: `Tray ${tray.position} adds up to ${total}, not the ${tray.seedsSown} sown.` });
+          ctx.addIssue({
+            code: 'custom',
+            path: at('ungerminated'),
+            message: `Tray ${tray.position} adds up to ${total}, not the ${tray.seedsSown} sown.`,
+          });
           return;
         }
         if (!form.sortUngerminated) return;
         const split = SPLIT.map((k) => t[k]);
         if (split.some((v) => v.trim() !== '' && toInt(v) === null)) {
-          ctx.addIssue({ code: 'custom', path: at('fresh'), message: 'Fresh, dead and hard take whole numbers.' });
-        } else if (split.some((v) => v.trim() !== '') && split.reduce((s, v) => s + (toInt(v) ?? 0), 0) !== ungerminated) {
-          ctx.addIssue({ code: 'custom', path: at('fresh'), message: `Fresh + dead + hard should make the ${ungerminated} ungerminated.` });
+          ctx.addIssue({
+            code: 'custom',
+            path: at('fresh'),
+            message: 'Fresh, dead and hard take whole numbers.',
+          });
+        } else if (
+          split.some((v) => v.trim() !== '') &&
+          split.reduce((s, v) => s + (toInt(v) ?? 0), 0) !== ungerminated
+        ) {
+          ctx.addIssue({
+            code: 'custom',
+            path: at('fresh'),
+            message: `Fresh + dead + hard should make the ${ungerminated} ungerminated.`,
+          });
         }
       });
       if (kept === 0) {
-        ctx.addIssue({ code: 'custom', path: ['trays'], message: 'Every tray is set aside, so the test would have no result: keep at least one tray with its figures.' });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['trays'],
+          message:
+            'Every tray is set aside, so the test would have no result: keep at least one tray with its figures.',
+        });
       }
     });
 }
@@ -131,7 +166,14 @@ export function FinishDialog({ bankId, detail, open, today, onClose, onFinished 
   const titleId = useId();
   return (
     <FormDialog open={open} titleId={titleId} onClose={onClose} className="w-[min(40rem,calc(100vw-1rem))]">
-      <FinishForm titleId={titleId} bankId={bankId} detail={detail} today={today} onClose={onClose} onFinished={onFinished} />
+      <FinishForm
+        titleId={titleId}
+        bankId={bankId}
+        detail={detail}
+        today={today}
+        onClose={onClose}
+        onFinished={onFinished}
+      />
     </FormDialog>
   );
 }
@@ -145,7 +187,10 @@ function FinishForm({
   onFinished,
 }: Omit<FinishDialogProps, 'open'> & { titleId: string }) {
   const finish = useFinishTest(bankId, detail.test.id);
-  const lastCountDate = [...detail.counts].map((c) => c.date).sort().at(-1);
+  const lastCountDate = [...detail.counts]
+    .map((c) => c.date)
+    .sort()
+    .at(-1);
   const [formError, setFormError] = useState<string>();
   // Once typed in, a tray's ungerminated stops following "sown − normal − abnormal".
   const [typed] = useState(() => new Set<number>());
@@ -191,14 +236,18 @@ function FinishForm({
       }
       // The server names each field as `trays.<i>.<field>`, in the order sent: the form's own.
       for (const [key, hint] of Object.entries(error.fields ?? {})) {
-        if (/^trays\.\d+\.\w+$/.test(key) || key === 'date') setError(key as Path<FinishForm>, { type: 'server', message: hint });
+        if (/^trays\.\d+\.\w+$/.test(key) || key === 'date')
+          setError(key as Path<FinishForm>, { type: 'server', message: hint });
       }
       setFormError(error.message);
     }
   });
   const trayErrors = errors.trays;
   const summaryError =
-    formError ?? trayErrors?.root?.message ?? trayErrors?.message ?? (trayErrors ? 'Some trays are not ready yet: see the trays marked below.' : undefined);
+    formError ??
+    trayErrors?.root?.message ??
+    trayErrors?.message ??
+    (trayErrors ? 'Some trays are not ready yet: see the trays marked below.' : undefined);
 
   return (
     <form noValidate onSubmit={onSubmit} className="grid gap-4">
@@ -207,8 +256,9 @@ function FinishForm({
           Finish the test
         </h2>
         <p className="mt-1 text-loam-700">
-          Each tray’s normal seedlings come from its last count. Sort the rest of its seeds: abnormal seedlings and
-          ungerminated seeds, so that the tray adds up to its seeds sown. A finished test is read-only until you reopen it.
+          Each tray’s normal seedlings come from its last count. Sort the rest of its seeds: abnormal
+          seedlings and ungerminated seeds, so that the tray adds up to its seeds sown. A finished test is
+          read-only until you reopen it.
         </p>
       </div>
       <FormAlert>{summaryError}</FormAlert>
@@ -223,18 +273,23 @@ function FinishForm({
       />
       <ul className="grid gap-1 text-sm text-loam-700">
         <li>
-          <strong>Normal</strong>: {SOUND_ROOT_AND_SHOOT}, as the seed-testing rules count them — each tray’s last count.
+          <strong>Normal</strong>: {SOUND_ROOT_AND_SHOOT}, as the seed-testing rules count them — each tray’s
+          last count.
         </li>
         <li>
-          <strong>Abnormal</strong>: came up stunted, deformed or without a sound root or shoot — not counted on the check
-          days, recorded here.
+          <strong>Abnormal</strong>: came up stunted, deformed or without a sound root or shoot — not counted
+          on the check days, recorded here.
         </li>
         <li>
           <strong>Ungerminated</strong>: never came up.
         </li>
       </ul>
       <label className="flex min-h-11 cursor-pointer items-center gap-3">
-        <input type="checkbox" className="size-5 shrink-0 accent-moss-700" {...register('sortUngerminated')} />
+        <input
+          type="checkbox"
+          className="size-5 shrink-0 accent-moss-700"
+          {...register('sortUngerminated')}
+        />
         <span>
           Also sort the ungerminated seeds into fresh, dead and hard (optional)
           <span className="block text-sm text-loam-600">
@@ -256,7 +311,10 @@ function FinishForm({
             onAbnormal={(text) => {
               if (typed.has(i)) return;
               const normal = lastCount(detail, tray.id) ?? 0;
-              setValue(`trays.${i}.ungerminated`, String(Math.max(0, tray.seedsSown - normal - (toInt(text) ?? 0))));
+              setValue(
+                `trays.${i}.ungerminated`,
+                String(Math.max(0, tray.seedsSown - normal - (toInt(text) ?? 0))),
+              );
             }}
             onUngerminatedTyped={() => typed.add(i)}
           />
@@ -290,7 +348,17 @@ interface FinishTrayProps {
   onUngerminatedTyped: () => void;
 }
 
-function FinishTray({ index: i, tray, normal, value, sortUngerminated, errors, register, onAbnormal, onUngerminatedTyped }: FinishTrayProps) {
+function FinishTray({
+  index: i,
+  tray,
+  normal,
+  value,
+  sortUngerminated,
+  errors,
+  register,
+  onAbnormal,
+  onUngerminatedTyped,
+}: FinishTrayProps) {
   const aside = value?.mode === 'aside' || normal === null;
   const abnormal = toInt(value?.abnormal ?? '') ?? 0;
   const ungerminated = toInt(value?.ungerminated ?? '') ?? 0;
@@ -305,14 +373,22 @@ function FinishTray({ index: i, tray, normal, value, sortUngerminated, errors, r
       data-finish-tray={tray.position}
       className={cn(
         'rounded-xl border p-3',
-        hasError ? 'border-2 border-clay-700 bg-clay-50' : aside ? 'border-dashed border-loam-300 bg-loam-50' : 'border-loam-200 bg-husk-50',
+        hasError
+          ? 'border-2 border-clay-700 bg-clay-50'
+          : aside
+            ? 'border-dashed border-loam-300 bg-loam-50'
+            : 'border-loam-200 bg-husk-50',
       )}
     >
       <p className={cn('font-bold', aside ? 'text-loam-600' : 'text-loam-900')}>
         <span className={cn(aside && 'line-through')}>
           Tray {tray.position} · {tray.seedsSown} sown
         </span>
-        {normal !== null ? ` · ${normal} normal seedlings at the last count` : tray.setAsideReason !== null ? ' · set aside while the test ran' : ` · ${NOT_COUNTED}`}
+        {normal !== null
+          ? ` · ${normal} normal seedlings at the last count`
+          : tray.setAsideReason !== null
+            ? ' · set aside while the test ran'
+            : ` · ${NOT_COUNTED}`}
       </p>
       {normal === null ? (
         <p className="mt-1 text-sm text-loam-700">
@@ -325,11 +401,21 @@ function FinishTray({ index: i, tray, normal, value, sortUngerminated, errors, r
           <legend className="sr-only">Tray {tray.position} at the finish</legend>
           <div className="flex flex-wrap gap-x-5">
             <label className="flex min-h-11 cursor-pointer items-center gap-2">
-              <input type="radio" value="figures" className="size-5 accent-moss-700" {...register(`trays.${i}.mode`)} />
+              <input
+                type="radio"
+                value="figures"
+                className="size-5 accent-moss-700"
+                {...register(`trays.${i}.mode`)}
+              />
               Give its figures
             </label>
             <label className="flex min-h-11 cursor-pointer items-center gap-2">
-              <input type="radio" value="aside" className="size-5 accent-moss-700" {...register(`trays.${i}.mode`)} />
+              <input
+                type="radio"
+                value="aside"
+                className="size-5 accent-moss-700"
+                {...register(`trays.${i}.mode`)}
+              />
               Set it aside
             </label>
           </div>
@@ -353,7 +439,9 @@ function FinishTray({ index: i, tray, normal, value, sortUngerminated, errors, r
               inputMode="numeric"
               pattern="[0-9]*"
               error={errors?.abnormal?.message}
-              {...register(`trays.${i}.abnormal`, { onChange: (e: { target: { value: string } }) => onAbnormal(e.target.value) })}
+              {...register(`trays.${i}.abnormal`, {
+                onChange: (e: { target: { value: string } }) => onAbnormal(e.target.value),
+              })}
             />
             <TextField
               label="Ungerminated"
@@ -377,12 +465,18 @@ function FinishTray({ index: i, tray, normal, value, sortUngerminated, errors, r
               ))}
             </div>
           ) : null}
-          <p aria-live="polite" data-tray-sum={tray.position} className={cn('num mt-2 font-semibold', adds ? 'text-moss-800' : 'text-clay-700')}>
+          <p
+            aria-live="polite"
+            data-tray-sum={tray.position}
+            className={cn('num mt-2 font-semibold', adds ? 'text-moss-800' : 'text-clay-700')}
+          >
             {normal} normal + {abnormal} abnormal + {ungerminated} ungerminated = {total}{' '}
             {adds ? `✓ matches the ${tray.seedsSown} sown` : `— should be ${tray.seedsSown}`}
           </p>
           {sortUngerminated && splitGiven ? (
-            <p className={cn('num font-semibold', split === ungerminated ? 'text-moss-800' : 'text-clay-700')}>
+            <p
+              className={cn('num font-semibold', split === ungerminated ? 'text-moss-800' : 'text-clay-700')}
+            >
               fresh + dead + hard = {split} {split === ungerminated ? '✓' : `— should be ${ungerminated}`}
             </p>
           ) : null}

@@ -1,7 +1,17 @@
 import type { TestDetail } from '../../../../shared/schemas/germination';
 
-const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
-const shortDateFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
+const dateFormat = new Intl.DateTimeFormat('en-GB', {
+  day: 'numeric',
+  month: 'short',
+  year: 'numeric',
+  timeZone: 'UTC',
+});
+const shortDateFormat = new Intl.DateTimeFormat('en-GB', {
+  weekday: 'short',
+  day: 'numeric',
+  month: 'short',
+  timeZone: 'UTC',
+});
 
 /** "10 Mar 2026" for an ISO date. */
 export function formatDate(iso: string): string {
@@ -44,7 +54,8 @@ export function setupWords(test: TestDetail['test']): string {
   const parts = [test.method];
   if (test.medium) parts.push(test.medium);
   if (test.temperatureC !== null) parts.push(`${test.temperatureC}\u00a0°C`);
-  if (test.lightHours !== null) parts.push(test.lightHours === 0 ? 'dark' : `${test.lightHours} h light a day`);
+  if (test.lightHours !== null)
+    parts.push(test.lightHours === 0 ? 'dark' : `${test.lightHours} h light a day`);
   if (test.pretreatment !== 'none') {
     const label = pretreatmentLabels[test.pretreatment].toLowerCase();
     parts.push(test.pretreatmentDays !== null ? `${label}, ${test.pretreatmentDays} days` : label);

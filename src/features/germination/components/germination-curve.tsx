@@ -25,7 +25,11 @@ export function curvePoints(detail: TestDetail): CurvePoint[] {
   for (const count of sorted) {
     const tray = trays.get(count.trayId);
     if (!tray || tray.seedsSown <= 0) continue;
-    const point = byDate.get(count.date) ?? { day: count.day, date: count.date, pooled: pooled.get(count.date) ?? null };
+    const point = byDate.get(count.date) ?? {
+      day: count.day,
+      date: count.date,
+      pooled: pooled.get(count.date) ?? null,
+    };
     point[`tray${tray.position}`] = (100 * count.cumulative) / tray.seedsSown;
     byDate.set(count.date, point);
   }
@@ -51,10 +55,15 @@ export function GerminationCurve({ detail }: { detail: TestDetail }) {
   return (
     <figure className="grid gap-2" aria-labelledby="germination-curve-caption" data-chart="germination-curve">
       <figcaption id="germination-curve-caption" className="text-sm text-loam-700">
-        Normal seedlings{detail.test.status === 'running' ? ' so far' : ''}, in percent of the seeds sown, by days since sowing.
-        {firstDay !== null || finalDay !== null ? ' Dashed lines mark the species’ first and final count days.' : null}
-        {detail.trays.some((t) => t.setAsideReason !== null) ? ' Trays set aside are dashed and grey, left out of “All trays”.' : null}
-        {' '}The table below lists the same counts.
+        Normal seedlings{detail.test.status === 'running' ? ' so far' : ''}, in percent of the seeds sown, by
+        days since sowing.
+        {firstDay !== null || finalDay !== null
+          ? ' Dashed lines mark the species’ first and final count days.'
+          : null}
+        {detail.trays.some((t) => t.setAsideReason !== null)
+          ? ' Trays set aside are dashed and grey, left out of “All trays”.'
+          : null}{' '}
+        The table below lists the same counts.
       </figcaption>
       {points.length === 0 ? (
         <p className="rounded-lg border border-dashed border-loam-300 bg-husk-50 px-4 py-8 text-center text-loam-700">
@@ -75,7 +84,13 @@ export function GerminationCurve({ detail }: { detail: TestDetail }) {
             domain={[0, lastDay]}
             allowDecimals={false}
             tick={{ fill: '#4e4337', fontSize: 13 }}
-            label={{ value: 'days since sowing', position: 'insideBottom', offset: -2, fill: '#4e4337', fontSize: 13 }}
+            label={{
+              value: 'days since sowing',
+              position: 'insideBottom',
+              offset: -2,
+              fill: '#4e4337',
+              fontSize: 13,
+            }}
             height={40}
           />
           <YAxis
@@ -111,7 +126,9 @@ export function GerminationCurve({ detail }: { detail: TestDetail }) {
               key={tray.id}
               type="linear"
               dataKey={`tray${tray.position}`}
-              name={tray.setAsideReason !== null ? `Tray ${tray.position} (set aside)` : `Tray ${tray.position}`}
+              name={
+                tray.setAsideReason !== null ? `Tray ${tray.position} (set aside)` : `Tray ${tray.position}`
+              }
               stroke={tray.setAsideReason !== null ? SET_ASIDE_COLOUR : TRAY_COLOURS[i % TRAY_COLOURS.length]}
               strokeDasharray={tray.setAsideReason !== null ? '4 4' : undefined}
               strokeWidth={1.75}

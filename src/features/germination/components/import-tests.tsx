@@ -54,9 +54,9 @@ export function ImportTests({ bankId, doneHref }: { bankId: string; doneHref: st
       count={testCount}
       template={
         <>
-          One line per tray and check day; lots are found by their code in this bank. A tray set aside (spilled,
-          dried out) gives its reason in set_aside_reason and no finish figures; germination_percent is there to
-          read and is not imported. Not sure of the columns?{' '}
+          One line per tray and check day; lots are found by their code in this bank. A tray set aside
+          (spilled, dried out) gives its reason in set_aside_reason and no finish figures; germination_percent
+          is there to read and is not imported. Not sure of the columns?{' '}
           <a href={bankPaths.testsCsv(bankId)} download className="font-semibold text-moss-800 underline">
             Export the bank’s tests
           </a>{' '}

@@ -90,7 +90,9 @@ function LotTestItem({ bankId, detail }: { bankId: string; detail: TestDetail })
           </p>
         </div>
         <div className="flex items-baseline gap-2 sm:block sm:text-right">
-          <p className="num text-3xl font-bold leading-none text-moss-800">{formatPercent(result.percentRounded)}</p>
+          <p className="num text-3xl font-bold leading-none text-moss-800">
+            {formatPercent(result.percentRounded)}
+          </p>
           <p className="text-sm text-loam-700">
             {range ? `${test.status === 'running' ? 'so far, ' : ''}${range}` : 'no counts yet'}
           </p>

@@ -19,7 +19,8 @@ type Agreement = TestDetail['result']['agreement'];
 function agreementDetail({ method, ok, observedRange, maxRange, pValue }: Agreement): string | undefined {
   if (ok === null) return undefined;
   if (method === 'chi-square') {
-    const p = pValue === null ? '' : `, p = ${pValue < 0.001 ? '< 0.001' : pValue.toFixed(pValue < 0.1 ? 3 : 2)}`;
+    const p =
+      pValue === null ? '' : `, p = ${pValue < 0.001 ? '< 0.001' : pValue.toFixed(pValue < 0.1 ? 3 : 2)}`;
     return `Trays of different sizes, compared by a chi-square test${p}; below 0.025 they disagree`;
   }
   if (observedRange === null || maxRange === null) return undefined;
@@ -96,7 +97,9 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
         </div>
       </div>
 
-      {finished && result.germinated !== null && result.sown !== null ? <FinishBreakdown result={result} /> : null}
+      {finished && result.germinated !== null && result.sown !== null ? (
+        <FinishBreakdown result={result} />
+      ) : null}
 
       <ol className="mt-4 grid gap-1.5" aria-label="Trays">
         {trays.map(({ tray, state, normal, percent, setAsideReason }) => (
@@ -106,7 +109,9 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
             data-tray={tray.position}
             className={cn(
               'flex flex-wrap items-baseline justify-between gap-x-3 rounded-lg px-3 py-1.5',
-              state === 'counted' ? 'bg-husk-100' : 'border border-dashed border-loam-300 bg-loam-50 text-loam-600',
+              state === 'counted'
+                ? 'bg-husk-100'
+                : 'border border-dashed border-loam-300 bg-loam-50 text-loam-600',
             )}
           >
             <span className={cn('font-semibold', state === 'set-aside' && 'line-through')}>
@@ -124,9 +129,15 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
       </ol>
 
       <dl className="mt-4 grid grid-cols-2 gap-3 sm:grid-cols-4">
-        <Stat label="Half up by" value={result.t50Days !== null ? `day ${formatDays(result.t50Days)}` : '–'} />
+        <Stat
+          label="Half up by"
+          value={result.t50Days !== null ? `day ${formatDays(result.t50Days)}` : '–'}
+        />
         <Stat label="Mean days to come up" value={formatDays(result.meanDays)} />
-        <Stat label="Trays counted" value={`${result.traysCounted} of ${result.traysTotal - result.traysSetAside}`} />
+        <Stat
+          label="Trays counted"
+          value={`${result.traysCounted} of ${result.traysTotal - result.traysSetAside}`}
+        />
         <Stat label="Speed index" value={result.speedIndex !== null ? formatDays(result.speedIndex) : '–'} />
       </dl>
       {showTimingNote ? (
@@ -136,7 +147,10 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
       ) : null}
 
       {words.length > 0 ? (
-        <ul className="mt-4 grid gap-1.5 border-t border-loam-100 pt-3 text-loam-800" aria-label="What the result means">
+        <ul
+          className="mt-4 grid gap-1.5 border-t border-loam-100 pt-3 text-loam-800"
+          aria-label="What the result means"
+        >
           {words.map((line) => (
             <li key={line} className="flex gap-2">
               <span aria-hidden="true" className="mt-2.5 size-1.5 shrink-0 rounded-full bg-moss-600" />
@@ -146,7 +160,10 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
         </ul>
       ) : null}
 
-      <label htmlFor={checkboxId} className="mt-4 flex min-h-11 cursor-pointer items-center gap-3 text-loam-800">
+      <label
+        htmlFor={checkboxId}
+        className="mt-4 flex min-h-11 cursor-pointer items-center gap-3 text-loam-800"
+      >
         <input
           id={checkboxId}
           type="checkbox"
@@ -156,7 +173,9 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
         />
         <span>
           Show the exact (Clopper–Pearson) interval
-          <span className="block text-sm text-loam-600">Never narrower than it should be, so usually a little wider.</span>
+          <span className="block text-sm text-loam-600">
+            Never narrower than it should be, so usually a little wider.
+          </span>
         </span>
       </label>
     </section>
@@ -166,7 +185,8 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
 /** A finished test's seeds, sorted: normal, abnormal and ungerminated (fresh, dead, hard) make the seeds sown. */
 function FinishBreakdown({ result }: { result: TestDetail['result'] }) {
   const sown = result.sown ?? 0;
-  const part = (n: number | null) => (n === null || sown === 0 ? '' : ` (${formatPercent((100 * n) / sown)})`);
+  const part = (n: number | null) =>
+    n === null || sown === 0 ? '' : ` (${formatPercent((100 * n) / sown)})`;
   const split = [
     result.fresh !== null ? `${result.fresh} fresh — dormant but alive` : null,
     result.dead !== null ? `${result.dead} dead` : null,
@@ -176,7 +196,9 @@ function FinishBreakdown({ result }: { result: TestDetail['result'] }) {
     <p className="mt-3 text-loam-800" data-result="breakdown">
       Of the {sown} seeds sown: {result.germinated} normal seedlings{part(result.germinated)}
       {result.abnormal !== null ? `, ${result.abnormal} abnormal${part(result.abnormal)}` : ''}
-      {result.ungerminated !== null ? `, ${result.ungerminated} ungerminated${part(result.ungerminated)}` : ''}
+      {result.ungerminated !== null
+        ? `, ${result.ungerminated} ungerminated${part(result.ungerminated)}`
+        : ''}
       {split.length > 0 ? ` (${split.join(', ')})` : ''}.
     </p>
   );

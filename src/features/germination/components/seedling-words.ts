@@ -14,7 +14,8 @@ export const SOUND_ROOT_AND_SHOOT = 'a sound root and shoot';
 export const NORMAL_SEEDLING = `A normal seedling has ${SOUND_ROOT_AND_SHOOT} — the seedlings the seed-testing rules count.`;
 
 /** What is not counted on a check day, and where it goes instead. */
-export const ABNORMAL_APART = 'Stunted or deformed ones are abnormal: leave them out here and note them when the test finishes.';
+export const ABNORMAL_APART =
+  'Stunted or deformed ones are abnormal: leave them out here and note them when the test finishes.';
 
 export const UNGERMINATED_KINDS = {
   fresh: 'Fresh: firm and swollen but not sprouted — dormant, still alive',

@@ -27,7 +27,17 @@ export function SetAsideDialog({ bankId, testId, tray, onClose, onDone }: SetAsi
   const titleId = useId();
   return (
     <FormDialog open={tray !== null} titleId={titleId} onClose={onClose}>
-      {tray ? <SetAsideForm key={tray.id} titleId={titleId} bankId={bankId} testId={testId} tray={tray} onClose={onClose} onDone={onDone} /> : null}
+      {tray ? (
+        <SetAsideForm
+          key={tray.id}
+          titleId={titleId}
+          bankId={bankId}
+          testId={testId}
+          tray={tray}
+          onClose={onClose}
+          onDone={onDone}
+        />
+      ) : null}
     </FormDialog>
   );
 }
@@ -67,9 +77,9 @@ function SetAsideForm({
           Set tray {tray.position} aside
         </h2>
         <p className="mt-1 text-loam-700">
-          A tray that spilled, dried out or went mouldy would pull the result down for reasons that are not the seed’s.
-          Set aside, it is left out of every figure of this test, and shown with its reason. You can take it back while
-          the test runs.
+          A tray that spilled, dried out or went mouldy would pull the result down for reasons that are not
+          the seed’s. Set aside, it is left out of every figure of this test, and shown with its reason. You
+          can take it back while the test runs.
         </p>
       </div>
       <FormAlert>{formError}</FormAlert>

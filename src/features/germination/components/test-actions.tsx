@@ -20,7 +20,11 @@ const TEST_ASIDE_REASONS = ['Mouldy towel', 'Too cold', 'Too hot', 'Dried out'] 
 
 // The shared rule for a reason, with this form's own words for an empty one.
 const setAsideFormSchema = z.object({
-  reason: z.string().trim().min(1, { message: 'Say why the test is set aside (mouldy towel, too cold…).' }).pipe(setAsideReasonSchema),
+  reason: z
+    .string()
+    .trim()
+    .min(1, { message: 'Say why the test is set aside (mouldy towel, too cold…).' })
+    .pipe(setAsideReasonSchema),
 });
 
 export interface TestActionsProps {
@@ -42,7 +46,10 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
   const [notice, setNotice] = useState<string>();
 
   return (
-    <section aria-labelledby="test-actions-title" className="rounded-xl border border-loam-200 bg-white p-4 sm:p-5">
+    <section
+      aria-labelledby="test-actions-title"
+      className="rounded-xl border border-loam-200 bg-white p-4 sm:p-5"
+    >
       <h2 id="test-actions-title" className="text-lg font-bold text-loam-900">
         {test.status === 'running' ? 'When the last check is done' : 'This test is finished'}
       </h2>
@@ -51,10 +58,14 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
         <FormAlert>{reopen.error?.message ?? takeBack.error?.message}</FormAlert>
       </div>
       {test.setAsideReason !== null ? (
-        <div data-testid="test-set-aside" className="mt-3 rounded-lg border border-dashed border-loam-500 bg-husk-50 px-3 py-2.5">
+        <div
+          data-testid="test-set-aside"
+          className="mt-3 rounded-lg border border-dashed border-loam-500 bg-husk-50 px-3 py-2.5"
+        >
           <p className="font-bold text-loam-900">Set aside: {test.setAsideReason}</p>
           <p className="text-loam-800">
-            It stays in lot {test.lotCode}’s history, counts and all, but is left out of the lot’s decline, its advice and the ranking.
+            It stays in lot {test.lotCode}’s history, counts and all, but is left out of the lot’s decline,
+            its advice and the ranking.
           </p>
         </div>
       ) : null}
@@ -67,7 +78,11 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
           <Button
             variant="secondary"
             isLoading={reopen.isPending}
-            onClick={() => reopen.mutate(undefined, { onSuccess: () => setNotice('Reopened: counts can be changed again.') })}
+            onClick={() =>
+              reopen.mutate(undefined, {
+                onSuccess: () => setNotice('Reopened: counts can be changed again.'),
+              })
+            }
           >
             Reopen to change counts
           </Button>
@@ -76,7 +91,11 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
           <Button
             variant="secondary"
             isLoading={takeBack.isPending}
-            onClick={() => takeBack.mutate(null, { onSuccess: () => setNotice('Taken back: the test counts in the lot’s decline again.') })}
+            onClick={() =>
+              takeBack.mutate(null, {
+                onSuccess: () => setNotice('Taken back: the test counts in the lot’s decline again.'),
+              })
+            }
           >
             Take it back into the decline
           </Button>
@@ -196,14 +215,18 @@ function SetTestAsideForm({
   return (
     <form id={formId} noValidate onSubmit={onSubmit} className="grid gap-4">
       <p className="text-loam-700">
-        A test spoiled by its conditions — a mouldy towel, a cold windowsill — says little about the seed. Set aside, it stays in lot{' '}
-        {detail.test.lotCode}’s history with its counts and reason, and is left out of the lot’s decline, its advice and the ranking. You
-        can take it back at any time.
+        A test spoiled by its conditions — a mouldy towel, a cold windowsill — says little about the seed. Set
+        aside, it stays in lot {detail.test.lotCode}’s history with its counts and reason, and is left out of
+        the lot’s decline, its advice and the ranking. You can take it back at any time.
       </p>
       <FormAlert>{formError}</FormAlert>
       <div className="flex flex-wrap gap-2" role="group" aria-label="Common reasons">
         {TEST_ASIDE_REASONS.map((reason) => (
-          <Button key={reason} variant="secondary" onClick={() => setValue('reason', reason, { shouldValidate: true, shouldDirty: true })}>
+          <Button
+            key={reason}
+            variant="secondary"
+            onClick={() => setValue('reason', reason, { shouldValidate: true, shouldDirty: true })}
+          >
             {reason}
           </Button>
         ))}

@@ -70,9 +70,9 @@ export function TestCautions({ setup }: { setup: TestSetup }) {
 export function DampingOffNote({ className }: { className?: string }) {
   return (
     <Caution title="Watch for damping-off and mould" className={className}>
-      Seedlings that pinch and fall over at the base, or fuzzy mould on the seeds, spread quickly. Keep the tray damp
-      but not wet, give it some air, and throw away a mouldy tray outdoors rather than opening it indoors. Your local
-      extension service can advise for your conditions.
+      Seedlings that pinch and fall over at the base, or fuzzy mould on the seeds, spread quickly. Keep the
+      tray damp but not wet, give it some air, and throw away a mouldy tray outdoors rather than opening it
+      indoors. Your local extension service can advise for your conditions.
     </Caution>
   );
 }

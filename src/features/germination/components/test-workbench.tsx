@@ -46,7 +46,10 @@ export function TestWorkbench({
   onDeleted,
   photos,
 }: TestWorkbenchProps) {
-  const query = useQuery({ ...testQueryOptions(bankId, testId, interval), placeholderData: keepPreviousData });
+  const query = useQuery({
+    ...testQueryOptions(bankId, testId, interval),
+    placeholderData: keepPreviousData,
+  });
   const date = chosenDate ?? today;
 
   if (query.isPending) return <Loading label="Reading the test" />;
@@ -64,14 +67,23 @@ export function TestWorkbench({
   return (
     <div className="grid grid-cols-1 gap-6">
       {!running ? (
-        <FormAlert tone="info" title={`Finished on ${detail.test.finishedOn ? formatDate(detail.test.finishedOn) : '–'}`}>
+        <FormAlert
+          tone="info"
+          title={`Finished on ${detail.test.finishedOn ? formatDate(detail.test.finishedOn) : '–'}`}
+        >
           This test is read-only.{canWrite ? ' Reopen it below to change its counts.' : ''}
         </FormAlert>
       ) : null}
       <div className="grid grid-cols-1 items-start gap-6 lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
         {entering ? (
           <div id={ENTRY_ID} className="scroll-mt-4">
-            <CountEntry bankId={bankId} detail={detail} date={date} onDateChange={onDateChange} today={today} />
+            <CountEntry
+              bankId={bankId}
+              detail={detail}
+              date={date}
+              onDateChange={onDateChange}
+              today={today}
+            />
             <DampingOffNote className="mt-4" />
           </div>
         ) : null}

@@ -10,12 +10,24 @@ const importedSchema = z.object({ imported: z.number() });
 
 /** POST /api/banks/:bankId/lots/import?dryRun=true: what would be imported, nothing written. */
 export async function previewLotsImport(bankId: string, file: File) {
-  return (await apiFetch(bankPaths.lotsImport(bankId, true), { method: 'POST', body: csvForm(file), schema: lotsImportPreviewSchema })).preview;
+  return (
+    await apiFetch(bankPaths.lotsImport(bankId, true), {
+      method: 'POST',
+      body: csvForm(file),
+      schema: lotsImportPreviewSchema,
+    })
+  ).preview;
 }
 
 /** POST /api/banks/:bankId/lots/import: every row in one transaction, or nothing. */
 export async function importLots(bankId: string, file: File) {
-  return (await apiFetch(bankPaths.lotsImport(bankId, false), { method: 'POST', body: csvForm(file), schema: importedSchema })).imported;
+  return (
+    await apiFetch(bankPaths.lotsImport(bankId, false), {
+      method: 'POST',
+      body: csvForm(file),
+      schema: importedSchema,
+    })
+  ).imported;
 }
 
 export function usePreviewLotsImport(bankId: string) {

@@ -6,7 +6,8 @@ import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
 
 /** PATCH /api/banks/:bankId/lots/:lotId (grower): only the fields sent change. */
 export async function updateLot(bankId: string, lotId: string, body: UpdateLotBody) {
-  return (await apiFetch(bankPaths.lot(bankId, lotId), { method: 'PATCH', body, schema: lotResponseSchema })).lot;
+  return (await apiFetch(bankPaths.lot(bankId, lotId), { method: 'PATCH', body, schema: lotResponseSchema }))
+    .lot;
 }
 
 export function useUpdateLot(bankId: string, lotId: string) {

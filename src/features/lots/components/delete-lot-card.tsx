@@ -18,8 +18,8 @@ export function DeleteLotCard({ bankId, lot, onDone }: DeleteLotCardProps) {
   return (
     <Card title="Delete or retire" headingLevel={2}>
       <p className="text-loam-700">
-        A lot with germination tests is retired instead of deleted, so its test history stays. A lot without tests is
-        deleted with its photos and stock ledger.
+        A lot with germination tests is retired instead of deleted, so its test history stays. A lot without
+        tests is deleted with its photos and stock ledger.
       </p>
       <div className="mt-3">
         <Button
@@ -49,7 +49,8 @@ export function DeleteLotCard({ bankId, lot, onDone }: DeleteLotCardProps) {
           })
         }
       >
-        Its photos and stock ledger go too. If it has germination tests it is retired instead, and nothing is lost.
+        Its photos and stock ledger go too. If it has germination tests it is retired instead, and nothing is
+        lost.
       </ConfirmDialog>
     </Card>
   );

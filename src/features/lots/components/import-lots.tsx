@@ -7,7 +7,11 @@ import { TreatedCaution } from './lot-form-parts';
 import { formatCount } from './lot-format';
 
 const harvestOrSeason = (row: ImportPreview[number]) =>
-  row.harvestDate ? formatDay(row.harvestDate) : row.packedForSeason ? `Packed for ${row.packedForSeason}` : null;
+  row.harvestDate
+    ? formatDay(row.harvestDate)
+    : row.packedForSeason
+      ? `Packed for ${row.packedForSeason}`
+      : null;
 
 function PreviewTable({ rows }: { rows: ImportPreview }) {
   return (
@@ -29,13 +33,9 @@ function PreviewTable({ rows }: { rows: ImportPreview }) {
             {row.treated ? (
               <span className="block text-sm font-semibold text-seedcoat-700">Treated seed</span>
             ) : null}
-            <span className="block text-sm text-loam-600 sm:hidden">
-              {harvestOrSeason(row) ?? ''}
-            </span>
+            <span className="block text-sm text-loam-600 sm:hidden">{harvestOrSeason(row) ?? ''}</span>
           </td>
-          <td className="hidden py-2 pr-3 align-top sm:table-cell">
-            {harvestOrSeason(row) ?? '—'}
-          </td>
+          <td className="hidden py-2 pr-3 align-top sm:table-cell">{harvestOrSeason(row) ?? '—'}</td>
           <td className="py-2 text-right align-top font-semibold">{formatCount(row.seedsOnHand)}</td>
         </tr>
       ))}

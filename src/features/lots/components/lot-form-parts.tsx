@@ -24,8 +24,8 @@ export function friendlyNumberError(issue: { code?: string; expected?: unknown; 
 export function SwapCaution() {
   return (
     <Caution title="Swapping across regions or borders">
-      Rules on noxious weeds and on bringing seed in vary between countries, states and regions. Check your local
-      regulations (or ask your extension service) before sending or receiving seed.
+      Rules on noxious weeds and on bringing seed in vary between countries, states and regions. Check your
+      local regulations (or ask your extension service) before sending or receiving seed.
     </Caution>
   );
 }
@@ -35,10 +35,11 @@ export function TreatedCaution() {
   return (
     <Caution title="Treated seed: handle with care">
       <p>
-        The coating is usually a fungicide, and it stays on the seed. Wear gloves when you handle or sow it, and wash
-        your hands afterwards. Keep the packet away from children, pets and food. Never eat the seed, feed it to animals
-        or grow it for sprouts or microgreens. Get rid of leftover treated seed the way your local rules say (not in
-        the compost, nor where birds and animals can reach it), and follow what the packet says.
+        The coating is usually a fungicide, and it stays on the seed. Wear gloves when you handle or sow it,
+        and wash your hands afterwards. Keep the packet away from children, pets and food. Never eat the seed,
+        feed it to animals or grow it for sprouts or microgreens. Get rid of leftover treated seed the way
+        your local rules say (not in the compost, nor where birds and animals can reach it), and follow what
+        the packet says.
       </p>
     </Caution>
   );
@@ -71,9 +72,19 @@ export function TreatedCheckbox({ field }: TreatedCheckboxProps) {
   );
 }
 
-export function Fieldset({ legend, children, className }: { legend: ReactNode; children: ReactNode; className?: string }) {
+export function Fieldset({
+  legend,
+  children,
+  className,
+}: {
+  legend: ReactNode;
+  children: ReactNode;
+  className?: string;
+}) {
   return (
-    <fieldset className={cn('grid min-w-0 gap-4 rounded-xl border border-loam-200 bg-white p-4 sm:p-5', className)}>
+    <fieldset
+      className={cn('grid min-w-0 gap-4 rounded-xl border border-loam-200 bg-white p-4 sm:p-5', className)}
+    >
       <legend className="px-1 text-lg font-bold text-loam-900">{legend}</legend>
       {children}
     </fieldset>
@@ -137,7 +148,11 @@ export function ParentPlantPicker({ plants, value, onChange, error }: ParentPlan
             checked={checked}
             onChange={() => onChange(checked ? value.filter((id) => id !== plant.id) : [...value, plant.id])}
             label={plant.label}
-            hint={[plant.variety, plant.location, plant.season, plant.hybrid ? 'F1 hybrid' : null].filter(Boolean).join(' · ') || undefined}
+            hint={
+              [plant.variety, plant.location, plant.season, plant.hybrid ? 'F1 hybrid' : null]
+                .filter(Boolean)
+                .join(' · ') || undefined
+            }
           />
         );
       })}

@@ -1,5 +1,10 @@
 import type { z } from 'zod';
-import type { LotDto, movementKindSchema, originSchema, storagePlaceSchema } from '../../../../shared/schemas/lots';
+import type {
+  LotDto,
+  movementKindSchema,
+  originSchema,
+  storagePlaceSchema,
+} from '../../../../shared/schemas/lots';
 import { formatDay } from '../../../lib/dates';
 import type { LotStatus } from '../../../lib/bank-api';
 
@@ -13,7 +18,11 @@ export const originHints: Record<Origin, string> = {
   swapped: 'From another grower or a seed library',
   bought: 'A packet from a seller',
 };
-export const statusLabels: Record<LotStatus, string> = { active: 'Active', depleted: 'Used up', retired: 'Retired' };
+export const statusLabels: Record<LotStatus, string> = {
+  active: 'Active',
+  depleted: 'Used up',
+  retired: 'Retired',
+};
 export const statusOrder: readonly LotStatus[] = ['active', 'depleted', 'retired'];
 export const storageLabels: Record<StoragePlace, string> = {
   room: 'Room (cupboard, drawer)',

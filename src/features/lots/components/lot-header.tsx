@@ -5,7 +5,15 @@ import { seedsLabel } from './lot-format';
 import { StatusBadge } from './status-badge';
 
 /** The lot page's title: code, species, variety, status and seeds on hand. */
-export function LotHeader({ lot, eyebrow, actions }: { lot: LotDto; eyebrow?: ReactNode; actions?: ReactNode }) {
+export function LotHeader({
+  lot,
+  eyebrow,
+  actions,
+}: {
+  lot: LotDto;
+  eyebrow?: ReactNode;
+  actions?: ReactNode;
+}) {
   return (
     <PageHeader
       eyebrow={eyebrow}

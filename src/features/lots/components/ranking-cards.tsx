@@ -60,7 +60,12 @@ export function RankingCards({ table, lotHref }: RankingCardsProps) {
             className="absolute inset-x-0 top-0 pb-2"
             style={{ transform: `translateY(${virtualItem.start - virtualizer.options.scrollMargin}px)` }}
           >
-            <div className={cn('rounded-xl border bg-white p-3 shadow-sm', row.getIsSelected() ? 'border-moss-400' : 'border-loam-200')}>
+            <div
+              className={cn(
+                'rounded-xl border bg-white p-3 shadow-sm',
+                row.getIsSelected() ? 'border-moss-400' : 'border-loam-200',
+              )}
+            >
               <div className="flex items-start gap-3">
                 <Thumb item={lot} className="size-12" />
                 <div className="min-w-0 flex-1">
@@ -79,7 +84,9 @@ export function RankingCards({ table, lotHref }: RankingCardsProps) {
                   <p className="truncate font-semibold text-loam-900">
                     {lot.species} · {lot.variety}
                   </p>
-                  {lot.treated ? <p className="text-sm font-semibold text-clay-800">Treated seed: wear gloves</p> : null}
+                  {lot.treated ? (
+                    <p className="text-sm font-semibold text-clay-800">Treated seed: wear gloves</p>
+                  ) : null}
                 </div>
                 <input
                   type="checkbox"
@@ -91,18 +98,27 @@ export function RankingCards({ table, lotHref }: RankingCardsProps) {
               </div>
               <div className="mt-2 text-sm">
                 <span className="sr-only">Projected germination </span>
-                <ProjectionBar percent={lot.projectedPercent} low={lot.projectedLow} high={lot.projectedHigh} />
+                <ProjectionBar
+                  percent={lot.projectedPercent}
+                  low={lot.projectedLow}
+                  high={lot.projectedHigh}
+                />
               </div>
               <p className="num mt-1 flex flex-wrap justify-between gap-x-3 text-sm text-loam-700">
                 <span>
                   {lot.lastTestDate ? `Tested ${formatDay(lot.lastTestDate)}` : 'Not tested'}
-                  {lot.lastPercent !== null ? ` · ${pct(lot.lastPercent)} germinated` : ''} · {years(Math.max(0, lot.ageYears))}
+                  {lot.lastPercent !== null ? ` · ${pct(lot.lastPercent)} germinated` : ''} ·{' '}
+                  {years(Math.max(0, lot.ageYears))}
                 </span>
                 <span className="font-semibold text-loam-900">
                   {formatCount(lot.seedsOnHand)} seeds{lot.status === 'depleted' ? ' · used up' : ''}
                 </span>
               </p>
-              <p id={reasonId} hidden={!open} className="mt-2 rounded-lg bg-husk-100 px-3 py-2 text-sm text-loam-800">
+              <p
+                id={reasonId}
+                hidden={!open}
+                className="mt-2 rounded-lg bg-husk-100 px-3 py-2 text-sm text-loam-800"
+              >
                 {lot.reason}
               </p>
             </div>

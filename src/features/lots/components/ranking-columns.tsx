@@ -6,7 +6,13 @@ import { formatDay } from '../../../lib/dates';
 import { ProjectionBar } from '../../../components/viability/projection-bar';
 import { RecommendationButton } from '../../../components/viability/recommendation-badge';
 import type { RankingColumnId } from './ranking-search';
-import { days, formatCount, pct, recommendationOrder, years } from '../../../components/viability/viability-format';
+import {
+  days,
+  formatCount,
+  pct,
+  recommendationOrder,
+  years,
+} from '../../../components/viability/viability-format';
 
 export interface RankingColumnMeta {
   /** The column's name in the visibility menu and the phone's sort picker. */
@@ -16,7 +22,8 @@ export interface RankingColumnMeta {
   numeric?: boolean;
 }
 
-export const columnMeta = (column: Column<RankingItem, unknown>) => column.columnDef.meta as RankingColumnMeta | undefined;
+export const columnMeta = (column: Column<RankingItem, unknown>) =>
+  column.columnDef.meta as RankingColumnMeta | undefined;
 
 const column = createColumnHelper<RankingItem>();
 
@@ -25,7 +32,10 @@ export function Thumb({ item, className }: { item: RankingItem; className?: stri
     return (
       <span
         aria-hidden="true"
-        className={cn('inline-block shrink-0 rounded-md border border-dashed border-loam-300 bg-husk-50', className)}
+        className={cn(
+          'inline-block shrink-0 rounded-md border border-dashed border-loam-300 bg-husk-50',
+          className,
+        )}
       />
     );
   }
@@ -48,7 +58,11 @@ const dash = <span className="text-loam-500">—</span>;
 
 /** The ranking's columns; every one but the checkbox sorts. Nulls sort last either way. */
 export function rankingColumns({ lotHref, openReason }: RankingColumnsOptions) {
-  const meta = (label: string, width: number, numeric = false): RankingColumnMeta => ({ label, width, numeric });
+  const meta = (label: string, width: number, numeric = false): RankingColumnMeta => ({
+    label,
+    width,
+    numeric,
+  });
   const ids: Record<RankingColumnId, RankingColumnId> = {
     code: 'code',
     species: 'species',
@@ -100,11 +114,18 @@ export function rankingColumns({ lotHref, openReason }: RankingColumnsOptions) {
         <span className="flex min-w-0 items-center gap-2">
           <Thumb item={c.row.original} className="size-8" />
           <span className="min-w-0">
-            <Link to={lotHref(c.row.original.lotId)} className="block truncate font-bold text-moss-800 underline">
+            <Link
+              to={lotHref(c.row.original.lotId)}
+              className="block truncate font-bold text-moss-800 underline"
+            >
               {c.getValue()}
             </Link>
-            {c.row.original.status === 'depleted' ? <span className="block text-xs text-loam-600">used up</span> : null}
-            {c.row.original.treated ? <span className="block text-xs font-semibold text-clay-800">treated seed</span> : null}
+            {c.row.original.status === 'depleted' ? (
+              <span className="block text-xs text-loam-600">used up</span>
+            ) : null}
+            {c.row.original.treated ? (
+              <span className="block text-xs font-semibold text-clay-800">treated seed</span>
+            ) : null}
           </span>
         </span>
       ),
@@ -123,7 +144,11 @@ export function rankingColumns({ lotHref, openReason }: RankingColumnsOptions) {
       sortingFn: 'text',
       sortDescFirst: false,
       meta: meta('Variety', 120),
-      cell: (c) => <span className="block truncate" title={c.getValue()}>{c.getValue()}</span>,
+      cell: (c) => (
+        <span className="block truncate" title={c.getValue()}>
+          {c.getValue()}
+        </span>
+      ),
     }),
     column.accessor('ageYears', {
       id: ids.age,
@@ -140,7 +165,11 @@ export function rankingColumns({ lotHref, openReason }: RankingColumnsOptions) {
       meta: meta('Last test', 104),
       cell: (c) => {
         const v = c.getValue();
-        return v ? <span className="whitespace-nowrap">{formatDay(v)}</span> : <span className="text-loam-600">Not tested</span>;
+        return v ? (
+          <span className="whitespace-nowrap">{formatDay(v)}</span>
+        ) : (
+          <span className="text-loam-600">Not tested</span>
+        );
       },
     }),
     column.accessor((r) => r.lastPercent ?? undefined, {
@@ -162,7 +191,9 @@ export function rankingColumns({ lotHref, openReason }: RankingColumnsOptions) {
       sortUndefined: 'last',
       sortDescFirst: true,
       meta: meta('Projected', 188),
-      cell: ({ row: { original: r } }) => <ProjectionBar percent={r.projectedPercent} low={r.projectedLow} high={r.projectedHigh} />,
+      cell: ({ row: { original: r } }) => (
+        <ProjectionBar percent={r.projectedPercent} low={r.projectedLow} high={r.projectedHigh} />
+      ),
     }),
     column.accessor((r) => r.meanDays ?? undefined, {
       id: ids.meanDays,

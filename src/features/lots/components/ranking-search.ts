@@ -50,12 +50,14 @@ function parseSorting(value: string | null): SortingState {
   const out: SortingState = [];
   for (const part of value.split(',').slice(0, 3)) {
     const parsed = sortPart.safeParse(part.split(':'));
-    if (parsed.success && !out.some((s) => s.id === parsed.data[0])) out.push({ id: parsed.data[0], desc: parsed.data[1] === 'desc' });
+    if (parsed.success && !out.some((s) => s.id === parsed.data[0]))
+      out.push({ id: parsed.data[0], desc: parsed.data[1] === 'desc' });
   }
   return out.length ? out : DEFAULT_SORTING;
 }
 
-const sortingText = (sorting: SortingState) => sorting.map((s) => `${s.id}:${s.desc ? 'desc' : 'asc'}`).join(',');
+const sortingText = (sorting: SortingState) =>
+  sorting.map((s) => `${s.id}:${s.desc ? 'desc' : 'asc'}`).join(',');
 
 export function viewFromSearch(search: URLSearchParams): RankingView {
   const q = search.get('q')?.trim();

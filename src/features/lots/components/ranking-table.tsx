@@ -59,7 +59,10 @@ export function RankingTable({ table, onScroll }: RankingTableProps) {
       className="max-h-[70vh] overflow-auto rounded-xl border border-loam-200 bg-white shadow-sm"
       data-ranking-scroll
     >
-      <table className="w-full table-fixed border-separate border-spacing-0 text-left" style={{ minWidth: Math.round(width * 0.85) }}>
+      <table
+        className="w-full table-fixed border-separate border-spacing-0 text-left"
+        style={{ minWidth: Math.round(width * 0.85) }}
+      >
         <caption className="sr-only">
           Lots ranked by projected germination. Column headers sort the table; the advice opens its reason.
         </caption>
@@ -80,8 +83,13 @@ export function RankingTable({ table, onScroll }: RankingTableProps) {
                   <th
                     key={header.id}
                     scope="col"
-                    aria-sort={primary && sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined}
-                    className={cn('border-b border-loam-200 px-2 py-1 font-semibold text-loam-800', numeric && 'text-right')}
+                    aria-sort={
+                      primary && sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined
+                    }
+                    className={cn(
+                      'border-b border-loam-200 px-2 py-1 font-semibold text-loam-800',
+                      numeric && 'text-right',
+                    )}
                   >
                     {header.column.getCanSort() ? (
                       <button
@@ -94,12 +102,17 @@ export function RankingTable({ table, onScroll }: RankingTableProps) {
                         )}
                       >
                         {flexRender(header.column.columnDef.header, header.getContext())}
-                        <span aria-hidden="true" className={cn('w-3 shrink-0', primary ? 'text-loam-700' : 'text-loam-400')}>
+                        <span
+                          aria-hidden="true"
+                          className={cn('w-3 shrink-0', primary ? 'text-loam-700' : 'text-loam-400')}
+                        >
                           {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}
                         </span>
                       </button>
                     ) : (
-                      <span className="flex justify-center">{flexRender(header.column.columnDef.header, header.getContext())}</span>
+                      <span className="flex justify-center">
+                        {flexRender(header.column.columnDef.header, header.getContext())}
+                      </span>
                     )}
                   </th>
                 );

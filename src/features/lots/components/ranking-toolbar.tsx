@@ -67,7 +67,9 @@ export function RankingToolbar({ view, onChange, on, defaultOn, species }: Ranki
       <SelectField
         label="Advice"
         value={view.recommendation ?? ''}
-        onChange={(event) => onChange({ ...view, recommendation: recommendationSchema.safeParse(event.target.value).data })}
+        onChange={(event) =>
+          onChange({ ...view, recommendation: recommendationSchema.safeParse(event.target.value).data })
+        }
       >
         <option value="">Any advice</option>
         {recommendationOrder.map((r) => (
@@ -79,7 +81,9 @@ export function RankingToolbar({ view, onChange, on, defaultOn, species }: Ranki
       <SelectField
         label="Status"
         value={view.status ?? ''}
-        onChange={(event) => onChange({ ...view, status: rankingStatusSchema.safeParse(event.target.value).data })}
+        onChange={(event) =>
+          onChange({ ...view, status: rankingStatusSchema.safeParse(event.target.value).data })
+        }
       >
         <option value="">Any status</option>
         <option value="active">Active</option>
@@ -111,7 +115,15 @@ export function RankingToolbar({ view, onChange, on, defaultOn, species }: Ranki
 }
 
 /** The columns the table shows, as a panel of checkboxes behind a button. */
-export function ColumnsMenu({ table, view, onChange }: { table: Table<RankingItem>; view: RankingView; onChange: (view: RankingView) => void }) {
+export function ColumnsMenu({
+  table,
+  view,
+  onChange,
+}: {
+  table: Table<RankingItem>;
+  view: RankingView;
+  onChange: (view: RankingView) => void;
+}) {
   // Its own open state, not the shell's disclosure (which closes when the address changes): each
   // tick rewrites the address, and the panel should stay open for the next one.
   const [open, setOpen] = useState(false);
@@ -146,8 +158,12 @@ export function ColumnsMenu({ table, view, onChange }: { table: Table<RankingIte
         className="inline-flex min-h-11 items-center gap-1.5 rounded-lg border border-loam-300 bg-white px-3 font-semibold text-loam-900 hover:bg-husk-100"
       >
         Columns
-        {view.hidden.length ? <span className="text-sm font-normal text-loam-700">({view.hidden.length} hidden)</span> : null}
-        <span aria-hidden="true" className="text-loam-600">▾</span>
+        {view.hidden.length ? (
+          <span className="text-sm font-normal text-loam-700">({view.hidden.length} hidden)</span>
+        ) : null}
+        <span aria-hidden="true" className="text-loam-600">
+          ▾
+        </span>
       </button>
       <div
         id="ranking-columns-panel"
@@ -167,7 +183,9 @@ export function ColumnsMenu({ table, view, onChange }: { table: Table<RankingIte
                   onChange={(event) =>
                     onChange({
                       ...view,
-                      hidden: event.target.checked ? view.hidden.filter((h) => h !== id) : [...view.hidden, id],
+                      hidden: event.target.checked
+                        ? view.hidden.filter((h) => h !== id)
+                        : [...view.hidden, id],
                     })
                   }
                 />

@@ -105,16 +105,25 @@ export function RankingView({ bankId, lastFrost, today, selectionActions }: Rank
   const [reason, setReason] = useState<OpenReason | null>(null);
   const closeReason = useCallback(() => setReason(null), []);
   const lotHref = useCallback(
-    (lotId: string) => `${paths.lot.getHref(bankId, lotId)}${view.on ? `?${new URLSearchParams({ on: view.on })}` : ''}`,
+    (lotId: string) =>
+      `${paths.lot.getHref(bankId, lotId)}${view.on ? `?${new URLSearchParams({ on: view.on })}` : ''}`,
     [bankId, view.on],
   );
   const columns = useMemo(
-    () => rankingColumns({ lotHref, openReason: (item, anchor) => setReason({ item, anchor: anchor.getBoundingClientRect() }) }),
+    () =>
+      rankingColumns({
+        lotHref,
+        openReason: (item, anchor) => setReason({ item, anchor: anchor.getBoundingClientRect() }),
+      }),
     [lotHref],
   );
-  const columnVisibility = useMemo<VisibilityState>(() => Object.fromEntries(view.hidden.map((id) => [id, false])), [view.hidden]);
+  const columnVisibility = useMemo<VisibilityState>(
+    () => Object.fromEntries(view.hidden.map((id) => [id, false])),
+    [view.hidden],
+  );
   const onSortingChange = useCallback(
-    (updater: Updater<SortingState>) => setView({ ...view, sorting: typeof updater === 'function' ? updater(view.sorting) : updater }),
+    (updater: Updater<SortingState>) =>
+      setView({ ...view, sorting: typeof updater === 'function' ? updater(view.sorting) : updater }),
     [setView, view],
   );
 
@@ -161,7 +170,19 @@ export function RankingView({ bankId, lastFrost, today, selectionActions }: Rank
         title="No lots match"
         description="Try another word, or clear the filters."
         action={
-          <Button variant="secondary" onClick={() => setView({ ...view, q: undefined, speciesId: undefined, recommendation: undefined, status: undefined, origin: undefined })}>
+          <Button
+            variant="secondary"
+            onClick={() =>
+              setView({
+                ...view,
+                q: undefined,
+                speciesId: undefined,
+                recommendation: undefined,
+                status: undefined,
+                origin: undefined,
+              })
+            }
+          >
             Clear search and filters
           </Button>
         }
@@ -180,7 +201,9 @@ export function RankingView({ bankId, lastFrost, today, selectionActions }: Rank
             if (choice) setView({ ...view, sorting: choice.sorting });
           }}
         >
-          {sortValue(view.sorting) === 'other' ? <option value="other">As chosen on a wider screen</option> : null}
+          {sortValue(view.sorting) === 'other' ? (
+            <option value="other">As chosen on a wider screen</option>
+          ) : null}
           {phoneSorts.map((s) => (
             <option key={s.value} value={s.value}>
               {s.label}
@@ -199,8 +222,12 @@ export function RankingView({ bankId, lastFrost, today, selectionActions }: Rank
         <p className="text-sm text-loam-700" aria-live="polite">
           {ranking.isSuccess ? (
             <>
-              {filtered ? `${formatCount(shown.length)} of ${formatCount(all.length)} lots` : all.length === 1 ? '1 lot' : `${formatCount(all.length)} lots`}, projected to{' '}
-              <span className="font-semibold text-loam-900">{formatDay(on)}</span>
+              {filtered
+                ? `${formatCount(shown.length)} of ${formatCount(all.length)} lots`
+                : all.length === 1
+                  ? '1 lot'
+                  : `${formatCount(all.length)} lots`}
+              , projected to <span className="font-semibold text-loam-900">{formatDay(on)}</span>
               {view.on ? '' : ' (the coming sowing date)'}
               {ranking.isPlaceholderData ? ' · updating…' : ''}
             </>
@@ -218,7 +245,9 @@ export function RankingView({ bankId, lastFrost, today, selectionActions }: Rank
           ) : ranking.isSuccess && all.length ? (
             <span className="text-sm text-loam-700">Tick lots to print their labels.</span>
           ) : null}
-          {wide && ranking.isSuccess && all.length ? <ColumnsMenu table={table} view={view} onChange={setView} /> : null}
+          {wide && ranking.isSuccess && all.length ? (
+            <ColumnsMenu table={table} view={view} onChange={setView} />
+          ) : null}
         </div>
       </div>
       {body}

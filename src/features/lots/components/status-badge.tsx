@@ -11,7 +11,11 @@ const looks: Record<LotStatus, string> = {
 export function StatusBadge({ status, className }: { status: LotStatus; className?: string }) {
   return (
     <span
-      className={cn('inline-flex items-center rounded-full border px-2.5 py-0.5 text-sm font-semibold', looks[status], className)}
+      className={cn(
+        'inline-flex items-center rounded-full border px-2.5 py-0.5 text-sm font-semibold',
+        looks[status],
+        className,
+      )}
     >
       {statusLabels[status]}
     </span>

@@ -78,7 +78,11 @@ function MovementForm({ bankId, lotId, today, start, saved, onSaved }: MovementF
     const change = (directionOf(k, direction) === 'out' ? -1 : 1) * count;
     try {
       const result = await add.mutateAsync({ kind: k, change, reason, date });
-      onSaved(`Recorded ${signed(change)} seeds. ${formatCount(result.seedsOnHand)} on hand now.`, { kind: k, direction, date });
+      onSaved(`Recorded ${signed(change)} seeds. ${formatCount(result.seedsOnHand)} on hand now.`, {
+        kind: k,
+        direction,
+        date,
+      });
     } catch (error) {
       if (isApiError(error) && error.code === 'stock_below_zero') {
         setError('count', { type: 'server', message: error.message }, { shouldFocus: true });
@@ -93,12 +97,22 @@ function MovementForm({ bankId, lotId, today, start, saved, onSaved }: MovementF
   });
 
   return (
-    <form noValidate onSubmit={onSubmit} className="grid gap-4 border-t border-loam-100 pt-4" aria-label="Record a stock movement">
+    <form
+      noValidate
+      onSubmit={onSubmit}
+      className="grid gap-4 border-t border-loam-100 pt-4"
+      aria-label="Record a stock movement"
+    >
       <h3 className="font-bold text-loam-900">Record a movement</h3>
       <FormAlert>{formError}</FormAlert>
       {saved && showSaved ? <FormAlert tone="success">{saved}</FormAlert> : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <SelectField label="What happened" hint={kindHints[kind]} error={errors.kind?.message} {...register('kind')}>
+        <SelectField
+          label="What happened"
+          hint={kindHints[kind]}
+          error={errors.kind?.message}
+          {...register('kind')}
+        >
           {KINDS.map((k) => (
             <option key={k} value={k}>
               {movementLabels[k]}
@@ -112,7 +126,13 @@ function MovementForm({ bankId, lotId, today, start, saved, onSaved }: MovementF
           </SelectField>
         ) : null}
         <TextField
-          label={kind === 'sown' || kind === 'given' ? 'Seeds taken out' : kind === 'swapped-in' ? 'Seeds added' : 'Seeds'}
+          label={
+            kind === 'sown' || kind === 'given'
+              ? 'Seeds taken out'
+              : kind === 'swapped-in'
+                ? 'Seeds added'
+                : 'Seeds'
+          }
           type="number"
           inputMode="numeric"
           min={1}
@@ -121,7 +141,14 @@ function MovementForm({ bankId, lotId, today, start, saved, onSaved }: MovementF
           error={errors.count?.message}
           {...register('count', { setValueAs: numberOrUndefined })}
         />
-        <TextField label="Date" type="date" max={today} className="num" error={errors.date?.message} {...register('date')} />
+        <TextField
+          label="Date"
+          type="date"
+          max={today}
+          className="num"
+          error={errors.date?.message}
+          {...register('date')}
+        />
       </div>
       {kind === 'given' || kind === 'swapped-in' ? <SwapCaution /> : null}
       <TextField
@@ -153,7 +180,11 @@ export function StockLedger({ bankId, lotId, canEdit, today }: StockLedgerProps)
   // Each save starts a fresh form (every box empty), keeping what happened and the date.
   const [round, setRound] = useState(0);
   const [saved, setSaved] = useState<string>();
-  const [start, setStart] = useState<MovementFormProps['start']>({ kind: 'sown', direction: 'out', date: today });
+  const [start, setStart] = useState<MovementFormProps['start']>({
+    kind: 'sown',
+    direction: 'out',
+    date: today,
+  });
   return (
     <Card
       title="Stock"
@@ -171,10 +202,18 @@ export function StockLedger({ bankId, lotId, canEdit, today }: StockLedgerProps)
             <caption className="sr-only">Stock movements with the balance after each</caption>
             <thead className="border-b border-loam-200 text-loam-700">
               <tr>
-                <th scope="col" className="px-4 py-2 font-semibold sm:px-2">Date</th>
-                <th scope="col" className="px-2 py-2 font-semibold">Movement</th>
-                <th scope="col" className="px-2 py-2 text-right font-semibold">Change</th>
-                <th scope="col" className="px-4 py-2 text-right font-semibold sm:px-2">Balance</th>
+                <th scope="col" className="px-4 py-2 font-semibold sm:px-2">
+                  Date
+                </th>
+                <th scope="col" className="px-2 py-2 font-semibold">
+                  Movement
+                </th>
+                <th scope="col" className="px-2 py-2 text-right font-semibold">
+                  Change
+                </th>
+                <th scope="col" className="px-4 py-2 text-right font-semibold sm:px-2">
+                  Balance
+                </th>
               </tr>
             </thead>
             <tbody className="divide-y divide-loam-100">
@@ -186,7 +225,9 @@ export function StockLedger({ bankId, lotId, canEdit, today }: StockLedgerProps)
                     <span className="block text-loam-700">{m.reason}</span>
                     {m.by ? <span className="block text-xs text-loam-600">by {m.by}</span> : null}
                   </td>
-                  <td className={`px-2 py-2 text-right align-top font-semibold ${m.change < 0 ? 'text-clay-700' : 'text-moss-800'}`}>
+                  <td
+                    className={`px-2 py-2 text-right align-top font-semibold ${m.change < 0 ? 'text-clay-700' : 'text-moss-800'}`}
+                  >
                     {signed(m.change)}
                   </td>
                   <td className="px-4 py-2 text-right align-top font-semibold sm:px-2">

@@ -13,8 +13,9 @@ export async function getPhotos(
   subjectId: string,
   { signal }: { signal?: AbortSignal } = {},
 ) {
-  return (await apiFetch(bankPaths.photos(bankId, subject, subjectId), { schema: photosResponseSchema, signal }))
-    .items;
+  return (
+    await apiFetch(bankPaths.photos(bankId, subject, subjectId), { schema: photosResponseSchema, signal })
+  ).items;
 }
 
 export function photosQueryOptions(bankId: string, subject: PhotoSubject, subjectId: string) {

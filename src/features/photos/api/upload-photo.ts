@@ -22,7 +22,10 @@ export interface UploadPhotoInput {
  * XMLHttpRequest for its upload progress. 413 too large, 415 a type the server cannot read, 503
  * photo storage down.
  */
-export async function uploadPhoto(bankId: string, { subject, subjectId, file, onProgress }: UploadPhotoInput) {
+export async function uploadPhoto(
+  bankId: string,
+  { subject, subjectId, file, onProgress }: UploadPhotoInput,
+) {
   const body = new FormData();
   body.append('photo', file);
   const path = bankPaths.photos(bankId, subject, subjectId);
@@ -32,7 +35,8 @@ export async function uploadPhoto(bankId: string, { subject, subjectId, file, on
 /** The message for a failed upload, in words a grower can act on. */
 export function uploadFailureMessage(error: unknown): string {
   if (!isApiError(error)) return 'The photo could not be uploaded. Try again.';
-  if (error.status === 413) return `The photo is larger than ${MAX_PHOTO_MB} MB. Choose a smaller one, or take it again at a lower size.`;
+  if (error.status === 413)
+    return `The photo is larger than ${MAX_PHOTO_MB} MB. Choose a smaller one, or take it again at a lower size.`;
   // 415 and 503 messages from the server already say which types work, or that storage is down.
   return error.message;
 }
@@ -47,6 +51,7 @@ export function useUploadPhoto(bankId: string) {
   return useMutation({
     mutationFn: (input: UploadPhotoInput) => uploadPhoto(bankId, input),
     // The subject's photos, and the lot's thumbnail or the plant's photo list that come with them.
-    onSuccess: (_photo, { subject, subjectId }) => refresh(queryClient, stale.photos(bankId, subject, subjectId)),
+    onSuccess: (_photo, { subject, subjectId }) =>
+      refresh(queryClient, stale.photos(bankId, subject, subjectId)),
   });
 }

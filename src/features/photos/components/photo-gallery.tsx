@@ -31,7 +31,14 @@ export interface PhotoGalleryProps {
 }
 
 /** Thumbnails of a lot's or plant's photos; a tap shows the full image. Growers add and delete. */
-export function PhotoGallery({ bankId, subject, subjectId, describe, canEdit, failedUpload }: PhotoGalleryProps) {
+export function PhotoGallery({
+  bankId,
+  subject,
+  subjectId,
+  describe,
+  canEdit,
+  failedUpload,
+}: PhotoGalleryProps) {
   const photos = usePhotos(bankId, subject, subjectId);
   const upload = useUploadPhoto(bankId);
   const remove = useDeletePhoto(bankId, subject, subjectId);
@@ -51,7 +58,8 @@ export function PhotoGallery({ bankId, subject, subjectId, describe, canEdit, fa
           setFailure(undefined);
           setFile(null);
         },
-        onError: (error) => setFailure({ file: chosen, message: uploadFailureMessage(error), retryable: isRetryable(error) }),
+        onError: (error) =>
+          setFailure({ file: chosen, message: uploadFailureMessage(error), retryable: isRetryable(error) }),
       },
     );
   };
@@ -165,7 +173,9 @@ export function PhotoGallery({ bankId, subject, subjectId, describe, canEdit, fa
         isPending={remove.isPending}
         error={remove.error?.message}
         onCancel={() => setConfirmDelete(null)}
-        onConfirm={() => confirmDelete && remove.mutate(confirmDelete.id, { onSuccess: () => setConfirmDelete(null) })}
+        onConfirm={() =>
+          confirmDelete && remove.mutate(confirmDelete.id, { onSuccess: () => setConfirmDelete(null) })
+        }
       >
         The photo and its thumbnail are removed from the bank. This cannot be undone.
       </ConfirmDialog>

@@ -12,7 +12,8 @@ export const planEntryResponseSchema = z.object({ entry: planEntrySchema });
  * or the species has no indoor window; 400 with fields for a bad species or lot.
  */
 export async function createPlanEntry(bankId: string, body: CreatePlanBody) {
-  return (await apiFetch(bankPaths.plan(bankId), { method: 'POST', body, schema: planEntryResponseSchema })).entry;
+  return (await apiFetch(bankPaths.plan(bankId), { method: 'POST', body, schema: planEntryResponseSchema }))
+    .entry;
 }
 
 export function useCreatePlanEntry(bankId: string) {

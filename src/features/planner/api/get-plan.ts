@@ -5,7 +5,8 @@ import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 /** GET /api/banks/:bankId/plan?season=YYYY: the season's entries, earliest sowing first. */
 export async function getPlan(bankId: string, season: number, { signal }: { signal?: AbortSignal } = {}) {
-  return (await apiFetch(bankPaths.planSeason(bankId, season), { schema: planListResponseSchema, signal })).items;
+  return (await apiFetch(bankPaths.planSeason(bankId, season), { schema: planListResponseSchema, signal }))
+    .items;
 }
 
 export function planQueryOptions(bankId: string, season: number) {

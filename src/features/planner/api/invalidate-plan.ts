@@ -12,7 +12,11 @@ export async function refreshAfterPlanChange(
   entry: Pick<PlanEntryDto, 'lotId'>,
   { stockMoved }: { stockMoved: boolean },
 ): Promise<void> {
-  await refresh(queryClient, stale.plan(bankId), stockMoved && entry.lotId ? stale.stockMoved(bankId, entry.lotId) : []);
+  await refresh(
+    queryClient,
+    stale.plan(bankId),
+    stockMoved && entry.lotId ? stale.stockMoved(bankId, entry.lotId) : [],
+  );
 }
 
 /** Puts an entry the server answered with into its season's cached list, in sowing order. */

@@ -10,8 +10,13 @@ import { bankPaths } from '../../../lib/bank-api';
  * date in the future.
  */
 export async function markSown(bankId: string, entryId: string, date: string) {
-  return (await apiFetch(bankPaths.planSown(bankId, entryId), { method: 'POST', body: { date }, schema: planEntryResponseSchema }))
-    .entry;
+  return (
+    await apiFetch(bankPaths.planSown(bankId, entryId), {
+      method: 'POST',
+      body: { date },
+      schema: planEntryResponseSchema,
+    })
+  ).entry;
 }
 
 export function useMarkSown(bankId: string, entryId: string) {

@@ -6,7 +6,9 @@ import { bankPaths } from '../../../lib/bank-api';
 
 /** DELETE /api/banks/:bankId/plan/:entryId/sown (grower): the seeds go back into the lot's stock. */
 export async function undoSown(bankId: string, entryId: string) {
-  return (await apiFetch(bankPaths.planSown(bankId, entryId), { method: 'DELETE', schema: planEntryResponseSchema })).entry;
+  return (
+    await apiFetch(bankPaths.planSown(bankId, entryId), { method: 'DELETE', schema: planEntryResponseSchema })
+  ).entry;
 }
 
 export function useUndoSown(bankId: string, entryId: string) {

@@ -10,8 +10,13 @@ export type UpdatePlanBody = z.input<typeof updatePlanBodySchema>;
 
 /** PATCH /api/banks/:bankId/plan/:entryId (grower); 409 already_sown once the entry is sown. */
 export async function updatePlanEntry(bankId: string, entryId: string, body: UpdatePlanBody) {
-  return (await apiFetch(bankPaths.planEntry(bankId, entryId), { method: 'PATCH', body, schema: planEntryResponseSchema }))
-    .entry;
+  return (
+    await apiFetch(bankPaths.planEntry(bankId, entryId), {
+      method: 'PATCH',
+      body,
+      schema: planEntryResponseSchema,
+    })
+  ).entry;
 }
 
 export function useUpdatePlanEntry(bankId: string, entryId: string) {

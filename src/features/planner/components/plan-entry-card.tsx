@@ -40,7 +40,10 @@ export function PlanEntryCard({ bankId, entry, canEdit, today }: PlanEntryCardPr
     <article
       aria-labelledby={titleId}
       data-entry={entry.id}
-      className={cn('rounded-xl border bg-white p-4 shadow-sm shadow-loam-900/5 sm:p-5', sown ? 'border-moss-300' : 'border-loam-200')}
+      className={cn(
+        'rounded-xl border bg-white p-4 shadow-sm shadow-loam-900/5 sm:p-5',
+        sown ? 'border-moss-300' : 'border-loam-200',
+      )}
     >
       <header className="flex flex-wrap items-start justify-between gap-2">
         <div className="min-w-0">
@@ -48,25 +51,40 @@ export function PlanEntryCard({ bankId, entry, canEdit, today }: PlanEntryCardPr
             {entry.speciesName}
           </h3>
           <p className="text-loam-700">
-            <span className="num">{formatSeeds(entry.plantsWanted)}</span> plants · {entry.start === 'indoors' ? 'started indoors' : 'sown direct'}
+            <span className="num">{formatSeeds(entry.plantsWanted)}</span> plants ·{' '}
+            {entry.start === 'indoors' ? 'started indoors' : 'sown direct'}
           </p>
         </div>
         {sown ? (
-          <span className="rounded-full bg-moss-100 px-2.5 py-0.5 text-sm font-bold text-moss-800">✓ Sown {dayMonth(entry.sownOn!)}</span>
+          <span className="rounded-full bg-moss-100 px-2.5 py-0.5 text-sm font-bold text-moss-800">
+            ✓ Sown {dayMonth(entry.sownOn!)}
+          </span>
         ) : entry.sowTo < today ? (
-          <span className="rounded-full bg-clay-100 px-2.5 py-0.5 text-sm font-bold text-clay-800">Window passed</span>
+          <span className="rounded-full bg-clay-100 px-2.5 py-0.5 text-sm font-bold text-clay-800">
+            Window passed
+          </span>
         ) : entry.sowFrom <= today ? (
-          <span className="rounded-full bg-seedcoat-100 px-2.5 py-0.5 text-sm font-bold text-seedcoat-800">Sow now</span>
+          <span className="rounded-full bg-seedcoat-100 px-2.5 py-0.5 text-sm font-bold text-seedcoat-800">
+            Sow now
+          </span>
         ) : null}
       </header>
 
       <dl className="mt-3 grid grid-cols-2 gap-x-4 gap-y-2 sm:gap-x-6 lg:grid-cols-3">
         <Fact label="Sow between" value={dayRange(entry.sowFrom, entry.sowTo)} strong data="sow" />
-        {entry.expectFrom && entry.expectBy ? <Fact label="Seedlings expected" value={dayRange(entry.expectFrom, entry.expectBy)} data="expect" /> : null}
-        {entry.hardenFrom ? <Fact label="Harden off from" value={dayMonth(entry.hardenFrom)} data="harden" /> : null}
-        {entry.transplantOn ? <Fact label="Plant out" value={dayMonth(entry.transplantOn)} data="plant-out" /> : null}
+        {entry.expectFrom && entry.expectBy ? (
+          <Fact label="Seedlings expected" value={dayRange(entry.expectFrom, entry.expectBy)} data="expect" />
+        ) : null}
+        {entry.hardenFrom ? (
+          <Fact label="Harden off from" value={dayMonth(entry.hardenFrom)} data="harden" />
+        ) : null}
+        {entry.transplantOn ? (
+          <Fact label="Plant out" value={dayMonth(entry.transplantOn)} data="plant-out" />
+        ) : null}
         <div data-fact="lot">
-          <dt className="text-sm text-loam-600">{entry.lotChosen ? 'Lot (your choice)' : 'Lot (suggested)'}</dt>
+          <dt className="text-sm text-loam-600">
+            {entry.lotChosen ? 'Lot (your choice)' : 'Lot (suggested)'}
+          </dt>
           <dd className="font-semibold text-loam-900">
             {entry.lotId && entry.lotCode ? (
               <Link to={paths.lot.getHref(bankId, entry.lotId)} className="text-moss-800 underline">
@@ -77,7 +95,12 @@ export function PlanEntryCard({ bankId, entry, canEdit, today }: PlanEntryCardPr
             )}
           </dd>
         </div>
-        <Fact label="Seeds to sow" value={entry.seedsToSow !== null ? formatSeeds(entry.seedsToSow) : '–'} strong data="seeds" />
+        <Fact
+          label="Seeds to sow"
+          value={entry.seedsToSow !== null ? formatSeeds(entry.seedsToSow) : '–'}
+          strong
+          data="seeds"
+        />
       </dl>
 
       {entry.notes.length > 0 ? (
@@ -87,7 +110,9 @@ export function PlanEntryCard({ bankId, entry, canEdit, today }: PlanEntryCardPr
               key={note}
               className={cn(
                 'rounded-lg px-3 py-1.5 text-sm',
-                WARNING.test(note) ? 'border border-clay-300 bg-clay-50 font-semibold text-clay-800' : 'bg-husk-100 text-loam-800',
+                WARNING.test(note)
+                  ? 'border border-clay-300 bg-clay-50 font-semibold text-clay-800'
+                  : 'bg-husk-100 text-loam-800',
               )}
             >
               {note}
@@ -97,7 +122,10 @@ export function PlanEntryCard({ bankId, entry, canEdit, today }: PlanEntryCardPr
       ) : null}
 
       {notice ? (
-        <p role="status" className="mt-3 rounded-lg border border-moss-200 bg-moss-50 px-3 py-2 font-semibold text-moss-800">
+        <p
+          role="status"
+          className="mt-3 rounded-lg border border-moss-200 bg-moss-50 px-3 py-2 font-semibold text-moss-800"
+        >
           {notice}
         </p>
       ) : null}
@@ -107,12 +135,25 @@ export function PlanEntryCard({ bankId, entry, canEdit, today }: PlanEntryCardPr
           {sown ? (
             <UndoSown bankId={bankId} entry={entry} onDone={setNotice} />
           ) : editing ? (
-            <EditEntry bankId={bankId} entry={entry} onDone={(message) => { setEditing(false); setNotice(message); }} />
+            <EditEntry
+              bankId={bankId}
+              entry={entry}
+              onDone={(message) => {
+                setEditing(false);
+                setNotice(message);
+              }}
+            />
           ) : (
             <div className="flex flex-wrap items-end justify-between gap-3">
               <MarkSown bankId={bankId} entry={entry} today={today} onDone={setNotice} />
               <div className="flex gap-2">
-                <Button variant="secondary" onClick={() => { setNotice(undefined); setEditing(true); }}>
+                <Button
+                  variant="secondary"
+                  onClick={() => {
+                    setNotice(undefined);
+                    setEditing(true);
+                  }}
+                >
                   Edit
                 </Button>
                 <button
@@ -147,7 +188,17 @@ export function PlanEntryCard({ bankId, entry, canEdit, today }: PlanEntryCardPr
   );
 }
 
-function Fact({ label, value, strong = false, data }: { label: string; value: string; strong?: boolean; data: string }) {
+function Fact({
+  label,
+  value,
+  strong = false,
+  data,
+}: {
+  label: string;
+  value: string;
+  strong?: boolean;
+  data: string;
+}) {
   return (
     <div data-fact={data}>
       <dt className="text-sm text-loam-600">{label}</dt>
@@ -156,7 +207,17 @@ function Fact({ label, value, strong = false, data }: { label: string; value: st
   );
 }
 
-function MarkSown({ bankId, entry, today, onDone }: { bankId: string; entry: PlanEntryDto; today: string; onDone: (message: string) => void }) {
+function MarkSown({
+  bankId,
+  entry,
+  today,
+  onDone,
+}: {
+  bankId: string;
+  entry: PlanEntryDto;
+  today: string;
+  onDone: (message: string) => void;
+}) {
   const mark = useMarkSown(bankId, entry.id);
   const [date, setDate] = useState(today);
   const [error, setError] = useState<string>();
@@ -169,7 +230,9 @@ function MarkSown({ bankId, entry, today, onDone }: { bankId: string; entry: Pla
     if (parsed.data.date > today) return setError('A sowing cannot be dated in the future.');
     try {
       const next = await mark.mutateAsync(parsed.data.date);
-      onDone(`Sown on ${dayMonth(next.sownOn ?? parsed.data.date)}: ${formatSeeds(next.seedsToSow ?? 0)} seeds taken from the stock of lot ${next.lotCode ?? ''}.`);
+      onDone(
+        `Sown on ${dayMonth(next.sownOn ?? parsed.data.date)}: ${formatSeeds(next.seedsToSow ?? 0)} seeds taken from the stock of lot ${next.lotCode ?? ''}.`,
+      );
     } catch (e) {
       setError(isApiError(e) ? e.message : 'Not saved. Try again.');
     }
@@ -181,8 +244,9 @@ function MarkSown({ bankId, entry, today, onDone }: { bankId: string; entry: Pla
   if (entry.seedsOnHand !== null && entry.seedsToSow !== null && entry.seedsOnHand < entry.seedsToSow) {
     return (
       <p role="note" className="text-sm text-clay-800" data-short-of-seed>
-        Lot {entry.lotCode} has {formatSeeds(entry.seedsOnHand)} seeds left, short of the {formatSeeds(entry.seedsToSow)} this
-        sowing needs. Choose another lot or fewer plants (Edit), or add seed to the lot’s stock first.
+        Lot {entry.lotCode} has {formatSeeds(entry.seedsOnHand)} seeds left, short of the{' '}
+        {formatSeeds(entry.seedsToSow)} this sowing needs. Choose another lot or fewer plants (Edit), or add
+        seed to the lot’s stock first.
       </p>
     );
   }
@@ -212,13 +276,21 @@ function MarkSown({ bankId, entry, today, onDone }: { bankId: string; entry: Pla
   );
 }
 
-function UndoSown({ bankId, entry, onDone }: { bankId: string; entry: PlanEntryDto; onDone: (message: string) => void }) {
+function UndoSown({
+  bankId,
+  entry,
+  onDone,
+}: {
+  bankId: string;
+  entry: PlanEntryDto;
+  onDone: (message: string) => void;
+}) {
   const undo = useUndoSown(bankId, entry.id);
   return (
     <div className="flex flex-wrap items-center justify-between gap-3">
       <p className="text-loam-700">
-        <span className="num font-semibold">{formatSeeds(entry.seedsToSow ?? 0)}</span> seeds were taken from lot {entry.lotCode} on{' '}
-        {dayMonth(entry.sownOn ?? '')}.
+        <span className="num font-semibold">{formatSeeds(entry.seedsToSow ?? 0)}</span> seeds were taken from
+        lot {entry.lotCode} on {dayMonth(entry.sownOn ?? '')}.
       </p>
       <Button
         variant="secondary"
@@ -227,7 +299,9 @@ function UndoSown({ bankId, entry, onDone }: { bankId: string; entry: PlanEntryD
         onClick={async () => {
           try {
             await undo.mutateAsync();
-            onDone(`Sowing undone: ${formatSeeds(entry.seedsToSow ?? 0)} seeds went back into lot ${entry.lotCode}.`);
+            onDone(
+              `Sowing undone: ${formatSeeds(entry.seedsToSow ?? 0)} seeds went back into lot ${entry.lotCode}.`,
+            );
           } catch {
             // The message shows below the button.
           }
@@ -242,7 +316,15 @@ function UndoSown({ bankId, entry, onDone }: { bankId: string; entry: PlanEntryD
 
 const SUGGEST = '';
 
-function EditEntry({ bankId, entry, onDone }: { bankId: string; entry: PlanEntryDto; onDone: (message: string) => void }) {
+function EditEntry({
+  bankId,
+  entry,
+  onDone,
+}: {
+  bankId: string;
+  entry: PlanEntryDto;
+  onDone: (message: string) => void;
+}) {
   const update = useUpdatePlanEntry(bankId, entry.id);
   const ranking = useRanking(bankId, entry.sowFrom);
   const lots = lotsOfSpecies(ranking.data ?? [], entry.speciesId);
@@ -251,7 +333,10 @@ function EditEntry({ bankId, entry, onDone }: { bankId: string; entry: PlanEntry
   const [errors, setErrors] = useState<{ plantsWanted?: string; lotId?: string; form?: string }>({});
 
   const submit = async () => {
-    const parsed = updatePlanBodySchema.safeParse({ plantsWanted: Number(plants), lotId: lot === SUGGEST ? null : lot });
+    const parsed = updatePlanBodySchema.safeParse({
+      plantsWanted: Number(plants),
+      lotId: lot === SUGGEST ? null : lot,
+    });
     if (!parsed.success) {
       setErrors({ plantsWanted: 'A whole number of plants, at least 1.' });
       return;
@@ -259,10 +344,16 @@ function EditEntry({ bankId, entry, onDone }: { bankId: string; entry: PlanEntry
     setErrors({});
     try {
       const next = await update.mutateAsync(parsed.data);
-      onDone(`Saved: ${next.plantsWanted} plants${next.lotCode ? `, lot ${next.lotCode}` : ''}, ${next.seedsToSow !== null ? `${formatSeeds(next.seedsToSow)} seeds to sow` : 'seeds to sow unknown'}.`);
+      onDone(
+        `Saved: ${next.plantsWanted} plants${next.lotCode ? `, lot ${next.lotCode}` : ''}, ${next.seedsToSow !== null ? `${formatSeeds(next.seedsToSow)} seeds to sow` : 'seeds to sow unknown'}.`,
+      );
     } catch (e) {
       const fields = isApiError(e) ? e.fields : undefined;
-      setErrors({ plantsWanted: fields?.plantsWanted, lotId: fields?.lotId, form: fields ? undefined : e instanceof Error ? e.message : 'Not saved.' });
+      setErrors({
+        plantsWanted: fields?.plantsWanted,
+        lotId: fields?.lotId,
+        form: fields ? undefined : e instanceof Error ? e.message : 'Not saved.',
+      });
     }
   };
 
@@ -289,7 +380,12 @@ function EditEntry({ bankId, entry, onDone }: { bankId: string; entry: PlanEntry
           onChange={(event) => setPlants(event.target.value)}
           error={errors.plantsWanted}
         />
-        <SelectField label="Lot" value={lot} onChange={(event) => setLot(event.target.value)} error={errors.lotId}>
+        <SelectField
+          label="Lot"
+          value={lot}
+          onChange={(event) => setLot(event.target.value)}
+          error={errors.lotId}
+        >
           <option value={SUGGEST}>Let Hilum suggest the best tested lot</option>
           {lots.map((l) => (
             <option key={l.lotId} value={l.lotId} disabled={cannotPlan(l) && l.lotId !== entry.lotId}>

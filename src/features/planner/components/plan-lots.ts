@@ -5,7 +5,8 @@ import { formatSeeds } from './plan-format';
 /** Indoors or direct to start with: what the species' traits say is usual. */
 export function defaultStart(traits: SpeciesTraits): 'indoors' | 'direct' {
   if (traits.startMethod === 'direct') return 'direct';
-  if (traits.startMethod === 'either' && (traits.startWeeksFrom == null || traits.startWeeksTo == null)) return 'direct';
+  if (traits.startMethod === 'either' && (traits.startWeeksFrom == null || traits.startWeeksTo == null))
+    return 'direct';
   return 'indoors';
 }
 

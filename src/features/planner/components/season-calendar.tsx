@@ -1,6 +1,15 @@
 import { cn } from '../../../lib/cn';
 import { KIND_LABELS, type CalendarEvent, type CalendarKind } from './calendar-events';
-import { dayMonth, dayRange, monthOf, monthTitle, monthWeeks, shiftMonth, weekday, weekdayDayMonth } from './plan-format';
+import {
+  dayMonth,
+  dayRange,
+  monthOf,
+  monthTitle,
+  monthWeeks,
+  shiftMonth,
+  weekday,
+  weekdayDayMonth,
+} from './plan-format';
 
 /** Each kind has its colour and its own mark, so the calendar reads without colour too. */
 const KIND_STYLES: Record<CalendarKind, { bar: string; dot: string; mark: string }> = {
@@ -27,13 +36,24 @@ export interface SeasonCalendarProps {
   onModeChange: (mode: CalendarMode) => void;
 }
 
-export function SeasonCalendar({ events, today, month, mode, onMonthChange, onModeChange }: SeasonCalendarProps) {
+export function SeasonCalendar({
+  events,
+  today,
+  month,
+  mode,
+  onMonthChange,
+  onModeChange,
+}: SeasonCalendarProps) {
   return (
     <div className="grid gap-4">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <Legend />
         {/* On a phone the month is always the agenda list, so the switch shows from 640 px. */}
-        <div role="group" aria-label="Calendar view" className="hidden rounded-lg border border-loam-300 bg-white p-0.5 sm:inline-flex">
+        <div
+          role="group"
+          aria-label="Calendar view"
+          className="hidden rounded-lg border border-loam-300 bg-white p-0.5 sm:inline-flex"
+        >
           {(['month', 'list'] as const).map((m) => (
             <button
               key={m}
@@ -73,7 +93,13 @@ function Legend() {
     <ul aria-label="What the marks mean" className="flex flex-wrap gap-x-4 gap-y-1 text-sm text-loam-700">
       {(Object.keys(KIND_LABELS) as CalendarKind[]).map((kind) => (
         <li key={kind} className="inline-flex items-center gap-1.5">
-          <span aria-hidden="true" className={cn('inline-flex size-4 items-center justify-center rounded-sm text-[0.65rem] leading-none', KIND_STYLES[kind].bar)}>
+          <span
+            aria-hidden="true"
+            className={cn(
+              'inline-flex size-4 items-center justify-center rounded-sm text-[0.65rem] leading-none',
+              KIND_STYLES[kind].bar,
+            )}
+          >
             {KIND_STYLES[kind].mark}
           </span>
           {KIND_LABELS[kind]}
@@ -84,19 +110,24 @@ function Legend() {
 }
 
 function MonthNav({ month, onMonthChange }: { month: string; onMonthChange: (month: string) => void }) {
-  const button = 'inline-flex min-h-11 min-w-11 items-center justify-center rounded-lg border border-loam-300 bg-white px-3 font-semibold text-loam-800 hover:bg-husk-100';
+  const button =
+    'inline-flex min-h-11 min-w-11 items-center justify-center rounded-lg border border-loam-300 bg-white px-3 font-semibold text-loam-800 hover:bg-husk-100';
   return (
     <div className="flex items-center justify-between gap-2">
       <button type="button" className={button} onClick={() => onMonthChange(shiftMonth(month, -1))}>
         <span aria-hidden="true">‹</span>
-        <span className="sr-only sm:not-sr-only sm:ml-1">{monthTitle(shiftMonth(month, -1)).split(' ')[0]}</span>
+        <span className="sr-only sm:not-sr-only sm:ml-1">
+          {monthTitle(shiftMonth(month, -1)).split(' ')[0]}
+        </span>
         <span className="sr-only"> (previous month)</span>
       </button>
       <h3 className="text-xl font-bold text-loam-950" aria-live="polite">
         {monthTitle(month)}
       </h3>
       <button type="button" className={button} onClick={() => onMonthChange(shiftMonth(month, 1))}>
-        <span className="sr-only sm:not-sr-only sm:mr-1">{monthTitle(shiftMonth(month, 1)).split(' ')[0]}</span>
+        <span className="sr-only sm:not-sr-only sm:mr-1">
+          {monthTitle(shiftMonth(month, 1)).split(' ')[0]}
+        </span>
         <span className="sr-only"> (next month)</span>
         <span aria-hidden="true">›</span>
       </button>
@@ -129,10 +160,22 @@ function weekLanes(events: readonly CalendarEvent[], week: readonly string[]): (
   return lanes;
 }
 
-function MonthGrid({ events, today, month }: { events: readonly CalendarEvent[]; today: string; month: string }) {
+function MonthGrid({
+  events,
+  today,
+  month,
+}: {
+  events: readonly CalendarEvent[];
+  today: string;
+  month: string;
+}) {
   const weeks = monthWeeks(month);
   return (
-    <table className="w-full table-fixed border-collapse" data-calendar="month" aria-label={`Season calendar, ${monthTitle(month)}`}>
+    <table
+      className="w-full table-fixed border-collapse"
+      data-calendar="month"
+      aria-label={`Season calendar, ${monthTitle(month)}`}
+    >
       <thead>
         <tr>
           {WEEKDAY_HEADS.map((d) => (
@@ -164,7 +207,17 @@ function MonthGrid({ events, today, month }: { events: readonly CalendarEvent[];
   );
 }
 
-function DayCell({ day, lanes, isToday, inMonth }: { day: string; lanes: (CalendarEvent | null)[]; isToday: boolean; inMonth: boolean }) {
+function DayCell({
+  day,
+  lanes,
+  isToday,
+  inMonth,
+}: {
+  day: string;
+  lanes: (CalendarEvent | null)[];
+  isToday: boolean;
+  inMonth: boolean;
+}) {
   const shown = lanes.slice(0, CELL_LIMIT);
   const hidden = lanes.slice(CELL_LIMIT).filter((e): e is CalendarEvent => e !== null);
   // Trailing empty lanes are dropped, so a quiet day stays short.
@@ -181,11 +234,19 @@ function DayCell({ day, lanes, isToday, inMonth }: { day: string; lanes: (Calend
       )}
     >
       <div className="flex items-center justify-between px-1.5 pt-1">
-        <span className={cn('num text-sm font-semibold', inMonth ? 'text-loam-800' : 'text-loam-500', isToday && 'rounded bg-seedcoat-600 px-1 text-white')}>
+        <span
+          className={cn(
+            'num text-sm font-semibold',
+            inMonth ? 'text-loam-800' : 'text-loam-500',
+            isToday && 'rounded bg-seedcoat-600 px-1 text-white',
+          )}
+        >
           {Number(day.slice(8))}
           <span className="sr-only"> {dayMonth(day)}</span>
         </span>
-        {isToday ? <span className="text-xs font-bold uppercase tracking-wide text-seedcoat-800">Today</span> : null}
+        {isToday ? (
+          <span className="text-xs font-bold uppercase tracking-wide text-seedcoat-800">Today</span>
+        ) : null}
       </div>
       <ul className="mt-0.5 grid gap-0.5 pb-1">
         {shown.map((e, lane) => {
@@ -210,7 +271,9 @@ function DayCell({ day, lanes, isToday, inMonth }: { day: string; lanes: (Calend
                   <span aria-hidden="true">{KIND_STYLES[e.kind].mark} </span>
                   {e.title}
                   {starts ? null : <span className="sr-only"> (continued)</span>}
-                  {e.from !== e.to && starts ? <span className="sr-only">, {dayRange(e.from, e.to)}</span> : null}
+                  {e.from !== e.to && starts ? (
+                    <span className="sr-only">, {dayRange(e.from, e.to)}</span>
+                  ) : null}
                 </>
               ) : (
                 <span className="sr-only">{e.title} (continued)</span>
@@ -219,7 +282,10 @@ function DayCell({ day, lanes, isToday, inMonth }: { day: string; lanes: (Calend
           );
         })}
         {hidden.length > 0 ? (
-          <li className="px-1.5 text-xs font-semibold text-loam-700" title={hidden.map((e) => e.title).join(', ')}>
+          <li
+            className="px-1.5 text-xs font-semibold text-loam-700"
+            title={hidden.map((e) => e.title).join(', ')}
+          >
             + {hidden.length} more
           </li>
         ) : null}
@@ -232,8 +298,18 @@ function DayCell({ day, lanes, isToday, inMonth }: { day: string; lanes: (Calend
  * The calendar as a list of days: each window once, on its first day, with its end. With a month
  * it lists what starts in that month (the phone's form of the month grid); without, the season.
  */
-function Agenda({ events, today, month }: { events: readonly CalendarEvent[]; today: string; month?: string }) {
-  const inScope = month ? events.filter((e) => monthOf(e.from) === month || (e.from < `${month}-01` && monthOf(e.to) >= month)) : events;
+function Agenda({
+  events,
+  today,
+  month,
+}: {
+  events: readonly CalendarEvent[];
+  today: string;
+  month?: string;
+}) {
+  const inScope = month
+    ? events.filter((e) => monthOf(e.from) === month || (e.from < `${month}-01` && monthOf(e.to) >= month))
+    : events;
   const days = new Map<string, CalendarEvent[]>();
   for (const e of inScope) {
     // A window running in from the month before is listed on the month's first day.
@@ -245,7 +321,11 @@ function Agenda({ events, today, month }: { events: readonly CalendarEvent[]; to
   const ordered = [...days.entries()].sort(([a], [b]) => a.localeCompare(b));
 
   if (inScope.length === 0) {
-    return <p className="rounded-lg border border-dashed border-loam-300 bg-husk-50 px-3 py-4 text-loam-700">Nothing planned {month ? `in ${monthTitle(month)}` : 'this season'}.</p>;
+    return (
+      <p className="rounded-lg border border-dashed border-loam-300 bg-husk-50 px-3 py-4 text-loam-700">
+        Nothing planned {month ? `in ${monthTitle(month)}` : 'this season'}.
+      </p>
+    );
   }
   return (
     <ol className="grid gap-2" data-calendar="agenda">
@@ -255,11 +335,18 @@ function Agenda({ events, today, month }: { events: readonly CalendarEvent[]; to
           <li
             key={day}
             aria-current={isToday ? 'date' : undefined}
-            className={cn('rounded-lg border bg-white px-3 py-2', isToday ? 'border-2 border-seedcoat-500' : 'border-loam-200')}
+            className={cn(
+              'rounded-lg border bg-white px-3 py-2',
+              isToday ? 'border-2 border-seedcoat-500' : 'border-loam-200',
+            )}
           >
             <p className="flex items-center gap-2 font-bold text-loam-900">
               <span className="num">{weekdayDayMonth(day)}</span>
-              {isToday ? <span className="rounded bg-seedcoat-600 px-1.5 text-xs uppercase tracking-wide text-white">Today</span> : null}
+              {isToday ? (
+                <span className="rounded bg-seedcoat-600 px-1.5 text-xs uppercase tracking-wide text-white">
+                  Today
+                </span>
+              ) : null}
             </p>
             {list.length === 0 ? (
               <p className="text-sm text-loam-600">Nothing on this day.</p>
@@ -267,13 +354,21 @@ function Agenda({ events, today, month }: { events: readonly CalendarEvent[]; to
               <ul className="mt-1 grid gap-1.5">
                 {list.map((e) => (
                   <li key={e.key} data-kind={e.kind} className="flex items-start gap-2">
-                    <span aria-hidden="true" className={cn('mt-0.5 inline-flex size-5 shrink-0 items-center justify-center rounded text-xs', KIND_STYLES[e.kind].bar)}>
+                    <span
+                      aria-hidden="true"
+                      className={cn(
+                        'mt-0.5 inline-flex size-5 shrink-0 items-center justify-center rounded text-xs',
+                        KIND_STYLES[e.kind].bar,
+                      )}
+                    >
                       {KIND_STYLES[e.kind].mark}
                     </span>
                     <div className="min-w-0">
                       <p className="font-semibold text-loam-900">
                         {e.title}
-                        {e.from !== e.to ? <span className="num font-normal text-loam-700"> · {dayRange(e.from, e.to)}</span> : null}
+                        {e.from !== e.to ? (
+                          <span className="num font-normal text-loam-700"> · {dayRange(e.from, e.to)}</span>
+                        ) : null}
                       </p>
                       <p className="text-sm text-loam-600">
                         <span className="sr-only">{KIND_LABELS[e.kind]}: </span>

@@ -9,7 +9,8 @@ export const plantResponseSchema = z.object({ plant: parentPlantSchema });
 
 /** POST /api/banks/:bankId/plants (grower). */
 export async function createPlant(bankId: string, body: CreatePlantBody) {
-  return (await apiFetch(bankPaths.plants(bankId), { method: 'POST', body, schema: plantResponseSchema })).plant;
+  return (await apiFetch(bankPaths.plants(bankId), { method: 'POST', body, schema: plantResponseSchema }))
+    .plant;
 }
 
 export function useCreatePlant(bankId: string) {

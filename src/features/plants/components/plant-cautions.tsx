@@ -21,8 +21,8 @@ export function PlantCautions({ plant }: { plant: Pick<ParentPlantDto, 'cautions
 export function HybridCaution() {
   return (
     <Caution title="F1 hybrid: seed will not come true">
-      Seed saved from an F1 hybrid grows into a mix of its parents’ traits, and few plants look like the one you saved
-      from. Save it as an experiment, and label the lot that way.
+      Seed saved from an F1 hybrid grows into a mix of its parents’ traits, and few plants look like the one
+      you saved from. Save it as an experiment, and label the lot that way.
     </Caution>
   );
 }

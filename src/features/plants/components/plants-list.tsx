@@ -25,14 +25,25 @@ export function PlantsList({ bankId, plants, canEdit, label = 'Parent plants' }:
           return (
             <li key={plant.id} className="flex gap-3 py-3">
               {photo ? (
-                <img src={photo.thumbUrl} alt={`Photo of ${plant.label}`} loading="lazy" className="size-16 shrink-0 rounded-lg border border-loam-200 object-cover" />
+                <img
+                  src={photo.thumbUrl}
+                  alt={`Photo of ${plant.label}`}
+                  loading="lazy"
+                  className="size-16 shrink-0 rounded-lg border border-loam-200 object-cover"
+                />
               ) : null}
               <div className="grid min-w-0 flex-1 gap-1">
                 <div className="flex flex-wrap items-start justify-between gap-2">
                   <div className="min-w-0">
                     <p className="font-bold text-loam-900">{plant.label}</p>
                     <p className="text-sm text-loam-700">
-                      {[plant.speciesName, plant.variety, plant.location, plant.season, plant.hybrid ? 'F1 hybrid' : null]
+                      {[
+                        plant.speciesName,
+                        plant.variety,
+                        plant.location,
+                        plant.season,
+                        plant.hybrid ? 'F1 hybrid' : null,
+                      ]
                         .filter(Boolean)
                         .join(' · ')}
                     </p>
@@ -50,7 +61,9 @@ export function PlantsList({ bankId, plants, canEdit, label = 'Parent plants' }:
                     </Button>
                   ) : null}
                 </div>
-                {plant.notes ? <p className="whitespace-pre-line text-sm text-loam-800">{plant.notes}</p> : null}
+                {plant.notes ? (
+                  <p className="whitespace-pre-line text-sm text-loam-800">{plant.notes}</p>
+                ) : null}
                 <PlantCautions plant={plant} />
               </div>
             </li>

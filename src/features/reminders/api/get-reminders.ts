@@ -8,7 +8,8 @@ export const remindersResponseSchema = z.object({ preferences: reminderPrefsSche
 
 /** GET /api/banks/:bankId/reminders: the signed-in member's own choices in that bank (any role). */
 export async function getReminders(bankId: string, { signal }: { signal?: AbortSignal } = {}) {
-  return (await apiFetch(bankPaths.reminders(bankId), { schema: remindersResponseSchema, signal })).preferences;
+  return (await apiFetch(bankPaths.reminders(bankId), { schema: remindersResponseSchema, signal }))
+    .preferences;
 }
 
 export function remindersQueryOptions(bankId: string) {

@@ -13,7 +13,11 @@ const KINDS: { kind: Kind; label: string; when: string }[] = [
   { kind: 'sowing', label: 'Sowing days', when: 'The morning a sowing window of the season plan opens.' },
   { kind: 'checks', label: 'Tray check days', when: 'Each check day of a running germination test.' },
   { kind: 'retest', label: 'Retests', when: 'When a lot is due for a retest of its germination.' },
-  { kind: 'digest', label: 'Weekly summary', when: 'A Monday summary of the week: sowings, counts and retests due.' },
+  {
+    kind: 'digest',
+    label: 'Weekly summary',
+    when: 'A Monday summary of the week: sowings, counts and retests due.',
+  },
 ];
 
 export interface ReminderChoicesProps {
@@ -50,8 +54,8 @@ export function ReminderChoices({ bankId, bankName, timeZone, email }: ReminderC
     <div className="grid gap-4">
       <p className="text-loam-700">
         E-mails to <span className="font-semibold text-loam-900">{email ?? 'your address'}</span> about{' '}
-        <span className="font-semibold text-loam-900">{bankName}</span>, from 7 in the morning in the bank’s time zone (
-        {timeZone.replaceAll('_', ' ')}). These are your own choices; other members choose theirs.
+        <span className="font-semibold text-loam-900">{bankName}</span>, from 7 in the morning in the bank’s
+        time zone ({timeZone.replaceAll('_', ' ')}). These are your own choices; other members choose theirs.
       </p>
       <FormAlert>{error}</FormAlert>
       <ul className="divide-y divide-loam-100 rounded-lg border border-loam-200">

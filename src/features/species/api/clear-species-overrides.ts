@@ -7,7 +7,10 @@ import { replaceInList, speciesResponseSchema } from './update-species-traits';
 /** DELETE /api/banks/:bankId/species/:speciesId/overrides (grower): back to the reference values. */
 export async function clearSpeciesOverrides(bankId: string, speciesId: string) {
   return (
-    await apiFetch(bankPaths.speciesOverrides(bankId, speciesId), { method: 'DELETE', schema: speciesResponseSchema })
+    await apiFetch(bankPaths.speciesOverrides(bankId, speciesId), {
+      method: 'DELETE',
+      schema: speciesResponseSchema,
+    })
   ).species;
 }
 
@@ -16,7 +19,9 @@ export function useClearSpeciesOverrides(bankId: string, speciesId: string) {
   return useMutation({
     mutationFn: () => clearSpeciesOverrides(bankId, speciesId),
     onSuccess: async (species) => {
-      queryClient.setQueryData<SpeciesDto[]>(bankKeys.speciesList(bankId), (list) => replaceInList(list, species));
+      queryClient.setQueryData<SpeciesDto[]>(bankKeys.speciesList(bankId), (list) =>
+        replaceInList(list, species),
+      );
       await refresh(queryClient, stale.projections(bankId));
     },
   });

@@ -6,7 +6,8 @@ import { speciesResponseSchema } from './update-species-traits';
 
 /** POST /api/banks/:bankId/species (grower): a species of this bank's own, beside the reference set. */
 export async function createSpecies(bankId: string, body: CreateSpeciesBody) {
-  return (await apiFetch(bankPaths.species(bankId), { method: 'POST', body, schema: speciesResponseSchema })).species;
+  return (await apiFetch(bankPaths.species(bankId), { method: 'POST', body, schema: speciesResponseSchema }))
+    .species;
 }
 
 export function useCreateSpecies(bankId: string) {

@@ -28,7 +28,9 @@ export function useUpdateSpeciesTraits(bankId: string, speciesId: string) {
     mutationFn: (traits: Partial<SpeciesTraits>) => updateSpeciesTraits(bankId, speciesId, traits),
     // Storage and timing traits feed every lot's decline, the ranking, the plan and the overview.
     onSuccess: async (species) => {
-      queryClient.setQueryData<SpeciesDto[]>(bankKeys.speciesList(bankId), (list) => replaceInList(list, species));
+      queryClient.setQueryData<SpeciesDto[]>(bankKeys.speciesList(bankId), (list) =>
+        replaceInList(list, species),
+      );
       await refresh(queryClient, stale.projections(bankId));
     },
   });

@@ -45,7 +45,16 @@ export function NewSpeciesForm({ bankId, onCreated, onCancel }: NewSpeciesFormPr
     control,
     formState: { errors, isSubmitting },
   } = useForm<Values>({
-    defaultValues: { commonName: '', scientificName: '', family: '', startMethod: 'indoor', startWeeksFrom: '', startWeeksTo: '', storageLifeYears: '', poisonous: false },
+    defaultValues: {
+      commonName: '',
+      scientificName: '',
+      family: '',
+      startMethod: 'indoor',
+      startWeeksFrom: '',
+      startWeeksTo: '',
+      storageLifeYears: '',
+      poisonous: false,
+    },
   });
 
   const startMethod = useWatch({ control, name: 'startMethod' });
@@ -67,7 +76,11 @@ export function NewSpeciesForm({ bankId, onCreated, onCancel }: NewSpeciesFormPr
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         const field = (issue.path.at(-1) ?? 'commonName') as keyof Values;
-        setError(field, { type: 'client', message: (issue.code !== 'custom' && numberHints[field as keyof typeof numberHints]) || issue.message });
+        setError(field, {
+          type: 'client',
+          message:
+            (issue.code !== 'custom' && numberHints[field as keyof typeof numberHints]) || issue.message,
+        });
       }
       return;
     }
@@ -82,13 +95,33 @@ export function NewSpeciesForm({ bankId, onCreated, onCancel }: NewSpeciesFormPr
     <form noValidate onSubmit={onSubmit} className="grid gap-4" aria-label="New species">
       <FormAlert>{formError}</FormAlert>
       <p className="text-loam-700">
-        For a plant Hilum does not list. Its count days, temperatures and seeds per gram can be set later on a lot’s page,
-        under the species.
+        For a plant Hilum does not list. Its count days, temperatures and seeds per gram can be set later on a
+        lot’s page, under the species.
       </p>
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Common name" required autoComplete="off" placeholder="e.g. love-in-a-mist" error={errors.commonName?.message} {...register('commonName')} />
-        <TextField label="Scientific name" required autoComplete="off" placeholder="e.g. Nigella damascena" error={errors.scientificName?.message} {...register('scientificName')} />
-        <TextField label="Family" autoComplete="off" placeholder="e.g. Ranunculaceae" error={errors.family?.message} {...register('family')} />
+        <TextField
+          label="Common name"
+          required
+          autoComplete="off"
+          placeholder="e.g. love-in-a-mist"
+          error={errors.commonName?.message}
+          {...register('commonName')}
+        />
+        <TextField
+          label="Scientific name"
+          required
+          autoComplete="off"
+          placeholder="e.g. Nigella damascena"
+          error={errors.scientificName?.message}
+          {...register('scientificName')}
+        />
+        <TextField
+          label="Family"
+          autoComplete="off"
+          placeholder="e.g. Ranunculaceae"
+          error={errors.family?.message}
+          {...register('family')}
+        />
         <SelectField label="Usually started" {...register('startMethod')}>
           <option value="indoor">Indoors, before the last frost</option>
           <option value="direct">Sown direct outdoors</option>
@@ -97,10 +130,29 @@ export function NewSpeciesForm({ bankId, onCreated, onCancel }: NewSpeciesFormPr
         {startMethod !== 'direct' ? (
           <fieldset className="grid gap-2 sm:col-span-2">
             <legend className="font-semibold text-loam-900">Indoor sowing window</legend>
-            <p className="text-sm text-loam-700">Weeks before the last spring frost, from the earliest to the latest sowing; the planner counts back from them.</p>
+            <p className="text-sm text-loam-700">
+              Weeks before the last spring frost, from the earliest to the latest sowing; the planner counts
+              back from them.
+            </p>
             <div className="grid grid-cols-2 gap-4">
-              <TextField label="From (weeks before)" type="number" inputMode="numeric" min={0} max={26} error={errors.startWeeksFrom?.message} {...register('startWeeksFrom')} />
-              <TextField label="Until (weeks before)" type="number" inputMode="numeric" min={0} max={26} error={errors.startWeeksTo?.message} {...register('startWeeksTo')} />
+              <TextField
+                label="From (weeks before)"
+                type="number"
+                inputMode="numeric"
+                min={0}
+                max={26}
+                error={errors.startWeeksFrom?.message}
+                {...register('startWeeksFrom')}
+              />
+              <TextField
+                label="Until (weeks before)"
+                type="number"
+                inputMode="numeric"
+                min={0}
+                max={26}
+                error={errors.startWeeksTo?.message}
+                {...register('startWeeksTo')}
+              />
             </div>
           </fieldset>
         ) : null}
@@ -119,7 +171,10 @@ export function NewSpeciesForm({ bankId, onCreated, onCancel }: NewSpeciesFormPr
         <input type="checkbox" className="mt-1 size-5 accent-moss-700" {...register('poisonous')} />
         <span>
           <span className="block font-semibold text-loam-900">Its seed or plant is poisonous</span>
-          <span className="block text-sm text-loam-700">Hilum then shows the poisonous-seed caution on its lots. Your local poison centre or extension service can say which plants are.</span>
+          <span className="block text-sm text-loam-700">
+            Hilum then shows the poisonous-seed caution on its lots. Your local poison centre or extension
+            service can say which plants are.
+          </span>
         </span>
       </label>
       <div className="flex flex-wrap gap-2">

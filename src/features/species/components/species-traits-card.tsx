@@ -1,7 +1,11 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { overrideTraitsBodySchema, type SpeciesDto, type TraitName } from '../../../../shared/schemas/species';
+import {
+  overrideTraitsBodySchema,
+  type SpeciesDto,
+  type TraitName,
+} from '../../../../shared/schemas/species';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { FormAlert } from '../../../components/ui/form-alert';
@@ -16,7 +20,8 @@ import { BankValueBadge, TraitList } from './trait-list';
 const EDITABLE = ['seedsPerGram', 'firstCountDay', 'finalCountDay'] as const satisfies readonly TraitName[];
 type Editable = (typeof EDITABLE)[number];
 
-const toNumberOrNull = (value: unknown) => (value === '' || value === null || value === undefined ? null : Number(value));
+const toNumberOrNull = (value: unknown) =>
+  value === '' || value === null || value === undefined ? null : Number(value);
 
 const resolver = zodResolver(overrideTraitsBodySchema, {
   error: (issue) =>
@@ -35,7 +40,15 @@ function formValues(species: SpeciesDto) {
   };
 }
 
-function OwnValuesForm({ bankId, species, onDone }: { bankId: string; species: SpeciesDto; onDone: () => void }) {
+function OwnValuesForm({
+  bankId,
+  species,
+  onDone,
+}: {
+  bankId: string;
+  species: SpeciesDto;
+  onDone: () => void;
+}) {
   const update = useUpdateSpeciesTraits(bankId, species.id);
   const [formError, setFormError] = useState<string>();
   const {
@@ -57,7 +70,11 @@ function OwnValuesForm({ bankId, species, onDone }: { bankId: string; species: S
       onDone();
     } catch (error) {
       setFormError(
-        applyServerError(error, setError, ['traits.seedsPerGram', 'traits.firstCountDay', 'traits.finalCountDay']),
+        applyServerError(error, setError, [
+          'traits.seedsPerGram',
+          'traits.firstCountDay',
+          'traits.finalCountDay',
+        ]),
       );
     }
   });
@@ -123,7 +140,13 @@ export interface SpeciesTraitsCardProps {
 }
 
 /** A species' traits with their sources; a grower sets the bank's own seeds per gram and count days. */
-export function SpeciesTraitsCard({ bankId, species, canEdit, headingLevel = 2, showCautions = true }: SpeciesTraitsCardProps) {
+export function SpeciesTraitsCard({
+  bankId,
+  species,
+  canEdit,
+  headingLevel = 2,
+  showCautions = true,
+}: SpeciesTraitsCardProps) {
   const [editing, setEditing] = useState(false);
   const clear = useClearSpeciesOverrides(bankId, species.id);
   return (
@@ -131,7 +154,8 @@ export function SpeciesTraitsCard({ bankId, species, canEdit, headingLevel = 2, 
       headingLevel={headingLevel}
       title={
         <>
-          {species.commonName} <span className="font-normal italic text-loam-700">{species.scientificName}</span>
+          {species.commonName}{' '}
+          <span className="font-normal italic text-loam-700">{species.scientificName}</span>
         </>
       }
       description={species.family ?? undefined}

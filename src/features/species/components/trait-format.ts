@@ -29,9 +29,21 @@ export interface TraitRow {
 /** The traits a grower reads, one row each, in words; rows with nothing known say so. */
 export function traitRows(t: SpeciesTraits): TraitRow[] {
   const range = (a: number | null, b: number | null, unit: string) =>
-    a !== null && b !== null ? (a === b ? `${n(a)}${unit}` : `${n(a)}–${n(b)}${unit}`) : a !== null ? `${n(a)}${unit}` : b !== null ? `${n(b)}${unit}` : 'Not known';
+    a !== null && b !== null
+      ? a === b
+        ? `${n(a)}${unit}`
+        : `${n(a)}–${n(b)}${unit}`
+      : a !== null
+        ? `${n(a)}${unit}`
+        : b !== null
+          ? `${n(b)}${unit}`
+          : 'Not known';
   return [
-    { traits: ['seedsPerGram'], label: 'Seeds per gram', value: t.seedsPerGram !== null ? `about ${n(t.seedsPerGram)}` : 'Not known' },
+    {
+      traits: ['seedsPerGram'],
+      label: 'Seeds per gram',
+      value: t.seedsPerGram !== null ? `about ${n(t.seedsPerGram)}` : 'Not known',
+    },
     {
       traits: ['firstCountDay', 'finalCountDay'],
       label: 'Test count days',
@@ -40,7 +52,11 @@ export function traitRows(t: SpeciesTraits): TraitRow[] {
           ? `first day ${t.firstCountDay ?? '?'}, final day ${t.finalCountDay ?? '?'}`
           : 'Not known',
     },
-    { traits: ['germTempMinC', 'germTempMaxC'], label: 'Germination temperature', value: range(t.germTempMinC, t.germTempMaxC, ' °C') },
+    {
+      traits: ['germTempMinC', 'germTempMaxC'],
+      label: 'Germination temperature',
+      value: range(t.germTempMinC, t.germTempMaxC, ' °C'),
+    },
     { traits: ['light'], label: 'Light', value: t.light ? lightWords[t.light] : 'Not known' },
     {
       traits: ['startMethod', 'startWeeksFrom', 'startWeeksTo'],
@@ -51,13 +67,22 @@ export function traitRows(t: SpeciesTraits): TraitRow[] {
           ? `, ${range(t.startWeeksFrom, t.startWeeksTo, '')} weeks before the last frost`
           : ''),
     },
-    { traits: ['storageLifeYears'], label: 'Storage life', value: t.storageLifeYears !== null ? `about ${n(t.storageLifeYears)} years in good storage` : 'Not known' },
+    {
+      traits: ['storageLifeYears'],
+      label: 'Storage life',
+      value:
+        t.storageLifeYears !== null ? `about ${n(t.storageLifeYears)} years in good storage` : 'Not known',
+    },
     {
       traits: ['minGerminationPercent'],
       label: 'Minimum germination standard',
       value: t.minGerminationPercent !== null ? `${n(t.minGerminationPercent)}%` : 'None published',
     },
-    { traits: ['outcrossing'], label: 'Pollination', value: t.outcrossing ? outcrossWords[t.outcrossing] : 'Not known' },
+    {
+      traits: ['outcrossing'],
+      label: 'Pollination',
+      value: t.outcrossing ? outcrossWords[t.outcrossing] : 'Not known',
+    },
   ];
 }
 

@@ -16,7 +16,9 @@ function SourceDetail({ species, trait }: { species: SpeciesDto; trait: string }
   if (!source) return null;
   return (
     <details className="text-sm text-loam-600 open:basis-full">
-      <summary className="inline-flex min-h-8 cursor-pointer items-center px-1 font-semibold text-frost-700">source</summary>
+      <summary className="inline-flex min-h-8 cursor-pointer items-center px-1 font-semibold text-frost-700">
+        source
+      </summary>
       <p className="pb-1">
         {source.title} — <span className="italic">{basisWords[source.basis] ?? source.basis}</span>
       </p>
@@ -33,7 +35,11 @@ export interface TraitListProps {
 /** The species' traits in words, each with its source, and the bank's own values marked. */
 export function TraitList({ species, compact = false }: TraitListProps) {
   const rows = traitRows(species.traits).filter(
-    (row) => !compact || row.traits.includes('seedsPerGram') || row.traits.includes('firstCountDay') || row.traits.includes('light'),
+    (row) =>
+      !compact ||
+      row.traits.includes('seedsPerGram') ||
+      row.traits.includes('firstCountDay') ||
+      row.traits.includes('light'),
   );
   return (
     <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-2">
@@ -43,9 +49,7 @@ export function TraitList({ species, compact = false }: TraitListProps) {
           <div key={row.label} className="min-w-0">
             <dt className="text-sm font-semibold text-loam-700">{row.label}</dt>
             <dd className="flex flex-wrap items-baseline gap-x-1 text-loam-900">
-              <span>
-              {row.value}
-              </span>
+              <span>{row.value}</span>
               {own ? <BankValueBadge /> : null}
               {!own ? <SourceDetail species={species} trait={row.traits[0]!} /> : null}
             </dd>

@@ -4,7 +4,12 @@ import { apiFetch } from '../../../lib/api-client';
 import { bankKeys, bankPaths } from '../../../lib/bank-api';
 
 /** GET /api/banks/:bankId/lots/:lotId/viability?on=: the lot's fitted decline and its tests. */
-export function getLotViability(bankId: string, lotId: string, on: string, { signal }: { signal?: AbortSignal } = {}) {
+export function getLotViability(
+  bankId: string,
+  lotId: string,
+  on: string,
+  { signal }: { signal?: AbortSignal } = {},
+) {
   return apiFetch(bankPaths.lotViability(bankId, lotId, on), { schema: viabilityResponseSchema, signal });
 }
 

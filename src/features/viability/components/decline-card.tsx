@@ -38,16 +38,26 @@ function Fact({ term, children }: { term: string; children: ReactNode }) {
 
 export function ViabilitySummary({ viability: v, on }: { viability: ViabilityResponse; on: string }) {
   // A retest date means nothing for a lot to retire or one never tested.
-  const showRetest = v.retestBy !== null && v.recommendation !== 'retire' && v.recommendation !== 'test-first';
+  const showRetest =
+    v.retestBy !== null && v.recommendation !== 'retire' && v.recommendation !== 'test-first';
   return (
     <div className="grid gap-3">
       <dl>
         {v.projected ? (
           <Fact term={`Projected on ${formatDay(on)}`}>
-            {pct(v.projected.percent)} <span className="font-normal text-loam-700">(likely {pct(v.projected.low)}–{pct(v.projected.high)})</span>
+            {pct(v.projected.percent)}{' '}
+            <span className="font-normal text-loam-700">
+              (likely {pct(v.projected.low)}–{pct(v.projected.high)})
+            </span>
           </Fact>
         ) : null}
-        {v.initialPercent !== null ? <Fact term={v.estimateOnly ? 'Germination at harvest (a guess)' : 'Germination at harvest (fitted)'}>{pct(v.initialPercent)}</Fact> : null}
+        {v.initialPercent !== null ? (
+          <Fact
+            term={v.estimateOnly ? 'Germination at harvest (a guess)' : 'Germination at harvest (fitted)'}
+          >
+            {pct(v.initialPercent)}
+          </Fact>
+        ) : null}
         {v.sigmaYears !== null ? (
           <Fact term="σ, years per probit of decline">{years(v.sigmaYears)}</Fact>
         ) : null}
@@ -60,7 +70,9 @@ export function ViabilitySummary({ viability: v, on }: { viability: ViabilityRes
           </Fact>
         ) : null}
       </dl>
-      {showRetest && v.retestReason ? <p className="text-sm text-loam-700">{retestReasonWords[v.retestReason] ?? v.retestReason}</p> : null}
+      {showRetest && v.retestReason ? (
+        <p className="text-sm text-loam-700">{retestReasonWords[v.retestReason] ?? v.retestReason}</p>
+      ) : null}
       {v.notes.length ? (
         <ul className="grid list-disc gap-1 pl-5 text-sm text-loam-800">
           {v.notes.map((note) => (
@@ -69,8 +81,8 @@ export function ViabilitySummary({ viability: v, on }: { viability: ViabilityRes
         </ul>
       ) : null}
       <p className="text-xs text-loam-600">
-        Age counts from {formatDay(v.harvestReference)}. The curve follows the seed viability equation: germination falls
-        along a normal curve with storage time.
+        Age counts from {formatDay(v.harvestReference)}. The curve follows the seed viability equation:
+        germination falls along a normal curve with storage time.
       </p>
     </div>
   );
@@ -112,7 +124,8 @@ function Legend({ kinds, curve, guess }: { kinds: ReadonlySet<TestKind>; curve: 
       {curve ? (
         <>
           <li className={item}>
-            <Swatch className="h-[3px] w-5 rounded bg-moss-800" /> {guess ? 'Typical decline (a guess)' : 'Fitted decline'}
+            <Swatch className="h-[3px] w-5 rounded bg-moss-800" />{' '}
+            {guess ? 'Typical decline (a guess)' : 'Fitted decline'}
           </li>
           <li className={item}>
             <Swatch className="h-3 w-5 rounded-sm bg-moss-200" /> Likely range (95%)
@@ -138,7 +151,15 @@ export function DeclineCard({ bankId, lotId, on, today, setAsideResults = {} }: 
     ? v.setAside.flatMap((t) => {
         const r = setAsideResults[t.testId];
         if (!r || r.sown <= 0) return [];
-        return [{ ageYears: Math.max(0, seedAgeYears(v.harvestReference, t.date)), date: t.date, germinated: r.germinated, sown: r.sown, reason: t.reason }];
+        return [
+          {
+            ageYears: Math.max(0, seedAgeYears(v.harvestReference, t.date)),
+            date: t.date,
+            germinated: r.germinated,
+            sown: r.sown,
+            reason: t.reason,
+          },
+        ];
       })
     : [];
   const kinds = new Set<TestKind>(v?.points.map((p) => (p.heldBack ? 'held-back' : 'model')));
@@ -171,7 +192,11 @@ export function DeclineCard({ bankId, lotId, on, today, setAsideResults = {} }: 
                   : 'The line is the lot’s projected decline, from its tests and the species’ other lots in the bank, and the shaded band its likely range.'}
               </figcaption>
               <Suspense fallback={<Loading label="Drawing the chart" />}>
-                <DeclineChart viability={v} todayAge={seedAgeYears(v.harvestReference, today)} setAside={aside} />
+                <DeclineChart
+                  viability={v}
+                  todayAge={seedAgeYears(v.harvestReference, today)}
+                  setAside={aside}
+                />
               </Suspense>
               <Legend kinds={kinds} curve={v.curve.length > 0} guess={v.estimateOnly} />
               {v.points.length ? (
@@ -180,9 +205,11 @@ export function DeclineCard({ bankId, lotId, on, today, setAsideResults = {} }: 
                     const w = wilsonScoreInterval(p.germinated, p.sown);
                     return (
                       <li key={p.testId} className="num" data-held-back={p.heldBack || undefined}>
-                        {formatDay(p.date)} at {years(Math.max(0, p.ageYears))}: {pct(p.percent)} ({p.germinated} of {p.sown}; 95%
-                        interval {pct(100 * w.low)}–{pct(100 * w.high)})
-                        {p.heldBack ? ' — held back by dormancy or conditions, read as “at least this many alive”' : ''}
+                        {formatDay(p.date)} at {years(Math.max(0, p.ageYears))}: {pct(p.percent)} (
+                        {p.germinated} of {p.sown}; 95% interval {pct(100 * w.low)}–{pct(100 * w.high)})
+                        {p.heldBack
+                          ? ' — held back by dormancy or conditions, read as “at least this many alive”'
+                          : ''}
                       </li>
                     );
                   })}
@@ -195,8 +222,10 @@ export function DeclineCard({ bankId, lotId, on, today, setAsideResults = {} }: 
                     return (
                       <li key={t.testId} className="num">
                         {formatDay(t.date)}
-                        {r && r.sown > 0 ? `: ${pct((100 * r.germinated) / r.sown)} (${r.germinated} of ${r.sown})` : ''} — set aside (
-                        {t.reason}), left out of the decline
+                        {r && r.sown > 0
+                          ? `: ${pct((100 * r.germinated) / r.sown)} (${r.germinated} of ${r.sown})`
+                          : ''}{' '}
+                        — set aside ({t.reason}), left out of the decline
                       </li>
                     );
                   })}

@@ -1,4 +1,15 @@
-import { Area, CartesianGrid, ComposedChart, ErrorBar, Line, ReferenceLine, Scatter, Tooltip, XAxis, YAxis } from 'recharts';
+import {
+  Area,
+  CartesianGrid,
+  ComposedChart,
+  ErrorBar,
+  Line,
+  ReferenceLine,
+  Scatter,
+  Tooltip,
+  XAxis,
+  YAxis,
+} from 'recharts';
 import type { ViabilityResponse } from '../../../../shared/schemas/viability';
 import { wilsonScoreInterval } from '../../../../shared/wilson';
 import { formatDay } from '../../../lib/dates';
@@ -37,7 +48,10 @@ export interface SetAsidePoint {
   reason: string;
 }
 
-function point(kind: TestKind, p: { ageYears: number; date: string; germinated: number; sown: number; reason?: string }): TestedPoint {
+function point(
+  kind: TestKind,
+  p: { ageYears: number; date: string; germinated: number; sown: number; reason?: string },
+): TestedPoint {
   const w = wilsonScoreInterval(p.germinated, p.sown);
   const tested = (100 * p.germinated) / p.sown;
   return {
@@ -77,7 +91,8 @@ interface TipProps {
 function Tip({ active, payload }: TipProps) {
   if (!active || !payload?.length) return null;
   const dot = payload.find((p) => p.dataKey === 'tested')?.payload as TestedPoint | undefined;
-  const curve = payload.find((p) => p.dataKey === 'percent')?.payload as { ageYears: number; percent: number; band: [number, number] } | undefined;
+  const curve = payload.find((p) => p.dataKey === 'percent')?.payload as
+    { ageYears: number; percent: number; band: [number, number] } | undefined;
   return (
     <div className="rounded-lg border border-loam-200 bg-white px-3 py-2 text-sm text-loam-900 shadow">
       {dot ? (
@@ -87,7 +102,8 @@ function Tip({ active, payload }: TipProps) {
             {dot.kind === 'held-back' ? ' · held back' : dot.kind === 'set-aside' ? ' · set aside' : ''}
           </p>
           <p>
-            {pct(dot.tested)} ({formatCount(dot.germinated)} of {formatCount(dot.sown)}), 95% interval {pct(dot.low)}–{pct(dot.high)}
+            {pct(dot.tested)} ({formatCount(dot.germinated)} of {formatCount(dot.sown)}), 95% interval{' '}
+            {pct(dot.low)}–{pct(dot.high)}
           </p>
           {dot.kind === 'held-back' ? <p>Read as “at least this many alive”, not as decline.</p> : null}
           {dot.kind === 'set-aside' ? <p>{dot.reason}: left out of the decline.</p> : null}
@@ -114,13 +130,24 @@ export interface DeclineChartProps {
 
 /** Germination against seed age: the fitted decline with its band, and every test as a dot. */
 export function DeclineChart({ viability, todayAge, setAside = [] }: DeclineChartProps) {
-  const curve = viability.curve.map((c) => ({ ageYears: c.ageYears, percent: c.percent, band: [c.low, c.high] as [number, number] }));
+  const curve = viability.curve.map((c) => ({
+    ageYears: c.ageYears,
+    percent: c.percent,
+    band: [c.low, c.high] as [number, number],
+  }));
   const tested = testedPoints(viability.points);
   const dots = tested.filter((d) => d.kind === 'model');
   const heldBack = tested.filter((d) => d.kind === 'held-back');
   const aside = setAside.map((p) => point('set-aside', p));
   const onAge = Math.max(0, viability.ageYears);
-  const maxAge = Math.max(1, curve.at(-1)?.ageYears ?? 0, onAge, todayAge, ...tested.map((d) => d.ageYears), ...aside.map((d) => d.ageYears));
+  const maxAge = Math.max(
+    1,
+    curve.at(-1)?.ageYears ?? 0,
+    onAge,
+    todayAge,
+    ...tested.map((d) => d.ageYears),
+    ...aside.map((d) => d.ageYears),
+  );
 
   return (
     <ComposedChart
@@ -137,25 +164,77 @@ export function DeclineChart({ viability, todayAge, setAside = [] }: DeclineChar
         domain={[0, Math.ceil(maxAge)]}
         allowDecimals={false}
         tick={{ fill: AXIS, fontSize: 13 }}
-        label={{ value: 'seed age, years since harvest', position: 'insideBottom', offset: -2, fill: AXIS, fontSize: 13 }}
+        label={{
+          value: 'seed age, years since harvest',
+          position: 'insideBottom',
+          offset: -2,
+          fill: AXIS,
+          fontSize: 13,
+        }}
         height={42}
       />
-      <YAxis domain={[0, 100]} ticks={[0, 25, 50, 75, 100]} tickFormatter={(v: number) => `${v}%`} tick={{ fill: AXIS, fontSize: 13 }} width={52} />
+      <YAxis
+        domain={[0, 100]}
+        ticks={[0, 25, 50, 75, 100]}
+        tickFormatter={(v: number) => `${v}%`}
+        tick={{ fill: AXIS, fontSize: 13 }}
+        width={52}
+      />
       <Tooltip content={<Tip />} />
-      <Area dataKey="band" name="Likely range" type="monotone" stroke="none" fill={BAND} fillOpacity={0.7} isAnimationActive={false} activeDot={false} />
-      <Line dataKey="percent" name="Fitted decline" type="monotone" stroke={CURVE} strokeWidth={3} dot={false} isAnimationActive={false} />
+      <Area
+        dataKey="band"
+        name="Likely range"
+        type="monotone"
+        stroke="none"
+        fill={BAND}
+        fillOpacity={0.7}
+        isAnimationActive={false}
+        activeDot={false}
+      />
+      <Line
+        dataKey="percent"
+        name="Fitted decline"
+        type="monotone"
+        stroke={CURVE}
+        strokeWidth={3}
+        dot={false}
+        isAnimationActive={false}
+      />
       {/* A Scatter with no points would fall back to the chart's own data (the curve): drawn only with points. */}
       {dots.length ? (
-        <Scatter data={dots} dataKey="tested" name="Tests" fill={DOT} shape={MODEL_MARK} isAnimationActive={false}>
+        <Scatter
+          data={dots}
+          dataKey="tested"
+          name="Tests"
+          fill={DOT}
+          shape={MODEL_MARK}
+          isAnimationActive={false}
+        >
           <ErrorBar dataKey="err" direction="y" width={8} strokeWidth={1.75} stroke={WHISKER} />
         </Scatter>
       ) : null}
       {heldBack.length ? (
-        <Scatter data={heldBack} dataKey="tested" name="Held back" fill="#ffffff" shape={HELD_BACK_MARK} isAnimationActive={false}>
+        <Scatter
+          data={heldBack}
+          dataKey="tested"
+          name="Held back"
+          fill="#ffffff"
+          shape={HELD_BACK_MARK}
+          isAnimationActive={false}
+        >
           <ErrorBar dataKey="err" direction="y" width={8} strokeWidth={1.75} stroke={WHISKER} />
         </Scatter>
       ) : null}
-      {aside.length ? <Scatter data={aside} dataKey="tested" name="Set aside" fill={ASIDE} shape={SET_ASIDE_MARK} isAnimationActive={false} /> : null}
+      {aside.length ? (
+        <Scatter
+          data={aside}
+          dataKey="tested"
+          name="Set aside"
+          fill={ASIDE}
+          shape={SET_ASIDE_MARK}
+          isAnimationActive={false}
+        />
+      ) : null}
       <ReferenceLine
         x={Math.max(0, todayAge)}
         stroke={TODAY}

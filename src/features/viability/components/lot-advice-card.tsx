@@ -27,7 +27,8 @@ export function ProjectionWords({ viability: v }: { viability: ViabilityResponse
     );
   const band = (
     <>
-      likely between <strong className="num">{pct(p.low)}</strong> and <strong className="num">{pct(p.high)}</strong>
+      likely between <strong className="num">{pct(p.low)}</strong> and{' '}
+      <strong className="num">{pct(p.high)}</strong>
     </>
   );
   return (
@@ -35,19 +36,31 @@ export function ProjectionWords({ viability: v }: { viability: ViabilityResponse
       <p className="text-loam-800" data-testid="projected-band">
         {v.estimateOnly ? (
           <>
-            Not tested — a guess from the species’ typical seed: about <strong className="num">{pct(p.percent)}</strong> on{' '}
-            {formatDay(v.on)}, {band}. A test of about 20 seeds turns it into a measurement.
+            Not tested — a guess from the species’ typical seed: about{' '}
+            <strong className="num">{pct(p.percent)}</strong> on {formatDay(v.on)}, {band}. A test of about 20
+            seeds turns it into a measurement.
           </>
         ) : (
           <>
-            Projected germination on {formatDay(v.on)}: <strong className="num">{pct(p.percent)}</strong>, {band} (a 95% band).
+            Projected germination on {formatDay(v.on)}: <strong className="num">{pct(p.percent)}</strong>,{' '}
+            {band} (a 95% band).
           </>
         )}
       </p>
-      <ProjectionBar percent={p.percent} low={p.low} high={p.high} threshold={v.threshold} className="max-w-md" />
+      <ProjectionBar
+        percent={p.percent}
+        low={p.low}
+        high={p.high}
+        threshold={v.threshold}
+        className="max-w-md"
+      />
       <p className="text-sm text-loam-700">
-        <span aria-hidden="true" className="mr-1.5 inline-block h-4 w-0 border-l-2 border-dashed border-clay-700 align-middle" />
-        Dashed mark: the {pct(v.threshold)} this lot is held to (its species’ published minimum, or the bank’s own threshold).
+        <span
+          aria-hidden="true"
+          className="mr-1.5 inline-block h-4 w-0 border-l-2 border-dashed border-clay-700 align-middle"
+        />
+        Dashed mark: the {pct(v.threshold)} this lot is held to (its species’ published minimum, or the bank’s
+        own threshold).
       </p>
     </div>
   );
@@ -62,7 +75,11 @@ export function LotAdviceCard({ bankId, lotId, on, className }: LotAdviceCardPro
       id="lot-advice"
       className={className}
       title={`Advice for sowing on ${formatDay(on)}`}
-      description={query.isPlaceholderData ? 'Updating for the new date…' : 'The same advice as in the ranking, with its reason.'}
+      description={
+        query.isPlaceholderData
+          ? 'Updating for the new date…'
+          : 'The same advice as in the ranking, with its reason.'
+      }
     >
       {query.isPending ? (
         <Loading label="Working out the advice" />

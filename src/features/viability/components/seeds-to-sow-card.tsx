@@ -42,7 +42,16 @@ export interface SeedsToSowCardProps {
  * "For 12 plants, sow 18 seeds": the count that gives the plants with the chosen assurance over the
  * whole likely range of the lot's germination. A lot to retire gets no count and no plan entry.
  */
-export function SeedsToSowCard({ bankId, lotId, speciesId, startMethod, on, onChangeOn, defaultAssurance, canEdit }: SeedsToSowCardProps) {
+export function SeedsToSowCard({
+  bankId,
+  lotId,
+  speciesId,
+  startMethod,
+  on,
+  onChangeOn,
+  defaultAssurance,
+  canEdit,
+}: SeedsToSowCardProps) {
   const plantsId = useId();
   const [plantsText, setPlantsText] = useState('12');
   const parsedPlants = plantsSchema.safeParse(plantsText);
@@ -73,8 +82,8 @@ export function SeedsToSowCard({ bankId, lotId, speciesId, startMethod, on, onCh
           <FormAlert tone="info" title="No seeds to sow: this lot is to retire">
             <p data-testid="retire-reason">{advice.reason}</p>
             <p className="mt-1">
-              Hilum works out no seeds to sow and adds no plan entry for a lot to retire: too few seeds would come up to be
-              worth the tray space. Plan another lot of this variety instead.
+              Hilum works out no seeds to sow and adds no plan entry for a lot to retire: too few seeds would
+              come up to be worth the tray space. Plan another lot of this variety instead.
             </p>
           </FormAlert>
         ) : (
@@ -148,9 +157,15 @@ export function SeedsToSowCard({ bankId, lotId, speciesId, startMethod, on, onCh
           <>
             <div className="grid gap-1">
               <p className="text-sm font-semibold text-loam-800">
-                {result.estimateOnly ? 'Germination guessed' : 'Germination projected'} for {formatDay(on)}, with its likely range
+                {result.estimateOnly ? 'Germination guessed' : 'Germination projected'} for {formatDay(on)},
+                with its likely range
               </p>
-              <ProjectionBar percent={result.projectedPercent} low={result.projectedLow} high={result.projectedHigh} className="max-w-md" />
+              <ProjectionBar
+                percent={result.projectedPercent}
+                low={result.projectedLow}
+                high={result.projectedHigh}
+                className="max-w-md"
+              />
             </div>
             {result.estimateOnly ? (
               <FormAlert tone="info" title="A guess, not a measurement">
@@ -163,11 +178,14 @@ export function SeedsToSowCard({ bankId, lotId, speciesId, startMethod, on, onCh
               </p>
             )}
             {!result.enoughStock ? (
-              <div role="alert" className="rounded-lg border border-clay-300 bg-clay-100 px-3 py-2.5 text-clay-800">
+              <div
+                role="alert"
+                className="rounded-lg border border-clay-300 bg-clay-100 px-3 py-2.5 text-clay-800"
+              >
                 <p className="font-bold">Not enough seed in this lot</p>
                 <p>
-                  {formatCount(result.seedsOnHand)} seeds on hand, {formatCount(result.seeds)} needed. Sow what there is and
-                  make up the rest from another lot, or plan for fewer plants.
+                  {formatCount(result.seedsOnHand)} seeds on hand, {formatCount(result.seeds)} needed. Sow
+                  what there is and make up the rest from another lot, or plan for fewer plants.
                 </p>
               </div>
             ) : (

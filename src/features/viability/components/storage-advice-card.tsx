@@ -18,11 +18,22 @@ export interface StorageAdviceCardProps {
 
 const sentenceCase = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
-const PLACE_WORDS = { room: 'a room', fridge: 'the fridge', freezer: 'the freezer', other: 'its own place' } as const;
+const PLACE_WORDS = {
+  room: 'a room',
+  fridge: 'the fridge',
+  freezer: 'the freezer',
+  other: 'its own place',
+} as const;
 
 /** "a room", "the freezer, 4 °C": the lot's storage as recorded, for the first line's label. */
-function placeWords(place: StorageAdviceCardProps['place'], temperatureC: number | null | undefined): string | null {
-  const parts = [place ? PLACE_WORDS[place] : null, temperatureC != null ? `${temperatureC} °C` : null].filter(Boolean);
+function placeWords(
+  place: StorageAdviceCardProps['place'],
+  temperatureC: number | null | undefined,
+): string | null {
+  const parts = [
+    place ? PLACE_WORDS[place] : null,
+    temperatureC != null ? `${temperatureC} °C` : null,
+  ].filter(Boolean);
   return parts.length ? parts.join(', ') : null;
 }
 
@@ -35,13 +46,19 @@ export function StorageAdviceCard({ bankId, lotId, on, place, temperatureC }: St
   const v = query.data;
   const now = placeWords(place, temperatureC);
   return (
-    <Card id="lot-storage" title="How long it keeps" description="An estimate from the seed viability equation, not a measurement.">
+    <Card
+      id="lot-storage"
+      title="How long it keeps"
+      description="An estimate from the seed viability equation, not a measurement."
+    >
       {query.isPending ? (
         <Loading label="Working out the storage advice" />
       ) : query.isError ? (
         <FormAlert>{query.error.message}</FormAlert>
       ) : v && v.storageAdvice.length === 0 ? (
-        <p className="text-loam-700">No storage estimate: {v.notes[0] ?? 'the decline cannot be estimated.'}</p>
+        <p className="text-loam-700">
+          No storage estimate: {v.notes[0] ?? 'the decline cannot be estimated.'}
+        </p>
       ) : v ? (
         <div className="grid gap-3">
           <dl aria-label="Years until the lot falls to its threshold" className="grid gap-1">
@@ -59,18 +76,21 @@ export function StorageAdviceCard({ bankId, lotId, on, place, temperatureC }: St
                   {sentenceCase(a.label)}
                   {a.current && now ? ` (${now})` : ''}
                 </dt>
-                <dd className="text-loam-800">{sentenceCase(keepsWords(a.yearsToThreshold, v.threshold))}.</dd>
+                <dd className="text-loam-800">
+                  {sentenceCase(keepsWords(a.yearsToThreshold, v.threshold))}.
+                </dd>
               </div>
             ))}
           </dl>
           <p className="text-sm text-loam-700">
             Counted from {formatDay(v.on)}, from the lot’s projected germination
-            {v.estimateOnly ? ' — a guess, as the lot is not tested yet' : ''}. Estimates from the seed viability equation’s temperature
-            terms; seed moisture is not in them, and damp seed ages far faster at any temperature.
+            {v.estimateOnly ? ' — a guess, as the lot is not tested yet' : ''}. Estimates from the seed
+            viability equation’s temperature terms; seed moisture is not in them, and damp seed ages far
+            faster at any temperature.
           </p>
           <p className="text-sm text-loam-700">
-            To move seed cold, dry it first and seal it in an airtight jar; let a cold jar warm to room temperature before opening it, so no
-            damp settles on the seed (common practice).
+            To move seed cold, dry it first and seal it in an airtight jar; let a cold jar warm to room
+            temperature before opening it, so no damp settles on the seed (common practice).
           </p>
         </div>
       ) : null}
