@@ -68,7 +68,11 @@ describe('npm start with bad set-up input', () => {
   });
 
   const isRoot = process.getuid?.() === 0;
-  it.runIf(isRoot)(
+  // The unprivileged user must reach the checkout: every folder above it open to others (a checkout
+  // under a private temporary folder is not, and the case cannot be run there).
+  const reachable = (dir: string): boolean =>
+    (fs.statSync(dir).mode & 0o001) !== 0 && (path.dirname(dir) === dir || reachable(path.dirname(dir)));
+  it.runIf(isRoot && reachable(root))(
     'when PostgreSQL is missing and it is not run as root, then it names the command to run',
     async () => {
       // As an unprivileged user, on a machine where the PostgreSQL binaries are not found.
