@@ -3,9 +3,9 @@
 import { systemClock } from '../server/clock';
 import { loadConfig } from '../server/config';
 import { createDb } from '../server/db/database';
-import { seedDemoScenario } from '../server/demo/demo-scenario';
+import { createDemoSeason } from '../server/demo/demo-scenario';
 import { migrateToLatest } from '../server/db/migrate';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME, isDemoSeeded } from '../server/demo/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_BANK_NAME, isDemoSeeded } from '../server/demo/demo-people';
 import { createMailer } from '../server/mail/mailer';
 import { refreshStaleResults } from '../server/modules/germination/test-results';
 import { syncReferenceSpecies } from '../server/modules/species/reference-sync';
@@ -56,7 +56,7 @@ try {
   }
   if (!process.argv.includes('--no-demo') && (reset || !(await isDemoSeeded(db)))) {
     process.stdout.write('hilum: seeding the demo season (accounts, lots, tests, photos, plan)…\n');
-    await seedDemoScenario({ db, storage, mailer, clock: systemClock, appOrigin: config.appOrigin });
+    await createDemoSeason({ db, storage, mailer, clock: systemClock, appOrigin: config.appOrigin });
     process.stdout.write('hilum: seeded the demo season\n');
   }
 } catch (error) {

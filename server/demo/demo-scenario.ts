@@ -18,7 +18,7 @@ import { storeProcessedPhoto } from '../photos/store-photo';
 import type { ObjectStore } from '../storage/object-store';
 import { normalCdf } from '../stats/distributions';
 import type { Db } from '../db/database';
-import { DEMO_BANK_NAME, seedDemo } from './seed-demo';
+import { DEMO_BANK_NAME, addDemoPeople } from './demo-people';
 
 /** mulberry32: a small seeded generator, so the demo is the same on every machine. */
 function generator(seed: number) {
@@ -115,9 +115,9 @@ export interface DemoDeps {
  * season and some mail. Every piece of advice (sow, sow thick, retest, grow out, retire, test
  * first) shows in the ranking for the coming sowing date, whatever day it is seeded.
  */
-export async function seedDemoScenario(deps: DemoDeps): Promise<{ bankId: string } | null> {
+export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string } | null> {
   const { db } = deps;
-  await seedDemo(db);
+  await addDemoPeople(db);
   const bank = await db
     .selectFrom('banks')
     .select('id')

@@ -2,7 +2,7 @@ import type { Express } from 'express';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Db } from '../../server/db/database';
-import { seedDemoScenario } from '../../server/demo/demo-scenario';
+import { createDemoSeason } from '../../server/demo/demo-scenario';
 import { defaultSowingDate } from '../../src/lib/sowing-date';
 import { signIn } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
@@ -73,7 +73,7 @@ describe('the demo season', () => {
   let bankId: string;
   beforeAll(async () => {
     ctx = await createTestContext({ now: '2026-12-01T09:00:00Z' });
-    const seeded = await seedDemoScenario({
+    const seeded = await createDemoSeason({
       db: ctx.db,
       storage: ctx.storage,
       mailer: ctx.mailer,
@@ -168,7 +168,7 @@ describe('the demo season', () => {
 
   it('when seeded twice, then nothing is added the second time', async () => {
     expect(
-      await seedDemoScenario({ db: ctx.db, clock: ctx.clock, appOrigin: ctx.config.appOrigin }),
+      await createDemoSeason({ db: ctx.db, clock: ctx.clock, appOrigin: ctx.config.appOrigin }),
     ).toBeNull();
   });
 
@@ -208,7 +208,7 @@ describe.each(['2027-03-30T09:00:00Z', '2027-10-31T09:00:00Z'])('the demo season
   let bankId: string;
   beforeAll(async () => {
     ctx = await createTestContext({ now });
-    bankId = (await seedDemoScenario({ db: ctx.db, clock: ctx.clock, appOrigin: ctx.config.appOrigin }))!
+    bankId = (await createDemoSeason({ db: ctx.db, clock: ctx.clock, appOrigin: ctx.config.appOrigin }))!
       .bankId;
   }, 120_000);
   afterAll(() => ctx.close());

@@ -8,6 +8,7 @@ import { refreshStaleResults } from '../../server/modules/germination/test-resul
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { mulberry32 } from '../unit/stats/seeded-random';
+import { DAY_MS } from '../../shared/dates';
 
 const LOTS = 300;
 
@@ -26,7 +27,7 @@ describe('the ranking under random lots', () => {
       .orderBy('ref_key')
       .execute();
     const addDays = (date: string, n: number) =>
-      new Date(Date.parse(date) + n * 86_400_000).toISOString().slice(0, 10);
+      new Date(Date.parse(date) + n * DAY_MS).toISOString().slice(0, 10);
     await ctx.db.transaction().execute(async (trx) => {
       for (let i = 0; i < LOTS; i++) {
         const harvest = addDays('2016-08-01', Math.floor(rand() * 3500));

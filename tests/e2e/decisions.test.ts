@@ -7,7 +7,7 @@ import type {
   SeedsToSowResponse,
   ViabilityResponse,
 } from '../../shared/schemas/viability';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests, seriousViolations } from '../helpers/journey';
 import { finishedTest, speciesId } from '../helpers/lots';
@@ -15,7 +15,7 @@ import { finishedTest, speciesId } from '../helpers/lots';
 // The circle, its people, lots and tests are the invented demo season of server/demo/demo-scenario.ts,
 // seeded as of the server's fake "now" below; the advice is the server's own (docs/decisions.md).
 const NOW = '2026-12-01T09:00:00Z';
-// The demo bank's last frost is 24 May (seed-demo.ts); Hilum's default sowing date is eight weeks
+// The demo bank's last frost is 24 May (demo-people.ts); Hilum's default sowing date is eight weeks
 // (56 days) before the next one: 24 May 2027 − 56 days = 29 March 2027 (calendar arithmetic).
 const ON = '2027-03-29';
 

@@ -3,12 +3,12 @@ import request from 'supertest';
 import { beforeAll, describe, expect } from 'vitest';
 import type { TestDetail } from '../../shared/schemas/germination';
 import type { RankingItem } from '../../shared/schemas/viability';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
 import { speciesId, startedTest } from '../helpers/lots';
 
-// The people and the bank are the invented demo scenario of server/demo/seed-demo.ts; the lot below
+// The people and the bank are the invented demo scenario of server/demo/demo-people.ts; the lot below
 // (code TRAY-FOUR) is invented for this test, like the demo's own lots.
 const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
 

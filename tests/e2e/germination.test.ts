@@ -2,11 +2,11 @@ import jStat from 'jstat';
 import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
 
-// The people and the bank are the invented demo scenario of server/demo/seed-demo.ts; the lot below is
+// The people and the bank are the invented demo scenario of server/demo/demo-people.ts; the lot below is
 // invented for this test.
 const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
 const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;

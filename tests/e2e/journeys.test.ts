@@ -6,10 +6,11 @@ import jStat from 'jstat';
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../server/demo/seed-demo';
+import { DEMO_PASSWORD } from '../../server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { enterCounts } from '../helpers/count-entry';
 import { journeyOfTests, seriousViolations } from '../helpers/journey';
+import { DAY_MS } from '../../shared/dates';
 
 // 390 × 844 CSS pixels: a common phone held upright (from memory).
 const PHONE = { width: 390, height: 844 };
@@ -50,7 +51,7 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
       await page.getByLabel('Variety').fill('Journey Blue');
       await page
         .getByLabel('Harvest date', { exact: true })
-        .fill(new Date(Date.now() - 20 * 86_400_000).toISOString().slice(0, 10));
+        .fill(new Date(Date.now() - 20 * DAY_MS).toISOString().slice(0, 10));
       // The demo circle saved kale from one of its parent plants: tick it.
       const parents = page.getByRole('group', { name: 'Parent plants' }).getByRole('checkbox');
       await parents.first().check();
@@ -94,8 +95,8 @@ describe.skipIf(!chromiumPath)('the three growers’ journeys, on the demo seaso
   });
 
   describe('journey 2: when a grower records a 4-tray trial over three check days, then the result and curve show', () => {
-    const start = new Date(Date.now() - 10 * 86_400_000).toISOString().slice(0, 10);
-    const day = (n: number) => new Date(Date.parse(start) + n * 86_400_000).toISOString().slice(0, 10);
+    const start = new Date(Date.now() - 10 * DAY_MS).toISOString().slice(0, 10);
+    const day = (n: number) => new Date(Date.parse(start) + n * DAY_MS).toISOString().slice(0, 10);
     const j = journeyOfTests(
       '2-tray-trial',
       () => suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }),

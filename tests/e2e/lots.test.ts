@@ -5,12 +5,12 @@ import type { BrowserContext, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/demo-people';
 import { SPECIES_REFERENCE } from '../../shared/species-reference';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
 
-// The people and the bank are the invented demo scenario of server/demo/seed-demo.ts.
+// The people and the bank are the invented demo scenario of server/demo/demo-people.ts.
 const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
 const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;
 

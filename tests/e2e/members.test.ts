@@ -1,10 +1,10 @@
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME } from '../../server/demo/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_BANK_NAME } from '../../server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { waitForMail } from '../helpers/outbox';
 
-// The people and the bank below are the invented demo scenario of server/demo/seed-demo.ts.
+// The people and the bank below are the invented demo scenario of server/demo/demo-people.ts.
 const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
 const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;
 

@@ -3,12 +3,12 @@ import ical from 'node-ical';
 import type { BrowserContext, Page } from 'playwright-core';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journey, journeyOfTests, seriousViolations } from '../helpers/journey';
 import { finishedTest, speciesId } from '../helpers/lots';
 
-// The people and the bank are the invented demo scenario of server/demo/seed-demo.ts (last spring
+// The people and the bank are the invented demo scenario of server/demo/demo-people.ts (last spring
 // frost 05-24, a 10-day margin); the lot below is invented for this test.
 const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
 const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;

@@ -2,18 +2,18 @@ import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { RankingItem } from '../../shared/schemas/viability';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt, signInThroughApi } from '../helpers/browser';
 import { journey, journeyOfTests, seriousViolations } from '../helpers/journey';
 import { finishedTest, speciesId } from '../helpers/lots';
 
-// The people and the bank are the invented demo scenario of server/demo/seed-demo.ts; the lots
+// The people and the bank are the invented demo scenario of server/demo/demo-people.ts; the lots
 // below are made here (codes RNK-…), so the test does not lean on whatever else the demo holds.
 const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
 const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;
 
 const NOW = '2026-12-01T09:00:00Z';
-// The demo bank's last frost is 24 May (seed-demo.ts); Hilum's default sowing date is eight weeks
+// The demo bank's last frost is 24 May (demo-people.ts); Hilum's default sowing date is eight weeks
 // (56 days) before the next one: 24 May 2027 − 56 days = 29 March 2027 (calendar arithmetic:
 // 24 days back to 30 April, 30 more to 31 March, 2 more to 29 March).
 const ON = '2027-03-29';

@@ -1,12 +1,12 @@
 import type { Page } from 'playwright-core';
 import { beforeAll, describe, expect } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/demo-people';
 import { signIn } from '../helpers/accounts';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
 import { speciesId } from '../helpers/lots';
 
-// The people and the bank are the invented demo scenario of server/demo/seed-demo.ts; the test in
+// The people and the bank are the invented demo scenario of server/demo/demo-people.ts; the test in
 // the file is invented too.
 const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
 const DESKTOP = { width: 1280, height: 900 };

@@ -4,13 +4,13 @@ import path from 'node:path';
 import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/seed-demo';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { jpeg } from '../helpers/images';
 import { journeyOfTests } from '../helpers/journey';
 import { speciesId } from '../helpers/lots';
 
-// The people and the bank are the invented demo scenario of server/demo/seed-demo.ts; the lot and its
+// The people and the bank are the invented demo scenario of server/demo/demo-people.ts; the lot and its
 // test are invented here.
 const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
 const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;

@@ -5,8 +5,8 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll, vi } from 'vitest';
-import { seedDemoScenario } from '../../server/demo/demo-scenario';
-import { DEMO_BANK_NAME, DEMO_PASSWORD, seedDemo } from '../../server/demo/seed-demo';
+import { createDemoSeason } from '../../server/demo/demo-scenario';
+import { DEMO_BANK_NAME, DEMO_PASSWORD, addDemoPeople } from '../../server/demo/demo-people';
 import { createTestContext, type TestContext } from './context';
 
 export const chromiumPath =
@@ -83,7 +83,7 @@ export interface BrowserSuite {
  * The setup every browser test file shares, as a beforeAll and an afterAll of the describe block it
  * is called in (call it first, so the block's own beforeAll runs after it): the real app on a free
  * port with its test clock at `now`; with `demo: 'people'` the demo people and bank
- * (server/demo/seed-demo.ts), with `demo: 'season'` the whole demo season of lots and tests
+ * (server/demo/demo-people.ts), with `demo: 'season'` the whole demo season of lots and tests
  * (server/demo/demo-scenario.ts) as of `now`; and a headless Chromium. All of it is closed after the
  * block. `timeoutMs` is the beforeAll's timeout, for the longer set-ups.
  */
@@ -96,7 +96,7 @@ export function browserSuite(
   beforeAll(async () => {
     server = await startTestServer(options.now ? { now: options.now } : {});
     if (options.demo === 'season') {
-      const seeded = await seedDemoScenario({
+      const seeded = await createDemoSeason({
         db: server.db,
         storage: server.storage,
         mailer: server.mailer,
@@ -106,7 +106,7 @@ export function browserSuite(
       if (!seeded) throw new Error('the demo season was not seeded: its database already held lots');
       bankId = seeded.bankId;
     } else if (options.demo === 'people') {
-      await seedDemo(server.db);
+      await addDemoPeople(server.db);
       bankId = (
         await server.db
           .selectFrom('banks')

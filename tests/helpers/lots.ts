@@ -1,5 +1,6 @@
 import type { Agent } from 'supertest';
 import type { Db } from '../../server/db/database';
+import { DAY_MS } from '../../shared/dates';
 
 /** The id of a reference species by its key in shared/species-reference.ts. */
 export async function speciesId(db: Db, key: string): Promise<string> {
@@ -21,7 +22,7 @@ export async function finishedTest(
   lotId: string,
   startDate: string,
   trays: { sown: number; germinated: number }[],
-  countDate = new Date(Date.parse(startDate) + 14 * 86_400_000).toISOString().slice(0, 10),
+  countDate = new Date(Date.parse(startDate) + 14 * DAY_MS).toISOString().slice(0, 10),
 ) {
   const created = await agent
     .post(`/api/banks/${bankId}/lots/${lotId}/tests`)

@@ -5,7 +5,7 @@ import { FormAlert } from '../../../components/ui/form-alert';
 import { useLogin } from '../api/login';
 
 /*
- * The invented demo circle's accounts (server/demo/seed-demo.ts and demo-scenario.ts seed them on a
+ * The invented demo circle's accounts (server/demo/demo-people.ts and demo-scenario.ts seed them on a
  * development server). Only shown when the server says it is not production.
  */
 export const DEMO_PASSWORD = 'hilum-demo-seeds';

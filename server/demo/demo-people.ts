@@ -19,7 +19,7 @@ export async function isDemoSeeded(db: Db): Promise<boolean> {
 }
 
 /** Seeds the demo bank and its members in one transaction; a second call does nothing. */
-export async function seedDemo(db: Db): Promise<boolean> {
+export async function addDemoPeople(db: Db): Promise<boolean> {
   if (await isDemoSeeded(db)) return false;
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   await db.transaction().execute(async (trx) => {
