@@ -8,36 +8,41 @@ const num = (v: string | null) => (v === null ? null : Number(v));
 const isoTimestamp = (column: 'lots.created_at' | 'lots.updated_at') =>
   sql<string>`to_char(${sql.ref(column)} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
 
+/** What viability fits and decisions read of a lot: the ranking reads thousands, so only this. */
+const DECISION_COLUMNS = [
+  'lots.id',
+  'lots.code',
+  'lots.species_id',
+  'species.common_name as species_name',
+  'lots.variety',
+  'lots.origin',
+  'lots.source_name',
+  'lots.harvest_date',
+  'lots.packed_for_season',
+  'lots.storage_place',
+  'lots.storage_temp_c',
+  'lots.treated',
+  'lots.status',
+  // Kept on the row by the database from the stock ledger, lot_parents and photos.
+  'lots.seeds_on_hand',
+  'lots.first_photo_id',
+] as const;
+
 /** The lot with everything its page and list show, as one row. */
 export function lotsQuery(db: DbOrTx, bankId: string) {
   return db
     .selectFrom('lots')
     .innerJoin('species', 'species.id', 'lots.species_id')
     .select([
-      'lots.id',
-      'lots.code',
-      'lots.species_id',
-      'lots.variety',
-      'lots.origin',
-      'lots.source_name',
-      'lots.harvest_date',
-      'lots.packed_for_season',
+      ...DECISION_COLUMNS,
       'lots.plants_bulked',
-      'lots.storage_place',
       'lots.storage_location',
-      'lots.storage_temp_c',
       'lots.storage_humidity_pct',
       'lots.quantity_estimated',
-      'lots.treated',
       'lots.grams_entered',
-      'lots.status',
       'lots.notes',
-      'species.common_name as species_name',
       'species.scientific_name as scientific_name',
-      // Kept on the row by the database from the stock ledger, lot_parents and photos.
-      'lots.seeds_on_hand',
       'lots.parent_plant_ids',
-      'lots.first_photo_id',
     ])
     .select([
       // As text: parsing two timestamps into Dates per row, only to print them again, cost more
@@ -49,84 +54,72 @@ export function lotsQuery(db: DbOrTx, bankId: string) {
 }
 
 export type LotRow = Awaited<ReturnType<ReturnType<typeof lotsQuery>['executeTakeFirstOrThrow']>>;
+type DecisionRow = Pick<
+  LotRow,
+  | 'id'
+  | 'code'
+  | 'species_id'
+  | 'species_name'
+  | 'variety'
+  | 'origin'
+  | 'source_name'
+  | 'harvest_date'
+  | 'packed_for_season'
+  | 'storage_place'
+  | 'storage_temp_c'
+  | 'treated'
+  | 'status'
+  | 'seeds_on_hand'
+  | 'first_photo_id'
+>;
 
 const thumbUrl = (photoId: string | null) => (photoId ? `/api/photos/${photoId}?size=thumb` : null);
 
-/**
- * The lots of a bank (or of one species) with only what viability fits and decisions read: the
- * ranking reads thousands of them, so nothing else is fetched or parsed.
- */
+const toDecisionLot = (row: DecisionRow) => ({
+  id: row.id,
+  code: row.code,
+  speciesId: row.species_id,
+  speciesName: row.species_name,
+  variety: row.variety,
+  origin: row.origin,
+  sourceName: row.source_name,
+  harvestDate: row.harvest_date,
+  packedForSeason: row.packed_for_season,
+  storage: { place: row.storage_place, temperatureC: num(row.storage_temp_c) },
+  treated: row.treated,
+  status: row.status,
+  seedsOnHand: row.seeds_on_hand,
+  thumbUrl: thumbUrl(row.first_photo_id),
+});
+
+/** The lots of a bank (or of one species) as viability fits and decisions read them, by code. */
 export async function lotsForDecisions(db: DbOrTx, bankId: string, speciesId?: string) {
   let q = db
     .selectFrom('lots')
     .innerJoin('species', 'species.id', 'lots.species_id')
-    .select([
-      'lots.id',
-      'lots.code',
-      'lots.species_id',
-      'species.common_name as species_name',
-      'lots.variety',
-      'lots.origin',
-      'lots.source_name',
-      'lots.harvest_date',
-      'lots.packed_for_season',
-      'lots.storage_place',
-      'lots.storage_temp_c',
-      'lots.treated',
-      'lots.status',
-      'lots.seeds_on_hand',
-      'lots.first_photo_id',
-    ])
+    .select(DECISION_COLUMNS)
     .where('lots.bank_id', '=', bankId);
   if (speciesId) q = q.where('lots.species_id', '=', speciesId);
-  const rows = await q.orderBy('lots.code').execute();
-  return rows.map((row) => ({
-    id: row.id,
-    code: row.code,
-    speciesId: row.species_id,
-    speciesName: row.species_name,
-    variety: row.variety,
-    origin: row.origin,
-    sourceName: row.source_name,
-    harvestDate: row.harvest_date,
-    packedForSeason: row.packed_for_season,
-    storage: { place: row.storage_place, temperatureC: num(row.storage_temp_c) },
-    treated: row.treated,
-    status: row.status,
-    seedsOnHand: row.seeds_on_hand,
-    thumbUrl: thumbUrl(row.first_photo_id),
-  }));
+  return (await q.orderBy('lots.code').execute()).map(toDecisionLot);
 }
 
-export type DecisionLot = Awaited<ReturnType<typeof lotsForDecisions>>[number];
+export type DecisionLot = ReturnType<typeof toDecisionLot>;
 
 export function toLotDto(row: LotRow) {
+  const lot = toDecisionLot(row);
   return {
-    id: row.id,
-    code: row.code,
-    speciesId: row.species_id,
-    speciesName: row.species_name,
+    ...lot,
     scientificName: row.scientific_name,
-    variety: row.variety,
-    origin: row.origin,
-    sourceName: row.source_name,
-    harvestDate: row.harvest_date,
-    packedForSeason: row.packed_for_season,
     plantsBulked: row.plants_bulked,
     storage: {
-      place: row.storage_place,
+      ...lot.storage,
       location: row.storage_location,
-      temperatureC: num(row.storage_temp_c),
       humidityPct: num(row.storage_humidity_pct),
     },
     quantityEstimated: row.quantity_estimated,
-    treated: row.treated,
     gramsEntered: num(row.grams_entered),
-    status: row.status,
     notes: row.notes,
-    seedsOnHand: row.seeds_on_hand ?? 0,
-    parentPlantIds: row.parent_plant_ids ?? [],
-    thumbUrl: thumbUrl(row.first_photo_id),
+    parentPlantIds: row.parent_plant_ids,
     createdAt: row.created_at,
     updatedAt: row.updated_at,
   };

@@ -273,15 +273,8 @@ async function fitLots(
  * over and over, and a model object lives exactly as long as its inputs are unchanged.
  */
 const derived = new WeakMap<LotModel, Map<string, unknown>>();
-function memo<T>(model: LotModel, key: string, compute: () => T): T {
-  let m = derived.get(model);
-  if (!m) derived.set(model, (m = new Map()));
-  if (!m.has(key)) {
-    if (m.size > 64) m.clear();
-    m.set(key, compute());
-  }
-  return m.get(key) as T;
-}
+const memo = <T>(model: LotModel, key: string, compute: () => T): T =>
+  memoOn(derived as WeakMap<LotModel, Map<string, T>>, model, key, compute, 64);
 
 function projectOn(v: LotViability, on: string) {
   const model = v.model;
@@ -687,21 +680,24 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
 
 const COMMA = Buffer.from(',');
 
-/** Memoises `compute` on `v` (a fit, which lives while its inputs are unchanged) by `key`. */
-function memoOn<T>(
-  memo: WeakMap<LotViability, Map<string, T>>,
-  v: LotViability,
+/**
+ * Memoises `compute` on `owner` (a fit or a model, each living exactly while its inputs are
+ * unchanged) by `key`, keeping at most about `limit` keys per owner.
+ */
+function memoOn<O extends object, T>(
+  memo: WeakMap<O, Map<string, T>>,
+  owner: O,
   key: string,
   compute: () => T,
+  limit = 16,
 ): T {
-  let m = memo.get(v);
-  if (!m) memo.set(v, (m = new Map()));
-  let value = m.get(key);
-  if (value === undefined) {
-    if (m.size > 16) m.clear();
-    m.set(key, (value = compute()));
+  let m = memo.get(owner);
+  if (!m) memo.set(owner, (m = new Map()));
+  if (!m.has(key)) {
+    if (m.size > limit) m.clear();
+    m.set(key, compute());
   }
-  return value;
+  return m.get(key)!;
 }
 
 export type ViabilityService = ReturnType<typeof createViabilityService>;
