@@ -90,6 +90,20 @@ export default tseslint.config(
     rules: {
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
       '@typescript-eslint/consistent-type-imports': 'error',
+      // Beyond a folder's neighbour, import through the package.json "imports" aliases
+      // (#server/…, #shared/…, #src/…, #migrations/…, #tests/…), never by climbing.
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              regex: '^(\\.\\./){2,}',
+              message:
+                "Use an alias from package.json's \"imports\" (e.g. #server/db/database) instead of '../../'.",
+            },
+          ],
+        },
+      ],
     },
   },
   {

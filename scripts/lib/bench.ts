@@ -2,12 +2,12 @@
 // and timing medians.
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
-import { createApp } from '../../server/app';
-import { systemClock } from '../../server/clock';
-import type { Config } from '../../server/config';
-import type { Db } from '../../server/db/database';
-import { createMailer } from '../../server/mail/mailer';
-import { createObjectStore } from '../../server/storage/object-store';
+import { createApp } from '#server/app';
+import { systemClock } from '#server/clock';
+import type { Config } from '#server/config';
+import type { Db } from '#server/db/database';
+import { createMailer } from '#server/mail/mailer';
+import { createObjectStore } from '#server/storage/object-store';
 
 /** Listens on an ephemeral port of 127.0.0.1 and resolves to the base URL. */
 export async function listenLocal(server: Server): Promise<string> {

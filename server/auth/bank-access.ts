@@ -2,7 +2,7 @@ import type { RequestHandler } from 'express';
 import type { Db } from '../db/database';
 import type { Role } from '../db/schema';
 import { forbidden, notFound, unauthorized } from '../http/errors';
-import { idSchema } from '../../shared/schemas/common';
+import { idSchema } from '#shared/schemas/common';
 import { prefetchedMembership } from './session.middleware';
 
 const RANK: Record<Role, number> = { viewer: 1, grower: 2, owner: 3 };

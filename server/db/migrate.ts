@@ -1,5 +1,5 @@
 import { Migrator, type Kysely, type MigrationResultSet } from 'kysely';
-import { migrations } from '../../migrations/index';
+import { migrations } from '#migrations/index';
 
 // Kysely's migrations take Kysely<any> on purpose: they are frozen in time and never import the
 // app's current Database type.

@@ -4,8 +4,8 @@
 // Its dates are counted back from the day it is seeded, so it reads as a live season whenever that is.
 import crypto from 'node:crypto';
 import sharp from 'sharp';
-import { addDays } from '../../shared/dates';
-import { comingSeason } from '../../shared/plan-dates';
+import { addDays } from '#shared/dates';
+import { comingSeason } from '#shared/plan-dates';
 import { bankToday, type Clock } from '../clock';
 import type { Mailer } from '../mail/mailer';
 import { refreshStaleResults } from '../modules/germination/test-results';

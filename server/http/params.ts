@@ -1,4 +1,4 @@
-import { idSchema } from '../../shared/schemas/common';
+import { idSchema } from '#shared/schemas/common';
 import { notFound } from './errors';
 
 /** A path id; a malformed one is simply a record that does not exist (404). */

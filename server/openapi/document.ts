@@ -6,13 +6,13 @@ import {
   type ZodOpenApiResponseObject,
   type oas31,
 } from 'zod-openapi';
-import { errorResponseSchema, idSchema, isoDateSchema } from '../../shared/schemas/common';
-import { bankSchema } from '../../shared/schemas/banks';
-import { testDetailSchema } from '../../shared/schemas/germination';
-import { lotSchema, movementSchema, parentPlantSchema, photoSchema } from '../../shared/schemas/lots';
-import { planEntrySchema } from '../../shared/schemas/plan';
-import { speciesSchema } from '../../shared/schemas/species';
-import { rankingItemSchema } from '../../shared/schemas/viability';
+import { errorResponseSchema, idSchema, isoDateSchema } from '#shared/schemas/common';
+import { bankSchema } from '#shared/schemas/banks';
+import { testDetailSchema } from '#shared/schemas/germination';
+import { lotSchema, movementSchema, parentPlantSchema, photoSchema } from '#shared/schemas/lots';
+import { planEntrySchema } from '#shared/schemas/plan';
+import { speciesSchema } from '#shared/schemas/species';
+import { rankingItemSchema } from '#shared/schemas/viability';
 import { SESSION_COOKIE } from '../auth/tokens';
 import { apiRoutes, type ApiRoute } from './routes';
 

@@ -6,7 +6,7 @@ import {
   passwordResetConfirmBodySchema,
   registerBodySchema,
   userSchema,
-} from '../../shared/schemas/accounts';
+} from '#shared/schemas/accounts';
 import {
   acceptInvitationBodySchema,
   acceptInvitationResponseSchema,
@@ -19,8 +19,8 @@ import {
   membersResponseSchema,
   updateBankBodySchema,
   updateMemberBodySchema,
-} from '../../shared/schemas/banks';
-import { isoDateSchema } from '../../shared/schemas/common';
+} from '#shared/schemas/banks';
+import { isoDateSchema } from '#shared/schemas/common';
 import {
   countsBodySchema,
   createTestBodySchema,
@@ -30,7 +30,7 @@ import {
   testsImportPreviewSchema,
   trayUpdateBodySchema,
   updateTestBodySchema,
-} from '../../shared/schemas/germination';
+} from '#shared/schemas/germination';
 import {
   createLotBodySchema,
   createPlantBodySchema,
@@ -43,8 +43,8 @@ import {
   stockBodySchema,
   updateLotBodySchema,
   updatePlantBodySchema,
-} from '../../shared/schemas/lots';
-import { overviewSchema } from '../../shared/schemas/overview';
+} from '#shared/schemas/lots';
+import { overviewSchema } from '#shared/schemas/overview';
 import {
   createPlanBodySchema,
   planEntrySchema,
@@ -52,19 +52,19 @@ import {
   seasonSchema,
   sownBodySchema,
   updatePlanBodySchema,
-} from '../../shared/schemas/plan';
-import { reminderPrefsBodySchema, reminderPrefsSchema } from '../../shared/schemas/reminders';
+} from '#shared/schemas/plan';
+import { reminderPrefsBodySchema, reminderPrefsSchema } from '#shared/schemas/reminders';
 import {
   createSpeciesBodySchema,
   overrideTraitsBodySchema,
   speciesListResponseSchema,
   speciesSchema,
-} from '../../shared/schemas/species';
+} from '#shared/schemas/species';
 import {
   rankingResponseSchema,
   seedsToSowResponseSchema,
   viabilityResponseSchema,
-} from '../../shared/schemas/viability';
+} from '#shared/schemas/viability';
 
 /**
  * The API's one route table: every route mounted under /api, with the zod schemas its router parses

@@ -1,4 +1,4 @@
-import { wilsonScoreInterval } from '../../shared/wilson';
+import { wilsonScoreInterval } from '#shared/wilson';
 import { twoSidedZ } from './distributions';
 import type { Interval } from './interval';
 import { assertOpenUnit, assertSuccesses } from './validate';

@@ -1,6 +1,6 @@
 import type { QueryClient, QueryFilters, QueryKey } from '@tanstack/react-query';
 import type { z } from 'zod';
-import type { lotStatusSchema } from '../../shared/schemas/lots';
+import type { lotStatusSchema } from '#shared/schemas/lots';
 
 /*
  * Everything of one bank on the wire, written once: the API paths under /api/banks/:bankId

@@ -1,4 +1,4 @@
-import { errorResponseSchema } from '../../shared/schemas/common';
+import { errorResponseSchema } from '#shared/schemas/common';
 import { isApiError } from './api-client';
 
 export type CsvRowProblem = { line: number; column?: string | undefined; message: string };

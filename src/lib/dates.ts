@@ -1,5 +1,5 @@
-import { dayInWords } from '../../shared/day-words';
-import { dayIn } from '../../shared/dates';
+import { dayInWords } from '#shared/day-words';
+import { dayIn } from '#shared/dates';
 
 /** Today's calendar date, YYYY-MM-DD, on the bank's calendar: pass the bank's `timeZone`. */
 export function todayIn(timeZone: string): string {

@@ -1,5 +1,5 @@
-import { addDays, frostDateIn } from '../../shared/dates';
-import { isoDateSchema } from '../../shared/schemas/common';
+import { addDays, frostDateIn } from '#shared/dates';
+import { isoDateSchema } from '#shared/schemas/common';
 
 /** A first guess at the coming sowing date: eight weeks before the last spring frost (Hilum's rule). */
 export const WEEKS_BEFORE_FROST = 8;

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createApp } from '../../server/app';
+import { createApp } from '#server/app';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { PASSWORD, signIn, signUp, uniqueEmail } from '../helpers/accounts';
 import { linkIn, waitForMail } from '../helpers/outbox';

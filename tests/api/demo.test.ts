@@ -1,9 +1,9 @@
 import type { Express } from 'express';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Db } from '../../server/db/database';
-import { createDemoSeason } from '../../server/demo/demo-scenario';
-import { defaultSowingDate } from '../../src/lib/sowing-date';
+import type { Db } from '#server/db/database';
+import { createDemoSeason } from '#server/demo/demo-scenario';
+import { defaultSowingDate } from '#src/lib/sowing-date';
 import { signIn } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { waitForMail } from '../helpers/outbox';

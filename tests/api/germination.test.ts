@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { maxToleratedRange, wilsonInterval, clopperPearsonInterval } from '../../server/stats';
+import { maxToleratedRange, wilsonInterval, clopperPearsonInterval } from '#server/stats/index';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { speciesId } from '../helpers/lots';

@@ -5,11 +5,11 @@ import path from 'node:path';
 import S3rver from 's3rver';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createApp } from '../../server/app';
-import { systemClock } from '../../server/clock';
-import { createDb } from '../../server/db/database';
-import { createMailer } from '../../server/mail/mailer';
-import { createObjectStore } from '../../server/storage/object-store';
+import { createApp } from '#server/app';
+import { systemClock } from '#server/clock';
+import { createDb } from '#server/db/database';
+import { createMailer } from '#server/mail/mailer';
+import { createObjectStore } from '#server/storage/object-store';
 import { createTestContext, testConfig, type TestContext } from '../helpers/context';
 
 async function freePort(): Promise<number> {

@@ -1,6 +1,6 @@
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { migrateAllDown, migrateToLatest } from '../../server/db/migrate';
+import { migrateAllDown, migrateToLatest } from '#server/db/migrate';
 import { createTestDatabase } from '../helpers/context';
 
 async function tableNames(db: Parameters<typeof migrateToLatest>[0]): Promise<string[]> {
@@ -41,7 +41,7 @@ describe('the migration index', () => {
   it('when a migration file exists in migrations/, then it is listed in migrations/index.ts', async () => {
     const fs = await import('node:fs');
     const path = await import('node:path');
-    const { migrations } = await import('../../migrations/index');
+    const { migrations } = await import('#migrations/index');
     const dir = path.resolve(import.meta.dirname, '..', '..', 'migrations');
     const files = fs
       .readdirSync(dir)

@@ -5,7 +5,7 @@
 // figures), rounded to the whole percent as the ISTA Rules (ch. 5) report a result.
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { refreshStaleResults } from '../../server/modules/germination/test-results';
+import { refreshStaleResults } from '#server/modules/germination/test-results';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { speciesId } from '../helpers/lots';

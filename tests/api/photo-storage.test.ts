@@ -1,11 +1,11 @@
 import crypto from 'node:crypto';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { loadConfig } from '../../server/config';
-import { AppError } from '../../server/http/errors';
-import { processPhoto, type ProcessedPhoto } from '../../server/photos/process-photo';
-import { photoKeys, removePhotoObjects, storeProcessedPhoto } from '../../server/photos/store-photo';
-import { createObjectStore, type ObjectStore } from '../../server/storage/object-store';
+import { loadConfig } from '#server/config';
+import { AppError } from '#server/http/errors';
+import { processPhoto, type ProcessedPhoto } from '#server/photos/process-photo';
+import { photoKeys, removePhotoObjects, storeProcessedPhoto } from '#server/photos/store-photo';
+import { createObjectStore, type ObjectStore } from '#server/storage/object-store';
 import { jpeg } from '../helpers/images';
 
 // Storing a processed photo in the object store that `npm test` starts (its address comes in the

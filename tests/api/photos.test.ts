@@ -6,8 +6,8 @@ import S3rver from 's3rver';
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createApp } from '../../server/app';
-import { createObjectStore } from '../../server/storage/object-store';
+import { createApp } from '#server/app';
+import { createObjectStore } from '#server/storage/object-store';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
 import {

@@ -4,11 +4,11 @@
 // is a number within 0–100. The data are random, not real; what is checked is that nothing breaks.
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { refreshStaleResults } from '../../server/modules/germination/test-results';
+import { refreshStaleResults } from '#server/modules/germination/test-results';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { mulberry32 } from '../unit/stats/seeded-random';
-import { DAY_MS } from '../../shared/dates';
+import { DAY_MS } from '#shared/dates';
 
 const LOTS = 300;
 

@@ -1,7 +1,7 @@
 // The role matrix: every route of a bank, the least role it needs, and a request that exercises
 // it. Later issues add their routes here; tests/api/roles.test.ts runs each one as owner,
 // grower, viewer, a signed-in non-member and an anonymous caller.
-import type { Role } from '../../server/db/schema';
+import type { Role } from '#server/db/schema';
 
 export interface MatrixFixture {
   bankId: string;

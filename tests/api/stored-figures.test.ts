@@ -1,8 +1,8 @@
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { z } from 'zod';
-import { rankingItemSchema, rankingResponseSchema } from '../../shared/schemas/viability';
-import { createViabilityService } from '../../server/modules/viability/viability.service';
+import { rankingItemSchema, rankingResponseSchema } from '#shared/schemas/viability';
+import { createViabilityService } from '#server/modules/viability/viability.service';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { finishedTest, speciesId, startedTest } from '../helpers/lots';

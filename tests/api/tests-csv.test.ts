@@ -1,4 +1,4 @@
-import type { CreateTestBody } from '../../shared/schemas/germination';
+import type { CreateTestBody } from '#shared/schemas/germination';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';

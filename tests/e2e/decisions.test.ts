@@ -6,8 +6,8 @@ import type {
   RecommendationValue,
   SeedsToSowResponse,
   ViabilityResponse,
-} from '../../shared/schemas/viability';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/demo-people';
+} from '#shared/schemas/viability';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '#server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests, seriousViolations } from '../helpers/journey';
 import { finishedTest, speciesId } from '../helpers/lots';

@@ -1,9 +1,9 @@
 import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { beforeAll, describe, expect } from 'vitest';
-import type { TestDetail } from '../../shared/schemas/germination';
-import type { RankingItem } from '../../shared/schemas/viability';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/demo-people';
+import type { TestDetail } from '#shared/schemas/germination';
+import type { RankingItem } from '#shared/schemas/viability';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '#server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
 import { speciesId, startedTest } from '../helpers/lots';

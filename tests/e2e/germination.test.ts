@@ -2,7 +2,7 @@ import jStat from 'jstat';
 import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/demo-people';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '#server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
 

@@ -6,11 +6,11 @@ import jStat from 'jstat';
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../server/demo/demo-people';
+import { DEMO_PASSWORD } from '#server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { enterCounts } from '../helpers/count-entry';
 import { journeyOfTests, seriousViolations } from '../helpers/journey';
-import { DAY_MS } from '../../shared/dates';
+import { DAY_MS } from '#shared/dates';
 
 // 390 × 844 CSS pixels: a common phone held upright (from memory).
 const PHONE = { width: 390, height: 844 };

@@ -5,8 +5,8 @@ import type { BrowserContext, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../server/demo/demo-people';
-import { SPECIES_REFERENCE } from '../../shared/species-reference';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '#server/demo/demo-people';
+import { SPECIES_REFERENCE } from '#shared/species-reference';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
 

@@ -1,6 +1,6 @@
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_BANK_NAME } from '../../server/demo/demo-people';
+import { DEMO_ACCOUNTS, DEMO_BANK_NAME } from '#server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { waitForMail } from '../helpers/outbox';
 

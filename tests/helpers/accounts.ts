@@ -1,7 +1,7 @@
 import crypto from 'node:crypto';
 import type { Express } from 'express';
 import request from 'supertest';
-import type { Db } from '../../server/db/database';
+import type { Db } from '#server/db/database';
 
 export const PASSWORD = 'correct horse battery';
 

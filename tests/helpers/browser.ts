@@ -5,8 +5,8 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll, vi } from 'vitest';
-import { createDemoSeason } from '../../server/demo/demo-scenario';
-import { DEMO_BANK_NAME, DEMO_PASSWORD, addDemoPeople } from '../../server/demo/demo-people';
+import { createDemoSeason } from '#server/demo/demo-scenario';
+import { DEMO_BANK_NAME, DEMO_PASSWORD, addDemoPeople } from '#server/demo/demo-people';
 import { createTestContext, type TestContext } from './context';
 
 export const chromiumPath =

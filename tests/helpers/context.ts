@@ -3,15 +3,15 @@ import argon2 from 'argon2';
 import type { Express } from 'express';
 import { Kysely, PostgresDialect, sql } from 'kysely';
 import pg from 'pg';
-import { createApp } from '../../server/app';
-import { verifyPassword, type PasswordHasher } from '../../server/auth/password';
-import { createTestClock } from '../../server/clock';
-import { loadConfig, type Config } from '../../server/config';
-import { createDb, type Db } from '../../server/db/database';
-import { migrateToLatest } from '../../server/db/migrate';
-import { syncReferenceSpecies } from '../../server/modules/species/reference-sync';
-import { createMailer, type Mailer } from '../../server/mail/mailer';
-import { createObjectStore, type ObjectStore } from '../../server/storage/object-store';
+import { createApp } from '#server/app';
+import { verifyPassword, type PasswordHasher } from '#server/auth/password';
+import { createTestClock } from '#server/clock';
+import { loadConfig, type Config } from '#server/config';
+import { createDb, type Db } from '#server/db/database';
+import { migrateToLatest } from '#server/db/migrate';
+import { syncReferenceSpecies } from '#server/modules/species/reference-sync';
+import { createMailer, type Mailer } from '#server/mail/mailer';
+import { createObjectStore, type ObjectStore } from '#server/storage/object-store';
 
 export function adminUrl(): string {
   const url = process.env.HILUM_TEST_ADMIN_URL;

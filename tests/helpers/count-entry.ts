@@ -1,6 +1,6 @@
 import type { Page } from 'playwright-core';
 import { expect } from 'vitest';
-import { formatShortDate } from '../../src/features/germination/components/format';
+import { formatShortDate } from '#src/features/germination/components/format';
 
 /**
  * Types one check day's counts into a test page's count form, as a grower would, without racing it:

@@ -3,14 +3,9 @@
 // drawn from the model's own assumptions (server/stats/viability-model.ts MODEL_CONSTANTS), tested at
 // random ages, fitted species by species as the app does; a band covers when it holds the true
 // viability one year after the last test (today, for an untested lot).
-import { normalCdf, normalQuantile } from '../../server/stats/distributions';
-import { temperatureFactor } from '../../server/stats/storage-sigma';
-import {
-  fitSpeciesModel,
-  MODEL_CONSTANTS,
-  projectModel,
-  type ModelLot,
-} from '../../server/stats/viability-model';
+import { normalCdf, normalQuantile } from '#server/stats/distributions';
+import { temperatureFactor } from '#server/stats/storage-sigma';
+import { fitSpeciesModel, MODEL_CONSTANTS, projectModel, type ModelLot } from '#server/stats/viability-model';
 import { mulberry32 } from '../unit/stats/seeded-random';
 
 export interface CoverageRow {

@@ -1,6 +1,6 @@
 import type { Agent } from 'supertest';
-import type { Db } from '../../server/db/database';
-import { DAY_MS } from '../../shared/dates';
+import type { Db } from '#server/db/database';
+import { DAY_MS } from '#shared/dates';
 
 /** The id of a reference species by its key in shared/species-reference.ts. */
 export async function speciesId(db: Db, key: string): Promise<string> {

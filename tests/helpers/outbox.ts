@@ -1,4 +1,4 @@
-import { readOutbox, type CapturedMail } from '../../server/mail/outbox';
+import { readOutbox, type CapturedMail } from '#server/mail/outbox';
 
 /** Waits until the SMTP fake has written a message matching `match` (mail is asynchronous). */
 export async function waitForMail(

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { openingMonth, type CalendarEvent } from '../../src/features/planner/components/calendar-events';
+import { openingMonth, type CalendarEvent } from '#src/features/planner/components/calendar-events';
 
 // Invented events of a season plan; the rule is Hilum's own (which month a grower should see first).
 const event = (from: string, to = from): CalendarEvent => ({

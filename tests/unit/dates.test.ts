@@ -9,7 +9,7 @@ import {
   frostDateIn,
   isLeapYear,
   weekdayOf,
-} from '../../shared/dates';
+} from '#shared/dates';
 
 /**
  * A second, independent count of days: the Julian Day Number of a Gregorian date by the integer

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { dayInWords } from '../../shared/day-words';
-import { resultWords } from '../../server/modules/germination/result-words';
-import { summarizeTest } from '../../server/stats/summarize-test';
+import { dayInWords } from '#shared/day-words';
+import { resultWords } from '#server/modules/germination/result-words';
+import { summarizeTest } from '#server/stats/summarize-test';
 
 describe('days in words', () => {
   it('when an ISO calendar day is written out, then it reads day, short month, year with no time zone shift', () => {

@@ -7,8 +7,8 @@ import {
   renderLabelSvg,
   wrapTwoLines,
   type LabelContent,
-} from '../../server/modules/labels/label-svg';
-import { textWidth } from '../../server/modules/labels/text-width';
+} from '#server/modules/labels/label-svg';
+import { textWidth } from '#server/modules/labels/text-width';
 
 /** Renders the SVG with librsvg (through sharp) and reads the QR code back with jsQR (npm). */
 async function decodeQr(svg: string, density = 125) {

@@ -10,7 +10,7 @@ import {
   type LotCsvRow,
   type ParsedLotCsvRow,
   type ResolveSpecies,
-} from '../../server/modules/lots/lots.csv';
+} from '#server/modules/lots/lots.csv';
 
 // Sources cited below:
 // - RFC 4180, "Common Format and MIME Type for Comma-Separated Values (CSV) Files", §2 rules 1–7

@@ -4,15 +4,15 @@ import pino from 'pino';
 import sharp from 'sharp';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
-import { AppError, errorHandler } from '../../server/http/errors';
+import { AppError, errorHandler } from '#server/http/errors';
 import {
   MAX_INPUT_PIXELS,
   processPhoto,
   sniffImageType,
   type ProcessedPhoto,
-} from '../../server/photos/process-photo';
-import { photoKeys } from '../../server/photos/store-photo';
-import { MAX_PHOTO_BYTES, singlePhoto } from '../../server/photos/upload';
+} from '#server/photos/process-photo';
+import { photoKeys } from '#server/photos/store-photo';
+import { MAX_PHOTO_BYTES, singlePhoto } from '#server/photos/upload';
 import {
   BACKGROUND,
   EXIF_TAG,

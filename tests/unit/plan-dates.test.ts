@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { EMPTY_TRAITS } from '../../shared/schemas/species';
-import { addDays } from '../../shared/dates';
-import { PlanDateError, comingSeason, planDates } from '../../shared/plan-dates';
+import { EMPTY_TRAITS } from '#shared/schemas/species';
+import { addDays } from '#shared/dates';
+import { PlanDateError, comingSeason, planDates } from '#shared/plan-dates';
 
 const petunia = {
   ...EMPTY_TRAITS,

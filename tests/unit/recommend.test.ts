@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { decide, retestDueDate, type DecisionInput } from '../../server/modules/viability/recommend';
+import { decide, retestDueDate, type DecisionInput } from '#server/modules/viability/recommend';
 
 /*
  * The decision rules of docs/decisions.md, branch by branch and boundary by boundary. Sources of the

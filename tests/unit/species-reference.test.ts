@@ -9,7 +9,7 @@ import {
   speciesTraitValue,
   type SourceKey,
   type SpeciesReference,
-} from '../../shared/species-reference';
+} from '#shared/species-reference';
 
 function species(key: string): SpeciesReference {
   const found = SPECIES_REFERENCE.find((s) => s.key === key);

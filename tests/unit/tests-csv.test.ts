@@ -6,8 +6,8 @@ import {
   testsToCsv,
   type TestCsvContext,
   type TestCsvTest,
-} from '../../server/modules/germination/tests.csv';
-import { uncountedAtFinish } from '../../server/modules/germination/count-rules';
+} from '#server/modules/germination/tests.csv';
+import { uncountedAtFinish } from '#server/modules/germination/count-rules';
 
 // Sources cited below:
 // - RFC 4180 §2 [read]: records end with CRLF (rule 1); fields holding commas, double quotes or

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { defaultSowingDate } from '../../src/lib/sowing-date';
-import { seedAgeYears } from '../../shared/seed-age';
-import { wilsonScoreInterval as wilsonInterval } from '../../shared/wilson';
+import { defaultSowingDate } from '#src/lib/sowing-date';
+import { seedAgeYears } from '#shared/seed-age';
+import { wilsonScoreInterval as wilsonInterval } from '#shared/wilson';
 
 describe('the shared Wilson interval (the decline chart’s whiskers in the browser)', () => {
   it.each([

@@ -6,16 +6,16 @@ import {
   passwordResetConfirmBodySchema,
   registerBodySchema,
   userSchema,
-} from '../../../shared/schemas/accounts';
+} from '#shared/schemas/accounts';
 import { z } from 'zod';
-import { DAY_MS } from '../../../shared/dates';
-import { requireAuth } from '../../auth/session.middleware';
-import { SESSION_COOKIE, SESSION_DAYS } from '../../auth/tokens';
-import { parse } from '../../http/errors';
-import { limitPerIpAndEmail } from '../../http/rate-limit';
-import { respond } from '../../http/respond';
+import { DAY_MS } from '#shared/dates';
+import { requireAuth } from '#server/auth/session.middleware';
+import { SESSION_COOKIE, SESSION_DAYS } from '#server/auth/tokens';
+import { parse } from '#server/http/errors';
+import { limitPerIpAndEmail } from '#server/http/rate-limit';
+import { respond } from '#server/http/respond';
 import type { AuthService } from './auth.service';
-import { authOf } from '../../http/request-context';
+import { authOf } from '#server/http/request-context';
 
 const userResponse = z.object({ user: userSchema });
 const FIFTEEN_MINUTES = 15 * 60 * 1000;

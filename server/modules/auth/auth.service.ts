@@ -1,11 +1,11 @@
-import { DAY_MS } from '../../../shared/dates';
-import type { LoginBody, RegisterBody } from '../../../shared/schemas/accounts';
-import { argon2idHasher, lazyDecoyHash, type PasswordHasher } from '../../auth/password';
-import { SESSION_DAYS, hashLinkToken, newLinkToken, type SessionSigner } from '../../auth/tokens';
-import type { Clock } from '../../clock';
-import type { Db } from '../../db/database';
-import { AppError, conflict, unauthorized } from '../../http/errors';
-import type { Mailer } from '../../mail/mailer';
+import { DAY_MS } from '#shared/dates';
+import type { LoginBody, RegisterBody } from '#shared/schemas/accounts';
+import { argon2idHasher, lazyDecoyHash, type PasswordHasher } from '#server/auth/password';
+import { SESSION_DAYS, hashLinkToken, newLinkToken, type SessionSigner } from '#server/auth/tokens';
+import type { Clock } from '#server/clock';
+import type { Db } from '#server/db/database';
+import { AppError, conflict, unauthorized } from '#server/http/errors';
+import type { Mailer } from '#server/mail/mailer';
 import * as users from './users.repository';
 
 const RESET_VALID_MS = 60 * 60 * 1000;

@@ -1,5 +1,5 @@
 import { sql } from 'kysely';
-import type { DbOrTx } from '../../db/database';
+import type { DbOrTx } from '#server/db/database';
 
 export function findUserByEmail(db: DbOrTx, email: string) {
   return db

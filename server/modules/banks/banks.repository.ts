@@ -1,5 +1,5 @@
-import type { DbOrTx } from '../../db/database';
-import type { BankUpdate, Role } from '../../db/schema';
+import type { DbOrTx } from '#server/db/database';
+import type { BankUpdate, Role } from '#server/db/schema';
 
 export function insertBank(
   db: DbOrTx,

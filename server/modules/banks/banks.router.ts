@@ -10,14 +10,14 @@ import {
   membersResponseSchema,
   updateBankBodySchema,
   updateMemberBodySchema,
-} from '../../../shared/schemas/banks';
-import { idSchema } from '../../../shared/schemas/common';
-import { requireRole } from '../../auth/bank-access';
-import { notFound, parse } from '../../http/errors';
-import { respond } from '../../http/respond';
+} from '#shared/schemas/banks';
+import { idSchema } from '#shared/schemas/common';
+import { requireRole } from '#server/auth/bank-access';
+import { notFound, parse } from '#server/http/errors';
+import { respond } from '#server/http/respond';
 import type { InvitationsService } from '../invitations/invitations.service';
 import type { BanksService } from './banks.service';
-import { authOf, bankOf } from '../../http/request-context';
+import { authOf, bankOf } from '#server/http/request-context';
 
 const userIdParam = z.object({ userId: idSchema });
 const invitationIdParam = z.object({ invitationId: idSchema });

@@ -1,9 +1,9 @@
-import type { Role } from '../../../shared/schemas/accounts';
-import type { CreateBankBody, UpdateBankBody } from '../../../shared/schemas/banks';
-import type { Db } from '../../db/database';
-import type { Bank, BankUpdate } from '../../db/schema';
-import { conflict, notFound } from '../../http/errors';
-import type { Clock } from '../../clock';
+import type { Role } from '#shared/schemas/accounts';
+import type { CreateBankBody, UpdateBankBody } from '#shared/schemas/banks';
+import type { Db } from '#server/db/database';
+import type { Bank, BankUpdate } from '#server/db/schema';
+import { conflict, notFound } from '#server/http/errors';
+import type { Clock } from '#server/clock';
 import * as repo from './banks.repository';
 
 export function toBankDto(bank: Bank) {

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { readOutbox } from '../../mail/outbox';
+import { readOutbox } from '#server/mail/outbox';
 
 /** Development-only routes; never mounted in production. */
 export function devRouter(outboxDir: string): Router {

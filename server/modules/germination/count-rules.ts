@@ -1,5 +1,5 @@
-import { seedlingsAboveSown } from '../../../shared/count-rules';
-import type { CountsBody } from '../../../shared/schemas/germination';
+import { seedlingsAboveSown } from '#shared/count-rules';
+import type { CountsBody } from '#shared/schemas/germination';
 
 export interface CountProblem {
   /** The body path it is about, as in the error's `fields`: `trays.<index>.cumulative` or `.trayId`. */

@@ -1,7 +1,7 @@
 import { sql, type Insertable, type Updateable } from 'kysely';
-import type { DbOrTx } from '../../db/database';
-import type { GerminationTestTable, TestTrayTable } from '../../db/schema';
-import type { TestSummary } from '../../stats';
+import type { DbOrTx } from '#server/db/database';
+import type { GerminationTestTable, TestTrayTable } from '#server/db/schema';
+import type { TestSummary } from '#server/stats/index';
 
 /** A bank's tests, each with its lot's code, variety and species. */
 function testsWithLot(on: DbOrTx, bankId: string) {

@@ -8,14 +8,14 @@ import {
   testSetAsideBodySchema,
   trayUpdateBodySchema,
   updateTestBodySchema,
-} from '../../../shared/schemas/germination';
-import { isoDateSchema } from '../../../shared/schemas/common';
-import { requireRole } from '../../auth/bank-access';
-import { notFound, parse } from '../../http/errors';
-import { idParam } from '../../http/params';
-import { respond } from '../../http/respond';
+} from '#shared/schemas/germination';
+import { isoDateSchema } from '#shared/schemas/common';
+import { requireRole } from '#server/auth/bank-access';
+import { notFound, parse } from '#server/http/errors';
+import { idParam } from '#server/http/params';
+import { respond } from '#server/http/respond';
 import type { GerminationService } from './germination.service';
-import { authOf, bankOf } from '../../http/request-context';
+import { authOf, bankOf } from '#server/http/request-context';
 
 const detailQuery = z.object({ interval: z.enum(['wilson', 'clopper-pearson']).default('wilson') });
 

@@ -7,13 +7,13 @@ import {
   type FinishBody,
   type TestDetail,
   type updateTestBodySchema,
-} from '../../../shared/schemas/germination';
-import { addDays, daysBetween } from '../../../shared/dates';
-import { bankToday, type Clock } from '../../clock';
-import type { Db, DbOrTx } from '../../db/database';
-import type { GerminationTestTable, TestTrayTable } from '../../db/schema';
-import { AppError, conflict, notFound, unprocessable } from '../../http/errors';
-import { clopperPearsonInterval, type IntervalMethod } from '../../stats';
+} from '#shared/schemas/germination';
+import { addDays, daysBetween } from '#shared/dates';
+import { bankToday, type Clock } from '#server/clock';
+import type { Db, DbOrTx } from '#server/db/database';
+import type { GerminationTestTable, TestTrayTable } from '#server/db/schema';
+import { AppError, conflict, notFound, unprocessable } from '#server/http/errors';
+import { clopperPearsonInterval, type IntervalMethod } from '#server/stats/index';
 import { findSpecies } from '../species/species.service';
 import { insertMovement, lockLot, stockOf, updateLot } from '../lots/lots.repository';
 import * as repo from './germination.repository';

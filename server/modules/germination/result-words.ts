@@ -1,5 +1,5 @@
-import { dayInWords } from '../../../shared/day-words';
-import type { TestSummary } from '../../stats';
+import { dayInWords } from '#shared/day-words';
+import type { TestSummary } from '#server/stats/index';
 
 // The words of a test's result, from its stored summary. One definition of a seedling throughout:
 // the counts are of normal seedlings (sound root and shoot), as the seed-testing rules count them;

@@ -2,9 +2,9 @@
 // test's trays and counts, and stored on the test in the same transaction as every write that
 // changes them. Every reader — test page, lot page, ranking, viability model, overview, labels,
 // reminders, CSV export — reads the stored result; nothing re-aggregates counts by its own rules.
-import { daysBetween } from '../../../shared/dates';
-import type { DbOrTx } from '../../db/database';
-import { summarizeTest, type TestSummary } from '../../stats';
+import { daysBetween } from '#shared/dates';
+import type { DbOrTx } from '#server/db/database';
+import { summarizeTest, type TestSummary } from '#server/stats/index';
 import * as repo from './germination.repository';
 
 /**

@@ -1,11 +1,11 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { testsImportPreviewSchema } from '../../../shared/schemas/germination';
-import { requireRole } from '../../auth/bank-access';
-import { csvFileText, csvUpload } from '../../csv/csv-upload';
-import { respond } from '../../http/respond';
+import { testsImportPreviewSchema } from '#shared/schemas/germination';
+import { requireRole } from '#server/auth/bank-access';
+import { csvFileText, csvUpload } from '#server/csv/csv-upload';
+import { respond } from '#server/http/respond';
 import type { TestsCsvService } from './tests-csv.service';
-import { authOf, bankOf } from '../../http/request-context';
+import { authOf, bankOf } from '#server/http/request-context';
 
 const importedSchema = z.object({ imported: z.number() });
 

@@ -6,10 +6,10 @@
  * a lot's seeds on hand (logged or imported with the lot) already reflect the seeds those tests
  * used. Deleting an imported test later gives no seeds back for the same reason.
  */
-import { storedResultSchema, type TestsImportPreview } from '../../../shared/schemas/germination';
-import { bankToday, type Clock } from '../../clock';
-import type { Db, DbOrTx } from '../../db/database';
-import { invalidCsv } from '../../http/errors';
+import { storedResultSchema, type TestsImportPreview } from '#shared/schemas/germination';
+import { bankToday, type Clock } from '#server/clock';
+import type { Db, DbOrTx } from '#server/db/database';
+import { invalidCsv } from '#server/http/errors';
 import * as repo from './germination.repository';
 import { testFields, trayFields } from './germination.service';
 import { RESULT_VERSION, storeResults } from './test-results';

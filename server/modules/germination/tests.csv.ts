@@ -38,7 +38,7 @@ import {
   pretreatmentSchema,
   setAsideReasonSchema,
   type CreateTestBody,
-} from '../../../shared/schemas/germination';
+} from '#shared/schemas/germination';
 import {
   blankToNull,
   choice,
@@ -47,7 +47,7 @@ import {
   optionalText,
   requiredText,
   wholeNumber,
-} from '../../csv/csv-cells';
+} from '#server/csv/csv-cells';
 import {
   columnOf,
   numberCell,
@@ -57,7 +57,7 @@ import {
   writeCsv,
   type CsvError,
   type CsvLayout,
-} from '../../csv/csv-file';
+} from '#server/csv/csv-file';
 import { countProblems, finishProblem, startBeforeHarvest, uncountedAtFinish } from './count-rules';
 
 /** What a test is: every record of a test repeats these. */

@@ -1,5 +1,5 @@
 import { sql } from 'kysely';
-import type { DbOrTx } from '../../db/database';
+import type { DbOrTx } from '#server/db/database';
 
 /** The cheapest round trip to the database. */
 export const selectOne = (db: DbOrTx) => sql`select 1`.execute(db);

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import type { AppDeps } from '../../app';
+import type { AppDeps } from '#server/app';
 import { healthOf } from './health.service';
 
 export function healthRouter(deps: AppDeps): Router {

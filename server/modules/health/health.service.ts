@@ -1,4 +1,4 @@
-import type { AppDeps } from '../../app';
+import type { AppDeps } from '#server/app';
 import { selectOne } from './health.repository';
 
 async function databaseUp(deps: AppDeps): Promise<boolean> {

@@ -1,6 +1,6 @@
 import { sql, type Insertable } from 'kysely';
-import type { DbOrTx } from '../../db/database';
-import type { InvitationTable } from '../../db/schema';
+import type { DbOrTx } from '#server/db/database';
+import type { InvitationTable } from '#server/db/schema';
 
 /** The bank's invitations still open at `now`, newest first. */
 export const listPending = (db: DbOrTx, bankId: string, now: Date) =>

@@ -1,10 +1,10 @@
 import { Router } from 'express';
-import { acceptInvitationBodySchema, acceptInvitationResponseSchema } from '../../../shared/schemas/banks';
-import { requireAuth } from '../../auth/session.middleware';
-import { parse } from '../../http/errors';
-import { respond } from '../../http/respond';
+import { acceptInvitationBodySchema, acceptInvitationResponseSchema } from '#shared/schemas/banks';
+import { requireAuth } from '#server/auth/session.middleware';
+import { parse } from '#server/http/errors';
+import { respond } from '#server/http/respond';
 import type { InvitationsService } from './invitations.service';
-import { authOf } from '../../http/request-context';
+import { authOf } from '#server/http/request-context';
 
 export function invitationsRouter(invitations: InvitationsService): Router {
   const router = Router();

@@ -1,10 +1,10 @@
-import { DAY_MS } from '../../../shared/dates';
-import type { CreateInvitationBody } from '../../../shared/schemas/banks';
-import { hashLinkToken, newLinkToken } from '../../auth/tokens';
-import type { Clock } from '../../clock';
-import type { Db } from '../../db/database';
-import { AppError, conflict, notFound } from '../../http/errors';
-import type { Mailer } from '../../mail/mailer';
+import { DAY_MS } from '#shared/dates';
+import type { CreateInvitationBody } from '#shared/schemas/banks';
+import { hashLinkToken, newLinkToken } from '#server/auth/tokens';
+import type { Clock } from '#server/clock';
+import type { Db } from '#server/db/database';
+import { AppError, conflict, notFound } from '#server/http/errors';
+import type { Mailer } from '#server/mail/mailer';
 import { bankName as findBankName, insertMembership } from '../banks/banks.repository';
 import * as repo from './invitations.repository';
 

@@ -1,8 +1,8 @@
 import { Router } from 'express';
-import { requireRole } from '../../auth/bank-access';
-import { idParam } from '../../http/params';
+import { requireRole } from '#server/auth/bank-access';
+import { idParam } from '#server/http/params';
 import type { LabelsService } from './labels.service';
-import { bankOf } from '../../http/request-context';
+import { bankOf } from '#server/http/request-context';
 
 /**
  * The label may carry any text a member typed, so it is served with a policy that lets it load

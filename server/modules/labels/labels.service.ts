@@ -1,5 +1,5 @@
-import type { Db } from '../../db/database';
-import { notFound } from '../../http/errors';
+import type { Db } from '#server/db/database';
+import { notFound } from '#server/http/errors';
 import { lotsQuery, toLotDto } from '../lots/lots.repository';
 import { labelFontCss } from './label-font';
 import { renderLabelSvg, type LabelContent } from './label-svg';

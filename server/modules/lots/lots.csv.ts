@@ -27,7 +27,7 @@ import {
   requiredText,
   wholeNumber,
   yesNo,
-} from '../../csv/csv-cells';
+} from '#server/csv/csv-cells';
 import {
   columnOf,
   numberCell,
@@ -39,13 +39,8 @@ import {
   yesNoCell,
   type CsvError,
   type CsvLayout,
-} from '../../csv/csv-file';
-import {
-  lotCodeSchema,
-  lotStatusSchema,
-  originSchema,
-  storagePlaceSchema,
-} from '../../../shared/schemas/lots';
+} from '#server/csv/csv-file';
+import { lotCodeSchema, lotStatusSchema, originSchema, storagePlaceSchema } from '#shared/schemas/lots';
 
 export const LOT_CSV_COLUMNS = [
   'code',

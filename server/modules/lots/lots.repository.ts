@@ -1,6 +1,6 @@
 import { CompiledQuery, sql, type Insertable, type Updateable } from 'kysely';
-import type { DbOrTx } from '../../db/database';
-import type { LotStatus, LotTable, StockMovementTable } from '../../db/schema';
+import type { DbOrTx } from '#server/db/database';
+import type { LotStatus, LotTable, StockMovementTable } from '#server/db/schema';
 
 const num = (v: string | null) => (v === null ? null : Number(v));
 

@@ -7,16 +7,16 @@ import {
   movementSchema,
   stockBodySchema,
   updateLotBodySchema,
-} from '../../../shared/schemas/lots';
-import { requireRole } from '../../auth/bank-access';
-import type { SpeciesDto } from '../../../shared/schemas/species';
-import { csvFileText, csvUpload } from '../../csv/csv-upload';
-import { invalidCsv, parse } from '../../http/errors';
+} from '#shared/schemas/lots';
+import { requireRole } from '#server/auth/bank-access';
+import type { SpeciesDto } from '#shared/schemas/species';
+import { csvFileText, csvUpload } from '#server/csv/csv-upload';
+import { invalidCsv, parse } from '#server/http/errors';
 import { lotsToCsv, parseLotsCsv } from './lots.csv';
-import { idParam } from '../../http/params';
-import { respond } from '../../http/respond';
+import { idParam } from '#server/http/params';
+import { respond } from '#server/http/respond';
 import type { LotsService } from './lots.service';
-import { authOf, bankOf } from '../../http/request-context';
+import { authOf, bankOf } from '#server/http/request-context';
 
 const one = z.object({ lot: lotSchema });
 const list = z.object({ items: z.array(lotSchema), nextCursor: z.string().nullable() });

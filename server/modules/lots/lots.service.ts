@@ -1,9 +1,9 @@
-import type { CreateLotBody, StockBody, UpdateLotBody } from '../../../shared/schemas/lots';
-import { bankToday, type Clock } from '../../clock';
-import type { Db, DbOrTx } from '../../db/database';
-import type { LotStatus, LotTable } from '../../db/schema';
+import type { CreateLotBody, StockBody, UpdateLotBody } from '#shared/schemas/lots';
+import { bankToday, type Clock } from '#server/clock';
+import type { Db, DbOrTx } from '#server/db/database';
+import type { LotStatus, LotTable } from '#server/db/schema';
 import type { LotCsvRow, ParsedLotCsvRow } from './lots.csv';
-import { AppError, badRequest, conflict, invalidCsv, notFound, unprocessable } from '../../http/errors';
+import { AppError, badRequest, conflict, invalidCsv, notFound, unprocessable } from '#server/http/errors';
 import { requireSpecies } from '../species/species.service';
 import { codePrefix, nextCode } from './lot-code';
 import * as repo from './lots.repository';

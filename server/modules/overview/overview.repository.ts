@@ -1,5 +1,5 @@
 import { sql } from 'kysely';
-import type { DbOrTx } from '../../db/database';
+import type { DbOrTx } from '#server/db/database';
 
 /** The bank's running tests with their last count, the result so far and the trays still counted. */
 export const runningTestsWithTrays = (db: DbOrTx, bankId: string) =>

@@ -1,15 +1,15 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { isoDateSchema } from '../../../shared/schemas/common';
-import { overviewSchema } from '../../../shared/schemas/overview';
-import { requireRole } from '../../auth/bank-access';
-import { bankToday, type Clock } from '../../clock';
-import type { Db } from '../../db/database';
-import { parse } from '../../http/errors';
-import { respond } from '../../http/respond';
+import { isoDateSchema } from '#shared/schemas/common';
+import { overviewSchema } from '#shared/schemas/overview';
+import { requireRole } from '#server/auth/bank-access';
+import { bankToday, type Clock } from '#server/clock';
+import type { Db } from '#server/db/database';
+import { parse } from '#server/http/errors';
+import { respond } from '#server/http/respond';
 import type { ViabilityService } from '../viability/viability.service';
 import { createOverviewService } from './overview.service';
-import { bankOf } from '../../http/request-context';
+import { bankOf } from '#server/http/request-context';
 
 /** GET /api/banks/:bankId/overview — what needs doing this week. */
 export function overviewRoutes(deps: { db: Db; clock: Clock; viability: ViabilityService }): Router {

@@ -1,5 +1,5 @@
-import { addDays, daysBetween } from '../../../shared/dates';
-import type { Db } from '../../db/database';
+import { addDays, daysBetween } from '#shared/dates';
+import type { Db } from '#server/db/database';
 import { listForOverview } from '../plan/plan.repository';
 import { checkDays } from '../reminders/reminders.service';
 import { listSpecies } from '../species/species.service';

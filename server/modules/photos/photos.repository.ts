@@ -1,6 +1,6 @@
 import type { Insertable } from 'kysely';
-import type { DbOrTx } from '../../db/database';
-import type { PhotoSubject, PhotoTable } from '../../db/schema';
+import type { DbOrTx } from '#server/db/database';
+import type { PhotoSubject, PhotoTable } from '#server/db/schema';
 
 const SUBJECT_TABLE = { lot: 'lots', plant: 'parent_plants' } as const;
 

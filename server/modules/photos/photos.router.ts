@@ -1,14 +1,14 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { photoSchema } from '../../../shared/schemas/lots';
-import { requireRole } from '../../auth/bank-access';
-import { requireAuth } from '../../auth/session.middleware';
-import { parse } from '../../http/errors';
-import { idParam } from '../../http/params';
-import { respond } from '../../http/respond';
-import { singlePhoto } from '../../photos/upload';
+import { photoSchema } from '#shared/schemas/lots';
+import { requireRole } from '#server/auth/bank-access';
+import { requireAuth } from '#server/auth/session.middleware';
+import { parse } from '#server/http/errors';
+import { idParam } from '#server/http/params';
+import { respond } from '#server/http/respond';
+import { singlePhoto } from '#server/photos/upload';
 import type { PhotosService } from './photos.service';
-import { authOf, bankOf } from '../../http/request-context';
+import { authOf, bankOf } from '#server/http/request-context';
 
 const one = z.object({ photo: photoSchema });
 

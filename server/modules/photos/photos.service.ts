@@ -1,13 +1,13 @@
 import crypto from 'node:crypto';
 import type { Readable } from 'node:stream';
 import type { Logger } from 'pino';
-import type { PhotoDto } from '../../../shared/schemas/lots';
-import type { Db, DbOrTx } from '../../db/database';
-import type { PhotoSubject } from '../../db/schema';
-import { AppError, notFound } from '../../http/errors';
-import { processPhoto } from '../../photos/process-photo';
-import { removePhotoObjects, storeProcessedPhoto } from '../../photos/store-photo';
-import type { ObjectStore } from '../../storage/object-store';
+import type { PhotoDto } from '#shared/schemas/lots';
+import type { Db, DbOrTx } from '#server/db/database';
+import type { PhotoSubject } from '#server/db/schema';
+import { AppError, notFound } from '#server/http/errors';
+import { processPhoto } from '#server/photos/process-photo';
+import { removePhotoObjects, storeProcessedPhoto } from '#server/photos/store-photo';
+import type { ObjectStore } from '#server/storage/object-store';
 import * as repo from './photos.repository';
 
 function toDto(row: { id: string; width: number; height: number; created_at: Date }): PhotoDto {

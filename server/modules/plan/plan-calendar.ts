@@ -1,6 +1,6 @@
 import { createEvents, type EventAttributes } from 'ics';
-import { addDays } from '../../../shared/dates';
-import type { PlanEntryDto } from '../../../shared/schemas/plan';
+import { addDays } from '#shared/dates';
+import type { PlanEntryDto } from '#shared/schemas/plan';
 
 const ymd = (date: string): [number, number, number] => {
   const [y, m, d] = date.split('-').map(Number) as [number, number, number];

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { comingSeason } from '../../../shared/plan-dates';
+import { comingSeason } from '#shared/plan-dates';
 import {
   createPlanBodySchema,
   planEntrySchema,
@@ -8,16 +8,16 @@ import {
   seasonSchema,
   sownBodySchema,
   updatePlanBodySchema,
-} from '../../../shared/schemas/plan';
-import { requireRole } from '../../auth/bank-access';
-import { bankToday, type Clock } from '../../clock';
-import type { Db } from '../../db/database';
-import { parse } from '../../http/errors';
-import { idParam } from '../../http/params';
-import { respond } from '../../http/respond';
+} from '#shared/schemas/plan';
+import { requireRole } from '#server/auth/bank-access';
+import { bankToday, type Clock } from '#server/clock';
+import type { Db } from '#server/db/database';
+import { parse } from '#server/http/errors';
+import { idParam } from '#server/http/params';
+import { respond } from '#server/http/respond';
 import type { ViabilityService } from '../viability/viability.service';
 import type { PlanService } from './plan.service';
-import { authOf, bankOf } from '../../http/request-context';
+import { authOf, bankOf } from '#server/http/request-context';
 
 const one = z.object({ entry: planEntrySchema });
 

@@ -1,9 +1,9 @@
 import type { z } from 'zod';
-import { planDates, PlanDateError } from '../../../shared/plan-dates';
-import type { CreatePlanBody, PlanEntryDto, updatePlanBodySchema } from '../../../shared/schemas/plan';
-import { bankToday, type Clock } from '../../clock';
-import type { Db } from '../../db/database';
-import { AppError, badRequest, conflict, notFound, unprocessable } from '../../http/errors';
+import { planDates, PlanDateError } from '#shared/plan-dates';
+import type { CreatePlanBody, PlanEntryDto, updatePlanBodySchema } from '#shared/schemas/plan';
+import { bankToday, type Clock } from '#server/clock';
+import type { Db } from '#server/db/database';
+import { AppError, badRequest, conflict, notFound, unprocessable } from '#server/http/errors';
 import { bankName } from '../banks/banks.repository';
 import { insertMovement, lockLot, stockOf, updateLot } from '../lots/lots.repository';
 import { findSpecies } from '../species/species.service';

@@ -1,4 +1,4 @@
-import type { SpeciesTraits } from '../../../shared/schemas/species';
+import type { SpeciesTraits } from '#shared/schemas/species';
 
 // Seed-saving guidance, common practice among seed savers (no single published source).
 export const HYBRID_CAUTION =

@@ -1,6 +1,6 @@
 import type { Insertable, Updateable } from 'kysely';
-import type { DbOrTx } from '../../db/database';
-import type { ParentPlantTable } from '../../db/schema';
+import type { DbOrTx } from '#server/db/database';
+import type { ParentPlantTable } from '#server/db/schema';
 
 const plantsOf = (db: DbOrTx, bankId: string) =>
   db

@@ -1,16 +1,12 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import {
-  createPlantBodySchema,
-  parentPlantSchema,
-  updatePlantBodySchema,
-} from '../../../shared/schemas/lots';
-import { requireRole } from '../../auth/bank-access';
-import { parse } from '../../http/errors';
-import { idParam } from '../../http/params';
-import { respond } from '../../http/respond';
+import { createPlantBodySchema, parentPlantSchema, updatePlantBodySchema } from '#shared/schemas/lots';
+import { requireRole } from '#server/auth/bank-access';
+import { parse } from '#server/http/errors';
+import { idParam } from '#server/http/params';
+import { respond } from '#server/http/respond';
 import type { PlantsService } from './plants.service';
-import { bankOf } from '../../http/request-context';
+import { bankOf } from '#server/http/request-context';
 
 const one = z.object({ plant: parentPlantSchema });
 

@@ -1,14 +1,14 @@
 import type { z } from 'zod';
-import type { createPlantBodySchema, updatePlantBodySchema } from '../../../shared/schemas/lots';
-import type { Clock } from '../../clock';
-import type { Db, DbOrTx } from '../../db/database';
-import type { ParentPlantTable } from '../../db/schema';
-import { notFound } from '../../http/errors';
+import type { createPlantBodySchema, updatePlantBodySchema } from '#shared/schemas/lots';
+import type { Clock } from '#server/clock';
+import type { Db, DbOrTx } from '#server/db/database';
+import type { ParentPlantTable } from '#server/db/schema';
+import { notFound } from '#server/http/errors';
 import { listSpecies, requireSpecies } from '../species/species.service';
 import { plantCautions } from './plant-cautions';
 import * as repo from './plants.repository';
 import type { Updateable } from 'kysely';
-import type { PhotoDto } from '../../../shared/schemas/lots';
+import type { PhotoDto } from '#shared/schemas/lots';
 
 type CreatePlant = z.infer<typeof createPlantBodySchema>;
 type UpdatePlant = z.infer<typeof updatePlantBodySchema>;

@@ -1,6 +1,6 @@
 import { sql, type Insertable } from 'kysely';
-import type { DbOrTx } from '../../db/database';
-import type { ReminderKind, ReminderTable } from '../../db/schema';
+import type { DbOrTx } from '#server/db/database';
+import type { ReminderKind, ReminderTable } from '#server/db/schema';
 
 type PrefColumn = 'remind_sowing' | 'remind_checks' | 'remind_retest' | 'remind_digest';
 const PREF_OF: Record<ReminderKind, PrefColumn> = {

@@ -1,12 +1,12 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { reminderPrefsBodySchema, reminderPrefsSchema } from '../../../shared/schemas/reminders';
-import { requireRole } from '../../auth/bank-access';
-import type { Db } from '../../db/database';
-import { parse } from '../../http/errors';
-import { respond } from '../../http/respond';
+import { reminderPrefsBodySchema, reminderPrefsSchema } from '#shared/schemas/reminders';
+import { requireRole } from '#server/auth/bank-access';
+import type { Db } from '#server/db/database';
+import { parse } from '#server/http/errors';
+import { respond } from '#server/http/respond';
 import { reminderPreferences, setReminderPreferences } from './reminders.service';
-import { authOf, bankOf } from '../../http/request-context';
+import { authOf, bankOf } from '#server/http/request-context';
 
 const one = z.object({ preferences: reminderPrefsSchema });
 

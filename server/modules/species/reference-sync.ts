@@ -1,11 +1,6 @@
-import {
-  SOURCES,
-  SPECIES_REFERENCE,
-  type SpeciesReference,
-  type TraitKey,
-} from '../../../shared/species-reference';
-import type { SpeciesTraits, TraitName } from '../../../shared/schemas/species';
-import type { DbOrTx } from '../../db/database';
+import { SOURCES, SPECIES_REFERENCE, type SpeciesReference, type TraitKey } from '#shared/species-reference';
+import type { SpeciesTraits, TraitName } from '#shared/schemas/species';
+import type { DbOrTx } from '#server/db/database';
 import { upsertReferenceSpecies } from './species.repository';
 
 /** Which reference trait key carries the source of each of Hilum's computed traits. */

@@ -1,4 +1,4 @@
-import type { DbOrTx } from '../../db/database';
+import type { DbOrTx } from '#server/db/database';
 
 /** Reference species and the bank's own, with the bank's overrides beside them. */
 function visibleSpecies(db: DbOrTx, bankId: string) {

@@ -5,13 +5,13 @@ import {
   overrideTraitsBodySchema,
   speciesListResponseSchema,
   speciesSchema,
-} from '../../../shared/schemas/species';
-import { requireRole } from '../../auth/bank-access';
-import { parse } from '../../http/errors';
-import { respond } from '../../http/respond';
-import { idParam } from '../../http/params';
+} from '#shared/schemas/species';
+import { requireRole } from '#server/auth/bank-access';
+import { parse } from '#server/http/errors';
+import { respond } from '#server/http/respond';
+import { idParam } from '#server/http/params';
 import type { SpeciesService } from './species.service';
-import { bankOf } from '../../http/request-context';
+import { bankOf } from '#server/http/request-context';
 
 const one = z.object({ species: speciesSchema });
 

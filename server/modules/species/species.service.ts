@@ -4,9 +4,9 @@ import {
   type CreateSpeciesBody,
   type SpeciesDto,
   type SpeciesTraits,
-} from '../../../shared/schemas/species';
-import type { Db, DbOrTx } from '../../db/database';
-import { badRequest, conflict, notFound } from '../../http/errors';
+} from '#shared/schemas/species';
+import type { Db, DbOrTx } from '#server/db/database';
+import { badRequest, conflict, notFound } from '#server/http/errors';
 import * as repo from './species.repository';
 
 interface SpeciesRowWithOverride {

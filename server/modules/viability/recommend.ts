@@ -14,9 +14,9 @@
  *   5. sow        — the band's low end reaches the threshold;
  *   6. sow-thick  — otherwise: sow more, so many seeds per plant.
  */
-import { dayInWords } from '../../../shared/day-words';
-import { addDays, frostDateIn } from '../../../shared/dates';
-import type { RecommendationValue } from '../../../shared/schemas/viability';
+import { dayInWords } from '#shared/day-words';
+import { addDays, frostDateIn } from '#shared/dates';
+import type { RecommendationValue } from '#shared/schemas/viability';
 
 /** 'test-first' | 'sow' | 'sow-thick' | 'retest' | 'grow-out' | 'retire' (the API's enum, one place). */
 export type Recommendation = RecommendationValue;

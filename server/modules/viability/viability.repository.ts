@@ -1,5 +1,5 @@
 import { sql } from 'kysely';
-import type { DbOrTx } from '../../db/database';
+import type { DbOrTx } from '#server/db/database';
 
 /** A test as the model and the ranking read it: its stored result (germination/test-results.ts). */
 export interface TestAggregate {

@@ -1,17 +1,17 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { isoDateSchema } from '../../../shared/schemas/common';
+import { isoDateSchema } from '#shared/schemas/common';
 import {
   rankingItemSchema,
   seedsToSowResponseSchema,
   viabilityResponseSchema,
-} from '../../../shared/schemas/viability';
-import { requireRole } from '../../auth/bank-access';
-import { parse } from '../../http/errors';
-import { idParam } from '../../http/params';
-import { respond, respondRendered, rowRenderer } from '../../http/respond';
+} from '#shared/schemas/viability';
+import { requireRole } from '#server/auth/bank-access';
+import { parse } from '#server/http/errors';
+import { idParam } from '#server/http/params';
+import { respond, respondRendered, rowRenderer } from '#server/http/respond';
 import type { ViabilityService } from './viability.service';
-import { bankOf } from '../../http/request-context';
+import { bankOf } from '#server/http/request-context';
 
 export function viabilityRoutes(service: ViabilityService) {
   // Without `on`, advice is for today on the bank's calendar (its time zone), as everywhere.

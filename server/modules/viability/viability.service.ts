@@ -1,12 +1,12 @@
-import { addYears, daysBetween } from '../../../shared/dates';
-import { dayInWords } from '../../../shared/day-words';
-import { YEAR_DAYS, seedAgeYears } from '../../../shared/seed-age';
-import type { SpeciesDto } from '../../../shared/schemas/species';
-import type { RankingItem as RankingRow } from '../../../shared/schemas/viability';
-import { systemClock, todayInZone, type Clock } from '../../clock';
-import type { Db } from '../../db/database';
-import { notFound, unprocessable } from '../../http/errors';
-import { seedsToSowPredictive, temperatureFactor } from '../../stats';
+import { addYears, daysBetween } from '#shared/dates';
+import { dayInWords } from '#shared/day-words';
+import { YEAR_DAYS, seedAgeYears } from '#shared/seed-age';
+import type { SpeciesDto } from '#shared/schemas/species';
+import type { RankingItem as RankingRow } from '#shared/schemas/viability';
+import { systemClock, todayInZone, type Clock } from '#server/clock';
+import type { Db } from '#server/db/database';
+import { notFound, unprocessable } from '#server/http/errors';
+import { seedsToSowPredictive, temperatureFactor } from '#server/stats/index';
 import {
   fitSpeciesModel,
   monitoringIntervalYears,
@@ -14,7 +14,7 @@ import {
   viabilityDistribution,
   type LotModel,
   type ModelTest,
-} from '../../stats/viability-model';
+} from '#server/stats/viability-model';
 import { listSpecies } from '../species/species.service';
 import { lotsForDecisions, type DecisionLot } from '../lots/lots.repository';
 import * as repo from './viability.repository';

@@ -1,10 +1,10 @@
 import { Link } from 'react-router-dom';
-import { buttonStyles } from '../../components/ui/button';
-import { Card } from '../../components/ui/card';
-import { EmptyState } from '../../components/ui/empty-state';
-import { PageHeader } from '../../components/ui/page-header';
-import { paths } from '../../config/paths';
-import { useMe } from '../../features/auth/api/get-me';
+import { buttonStyles } from '#src/components/ui/button';
+import { Card } from '#src/components/ui/card';
+import { EmptyState } from '#src/components/ui/empty-state';
+import { PageHeader } from '#src/components/ui/page-header';
+import { paths } from '#src/config/paths';
+import { useMe } from '#src/features/auth/api/get-me';
 
 const upcoming: ReadonlyArray<{ title: string; text: string }> = [
   {

@@ -1,8 +1,8 @@
 import { Link } from 'react-router-dom';
-import { buttonStyles } from '../../components/ui/button';
-import { EmptyState } from '../../components/ui/empty-state';
-import { PageHeader } from '../../components/ui/page-header';
-import { paths } from '../../config/paths';
+import { buttonStyles } from '#src/components/ui/button';
+import { EmptyState } from '#src/components/ui/empty-state';
+import { PageHeader } from '#src/components/ui/page-header';
+import { paths } from '#src/config/paths';
 
 export function NotFoundContent() {
   return (

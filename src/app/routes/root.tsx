@@ -1,10 +1,10 @@
 import { useState } from 'react';
 import { Outlet, ScrollRestoration, useMatches, useNavigate, useNavigation } from 'react-router-dom';
-import { AppShell } from '../../components/layout/app-shell';
-import { paths } from '../../config/paths';
-import { useMe } from '../../features/auth/api/get-me';
-import { useLogout } from '../../features/auth/api/logout';
-import { isNonProduction, useHealth } from '../../features/health/api/get-health';
+import { AppShell } from '#src/components/layout/app-shell';
+import { paths } from '#src/config/paths';
+import { useMe } from '#src/features/auth/api/get-me';
+import { useLogout } from '#src/features/auth/api/logout';
+import { isNonProduction, useHealth } from '#src/features/health/api/get-health';
 import type { SignInState } from '../session';
 
 /** The bank whose pages are open, from the deepest route that names one. */

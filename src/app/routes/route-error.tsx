@@ -1,6 +1,6 @@
 import { isRouteErrorResponse, useRouteError } from 'react-router-dom';
-import { describeError, ErrorFallback } from '../../components/errors/error-fallback';
-import { isApiError } from '../../lib/api-client';
+import { describeError, ErrorFallback } from '#src/components/errors/error-fallback';
+import { isApiError } from '#src/lib/api-client';
 import { NotFoundContent } from './not-found';
 
 export interface RouteErrorProps {

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Link, NavLink } from 'react-router-dom';
-import { paths } from '../../config/paths';
-import { cn } from '../../lib/cn';
+import { paths } from '#src/config/paths';
+import { cn } from '#src/lib/cn';
 import { AccountMenu, type AccountMenuProps } from './account-menu';
 import { BankSwitcher, type SwitcherBank } from './bank-switcher';
 import { HilumMark } from './hilum-mark';

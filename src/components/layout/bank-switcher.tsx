@@ -1,7 +1,7 @@
 import { useId } from 'react';
 import { Link } from 'react-router-dom';
-import { paths } from '../../config/paths';
-import { cn } from '../../lib/cn';
+import { paths } from '#src/config/paths';
+import { cn } from '#src/lib/cn';
 import { ChevronDownIcon } from './icons';
 import { useDisclosure } from './use-disclosure';
 

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { paths, type BankArea } from '../../config/paths';
+import { paths, type BankArea } from '#src/config/paths';
 import { LotsIcon, MembersIcon, OverviewIcon, PlannerIcon, SettingsIcon } from './icons';
 
 export interface NavItem {

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { cn } from '../../lib/cn';
+import { cn } from '#src/lib/cn';
 
 export interface CautionProps {
   title: ReactNode;

@@ -1,8 +1,8 @@
 import type { UseMutationResult } from '@tanstack/react-query';
 import { useId, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { cn } from '../../lib/cn';
-import { csvProblems, type CsvRowProblem } from '../../lib/csv-import';
+import { cn } from '#src/lib/cn';
+import { csvProblems, type CsvRowProblem } from '#src/lib/csv-import';
 import { Button, buttonStyles } from './button';
 import { Card } from './card';
 import { FormAlert } from './form-alert';

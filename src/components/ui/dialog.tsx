@@ -1,5 +1,5 @@
 import { useId, type ReactNode } from 'react';
-import { cn } from '../../lib/cn';
+import { cn } from '#src/lib/cn';
 import { Button } from './button';
 import { useModalDialog } from './use-modal-dialog';
 

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { cn } from '../../lib/cn';
+import { cn } from '#src/lib/cn';
 
 export interface FieldProps {
   /** The control's id: the label points at it, and the hint and error ids are made from it. */

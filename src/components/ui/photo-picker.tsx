@@ -1,5 +1,5 @@
 import { useEffect, useId, useMemo, useRef, type ReactNode } from 'react';
-import { cn } from '../../lib/cn';
+import { cn } from '#src/lib/cn';
 import { FieldError } from './field';
 
 export interface PhotoPickerProps {

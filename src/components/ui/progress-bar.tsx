@@ -1,4 +1,4 @@
-import { cn } from '../../lib/cn';
+import { cn } from '#src/lib/cn';
 
 export interface ProgressBarProps {
   /** 0 to 1. */

@@ -1,5 +1,5 @@
 import { useId, type ReactNode, type Ref, type SelectHTMLAttributes } from 'react';
-import { cn } from '../../lib/cn';
+import { cn } from '#src/lib/cn';
 import { controlClass, Field, fieldAria } from './field';
 
 export interface SelectFieldProps extends SelectHTMLAttributes<HTMLSelectElement> {

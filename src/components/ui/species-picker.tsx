@@ -1,6 +1,6 @@
 import { useMemo, type ReactNode } from 'react';
 import { Controller, useWatch, type Control, type FieldPathByValue, type FieldValues } from 'react-hook-form';
-import type { SpeciesDto } from '../../../shared/schemas/species';
+import type { SpeciesDto } from '#shared/schemas/species';
 import { Combobox } from './combobox';
 
 export interface SpeciesPickerProps<T extends FieldValues> {

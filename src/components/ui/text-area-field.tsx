@@ -1,5 +1,5 @@
 import { useId, type ReactNode, type Ref, type TextareaHTMLAttributes } from 'react';
-import { cn } from '../../lib/cn';
+import { cn } from '#src/lib/cn';
 import { controlClass, Field, fieldAria } from './field';
 
 export interface TextAreaFieldProps extends TextareaHTMLAttributes<HTMLTextAreaElement> {

@@ -1,4 +1,4 @@
-import { cn } from '../../lib/cn';
+import { cn } from '#src/lib/cn';
 import { pct } from './viability-format';
 
 export interface ProjectionBarProps {

@@ -1,6 +1,6 @@
 import type { ButtonHTMLAttributes, ReactNode } from 'react';
-import type { RecommendationValue } from '../../../shared/schemas/viability';
-import { cn } from '../../lib/cn';
+import type { RecommendationValue } from '#shared/schemas/viability';
+import { cn } from '#src/lib/cn';
 import { recommendationLabels } from './viability-format';
 
 /*

@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import type { basisSchema, RecommendationValue } from '../../../shared/schemas/viability';
+import type { basisSchema, RecommendationValue } from '#shared/schemas/viability';
 
 export type Basis = z.infer<typeof basisSchema>;
 

@@ -1,5 +1,5 @@
 import { queryOptions } from '@tanstack/react-query';
-import { rankingResponseSchema, seedsToSowResponseSchema } from '../../../shared/schemas/viability';
+import { rankingResponseSchema, seedsToSowResponseSchema } from '#shared/schemas/viability';
 import { apiFetch } from '../api-client';
 import { bankKeys, bankPaths, type SeedsToSowQuery } from '../bank-api';
 

@@ -10,13 +10,13 @@ import {
   normalPdf,
   normalQuantile,
   twoSidedZ,
-} from '../../../server/stats/distributions';
+} from '#server/stats/distributions';
 import {
   inverseRegularizedBeta,
   regularizedBeta,
   regularizedGammaP,
   regularizedGammaQ,
-} from '../../../server/stats/special-functions';
+} from '#server/stats/special-functions';
 
 // Reference library: jstat 1.9.6 (npm). It is accurate only in part of the range, so each cross-check
 // below is run where jstat itself holds the stated accuracy, and the rest of the range is checked

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { germinationTiming, timingNote } from '../../../server/stats';
+import { germinationTiming, timingNote } from '#server/stats/index';
 
 // REFERENCES.md worked example: 100 seeds, new germinants on days 1–6 = 0, 10, 25, 25, 15, 5,
 // given here as cumulative counts. Formulas: Ranal & Santana 2006 (Revista Brasil. Bot. 29:1–11);

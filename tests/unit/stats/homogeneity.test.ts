@@ -1,6 +1,6 @@
 import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
-import { homogeneityChiSquare } from '../../../server/stats';
+import { homogeneityChiSquare } from '#server/stats/index';
 
 describe('homogeneityChiSquare', () => {
   it('when two trays are compared, then the statistic is the square of the pooled two-proportion z', () => {

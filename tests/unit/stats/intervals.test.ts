@@ -1,6 +1,6 @@
 import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
-import { clopperPearsonInterval, wilsonInterval } from '../../../server/stats';
+import { clopperPearsonInterval, wilsonInterval } from '#server/stats/index';
 
 const Z95 = jStat.normal.inv(0.975, 0, 1);
 

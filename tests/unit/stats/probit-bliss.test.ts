@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { probitRegression } from '../../../server/stats';
+import { probitRegression } from '#server/stats/index';
 
 // Bliss (1935), Ann. Appl. Biol. 22:134–167: beetles killed after five hours' exposure to gaseous
 // carbon disulphide, as printed in Dobson & Barnett, An Introduction to Generalized Linear Models

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { probitRegressionGroups } from '../../../server/stats';
-import { commonSlopeProbit } from '../../../server/stats/probit-common-slope';
+import { probitRegressionGroups } from '#server/stats/index';
+import { commonSlopeProbit } from '#server/stats/probit-common-slope';
 
 /** A small seeded generator (mulberry32), so the data are the same on every run. */
 function rng(seed: number) {

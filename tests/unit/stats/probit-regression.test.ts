@@ -1,7 +1,7 @@
 import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
-import { probitRegression, probitRegressionGroups } from '../../../server/stats';
-import type { DosePoint } from '../../../server/stats';
+import { probitRegression, probitRegressionGroups } from '#server/stats/index';
+import type { DosePoint } from '#server/stats/index';
 import { mulberry32 } from './seeded-random';
 
 // Inputs below are illustrative counts; every expected value comes from an independent computation

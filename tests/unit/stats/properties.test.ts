@@ -5,8 +5,8 @@ import {
   germinationTiming,
   summarizeTest,
   wilsonInterval,
-} from '../../../server/stats';
-import type { GerminationCheck, TestTray } from '../../../server/stats';
+} from '#server/stats/index';
+import type { GerminationCheck, TestTray } from '#server/stats/index';
 
 // Property tests (fast-check 4.11.0) with a fixed seed, so every run draws the same cases. The
 // properties are those any confidence interval for a proportion, and any timing measure defined on

@@ -7,8 +7,8 @@ import {
   maxToleratedRange,
   replicateAgreement,
   summarizeTest,
-} from '../../../server/stats';
-import type { AgreementMethod, TrayCount } from '../../../server/stats';
+} from '#server/stats/index';
+import type { AgreementMethod, TrayCount } from '#server/stats/index';
 import { mulberry32 } from './seeded-random';
 
 // Do the trays of one test agree as trays of one lot should? For trays of one size Hilum uses the

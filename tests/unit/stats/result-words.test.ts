@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { resultWords } from '../../../server/modules/germination/result-words';
-import { summarizeTest } from '../../../server/stats';
-import type { TestTray } from '../../../server/stats';
+import { resultWords } from '#server/modules/germination/result-words';
+import { summarizeTest } from '#server/stats/index';
+import type { TestTray } from '#server/stats/index';
 
 // The words of a result follow one definition of a seedling (the seed-testing rules count normal
 // seedlings; abnormal ones are recorded apart; fresh ungerminated seeds are dormant but alive:

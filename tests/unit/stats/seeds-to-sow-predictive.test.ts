@@ -5,8 +5,8 @@ import {
   seedsToSow,
   seedsToSowBetaBinomial,
   seedsToSowPredictive,
-} from '../../../server/stats';
-import type { GerminationDraw } from '../../../server/stats';
+} from '#server/stats/index';
+import type { GerminationDraw } from '#server/stats/index';
 import { mulberry32 } from './seeded-random';
 
 // Seeds to sow from the predictive distribution of the number of plants, checked against:

@@ -1,6 +1,6 @@
 import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
-import { binomialUpperTail, seedsToSow } from '../../../server/stats';
+import { binomialUpperTail, seedsToSow } from '#server/stats/index';
 
 /** P(X ≥ k), X ~ Binomial(n, p), summed term by term from jstat's log-combination. */
 function jstatUpperTail(k: number, n: number, p: number): number {

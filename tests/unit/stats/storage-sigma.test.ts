@@ -6,7 +6,7 @@ import {
   sigmaFromViabilityConstants,
   temperatureFactor,
   UNIVERSAL_TEMPERATURE_TERMS,
-} from '../../../server/stats';
+} from '#server/stats/index';
 
 // Lettuce constants K_E 8.218, C_W 4.797, C_H 0.0489, C_Q 0.000365 (Kraak & Vos 1987) — from memory
 // (marked [memory — confirm before use] in REFERENCES.md).

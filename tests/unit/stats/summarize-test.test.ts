@@ -6,8 +6,8 @@ import {
   maxToleratedRange,
   summarizeTest,
   wilsonInterval,
-} from '../../../server/stats';
-import type { TestTray } from '../../../server/stats';
+} from '#server/stats/index';
+import type { TestTray } from '#server/stats/index';
 
 /** Turns new germinants per day (days 1…) into cumulative checks. */
 function tray(id: string, seedsSown: number, newPerDay: number[]): TestTray {

@@ -5,7 +5,7 @@ import {
   maxToleratedRange,
   normalRangeCdf,
   normalRangeQuantile,
-} from '../../../server/stats';
+} from '#server/stats/index';
 import { mulberry32 } from './seeded-random';
 
 // The table of maximum tolerated ranges, 7 CFR 201.55 as printed (the same values as the ISTA

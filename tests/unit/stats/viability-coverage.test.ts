@@ -3,7 +3,7 @@
 // the full run with more lots is `npm run check:coverage`). Each group of lots — by number of tests
 // and by how the rate is known — must see the truth inside its band 93–97% of the time.
 import { describe, expect, it } from 'vitest';
-import { simulateCoverage } from '../../helpers/coverage-simulation';
+import { simulateCoverage } from '#tests/helpers/coverage-simulation';
 
 describe('the viability bands, by seeded simulation', () => {
   it(

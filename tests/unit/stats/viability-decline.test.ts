@@ -6,8 +6,8 @@ import {
   probitRegressionGroups,
   projectViability,
   retestAge,
-} from '../../../server/stats';
-import type { ViabilityTest } from '../../../server/stats';
+} from '#server/stats/index';
+import type { ViabilityTest } from '#server/stats/index';
 import { mulberry32 } from './seeded-random';
 
 // Test counts are illustrative; expected values come from the cited formula, an independent

@@ -4,7 +4,7 @@
 // Reference for the direction of every case: the seed viability equation (Ellis & Roberts 1980,
 // Ann. Bot. 45:13–30) — viability falls along a probit line with storage time, never rises.
 import { describe, expect, it } from 'vitest';
-import { normalCdf } from '../../../server/stats/distributions';
+import { normalCdf } from '#server/stats/distributions';
 import {
   fitSpeciesModel,
   logPhi,
@@ -12,7 +12,7 @@ import {
   projectModel,
   type LotModel,
   type ModelLot,
-} from '../../../server/stats/viability-model';
+} from '#server/stats/viability-model';
 
 const TOMATO = { typicalLifeYears: 4 }; // ISU Yard & Garden 1999 (Knott's Handbook): tomato 4 years [read]
 

@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
-import { NarrowPage } from '../../../components/layout/narrow-page';
-import { paths } from '../../../config/paths';
-import { ForgotPasswordForm } from '../../../features/auth/components/forgot-password-form';
+import { NarrowPage } from '#src/components/layout/narrow-page';
+import { paths } from '#src/config/paths';
+import { ForgotPasswordForm } from '#src/features/auth/components/forgot-password-form';
 
 export function ForgotPasswordPage() {
   return (

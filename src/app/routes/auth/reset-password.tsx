@@ -1,11 +1,11 @@
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
-import { passwordResetConfirmBodySchema } from '../../../../shared/schemas/accounts';
-import { NarrowPage } from '../../../components/layout/narrow-page';
-import { buttonStyles } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { paths } from '../../../config/paths';
-import { ResetPasswordForm } from '../../../features/auth/components/reset-password-form';
-import type { SignInState } from '../../session';
+import { passwordResetConfirmBodySchema } from '#shared/schemas/accounts';
+import { NarrowPage } from '#src/components/layout/narrow-page';
+import { buttonStyles } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { paths } from '#src/config/paths';
+import { ResetPasswordForm } from '#src/features/auth/components/reset-password-form';
+import type { SignInState } from '#src/app/session';
 
 export function ResetPasswordPage() {
   const [searchParams] = useSearchParams();

@@ -1,6 +1,6 @@
 import { useLocation } from 'react-router-dom';
-import { FormAlert } from '../../../components/ui/form-alert';
-import type { SignInState } from '../../session';
+import { FormAlert } from '#src/components/ui/form-alert';
+import type { SignInState } from '#src/app/session';
 
 const messages = {
   'session-ended':

@@ -1,10 +1,10 @@
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
-import { NarrowPage } from '../../../components/layout/narrow-page';
-import { paths } from '../../../config/paths';
-import { DemoAccounts } from '../../../features/auth/components/demo-accounts';
-import { SignInForm } from '../../../features/auth/components/sign-in-form';
-import { isNonProduction, useHealth } from '../../../features/health/api/get-health';
-import { safeNext } from '../../../lib/safe-next';
+import { NarrowPage } from '#src/components/layout/narrow-page';
+import { paths } from '#src/config/paths';
+import { DemoAccounts } from '#src/features/auth/components/demo-accounts';
+import { SignInForm } from '#src/features/auth/components/sign-in-form';
+import { isNonProduction, useHealth } from '#src/features/health/api/get-health';
+import { safeNext } from '#src/lib/safe-next';
 import { SignInNotice } from './sign-in-notice';
 
 export function SignInPage() {

@@ -1,8 +1,8 @@
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
-import { NarrowPage } from '../../../components/layout/narrow-page';
-import { paths } from '../../../config/paths';
-import { SignUpForm } from '../../../features/auth/components/sign-up-form';
-import { safeNext } from '../../../lib/safe-next';
+import { NarrowPage } from '#src/components/layout/narrow-page';
+import { paths } from '#src/config/paths';
+import { SignUpForm } from '#src/features/auth/components/sign-up-form';
+import { safeNext } from '#src/lib/safe-next';
 import { SignInNotice } from './sign-in-notice';
 
 export function SignUpPage() {

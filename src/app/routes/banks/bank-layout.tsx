@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Outlet, useLocation } from 'react-router-dom';
-import { FormAlert } from '../../../components/ui/form-alert';
+import { FormAlert } from '#src/components/ui/form-alert';
 
 /** Location state a page can pass when it opens a bank ("Welcome to …"). */
 export interface BankNoticeState {

@@ -1,9 +1,9 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { data, redirect, type LoaderFunctionArgs } from 'react-router-dom';
-import { paths } from '../../../config/paths';
-import { testQueryOptions } from '../../../features/germination/api/get-test';
-import { lotQueryOptions } from '../../../features/lots/api/get-lot';
-import { isApiError } from '../../../lib/api-client';
+import { paths } from '#src/config/paths';
+import { testQueryOptions } from '#src/features/germination/api/get-test';
+import { lotQueryOptions } from '#src/features/lots/api/get-lot';
+import { isApiError } from '#src/lib/api-client';
 
 /** `?interval=exact` on the test page asks for the Clopper–Pearson interval. */
 export const EXACT_INTERVAL_PARAM = 'interval';

@@ -1,11 +1,11 @@
 import { useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { PageHeader } from '../../../components/ui/page-header';
-import { paths } from '../../../config/paths';
-import { ImportTests } from '../../../features/germination/components/import-tests';
-import { ImportLots } from '../../../features/lots/components/import-lots';
-import { SwapCaution } from '../../../features/lots/components/lot-form-parts';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { PageHeader } from '#src/components/ui/page-header';
+import { paths } from '#src/config/paths';
+import { ImportTests } from '#src/features/germination/components/import-tests';
+import { ImportLots } from '#src/features/lots/components/import-lots';
+import { SwapCaution } from '#src/features/lots/components/lot-form-parts';
 import { useRouteBank } from './use-route-bank';
 
 type Holds = 'lots' | 'tests';

@@ -1,14 +1,14 @@
 import { useQueries } from '@tanstack/react-query';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
-import { EmptyState } from '../../../components/ui/empty-state';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { PageHeader } from '../../../components/ui/page-header';
-import { buttonStyles } from '../../../components/ui/button';
-import { paths } from '../../../config/paths';
-import { LabelSheet, type SheetLabel } from '../../../features/labels/components/label-sheet';
-import { MAX_LABELS, parseLotIds } from '../../../features/labels/components/lot-ids';
-import { defaultPaper, isPaper, type Paper } from '../../../features/labels/components/paper';
-import { lotQueryOptions } from '../../../features/lots/api/get-lot';
+import { EmptyState } from '#src/components/ui/empty-state';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { PageHeader } from '#src/components/ui/page-header';
+import { buttonStyles } from '#src/components/ui/button';
+import { paths } from '#src/config/paths';
+import { LabelSheet, type SheetLabel } from '#src/features/labels/components/label-sheet';
+import { MAX_LABELS, parseLotIds } from '#src/features/labels/components/lot-ids';
+import { defaultPaper, isPaper, type Paper } from '#src/features/labels/components/paper';
+import { lotQueryOptions } from '#src/features/lots/api/get-lot';
 import { useRouteBank } from './use-route-bank';
 
 const browserLanguages = () =>

@@ -1,7 +1,7 @@
-import type { LotDto } from '../../../../shared/schemas/lots';
-import type { SpeciesDto } from '../../../../shared/schemas/species';
-import { LotCautions } from '../../../features/lots/components/lot-cautions';
-import { SpeciesCautions } from '../../../features/species/components/species-cautions';
+import type { LotDto } from '#shared/schemas/lots';
+import type { SpeciesDto } from '#shared/schemas/species';
+import { LotCautions } from '#src/features/lots/components/lot-cautions';
+import { SpeciesCautions } from '#src/features/species/components/species-cautions';
 
 /**
  * Everything on a lot's page that can hurt someone, at the top where a phone shows it first:

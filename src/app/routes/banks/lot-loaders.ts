@@ -1,18 +1,18 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { data, redirect, type LoaderFunctionArgs } from 'react-router-dom';
-import { paths } from '../../../config/paths';
-import { bankQueryOptions } from '../../../features/banks/api/get-bank';
-import { lotsQueryOptions } from '../../../features/lots/api/get-lots';
-import { lotQueryOptions } from '../../../features/lots/api/get-lot';
-import { rankingQueryOptions } from '../../../features/lots/api/get-ranking';
-import { stockQueryOptions } from '../../../features/lots/api/get-stock';
-import { photosQueryOptions } from '../../../features/photos/api/get-photos';
-import { plantsQueryOptions } from '../../../features/plants/api/get-plants';
-import { speciesQueryOptions } from '../../../features/species/api/get-species';
-import { lotViabilityQueryOptions } from '../../../features/viability/api/get-lot-viability';
-import { defaultSowingDate, parseSowingDate } from '../../../lib/sowing-date';
-import { isApiError } from '../../../lib/api-client';
-import { todayIn } from '../../../lib/dates';
+import { paths } from '#src/config/paths';
+import { bankQueryOptions } from '#src/features/banks/api/get-bank';
+import { lotsQueryOptions } from '#src/features/lots/api/get-lots';
+import { lotQueryOptions } from '#src/features/lots/api/get-lot';
+import { rankingQueryOptions } from '#src/features/lots/api/get-ranking';
+import { stockQueryOptions } from '#src/features/lots/api/get-stock';
+import { photosQueryOptions } from '#src/features/photos/api/get-photos';
+import { plantsQueryOptions } from '#src/features/plants/api/get-plants';
+import { speciesQueryOptions } from '#src/features/species/api/get-species';
+import { lotViabilityQueryOptions } from '#src/features/viability/api/get-lot-viability';
+import { defaultSowingDate, parseSowingDate } from '#src/lib/sowing-date';
+import { isApiError } from '#src/lib/api-client';
+import { todayIn } from '#src/lib/dates';
 
 /*
  * Loaders of the lots area: each waits for what the page cannot draw without, and starts the rest

@@ -1,6 +1,6 @@
-import { lotStatusSchema } from '../../../../shared/schemas/lots';
-import { idSchema } from '../../../../shared/schemas/common';
-import type { LotFilters } from '../../../lib/bank-api';
+import { lotStatusSchema } from '#shared/schemas/lots';
+import { idSchema } from '#shared/schemas/common';
+import type { LotFilters } from '#src/lib/bank-api';
 
 /** The lots page keeps its search and filters in the address, so Back and a shared link keep them. */
 export function filtersFromSearch(search: URLSearchParams): LotFilters {

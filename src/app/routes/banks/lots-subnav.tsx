@@ -1,6 +1,6 @@
 import { NavLink } from 'react-router-dom';
-import { paths } from '../../../config/paths';
-import { cn } from '../../../lib/cn';
+import { paths } from '#src/config/paths';
+import { cn } from '#src/lib/cn';
 
 /** Tabs inside the Lots area: the lots themselves and the parent plants they were saved from. */
 export function LotsSubnav({ bankId }: { bankId: string }) {

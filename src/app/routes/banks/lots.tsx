@@ -1,13 +1,13 @@
 import { Link } from 'react-router-dom';
-import { buttonStyles } from '../../../components/ui/button';
-import { EmptyState } from '../../../components/ui/empty-state';
-import { PageHeader } from '../../../components/ui/page-header';
-import { paths } from '../../../config/paths';
-import { PrintLabelLink } from '../../../features/labels/components/print-label-link';
-import { useLots } from '../../../features/lots/api/get-lots';
-import { RankingView } from '../../../features/lots/components/ranking-view';
-import { bankPaths } from '../../../lib/bank-api';
-import { todayIn } from '../../../lib/dates';
+import { buttonStyles } from '#src/components/ui/button';
+import { EmptyState } from '#src/components/ui/empty-state';
+import { PageHeader } from '#src/components/ui/page-header';
+import { paths } from '#src/config/paths';
+import { PrintLabelLink } from '#src/features/labels/components/print-label-link';
+import { useLots } from '#src/features/lots/api/get-lots';
+import { RankingView } from '#src/features/lots/components/ranking-view';
+import { bankPaths } from '#src/lib/bank-api';
+import { todayIn } from '#src/lib/dates';
 import { LotsSubnav } from './lots-subnav';
 import { useRouteBank } from './use-route-bank';
 

@@ -1,15 +1,15 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
-import { Card } from '../../../components/ui/card';
-import { PageHeader } from '../../../components/ui/page-header';
-import { paths } from '../../../config/paths';
-import { useMe } from '../../../features/auth/api/get-me';
-import { authKeys } from '../../../features/auth/api/keys';
-import { InvitationsCard } from '../../../features/banks/components/invitations-card';
-import { InviteForm } from '../../../features/banks/components/invite-form';
-import { LeaveBankCard } from '../../../features/banks/components/leave-bank-card';
-import { MembersCard } from '../../../features/banks/components/members-card';
-import { roleLabels, roleOrder, roleSummaries } from '../../../features/banks/components/roles';
+import { Card } from '#src/components/ui/card';
+import { PageHeader } from '#src/components/ui/page-header';
+import { paths } from '#src/config/paths';
+import { useMe } from '#src/features/auth/api/get-me';
+import { authKeys } from '#src/features/auth/api/keys';
+import { InvitationsCard } from '#src/features/banks/components/invitations-card';
+import { InviteForm } from '#src/features/banks/components/invite-form';
+import { LeaveBankCard } from '#src/features/banks/components/leave-bank-card';
+import { MembersCard } from '#src/features/banks/components/members-card';
+import { roleLabels, roleOrder, roleSummaries } from '#src/features/banks/components/roles';
 import { useRouteBank } from './use-route-bank';
 
 function RolesCard() {

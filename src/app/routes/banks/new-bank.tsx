@@ -1,10 +1,10 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
-import { Card } from '../../../components/ui/card';
-import { PageHeader } from '../../../components/ui/page-header';
-import { paths } from '../../../config/paths';
-import { authKeys } from '../../../features/auth/api/keys';
-import { CreateBankForm } from '../../../features/banks/components/create-bank-form';
+import { Card } from '#src/components/ui/card';
+import { PageHeader } from '#src/components/ui/page-header';
+import { paths } from '#src/config/paths';
+import { authKeys } from '#src/features/auth/api/keys';
+import { CreateBankForm } from '#src/features/banks/components/create-bank-form';
 import type { BankNoticeState } from './bank-layout';
 
 export function NewBankPage() {

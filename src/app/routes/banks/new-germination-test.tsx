@@ -1,12 +1,12 @@
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import { Card } from '../../../components/ui/card';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { PageHeader } from '../../../components/ui/page-header';
-import { paths } from '../../../config/paths';
-import { StartTestForm } from '../../../features/germination/components/start-test-form';
-import { useLot } from '../../../features/lots/api/get-lot';
-import { TreatedCaution } from '../../../features/lots/components/lot-form-parts';
-import { todayIn } from '../../../lib/dates';
+import { Card } from '#src/components/ui/card';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { PageHeader } from '#src/components/ui/page-header';
+import { paths } from '#src/config/paths';
+import { StartTestForm } from '#src/features/germination/components/start-test-form';
+import { useLot } from '#src/features/lots/api/get-lot';
+import { TreatedCaution } from '#src/features/lots/components/lot-form-parts';
+import { todayIn } from '#src/lib/dates';
 import type { BankNoticeState } from './bank-layout';
 import { useRouteBank } from './use-route-bank';
 

@@ -1,9 +1,9 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { data, redirect, type LoaderFunctionArgs } from 'react-router-dom';
-import { paths } from '../../../config/paths';
-import { bankQueryOptions } from '../../../features/banks/api/get-bank';
-import { overviewQueryOptions } from '../../../features/overview/api/get-overview';
-import { isApiError } from '../../../lib/api-client';
+import { paths } from '#src/config/paths';
+import { bankQueryOptions } from '#src/features/banks/api/get-bank';
+import { overviewQueryOptions } from '#src/features/overview/api/get-overview';
+import { isApiError } from '#src/lib/api-client';
 
 /**
  * The overview waits for the bank and for this week's jobs, so the page draws whole. A failure of the

@@ -1,19 +1,19 @@
 import { Link } from 'react-router-dom';
-import { buttonStyles } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { PageHeader } from '../../../components/ui/page-header';
-import { Loading } from '../../../components/ui/spinner';
-import { paths } from '../../../config/paths';
-import { useOverview } from '../../../features/overview/api/get-overview';
-import { FirstSteps } from '../../../features/overview/components/first-steps';
-import { plural, weekDay } from '../../../features/overview/components/overview-format';
+import { buttonStyles } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { PageHeader } from '#src/components/ui/page-header';
+import { Loading } from '#src/components/ui/spinner';
+import { paths } from '#src/config/paths';
+import { useOverview } from '#src/features/overview/api/get-overview';
+import { FirstSteps } from '#src/features/overview/components/first-steps';
+import { plural, weekDay } from '#src/features/overview/components/overview-format';
 import {
   LotsToRetestCard,
   LowStockCard,
   SowingsDueCard,
   TraysToCountCard,
-} from '../../../features/overview/components/week-cards';
-import type { Overview } from '../../../../shared/schemas/overview';
+} from '#src/features/overview/components/week-cards';
+import type { Overview } from '#shared/schemas/overview';
 import { useRouteBank } from './use-route-bank';
 
 /** /banks/:bankId/overview — the page a signed-in person lands on: what needs doing this week. */

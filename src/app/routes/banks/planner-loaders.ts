@@ -1,14 +1,14 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { data, redirect, type LoaderFunctionArgs } from 'react-router-dom';
-import { paths } from '../../../config/paths';
-import { bankQueryOptions } from '../../../features/banks/api/get-bank';
-import { planQueryOptions } from '../../../features/planner/api/get-plan';
-import { rankingQueryOptions } from '../../../features/planner/api/get-ranking';
-import { comingSeason } from '../../../../shared/plan-dates';
-import { remindersQueryOptions } from '../../../features/reminders/api/get-reminders';
-import { speciesQueryOptions } from '../../../features/species/api/get-species';
-import { isApiError } from '../../../lib/api-client';
-import { todayIn } from '../../../lib/dates';
+import { paths } from '#src/config/paths';
+import { bankQueryOptions } from '#src/features/banks/api/get-bank';
+import { planQueryOptions } from '#src/features/planner/api/get-plan';
+import { rankingQueryOptions } from '#src/features/planner/api/get-ranking';
+import { comingSeason } from '#shared/plan-dates';
+import { remindersQueryOptions } from '#src/features/reminders/api/get-reminders';
+import { speciesQueryOptions } from '#src/features/species/api/get-species';
+import { isApiError } from '#src/lib/api-client';
+import { todayIn } from '#src/lib/dates';
 
 /** `?season=2027` picks the season; without it, the coming spring. */
 export const SEASON_PARAM = 'season';

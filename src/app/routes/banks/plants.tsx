@@ -1,15 +1,15 @@
 import { useState } from 'react';
-import { Card } from '../../../components/ui/card';
-import { EmptyState } from '../../../components/ui/empty-state';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { PageHeader } from '../../../components/ui/page-header';
-import { Loading } from '../../../components/ui/spinner';
-import { uploadFailureMessage, useUploadPhoto } from '../../../features/photos/api/upload-photo';
-import { usePlants } from '../../../features/plants/api/get-plants';
-import { PlantForm } from '../../../features/plants/components/plant-form';
-import { PlantsList } from '../../../features/plants/components/plants-list';
-import { useSpecies } from '../../../features/species/api/get-species';
-import { todayIn } from '../../../lib/dates';
+import { Card } from '#src/components/ui/card';
+import { EmptyState } from '#src/components/ui/empty-state';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { PageHeader } from '#src/components/ui/page-header';
+import { Loading } from '#src/components/ui/spinner';
+import { uploadFailureMessage, useUploadPhoto } from '#src/features/photos/api/upload-photo';
+import { usePlants } from '#src/features/plants/api/get-plants';
+import { PlantForm } from '#src/features/plants/components/plant-form';
+import { PlantsList } from '#src/features/plants/components/plants-list';
+import { useSpecies } from '#src/features/species/api/get-species';
+import { todayIn } from '#src/lib/dates';
 import { LotsSubnav } from './lots-subnav';
 import { useRouteBank } from './use-route-bank';
 

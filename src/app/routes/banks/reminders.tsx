@@ -1,9 +1,9 @@
 import { Link } from 'react-router-dom';
-import { Card } from '../../../components/ui/card';
-import { PageHeader } from '../../../components/ui/page-header';
-import { paths } from '../../../config/paths';
-import { useMe } from '../../../features/auth/api/get-me';
-import { ReminderChoices } from '../../../features/reminders/components/reminder-choices';
+import { Card } from '#src/components/ui/card';
+import { PageHeader } from '#src/components/ui/page-header';
+import { paths } from '#src/config/paths';
+import { useMe } from '#src/features/auth/api/get-me';
+import { ReminderChoices } from '#src/features/reminders/components/reminder-choices';
 import { useRouteBank } from './use-route-bank';
 
 /** /banks/:bankId/reminders — Account → Reminders: the signed-in member's e-mails about this bank. */

@@ -1,11 +1,11 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
-import { Card } from '../../../components/ui/card';
-import { PageHeader } from '../../../components/ui/page-header';
-import { paths } from '../../../config/paths';
-import { authKeys } from '../../../features/auth/api/keys';
-import { BankSettingsForm } from '../../../features/banks/components/bank-settings-form';
-import { DeleteBankCard } from '../../../features/banks/components/delete-bank-card';
+import { Card } from '#src/components/ui/card';
+import { PageHeader } from '#src/components/ui/page-header';
+import { paths } from '#src/config/paths';
+import { authKeys } from '#src/features/auth/api/keys';
+import { BankSettingsForm } from '#src/features/banks/components/bank-settings-form';
+import { DeleteBankCard } from '#src/features/banks/components/delete-bank-card';
 import { useRouteBank } from './use-route-bank';
 
 export function SettingsPage() {

@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import type { TestDetail } from '../../../../shared/schemas/germination';
-import { Card } from '../../../components/ui/card';
-import { traySubjectId } from '../../../lib/bank-api';
-import { PhotoGallery } from '../../../features/photos/components/photo-gallery';
-import { cn } from '../../../lib/cn';
+import type { TestDetail } from '#shared/schemas/germination';
+import { Card } from '#src/components/ui/card';
+import { traySubjectId } from '#src/lib/bank-api';
+import { PhotoGallery } from '#src/features/photos/components/photo-gallery';
+import { cn } from '#src/lib/cn';
 
 /**
  * Photos of a test's trays, one tray at a time: a picture on a check day shows what the numbers

@@ -1,6 +1,6 @@
 import { useSuspenseQuery } from '@tanstack/react-query';
 import { useParams } from 'react-router-dom';
-import { bankQueryOptions } from '../../../features/banks/api/get-bank';
+import { bankQueryOptions } from '#src/features/banks/api/get-bank';
 
 /** The bank of the current `/banks/:bankId/…` page; its loader has already fetched it. */
 export function useRouteBank() {

@@ -1,15 +1,15 @@
 import { Link, useSearchParams } from 'react-router-dom';
-import { Button } from '../../../components/ui/button';
-import { Card } from '../../../components/ui/card';
-import { EmptyState } from '../../../components/ui/empty-state';
-import { Loading } from '../../../components/ui/spinner';
-import { PageHeader } from '../../../components/ui/page-header';
-import { paths } from '../../../config/paths';
-import { cn } from '../../../lib/cn';
-import { isApiError } from '../../../lib/api-client';
-import { useOutbox } from '../../../features/dev-mail/api/get-outbox';
-import { MessageView } from '../../../features/dev-mail/components/message-view';
-import { OutboxList } from '../../../features/dev-mail/components/outbox-list';
+import { Button } from '#src/components/ui/button';
+import { Card } from '#src/components/ui/card';
+import { EmptyState } from '#src/components/ui/empty-state';
+import { Loading } from '#src/components/ui/spinner';
+import { PageHeader } from '#src/components/ui/page-header';
+import { paths } from '#src/config/paths';
+import { cn } from '#src/lib/cn';
+import { isApiError } from '#src/lib/api-client';
+import { useOutbox } from '#src/features/dev-mail/api/get-outbox';
+import { MessageView } from '#src/features/dev-mail/components/message-view';
+import { OutboxList } from '#src/features/dev-mail/components/outbox-list';
 
 function outboxErrorText(error: Error): string {
   if (isApiError(error) && error.status === 404) {

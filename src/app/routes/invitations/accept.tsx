@@ -1,15 +1,15 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
-import { acceptInvitationBodySchema } from '../../../../shared/schemas/banks';
-import { NarrowPage } from '../../../components/layout/narrow-page';
-import { Button, buttonStyles } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { Loading } from '../../../components/ui/spinner';
-import { paths } from '../../../config/paths';
-import { useMe } from '../../../features/auth/api/get-me';
-import { authKeys } from '../../../features/auth/api/keys';
-import { useAcceptInvitation } from '../../../features/banks/api/accept-invitation';
-import { isApiError } from '../../../lib/api-client';
+import { acceptInvitationBodySchema } from '#shared/schemas/banks';
+import { NarrowPage } from '#src/components/layout/narrow-page';
+import { Button, buttonStyles } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { Loading } from '#src/components/ui/spinner';
+import { paths } from '#src/config/paths';
+import { useMe } from '#src/features/auth/api/get-me';
+import { authKeys } from '#src/features/auth/api/keys';
+import { useAcceptInvitation } from '#src/features/banks/api/accept-invitation';
+import { isApiError } from '#src/lib/api-client';
 import type { BankNoticeState } from '../banks/bank-layout';
 
 /**

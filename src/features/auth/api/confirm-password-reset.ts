@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import type { passwordResetConfirmBodySchema } from '../../../../shared/schemas/accounts';
-import { apiFetch } from '../../../lib/api-client';
+import type { passwordResetConfirmBodySchema } from '#shared/schemas/accounts';
+import { apiFetch } from '#src/lib/api-client';
 
 export type PasswordResetConfirmBody = z.infer<typeof passwordResetConfirmBodySchema>;
 

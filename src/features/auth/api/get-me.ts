@@ -1,6 +1,6 @@
 import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
-import { meResponseSchema, type MeResponse } from '../../../../shared/schemas/accounts';
-import { apiFetch, isApiError } from '../../../lib/api-client';
+import { meResponseSchema, type MeResponse } from '#shared/schemas/accounts';
+import { apiFetch, isApiError } from '#src/lib/api-client';
 import { authKeys } from './keys';
 
 /** GET /api/me: who is signed in and the banks they belong to; 401 when nobody is. */

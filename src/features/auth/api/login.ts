@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { userSchema, type LoginBody, type MeResponse } from '../../../../shared/schemas/accounts';
-import { apiFetch } from '../../../lib/api-client';
+import { userSchema, type LoginBody, type MeResponse } from '#shared/schemas/accounts';
+import { apiFetch } from '#src/lib/api-client';
 import { getMe } from './get-me';
 import { authKeys } from './keys';
 

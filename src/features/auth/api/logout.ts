@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiFetch } from '../../../lib/api-client';
+import { apiFetch } from '#src/lib/api-client';
 
 /** POST /api/auth/logout: ends this browser's session. */
 export async function logout(): Promise<void> {

@@ -1,7 +1,7 @@
 import { useMutation } from '@tanstack/react-query';
 import type { z } from 'zod';
-import type { passwordResetBodySchema } from '../../../../shared/schemas/accounts';
-import { apiFetch } from '../../../lib/api-client';
+import type { passwordResetBodySchema } from '#shared/schemas/accounts';
+import { apiFetch } from '#src/lib/api-client';
 
 export type PasswordResetBody = z.infer<typeof passwordResetBodySchema>;
 

@@ -1,7 +1,7 @@
 import { useState } from 'react';
-import type { MeResponse } from '../../../../shared/schemas/accounts';
-import { Button } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
+import type { MeResponse } from '#shared/schemas/accounts';
+import { Button } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
 import { useLogin } from '../api/login';
 
 /*

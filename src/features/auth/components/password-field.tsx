@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { TextField, type TextFieldProps } from '../../../components/ui/text-field';
+import { TextField, type TextFieldProps } from '#src/components/ui/text-field';
 
 /** A password field with a "show" switch: easier to type right on a phone with soil on your hands. */
 export function PasswordField(props: Omit<TextFieldProps, 'type'>) {

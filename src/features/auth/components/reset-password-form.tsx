@@ -1,10 +1,10 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { passwordResetConfirmBodySchema } from '../../../../shared/schemas/accounts';
-import { Button } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { applyServerError } from '../../../lib/form-errors';
+import { passwordResetConfirmBodySchema } from '#shared/schemas/accounts';
+import { Button } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { applyServerError } from '#src/lib/form-errors';
 import { useConfirmPasswordReset } from '../api/confirm-password-reset';
 import { PasswordField } from './password-field';
 

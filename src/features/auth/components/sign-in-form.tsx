@@ -2,12 +2,12 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
-import { loginBodySchema, type MeResponse } from '../../../../shared/schemas/accounts';
-import { Button } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { TextField } from '../../../components/ui/text-field';
-import { paths } from '../../../config/paths';
-import { applyServerError } from '../../../lib/form-errors';
+import { loginBodySchema, type MeResponse } from '#shared/schemas/accounts';
+import { Button } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { TextField } from '#src/components/ui/text-field';
+import { paths } from '#src/config/paths';
+import { applyServerError } from '#src/lib/form-errors';
 import { useLogin } from '../api/login';
 import { PasswordField } from './password-field';
 

@@ -1,12 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { registerBodySchema, type MeResponse } from '../../../../shared/schemas/accounts';
-import { Button } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { TextField } from '../../../components/ui/text-field';
-import { isApiError } from '../../../lib/api-client';
-import { applyServerError } from '../../../lib/form-errors';
+import { registerBodySchema, type MeResponse } from '#shared/schemas/accounts';
+import { Button } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { TextField } from '#src/components/ui/text-field';
+import { isApiError } from '#src/lib/api-client';
+import { applyServerError } from '#src/lib/form-errors';
 import { useRegister } from '../api/register';
 import { PasswordField } from './password-field';
 

@@ -1,7 +1,7 @@
 import { useMutation, type UseMutationOptions } from '@tanstack/react-query';
 import type { z } from 'zod';
-import { acceptInvitationResponseSchema } from '../../../../shared/schemas/banks';
-import { apiFetch } from '../../../lib/api-client';
+import { acceptInvitationResponseSchema } from '#shared/schemas/banks';
+import { apiFetch } from '#src/lib/api-client';
 
 export type AcceptInvitationResponse = z.infer<typeof acceptInvitationResponseSchema>;
 

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/react-query';
 import { z } from 'zod';
-import { bankSchema, type BankDto, type CreateBankBody } from '../../../../shared/schemas/banks';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys } from '../../../lib/bank-api';
+import { bankSchema, type BankDto, type CreateBankBody } from '#shared/schemas/banks';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys } from '#src/lib/bank-api';
 
 const createBankResponseSchema = z.object({ bank: bankSchema });
 

@@ -1,12 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import {
-  invitationSchema,
-  type CreateInvitationBody,
-  type InvitationDto,
-} from '../../../../shared/schemas/banks';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { invitationSchema, type CreateInvitationBody, type InvitationDto } from '#shared/schemas/banks';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 const createInvitationResponseSchema = z.object({ invitation: invitationSchema });
 

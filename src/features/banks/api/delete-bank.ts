@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/react-query';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 /** DELETE /api/banks/:bankId (owner): the bank and everything in it. */
 export async function deleteBank(bankId: string): Promise<void> {

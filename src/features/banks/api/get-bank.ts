@@ -1,8 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { z } from 'zod';
-import { bankResponseSchema } from '../../../../shared/schemas/banks';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { bankResponseSchema } from '#shared/schemas/banks';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 export type BankResponse = z.infer<typeof bankResponseSchema>;
 

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/react-query';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 /** POST /api/banks/:bankId/leave: the caller leaves; 409 last_owner for the last owner. */
 export async function leaveBank(bankId: string): Promise<void> {

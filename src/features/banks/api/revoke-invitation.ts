@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 /** DELETE /api/banks/:bankId/invitations/:invitationId (owner): the link stops working. */
 export async function revokeInvitation(bankId: string, invitationId: string): Promise<void> {

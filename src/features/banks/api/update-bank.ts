@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/react-query';
-import { bankResponseSchema, type UpdateBankBody } from '../../../../shared/schemas/banks';
-import { apiFetch } from '../../../lib/api-client';
+import { bankResponseSchema, type UpdateBankBody } from '#shared/schemas/banks';
+import { apiFetch } from '#src/lib/api-client';
 import type { BankResponse } from './get-bank';
-import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
+import { bankKeys, bankPaths, refresh, stale } from '#src/lib/bank-api';
 
 /** PATCH /api/banks/:bankId (owner). */
 export function updateBank(bankId: string, body: UpdateBankBody): Promise<BankResponse> {

@@ -1,9 +1,9 @@
 import { useMutation, useQueryClient, type UseMutationOptions } from '@tanstack/react-query';
-import type { Role } from '../../../../shared/schemas/accounts';
-import { membersResponseSchema } from '../../../../shared/schemas/banks';
-import { apiFetch } from '../../../lib/api-client';
+import type { Role } from '#shared/schemas/accounts';
+import { membersResponseSchema } from '#shared/schemas/banks';
+import { apiFetch } from '#src/lib/api-client';
 import type { MembersResponse } from './get-members';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 export interface UpdateMemberRoleInput {
   userId: string;

@@ -1,12 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useMemo, useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { updateBankBodySchema, type BankDto } from '../../../../shared/schemas/banks';
-import { Button } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { SelectField } from '../../../components/ui/select-field';
-import { TextField } from '../../../components/ui/text-field';
-import { applyServerError } from '../../../lib/form-errors';
+import { updateBankBodySchema, type BankDto } from '#shared/schemas/banks';
+import { Button } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { SelectField } from '#src/components/ui/select-field';
+import { TextField } from '#src/components/ui/text-field';
+import { applyServerError } from '#src/lib/form-errors';
 import { useUpdateBank } from '../api/update-bank';
 import { FrostDatesNote } from './frost-dates-note';
 

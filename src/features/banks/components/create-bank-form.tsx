@@ -1,11 +1,11 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { createBankBodySchema, type BankDto } from '../../../../shared/schemas/banks';
-import { Button } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { TextField } from '../../../components/ui/text-field';
-import { applyServerError } from '../../../lib/form-errors';
+import { createBankBodySchema, type BankDto } from '#shared/schemas/banks';
+import { Button } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { TextField } from '#src/components/ui/text-field';
+import { applyServerError } from '#src/lib/form-errors';
 import { useCreateBank } from '../api/create-bank';
 import { FrostDatesNote } from './frost-dates-note';
 

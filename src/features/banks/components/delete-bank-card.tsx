@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import type { BankDto } from '../../../../shared/schemas/banks';
-import { Button } from '../../../components/ui/button';
-import { Card } from '../../../components/ui/card';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { TextField } from '../../../components/ui/text-field';
+import type { BankDto } from '#shared/schemas/banks';
+import { Button } from '#src/components/ui/button';
+import { Card } from '#src/components/ui/card';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { TextField } from '#src/components/ui/text-field';
 import { useDeleteBank } from '../api/delete-bank';
 
 export interface DeleteBankCardProps {

@@ -1,7 +1,7 @@
-import { Button } from '../../../components/ui/button';
-import { Card } from '../../../components/ui/card';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { Loading } from '../../../components/ui/spinner';
+import { Button } from '#src/components/ui/button';
+import { Card } from '#src/components/ui/card';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { Loading } from '#src/components/ui/spinner';
 import { useInvitations } from '../api/get-invitations';
 import { useRevokeInvitation } from '../api/revoke-invitation';
 import { RoleBadge } from './roles';

@@ -1,15 +1,15 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { createInvitationBodySchema } from '../../../../shared/schemas/banks';
-import { Button } from '../../../components/ui/button';
-import { Card } from '../../../components/ui/card';
-import { FieldError } from '../../../components/ui/field';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { TextField } from '../../../components/ui/text-field';
-import { isApiError } from '../../../lib/api-client';
-import { cn } from '../../../lib/cn';
-import { applyServerError } from '../../../lib/form-errors';
+import { createInvitationBodySchema } from '#shared/schemas/banks';
+import { Button } from '#src/components/ui/button';
+import { Card } from '#src/components/ui/card';
+import { FieldError } from '#src/components/ui/field';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { TextField } from '#src/components/ui/text-field';
+import { isApiError } from '#src/lib/api-client';
+import { cn } from '#src/lib/cn';
+import { applyServerError } from '#src/lib/form-errors';
 import { useCreateInvitation } from '../api/create-invitation';
 import { roleLabels, roleOrder, roleSummaries } from './roles';
 

@@ -1,7 +1,7 @@
 import { useState } from 'react';
-import { Button } from '../../../components/ui/button';
-import { Card } from '../../../components/ui/card';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
+import { Button } from '#src/components/ui/button';
+import { Card } from '#src/components/ui/card';
+import { ConfirmDialog } from '#src/components/ui/confirm-dialog';
 import { useLeaveBank } from '../api/leave-bank';
 
 export interface LeaveBankCardProps {

@@ -1,5 +1,5 @@
-import type { Role } from '../../../../shared/schemas/accounts';
-import { cn } from '../../../lib/cn';
+import type { Role } from '#shared/schemas/accounts';
+import { cn } from '#src/lib/cn';
 
 export const roleOrder: readonly Role[] = ['owner', 'grower', 'viewer'];
 

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { apiFetch } from '../../../lib/api-client';
+import { apiFetch } from '#src/lib/api-client';
 
 // TODO(shared): move to shared/ once the server's outbox schema lives there.
 export const outboxMessageSchema = z.object({

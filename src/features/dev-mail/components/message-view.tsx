@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { cn } from '../../../lib/cn';
+import { cn } from '#src/lib/cn';
 import type { OutboxMessage } from '../api/get-outbox';
 import { formatMailDate } from './format-date';
 import { LinkifiedText } from './linkified-text';

@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
-import { paths } from '../../../config/paths';
-import { cn } from '../../../lib/cn';
+import { paths } from '#src/config/paths';
+import { cn } from '#src/lib/cn';
 import type { OutboxMessage } from '../api/get-outbox';
 import { formatMailDate } from './format-date';
 

@@ -1,6 +1,6 @@
 import type { QueryClient } from '@tanstack/react-query';
-import type { TestDetail } from '../../../../shared/schemas/germination';
-import { bankKeys, refresh, stale } from '../../../lib/bank-api';
+import type { TestDetail } from '#shared/schemas/germination';
+import { bankKeys, refresh, stale } from '#src/lib/bank-api';
 
 /**
  * After a change answered with the test's new state: put it in the cache (the server answers with

@@ -1,12 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import {
-  testDetailSchema,
-  type CreateTestBody,
-  type TestDetail,
-} from '../../../../shared/schemas/germination';
-import { apiFetch } from '../../../lib/api-client';
+import { testDetailSchema, type CreateTestBody, type TestDetail } from '#shared/schemas/germination';
+import { apiFetch } from '#src/lib/api-client';
 import { applyTestDetail } from './apply-test-detail';
-import { bankPaths } from '../../../lib/bank-api';
+import { bankPaths } from '#src/lib/bank-api';
 
 /**
  * POST /api/banks/:bankId/lots/:lotId/tests (grower): starts a test and withdraws its seeds from

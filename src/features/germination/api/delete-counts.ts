@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { testDetailSchema, type TestDetail } from '../../../../shared/schemas/germination';
-import { apiFetch } from '../../../lib/api-client';
+import { testDetailSchema, type TestDetail } from '#shared/schemas/germination';
+import { apiFetch } from '#src/lib/api-client';
 import { applyTestDetail } from './apply-test-detail';
-import { bankPaths } from '../../../lib/bank-api';
+import { bankPaths } from '#src/lib/bank-api';
 
 /** DELETE /api/banks/:bankId/tests/:testId/counts/:date (grower): removes one check date's counts. */
 export function deleteCounts(bankId: string, testId: string, date: string): Promise<TestDetail> {

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths, refresh, stale } from '#src/lib/bank-api';
 
 /** Drops a deleted test from the cache, once no page shows it. */
 export function forgetTest(queryClient: QueryClient, bankId: string, testId: string): void {

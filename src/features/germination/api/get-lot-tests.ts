@@ -1,8 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { testDetailSchema } from '../../../../shared/schemas/germination';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { testDetailSchema } from '#shared/schemas/germination';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 export const lotTestsResponseSchema = z.object({ items: z.array(testDetailSchema) });
 export type LotTestsResponse = z.infer<typeof lotTestsResponseSchema>;

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { testDetailSchema, type TestDetail } from '../../../../shared/schemas/germination';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths, type IntervalMethod } from '../../../lib/bank-api';
+import { testDetailSchema, type TestDetail } from '#shared/schemas/germination';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths, type IntervalMethod } from '#src/lib/bank-api';
 
 /** GET /api/banks/:bankId/tests/:testId[?interval=clopper-pearson]: trays, counts and the result. */
 export function getTest(

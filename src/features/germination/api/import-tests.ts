@@ -1,9 +1,9 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { testsImportPreviewSchema } from '../../../../shared/schemas/germination';
-import { apiFetch } from '../../../lib/api-client';
-import { csvForm } from '../../../lib/csv-import';
-import { bankPaths, refresh, stale } from '../../../lib/bank-api';
+import { testsImportPreviewSchema } from '#shared/schemas/germination';
+import { apiFetch } from '#src/lib/api-client';
+import { csvForm } from '#src/lib/csv-import';
+import { bankPaths, refresh, stale } from '#src/lib/bank-api';
 
 const importedSchema = z.object({ imported: z.number() });
 

@@ -1,8 +1,8 @@
 import { useState } from 'react';
-import type { TestDetail } from '../../../../shared/schemas/germination';
-import { cn } from '../../../lib/cn';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
-import { FormAlert } from '../../../components/ui/form-alert';
+import type { TestDetail } from '#shared/schemas/germination';
+import { cn } from '#src/lib/cn';
+import { ConfirmDialog } from '#src/components/ui/confirm-dialog';
+import { FormAlert } from '#src/components/ui/form-alert';
 import { useDeleteCounts } from '../api/delete-counts';
 import { formatPercent, formatShortDate } from './format';
 import { pooledByDate } from './pooled-counts';

@@ -2,18 +2,14 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useId, useState } from 'react';
 import { useForm, useWatch, type FieldErrors, type Path, type UseFormRegister } from 'react-hook-form';
 import { z } from 'zod';
-import { isoDateSchema } from '../../../../shared/schemas/common';
-import {
-  setAsideReasonSchema,
-  type FinishBody,
-  type TestDetail,
-} from '../../../../shared/schemas/germination';
-import { Button } from '../../../components/ui/button';
-import { FormDialog } from '../../../components/ui/dialog';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { TextField } from '../../../components/ui/text-field';
-import { isApiError } from '../../../lib/api-client';
-import { cn } from '../../../lib/cn';
+import { isoDateSchema } from '#shared/schemas/common';
+import { setAsideReasonSchema, type FinishBody, type TestDetail } from '#shared/schemas/germination';
+import { Button } from '#src/components/ui/button';
+import { FormDialog } from '#src/components/ui/dialog';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { TextField } from '#src/components/ui/text-field';
+import { isApiError } from '#src/lib/api-client';
+import { cn } from '#src/lib/cn';
 import { useFinishTest } from '../api/finish-test';
 import { NOT_COUNTED, SOUND_ROOT_AND_SHOOT, UNGERMINATED_KINDS } from './seedling-words';
 

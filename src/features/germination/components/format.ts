@@ -1,4 +1,4 @@
-import type { TestDetail } from '../../../../shared/schemas/germination';
+import type { TestDetail } from '#shared/schemas/germination';
 
 const dateFormat = new Intl.DateTimeFormat('en-GB', {
   day: 'numeric',

@@ -1,6 +1,6 @@
 import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
-import type { TestDetail } from '../../../../shared/schemas/germination';
-import { daysBetween } from '../../../../shared/dates';
+import type { TestDetail } from '#shared/schemas/germination';
+import { daysBetween } from '#shared/dates';
 import { pooledByDate } from './pooled-counts';
 
 // Tray lines in the palette's quieter tones (tailwind.config.ts); the pooled line is the strong moss.

@@ -1,8 +1,8 @@
-import { CsvImport, CsvTable } from '../../../components/ui/csv-import';
-import { formatDay } from '../../../lib/dates';
-import type { TestsImportPreview } from '../../../../shared/schemas/germination';
+import { CsvImport, CsvTable } from '#src/components/ui/csv-import';
+import { formatDay } from '#src/lib/dates';
+import type { TestsImportPreview } from '#shared/schemas/germination';
 import { useImportTests, usePreviewTestsImport } from '../api/import-tests';
-import { bankPaths } from '../../../lib/bank-api';
+import { bankPaths } from '#src/lib/bank-api';
 
 const count = new Intl.NumberFormat('en');
 const testCount = (n: number) => (n === 1 ? '1 germination test' : `${count.format(n)} germination tests`);

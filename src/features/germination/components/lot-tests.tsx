@@ -1,11 +1,11 @@
 import { Link } from 'react-router-dom';
-import type { TestDetail } from '../../../../shared/schemas/germination';
-import { buttonStyles } from '../../../components/ui/button';
-import { EmptyState } from '../../../components/ui/empty-state';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { Loading } from '../../../components/ui/spinner';
-import { paths } from '../../../config/paths';
-import { cn } from '../../../lib/cn';
+import type { TestDetail } from '#shared/schemas/germination';
+import { buttonStyles } from '#src/components/ui/button';
+import { EmptyState } from '#src/components/ui/empty-state';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { Loading } from '#src/components/ui/spinner';
+import { paths } from '#src/config/paths';
+import { cn } from '#src/lib/cn';
 import { useLotTests } from '../api/get-lot-tests';
 import { formatDate, formatPercent, intervalWords } from './format';
 

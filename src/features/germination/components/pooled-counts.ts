@@ -1,4 +1,4 @@
-import type { TestDetail } from '../../../../shared/schemas/germination';
+import type { TestDetail } from '#shared/schemas/germination';
 
 /**
  * The pooled percent of normal seedlings on each check date, by the stored result's rule: the trays

@@ -1,7 +1,7 @@
 import { useId } from 'react';
-import type { TestDetail } from '../../../../shared/schemas/germination';
-import { cn } from '../../../lib/cn';
-import type { IntervalMethod } from '../../../lib/bank-api';
+import type { TestDetail } from '#shared/schemas/germination';
+import { cn } from '#src/lib/cn';
+import type { IntervalMethod } from '#src/lib/bank-api';
 import { formatDays, formatPercent, intervalWords } from './format';
 import { NORMAL_SEEDLING, NOT_COUNTED, sentence, setAsideWords, trayFigures } from './seedling-words';
 

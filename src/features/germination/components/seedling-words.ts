@@ -1,4 +1,4 @@
-import type { TestDetail } from '../../../../shared/schemas/germination';
+import type { TestDetail } from '#shared/schemas/germination';
 
 /*
  * One definition of what a germination test counts, in the grower's words and the seed-testing

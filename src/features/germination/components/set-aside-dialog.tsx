@@ -2,12 +2,12 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useId, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import { setAsideReasonSchema, type TestDetail } from '../../../../shared/schemas/germination';
-import { Button } from '../../../components/ui/button';
-import { FormDialog } from '../../../components/ui/dialog';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { TextField } from '../../../components/ui/text-field';
-import { applyServerError } from '../../../lib/form-errors';
+import { setAsideReasonSchema, type TestDetail } from '#shared/schemas/germination';
+import { Button } from '#src/components/ui/button';
+import { FormDialog } from '#src/components/ui/dialog';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { TextField } from '#src/components/ui/text-field';
+import { applyServerError } from '#src/lib/form-errors';
 import { useSetTrayAside } from '../api/set-tray-aside';
 import { SET_ASIDE_REASONS } from './seedling-words';
 

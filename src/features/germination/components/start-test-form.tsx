@@ -7,15 +7,15 @@ import {
   pretreatmentSchema,
   TEST_METHODS,
   type TestDetail,
-} from '../../../../shared/schemas/germination';
-import { Button } from '../../../components/ui/button';
-import { FieldError } from '../../../components/ui/field';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { SelectField } from '../../../components/ui/select-field';
-import { TextAreaField } from '../../../components/ui/text-area-field';
-import { TextField } from '../../../components/ui/text-field';
-import { isApiError } from '../../../lib/api-client';
-import { cn } from '../../../lib/cn';
+} from '#shared/schemas/germination';
+import { Button } from '#src/components/ui/button';
+import { FieldError } from '#src/components/ui/field';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { SelectField } from '#src/components/ui/select-field';
+import { TextAreaField } from '#src/components/ui/text-area-field';
+import { TextField } from '#src/components/ui/text-field';
+import { isApiError } from '#src/lib/api-client';
+import { cn } from '#src/lib/cn';
 import { useCreateTest } from '../api/create-test';
 import { pretreatmentLabels } from './format';
 import { TestCautions } from './test-cautions';

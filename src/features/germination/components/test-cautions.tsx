@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { Caution } from '../../../components/ui/caution';
+import { Caution } from '#src/components/ui/caution';
 
 export interface TestSetup {
   method: string;

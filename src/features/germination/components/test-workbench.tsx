@@ -1,11 +1,11 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
-import type { TestDetail } from '../../../../shared/schemas/germination';
-import { Card } from '../../../components/ui/card';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { Loading } from '../../../components/ui/spinner';
+import type { TestDetail } from '#shared/schemas/germination';
+import { Card } from '#src/components/ui/card';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { Loading } from '#src/components/ui/spinner';
 import { testQueryOptions } from '../api/get-test';
-import type { IntervalMethod } from '../../../lib/bank-api';
+import type { IntervalMethod } from '#src/lib/bank-api';
 import { CountEntry } from './count-entry';
 import { CountsTable } from './counts-table';
 import { formatDate } from './format';

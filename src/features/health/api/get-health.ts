@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { apiFetch, isApiError } from '../../../lib/api-client';
+import { apiFetch, isApiError } from '#src/lib/api-client';
 
 // TODO(shared): move to shared/ once the server's health schema lives there, and import it here.
 const partStateSchema = z.enum(['up', 'down']);

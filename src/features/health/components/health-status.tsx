@@ -1,7 +1,7 @@
-import { Button } from '../../../components/ui/button';
-import { Card } from '../../../components/ui/card';
-import { Spinner } from '../../../components/ui/spinner';
-import { cn } from '../../../lib/cn';
+import { Button } from '#src/components/ui/button';
+import { Card } from '#src/components/ui/card';
+import { Spinner } from '#src/components/ui/spinner';
+import { cn } from '#src/lib/cn';
 import { useHealth, type Health, type HealthPart } from '../api/get-health';
 
 type PartState = 'up' | 'down' | 'unknown';

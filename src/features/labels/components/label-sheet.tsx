@@ -1,8 +1,8 @@
 import { useState } from 'react';
-import { Button } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { cn } from '../../../lib/cn';
-import { bankPaths } from '../../../lib/bank-api';
+import { Button } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { cn } from '#src/lib/cn';
+import { bankPaths } from '#src/lib/bank-api';
 import { CUT_LINE_MM, LABEL_MM, PAGE_MARGIN_MM, PAPERS, sheetGrid, type Paper } from './paper';
 import { PrinterIcon } from './print-label-link';
 

@@ -1,4 +1,4 @@
-import { idSchema } from '../../../../shared/schemas/common';
+import { idSchema } from '#shared/schemas/common';
 
 /** More than this many labels is more than anyone cuts out in one go; the rest are left off. */
 export const MAX_LABELS = 140;

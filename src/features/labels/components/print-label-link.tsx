@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
-import { buttonStyles } from '../../../components/ui/button';
-import { paths } from '../../../config/paths';
-import { cn } from '../../../lib/cn';
+import { buttonStyles } from '#src/components/ui/button';
+import { paths } from '#src/config/paths';
+import { cn } from '#src/lib/cn';
 
 export interface PrintLabelLinkProps {
   bankId: string;

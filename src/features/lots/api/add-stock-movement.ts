@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { movementSchema, type StockBody } from '../../../../shared/schemas/lots';
-import { apiFetch } from '../../../lib/api-client';
-import { bankPaths, refresh, stale } from '../../../lib/bank-api';
+import { movementSchema, type StockBody } from '#shared/schemas/lots';
+import { apiFetch } from '#src/lib/api-client';
+import { bankPaths, refresh, stale } from '#src/lib/bank-api';
 
 const addedSchema = z.object({ movement: movementSchema, seedsOnHand: z.number() });
 

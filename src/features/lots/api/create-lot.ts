@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateLotBody } from '../../../../shared/schemas/lots';
-import { apiFetch } from '../../../lib/api-client';
+import type { CreateLotBody } from '#shared/schemas/lots';
+import { apiFetch } from '#src/lib/api-client';
 import { lotResponseSchema } from './get-lot';
-import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
+import { bankKeys, bankPaths, refresh, stale } from '#src/lib/bank-api';
 
 /** POST /api/banks/:bankId/lots (grower); 400 with fields, 409 duplicate_code. */
 export async function createLot(bankId: string, body: CreateLotBody) {

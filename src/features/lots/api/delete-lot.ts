@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { lotSchema, type LotDto } from '../../../../shared/schemas/lots';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
+import { lotSchema, type LotDto } from '#shared/schemas/lots';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths, refresh, stale } from '#src/lib/bank-api';
 
 const retiredSchema = z.object({ lot: lotSchema, retired: z.literal(true) });
 

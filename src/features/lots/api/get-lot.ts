@@ -1,8 +1,8 @@
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { lotSchema } from '../../../../shared/schemas/lots';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { lotSchema } from '#shared/schemas/lots';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 export const lotResponseSchema = z.object({ lot: lotSchema });
 

@@ -1,8 +1,8 @@
 import { infiniteQueryOptions, useInfiniteQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { lotSchema } from '../../../../shared/schemas/lots';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths, type LotFilters } from '../../../lib/bank-api';
+import { lotSchema } from '#shared/schemas/lots';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths, type LotFilters } from '#src/lib/bank-api';
 
 export const lotsPageSchema = z.object({ items: z.array(lotSchema), nextCursor: z.string().nullable() });
 export type LotsPage = z.infer<typeof lotsPageSchema>;

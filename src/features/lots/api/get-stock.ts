@@ -1,8 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { movementSchema } from '../../../../shared/schemas/lots';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { movementSchema } from '#shared/schemas/lots';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 export const stockResponseSchema = z.object({ items: z.array(movementSchema), seedsOnHand: z.number() });
 export type StockResponse = z.infer<typeof stockResponseSchema>;

@@ -1,9 +1,9 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { apiFetch } from '../../../lib/api-client';
-import { csvForm } from '../../../lib/csv-import';
-import { bankPaths, refresh, stale } from '../../../lib/bank-api';
-import { lotsImportPreviewSchema, type LotsImportPreview } from '../../../../shared/schemas/lots';
+import { apiFetch } from '#src/lib/api-client';
+import { csvForm } from '#src/lib/csv-import';
+import { bankPaths, refresh, stale } from '#src/lib/bank-api';
+import { lotsImportPreviewSchema, type LotsImportPreview } from '#shared/schemas/lots';
 
 export type ImportPreview = LotsImportPreview;
 const importedSchema = z.object({ imported: z.number() });

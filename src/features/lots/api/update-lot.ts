@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { UpdateLotBody } from '../../../../shared/schemas/lots';
-import { apiFetch } from '../../../lib/api-client';
+import type { UpdateLotBody } from '#shared/schemas/lots';
+import { apiFetch } from '#src/lib/api-client';
 import { lotResponseSchema } from './get-lot';
-import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
+import { bankKeys, bankPaths, refresh, stale } from '#src/lib/bank-api';
 
 /** PATCH /api/banks/:bankId/lots/:lotId (grower): only the fields sent change. */
 export async function updateLot(bankId: string, lotId: string, body: UpdateLotBody) {

@@ -1,8 +1,8 @@
 import { useState } from 'react';
-import type { LotDto } from '../../../../shared/schemas/lots';
-import { Button } from '../../../components/ui/button';
-import { Card } from '../../../components/ui/card';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
+import type { LotDto } from '#shared/schemas/lots';
+import { Button } from '#src/components/ui/button';
+import { Card } from '#src/components/ui/card';
+import { ConfirmDialog } from '#src/components/ui/confirm-dialog';
 import { useDeleteLot, type DeleteLotOutcome } from '../api/delete-lot';
 
 export interface DeleteLotCardProps {

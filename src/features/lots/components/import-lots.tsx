@@ -1,8 +1,8 @@
-import { CsvImport, CsvTable } from '../../../components/ui/csv-import';
-import { paths } from '../../../config/paths';
-import { formatDay } from '../../../lib/dates';
+import { CsvImport, CsvTable } from '#src/components/ui/csv-import';
+import { paths } from '#src/config/paths';
+import { formatDay } from '#src/lib/dates';
 import { useImportLots, usePreviewLotsImport, type ImportPreview } from '../api/import-lots';
-import { bankPaths } from '../../../lib/bank-api';
+import { bankPaths } from '#src/lib/bank-api';
 import { TreatedCaution } from './lot-form-parts';
 import { formatCount } from './lot-format';
 

@@ -1,4 +1,4 @@
-import type { LotDto } from '../../../../shared/schemas/lots';
+import type { LotDto } from '#shared/schemas/lots';
 import { SwapCaution, TreatedCaution } from './lot-form-parts';
 
 /** The cautions a lot itself calls for (treated seed, a swap), for the top of its page. */

@@ -1,15 +1,15 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState, type ReactNode } from 'react';
 import { FormProvider, useForm } from 'react-hook-form';
-import { updateLotBodySchema, type LotDto, type ParentPlantDto } from '../../../../shared/schemas/lots';
-import { Button } from '../../../components/ui/button';
-import { Card } from '../../../components/ui/card';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { SelectField } from '../../../components/ui/select-field';
-import { TextField } from '../../../components/ui/text-field';
-import { isApiError } from '../../../lib/api-client';
-import { formatDay } from '../../../lib/dates';
-import { applyServerError } from '../../../lib/form-errors';
+import { updateLotBodySchema, type LotDto, type ParentPlantDto } from '#shared/schemas/lots';
+import { Button } from '#src/components/ui/button';
+import { Card } from '#src/components/ui/card';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { SelectField } from '#src/components/ui/select-field';
+import { TextField } from '#src/components/ui/text-field';
+import { isApiError } from '#src/lib/api-client';
+import { formatDay } from '#src/lib/dates';
+import { applyServerError } from '#src/lib/form-errors';
 import { useUpdateLot } from '../api/update-lot';
 import {
   HarvestDateField,

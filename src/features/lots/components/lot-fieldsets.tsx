@@ -1,10 +1,10 @@
 import type { ReactNode } from 'react';
 import { useController, useFormContext, useWatch } from 'react-hook-form';
 import type { z } from 'zod';
-import type { ParentPlantDto, updateLotBodySchema } from '../../../../shared/schemas/lots';
-import { SelectField } from '../../../components/ui/select-field';
-import { TextAreaField } from '../../../components/ui/text-area-field';
-import { TextField, type TextFieldProps } from '../../../components/ui/text-field';
+import type { ParentPlantDto, updateLotBodySchema } from '#shared/schemas/lots';
+import { SelectField } from '#src/components/ui/select-field';
+import { TextAreaField } from '#src/components/ui/text-area-field';
+import { TextField, type TextFieldProps } from '#src/components/ui/text-field';
 import { storageLabels, type StoragePlace } from './lot-format';
 import {
   emptyToNull,

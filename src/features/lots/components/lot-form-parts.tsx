@@ -1,9 +1,9 @@
 import type { ReactNode } from 'react';
 import type { UseFormRegisterReturn } from 'react-hook-form';
-import type { ParentPlantDto } from '../../../../shared/schemas/lots';
-import { Caution } from '../../../components/ui/caution';
-import { FieldError } from '../../../components/ui/field';
-import { cn } from '../../../lib/cn';
+import type { ParentPlantDto } from '#shared/schemas/lots';
+import { Caution } from '#src/components/ui/caution';
+import { FieldError } from '#src/components/ui/field';
+import { cn } from '#src/lib/cn';
 
 /** Empty boxes leave a number out (undefined); anything else is read as a number. */
 export const numberOrUndefined = (value: unknown) =>

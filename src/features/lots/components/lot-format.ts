@@ -1,12 +1,7 @@
 import type { z } from 'zod';
-import type {
-  LotDto,
-  movementKindSchema,
-  originSchema,
-  storagePlaceSchema,
-} from '../../../../shared/schemas/lots';
-import { formatDay } from '../../../lib/dates';
-import type { LotStatus } from '../../../lib/bank-api';
+import type { LotDto, movementKindSchema, originSchema, storagePlaceSchema } from '#shared/schemas/lots';
+import { formatDay } from '#src/lib/dates';
+import type { LotStatus } from '#src/lib/bank-api';
 
 export type Origin = z.infer<typeof originSchema>;
 export type StoragePlace = z.infer<typeof storagePlaceSchema>;

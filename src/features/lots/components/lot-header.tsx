@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
-import type { LotDto } from '../../../../shared/schemas/lots';
-import { PageHeader } from '../../../components/ui/page-header';
+import type { LotDto } from '#shared/schemas/lots';
+import { PageHeader } from '#src/components/ui/page-header';
 import { seedsLabel } from './lot-format';
 import { StatusBadge } from './status-badge';
 

@@ -3,17 +3,17 @@ import { useEffect, useMemo, useState, type ReactNode } from 'react';
 import { FormProvider, useForm, useFormContext, useWatch } from 'react-hook-form';
 import type { z } from 'zod';
 import { Link } from 'react-router-dom';
-import { createLotBodySchema, type LotDto, type ParentPlantDto } from '../../../../shared/schemas/lots';
-import type { SpeciesDto } from '../../../../shared/schemas/species';
-import { Button } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { PhotoPicker } from '../../../components/ui/photo-picker';
-import { ProgressBar } from '../../../components/ui/progress-bar';
-import { SpeciesPicker } from '../../../components/ui/species-picker';
-import { TextField } from '../../../components/ui/text-field';
-import { paths } from '../../../config/paths';
-import { isApiError } from '../../../lib/api-client';
-import { applyServerError } from '../../../lib/form-errors';
+import { createLotBodySchema, type LotDto, type ParentPlantDto } from '#shared/schemas/lots';
+import type { SpeciesDto } from '#shared/schemas/species';
+import { Button } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { PhotoPicker } from '#src/components/ui/photo-picker';
+import { ProgressBar } from '#src/components/ui/progress-bar';
+import { SpeciesPicker } from '#src/components/ui/species-picker';
+import { TextField } from '#src/components/ui/text-field';
+import { paths } from '#src/config/paths';
+import { isApiError } from '#src/lib/api-client';
+import { applyServerError } from '#src/lib/form-errors';
 import { useCreateLot } from '../api/create-lot';
 import {
   HarvestDateField,

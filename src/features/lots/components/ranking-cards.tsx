@@ -2,13 +2,13 @@ import type { Table } from '@tanstack/react-table';
 import { useWindowVirtualizer } from '@tanstack/react-virtual';
 import { useLayoutEffect, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
-import type { RankingItem } from '../../../../shared/schemas/viability';
-import { cn } from '../../../lib/cn';
-import { formatDay } from '../../../lib/dates';
-import { ProjectionBar } from '../../../components/viability/projection-bar';
-import { RecommendationButton } from '../../../components/viability/recommendation-badge';
+import type { RankingItem } from '#shared/schemas/viability';
+import { cn } from '#src/lib/cn';
+import { formatDay } from '#src/lib/dates';
+import { ProjectionBar } from '#src/components/viability/projection-bar';
+import { RecommendationButton } from '#src/components/viability/recommendation-badge';
 import { Thumb } from './ranking-columns';
-import { formatCount, pct, years } from '../../../components/viability/viability-format';
+import { formatCount, pct, years } from '#src/components/viability/viability-format';
 
 export interface RankingCardsProps {
   table: Table<RankingItem>;

@@ -1,10 +1,10 @@
 import { createColumnHelper, type Column } from '@tanstack/react-table';
 import { Link } from 'react-router-dom';
-import type { RankingItem } from '../../../../shared/schemas/viability';
-import { cn } from '../../../lib/cn';
-import { formatDay } from '../../../lib/dates';
-import { ProjectionBar } from '../../../components/viability/projection-bar';
-import { RecommendationButton } from '../../../components/viability/recommendation-badge';
+import type { RankingItem } from '#shared/schemas/viability';
+import { cn } from '#src/lib/cn';
+import { formatDay } from '#src/lib/dates';
+import { ProjectionBar } from '#src/components/viability/projection-bar';
+import { RecommendationButton } from '#src/components/viability/recommendation-badge';
 import type { RankingColumnId } from './ranking-search';
 import {
   days,
@@ -12,7 +12,7 @@ import {
   pct,
   recommendationOrder,
   years,
-} from '../../../components/viability/viability-format';
+} from '#src/components/viability/viability-format';
 
 export interface RankingColumnMeta {
   /** The column's name in the visibility menu and the phone's sort picker. */

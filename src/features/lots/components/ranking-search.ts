@@ -1,9 +1,9 @@
 import type { SortingState } from '@tanstack/react-table';
 import { z } from 'zod';
-import { idSchema } from '../../../../shared/schemas/common';
-import { originSchema } from '../../../../shared/schemas/lots';
-import { recommendationSchema, type RecommendationValue } from '../../../../shared/schemas/viability';
-import { parseSowingDate } from '../../../lib/sowing-date';
+import { idSchema } from '#shared/schemas/common';
+import { originSchema } from '#shared/schemas/lots';
+import { recommendationSchema, type RecommendationValue } from '#shared/schemas/viability';
+import { parseSowingDate } from '#src/lib/sowing-date';
 
 /** The ranking's columns, by the ids the address uses. */
 export const rankingColumnIds = [

@@ -1,8 +1,8 @@
 import { flexRender, type Table } from '@tanstack/react-table';
 import { useVirtualizer } from '@tanstack/react-virtual';
 import { useRef } from 'react';
-import type { RankingItem } from '../../../../shared/schemas/viability';
-import { cn } from '../../../lib/cn';
+import type { RankingItem } from '#shared/schemas/viability';
+import { cn } from '#src/lib/cn';
 import { columnMeta } from './ranking-columns';
 
 /** Every row is this tall, so the virtualizer can place rows without measuring them. */

@@ -1,13 +1,13 @@
 import type { Table } from '@tanstack/react-table';
 import { useEffect, useRef, useState } from 'react';
-import type { RankingItem } from '../../../../shared/schemas/viability';
-import { SelectField } from '../../../components/ui/select-field';
-import { TextField } from '../../../components/ui/text-field';
+import type { RankingItem } from '#shared/schemas/viability';
+import { SelectField } from '#src/components/ui/select-field';
+import { TextField } from '#src/components/ui/text-field';
 import { columnMeta } from './ranking-columns';
 import { rankingStatusSchema, type RankingColumnId, type RankingView } from './ranking-search';
-import { recommendationLabels, recommendationOrder } from '../../../components/viability/viability-format';
-import { originSchema } from '../../../../shared/schemas/lots';
-import { recommendationSchema } from '../../../../shared/schemas/viability';
+import { recommendationLabels, recommendationOrder } from '#src/components/viability/viability-format';
+import { originSchema } from '#shared/schemas/lots';
+import { recommendationSchema } from '#shared/schemas/viability';
 
 export interface RankingToolbarProps {
   view: RankingView;

@@ -9,15 +9,15 @@ import {
 } from '@tanstack/react-table';
 import { useCallback, useMemo, useState, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router-dom';
-import type { RankingItem } from '../../../../shared/schemas/viability';
-import { Button } from '../../../components/ui/button';
-import { EmptyState } from '../../../components/ui/empty-state';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { SelectField } from '../../../components/ui/select-field';
-import { Loading } from '../../../components/ui/spinner';
-import { paths } from '../../../config/paths';
-import { formatDay } from '../../../lib/dates';
-import { useMediaQuery } from '../../../lib/use-media-query';
+import type { RankingItem } from '#shared/schemas/viability';
+import { Button } from '#src/components/ui/button';
+import { EmptyState } from '#src/components/ui/empty-state';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { SelectField } from '#src/components/ui/select-field';
+import { Loading } from '#src/components/ui/spinner';
+import { paths } from '#src/config/paths';
+import { formatDay } from '#src/lib/dates';
+import { useMediaQuery } from '#src/lib/use-media-query';
 import { useRanking } from '../api/get-ranking';
 import { RankingCards } from './ranking-cards';
 import { rankingColumns } from './ranking-columns';
@@ -25,8 +25,8 @@ import { DEFAULT_SORTING, searchFromView, viewFromSearch, type RankingView as Vi
 import { RankingTable } from './ranking-table';
 import { ColumnsMenu, RankingToolbar } from './ranking-toolbar';
 import { ReasonPopover, type OpenReason } from './reason-popover';
-import { defaultSowingDate } from '../../../lib/sowing-date';
-import { formatCount } from '../../../components/viability/viability-format';
+import { defaultSowingDate } from '#src/lib/sowing-date';
+import { formatCount } from '#src/components/viability/viability-format';
 
 export interface RankingViewProps {
   bankId: string;

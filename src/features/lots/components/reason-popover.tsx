@@ -1,6 +1,6 @@
 import { useEffect, useLayoutEffect, useRef } from 'react';
-import type { RankingItem } from '../../../../shared/schemas/viability';
-import { RecommendationBadge } from '../../../components/viability/recommendation-badge';
+import type { RankingItem } from '#shared/schemas/viability';
+import { RecommendationBadge } from '#src/components/viability/recommendation-badge';
 
 export interface OpenReason {
   item: RankingItem;

@@ -1,5 +1,5 @@
-import { cn } from '../../../lib/cn';
-import type { LotStatus } from '../../../lib/bank-api';
+import { cn } from '#src/lib/cn';
+import type { LotStatus } from '#src/lib/bank-api';
 import { statusLabels } from './lot-format';
 
 const looks: Record<LotStatus, string> = {

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { overviewSchema } from '../../../../shared/schemas/overview';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { overviewSchema } from '#shared/schemas/overview';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 /** GET /api/banks/:bankId/overview[?on=YYYY-MM-DD]: what needs doing in the week from that day. */
 export function getOverview(bankId: string, on?: string, { signal }: { signal?: AbortSignal } = {}) {

@@ -1,9 +1,9 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { buttonStyles } from '../../../components/ui/button';
-import { Card } from '../../../components/ui/card';
-import { paths } from '../../../config/paths';
-import { cn } from '../../../lib/cn';
+import { buttonStyles } from '#src/components/ui/button';
+import { Card } from '#src/components/ui/card';
+import { paths } from '#src/config/paths';
+import { cn } from '#src/lib/cn';
 
 export interface FirstStepsProps {
   bankId: string;

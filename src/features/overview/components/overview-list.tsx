@@ -1,6 +1,6 @@
 import { useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { cn } from '../../../lib/cn';
+import { cn } from '#src/lib/cn';
 
 export type BadgeTone = 'urgent' | 'now' | 'later';
 

@@ -1,7 +1,7 @@
-import type { Overview } from '../../../../shared/schemas/overview';
-import { Card } from '../../../components/ui/card';
-import { paths } from '../../../config/paths';
-import { daysBetween } from '../../../../shared/dates';
+import type { Overview } from '#shared/schemas/overview';
+import { Card } from '#src/components/ui/card';
+import { paths } from '#src/config/paths';
+import { daysBetween } from '#shared/dates';
 import { formatCount, plural, weekDay } from './overview-format';
 import { Badge, CardEmpty, NextLink, OverviewList, type OverviewRow } from './overview-list';
 

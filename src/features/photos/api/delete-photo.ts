@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiFetch } from '../../../lib/api-client';
-import { bankPaths, refresh, stale, type PhotoSubject } from '../../../lib/bank-api';
+import { apiFetch } from '#src/lib/api-client';
+import { bankPaths, refresh, stale, type PhotoSubject } from '#src/lib/bank-api';
 
 /** DELETE /api/banks/:bankId/photos/:photoId (grower) → 204; the stored images go too. */
 export async function deletePhoto(bankId: string, photoId: string): Promise<void> {

@@ -1,8 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { photoSchema } from '../../../../shared/schemas/lots';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths, type PhotoSubject } from '../../../lib/bank-api';
+import { photoSchema } from '#shared/schemas/lots';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths, type PhotoSubject } from '#src/lib/bank-api';
 
 const photosResponseSchema = z.object({ items: z.array(photoSchema) });
 

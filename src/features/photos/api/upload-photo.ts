@@ -1,9 +1,9 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { photoSchema } from '../../../../shared/schemas/lots';
-import { isApiError } from '../../../lib/api-client';
-import { uploadWithProgress } from '../../../lib/upload';
-import { bankPaths, refresh, stale, type PhotoSubject } from '../../../lib/bank-api';
+import { photoSchema } from '#shared/schemas/lots';
+import { isApiError } from '#src/lib/api-client';
+import { uploadWithProgress } from '#src/lib/upload';
+import { bankPaths, refresh, stale, type PhotoSubject } from '#src/lib/bank-api';
 
 const uploadedSchema = z.object({ photo: photoSchema });
 

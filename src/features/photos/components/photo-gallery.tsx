@@ -1,15 +1,15 @@
 import { useState } from 'react';
-import type { PhotoDto } from '../../../../shared/schemas/lots';
-import { Button } from '../../../components/ui/button';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
-import { Dialog } from '../../../components/ui/dialog';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { PhotoPicker } from '../../../components/ui/photo-picker';
-import { ProgressBar } from '../../../components/ui/progress-bar';
-import { Loading } from '../../../components/ui/spinner';
+import type { PhotoDto } from '#shared/schemas/lots';
+import { Button } from '#src/components/ui/button';
+import { ConfirmDialog } from '#src/components/ui/confirm-dialog';
+import { Dialog } from '#src/components/ui/dialog';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { PhotoPicker } from '#src/components/ui/photo-picker';
+import { ProgressBar } from '#src/components/ui/progress-bar';
+import { Loading } from '#src/components/ui/spinner';
 import { useDeletePhoto } from '../api/delete-photo';
 import { usePhotos } from '../api/get-photos';
-import type { PhotoSubject } from '../../../lib/bank-api';
+import type { PhotoSubject } from '#src/lib/bank-api';
 import { isRetryable, uploadFailureMessage, useUploadPhoto } from '../api/upload-photo';
 
 /** An upload that failed before this page opened (the new-lot form hands it over). */

@@ -1,9 +1,9 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { planEntrySchema, type CreatePlanBody } from '../../../../shared/schemas/plan';
-import { apiFetch } from '../../../lib/api-client';
+import { planEntrySchema, type CreatePlanBody } from '#shared/schemas/plan';
+import { apiFetch } from '#src/lib/api-client';
 import { putEntry, refreshAfterPlanChange } from './invalidate-plan';
-import { bankPaths } from '../../../lib/bank-api';
+import { bankPaths } from '#src/lib/bank-api';
 
 export const planEntryResponseSchema = z.object({ entry: planEntrySchema });
 

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { PlanEntryDto } from '../../../../shared/schemas/plan';
-import { apiFetch } from '../../../lib/api-client';
+import type { PlanEntryDto } from '#shared/schemas/plan';
+import { apiFetch } from '#src/lib/api-client';
 import { refreshAfterPlanChange } from './invalidate-plan';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 /** DELETE /api/banks/:bankId/plan/:entryId (grower) → 204; 409 already_sown while it is sown. */
 export async function deletePlanEntry(bankId: string, entryId: string): Promise<void> {

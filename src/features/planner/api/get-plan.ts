@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { planListResponseSchema } from '../../../../shared/schemas/plan';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { planListResponseSchema } from '#shared/schemas/plan';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 /** GET /api/banks/:bankId/plan?season=YYYY: the season's entries, earliest sowing first. */
 export async function getPlan(bankId: string, season: number, { signal }: { signal?: AbortSignal } = {}) {

@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { rankingQueryOptions } from '../../../lib/queries/lot-queries';
+import { rankingQueryOptions } from '#src/lib/queries/lot-queries';
 
 export { rankingQueryOptions };
 

@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { seedsToSowQueryOptions } from '../../../lib/queries/lot-queries';
+import { seedsToSowQueryOptions } from '#src/lib/queries/lot-queries';
 
 /** Only asks once there is a lot, a whole number of plants and a sowing day (at the bank's assurance). */
 export function useSeedsToSow(bankId: string, lotId: string, plants: number, on: string | undefined) {

@@ -1,6 +1,6 @@
 import type { QueryClient } from '@tanstack/react-query';
-import type { PlanEntryDto } from '../../../../shared/schemas/plan';
-import { bankKeys, refresh, stale } from '../../../lib/bank-api';
+import type { PlanEntryDto } from '#shared/schemas/plan';
+import { bankKeys, refresh, stale } from '#src/lib/bank-api';
 
 /**
  * After a plan change: the season's entries and the overview's sowings due, and — when the entry's

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiFetch } from '../../../lib/api-client';
+import { apiFetch } from '#src/lib/api-client';
 import { planEntryResponseSchema } from './create-plan-entry';
 import { putEntry, refreshAfterPlanChange } from './invalidate-plan';
-import { bankPaths } from '../../../lib/bank-api';
+import { bankPaths } from '#src/lib/bank-api';
 
 /** DELETE /api/banks/:bankId/plan/:entryId/sown (grower): the seeds go back into the lot's stock. */
 export async function undoSown(bankId: string, entryId: string) {

@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import type { updatePlanBodySchema } from '../../../../shared/schemas/plan';
-import { apiFetch } from '../../../lib/api-client';
+import type { updatePlanBodySchema } from '#shared/schemas/plan';
+import { apiFetch } from '#src/lib/api-client';
 import { planEntryResponseSchema } from './create-plan-entry';
 import { putEntry, refreshAfterPlanChange } from './invalidate-plan';
-import { bankPaths } from '../../../lib/bank-api';
+import { bankPaths } from '#src/lib/bank-api';
 
 export type UpdatePlanBody = z.input<typeof updatePlanBodySchema>;
 

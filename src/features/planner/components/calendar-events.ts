@@ -1,6 +1,6 @@
-import { addDays } from '../../../../shared/dates';
-import type { PlanEntryDto } from '../../../../shared/schemas/plan';
-import type { RankingItem } from '../../../../shared/schemas/viability';
+import { addDays } from '#shared/dates';
+import type { PlanEntryDto } from '#shared/schemas/plan';
+import type { RankingItem } from '#shared/schemas/viability';
 import { formatSeeds } from './plan-format';
 
 export type CalendarKind = 'sow' | 'sprout' | 'harden' | 'plant-out' | 'sown' | 'retest';

@@ -1,4 +1,4 @@
-import { addDays, frostDateIn, weekdayOf } from '../../../../shared/dates';
+import { addDays, frostDateIn, weekdayOf } from '#shared/dates';
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 const LONG_MONTHS = [

@@ -1,5 +1,5 @@
-import type { SpeciesTraits } from '../../../../shared/schemas/species';
-import type { RankingItem } from '../../../../shared/schemas/viability';
+import type { SpeciesTraits } from '#shared/schemas/species';
+import type { RankingItem } from '#shared/schemas/viability';
 import { formatSeeds } from './plan-format';
 
 /** Indoors or direct to start with: what the species' traits say is usual. */

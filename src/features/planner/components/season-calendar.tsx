@@ -1,4 +1,4 @@
-import { cn } from '../../../lib/cn';
+import { cn } from '#src/lib/cn';
 import { KIND_LABELS, type CalendarEvent, type CalendarKind } from './calendar-events';
 import {
   dayMonth,

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { parentPlantSchema, type createPlantBodySchema } from '../../../../shared/schemas/lots';
-import { apiFetch } from '../../../lib/api-client';
-import { bankPaths, refresh, stale } from '../../../lib/bank-api';
+import { parentPlantSchema, type createPlantBodySchema } from '#shared/schemas/lots';
+import { apiFetch } from '#src/lib/api-client';
+import { bankPaths, refresh, stale } from '#src/lib/bank-api';
 
 export type CreatePlantBody = z.infer<typeof createPlantBodySchema>;
 export const plantResponseSchema = z.object({ plant: parentPlantSchema });

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiFetch } from '../../../lib/api-client';
-import { bankPaths, refresh, stale } from '../../../lib/bank-api';
+import { apiFetch } from '#src/lib/api-client';
+import { bankPaths, refresh, stale } from '#src/lib/bank-api';
 
 /** DELETE /api/banks/:bankId/plants/:plantId (grower) → 204; lots keep their seed, lose the link. */
 export async function deletePlant(bankId: string, plantId: string): Promise<void> {

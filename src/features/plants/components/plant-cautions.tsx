@@ -1,5 +1,5 @@
-import type { ParentPlantDto } from '../../../../shared/schemas/lots';
-import { Caution } from '../../../components/ui/caution';
+import type { ParentPlantDto } from '#shared/schemas/lots';
+import { Caution } from '#src/components/ui/caution';
 
 /** The server's seed-saving cautions for a plant (F1 hybrid, outcrossing, poisonous). */
 export function PlantCautions({ plant }: { plant: Pick<ParentPlantDto, 'cautions' | 'label'> }) {

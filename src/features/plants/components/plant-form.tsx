@@ -1,16 +1,16 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
-import { createPlantBodySchema, type ParentPlantDto } from '../../../../shared/schemas/lots';
-import type { SpeciesDto } from '../../../../shared/schemas/species';
-import { Button } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { PhotoPicker } from '../../../components/ui/photo-picker';
-import { ProgressBar } from '../../../components/ui/progress-bar';
-import { SpeciesPicker } from '../../../components/ui/species-picker';
-import { TextAreaField } from '../../../components/ui/text-area-field';
-import { TextField } from '../../../components/ui/text-field';
-import { applyServerError } from '../../../lib/form-errors';
+import { createPlantBodySchema, type ParentPlantDto } from '#shared/schemas/lots';
+import type { SpeciesDto } from '#shared/schemas/species';
+import { Button } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { PhotoPicker } from '#src/components/ui/photo-picker';
+import { ProgressBar } from '#src/components/ui/progress-bar';
+import { SpeciesPicker } from '#src/components/ui/species-picker';
+import { TextAreaField } from '#src/components/ui/text-area-field';
+import { TextField } from '#src/components/ui/text-field';
+import { applyServerError } from '#src/lib/form-errors';
 import { useCreatePlant } from '../api/create-plant';
 import { HybridCaution } from './plant-cautions';
 

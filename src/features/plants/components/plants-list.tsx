@@ -1,7 +1,7 @@
 import { useState } from 'react';
-import type { ParentPlantDto } from '../../../../shared/schemas/lots';
-import { Button } from '../../../components/ui/button';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
+import type { ParentPlantDto } from '#shared/schemas/lots';
+import { Button } from '#src/components/ui/button';
+import { ConfirmDialog } from '#src/components/ui/confirm-dialog';
 import { useDeletePlant } from '../api/delete-plant';
 import { PlantCautions } from './plant-cautions';
 

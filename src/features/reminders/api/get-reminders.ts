@@ -1,8 +1,8 @@
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { reminderPrefsSchema } from '../../../../shared/schemas/reminders';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { reminderPrefsSchema } from '#shared/schemas/reminders';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 export const remindersResponseSchema = z.object({ preferences: reminderPrefsSchema });
 

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { ReminderPrefs } from '../../../../shared/schemas/reminders';
-import { apiFetch } from '../../../lib/api-client';
+import type { ReminderPrefs } from '#shared/schemas/reminders';
+import { apiFetch } from '#src/lib/api-client';
 import { remindersResponseSchema } from './get-reminders';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 /** PATCH /api/banks/:bankId/reminders with the choices that change → the member's full choices. */
 export async function updateReminders(bankId: string, body: Partial<ReminderPrefs>) {

@@ -1,8 +1,8 @@
 import { useState } from 'react';
-import { reminderPrefsBodySchema, type ReminderPrefs } from '../../../../shared/schemas/reminders';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { Spinner } from '../../../components/ui/spinner';
-import { cn } from '../../../lib/cn';
+import { reminderPrefsBodySchema, type ReminderPrefs } from '#shared/schemas/reminders';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { Spinner } from '#src/components/ui/spinner';
+import { cn } from '#src/lib/cn';
 import { useReminders } from '../api/get-reminders';
 import { useUpdateReminders } from '../api/update-reminders';
 

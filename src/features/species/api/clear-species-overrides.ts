@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { SpeciesDto } from '../../../../shared/schemas/species';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
+import type { SpeciesDto } from '#shared/schemas/species';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths, refresh, stale } from '#src/lib/bank-api';
 import { replaceInList, speciesResponseSchema } from './update-species-traits';
 
 /** DELETE /api/banks/:bankId/species/:speciesId/overrides (grower): back to the reference values. */

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateSpeciesBody, SpeciesDto } from '../../../../shared/schemas/species';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import type { CreateSpeciesBody, SpeciesDto } from '#shared/schemas/species';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 import { speciesResponseSchema } from './update-species-traits';
 
 /** POST /api/banks/:bankId/species (grower): a species of this bank's own, beside the reference set. */

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { speciesListResponseSchema } from '../../../../shared/schemas/species';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { speciesListResponseSchema } from '#shared/schemas/species';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 /** GET /api/banks/:bankId/species: the reference set plus the bank's own species. */
 export async function getSpecies(bankId: string, { signal }: { signal?: AbortSignal } = {}) {

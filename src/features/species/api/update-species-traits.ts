@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { speciesSchema, type SpeciesDto, type SpeciesTraits } from '../../../../shared/schemas/species';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths, refresh, stale } from '../../../lib/bank-api';
+import { speciesSchema, type SpeciesDto, type SpeciesTraits } from '#shared/schemas/species';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths, refresh, stale } from '#src/lib/bank-api';
 
 export const speciesResponseSchema = z.object({ species: speciesSchema });
 

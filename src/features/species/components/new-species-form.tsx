@@ -1,11 +1,11 @@
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
-import { createSpeciesBodySchema, type SpeciesDto } from '../../../../shared/schemas/species';
-import { Button } from '../../../components/ui/button';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { SelectField } from '../../../components/ui/select-field';
-import { TextField } from '../../../components/ui/text-field';
-import { applyServerError } from '../../../lib/form-errors';
+import { createSpeciesBodySchema, type SpeciesDto } from '#shared/schemas/species';
+import { Button } from '#src/components/ui/button';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { SelectField } from '#src/components/ui/select-field';
+import { TextField } from '#src/components/ui/text-field';
+import { applyServerError } from '#src/lib/form-errors';
 import { useCreateSpecies } from '../api/create-species';
 
 const numberOrNull = (value: string) => (value.trim() === '' ? null : Number(value));

@@ -1,5 +1,5 @@
-import type { SpeciesDto } from '../../../../shared/schemas/species';
-import { Caution } from '../../../components/ui/caution';
+import type { SpeciesDto } from '#shared/schemas/species';
+import { Caution } from '#src/components/ui/caution';
 
 const DEFAULT_POISON_NOTE =
   'Seed or plants of this species are harmful if eaten. Keep seed and plants away from children and pets.';

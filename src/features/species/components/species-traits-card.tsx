@@ -1,16 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import {
-  overrideTraitsBodySchema,
-  type SpeciesDto,
-  type TraitName,
-} from '../../../../shared/schemas/species';
-import { Button } from '../../../components/ui/button';
-import { Card } from '../../../components/ui/card';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { TextField } from '../../../components/ui/text-field';
-import { applyServerError } from '../../../lib/form-errors';
+import { overrideTraitsBodySchema, type SpeciesDto, type TraitName } from '#shared/schemas/species';
+import { Button } from '#src/components/ui/button';
+import { Card } from '#src/components/ui/card';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { TextField } from '#src/components/ui/text-field';
+import { applyServerError } from '#src/lib/form-errors';
 import { useClearSpeciesOverrides } from '../api/clear-species-overrides';
 import { useUpdateSpeciesTraits } from '../api/update-species-traits';
 import { SpeciesCautions } from './species-cautions';

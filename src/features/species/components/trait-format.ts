@@ -1,4 +1,4 @@
-import type { SpeciesTraits, TraitName } from '../../../../shared/schemas/species';
+import type { SpeciesTraits, TraitName } from '#shared/schemas/species';
 
 const lightWords: Record<NonNullable<SpeciesTraits['light']>, string> = {
   light: 'Needs light: press onto the surface, do not cover',

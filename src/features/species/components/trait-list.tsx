@@ -1,4 +1,4 @@
-import type { SpeciesDto } from '../../../../shared/schemas/species';
+import type { SpeciesDto } from '#shared/schemas/species';
 import { basisWords, traitRows } from './trait-format';
 
 /** A small mark beside a value the bank set for itself. */

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { planEntrySchema, type CreatePlanBody } from '../../../../shared/schemas/plan';
-import { apiFetch } from '../../../lib/api-client';
-import { bankPaths, refresh, stale } from '../../../lib/bank-api';
+import { planEntrySchema, type CreatePlanBody } from '#shared/schemas/plan';
+import { apiFetch } from '#src/lib/api-client';
+import { bankPaths, refresh, stale } from '#src/lib/bank-api';
 
 const createdSchema = z.object({ entry: planEntrySchema });
 

@@ -1,7 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { viabilityResponseSchema } from '../../../../shared/schemas/viability';
-import { apiFetch } from '../../../lib/api-client';
-import { bankKeys, bankPaths } from '../../../lib/bank-api';
+import { viabilityResponseSchema } from '#shared/schemas/viability';
+import { apiFetch } from '#src/lib/api-client';
+import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
 /** GET /api/banks/:bankId/lots/:lotId/viability?on=: the lot's fitted decline and its tests. */
 export function getLotViability(

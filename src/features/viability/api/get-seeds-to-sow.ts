@@ -1,6 +1,6 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
-import type { SeedsToSowQuery } from '../../../lib/bank-api';
-import { seedsToSowQueryOptions } from '../../../lib/queries/lot-queries';
+import type { SeedsToSowQuery } from '#src/lib/bank-api';
+import { seedsToSowQueryOptions } from '#src/lib/queries/lot-queries';
 
 /** The calculator keeps its last answer on screen while a changed number loads. */
 export function useSeedsToSow(bankId: string, lotId: string, query: SeedsToSowQuery | null) {

@@ -1,15 +1,15 @@
 import { lazy, Suspense, type ReactNode } from 'react';
-import type { ViabilityResponse } from '../../../../shared/schemas/viability';
-import { seedAgeYears } from '../../../../shared/seed-age';
-import { wilsonScoreInterval } from '../../../../shared/wilson';
-import { Card } from '../../../components/ui/card';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { Loading } from '../../../components/ui/spinner';
-import { formatDay } from '../../../lib/dates';
+import type { ViabilityResponse } from '#shared/schemas/viability';
+import { seedAgeYears } from '#shared/seed-age';
+import { wilsonScoreInterval } from '#shared/wilson';
+import { Card } from '#src/components/ui/card';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { Loading } from '#src/components/ui/spinner';
+import { formatDay } from '#src/lib/dates';
 import { useLotViability } from '../api/get-lot-viability';
 import type { SetAsidePoint } from './decline-chart';
 import { TestMark, type TestKind } from './test-mark';
-import { basisWords, pct, retestReasonWords, years } from '../../../components/viability/viability-format';
+import { basisWords, pct, retestReasonWords, years } from '#src/components/viability/viability-format';
 
 // The chart library loads with the chart, not with the app.
 const DeclineChart = lazy(() => import('./decline-chart'));

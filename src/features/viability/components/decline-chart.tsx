@@ -10,11 +10,11 @@ import {
   XAxis,
   YAxis,
 } from 'recharts';
-import type { ViabilityResponse } from '../../../../shared/schemas/viability';
-import { wilsonScoreInterval } from '../../../../shared/wilson';
-import { formatDay } from '../../../lib/dates';
+import type { ViabilityResponse } from '#shared/schemas/viability';
+import { wilsonScoreInterval } from '#shared/wilson';
+import { formatDay } from '#src/lib/dates';
 import { ASIDE, DOT, TestMark, type TestKind } from './test-mark';
-import { formatCount, pct, years } from '../../../components/viability/viability-format';
+import { formatCount, pct, years } from '#src/components/viability/viability-format';
 
 // Palette values from tailwind.config.ts (recharts draws with plain colours).
 const CURVE = '#324520'; // moss-800

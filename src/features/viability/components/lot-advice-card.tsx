@@ -1,12 +1,12 @@
-import type { ViabilityResponse } from '../../../../shared/schemas/viability';
-import { Card } from '../../../components/ui/card';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { Loading } from '../../../components/ui/spinner';
-import { formatDay } from '../../../lib/dates';
+import type { ViabilityResponse } from '#shared/schemas/viability';
+import { Card } from '#src/components/ui/card';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { Loading } from '#src/components/ui/spinner';
+import { formatDay } from '#src/lib/dates';
 import { useLotViability } from '../api/get-lot-viability';
-import { ProjectionBar } from '../../../components/viability/projection-bar';
-import { RecommendationBadge } from '../../../components/viability/recommendation-badge';
-import { pct } from '../../../components/viability/viability-format';
+import { ProjectionBar } from '#src/components/viability/projection-bar';
+import { RecommendationBadge } from '#src/components/viability/recommendation-badge';
+import { pct } from '#src/components/viability/viability-format';
 
 export interface LotAdviceCardProps {
   bankId: string;

@@ -1,21 +1,21 @@
 import { useEffect, useId, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { z } from 'zod';
-import { Button } from '../../../components/ui/button';
-import { Card } from '../../../components/ui/card';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { SelectField } from '../../../components/ui/select-field';
-import { Spinner } from '../../../components/ui/spinner';
-import { TextField } from '../../../components/ui/text-field';
-import { paths } from '../../../config/paths';
-import { isApiError } from '../../../lib/api-client';
-import { cn } from '../../../lib/cn';
-import { formatDay } from '../../../lib/dates';
+import { Button } from '#src/components/ui/button';
+import { Card } from '#src/components/ui/card';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { SelectField } from '#src/components/ui/select-field';
+import { Spinner } from '#src/components/ui/spinner';
+import { TextField } from '#src/components/ui/text-field';
+import { paths } from '#src/config/paths';
+import { isApiError } from '#src/lib/api-client';
+import { cn } from '#src/lib/cn';
+import { formatDay } from '#src/lib/dates';
 import { useAddToPlan } from '../api/add-to-plan';
 import { useLotViability } from '../api/get-lot-viability';
 import { useSeedsToSow } from '../api/get-seeds-to-sow';
-import { ProjectionBar } from '../../../components/viability/projection-bar';
-import { formatCount } from '../../../components/viability/viability-format';
+import { ProjectionBar } from '#src/components/viability/projection-bar';
+import { formatCount } from '#src/components/viability/viability-format';
 
 const plantsSchema = z.coerce
   .number({ message: 'A whole number of plants.' })

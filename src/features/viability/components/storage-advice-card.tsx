@@ -1,9 +1,9 @@
-import { Card } from '../../../components/ui/card';
-import { FormAlert } from '../../../components/ui/form-alert';
-import { Loading } from '../../../components/ui/spinner';
-import { formatDay } from '../../../lib/dates';
+import { Card } from '#src/components/ui/card';
+import { FormAlert } from '#src/components/ui/form-alert';
+import { Loading } from '#src/components/ui/spinner';
+import { formatDay } from '#src/lib/dates';
 import { useLotViability } from '../api/get-lot-viability';
-import { keepsWords } from '../../../components/viability/viability-format';
+import { keepsWords } from '#src/components/viability/viability-format';
 
 export interface StorageAdviceCardProps {
   bankId: string;

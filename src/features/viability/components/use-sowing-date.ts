@@ -1,6 +1,6 @@
 import { useCallback } from 'react';
 import { useSearchParams } from 'react-router-dom';
-import { defaultSowingDate, parseSowingDate } from '../../../lib/sowing-date';
+import { defaultSowingDate, parseSowingDate } from '#src/lib/sowing-date';
 
 /**
  * The sowing date a page projects to: `?on=` from the address (so a link keeps it), else the
