@@ -8,15 +8,15 @@ import { hashPassword } from '../server/auth/password';
 import { loadConfig } from '../server/config';
 import { createDb } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrate';
-import { refreshStaleResults } from '../server/modules/germination/test-results';
+import { refreshStaleResults } from '../server/modules/germination/assay-results';
 import { syncReferenceSpecies } from '../server/modules/species/reference-sync';
 import { createViabilityService } from '../server/modules/viability/viability.service';
 import { serveApp, signIn, timeMedian as time } from './lib/bench';
 import { reportFigures } from './lib/bench-figures';
 
 const LOTS = 5_000;
-const TESTS_PER_LOT = 5;
-const TRAYS_PER_TEST = 2;
+const ASSAYS_PER_LOT = 5;
+const TRAYS_PER_ASSAY = 2;
 const CHECKS_PER_TRAY = 3;
 const ON = '2027-03-01';
 
@@ -55,9 +55,9 @@ async function seed(): Promise<{ bankId: string; email: string; password: string
   await sql`
     insert into germination_tests (bank_id, lot_id, start_date, method, status, finished_on)
     select ${b}, l.id, l.harvest_date + 120 + k * 200, 'paper towel', 'finished', l.harvest_date + 134 + k * 200
-    from lots l, generate_series(0, ${TESTS_PER_LOT - 1}) k where l.bank_id = ${b}`.execute(db);
+    from lots l, generate_series(0, ${ASSAYS_PER_LOT - 1}) k where l.bank_id = ${b}`.execute(db);
   await sql`insert into test_trays (test_id, position, seeds_sown)
-    select t.id, p, 50 from germination_tests t, generate_series(1, ${TRAYS_PER_TEST}) p where t.bank_id = ${b}`.execute(
+    select t.id, p, 50 from germination_tests t, generate_series(1, ${TRAYS_PER_ASSAY}) p where t.bank_id = ${b}`.execute(
     db,
   );
   await sql`
@@ -76,7 +76,7 @@ async function seed(): Promise<{ bankId: string; email: string; password: string
   return { bankId: b, email, password };
 }
 
-/** The columns of a test's stored result (germination module, test-results.ts). */
+/** The columns of a test's stored result (germination module, assay-results.ts). */
 const RESULT_COLUMNS = [
   'result',
   'result_sown',

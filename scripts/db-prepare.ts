@@ -7,7 +7,7 @@ import { createDemoSeason } from '../server/demo/demo-scenario';
 import { migrateToLatest } from '../server/db/migrate';
 import { DEMO_ACCOUNTS, DEMO_BANK_NAME, isDemoSeeded } from '../server/demo/demo-people';
 import { createMailer } from '../server/mail/mailer';
-import { refreshStaleResults } from '../server/modules/germination/test-results';
+import { refreshStaleResults } from '../server/modules/germination/assay-results';
 import { syncReferenceSpecies } from '../server/modules/species/reference-sync';
 import { removePhotoObjects } from '../server/photos/store-photo';
 import { createObjectStore } from '../server/storage/object-store';

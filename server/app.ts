@@ -20,10 +20,10 @@ import { createAuthService } from './modules/auth/auth.service';
 import { bankRoutes, createBankRouter } from './modules/banks/banks.router';
 import { createBanksService } from './modules/banks/banks.service';
 import { devRouter } from './modules/dev/dev.router';
-import { lotTestRoutes, testRoutes } from './modules/germination/germination.router';
-import { createGerminationService, lotHasTests } from './modules/germination/germination.service';
-import { testsCsvExport, testsCsvImport } from './modules/germination/tests-csv.router';
-import { createTestsCsvService } from './modules/germination/tests-csv.service';
+import { lotAssayRoutes, assayRoutes } from './modules/germination/germination.router';
+import { createGerminationService, lotHasAssays } from './modules/germination/germination.service';
+import { assaysCsvExport, assaysCsvImport } from './modules/germination/assays-csv.router';
+import { createAssaysCsvService } from './modules/germination/assays-csv.service';
 import { invitationsRouter } from './modules/invitations/invitations.router';
 import { overviewRoutes } from './modules/overview/overview.router';
 import { planRoutes } from './modules/plan/plan.router';
@@ -97,11 +97,11 @@ export function createApp(deps: AppDeps): Express {
     lots: createLotsService({
       ...deps,
       removeSubjectPhotos: photos.removeSubjectPhotos,
-      hasTests: lotHasTests,
+      hasAssays: lotHasAssays,
     }),
     germination: createGerminationService({ ...deps, removeSubjectPhotos: photos.removeSubjectPhotos }),
     viability: createViabilityService(deps),
-    testsCsv: createTestsCsvService(deps),
+    assaysCsv: createAssaysCsvService(deps),
   };
   const plan = createPlanService({ ...deps, viability: services.viability });
   const secureCookies = config.appOrigin.startsWith('https:');
@@ -121,7 +121,7 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/plants/:plantId/photos', subjectPhotoRoutes(services.photos, 'plant', 'plantId'));
   bank.use('/plants', plantRoutes(services.plants));
   bank.use('/lots/:lotId/photos', subjectPhotoRoutes(services.photos, 'lot', 'lotId'));
-  bank.use('/lots/:lotId/tests', lotTestRoutes(services.germination));
+  bank.use('/lots/:lotId/tests', lotAssayRoutes(services.germination));
   bank.use(
     '/lots/:lotId/label.svg',
     labelRoutes(createLabelsService({ db: deps.db, appOrigin: config.appOrigin })),
@@ -135,9 +135,9 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/reminders', reminderRoutes(deps.db));
   bank.use('/overview', overviewRoutes({ ...deps, viability: services.viability }));
   bank.use('/tests/:testId/trays/:trayId/photos', subjectPhotoRoutes(services.photos, 'tray', 'trayId'));
-  bank.use('/tests/import', testsCsvImport(services.testsCsv));
-  bank.use('/tests', testRoutes(services.germination));
-  bank.use('/tests.csv', testsCsvExport(services.testsCsv));
+  bank.use('/tests/import', assaysCsvImport(services.assaysCsv));
+  bank.use('/tests', assayRoutes(services.germination));
+  bank.use('/tests.csv', assaysCsvExport(services.assaysCsv));
   bank.use('/lots.csv', lotsCsvExport(services.lots));
   bank.use('/lots', lotRoutes(services.lots, services.species.list));
   bank.use('/photos', bankPhotoRoutes(services.photos));

@@ -1,6 +1,6 @@
 /**
  * The CSV file rules every Hilum CSV (lots, germination tests) shares. Pure: no database, no I/O.
- * Each format module (server/modules/lots/lots.csv.ts, server/modules/germination/tests.csv.ts)
+ * Each format module (server/modules/lots/lots.csv.ts, server/modules/germination/assays.csv.ts)
  * describes its own columns and cells; this module writes and reads the file around them.
  *
  * - One header row, then one record per line. Commas between cells; a cell holding a comma, a

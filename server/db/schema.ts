@@ -229,7 +229,7 @@ export interface GerminationTestTable {
   created_by: string | null;
   created_at: Timestamp;
   updated_at: Timestamp;
-  /** The stored result (summarizeTest's TestSummary as JSON), written with every change to the test. */
+  /** The stored result (summarizeTest's AssaySummary as JSON), written with every change to the test. */
   result: ColumnType<unknown, string | null | undefined, string | null>;
   /** Which definition of the result computed it; older ones are recomputed at start. */
   result_version: ColumnType<number, number | undefined, number>;

@@ -8,7 +8,7 @@ import { addDays } from '#shared/dates';
 import { comingSeason } from '#shared/plan-dates';
 import { bankToday, type Clock } from '../clock';
 import type { Mailer } from '../mail/mailer';
-import { refreshStaleResults } from '../modules/germination/test-results';
+import { refreshStaleResults } from '../modules/germination/assay-results';
 import { createInvitationsService } from '../modules/invitations/invitations.service';
 import { codePrefix, nextCode } from '../modules/lots/lot-code';
 import { createPlanService } from '../modules/plan/plan.service';
@@ -273,7 +273,7 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
      * final count), `perTray` seeds each, counted on some of the species' check days up to today.
      * Returns the seeds it took from the lot.
      */
-    async function addTest(
+    async function addAssay(
       lot: { id: string; key: string },
       start: string,
       perTray: number,
@@ -282,7 +282,7 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
     ) {
       const { first, final } = countDays(lot.key);
       const sown = perTray * germinated.length;
-      const test = await trx
+      const assay = await trx
         .insertInto('germination_tests')
         .values({
           bank_id: bank.id,
@@ -307,7 +307,7 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
           date: start,
           reason: `Germination test: ${sown} seeds in ${germinated.length} trays`,
           created_by: keeper,
-          test_id: test.id,
+          test_id: assay.id,
         })
         .execute();
       // Check days between the first and final count day; emergence spread around the middle.
@@ -321,7 +321,7 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
       for (const [i, total] of germinated.entries()) {
         const row = await trx
           .insertInto('test_trays')
-          .values({ test_id: test.id, position: i + 1, seeds_sown: perTray })
+          .values({ test_id: assay.id, position: i + 1, seeds_sown: perTray })
           .returning('id')
           .executeTakeFirstOrThrow();
         let cumulative = 0;
@@ -386,19 +386,19 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
       const ki = rnd.normal(n % 9 === 0 ? 1.0 : 1.75, 0.25);
       const sigma =
         def.sigma * (place === 'freezer' ? 3 : place === 'fridge' ? 1.8 : 1) * (n % 11 === 5 ? 0.35 : 1);
-      const testCount = n % 8 === 6 ? 0 : Math.min(3, 1 + Math.floor(rnd.next() * 3));
+      const assayCount = n % 8 === 6 ? 0 : Math.min(3, 1 + Math.floor(rnd.next() * 3));
       // The newest tomato lot has a test on the bench now, due for its first count today.
       const running = n === 0;
       const { first, final } = countDays(key);
       const finishedBy = running ? addDays(today, -first - 1) : today;
       let start = addDays(lot.ref, 100);
-      for (let t = 0; t < testCount; t++, start = addDays(start, rnd.int(250, 380))) {
+      for (let t = 0; t < assayCount; t++, start = addDays(start, rnd.int(250, 380))) {
         if (addDays(start, final) > finishedBy) break;
         const trays = rnd.pick([2, 3, 4]);
         const perTray = stock > trays * 60 ? 50 : 25;
         if (stock < trays * perTray) break;
         const p = normalCdf(ki - ageYears(lot.ref, start) / sigma);
-        stock -= await addTest(
+        stock -= await addAssay(
           lot,
           start,
           perTray,
@@ -408,7 +408,7 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
       if (running) {
         const begun = addDays(today, -first);
         const p = normalCdf(ki - ageYears(lot.ref, begun) / sigma);
-        stock -= await addTest(lot, begun, 25, [rnd.binomial(25, p), rnd.binomial(25, p)], true);
+        stock -= await addAssay(lot, begun, 25, [rnd.binomial(25, p), rnd.binomial(25, p)], true);
       }
       // Some seed was given away along the way.
       const givenOn = addDays(lot.ref, 200);
@@ -459,10 +459,10 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
     // are what an invented truth on the viability equation gives, so the advice arises from the data.
     const story = async (
       lot: Parameters<typeof addLot>[0],
-      tests: { start: string; perTray: number; germinated: number[] }[],
+      assays: { start: string; perTray: number; germinated: number[] }[],
     ) => {
       const row = await addLot(lot);
-      for (const t of tests) await addTest(row, t.start, t.perTray, t.germinated);
+      for (const t of assays) await addAssay(row, t.start, t.perTray, t.germinated);
       return row;
     };
     /** Two trays of `perTray`, germinating as the truth (initial probit `ki`, σ years) says on `date`. */

@@ -8,7 +8,7 @@ import {
 } from 'zod-openapi';
 import { errorResponseSchema, idSchema, isoDateSchema } from '#shared/schemas/common';
 import { bankSchema } from '#shared/schemas/banks';
-import { testDetailSchema } from '#shared/schemas/germination';
+import { assayDetailSchema } from '#shared/schemas/germination';
 import { lotSchema, movementSchema, parentPlantSchema, photoSchema } from '#shared/schemas/lots';
 import { planEntrySchema } from '#shared/schemas/plan';
 import { speciesSchema } from '#shared/schemas/species';
@@ -122,7 +122,7 @@ export function buildOpenApiDocument(options: { production: boolean }): oas31.Op
         Photo: photoSchema,
         ParentPlant: parentPlantSchema,
         Species: speciesSchema,
-        GerminationTest: testDetailSchema,
+        GerminationTest: assayDetailSchema,
         PlanEntry: planEntrySchema,
         RankingItem: rankingItemSchema,
       },

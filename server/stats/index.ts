@@ -12,8 +12,8 @@ export { replicateAgreement, agreementMethod, AGREEMENT_FALSE_ALARM } from './re
 export type { Agreement, AgreementMethod } from './replicate-agreement';
 export { summarizeTest, poolChecks, FINISH_FIGURES } from './summarize-test';
 export type {
-  TestTray,
-  TestSummary,
+  AssayTray,
+  AssaySummary,
   SummarizeOptions,
   IntervalMethod,
   TrayPercent,
@@ -24,7 +24,7 @@ export { probitRegression, probitRegressionGroups } from './probit-regression';
 export type { DosePoint, ProbitGroup, ProbitRegressionResult, ProbitGroupsResult } from './probit-regression';
 export { fitViabilityDecline, projectViability, retestAge } from './viability-decline';
 export type {
-  ViabilityTest,
+  ViabilityAssay,
   ViabilityPrior,
   ViabilityOptions,
   ViabilityFit,

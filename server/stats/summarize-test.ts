@@ -21,7 +21,7 @@ type FinishFigures = { [K in FinishFigure]: number | null };
  * apart, never in the count) and the ungerminated seeds, optionally split into fresh (dormant but
  * alive), dead and hard; that they add up to the seeds sown is checked where they are entered.
  */
-export interface TestTray {
+export interface AssayTray {
   id: string;
   seedsSown: number;
   checks: readonly GerminationCheck[];
@@ -62,7 +62,7 @@ export interface TrayPercent extends FinishFigures {
 
 type NullableTiming = { [K in keyof GerminationTiming]: GerminationTiming[K] | null };
 
-export interface TestSummary extends NullableTiming, FinishFigures {
+export interface AssaySummary extends NullableTiming, FinishFigures {
   traysTotal: number;
   /** Trays with at least one count and not set aside; only these enter the figures below. */
   traysCounted: number;
@@ -102,7 +102,7 @@ function lastCumulative(checks: readonly GerminationCheck[]): number {
  * Pools the trays' counts by day: on every day any tray was checked, each tray contributes its
  * latest cumulative count on or before that day (carried forward; 0 before its first count).
  */
-export function poolChecks(trays: readonly Pick<TestTray, 'checks'>[]): GerminationCheck[] {
+export function poolChecks(trays: readonly Pick<AssayTray, 'checks'>[]): GerminationCheck[] {
   const days = [...new Set(trays.flatMap((t) => t.checks.map((c) => c.day)))].sort((a, b) => a - b);
   const sortedTrays = trays.map((t) => [...t.checks].sort((a, b) => a.day - b.day));
   return days.map((day) => ({
@@ -123,7 +123,7 @@ function roundPercent(germinated: number, sown: number): number {
   return Math.floor((200 * germinated + sown) / (2 * sown));
 }
 
-function validateTrays(trays: readonly TestTray[]): void {
+function validateTrays(trays: readonly AssayTray[]): void {
   const ids = new Set<string>();
   trays.forEach((t, i) => {
     const where = `trays[${String(i)}]`;
@@ -159,7 +159,7 @@ const NO_TIMING: NullableTiming = {
   synchrony: null,
 };
 
-function finishFigures(t: TestTray): FinishFigures {
+function finishFigures(t: AssayTray): FinishFigures {
   return {
     abnormal: t.abnormal ?? null,
     ungerminated: t.ungerminated ?? null,
@@ -169,13 +169,13 @@ function finishFigures(t: TestTray): FinishFigures {
   };
 }
 
-function trayState(t: TestTray): TrayState {
+function trayState(t: AssayTray): TrayState {
   if (t.setAsideReason !== null && t.setAsideReason !== undefined) return 'set-aside';
   return t.checks.length === 0 ? 'not-counted' : 'counted';
 }
 
 /** Each finish figure summed over the trays, or null unless every one of them has it. */
-function pooledFinish(trays: readonly TestTray[]): FinishFigures {
+function pooledFinish(trays: readonly AssayTray[]): FinishFigures {
   const pooled = (key: FinishFigure): number | null => {
     if (trays.length === 0) return null;
     let total = 0;
@@ -200,7 +200,7 @@ function pooledFinish(trays: readonly TestTray[]): FinishFigures {
  * on a day every tray had been checked by: before a tray's first check its 0 is poolChecks'
  * assumption, and a count of 0 is what tells the timing measures when seedlings were not yet up.
  */
-function pooledForTiming(counted: readonly TestTray[]): GerminationCheck[] {
+function pooledForTiming(counted: readonly AssayTray[]): GerminationCheck[] {
   const firstCheck = counted.map((t) => Math.min(...t.checks.map((c) => c.day)));
   const allCheckedBy = Math.max(...firstCheck);
   return poolChecks(counted).filter((c) => c.cumulative > 0 || c.day >= allCheckedBy);
@@ -216,7 +216,7 @@ function pooledForTiming(counted: readonly TestTray[]): GerminationCheck[] {
  * and a tray the grower set aside is left out of every figure. Figures that cannot be computed are
  * null; the summary is plain JSON (no undefined, NaN or infinities), as it is stored.
  */
-export function summarizeTest(trays: readonly TestTray[], options: SummarizeOptions = {}): TestSummary {
+export function summarizeTest(trays: readonly AssayTray[], options: SummarizeOptions = {}): AssaySummary {
   const confidence = options.confidence ?? 0.95;
   const method = options.intervalMethod ?? 'wilson';
   assertOpenUnit(confidence, 'confidence');

@@ -10,7 +10,7 @@ import {
 } from './validate';
 
 /** One germination test of a lot: its age (years since harvest) and the count. */
-export interface ViabilityTest {
+export interface ViabilityAssay {
   ageYears: number;
   germinated: number;
   sown: number;
@@ -28,7 +28,7 @@ export interface SpeciesSlope {
  */
 export interface ViabilityPrior {
   /** Tests of the species' other lots in the bank, one array per lot (common slope, own intercepts). */
-  otherLots?: readonly (readonly ViabilityTest[])[];
+  otherLots?: readonly (readonly ViabilityAssay[])[];
   /** A slope already pooled for the species. */
   speciesSlope?: SpeciesSlope;
   /**
@@ -71,7 +71,7 @@ export interface ViabilityFit {
   covariance: [[number, number], [number, number]];
   basis: ViabilityBasis;
   confidence: number;
-  lastTestAgeYears: number;
+  lastAssayAgeYears: number;
   /** Age (years) by which the lot should be retested; the caller turns it into a date. */
   retestByAgeYears: number;
   retestReason: RetestReason;
@@ -91,8 +91,8 @@ const MONITORING_FRACTION_OF_INITIAL = 0.85;
 const MONITORING_SHARE = 1 / 3;
 const RETEST_CAP_YEARS = 1;
 
-function validateTests(tests: readonly ViabilityTest[], where: string): void {
-  tests.forEach((t, i) => {
+function validateAssays(assays: readonly ViabilityAssay[], where: string): void {
+  assays.forEach((t, i) => {
     const at = `${where}[${String(i)}]`;
     assertFinite(t.ageYears, `${at}.ageYears`);
     if (t.ageYears < 0) throw new RangeError(`${at}.ageYears must be ≥ 0 (got ${String(t.ageYears)})`);
@@ -101,12 +101,12 @@ function validateTests(tests: readonly ViabilityTest[], where: string): void {
   });
 }
 
-function distinctAges(tests: readonly ViabilityTest[]): number {
-  return new Set(tests.map((t) => t.ageYears)).size;
+function distinctAges(assays: readonly ViabilityAssay[]): number {
+  return new Set(assays.map((t) => t.ageYears)).size;
 }
 
-function oneSided(tests: readonly ViabilityTest[]): boolean {
-  return tests.every((t) => t.germinated === t.sown) || tests.every((t) => t.germinated === 0);
+function oneSided(assays: readonly ViabilityAssay[]): boolean {
+  return assays.every((t) => t.germinated === t.sown) || assays.every((t) => t.germinated === 0);
 }
 
 interface BorrowedSlope {
@@ -170,14 +170,14 @@ function borrowSlope(prior: ViabilityPrior, notes: string[]): BorrowedSlope {
  * Ki with the slope held fixed (a probit fit with offset slope·age), and its covariance with the
  * slope by the delta method: Ki depends on the borrowed slope through dKi/db = −(weighted mean age).
  */
-function interceptForSlope(tests: readonly ViabilityTest[], borrowed: BorrowedSlope, notes: string[]) {
-  const adjust = oneSided(tests);
+function interceptForSlope(assays: readonly ViabilityAssay[], borrowed: BorrowedSlope, notes: string[]) {
+  const adjust = oneSided(assays);
   if (adjust) {
     notes.push(
       'Every test of this lot was 100% (or 0%), which has no finite estimate; its initial viability uses the usual half-seed correction (x + ½)/(n + 1) (common practice).',
     );
   }
-  const rows = tests.map((t) => ({
+  const rows = assays.map((t) => ({
     covariates: [1],
     offset: borrowed.slope * t.ageYears,
     successes: adjust ? t.germinated + 0.5 : t.germinated,
@@ -192,7 +192,7 @@ function interceptForSlope(tests: readonly ViabilityTest[], borrowed: BorrowedSl
     const eta = ki + row.offset;
     const w = (row.trials * normalPdf(eta) ** 2) / Math.max(1e-300, normalCdf(eta) * normalCdf(-eta));
     weightSum += w;
-    weightedAge += w * (tests[i]?.ageYears ?? 0);
+    weightedAge += w * (assays[i]?.ageYears ?? 0);
   });
   const meanAge = weightSum > 0 ? weightedAge / weightSum : 0;
   const vb = borrowed.variance;
@@ -232,11 +232,11 @@ export function projectViability(
 export function retestAge(
   fit: Pick<
     ViabilityFit,
-    'initialProbit' | 'slopePerYear' | 'covariance' | 'confidence' | 'lastTestAgeYears'
+    'initialProbit' | 'slopePerYear' | 'covariance' | 'confidence' | 'lastAssayAgeYears'
   >,
   thresholdPercent?: number,
 ): { ageYears: number; reason: RetestReason } {
-  const last = fit.lastTestAgeYears;
+  const last = fit.lastAssayAgeYears;
   const cap = last + RETEST_CAP_YEARS;
   let best: { ageYears: number; reason: RetestReason } = { ageYears: cap, reason: 'one-year-cap' };
 
@@ -280,13 +280,13 @@ export function retestAge(
  * Throws a RangeError when there is no test, or when a borrowed slope is needed and none is given.
  */
 export function fitViabilityDecline(
-  tests: readonly ViabilityTest[],
+  assays: readonly ViabilityAssay[],
   prior: ViabilityPrior = {},
   options: ViabilityOptions = {},
 ): ViabilityFit {
-  if (tests.length === 0) throw new RangeError('at least one germination test is needed');
-  validateTests(tests, 'tests');
-  (prior.otherLots ?? []).forEach((lot, i) => validateTests(lot, `prior.otherLots[${String(i)}]`));
+  if (assays.length === 0) throw new RangeError('at least one germination test is needed');
+  validateAssays(assays, 'tests');
+  (prior.otherLots ?? []).forEach((lot, i) => validateAssays(lot, `prior.otherLots[${String(i)}]`));
   const confidence = options.confidence ?? 0.95;
   assertOpenUnit(confidence, 'confidence');
   const notes: string[] = [];
@@ -296,8 +296,8 @@ export function fitViabilityDecline(
   let slope: number;
   let covariance: [[number, number], [number, number]];
   const lotFit =
-    distinctAges(tests) >= 2
-      ? probitRegression(tests.map((t) => ({ x: t.ageYears, successes: t.germinated, trials: t.sown })))
+    distinctAges(assays) >= 2
+      ? probitRegression(assays.map((t) => ({ x: t.ageYears, successes: t.germinated, trials: t.sown })))
       : null;
   if (lotFit !== null && lotFit.converged && lotFit.slope < 0) {
     basis = 'lot';
@@ -316,7 +316,7 @@ export function fitViabilityDecline(
         "The lot's tests show no decline with age (fitted slope ≥ 0); the rate of decline is borrowed.",
       );
     const borrowed = borrowSlope(prior, notes);
-    const intercept = interceptForSlope(tests, borrowed, notes);
+    const intercept = interceptForSlope(assays, borrowed, notes);
     basis = borrowed.basis;
     ki = intercept.ki;
     slope = borrowed.slope;
@@ -324,8 +324,8 @@ export function fitViabilityDecline(
   }
 
   const sigmaYears = -1 / slope;
-  const lastTestAgeYears = Math.max(...tests.map((t) => t.ageYears));
-  const partial = { initialProbit: ki, slopePerYear: slope, covariance, confidence, lastTestAgeYears };
+  const lastAssayAgeYears = Math.max(...assays.map((t) => t.ageYears));
+  const partial = { initialProbit: ki, slopePerYear: slope, covariance, confidence, lastAssayAgeYears };
   const retest = retestAge(partial, options.retestThresholdPercent);
   return {
     ...partial,

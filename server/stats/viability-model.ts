@@ -24,7 +24,7 @@
 import { normalCdf, normalQuantile } from './distributions';
 import { regularizedBeta } from './special-functions';
 
-export interface ModelTest {
+export interface ModelAssay {
   id: string;
   /** Equivalent years at the species' reference storage. */
   age: number;
@@ -35,7 +35,7 @@ export interface ModelTest {
 
 export interface ModelLot {
   id: string;
-  tests: readonly ModelTest[];
+  assays: readonly ModelAssay[];
 }
 
 export interface SpeciesPrior {
@@ -146,10 +146,10 @@ function logAtLeast(alive: number, sown: number, p: number): number {
   return Math.log(Math.max(LOG_EPS, regularizedBeta(q, alive, sown - alive + 1)));
 }
 
-function heldBackTests(tests: readonly ModelTest[]): Set<string> {
+function heldBackAssays(assays: readonly ModelAssay[]): Set<string> {
   const out = new Set<string>();
-  for (const a of tests) {
-    for (const b of tests) {
+  for (const a of assays) {
+    for (const b of assays) {
       if (b.age <= a.age) continue;
       const pa = a.alive / a.sown;
       const pb = b.alive / b.sown;
@@ -161,9 +161,9 @@ function heldBackTests(tests: readonly ModelTest[]): Set<string> {
   return out;
 }
 
-function logLik(tests: readonly ModelTest[], heldBack: Set<string>, k: number, b: number): number {
+function logLik(assays: readonly ModelAssay[], heldBack: Set<string>, k: number, b: number): number {
   let sum = 0;
-  for (const t of tests) {
+  for (const t of assays) {
     const x = k - b * t.age;
     sum +=
       heldBack.size > 0 && heldBack.has(t.id)
@@ -192,9 +192,9 @@ function logSumExp(xs: readonly number[]): number {
  * For a fixed rate b: the K grid (around the conditional mode) and the log of prior × likelihood at
  * each node, plus the log of their integral over K.
  */
-function conditionalK(tests: readonly ModelTest[], heldBack: Set<string>, b: number) {
+function conditionalK(assays: readonly ModelAssay[], heldBack: Set<string>, b: number) {
   const { muK, sK, kMin, kMax } = MODEL_CONSTANTS;
-  const f = (k: number) => logNormalPdf(k, muK, sK) + logLik(tests, heldBack, k, b);
+  const f = (k: number) => logNormalPdf(k, muK, sK) + logLik(assays, heldBack, k, b);
   // A coarse scan finds the mode's neighbourhood; the fine grid spans it generously.
   const coarse = linspace(kMin, kMax, K_SCAN);
   let best = coarse[0]!;
@@ -251,8 +251,8 @@ export function fitSpeciesModel(lots: readonly ModelLot[], prior: SpeciesPrior):
   // Each lot's marginal likelihood of its rate, on the shared log-rate grid.
   const marginals = new Map<string, number[]>();
   for (const lot of lots) {
-    if (lot.tests.length === 0) continue;
-    const bad = lot.tests.find(
+    if (lot.assays.length === 0) continue;
+    const bad = lot.assays.find(
       (t) => !(t.sown > 0) || !(t.alive >= 0) || t.alive > t.sown || !Number.isFinite(t.age) || t.age < 0,
     );
     if (bad) {
@@ -262,9 +262,9 @@ export function fitSpeciesModel(lots: readonly ModelLot[], prior: SpeciesPrior):
       );
       continue;
     }
-    const held = heldBackTests(lot.tests);
+    const held = heldBackAssays(lot.assays);
     heldBackByLot.set(lot.id, held);
-    const m = logRates.map((lr) => conditionalK(lot.tests, held, Math.exp(lr)).logMarginal);
+    const m = logRates.map((lr) => conditionalK(lot.assays, held, Math.exp(lr)).logMarginal);
     if (m.some((v) => Number.isNaN(v)) || !m.some((v) => Number.isFinite(v))) {
       failures.set(lot.id, 'Its tests could not be fitted together.');
       continue;
@@ -337,7 +337,7 @@ function fitLot(lot: ModelLot, grid: SpeciesGrid, total: number[], heldBack: Set
   for (const lr of fine) {
     const b = Math.exp(lr);
     const prior = logRatePrior(lr);
-    const cond = conditionalK(lot.tests, heldBack, b);
+    const cond = conditionalK(lot.assays, heldBack, b);
     cond.ks.forEach((k, i) => {
       points.push({ k, b, w: 0 });
       logs.push(prior + cond.logs[i]!);
@@ -349,7 +349,7 @@ function fitLot(lot: ModelLot, grid: SpeciesGrid, total: number[], heldBack: Set
   points.forEach((p, i) => (p.w = Math.exp(logs[i]! - z)));
   const kept = resample(points, DRAWS);
 
-  const ownAges = new Set(lot.tests.filter((t) => !heldBack.has(t.id)).map((t) => t.age));
+  const ownAges = new Set(lot.assays.filter((t) => !heldBack.has(t.id)).map((t) => t.age));
   const priorSd = Math.sqrt(c.tau * c.tau + Math.max(0, weightedVariance(grid.mus, muWeights)));
   const basis: LotModel['basis'] =
     ownAges.size >= 2 && sd < 0.8 * priorSd ? 'lot' : otherLotsInform ? 'species' : 'typical';
@@ -361,7 +361,7 @@ function fitLot(lot: ModelLot, grid: SpeciesGrid, total: number[], heldBack: Set
       'A later test came up far better than an earlier one: the earlier test may have been held back by dormancy or by conditions, so it is read only as "at least this many were alive", not as decline.',
     );
   }
-  if (lot.tests.length === 0)
+  if (lot.assays.length === 0)
     notes.push(
       'Not tested: this is the species’ typical figure for a lot of this age and storage, a guess until a test.',
     );
@@ -370,7 +370,7 @@ function fitLot(lot: ModelLot, grid: SpeciesGrid, total: number[], heldBack: Set
     model: {
       lotId: lot.id,
       basis,
-      estimateOnly: lot.tests.length === 0,
+      estimateOnly: lot.assays.length === 0,
       initial,
       rate,
       sigmaYears: 1 / rate,

@@ -2,10 +2,10 @@ import { z } from 'zod';
 import { idSchema, isoDateSchema } from './common';
 
 /** Our own list of home test methods; a grower may type another. */
-export const TEST_METHODS = ['tray of mix', 'paper towel', 'petri dish', 'soil block', 'rag doll'] as const;
+export const ASSAY_METHODS = ['tray of mix', 'paper towel', 'petri dish', 'soil block', 'rag doll'] as const;
 export const pretreatmentSchema = z.enum(['none', 'soak', 'cold-stratification', 'scarification']);
 
-export const createTestBodySchema = z
+export const createAssayBodySchema = z
   .object({
     startDate: isoDateSchema,
     method: z.string().trim().min(1, { message: 'Say how the seeds are tested.' }).max(80),
@@ -27,9 +27,9 @@ export const createTestBodySchema = z
     message: 'Say how many days of cold stratification.',
     when: () => true,
   });
-export type CreateTestBody = z.infer<typeof createTestBodySchema>;
+export type CreateAssayBody = z.infer<typeof createAssayBodySchema>;
 
-export const updateTestBodySchema = z
+export const updateAssayBodySchema = z
   .object({
     method: z.string().trim().min(1).max(80),
     medium: z.string().trim().max(120).nullable(),
@@ -109,12 +109,12 @@ export const traySchema = z.object({
  * POST …/tests/:testId/set-aside: set the whole test aside with a reason (mouldy towel, too cold),
  * or take it back (null). It stays in the lot's history and leaves the viability model.
  */
-export const testSetAsideBodySchema = z.object({ reason: setAsideReasonSchema.nullable() });
+export const assaySetAsideBodySchema = z.object({ reason: setAsideReasonSchema.nullable() });
 
 /** PATCH …/tests/:testId/trays/:trayId: set a tray aside with a reason, or take it back (null). */
 export const trayUpdateBodySchema = z.object({ setAsideReason: setAsideReasonSchema.nullable() });
 
-export const testSchema = z.object({
+export const assaySchema = z.object({
   id: idSchema,
   lotId: idSchema,
   lotCode: z.string(),
@@ -138,7 +138,7 @@ export const testSchema = z.object({
   schedule: z.object({ firstCountDate: z.string().nullable(), finalCountDate: z.string().nullable() }),
   createdAt: z.string(),
 });
-export type TestDto = z.infer<typeof testSchema>;
+export type AssayDto = z.infer<typeof assaySchema>;
 
 export const countSchema = z.object({
   trayId: idSchema,
@@ -209,22 +209,22 @@ export const resultSchema = z.object({
   /** The result in plain words, for the result panel. */
   summary: z.array(z.string()),
 });
-export type TestResult = z.infer<typeof resultSchema>;
+export type AssayResult = z.infer<typeof resultSchema>;
 
-/** A test's result as stored on the test (server/modules/germination/test-results.ts): without the words. */
+/** A test's result as stored on the test (server/modules/germination/assay-results.ts): without the words. */
 export const storedResultSchema = resultSchema.omit({ summary: true });
 export type StoredResult = z.infer<typeof storedResultSchema>;
 
-export const testDetailSchema = z.object({
-  test: testSchema,
+export const assayDetailSchema = z.object({
+  test: assaySchema,
   trays: z.array(traySchema),
   counts: z.array(countSchema),
   result: resultSchema,
 });
-export type TestDetail = z.infer<typeof testDetailSchema>;
+export type AssayDetail = z.infer<typeof assayDetailSchema>;
 
 /** POST …/tests/import?dryRun=true: what a germination tests CSV would add, one entry per test. */
-export const testsImportPreviewSchema = z.object({
+export const assaysImportPreviewSchema = z.object({
   preview: z.array(
     z.object({
       /** The file line of the test's first record. */
@@ -242,4 +242,4 @@ export const testsImportPreviewSchema = z.object({
     }),
   ),
 });
-export type TestsImportPreview = z.infer<typeof testsImportPreviewSchema>['preview'];
+export type AssaysImportPreview = z.infer<typeof assaysImportPreviewSchema>['preview'];

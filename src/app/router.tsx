@@ -6,7 +6,7 @@ import { paths } from '../config/paths';
 import { ensureMe } from '../features/auth/api/get-me';
 import { outboxQueryOptions } from '../features/dev-mail/api/get-outbox';
 import { bankLoader, homeLoader, membersLoader, redirectIfSignedIn, requireSignIn } from './loaders';
-import { newTestLoader, testLoader } from './routes/banks/germination-loaders';
+import { newAssayLoader, assayLoader } from './routes/banks/germination-loaders';
 import { lotLoader, lotsLoader, speciesAndPlantsLoader } from './routes/banks/lot-loaders';
 import { plannerLoader, remindersLoader } from './routes/banks/planner-loaders';
 import { overviewLoader } from './routes/banks/overview-loaders';
@@ -129,17 +129,17 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                       lazy: page(() => import('./routes/banks/labels'), 'LabelsPage'),
                     },
                     {
-                      path: paths.newTest.path,
-                      loader: newTestLoader(queryClient),
+                      path: paths.newAssay.path,
+                      loader: newAssayLoader(queryClient),
                       lazy: page(
-                        () => import('./routes/banks/new-germination-test'),
-                        'NewGerminationTestPage',
+                        () => import('./routes/banks/new-germination-assay'),
+                        'NewGerminationAssayPage',
                       ),
                     },
                     {
-                      path: paths.test.path,
-                      loader: testLoader(queryClient),
-                      lazy: page(() => import('./routes/banks/germination-test'), 'GerminationTestPage'),
+                      path: paths.assay.path,
+                      loader: assayLoader(queryClient),
+                      lazy: page(() => import('./routes/banks/germination-assay'), 'GerminationAssayPage'),
                     },
                     {
                       path: paths.planner.path,

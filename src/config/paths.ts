@@ -42,14 +42,14 @@ export const paths = {
       return bankHref(bankId, `labels${query.length ? `?${query.join('&')}` : ''}`);
     },
   },
-  newTest: {
+  newAssay: {
     path: 'lots/:lotId/tests/new',
     getHref: (bankId: string, lotId: string) =>
       bankHref(bankId, `lots/${encodeURIComponent(lotId)}/tests/new`),
   },
-  test: {
+  assay: {
     path: 'tests/:testId',
-    getHref: (bankId: string, testId: string) => bankHref(bankId, `tests/${encodeURIComponent(testId)}`),
+    getHref: (bankId: string, assayId: string) => bankHref(bankId, `tests/${encodeURIComponent(assayId)}`),
   },
   planner: { path: 'planner', getHref: (bankId: string) => bankHref(bankId, 'planner') },
   reminders: { path: 'reminders', getHref: (bankId: string) => bankHref(bankId, 'reminders') },

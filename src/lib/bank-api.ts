@@ -30,9 +30,9 @@ export type PhotoSubject = 'lot' | 'plant' | 'tray';
 
 /**
  * A tray is found through its test (…/tests/:testId/trays/:trayId/photos), so a tray's subject id
- * names both: "<testId>/<trayId>" (ids are UUIDs, which hold no slash).
+ * names both: "<assayId>/<trayId>" (ids are UUIDs, which hold no slash).
  */
-export const traySubjectId = (testId: string, trayId: string) => `${testId}/${trayId}`;
+export const traySubjectId = (assayId: string, trayId: string) => `${assayId}/${trayId}`;
 
 /** The query of a seeds-to-sow answer; without an assurance the server uses the bank's own. */
 export interface SeedsToSowQuery {
@@ -44,7 +44,7 @@ export interface SeedsToSowQuery {
 const id = encodeURIComponent;
 const bank = (bankId: string) => `/api/banks/${id(bankId)}`;
 const lot = (bankId: string, lotId: string) => `${bank(bankId)}/lots/${id(lotId)}`;
-const test = (bankId: string, testId: string) => `${bank(bankId)}/tests/${id(testId)}`;
+const assay = (bankId: string, assayId: string) => `${bank(bankId)}/tests/${id(assayId)}`;
 const planEntry = (bankId: string, entryId: string) => `${bank(bankId)}/plan/${id(entryId)}`;
 const dryRun = (yes: boolean) => (yes ? '?dryRun=true' : '');
 
@@ -68,7 +68,7 @@ export const bankPaths = {
   lots: (bankId: string) => `${bank(bankId)}/lots`,
   lot,
   lotStock: (bankId: string, lotId: string) => `${lot(bankId, lotId)}/stock`,
-  lotTests: (bankId: string, lotId: string) => `${lot(bankId, lotId)}/tests`,
+  lotAssays: (bankId: string, lotId: string) => `${lot(bankId, lotId)}/tests`,
   lotViability: (bankId: string, lotId: string, on: string) =>
     `${lot(bankId, lotId)}/viability?${new URLSearchParams({ on })}`,
   lotSeedsToSow: (bankId: string, lotId: string, { plants, on, assurance }: SeedsToSowQuery) =>
@@ -83,17 +83,17 @@ export const bankPaths = {
   lotsImport: (bankId: string, preview: boolean) => `${bank(bankId)}/lots/import${dryRun(preview)}`,
   ranking: (bankId: string, on: string) => `${bank(bankId)}/ranking?${new URLSearchParams({ on })}`,
 
-  test: (bankId: string, testId: string, interval: IntervalMethod = 'wilson') =>
-    `${test(bankId, testId)}${interval === 'wilson' ? '' : `?${new URLSearchParams({ interval })}`}`,
-  testCounts: (bankId: string, testId: string) => `${test(bankId, testId)}/counts`,
-  testCountsOn: (bankId: string, testId: string, date: string) =>
-    `${test(bankId, testId)}/counts/${id(date)}`,
-  testFinish: (bankId: string, testId: string) => `${test(bankId, testId)}/finish`,
-  testReopen: (bankId: string, testId: string) => `${test(bankId, testId)}/reopen`,
-  testSetAside: (bankId: string, testId: string) => `${test(bankId, testId)}/set-aside`,
-  tray: (bankId: string, testId: string, trayId: string) => `${test(bankId, testId)}/trays/${id(trayId)}`,
-  testsCsv: (bankId: string) => `${bank(bankId)}/tests.csv`,
-  testsImport: (bankId: string, preview: boolean) => `${bank(bankId)}/tests/import${dryRun(preview)}`,
+  assay: (bankId: string, assayId: string, interval: IntervalMethod = 'wilson') =>
+    `${assay(bankId, assayId)}${interval === 'wilson' ? '' : `?${new URLSearchParams({ interval })}`}`,
+  assayCounts: (bankId: string, assayId: string) => `${assay(bankId, assayId)}/counts`,
+  assayCountsOn: (bankId: string, assayId: string, date: string) =>
+    `${assay(bankId, assayId)}/counts/${id(date)}`,
+  assayFinish: (bankId: string, assayId: string) => `${assay(bankId, assayId)}/finish`,
+  assayReopen: (bankId: string, assayId: string) => `${assay(bankId, assayId)}/reopen`,
+  assaySetAside: (bankId: string, assayId: string) => `${assay(bankId, assayId)}/set-aside`,
+  tray: (bankId: string, assayId: string, trayId: string) => `${assay(bankId, assayId)}/trays/${id(trayId)}`,
+  assaysCsv: (bankId: string) => `${bank(bankId)}/tests.csv`,
+  assaysImport: (bankId: string, preview: boolean) => `${bank(bankId)}/tests/import${dryRun(preview)}`,
 
   plan: (bankId: string) => `${bank(bankId)}/plan`,
   planSeason: (bankId: string, season: number) =>
@@ -108,8 +108,8 @@ export const bankPaths = {
   plant: (bankId: string, plantId: string) => `${bank(bankId)}/plants/${id(plantId)}`,
   photos: (bankId: string, subject: PhotoSubject, subjectId: string) => {
     if (subject === 'tray') {
-      const [testId = '', trayId = ''] = subjectId.split('/');
-      return `${test(bankId, testId)}/trays/${id(trayId)}/photos`;
+      const [assayId = '', trayId = ''] = subjectId.split('/');
+      return `${assay(bankId, assayId)}/trays/${id(trayId)}/photos`;
     }
     return `${bank(bankId)}/${subject === 'lot' ? 'lots' : 'plants'}/${id(subjectId)}/photos`;
   },
@@ -139,7 +139,7 @@ export const bankKeys = {
   /** The lot's record (match it `exact`), and the prefix of its stock, tests, decline and seeds to sow. */
   lot: (bankId: string, lotId: string) => [...bankKeys.lots(bankId), 'detail', lotId] as const,
   lotStock: (bankId: string, lotId: string) => [...bankKeys.lot(bankId, lotId), 'stock'] as const,
-  lotTests: (bankId: string, lotId: string) => [...bankKeys.lot(bankId, lotId), 'tests'] as const,
+  lotAssays: (bankId: string, lotId: string) => [...bankKeys.lot(bankId, lotId), 'assays'] as const,
   lotViabilities: (bankId: string, lotId: string) => [...bankKeys.lot(bankId, lotId), 'viability'] as const,
   lotViability: (bankId: string, lotId: string, on: string) =>
     [...bankKeys.lotViabilities(bankId, lotId), { on }] as const,
@@ -148,10 +148,10 @@ export const bankKeys = {
   lotSeedsToSow: (bankId: string, lotId: string, query: SeedsToSowQuery) =>
     [...bankKeys.lotSeedsToSowAll(bankId, lotId), query] as const,
 
-  tests: (bankId: string) => [...bankKeys.bank(bankId), 'tests'] as const,
-  test: (bankId: string, testId: string) => [...bankKeys.tests(bankId), testId] as const,
-  testDetail: (bankId: string, testId: string, interval: IntervalMethod) =>
-    [...bankKeys.test(bankId, testId), { interval }] as const,
+  assays: (bankId: string) => [...bankKeys.bank(bankId), 'assays'] as const,
+  assay: (bankId: string, assayId: string) => [...bankKeys.assays(bankId), assayId] as const,
+  assayDetail: (bankId: string, assayId: string, interval: IntervalMethod) =>
+    [...bankKeys.assay(bankId, assayId), { interval }] as const,
 
   plan: (bankId: string) => [...bankKeys.bank(bankId), 'plan'] as const,
   planSeason: (bankId: string, season: number) => [...bankKeys.plan(bankId), season] as const,
@@ -190,7 +190,7 @@ export const stale = {
    * overview's trays to count, lots to retest and seeds due; the plan's seeds to sow and suggested lot.
    */
   germination: (bankId: string, lotId: string) => [
-    under(bankKeys.lotTests(bankId, lotId)),
+    under(bankKeys.lotAssays(bankId, lotId)),
     under(bankKeys.lotViabilities(bankId, lotId)),
     under(bankKeys.lotSeedsToSowAll(bankId, lotId)),
     under(bankKeys.rankings(bankId)),
@@ -214,7 +214,7 @@ export const stale = {
   lotEdited: (bankId: string, lotId: string) => [
     under(bankKeys.lot(bankId, lotId)),
     under(bankKeys.lotLists(bankId)),
-    under(bankKeys.tests(bankId)),
+    under(bankKeys.assays(bankId)),
     under(bankKeys.overviews(bankId)),
     under(bankKeys.plan(bankId)),
   ],

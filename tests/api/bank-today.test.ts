@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
-import { finishedTest, speciesId } from '../helpers/lots';
+import { finishedAssay, speciesId } from '../helpers/lots';
 
 // "Today" is the calendar day on the bank's own wall clock (its time zone), not UTC's.
 // At 11:00 UTC on 20 March 2026 it is still 19 March twelve hours west of UTC and already 21 March
@@ -76,13 +76,13 @@ describe.each(ZONES)('today in a bank $where ($zone)', ({ zone, today, tomorrow 
     /** A one-tray test started a few days before, and a count of it on `date`. */
     const startedBefore = async () => {
       const started = await start((await newLot()).body.lot.id as string, '2026-03-15');
-      const testId = started.body.test.id as string;
+      const assayId = started.body.test.id as string;
       const trayId = started.body.trays[0].id as string;
       const count = (date: string) =>
         bank.grower.agent
-          .post(`${base()}/tests/${testId}/counts`)
+          .post(`${base()}/tests/${assayId}/counts`)
           .send({ date, trays: [{ trayId, cumulative: 3 }] });
-      return { testId, trayId, count };
+      return { testId: assayId, trayId, count };
     };
 
     it('when it starts tomorrow in the bank, then it is 422; today is accepted', async () => {
@@ -117,7 +117,7 @@ describe.each(ZONES)('today in a bank $where ($zone)', ({ zone, today, tomorrow 
 
   it('when a planned sowing is marked sown tomorrow in the bank, then it is 422; with no date it is sown today in the bank', async () => {
     const lotId = (await newLot({ seedCount: 400 })).body.lot.id as string;
-    await finishedTest(bank.grower.agent, bank.bankId, lotId, '2026-02-01', [{ sown: 50, germinated: 45 }]);
+    await finishedAssay(bank.grower.agent, bank.bankId, lotId, '2026-02-01', [{ sown: 50, germinated: 45 }]);
     const planned = await bank.grower.agent
       .post(`${base()}/plan`)
       .send({ season: 2026, speciesId: tomato, plantsWanted: 4, start: 'indoors', lotId });

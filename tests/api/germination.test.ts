@@ -27,7 +27,7 @@ describe('germination tests through the API', () => {
   }
   const base = () => `/api/banks/${bank.bankId}`;
 
-  async function fourTrayTest(lotId: string, startDate = '2026-03-01') {
+  async function fourTrayAssay(lotId: string, startDate = '2026-03-01') {
     const res = await bank.grower.agent.post(`${base()}/lots/${lotId}/tests`).send({
       startDate,
       method: 'paper towel',
@@ -44,10 +44,10 @@ describe('germination tests through the API', () => {
 
   it('when a 4-tray test is started, then its seeds leave the lot through the ledger', async () => {
     const lotId = await lotWith(500);
-    const { test, trays } = await fourTrayTest(lotId);
+    const { test: assay, trays } = await fourTrayAssay(lotId);
     expect(trays).toHaveLength(4);
     // Tomato first/final count days 5/14 (REFERENCES.md, from memory) → check dates after a 03-01 start.
-    expect(test.schedule).toEqual({ firstCountDate: '2026-03-06', finalCountDate: '2026-03-15' });
+    expect(assay.schedule).toEqual({ firstCountDate: '2026-03-06', finalCountDate: '2026-03-15' });
     const ledger = await bank.viewer.agent.get(`${base()}/lots/${lotId}/stock`);
     expect(ledger.body.items.at(-1)).toMatchObject({
       kind: 'test',
@@ -56,7 +56,7 @@ describe('germination tests through the API', () => {
       date: '2026-03-01',
     });
     // The test says what it took, which is what deleting it gives back.
-    expect((await bank.viewer.agent.get(`${base()}/tests/${test.id}`)).body.test.seedsTaken).toBe(400);
+    expect((await bank.viewer.agent.get(`${base()}/tests/${assay.id}`)).body.test.seedsTaken).toBe(400);
   });
 
   it('when a test would start before the lot was harvested, then it is 422 and no seeds leave the stock', async () => {
@@ -84,11 +84,11 @@ describe('germination tests through the API', () => {
 
   it('when counts are posted over three check days, then the result matches the statistics functions', async () => {
     const lotId = await lotWith(400);
-    const { test, trays } = await fourTrayTest(lotId);
+    const { test: assay, trays } = await fourTrayAssay(lotId);
     const ids = trays.map((t) => t.id);
     const post = (date: string, values: number[]) =>
       bank.grower.agent
-        .post(`${base()}/tests/${test.id}/counts`)
+        .post(`${base()}/tests/${assay.id}/counts`)
         .send({ date, trays: ids.map((trayId, i) => ({ trayId, cumulative: values[i] })) });
     expect((await post('2026-03-05', [40, 35, 45, 38])).status).toBe(201);
     expect((await post('2026-03-08', [80, 76, 85, 80])).status).toBe(201);
@@ -120,7 +120,7 @@ describe('germination tests through the API', () => {
     expect(result.meanDays).toBeGreaterThan(4);
     expect(result.summary.join(' ')).toMatch(/About 89% so far/);
 
-    const exact = await bank.viewer.agent.get(`${base()}/tests/${test.id}?interval=clopper-pearson`);
+    const exact = await bank.viewer.agent.get(`${base()}/tests/${assay.id}?interval=clopper-pearson`);
     const cp = clopperPearsonInterval(355, 400);
     expect(exact.body.result.interval.method).toBe('clopper-pearson');
     expect(exact.body.result.interval.low).toBeCloseTo(cp.low * 100, 10);
@@ -128,23 +128,23 @@ describe('germination tests through the API', () => {
 
   describe('when a count breaks a rule, then it is 422 naming the tray and why, and nothing is saved', () => {
     /** A 4-tray test whose tray 2 was counted 50 on 6 March and 70 on 10 March; `send` posts one more count. */
-    async function countedTest() {
+    async function countedAssay() {
       const lotId = await lotWith(400);
-      const { test, trays } = await fourTrayTest(lotId);
-      const url = `${base()}/tests/${test.id}/counts`;
+      const { test: assay, trays } = await fourTrayAssay(lotId);
+      const url = `${base()}/tests/${assay.id}/counts`;
       const send = (date: string, cumulative: number, trayId = trays[1]!.id) =>
         bank.grower.agent.post(url).send({ date, trays: [{ trayId, cumulative }] });
       expect((await send('2026-03-06', 50)).status).toBe(201);
       expect((await send('2026-03-10', 70)).status).toBe(201);
       const nothingSaved = async () => {
-        const { body } = await bank.viewer.agent.get(`${base()}/tests/${test.id}`);
+        const { body } = await bank.viewer.agent.get(`${base()}/tests/${assay.id}`);
         expect(body.counts.map((c: { cumulative: number }) => c.cumulative)).toEqual([50, 70]);
       };
       return { send, nothingSaved };
     }
 
     it('more than the seeds sown', async () => {
-      const { send, nothingSaved } = await countedTest();
+      const { send, nothingSaved } = await countedAssay();
       const above = await send('2026-03-11', 101);
       expect(above.status).toBe(422);
       expect(above.body.error.message).toMatch(/Tray 2: 101 .* more than the 100 seeds sown/);
@@ -152,7 +152,7 @@ describe('germination tests through the API', () => {
     });
 
     it('fewer than an earlier count', async () => {
-      const { send, nothingSaved } = await countedTest();
+      const { send, nothingSaved } = await countedAssay();
       const below = await send('2026-03-11', 60);
       expect(below.status).toBe(422);
       expect(below.body.error.message).toMatch(/Tray 2: 60 is fewer than the 70 counted on 2026-03-10/);
@@ -160,7 +160,7 @@ describe('germination tests through the API', () => {
     });
 
     it('more than a later count', async () => {
-      const { send, nothingSaved } = await countedTest();
+      const { send, nothingSaved } = await countedAssay();
       const between = await send('2026-03-08', 75);
       expect(between.status).toBe(422);
       expect(between.body.error.message).toMatch(/more than the 70 counted later/);
@@ -168,7 +168,7 @@ describe('germination tests through the API', () => {
     });
 
     it('dated before the test started', async () => {
-      const { send, nothingSaved } = await countedTest();
+      const { send, nothingSaved } = await countedAssay();
       const early = await send('2026-02-27', 1);
       expect(early.status).toBe(422);
       expect(early.body.error.message).toMatch(/before the test started/);
@@ -176,14 +176,14 @@ describe('germination tests through the API', () => {
     });
 
     it('dated after today in the bank', async () => {
-      const { send, nothingSaved } = await countedTest();
+      const { send, nothingSaved } = await countedAssay();
       const future = await send('2026-03-22', 80); // after today in the bank's time zone (UTC, the default)
       expect(future.status).toBe(422);
       await nothingSaved();
     });
 
     it('for a tray not in the test', async () => {
-      const { send, nothingSaved } = await countedTest();
+      const { send, nothingSaved } = await countedAssay();
       const otherTray = await send('2026-03-11', 80, '00000000-0000-4000-8000-000000000000');
       expect(otherTray.status).toBe(422);
       await nothingSaved();
@@ -192,8 +192,8 @@ describe('germination tests through the API', () => {
 
   it('when several trays break a rule in one post, then the 422 names every one of them and saves none', async () => {
     const lotId = await lotWith(400);
-    const { test, trays } = await fourTrayTest(lotId);
-    const url = `${base()}/tests/${test.id}/counts`;
+    const { test: assay, trays } = await fourTrayAssay(lotId);
+    const url = `${base()}/tests/${assay.id}/counts`;
     const post = (date: string, values: number[]) =>
       bank.grower.agent
         .post(url)
@@ -229,15 +229,15 @@ describe('germination tests through the API', () => {
     expect(Object.keys(one.body.error.fields)).toEqual(['trays.3.cumulative']);
 
     // Nothing of either post was saved, not even tray 1's fitting count.
-    const { body } = await bank.viewer.agent.get(`${base()}/tests/${test.id}`);
+    const { body } = await bank.viewer.agent.get(`${base()}/tests/${assay.id}`);
     expect(body.counts.filter((c: { date: string }) => c.date === '2026-03-09')).toEqual([]);
     expect((await post('2026-03-09', [45, 50, 40, 45])).status).toBe(201);
   });
 
   it('when a tray is counted above 0 on the day the test started, then it is 422 and the test still opens', async () => {
     const lotId = await lotWith(400);
-    const { test, trays } = await fourTrayTest(lotId);
-    const url = `${base()}/tests/${test.id}/counts`;
+    const { test: assay, trays } = await fourTrayAssay(lotId);
+    const url = `${base()}/tests/${assay.id}/counts`;
     // Nothing sprouts on the day of sowing (day 0; common practice counts from the next day).
     const dayZero = await bank.grower.agent
       .post(url)
@@ -250,13 +250,13 @@ describe('germination tests through the API', () => {
       .post(url)
       .send({ date: '2026-03-01', trays: [{ trayId: trays[0]!.id, cumulative: 0 }] });
     expect(zero.status).toBe(201);
-    expect((await bank.viewer.agent.get(`${base()}/tests/${test.id}`)).status).toBe(200);
+    expect((await bank.viewer.agent.get(`${base()}/tests/${assay.id}`)).status).toBe(200);
   });
 
   it('when a count is corrected or deleted, then the result follows', async () => {
     const lotId = await lotWith(400);
-    const { test, trays } = await fourTrayTest(lotId);
-    const url = `${base()}/tests/${test.id}/counts`;
+    const { test: assay, trays } = await fourTrayAssay(lotId);
+    const url = `${base()}/tests/${assay.id}/counts`;
     await bank.grower.agent
       .post(url)
       .send({ date: '2026-03-06', trays: [{ trayId: trays[0]!.id, cumulative: 30 }] });
@@ -271,12 +271,12 @@ describe('germination tests through the API', () => {
 
   it('when a test is finished, then every tray must add up, and afterwards it is read-only until reopened', async () => {
     const lotId = await lotWith(400);
-    const { test, trays } = await fourTrayTest(lotId);
-    await bank.grower.agent.post(`${base()}/tests/${test.id}/counts`).send({
+    const { test: assay, trays } = await fourTrayAssay(lotId);
+    await bank.grower.agent.post(`${base()}/tests/${assay.id}/counts`).send({
       date: '2026-03-12',
       trays: trays.map((t, i) => ({ trayId: t.id, cumulative: [90, 85, 92, 88][i] })),
     });
-    const finishUrl = `${base()}/tests/${test.id}/finish`;
+    const finishUrl = `${base()}/tests/${assay.id}/finish`;
     const wrong = await bank.grower.agent.post(finishUrl).send({
       date: '2026-03-14',
       trays: trays.map((t) => ({ trayId: t.id, abnormal: 2, ungerminated: 5 })),
@@ -296,10 +296,10 @@ describe('germination tests through the API', () => {
     expect(right.status).toBe(200);
     expect(right.body.test).toMatchObject({ status: 'finished', finishedOn: '2026-03-14' });
     const locked = await bank.grower.agent
-      .post(`${base()}/tests/${test.id}/counts`)
+      .post(`${base()}/tests/${assay.id}/counts`)
       .send({ date: '2026-03-14', trays: [{ trayId: trays[0]!.id, cumulative: 91 }] });
     expect(locked.status).toBe(409);
-    expect((await bank.grower.agent.post(`${base()}/tests/${test.id}/reopen`)).body.test.status).toBe(
+    expect((await bank.grower.agent.post(`${base()}/tests/${assay.id}/reopen`)).body.test.status).toBe(
       'running',
     );
   });
@@ -313,27 +313,27 @@ describe('germination tests through the API', () => {
     });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/need 200 seeds .* 150 on hand/);
-    const tests = await ctx.db
+    const assays = await ctx.db
       .selectFrom('germination_tests')
       .select('id')
       .where('lot_id', '=', lotId)
       .execute();
-    expect(tests).toEqual([]);
+    expect(assays).toEqual([]);
     expect((await bank.viewer.agent.get(`${base()}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(150);
   });
 
   it('when a viewer tries to count, then it is 403', async () => {
     const lotId = await lotWith(400);
-    const { test, trays } = await fourTrayTest(lotId);
+    const { test: assay, trays } = await fourTrayAssay(lotId);
     const res = await bank.viewer.agent
-      .post(`${base()}/tests/${test.id}/counts`)
+      .post(`${base()}/tests/${assay.id}/counts`)
       .send({ date: '2026-03-05', trays: [{ trayId: trays[0]!.id, cumulative: 1 }] });
     expect(res.status).toBe(403);
   });
 
   it('when a lot with a test is deleted, then it is retired instead and keeps its history', async () => {
     const lotId = await lotWith(400);
-    await fourTrayTest(lotId);
+    await fourTrayAssay(lotId);
     const res = await bank.grower.agent.delete(`${base()}/lots/${lotId}`);
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ retired: true, lot: { status: 'retired' } });
@@ -342,8 +342,8 @@ describe('germination tests through the API', () => {
 
   it('when a test entered by mistake is deleted, then its seeds return to the lot', async () => {
     const lotId = await lotWith(400);
-    const { test } = await fourTrayTest(lotId);
-    expect((await bank.grower.agent.delete(`${base()}/tests/${test.id}`)).status).toBe(204);
+    const { test: assay } = await fourTrayAssay(lotId);
+    expect((await bank.grower.agent.delete(`${base()}/tests/${assay.id}`)).status).toBe(204);
     expect((await bank.viewer.agent.get(`${base()}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(400);
   });
 });

@@ -4,7 +4,7 @@ import request, { type Agent } from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
-import { finishedTest, speciesId } from '../helpers/lots';
+import { finishedAssay, speciesId } from '../helpers/lots';
 
 /** The label and its status; superagent hands an image/* body over as a Buffer. */
 async function getLabel(agent: Agent | ReturnType<typeof request>, path: string) {
@@ -64,14 +64,14 @@ describe('packet labels', () => {
     // The latest test by start date is recorded first, so creation order cannot pass for date order.
     // Four replicates of 25: 21 + 20 + 19 + 22 = 82 normal seedlings of 100 sown, 82% — the pooled
     // count over seeds sown, rounded to a whole percent (ISTA Rules, ch. 5).
-    await finishedTest(bank.grower.agent, bank.bankId, lotId, '2026-02-14', [
+    await finishedAssay(bank.grower.agent, bank.bankId, lotId, '2026-02-14', [
       { sown: 25, germinated: 21 },
       { sown: 25, germinated: 20 },
       { sown: 25, germinated: 19 },
       { sown: 25, germinated: 22 },
     ]);
     // An older test, 47 of 50 (94%), which the label must not show.
-    await finishedTest(bank.grower.agent, bank.bankId, lotId, '2025-10-01', [{ sown: 50, germinated: 47 }]);
+    await finishedAssay(bank.grower.agent, bank.bankId, lotId, '2025-10-01', [{ sown: 50, germinated: 47 }]);
     // A newer test that nobody has counted yet says nothing about the lot.
     const uncounted = await bank.grower.agent
       .post(`/api/banks/${bank.bankId}/lots/${lotId}/tests`)
@@ -110,13 +110,13 @@ describe('packet labels', () => {
     const lot = await bank.grower.agent
       .post(`/api/banks/${bank.bankId}/lots`)
       .send({ speciesId: tomato, variety: 'Early', origin: 'bought', packedForSeason: 2026, seedCount: 30 });
-    const test = await bank.grower.agent
+    const assay = await bank.grower.agent
       .post(`/api/banks/${bank.bankId}/lots/${lot.body.lot.id}/tests`)
       .send({ startDate: '2026-02-20', method: 'paper towel', trays: [{ seedsSown: 20 }] });
     // 9 of 20 sown: 45%.
     const counted = await bank.grower.agent
-      .post(`/api/banks/${bank.bankId}/tests/${test.body.test.id}/counts`)
-      .send({ date: '2026-02-27', trays: [{ trayId: test.body.trays[0].id, cumulative: 9 }] });
+      .post(`/api/banks/${bank.bankId}/tests/${assay.body.test.id}/counts`)
+      .send({ date: '2026-02-27', trays: [{ trayId: assay.body.trays[0].id, cumulative: 9 }] });
     expect(counted.status).toBe(201);
     const text = textsOf(
       (await getLabel(bank.viewer.agent, `/api/banks/${bank.bankId}/lots/${lot.body.lot.id}/label.svg`)).body,

@@ -1,11 +1,11 @@
 // One germination, every screen: a test's result is stored once (server/modules/germination/
-// test-results.ts) and the test page, the lot page, the ranking, the viability points, the
+// assay-results.ts) and the test page, the lot page, the ranking, the viability points, the
 // overview, the packet label and the tests CSV all give that same figure. The expected values are
 // plain arithmetic on the counts (normal seedlings ÷ seeds sown in the trays that enter the
 // figures), rounded to the whole percent as the ISTA Rules (ch. 5) report a result.
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { refreshStaleResults } from '#server/modules/germination/test-results';
+import { refreshStaleResults } from '#server/modules/germination/assay-results';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { speciesId } from '../helpers/lots';
@@ -33,7 +33,7 @@ describe('one germination figure on every screen', () => {
   });
   afterAll(() => ctx.close());
 
-  async function startTest(startDate: string, sown: number[]) {
+  async function startAssay(startDate: string, sown: number[]) {
     const res = await bank.grower.agent
       .post(`${base()}/lots/${lotId}/tests`)
       .send({ startDate, method: 'tray of mix', trays: sown.map((seedsSown) => ({ seedsSown })) });
@@ -45,9 +45,9 @@ describe('one germination figure on every screen', () => {
   }
 
   /** Every place a grower reads the lot's latest germination, as whole percents. */
-  async function everyScreen(testId: string) {
-    const page = await bank.viewer.agent.get(`${base()}/tests/${testId}`);
-    const lotTests = await bank.viewer.agent.get(`${base()}/lots/${lotId}/tests`);
+  async function everyScreen(assayId: string) {
+    const page = await bank.viewer.agent.get(`${base()}/tests/${assayId}`);
+    const lotAssays = await bank.viewer.agent.get(`${base()}/lots/${lotId}/tests`);
     const ranking = await bank.viewer.agent.get(`${base()}/ranking?on=2027-03-01`);
     const csv = await bank.viewer.agent.get(`${base()}/tests.csv`);
     const label = await bank.viewer.agent.get(`${base()}/lots/${lotId}/label.svg`).buffer(true);
@@ -59,7 +59,7 @@ describe('one germination figure on every screen', () => {
     const row = ranking.body.items.find((i: { lotId: string }) => i.lotId === lotId);
     return {
       page: page.body.result,
-      lotPage: lotTests.body.items.find((t: { test: { id: string } }) => t.test.id === testId).result
+      lotPage: lotAssays.body.items.find((t: { test: { id: string } }) => t.test.id === assayId).result
         .percentRounded as number,
       ranking: Math.round(row.lastPercent as number),
       csv: [...new Set(mine.map((r) => r.germination_percent))],
@@ -68,7 +68,7 @@ describe('one germination figure on every screen', () => {
   }
 
   it('when two of four trays are counted, then every screen gives the germination of those two, and says two are not counted yet', async () => {
-    const { testId, trayIds } = await startTest('2026-11-24', [100, 100, 100, 100]);
+    const { testId, trayIds } = await startAssay('2026-11-24', [100, 100, 100, 100]);
     const counted = await bank.grower.agent.post(`${base()}/tests/${testId}/counts`).send({
       date: '2026-11-30',
       trays: [
@@ -101,7 +101,7 @@ describe('one germination figure on every screen', () => {
   });
 
   it('when a tray never counted is to be finished, then it is refused until the tray is counted or set aside', async () => {
-    const { testId, trayIds } = await startTest('2026-11-10', [50, 50, 50]);
+    const { testId, trayIds } = await startAssay('2026-11-10', [50, 50, 50]);
     await bank.grower.agent.post(`${base()}/tests/${testId}/counts`).send({
       date: '2026-11-20',
       trays: [
@@ -122,7 +122,7 @@ describe('one germination figure on every screen', () => {
   });
 
   it('when a tray is set aside while the test runs, then it leaves the figures and can be taken back; a viewer cannot do it', async () => {
-    const { testId, trayIds } = await startTest('2026-11-12', [40, 40]);
+    const { testId, trayIds } = await startAssay('2026-11-12', [40, 40]);
     await bank.grower.agent.post(`${base()}/tests/${testId}/counts`).send({
       date: '2026-11-20',
       trays: [
@@ -161,7 +161,7 @@ describe('one germination figure on every screen', () => {
 
   it('when a test is finished with one tray set aside, then every screen gives the germination of the other trays, in final words', async () => {
     lotId = await newLot('One Tray Spilled');
-    const { testId, trayIds } = await startTest('2026-11-14', [50, 50, 50, 50]);
+    const { testId, trayIds } = await startAssay('2026-11-14', [50, 50, 50, 50]);
     await bank.grower.agent.post(`${base()}/tests/${testId}/counts`).send({
       date: '2026-11-28',
       trays: [

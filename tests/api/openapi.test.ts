@@ -7,7 +7,7 @@ import { buildOpenApiDocument, openApiPath } from '#server/openapi/document';
 import { apiRoutes } from '#server/openapi/routes';
 import { signUp } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
-import { finishedTest, speciesId } from '../helpers/lots';
+import { finishedAssay, speciesId } from '../helpers/lots';
 
 interface Layer {
   route?: { path: string; methods: Record<string, boolean> };
@@ -186,11 +186,15 @@ describe('the OpenAPI document', () => {
     );
     matches(await agent.get(`${lotPath}/stock`), 'get', `${B}/lots/:lotId/stock`);
     matches(await agent.get(`${lotPath}/photos`), 'get', `${B}/lots/:lotId/photos`);
-    const testId = await finishedTest(agent, bank.body.bank.id, lot.body.lot.id, '2026-01-10', [
+    const assayId = await finishedAssay(agent, bank.body.bank.id, lot.body.lot.id, '2026-01-10', [
       { sown: 50, germinated: 41 },
     ]);
     matches(await agent.get(`${lotPath}/tests`), 'get', `${B}/lots/:lotId/tests`);
-    matches(await agent.get(`${base}/tests/${testId}?interval=clopper-pearson`), 'get', `${B}/tests/:testId`);
+    matches(
+      await agent.get(`${base}/tests/${assayId}?interval=clopper-pearson`),
+      'get',
+      `${B}/tests/:testId`,
+    );
     matches(await agent.get(`${lotPath}/viability?on=2026-04-01`), 'get', `${B}/lots/:lotId/viability`);
     matches(
       await agent.get(`${lotPath}/seeds-to-sow?plants=12&on=2026-04-01`),

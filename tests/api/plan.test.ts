@@ -2,7 +2,7 @@ import ical from 'node-ical';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
-import { finishedTest, speciesId } from '../helpers/lots';
+import { finishedAssay, speciesId } from '../helpers/lots';
 
 describe('the season plan', () => {
   let ctx: TestContext;
@@ -20,11 +20,11 @@ describe('the season plan', () => {
         .send({ speciesId: tomato, variety, origin: 'saved', harvestDate: '2025-09-01', seedCount: seeds });
     goodLot = (await lot('Good', 500)).body.lot.id;
     smallLot = (await lot('Small but fine', 110)).body.lot.id;
-    await finishedTest(bank.grower.agent, bank.bankId, goodLot, '2026-02-01', [
+    await finishedAssay(bank.grower.agent, bank.bankId, goodLot, '2026-02-01', [
       { sown: 50, germinated: 46 },
       { sown: 50, germinated: 45 },
     ]);
-    await finishedTest(bank.grower.agent, bank.bankId, smallLot, '2026-02-01', [
+    await finishedAssay(bank.grower.agent, bank.bankId, smallLot, '2026-02-01', [
       { sown: 50, germinated: 40 },
     ]);
   });

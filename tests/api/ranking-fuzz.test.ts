@@ -4,7 +4,7 @@
 // is a number within 0–100. The data are random, not real; what is checked is that nothing breaks.
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { refreshStaleResults } from '#server/modules/germination/test-results';
+import { refreshStaleResults } from '#server/modules/germination/assay-results';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { mulberry32 } from '../unit/stats/seeded-random';
@@ -52,7 +52,7 @@ describe('the ranking under random lots', () => {
             .values({ lot_id: lot.id, kind: 'initial', change: stock, date: harvest, reason: 'fuzz' })
             .execute();
         const kind = pick(['none', 'one', 'close', 'equal', 'all', 'none-up', 'rising', 'random', 'running']);
-        const nTests =
+        const nAssays =
           kind === 'none'
             ? 0
             : kind === 'one' || kind === 'running'
@@ -61,7 +61,7 @@ describe('the ranking under random lots', () => {
                 ? 1 + Math.floor(rand() * 5)
                 : 2;
         let start = addDays(harvest, 20 + Math.floor(rand() * 200));
-        for (let k = 0; k < nTests && start < '2026-11-20'; k++) {
+        for (let k = 0; k < nAssays && start < '2026-11-20'; k++) {
           const sown = pick([1, 5, 10, 25, 50, 100]);
           const share =
             kind === 'all'
@@ -78,7 +78,7 @@ describe('the ranking under random lots', () => {
                         : 0.95
                       : rand();
           const running = kind === 'running';
-          const test = await trx
+          const assay = await trx
             .insertInto('germination_tests')
             .values({
               bank_id: bank.bankId,
@@ -92,7 +92,7 @@ describe('the ranking under random lots', () => {
             .executeTakeFirstOrThrow();
           const tray = await trx
             .insertInto('test_trays')
-            .values({ test_id: test.id, position: 1, seeds_sown: sown })
+            .values({ test_id: assay.id, position: 1, seeds_sown: sown })
             .returning('id')
             .executeTakeFirstOrThrow();
           const up = Math.round(sown * share);

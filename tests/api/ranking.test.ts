@@ -2,7 +2,7 @@ import jStat from 'jstat';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
-import { finishedTest, speciesId } from '../helpers/lots';
+import { finishedAssay, speciesId } from '../helpers/lots';
 
 const probit = (p: number) => jStat.normal.inv(p, 0, 1);
 const phi = (z: number) => jStat.normal.cdf(z, 0, 1);
@@ -28,8 +28,8 @@ describe('viability, ranking and seeds to sow', () => {
 
   it('when a lot was tested twice as it aged, then its own decline is fitted (basis lot) and projected below its last test', async () => {
     const lotId = await newLot('Declining');
-    await finishedTest(bank.grower.agent, bank.bankId, lotId, '2024-03-01', [{ sown: 100, germinated: 92 }]);
-    await finishedTest(bank.grower.agent, bank.bankId, lotId, '2026-03-01', [{ sown: 100, germinated: 60 }]);
+    await finishedAssay(bank.grower.agent, bank.bankId, lotId, '2024-03-01', [{ sown: 100, germinated: 92 }]);
+    await finishedAssay(bank.grower.agent, bank.bankId, lotId, '2026-03-01', [{ sown: 100, germinated: 60 }]);
     const res = await bank.viewer.agent.get(`${base()}/lots/${lotId}/viability?on=2027-03-01`);
     expect(res.status).toBe(200);
     expect(res.body.basis).toBe('lot');
@@ -58,7 +58,7 @@ describe('viability, ranking and seeds to sow', () => {
 
   it('when a lot has one test and a sibling lot shows the decline, then it borrows the slope (basis species)', async () => {
     const lotId = await newLot('Tested once', 1000, '2025-09-01');
-    await finishedTest(bank.grower.agent, bank.bankId, lotId, '2026-02-01', [
+    await finishedAssay(bank.grower.agent, bank.bankId, lotId, '2026-02-01', [
       { sown: 50, germinated: 45 },
       { sown: 50, germinated: 46 },
     ]);
@@ -76,7 +76,7 @@ describe('viability, ranking and seeds to sow', () => {
       seedCount: 500,
       storage: { place: 'fridge' },
     });
-    await finishedTest(bank.grower.agent, bank.bankId, res0.body.lot.id, '2026-02-01', [
+    await finishedAssay(bank.grower.agent, bank.bankId, res0.body.lot.id, '2026-02-01', [
       { sown: 100, germinated: 90 },
     ]);
     const res = await bank.viewer.agent.get(`${base()}/lots/${res0.body.lot.id}/viability?on=2027-03-01`);
@@ -123,7 +123,9 @@ describe('viability, ranking and seeds to sow', () => {
     expect(queries.some((q) => /from "germination_tests"/.test(q))).toBe(false);
     for (let i = 0; i < 5; i++) {
       const lotId = await newLot(`Extra ${i}`, 300, '2024-09-01');
-      await finishedTest(bank.grower.agent, bank.bankId, lotId, '2025-03-01', [{ sown: 50, germinated: 40 }]);
+      await finishedAssay(bank.grower.agent, bank.bankId, lotId, '2025-03-01', [
+        { sown: 50, germinated: 40 },
+      ]);
     }
     // The changed species' tests in one more select, however many lots changed; then current again.
     expect(await count()).toBe(warm + 1);
@@ -149,7 +151,7 @@ describe('viability, ranking and seeds to sow', () => {
   it('when seeds to sow are asked for 12 plants, then the assurance holds over the whole band, so a small test asks for more seed', async () => {
     const seedsFor = async (variety: string, trays: { sown: number; germinated: number }[]) => {
       const lotId = await newLot(variety, 1000, '2025-09-01');
-      await finishedTest(bank.grower.agent, bank.bankId, lotId, '2026-02-01', trays);
+      await finishedAssay(bank.grower.agent, bank.bankId, lotId, '2026-02-01', trays);
       const res = await bank.viewer.agent.get(
         `${base()}/lots/${lotId}/seeds-to-sow?plants=12&assurance=0.9&on=2027-03-01`,
       );

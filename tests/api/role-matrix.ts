@@ -253,8 +253,8 @@ export const bankRoutes: Record<string, MatrixRoute> = {
   'POST tray photo': {
     method: 'post',
     path: async (f) => {
-      const testId = await f.make('test');
-      return `/api/banks/${f.bankId}/tests/${testId}/trays/${f.lastTrayId()}/photos`;
+      const assayId = await f.make('test');
+      return `/api/banks/${f.bankId}/tests/${assayId}/trays/${f.lastTrayId()}/photos`;
     },
     attach: (f) => ['photo', f.jpeg, 'tray.jpg'],
     least: 'grower',

@@ -61,13 +61,13 @@ describe('the role matrix of bank routes', () => {
             harvestDate: '2025-09-01',
             seedCount: 10,
           });
-          const test = await owner.post(`${base}/lots/${lot.body.lot.id}/tests`).send({
+          const assay = await owner.post(`${base}/lots/${lot.body.lot.id}/tests`).send({
             startDate: '2026-02-20',
             method: 'paper towel',
             trays: [{ seedsSown: 2 }, { seedsSown: 2 }],
           });
-          trayIds = test.body.trays.map((t: { id: string }) => t.id);
-          return test.body.test.id as string;
+          trayIds = assay.body.trays.map((t: { id: string }) => t.id);
+          return assay.body.test.id as string;
         }
         if (kind === 'lot' || kind === 'photo') {
           const lot = await owner.post(`${base}/lots`).send({

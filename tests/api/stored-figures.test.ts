@@ -5,7 +5,7 @@ import { rankingItemSchema, rankingResponseSchema } from '#shared/schemas/viabil
 import { createViabilityService } from '#server/modules/viability/viability.service';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
-import { finishedTest, speciesId, startedTest } from '../helpers/lots';
+import { finishedAssay, speciesId, startedAssay } from '../helpers/lots';
 
 // Figures kept on the lot row by the database (seeds on hand, parent plants, first photo) must equal
 // what their source rows say after any write, and the ranking's fitted models, kept in memory
@@ -59,7 +59,7 @@ describe('figures stored for the lists, and fitted models kept between requests'
     expect(lot.seedsOnHand).toBe(380);
     expect(lot.seedsOnHand).toBe(await ledger(lotId));
     // A germination test takes its seeds from the lot.
-    await startedTest(bank.grower.agent, bank.bankId, lotId, '2026-11-20', [25, 25]);
+    await startedAssay(bank.grower.agent, bank.bankId, lotId, '2026-11-20', [25, 25]);
     expect((await stored(lotId)).seeds_on_hand).toBe(await ledger(lotId));
     expect(await ledger(lotId)).toBe(330);
     // Writes that bypass the services (a repair by hand) are followed too: update, move, delete.
@@ -156,15 +156,15 @@ describe('figures stored for the lists, and fitted models kept between requests'
       a = await newLot(tomato, 'Warm A', 1000, '2022-09-01');
       b = await newLot(tomato, 'Warm B', 1000, '2023-09-01');
       await newLot(lettuce, 'Warm C', 1000, '2024-07-01');
-      await finishedTest(bank.grower.agent, bank.bankId, a, '2023-03-01', [{ sown: 50, germinated: 46 }]);
-      await finishedTest(bank.grower.agent, bank.bankId, a, '2025-03-01', [{ sown: 50, germinated: 35 }]);
-      await finishedTest(bank.grower.agent, bank.bankId, b, '2024-03-01', [{ sown: 50, germinated: 44 }]);
+      await finishedAssay(bank.grower.agent, bank.bankId, a, '2023-03-01', [{ sown: 50, germinated: 46 }]);
+      await finishedAssay(bank.grower.agent, bank.bankId, a, '2025-03-01', [{ sown: 50, germinated: 35 }]);
+      await finishedAssay(bank.grower.agent, bank.bankId, b, '2024-03-01', [{ sown: 50, germinated: 44 }]);
       await agree();
       await agree();
     });
 
     it('when a running test is counted, then the ranking follows at once', async () => {
-      running = await startedTest(bank.grower.agent, bank.bankId, b, '2026-11-20', [50]);
+      running = await startedAssay(bank.grower.agent, bank.bankId, b, '2026-11-20', [50]);
       const before = (await agree())[b]!;
       const counted = await bank.grower.agent
         .post(`${base()}/tests/${running.testId}/counts`)
@@ -251,13 +251,13 @@ describe('figures stored for the lists, and fitted models kept between requests'
 
     it('when a tested lot is deleted or a test is removed, then the ranking follows at once', async () => {
       const extra = await newLot(tomato, 'Short-lived', 1000, '2020-09-01');
-      const testId = await finishedTest(bank.grower.agent, bank.bankId, extra, '2021-03-01', [
+      const assayId = await finishedAssay(bank.grower.agent, bank.bankId, extra, '2021-03-01', [
         { sown: 50, germinated: 10 },
       ]);
       const withExtra = await agree();
       expect(withExtra[extra]).toBeDefined();
       // The test is removed straight in the database; the lot then goes through the API.
-      await ctx.db.deleteFrom('germination_tests').where('id', '=', testId).execute();
+      await ctx.db.deleteFrom('germination_tests').where('id', '=', assayId).execute();
       await agree();
       expect((await bank.grower.agent.delete(`${base()}/lots/${extra}`)).status).toBeLessThan(300);
       const without = await agree();

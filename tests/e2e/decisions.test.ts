@@ -10,7 +10,7 @@ import type {
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '#server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests, seriousViolations } from '../helpers/journey';
-import { finishedTest, speciesId } from '../helpers/lots';
+import { finishedAssay, speciesId } from '../helpers/lots';
 
 // The circle, its people, lots and tests are the invented demo season of server/demo/demo-scenario.ts,
 // seeded as of the server's fake "now" below; the advice is the server's own (docs/decisions.md).
@@ -60,14 +60,14 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
     });
     expect(lot.status).toBe(201);
     heldBackLot = lot.body.lot.id as string;
-    await finishedTest(api, suite.bankId, heldBackLot, '2024-10-01', [{ sown: 100, germinated: 30 }]);
-    await finishedTest(api, suite.bankId, heldBackLot, '2025-10-01', [{ sown: 100, germinated: 95 }]);
+    await finishedAssay(api, suite.bankId, heldBackLot, '2024-10-01', [{ sown: 100, germinated: 30 }]);
+    await finishedAssay(api, suite.bankId, heldBackLot, '2025-10-01', [{ sown: 100, germinated: 95 }]);
     const res = await api.get(`/api/banks/${suite.bankId}/ranking?on=${ON}`);
     expect(res.status).toBe(200);
     ranking = res.body.items as RankingItem[];
     // Lots to open: a tested lot to sow with seed on hand and two tests or more (one is set aside
     // below), a lot to retire for its low germination (not for an empty ledger), and a lot never tested.
-    const testCounts = new Map(
+    const assayCounts = new Map(
       (
         await suite.server.db
           .selectFrom('germination_tests')
@@ -79,7 +79,7 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
       ).map((r) => [r.lot_id, Number(r.n)]),
     );
     pick.sow = ranking.find(
-      (i) => i.recommendation === 'sow' && i.seedsOnHand > 100 && (testCounts.get(i.lotId) ?? 0) >= 2,
+      (i) => i.recommendation === 'sow' && i.seedsOnHand > 100 && (assayCounts.get(i.lotId) ?? 0) >= 2,
     );
     pick.retire = ranking.find(
       (i) => i.recommendation === 'retire' && i.seedsOnHand > 0 && i.projectedHigh !== null,
@@ -238,9 +238,9 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
       await expect
         .poll(() => page.getByRole('list', { name: 'Key to the chart' }).innerText())
         .toContain('Held back');
-      const tests = page.getByRole('list', { name: 'Tests in the chart' });
-      expect(await tests.locator('li[data-held-back]').innerText()).toContain('30% (30 of 100');
-      expect(await tests.locator('li[data-held-back]').innerText()).toContain(
+      const assays = page.getByRole('list', { name: 'Tests in the chart' });
+      expect(await assays.locator('li[data-held-back]').innerText()).toContain('30% (30 of 100');
+      expect(await assays.locator('li[data-held-back]').innerText()).toContain(
         'held back by dormancy or conditions',
       );
       // Two marks in the chart: the held-back test (a hollow diamond) and the later one (a dot).
@@ -254,8 +254,8 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
     j.step('set a test aside from its page', async (page) => {
       const item = pick.sow!;
       const before = await viability(item.lotId);
-      const testId = before.points.at(-1)!.testId;
-      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
+      const assayId = before.points.at(-1)!.testId;
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${assayId}`);
       await page.getByRole('button', { name: 'Set the whole test aside…' }).click();
       const dialog = page.getByRole('dialog', { name: 'Set the whole test aside' });
       // An empty reason is refused in words, before anything is sent.
@@ -270,8 +270,8 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
         'left out of the lot’s decline',
       );
       const after = await viability(item.lotId);
-      expect(after.setAside).toEqual([expect.objectContaining({ testId, reason: 'Mouldy towel' })]);
-      expect(after.points.map((p) => p.testId)).not.toContain(testId);
+      expect(after.setAside).toEqual([expect.objectContaining({ testId: assayId, reason: 'Mouldy towel' })]);
+      expect(after.points.map((p) => p.testId)).not.toContain(assayId);
     });
 
     j.step('the lot page shows the test set aside, apart from the decline', async (page) => {
@@ -292,14 +292,14 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
 
     j.step('take the test back', async (page) => {
       const item = pick.sow!;
-      const testId = (await viability(item.lotId)).setAside[0]!.testId;
-      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
+      const assayId = (await viability(item.lotId)).setAside[0]!.testId;
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${assayId}`);
       await page.getByRole('button', { name: 'Take it back into the decline' }).click();
       await expect.poll(() => page.getByText('Taken back').count()).toBe(1);
       expect(await page.getByTestId('test-set-aside').count()).toBe(0);
       const after = await viability(item.lotId);
       expect(after.setAside).toEqual([]);
-      expect(after.points.map((p) => p.testId)).toContain(testId);
+      expect(after.points.map((p) => p.testId)).toContain(assayId);
       expect(after.recommendation).toBe(item.recommendation);
     });
   });

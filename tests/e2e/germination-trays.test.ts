@@ -1,12 +1,12 @@
 import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { beforeAll, describe, expect } from 'vitest';
-import type { TestDetail } from '#shared/schemas/germination';
+import type { AssayDetail } from '#shared/schemas/germination';
 import type { RankingItem } from '#shared/schemas/viability';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '#server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
-import { speciesId, startedTest } from '../helpers/lots';
+import { speciesId, startedAssay } from '../helpers/lots';
 
 // The people and the bank are the invented demo scenario of server/demo/demo-people.ts; the lot below
 // (code TRAY-FOUR) is invented for this test, like the demo's own lots.
@@ -25,7 +25,7 @@ describe.skipIf(!chromiumPath)(
   () => {
     const suite = browserSuite({ now: NOW, demo: 'people' });
     let api: ReturnType<typeof request.agent>;
-    let testId: string;
+    let assayId: string;
     let trayIds: string[];
 
     beforeAll(async () => {
@@ -43,7 +43,7 @@ describe.skipIf(!chromiumPath)(
         code: CODE,
       });
       expect(lot.status).toBe(201);
-      ({ testId, trayIds } = await startedTest(
+      ({ testId: assayId, trayIds } = await startedAssay(
         api,
         suite.bankId,
         lot.body.lot.id,
@@ -52,7 +52,7 @@ describe.skipIf(!chromiumPath)(
       ));
     });
 
-    const testUrl = () => `${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`;
+    const assayUrl = () => `${suite.server.baseUrl}/banks/${suite.bankId}/tests/${assayId}`;
     const lotsUrl = () => `${suite.server.baseUrl}/banks/${suite.bankId}/lots?q=${CODE}`;
     const percentText = (page: Page) => page.locator('[data-result="percent"]').innerText();
     const trayField = (page: Page, n: number) => page.getByRole('textbox', { name: `Tray ${n} · 50 sown` });
@@ -61,7 +61,7 @@ describe.skipIf(!chromiumPath)(
     const card = (page: Page) =>
       page.getByRole('list', { name: /Lots ranked/ }).locator(`li[data-lot="${CODE}"]`);
     const apiResult = async () =>
-      ((await api.get(`/api/banks/${suite.bankId}/tests/${testId}`)).body as TestDetail).result;
+      ((await api.get(`/api/banks/${suite.bankId}/tests/${assayId}`)).body as AssayDetail).result;
     const apiRanking = async () =>
       ((await api.get(`/api/banks/${suite.bankId}/ranking`)).body.items as RankingItem[]).find(
         (i) => i.code === CODE,
@@ -88,7 +88,7 @@ describe.skipIf(!chromiumPath)(
       const j = journeyOfTests('trays-1-running-phone', context(PHONE, NOW), { first: signIn });
 
       j.step('count two of the four trays', async (page) => {
-        await page.goto(testUrl());
+        await page.goto(assayUrl());
         await trayField(page, 4).waitFor();
         await expect
           .poll(() => page.getByRole('heading', { name: 'Count the normal seedlings' }).count())
@@ -148,7 +148,7 @@ describe.skipIf(!chromiumPath)(
       });
 
       j.step('set a tray aside and take it back', async (page) => {
-        await page.goto(testUrl());
+        await page.goto(assayUrl());
         await page.getByRole('button', { name: 'Set tray 4 aside' }).tap();
         const dialog = page.getByRole('dialog', { name: 'Set tray 4 aside' });
         // No reason, no setting aside.
@@ -209,7 +209,7 @@ describe.skipIf(!chromiumPath)(
     describe('when the running test is opened on a desktop, then the count entry leaves the tray set aside out and shows it struck through', () => {
       const j = journeyOfTests('trays-2-running-desktop', context(DESKTOP, NOW), { first: signIn });
       j.step('the running test page', async (page) => {
-        await page.goto(testUrl());
+        await page.goto(assayUrl());
         await trayField(page, 4).waitFor();
         expect(
           await page.getByRole('list', { name: 'Trays', exact: true }).first().getByRole('textbox').count(),
@@ -227,7 +227,7 @@ describe.skipIf(!chromiumPath)(
       const j = journeyOfTests('trays-3-finish-phone', context(PHONE, LATER), { first: signIn });
 
       j.step('count the last day, tray 4 as well', async (page) => {
-        await page.goto(testUrl());
+        await page.goto(assayUrl());
         await page.getByRole('button', { name: 'Save counts for Sat 14 Mar' }).waitFor();
         expect(await trayField(page, 1).inputValue()).toBe('40');
         await trayField(page, 1).fill('42');
@@ -305,7 +305,7 @@ describe.skipIf(!chromiumPath)(
       const j = journeyOfTests('trays-4-finished-desktop', context(DESKTOP, LATER), { first: signIn });
 
       j.step('the test page', async (page) => {
-        await page.goto(testUrl());
+        await page.goto(assayUrl());
         await expect
           .poll(() => page.getByRole('heading', { name: 'Result: normal seedlings' }).count())
           .toBe(1);

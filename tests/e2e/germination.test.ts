@@ -29,7 +29,7 @@ function wilsonPercent(x: number, n: number): { low: number; high: number } {
 
 describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
   const suite = browserSuite({ now: '2026-03-10T09:00:00Z', demo: 'people' });
-  let testId: string;
+  let assayId: string;
   let trayIds: string[];
 
   beforeAll(async () => {
@@ -51,15 +51,15 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
       seedCount: 300,
     });
     expect(lot.status).toBe(201);
-    const test = await api.post(`/api/banks/${suite.bankId}/lots/${lot.body.lot.id}/tests`).send({
+    const assay = await api.post(`/api/banks/${suite.bankId}/lots/${lot.body.lot.id}/tests`).send({
       startDate: '2026-03-05',
       method: 'paper towel',
       temperatureC: 24,
       trays: [{ seedsSown: 25 }, { seedsSown: 25 }, { seedsSown: 25 }, { seedsSown: 25 }],
     });
-    expect(test.status).toBe(201);
-    testId = test.body.test.id;
-    trayIds = (test.body.trays as { id: string }[]).map((t) => t.id);
+    expect(assay.status).toBe(201);
+    assayId = assay.body.test.id;
+    trayIds = (assay.body.trays as { id: string }[]).map((t) => t.id);
   });
 
   const signIn = (page: Page, email: string) => signInAt(page, suite.server.baseUrl, email, suite.bankId);
@@ -92,7 +92,7 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
     let firstCurve: string | null = null;
 
     j.step('the first check day', async (page) => {
-      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${assayId}`);
       await trayField(page, 4).waitFor();
       expect(await percentText(page)).toBe('–');
       // Day 5 of a test started 03-05; tomato's first/final count days are 5/14 (REFERENCES.md, from
@@ -158,7 +158,7 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
 
     j.step('and a dropped connection', async (page) => {
       // The request fails as it does with the network gone.
-      const countsUrl = `**/api/banks/${suite.bankId}/tests/${testId}/counts`;
+      const countsUrl = `**/api/banks/${suite.bankId}/tests/${assayId}/counts`;
       await page.route(countsUrl, (route) => route.abort('internetdisconnected'));
       await page.getByRole('button', { name: /^Save counts for/ }).tap();
       await expect
@@ -213,7 +213,7 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
   it('when a viewer opens the test, then they see the result and curve with no count entry or actions', async () => {
     const page = await suite.browser.newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, viewer.email);
-    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${assayId}`);
     await expect.poll(() => percentText(page)).toBe('82%');
     await expect.poll(() => curvePaths(page)).toBe(5);
     expect(await page.getByLabel('Check date').count()).toBe(0);
@@ -226,7 +226,7 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
   it('when a grower finishes the test, then each tray adds up as it is typed and the page turns read-only', async () => {
     const page = await suite.browser.newPage({ viewport: { width: 1280, height: 900 } });
     await signIn(page, grower.email);
-    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${assayId}`);
     await page.getByRole('button', { name: 'Finish the test…' }).click();
     const dialog = page.getByRole('dialog', { name: 'Finish the test' });
     await dialog.getByLabel('Finished on').fill('2026-03-14');
@@ -249,7 +249,7 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
     const row = await suite.server.db
       .selectFrom('germination_tests')
       .select(['status', 'finished_on'])
-      .where('id', '=', testId)
+      .where('id', '=', assayId)
       .executeTakeFirstOrThrow();
     expect(row).toEqual({ status: 'finished', finished_on: '2026-03-14' });
     const tray = await suite.server.db
@@ -268,14 +268,14 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
       await suite.server.db
         .selectFrom('germination_tests')
         .select('lot_id')
-        .where('id', '=', testId)
+        .where('id', '=', assayId)
         .executeTakeFirstOrThrow()
     ).lot_id;
     await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lotId}`);
-    const tests = page.locator('#lot-tests');
-    await expect.poll(() => tests.getByRole('listitem').count()).toBe(1);
-    await expect.poll(() => tests.getByRole('listitem').innerText()).toContain('Finished');
-    await tests.getByRole('link', { name: 'Start a test' }).tap();
+    const assays = page.locator('#lot-tests');
+    await expect.poll(() => assays.getByRole('listitem').count()).toBe(1);
+    await expect.poll(() => assays.getByRole('listitem').innerText()).toContain('Finished');
+    await assays.getByRole('link', { name: 'Start a test' }).tap();
     await page.getByLabel('Start date').fill('2026-03-14');
     await page.getByLabel('Method').selectOption('tray of mix');
     // A tray of mix may be moistened with boiling water: the scald caution shows (common practice).

@@ -44,9 +44,9 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
       .where('germination_tests.status', '=', 'running')
       .execute();
     expect(running).toHaveLength(1);
-    const test = running[0]!;
-    expect(test.common_name).toBe('Tomato');
-    expect(addDays(test.start_date, TOMATO_FIRST_COUNT_DAY)).toBe(TODAY);
+    const assay = running[0]!;
+    expect(assay.common_name).toBe('Tomato');
+    expect(addDays(assay.start_date, TOMATO_FIRST_COUNT_DAY)).toBe(TODAY);
 
     const context = await suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true });
     const page = await context.newPage();
@@ -54,7 +54,7 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
 
     await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('This week');
     const trays = page.getByRole('list', { name: 'Trays to count' });
-    const row = trays.getByRole('link').filter({ hasText: test.code });
+    const row = trays.getByRole('link').filter({ hasText: assay.code });
     await expect.poll(() => row.count()).toBe(1);
     const rowText = await row.innerText();
     expect(rowText).toContain('Due today');
@@ -63,10 +63,10 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
 
     await row.tap();
-    await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${test.id}`);
+    await page.waitForURL(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${assay.id}`);
     await expect
       .poll(() => page.getByRole('heading', { level: 1 }).innerText())
-      .toBe(`Tomato · ${test.variety}`);
+      .toBe(`Tomato · ${assay.variety}`);
     await expect
       .poll(() => page.getByRole('heading', { name: 'Count the normal seedlings' }).count())
       .toBe(1);

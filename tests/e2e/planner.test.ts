@@ -6,7 +6,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '#server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journey, journeyOfTests, seriousViolations } from '../helpers/journey';
-import { finishedTest, speciesId } from '../helpers/lots';
+import { finishedAssay, speciesId } from '../helpers/lots';
 
 // The people and the bank are the invented demo scenario of server/demo/demo-people.ts (last spring
 // frost 05-24, a 10-day margin); the lot below is invented for this test.
@@ -70,7 +70,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     expect(lot.status).toBe(201);
     lotId = lot.body.lot.id;
     lotCode = lot.body.lot.code;
-    await finishedTest(api, suite.bankId, lotId, '2026-11-01', [
+    await finishedAssay(api, suite.bankId, lotId, '2026-11-01', [
       { sown: 50, germinated: 46 },
       { sown: 50, germinated: 45 },
     ]);

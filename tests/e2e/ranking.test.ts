@@ -5,7 +5,7 @@ import type { RankingItem } from '#shared/schemas/viability';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '#server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt, signInThroughApi } from '../helpers/browser';
 import { journey, journeyOfTests, seriousViolations } from '../helpers/journey';
-import { finishedTest, speciesId } from '../helpers/lots';
+import { finishedAssay, speciesId } from '../helpers/lots';
 
 // The people and the bank are the invented demo scenario of server/demo/demo-people.ts; the lots
 // below are made here (codes RNK-…), so the test does not lean on whatever else the demo holds.
@@ -53,16 +53,16 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
     // A fresh tomato lot that came up well, a lettuce lot tested young and again four years on,
     // and a marigold lot nobody has tested yet (invented lots, like all demo data).
     lots.good = await newLot('tomato', 'RNK-GOOD', 'Bench Gold', '2026-08-20', 800);
-    await finishedTest(agent, suite.bankId, lots.good, '2026-09-15', [
+    await finishedAssay(agent, suite.bankId, lots.good, '2026-09-15', [
       { sown: 50, germinated: 48 },
       { sown: 50, germinated: 47 },
     ]);
     lots.old = await newLot('lettuce', 'RNK-OLD', 'Old Leaf', '2022-07-15', 2000);
-    await finishedTest(agent, suite.bankId, lots.old, '2023-02-01', [
+    await finishedAssay(agent, suite.bankId, lots.old, '2023-02-01', [
       { sown: 50, germinated: 46 },
       { sown: 50, germinated: 44 },
     ]);
-    await finishedTest(agent, suite.bankId, lots.old, '2026-10-01', [
+    await finishedAssay(agent, suite.bankId, lots.old, '2026-10-01', [
       { sown: 50, germinated: 22 },
       { sown: 50, germinated: 20 },
     ]);
@@ -224,9 +224,9 @@ describe.skipIf(!chromiumPath)('the ranking and the decline chart in Chromium', 
       const viability = page.locator('#lot-viability');
       await expect.poll(() => viability.innerText()).toContain('fitted to this lot’s tests');
       // 90 of 100 and 42 of 100; 95% Wilson intervals computed here and on the page alike.
-      const tests = await page.getByRole('list', { name: 'Tests in the chart' }).innerText();
-      expect(tests).toContain('90% (90 of 100');
-      expect(tests).toContain('42% (42 of 100');
+      const assays = await page.getByRole('list', { name: 'Tests in the chart' }).innerText();
+      expect(assays).toContain('90% (90 of 100');
+      expect(assays).toContain('42% (42 of 100');
 
       // The calculator asks the server for 12 plants at the bank's assurance (90% by default).
       await expect.poll(() => page.getByTestId('seeds-to-sow').innerText()).toMatch(/^sow \d+ seeds$/);

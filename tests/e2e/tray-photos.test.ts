@@ -19,7 +19,7 @@ const PHONE = { width: 390, height: 844 };
 
 describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () => {
   const suite = browserSuite({ now: '2026-03-10T09:00:00Z', demo: 'people' });
-  let testId: string;
+  let assayId: string;
   let trayIds: string[];
   let tmp: string;
 
@@ -36,14 +36,14 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
       seedCount: 200,
     });
     expect(lot.status).toBe(201);
-    const test = await api.post(`/api/banks/${suite.bankId}/lots/${lot.body.lot.id}/tests`).send({
+    const assay = await api.post(`/api/banks/${suite.bankId}/lots/${lot.body.lot.id}/tests`).send({
       startDate: '2026-03-05',
       method: 'paper towel',
       trays: [{ seedsSown: 20 }, { seedsSown: 20 }, { seedsSown: 20 }],
     });
-    expect(test.status).toBe(201);
-    testId = test.body.test.id;
-    trayIds = (test.body.trays as { id: string }[]).map((t) => t.id);
+    expect(assay.status).toBe(201);
+    assayId = assay.body.test.id;
+    trayIds = (assay.body.trays as { id: string }[]).map((t) => t.id);
     tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-tray-photos-'));
   });
   afterAll(async () => {
@@ -65,7 +65,7 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
       },
     );
     j.step('photograph tray 2', async (page) => {
-      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
+      await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${assayId}`);
       const card = trayPhotos(page);
       await card.getByRole('button', { name: 'Tray 2' }).tap();
       expect(await card.getByRole('button', { name: 'Tray 2' }).getAttribute('aria-pressed')).toBe('true');
@@ -104,7 +104,7 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
       });
       const viewerPage = await viewerContext.newPage();
       await signIn(viewerPage, viewer.email);
-      await viewerPage.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${testId}`);
+      await viewerPage.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${assayId}`);
       const card = trayPhotos(viewerPage);
       await card.getByRole('button', { name: 'Tray 2' }).tap();
       await card.getByRole('img', { name: /^Tray 2 of the PEP-/ }).waitFor();

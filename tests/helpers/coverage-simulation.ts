@@ -45,12 +45,12 @@ export function simulateCoverage(species: number, seed = 20261202): CoverageRow[
       while (k < c.kMin || k > c.kMax);
       const b = Math.exp(mu + c.tau * gauss());
       const rf = pick(RATE_FACTORS);
-      const nTests = pick([0, 1, 1, 2, 2, 3, 5]);
-      const tests = [];
+      const nAssays = pick([0, 1, 1, 2, 2, 3, 5]);
+      const assays = [];
       let age = 0.1 + rand() * 1.5;
-      for (let i = 0; i < nTests; i++) {
+      for (let i = 0; i < nAssays; i++) {
         const sown = pick([10, 20, 25, 50, 100, 200]);
-        tests.push({
+        assays.push({
           id: `${s}-${j}-${i}`,
           age: age * rf,
           alive: binomial(sown, normalCdf(k - b * age * rf)),
@@ -58,16 +58,16 @@ export function simulateCoverage(species: number, seed = 20261202): CoverageRow[
         });
         age += 0.4 + rand() * 2;
       }
-      const target = (nTests === 0 ? age : age + 1) * rf;
+      const target = (nAssays === 0 ? age : age + 1) * rf;
       const group =
-        nTests === 0
+        nAssays === 0
           ? 'untested'
-          : nTests === 1
+          : nAssays === 1
             ? 'one test'
-            : nTests === 2
+            : nAssays === 2
               ? 'two tests'
               : 'three or more tests';
-      lots.push({ id: `${s}-${j}`, tests, k, b, rf, target, group });
+      lots.push({ id: `${s}-${j}`, assays, k, b, rf, target, group });
     }
     const fits = fitSpeciesModel(lots, { typicalLifeYears: life });
     fits.forEach((r, j) => {

@@ -16,7 +16,7 @@ export async function speciesId(db: Db, key: string): Promise<string> {
  * Records a finished germination test through the API: trays sown, one count on `countDate`
  * (default the start date plus 14 days), then finished with the rest ungerminated.
  */
-export async function finishedTest(
+export async function finishedAssay(
   agent: Agent,
   bankId: string,
   lotId: string,
@@ -29,12 +29,12 @@ export async function finishedTest(
     .send({ startDate, method: 'paper towel', trays: trays.map((t) => ({ seedsSown: t.sown })) });
   if (created.status !== 201) throw new Error(`test not created: ${JSON.stringify(created.body)}`);
   const ids: string[] = created.body.trays.map((t: { id: string }) => t.id);
-  const testId: string = created.body.test.id;
+  const assayId: string = created.body.test.id;
   const counted = await agent
-    .post(`/api/banks/${bankId}/tests/${testId}/counts`)
+    .post(`/api/banks/${bankId}/tests/${assayId}/counts`)
     .send({ date: countDate, trays: ids.map((trayId, i) => ({ trayId, cumulative: trays[i]!.germinated })) });
   if (counted.status !== 201) throw new Error(`counts refused: ${JSON.stringify(counted.body)}`);
-  const finished = await agent.post(`/api/banks/${bankId}/tests/${testId}/finish`).send({
+  const finished = await agent.post(`/api/banks/${bankId}/tests/${assayId}/finish`).send({
     date: countDate,
     trays: ids.map((trayId, i) => ({
       trayId,
@@ -43,14 +43,14 @@ export async function finishedTest(
     })),
   });
   if (finished.status !== 200) throw new Error(`finish refused: ${JSON.stringify(finished.body)}`);
-  return testId;
+  return assayId;
 }
 
 /**
  * Starts a running germination test through the API (paper towel, 24 °C), one tray per entry of
  * `seedsSown`; returns the test's id and its trays' ids in tray order.
  */
-export async function startedTest(
+export async function startedAssay(
   agent: Agent,
   bankId: string,
   lotId: string,

@@ -43,7 +43,7 @@ const base: LabelContent = {
   variety: 'Grandpa’s Big & "Red" <Beef>',
   harvestDate: '2025-09-14',
   packedForSeason: null,
-  lastTest: { percent: 82, startDate: '2026-02-14', running: false },
+  lastAssay: { percent: 82, startDate: '2026-02-14', running: false },
   url: 'http://127.0.0.1:3000/banks/0f8e3d0c-6a55-4c59-9d39-1f2c0b3a4e51/lots/6c1f2a9e-2b7d-4a41-8b8e-3c5d7f9a0b12',
 };
 
@@ -81,7 +81,7 @@ describe('the packet label SVG', () => {
 
   it('when the lot was bought and never tested, then it says "packed for" and "not tested yet"', () => {
     const texts = textsOf(
-      renderLabelSvg({ ...base, harvestDate: null, packedForSeason: 2026, lastTest: null }),
+      renderLabelSvg({ ...base, harvestDate: null, packedForSeason: 2026, lastAssay: null }),
     );
     expect(texts).toContain('packed for 2026');
     expect(texts).toContain('not tested yet');
@@ -89,7 +89,7 @@ describe('the packet label SVG', () => {
 
   it('when the latest test is still running, then the label says the percent is so far', () => {
     const texts = textsOf(
-      renderLabelSvg({ ...base, lastTest: { percent: 45, startDate: '2026-02-20', running: true } }),
+      renderLabelSvg({ ...base, lastAssay: { percent: 45, startDate: '2026-02-20', running: true } }),
     );
     expect(texts).toContain('test from 2026-02-20: 45% so far');
   });

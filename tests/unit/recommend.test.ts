@@ -17,7 +17,7 @@ const base: DecisionInput = {
   seedsOnHand: 200,
   seedsNeeded: null,
   tested: true,
-  testRunning: false,
+  assayRunning: false,
   estimateOnly: false,
   projected: { percent: 90, low: 82, high: 95 },
   projectedNextSeason: { percent: 88, low: 78, high: 94 },
@@ -42,7 +42,7 @@ describe('retire', () => {
       reason: 'No seeds left in the ledger: nothing to sow.',
     });
     expect(decide({ ...base, seedsOnHand: -3 }).recommendation).toBe('retire');
-    expect(decide({ ...base, seedsOnHand: 0, tested: false, testRunning: true }).recommendation).toBe(
+    expect(decide({ ...base, seedsOnHand: 0, tested: false, assayRunning: true }).recommendation).toBe(
       'retire',
     );
   });
@@ -95,7 +95,7 @@ describe('test first', () => {
   });
 
   it('when the lot’s first test is running, then test first, and its result will decide', () => {
-    const out = decide({ ...untested, testRunning: true });
+    const out = decide({ ...untested, assayRunning: true });
     expect(out.recommendation).toBe('test-first');
     expect(out.reason).toMatch(
       /^A test of this lot is running; its result will decide\. Until then, the species'/,
@@ -213,10 +213,10 @@ describe('retest', () => {
   });
 
   it('when a new test of the lot is running, then it asks for no other, and says the result will update the advice', () => {
-    const out = decide({ ...stale, testRunning: true });
+    const out = decide({ ...stale, assayRunning: true });
     expect(out.recommendation).toBe('sow-thick');
     expect(out.reason).toMatch(/A test of this lot is running now; its result will update this advice\.$/);
-    expect(decide({ ...base, lastTestDate: '2020-01-10', testRunning: true }).recommendation).toBe('sow');
+    expect(decide({ ...base, lastTestDate: '2020-01-10', assayRunning: true }).recommendation).toBe('sow');
   });
 
   it('when no day of advice is given, then the last test’s age is counted to the sowing day', () => {

@@ -1,10 +1,10 @@
 import { sql, type Insertable, type Updateable } from 'kysely';
 import type { DbOrTx } from '#server/db/database';
 import type { GerminationTestTable, TestTrayTable } from '#server/db/schema';
-import type { TestSummary } from '#server/stats/index';
+import type { AssaySummary } from '#server/stats/index';
 
 /** A bank's tests, each with its lot's code, variety and species. */
-function testsWithLot(on: DbOrTx, bankId: string) {
+function assaysWithLot(on: DbOrTx, bankId: string) {
   return on
     .selectFrom('germination_tests')
     .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
@@ -13,18 +13,18 @@ function testsWithLot(on: DbOrTx, bankId: string) {
     .select(['lots.code as lot_code', 'lots.variety', 'lots.species_id', 'species.common_name'])
     .where('germination_tests.bank_id', '=', bankId);
 }
-export type TestWithLot = Awaited<ReturnType<ReturnType<typeof testsWithLot>['executeTakeFirstOrThrow']>>;
+export type AssayWithLot = Awaited<ReturnType<ReturnType<typeof assaysWithLot>['executeTakeFirstOrThrow']>>;
 
 /** One test of the bank with its lot, locked for update when `lock` is set. */
-export function findTest(on: DbOrTx, bankId: string, testId: string, lock = false) {
-  let q = testsWithLot(on, bankId).where('germination_tests.id', '=', testId);
+export function findAssay(on: DbOrTx, bankId: string, assayId: string, lock = false) {
+  let q = assaysWithLot(on, bankId).where('germination_tests.id', '=', assayId);
   if (lock) q = q.forUpdate('germination_tests');
   return q.executeTakeFirst();
 }
 
 /** Every test of the bank with its lot, by lot code, start date and the order they were logged. */
-export function testsWithLotByCode(on: DbOrTx, bankId: string) {
-  return testsWithLot(on, bankId)
+export function assaysWithLotByCode(on: DbOrTx, bankId: string) {
+  return assaysWithLot(on, bankId)
     .orderBy(sql`lower(lots.code)`)
     .orderBy('germination_tests.start_date')
     .orderBy('germination_tests.created_at')
@@ -43,12 +43,12 @@ export function countsOfTrays(on: DbOrTx, trayIds: string[]) {
 }
 
 /** The trays of the tests, by position, and their counts, by date. */
-export async function traysAndCounts(on: DbOrTx, testIds: string[]) {
-  const trays = testIds.length
+export async function traysAndCounts(on: DbOrTx, assayIds: string[]) {
+  const trays = assayIds.length
     ? await on
         .selectFrom('test_trays')
         .selectAll()
-        .where('test_id', 'in', testIds)
+        .where('test_id', 'in', assayIds)
         .orderBy('position')
         .execute()
     : [];
@@ -62,7 +62,7 @@ export async function traysAndCounts(on: DbOrTx, testIds: string[]) {
 }
 
 /** Whether the lot has any germination test (shared: the lots module asks before deleting a lot). */
-export async function lotHasTests(db: DbOrTx, lotId: string): Promise<boolean> {
+export async function lotHasAssays(db: DbOrTx, lotId: string): Promise<boolean> {
   const row = await db
     .selectFrom('germination_tests')
     .select('id')
@@ -73,16 +73,16 @@ export async function lotHasTests(db: DbOrTx, lotId: string): Promise<boolean> {
 }
 
 /** The seeds the test took from its lot's ledger (none for a test imported as history). */
-export async function seedsTakenBy(on: DbOrTx, testId: string): Promise<number> {
+export async function seedsTakenBy(on: DbOrTx, assayId: string): Promise<number> {
   const row = await on
     .selectFrom('stock_movements')
     .select(sql<number>`coalesce(-sum(change), 0)::int`.as('seeds'))
-    .where('test_id', '=', testId)
+    .where('test_id', '=', assayId)
     .executeTakeFirstOrThrow();
   return row.seeds;
 }
 
-export function insertTest(on: DbOrTx, values: Insertable<GerminationTestTable>) {
+export function insertAssay(on: DbOrTx, values: Insertable<GerminationTestTable>) {
   return on.insertInto('germination_tests').values(values).returning('id').executeTakeFirstOrThrow();
 }
 
@@ -102,7 +102,7 @@ export function insertCounts(
 }
 
 /** The ids of the bank's tests of a lot, newest first. */
-export async function testIdsOfLot(on: DbOrTx, bankId: string, lotId: string): Promise<string[]> {
+export async function assayIdsOfLot(on: DbOrTx, bankId: string, lotId: string): Promise<string[]> {
   const rows = await on
     .selectFrom('germination_tests')
     .select('id')
@@ -113,22 +113,22 @@ export async function testIdsOfLot(on: DbOrTx, bankId: string, lotId: string): P
   return rows.map((r) => r.id);
 }
 
-export function updateTest(on: DbOrTx, testId: string, changes: Updateable<GerminationTestTable>) {
-  return on.updateTable('germination_tests').set(changes).where('id', '=', testId).execute();
+export function updateAssay(on: DbOrTx, assayId: string, changes: Updateable<GerminationTestTable>) {
+  return on.updateTable('germination_tests').set(changes).where('id', '=', assayId).execute();
 }
 
 /** The test's trays, in the order the database gives them. */
-export function traysOf(on: DbOrTx, testId: string) {
-  return on.selectFrom('test_trays').selectAll().where('test_id', '=', testId).execute();
+export function traysOf(on: DbOrTx, assayId: string) {
+  return on.selectFrom('test_trays').selectAll().where('test_id', '=', assayId).execute();
 }
 
 /** The test's trays by position. */
-export function traysInOrder(on: DbOrTx, testId: string) {
-  return on.selectFrom('test_trays').selectAll().where('test_id', '=', testId).orderBy('position').execute();
+export function traysInOrder(on: DbOrTx, assayId: string) {
+  return on.selectFrom('test_trays').selectAll().where('test_id', '=', assayId).orderBy('position').execute();
 }
 
-export async function trayIdsOf(on: DbOrTx, testId: string): Promise<string[]> {
-  return (await on.selectFrom('test_trays').select('id').where('test_id', '=', testId).execute()).map(
+export async function trayIdsOf(on: DbOrTx, assayId: string): Promise<string[]> {
+  return (await on.selectFrom('test_trays').select('id').where('test_id', '=', assayId).execute()).map(
     (r) => r.id,
   );
 }
@@ -166,17 +166,17 @@ export function updateTray(on: DbOrTx, trayId: string, changes: Updateable<TestT
 }
 
 /** Sets a tray of the test aside (or back); the result says whether the tray was found. */
-export function setTrayAsideReason(on: DbOrTx, testId: string, trayId: string, reason: string | null) {
+export function setTrayAsideReason(on: DbOrTx, assayId: string, trayId: string, reason: string | null) {
   return on
     .updateTable('test_trays')
     .set({ set_aside_reason: reason })
     .where('id', '=', trayId)
-    .where('test_id', '=', testId)
+    .where('test_id', '=', assayId)
     .executeTakeFirst();
 }
 
-export function deleteTest(on: DbOrTx, testId: string) {
-  return on.deleteFrom('germination_tests').where('id', '=', testId).execute();
+export function deleteAssay(on: DbOrTx, assayId: string) {
+  return on.deleteFrom('germination_tests').where('id', '=', assayId).execute();
 }
 
 /** The bank's lots by id, code and species, for the CSV import. */
@@ -189,30 +189,34 @@ export function lotsForImport(on: DbOrTx, bankId: string) {
     .execute();
 }
 
-// The stored result (test-results.ts): its reads and its one batched write.
+// The stored result (assay-results.ts): its reads and its one batched write.
 
-export function testStartDates(on: DbOrTx, testIds: string[]) {
-  return on.selectFrom('germination_tests').select(['id', 'start_date']).where('id', 'in', testIds).execute();
+export function assayStartDates(on: DbOrTx, assayIds: string[]) {
+  return on
+    .selectFrom('germination_tests')
+    .select(['id', 'start_date'])
+    .where('id', 'in', assayIds)
+    .execute();
 }
 
 /** The trays of the tests, by test and position. */
-export function traysOfTests(on: DbOrTx, testIds: string[]) {
+export function traysOfAssays(on: DbOrTx, assayIds: string[]) {
   return on
     .selectFrom('test_trays')
     .selectAll()
-    .where('test_id', 'in', testIds)
+    .where('test_id', 'in', assayIds)
     .orderBy('test_id')
     .orderBy('position')
     .execute();
 }
 
 /** The last check date of each test's trays that enter the figures (set-aside trays left out). */
-export function lastCountRows(on: DbOrTx, testIds: string[]) {
+export function lastCountRows(on: DbOrTx, assayIds: string[]) {
   return on
     .selectFrom('tray_counts')
     .innerJoin('test_trays', 'test_trays.id', 'tray_counts.tray_id')
     .select(['test_trays.test_id', sql<string>`max(tray_counts.check_date)`.as('last')])
-    .where('test_trays.test_id', 'in', testIds)
+    .where('test_trays.test_id', 'in', assayIds)
     .where('test_trays.set_aside_reason', 'is', null)
     .groupBy('test_trays.test_id')
     .execute();
@@ -221,7 +225,7 @@ export function lastCountRows(on: DbOrTx, testIds: string[]) {
 /** Writes the results of a batch of tests in one statement, stamped with `version`. */
 export async function writeResults(
   on: DbOrTx,
-  rows: { testId: string; r: TestSummary }[],
+  rows: { testId: string; r: AssaySummary }[],
   last: Map<string, string>,
   version: number,
 ) {
@@ -247,7 +251,7 @@ export async function writeResults(
 }
 
 /** Up to `limit` tests stored under a definition older than `version`, by id. */
-export function staleTestIds(on: DbOrTx, version: number, limit: number) {
+export function staleAssayIds(on: DbOrTx, version: number, limit: number) {
   return on
     .selectFrom('germination_tests')
     .select('id')

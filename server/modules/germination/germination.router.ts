@@ -2,12 +2,12 @@ import { Router } from 'express';
 import { z } from 'zod';
 import {
   countsBodySchema,
-  createTestBodySchema,
+  createAssayBodySchema,
   finishBodySchema,
-  testDetailSchema,
-  testSetAsideBodySchema,
+  assayDetailSchema,
+  assaySetAsideBodySchema,
   trayUpdateBodySchema,
-  updateTestBodySchema,
+  updateAssayBodySchema,
 } from '#shared/schemas/germination';
 import { isoDateSchema } from '#shared/schemas/common';
 import { requireRole } from '#server/auth/bank-access';
@@ -20,21 +20,21 @@ import { authOf, bankOf } from '#server/http/request-context';
 const detailQuery = z.object({ interval: z.enum(['wilson', 'clopper-pearson']).default('wilson') });
 
 /** /api/banks/:bankId/lots/:lotId/tests */
-export function lotTestRoutes(tests: GerminationService): Router {
+export function lotAssayRoutes(assays: GerminationService): Router {
   const router = Router({ mergeParams: true });
   const lotId = (req: { params: Record<string, unknown> }) => idParam(req.params.lotId, 'lot');
   router.post('/', requireRole('grower'), async (req, res) => {
-    const body = parse(createTestBodySchema, req.body, 'germination test');
+    const body = parse(createAssayBodySchema, req.body, 'germination test');
     respond(
       res,
       201,
-      testDetailSchema,
-      await tests.create(bankOf(req).id, lotId(req), authOf(req).userId, body),
+      assayDetailSchema,
+      await assays.create(bankOf(req).id, lotId(req), authOf(req).userId, body),
     );
   });
   router.get('/', requireRole('viewer'), async (req, res) => {
-    respond(res, 200, z.object({ items: z.array(testDetailSchema), nextCursor: z.null() }), {
-      items: await tests.listForLot(bankOf(req).id, lotId(req)),
+    respond(res, 200, z.object({ items: z.array(assayDetailSchema), nextCursor: z.null() }), {
+      items: await assays.listForLot(bankOf(req).id, lotId(req)),
       nextCursor: null,
     });
   });
@@ -42,19 +42,19 @@ export function lotTestRoutes(tests: GerminationService): Router {
 }
 
 /** /api/banks/:bankId/tests/:testId… */
-export function testRoutes(tests: GerminationService): Router {
+export function assayRoutes(assays: GerminationService): Router {
   const router = Router({ mergeParams: true });
-  const testId = (req: { params: Record<string, unknown> }) => idParam(req.params.testId, 'test');
+  const assayId = (req: { params: Record<string, unknown> }) => idParam(req.params.testId, 'test');
   router.get('/:testId', requireRole('viewer'), async (req, res) => {
     const { interval } = parse(detailQuery, req.query, 'query');
-    respond(res, 200, testDetailSchema, await tests.detail(bankOf(req).id, testId(req), interval));
+    respond(res, 200, assayDetailSchema, await assays.detail(bankOf(req).id, assayId(req), interval));
   });
   router.patch('/:testId', requireRole('grower'), async (req, res) => {
-    const body = parse(updateTestBodySchema, req.body, 'germination test');
-    respond(res, 200, testDetailSchema, await tests.update(bankOf(req).id, testId(req), body));
+    const body = parse(updateAssayBodySchema, req.body, 'germination test');
+    respond(res, 200, assayDetailSchema, await assays.update(bankOf(req).id, assayId(req), body));
   });
   router.delete('/:testId', requireRole('grower'), async (req, res) => {
-    await tests.remove(bankOf(req).id, testId(req));
+    await assays.remove(bankOf(req).id, assayId(req));
     res.status(204).end();
   });
   router.post('/:testId/counts', requireRole('grower'), async (req, res) => {
@@ -62,18 +62,18 @@ export function testRoutes(tests: GerminationService): Router {
     respond(
       res,
       201,
-      testDetailSchema,
-      await tests.recordCounts(bankOf(req).id, testId(req), authOf(req).userId, body),
+      assayDetailSchema,
+      await assays.recordCounts(bankOf(req).id, assayId(req), authOf(req).userId, body),
     );
   });
   router.delete('/:testId/counts/:date', requireRole('grower'), async (req, res) => {
     const date = isoDateSchema.safeParse(req.params.date);
     if (!date.success) throw notFound('No counts on that date.');
-    respond(res, 200, testDetailSchema, await tests.deleteCounts(bankOf(req).id, testId(req), date.data));
+    respond(res, 200, assayDetailSchema, await assays.deleteCounts(bankOf(req).id, assayId(req), date.data));
   });
   router.post('/:testId/finish', requireRole('grower'), async (req, res) => {
     const body = parse(finishBodySchema, req.body, 'finish');
-    respond(res, 200, testDetailSchema, await tests.finish(bankOf(req).id, testId(req), body));
+    respond(res, 200, assayDetailSchema, await assays.finish(bankOf(req).id, assayId(req), body));
   });
   router.patch('/:testId/trays/:trayId', requireRole('grower'), async (req, res) => {
     const body = parse(trayUpdateBodySchema, req.body, 'tray');
@@ -81,16 +81,21 @@ export function testRoutes(tests: GerminationService): Router {
     respond(
       res,
       200,
-      testDetailSchema,
-      await tests.setTrayAside(bankOf(req).id, testId(req), trayId, body.setAsideReason),
+      assayDetailSchema,
+      await assays.setTrayAside(bankOf(req).id, assayId(req), trayId, body.setAsideReason),
     );
   });
   router.post('/:testId/set-aside', requireRole('grower'), async (req, res) => {
-    const body = parse(testSetAsideBodySchema, req.body, 'set aside');
-    respond(res, 200, testDetailSchema, await tests.setTestAside(bankOf(req).id, testId(req), body.reason));
+    const body = parse(assaySetAsideBodySchema, req.body, 'set aside');
+    respond(
+      res,
+      200,
+      assayDetailSchema,
+      await assays.setAssayAside(bankOf(req).id, assayId(req), body.reason),
+    );
   });
   router.post('/:testId/reopen', requireRole('grower'), async (req, res) => {
-    respond(res, 200, testDetailSchema, await tests.reopen(bankOf(req).id, testId(req)));
+    respond(res, 200, assayDetailSchema, await assays.reopen(bankOf(req).id, assayId(req)));
   });
   return router;
 }

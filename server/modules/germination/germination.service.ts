@@ -3,10 +3,10 @@ import type { z } from 'zod';
 import {
   storedResultSchema,
   type CountsBody,
-  type CreateTestBody,
+  type CreateAssayBody,
   type FinishBody,
-  type TestDetail,
-  type updateTestBodySchema,
+  type AssayDetail,
+  type updateAssayBodySchema,
 } from '#shared/schemas/germination';
 import { addDays, daysBetween } from '#shared/dates';
 import { bankToday, type Clock } from '#server/clock';
@@ -19,7 +19,7 @@ import { insertMovement, lockLot, stockOf, updateLot } from '../lots/lots.reposi
 import * as repo from './germination.repository';
 import { countProblems, finishProblem, startBeforeHarvest, uncountedAtFinish } from './count-rules';
 import { resultWords } from './result-words';
-import { RESULT_VERSION, storeResult } from './test-results';
+import { RESULT_VERSION, storeResult } from './assay-results';
 
 const num = (v: string | null) => (v === null ? null : Number(v));
 
@@ -41,7 +41,7 @@ export interface GerminationDeps {
 }
 
 /** What a test is, in the API's names (the detail and the CSV export both give it). */
-export function testFields(t: repo.TestWithLot) {
+export function assayFields(t: repo.AssayWithLot) {
   return {
     lotCode: t.lot_code,
     speciesName: t.common_name,
@@ -72,25 +72,25 @@ export function trayFields(tr: Selectable<TestTrayTable>) {
   };
 }
 
-export { lotHasTests } from './germination.repository';
+export { lotHasAssays } from './germination.repository';
 
 export function createGerminationService({ db, clock, removeSubjectPhotos }: GerminationDeps) {
   const today = (on: DbOrTx, bankId: string) => bankToday(on, clock, bankId);
 
-  async function loadTest(on: DbOrTx, bankId: string, testId: string, lock = false) {
-    const row = await repo.findTest(on, bankId, testId, lock);
+  async function loadAssay(on: DbOrTx, bankId: string, assayId: string, lock = false) {
+    const row = await repo.findAssay(on, bankId, assayId, lock);
     if (!row) throw notFound('No such germination test in this bank.');
     return row;
   }
 
   async function detail(
     bankId: string,
-    testId: string,
+    assayId: string,
     intervalMethod: IntervalMethod = 'wilson',
     on: DbOrTx = db,
-  ): Promise<TestDetail> {
-    const t = await loadTest(on, bankId, testId);
-    const { trays, counts } = await repo.traysAndCounts(on, [testId]);
+  ): Promise<AssayDetail> {
+    const t = await loadAssay(on, bankId, assayId);
+    const { trays, counts } = await repo.traysAndCounts(on, [assayId]);
     const species = await findSpecies(on, bankId, t.species_id);
     const first = species?.traits.firstCountDay ?? null;
     const final = species?.traits.finalCountDay ?? null;
@@ -100,10 +100,10 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
     };
     // What the test took from the lot's ledger (none for a test imported as history): what its
     // deletion gives back.
-    const seedsTaken = await repo.seedsTakenBy(on, testId);
-    // The stored result (test-results.ts); one stored under an older definition is brought up to date.
+    const seedsTaken = await repo.seedsTakenBy(on, assayId);
+    // The stored result (assay-results.ts); one stored under an older definition is brought up to date.
     const stored = storedResultSchema.parse(
-      t.result_version === RESULT_VERSION && t.result !== null ? t.result : await storeResult(on, testId),
+      t.result_version === RESULT_VERSION && t.result !== null ? t.result : await storeResult(on, assayId),
     );
     const summary =
       intervalMethod === 'clopper-pearson' &&
@@ -116,7 +116,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
       test: {
         id: t.id,
         lotId: t.lot_id,
-        ...testFields(t),
+        ...assayFields(t),
         status: t.status,
         setAsideReason: t.set_aside_reason,
         seedsTaken,
@@ -143,13 +143,13 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
   return {
     detail,
 
-    async create(bankId: string, lotId: string, userId: string, body: CreateTestBody) {
+    async create(bankId: string, lotId: string, userId: string, body: CreateAssayBody) {
       if (body.startDate > (await today(db, bankId))) {
         throw unprocessable('A test cannot start in the future.', {
           startDate: 'Use today or an earlier date.',
         });
       }
-      const testId = await db.transaction().execute(async (trx) => {
+      const assayId = await db.transaction().execute(async (trx) => {
         const lot = await lockLot(trx, bankId, lotId);
         if (!lot) throw notFound('No such lot in this bank.');
         const early = startBeforeHarvest(body.startDate, lot.harvest_date, lot.code);
@@ -163,7 +163,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
             `The trays need ${needed} seeds but the ledger shows ${onHand} on hand. If you have more than that, record a correction in the stock ledger first.`,
           );
         }
-        const test = await repo.insertTest(trx, {
+        const assay = await repo.insertAssay(trx, {
           bank_id: bankId,
           lot_id: lotId,
           start_date: body.startDate,
@@ -178,7 +178,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         });
         await repo.insertTrays(
           trx,
-          body.trays.map((t, i) => ({ test_id: test.id, position: i + 1, seeds_sown: t.seedsSown })),
+          body.trays.map((t, i) => ({ test_id: assay.id, position: i + 1, seeds_sown: t.seedsSown })),
         );
         await insertMovement(trx, {
           lot_id: lotId,
@@ -187,25 +187,25 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
           date: body.startDate,
           reason: `Germination test: ${needed} seeds in ${body.trays.length} ${body.trays.length === 1 ? 'tray' : 'trays'}`,
           created_by: userId,
-          test_id: test.id,
+          test_id: assay.id,
         });
         if (onHand === needed && lot.status === 'active') {
           await updateLot(trx, lotId, { status: 'depleted' });
         }
-        await storeResult(trx, test.id);
-        return test.id;
+        await storeResult(trx, assay.id);
+        return assay.id;
       });
-      return detail(bankId, testId);
+      return detail(bankId, assayId);
     },
 
     async listForLot(bankId: string, lotId: string) {
-      const ids = await repo.testIdsOfLot(db, bankId, lotId);
+      const ids = await repo.assayIdsOfLot(db, bankId, lotId);
       return Promise.all(ids.map((id) => detail(bankId, id)));
     },
 
-    async update(bankId: string, testId: string, body: z.infer<typeof updateTestBodySchema>) {
+    async update(bankId: string, assayId: string, body: z.infer<typeof updateAssayBodySchema>) {
       await db.transaction().execute(async (trx) => {
-        const t = await loadTest(trx, bankId, testId, true);
+        const t = await loadAssay(trx, bankId, assayId, true);
         assertRunning(t);
         const changes: Updateable<GerminationTestTable> = { updated_at: clock.now() };
         if (body.method !== undefined) changes.method = body.method;
@@ -215,15 +215,15 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         if (body.pretreatment !== undefined) changes.pretreatment = body.pretreatment;
         if (body.pretreatmentDays !== undefined) changes.pretreatment_days = body.pretreatmentDays;
         if (body.notes !== undefined) changes.notes = body.notes;
-        await repo.updateTest(trx, testId, changes);
+        await repo.updateAssay(trx, assayId, changes);
       });
-      return detail(bankId, testId);
+      return detail(bankId, assayId);
     },
 
     /** Records (or corrects) the cumulative counts of one check date; every rule is checked first. */
-    async recordCounts(bankId: string, testId: string, userId: string, body: CountsBody) {
+    async recordCounts(bankId: string, assayId: string, userId: string, body: CountsBody) {
       await db.transaction().execute(async (trx) => {
-        const t = await loadTest(trx, bankId, testId, true);
+        const t = await loadAssay(trx, bankId, assayId, true);
         assertRunning(t);
         if (body.date < t.start_date) {
           throw unprocessable(`A count cannot be dated before the test started (${t.start_date}).`, {
@@ -234,7 +234,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
           throw unprocessable('A count cannot be dated in the future.', {
             date: 'Use today or an earlier date.',
           });
-        const trays = await repo.traysOf(trx, testId);
+        const trays = await repo.traysOf(trx, assayId);
         const saved = trays.length
           ? await repo.countsOtherThan(
               trx,
@@ -253,29 +253,29 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         for (const entry of body.trays) {
           await repo.upsertCount(trx, entry.trayId, body.date, entry.cumulative, userId);
         }
-        await storeResult(trx, testId);
+        await storeResult(trx, assayId);
       });
-      return detail(bankId, testId);
+      return detail(bankId, assayId);
     },
 
     /** Removes one check date's counts; cumulative order cannot break by removing a point. */
-    async deleteCounts(bankId: string, testId: string, date: string) {
+    async deleteCounts(bankId: string, assayId: string, date: string) {
       await db.transaction().execute(async (trx) => {
-        const t = await loadTest(trx, bankId, testId, true);
+        const t = await loadAssay(trx, bankId, assayId, true);
         assertRunning(t);
-        const trayIds = await repo.trayIdsOf(trx, testId);
+        const trayIds = await repo.trayIdsOf(trx, assayId);
         const res = await repo.deleteCountsOn(trx, trayIds, date);
         if (!res.numDeletedRows) throw notFound(`No counts on ${date}.`);
-        await storeResult(trx, testId);
+        await storeResult(trx, assayId);
       });
-      return detail(bankId, testId);
+      return detail(bankId, assayId);
     },
 
-    async finish(bankId: string, testId: string, body: FinishBody) {
+    async finish(bankId: string, assayId: string, body: FinishBody) {
       await db.transaction().execute(async (trx) => {
-        const t = await loadTest(trx, bankId, testId, true);
+        const t = await loadAssay(trx, bankId, assayId, true);
         assertRunning(t);
-        const trays = await repo.traysInOrder(trx, testId);
+        const trays = await repo.traysInOrder(trx, assayId);
         const counts = await repo.countsOfTrays(
           trx,
           trays.map((tr) => tr.id),
@@ -342,54 +342,58 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
             'Every tray is set aside, so the test has no result. Keep at least one counted tray, or delete the test if it failed.',
           );
         }
-        await repo.updateTest(trx, testId, {
+        await repo.updateAssay(trx, assayId, {
           status: 'finished',
           finished_on: body.date,
           updated_at: clock.now(),
         });
-        await storeResult(trx, testId);
+        await storeResult(trx, assayId);
       });
-      return detail(bankId, testId);
+      return detail(bankId, assayId);
     },
 
     /** Sets the whole test aside with a reason (running or finished), or takes it back. */
-    async setTestAside(bankId: string, testId: string, reason: string | null) {
+    async setAssayAside(bankId: string, assayId: string, reason: string | null) {
       await db.transaction().execute(async (trx) => {
-        await loadTest(trx, bankId, testId, true);
-        await repo.updateTest(trx, testId, { set_aside_reason: reason, updated_at: clock.now() });
+        await loadAssay(trx, bankId, assayId, true);
+        await repo.updateAssay(trx, assayId, { set_aside_reason: reason, updated_at: clock.now() });
       });
-      return detail(bankId, testId);
+      return detail(bankId, assayId);
     },
 
     /** Sets a tray aside with a reason (spilled, dried out), or takes it back, while the test runs. */
-    async setTrayAside(bankId: string, testId: string, trayId: string, reason: string | null) {
+    async setTrayAside(bankId: string, assayId: string, trayId: string, reason: string | null) {
       await db.transaction().execute(async (trx) => {
-        const t = await loadTest(trx, bankId, testId, true);
+        const t = await loadAssay(trx, bankId, assayId, true);
         assertRunning(t);
-        const res = await repo.setTrayAsideReason(trx, testId, trayId, reason);
+        const res = await repo.setTrayAsideReason(trx, assayId, trayId, reason);
         if (!res.numUpdatedRows) throw notFound('No such tray in this test.');
-        await storeResult(trx, testId);
+        await storeResult(trx, assayId);
       });
-      return detail(bankId, testId);
+      return detail(bankId, assayId);
     },
 
-    async reopen(bankId: string, testId: string) {
+    async reopen(bankId: string, assayId: string) {
       await db.transaction().execute(async (trx) => {
-        const t = await loadTest(trx, bankId, testId, true);
+        const t = await loadAssay(trx, bankId, assayId, true);
         if (t.status === 'running') throw conflict('This test is still running.', 'test_running');
-        await repo.updateTest(trx, testId, { status: 'running', finished_on: null, updated_at: clock.now() });
+        await repo.updateAssay(trx, assayId, {
+          status: 'running',
+          finished_on: null,
+          updated_at: clock.now(),
+        });
       });
-      return detail(bankId, testId);
+      return detail(bankId, assayId);
     },
 
     /** Deletes a test entered by mistake; its seeds go back to the lot with its ledger line. */
-    async remove(bankId: string, testId: string) {
+    async remove(bankId: string, assayId: string) {
       const cleanups = await db.transaction().execute(async (trx) => {
-        await loadTest(trx, bankId, testId, true);
-        const trayIds = await repo.trayIdsOf(trx, testId);
+        await loadAssay(trx, bankId, assayId, true);
+        const trayIds = await repo.trayIdsOf(trx, assayId);
         const done = [];
         for (const trayId of trayIds) done.push(await removeSubjectPhotos(trx, bankId, 'tray', trayId));
-        await repo.deleteTest(trx, testId);
+        await repo.deleteAssay(trx, assayId);
         return done;
       });
       for (const cleanup of cleanups) await cleanup();

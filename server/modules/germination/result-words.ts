@@ -1,5 +1,5 @@
 import { dayInWords } from '#shared/day-words';
-import type { TestSummary } from '#server/stats/index';
+import type { AssaySummary } from '#server/stats/index';
 
 // The words of a test's result, from its stored summary. One definition of a seedling throughout:
 // the counts are of normal seedlings (sound root and shoot), as the seed-testing rules count them;
@@ -17,7 +17,7 @@ function trayList(numbers: readonly number[]): string {
   return `Trays ${numbers.slice(0, -1).join(', ')} and ${String(numbers.at(-1))}`;
 }
 
-function leftOutWords(r: TestSummary, finished: boolean): string[] {
+function leftOutWords(r: AssaySummary, finished: boolean): string[] {
   const out: string[] = [];
   const notCounted = r.trayPercents.flatMap((t, i) => (t.state === 'not-counted' ? [i + 1] : []));
   if (notCounted.length > 0) {
@@ -36,7 +36,7 @@ function leftOutWords(r: TestSummary, finished: boolean): string[] {
   return out;
 }
 
-function agreementWords(r: TestSummary, finished: boolean): string {
+function agreementWords(r: AssaySummary, finished: boolean): string {
   const a = r.agreement;
   if (a.ok === null) {
     return finished
@@ -58,7 +58,7 @@ function agreementWords(r: TestSummary, finished: boolean): string {
 }
 
 /** The finish figures, when given: abnormal seedlings apart, then what became of the other seeds. */
-function finishWords(r: TestSummary): string[] {
+function finishWords(r: AssaySummary): string[] {
   const out: string[] = [];
   if (r.abnormal !== null) {
     out.push(
@@ -85,7 +85,7 @@ function finishWords(r: TestSummary): string[] {
   return out;
 }
 
-function timingWords(r: TestSummary): string[] {
+function timingWords(r: AssaySummary): string[] {
   const out: string[] = [];
   if (r.t50Days !== null)
     out.push(`Half of the seedlings that came up had appeared by day ${days(r.t50Days)}.`);
@@ -98,7 +98,7 @@ function timingWords(r: TestSummary): string[] {
  * What the numbers mean, in the plain words a grower reads at the bench. While a test runs the
  * words say "so far"; a finished test's words are final and add its finish figures.
  */
-export function resultWords(r: TestSummary, firstCountDate: string | null, finished = false): string[] {
+export function resultWords(r: AssaySummary, firstCountDate: string | null, finished = false): string[] {
   if (r.percent === null || r.sown === null || r.germinated === null) {
     const allAside = r.traysTotal > 0 && r.traysSetAside === r.traysTotal;
     if (allAside)

@@ -10,7 +10,7 @@ export interface LabelContent {
   harvestDate: string | null;
   packedForSeason: number | null;
   /** The lot's latest counted test, its pooled germination as a whole percent. */
-  lastTest: { percent: number; startDate: string; running: boolean } | null;
+  lastAssay: { percent: number; startDate: string; running: boolean } | null;
   /** The lot page the QR code opens. */
   url: string;
 }
@@ -136,13 +136,13 @@ function harvestWords(content: LabelContent): string | null {
   return null;
 }
 
-function testLine(content: LabelContent, size: number): { line: FittedLine; markup: string } {
-  const test = content.lastTest;
-  if (!test) return { line: fitLine('not tested yet', size, 400, TEXT_WIDTH), markup: 'not tested yet' };
-  const [before, after] = test.running
-    ? [`test from ${test.startDate}: `, ' so far']
-    : ['last test: ', ` on ${test.startDate}`];
-  const percent = `${test.percent}%`;
+function assayLine(content: LabelContent, size: number): { line: FittedLine; markup: string } {
+  const assay = content.lastAssay;
+  if (!assay) return { line: fitLine('not tested yet', size, 400, TEXT_WIDTH), markup: 'not tested yet' };
+  const [before, after] = assay.running
+    ? [`test from ${assay.startDate}: `, ' so far']
+    : ['last test: ', ` on ${assay.startDate}`];
+  const percent = `${assay.percent}%`;
   const width = textWidth(before, size) + textWidth(percent, size, 700) + textWidth(after, size);
   const line: FittedLine = {
     text: `${before}${percent}${after}`,
@@ -166,7 +166,7 @@ export function renderLabelSvg(content: LabelContent, options: RenderOptions = {
   const species = fitLine(content.speciesName, 3.5, 700, TEXT_WIDTH);
   const variety = content.variety.trim() ? wrapTwoLines(content.variety, 3.4, 400, TEXT_WIDTH) : [];
   const harvest = harvestWords(content);
-  const test = testLine(content, 2.8);
+  const assay = assayLine(content, 2.8);
 
   const texts: TextSpec[] = [
     { line: code, y: 9.8, size: 6.6, weight: 700, fill: COLOURS.ink },
@@ -187,7 +187,7 @@ export function renderLabelSvg(content: LabelContent, options: RenderOptions = {
       weight: 400,
       fill: COLOURS.quiet,
     });
-  texts.push({ ...test, y: 32, size: 2.8, weight: 400, fill: COLOURS.body });
+  texts.push({ ...assay, y: 32, size: 2.8, weight: 400, fill: COLOURS.body });
 
   const qr = qrPath(content.url);
   const scale = Math.min(QR.maxSize / qr.modules, QR.maxModule);

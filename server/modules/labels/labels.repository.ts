@@ -1,7 +1,7 @@
 import { sql } from 'kysely';
 import type { DbOrTx } from '#server/db/database';
 
-export interface LastTestRow {
+export interface LastAssayRow {
   start_date: string;
   status: 'running' | 'finished';
   /** The stored result's whole percent, as the seed-testing rules report it. */
@@ -10,13 +10,13 @@ export interface LastTestRow {
 
 /**
  * The lot's latest test by start date with a result (at least one tray counted), read from the
- * stored result (germination/test-results.ts), the same figure every screen shows.
+ * stored result (germination/assay-results.ts), the same figure every screen shows.
  */
-export async function lastCountedTest(
+export async function lastCountedAssay(
   db: DbOrTx,
   bankId: string,
   lotId: string,
-): Promise<LastTestRow | null> {
+): Promise<LastAssayRow | null> {
   const row = await db
     .selectFrom('germination_tests')
     .select(['start_date', 'status', sql<number | null>`(result->>'percentRounded')::int`.as('percent')])

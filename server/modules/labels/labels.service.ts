@@ -3,7 +3,7 @@ import { notFound } from '#server/http/errors';
 import { lotsQuery, toLotDto } from '../lots/lots.repository';
 import { labelFontCss } from './label-font';
 import { renderLabelSvg, type LabelContent } from './label-svg';
-import { lastCountedTest } from './labels.repository';
+import { lastCountedAssay } from './labels.repository';
 
 /** The lot page's address in the client, which the label's QR code opens. */
 export function lotPageUrl(appOrigin: string, bankId: string, lotId: string): string {
@@ -15,7 +15,7 @@ export function createLabelsService({ db, appOrigin }: { db: Db; appOrigin: stri
     const row = await lotsQuery(db, bankId).where('lots.id', '=', lotId).executeTakeFirst();
     if (!row) throw notFound('No such lot.');
     const lot = toLotDto(row);
-    const test = await lastCountedTest(db, bankId, lotId);
+    const assay = await lastCountedAssay(db, bankId, lotId);
     return {
       code: lot.code,
       speciesName: lot.speciesName,
@@ -23,11 +23,11 @@ export function createLabelsService({ db, appOrigin }: { db: Db; appOrigin: stri
       variety: lot.variety,
       harvestDate: lot.harvestDate,
       packedForSeason: lot.packedForSeason,
-      lastTest: test
+      lastAssay: assay
         ? {
-            percent: test.percent,
-            startDate: test.start_date,
-            running: test.status === 'running',
+            percent: assay.percent,
+            startDate: assay.start_date,
+            running: assay.status === 'running',
           }
         : null,
       url: lotPageUrl(appOrigin, bankId, lotId),

@@ -230,7 +230,7 @@ export function deleteLot(db: DbOrTx, lotId: string) {
 }
 
 /** The start date of the lot's earliest germination test, if it has one. */
-export function firstTestStart(db: DbOrTx, lotId: string) {
+export function firstAssayStart(db: DbOrTx, lotId: string) {
   return db
     .selectFrom('germination_tests')
     .select('start_date')

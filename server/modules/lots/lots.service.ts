@@ -24,7 +24,7 @@ export interface LotsServiceDeps {
     subjectId: string,
   ) => Promise<() => Promise<void>>;
   /** Whether the lot has germination tests, which keep it from being deleted outright. */
-  hasTests: (db: DbOrTx, lotId: string) => Promise<boolean>;
+  hasAssays: (db: DbOrTx, lotId: string) => Promise<boolean>;
 }
 
 /** Seed is harvested on or before today, on the bank's calendar. */
@@ -48,7 +48,7 @@ async function checkHarvestChange(
   clock: Clock,
 ) {
   refuseFutureHarvest(harvestDate, await bankToday(trx, clock, bankId));
-  const first = await repo.firstTestStart(trx, lotId);
+  const first = await repo.firstAssayStart(trx, lotId);
   if (first && harvestDate > first.start_date) {
     throw unprocessable(
       `A germination test of this lot started on ${first.start_date}, before that harvest date.`,
@@ -315,7 +315,7 @@ export function createLotsService(deps: LotsServiceDeps) {
       const outcome = await db.transaction().execute(async (trx) => {
         const lot = await repo.lockLot(trx, bankId, lotId);
         if (!lot) throw notFound('No such lot in this bank.');
-        if (await deps.hasTests(trx, lotId)) {
+        if (await deps.hasAssays(trx, lotId)) {
           await repo.updateLot(trx, lotId, { status: 'retired', updated_at: clock.now() });
           return 'retired' as const;
         }

@@ -2,7 +2,7 @@ import { sql } from 'kysely';
 import type { DbOrTx } from '#server/db/database';
 
 /** The bank's running tests with their last count, the result so far and the trays still counted. */
-export const runningTestsWithTrays = (db: DbOrTx, bankId: string) =>
+export const runningAssaysWithTrays = (db: DbOrTx, bankId: string) =>
   db
     .selectFrom('germination_tests')
     .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')

@@ -4,7 +4,7 @@ import { listForOverview } from '../plan/plan.repository';
 import { checkDays } from '../reminders/reminders.service';
 import { listSpecies } from '../species/species.service';
 import type { ViabilityService } from '../viability/viability.service';
-import { runningTestsWithTrays } from './overview.repository';
+import { runningAssaysWithTrays } from './overview.repository';
 
 /** Fewer seeds than this on hand counts as low stock, when no plan says how many are needed. */
 const LOW_STOCK = 20;
@@ -16,7 +16,7 @@ export function createOverviewService({ db, viability }: { db: Db; viability: Vi
       const weekEnd = addDays(today, 6);
       const species = new Map((await listSpecies(db, bankId)).map((s) => [s.id, s]));
 
-      const running = await runningTestsWithTrays(db, bankId);
+      const running = await runningAssaysWithTrays(db, bankId);
       const traysToCount = running.flatMap((t) => {
         const sp = species.get(t.species_id);
         const days = checkDays(sp?.traits.firstCountDay ?? null, sp?.traits.finalCountDay ?? null);

@@ -69,7 +69,7 @@ export const sowingsOpened = (db: DbOrTx, bankId: string, earliest: string, toda
     .where('plan_entries.sow_from', '>=', earliest)
     .execute();
 
-export const runningTests = (db: DbOrTx, bankId: string) =>
+export const runningAssays = (db: DbOrTx, bankId: string) =>
   db
     .selectFrom('germination_tests')
     .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
@@ -79,11 +79,11 @@ export const runningTests = (db: DbOrTx, bankId: string) =>
     .execute();
 
 /** The trays of these tests still counted (not set aside), in order. */
-export const traysToCount = (db: DbOrTx, testIds: string[]) =>
+export const traysToCount = (db: DbOrTx, assayIds: string[]) =>
   db
     .selectFrom('test_trays')
     .select(['test_id', 'position', 'seeds_sown'])
-    .where('test_id', 'in', testIds)
+    .where('test_id', 'in', assayIds)
     .where('set_aside_reason', 'is', null)
     .orderBy('position')
     .execute();

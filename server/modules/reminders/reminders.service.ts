@@ -113,7 +113,7 @@ export function createRemindersService(deps: RemindersServiceDeps) {
     }
 
     const species = new Map((await listSpecies(db, bank.id)).map((s) => [s.id, s]));
-    const running = await repo.runningTests(db, bank.id);
+    const running = await repo.runningAssays(db, bank.id);
     const trays = running.length
       ? await repo.traysToCount(
           db,

@@ -37,7 +37,7 @@ export interface DecisionInput {
   /** At least one usable test: a counted test that is not set aside. */
   tested: boolean;
   /** A test of the lot is running now. */
-  testRunning: boolean;
+  assayRunning: boolean;
   /** `projected` comes from the species' typical figures, not from a test of this lot. */
   estimateOnly: boolean;
   /** Projected germination on `on`, with its 95% band. */
@@ -98,11 +98,11 @@ export const RETEST_CAP_DAYS = 3 * 365;
  * year. Sooner, a new test mostly repeats the last, and uses seed. Also the floor under a species'
  * monitoring interval, which is zero for a lot already below 85% of its initial viability.
  */
-export const MIN_DAYS_BETWEEN_TESTS = 90;
+export const MIN_DAYS_BETWEEN_ASSAYS = 90;
 /** The monitoring interval when the species' is unknown: one test a season (Hilum's rule). */
 export const DEFAULT_MONITORING_DAYS = 365;
 /** Seeds in a first test at home (common practice: a paper-towel test of 10–20 seeds). */
-export const FIRST_TEST_SEEDS = 20;
+export const FIRST_ASSAY_SEEDS = 20;
 
 /** The band leaves the decision open: its low end is under the threshold and its high end reaches it. */
 export const straddles = (band: Band, threshold: number) => band.low < threshold && threshold <= band.high;
@@ -118,7 +118,7 @@ export function retestDueDate(
   monitoringIntervalDays: number | null,
   straddling: boolean,
 ): string {
-  const interval = Math.max(monitoringIntervalDays ?? DEFAULT_MONITORING_DAYS, MIN_DAYS_BETWEEN_TESTS);
+  const interval = Math.max(monitoringIntervalDays ?? DEFAULT_MONITORING_DAYS, MIN_DAYS_BETWEEN_ASSAYS);
   return addDays(
     lastTestDate,
     Math.round(straddling ? Math.min(interval, RETEST_CAP_DAYS) : RETEST_CAP_DAYS),
@@ -161,33 +161,33 @@ export function decide(input: DecisionInput): Decision {
 
   // 2. Test first: no usable test. The species' figures are a guess, and a guess never retires a lot.
   if (!input.tested) {
-    const opening = input.testRunning
+    const opening = input.assayRunning
       ? 'A test of this lot is running; its result will decide.'
       : 'Never tested.';
     let guess = '';
     if (input.projected && input.estimateOnly) {
-      guess = ` ${input.testRunning ? 'Until then, the' : 'The'} species' typical figures guess ${bandWords(input.projected)} on ${dayInWords(on)}: a guess, not a measurement.`;
+      guess = ` ${input.assayRunning ? 'Until then, the' : 'The'} species' typical figures guess ${bandWords(input.projected)} on ${dayInWords(on)}: a guess, not a measurement.`;
       if (input.projected.high < RETIRE_BELOW_PERCENT)
         guess +=
           ' Even at best that is too few to be worth the tray space; a test will tell whether to retire it.';
     } else if (input.noFitReason) {
       guess = ` ${input.noFitReason}`;
     }
-    const ask = input.testRunning ? '' : ` Test about ${FIRST_TEST_SEEDS} seeds before relying on it.`;
+    const ask = input.assayRunning ? '' : ` Test about ${FIRST_ASSAY_SEEDS} seeds before relying on it.`;
     return { recommendation: 'test-first', reason: `${opening}${guess}${ask}` };
   }
 
   // The figure the rest decides by: the projection, else the latest test's own result.
   const basis = input.projected ?? input.latestResult ?? null;
-  const fromTest = !input.projected && basis !== null;
+  const fromAssay = !input.projected && basis !== null;
   const figure = input.projected
     ? `Projected ${bandWords(input.projected)} on ${dayInWords(on)}`
     : basis
       ? `The latest test found ${bandWords(basis)}`
       : '';
   const afterwords =
-    (fromTest && input.noFitReason ? ` ${input.noFitReason}` : '') +
-    (input.testRunning ? ' A test of this lot is running now; its result will update this advice.' : '');
+    (fromAssay && input.noFitReason ? ` ${input.noFitReason}` : '') +
+    (input.assayRunning ? ' A test of this lot is running now; its result will update this advice.' : '');
   const done = (recommendation: Recommendation, reason: string): Decision => ({
     recommendation,
     reason: reason + afterwords,
@@ -197,7 +197,7 @@ export function decide(input: DecisionInput): Decision {
     // Cannot happen when the caller passes `latestResult` for a tested lot; said plainly if it does.
     return {
       recommendation: 'test-first',
-      reason: `${input.noFitReason ?? 'No figure for this lot.'} Its tests give nothing to decide by: test about ${FIRST_TEST_SEEDS} seeds before relying on it.`,
+      reason: `${input.noFitReason ?? 'No figure for this lot.'} Its tests give nothing to decide by: test about ${FIRST_ASSAY_SEEDS} seeds before relying on it.`,
     };
   }
 
@@ -209,7 +209,7 @@ export function decide(input: DecisionInput): Decision {
   }
 
   // 3. Retest: only when a new test could tell something the last did not.
-  if (!input.testRunning && input.lastTestDate) {
+  if (!input.assayRunning && input.lastTestDate) {
     const today = input.today ?? on;
     const split = straddles(basis, threshold);
     const due = retestDueDate(input.lastTestDate, input.monitoringIntervalDays, split);
@@ -225,8 +225,8 @@ export function decide(input: DecisionInput): Decision {
       const which =
         interval === null
           ? 'a year on, as no checking interval is known for the species'
-          : interval < MIN_DAYS_BETWEEN_TESTS
-            ? `${MIN_DAYS_BETWEEN_TESTS} days on, the shortest wait Hilum asks between tests`
+          : interval < MIN_DAYS_BETWEEN_ASSAYS
+            ? `${MIN_DAYS_BETWEEN_ASSAYS} days on, the shortest wait Hilum asks between tests`
             : 'the checking interval for the species where the lot is kept';
       return done(
         'retest',

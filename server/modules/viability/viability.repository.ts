@@ -1,8 +1,8 @@
 import { sql } from 'kysely';
 import type { DbOrTx } from '#server/db/database';
 
-/** A test as the model and the ranking read it: its stored result (germination/test-results.ts). */
-export interface TestAggregate {
+/** A test as the model and the ranking read it: its stored result (germination/assay-results.ts). */
+export interface AssayAggregate {
   id: string;
   lot_id: string;
   start_date: string;
@@ -20,11 +20,11 @@ export interface TestAggregate {
 }
 
 /** The tests of the bank's lots of the given species, with their stored results, oldest first. */
-export async function testAggregates(
+export async function assayAggregates(
   db: DbOrTx,
   bankId: string,
   speciesIds: string[],
-): Promise<TestAggregate[]> {
+): Promise<AssayAggregate[]> {
   if (speciesIds.length === 0) return [];
   return db
     .selectFrom('germination_tests as t')

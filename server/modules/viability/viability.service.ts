@@ -13,12 +13,12 @@ import {
   projectModel,
   viabilityDistribution,
   type LotModel,
-  type ModelTest,
+  type ModelAssay,
 } from '#server/stats/viability-model';
 import { listSpecies } from '../species/species.service';
 import { lotsForDecisions, type DecisionLot } from '../lots/lots.repository';
 import * as repo from './viability.repository';
-import { testAggregates, viabilityStamps, type TestAggregate } from './viability.repository';
+import { assayAggregates, viabilityStamps, type AssayAggregate } from './viability.repository';
 import { decide, retestDueDate, straddles, type Recommendation } from './recommend';
 
 /**
@@ -54,9 +54,9 @@ export function storageTemperature(storage: {
 
 /** A test counts toward the decline once finished, or once counted up to the species' final count day. */
 function usable(
-  t: TestAggregate,
+  t: AssayAggregate,
   species: SpeciesDto | undefined,
-): t is TestAggregate & { sown: number; germinated: number } {
+): t is AssayAggregate & { sown: number; germinated: number } {
   if (t.sown === null || t.germinated === null || t.sown <= 0 || t.set_aside_reason !== null) return false;
   if (t.status === 'finished') return true;
   const final = species?.traits.finalCountDay;
@@ -77,10 +77,10 @@ export interface ViabilityPoint {
 
 export interface LotViability {
   model: LotModel | null;
-  tests: ViabilityPoint[];
+  assays: ViabilityPoint[];
   /** Tests the grower set aside, with their reasons: out of the model, shown apart. */
   setAside: { testId: string; date: string; reason: string }[];
-  lastTest: TestAggregate | null;
+  lastAssay: AssayAggregate | null;
   harvestRef: string;
   /** Equivalent years at the species' reference storage per calendar year at the lot's storage. */
   rateFactor: number;
@@ -141,18 +141,18 @@ function storageScale(lot: DecisionLot): { rateFactor: number; note: string | nu
 /** Fits one species' lots together, from their usable tests. */
 function fitSpecies(
   group: DecisionLot[],
-  tests: TestAggregate[],
+  assays: AssayAggregate[],
   sp: SpeciesDto | undefined,
 ): Map<string, LotViability> {
-  const testsByLot = new Map<string, TestAggregate[]>();
-  for (const t of tests) {
-    const list = testsByLot.get(t.lot_id);
+  const assaysByLot = new Map<string, AssayAggregate[]>();
+  for (const t of assays) {
+    const list = assaysByLot.get(t.lot_id);
     if (list) list.push(t);
-    else testsByLot.set(t.lot_id, [t]);
+    else assaysByLot.set(t.lot_id, [t]);
   }
   const prepared = group.map((lot) => {
     const ref = harvestReference(lot);
-    const all = testsByLot.get(lot.id) ?? [];
+    const all = assaysByLot.get(lot.id) ?? [];
     const points: ViabilityPoint[] = all
       .filter((t) => usable(t, sp))
       .map((t) => ({
@@ -164,16 +164,16 @@ function fitSpecies(
         fresh: t.fresh,
       }));
     const scale = storageScale(lot);
-    const modelTests: ModelTest[] = points.map((p) => ({
+    const modelAssays: ModelAssay[] = points.map((p) => ({
       id: p.testId,
       age: p.ageYears * scale.rateFactor,
       alive: p.germinated + (p.fresh ?? 0),
       sown: p.sown,
     }));
-    return { lot, ref, all, points, scale, modelTests };
+    return { lot, ref, all, points, scale, modelAssays };
   });
   const results = fitSpeciesModel(
-    prepared.map((p) => ({ id: p.lot.id, tests: p.modelTests })),
+    prepared.map((p) => ({ id: p.lot.id, assays: p.modelAssays })),
     { typicalLifeYears: sp?.traits.storageLifeYears ?? null },
   );
   const fits = new Map<string, LotFit>(
@@ -189,11 +189,11 @@ function fitSpecies(
       p.lot.id,
       {
         ...fits.get(p.lot.id)!,
-        tests: p.points,
+        assays: p.points,
         setAside: p.all
           .filter((t) => t.set_aside_reason !== null)
           .map((t) => ({ testId: t.id, date: t.start_date, reason: t.set_aside_reason! })),
-        lastTest: p.all.filter((t) => t.set_aside_reason === null).at(-1) ?? null,
+        lastAssay: p.all.filter((t) => t.set_aside_reason === null).at(-1) ?? null,
         harvestRef: p.ref,
         rateFactor: p.scale.rateFactor,
         storageNote: p.scale.note,
@@ -243,24 +243,24 @@ async function fitLots(
       stale.push({ speciesId, key, stamp, traits, group });
     }
   }
-  const tests = await testAggregates(
+  const assays = await assayAggregates(
     db,
     bankId,
     stale.map((s) => s.speciesId),
   );
   const lotSpecies = new Map(lots.map((l) => [l.id, l.speciesId]));
-  const testsBySpecies = new Map<string, TestAggregate[]>();
-  for (const t of tests) {
+  const assaysBySpecies = new Map<string, AssayAggregate[]>();
+  for (const t of assays) {
     const sp = lotSpecies.get(t.lot_id);
     if (sp === undefined) continue;
-    const list = testsBySpecies.get(sp);
+    const list = assaysBySpecies.get(sp);
     if (list) list.push(t);
-    else testsBySpecies.set(sp, [t]);
+    else assaysBySpecies.set(sp, [t]);
   }
   for (const [i, s] of stale.entries()) {
     // A bank's first fits can take seconds: let other requests in between species.
     if (i > 0) await new Promise((resolve) => setImmediate(resolve));
-    const byLot = fitSpecies(s.group, testsBySpecies.get(s.speciesId) ?? [], species.get(s.speciesId));
+    const byLot = fitSpecies(s.group, assaysBySpecies.get(s.speciesId) ?? [], species.get(s.speciesId));
     cache.set(s.key, { stamp: s.stamp, traits: s.traits, byLot });
     for (const [id, v] of byLot) out.set(id, v);
   }
@@ -392,19 +392,19 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
   ) {
     const projected = projectOn(v, on);
     const nextSeason = projectOn(v, addYears(on, 1));
-    const lastUsable = v.tests.at(-1) ?? null;
+    const lastUsable = v.assays.at(-1) ?? null;
     const model = v.model;
     const monitoring = model
       ? memo(model, 'monitoring', () => monitoringIntervalYears(model)) / v.rateFactor
       : null;
-    const latest = v.lastTest && v.lastTest.percent !== null ? v.lastTest : null;
+    const latest = v.lastAssay && v.lastAssay.percent !== null ? v.lastAssay : null;
     const d: { recommendation: Recommendation; reason: string } = decide({
       on,
       today: settings.today,
       seedsOnHand: lot.seedsOnHand,
       seedsNeeded,
-      tested: v.tests.length > 0,
-      testRunning: v.lastTest?.status === 'running',
+      tested: v.assays.length > 0,
+      assayRunning: v.lastAssay?.status === 'running',
       estimateOnly: v.model?.estimateOnly ?? true,
       projected,
       projectedNextSeason: nextSeason,
@@ -416,7 +416,7 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
       establishment: settings.establishment,
       youngerLotOfVariety: younger,
       // Untested lots have their own words in the rules; only a failed fit needs its reason.
-      noFitReason: v.tests.length > 0 ? v.reasonNoFit : null,
+      noFitReason: v.assays.length > 0 ? v.reasonNoFit : null,
       latestResult: latest ? { percent: latest.percent!, low: latest.percent!, high: latest.percent! } : null,
     });
     const retestBy =
@@ -478,7 +478,7 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
         const key = `${decisionKey(lot, younger, threshold, sp, settings, seedsNeeded, on)}|${lot.code}|${lot.speciesName}|${lot.variety}|${lot.status}|${lot.origin}|${lot.sourceName}|${lot.treated}|${lot.thumbUrl}`;
         return memoOn(rankingRows, v, key, (): { item: RankingRow; rendered?: Buffer } => {
           const d = decision(lot, v, hasYounger, sp, settings, seedsNeeded, on);
-          const last = v.lastTest;
+          const last = v.lastAssay;
           return {
             item: {
               lotId: lot.id,
@@ -520,7 +520,7 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
       const ageOn = ageYears(v.harvestRef, on);
       const needed = (await seedsNeededByLot(bankId)).get(lotId) ?? null;
       const d = decision(v.lot, v, youngerLots(v.siblings), v.species, v.settings, needed, on);
-      const maxAge = Math.max(ageOn, ...v.tests.map((t) => t.ageYears), 1) * 1.25;
+      const maxAge = Math.max(ageOn, ...v.assays.map((t) => t.ageYears), 1) * 1.25;
       const ageEqNow = Math.max(0, ageOn) * v.rateFactor;
       const storageAdvice = v.model
         ? ADVICE_PLACES.map(({ place, label }) => {
@@ -558,7 +558,7 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
         ],
         harvestReference: v.harvestRef,
         storageAdvice,
-        points: v.tests.map((t) => ({
+        points: v.assays.map((t) => ({
           testId: t.testId,
           date: t.date,
           ageYears: t.ageYears,

@@ -6,7 +6,7 @@ import {
   summarizeTest,
   wilsonInterval,
 } from '#server/stats/index';
-import type { GerminationCheck, TestTray } from '#server/stats/index';
+import type { GerminationCheck, AssayTray } from '#server/stats/index';
 
 // Property tests (fast-check 4.11.0) with a fixed seed, so every run draws the same cases. The
 // properties are those any confidence interval for a proportion, and any timing measure defined on
@@ -51,14 +51,14 @@ function shuffled<T>(items: readonly T[]): fc.Arbitrary<T[]> {
 }
 
 /** One tray: its counts never exceed the seeds sown; an empty check list is a tray not yet counted. */
-const trayArbitrary = (id: string): fc.Arbitrary<TestTray> =>
+const trayArbitrary = (id: string): fc.Arbitrary<AssayTray> =>
   fc.tuple(fc.integer({ min: 1, max: 200 }), checksArbitrary).map(([seedsSown, checks]) => ({
     id,
     seedsSown,
     checks: checks.map((c) => ({ day: c.day, cumulative: Math.min(c.cumulative, seedsSown) })),
   }));
 
-const traysArbitrary: fc.Arbitrary<TestTray[]> = fc
+const traysArbitrary: fc.Arbitrary<AssayTray[]> = fc
   .integer({ min: 1, max: 6 })
   .chain((k) => fc.tuple(...Array.from({ length: k }, (_, i) => trayArbitrary(`tray-${String(i)}`))));
 

@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { resultWords } from '#server/modules/germination/result-words';
 import { summarizeTest } from '#server/stats/index';
-import type { TestTray } from '#server/stats/index';
+import type { AssayTray } from '#server/stats/index';
 
 // The words of a result follow one definition of a seedling (the seed-testing rules count normal
 // seedlings; abnormal ones are recorded apart; fresh ungerminated seeds are dormant but alive:
 // ISTA Rules ch. 5, 7 CFR 201.21/201.30 for hard seed reported apart) and say which trays are out.
 
-const counted = (id: string, seedsSown: number, day7: number, day14: number): TestTray => ({
+const counted = (id: string, seedsSown: number, day7: number, day14: number): AssayTray => ({
   id,
   seedsSown,
   checks: [

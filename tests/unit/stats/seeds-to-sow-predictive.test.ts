@@ -32,7 +32,7 @@ function jstatBetaBinomialTail(k: number, n: number, a: number, b: number): numb
  * Beta posteriors of small tests: x of m seeds germinated, with the Jeffreys prior Beta(½, ½)
  * (Beta(x + ½, m − x + ½)) and the uniform prior Beta(1, 1) (Beta(x + 1, m − x + 1)).
  */
-const TESTS: readonly (readonly [x: number, m: number])[] = [
+const ASSAYS: readonly (readonly [x: number, m: number])[] = [
   [3, 10],
   [7, 10],
   [9, 10],
@@ -46,7 +46,7 @@ const TESTS: readonly (readonly [x: number, m: number])[] = [
   [90, 100],
   [100, 100],
 ];
-const POSTERIORS = TESTS.flatMap(([x, m]) => [
+const POSTERIORS = ASSAYS.flatMap(([x, m]) => [
   { a: x + 0.5, b: m - x + 0.5 },
   { a: x + 1, b: m - x + 1 },
 ]);

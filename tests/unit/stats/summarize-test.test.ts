@@ -7,10 +7,10 @@ import {
   summarizeTest,
   wilsonInterval,
 } from '#server/stats/index';
-import type { TestTray } from '#server/stats/index';
+import type { AssayTray } from '#server/stats/index';
 
 /** Turns new germinants per day (days 1…) into cumulative checks. */
-function tray(id: string, seedsSown: number, newPerDay: number[]): TestTray {
+function tray(id: string, seedsSown: number, newPerDay: number[]): AssayTray {
   let total = 0;
   return { id, seedsSown, checks: newPerDay.map((n, i) => ({ day: i + 1, cumulative: (total += n) })) };
 }
@@ -25,7 +25,7 @@ const WORKED_TRAYS = [
 ];
 
 /** Trays of 100 with the given final counts and no other count (day 14 only). */
-function finalOnly(...finals: number[]): TestTray[] {
+function finalOnly(...finals: number[]): AssayTray[] {
   return finals.map((f, i) => ({
     id: `f${String(i)}`,
     seedsSown: 100,
@@ -34,7 +34,7 @@ function finalOnly(...finals: number[]): TestTray[] {
 }
 
 /** Four trays of 100 with the given final counts, all counted on day 7 and day 14. */
-function finalCounts(...finals: number[]): TestTray[] {
+function finalCounts(...finals: number[]): AssayTray[] {
   return finals.map((f, i) => ({
     id: `t${String(i)}`,
     seedsSown: 100,
@@ -123,7 +123,7 @@ describe('summarizeTest', () => {
   });
 
   it('when trays are checked on different days, then counts are carried forward before pooling', () => {
-    const trays: TestTray[] = [
+    const trays: AssayTray[] = [
       {
         id: 'x',
         seedsSown: 50,
@@ -227,7 +227,7 @@ describe('summarizeTest', () => {
 
   it('when a tray is set aside, then it is left out of every figure and shown as set aside', () => {
     // The 4-tray example of issue 12: trays of 100 at 80 and 90, a third set aside after counting 10.
-    const trays: TestTray[] = [
+    const trays: AssayTray[] = [
       ...finalCounts(80, 90),
       { id: 'spilled', seedsSown: 100, checks: [{ day: 7, cumulative: 10 }], setAsideReason: 'Spilled' },
       { id: 'later', seedsSown: 100, checks: [] },
@@ -248,7 +248,7 @@ describe('summarizeTest', () => {
   });
 
   it('when every tray has its finish figures, then they are pooled; when one lacks a figure, that figure is null', () => {
-    const finished: TestTray[] = [
+    const finished: AssayTray[] = [
       { ...tray('a', 50, [0, 20, 20]), abnormal: 3, ungerminated: 7, fresh: 4, dead: 3, hard: 0 },
       { ...tray('b', 50, [0, 25, 15]), abnormal: 2, ungerminated: 8, fresh: 5, dead: 3, hard: null },
       { ...tray('c', 50, [0, 0, 5]), setAsideReason: 'Dried out', abnormal: 40, ungerminated: 5 },

@@ -7,7 +7,7 @@ import {
   projectViability,
   retestAge,
 } from '#server/stats/index';
-import type { ViabilityTest } from '#server/stats/index';
+import type { ViabilityAssay } from '#server/stats/index';
 import { mulberry32 } from './seeded-random';
 
 // Test counts are illustrative; expected values come from the cited formula, an independent
@@ -22,7 +22,7 @@ function simulateLot(
   ages: number[],
   sown: number,
   uniform: () => number,
-): ViabilityTest[] {
+): ViabilityAssay[] {
   return ages.map((ageYears) => {
     const p = PHI(ki - ageYears / sigma);
     let germinated = 0;
@@ -31,14 +31,14 @@ function simulateLot(
   });
 }
 
-const LOT: ViabilityTest[] = [
+const LOT: ViabilityAssay[] = [
   { ageYears: 0.5, germinated: 92, sown: 100 },
   { ageYears: 2, germinated: 85, sown: 100 },
   { ageYears: 3, germinated: 70, sown: 100 },
 ];
 
 /** A fit with no uncertainty, for checking the formulas on their own. */
-function exactFit(ki: number, sigma: number, lastTestAgeYears = 0) {
+function exactFit(ki: number, sigma: number, lastAssayAgeYears = 0) {
   return {
     initialProbit: ki,
     slopePerYear: -1 / sigma,
@@ -47,7 +47,7 @@ function exactFit(ki: number, sigma: number, lastTestAgeYears = 0) {
       [0, 0],
     ] as [[number, number], [number, number]],
     confidence: 0.95,
-    lastTestAgeYears,
+    lastAssayAgeYears,
   };
 }
 
@@ -78,8 +78,8 @@ describe('fitViabilityDecline', () => {
 
   it('when tests are simulated from known Ki and σ, then the fit recovers them', () => {
     const uniform = mulberry32(5);
-    const tests = simulateLot(1.9, 4, [0, 1, 2, 3, 4, 5, 6], 400, uniform);
-    const fit = fitViabilityDecline(tests);
+    const assays = simulateLot(1.9, 4, [0, 1, 2, 3, 4, 5, 6], 400, uniform);
+    const fit = fitViabilityDecline(assays);
     const seKi = Math.sqrt(fit.covariance[0][0]);
     const seSlope = Math.sqrt(fit.covariance[1][1]);
     expect(Math.abs(fit.initialProbit - 1.9)).toBeLessThan(3.5 * seKi);
@@ -120,7 +120,7 @@ describe('fitViabilityDecline', () => {
   });
 
   it("when a lot has one test and the species' other lots were tested, then σ is borrowed from their pooled fit", () => {
-    const otherLots: ViabilityTest[][] = [
+    const otherLots: ViabilityAssay[][] = [
       [
         { ageYears: 0, germinated: 95, sown: 100 },
         { ageYears: 3, germinated: 60, sown: 100 },
@@ -145,10 +145,10 @@ describe('fitViabilityDecline', () => {
     expect(fit.covariance[1][1]).toBeCloseTo(pooled.seSlope ** 2, 12);
     expect(projectViability(fit, 1).percent).toBeCloseTo(90, 8); // passes through the lot's own test
     // Delta method with a borrowed slope: Var(Ki + b·t) = Var(Ki | b) + (t − t̄)²·Var(b), smallest at the tested age.
-    const atTest = projectViability(fit, 1);
+    const atAssay = projectViability(fit, 1);
     const later = projectViability(fit, 3);
     expect(PROBIT(later.high / 100) - PROBIT(later.low / 100)).toBeGreaterThan(
-      PROBIT(atTest.high / 100) - PROBIT(atTest.low / 100),
+      PROBIT(atAssay.high / 100) - PROBIT(atAssay.low / 100),
     );
   });
 
@@ -163,7 +163,7 @@ describe('fitViabilityDecline', () => {
   });
 
   it("when the lot's tests show no decline, then the fit falls back to the prior and says so", () => {
-    const rising: ViabilityTest[] = [
+    const rising: ViabilityAssay[] = [
       { ageYears: 0, germinated: 80, sown: 100 },
       { ageYears: 2, germinated: 88, sown: 100 },
     ];

@@ -16,8 +16,8 @@ import {
 
 const TOMATO = { typicalLifeYears: 4 }; // ISU Yard & Garden 1999 (Knott's Handbook): tomato 4 years [read]
 
-function fitOne(tests: ModelLot['tests'], others: ModelLot[] = [], prior = TOMATO): LotModel {
-  const [first] = fitSpeciesModel([{ id: 'lot', tests }, ...others], prior);
+function fitOne(assays: ModelLot['assays'], others: ModelLot[] = [], prior = TOMATO): LotModel {
+  const [first] = fitSpeciesModel([{ id: 'lot', assays }, ...others], prior);
   if (!first?.ok) throw new Error(`not fitted: ${JSON.stringify(first)}`);
   return first.model;
 }
@@ -39,7 +39,7 @@ function expectSensible(model: LotModel, ages: number[]) {
   expect(model.initial.high).toBeLessThanOrEqual(99.9 + 1e-9); // initial viability bounded by Φ(3.09)
 }
 
-const test = (id: string, age: number, alive: number, sown = 100) => ({ id, age, alive, sown });
+const assay = (id: string, age: number, alive: number, sown = 100) => ({ id, age, alive, sown });
 
 describe('the viability model', () => {
   it('when log Φ is read from its table, then it matches the exact Φ in both tails', () => {
@@ -52,7 +52,7 @@ describe('the viability model', () => {
   });
 
   it('when a lot has one test, then its band is finite and widens with age, borrowing the species rate', () => {
-    const m = fitOne([test('a', 0.5, 90)]);
+    const m = fitOne([assay('a', 0.5, 90)]);
     expectSensible(m, [0, 0.5, 2, 5, 20]);
     expect(m.basis).toBe('typical');
     const now = projectModel(m, 0.5);
@@ -64,7 +64,7 @@ describe('the viability model', () => {
   });
 
   it('when a lot has two close tests (96%, then 95% eight months later), then three years on its band is not 3–100%', () => {
-    const m = fitOne([test('a', 1, 96), test('b', 1 + 8 / 12, 95)]);
+    const m = fitOne([assay('a', 1, 96), assay('b', 1 + 8 / 12, 95)]);
     expectSensible(m, [0, 2, 4.67, 10]);
     const on = projectModel(m, 4.67);
     expect(on.low).toBeGreaterThan(20);
@@ -72,20 +72,20 @@ describe('the viability model', () => {
   });
 
   it('when a lot has two equal tests, then its half-life is years, not 10^17', () => {
-    const m = fitOne([test('a', 1, 90), test('b', 3, 90)]);
+    const m = fitOne([assay('a', 1, 90), assay('b', 3, 90)]);
     expectSensible(m, [0, 3, 8]);
     expect(m.halfLifeYears).toBeGreaterThan(3);
     expect(m.halfLifeYears).toBeLessThan(60);
   });
 
   it('when every result is 100%, then the initial viability stays under 99.9% and the decline is finite', () => {
-    const m = fitOne([test('a', 1, 50, 50), test('b', 2, 50, 50)]);
+    const m = fitOne([assay('a', 1, 50, 50), assay('b', 2, 50, 50)]);
     expectSensible(m, [0, 2, 6]);
     expect(projectModel(m, 6).percent).toBeLessThan(projectModel(m, 2).percent);
   });
 
   it('when results rise with age (30% fresh, 95% a year later), then the early test is read as held back, not as decline', () => {
-    const m = fitOne([test('fresh', 0.05, 30), test('later', 1.05, 95)]);
+    const m = fitOne([assay('fresh', 0.05, 30), assay('later', 1.05, 95)]);
     expectSensible(m, [0.05, 1.05, 3]);
     expect(m.heldBack).toEqual(['fresh']);
     expect(m.notes.join(' ')).toMatch(/held back by dormancy or by conditions/);
@@ -96,11 +96,11 @@ describe('the viability model', () => {
   it('when a lot rises against the species (a borrowed rate), then nothing becomes NaN and its siblings are unchanged', () => {
     const siblings: ModelLot[] = Array.from({ length: 6 }, (_, j) => ({
       id: `s${j}`,
-      tests: [test(`s${j}a`, 0.5, 92), test(`s${j}b`, 3, 55)],
+      assays: [assay(`s${j}a`, 0.5, 92), assay(`s${j}b`, 3, 55)],
     }));
     const alone = fitSpeciesModel(siblings, TOMATO);
     const withOdd = fitSpeciesModel(
-      [{ id: 'odd', tests: [test('o1', 0.2, 8, 20), test('o2', 2.5, 20, 20)] }, ...siblings],
+      [{ id: 'odd', assays: [assay('o1', 0.2, 8, 20), assay('o2', 2.5, 20, 20)] }, ...siblings],
       TOMATO,
     );
     const odd = withOdd[0]!;
@@ -119,8 +119,8 @@ describe('the viability model', () => {
   it('when one lot was tested 100% then 95%, then its siblings with one test keep sensible bands', () => {
     const results = fitSpeciesModel(
       [
-        { id: 'poison', tests: [test('p1', 1, 100), test('p2', 2, 95)] },
-        { id: 'sib', tests: [test('x', 0.5, 90)] },
+        { id: 'poison', assays: [assay('p1', 1, 100), assay('p2', 2, 95)] },
+        { id: 'sib', assays: [assay('x', 0.5, 90)] },
       ],
       TOMATO,
     );
@@ -136,10 +136,10 @@ describe('the viability model', () => {
     // (Dickie et al. 1990 universal temperature terms, storage-sigma.ts temperatureFactor).
     const freezer = (id: string) => ({
       id,
-      tests: [test(`${id}a`, 0.5 * 0.092, 95), test(`${id}b`, 4 * 0.092, 94)],
+      assays: [assay(`${id}a`, 0.5 * 0.092, 95), assay(`${id}b`, 4 * 0.092, 94)],
     });
     const results = fitSpeciesModel(
-      [{ id: 'room', tests: [test('r', 0.5 * 1.77, 93)] }, freezer('f1'), freezer('f2')],
+      [{ id: 'room', assays: [assay('r', 0.5 * 1.77, 93)] }, freezer('f1'), freezer('f2')],
       TOMATO,
     );
     const room = results[0]!;
@@ -162,8 +162,8 @@ describe('the viability model', () => {
   it('when a test has impossible counts, then that lot says so and the others are still fitted', () => {
     const results = fitSpeciesModel(
       [
-        { id: 'bad', tests: [test('b', 1, 120)] },
-        { id: 'good', tests: [test('g', 1, 80)] },
+        { id: 'bad', assays: [assay('b', 1, 120)] },
+        { id: 'good', assays: [assay('g', 1, 80)] },
       ],
       TOMATO,
     );
@@ -172,7 +172,7 @@ describe('the viability model', () => {
   });
 
   it('when the monitoring interval is asked for, then it is a third of the time to fall to 85% of initial', () => {
-    const m = fitOne([test('a', 0.5, 92), test('b', 2.5, 60)]);
+    const m = fitOne([assay('a', 0.5, 92), assay('b', 2.5, 60)]);
     const years = monitoringIntervalYears(m);
     expect(years).toBeGreaterThan(0.05);
     expect(years).toBeLessThan(3);

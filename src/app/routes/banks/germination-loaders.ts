@@ -1,7 +1,7 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { data, redirect, type LoaderFunctionArgs } from 'react-router-dom';
 import { paths } from '#src/config/paths';
-import { testQueryOptions } from '#src/features/germination/api/get-test';
+import { assayQueryOptions } from '#src/features/germination/api/get-assay';
 import { lotQueryOptions } from '#src/features/lots/api/get-lot';
 import { isApiError } from '#src/lib/api-client';
 
@@ -27,12 +27,12 @@ function param(params: LoaderFunctionArgs['params'], name: string): string {
 }
 
 /** /banks/:bankId/tests/:testId: the test with the interval the address asks for. */
-export function testLoader(queryClient: QueryClient) {
+export function assayLoader(queryClient: QueryClient) {
   return async ({ params, request }: LoaderFunctionArgs) => {
     const interval = intervalFromSearch(new URL(request.url).searchParams);
     try {
       await queryClient.ensureQueryData(
-        testQueryOptions(param(params, 'bankId'), param(params, 'testId'), interval),
+        assayQueryOptions(param(params, 'bankId'), param(params, 'testId'), interval),
       );
     } catch (error) {
       failure(error, request);
@@ -42,7 +42,7 @@ export function testLoader(queryClient: QueryClient) {
 }
 
 /** /banks/:bankId/lots/:lotId/tests/new: the lot, for its stock on hand. */
-export function newTestLoader(queryClient: QueryClient) {
+export function newAssayLoader(queryClient: QueryClient) {
   return async ({ params, request }: LoaderFunctionArgs) => {
     try {
       await queryClient.ensureQueryData(lotQueryOptions(param(params, 'bankId'), param(params, 'lotId')));

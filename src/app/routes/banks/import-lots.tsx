@@ -3,7 +3,7 @@ import { Link, useSearchParams } from 'react-router-dom';
 import { FormAlert } from '#src/components/ui/form-alert';
 import { PageHeader } from '#src/components/ui/page-header';
 import { paths } from '#src/config/paths';
-import { ImportTests } from '#src/features/germination/components/import-tests';
+import { ImportAssays } from '#src/features/germination/components/import-assays';
 import { ImportLots } from '#src/features/lots/components/import-lots';
 import { SwapCaution } from '#src/features/lots/components/lot-form-parts';
 import { useRouteBank } from './use-route-bank';
@@ -80,7 +80,7 @@ export function ImportLotsPage() {
         <div className="grid gap-5">
           <HoldsChoice holds={holds} onChange={choose} />
           {holds === 'tests' ? (
-            <ImportTests key="tests" bankId={bank.id} doneHref={paths.lots.getHref(bank.id)} />
+            <ImportAssays key="tests" bankId={bank.id} doneHref={paths.lots.getHref(bank.id)} />
           ) : (
             <>
               {/* A file of lots often comes from a swap or another circle. */}

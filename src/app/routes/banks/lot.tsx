@@ -2,8 +2,8 @@ import { Link, useLocation, useNavigate, useParams } from 'react-router-dom';
 import { buttonStyles } from '#src/components/ui/button';
 import { Card } from '#src/components/ui/card';
 import { paths } from '#src/config/paths';
-import { useLotTests } from '#src/features/germination/api/get-lot-tests';
-import { LotTests } from '#src/features/germination/components/lot-tests';
+import { useLotAssays } from '#src/features/germination/api/get-lot-assays';
+import { LotAssays } from '#src/features/germination/components/lot-assays';
 import { PrintLabelLink } from '#src/features/labels/components/print-label-link';
 import { useLot } from '#src/features/lots/api/get-lot';
 import { DeleteLotCard } from '#src/features/lots/components/delete-lot-card';
@@ -45,11 +45,11 @@ export function LotPage() {
   const today = todayIn(bank.timeZone);
   const sowing = useSowingDate(bank.lastFrost, today);
   // The results of tests set aside, for the decline chart (the same cached list as the tests section).
-  const lotTests = useLotTests(bank.id, lot.id).data?.items ?? [];
+  const lotAssays = useLotAssays(bank.id, lot.id).data?.items ?? [];
   const setAsideResults = Object.fromEntries(
-    lotTests.flatMap(({ test, result }) =>
-      test.setAsideReason !== null && result.germinated !== null && result.sown !== null
-        ? [[test.id, { germinated: result.germinated, sown: result.sown }]]
+    lotAssays.flatMap(({ test: assay, result }) =>
+      assay.setAsideReason !== null && result.germinated !== null && result.sown !== null
+        ? [[assay.id, { germinated: result.germinated, sown: result.sown }]]
         : [],
     ),
   );
@@ -103,7 +103,7 @@ export function LotPage() {
             their list of this lot's tests in this section. Nothing else goes here.
           */}
           <section id="lot-tests" aria-labelledby="lot-tests-title">
-            <LotTests bankId={bank.id} lotId={lot.id} canWrite={canEdit} headingId="lot-tests-title" />
+            <LotAssays bankId={bank.id} lotId={lot.id} canWrite={canEdit} headingId="lot-tests-title" />
           </section>
           <DeclineCard
             bankId={bank.id}

@@ -27,7 +27,7 @@ export function LotsPage() {
       <a href={bankPaths.lotsCsv(bank.id)} download className={buttonStyles({ variant: 'secondary' })}>
         Export lots CSV
       </a>
-      <a href={bankPaths.testsCsv(bank.id)} download className={buttonStyles({ variant: 'secondary' })}>
+      <a href={bankPaths.assaysCsv(bank.id)} download className={buttonStyles({ variant: 'secondary' })}>
         Export tests CSV
       </a>
       {canEdit ? (

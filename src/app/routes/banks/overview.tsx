@@ -63,7 +63,7 @@ function WeekBody({ overview }: { overview: Overview }) {
       isOwner={role === 'owner'}
       hasLots={false}
       frostDateSet={frostDateSet}
-      hasTests={overview.counts.runningTests > 0}
+      hasAssays={overview.counts.runningTests > 0}
     />
   ) : (
     <div className="grid gap-6">

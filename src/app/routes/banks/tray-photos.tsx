@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import type { TestDetail } from '#shared/schemas/germination';
+import type { AssayDetail } from '#shared/schemas/germination';
 import { Card } from '#src/components/ui/card';
 import { traySubjectId } from '#src/lib/bank-api';
 import { PhotoGallery } from '#src/features/photos/components/photo-gallery';
@@ -15,7 +15,7 @@ export function TrayPhotos({
   canEdit,
 }: {
   bankId: string;
-  detail: TestDetail;
+  detail: AssayDetail;
   canEdit: boolean;
 }) {
   const trays = [...detail.trays].sort((a, b) => a.position - b.position);

@@ -1,21 +1,21 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { testDetailSchema, type TestDetail } from '#shared/schemas/germination';
+import { assayDetailSchema, type AssayDetail } from '#shared/schemas/germination';
 import { apiFetch } from '#src/lib/api-client';
-import { applyTestDetail } from './apply-test-detail';
+import { applyAssayDetail } from './apply-assay-detail';
 import { bankPaths } from '#src/lib/bank-api';
 
 /** DELETE /api/banks/:bankId/tests/:testId/counts/:date (grower): removes one check date's counts. */
-export function deleteCounts(bankId: string, testId: string, date: string): Promise<TestDetail> {
-  return apiFetch(bankPaths.testCountsOn(bankId, testId, date), {
+export function deleteCounts(bankId: string, assayId: string, date: string): Promise<AssayDetail> {
+  return apiFetch(bankPaths.assayCountsOn(bankId, assayId, date), {
     method: 'DELETE',
-    schema: testDetailSchema,
+    schema: assayDetailSchema,
   });
 }
 
-export function useDeleteCounts(bankId: string, testId: string) {
+export function useDeleteCounts(bankId: string, assayId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (date: string) => deleteCounts(bankId, testId, date),
-    onSuccess: (detail) => applyTestDetail(queryClient, bankId, detail),
+    mutationFn: (date: string) => deleteCounts(bankId, assayId, date),
+    onSuccess: (detail) => applyAssayDetail(queryClient, bankId, detail),
   });
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { testDetailSchema, type CountsBody, type TestDetail } from '#shared/schemas/germination';
+import { assayDetailSchema, type CountsBody, type AssayDetail } from '#shared/schemas/germination';
 import { apiFetch } from '#src/lib/api-client';
-import { applyTestDetail } from './apply-test-detail';
+import { applyAssayDetail } from './apply-assay-detail';
 import { bankPaths } from '#src/lib/bank-api';
 
 /**
@@ -10,14 +10,14 @@ import { bankPaths } from '#src/lib/bank-api';
  */
 export function recordCounts(
   bankId: string,
-  testId: string,
+  assayId: string,
   body: CountsBody,
   { signal }: { signal?: AbortSignal } = {},
-): Promise<TestDetail> {
-  return apiFetch(bankPaths.testCounts(bankId, testId), {
+): Promise<AssayDetail> {
+  return apiFetch(bankPaths.assayCounts(bankId, assayId), {
     method: 'POST',
     body,
-    schema: testDetailSchema,
+    schema: assayDetailSchema,
     signal,
   });
 }
@@ -25,11 +25,11 @@ export function recordCounts(
 // A bench with weak Wi-Fi can leave a request hanging; give up after this and keep the numbers.
 const SAVE_TIMEOUT_MS = 20_000;
 
-export function useRecordCounts(bankId: string, testId: string) {
+export function useRecordCounts(bankId: string, assayId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: CountsBody) =>
-      recordCounts(bankId, testId, body, { signal: AbortSignal.timeout(SAVE_TIMEOUT_MS) }),
-    onSuccess: (detail) => applyTestDetail(queryClient, bankId, detail),
+      recordCounts(bankId, assayId, body, { signal: AbortSignal.timeout(SAVE_TIMEOUT_MS) }),
+    onSuccess: (detail) => applyAssayDetail(queryClient, bankId, detail),
   });
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { testDetailSchema, type TestDetail } from '#shared/schemas/germination';
+import { assayDetailSchema, type AssayDetail } from '#shared/schemas/germination';
 import { apiFetch } from '#src/lib/api-client';
-import { applyTestDetail } from './apply-test-detail';
+import { applyAssayDetail } from './apply-assay-detail';
 import { bankPaths } from '#src/lib/bank-api';
 
 /**
@@ -10,22 +10,22 @@ import { bankPaths } from '#src/lib/bank-api';
  */
 export function setTrayAside(
   bankId: string,
-  testId: string,
+  assayId: string,
   trayId: string,
   setAsideReason: string | null,
-): Promise<TestDetail> {
-  return apiFetch(bankPaths.tray(bankId, testId, trayId), {
+): Promise<AssayDetail> {
+  return apiFetch(bankPaths.tray(bankId, assayId, trayId), {
     method: 'PATCH',
     body: { setAsideReason },
-    schema: testDetailSchema,
+    schema: assayDetailSchema,
   });
 }
 
-export function useSetTrayAside(bankId: string, testId: string) {
+export function useSetTrayAside(bankId: string, assayId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ trayId, reason }: { trayId: string; reason: string | null }) =>
-      setTrayAside(bankId, testId, trayId, reason),
-    onSuccess: (detail) => applyTestDetail(queryClient, bankId, detail),
+      setTrayAside(bankId, assayId, trayId, reason),
+    onSuccess: (detail) => applyAssayDetail(queryClient, bankId, detail),
   });
 }

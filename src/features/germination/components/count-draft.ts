@@ -7,7 +7,7 @@ import { z } from 'zod';
 const draftSchema = z.object({ values: z.record(z.string(), z.string()), keptAt: z.string() });
 export type CountDraft = z.infer<typeof draftSchema>;
 
-const keyOf = (testId: string, date: string) => `hilum.count-draft.${testId}.${date}`;
+const keyOf = (assayId: string, date: string) => `hilum.count-draft.${assayId}.${date}`;
 
 function storage(): Storage | null {
   try {
@@ -17,8 +17,8 @@ function storage(): Storage | null {
   }
 }
 
-export function readDraft(testId: string, date: string): CountDraft | null {
-  const raw = storage()?.getItem(keyOf(testId, date));
+export function readDraft(assayId: string, date: string): CountDraft | null {
+  const raw = storage()?.getItem(keyOf(assayId, date));
   if (!raw) return null;
   try {
     const parsed = draftSchema.safeParse(JSON.parse(raw));
@@ -28,14 +28,14 @@ export function readDraft(testId: string, date: string): CountDraft | null {
   }
 }
 
-export function writeDraft(testId: string, date: string, values: Record<string, string>): void {
+export function writeDraft(assayId: string, date: string, values: Record<string, string>): void {
   try {
-    storage()?.setItem(keyOf(testId, date), JSON.stringify({ values, keptAt: new Date().toISOString() }));
+    storage()?.setItem(keyOf(assayId, date), JSON.stringify({ values, keptAt: new Date().toISOString() }));
   } catch {
     // storage full or blocked: the numbers stay on screen, only the reload safety is lost
   }
 }
 
-export function clearDraft(testId: string, date: string): void {
-  storage()?.removeItem(keyOf(testId, date));
+export function clearDraft(assayId: string, date: string): void {
+  storage()?.removeItem(keyOf(assayId, date));
 }

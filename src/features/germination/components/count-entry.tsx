@@ -3,7 +3,7 @@ import { useEffect, useId, useRef, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { seedlingsAboveSown } from '#shared/count-rules';
-import { countsBodySchema, type TestDetail } from '#shared/schemas/germination';
+import { countsBodySchema, type AssayDetail } from '#shared/schemas/germination';
 import { Button } from '#src/components/ui/button';
 import { FormAlert } from '#src/components/ui/form-alert';
 import { TextField } from '#src/components/ui/text-field';
@@ -18,7 +18,7 @@ import { ABNORMAL_APART, NORMAL_SEEDLING, NOT_COUNTED, sentence, setAsideWords }
 
 export interface CountEntryProps {
   bankId: string;
-  detail: TestDetail;
+  detail: AssayDetail;
   /** The check date being entered (YYYY-MM-DD); the page keeps it so the counts table can pick one. */
   date: string;
   onDateChange: (date: string) => void;
@@ -26,7 +26,7 @@ export interface CountEntryProps {
   today: string;
 }
 
-type Tray = TestDetail['trays'][number];
+type Tray = AssayDetail['trays'][number];
 
 interface Prefill {
   /** What to start typing from: the tray's count on the date, else its latest before it, else blank. */
@@ -36,7 +36,7 @@ interface Prefill {
   savedOnDate: boolean;
 }
 
-function prefillFor(detail: TestDetail, trayId: string, date: string): Prefill {
+function prefillFor(detail: AssayDetail, trayId: string, date: string): Prefill {
   const mine = detail.counts.filter((c) => c.trayId === trayId).sort((a, b) => a.date.localeCompare(b.date));
   const onDate = mine.find((c) => c.date === date);
   const before = mine.filter((c) => c.date < date).at(-1) ?? null;
@@ -46,7 +46,7 @@ function prefillFor(detail: TestDetail, trayId: string, date: string): Prefill {
 }
 
 /** What the saved counts of one date and the trays set aside look like, so the rows start over when they change. */
-function savedSignature(detail: TestDetail, date: string): string {
+function savedSignature(detail: AssayDetail, date: string): string {
   const counts = detail.counts
     .filter((c) => c.date === date)
     .map((c) => `${c.trayId}:${c.cumulative}`)
@@ -165,7 +165,7 @@ export function CountEntry({ bankId, detail, date, onDateChange, today }: CountE
       </div>
       <SetAsideDialog
         bankId={bankId}
-        testId={detail.test.id}
+        assayId={detail.test.id}
         tray={settingAside}
         onClose={() => setSettingAside(null)}
         onDone={(message) => {
@@ -187,7 +187,7 @@ type SaveState =
 
 interface CountRowsProps {
   bankId: string;
-  detail: TestDetail;
+  detail: AssayDetail;
   date: string;
   onDateError: (message: string | undefined) => void;
   justSaved: boolean;
@@ -205,7 +205,7 @@ const NOTHING_TYPED = 'Not saved: type the normal seedlings of at least one tray
  * count is a whole number no more than the tray's seeds sown. Read into the request body, which
  * its own schema checks.
  */
-function countsFormSchema(detail: TestDetail, date: string, trays: Tray[]) {
+function countsFormSchema(detail: AssayDetail, date: string, trays: Tray[]) {
   return z
     .object({ counts: z.array(z.string()) })
     .superRefine(({ counts }, ctx) => {
@@ -255,11 +255,11 @@ function CountRows({
   onEdited,
   onSetAside,
 }: CountRowsProps) {
-  const testId = detail.test.id;
-  const record = useRecordCounts(bankId, testId);
+  const assayId = detail.test.id;
+  const record = useRecordCounts(bankId, assayId);
   // A tray set aside is out of the count until it is taken back.
   const trays = detail.trays.filter((t) => t.setAsideReason === null);
-  const [draft] = useState(() => readDraft(testId, date));
+  const [draft] = useState(() => readDraft(assayId, date));
   const {
     control,
     handleSubmit,
@@ -282,7 +282,7 @@ function CountRows({
     setValue(`counts.${index}`, value, { shouldDirty: true, shouldValidate: isSubmitted });
     setUnsaved(true);
     const counts = getValues('counts');
-    writeDraft(testId, date, Object.fromEntries(trays.map((tray, i) => [tray.id, counts[i] ?? ''])));
+    writeDraft(assayId, date, Object.fromEntries(trays.map((tray, i) => [tray.id, counts[i] ?? ''])));
     if (justSaved) onEdited();
   };
 
@@ -298,7 +298,7 @@ function CountRows({
       setState({ kind: 'idle' });
       try {
         await record.mutateAsync(body);
-        clearDraft(testId, date);
+        clearDraft(assayId, date);
         setUnsaved(false);
         setState({ kind: 'idle' });
         onSaved(date);

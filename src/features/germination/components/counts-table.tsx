@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import type { TestDetail } from '#shared/schemas/germination';
+import type { AssayDetail } from '#shared/schemas/germination';
 import { cn } from '#src/lib/cn';
 import { ConfirmDialog } from '#src/components/ui/confirm-dialog';
 import { FormAlert } from '#src/components/ui/form-alert';
@@ -10,7 +10,7 @@ import { NOT_COUNTED, setAsideWords, trayFigures } from './seedling-words';
 
 export interface CountsTableProps {
   bankId: string;
-  detail: TestDetail;
+  detail: AssayDetail;
   /** Growers on a running test may correct or delete a check date. */
   canEdit: boolean;
   /** "Correct": open that date in the count entry. */
@@ -28,7 +28,7 @@ interface DateRow {
   pooled: number | null;
 }
 
-function rowsOf(detail: TestDetail): DateRow[] {
+function rowsOf(detail: AssayDetail): DateRow[] {
   const rows = new Map<string, DateRow>();
   const pooled = pooledByDate(detail);
   for (const count of detail.counts) {

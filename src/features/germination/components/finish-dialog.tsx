@@ -3,26 +3,26 @@ import { useId, useState } from 'react';
 import { useForm, useWatch, type FieldErrors, type Path, type UseFormRegister } from 'react-hook-form';
 import { z } from 'zod';
 import { isoDateSchema } from '#shared/schemas/common';
-import { setAsideReasonSchema, type FinishBody, type TestDetail } from '#shared/schemas/germination';
+import { setAsideReasonSchema, type FinishBody, type AssayDetail } from '#shared/schemas/germination';
 import { Button } from '#src/components/ui/button';
 import { FormDialog } from '#src/components/ui/dialog';
 import { FormAlert } from '#src/components/ui/form-alert';
 import { TextField } from '#src/components/ui/text-field';
 import { isApiError } from '#src/lib/api-client';
 import { cn } from '#src/lib/cn';
-import { useFinishTest } from '../api/finish-test';
+import { useFinishAssay } from '../api/finish-assay';
 import { NOT_COUNTED, SOUND_ROOT_AND_SHOOT, UNGERMINATED_KINDS } from './seedling-words';
 
 export interface FinishDialogProps {
   bankId: string;
-  detail: TestDetail;
+  detail: AssayDetail;
   open: boolean;
   today: string;
   onClose: () => void;
   onFinished: () => void;
 }
 
-type Tray = TestDetail['trays'][number];
+type Tray = AssayDetail['trays'][number];
 
 /** The reason offered for a tray that has no counts at the finish (the grower may change it). */
 const UNCOUNTED_REASON = 'Not counted by the end of the test';
@@ -31,7 +31,7 @@ const SPLIT = ['fresh', 'dead', 'hard'] as const;
 const toInt = (text: string): number | null => (/^\d+$/.test(text.trim()) ? Number(text.trim()) : null);
 
 /** A tray's normal seedlings: its last count; null when it was never counted. */
-function lastCount(detail: TestDetail, trayId: string): number | null {
+function lastCount(detail: AssayDetail, trayId: string): number | null {
   const mine = detail.counts.filter((c) => c.trayId === trayId).sort((a, b) => a.date.localeCompare(b.date));
   return mine.at(-1)?.cumulative ?? null;
 }
@@ -53,7 +53,7 @@ const trayFormSchema = z.object({
  * fresh + dead + hard = ungerminated when sorted, a reason for a tray set aside, and a tray with no
  * counts only set aside (the server's rule, said before sending).
  */
-function finishFormSchema(detail: TestDetail) {
+function finishFormSchema(detail: AssayDetail) {
   return z
     .object({
       date: isoDateSchema,
@@ -182,7 +182,7 @@ function FinishForm({
   onClose,
   onFinished,
 }: Omit<FinishDialogProps, 'open'> & { titleId: string }) {
-  const finish = useFinishTest(bankId, detail.test.id);
+  const finish = useFinishAssay(bankId, detail.test.id);
   const lastCountDate = [...detail.counts]
     .map((c) => c.date)
     .sort()

@@ -1,4 +1,4 @@
-import type { TestDetail } from '#shared/schemas/germination';
+import type { AssayDetail } from '#shared/schemas/germination';
 
 const dateFormat = new Intl.DateTimeFormat('en-GB', {
   day: 'numeric',
@@ -36,13 +36,13 @@ export function formatDays(value: number | null | undefined): string {
 }
 
 /** "likely between 78% and 89%" for the result's interval, or null while there is none. */
-export function intervalWords(result: TestDetail['result']): string | null {
+export function intervalWords(result: AssayDetail['result']): string | null {
   const interval = result.interval;
   if (!interval) return null;
   return `likely between ${formatPercent(interval.low)} and ${formatPercent(interval.high)}`;
 }
 
-export const pretreatmentLabels: Record<TestDetail['test']['pretreatment'], string> = {
+export const pretreatmentLabels: Record<AssayDetail['test']['pretreatment'], string> = {
   none: 'None',
   soak: 'Soaked in water',
   'cold-stratification': 'Cold stratification',
@@ -50,15 +50,15 @@ export const pretreatmentLabels: Record<TestDetail['test']['pretreatment'], stri
 };
 
 /** One line describing how a test was set up: method, medium, warmth, light, pre-treatment. */
-export function setupWords(test: TestDetail['test']): string {
-  const parts = [test.method];
-  if (test.medium) parts.push(test.medium);
-  if (test.temperatureC !== null) parts.push(`${test.temperatureC}\u00a0°C`);
-  if (test.lightHours !== null)
-    parts.push(test.lightHours === 0 ? 'dark' : `${test.lightHours} h light a day`);
-  if (test.pretreatment !== 'none') {
-    const label = pretreatmentLabels[test.pretreatment].toLowerCase();
-    parts.push(test.pretreatmentDays !== null ? `${label}, ${test.pretreatmentDays} days` : label);
+export function setupWords(assay: AssayDetail['test']): string {
+  const parts = [assay.method];
+  if (assay.medium) parts.push(assay.medium);
+  if (assay.temperatureC !== null) parts.push(`${assay.temperatureC}\u00a0°C`);
+  if (assay.lightHours !== null)
+    parts.push(assay.lightHours === 0 ? 'dark' : `${assay.lightHours} h light a day`);
+  if (assay.pretreatment !== 'none') {
+    const label = pretreatmentLabels[assay.pretreatment].toLowerCase();
+    parts.push(assay.pretreatmentDays !== null ? `${label}, ${assay.pretreatmentDays} days` : label);
   }
   return parts.join(' · ');
 }

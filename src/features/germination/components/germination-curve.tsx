@@ -1,5 +1,5 @@
 import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
-import type { TestDetail } from '#shared/schemas/germination';
+import type { AssayDetail } from '#shared/schemas/germination';
 import { daysBetween } from '#shared/dates';
 import { pooledByDate } from './pooled-counts';
 
@@ -17,7 +17,7 @@ export interface CurvePoint {
 }
 
 /** Cumulative percent per tray and pooled, one point per check day (days since sowing). */
-export function curvePoints(detail: TestDetail): CurvePoint[] {
+export function curvePoints(detail: AssayDetail): CurvePoint[] {
   const byDate = new Map<string, CurvePoint>();
   const trays = new Map(detail.trays.map((t) => [t.id, t]));
   const pooled = pooledByDate(detail);
@@ -45,7 +45,7 @@ export function curvePoints(detail: TestDetail): CurvePoint[] {
 
 const percentTick = (v: number) => `${v}%`;
 
-export function GerminationCurve({ detail }: { detail: TestDetail }) {
+export function GerminationCurve({ detail }: { detail: AssayDetail }) {
   const points = curvePoints(detail);
   const { startDate, schedule } = detail.test;
   const firstDay = schedule.firstCountDate ? daysBetween(startDate, schedule.firstCountDate) : null;

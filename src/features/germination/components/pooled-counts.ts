@@ -1,11 +1,11 @@
-import type { TestDetail } from '#shared/schemas/germination';
+import type { AssayDetail } from '#shared/schemas/germination';
 
 /**
  * The pooled percent of normal seedlings on each check date, by the stored result's rule: the trays
  * in the figures (not set aside), each at its latest count on or before that date; a tray not yet
  * counted by then is left out. On the last date this is the result's own percent.
  */
-export function pooledByDate(detail: TestDetail): Map<string, number | null> {
+export function pooledByDate(detail: AssayDetail): Map<string, number | null> {
   const trays = detail.trays.filter((t) => t.setAsideReason === null && t.seedsSown > 0);
   const dates = [...new Set(detail.counts.map((c) => c.date))].sort();
   const sorted = [...detail.counts].sort((a, b) => a.date.localeCompare(b.date));

@@ -1,19 +1,19 @@
 import { useId } from 'react';
-import type { TestDetail } from '#shared/schemas/germination';
+import type { AssayDetail } from '#shared/schemas/germination';
 import { cn } from '#src/lib/cn';
 import type { IntervalMethod } from '#src/lib/bank-api';
 import { formatDays, formatPercent, intervalWords } from './format';
 import { NORMAL_SEEDLING, NOT_COUNTED, sentence, setAsideWords, trayFigures } from './seedling-words';
 
 export interface ResultPanelProps {
-  detail: TestDetail;
+  detail: AssayDetail;
   interval: IntervalMethod;
   onIntervalChange: (interval: IntervalMethod) => void;
   /** True while the other interval is being fetched. */
   isRefreshing?: boolean;
 }
 
-type Agreement = TestDetail['result']['agreement'];
+type Agreement = AssayDetail['result']['agreement'];
 
 /** How the trays' agreement was judged, in words: the tolerance table for equal trays, chi-square otherwise. */
 function agreementDetail({ method, ok, observedRange, maxRange, pValue }: Agreement): string | undefined {
@@ -50,8 +50,8 @@ export function AgreementBadge({ agreement }: { agreement: Agreement }) {
 
 /** The result at a glance: the whole percent of normal seedlings, its likely range, the trays, speed, in words. */
 export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing = false }: ResultPanelProps) {
-  const { result, test } = detail;
-  const finished = test.status === 'finished';
+  const { result, test: assay } = detail;
+  const finished = assay.status === 'finished';
   const checkboxId = useId();
   const range = intervalWords(result);
   const trays = trayFigures(detail);
@@ -183,7 +183,7 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
 }
 
 /** A finished test's seeds, sorted: normal, abnormal and ungerminated (fresh, dead, hard) make the seeds sown. */
-function FinishBreakdown({ result }: { result: TestDetail['result'] }) {
+function FinishBreakdown({ result }: { result: AssayDetail['result'] }) {
   const sown = result.sown ?? 0;
   const part = (n: number | null) =>
     n === null || sown === 0 ? '' : ` (${formatPercent((100 * n) / sown)})`;

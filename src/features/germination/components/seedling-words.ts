@@ -1,4 +1,4 @@
-import type { TestDetail } from '#shared/schemas/germination';
+import type { AssayDetail } from '#shared/schemas/germination';
 
 /*
  * One definition of what a germination test counts, in the grower's words and the seed-testing
@@ -37,7 +37,7 @@ export const SET_ASIDE_REASONS = ['Spilled', 'Dried out', 'Mouldy', 'Eaten by pe
 export type TrayState = 'counted' | 'not-counted' | 'set-aside';
 
 export interface TrayFigures {
-  tray: TestDetail['trays'][number];
+  tray: AssayDetail['trays'][number];
   state: TrayState;
   /** The tray's normal seedlings at its latest count; null when not counted or set aside. */
   normal: number | null;
@@ -46,7 +46,7 @@ export interface TrayFigures {
 }
 
 /** Each tray with its state and figures as the stored result gives them, in tray order. */
-export function trayFigures(detail: TestDetail): TrayFigures[] {
+export function trayFigures(detail: AssayDetail): TrayFigures[] {
   const byId = new Map(detail.result.trayPercents.map((t) => [t.id, t]));
   return detail.trays.map((tray) => {
     const stored = byId.get(tray.id);

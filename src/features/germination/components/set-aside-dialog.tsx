@@ -2,7 +2,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useId, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import { setAsideReasonSchema, type TestDetail } from '#shared/schemas/germination';
+import { setAsideReasonSchema, type AssayDetail } from '#shared/schemas/germination';
 import { Button } from '#src/components/ui/button';
 import { FormDialog } from '#src/components/ui/dialog';
 import { FormAlert } from '#src/components/ui/form-alert';
@@ -13,9 +13,9 @@ import { SET_ASIDE_REASONS } from './seedling-words';
 
 export interface SetAsideDialogProps {
   bankId: string;
-  testId: string;
+  assayId: string;
   /** The tray to set aside; null keeps the dialog closed. */
-  tray: TestDetail['trays'][number] | null;
+  tray: AssayDetail['trays'][number] | null;
   onClose: () => void;
   onDone: (message: string) => void;
 }
@@ -23,7 +23,7 @@ export interface SetAsideDialogProps {
 const formSchema = z.object({ setAsideReason: setAsideReasonSchema });
 
 /** Sets one tray of a running test aside with a reason: it is left out of every figure, visibly. */
-export function SetAsideDialog({ bankId, testId, tray, onClose, onDone }: SetAsideDialogProps) {
+export function SetAsideDialog({ bankId, assayId, tray, onClose, onDone }: SetAsideDialogProps) {
   const titleId = useId();
   return (
     <FormDialog open={tray !== null} titleId={titleId} onClose={onClose}>
@@ -32,7 +32,7 @@ export function SetAsideDialog({ bankId, testId, tray, onClose, onDone }: SetAsi
           key={tray.id}
           titleId={titleId}
           bankId={bankId}
-          testId={testId}
+          assayId={assayId}
           tray={tray}
           onClose={onClose}
           onDone={onDone}
@@ -45,12 +45,12 @@ export function SetAsideDialog({ bankId, testId, tray, onClose, onDone }: SetAsi
 function SetAsideForm({
   titleId,
   bankId,
-  testId,
+  assayId,
   tray,
   onClose,
   onDone,
-}: Omit<SetAsideDialogProps, 'tray'> & { titleId: string; tray: TestDetail['trays'][number] }) {
-  const setAside = useSetTrayAside(bankId, testId);
+}: Omit<SetAsideDialogProps, 'tray'> & { titleId: string; tray: AssayDetail['trays'][number] }) {
+  const setAside = useSetTrayAside(bankId, assayId);
   const [formError, setFormError] = useState<string>();
   const {
     register,

@@ -11,9 +11,9 @@ export interface FirstStepsProps {
   isOwner: boolean;
   hasLots: boolean;
   frostDateSet: boolean;
-  hasTests: boolean;
+  hasAssays: boolean;
   /** A lot to test first, when the bank has one. */
-  lotToTest?: { lotId: string; code: string } | undefined;
+  lotToAssay?: { lotId: string; code: string } | undefined;
 }
 
 interface Step {
@@ -31,8 +31,8 @@ export function FirstSteps({
   isOwner,
   hasLots,
   frostDateSet,
-  hasTests,
-  lotToTest,
+  hasAssays,
+  lotToAssay,
 }: FirstStepsProps) {
   const steps: Step[] = [
     {
@@ -61,18 +61,18 @@ export function FirstSteps({
     },
     {
       key: 'test',
-      done: hasTests,
+      done: hasAssays,
       title: 'Start a germination test',
       text: `Sow a counted sample on a damp paper towel or a tray, and count the healthy seedlings on each check day.${
         hasLots ? '' : ' Start it from the lot’s page once the lot is logged.'
       }`,
       action:
-        canEdit && lotToTest ? (
+        canEdit && lotToAssay ? (
           <Link
-            to={paths.newTest.getHref(bankId, lotToTest.lotId)}
+            to={paths.newAssay.getHref(bankId, lotToAssay.lotId)}
             className={buttonStyles({ variant: 'secondary' })}
           >
-            Test {lotToTest.code}
+            Test {lotToAssay.code}
           </Link>
         ) : canEdit && hasLots ? (
           <Link to={paths.lots.getHref(bankId)} className={buttonStyles({ variant: 'secondary' })}>

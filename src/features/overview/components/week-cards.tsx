@@ -33,7 +33,7 @@ export function TraysToCountCard({ bankId, overview, canEdit }: WeekCardProps) {
   const { traysToCount: items, today, counts } = overview;
   const rows: OverviewRow[] = items.map((t) => ({
     key: t.testId,
-    href: paths.test.getHref(bankId, t.testId),
+    href: paths.assay.getHref(bankId, t.testId),
     title: `${t.species} · ${t.lotCode}`,
     badge: checkWhen(t.checkDate, today, t.overdue),
     detail: `Day ${t.day} count of ${plural(t.trays, 'tray')}${t.checkDate === today ? '' : ` · check day ${weekDay(t.checkDate)}`}${t.percentSoFar === null ? '' : ` · ${t.percentSoFar}% so far`}`,
@@ -56,7 +56,7 @@ export function TraysToCountCard({ bankId, overview, canEdit }: WeekCardProps) {
         <CardEmpty
           action={
             canEdit && suggest ? (
-              <NextLink to={paths.newTest.getHref(bankId, suggest.lotId)}>
+              <NextLink to={paths.newAssay.getHref(bankId, suggest.lotId)}>
                 Start a test of {suggest.code}
               </NextLink>
             ) : counts.lots > 0 ? (

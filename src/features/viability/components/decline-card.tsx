@@ -8,7 +8,7 @@ import { Loading } from '#src/components/ui/spinner';
 import { formatDay } from '#src/lib/dates';
 import { useLotViability } from '../api/get-lot-viability';
 import type { SetAsidePoint } from './decline-chart';
-import { TestMark, type TestKind } from './test-mark';
+import { AssayMark, type AssayKind } from './assay-mark';
 import { basisWords, pct, retestReasonWords, years } from '#src/components/viability/viability-format';
 
 // The chart library loads with the chart, not with the app.
@@ -89,10 +89,10 @@ export function ViabilitySummary({ viability: v, on }: { viability: ViabilityRes
 }
 
 /** A mark of the chart, drawn the same beside its words. */
-function LegendMark({ kind }: { kind: TestKind }) {
+function LegendMark({ kind }: { kind: AssayKind }) {
   return (
     <svg aria-hidden="true" viewBox="0 0 16 16" className="size-4 shrink-0">
-      <TestMark kind={kind} cx={8} cy={8} />
+      <AssayMark kind={kind} cx={8} cy={8} />
     </svg>
   );
 }
@@ -102,7 +102,7 @@ function Swatch({ className }: { className: string }) {
 }
 
 /** The chart's key: only the marks the chart holds. */
-function Legend({ kinds, curve, guess }: { kinds: ReadonlySet<TestKind>; curve: boolean; guess: boolean }) {
+function Legend({ kinds, curve, guess }: { kinds: ReadonlySet<AssayKind>; curve: boolean; guess: boolean }) {
   const item = 'flex items-center gap-1.5';
   return (
     <ul aria-label="Key to the chart" className="flex flex-wrap gap-x-4 gap-y-1 text-sm text-loam-800">
@@ -162,7 +162,7 @@ export function DeclineCard({ bankId, lotId, on, today, setAsideResults = {} }: 
         ];
       })
     : [];
-  const kinds = new Set<TestKind>(v?.points.map((p) => (p.heldBack ? 'held-back' : 'model')));
+  const kinds = new Set<AssayKind>(v?.points.map((p) => (p.heldBack ? 'held-back' : 'model')));
   if (aside.length) kinds.add('set-aside');
   return (
     <Card

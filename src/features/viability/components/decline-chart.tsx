@@ -13,7 +13,7 @@ import {
 import type { ViabilityResponse } from '#shared/schemas/viability';
 import { wilsonScoreInterval } from '#shared/wilson';
 import { formatDay } from '#src/lib/dates';
-import { ASIDE, DOT, TestMark, type TestKind } from './test-mark';
+import { ASIDE, DOT, AssayMark, type AssayKind } from './assay-mark';
 import { formatCount, pct, years } from '#src/components/viability/viability-format';
 
 // Palette values from tailwind.config.ts (recharts draws with plain colours).
@@ -25,7 +25,7 @@ const SOWING = '#2d4d63'; // frost-700
 const AXIS = '#4e4337'; // loam-700
 
 export interface TestedPoint {
-  kind: TestKind;
+  kind: AssayKind;
   ageYears: number;
   tested: number;
   /** Distances below and above the percentage to its 95% Wilson bounds, for the error bar. */
@@ -49,7 +49,7 @@ export interface SetAsidePoint {
 }
 
 function point(
-  kind: TestKind,
+  kind: AssayKind,
   p: { ageYears: number; date: string; germinated: number; sown: number; reason?: string },
 ): TestedPoint {
   const w = wilsonScoreInterval(p.germinated, p.sown);
@@ -73,11 +73,11 @@ export function testedPoints(points: ViabilityResponse['points']): TestedPoint[]
   return points.map((p) => point(p.heldBack ? 'held-back' : 'model', p));
 }
 
-/** Recharts draws each point through one of these: the marks of test-mark.tsx, as in the key. */
-const markOf = (kind: TestKind) =>
+/** Recharts draws each point through one of these: the marks of assay-mark.tsx, as in the key. */
+const markOf = (kind: AssayKind) =>
   function Mark(props: unknown) {
     const { cx, cy } = props as { cx?: number; cy?: number };
-    return cx === undefined || cy === undefined ? <g /> : <TestMark kind={kind} cx={cx} cy={cy} />;
+    return cx === undefined || cy === undefined ? <g /> : <AssayMark kind={kind} cx={cx} cy={cy} />;
   };
 const MODEL_MARK = markOf('model');
 const HELD_BACK_MARK = markOf('held-back');

@@ -149,7 +149,7 @@ export function SeedsToSowCard({
         {retire ? null : noSeeds ? (
           <FormAlert tone="info" title="No seeds to sow">
             <p>{query.error?.message}</p>
-            {canEdit ? <StartTestLink bankId={bankId} lotId={lotId} /> : null}
+            {canEdit ? <StartAssayLink bankId={bankId} lotId={lotId} /> : null}
           </FormAlert>
         ) : query.isError ? (
           <FormAlert>{query.error.message}</FormAlert>
@@ -170,7 +170,7 @@ export function SeedsToSowCard({
             {result.estimateOnly ? (
               <FormAlert tone="info" title="A guess, not a measurement">
                 <p data-testid="seeds-explanation">{result.explanation}</p>
-                {canEdit ? <StartTestLink bankId={bankId} lotId={lotId} /> : null}
+                {canEdit ? <StartAssayLink bankId={bankId} lotId={lotId} /> : null}
               </FormAlert>
             ) : (
               <p className="text-loam-800" data-testid="seeds-explanation">
@@ -231,10 +231,10 @@ export function SeedsToSowCard({
   );
 }
 
-function StartTestLink({ bankId, lotId }: { bankId: string; lotId: string }) {
+function StartAssayLink({ bankId, lotId }: { bankId: string; lotId: string }) {
   return (
     <p className="mt-1">
-      <Link to={paths.newTest.getHref(bankId, lotId)} className="font-semibold underline">
+      <Link to={paths.newAssay.getHref(bankId, lotId)} className="font-semibold underline">
         Start a germination test
       </Link>
     </p>

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { testDetailSchema, type TestDetail } from '#shared/schemas/germination';
+import { assayDetailSchema, type AssayDetail } from '#shared/schemas/germination';
 import { apiFetch } from '#src/lib/api-client';
-import { applyTestDetail } from './apply-test-detail';
+import { applyAssayDetail } from './apply-assay-detail';
 import { bankPaths } from '#src/lib/bank-api';
 
 /**
@@ -9,19 +9,19 @@ import { bankPaths } from '#src/lib/bank-api';
  * test aside with a reason (mouldy towel, too cold), so it leaves the lot's decline and advice while
  * staying in its history, or takes it back (null).
  */
-export function setTestAside(bankId: string, testId: string, reason: string | null): Promise<TestDetail> {
-  return apiFetch(bankPaths.testSetAside(bankId, testId), {
+export function setAssayAside(bankId: string, assayId: string, reason: string | null): Promise<AssayDetail> {
+  return apiFetch(bankPaths.assaySetAside(bankId, assayId), {
     method: 'POST',
     body: { reason },
-    schema: testDetailSchema,
+    schema: assayDetailSchema,
   });
 }
 
-export function useSetTestAside(bankId: string, testId: string) {
+export function useSetAssayAside(bankId: string, assayId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (reason: string | null) => setTestAside(bankId, testId, reason),
+    mutationFn: (reason: string | null) => setAssayAside(bankId, assayId, reason),
     // The lots' queries hold the decline, the advice and the ranking: they refresh with it.
-    onSuccess: (detail) => applyTestDetail(queryClient, bankId, detail),
+    onSuccess: (detail) => applyAssayDetail(queryClient, bankId, detail),
   });
 }

@@ -1,5 +1,5 @@
 import type { QueryClient } from '@tanstack/react-query';
-import type { TestDetail } from '#shared/schemas/germination';
+import type { AssayDetail } from '#shared/schemas/germination';
 import { bankKeys, refresh, stale } from '#src/lib/bank-api';
 
 /**
@@ -7,17 +7,17 @@ import { bankKeys, refresh, stale } from '#src/lib/bank-api';
  * its default Wilson interval), refetch the exact-interval copy if one is on screen, and refresh
  * what the test's lot derives from its germination (and its stock, when seeds moved).
  */
-export async function applyTestDetail(
+export async function applyAssayDetail(
   queryClient: QueryClient,
   bankId: string,
-  detail: TestDetail,
+  detail: AssayDetail,
   { stockMoved = false }: { stockMoved?: boolean } = {},
 ): Promise<void> {
-  const wilsonKey = bankKeys.testDetail(bankId, detail.test.id, 'wilson');
+  const wilsonKey = bankKeys.assayDetail(bankId, detail.test.id, 'wilson');
   queryClient.setQueryData(wilsonKey, detail);
   await Promise.all([
     queryClient.invalidateQueries({
-      queryKey: bankKeys.test(bankId, detail.test.id),
+      queryKey: bankKeys.assay(bankId, detail.test.id),
       predicate: (query) => JSON.stringify(query.queryKey) !== JSON.stringify(wilsonKey),
     }),
     refresh(

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import {
-  TEST_CSV_COLUMNS,
-  parseTestsCsv,
-  testReferences,
-  testsToCsv,
-  type TestCsvContext,
-  type TestCsvTest,
-} from '#server/modules/germination/tests.csv';
+  ASSAY_CSV_COLUMNS,
+  parseAssaysCsv,
+  assayReferences,
+  assaysToCsv,
+  type AssayCsvContext,
+  type AssayCsvAssay,
+} from '#server/modules/germination/assays.csv';
 import { uncountedAtFinish } from '#server/modules/germination/count-rules';
 
 // Sources cited below:
@@ -18,7 +18,7 @@ import { uncountedAtFinish } from '#server/modules/germination/count-rules';
 
 const BOM = '\uFEFF';
 const LOTS: Record<string, string> = { 'tom-1': 'lot-tom', 'mar-2': 'lot-mar' };
-const context: TestCsvContext = {
+const context: AssayCsvContext = {
   today: '2026-03-01',
   resolveLot: (code) => LOTS[code.toLowerCase()] ?? null,
 };
@@ -26,7 +26,7 @@ const HEADER =
   'test,lot_code,start_date,method,tray,seeds_sown,check_date,cumulative,finished_on,abnormal,ungerminated';
 const file = (...lines: string[]) => [HEADER, ...lines].join('\r\n');
 
-function finished(): TestCsvTest {
+function finished(): AssayCsvAssay {
   return {
     lotCode: 'TOM-1',
     speciesName: 'Tomato',
@@ -75,7 +75,7 @@ function finished(): TestCsvTest {
 describe('germination tests CSV, export', () => {
   it('when a lot has two tests started the same day, then the second reference gets #2', () => {
     expect(
-      testReferences([
+      assayReferences([
         { lotCode: 'TOM-1', startDate: '2026-02-01' },
         { lotCode: 'TOM-1', startDate: '2026-02-01' },
         { lotCode: 'MAR-2', startDate: '2026-02-01' },
@@ -85,8 +85,8 @@ describe('germination tests CSV, export', () => {
   });
 
   it('when a test is written, then each tray has a record per check day, an uncounted tray one with no date, CRLF between them', () => {
-    const csv = testsToCsv([finished()]);
-    expect(csv.startsWith(`${BOM}${TEST_CSV_COLUMNS.join(',')}\r\n`)).toBe(true); // RFC 4180 §2 rule 1
+    const csv = assaysToCsv([finished()]);
+    expect(csv.startsWith(`${BOM}${ASSAY_CSV_COLUMNS.join(',')}\r\n`)).toBe(true); // RFC 4180 §2 rule 1
     const body = csv.slice(BOM.length);
     // The notes' line break is inside quotes (RFC 4180 §2 rule 6), so split on CRLF only.
     const records = body.split('\r\n').slice(1);
@@ -99,24 +99,24 @@ describe('germination tests CSV, export', () => {
   });
 
   it('when the export is read back, then the test comes back as it was, formula guard removed', () => {
-    const { speciesName: _species, variety: _variety, germinationPercent: _percent, ...test } = finished();
-    expect(parseTestsCsv(testsToCsv([finished()]), context)).toEqual({
+    const { speciesName: _species, variety: _variety, germinationPercent: _percent, ...assay } = finished();
+    expect(parseAssaysCsv(assaysToCsv([finished()]), context)).toEqual({
       ok: true,
-      tests: [{ ...test, ref: 'TOM-1 2026-02-01', line: 2, lotId: 'lot-tom' }],
+      assays: [{ ...assay, ref: 'TOM-1 2026-02-01', line: 2, lotId: 'lot-tom' }],
     });
   });
 
   it('when a file has only the header row, then it reads as no tests', () => {
-    expect(parseTestsCsv(`${BOM}${TEST_CSV_COLUMNS.join(',')}\r\n`, context)).toEqual({
+    expect(parseAssaysCsv(`${BOM}${ASSAY_CSV_COLUMNS.join(',')}\r\n`, context)).toEqual({
       ok: true,
-      tests: [],
+      assays: [],
     });
   });
 });
 
 describe('germination tests CSV, import checks', () => {
   const errorsOf = (csv: string) => {
-    const result = parseTestsCsv(csv, context);
+    const result = parseAssaysCsv(csv, context);
     if (result.ok) throw new Error('expected problems');
     return result.errors.map((e) => [e.line, e.column ?? null, e.message]);
   };
@@ -190,11 +190,11 @@ describe('germination tests CSV, import checks', () => {
   });
 
   it('when a test starts before its lot was harvested, then that test’s first line says so', () => {
-    const withHarvest: TestCsvContext = {
+    const withHarvest: AssayCsvContext = {
       ...context,
       harvestDateOf: (lotId) => (lotId === 'lot-tom' ? '2026-02-10' : null),
     };
-    const result = parseTestsCsv(
+    const result = parseAssaysCsv(
       file('T1,TOM-1,2026-02-01,paper towel,1,10,,,,,', 'T2,MAR-2,2026-01-15,paper towel,1,10,,,,,'),
       withHarvest,
     );
@@ -215,36 +215,36 @@ describe('germination tests CSV, set-aside trays and the stored percent', () => 
   const SET_ASIDE_HEADER = `${HEADER},set_aside_reason`;
   const setAsideFile = (...lines: string[]) => [SET_ASIDE_HEADER, ...lines].join('\r\n');
   const errorsOf = (csv: string) => {
-    const result = parseTestsCsv(csv, context);
+    const result = parseAssaysCsv(csv, context);
     if (result.ok) throw new Error('expected problems');
     return result.errors.map((e) => [e.line, e.column ?? null, e.message]);
   };
 
   it('when germination_percent is edited or left out, then the import reads the same tests (it is written for people only)', () => {
-    const csv = testsToCsv([finished()]);
+    const csv = assaysToCsv([finished()]);
     const edited = csv.replace(/,70(?=\r\n|$)/g, ',12');
     expect(edited).not.toEqual(csv);
-    expect(parseTestsCsv(edited, context)).toEqual(parseTestsCsv(csv, context));
+    expect(parseAssaysCsv(edited, context)).toEqual(parseAssaysCsv(csv, context));
     const [header, ...rows] = csv.slice(1).split('\r\n');
     const cut = (line: string) => line.slice(0, line.lastIndexOf(','));
     expect(header!.endsWith(',set_aside_reason,germination_percent')).toBe(true);
     const dropped = [cut(header!), ...rows.map(cut)].join('\r\n');
-    expect(parseTestsCsv(dropped, context)).toEqual(parseTestsCsv(csv, context));
+    expect(parseAssaysCsv(dropped, context)).toEqual(parseAssaysCsv(csv, context));
   });
 
   it('when no tray is in the figures yet, then germination_percent is empty', () => {
-    const test = {
+    const assay = {
       ...finished(),
       finishedOn: null,
       germinationPercent: null,
       trays: [{ ...finished().trays[1]!, setAsideReason: null }],
     };
-    const [, record] = testsToCsv([test]).slice(1).split('\r\n');
+    const [, record] = assaysToCsv([assay]).slice(1).split('\r\n');
     expect(record!.endsWith(',2,10,,,,,,,,,,')).toBe(true);
   });
 
   it('when a finished test has a tray counted and then set aside, and one never counted set aside, then both read back without finish values', () => {
-    const result = parseTestsCsv(
+    const result = parseAssaysCsv(
       setAsideFile(
         'f,TOM-1,2026-02-01,paper towel,1,10,2026-02-09,6,2026-02-10,1,3,',
         'f,TOM-1,2026-02-01,paper towel,2,10,2026-02-05,2,2026-02-10,,,Spilled',
@@ -255,7 +255,7 @@ describe('germination tests CSV, set-aside trays and the stored percent', () => 
     );
     if (!result.ok) throw new Error(JSON.stringify(result.errors));
     expect(
-      result.tests[0]!.trays.map((t) => [
+      result.assays[0]!.trays.map((t) => [
         t.position,
         t.setAsideReason,
         t.abnormal,
@@ -270,7 +270,7 @@ describe('germination tests CSV, set-aside trays and the stored percent', () => 
   });
 
   it('when a running test has a tray set aside, then it reads back with its reason', () => {
-    const result = parseTestsCsv(
+    const result = parseAssaysCsv(
       setAsideFile(
         'r,MAR-2,2026-02-01,paper towel,1,10,2026-02-05,2,,,,',
         'r,MAR-2,2026-02-01,paper towel,2,10,,,,,,Eaten by mice',
@@ -278,7 +278,7 @@ describe('germination tests CSV, set-aside trays and the stored percent', () => 
       context,
     );
     if (!result.ok) throw new Error(JSON.stringify(result.errors));
-    expect(result.tests[0]!.trays.map((t) => t.setAsideReason)).toEqual([null, 'Eaten by mice']);
+    expect(result.assays[0]!.trays.map((t) => t.setAsideReason)).toEqual([null, 'Eaten by mice']);
   });
 
   it('when a finished test has a tray never counted and not set aside, then the finish rule of the API asks for a count or a reason', () => {

@@ -6,10 +6,10 @@ export const DOT = '#77491f'; // seedcoat-700
 export const ASIDE = '#7d6d59'; // loam-500
 
 /** How a test stands in the decline: in the model, read as held back, or set aside by the grower. */
-export type TestKind = 'model' | 'held-back' | 'set-aside';
+export type AssayKind = 'model' | 'held-back' | 'set-aside';
 
 /** A filled dot for a test in the model, a hollow diamond for one held back, a cross for one set aside. */
-export function TestMark({ kind, cx, cy }: { kind: TestKind; cx: number; cy: number }) {
+export function AssayMark({ kind, cx, cy }: { kind: AssayKind; cx: number; cy: number }) {
   if (kind === 'held-back') {
     return (
       <path

@@ -1,22 +1,22 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
-import type { TestDetail } from '#shared/schemas/germination';
+import type { AssayDetail } from '#shared/schemas/germination';
 import { Card } from '#src/components/ui/card';
 import { FormAlert } from '#src/components/ui/form-alert';
 import { Loading } from '#src/components/ui/spinner';
-import { testQueryOptions } from '../api/get-test';
+import { assayQueryOptions } from '../api/get-assay';
 import type { IntervalMethod } from '#src/lib/bank-api';
 import { CountEntry } from './count-entry';
 import { CountsTable } from './counts-table';
 import { formatDate } from './format';
 import { GerminationCurve } from './germination-curve';
 import { ResultPanel } from './result-panel';
-import { TestActions } from './test-actions';
-import { DampingOffNote } from './test-cautions';
+import { AssayActions } from './assay-actions';
+import { DampingOffNote } from './assay-cautions';
 
-export interface TestWorkbenchProps {
+export interface AssayWorkbenchProps {
   bankId: string;
-  testId: string;
+  assayId: string;
   /** Growers and owners record counts; viewers read. */
   canWrite: boolean;
   interval: IntervalMethod;
@@ -28,15 +28,15 @@ export interface TestWorkbenchProps {
   today: string;
   onDeleted: () => void | Promise<void>;
   /** The trays' photos, drawn by the page (the photos feature), above the test's actions. */
-  photos?: (detail: TestDetail) => ReactNode;
+  photos?: (detail: AssayDetail) => ReactNode;
 }
 
 const ENTRY_ID = 'count-entry';
 
 /** The test page's body: count entry, result, curve, the counts by date, and the test's actions. */
-export function TestWorkbench({
+export function AssayWorkbench({
   bankId,
-  testId,
+  assayId,
   canWrite,
   interval,
   onIntervalChange,
@@ -45,9 +45,9 @@ export function TestWorkbench({
   today,
   onDeleted,
   photos,
-}: TestWorkbenchProps) {
+}: AssayWorkbenchProps) {
   const query = useQuery({
-    ...testQueryOptions(bankId, testId, interval),
+    ...assayQueryOptions(bankId, assayId, interval),
     placeholderData: keepPreviousData,
   });
   const date = chosenDate ?? today;
@@ -110,7 +110,7 @@ export function TestWorkbench({
         <CountsTable bankId={bankId} detail={detail} canEdit={entering} onCorrect={correct} />
       </Card>
       {photos?.(detail)}
-      {canWrite ? <TestActions bankId={bankId} detail={detail} today={today} onDeleted={onDeleted} /> : null}
+      {canWrite ? <AssayActions bankId={bankId} detail={detail} today={today} onDeleted={onDeleted} /> : null}
     </div>
   );
 }

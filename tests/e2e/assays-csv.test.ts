@@ -48,7 +48,7 @@ describe.skipIf(!chromiumPath)('importing germination tests in Chromium', () => 
         `winter,${lot.code},2025-12-01,folded towel,2,25,2025-12-05,15,2025-12-12,0,4`,
         `winter,${lot.code},2025-12-01,folded towel,2,25,2025-12-12,21,2025-12-12,0,4`,
       ].join('\r\n');
-    const testItem = (page: Page) =>
+    const assayItem = (page: Page) =>
       page
         .getByRole('list', { name: 'Germination tests of this lot' })
         .getByRole('listitem')
@@ -92,7 +92,7 @@ describe.skipIf(!chromiumPath)('importing germination tests in Chromium', () => 
     });
     j.step('the lot page shows it with its result, and the stock is as it was', async (page) => {
       await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lot.id}`);
-      const item = testItem(page);
+      const item = assayItem(page);
       await expect.poll(() => item.count()).toBe(1);
       const text = await item.innerText();
       expect(text).toContain('2 trays, 50 seeds');
@@ -102,7 +102,7 @@ describe.skipIf(!chromiumPath)('importing germination tests in Chromium', () => 
       expect(await stock()).toBe(before);
     });
     j.step('deleting the imported test says it gives nothing back, and gives nothing back', async (page) => {
-      await testItem(page).getByRole('link').first().click();
+      await assayItem(page).getByRole('link').first().click();
       await page.getByRole('button', { name: 'Delete this test…' }).click();
       const dialog = page.getByRole('dialog', { name: 'Delete this test?' });
       await expect.poll(() => dialog.innerText()).toContain(`It took no seeds from lot ${lot.code}’s stock`);

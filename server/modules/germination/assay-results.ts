@@ -4,7 +4,7 @@
 // reminders, CSV export — reads the stored result; nothing re-aggregates counts by its own rules.
 import { daysBetween } from '#shared/dates';
 import type { DbOrTx } from '#server/db/database';
-import { summarizeTest, type TestSummary } from '#server/stats/index';
+import { summarizeTest, type AssaySummary } from '#server/stats/index';
 import * as repo from './germination.repository';
 
 /**
@@ -14,11 +14,11 @@ import * as repo from './germination.repository';
 export const RESULT_VERSION = 2;
 
 /** The summaries of the given tests, computed from their trays and counts as they stand in `on`. */
-async function computeResults(on: DbOrTx, testIds: string[]): Promise<Map<string, TestSummary>> {
-  const out = new Map<string, TestSummary>();
-  if (testIds.length === 0) return out;
-  const tests = await repo.testStartDates(on, testIds);
-  const trays = await repo.traysOfTests(on, testIds);
+async function computeResults(on: DbOrTx, assayIds: string[]): Promise<Map<string, AssaySummary>> {
+  const out = new Map<string, AssaySummary>();
+  if (assayIds.length === 0) return out;
+  const assays = await repo.assayStartDates(on, assayIds);
+  const trays = await repo.traysOfAssays(on, assayIds);
   const counts = trays.length
     ? await repo.countsOfTrays(
         on,
@@ -27,16 +27,16 @@ async function computeResults(on: DbOrTx, testIds: string[]): Promise<Map<string
     : [];
   const countsByTray = new Map<string, typeof counts>();
   for (const c of counts) countsByTray.set(c.tray_id, [...(countsByTray.get(c.tray_id) ?? []), c]);
-  for (const test of tests) {
-    const mine = trays.filter((t) => t.test_id === test.id);
+  for (const assay of assays) {
+    const mine = trays.filter((t) => t.test_id === assay.id);
     out.set(
-      test.id,
+      assay.id,
       summarizeTest(
         mine.map((tr) => ({
           id: tr.id,
           seedsSown: tr.seeds_sown,
           checks: (countsByTray.get(tr.id) ?? []).map((c) => ({
-            day: daysBetween(test.start_date, c.check_date),
+            day: daysBetween(assay.start_date, c.check_date),
             cumulative: c.cumulative,
           })),
           setAsideReason: tr.set_aside_reason,
@@ -53,9 +53,9 @@ async function computeResults(on: DbOrTx, testIds: string[]): Promise<Map<string
 }
 
 /** The last check date of the trays that enter the figures (set-aside trays are left out). */
-async function lastCountDates(on: DbOrTx, testIds: string[]): Promise<Map<string, string>> {
-  if (testIds.length === 0) return new Map();
-  const rows = await repo.lastCountRows(on, testIds);
+async function lastCountDates(on: DbOrTx, assayIds: string[]): Promise<Map<string, string>> {
+  if (assayIds.length === 0) return new Map();
+  const rows = await repo.lastCountRows(on, assayIds);
   return new Map(rows.map((r) => [r.test_id, r.last]));
 }
 
@@ -63,8 +63,8 @@ async function lastCountDates(on: DbOrTx, testIds: string[]): Promise<Map<string
  * Recomputes and stores the results of the given tests. Call it inside the transaction that changed
  * their trays or counts, after the change; it returns the new summaries by test id.
  */
-export async function storeResults(on: DbOrTx, testIds: string[]): Promise<Map<string, TestSummary>> {
-  const ids = [...new Set(testIds)];
+export async function storeResults(on: DbOrTx, assayIds: string[]): Promise<Map<string, AssaySummary>> {
+  const ids = [...new Set(assayIds)];
   const results = await computeResults(on, ids);
   const last = await lastCountDates(on, ids);
   if (results.size === 0) return results;
@@ -75,9 +75,9 @@ export async function storeResults(on: DbOrTx, testIds: string[]): Promise<Map<s
 }
 
 /** Stores one test's result (see storeResults). */
-export async function storeResult(on: DbOrTx, testId: string): Promise<TestSummary> {
-  const r = (await storeResults(on, [testId])).get(testId);
-  if (!r) throw new Error(`no germination test ${testId}`);
+export async function storeResult(on: DbOrTx, assayId: string): Promise<AssaySummary> {
+  const r = (await storeResults(on, [assayId])).get(assayId);
+  if (!r) throw new Error(`no germination test ${assayId}`);
   return r;
 }
 
@@ -89,7 +89,7 @@ export async function storeResult(on: DbOrTx, testId: string): Promise<TestSumma
 export async function refreshStaleResults(db: DbOrTx, batchSize = 500): Promise<number> {
   let done = 0;
   for (;;) {
-    const stale = await repo.staleTestIds(db, RESULT_VERSION, batchSize);
+    const stale = await repo.staleAssayIds(db, RESULT_VERSION, batchSize);
     if (stale.length === 0) return done;
     await storeResults(
       db,

@@ -1,34 +1,34 @@
 /**
- * A bank's germination tests as a CSV file (format and checks: tests.csv.ts). The import writes
+ * A bank's germination tests as a CSV file (format and checks: assays.csv.ts). The import writes
  * every test of the file in one transaction, or none.
  *
  * Imported tests are history: their seeds are NOT withdrawn from the lot's stock ledger, because
  * a lot's seeds on hand (logged or imported with the lot) already reflect the seeds those tests
  * used. Deleting an imported test later gives no seeds back for the same reason.
  */
-import { storedResultSchema, type TestsImportPreview } from '#shared/schemas/germination';
+import { storedResultSchema, type AssaysImportPreview } from '#shared/schemas/germination';
 import { bankToday, type Clock } from '#server/clock';
 import type { Db, DbOrTx } from '#server/db/database';
 import { invalidCsv } from '#server/http/errors';
 import * as repo from './germination.repository';
-import { testFields, trayFields } from './germination.service';
-import { RESULT_VERSION, storeResults } from './test-results';
-import { parseTestsCsv, testsToCsv, type ParsedTestCsvTest, type TestCsvTest } from './tests.csv';
+import { assayFields, trayFields } from './germination.service';
+import { RESULT_VERSION, storeResults } from './assay-results';
+import { parseAssaysCsv, assaysToCsv, type ParsedAssayCsvAssay, type AssayCsvAssay } from './assays.csv';
 
-export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
+export function createAssaysCsvService({ db, clock }: { db: Db; clock: Clock }) {
   async function bankLots(bankId: string) {
     const rows = await repo.lotsForImport(db, bankId);
     return new Map(rows.map((r) => [r.code.toLowerCase(), r]));
   }
 
-  async function insertTest(
+  async function insertAssay(
     trx: DbOrTx,
     bankId: string,
     userId: string,
-    t: ParsedTestCsvTest,
+    t: ParsedAssayCsvAssay,
     createdAt: Date,
   ) {
-    const test = await repo.insertTest(trx, {
+    const assay = await repo.insertAssay(trx, {
       bank_id: bankId,
       lot_id: t.lotId,
       start_date: t.startDate,
@@ -46,7 +46,7 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
     });
     for (const tray of t.trays) {
       const row = await repo.insertTray(trx, {
-        test_id: test.id,
+        test_id: assay.id,
         position: tray.position,
         seeds_sown: tray.seedsSown,
         abnormal: tray.abnormal,
@@ -68,27 +68,27 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
         );
       }
     }
-    return test.id;
+    return assay.id;
   }
 
   return {
     /** Every test of the bank, by lot code, start date and the order they were logged. */
     async exportCsv(bankId: string): Promise<string> {
-      const tests = await repo.testsWithLotByCode(db, bankId);
+      const assays = await repo.assaysWithLotByCode(db, bankId);
       const { trays, counts } = await repo.traysAndCounts(
         db,
-        tests.map((t) => t.id),
+        assays.map((t) => t.id),
       );
       // The stored result every screen shows; one stored under an older definition is brought up
       // to date first, as the test page does.
-      const stale = tests
+      const stale = assays
         .filter((t) => t.result_version !== RESULT_VERSION || t.result === null)
         .map((t) => t.id);
       const fresh = await storeResults(db, stale);
-      const percentOf = (t: (typeof tests)[number]) =>
+      const percentOf = (t: (typeof assays)[number]) =>
         storedResultSchema.parse(fresh.get(t.id) ?? t.result).percentRounded;
-      const rows: TestCsvTest[] = tests.map((t) => ({
-        ...testFields(t),
+      const rows: AssayCsvAssay[] = assays.map((t) => ({
+        ...assayFields(t),
         germinationPercent: percentOf(t),
         trays: trays
           .filter((tr) => tr.test_id === t.id)
@@ -99,7 +99,7 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
               .map((c) => ({ date: c.check_date, cumulative: c.cumulative })),
           })),
       }));
-      return testsToCsv(rows);
+      return assaysToCsv(rows);
     },
 
     /**
@@ -110,7 +110,7 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
       const lots = await bankLots(bankId);
       const today = await bankToday(db, clock, bankId);
       const harvests = new Map([...lots.values()].map((l) => [l.id, l.harvest_date]));
-      const parsed = parseTestsCsv(text, {
+      const parsed = parseAssaysCsv(text, {
         today,
         resolveLot: (code) => lots.get(code.toLowerCase())?.id ?? null,
         harvestDateOf: (lotId) => harvests.get(lotId) ?? null,
@@ -118,7 +118,7 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
       if (!parsed.ok) throw invalidCsv(parsed.errors);
       if (options.dryRun) {
         const byId = new Map([...lots.values()].map((l) => [l.id, l]));
-        const preview: TestsImportPreview = parsed.tests.map((t) => {
+        const preview: AssaysImportPreview = parsed.assays.map((t) => {
           const lot = byId.get(t.lotId)!;
           return {
             line: t.line,
@@ -140,14 +140,14 @@ export function createTestsCsvService({ db, clock }: { db: Db; clock: Clock }) {
         // export sorts them by when they were logged).
         const now = clock.now().getTime();
         const ids: string[] = [];
-        for (const [i, t] of parsed.tests.entries())
-          ids.push(await insertTest(trx, bankId, userId, t, new Date(now + i)));
+        for (const [i, t] of parsed.assays.entries())
+          ids.push(await insertAssay(trx, bankId, userId, t, new Date(now + i)));
         await storeResults(trx, ids);
-        return parsed.tests.length;
+        return parsed.assays.length;
       });
       return { imported };
     },
   };
 }
 
-export type TestsCsvService = ReturnType<typeof createTestsCsvService>;
+export type AssaysCsvService = ReturnType<typeof createAssaysCsvService>;

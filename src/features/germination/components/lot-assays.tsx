@@ -1,15 +1,15 @@
 import { Link } from 'react-router-dom';
-import type { TestDetail } from '#shared/schemas/germination';
+import type { AssayDetail } from '#shared/schemas/germination';
 import { buttonStyles } from '#src/components/ui/button';
 import { EmptyState } from '#src/components/ui/empty-state';
 import { FormAlert } from '#src/components/ui/form-alert';
 import { Loading } from '#src/components/ui/spinner';
 import { paths } from '#src/config/paths';
 import { cn } from '#src/lib/cn';
-import { useLotTests } from '../api/get-lot-tests';
+import { useLotAssays } from '../api/get-lot-assays';
 import { formatDate, formatPercent, intervalWords } from './format';
 
-export interface LotTestsProps {
+export interface LotAssaysProps {
   bankId: string;
   lotId: string;
   /** Growers and owners may start a test. */
@@ -18,7 +18,7 @@ export interface LotTestsProps {
   headingId?: string;
 }
 
-function StatusBadge({ status }: { status: TestDetail['test']['status'] }) {
+function StatusBadge({ status }: { status: AssayDetail['test']['status'] }) {
   return (
     <span
       className={cn(
@@ -32,10 +32,10 @@ function StatusBadge({ status }: { status: TestDetail['test']['status'] }) {
 }
 
 /** The germination tests of one lot, newest first, for the lot page. */
-export function LotTests({ bankId, lotId, canWrite, headingId }: LotTestsProps) {
-  const tests = useLotTests(bankId, lotId);
+export function LotAssays({ bankId, lotId, canWrite, headingId }: LotAssaysProps) {
+  const assays = useLotAssays(bankId, lotId);
   const startLink = canWrite ? (
-    <Link to={paths.newTest.getHref(bankId, lotId)} className={buttonStyles({ variant: 'primary' })}>
+    <Link to={paths.newAssay.getHref(bankId, lotId)} className={buttonStyles({ variant: 'primary' })}>
       Start a test
     </Link>
   ) : null;
@@ -46,13 +46,13 @@ export function LotTests({ bankId, lotId, canWrite, headingId }: LotTestsProps) 
         <h2 id={headingId} className="text-xl font-bold text-loam-900">
           Germination tests
         </h2>
-        {tests.data && tests.data.items.length > 0 ? startLink : null}
+        {assays.data && assays.data.items.length > 0 ? startLink : null}
       </div>
-      {tests.isPending ? (
+      {assays.isPending ? (
         <Loading label="Reading the tests" />
-      ) : tests.isError ? (
-        <FormAlert title="The tests could not be read">{tests.error.message}</FormAlert>
-      ) : tests.data.items.length === 0 ? (
+      ) : assays.isError ? (
+        <FormAlert title="The tests could not be read">{assays.error.message}</FormAlert>
+      ) : assays.data.items.length === 0 ? (
         <EmptyState
           title="No tests yet"
           description="Sow a counted number of seeds in trays or on damp paper towels and count the normal seedlings on each check day."
@@ -60,8 +60,8 @@ export function LotTests({ bankId, lotId, canWrite, headingId }: LotTestsProps) 
         />
       ) : (
         <ul className="grid gap-3" aria-label="Germination tests of this lot">
-          {tests.data.items.map((detail) => (
-            <LotTestItem key={detail.test.id} bankId={bankId} detail={detail} />
+          {assays.data.items.map((detail) => (
+            <LotAssayItem key={detail.test.id} bankId={bankId} detail={detail} />
           ))}
         </ul>
       )}
@@ -69,24 +69,24 @@ export function LotTests({ bankId, lotId, canWrite, headingId }: LotTestsProps) 
   );
 }
 
-function LotTestItem({ bankId, detail }: { bankId: string; detail: TestDetail }) {
-  const { test, result, trays } = detail;
+function LotAssayItem({ bankId, detail }: { bankId: string; detail: AssayDetail }) {
+  const { test: assay, result, trays } = detail;
   const sown = trays.reduce((sum, t) => sum + t.seedsSown, 0);
   const range = intervalWords(result);
   return (
     <li>
       <Link
-        to={paths.test.getHref(bankId, test.id)}
+        to={paths.assay.getHref(bankId, assay.id)}
         className="flex flex-wrap items-center justify-between gap-x-4 gap-y-2 rounded-xl border border-loam-200 bg-white p-4 no-underline shadow-sm hover:border-moss-400 hover:bg-moss-50"
       >
         <div className="min-w-0">
           <p className="flex flex-wrap items-center gap-2 font-bold text-loam-900">
-            <span>Started {formatDate(test.startDate)}</span>
-            <StatusBadge status={test.status} />
+            <span>Started {formatDate(assay.startDate)}</span>
+            <StatusBadge status={assay.status} />
           </p>
           <p className="text-sm text-loam-700">
-            {trays.length} {trays.length === 1 ? 'tray' : 'trays'}, {sown} seeds · {test.method}
-            {test.finishedOn ? ` · finished ${formatDate(test.finishedOn)}` : ''}
+            {trays.length} {trays.length === 1 ? 'tray' : 'trays'}, {sown} seeds · {assay.method}
+            {assay.finishedOn ? ` · finished ${formatDate(assay.finishedOn)}` : ''}
           </p>
         </div>
         <div className="flex items-baseline gap-2 sm:block sm:text-right">
@@ -94,7 +94,7 @@ function LotTestItem({ bankId, detail }: { bankId: string; detail: TestDetail })
             {formatPercent(result.percentRounded)}
           </p>
           <p className="text-sm text-loam-700">
-            {range ? `${test.status === 'running' ? 'so far, ' : ''}${range}` : 'no counts yet'}
+            {range ? `${assay.status === 'running' ? 'so far, ' : ''}${range}` : 'no counts yet'}
           </p>
         </div>
       </Link>

@@ -2,21 +2,21 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useId, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import { setAsideReasonSchema, type TestDetail } from '#shared/schemas/germination';
+import { setAsideReasonSchema, type AssayDetail } from '#shared/schemas/germination';
 import { Button } from '#src/components/ui/button';
 import { ConfirmDialog } from '#src/components/ui/confirm-dialog';
 import { Dialog } from '#src/components/ui/dialog';
 import { FormAlert } from '#src/components/ui/form-alert';
 import { TextField } from '#src/components/ui/text-field';
 import { applyServerError } from '#src/lib/form-errors';
-import { useDeleteTest } from '../api/delete-test';
-import { useReopenTest } from '../api/reopen-test';
-import { useSetTestAside } from '../api/set-test-aside';
+import { useDeleteAssay } from '../api/delete-assay';
+import { useReopenAssay } from '../api/reopen-assay';
+import { useSetAssayAside } from '../api/set-assay-aside';
 import { FinishDialog } from './finish-dialog';
 import { formatDate } from './format';
 
 /** Reasons offered for setting a whole test aside (the grower may write any other). */
-const TEST_ASIDE_REASONS = ['Mouldy towel', 'Too cold', 'Too hot', 'Dried out'] as const;
+const ASSAY_ASIDE_REASONS = ['Mouldy towel', 'Too cold', 'Too hot', 'Dried out'] as const;
 
 // The shared rule for a reason, with this form's own words for an empty one.
 const setAsideFormSchema = z.object({
@@ -27,19 +27,19 @@ const setAsideFormSchema = z.object({
     .pipe(setAsideReasonSchema),
 });
 
-export interface TestActionsProps {
+export interface AssayActionsProps {
   bankId: string;
-  detail: TestDetail;
+  detail: AssayDetail;
   today: string;
   onDeleted: () => void | Promise<void>;
 }
 
 /** Finish, reopen, set aside and delete: for growers only (the page leaves this out for viewers). */
-export function TestActions({ bankId, detail, today, onDeleted }: TestActionsProps) {
-  const { test } = detail;
-  const reopen = useReopenTest(bankId, test.id);
-  const remove = useDeleteTest(bankId, test.id, test.lotId);
-  const takeBack = useSetTestAside(bankId, test.id);
+export function AssayActions({ bankId, detail, today, onDeleted }: AssayActionsProps) {
+  const { test: assay } = detail;
+  const reopen = useReopenAssay(bankId, assay.id);
+  const remove = useDeleteAssay(bankId, assay.id, assay.lotId);
+  const takeBack = useSetAssayAside(bankId, assay.id);
   const [finishing, setFinishing] = useState(false);
   const [deleting, setDeleting] = useState(false);
   const [settingAside, setSettingAside] = useState(false);
@@ -51,26 +51,26 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
       className="rounded-xl border border-loam-200 bg-white p-4 sm:p-5"
     >
       <h2 id="test-actions-title" className="text-lg font-bold text-loam-900">
-        {test.status === 'running' ? 'When the last check is done' : 'This test is finished'}
+        {assay.status === 'running' ? 'When the last check is done' : 'This test is finished'}
       </h2>
       <div aria-live="polite" className="empty:hidden mt-2">
         {notice ? <FormAlert tone="success">{notice}</FormAlert> : null}
         <FormAlert>{reopen.error?.message ?? takeBack.error?.message}</FormAlert>
       </div>
-      {test.setAsideReason !== null ? (
+      {assay.setAsideReason !== null ? (
         <div
           data-testid="test-set-aside"
           className="mt-3 rounded-lg border border-dashed border-loam-500 bg-husk-50 px-3 py-2.5"
         >
-          <p className="font-bold text-loam-900">Set aside: {test.setAsideReason}</p>
+          <p className="font-bold text-loam-900">Set aside: {assay.setAsideReason}</p>
           <p className="text-loam-800">
-            It stays in lot {test.lotCode}’s history, counts and all, but is left out of the lot’s decline,
+            It stays in lot {assay.lotCode}’s history, counts and all, but is left out of the lot’s decline,
             its advice and the ranking.
           </p>
         </div>
       ) : null}
       <div className="mt-3 flex flex-col gap-2 sm:flex-row sm:flex-wrap">
-        {test.status === 'running' ? (
+        {assay.status === 'running' ? (
           <Button onClick={() => setFinishing(true)} disabled={detail.counts.length === 0}>
             Finish the test…
           </Button>
@@ -87,7 +87,7 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
             Reopen to change counts
           </Button>
         )}
-        {test.setAsideReason !== null ? (
+        {assay.setAsideReason !== null ? (
           <Button
             variant="secondary"
             isLoading={takeBack.isPending}
@@ -108,7 +108,7 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
           Delete this test…
         </Button>
       </div>
-      {test.status === 'running' && detail.counts.length === 0 ? (
+      {assay.status === 'running' && detail.counts.length === 0 ? (
         <p className="mt-2 text-sm text-loam-600">A test can be finished after its first count.</p>
       ) : null}
 
@@ -123,7 +123,7 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
           setNotice('Finished. The result is final unless you reopen the test.');
         }}
       />
-      <SetTestAsideDialog
+      <SetAssayAsideDialog
         bankId={bankId}
         detail={detail}
         open={settingAside}
@@ -144,28 +144,28 @@ export function TestActions({ bankId, detail, today, onDeleted }: TestActionsPro
         onCancel={() => setDeleting(false)}
         onConfirm={() => remove.mutate(undefined, { onSuccess: () => onDeleted() })}
       >
-        The test started {formatDate(test.startDate)} and its counts and tray photos are removed.{' '}
-        {test.seedsTaken > 0
-          ? `Its ${test.seedsTaken} seeds go back into lot ${test.lotCode}’s stock.`
-          : `It took no seeds from lot ${test.lotCode}’s stock (it came in with a file of past tests), so the stock stays as it is.`}{' '}
+        The test started {formatDate(assay.startDate)} and its counts and tray photos are removed.{' '}
+        {assay.seedsTaken > 0
+          ? `Its ${assay.seedsTaken} seeds go back into lot ${assay.lotCode}’s stock.`
+          : `It took no seeds from lot ${assay.lotCode}’s stock (it came in with a file of past tests), so the stock stays as it is.`}{' '}
         Use this for a test entered by mistake.
       </ConfirmDialog>
     </section>
   );
 }
 
-interface SetTestAsideDialogProps {
+interface SetAssayAsideDialogProps {
   bankId: string;
-  detail: TestDetail;
+  detail: AssayDetail;
   open: boolean;
   onClose: () => void;
   onDone: () => void;
 }
 
 /** Sets the whole test aside with a reason: a test spoiled by its conditions, not by the seed. */
-function SetTestAsideDialog({ bankId, detail, open, onClose, onDone }: SetTestAsideDialogProps) {
+function SetAssayAsideDialog({ bankId, detail, open, onClose, onDone }: SetAssayAsideDialogProps) {
   const formId = useId();
-  const setAside = useSetTestAside(bankId, detail.test.id);
+  const setAside = useSetAssayAside(bankId, detail.test.id);
   return (
     <Dialog
       open={open}
@@ -177,20 +177,20 @@ function SetTestAsideDialog({ bankId, detail, open, onClose, onDone }: SetTestAs
         </Button>
       }
     >
-      <SetTestAsideForm formId={formId} detail={detail} setAside={setAside} onDone={onDone} />
+      <SetAssayAsideForm formId={formId} detail={detail} setAside={setAside} onDone={onDone} />
     </Dialog>
   );
 }
 
-function SetTestAsideForm({
+function SetAssayAsideForm({
   formId,
   detail,
   setAside,
   onDone,
 }: {
   formId: string;
-  detail: TestDetail;
-  setAside: ReturnType<typeof useSetTestAside>;
+  detail: AssayDetail;
+  setAside: ReturnType<typeof useSetAssayAside>;
   onDone: () => void;
 }) {
   const [formError, setFormError] = useState<string>();
@@ -221,7 +221,7 @@ function SetTestAsideForm({
       </p>
       <FormAlert>{formError}</FormAlert>
       <div className="flex flex-wrap gap-2" role="group" aria-label="Common reasons">
-        {TEST_ASIDE_REASONS.map((reason) => (
+        {ASSAY_ASIDE_REASONS.map((reason) => (
           <Button
             key={reason}
             variant="secondary"

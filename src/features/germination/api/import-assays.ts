@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { testsImportPreviewSchema } from '#shared/schemas/germination';
+import { assaysImportPreviewSchema } from '#shared/schemas/germination';
 import { apiFetch } from '#src/lib/api-client';
 import { csvForm } from '#src/lib/csv-import';
 import { bankPaths, refresh, stale } from '#src/lib/bank-api';
@@ -8,20 +8,20 @@ import { bankPaths, refresh, stale } from '#src/lib/bank-api';
 const importedSchema = z.object({ imported: z.number() });
 
 /** POST /api/banks/:bankId/tests/import?dryRun=true: the tests the file would add, nothing written. */
-export async function previewTestsImport(bankId: string, file: File) {
+export async function previewAssaysImport(bankId: string, file: File) {
   return (
-    await apiFetch(bankPaths.testsImport(bankId, true), {
+    await apiFetch(bankPaths.assaysImport(bankId, true), {
       method: 'POST',
       body: csvForm(file),
-      schema: testsImportPreviewSchema,
+      schema: assaysImportPreviewSchema,
     })
   ).preview;
 }
 
 /** POST /api/banks/:bankId/tests/import: every test in one transaction, or nothing. */
-export async function importTests(bankId: string, file: File) {
+export async function importAssays(bankId: string, file: File) {
   return (
-    await apiFetch(bankPaths.testsImport(bankId, false), {
+    await apiFetch(bankPaths.assaysImport(bankId, false), {
       method: 'POST',
       body: csvForm(file),
       schema: importedSchema,
@@ -29,14 +29,14 @@ export async function importTests(bankId: string, file: File) {
   ).imported;
 }
 
-export function usePreviewTestsImport(bankId: string) {
-  return useMutation({ mutationFn: (file: File) => previewTestsImport(bankId, file) });
+export function usePreviewAssaysImport(bankId: string) {
+  return useMutation({ mutationFn: (file: File) => previewAssaysImport(bankId, file) });
 }
 
-export function useImportTests(bankId: string) {
+export function useImportAssays(bankId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (file: File) => importTests(bankId, file),
+    mutationFn: (file: File) => importAssays(bankId, file),
     // New tests of any lot (history: no seeds leave the stock) move every lot's projection.
     onSuccess: () => refresh(queryClient, stale.projections(bankId)),
   });

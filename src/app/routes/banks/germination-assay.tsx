@@ -3,11 +3,11 @@ import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom'
 import { isoDateSchema } from '#shared/schemas/common';
 import { PageHeader } from '#src/components/ui/page-header';
 import { paths } from '#src/config/paths';
-import { forgetTest } from '#src/features/germination/api/delete-test';
-import { testQueryOptions } from '#src/features/germination/api/get-test';
+import { forgetAssay } from '#src/features/germination/api/delete-assay';
+import { assayQueryOptions } from '#src/features/germination/api/get-assay';
 import type { IntervalMethod } from '#src/lib/bank-api';
 import { formatDate, setupWords } from '#src/features/germination/components/format';
-import { TestWorkbench } from '#src/features/germination/components/test-workbench';
+import { AssayWorkbench } from '#src/features/germination/components/assay-workbench';
 import { todayIn } from '#src/lib/dates';
 import type { BankNoticeState } from './bank-layout';
 import { CHECK_DATE_PARAM, EXACT_INTERVAL_PARAM, intervalFromSearch } from './germination-loaders';
@@ -15,7 +15,7 @@ import { TrayPhotos } from './tray-photos';
 import { useRouteBank } from './use-route-bank';
 
 /** /banks/:bankId/tests/:testId — one germination test: counts at the bench, curve and result. */
-export function GerminationTestPage() {
+export function GerminationAssayPage() {
   const { bank, role } = useRouteBank();
   const { testId = '' } = useParams();
   const [search, setSearch] = useSearchParams();
@@ -23,7 +23,7 @@ export function GerminationTestPage() {
   const queryClient = useQueryClient();
   const navigate = useNavigate();
   // The loader fetched it; the header reads the same cache entry the workbench uses.
-  const detail = useQuery(testQueryOptions(bank.id, testId, 'wilson')).data;
+  const detail = useQuery(assayQueryOptions(bank.id, testId, 'wilson')).data;
   const canWrite = role !== 'viewer';
 
   const dateParam = isoDateSchema.safeParse(search.get(CHECK_DATE_PARAM));
@@ -54,52 +54,52 @@ export function GerminationTestPage() {
       replace: true,
       state,
     });
-    forgetTest(queryClient, bank.id, testId);
+    forgetAssay(queryClient, bank.id, testId);
   };
 
-  const test = detail?.test;
+  const assay = detail?.test;
   return (
     <>
       <PageHeader
         eyebrow={
-          test ? (
-            <Link to={paths.lot.getHref(bank.id, test.lotId)} className="text-seedcoat-700 underline">
-              Lot {test.lotCode}
+          assay ? (
+            <Link to={paths.lot.getHref(bank.id, assay.lotId)} className="text-seedcoat-700 underline">
+              Lot {assay.lotCode}
             </Link>
           ) : (
             bank.name
           )
         }
-        title={test ? `${test.speciesName} · ${test.variety}` : 'Germination test'}
+        title={assay ? `${assay.speciesName} · ${assay.variety}` : 'Germination test'}
         description={
-          test ? (
+          assay ? (
             <>
-              Germination test started {formatDate(test.startDate)} · {setupWords(test)}
-              {test.schedule.firstCountDate || test.schedule.finalCountDate ? (
+              Germination test started {formatDate(assay.startDate)} · {setupWords(assay)}
+              {assay.schedule.firstCountDate || assay.schedule.finalCountDate ? (
                 <span className="mt-1 block text-frost-700">
-                  {test.schedule.firstCountDate
-                    ? `First count around ${formatDate(test.schedule.firstCountDate)}`
+                  {assay.schedule.firstCountDate
+                    ? `First count around ${formatDate(assay.schedule.firstCountDate)}`
                     : ''}
-                  {test.schedule.firstCountDate && test.schedule.finalCountDate ? ', ' : ''}
-                  {test.schedule.finalCountDate
-                    ? `final count around ${formatDate(test.schedule.finalCountDate)}`
+                  {assay.schedule.firstCountDate && assay.schedule.finalCountDate ? ', ' : ''}
+                  {assay.schedule.finalCountDate
+                    ? `final count around ${formatDate(assay.schedule.finalCountDate)}`
                     : ''}
                   .
                 </span>
               ) : null}
-              {test.notes ? <span className="mt-1 block whitespace-pre-line">{test.notes}</span> : null}
-              {test.setAsideReason !== null ? (
+              {assay.notes ? <span className="mt-1 block whitespace-pre-line">{assay.notes}</span> : null}
+              {assay.setAsideReason !== null ? (
                 <span className="mt-1 block font-semibold text-loam-900" data-testid="test-set-aside-status">
-                  Set aside ({test.setAsideReason}): left out of the lot’s decline and advice.
+                  Set aside ({assay.setAsideReason}): left out of the lot’s decline and advice.
                 </span>
               ) : null}
             </>
           ) : undefined
         }
       />
-      <TestWorkbench
+      <AssayWorkbench
         bankId={bank.id}
-        testId={testId}
+        assayId={testId}
         canWrite={canWrite}
         interval={interval}
         onIntervalChange={setInterval}

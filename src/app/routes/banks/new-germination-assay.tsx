@@ -3,7 +3,7 @@ import { Card } from '#src/components/ui/card';
 import { FormAlert } from '#src/components/ui/form-alert';
 import { PageHeader } from '#src/components/ui/page-header';
 import { paths } from '#src/config/paths';
-import { StartTestForm } from '#src/features/germination/components/start-test-form';
+import { StartAssayForm } from '#src/features/germination/components/start-assay-form';
 import { useLot } from '#src/features/lots/api/get-lot';
 import { TreatedCaution } from '#src/features/lots/components/lot-form-parts';
 import { todayIn } from '#src/lib/dates';
@@ -11,7 +11,7 @@ import type { BankNoticeState } from './bank-layout';
 import { useRouteBank } from './use-route-bank';
 
 /** /banks/:bankId/lots/:lotId/tests/new — start a germination test of one lot. */
-export function NewGerminationTestPage() {
+export function NewGerminationAssayPage() {
   const { bank, role } = useRouteBank();
   const { lotId = '' } = useParams();
   const lot = useLot(bank.id, lotId).data;
@@ -38,7 +38,7 @@ export function NewGerminationTestPage() {
           {/* Counting treated seed into trays means handling it: the caution comes before the form. */}
           {lot.treated ? <TreatedCaution /> : null}
           <Card>
-            <StartTestForm
+            <StartAssayForm
               bankId={bank.id}
               lotId={lotId}
               lot={lot}
@@ -54,7 +54,7 @@ export function NewGerminationTestPage() {
                 const state: BankNoticeState = {
                   notice: `Test started: ${sown} seeds taken from lot ${lot.code}. Count them here on each check day.`,
                 };
-                await navigate(paths.test.getHref(bank.id, detail.test.id), { state });
+                await navigate(paths.assay.getHref(bank.id, detail.test.id), { state });
               }}
             />
           </Card>

@@ -1,4 +1,4 @@
-import type { CreateTestBody } from '#shared/schemas/germination';
+import type { CreateAssayBody } from '#shared/schemas/germination';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
@@ -40,10 +40,10 @@ describe('CSV export and import of germination tests', () => {
    * A test through the API: trays, counts per date (one number per tray, from tray 1; trays beyond
    * the numbers given are not counted that day), finished if asked.
    */
-  async function test(
+  async function assay(
     b: Bank,
     lotId: string,
-    body: CreateTestBody,
+    body: CreateAssayBody,
     counts: [string, number[]][],
     finish?: {
       date: string;
@@ -55,24 +55,24 @@ describe('CSV export and import of germination tests', () => {
   ) {
     const created = await b.grower.agent.post(`${base(b)}/lots/${lotId}/tests`).send(body);
     expect(created.status).toBe(201);
-    const testId = created.body.test.id as string;
+    const assayId = created.body.test.id as string;
     const trayIds = (created.body.trays as { id: string }[]).map((t) => t.id);
     for (const [date, values] of counts) {
       const res = await b.grower.agent
-        .post(`${base(b)}/tests/${testId}/counts`)
+        .post(`${base(b)}/tests/${assayId}/counts`)
         .send({ date, trays: values.map((cumulative, i) => ({ trayId: trayIds[i], cumulative })) });
       expect(res.status).toBe(201);
     }
     if (finish) {
       const res = await b.grower.agent
-        .post(`${base(b)}/tests/${testId}/finish`)
+        .post(`${base(b)}/tests/${assayId}/finish`)
         .send({ date: finish.date, trays: finish.trays.map((t, i) => ({ trayId: trayIds[i], ...t })) });
       expect(res.status).toBe(200);
     }
-    return testId;
+    return assayId;
   }
 
-  const testsOf = async (b: Bank) =>
+  const assaysOf = async (b: Bank) =>
     await ctx.db
       .selectFrom('germination_tests')
       .selectAll()
@@ -94,7 +94,7 @@ describe('CSV export and import of germination tests', () => {
   it('when a viewer exports, then every tray gets one record per check day and an uncounted tray one with an empty date', async () => {
     const b = await bankWithRoles(ctx.app, ctx.db);
     const tom = await lot(b, 'TOM-A');
-    await test(
+    await assay(
       b,
       tom,
       {
@@ -117,10 +117,10 @@ describe('CSV export and import of germination tests', () => {
       },
     );
     // Two tests of the same lot the same day; the second is still running and not yet counted.
-    await test(b, tom, { startDate: '2026-02-20', method: 'tray of mix', trays: [{ seedsSown: 5 }] }, [
+    await assay(b, tom, { startDate: '2026-02-20', method: 'tray of mix', trays: [{ seedsSown: 5 }] }, [
       ['2026-02-25', [2]],
     ]);
-    await test(
+    await assay(
       b,
       tom,
       {
@@ -188,7 +188,7 @@ describe('CSV export and import of germination tests', () => {
     const aMar = await lot(a, 'MAR-RT', marigold);
     const bTom = await lot(b, 'tom-rt', tomato, 300); // codes match in any letter case
     await lot(b, 'MAR-RT', marigold, 200);
-    await test(
+    await assay(
       a,
       aTom,
       {
@@ -215,7 +215,7 @@ describe('CSV export and import of germination tests', () => {
         ],
       },
     );
-    await test(
+    await assay(
       a,
       aMar,
       {
@@ -227,7 +227,7 @@ describe('CSV export and import of germination tests', () => {
       },
       [['2026-02-22', [9, 0]]],
     );
-    await test(a, aMar, { startDate: '2026-02-15', method: 'petri dish', trays: [{ seedsSown: 8 }] }, []);
+    await assay(a, aMar, { startDate: '2026-02-15', method: 'petri dish', trays: [{ seedsSown: 8 }] }, []);
 
     const csv = (await a.viewer.agent.get(`${base(a)}/tests.csv`)).text;
     const preview = await importFile(b, csv, true);
@@ -253,7 +253,7 @@ describe('CSV export and import of germination tests', () => {
         finishedOn: '2026-01-24',
       }),
     ]);
-    expect(await testsOf(b)).toHaveLength(0);
+    expect(await assaysOf(b)).toHaveLength(0);
 
     const imported = await importFile(b, csv);
     expect(imported.status).toBe(200);
@@ -262,14 +262,14 @@ describe('CSV export and import of germination tests', () => {
 
     const detailsOf = async (bank: Bank) => {
       const details = [];
-      for (const t of await testsOf(bank))
+      for (const t of await assaysOf(bank))
         details.push((await bank.viewer.agent.get(`${base(bank)}/tests/${t.id}`)).body);
       return details.map((d) => {
         // What each test took from its lot's stock differs on purpose: see seedsTaken below.
-        const { id: _i, lotId: _l, lotCode: _c, createdAt: _ca, seedsTaken: _s, ...test } = d.test;
+        const { id: _i, lotId: _l, lotCode: _c, createdAt: _ca, seedsTaken: _s, ...assay } = d.test;
         const trayIds: string[] = d.trays.map((t: { id: string }) => t.id);
         return {
-          test,
+          test: assay,
           trays: d.trays.map(({ id: _id, ...t }: { id: string }) => t),
           // Counts of one day come in no particular tray order.
           counts: d.counts
@@ -292,7 +292,7 @@ describe('CSV export and import of germination tests', () => {
     // say so, so deleting one gives nothing back.
     const taken = async (bank: Bank) => {
       const out = [];
-      for (const t of await testsOf(bank))
+      for (const t of await assaysOf(bank))
         out.push((await bank.viewer.agent.get(`${base(bank)}/tests/${t.id}`)).body.test.seedsTaken as number);
       return out.sort((x, y) => x - y);
     };
@@ -314,14 +314,14 @@ describe('CSV export and import of germination tests', () => {
 
     const fourTrays = (seedsSown: number) => [{ seedsSown }, { seedsSown }, { seedsSown }, { seedsSown }];
     // Running: 4 trays of 100, only trays 1 and 2 counted so far (80 and 90 normal seedlings).
-    const runId = await test(
+    const runId = await assay(
       a,
       runLot,
       { startDate: '2026-02-01', method: 'paper towel', trays: fourTrays(100) },
       [['2026-02-08', [80, 90]]],
     );
     // Finished: 4 trays of 25; tray 4 was counted once, then spilled and set aside at the finish.
-    const finId = await test(
+    const finId = await assay(
       a,
       finLot,
       { startDate: '2026-01-10', method: 'paper towel', trays: fourTrays(25) },
@@ -365,8 +365,8 @@ describe('CSV export and import of germination tests', () => {
     ]);
 
     // The same figure as the test page and the ranking.
-    const page = async (bank: Bank, testId: string) =>
-      (await bank.viewer.agent.get(`${base(bank)}/tests/${testId}`)).body;
+    const page = async (bank: Bank, assayId: string) =>
+      (await bank.viewer.agent.get(`${base(bank)}/tests/${assayId}`)).body;
     const ranking = (await a.viewer.agent.get(`${base(a)}/ranking?on=2026-03-01`)).body.items as {
       lotId: string;
       lastPercent: number | null;
@@ -385,8 +385,8 @@ describe('CSV export and import of germination tests', () => {
     const imported = await importFile(b, csv);
     expect(imported.status).toBe(200);
     expect(imported.body).toEqual({ imported: 2 });
-    const copies = await testsOf(b);
-    const originals = await testsOf(a);
+    const copies = await assaysOf(b);
+    const originals = await assaysOf(a);
     expect(copies.map((t) => [t.start_date, t.status, t.result_percent])).toEqual(
       originals.map((t) => [t.start_date, t.status, t.result_percent]),
     );
@@ -443,7 +443,7 @@ describe('CSV export and import of germination tests', () => {
     expect(rows[2]!.message).toMatch(/tray 2 is missing/);
     expect(rows[3]!.message).toMatch(/no lot with the code "ELSE-1"/);
     expect(rows[5]!.message).toMatch(/after today \(2026-03-01/);
-    expect(await testsOf(b)).toHaveLength(0);
+    expect(await assaysOf(b)).toHaveLength(0);
     const trays = await ctx.db
       .selectFrom('test_trays')
       .innerJoin('germination_tests', 'germination_tests.id', 'test_trays.test_id')
@@ -464,7 +464,7 @@ describe('CSV export and import of germination tests', () => {
         'tests.csv',
       );
     expect(res.status).toBe(403);
-    expect(await testsOf(b)).toHaveLength(0);
+    expect(await assaysOf(b)).toHaveLength(0);
   });
 
   it('when an owner imports a hand-written file, then its tests are saved running or finished as it says', async () => {
@@ -482,7 +482,7 @@ describe('CSV export and import of germination tests', () => {
       .attach('file', Buffer.from(csv), 'tests.csv');
     expect(res.status).toBe(200);
     expect(res.body).toEqual({ imported: 2 });
-    const saved = await testsOf(b);
+    const saved = await assaysOf(b);
     expect(saved.map((t) => [t.start_date, t.status, t.finished_on])).toEqual([
       ['2026-02-01', 'finished', '2026-02-12'],
       ['2026-02-25', 'running', null],
@@ -498,7 +498,7 @@ describe('CSV export and import of germination tests', () => {
     ]);
     // History: the lot's 40 seeds stay on hand although the file's tests sowed 70.
     expect(await stockOf(b, tom)).toBe(40);
-    const lotTests = (await b.viewer.agent.get(`${base(b)}/lots/${tom}/tests`)).body.items;
-    expect(lotTests).toHaveLength(2);
+    const lotAssays = (await b.viewer.agent.get(`${base(b)}/lots/${tom}/tests`)).body.items;
+    expect(lotAssays).toHaveLength(2);
   });
 });

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Caution } from '#src/components/ui/caution';
 
-export interface TestSetup {
+export interface AssaySetup {
   method: string;
   medium: string;
   temperatureC: number | null;
@@ -20,7 +20,7 @@ const WARMER_THAN_ROOM_C = 23;
 const MIX_METHODS = new Set(['tray of mix', 'soil block']);
 
 /** Which cautions this set-up calls for; the mould one applies to every damp test. */
-export function cautionsFor(setup: TestSetup): Caution[] {
+export function cautionsFor(setup: AssaySetup): Caution[] {
   const list: Caution[] = [];
   const medium = setup.medium.toLowerCase();
   const usesMix = MIX_METHODS.has(setup.method) || /mix|soil|compost|peat|coir|boil|steril/.test(medium);
@@ -48,7 +48,7 @@ export function cautionsFor(setup: TestSetup): Caution[] {
 }
 
 /** The cautions that apply, in plain words, deferring to local codes and advice. */
-export function TestCautions({ setup }: { setup: TestSetup }) {
+export function AssayCautions({ setup }: { setup: AssaySetup }) {
   const cautions = cautionsFor(setup);
   return (
     <section aria-labelledby="test-cautions-title" className="grid gap-2">

@@ -1,11 +1,11 @@
 /**
  * CSV export and import of a bank's germination tests. Pure: no database, no I/O. The import
  * service wraps the write in one transaction; this module's part of "all or nothing" is that
- * `parseTestsCsv` returns either every test or every problem it found.
+ * `parseAssaysCsv` returns either every test or every problem it found.
  *
  * The file rules every Hilum CSV shares (RFC 4180 quoting, BOM, formula guard, trimmed cells,
  * header matching, line numbers) are in server/csv/csv-file.ts. What is particular to tests:
- * - One record per tray and check day, with the columns in `TEST_CSV_COLUMNS`: `cumulative` is the
+ * - One record per tray and check day, with the columns in `ASSAY_CSV_COLUMNS`: `cumulative` is the
  *   tray's cumulative normal seedlings on `check_date`. A tray with no counts yet has one record
  *   with `check_date` and `cumulative` empty. Required columns: test, lot_code, start_date, method,
  *   tray, seeds_sown; any other may be left out.
@@ -23,7 +23,7 @@
  *   (spilled, dried out): it is left out of every figure, so at a finish it has no finish values.
  *   A finished test's tray that was never counted must be set aside, and at least one tray must be
  *   left in the figures (the finish endpoint's rule).
- * - `germination_percent` is the test's stored result (test-results.ts) rounded to the whole
+ * - `germination_percent` is the test's stored result (assay-results.ts) rounded to the whole
  *   percent, the figure the test page, the ranking and the labels show. Like species and variety it
  *   is written for people and not read back: the import computes the result from the counts.
  * - The checks are the API's own: the test body's schema, count-rules.ts for the counts of each
@@ -34,10 +34,10 @@
  */
 import { z } from 'zod';
 import {
-  createTestBodySchema,
+  createAssayBodySchema,
   pretreatmentSchema,
   setAsideReasonSchema,
-  type CreateTestBody,
+  type CreateAssayBody,
 } from '#shared/schemas/germination';
 import {
   blankToNull,
@@ -76,7 +76,7 @@ const FINISH_COLUMNS = ['abnormal', 'ungerminated', 'fresh', 'dead', 'hard'] as 
 /** What every record of a tray repeats besides its seeds sown. */
 const TRAY_COLUMNS = [...FINISH_COLUMNS, 'set_aside_reason'] as const;
 
-export const TEST_CSV_COLUMNS = [
+export const ASSAY_CSV_COLUMNS = [
   'test',
   'lot_code',
   'species',
@@ -91,9 +91,9 @@ export const TEST_CSV_COLUMNS = [
   // Written for people, not read back (the import computes the result from the counts).
   'germination_percent',
 ] as const;
-export type TestCsvColumn = (typeof TEST_CSV_COLUMNS)[number];
+export type AssayCsvColumn = (typeof ASSAY_CSV_COLUMNS)[number];
 
-const REQUIRED_COLUMNS: readonly TestCsvColumn[] = [
+const REQUIRED_COLUMNS: readonly AssayCsvColumn[] = [
   'test',
   'lot_code',
   'start_date',
@@ -101,11 +101,11 @@ const REQUIRED_COLUMNS: readonly TestCsvColumn[] = [
   'tray',
   'seeds_sown',
 ];
-export const MAX_TEST_CSV_RECORDS = 20_000;
+export const MAX_ASSAY_CSV_RECORDS = 20_000;
 
 type Pretreatment = z.infer<typeof pretreatmentSchema>;
 
-export interface TestCsvTray {
+export interface AssayCsvTray {
   position: number;
   seedsSown: number;
   abnormal: number | null;
@@ -119,7 +119,7 @@ export interface TestCsvTray {
   counts: { date: string; cumulative: number }[];
 }
 
-interface TestCsvFields {
+interface AssayCsvFields {
   lotCode: string;
   startDate: string;
   method: string;
@@ -130,11 +130,11 @@ interface TestCsvFields {
   pretreatmentDays: number | null;
   notes: string | null;
   finishedOn: string | null;
-  trays: TestCsvTray[];
+  trays: AssayCsvTray[];
 }
 
 /** One test as the export writes it. */
-export interface TestCsvTest extends TestCsvFields {
+export interface AssayCsvAssay extends AssayCsvFields {
   speciesName: string;
   variety: string;
   /** The stored result's whole percent (`percentRounded`); null while no tray is in the figures. */
@@ -142,29 +142,30 @@ export interface TestCsvTest extends TestCsvFields {
 }
 
 /** One test as the import read it: its reference, its first line and the lot it belongs to. */
-export interface ParsedTestCsvTest extends TestCsvFields {
+export interface ParsedAssayCsvAssay extends AssayCsvFields {
   ref: string;
   line: number;
   lotId: string;
 }
 
-export type TestCsvParseResult = { ok: true; tests: ParsedTestCsvTest[] } | { ok: false; errors: CsvError[] };
+export type AssayCsvParseResult =
+  { ok: true; assays: ParsedAssayCsvAssay[] } | { ok: false; errors: CsvError[] };
 
-const LAYOUT: CsvLayout<TestCsvColumn> = {
-  columns: TEST_CSV_COLUMNS,
+const LAYOUT: CsvLayout<AssayCsvColumn> = {
+  columns: ASSAY_CSV_COLUMNS,
   what: 'germination tests',
   missing: (seen) => REQUIRED_COLUMNS.filter((c) => !seen.has(c)).map((c) => `"${c}"`),
-  maxRecords: MAX_TEST_CSV_RECORDS,
-  tooMany: `The file holds more than ${MAX_TEST_CSV_RECORDS.toLocaleString('en')} records; import at most ${MAX_TEST_CSV_RECORDS.toLocaleString('en')} at a time (split the file between tests).`,
+  maxRecords: MAX_ASSAY_CSV_RECORDS,
+  tooMany: `The file holds more than ${MAX_ASSAY_CSV_RECORDS.toLocaleString('en')} records; import at most ${MAX_ASSAY_CSV_RECORDS.toLocaleString('en')} at a time (split the file between tests).`,
 };
 
 // ---------------------------------------------------------------------------------------------
 // Export
 
 /** Each test's reference: lot code and start date, "#2", "#3"… for a lot's later tests that day. */
-export function testReferences(tests: Pick<TestCsvTest, 'lotCode' | 'startDate'>[]): string[] {
+export function assayReferences(assays: Pick<AssayCsvAssay, 'lotCode' | 'startDate'>[]): string[] {
   const seen = new Map<string, number>();
-  return tests.map((t) => {
+  return assays.map((t) => {
     const base = `${t.lotCode} ${t.startDate}`;
     const n = (seen.get(base) ?? 0) + 1;
     seen.set(base, n);
@@ -172,41 +173,45 @@ export function testReferences(tests: Pick<TestCsvTest, 'lotCode' | 'startDate'>
   });
 }
 
-function trayRecords(ref: string, test: TestCsvTest, tray: TestCsvTray): Record<TestCsvColumn, string>[] {
+function trayRecords(
+  ref: string,
+  assay: AssayCsvAssay,
+  tray: AssayCsvTray,
+): Record<AssayCsvColumn, string>[] {
   const shared = {
     test: textCell(ref),
-    lot_code: textCell(test.lotCode),
-    species: textCell(test.speciesName),
-    variety: textCell(test.variety),
-    start_date: test.startDate,
-    method: textCell(test.method),
-    medium: textCell(test.medium),
-    temperature_c: numberCell(test.temperatureC),
-    light_hours: numberCell(test.lightHours),
-    pretreatment: test.pretreatment,
-    pretreatment_days: numberCell(test.pretreatmentDays),
-    notes: textCell(test.notes),
+    lot_code: textCell(assay.lotCode),
+    species: textCell(assay.speciesName),
+    variety: textCell(assay.variety),
+    start_date: assay.startDate,
+    method: textCell(assay.method),
+    medium: textCell(assay.medium),
+    temperature_c: numberCell(assay.temperatureC),
+    light_hours: numberCell(assay.lightHours),
+    pretreatment: assay.pretreatment,
+    pretreatment_days: numberCell(assay.pretreatmentDays),
+    notes: textCell(assay.notes),
     tray: String(tray.position),
     seeds_sown: String(tray.seedsSown),
-    finished_on: test.finishedOn ?? '',
+    finished_on: assay.finishedOn ?? '',
     abnormal: numberCell(tray.abnormal),
     ungerminated: numberCell(tray.ungerminated),
     fresh: numberCell(tray.fresh),
     dead: numberCell(tray.dead),
     hard: numberCell(tray.hard),
     set_aside_reason: textCell(tray.setAsideReason),
-    germination_percent: numberCell(test.germinationPercent),
+    germination_percent: numberCell(assay.germinationPercent),
   };
   if (tray.counts.length === 0) return [{ ...shared, check_date: '', cumulative: '' }];
   return tray.counts.map((c) => ({ ...shared, check_date: c.date, cumulative: String(c.cumulative) }));
 }
 
 /** The file: every test, tray by tray, one record per check day (tests in the order given). */
-export function testsToCsv(tests: TestCsvTest[]): string {
-  const refs = testReferences(tests);
+export function assaysToCsv(assays: AssayCsvAssay[]): string {
+  const refs = assayReferences(assays);
   return writeCsv(
-    TEST_CSV_COLUMNS,
-    tests.flatMap((test, i) => test.trays.flatMap((tray) => trayRecords(refs[i]!, test, tray))),
+    ASSAY_CSV_COLUMNS,
+    assays.flatMap((assay, i) => assay.trays.flatMap((tray) => trayRecords(refs[i]!, assay, tray))),
   );
 }
 
@@ -284,12 +289,12 @@ const recordSchema = z
       });
     }
   });
-type TestCsvRecord = z.infer<typeof recordSchema> & { line: number; lotId: string };
+type AssayCsvRecord = z.infer<typeof recordSchema> & { line: number; lotId: string };
 
 /** The test-level columns every record of a test repeats. */
-const TEST_COLUMNS = [...SETUP_COLUMNS, 'finished_on'] as const;
+const ASSAY_COLUMNS = [...SETUP_COLUMNS, 'finished_on'] as const;
 
-export interface TestCsvContext {
+export interface AssayCsvContext {
   /** The id of this bank's lot with the code (any letter case); null when the bank has none. */
   resolveLot: (code: string) => string | null;
   /** Today on the bank's calendar (YYYY-MM-DD): no date in the file may be later. */
@@ -298,7 +303,7 @@ export interface TestCsvContext {
   harvestDateOf?: (lotId: string) => string | null;
 }
 
-function recordErrors(context: TestCsvContext, c: z.infer<typeof recordSchema>, line: number): CsvError[] {
+function recordErrors(context: AssayCsvContext, c: z.infer<typeof recordSchema>, line: number): CsvError[] {
   const errors: CsvError[] = [];
   const future = (column: 'start_date' | 'check_date' | 'finished_on', date: string | null) => {
     if (date !== null && date > context.today) {
@@ -328,9 +333,9 @@ function recordErrors(context: TestCsvContext, c: z.infer<typeof recordSchema>, 
 const same = (a: unknown, b: unknown) => a === b;
 
 /** The columns of `columns` on which `record` differs from `first`. */
-function disagreements<K extends keyof TestCsvRecord>(
-  first: TestCsvRecord,
-  record: TestCsvRecord,
+function disagreements<K extends keyof AssayCsvRecord>(
+  first: AssayCsvRecord,
+  record: AssayCsvRecord,
   columns: readonly K[],
   what: string,
 ): CsvError[] {
@@ -345,10 +350,10 @@ function disagreements<K extends keyof TestCsvRecord>(
 
 /** A tray's repeated value (finish values, set-aside reason): the non-empty ones must agree; returns the value or a disagreement. */
 function trayValue<K extends (typeof TRAY_COLUMNS)[number]>(
-  records: TestCsvRecord[],
+  records: AssayCsvRecord[],
   column: K,
   errors: CsvError[],
-): TestCsvRecord[K] | null {
+): AssayCsvRecord[K] | null {
   const given = records.filter((r) => r[column] !== null);
   const first = given[0];
   for (const r of given.slice(1)) {
@@ -366,11 +371,11 @@ function trayValue<K extends (typeof TRAY_COLUMNS)[number]>(
 const trayKey = (position: number) => `tray-${position}`;
 
 /** Every problem of one test's records taken together, and the test when there is none. */
-function checkTest(
+function checkAssay(
   ref: string,
-  records: TestCsvRecord[],
-  context: TestCsvContext,
-): { errors: CsvError[]; test: ParsedTestCsvTest | null } {
+  records: AssayCsvRecord[],
+  context: AssayCsvContext,
+): { errors: CsvError[]; assay: ParsedAssayCsvAssay | null } {
   const first = records[0]!;
   const what = `Test "${ref}"`;
   const errors: CsvError[] = [];
@@ -382,11 +387,11 @@ function checkTest(
         message: `${what} is of lot ${first.lot_code} on line ${first.line}; one test tests one lot.`,
       });
     }
-    errors.push(...disagreements(first, r, TEST_COLUMNS, what));
+    errors.push(...disagreements(first, r, ASSAY_COLUMNS, what));
   }
 
   // Trays: numbered from 1 without gaps, one seeds_sown each, check days not repeated.
-  const byTray = new Map<number, TestCsvRecord[]>();
+  const byTray = new Map<number, AssayCsvRecord[]>();
   for (const r of records) byTray.set(r.tray, [...(byTray.get(r.tray) ?? []), r]);
   const positions = [...byTray.keys()].sort((a, b) => a - b);
   const gap = positions.findIndex((p, i) => p !== i + 1);
@@ -397,7 +402,7 @@ function checkTest(
       message: `${what} has trays ${positions.join(', ')}: number its trays 1, 2, … without gaps (tray ${gap + 1} is missing).`,
     });
   }
-  const trays: TestCsvTray[] = [];
+  const trays: AssayCsvTray[] = [];
   const countLines = new Map<string, number>();
   for (const position of positions) {
     const mine = byTray.get(position)!;
@@ -410,7 +415,7 @@ function checkTest(
         });
       }
     }
-    const counts: TestCsvTray['counts'] = [];
+    const counts: AssayCsvTray['counts'] = [];
     for (const r of mine) {
       if (r.check_date === null || r.cumulative === null) continue;
       const key = `${position} ${r.check_date}`;
@@ -450,7 +455,7 @@ function checkTest(
     pretreatmentDays: first.pretreatment_days,
     notes: first.notes,
     trays: trays.map((t) => ({ seedsSown: t.seedsSown })),
-  } satisfies CreateTestBody;
+  } satisfies CreateAssayBody;
   errors.push(...bodyErrors(body, first.line));
   const early = startBeforeHarvest(
     first.start_date,
@@ -461,10 +466,10 @@ function checkTest(
   errors.push(...countErrors(first.start_date, trays, countLines));
   errors.push(...finishErrors(what, first, trays, byTray));
 
-  if (errors.length > 0) return { errors, test: null };
+  if (errors.length > 0) return { errors, assay: null };
   return {
     errors,
-    test: {
+    assay: {
       ref,
       line: first.line,
       lotId: first.lotId,
@@ -483,7 +488,7 @@ function checkTest(
   };
 }
 
-const BODY_COLUMNS: Record<string, TestCsvColumn> = {
+const BODY_COLUMNS: Record<string, AssayCsvColumn> = {
   startDate: 'start_date',
   method: 'method',
   medium: 'medium',
@@ -495,9 +500,9 @@ const BODY_COLUMNS: Record<string, TestCsvColumn> = {
   trays: 'tray',
 };
 
-/** What the API's own create-test schema says of the test (e.g. cold stratification needs days). */
-function bodyErrors(body: CreateTestBody, line: number): CsvError[] {
-  const parsed = createTestBodySchema.safeParse(body);
+/** What the API's own create schema (createAssayBodySchema) says of the test (e.g. cold stratification needs days). */
+function bodyErrors(body: CreateAssayBody, line: number): CsvError[] {
+  const parsed = createAssayBodySchema.safeParse(body);
   if (parsed.success) return [];
   return parsed.error.issues.map((issue) => {
     const key = columnOf(issue.path);
@@ -507,7 +512,7 @@ function bodyErrors(body: CreateTestBody, line: number): CsvError[] {
 }
 
 /** count-rules.ts on each check day, against the same test's earlier days (a fall is reported once, on the later day). */
-function countErrors(startDate: string, trays: TestCsvTray[], countLines: Map<string, number>): CsvError[] {
+function countErrors(startDate: string, trays: AssayCsvTray[], countLines: Map<string, number>): CsvError[] {
   const rows = trays.map((t) => ({ id: trayKey(t.position), position: t.position, seeds_sown: t.seedsSown }));
   const all = trays
     .flatMap((t) =>
@@ -538,9 +543,9 @@ function countErrors(startDate: string, trays: TestCsvTray[], countLines: Map<st
  */
 function finishErrors(
   what: string,
-  first: TestCsvRecord,
-  trays: TestCsvTray[],
-  byTray: Map<number, TestCsvRecord[]>,
+  first: AssayCsvRecord,
+  trays: AssayCsvTray[],
+  byTray: Map<number, AssayCsvRecord[]>,
 ): CsvError[] {
   const finishedOn = first.finished_on;
   const errors: CsvError[] = [];
@@ -626,8 +631,8 @@ function finishErrors(
  * Reads a germination tests CSV for one bank. Returns every test (grouped by the `test` column,
  * in the order of their first line) or every problem, each with its line and column.
  */
-export function parseTestsCsv(text: string, context: TestCsvContext): TestCsvParseResult {
-  const groups = new Map<string, TestCsvRecord[]>();
+export function parseAssaysCsv(text: string, context: AssayCsvContext): AssayCsvParseResult {
+  const groups = new Map<string, AssayCsvRecord[]>();
   const broken = new Set<string>();
   const read = readCsv(text, LAYOUT, (cells, line) => {
     const ref = unprotectCsvText(cells.test);
@@ -664,16 +669,16 @@ export function parseTestsCsv(text: string, context: TestCsvContext): TestCsvPar
     // rest of it now would report trays or counts that only look missing.
     const together = [...groups]
       .filter(([ref]) => !broken.has(ref))
-      .flatMap(([ref, records]) => checkTest(ref, records, context).errors);
+      .flatMap(([ref, records]) => checkAssay(ref, records, context).errors);
     return { ok: false, errors: [...read.errors, ...together].sort((a, b) => a.line - b.line) };
   }
-  const tests: ParsedTestCsvTest[] = [];
+  const assays: ParsedAssayCsvAssay[] = [];
   const errors: CsvError[] = [];
   for (const [ref, records] of groups) {
-    const outcome = checkTest(ref, records, context);
+    const outcome = checkAssay(ref, records, context);
     errors.push(...outcome.errors);
-    if (outcome.test) tests.push(outcome.test);
+    if (outcome.assay) assays.push(outcome.assay);
   }
   if (errors.length > 0) return { ok: false, errors: errors.sort((a, b) => a.line - b.line) };
-  return { ok: true, tests };
+  return { ok: true, assays };
 }

@@ -1,14 +1,14 @@
 import { CsvImport, CsvTable } from '#src/components/ui/csv-import';
 import { formatDay } from '#src/lib/dates';
-import type { TestsImportPreview } from '#shared/schemas/germination';
-import { useImportTests, usePreviewTestsImport } from '../api/import-tests';
+import type { AssaysImportPreview } from '#shared/schemas/germination';
+import { useImportAssays, usePreviewAssaysImport } from '../api/import-assays';
 import { bankPaths } from '#src/lib/bank-api';
 
 const count = new Intl.NumberFormat('en');
-const testCount = (n: number) => (n === 1 ? '1 germination test' : `${count.format(n)} germination tests`);
+const assayCount = (n: number) => (n === 1 ? '1 germination test' : `${count.format(n)} germination tests`);
 const plural = (n: number, one: string, many: string) => `${count.format(n)} ${n === 1 ? one : many}`;
 
-function PreviewTable({ rows }: { rows: TestsImportPreview }) {
+function PreviewTable({ rows }: { rows: AssaysImportPreview }) {
   return (
     <CsvTable
       caption="Germination tests the file would add"
@@ -46,18 +46,18 @@ function PreviewTable({ rows }: { rows: TestsImportPreview }) {
 }
 
 /** Choose a germination tests CSV file → check it (nothing written) → import every test, or none. */
-export function ImportTests({ bankId, doneHref }: { bankId: string; doneHref: string }) {
+export function ImportAssays({ bankId, doneHref }: { bankId: string; doneHref: string }) {
   return (
     <CsvImport
-      preview={usePreviewTestsImport(bankId)}
-      run={useImportTests(bankId)}
-      count={testCount}
+      preview={usePreviewAssaysImport(bankId)}
+      run={useImportAssays(bankId)}
+      count={assayCount}
       template={
         <>
           One line per tray and check day; lots are found by their code in this bank. A tray set aside
           (spilled, dried out) gives its reason in set_aside_reason and no finish figures; germination_percent
           is there to read and is not imported. Not sure of the columns?{' '}
-          <a href={bankPaths.testsCsv(bankId)} download className="font-semibold text-moss-800 underline">
+          <a href={bankPaths.assaysCsv(bankId)} download className="font-semibold text-moss-800 underline">
             Export the bank’s tests
           </a>{' '}
           and use that file as a template.

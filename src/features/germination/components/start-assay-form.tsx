@@ -3,10 +3,10 @@ import { useState, type ReactNode } from 'react';
 import { useFieldArray, useForm, useWatch, type Path } from 'react-hook-form';
 import { z } from 'zod';
 import {
-  createTestBodySchema,
+  createAssayBodySchema,
   pretreatmentSchema,
-  TEST_METHODS,
-  type TestDetail,
+  ASSAY_METHODS,
+  type AssayDetail,
 } from '#shared/schemas/germination';
 import { Button } from '#src/components/ui/button';
 import { FieldError } from '#src/components/ui/field';
@@ -16,27 +16,27 @@ import { TextAreaField } from '#src/components/ui/text-area-field';
 import { TextField } from '#src/components/ui/text-field';
 import { isApiError } from '#src/lib/api-client';
 import { cn } from '#src/lib/cn';
-import { useCreateTest } from '../api/create-test';
+import { useCreateAssay } from '../api/create-assay';
 import { pretreatmentLabels } from './format';
-import { TestCautions } from './test-cautions';
+import { AssayCautions } from './assay-cautions';
 
 /** What the form needs to know of the lot (the route reads it from the lots API). */
-export interface LotForTest {
+export interface LotForAssay {
   code: string;
   speciesName: string;
   variety: string;
   seedsOnHand: number;
 }
 
-export interface StartTestFormProps {
+export interface StartAssayFormProps {
   bankId: string;
   lotId: string;
-  lot?: LotForTest | undefined;
+  lot?: LotForAssay | undefined;
   /** Today on the bank's calendar (its time zone): the default start date and the latest allowed. */
   today: string;
   /** Link target for "record a stock correction" when the ledger is short. */
   renderStockLink: (label: string) => ReactNode;
-  onCreated: (detail: TestDetail) => void | Promise<void>;
+  onCreated: (detail: AssayDetail) => void | Promise<void>;
   onCancel?: () => void;
 }
 
@@ -65,10 +65,10 @@ function numberOrNull(text: string): number | null {
  * The form as typed (numbers as text, the method as a choice or words of one's own), read into the
  * request body and checked by the body's own schema, so every message lands on the field it names.
  */
-const startTestFormSchema = z
+const startAssayFormSchema = z
   .object({
     startDate: z.string(),
-    /** One of TEST_METHODS, or OTHER for the grower's own words in `method`. */
+    /** One of ASSAY_METHODS, or OTHER for the grower's own words in `method`. */
     methodChoice: z.string(),
     method: z.string(),
     medium: z.string(),
@@ -79,7 +79,7 @@ const startTestFormSchema = z
     notes: z.string(),
     trays: z.array(z.object({ seedsSown: z.string() })),
   })
-  .transform((form): z.input<typeof createTestBodySchema> => ({
+  .transform((form): z.input<typeof createAssayBodySchema> => ({
     startDate: form.startDate,
     method: (form.methodChoice === OTHER ? form.method : form.methodChoice).trim(),
     medium: form.medium.trim() === '' ? null : form.medium.trim(),
@@ -92,9 +92,9 @@ const startTestFormSchema = z
     // A blank tray is as wrong as one that is not a number.
     trays: form.trays.map((t) => ({ seedsSown: numberOrNull(t.seedsSown) ?? Number.NaN })),
   }))
-  .pipe(createTestBodySchema);
+  .pipe(createAssayBodySchema);
 
-type StartTestValues = z.input<typeof startTestFormSchema>;
+type StartAssayValues = z.input<typeof startAssayFormSchema>;
 
 /** What to say of a box that does not hold a number. */
 function notANumber(path: string): string | undefined {
@@ -105,11 +105,11 @@ function notANumber(path: string): string | undefined {
   return undefined;
 }
 
-const resolver = zodResolver(startTestFormSchema, {
+const resolver = zodResolver(startAssayFormSchema, {
   error: (issue) => (issue.code === 'invalid_type' ? notANumber(issue.path?.join('.') ?? '') : undefined),
 });
 
-export function StartTestForm({
+export function StartAssayForm({
   bankId,
   lotId,
   lot,
@@ -117,8 +117,8 @@ export function StartTestForm({
   renderStockLink,
   onCreated,
   onCancel,
-}: StartTestFormProps) {
-  const create = useCreateTest(bankId, lotId);
+}: StartAssayFormProps) {
+  const create = useCreateAssay(bankId, lotId);
   const perTrayDefault = String(defaultSeedsPerTray(lot?.seedsOnHand));
   const [formError, setFormError] = useState<ReactNode>();
   const {
@@ -133,7 +133,7 @@ export function StartTestForm({
     resolver,
     defaultValues: {
       startDate: today,
-      methodChoice: TEST_METHODS[0],
+      methodChoice: ASSAY_METHODS[0],
       method: '',
       medium: '',
       temperatureC: '',
@@ -142,11 +142,11 @@ export function StartTestForm({
       pretreatmentDays: '',
       notes: '',
       trays: Array.from({ length: DEFAULT_TRAYS }, () => ({ seedsSown: perTrayDefault })),
-    } satisfies StartTestValues,
+    } satisfies StartAssayValues,
   });
   const trayFields = useFieldArray({ control, name: 'trays' });
   const watched = useWatch({ control });
-  const methodChoice = watched.methodChoice ?? TEST_METHODS[0];
+  const methodChoice = watched.methodChoice ?? ASSAY_METHODS[0];
   const pretreatment = watched.pretreatment ?? 'none';
   const trays = (watched.trays ?? []).map((t) => t?.seedsSown ?? '');
 
@@ -191,7 +191,7 @@ export function StartTestForm({
         }
         // The server names fields as the body does, and the form's fields carry the same names.
         for (const [key, message] of Object.entries(isApiError(error) ? (error.fields ?? {}) : {})) {
-          setError(key as Path<StartTestValues>, { type: 'server', message });
+          setError(key as Path<StartAssayValues>, { type: 'server', message });
         }
         setFormError(isApiError(error) ? error.message : 'Something went wrong. Try again.');
       }
@@ -219,7 +219,7 @@ export function StartTestForm({
         />
         <div className="grid gap-3">
           <SelectField label="Method" {...register('methodChoice')}>
-            {TEST_METHODS.map((m) => (
+            {ASSAY_METHODS.map((m) => (
               <option key={m} value={m}>
                 {m.charAt(0).toUpperCase() + m.slice(1)}
               </option>
@@ -279,7 +279,7 @@ export function StartTestForm({
         ) : null}
       </fieldset>
 
-      <TestCautions
+      <AssayCautions
         setup={{
           method: methodChoice === OTHER ? (watched.method ?? '') : methodChoice,
           medium: watched.medium ?? '',
