@@ -3,9 +3,6 @@
 import { addDays, frostDateIn } from './dates';
 import type { SpeciesTraits } from './schemas/species';
 
-// Day arithmetic lives in ./dates; this re-export serves callers not yet moved to it (to be removed).
-export { addDays, daysBetween } from './dates';
-
 /**
  * The season planned by default: the coming spring. From September on, today's calendar day in
  * the bank's time zone, that is next year's (Hilum's rule; spring sowing lies ahead by then).

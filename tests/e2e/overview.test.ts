@@ -1,6 +1,6 @@
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { addDays } from '#shared/plan-dates';
+import { addDays } from '#shared/dates';
 import { browserSuite, chromiumPath } from '../helpers/browser';
 
 // The circle, its people, lots and running test are the invented demo scenario of
