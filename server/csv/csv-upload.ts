@@ -1,6 +1,6 @@
 import type { Request } from 'express';
 import multer from 'multer';
-import { z } from 'zod';
+import { csvImportQuerySchema } from '#shared/schemas/common';
 import { badRequest, parse } from '../http/errors';
 
 /** One CSV file in the multipart field `file`, up to 5 MB, kept in memory. */
@@ -9,11 +9,9 @@ export const csvUpload = multer({
   limits: { fileSize: 5 * 1024 * 1024, files: 1 },
 });
 
-const importQuery = z.object({ dryRun: z.stringbool().default(false) });
-
 /** The uploaded file's text and whether the caller only wants to see what it would import. */
 export function csvFileText(req: Request): { dryRun: boolean; text: string } {
-  const { dryRun } = parse(importQuery, req.query, 'query');
+  const { dryRun } = parse(csvImportQuerySchema, req.query, 'query');
   if (!req.file) throw badRequest('Choose a CSV file to import.', { file: 'Choose a CSV file.' });
   return { dryRun, text: req.file.buffer.toString('utf8') };
 }

@@ -20,8 +20,9 @@ import {
   updateBankBodySchema,
   updateMemberBodySchema,
 } from '#shared/schemas/banks';
-import { isoDateSchema } from '#shared/schemas/common';
+import { csvImportQuerySchema, onQuerySchema } from '#shared/schemas/common';
 import {
+  assayDetailQuerySchema,
   countsBodySchema,
   createAssayBodySchema,
   finishBodySchema,
@@ -40,6 +41,7 @@ import {
   movementSchema,
   parentPlantSchema,
   photoSchema,
+  photoSizeQuerySchema,
   stockBodySchema,
   updateLotBodySchema,
   updatePlantBodySchema,
@@ -49,7 +51,7 @@ import {
   createPlanBodySchema,
   planEntrySchema,
   planListResponseSchema,
-  seasonSchema,
+  seasonQuerySchema,
   sownBodySchema,
   updatePlanBodySchema,
 } from '#shared/schemas/plan';
@@ -62,6 +64,7 @@ import {
 } from '#shared/schemas/species';
 import {
   rankingResponseSchema,
+  seedsToSowQuerySchema,
   seedsToSowResponseSchema,
   viabilityResponseSchema,
 } from '#shared/schemas/viability';
@@ -73,9 +76,9 @@ import {
  * app's Express router stack and fails when a mounted route is missing here. Adding a route: add
  * its entry beside its module's others, with the same schemas the router uses.
  *
- * A few envelopes (`{ lot }`, `{ items, nextCursor }`) and small query objects are declared inside
- * their routers; they are written again here from the same shared schemas until the routers import
- * them from shared/schemas.
+ * Queries come from shared/schemas, the same objects the routers parse. A few envelopes (`{ lot }`,
+ * `{ items, nextCursor }`) are declared inside their routers; they are written again here from the
+ * same shared schemas until the routers import them from shared/schemas.
  */
 
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -116,7 +119,7 @@ const created = (json: z.ZodType, description = 'Created.'): ApiResponse => ({
 const noContent = (description = 'Done; no body.'): ApiResponse => ({ status: 204, description });
 const file = (type: string, description: string): ApiResponse => ({ status: 200, description, file: type });
 
-// Envelopes and queries written inside the routers (see above).
+// Envelopes written inside the routers (see above).
 const userEnvelope = z.object({ user: userSchema });
 const lotEnvelope = z.object({ lot: lotSchema });
 const plantEnvelope = z.object({ plant: parentPlantSchema });
@@ -124,9 +127,6 @@ const photoEnvelope = z.object({ photo: photoSchema });
 const speciesEnvelope = z.object({ species: speciesSchema });
 const entryEnvelope = z.object({ entry: planEntrySchema });
 const preferencesEnvelope = z.object({ preferences: reminderPrefsSchema });
-const onQuery = z.object({ on: isoDateSchema.optional() });
-const seasonQuery = z.object({ season: seasonSchema.optional() });
-const importQuery = z.object({ dryRun: z.stringbool().default(false) });
 const csvUpload = { field: 'file', accept: 'text/csv' };
 
 // Bodies their routers send without a schema; documented here from the handler's code (the lots
@@ -239,7 +239,7 @@ export const apiRoutes: ApiRoute[] = [
     path: '/api/photos/:photoId',
     summary: 'A photo file (WebP), to members of its bank.',
     access: 'signed-in',
-    query: z.object({ size: z.enum(['full', 'thumb']).default('full') }),
+    query: photoSizeQuerySchema,
     responses: [file('image/webp', 'The photo.'), { status: 304, description: 'Not modified (ETag).' }],
   },
 
@@ -345,7 +345,7 @@ export const apiRoutes: ApiRoute[] = [
     path: `${BANK}/overview`,
     summary: 'What needs doing this week (from the bank’s today, or `on`).',
     access: 'viewer',
-    query: onQuery,
+    query: onQuerySchema,
     responses: [ok(overviewSchema)],
   },
 
@@ -403,7 +403,7 @@ export const apiRoutes: ApiRoute[] = [
     path: `${BANK}/lots/import`,
     summary: 'Import lots from CSV, all or nothing (`dryRun=true` only shows what it would add).',
     access: 'grower',
-    query: importQuery,
+    query: csvImportQuerySchema,
     upload: csvUpload,
     responses: [ok(lotsImportSchema)],
   },
@@ -464,9 +464,9 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'get',
     path: `${BANK}/lots/:lotId/viability`,
-    summary: 'The lot’s viability on a date (today in UTC unless `on`).',
+    summary: 'The lot’s viability on a date (the bank’s today unless `on`).',
     access: 'viewer',
-    query: onQuery,
+    query: onQuerySchema,
     responses: [ok(viabilityResponseSchema)],
   },
   {
@@ -474,11 +474,7 @@ export const apiRoutes: ApiRoute[] = [
     path: `${BANK}/lots/:lotId/seeds-to-sow`,
     summary: 'Seeds to sow for a number of plants at an assurance.',
     access: 'viewer',
-    query: z.object({
-      plants: z.coerce.number().int().min(1).max(100_000),
-      assurance: z.coerce.number().gt(0.5).max(0.999).optional(),
-      on: isoDateSchema.optional(),
-    }),
+    query: seedsToSowQuerySchema,
     responses: [ok(seedsToSowResponseSchema)],
   },
   {
@@ -486,7 +482,7 @@ export const apiRoutes: ApiRoute[] = [
     path: `${BANK}/ranking`,
     summary: 'Every lot ranked with its advice (rows rendered through the row schema).',
     access: 'viewer',
-    query: onQuery,
+    query: onQuerySchema,
     responses: [ok(rankingResponseSchema)],
   },
 
@@ -511,7 +507,7 @@ export const apiRoutes: ApiRoute[] = [
     path: `${BANK}/tests/:testId`,
     summary: 'A germination test with its result.',
     access: 'viewer',
-    query: z.object({ interval: z.enum(['wilson', 'clopper-pearson']).default('wilson') }),
+    query: assayDetailQuerySchema,
     responses: [ok(assayDetailSchema)],
   },
   {
@@ -581,7 +577,7 @@ export const apiRoutes: ApiRoute[] = [
     summary:
       'Import past germination tests from CSV, all or nothing (`dryRun=true` only shows what it would add).',
     access: 'grower',
-    query: importQuery,
+    query: csvImportQuerySchema,
     upload: csvUpload,
     responses: [ok(z.union([assaysImportPreviewSchema, z.object({ imported: z.number() })]))],
   },
@@ -666,7 +662,7 @@ export const apiRoutes: ApiRoute[] = [
     path: `${BANK}/plan`,
     summary: 'The season’s plan (the coming season unless `season`).',
     access: 'viewer',
-    query: seasonQuery,
+    query: seasonQuerySchema,
     responses: [ok(planListResponseSchema)],
   },
   {
@@ -719,7 +715,7 @@ export const apiRoutes: ApiRoute[] = [
     path: `${BANK}/plan.ics`,
     summary: 'The season’s plan and retests as an iCalendar file.',
     access: 'viewer',
-    query: seasonQuery,
+    query: seasonQuerySchema,
     responses: [file('text/calendar', 'The calendar.')],
   },
 ];

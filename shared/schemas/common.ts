@@ -5,6 +5,12 @@ export const idSchema = z.uuid({ message: 'Not a valid id.' });
 /** An ISO calendar date, YYYY-MM-DD, that exists. */
 export const isoDateSchema = z.iso.date({ message: 'Use a date like 2026-05-24.' });
 
+/** `?on=YYYY-MM-DD`: the day an answer is for; without it, today on the bank's calendar. */
+export const onQuerySchema = z.object({ on: isoDateSchema.optional() });
+
+/** `?dryRun=true` on a CSV import: check the file and preview it, write nothing. */
+export const csvImportQuerySchema = z.object({ dryRun: z.stringbool().default(false) });
+
 const DAYS_IN_MONTH = [31, 29, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 
 /** A month and day, MM-DD (frost dates recur each year, so no year). */

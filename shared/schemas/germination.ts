@@ -5,6 +5,11 @@ import { idSchema, isoDateSchema } from './common';
 export const ASSAY_METHODS = ['tray of mix', 'paper towel', 'petri dish', 'soil block', 'rag doll'] as const;
 export const pretreatmentSchema = z.enum(['none', 'soak', 'cold-stratification', 'scarification']);
 
+/** Which 95% interval a result carries: Wilson score (the default) or exact Clopper–Pearson. */
+export const intervalMethodSchema = z.enum(['wilson', 'clopper-pearson']);
+/** `?interval=…` on a germination test's detail. */
+export const assayDetailQuerySchema = z.object({ interval: intervalMethodSchema.default('wilson') });
+
 export const createAssayBodySchema = z
   .object({
     startDate: isoDateSchema,

@@ -71,6 +71,9 @@ export const updateLotBodySchema = z
   .refine((b) => Object.keys(b).length > 0, { message: 'Nothing to change.' });
 export type UpdateLotBody = z.infer<typeof updateLotBodySchema>;
 
+/** `?size=full|thumb` on a photo file. */
+export const photoSizeQuerySchema = z.object({ size: z.enum(['full', 'thumb']).default('full') });
+
 export const photoSchema = z.object({
   id: idSchema,
   url: z.string(),

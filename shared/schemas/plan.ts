@@ -2,6 +2,8 @@ import { z } from 'zod';
 import { idSchema, isoDateSchema } from './common';
 
 export const seasonSchema = z.coerce.number().int().min(1900).max(2100);
+/** `?season=YYYY`: the season asked for; without it, the coming one. */
+export const seasonQuerySchema = z.object({ season: seasonSchema.optional() });
 export const startSchema = z.enum(['indoors', 'direct'], { message: 'Choose indoors or direct.' });
 
 export const createPlanBodySchema = z.object({

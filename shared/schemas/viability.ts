@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { idSchema } from './common';
+import { idSchema, isoDateSchema } from './common';
 import { originSchema } from './lots';
 
 const n = z.number();
@@ -62,6 +62,17 @@ export const viabilityResponseSchema = z.object({
   curve: z.array(z.object({ ageYears: n, percent: n, low: n, high: n })),
 });
 export type ViabilityResponse = z.infer<typeof viabilityResponseSchema>;
+
+/** `?plants=&assurance=&on=` of seeds to sow; without `assurance`, the bank's own; without `on`, today. */
+export const seedsToSowQuerySchema = z.object({
+  plants: z.coerce.number().int().min(1, { message: 'At least one plant.' }).max(100_000),
+  assurance: z.coerce
+    .number()
+    .gt(0.5, { message: 'Between 0.5 and 0.999.' })
+    .max(0.999, { message: 'Between 0.5 and 0.999.' })
+    .optional(),
+  on: isoDateSchema.optional(),
+});
 
 export const seedsToSowResponseSchema = z.object({
   seeds: n,

@@ -1,5 +1,6 @@
 import type { QueryClient, QueryFilters, QueryKey } from '@tanstack/react-query';
 import type { z } from 'zod';
+import type { intervalMethodSchema } from '#shared/schemas/germination';
 import type { lotStatusSchema } from '#shared/schemas/lots';
 
 /*
@@ -23,7 +24,7 @@ export interface LotFilters {
 }
 
 /** Which 95% interval the server computes for a test: Wilson score (its default) or exact Clopper–Pearson. */
-export type IntervalMethod = 'wilson' | 'clopper-pearson';
+export type IntervalMethod = z.infer<typeof intervalMethodSchema>;
 
 /** What a photo belongs to: a lot's packet, a parent plant, or a tray of a germination test. */
 export type PhotoSubject = 'lot' | 'plant' | 'tray';

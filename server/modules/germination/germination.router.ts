@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import {
+  assayDetailQuerySchema,
   countsBodySchema,
   createAssayBodySchema,
   finishBodySchema,
@@ -16,8 +17,6 @@ import { idParam } from '#server/http/params';
 import { respond } from '#server/http/respond';
 import type { GerminationService } from './germination.service';
 import { authOf, bankOf } from '#server/http/request-context';
-
-const detailQuery = z.object({ interval: z.enum(['wilson', 'clopper-pearson']).default('wilson') });
 
 /** /api/banks/:bankId/lots/:lotId/tests */
 export function lotAssayRoutes(assays: GerminationService): Router {
@@ -46,7 +45,7 @@ export function assayRoutes(assays: GerminationService): Router {
   const router = Router({ mergeParams: true });
   const assayId = (req: { params: Record<string, unknown> }) => idParam(req.params.testId, 'test');
   router.get('/:testId', requireRole('viewer'), async (req, res) => {
-    const { interval } = parse(detailQuery, req.query, 'query');
+    const { interval } = parse(assayDetailQuerySchema, req.query, 'query');
     respond(res, 200, assayDetailSchema, await assays.detail(bankOf(req).id, assayId(req), interval));
   });
   router.patch('/:testId', requireRole('grower'), async (req, res) => {

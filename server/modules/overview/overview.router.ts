@@ -1,6 +1,5 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import { isoDateSchema } from '#shared/schemas/common';
+import { onQuerySchema } from '#shared/schemas/common';
 import { overviewSchema } from '#shared/schemas/overview';
 import { requireRole } from '#server/auth/bank-access';
 import { bankToday, type Clock } from '#server/clock';
@@ -18,8 +17,7 @@ export function overviewRoutes(deps: { db: Db; clock: Clock; viability: Viabilit
   router.get('/', requireRole('viewer'), async (req, res) => {
     const bankId = bankOf(req).id;
     const today =
-      parse(z.object({ on: isoDateSchema.optional() }), req.query, 'query').on ??
-      (await bankToday(deps.db, deps.clock, bankId));
+      parse(onQuerySchema, req.query, 'query').on ?? (await bankToday(deps.db, deps.clock, bankId));
     respond(res, 200, overviewSchema, await overview.week(bankId, today));
   });
   return router;

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { photoSchema } from '#shared/schemas/lots';
+import { photoSchema, photoSizeQuerySchema } from '#shared/schemas/lots';
 import { requireRole } from '#server/auth/bank-access';
 import { requireAuth } from '#server/auth/session.middleware';
 import { parse } from '#server/http/errors';
@@ -51,9 +51,8 @@ export function bankPhotoRoutes(photos: PhotosService): Router {
 /** GET /api/photos/:photoId?size=full|thumb — to members of the photo's bank only. */
 export function photoFileRoutes(photos: PhotosService): Router {
   const router = Router();
-  const query = z.object({ size: z.enum(['full', 'thumb']).default('full') });
   router.get('/:photoId', requireAuth, async (req, res) => {
-    const { size } = parse(query, req.query, 'query');
+    const { size } = parse(photoSizeQuerySchema, req.query, 'query');
     const photoId = idParam(req.params.photoId, 'photo');
     const file = await photos.open(photoId, authOf(req).userId, size);
     res.setHeader('Content-Type', 'image/webp');

@@ -5,7 +5,7 @@ import {
   createPlanBodySchema,
   planEntrySchema,
   planListResponseSchema,
-  seasonSchema,
+  seasonQuerySchema,
   sownBodySchema,
   updatePlanBodySchema,
 } from '#shared/schemas/plan';
@@ -22,14 +22,13 @@ import { authOf, bankOf } from '#server/http/request-context';
 const one = z.object({ entry: planEntrySchema });
 
 export function planRoutes(plan: PlanService, deps: { db: Db; clock: Clock; viability: ViabilityService }) {
-  const seasonQuery = z.object({ season: seasonSchema.optional() });
   const thisSeason = async (bankId: string) => comingSeason(await bankToday(deps.db, deps.clock, bankId));
   const entryId = (req: { params: Record<string, unknown> }) => idParam(req.params.entryId, 'plan entry');
 
   /** /api/banks/:bankId/plan */
   const router = Router({ mergeParams: true });
   router.get('/', requireRole('viewer'), async (req, res) => {
-    const season = parse(seasonQuery, req.query, 'query').season ?? (await thisSeason(bankOf(req).id));
+    const season = parse(seasonQuerySchema, req.query, 'query').season ?? (await thisSeason(bankOf(req).id));
     respond(res, 200, planListResponseSchema, {
       season,
       items: await plan.list(bankOf(req).id, season),
@@ -64,7 +63,7 @@ export function planRoutes(plan: PlanService, deps: { db: Db; clock: Clock; viab
   /** /api/banks/:bankId/plan.ics */
   const ics = Router({ mergeParams: true });
   ics.get('/', requireRole('viewer'), async (req, res) => {
-    const season = parse(seasonQuery, req.query, 'query').season ?? (await thisSeason(bankOf(req).id));
+    const season = parse(seasonQuerySchema, req.query, 'query').season ?? (await thisSeason(bankOf(req).id));
     const calendar = await plan.calendar(bankOf(req).id, season);
     res.setHeader('Content-Type', 'text/calendar; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="hilum-plan-${season}.ics"`);

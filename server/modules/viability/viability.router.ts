@@ -1,8 +1,8 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import { isoDateSchema } from '#shared/schemas/common';
+import { onQuerySchema } from '#shared/schemas/common';
 import {
   rankingItemSchema,
+  seedsToSowQuerySchema,
   seedsToSowResponseSchema,
   viabilityResponseSchema,
 } from '#shared/schemas/viability';
@@ -15,21 +15,10 @@ import { bankOf } from '#server/http/request-context';
 
 export function viabilityRoutes(service: ViabilityService) {
   // Without `on`, advice is for today on the bank's calendar (its time zone), as everywhere.
-  const onQuery = z.object({ on: isoDateSchema.optional() });
-  const sowQuery = z.object({
-    plants: z.coerce.number().int().min(1, { message: 'At least one plant.' }).max(100_000),
-    assurance: z.coerce
-      .number()
-      .gt(0.5, { message: 'Between 0.5 and 0.999.' })
-      .max(0.999, { message: 'Between 0.5 and 0.999.' })
-      .optional(),
-    on: isoDateSchema.optional(),
-  });
-
   /** Mounted at /lots/:lotId */
   const lot = Router({ mergeParams: true });
   lot.get('/viability', requireRole('viewer'), async (req, res) => {
-    const { on } = parse(onQuery, req.query, 'query');
+    const { on } = parse(onQuerySchema, req.query, 'query');
     respond(
       res,
       200,
@@ -42,7 +31,7 @@ export function viabilityRoutes(service: ViabilityService) {
     );
   });
   lot.get('/seeds-to-sow', requireRole('viewer'), async (req, res) => {
-    const q = parse(sowQuery, req.query, 'query');
+    const q = parse(seedsToSowQuerySchema, req.query, 'query');
     respond(
       res,
       200,
@@ -61,7 +50,7 @@ export function viabilityRoutes(service: ViabilityService) {
   const renderRankingRow = rowRenderer(rankingItemSchema);
   const ranking = Router({ mergeParams: true });
   ranking.get('/', requireRole('viewer'), async (req, res) => {
-    const { on } = parse(onQuery, req.query, 'query');
+    const { on } = parse(onQuerySchema, req.query, 'query');
     const date = on ?? (await service.today(bankOf(req).id));
     respondRendered(res, 200, await service.rankingJson(bankOf(req).id, date, renderRankingRow));
   });
