@@ -59,6 +59,10 @@ function runScript(script, args, env = {}) {
   });
 }
 
+/** `--only=lots` (or ranking, bundle) runs one benchmark, for quick comparisons while working. */
+const only = process.argv.find((a) => a.startsWith('--only='))?.slice('--only='.length);
+const runs = (name) => !only || only === name;
+
 let pg;
 try {
   ensureDependencies();
@@ -81,15 +85,22 @@ try {
     // The lot-list benchmark reports PostgreSQL's CPU per request from its processes.
     HILUM_BENCH_PG_PIDFILE: path.join(tmp, 'pg', 'postmaster.pid'),
   };
-  log('running the ranking benchmark (5,000 lots, 25,000 tests, 150,000 counts)…');
-  const ranking = runScript('scripts/bench-ranking.ts', [], env);
-  log('running the lot-list benchmark (the demo bank, concurrency 20)…');
-  const lots = ranking.status === 0 ? runScript('scripts/bench-lots.ts', [], env) : ranking;
+  let ranking = { status: 0 };
+  if (runs('ranking')) {
+    log('running the ranking benchmark (5,000 lots, 25,000 tests, 150,000 counts)…');
+    ranking = runScript('scripts/bench-ranking.ts', [], env);
+  }
+  let lots = ranking;
+  if (ranking.status === 0 && runs('lots')) {
+    log('running the lot-list benchmark (the demo bank, concurrency 20)…');
+    lots = runScript('scripts/bench-lots.ts', [], env);
+  }
   pg.stop();
   pg = null;
   fs.rmSync(tmp, { recursive: true, force: true });
   if (lots.status !== 0) process.exit(lots.status ?? 1);
 
+  if (!runs('bundle')) process.exit(0);
   log('building the client to measure its initial JavaScript…');
   const out = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-bundle-'));
   const build = spawnSync(

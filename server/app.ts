@@ -6,7 +6,9 @@ import helmet from 'helmet';
 import pino, { type Logger } from 'pino';
 import type { Clock } from './clock';
 import type { Config } from './config';
+import type { ChangeFeed } from './db/change-feed';
 import type { Db } from './db/database';
+import { createReadCache, forgetOnWrites } from './db/read-cache';
 import { errorHandler, notFoundApi } from './http/errors';
 import { originCheck, originVariants } from './http/origin-check';
 import { requestLogging } from './http/request-log';
@@ -53,6 +55,11 @@ export interface AppDeps {
   mailer: Mailer;
   clock: Clock;
   logger?: Logger;
+  /**
+   * PostgreSQL's change notices: with them, sessions, memberships and lot lists are kept between
+   * requests (server/db/read-cache.ts); without, everything is read on every request.
+   */
+  changeFeed?: ChangeFeed;
   /** argon2id at full strength unless given; API tests pass a cheap one. */
   hasher?: PasswordHasher;
 }
@@ -80,6 +87,8 @@ export function createApp(deps: AppDeps): Express {
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
   app.use(originCheck(originVariants(config.appOrigin)));
+  const cache = createReadCache(deps.changeFeed);
+  app.use(forgetOnWrites(cache));
 
   const signer = createSessionSigner(config.sessionSecret, deps.clock);
   const photos = createPhotosService({ db: deps.db, storage: deps.storage, logger });
@@ -109,7 +118,7 @@ export function createApp(deps: AppDeps): Express {
   const api = express.Router();
   api.use('/health', healthRouter(deps));
   api.use(openApiRoutes({ production: config.env === 'production' }));
-  api.use(sessionMiddleware(deps.db, signer, deps.clock));
+  api.use(sessionMiddleware(deps.db, signer, deps.clock, cache));
   api.use('/auth', authRouter(services.auth, { secureCookies }));
   api.use('/me', meRouter(services.auth));
   api.use('/invitations', invitationsRouter(services.invitations));
@@ -139,7 +148,7 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/tests', assayRoutes(services.germination));
   bank.use('/tests.csv', assaysCsvExport(services.assaysCsv));
   bank.use('/lots.csv', lotsCsvExport(services.lots));
-  bank.use('/lots', lotRoutes(services.lots, services.species.list));
+  bank.use('/lots', lotRoutes(services.lots, services.species.list, cache));
   bank.use('/photos', bankPhotoRoutes(services.photos));
   bank.use('/', bankRoutes(services.banks, services.invitations));
   api.use('/banks/:bankId', bankAccess(deps.db), bank);

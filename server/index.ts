@@ -4,6 +4,7 @@ import pino from 'pino';
 import { createApp } from './app';
 import { systemClock } from './clock';
 import { ConfigError, loadConfig } from './config';
+import { startChangeFeed } from './db/change-feed';
 import { createDb } from './db/database';
 import { createReminders } from './modules/reminders/reminders.service';
 import { createMailer } from './mail/mailer';
@@ -25,7 +26,8 @@ const logger = pino({ level: config.logLevel });
 const db = createDb(config.databaseUrl, config.databasePoolSize);
 const storage = createObjectStore(config.storage);
 const mailer = createMailer(config.mail);
-const app = createApp({ config, db, storage, mailer, clock: systemClock, logger });
+const changeFeed = startChangeFeed(config.databaseUrl, logger);
+const app = createApp({ config, db, storage, mailer, clock: systemClock, logger, changeFeed });
 
 const reminders = createReminders({
   db,
@@ -72,6 +74,7 @@ async function shutdown(signal: string) {
   if (scan) clearInterval(scan);
   server.close(async () => {
     await reminders.stop().catch(() => undefined);
+    await changeFeed.close();
     await db.destroy();
     storage.close();
     mailer.close();

@@ -5,6 +5,7 @@ import type { Server } from 'node:http';
 import { createApp } from '#server/app';
 import { systemClock } from '#server/clock';
 import type { Config } from '#server/config';
+import { startChangeFeed } from '#server/db/change-feed';
 import type { Db } from '#server/db/database';
 import { createMailer } from '#server/mail/mailer';
 import { createObjectStore } from '#server/storage/object-store';
@@ -19,7 +20,12 @@ export async function listenLocal(server: Server): Promise<string> {
 export async function serveApp(config: Config, db: Db) {
   const storage = createObjectStore(config.storage);
   const mailer = createMailer(config.mail);
-  const server = createApp({ config, db, storage, mailer, clock: systemClock }).listen(0, '127.0.0.1');
+  const changeFeed = startChangeFeed(config.databaseUrl);
+  await changeFeed.ready();
+  const server = createApp({ config, db, storage, mailer, clock: systemClock, changeFeed }).listen(
+    0,
+    '127.0.0.1',
+  );
   const base = await listenLocal(server);
   return {
     base,
@@ -28,6 +34,7 @@ export async function serveApp(config: Config, db: Db) {
       await new Promise((resolve) => server.close(resolve));
       storage.close();
       mailer.close();
+      await changeFeed.close();
     },
   };
 }

@@ -12,8 +12,8 @@ export function respond<S extends z.ZodType>(
 }
 
 /**
- * A list's rows through its row schema, one row at a time, for services that keep rendered rows
- * between requests (see the ranking): the schema stays the allowlist of every byte sent.
+ * A body (or a list's rows, one at a time) rendered through its schema, for answers kept between
+ * requests (the ranking's rows, a page of lots): the schema stays the allowlist of every byte sent.
  */
 export const rowRenderer =
   <S extends z.ZodType>(schema: S) =>

@@ -7,6 +7,7 @@ import { createApp } from '#server/app';
 import { verifyPassword, type PasswordHasher } from '#server/auth/password';
 import { createTestClock } from '#server/clock';
 import { loadConfig, type Config } from '#server/config';
+import { startChangeFeed, type ChangeFeed } from '#server/db/change-feed';
 import { createDb, type Db } from '#server/db/database';
 import { migrateToLatest } from '#server/db/migrate';
 import { syncReferenceSpecies } from '#server/modules/species/reference-sync';
@@ -82,6 +83,8 @@ export interface TestContext {
   mailer: Mailer;
   clock: ReturnType<typeof createTestClock>;
   hasher: PasswordHasher;
+  /** The app's change feed: `await changeFeed.sync()` after writing in SQL, before reading over HTTP. */
+  changeFeed: ChangeFeed;
   close(): Promise<void>;
 }
 
@@ -95,7 +98,9 @@ export async function createTestContext(
   const mailer = createMailer(config.mail);
   const clock = createTestClock(options.now ?? '2026-03-01T09:00:00Z');
   const hasher = cheapTestHasher;
-  const app = createApp({ config, db: database.db, storage, mailer, clock, hasher });
+  const changeFeed = startChangeFeed(config.databaseUrl);
+  await changeFeed.ready();
+  const app = createApp({ config, db: database.db, storage, mailer, clock, hasher, changeFeed });
   return {
     app,
     db: database.db,
@@ -104,7 +109,9 @@ export async function createTestContext(
     mailer,
     clock,
     hasher,
+    changeFeed,
     async close() {
+      await changeFeed.close();
       storage.close();
       mailer.close();
       await database.drop();

@@ -14,7 +14,8 @@ import { csvFileText, csvUpload } from '#server/csv/csv-upload';
 import { invalidCsv, parse } from '#server/http/errors';
 import { lotsToCsv, parseLotsCsv } from './lots.csv';
 import { idParam } from '#server/http/params';
-import { respond } from '#server/http/respond';
+import { respond, respondRendered, rowRenderer } from '#server/http/respond';
+import type { ReadCache } from '#server/db/read-cache';
 import type { LotsService } from './lots.service';
 import { authOf, bankOf } from '#server/http/request-context';
 
@@ -51,13 +52,25 @@ export function lotsCsvExport(lots: LotsService): Router {
   return router;
 }
 
-export function lotRoutes(lots: LotsService, species_: (bankId: string) => Promise<SpeciesDto[]>): Router {
+/** A page of lots as it is sent, rendered once through its schema (the allowlist). */
+const renderList = rowRenderer(list);
+
+export function lotRoutes(
+  lots: LotsService,
+  species_: (bankId: string) => Promise<SpeciesDto[]>,
+  cache: ReadCache,
+): Router {
   const router = Router({ mergeParams: true });
   const lotId = (req: { params: Record<string, unknown> }) => idParam(req.params.lotId, 'lot');
 
   router.get('/', requireRole('viewer'), async (req, res) => {
     const query = parse(lotsListQuerySchema, req.query, 'query');
-    respond(res, 200, list, await lots.list(bankOf(req).id, query));
+    const bankId = bankOf(req).id;
+    const page = async () => renderList(await lots.list(bankId, query));
+    // Pages are kept until anything of the bank changes; searches (`q`) are too varied to keep.
+    const { limit, cursor, speciesId, status } = query;
+    const key = `lots ${JSON.stringify([limit, cursor, speciesId, status])}`;
+    respondRendered(res, 200, query.q ? await page() : await cache.remember({ bankId }, key, page));
   });
   router.post('/import', requireRole('grower'), csvUpload.single('file'), async (req, res) => {
     const { dryRun, text } = csvFileText(req);
