@@ -115,7 +115,9 @@ describe('viability, ranking and seeds to sow', () => {
     const count = async () => {
       queries.length = 0;
       await bank.viewer.agent.get(`${base()}/ranking?on=2027-03-01`);
-      return queries.length;
+      // The ranking's own queries: the caller's session is kept between requests, but read again
+      // after any write (server/db/read-cache.ts), which is not the ranking's doing.
+      return queries.filter((q) => !/from "sessions"/.test(q)).length;
     };
     await count();
     // Fits current: no test is read at all.
