@@ -2,6 +2,7 @@
 // PostgreSQL cluster, and the object-store and SMTP fakes as child processes.
 // Plain Node with no dependencies of its own, so it runs before `npm ci` has.
 import { spawn, spawnSync } from 'node:child_process';
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
@@ -33,16 +34,31 @@ function run(cmd, args, options = {}) {
   return result.status ?? 1;
 }
 
-/** Runs `npm ci` when node_modules is missing or older than package-lock.json. */
+/**
+ * Runs `npm ci` when node_modules is missing or was installed from another package-lock.json. The
+ * lock file's content is compared, not its time: a checkout, rebase or copy that rewrites an
+ * unchanged lock file must not empty node_modules under a suite that is running from it.
+ */
 export function ensureDependencies() {
   const lock = path.join(root, 'package-lock.json');
   const marker = path.join(root, 'node_modules', '.package-lock.json');
-  const stale = !fs.existsSync(marker) || fs.statSync(marker).mtimeMs < fs.statSync(lock).mtimeMs;
-  if (!stale) return;
+  const stamp = path.join(root, 'node_modules', '.hilum-installed-lock');
+  const lockHash = crypto.createHash('sha256').update(fs.readFileSync(lock)).digest('hex');
+  if (fs.existsSync(stamp) && fs.readFileSync(stamp, 'utf8').trim() === lockHash) return;
+  if (
+    !fs.existsSync(stamp) &&
+    fs.existsSync(marker) &&
+    fs.statSync(marker).mtimeMs >= fs.statSync(lock).mtimeMs
+  ) {
+    // Installed before stamps were written, and not older than the lock file: take it as current.
+    fs.writeFileSync(stamp, `${lockHash}\n`);
+    return;
+  }
   log('installing dependencies (npm ci)…');
   if (run('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root }) !== 0) {
     throw new SetupError('npm ci failed; see the messages above');
   }
+  fs.writeFileSync(stamp, `${lockHash}\n`);
 }
 
 export function findPostgresBin() {

@@ -1,4 +1,4 @@
-import { hashPassword } from '../auth/password';
+import { argon2idHasher, type PasswordHasher } from '../auth/password';
 import type { Db } from '../db/database';
 import type { Role } from '../db/schema';
 
@@ -18,10 +18,13 @@ export async function isDemoSeeded(db: Db): Promise<boolean> {
   return Boolean(row);
 }
 
-/** Seeds the demo bank and its members in one transaction; a second call does nothing. */
-export async function addDemoPeople(db: Db): Promise<boolean> {
+/**
+ * Seeds the demo bank and its members in one transaction; a second call does nothing. Their
+ * password is hashed at full strength unless a hasher is given (browser tests pass the cheap one).
+ */
+export async function addDemoPeople(db: Db, hasher: PasswordHasher = argon2idHasher): Promise<boolean> {
   if (await isDemoSeeded(db)) return false;
-  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  const passwordHash = await hasher.hash(DEMO_PASSWORD);
   await db.transaction().execute(async (trx) => {
     const bank = await trx
       .insertInto('banks')

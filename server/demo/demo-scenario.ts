@@ -17,6 +17,7 @@ import { processPhoto } from '../photos/process-photo';
 import { storeProcessedPhoto } from '../photos/store-photo';
 import type { ObjectStore } from '../storage/object-store';
 import { normalCdf } from '../stats/distributions';
+import type { PasswordHasher } from '../auth/password';
 import type { Db } from '../db/database';
 import { DEMO_BANK_NAME, addDemoPeople } from './demo-people';
 
@@ -106,6 +107,8 @@ export interface DemoDeps {
   mailer?: Mailer;
   clock: Clock;
   appOrigin: string;
+  /** For the demo people's password (addDemoPeople); full-strength argon2id unless given. */
+  hasher?: PasswordHasher;
 }
 
 /**
@@ -117,7 +120,7 @@ export interface DemoDeps {
  */
 export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string } | null> {
   const { db } = deps;
-  await addDemoPeople(db);
+  await addDemoPeople(db, deps.hasher);
   const bank = await db
     .selectFrom('banks')
     .select('id')

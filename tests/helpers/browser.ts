@@ -102,11 +102,12 @@ export function browserSuite(
         mailer: server.mailer,
         clock: server.clock,
         appOrigin: server.baseUrl,
+        hasher: server.hasher,
       });
       if (!seeded) throw new Error('the demo season was not seeded: its database already held lots');
       bankId = seeded.bankId;
     } else if (options.demo === 'people') {
-      await addDemoPeople(server.db);
+      await addDemoPeople(server.db, server.hasher);
       bankId = (
         await server.db
           .selectFrom('banks')
