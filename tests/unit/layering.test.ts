@@ -52,3 +52,50 @@ describe('server modules reach the database only through their repositories', ()
     ).toEqual([]);
   });
 });
+
+// Across modules, a module reaches another only through its service (`*.service.ts`) or the
+// functions it names as shared (`*.shared.repository.ts`), never its plain repository, router or
+// helpers: what a module keeps to itself can change without breaking another.
+const MODULE_IMPORT = /from\s+['"](?:\.\.\/|#server\/modules\/)([a-z-]+)\/([\w.-]+)['"]/g;
+const SHARED_SURFACE = /\.(service|shared\.repository)$/;
+
+/** The imports of another module's files that are not its service or shared repository. */
+function crossModuleImports(module: string, source: string): string[] {
+  return [...withoutComments(source).matchAll(MODULE_IMPORT)]
+    .filter(([, other, file]) => other !== module && !SHARED_SURFACE.test(file!))
+    .map(([, other, file]) => `${other}/${file}`);
+}
+
+describe('server modules reach each other only through their services and shared repositories', () => {
+  it('when every module file is scanned, then no import reaches into another module', () => {
+    const modules = fs.readdirSync(MODULES);
+    const offenders = modules.flatMap((module) =>
+      allFiles(path.join(MODULES, module)).flatMap((file) =>
+        crossModuleImports(module, fs.readFileSync(file, 'utf8')).map(
+          (hit) => `${path.relative(MODULES, file)} → ${hit}`,
+        ),
+      ),
+    );
+    expect(offenders).toEqual([]);
+  });
+
+  it('when the check reads an import, then it tells a shared surface from a module inside', () => {
+    expect(crossModuleImports('plan', "import { x } from '../lots/lots.repository';")).toEqual([
+      'lots/lots.repository',
+    ]);
+    expect(crossModuleImports('plan', "import { x } from '#server/modules/lots/lot-code';")).toEqual([
+      'lots/lot-code',
+    ]);
+    expect(crossModuleImports('plan', "import { x } from '../lots/lots.shared.repository';")).toEqual([]);
+    expect(crossModuleImports('plan', "import type { S } from '../species/species.service';")).toEqual([]);
+    expect(crossModuleImports('plan', "import { y } from '../plan/plan.repository';")).toEqual([]);
+  });
+});
+
+function allFiles(dir: string): string[] {
+  return fs.readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
+    const full = path.join(dir, entry.name);
+    if (entry.isDirectory()) return allFiles(full);
+    return entry.name.endsWith('.ts') ? [full] : [];
+  });
+}

@@ -5,7 +5,7 @@ import type { Clock } from '#server/clock';
 import type { Db } from '#server/db/database';
 import { AppError, conflict, notFound } from '#server/http/errors';
 import type { Mailer } from '#server/mail/mailer';
-import { bankName as findBankName, insertMembership } from '../banks/banks.repository';
+import { bankName as findBankName, insertMembership } from '../banks/banks.shared.repository';
 import * as repo from './invitations.repository';
 
 export const INVITATION_DAYS = 7;

@@ -1,6 +1,6 @@
 import type { Db } from '#server/db/database';
 import { notFound } from '#server/http/errors';
-import { lotsQuery, toLotDto } from '../lots/lots.repository';
+import { lotsQuery, toLotDto } from '../lots/lots.shared.repository';
 import { labelFontCss } from './label-font';
 import { renderLabelSvg, type LabelContent } from './label-svg';
 import { lastCountedAssay } from './labels.repository';

@@ -4,7 +4,7 @@ import type { Db, DbOrTx } from '#server/db/database';
 import type { LotStatus, LotTable } from '#server/db/schema';
 import type { LotCsvRow, ParsedLotCsvRow } from './lots.csv';
 import { AppError, badRequest, conflict, invalidCsv, notFound, unprocessable } from '#server/http/errors';
-import { requireSpecies } from '../species/species.service';
+import { requireSpecies } from '../species/species.shared.repository';
 import { codePrefix, nextCode } from './lot-code';
 import * as repo from './lots.repository';
 import type { Updateable } from 'kysely';

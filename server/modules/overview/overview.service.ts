@@ -1,8 +1,8 @@
 import { addDays, daysBetween } from '#shared/dates';
 import type { Db } from '#server/db/database';
-import { listForOverview } from '../plan/plan.repository';
+import { listForOverview } from '../plan/plan.shared.repository';
 import { checkDays } from '../reminders/reminders.service';
-import { listSpecies } from '../species/species.service';
+import { listSpecies } from '../species/species.shared.repository';
 import type { ViabilityService } from '../viability/viability.service';
 import { runningAssaysWithTrays } from './overview.repository';
 

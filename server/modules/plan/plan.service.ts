@@ -4,9 +4,9 @@ import type { CreatePlanBody, PlanEntryDto, updatePlanBodySchema } from '#shared
 import { bankToday, type Clock } from '#server/clock';
 import type { Db } from '#server/db/database';
 import { AppError, badRequest, conflict, notFound, unprocessable } from '#server/http/errors';
-import { bankName } from '../banks/banks.repository';
-import { insertMovement, lockLot, stockOf, updateLot } from '../lots/lots.repository';
-import { findSpecies } from '../species/species.service';
+import { bankName } from '../banks/banks.shared.repository';
+import { insertMovement, lockLot, stockOf, updateLot } from '../lots/lots.shared.repository';
+import { findSpecies } from '../species/species.shared.repository';
 import type { ViabilityService } from '../viability/viability.service';
 import { planCalendar } from './plan-calendar';
 import * as repo from './plan.repository';

@@ -4,7 +4,7 @@ import type { Clock } from '#server/clock';
 import type { Db, DbOrTx } from '#server/db/database';
 import type { ParentPlantTable } from '#server/db/schema';
 import { notFound } from '#server/http/errors';
-import { listSpecies, requireSpecies } from '../species/species.service';
+import { listSpecies, requireSpecies } from '../species/species.shared.repository';
 import { plantCautions } from './plant-cautions';
 import * as repo from './plants.repository';
 import type { Updateable } from 'kysely';

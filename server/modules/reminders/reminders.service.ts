@@ -7,7 +7,7 @@ import type { Db, DbOrTx } from '#server/db/database';
 import { createReminderQueue, type ReminderQueueOptions } from '#server/jobs/reminders';
 import type { ReminderKind, Role } from '#server/db/schema';
 import type { Mailer } from '#server/mail/mailer';
-import { listSpecies } from '../species/species.service';
+import { listSpecies } from '../species/species.shared.repository';
 import type { ViabilityService } from '../viability/viability.service';
 import * as repo from './reminders.repository';
 

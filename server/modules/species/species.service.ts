@@ -1,57 +1,8 @@
-import {
-  EMPTY_TRAITS,
-  speciesTraitsSchema,
-  type CreateSpeciesBody,
-  type SpeciesDto,
-  type SpeciesTraits,
-} from '#shared/schemas/species';
-import type { Db, DbOrTx } from '#server/db/database';
-import { badRequest, conflict, notFound } from '#server/http/errors';
+import { EMPTY_TRAITS, type CreateSpeciesBody, type SpeciesTraits } from '#shared/schemas/species';
+import type { Db } from '#server/db/database';
+import { conflict, notFound } from '#server/http/errors';
 import * as repo from './species.repository';
-
-interface SpeciesRowWithOverride {
-  id: string;
-  bank_id: string | null;
-  common_name: string;
-  scientific_name: string;
-  family: string | null;
-  traits: unknown;
-  sources: unknown;
-  override: unknown;
-}
-
-function toDto(row: SpeciesRowWithOverride): SpeciesDto {
-  const base = speciesTraitsSchema.parse({ ...EMPTY_TRAITS, ...(row.traits as object) });
-  const override = (row.override ?? {}) as Partial<SpeciesTraits>;
-  return {
-    id: row.id,
-    commonName: row.common_name,
-    scientificName: row.scientific_name,
-    family: row.family,
-    reference: row.bank_id === null,
-    traits: { ...base, ...override },
-    sources: (row.sources ?? {}) as SpeciesDto['sources'],
-    overridden: Object.keys(override),
-  };
-}
-
-export async function findSpecies(db: DbOrTx, bankId: string, speciesId: string): Promise<SpeciesDto | null> {
-  const row = await repo.findVisibleSpecies(db, bankId, speciesId);
-  return row ? toDto(row) : null;
-}
-
-export async function listSpecies(db: DbOrTx, bankId: string): Promise<SpeciesDto[]> {
-  const rows = await repo.listVisibleSpecies(db, bankId);
-  return rows.map(toDto);
-}
-
-/** The species id, or a 400 naming the field: an unknown species is bad input, not a 404. */
-export async function requireSpecies(db: DbOrTx, bankId: string, speciesId: string, field = 'speciesId') {
-  const species = await findSpecies(db, bankId, speciesId);
-  if (!species)
-    throw badRequest('That species is not in the list.', { [field]: 'Choose a species from the list.' });
-  return species;
-}
+import { findSpecies, listSpecies } from './species.shared.repository';
 
 export function createSpeciesService({ db }: { db: Db }) {
   return {

@@ -15,8 +15,8 @@ import {
   type LotModel,
   type ModelAssay,
 } from '#server/stats/viability-model';
-import { listSpecies } from '../species/species.service';
-import { lotsForDecisions, type DecisionLot } from '../lots/lots.repository';
+import { listSpecies } from '../species/species.shared.repository';
+import { lotsForDecisions, type DecisionLot } from '../lots/lots.shared.repository';
 import * as repo from './viability.repository';
 import { assayAggregates, viabilityStamps, type AssayAggregate } from './viability.repository';
 import { decide, retestDueDate, straddles, type Recommendation } from './recommend';

@@ -1,0 +1,14 @@
+// What other modules may call of the lots repository, inside their own transactions: moving stock
+// (sowings, germination tests), reading lots as lists, labels and viability fits read them. Cross-
+// module reads and writes go through a module's service or its *.shared.repository.ts, never its
+// plain repository (tests/unit/layering.test.ts).
+export {
+  insertMovement,
+  lockLot,
+  lotsForDecisions,
+  lotsQuery,
+  stockOf,
+  toLotDto,
+  updateLot,
+  type DecisionLot,
+} from './lots.repository';
