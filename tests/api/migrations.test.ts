@@ -1,3 +1,4 @@
+import { spawnSync } from 'node:child_process';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { migrateAllDown, migrateToLatest } from '#server/db/migrate';
@@ -34,6 +35,29 @@ describe('migrations', () => {
   it('when run up twice, then the second run applies nothing', async () => {
     const { results } = await migrateToLatest(database.db);
     expect(results).toEqual([]);
+  });
+});
+
+describe('npm run migrate', () => {
+  let database: Awaited<ReturnType<typeof createTestDatabase>>;
+  beforeAll(async () => {
+    database = await createTestDatabase({ migrate: false });
+  });
+  afterAll(() => database.drop());
+  const migrate = () =>
+    spawnSync(process.execPath, ['--import', 'tsx', 'server/db/migrate-cli.ts'], {
+      env: { ...process.env, DATABASE_URL: database.url },
+      encoding: 'utf8',
+    });
+
+  it('when run on an empty database, then it migrates it and says so, and a second run says it is current', async () => {
+    const first = migrate();
+    expect(first.status, first.stderr).toBe(0);
+    expect(first.stdout).toMatch(/^migrated: 2026_12_01_000000_accounts_and_banks, /);
+    expect(await tableNames(database.db)).toEqual(expect.arrayContaining(['banks', 'lots', 'sessions']));
+    const second = migrate();
+    expect(second.status, second.stderr).toBe(0);
+    expect(second.stdout).toBe('the database is up to date\n');
   });
 });
 
