@@ -51,3 +51,44 @@ export {
 } from './seeds-to-sow';
 export type { GerminationDraw } from './seeds-to-sow';
 export type { Matrix } from './linear-algebra';
+export {
+  seedWeightFromSamples,
+  purityFromSample,
+  replicateWeightStats,
+  SEED_WEIGHT_RULES,
+  DEFAULT_SCALE_STEP_GRAMS,
+  DEFAULT_PURITY_SAMPLE_SEEDS,
+} from './seed-weight';
+export type {
+  WeighedSample,
+  SeedWeight,
+  SeedWeightOptions,
+  SpreadBasis,
+  Purity,
+  PurityOptions,
+} from './seed-weight';
+export {
+  seedsFromGrams,
+  sownFromGuess,
+  sownByCount,
+  SOWN_GUESS_RANGES,
+  SPECIES_SEEDS_PER_GRAM_CV,
+} from './sown-estimate';
+export type {
+  SownEstimate,
+  SownGuess,
+  SownBy,
+  SeedWeightBasis,
+  SeedWeightSources,
+  GramsOptions,
+} from './sown-estimate';
+export { germinationFromUncertainSown, effectiveTrial } from './uncertain-sown';
+export type { UncertainSown, UncertainSownGermination } from './uncertain-sown';
+export {
+  roughScoreLikelihood,
+  roughScoreCounts,
+  emergenceLogLikelihood,
+  ROUGH_SCORE_BANDS,
+  FIELD_ESTABLISHMENT,
+} from './rough-evidence';
+export type { RoughScore, Emergence } from './rough-evidence';

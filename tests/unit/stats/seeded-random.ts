@@ -11,3 +11,15 @@ export function mulberry32(seed: number): () => number {
     return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
   };
 }
+
+/** A standard normal draw from a uniform generator (Box–Muller, the cosine half). */
+export function normalDraw(uniform: () => number): number {
+  return Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
+}
+
+/** A binomial draw by counting successes (fine for the few hundred trials of a tray). */
+export function binomialDraw(uniform: () => number, n: number, p: number): number {
+  let x = 0;
+  for (let i = 0; i < n; i++) if (uniform() < p) x++;
+  return x;
+}
