@@ -24,7 +24,7 @@ export function roughScoreCounts(score: RoughScore, sown: number): { low: number
   assertPositiveCount(sown, 'sown');
   const band = ROUGH_SCORE_BANDS[score];
   // The tolerance keeps 0.35 × 20 = 7.000000000000001 at 7.
-  const first = (share: number) => Math.ceil(share * sown - 1e-9);
+  const first = (share: number) => Math.max(0, Math.ceil(share * sown - 1e-9));
   return { low: first(band.low), high: score === 'most' ? sown : first(band.high) - 1 };
 }
 
@@ -45,9 +45,11 @@ export function roughScoreLikelihood(score: RoughScore, p: number, sown: number)
 /**
  * Our convention: the share of germinating seeds that also emerge as seedlings from a real sowing
  * (depth, crusting, drying, cold soil, damping-off) is unknown, somewhere from 60% to 100%, uniform.
- * Field emergence is lower than a laboratory germination test, which is run in optimal conditions
- * (Acta Horticulturae 83:13 "some depression of germination is to be expected" in the field; the
- * size of the drop depends on the species and the seedbed — hence a range, not a factor).
+ * Field emergence is lower than a laboratory germination test, which is run in optimal conditions:
+ * in the field "some depression of germination is to be expected", more in some species than others
+ * (Acta Horticulturae 83, paper 13), and labelled germination "often overestimates" field emergence
+ * (doi:10.1007/978-1-4615-1783-2_7). The size of the drop depends on species and seedbed, so it is a
+ * range, not a factor; the 60% floor is ours. See ../shared/REFERENCES.md.
  */
 export const FIELD_ESTABLISHMENT: Readonly<Interval> = { low: 0.6, high: 1 };
 const ESTABLISHMENT_POINTS = 16;
