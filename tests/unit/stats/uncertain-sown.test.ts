@@ -7,7 +7,7 @@ import {
   wilsonInterval,
 } from '#server/stats/index';
 import type { UncertainSownGermination } from '#server/stats/index';
-import { mulberry32 } from './seeded-random';
+import { binomialDraw, mulberry32, normalDraw } from './seeded-random';
 import { simulateTray, type LotScenario } from './sown-simulation';
 
 function estimate(result: UncertainSownGermination) {
@@ -230,12 +230,10 @@ describe('seeded simulation of trays sown by weight', () => {
     const s = Math.sqrt(Math.log1p(0.35 ** 2));
     let covered = 0;
     for (let i = 0; i < TRIALS; i++) {
-      const z = Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
-      const truePerGram = typical * Math.exp(s * z - (s * s) / 2);
+      const truePerGram = typical * Math.exp(s * normalDraw(uniform) - (s * s) / 2);
       const grams = 0.3;
       const seeds = Math.round(grams * truePerGram);
-      let x = 0;
-      for (let k = 0; k < seeds; k++) if (uniform() < 0.7) x++;
+      const x = binomialDraw(uniform, seeds, 0.7);
       const r = germinationFromUncertainSown(
         x,
         seedsFromGrams(grams, { species: { seedsPerGram: typical } }),
