@@ -10,6 +10,7 @@ import type { ChangeFeed } from './db/change-feed';
 import type { Db } from './db/database';
 import { createReadCache, forgetOnWrites } from './db/read-cache';
 import { errorHandler, notFoundApi } from './http/errors';
+import { refuseNul, requireUtf8 } from './http/input-guard';
 import { originCheck, originVariants } from './http/origin-check';
 import { requestLogging } from './http/request-log';
 import type { Mailer } from './mail/mailer';
@@ -84,7 +85,9 @@ export function createApp(deps: AppDeps): Express {
     }),
   );
   app.use(requestLogging(logger, config.env !== 'test'));
+  app.use(requireUtf8);
   app.use(express.json({ limit: '1mb' }));
+  app.use(refuseNul);
   app.use(cookieParser());
   app.use(originCheck(originVariants(config.appOrigin)));
   const cache = createReadCache(deps.changeFeed);

@@ -1,6 +1,7 @@
 import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { badRequest } from '../http/errors';
+import { receiveFile } from '../http/multipart';
 
 /** Largest photo file accepted, in bytes; a bigger one is a 413 from the error handler. */
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
@@ -16,7 +17,7 @@ export const photoUpload = multer({
 
 /** Receives one photo in the multipart field `field`; no file (or an empty one) is a 400. */
 export function singlePhoto(field = 'photo'): RequestHandler {
-  const receive = photoUpload.single(field);
+  const receive = receiveFile(photoUpload, field);
   return (req, res, next) => {
     receive(req, res, (error?: unknown) => {
       if (error) return next(error);

@@ -157,6 +157,8 @@ export const stockBodySchema = z
     change: z
       .number()
       .int()
+      .min(-10_000_000, { message: 'A movement changes the stock by at most 10,000,000 seeds.' })
+      .max(10_000_000, { message: 'A movement changes the stock by at most 10,000,000 seeds.' })
       .refine((n) => n !== 0, { message: 'A movement changes the stock by at least one seed.' }),
     reason: text(300).min(1, { message: 'Say why (sown, given to …, found more, …).' }),
     date: isoDateSchema,

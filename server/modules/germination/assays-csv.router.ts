@@ -24,7 +24,7 @@ export function assaysCsvExport(csv: AssaysCsvService): Router {
 /** POST /api/banks/:bankId/tests/import (multipart `file`; `?dryRun=true` only checks it). */
 export function assaysCsvImport(csv: AssaysCsvService): Router {
   const router = Router({ mergeParams: true });
-  router.post('/', requireRole('grower'), csvUpload.single('file'), async (req, res) => {
+  router.post('/', requireRole('grower'), csvUpload, async (req, res) => {
     const { dryRun, text } = csvFileText(req);
     const outcome = await csv.importCsv(bankOf(req).id, authOf(req).userId, text, { dryRun });
     respond(res, 200, z.union([assaysImportPreviewSchema, importedSchema]), outcome);

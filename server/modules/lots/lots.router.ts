@@ -72,7 +72,7 @@ export function lotRoutes(
     const key = `lots ${JSON.stringify([limit, cursor, speciesId, status])}`;
     respondRendered(res, 200, query.q ? await page() : await cache.remember({ bankId }, key, page));
   });
-  router.post('/import', requireRole('grower'), csvUpload.single('file'), async (req, res) => {
+  router.post('/import', requireRole('grower'), csvUpload, async (req, res) => {
     const { dryRun, text } = csvFileText(req);
     const species = await species_(bankOf(req).id);
     const parsed = parseLotsCsv(text, (name) => resolveSpecies(species, name));
