@@ -13,7 +13,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { errorResponseSchema } from '#shared/schemas/common';
 import { signUp, PASSWORD } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
-import { speciesId, startedTest } from '../helpers/lots';
+import { speciesId, startedAssay } from '../helpers/lots';
 import { mulberry32 } from '../unit/stats/seeded-random';
 
 const SEED = Number(process.env.FUZZ_SEED ?? 1515);
@@ -130,7 +130,7 @@ describe('hostile input on every JSON route', () => {
       });
       lots.push(lot.body.lot.id);
     }
-    const started = await startedTest(owner.agent, bankId, lots[0]!, '2026-05-20', [50, 50]);
+    const started = await startedAssay(owner.agent, bankId, lots[0]!, '2026-05-20', [50, 50]);
     const plant = await owner.agent
       .post(`/api/banks/${bankId}/plants`)
       .send({ speciesId: tomato, label: 'Row 2' });
