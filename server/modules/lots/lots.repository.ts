@@ -275,6 +275,15 @@ export async function setParents(db: DbOrTx, lotId: string, parentIds: string[])
 }
 
 /** The codes in the bank that start with `prefix`, to number the next one. */
+/**
+ * Takes the bank's lot-code lock until the transaction ends: whoever allocates a code for a new lot
+ * holds it from reading the codes in use until the new lot is committed, so lots created at the
+ * same moment never pick the same next number.
+ */
+export async function lockLotCodes(trx: DbOrTx, bankId: string): Promise<void> {
+  await sql`select pg_advisory_xact_lock(hashtextextended(${`lot-codes:${bankId}`}, 0))`.execute(trx);
+}
+
 export async function codesLike(db: DbOrTx, bankId: string, prefix: string): Promise<string[]> {
   const rows = await db
     .selectFrom('lots')

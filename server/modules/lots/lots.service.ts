@@ -118,6 +118,8 @@ export function createLotsService(deps: LotsServiceDeps) {
       estimated = true;
     }
     const season = body.harvestDate ? Number(body.harvestDate.slice(0, 4)) : body.packedForSeason!;
+    // Given codes too: one committed between our read of the codes and our insert would collide.
+    await repo.lockLotCodes(trx, bankId);
     const code = body.code ?? (await generateCode(trx, bankId, species.commonName, season));
     let inserted;
     try {
@@ -291,7 +293,10 @@ export function createLotsService(deps: LotsServiceDeps) {
         if (body.notes !== undefined) changes.notes = body.notes;
         if (body.treated !== undefined) changes.treated = body.treated;
         if (body.status !== undefined) changes.status = body.status;
-        if (body.code !== undefined) changes.code = body.code;
+        if (body.code !== undefined) {
+          await repo.lockLotCodes(trx, bankId);
+          changes.code = body.code;
+        }
         try {
           await repo.updateLot(trx, lotId, changes);
         } catch (error) {
