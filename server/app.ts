@@ -94,7 +94,7 @@ export function createApp(deps: AppDeps): Express {
   app.use(forgetOnWrites(cache));
 
   const signer = createSessionSigner(config.sessionSecret, deps.clock);
-  const photos = createPhotosService({ db: deps.db, storage: deps.storage, logger });
+  const photos = createPhotosService({ db: deps.db, storage: deps.storage, clock: deps.clock, logger });
   const services = {
     auth: createAuthService({ ...deps, signer, appOrigin: config.appOrigin }),
     banks: createBanksService(deps),

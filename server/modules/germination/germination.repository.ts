@@ -102,15 +102,18 @@ export function insertCounts(
 }
 
 /** The ids of the bank's tests of a lot, newest first. */
-export async function assayIdsOfLot(on: DbOrTx, bankId: string, lotId: string): Promise<string[]> {
+/** The lot's assay ids, latest start first; null when the lot is not in the bank. */
+export async function assayIdsOfLot(on: DbOrTx, bankId: string, lotId: string): Promise<string[] | null> {
   const rows = await on
-    .selectFrom('germination_tests')
-    .select('id')
-    .where('bank_id', '=', bankId)
-    .where('lot_id', '=', lotId)
-    .orderBy('start_date', 'desc')
+    .selectFrom('lots')
+    .leftJoin('germination_tests', 'germination_tests.lot_id', 'lots.id')
+    .select('germination_tests.id')
+    .where('lots.bank_id', '=', bankId)
+    .where('lots.id', '=', lotId)
+    .orderBy('germination_tests.start_date', 'desc')
     .execute();
-  return rows.map((r) => r.id);
+  if (rows.length === 0) return null;
+  return rows.flatMap((r) => (r.id === null ? [] : [r.id]));
 }
 
 export function updateAssay(on: DbOrTx, assayId: string, changes: Updateable<GerminationTestTable>) {

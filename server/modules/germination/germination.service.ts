@@ -200,6 +200,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
 
     async listForLot(bankId: string, lotId: string) {
       const ids = await repo.assayIdsOfLot(db, bankId, lotId);
+      if (ids === null) throw notFound('No such lot in this bank.');
       return Promise.all(ids.map((id) => detail(bankId, id)));
     },
 

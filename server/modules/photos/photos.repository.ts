@@ -4,20 +4,23 @@ import type { PhotoSubject, PhotoTable } from '#server/db/schema';
 
 const SUBJECT_TABLE = { lot: 'lots', plant: 'parent_plants' } as const;
 
-/** Up to 500 queued object keys, of `keys` when given. */
-export async function queuedDeletions(db: DbOrTx, keys?: string[]): Promise<string[]> {
+/** Up to 500 queued object keys: of `keys`, or else those queued before `queuedBefore`. */
+export async function queuedDeletions(
+  db: DbOrTx,
+  which: { keys: string[] } | { queuedBefore: Date },
+): Promise<string[]> {
   let q = db.selectFrom('object_deletions').select('key');
-  if (keys) q = q.where('key', 'in', keys);
+  q = 'keys' in which ? q.where('key', 'in', which.keys) : q.where('created_at', '<', which.queuedBefore);
   return (await q.limit(500).execute()).map((r) => r.key);
 }
 
 export const dropQueuedDeletions = (db: DbOrTx, keys: string[]) =>
   db.deleteFrom('object_deletions').where('key', 'in', keys).execute();
 
-export const queueDeletions = (db: DbOrTx, keys: string[]) =>
+export const queueDeletions = (db: DbOrTx, keys: string[], at?: Date) =>
   db
     .insertInto('object_deletions')
-    .values(keys.map((key) => ({ key })))
+    .values(keys.map((key) => (at ? { key, created_at: at } : { key })))
     .onConflict((oc) => oc.doNothing())
     .execute();
 
@@ -51,8 +54,17 @@ export const listSubjectPhotos = (db: DbOrTx, bankId: string, subject: PhotoSubj
     .orderBy('created_at')
     .execute();
 
-/** The subject's id when it is in the bank: a tray through its test, a lot or plant directly. */
-export const findSubjectInBank = (db: DbOrTx, bankId: string, subject: PhotoSubject, subjectId: string) =>
+/**
+ * The subject's id when it is in the bank: a tray through its test (and, when `testId` is given,
+ * only as a tray of that test), a lot or plant directly.
+ */
+export const findSubjectInBank = (
+  db: DbOrTx,
+  bankId: string,
+  subject: PhotoSubject,
+  subjectId: string,
+  testId?: string,
+) =>
   subject === 'tray'
     ? db
         .selectFrom('test_trays')
@@ -60,6 +72,7 @@ export const findSubjectInBank = (db: DbOrTx, bankId: string, subject: PhotoSubj
         .select('test_trays.id')
         .where('test_trays.id', '=', subjectId)
         .where('germination_tests.bank_id', '=', bankId)
+        .$if(testId !== undefined, (q) => q.where('test_trays.test_id', '=', testId!))
         .executeTakeFirst()
     : db
         .selectFrom(SUBJECT_TABLE[subject])

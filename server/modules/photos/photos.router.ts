@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import { z } from 'zod';
 import { photoSchema, photoSizeQuerySchema } from '#shared/schemas/lots';
 import { requireRole } from '#server/auth/bank-access';
@@ -7,32 +7,36 @@ import { parse } from '#server/http/errors';
 import { idParam } from '#server/http/params';
 import { respond } from '#server/http/respond';
 import { singlePhoto } from '#server/photos/upload';
-import type { PhotosService } from './photos.service';
+import type { PhotosService, SubjectRef } from './photos.service';
 import { authOf, bankOf } from '#server/http/request-context';
 
 const one = z.object({ photo: photoSchema });
 
-/** Upload routes for a subject, mounted under its path, e.g. /lots/:lotId/photos. */
+/**
+ * Upload and list routes for a subject, mounted under its path, e.g. /lots/:lotId/photos. A tray's
+ * are mounted under its test (/tests/:testId/trays/:trayId/photos), and the tray must be that test's.
+ */
 export function subjectPhotoRoutes(
   photos: PhotosService,
   subject: 'lot' | 'plant' | 'tray',
   param: string,
 ): Router {
   const router = Router({ mergeParams: true });
-  router.post('/', requireRole('grower'), singlePhoto('photo'), async (req, res) => {
-    const subjectId = idParam((req.params as Record<string, unknown>)[param], subject);
-    const photo = await photos.upload(
-      bankOf(req).id,
+  const subjectOf = (req: Request): SubjectRef => {
+    const params = req.params as Record<string, unknown>;
+    return {
+      bankId: bankOf(req).id,
       subject,
-      subjectId,
-      authOf(req).userId,
-      req.file!.buffer,
-    );
+      subjectId: idParam(params[param], subject),
+      ...(subject === 'tray' ? { testId: idParam(params.testId, 'test') } : {}),
+    };
+  };
+  router.post('/', requireRole('grower'), singlePhoto('photo'), async (req, res) => {
+    const photo = await photos.upload(subjectOf(req), authOf(req).userId, req.file!.buffer);
     respond(res, 201, one, { photo });
   });
   router.get('/', requireRole('viewer'), async (req, res) => {
-    const subjectId = idParam((req.params as Record<string, unknown>)[param], subject);
-    const items = await photos.list(bankOf(req).id, subject, subjectId);
+    const items = await photos.list(subjectOf(req));
     respond(res, 200, z.object({ items: z.array(photoSchema) }), { items });
   });
   return router;
