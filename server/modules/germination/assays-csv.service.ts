@@ -1,6 +1,6 @@
 /**
  * A bank's germination tests as a CSV file (format and checks: assays.csv.ts). The import writes
- * every test of the file in one transaction, or none.
+ * every test of the file in one short transaction of multi-row inserts, or none.
  *
  * Imported tests are history: their seeds are NOT withdrawn from the lot's stock ledger, because
  * a lot's seeds on hand (logged or imported with the lot) already reflect the seeds those tests
@@ -8,7 +8,11 @@
  */
 import { storedResultSchema, type AssaysImportPreview } from '#shared/schemas/germination';
 import { bankToday, type Clock } from '#server/clock';
-import type { Db, DbOrTx } from '#server/db/database';
+import crypto from 'node:crypto';
+import type { Insertable } from 'kysely';
+import { inBatches } from '#server/db/batches';
+import type { Db } from '#server/db/database';
+import type { GerminationTestTable, TestTrayTable } from '#server/db/schema';
 import { invalidCsv } from '#server/http/errors';
 import * as repo from './germination.repository';
 import { assayFields, trayFields } from './germination.service';
@@ -21,54 +25,53 @@ export function createAssaysCsvService({ db, clock }: { db: Db; clock: Clock }) 
     return new Map(rows.map((r) => [r.code.toLowerCase(), r]));
   }
 
-  async function insertAssay(
-    trx: DbOrTx,
-    bankId: string,
-    userId: string,
-    t: ParsedAssayCsvAssay,
-    createdAt: Date,
-  ) {
-    const assay = await repo.insertAssay(trx, {
-      bank_id: bankId,
-      lot_id: t.lotId,
-      start_date: t.startDate,
-      method: t.method,
-      medium: t.medium,
-      temperature_c: t.temperatureC,
-      light_hours: t.lightHours,
-      pretreatment: t.pretreatment,
-      pretreatment_days: t.pretreatmentDays,
-      notes: t.notes,
-      status: t.finishedOn === null ? 'running' : 'finished',
-      finished_on: t.finishedOn,
-      created_by: userId,
-      created_at: createdAt,
-    });
-    for (const tray of t.trays) {
-      const row = await repo.insertTray(trx, {
-        test_id: assay.id,
-        position: tray.position,
-        seeds_sown: tray.seedsSown,
-        abnormal: tray.abnormal,
-        ungerminated: tray.ungerminated,
-        fresh: tray.fresh,
-        dead: tray.dead,
-        hard: tray.hard,
-        set_aside_reason: tray.setAsideReason,
+  /** The rows a file's tests write, their ids made here so trays and counts can name them. */
+  function assayRows(bankId: string, userId: string, assays: ParsedAssayCsvAssay[]) {
+    // One millisecond apart, so a lot's tests started the same day keep the file's order (the
+    // export sorts them by when they were logged).
+    const now = clock.now().getTime();
+    const tests: Insertable<GerminationTestTable>[] = [];
+    const trays: Insertable<TestTrayTable>[] = [];
+    const counts: { tray_id: string; check_date: string; cumulative: number; created_by: string }[] = [];
+    for (const [i, t] of assays.entries()) {
+      const id = crypto.randomUUID();
+      tests.push({
+        id,
+        bank_id: bankId,
+        lot_id: t.lotId,
+        start_date: t.startDate,
+        method: t.method,
+        medium: t.medium,
+        temperature_c: t.temperatureC,
+        light_hours: t.lightHours,
+        pretreatment: t.pretreatment,
+        pretreatment_days: t.pretreatmentDays,
+        notes: t.notes,
+        status: t.finishedOn === null ? 'running' : 'finished',
+        finished_on: t.finishedOn,
+        created_by: userId,
+        created_at: new Date(now + i),
       });
-      if (tray.counts.length > 0) {
-        await repo.insertCounts(
-          trx,
-          tray.counts.map((c) => ({
-            tray_id: row.id,
-            check_date: c.date,
-            cumulative: c.cumulative,
-            created_by: userId,
-          })),
-        );
+      for (const tray of t.trays) {
+        const trayId = crypto.randomUUID();
+        trays.push({
+          id: trayId,
+          test_id: id,
+          position: tray.position,
+          seeds_sown: tray.seedsSown,
+          abnormal: tray.abnormal,
+          ungerminated: tray.ungerminated,
+          fresh: tray.fresh,
+          dead: tray.dead,
+          hard: tray.hard,
+          set_aside_reason: tray.setAsideReason,
+        });
+        for (const c of tray.counts) {
+          counts.push({ tray_id: trayId, check_date: c.date, cumulative: c.cumulative, created_by: userId });
+        }
       }
     }
-    return assay.id;
+    return { tests, trays, counts, ids: tests.map((t) => t.id!) };
   }
 
   return {
@@ -135,14 +138,14 @@ export function createAssaysCsvService({ db, clock }: { db: Db; clock: Clock }) 
         });
         return { preview };
       }
+      // Prepared before the transaction, written in multi-row batches inside it: a file of
+      // thousands of tests holds a connection only for those statements.
+      const rows = assayRows(bankId, userId, parsed.assays);
       const imported = await db.transaction().execute(async (trx) => {
-        // One millisecond apart, so a lot's tests started the same day keep the file's order (the
-        // export sorts them by when they were logged).
-        const now = clock.now().getTime();
-        const ids: string[] = [];
-        for (const [i, t] of parsed.assays.entries())
-          ids.push(await insertAssay(trx, bankId, userId, t, new Date(now + i)));
-        await storeResults(trx, ids);
+        await inBatches(rows.tests, 500, (batch) => repo.insertAssays(trx, batch));
+        await inBatches(rows.trays, 1000, (batch) => repo.insertTrays(trx, batch));
+        await inBatches(rows.counts, 2000, (batch) => repo.insertCounts(trx, batch));
+        await inBatches(rows.ids, 1000, (batch) => storeResults(trx, batch));
         return parsed.assays.length;
       });
       return { imported };

@@ -86,6 +86,11 @@ export function insertAssay(on: DbOrTx, values: Insertable<GerminationTestTable>
   return on.insertInto('germination_tests').values(values).returning('id').executeTakeFirstOrThrow();
 }
 
+/** Many tests in one statement (their ids given, so no order of returned rows is relied on). */
+export function insertAssays(on: DbOrTx, values: Insertable<GerminationTestTable>[]) {
+  return on.insertInto('germination_tests').values(values).execute();
+}
+
 export function insertTray(on: DbOrTx, values: Insertable<TestTrayTable>) {
   return on.insertInto('test_trays').values(values).returning('id').executeTakeFirstOrThrow();
 }

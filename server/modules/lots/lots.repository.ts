@@ -196,6 +196,11 @@ export function insertLot(db: DbOrTx, values: Insertable<LotTable>) {
   return db.insertInto('lots').values(values).returning('id').executeTakeFirstOrThrow();
 }
 
+/** Many lots in one statement (their ids given, so no order of returned rows is relied on). */
+export function insertLots(db: DbOrTx, values: Insertable<LotTable>[]) {
+  return db.insertInto('lots').values(values).execute();
+}
+
 export function updateLot(db: DbOrTx, lotId: string, values: Updateable<LotTable>) {
   return db.updateTable('lots').set(values).where('id', '=', lotId).execute();
 }
@@ -253,6 +258,10 @@ export function parentPlantsOfBank(db: DbOrTx, bankId: string, ids: string[]) {
 /** Writes one line of the lot's stock ledger (other modules call this for sowings and tests). */
 export function insertMovement(db: DbOrTx, values: Insertable<StockMovementTable>) {
   return db.insertInto('stock_movements').values(values).returning('id').executeTakeFirstOrThrow();
+}
+
+export function insertMovements(db: DbOrTx, values: Insertable<StockMovementTable>[]) {
+  return db.insertInto('stock_movements').values(values).execute();
 }
 
 export async function stockOf(db: DbOrTx, lotId: string): Promise<number> {

@@ -7,7 +7,9 @@ import { AppError, badRequest, conflict, invalidCsv, notFound, unprocessable } f
 import { requireSpecies } from '../species/species.shared.repository';
 import { codePrefix, nextCode } from './lot-code';
 import * as repo from './lots.repository';
-import type { Updateable } from 'kysely';
+import type { Insertable, Updateable } from 'kysely';
+import crypto from 'node:crypto';
+import { inBatches } from '#server/db/batches';
 
 function uniqueViolation(error: unknown): boolean {
   return (error as { code?: string }).code === '23505';
@@ -59,6 +61,69 @@ async function checkHarvestChange(
   }
 }
 
+type Species = Awaited<ReturnType<typeof requireSpecies>>;
+type LotExtra = { status?: LotStatus; quantityEstimated?: boolean; reason?: string };
+
+/** The bank's lot codes, lower-cased (codes are unique in a bank in any letter case). */
+async function takenCodes(db: DbOrTx, bankId: string): Promise<Set<string>> {
+  return new Set((await repo.bankCodes(db, bankId)).map((code) => code.toLowerCase()));
+}
+
+/** What only the bank can tell of an import's rows: codes it already uses, harvests after its today. */
+function importProblems(rows: ParsedLotCsvRow[], taken: Set<string>, today: string) {
+  return rows.flatMap((r) => [
+    ...(r.code && taken.has(r.code.toLowerCase())
+      ? [{ line: r.line, column: 'code', message: `The code ${r.code} is already used in this bank.` }]
+      : []),
+    ...(r.harvestDate !== null && r.harvestDate > today
+      ? [
+          {
+            line: r.line,
+            column: 'harvest_date',
+            message: `${r.harvestDate} is after today (${today} in the bank's time zone); use the day the seed was harvested.`,
+          },
+        ]
+      : []),
+  ]);
+}
+
+/** A CSV row as the body of a new lot. */
+function csvLotBody(row: ParsedLotCsvRow): CreateLotBody {
+  return {
+    speciesId: row.speciesId,
+    variety: row.variety,
+    origin: row.origin,
+    sourceName: row.sourceName,
+    harvestDate: row.harvestDate,
+    packedForSeason: row.packedForSeason,
+    plantsBulked: row.plantsBulked,
+    storage: {
+      place: row.storagePlace,
+      location: row.storageLocation,
+      temperatureC: row.storageTempC,
+      humidityPct: row.storageHumidityPct,
+    },
+    notes: row.notes,
+    treated: row.treated,
+    ...(row.code ? { code: row.code } : {}),
+    seedCount: row.seedsOnHand,
+  };
+}
+
+/**
+ * Hands out codes for many new lots at once, each the next free number after every code in `used`
+ * and every one handed out before under the same prefix (what nextCode gives one lot at a time).
+ */
+function codeAllocator(used: string[]): (prefix: string) => string {
+  const last = new Map<string, string>();
+  return (prefix) => {
+    const previous = last.get(prefix);
+    const code = nextCode(prefix, previous ? [previous] : used);
+    last.set(prefix, code);
+    return code;
+  };
+}
+
 export function createLotsService(deps: LotsServiceDeps) {
   const { db, clock } = deps;
 
@@ -78,11 +143,6 @@ export function createLotsService(deps: LotsServiceDeps) {
     }
   }
 
-  async function generateCode(trx: DbOrTx, bankId: string, commonName: string, season: number) {
-    const prefix = codePrefix(commonName, season);
-    return nextCode(prefix, await repo.codesLike(trx, bankId, prefix));
-  }
-
   function storageColumns(storage: CreateLotBody['storage']): Updateable<LotTable> {
     if (!storage) return {};
     const out: Updateable<LotTable> = {};
@@ -93,18 +153,19 @@ export function createLotsService(deps: LotsServiceDeps) {
     return out;
   }
 
-  /** Writes one lot and its first stock movement inside `trx`; `today` is the bank's (bankToday). */
-  async function insertLot(
-    trx: DbOrTx,
+  /**
+   * A new lot's row (all but its code) and its first stock movement (all but the lot's id), from
+   * what the person or the file gave; `today` is the bank's (bankToday). No I/O.
+   */
+  function newLot(
     bankId: string,
     userId: string,
     today: string,
+    species: Species,
     body: CreateLotBody,
-    extra: { status?: LotStatus; quantityEstimated?: boolean; reason?: string } = {},
-  ): Promise<string> {
+    extra: LotExtra = {},
+  ) {
     if (body.harvestDate) refuseFutureHarvest(body.harvestDate, today);
-    const species = await requireSpecies(trx, bankId, body.speciesId);
-    await checkParents(trx, bankId, body.parentPlantIds);
     let seeds = body.seedCount ?? 0;
     let estimated = extra.quantityEstimated ?? false;
     if (body.grams !== undefined) {
@@ -117,50 +178,71 @@ export function createLotsService(deps: LotsServiceDeps) {
       seeds = Math.round(body.grams * perGram);
       estimated = true;
     }
-    const season = body.harvestDate ? Number(body.harvestDate.slice(0, 4)) : body.packedForSeason!;
+    const row = {
+      bank_id: bankId,
+      species_id: species.id,
+      variety: body.variety,
+      origin: body.origin,
+      source_name: body.sourceName ?? null,
+      harvest_date: body.harvestDate ?? null,
+      packed_for_season: body.packedForSeason ?? null,
+      plants_bulked: body.plantsBulked ?? null,
+      ...storageColumns(body.storage),
+      quantity_estimated: estimated,
+      grams_entered: body.grams ?? null,
+      notes: body.notes ?? null,
+      treated: body.treated ?? false,
+      created_by: userId,
+      ...(extra.status ? { status: extra.status } : {}),
+    } satisfies Omit<Insertable<LotTable>, 'code'>;
+    const movement =
+      seeds > 0
+        ? {
+            kind: 'initial' as const,
+            change: seeds,
+            date: body.harvestDate ?? today,
+            reason:
+              extra.reason ??
+              (body.grams !== undefined
+                ? `Estimated from ${body.grams} g at about ${species.traits.seedsPerGram} seeds per gram`
+                : 'Counted when the lot was logged'),
+            created_by: userId,
+          }
+        : null;
+    return {
+      row,
+      movement,
+      prefix: codePrefix(
+        species.commonName,
+        body.harvestDate ? Number(body.harvestDate.slice(0, 4)) : body.packedForSeason!,
+      ),
+    };
+  }
+
+  /** Writes one lot and its first stock movement inside `trx`; `today` is the bank's (bankToday). */
+  async function insertLot(
+    trx: DbOrTx,
+    bankId: string,
+    userId: string,
+    today: string,
+    body: CreateLotBody,
+  ): Promise<string> {
+    const species = await requireSpecies(trx, bankId, body.speciesId);
+    await checkParents(trx, bankId, body.parentPlantIds);
+    const { row, movement, prefix } = newLot(bankId, userId, today, species, body);
     // Given codes too: one committed between our read of the codes and our insert would collide.
     await repo.lockLotCodes(trx, bankId);
-    const code = body.code ?? (await generateCode(trx, bankId, species.commonName, season));
+    const code = body.code ?? nextCode(prefix, await repo.codesLike(trx, bankId, prefix));
     let inserted;
     try {
-      inserted = await repo.insertLot(trx, {
-        bank_id: bankId,
-        species_id: species.id,
-        code,
-        variety: body.variety,
-        origin: body.origin,
-        source_name: body.sourceName ?? null,
-        harvest_date: body.harvestDate ?? null,
-        packed_for_season: body.packedForSeason ?? null,
-        plants_bulked: body.plantsBulked ?? null,
-        ...storageColumns(body.storage),
-        quantity_estimated: estimated,
-        grams_entered: body.grams ?? null,
-        notes: body.notes ?? null,
-        treated: body.treated ?? false,
-        created_by: userId,
-        ...(extra.status ? { status: extra.status } : {}),
-      });
+      inserted = await repo.insertLot(trx, { ...row, code });
     } catch (error) {
       if (uniqueViolation(error))
         throw conflict(`The code ${code} is already used in this bank.`, 'duplicate_code');
       throw error;
     }
     await repo.setParents(trx, inserted.id, body.parentPlantIds ?? []);
-    if (seeds > 0) {
-      await repo.insertMovement(trx, {
-        lot_id: inserted.id,
-        kind: 'initial',
-        change: seeds,
-        date: body.harvestDate ?? today,
-        reason:
-          extra.reason ??
-          (body.grams !== undefined
-            ? `Estimated from ${body.grams} g at about ${species.traits.seedsPerGram} seeds per gram`
-            : 'Counted when the lot was logged'),
-        created_by: userId,
-      });
-    }
+    if (movement) await repo.insertMovement(trx, { ...movement, lot_id: inserted.id });
     return inserted.id;
   }
 
@@ -216,61 +298,41 @@ export function createLotsService(deps: LotsServiceDeps) {
       }));
     },
 
-    /** Imports parsed CSV rows in one transaction: every lot, or none. */
+    /**
+     * Imports parsed CSV rows: every lot, or none (API.md). Everything is checked and prepared
+     * first; the transaction only takes the bank's code lock, checks the codes again, and writes
+     * the lots and their first movements in multi-row batches, so a 5,000-row file holds a
+     * connection for well under a second.
+     */
     async importRows(bankId: string, userId: string, rows: ParsedLotCsvRow[]) {
+      const today = await bankToday(db, clock, bankId);
+      const refuse = (taken: Set<string>) => {
+        const problems = importProblems(rows, taken, today);
+        if (problems.length) throw invalidCsv(problems);
+      };
+      refuse(await takenCodes(db, bankId));
+      const species = new Map<string, Species>();
+      for (const id of new Set(rows.map((r) => r.speciesId))) {
+        species.set(id, await requireSpecies(db, bankId, id));
+      }
+      const lots = rows.map((r) => ({
+        id: crypto.randomUUID(),
+        code: r.code || null,
+        ...newLot(bankId, userId, today, species.get(r.speciesId)!, csvLotBody(r), {
+          status: r.status,
+          quantityEstimated: r.quantityEstimated,
+          reason: 'Imported from a CSV file',
+        }),
+      }));
       return db.transaction().execute(async (trx) => {
-        const taken = new Set((await repo.bankCodes(trx, bankId)).map((code) => code.toLowerCase()));
-        const today = await bankToday(trx, clock, bankId);
-        // What only the bank can tell: codes it already uses, harvest dates after its today.
-        const problems = rows.flatMap((r) => [
-          ...(r.code && taken.has(r.code.toLowerCase())
-            ? [{ line: r.line, column: 'code', message: `The code ${r.code} is already used in this bank.` }]
-            : []),
-          ...(r.harvestDate !== null && r.harvestDate > today
-            ? [
-                {
-                  line: r.line,
-                  column: 'harvest_date',
-                  message: `${r.harvestDate} is after today (${today} in the bank's time zone); use the day the seed was harvested.`,
-                },
-              ]
-            : []),
-        ]);
-        if (problems.length) {
-          throw invalidCsv(problems);
-        }
-        for (const row of rows) {
-          await insertLot(
-            trx,
-            bankId,
-            userId,
-            today,
-            {
-              speciesId: row.speciesId,
-              variety: row.variety,
-              origin: row.origin,
-              sourceName: row.sourceName,
-              harvestDate: row.harvestDate,
-              packedForSeason: row.packedForSeason,
-              plantsBulked: row.plantsBulked,
-              storage: {
-                place: row.storagePlace,
-                location: row.storageLocation,
-                temperatureC: row.storageTempC,
-                humidityPct: row.storageHumidityPct,
-              },
-              notes: row.notes,
-              treated: row.treated,
-              ...(row.code ? { code: row.code } : {}),
-              seedCount: row.seedsOnHand,
-            },
-            {
-              status: row.status,
-              quantityEstimated: row.quantityEstimated,
-              reason: 'Imported from a CSV file',
-            },
-          );
-        }
+        await repo.lockLotCodes(trx, bankId);
+        const codes = await repo.bankCodes(trx, bankId);
+        refuse(new Set(codes.map((c) => c.toLowerCase())));
+        const allocate = codeAllocator([...codes, ...lots.flatMap((l) => (l.code ? [l.code] : []))]);
+        const values = lots.map((l) => ({ ...l.row, id: l.id, code: l.code ?? allocate(l.prefix) }));
+        await inBatches(values, 500, (batch) => repo.insertLots(trx, batch));
+        const movements = lots.flatMap((l) => (l.movement ? [{ ...l.movement, lot_id: l.id }] : []));
+        await inBatches(movements, 1000, (batch) => repo.insertMovements(trx, batch));
         return rows.length;
       });
     },
