@@ -18,7 +18,7 @@ import { mulberry32 } from '../unit/stats/seeded-random';
 
 const SEED = Number(process.env.FUZZ_SEED ?? 1515);
 /** Generated bodies per JSON route, beyond the fixed hostile cases each route gets. */
-const BODIES_PER_ROUTE = 70;
+const BODIES_PER_ROUTE = 45;
 const CONCURRENCY = 4;
 
 type Json = null | boolean | number | string | Json[] | { [key: string]: Json };
@@ -470,31 +470,36 @@ describe('hostile input on every JSON route', () => {
     return null;
   }
 
-  it('when thousands of hostile requests arrive, then none gets a 5xx and every 4xx is in the error shape', async () => {
-    const all = cases();
-    expect(all.length).toBeGreaterThan(2000);
-    const failures: string[] = [];
-    const statuses = new Map<number, number>();
-    let next = 0;
-    async function worker() {
-      while (next < all.length) {
-        const index = next++;
-        const c = all[index]!;
-        const answer = await send(c);
-        statuses.set(answer.status, (statuses.get(answer.status) ?? 0) + 1);
-        const wrong = problem(c, answer);
-        if (wrong) {
-          failures.push(
-            `seed ${SEED} case ${index} (${c.kind}) ${c.method} ${c.path} ${JSON.stringify(c.headers)} ` +
-              `body ${c.body?.toString('utf8').slice(0, 200) ?? '(none)'}: ${wrong} ${a(answer)}`,
-          );
+  // Its own limit: about 20 s alone, but CI runs it beside other files on two busy cores.
+  it(
+    'when thousands of hostile requests arrive, then none gets a 5xx and every 4xx is in the error shape',
+    { timeout: 180_000 },
+    async () => {
+      const all = cases();
+      expect(all.length).toBeGreaterThan(2000);
+      const failures: string[] = [];
+      const statuses = new Map<number, number>();
+      let next = 0;
+      async function worker() {
+        while (next < all.length) {
+          const index = next++;
+          const c = all[index]!;
+          const answer = await send(c);
+          statuses.set(answer.status, (statuses.get(answer.status) ?? 0) + 1);
+          const wrong = problem(c, answer);
+          if (wrong) {
+            failures.push(
+              `seed ${SEED} case ${index} (${c.kind}) ${c.method} ${c.path} ${JSON.stringify(c.headers)} ` +
+                `body ${c.body?.toString('utf8').slice(0, 200) ?? '(none)'}: ${wrong} ${a(answer)}`,
+            );
+          }
         }
       }
-    }
-    const a = (answer: Answer) => answer.text.slice(0, 300);
-    await Promise.all(Array.from({ length: CONCURRENCY }, worker));
-    expect(failures.slice(0, 30), `${failures.length} of ${all.length} requests went wrong`).toEqual([]);
-    // The run reached the routes themselves, not only the guards: some bodies were accepted.
-    expect([...statuses.keys()].some((s) => s < 300)).toBe(true);
-  });
+      const a = (answer: Answer) => answer.text.slice(0, 300);
+      await Promise.all(Array.from({ length: CONCURRENCY }, worker));
+      expect(failures.slice(0, 30), `${failures.length} of ${all.length} requests went wrong`).toEqual([]);
+      // The run reached the routes themselves, not only the guards: some bodies were accepted.
+      expect([...statuses.keys()].some((s) => s < 300)).toBe(true);
+    },
+  );
 });

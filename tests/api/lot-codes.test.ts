@@ -34,14 +34,4 @@ describe('lot codes under concurrency', () => {
     // The numbers are the next ones in turn: TOM-25-01 … TOM-25-50, none skipped.
     expect(codes).toEqual(Array.from({ length: 50 }, (_, i) => `TOM-25-${String(i + 1).padStart(2, '0')}`));
   });
-
-  it('when a given code is created at the same moment as generated ones, then neither collides', async () => {
-    const answers = await Promise.all([
-      create({ code: 'TOM-25-52', harvestDate: '2025-08-02' }),
-      ...Array.from({ length: 5 }, () => create()),
-    ]);
-    expect(answers.map((a) => a.status)).toEqual(Array(6).fill(201));
-    const codes = answers.map((a) => a.body.lot.code as string);
-    expect(new Set(codes).size).toBe(6);
-  });
 });
