@@ -80,7 +80,7 @@ function operation(route: ApiRoute, params: string[]): ZodOpenApiOperationObject
   }
   responses['4XX'] = {
     description:
-      'Refused: bad input (400, with each bad field), not signed in (401), role too low (403), no such record (404), conflict (409) or impossible (422).',
+      'Refused: bad input (400, with each bad field; also a missing JSON body, a NUL character in any text or query value, a compressed body that does not inflate, a malformed multipart form), not signed in (401), role too low (403), no such record (404), conflict (409), a body in a charset other than UTF-8 or with an unknown Content-Encoding (415) or impossible (422).',
     content: { 'application/json': { schema: errorResponseSchema } },
   };
   op.responses = responses;
