@@ -23,7 +23,20 @@ try {
 }
 
 const logger = pino({ level: config.logLevel });
-const db = createDb(config.databaseUrl, config.databasePoolSize);
+
+// A promise nobody awaited (a background task's failure) is logged, never fatal: the request
+// paths answer their own errors, and a database or mail outage must not end the process.
+process.on('unhandledRejection', (reason) => {
+  logger.error({ err: reason }, 'a background task failed (unhandled rejection); the server keeps running');
+});
+// A thrown exception nobody caught leaves the process in an unknown state: log it and exit, and the
+// supervisor (`npm start`, or the production process manager) starts a fresh server.
+process.on('uncaughtException', (error) => {
+  logger.fatal({ err: error }, 'uncaught exception; the server stops');
+  process.exit(1);
+});
+
+const db = createDb(config.databaseUrl, config.databasePoolSize, undefined, logger);
 const storage = createObjectStore(config.storage);
 const mailer = createMailer(config.mail);
 const changeFeed = startChangeFeed(config.databaseUrl, logger);
@@ -41,14 +54,25 @@ const reminders = createReminders({
 // The scan is cheap and idempotent: every app server may run it; each reminder is sent once.
 const REMINDER_SCAN_MS = 60_000;
 let scan: NodeJS.Timeout | undefined;
-reminders
-  .start()
-  .then(() => {
-    const run = () => reminders.tick().catch((error) => logger.warn({ err: error }, 'reminder scan failed'));
-    void run();
-    scan = setInterval(run, REMINDER_SCAN_MS);
-  })
-  .catch((error) => logger.error({ err: error }, 'the reminder queue did not start; reminders are paused'));
+let startRetry: NodeJS.Timeout | undefined;
+// The queue needs the database: while it is down at boot, starting is tried again with backoff.
+function startReminders(attempt = 0) {
+  reminders
+    .start()
+    .then(() => {
+      const run = () =>
+        reminders.tick().catch((error) => logger.warn({ err: error }, 'reminder scan failed'));
+      void run();
+      scan = setInterval(run, REMINDER_SCAN_MS);
+    })
+    .catch(async (error) => {
+      const delay = Math.min(60_000, 2_000 * 2 ** attempt);
+      logger.error({ err: error }, `the reminder queue did not start; trying again in ${delay / 1000} s`);
+      await reminders.stop().catch(() => undefined);
+      if (!stopping) startRetry = setTimeout(() => startReminders(attempt + 1), delay);
+    });
+}
+startReminders();
 
 const server = app.listen(config.port, config.host);
 server.on('listening', () => {
@@ -72,6 +96,7 @@ async function shutdown(signal: string) {
   force.unref();
   // Stop accepting; idle keep-alive sockets close now, busy ones after their response.
   if (scan) clearInterval(scan);
+  if (startRetry) clearTimeout(startRetry);
   server.close(async () => {
     await reminders.stop().catch(() => undefined);
     await changeFeed.close();

@@ -137,9 +137,92 @@ function readError(error: unknown): AppError | null {
   return null;
 }
 
-function isDatabaseDown(error: unknown): boolean {
-  const code = (error as { code?: string })?.code;
-  return code === 'ECONNREFUSED' || code === '57P01' || code === '57P03' || code === 'ETIMEDOUT';
+// PostgreSQL's codes for a server that is going away or not yet back (class 57P: operator
+// intervention; class 08: connection exception; 53300: too many connections), and the network
+// errors of a connection that cannot be made or was cut.
+const DATABASE_DOWN_CODES = new Set([
+  '57P01',
+  '57P02',
+  '57P03',
+  '53300',
+  '08000',
+  '08001',
+  '08003',
+  '08004',
+  '08006',
+]);
+const NETWORK_DOWN_CODES = new Set([
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'ETIMEDOUT',
+  'EPIPE',
+  'EHOSTUNREACH',
+  'ENOTCONN',
+]);
+// pg's own messages for a cut connection or a pool that could not connect in time.
+const DATABASE_DOWN_MESSAGE =
+  /^(Connection terminated|timeout exceeded when trying to connect|Client has encountered a connection error|Client was closed)/;
+
+type MaybeError = {
+  code?: unknown;
+  syscall?: unknown;
+  message?: unknown;
+  $metadata?: unknown;
+  command?: unknown;
+};
+
+/** Whether a failure means the database cannot be reached right now (it restarts or is down). */
+export function isDatabaseDown(error: unknown): boolean {
+  if (!error || typeof error !== 'object') return false;
+  const { code, syscall, message } = error as MaybeError;
+  if (typeof code === 'string' && DATABASE_DOWN_CODES.has(code)) return true;
+  if (typeof code === 'string' && NETWORK_DOWN_CODES.has(code)) return true;
+  // The app reaches a local cluster over its Unix socket, whose file is gone while it is stopped.
+  if (code === 'ENOENT' && syscall === 'connect') return true;
+  if (typeof message === 'string' && DATABASE_DOWN_MESSAGE.test(message)) return true;
+  // Several attempts at once (Node's happy eyeballs) fail as one AggregateError.
+  if (error instanceof AggregateError) return error.errors.some(isDatabaseDown);
+  return false;
+}
+
+/** The object store's SDK marks its errors with `$metadata`; without an HTTP status it was not reached. */
+function isStorageDown(error: unknown): boolean {
+  const metadata = (error as MaybeError | null)?.$metadata as { httpStatusCode?: number } | undefined;
+  if (!metadata || typeof metadata !== 'object') return false;
+  return metadata.httpStatusCode === undefined || metadata.httpStatusCode >= 500;
+}
+
+/** nodemailer's errors name the SMTP step (`command`) and a code for a server that did not answer. */
+function isMailDown(error: unknown): boolean {
+  const { code, command } = (error ?? {}) as MaybeError;
+  return (
+    typeof command === 'string' &&
+    typeof code === 'string' &&
+    ['ECONNECTION', 'ESOCKET', 'ETIMEDOUT', 'EDNS', 'ECONNREFUSED'].includes(code)
+  );
+}
+
+export const databaseUnavailable = () =>
+  new AppError(503, 'database_unavailable', 'The database is restarting; try again in a moment.');
+
+/** A backing service that did not answer, as a 503 in the error shape; null for any other error. */
+export function unavailableService(error: unknown): AppError | null {
+  if (isStorageDown(error)) {
+    return new AppError(
+      503,
+      'storage_unavailable',
+      'Photo storage is not reachable right now; try again shortly.',
+    );
+  }
+  if (isMailDown(error)) {
+    return new AppError(
+      503,
+      'mail_unavailable',
+      'The mail server is not reachable right now; try again shortly.',
+    );
+  }
+  if (isDatabaseDown(error)) return databaseUnavailable();
+  return null;
 }
 
 export function errorHandler(logger: Logger): ErrorRequestHandler {
@@ -152,13 +235,18 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       appError = badRequest('The input is not valid.', zodFields(error));
     } else if (unreadable) {
       appError = unreadable;
-    } else if (isDatabaseDown(error)) {
-      appError = serviceDown('The database is not reachable; try again shortly.');
     } else {
-      // Without pino-http's per-request child logger (see requestLogging), the line names the request.
-      const request = req.id === undefined ? { req: { method: req.method, url: req.originalUrl } } : {};
-      (req.log ?? logger).error({ err: error, ...request }, 'unhandled error');
-      appError = new AppError(500, 'internal', 'Something went wrong on our side.');
+      const unavailable = unavailableService(error);
+      if (unavailable) {
+        // Expected while a backing service restarts: a warning, not an error with a stack trace.
+        (req.log ?? logger).warn({ err: error }, `${unavailable.code}: answered 503`);
+        appError = unavailable;
+      } else {
+        // Without pino-http's per-request child logger (see requestLogging), the line names the request.
+        const request = req.id === undefined ? { req: { method: req.method, url: req.originalUrl } } : {};
+        (req.log ?? logger).error({ err: error, ...request }, 'unhandled error');
+        appError = new AppError(500, 'internal', 'Something went wrong on our side.');
+      }
     }
     if (res.headersSent) return res.end();
     res.status(appError.status).json({

@@ -29,14 +29,19 @@ export interface ReminderQueueOptions {
  * missed while the server was down is still found by the next scan.
  */
 export function createReminderQueue(work: ReminderWork, options: ReminderQueueOptions) {
-  const boss = new PgBoss({
-    connectionString: options.databaseUrl,
-    schema: 'pgboss',
-    max: 3,
-    schedule: false,
-    supervise: true,
-  });
-  boss.on('error', (error) => options.logger?.error({ err: error }, 'job queue error'));
+  const createBoss = () => {
+    const created = new PgBoss({
+      connectionString: options.databaseUrl,
+      schema: 'pgboss',
+      max: 3,
+      schedule: false,
+      supervise: true,
+    });
+    // Its pool's errors and failed polls while the database restarts: logged, and pg-boss polls again.
+    created.on('error', (error) => options.logger?.warn({ err: error }, 'job queue error'));
+    return created;
+  };
+  let boss = createBoss();
   let started = false;
 
   /** pg-boss inserts its job through our transaction, so the row and its job commit together. */
@@ -65,7 +70,16 @@ export function createReminderQueue(work: ReminderWork, options: ReminderQueueOp
       }),
     deliver: (reminderId: string) => work.deliver(reminderId),
     async start() {
-      await boss.start();
+      try {
+        await boss.start();
+      } catch (error) {
+        // A pg-boss whose start failed half way cannot be started again: close its pool and keep a
+        // fresh one for the next try (the server retries while the database is down at boot).
+        const failed = boss.getDb() as PgBoss.Db & { opened?: boolean; close?: () => Promise<void> };
+        if (failed.opened) await failed.close?.().catch(() => undefined);
+        boss = createBoss();
+        throw error;
+      }
       started = true;
       await boss.createQueue(REMINDER_QUEUE);
       await boss.work<{ reminderId: string }>(
