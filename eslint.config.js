@@ -81,7 +81,7 @@ const boundaries = {
 };
 
 export default tseslint.config(
-  { ignores: ['dist/', 'node_modules/', '.data/', 'uploads/', 'coverage/'] },
+  { ignores: ['dist/', 'build/', 'node_modules/', '.data/', 'uploads/', 'coverage/'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
