@@ -18,6 +18,7 @@ import {
   startPostgres,
   stopChild,
 } from './lib/services.mjs';
+import { supervise } from './lib/supervise.mjs';
 
 const dev = process.argv.includes('--dev');
 const resetDemo = process.argv.includes('--reset-demo');
@@ -135,18 +136,21 @@ async function main() {
         'server/index.ts',
       ]
     : ['--import', 'tsx', 'server/index.ts'];
-  const server = spawn(process.execPath, serverArgs, {
-    cwd: root,
-    env: { ...env, STATIC_DIR: dev ? path.join(root, '.no-static') : path.join(root, 'dist') },
-    stdio: ['ignore', 'inherit', 'inherit'],
-  });
-  cleanups.push(() => stopChild(server));
-  server.once('exit', (code) => {
-    if (!stopping) {
-      process.stderr.write(`hilum: the app server stopped (exit ${code})\n`);
-      void stopAll(1);
-    }
-  });
+  // A crashed app server is started again (with backoff) while the other services keep running.
+  const server = supervise(
+    () =>
+      spawn(process.execPath, serverArgs, {
+        cwd: root,
+        env: { ...env, STATIC_DIR: dev ? path.join(root, '.no-static') : path.join(root, 'dist') },
+        stdio: ['ignore', 'inherit', 'inherit'],
+      }),
+    {
+      say: (line) => process.stderr.write(`hilum: ${line}\n`),
+      onGiveUp: () => void stopAll(1),
+      stopping: () => stopping,
+    },
+  );
+  cleanups.push(() => server.stop());
 
   if (dev) {
     const vite = spawn(

@@ -34,11 +34,15 @@ const importScript = (file: string) => import(pathToFileURL(path.join(root, file
 /** Resolves once `check` returns a value, polling; fails with `what` after `ms`. */
 /** What a timed-out wait reports beside its name: the answers so far and the server's last lines. */
 let progress = () => '';
+/** Set once the server process has exited: every wait stops at once and says so. */
+let serverGone = '';
 async function waitFor<T>(what: string, check: () => T | undefined | false, ms = 60_000): Promise<T> {
   const deadline = Date.now() + ms;
   for (;;) {
     const value = check();
     if (value) return value;
+    if (serverGone)
+      throw new Error(`the server exited (${serverGone}) while waiting for ${what}: ${progress()}`);
     if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}: ${progress()}`);
     await new Promise((r) => setTimeout(r, 50));
   }
@@ -104,7 +108,10 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
     server.on('message', (message: { type?: string }) => (listening ||= message.type === 'listening'));
     server.stdout!.on('data', (chunk) => (serverLog += chunk));
     server.stderr!.on('data', (chunk) => (serverLog += chunk));
-    server.on('exit', () => (exits += 1));
+    server.on('exit', (code, signal) => {
+      exits += 1;
+      serverGone = `code ${code}, signal ${signal}`;
+    });
     await waitFor('the server to listen', () => listening || exits > 0);
     expect(exits).toBe(0);
     db = createDb(cluster.url, 2);
