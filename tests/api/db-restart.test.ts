@@ -66,12 +66,15 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
   // Inside the checkout, so the compiled server finds node_modules as production does.
   const buildDir = path.join(root, 'build', `fault-test-${crypto.randomBytes(4).toString('hex')}`);
   let base = '';
+  let env: NodeJS.ProcessEnv = {};
+  let built: { index: string; migrate: string };
+  let cookie = '';
 
   beforeAll(async () => {
     fs.chmodSync(tmp, 0o755);
     services = (await importScript('scripts/lib/services.mjs')) as Services;
     const { buildServer } = await importScript('scripts/build-server.mjs');
-    const built = (await buildServer(buildDir)) as { index: string; migrate: string };
+    built = (await buildServer(buildDir)) as { index: string; migrate: string };
 
     cluster = await services.startPostgres({
       bin: services.ensurePostgres(),
@@ -82,7 +85,7 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
     });
     const port = await services.freePort();
     base = `http://127.0.0.1:${port}`;
-    const env = {
+    env = {
       ...process.env,
       NODE_ENV: 'production',
       SESSION_SECRET: crypto.randomBytes(32).toString('base64url'),
@@ -96,33 +99,42 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
     // The compiled migration command, as a deployment runs it before the server.
     const migrated = spawnSync(process.execPath, [built.migrate], { cwd: root, env, encoding: 'utf8' });
     expect(migrated.status, migrated.stderr).toBe(0);
+    await launch();
+    db = createDb(cluster.url, 2);
+  }, 180_000);
 
-    // `npm run serve`'s command: plain Node on the compiled file, no TypeScript loader.
+  /** `npm run serve`'s command: plain Node on the compiled file, no TypeScript loader. */
+  async function launch() {
     // (The IPC channel only carries the server's 'listening' notice.)
-    server = spawn(process.execPath, [built.index], {
+    const child = spawn(process.execPath, [built.index], {
       cwd: root,
       env,
       stdio: ['ignore', 'pipe', 'pipe', 'ipc'],
     });
+    server = child;
+    serverGone = '';
     let listening = false;
-    server.on('message', (message: { type?: string }) => (listening ||= message.type === 'listening'));
-    server.stdout!.on('data', (chunk) => (serverLog += chunk));
-    server.stderr!.on('data', (chunk) => (serverLog += chunk));
-    server.on('exit', (code, signal) => {
+    child.on('message', (message: { type?: string }) => (listening ||= message.type === 'listening'));
+    child.stdout!.on('data', (chunk) => (serverLog += chunk));
+    child.stderr!.on('data', (chunk) => (serverLog += chunk));
+    child.on('exit', (code, signal) => {
+      if (stopped.has(child)) return;
       exits += 1;
       serverGone = `code ${code}, signal ${signal}`;
     });
-    await waitFor('the server to listen', () => listening || exits > 0);
-    expect(exits).toBe(0);
-    db = createDb(cluster.url, 2);
-  }, 180_000);
+    await waitFor('the server to listen', () => listening);
+  }
+  const stopped = new Set<ChildProcess>();
+  async function stopServer() {
+    if (!server || server.exitCode !== null || server.signalCode !== null) return;
+    stopped.add(server);
+    const exited = new Promise((r) => server.once('exit', r));
+    server.kill('SIGTERM');
+    await exited;
+  }
 
   afterAll(async () => {
-    if (server && server.exitCode === null) {
-      const exited = new Promise((r) => server.once('exit', r));
-      server.kill('SIGTERM');
-      await exited;
-    }
+    await stopServer();
     await db?.destroy();
     cluster?.stop();
     fs.rmSync(tmp, { recursive: true, force: true });
@@ -139,7 +151,7 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
       body: JSON.stringify({ email: 'fault@example.org', password: 'a-long-password-1', name: 'Fault' }),
     });
     expect(register.status).toBe(201);
-    const cookie = register.headers
+    cookie = register.headers
       .getSetCookie()
       .map((c) => c.split(';')[0])
       .join('; ');
@@ -262,4 +274,26 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
       await Promise.all(workers);
     }
   }, 300_000);
+
+  it('when the server starts while PostgreSQL is down, then it answers 503 and serves by itself once it is up', async () => {
+    await stopServer();
+    await cluster.halt();
+    await launch();
+    const me = () => fetch(`${base}/api/me`, { headers: { cookie } });
+    const down = await me();
+    expect(down.status).toBe(503);
+    expect((await down.json()).error.code).toBe('database_unavailable');
+
+    await cluster.resume();
+    const backAt = Date.now();
+    let status = 0;
+    while (status !== 200 && !serverGone && Date.now() - backAt < 60_000) {
+      status = (await me()).status;
+      expect([200, 503]).toContain(status);
+      if (status !== 200) await new Promise((r) => setTimeout(r, 100));
+    }
+    expect(status).toBe(200);
+    expect(Date.now() - backAt).toBeLessThan(10_000);
+    expect(exits).toBe(0);
+  }, 180_000);
 });
