@@ -11,7 +11,10 @@ export async function buildServer(outdir = path.join(root, 'build', 'server')) {
     absWorkingDir: root,
     entryPoints: {
       index: 'server/index.ts',
-      migrate: 'server/migrate-cli.ts',
+      // `npm run migrate`'s command, and `npm start`'s database preparation (with --no-demo:
+      // migrations, the reference species and stored results, no demo season).
+      migrate: 'server/db/migrate-cli.ts',
+      prepare: 'scripts/db-prepare.ts',
     },
     outdir,
     bundle: true,
@@ -22,7 +25,11 @@ export async function buildServer(outdir = path.join(root, 'build', 'server')) {
     sourcemap: true,
     logLevel: 'warning',
   });
-  return { index: path.join(outdir, 'index.js'), migrate: path.join(outdir, 'migrate.js') };
+  return {
+    index: path.join(outdir, 'index.js'),
+    migrate: path.join(outdir, 'migrate.js'),
+    prepare: path.join(outdir, 'prepare.js'),
+  };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

@@ -67,14 +67,14 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
   const buildDir = path.join(root, 'build', `fault-test-${crypto.randomBytes(4).toString('hex')}`);
   let base = '';
   let env: NodeJS.ProcessEnv = {};
-  let built: { index: string; migrate: string };
+  let built: { index: string; prepare: string };
   let cookie = '';
 
   beforeAll(async () => {
     fs.chmodSync(tmp, 0o755);
     services = (await importScript('scripts/lib/services.mjs')) as Services;
     const { buildServer } = await importScript('scripts/build-server.mjs');
-    built = (await buildServer(buildDir)) as { index: string; migrate: string };
+    built = (await buildServer(buildDir)) as { index: string; prepare: string };
 
     cluster = await services.startPostgres({
       bin: services.ensurePostgres(),
@@ -96,9 +96,13 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
       APP_ORIGIN: base,
       LOG_LEVEL: 'warn',
     };
-    // The compiled migration command, as a deployment runs it before the server.
-    const migrated = spawnSync(process.execPath, [built.migrate], { cwd: root, env, encoding: 'utf8' });
-    expect(migrated.status, migrated.stderr).toBe(0);
+    // The compiled database preparation, as a deployment runs it before the server.
+    const prepared = spawnSync(process.execPath, [built.prepare, '--no-demo'], {
+      cwd: root,
+      env,
+      encoding: 'utf8',
+    });
+    expect(prepared.status, prepared.stderr).toBe(0);
     await launch();
     db = createDb(cluster.url, 2);
   }, 180_000);
