@@ -13,6 +13,7 @@ import { errorHandler, notFoundApi } from './http/errors';
 import { refuseNul, requireUtf8 } from './http/input-guard';
 import { originCheck, originVariants } from './http/origin-check';
 import { requestLogging } from './http/request-log';
+import { createMailQueue, type MailQueue } from './mail/mail-queue';
 import type { Mailer } from './mail/mailer';
 import { bankAccess } from './auth/bank-access';
 import type { PasswordHasher } from './auth/password';
@@ -63,6 +64,11 @@ export interface AppDeps {
   changeFeed?: ChangeFeed;
   /** argon2id at full strength unless given; API tests pass a cheap one. */
   hasher?: PasswordHasher;
+  /**
+   * The durable mail queue (the server starts its polling worker). Without one, the app makes its
+   * own, which sends right after each request that queues mail but does not poll for retries.
+   */
+  mailQueue?: MailQueue;
 }
 
 export function createApp(deps: AppDeps): Express {
@@ -94,11 +100,12 @@ export function createApp(deps: AppDeps): Express {
   app.use(forgetOnWrites(cache));
 
   const signer = createSessionSigner(config.sessionSecret, deps.clock);
+  const mailQueue = deps.mailQueue ?? createMailQueue({ ...deps, logger });
   const photos = createPhotosService({ db: deps.db, storage: deps.storage, clock: deps.clock, logger });
   const services = {
-    auth: createAuthService({ ...deps, signer, appOrigin: config.appOrigin }),
+    auth: createAuthService({ ...deps, signer, mailQueue, appOrigin: config.appOrigin }),
     banks: createBanksService(deps),
-    invitations: createInvitationsService({ ...deps, appOrigin: config.appOrigin }),
+    invitations: createInvitationsService({ ...deps, mailQueue, appOrigin: config.appOrigin }),
     species: createSpeciesService(deps),
     photos,
     plants: createPlantsService({

@@ -7,6 +7,7 @@ import { ConfigError, loadConfig } from './config';
 import { startChangeFeed } from './db/change-feed';
 import { createDb } from './db/database';
 import { createReminders } from './modules/reminders/reminders.service';
+import { createMailQueue } from './mail/mail-queue';
 import { createMailer } from './mail/mailer';
 import { createViabilityService } from './modules/viability/viability.service';
 import { createObjectStore } from './storage/object-store';
@@ -40,7 +41,10 @@ const db = createDb(config.databaseUrl, config.databasePoolSize, undefined, logg
 const storage = createObjectStore(config.storage);
 const mailer = createMailer(config.mail);
 const changeFeed = startChangeFeed(config.databaseUrl, logger);
-const app = createApp({ config, db, storage, mailer, clock: systemClock, logger, changeFeed });
+// Every server runs the mail worker; rows are claimed one at a time, so each mail is sent once.
+const mailQueue = createMailQueue({ db, mailer, clock: systemClock, logger });
+const app = createApp({ config, db, storage, mailer, mailQueue, clock: systemClock, logger, changeFeed });
+mailQueue.start();
 
 const reminders = createReminders({
   db,
@@ -99,6 +103,7 @@ async function shutdown(signal: string) {
   if (startRetry) clearTimeout(startRetry);
   server.close(async () => {
     await reminders.stop().catch(() => undefined);
+    await mailQueue.stop().catch(() => undefined);
     await changeFeed.close();
     await db.destroy();
     storage.close();

@@ -9,6 +9,8 @@ export interface UserTable {
   email: string;
   name: string;
   password_hash: string;
+  /** When the account proved its e-mail address by a link; null until then. */
+  email_verified_at: ColumnType<Date | null, Date | null | undefined, Date | null>;
   created_at: Timestamp;
   updated_at: Timestamp;
 }
@@ -82,6 +84,37 @@ export interface InvitationTable {
   accepted_at: Date | null;
   accepted_by: string | null;
   revoked_at: Date | null;
+  /** The invitation's latest mail in the queue. */
+  mail_id: ColumnType<string | null, string | null | undefined, string | null>;
+}
+
+export type MailKind = 'invitation' | 'password_reset' | 'email_verification';
+export type MailStatus = 'waiting' | 'sending' | 'sent' | 'skipped' | 'expired';
+
+export interface MailQueueTable {
+  id: Generated<string>;
+  kind: MailKind;
+  to_address: string;
+  subject: string | null;
+  body: string | null;
+  status: ColumnType<MailStatus, MailStatus | undefined, MailStatus>;
+  attempts: ColumnType<number, number | undefined, number>;
+  next_attempt_at: Timestamp;
+  claimed_at: Date | null;
+  sent_at: Date | null;
+  last_error: string | null;
+  expires_at: Date | null;
+  created_at: Timestamp;
+}
+
+export interface EmailVerificationTable {
+  id: Generated<string>;
+  user_id: string;
+  email: string;
+  token_hash: string;
+  created_at: Timestamp;
+  expires_at: Date;
+  used_at: Date | null;
 }
 
 export interface PasswordResetTable {
@@ -296,6 +329,8 @@ export interface Database {
   app_meta: AppMetaTable;
   invitations: InvitationTable;
   password_resets: PasswordResetTable;
+  mail_queue: MailQueueTable;
+  email_verifications: EmailVerificationTable;
   species: SpeciesTable;
   species_overrides: SpeciesOverrideTable;
   photos: PhotoTable;

@@ -7,6 +7,7 @@ import sharp from 'sharp';
 import { addDays } from '#shared/dates';
 import { comingSeason } from '#shared/plan-dates';
 import { bankToday, type Clock } from '../clock';
+import { createMailQueue } from '../mail/mail-queue';
 import type { Mailer } from '../mail/mailer';
 import { refreshStaleResults } from '../modules/germination/assay-results';
 import { createInvitationsService } from '../modules/invitations/invitations.service';
@@ -626,15 +627,17 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
 
   // Some captured mail: an invitation to a neighbour who has not joined yet.
   if (deps.mailer) {
+    const mailQueue = createMailQueue({ db, mailer: deps.mailer, clock: deps.clock });
     const invitations = createInvitationsService({
       db,
       clock: deps.clock,
-      mailer: deps.mailer,
+      mailQueue,
       appOrigin: deps.appOrigin,
     });
     await invitations
       .invite(bank.id, keeper, { email: 'new-neighbour@example.org', role: 'viewer' })
       .catch(() => undefined);
+    await mailQueue.drain();
   }
   return { bankId: bank.id };
 }

@@ -6,6 +6,7 @@ import {
   passwordResetConfirmBodySchema,
   registerBodySchema,
   userSchema,
+  verifyEmailBodySchema,
 } from '#shared/schemas/accounts';
 import {
   acceptInvitationBodySchema,
@@ -220,6 +221,21 @@ export const apiRoutes: ApiRoute[] = [
     responses: [noContent()],
   },
   {
+    method: 'post',
+    path: '/api/auth/verify-email',
+    summary: 'Confirm the account’s e-mail address with the token from the mailed link.',
+    access: 'public',
+    body: verifyEmailBodySchema,
+    responses: [ok(userEnvelope)],
+  },
+  {
+    method: 'post',
+    path: '/api/auth/verify-email/resend',
+    summary: 'Mail a new confirmation link to the signed-in account (409 when already confirmed).',
+    access: 'signed-in',
+    responses: [{ status: 202, description: 'Queued.', json: z.object({ ok: z.literal(true) }) }],
+  },
+  {
     method: 'get',
     path: '/api/me',
     summary: 'The signed-in person and their banks.',
@@ -317,6 +333,13 @@ export const apiRoutes: ApiRoute[] = [
     access: 'owner',
     body: createInvitationBodySchema,
     responses: [created(z.object({ invitation: invitationSchema }))],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/invitations/:invitationId/resend`,
+    summary: 'Mail an open invitation again with a new link (the earlier link stops working).',
+    access: 'owner',
+    responses: [ok(z.object({ invitation: invitationSchema }))],
   },
   {
     method: 'delete',

@@ -34,7 +34,16 @@ export const passwordResetConfirmBodySchema = z.object({
   password: passwordSchema,
 });
 
-export const userSchema = z.object({ id: idSchema, email: z.string(), name: z.string() });
+/** The link from a verification mail. */
+export const verifyEmailBodySchema = z.object({ token: z.string().min(10).max(200) });
+
+/** `emailVerified`: the account proved its e-mail address by a link mailed to it. */
+export const userSchema = z.object({
+  id: idSchema,
+  email: z.string(),
+  name: z.string(),
+  emailVerified: z.boolean(),
+});
 export type PublicUser = z.infer<typeof userSchema>;
 
 export const roleSchema = z.enum(['owner', 'grower', 'viewer'], {

@@ -88,6 +88,14 @@ export const updateMemberBodySchema = z.object({ role: roleSchema });
 export const createInvitationBodySchema = z.object({ email: emailSchema, role: roleSchema });
 export type CreateInvitationBody = z.infer<typeof createInvitationBodySchema>;
 
+/**
+ * The state of an invitation's latest mail: `waiting` to be sent, `sent` (the mail server took
+ * it), `retrying` after a failed try (it is tried again, later each time), `unknown` for an
+ * invitation older than the mail queue.
+ */
+export const invitationMailStateSchema = z.enum(['waiting', 'sent', 'retrying', 'unknown']);
+export type InvitationMailState = z.infer<typeof invitationMailStateSchema>;
+
 export const invitationSchema = z.object({
   id: idSchema,
   email: z.string(),
@@ -95,6 +103,7 @@ export const invitationSchema = z.object({
   invitedBy: z.string().nullable(),
   createdAt: z.string(),
   expiresAt: z.string(),
+  mailState: invitationMailStateSchema,
 });
 export type InvitationDto = z.infer<typeof invitationSchema>;
 export const invitationsResponseSchema = z.object({ items: z.array(invitationSchema) });

@@ -19,7 +19,7 @@ describe('accounts', () => {
       .post('/api/auth/register')
       .send({ email: `  ${email.toUpperCase()} `, password: PASSWORD, name: ' Ada ' });
     expect(reg.status).toBe(201);
-    expect(reg.body.user).toEqual({ id: expect.any(String), email, name: 'Ada' });
+    expect(reg.body.user).toEqual({ id: expect.any(String), email, name: 'Ada', emailVerified: false });
     expect(reg.body.user.passwordHash ?? reg.body.user.password_hash).toBeUndefined();
     const cookie = String(reg.headers['set-cookie']);
     expect(cookie).toMatch(/^hilum_session=/);

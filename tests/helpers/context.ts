@@ -11,6 +11,7 @@ import { startChangeFeed, type ChangeFeed } from '#server/db/change-feed';
 import { createDb, type Db } from '#server/db/database';
 import { migrateToLatest } from '#server/db/migrate';
 import { syncReferenceSpecies } from '#server/modules/species/reference-sync';
+import { createMailQueue, type MailQueue } from '#server/mail/mail-queue';
 import { createMailer, type Mailer } from '#server/mail/mailer';
 import { createObjectStore, type ObjectStore } from '#server/storage/object-store';
 
@@ -81,6 +82,8 @@ export interface TestContext {
   config: Config;
   storage: ObjectStore;
   mailer: Mailer;
+  /** Sends right after each request that queues mail; `start` it to also retry (fault tests). */
+  mailQueue: MailQueue;
   clock: ReturnType<typeof createTestClock>;
   hasher: PasswordHasher;
   /** The app's change feed: `await changeFeed.sync()` after writing in SQL, before reading over HTTP. */
@@ -90,27 +93,41 @@ export interface TestContext {
 
 /** The real app on a database of its own, the shared object-store and SMTP fakes, a test clock. */
 export async function createTestContext(
-  options: { now?: string; config?: Partial<Config>; onQuery?: (sql: string) => void } = {},
+  options: {
+    now?: string;
+    config?: Partial<Config>;
+    onQuery?: (sql: string) => void;
+    hasher?: PasswordHasher;
+    mailRetryDelayMs?: number;
+  } = {},
 ): Promise<TestContext> {
   const database = await createTestDatabase({ onQuery: options.onQuery });
   const config = testConfig({ databaseUrl: database.url, ...options.config });
   const storage = createObjectStore(config.storage);
   const mailer = createMailer(config.mail);
   const clock = createTestClock(options.now ?? '2026-03-01T09:00:00Z');
-  const hasher = cheapTestHasher;
+  const hasher = options.hasher ?? cheapTestHasher;
   const changeFeed = startChangeFeed(config.databaseUrl);
   await changeFeed.ready();
-  const app = createApp({ config, db: database.db, storage, mailer, clock, hasher, changeFeed });
+  const mailQueue = createMailQueue({
+    db: database.db,
+    mailer,
+    clock,
+    retryDelayMs: options.mailRetryDelayMs,
+  });
+  const app = createApp({ config, db: database.db, storage, mailer, mailQueue, clock, hasher, changeFeed });
   return {
     app,
     db: database.db,
     config,
     storage,
     mailer,
+    mailQueue,
     clock,
     hasher,
     changeFeed,
     async close() {
+      await mailQueue.stop();
       await changeFeed.close();
       storage.close();
       mailer.close();

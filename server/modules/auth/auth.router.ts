@@ -6,6 +6,7 @@ import {
   passwordResetConfirmBodySchema,
   registerBodySchema,
   userSchema,
+  verifyEmailBodySchema,
 } from '#shared/schemas/accounts';
 import { z } from 'zod';
 import { DAY_MS } from '#shared/dates';
@@ -71,11 +72,8 @@ export function authRouter(service: AuthService, options: { secureCookies: boole
     ...limitPerIpAndEmail({ windowMs: HOUR, limit: 20 }, { windowMs: HOUR, limit: 3 }),
     async (req, res) => {
       const { email } = parse(passwordResetBodySchema, req.body, 'reset request');
-      try {
-        await service.requestPasswordReset(email);
-      } catch (error) {
-        req.log.error({ err: error }, 'password reset mail failed');
-      }
+      // Queued, not sent: the answer comes at once, the same whether or not the address has an account.
+      await service.requestPasswordReset(email);
       res.status(202).json({ ok: true });
     },
   );
@@ -85,6 +83,16 @@ export function authRouter(service: AuthService, options: { secureCookies: boole
     await service.confirmPasswordReset(token, password);
     res.clearCookie(SESSION_COOKIE, cookie);
     res.status(204).end();
+  });
+
+  router.post('/verify-email', async (req, res) => {
+    const { token } = parse(verifyEmailBodySchema, req.body, 'confirmation link');
+    respond(res, 200, userResponse, { user: await service.verifyEmail(token) });
+  });
+
+  router.post('/verify-email/resend', requireAuth, async (req, res) => {
+    await service.resendVerification(authOf(req).userId);
+    res.status(202).json({ ok: true });
   });
 
   return router;

@@ -9,16 +9,64 @@ export function findUserByEmail(db: DbOrTx, email: string) {
     .executeTakeFirst();
 }
 
+/** The account as the API shows it. */
+export function publicUser(row: { id: string; email: string; name: string; email_verified_at: Date | null }) {
+  return { id: row.id, email: row.email, name: row.name, emailVerified: row.email_verified_at != null };
+}
+
 export function findUserById(db: DbOrTx, id: string) {
-  return db.selectFrom('users').select(['id', 'email', 'name']).where('id', '=', id).executeTakeFirst();
+  return db
+    .selectFrom('users')
+    .select(['id', 'email', 'name', 'email_verified_at'])
+    .where('id', '=', id)
+    .executeTakeFirst();
 }
 
 export function insertUser(db: DbOrTx, user: { email: string; name: string; passwordHash: string }) {
   return db
     .insertInto('users')
     .values({ email: user.email, name: user.name, password_hash: user.passwordHash })
-    .returning(['id', 'email', 'name'])
+    .returning(['id', 'email', 'name', 'email_verified_at'])
     .executeTakeFirstOrThrow();
+}
+
+/** Records that the account proved its address, if that is still the account's address. */
+export function markEmailVerified(db: DbOrTx, userId: string, email: string, now: Date) {
+  return db
+    .updateTable('users')
+    .set({ email_verified_at: now })
+    .where('id', '=', userId)
+    .where(sql<string>`lower(email)`, '=', email.toLowerCase())
+    .where('email_verified_at', 'is', null)
+    .execute();
+}
+
+export function insertEmailVerification(
+  db: DbOrTx,
+  link: { userId: string; email: string; tokenHash: string; expiresAt: Date; now: Date },
+) {
+  return db
+    .insertInto('email_verifications')
+    .values({
+      user_id: link.userId,
+      email: link.email,
+      token_hash: link.tokenHash,
+      expires_at: link.expiresAt,
+      created_at: link.now,
+    })
+    .execute();
+}
+
+/** Marks a valid verification link used; returns its account and address, or undefined. */
+export function consumeEmailVerification(db: DbOrTx, tokenHash: string, now: Date) {
+  return db
+    .updateTable('email_verifications')
+    .set({ used_at: now })
+    .where('token_hash', '=', tokenHash)
+    .where('used_at', 'is', null)
+    .where('expires_at', '>', now)
+    .returning(['user_id', 'email'])
+    .executeTakeFirst();
 }
 
 export function setPassword(db: DbOrTx, userId: string, passwordHash: string, now: Date) {
@@ -76,6 +124,27 @@ export function insertPasswordReset(
       expires_at: reset.expiresAt,
       created_at: reset.now,
     })
+    .execute();
+}
+
+/** The user of a reset token that is unused and unexpired, read without using it up. */
+export function findOpenPasswordReset(db: DbOrTx, tokenHash: string, now: Date) {
+  return db
+    .selectFrom('password_resets')
+    .select('user_id')
+    .where('token_hash', '=', tokenHash)
+    .where('used_at', 'is', null)
+    .where('expires_at', '>', now)
+    .executeTakeFirst();
+}
+
+/** Ends every unused reset link of the user (after one of them set a new password). */
+export function closePasswordResets(db: DbOrTx, userId: string, now: Date) {
+  return db
+    .updateTable('password_resets')
+    .set({ used_at: now })
+    .where('user_id', '=', userId)
+    .where('used_at', 'is', null)
     .execute();
 }
 

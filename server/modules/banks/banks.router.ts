@@ -90,6 +90,11 @@ export function bankRoutes(banks: BanksService, invitations: InvitationsService)
     await invitations.revoke(bankId(req), invitationId);
     res.status(204).end();
   });
+  router.post('/invitations/:invitationId/resend', requireRole('owner'), async (req, res) => {
+    const { invitationId } = param(invitationIdParam, req.params);
+    const invitation = await invitations.resend(bankId(req), invitationId);
+    respond(res, 200, z.object({ invitation: invitationSchema }), { invitation });
+  });
 
   return router;
 }
