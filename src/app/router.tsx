@@ -56,6 +56,10 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               lazy: page(() => import('./routes/auth/reset-password'), 'ResetPasswordPage'),
             },
             {
+              path: paths.verifyEmail.path,
+              lazy: page(() => import('./routes/auth/verify-email'), 'VerifyEmailPage'),
+            },
+            {
               path: paths.acceptInvitation.path,
               loader: async () => {
                 await ensureMe(queryClient);

@@ -16,6 +16,10 @@ export const paths = {
   signUp: { path: '/sign-up', getHref: (next?: string) => withNext('/sign-up', next) },
   forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
   resetPassword: { path: '/reset-password', getHref: () => '/reset-password' },
+  verifyEmail: {
+    path: '/verify-email',
+    getHref: (token: string) => `/verify-email?token=${encodeURIComponent(token)}`,
+  },
   acceptInvitation: {
     path: '/invitations/accept',
     getHref: (token: string) => `/invitations/accept?token=${encodeURIComponent(token)}`,

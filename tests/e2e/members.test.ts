@@ -49,6 +49,50 @@ describe.skipIf(!chromiumPath)('the members page in Chromium', () => {
     expect(row).toEqual({ role: 'grower', accepted_at: null, revoked_at: null });
     const mail = await waitForMail((m) => m.to.includes(invitee));
     expect(mail.text).toContain(`${suite.server.baseUrl}/invitations/accept?token=`);
+    // The list follows the mail from the queue: waiting, then sent.
+    await expect.poll(() => open.filter({ hasText: invitee }).innerText()).toMatch(/\bSent\b/);
+
+    // Sent again: a second mail with a new link, and the first link no longer works.
+    await page.getByRole('button', { name: `Send the invitation to ${invitee} again` }).click();
+    const second = await waitForMail((m) => m.to.includes(invitee) && m.id !== mail.id);
+    const tokenOf = (text: string) => /invitations\/accept\?token=(\S+)/.exec(text)?.[1];
+    expect(tokenOf(second.text)).toBeTruthy();
+    expect(tokenOf(second.text)).not.toBe(tokenOf(mail.text));
+    await expect.poll(() => open.filter({ hasText: invitee }).innerText()).toMatch(/\bSent\b/);
+    await page.close();
+  });
+
+  it('when someone signs up, then the account menu says the address is unconfirmed until the mailed link is used', async () => {
+    const page = await suite.browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const email = `confirm-${Date.now()}@example.org`;
+    await page.goto(`${suite.server.baseUrl}/sign-up`);
+    await page.getByLabel('Your name').fill('Newcomer');
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill('a long enough password');
+    await page.getByRole('button', { name: 'Create account' }).click();
+    await page.waitForURL((url) => !url.pathname.startsWith('/sign-up'));
+
+    await page.getByRole('button', { name: 'Account', exact: true }).click();
+    await expect.poll(() => page.getByText('Address not confirmed yet').first().isVisible()).toBe(true);
+    const first = await waitForMail((m) => m.to.includes(email) && /confirm/i.test(m.subject));
+    await page.getByRole('button', { name: 'Send the link again' }).click();
+    await expect
+      .poll(() => page.getByRole('status').filter({ hasText: 'A new link is on its way' }).count())
+      .toBe(1);
+    const second = await waitForMail(
+      (m) => m.to.includes(email) && /confirm/i.test(m.subject) && m.id !== first.id,
+    );
+
+    const link = /\S+\/verify-email\?token=\S+/.exec(second.text)![0];
+    await page.goto(link);
+    await page.getByRole('button', { name: 'Confirm my e-mail address' }).click();
+    await expect
+      .poll(() => page.getByRole('status').filter({ hasText: 'Address confirmed' }).count())
+      .toBe(1);
+    await page.goto(`${suite.server.baseUrl}/`);
+    await page.getByRole('button', { name: 'Account', exact: true }).click();
+    await expect.poll(() => page.getByText('Address confirmed', { exact: true }).isVisible()).toBe(true);
+    expect(await page.getByText('Address not confirmed yet').count()).toBe(0);
     await page.close();
   });
 

@@ -4,6 +4,7 @@ import { AppShell } from '#src/components/layout/app-shell';
 import { paths } from '#src/config/paths';
 import { useMe } from '#src/features/auth/api/get-me';
 import { useLogout } from '#src/features/auth/api/logout';
+import { useResendVerification } from '#src/features/auth/api/verify-email';
 import { isNonProduction, useHealth } from '#src/features/health/api/get-health';
 import type { SignInState } from '../session';
 
@@ -24,6 +25,7 @@ export function RootLayout() {
   const navigation = useNavigation();
   const navigate = useNavigate();
   const logout = useLogout();
+  const resendVerification = useResendVerification();
   const [signingOut, setSigningOut] = useState<'here' | 'everywhere'>();
   const showDevLinks = import.meta.env.DEV || isNonProduction(health.data);
   const currentBankId = useCurrentBankId();
@@ -52,6 +54,12 @@ export function RootLayout() {
         onSignOut: (everywhere) => void signOut(everywhere),
         signingOut,
         signOutError: logout.error?.message,
+        verification: {
+          onResend: () => resendVerification.mutate(),
+          sending: resendVerification.isPending,
+          sent: resendVerification.isSuccess,
+          error: resendVerification.error?.message,
+        },
       }}
       banks={user ? me.data?.memberships : undefined}
       currentBankId={inBank ? currentBankId : undefined}

@@ -9,6 +9,16 @@ import { useDisclosure } from './use-disclosure';
 export interface AccountMenuUser {
   name: string;
   email: string;
+  /** Whether the address was confirmed by the mailed link. */
+  emailVerified?: boolean;
+}
+
+/** Asking for a new confirmation link, for an account whose address is not confirmed yet. */
+export interface AccountMenuVerification {
+  onResend: () => void;
+  sending: boolean;
+  sent: boolean;
+  error?: string | undefined;
 }
 
 export interface AccountMenuProps {
@@ -20,10 +30,18 @@ export interface AccountMenuProps {
   signOutError?: string | undefined;
   /** Account → Reminders for the bank whose pages are open; left out outside a bank. */
   remindersHref?: string | undefined;
+  verification?: AccountMenuVerification | undefined;
 }
 
 /** The person's name and e-mail with the two ways to sign out; sign-in links when signed out. */
-export function AccountMenu({ user, onSignOut, signingOut, signOutError, remindersHref }: AccountMenuProps) {
+export function AccountMenu({
+  user,
+  onSignOut,
+  signingOut,
+  signOutError,
+  remindersHref,
+  verification,
+}: AccountMenuProps) {
   const { open, setOpen, rootRef, buttonRef } = useDisclosure();
   const panelId = useId();
   const location = useLocation();
@@ -72,6 +90,37 @@ export function AccountMenu({ user, onSignOut, signingOut, signOutError, reminde
         <p className="text-sm text-loam-600">Signed in as</p>
         <p className="font-semibold text-loam-900">{user.name}</p>
         <p className="break-all text-sm text-loam-700">{user.email}</p>
+        {user.emailVerified === true ? (
+          <p className="mt-1 text-sm text-moss-800">Address confirmed</p>
+        ) : user.emailVerified === false ? (
+          <div className="mt-2 grid gap-2 rounded-lg border border-seedcoat-300 bg-seedcoat-100 p-3 text-sm text-seedcoat-800">
+            <p>
+              <span className="font-semibold">Address not confirmed yet.</span> Open the link we mailed you.
+              Until then nobody can make you an owner of their bank.
+            </p>
+            {verification ? (
+              verification.sent ? (
+                <p role="status" className="font-semibold">
+                  A new link is on its way to {user.email}.
+                </p>
+              ) : (
+                <Button
+                  variant="secondary"
+                  fullWidth
+                  isLoading={verification.sending}
+                  onClick={verification.onResend}
+                >
+                  Send the link again
+                </Button>
+              )
+            ) : null}
+            {verification?.error ? (
+              <p role="alert" className="font-semibold text-clay-700">
+                {verification.error}
+              </p>
+            ) : null}
+          </div>
+        ) : null}
         {signOutError ? (
           <p role="alert" className="mt-3 text-sm font-semibold text-clay-700">
             {signOutError}
