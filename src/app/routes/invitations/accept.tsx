@@ -8,6 +8,7 @@ import { Loading } from '#src/components/ui/spinner';
 import { paths } from '#src/config/paths';
 import { useMe } from '#src/features/auth/api/get-me';
 import { authKeys } from '#src/features/auth/api/keys';
+import { useResendVerification } from '#src/features/auth/api/verify-email';
 import { useAcceptInvitation } from '#src/features/banks/api/accept-invitation';
 import { isApiError } from '#src/lib/api-client';
 import type { BankNoticeState } from '../banks/bank-layout';
@@ -23,6 +24,7 @@ export function AcceptInvitationPage() {
   const me = useMe();
   const queryClient = useQueryClient();
   const navigate = useNavigate();
+  const resendVerification = useResendVerification();
   const accept = useAcceptInvitation({
     onSuccess: async (joined) => {
       // The new membership must be in the bank switcher before the bank opens.
@@ -82,6 +84,23 @@ export function AcceptInvitationPage() {
           >
             {refused.message}
           </FormAlert>
+        ) : null}
+        {refused && isApiError(refused) && refused.code === 'email_unverified' ? (
+          resendVerification.isSuccess ? (
+            <FormAlert tone="info">
+              A confirmation link is on its way to {me.data.user.email}. Open it, then come back here.
+            </FormAlert>
+          ) : (
+            <Button
+              variant="secondary"
+              size="lg"
+              fullWidth
+              isLoading={resendVerification.isPending}
+              onClick={() => resendVerification.mutate()}
+            >
+              Send me the confirmation link
+            </Button>
+          )
         ) : null}
         {refused &&
         isApiError(refused) &&
