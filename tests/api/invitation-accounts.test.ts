@@ -1,7 +1,8 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, addDemoPeople } from '#server/demo/demo-people';
 import type { CapturedMail } from '#server/mail/outbox';
-import { signUp, uniqueEmail } from '../helpers/accounts';
+import { signIn, signUp, uniqueEmail } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { linkIn, waitForMail } from '../helpers/outbox';
 
@@ -114,6 +115,17 @@ describe('confirming an e-mail address', () => {
       .send({ token: tokenOf(second, '/verify-email') });
     expect(res.status).toBe(200);
     expect((await agent.get('/api/me')).body.user.emailVerified).toBe(true);
+  });
+
+  it('when the demo people sign in, then their addresses count as confirmed', async () => {
+    await addDemoPeople(ctx.db, ctx.hasher);
+    for (const account of DEMO_ACCOUNTS) {
+      const agent = await signIn(ctx.app, account.email, DEMO_PASSWORD);
+      expect((await agent.get('/api/me')).body.user).toMatchObject({
+        email: account.email,
+        emailVerified: true,
+      });
+    }
   });
 
   it('when the token is missing or not signed in to resend, then it is 400 or 401 in the error shape', async () => {
