@@ -14,6 +14,7 @@ import * as m20261202000100 from './2026_12_02_000100_test_set_aside';
 import * as m20261202000200 from './2026_12_02_000200_stored_lot_figures';
 import * as m20261202000300 from './2026_12_02_000300_change_notices';
 import * as m20261202004817 from './2026_12_02_004817_mail_queue';
+import * as m20261202006271 from './2026_12_02_006271_rate_limits';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_000000_accounts_and_banks': m20261201000000,
@@ -29,4 +30,5 @@ export const migrations: Record<string, Migration> = {
   '2026_12_02_000200_stored_lot_figures': m20261202000200,
   '2026_12_02_000300_change_notices': m20261202000300,
   '2026_12_02_004817_mail_queue': m20261202004817,
+  '2026_12_02_006271_rate_limits': m20261202006271,
 };

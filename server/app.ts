@@ -12,6 +12,7 @@ import { createReadCache, forgetOnWrites } from './db/read-cache';
 import { errorHandler, notFoundApi } from './http/errors';
 import { refuseNul, requireUtf8 } from './http/input-guard';
 import { originCheck, originVariants } from './http/origin-check';
+import { authRateLimits, createRateLimiter } from './http/rate-limit';
 import { requestLogging } from './http/request-log';
 import { createMailQueue, type MailQueue } from './mail/mail-queue';
 import type { Mailer } from './mail/mailer';
@@ -76,7 +77,8 @@ export function createApp(deps: AppDeps): Express {
   const logger = deps.logger ?? pino({ level: config.logLevel });
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // X-Forwarded-For names the client only when it comes from a proxy named in TRUST_PROXY.
+  app.set('trust proxy', config.trustProxy);
 
   app.use(
     helmet({
@@ -124,12 +126,13 @@ export function createApp(deps: AppDeps): Express {
   };
   const plan = createPlanService({ ...deps, viability: services.viability });
   const secureCookies = config.appOrigin.startsWith('https:');
+  const limits = authRateLimits(createRateLimiter({ db: deps.db, clock: deps.clock, logger }));
 
   const api = express.Router();
   api.use('/health', healthRouter(deps));
   api.use(openApiRoutes({ production: config.env === 'production' }));
   api.use(sessionMiddleware(deps.db, signer, deps.clock, cache));
-  api.use('/auth', authRouter(services.auth, { secureCookies }));
+  api.use('/auth', authRouter(services.auth, { secureCookies, limits }));
   api.use('/me', meRouter(services.auth));
   api.use('/invitations', invitationsRouter(services.invitations));
   api.use('/banks', requireAuth, createBankRouter(services.banks));

@@ -1,9 +1,48 @@
 import crypto from 'node:crypto';
 import fs from 'node:fs';
+import net from 'node:net';
 import path from 'node:path';
 import { z } from 'zod';
 
 const port = z.coerce.number().int().min(0).max(65535);
+
+export type TrustProxy = false | number | string[];
+
+/** Express's names for address ranges, besides addresses and subnets. */
+const PROXY_RANGES = ['loopback', 'linklocal', 'uniquelocal'];
+
+function isAddressOrSubnet(entry: string): boolean {
+  const [address = '', prefix, ...rest] = entry.split('/');
+  const family = net.isIP(address);
+  if (family === 0 || rest.length > 0) return false;
+  if (prefix === undefined) return true;
+  return /^\d+$/.test(prefix) && Number(prefix) <= (family === 4 ? 32 : 128);
+}
+
+/**
+ * TRUST_PROXY: unset, empty, `false` or 0 trusts no proxy; otherwise a number of hops, or a
+ * comma-separated list of proxy addresses, subnets (CIDR) and the names loopback, linklocal and
+ * uniquelocal. `true` is refused: it would let any client name its own address.
+ */
+const trustProxy = z
+  .string()
+  .optional()
+  .transform((value, ctx): TrustProxy => {
+    const text = value?.trim() ?? '';
+    if (text === '' || text.toLowerCase() === 'false') return false;
+    if (/^\d+$/.test(text)) return Number(text) || false;
+    const entries = text.split(',').map((e) => e.trim().toLowerCase());
+    const wrong = entries.filter((e) => !PROXY_RANGES.includes(e) && !isAddressOrSubnet(e));
+    if (wrong.length === 0) return entries;
+    ctx.addIssue({
+      code: 'custom',
+      message:
+        `${wrong.map((e) => `"${e}"`).join(', ')} is not a proxy address, a subnet (such as 10.0.0.0/8), ` +
+        'loopback, linklocal, uniquelocal or a number of hops; name the proxies in front of the app ' +
+        '(trusting every sender would let any client choose its own address)',
+    });
+    return z.NEVER;
+  });
 
 const EnvSchema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
@@ -28,6 +67,7 @@ const EnvSchema = z.object({
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
   STATIC_DIR: z.string().default('dist'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  TRUST_PROXY: trustProxy,
 });
 
 export type Env = z.infer<typeof EnvSchema>;
@@ -59,6 +99,11 @@ export interface Config {
   sessionSecret: string;
   staticDir: string;
   logLevel: Env['LOG_LEVEL'];
+  /**
+   * The proxies whose X-Forwarded-For names the client (Express's `trust proxy`): false trusts
+   * none, so the client is the socket's peer; a number trusts that many hops in front of the app.
+   */
+  trustProxy: TrustProxy;
 }
 
 /** Reads the signing secret from the data directory, creating it once, outside production. */
@@ -111,5 +156,6 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     sessionSecret: env.SESSION_SECRET ?? developmentSecret(dataDir),
     staticDir: path.resolve(env.STATIC_DIR),
     logLevel: env.LOG_LEVEL,
+    trustProxy: env.TRUST_PROXY,
   };
 }

@@ -321,6 +321,13 @@ export interface PlanEntryTable {
   updated_at: Timestamp;
 }
 
+/** An attempt counter of a rate limit (server/http/rate-limit.ts); `key` is a SHA-256, hex. */
+export interface RateLimitTable {
+  key: string;
+  hits: number;
+  reset_at: Date;
+}
+
 export interface Database {
   users: UserTable;
   sessions: SessionTable;
@@ -345,6 +352,7 @@ export interface Database {
   plan_entries: PlanEntryTable;
   reminders: ReminderTable;
   viability_stamps: ViabilityStampTable;
+  rate_limits: RateLimitTable;
 }
 
 export type User = Selectable<UserTable>;

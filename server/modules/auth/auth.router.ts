@@ -13,16 +13,18 @@ import { DAY_MS } from '#shared/dates';
 import { requireAuth } from '#server/auth/session.middleware';
 import { SESSION_COOKIE, SESSION_DAYS } from '#server/auth/tokens';
 import { parse } from '#server/http/errors';
-import { limitPerIpAndEmail } from '#server/http/rate-limit';
+import type { AuthLimits } from '#server/http/rate-limit';
 import { respond } from '#server/http/respond';
 import type { AuthService } from './auth.service';
 import { authOf } from '#server/http/request-context';
 
 const userResponse = z.object({ user: userSchema });
-const FIFTEEN_MINUTES = 15 * 60 * 1000;
-const HOUR = 60 * 60 * 1000;
 
-export function authRouter(service: AuthService, options: { secureCookies: boolean }): Router {
+export function authRouter(
+  service: AuthService,
+  options: { secureCookies: boolean; limits: AuthLimits },
+): Router {
+  const { limits } = options;
   const router = Router();
   const cookie: CookieOptions = {
     httpOnly: true,
@@ -34,26 +36,19 @@ export function authRouter(service: AuthService, options: { secureCookies: boole
   const setSession = (res: Response, session: { token: string }) =>
     res.cookie(SESSION_COOKIE, session.token, { ...cookie, maxAge: SESSION_DAYS * DAY_MS });
 
-  router.post('/register', async (req, res) => {
+  router.post('/register', limits.signUp, async (req, res) => {
     const body = parse(registerBodySchema, req.body, 'sign-up');
     const { user, session } = await service.register(body, req.get('user-agent') ?? null);
     setSession(res, session);
     respond(res, 201, userResponse, { user });
   });
 
-  router.post(
-    '/login',
-    ...limitPerIpAndEmail(
-      { windowMs: FIFTEEN_MINUTES, limit: 30, onlyFailures: true },
-      { windowMs: FIFTEEN_MINUTES, limit: 5, onlyFailures: true },
-    ),
-    async (req, res) => {
-      const body = parse(loginBodySchema, req.body, 'sign-in');
-      const { user, session } = await service.login(body, req.get('user-agent') ?? null);
-      setSession(res, session);
-      respond(res, 200, userResponse, { user });
-    },
-  );
+  router.post('/login', limits.signIn, async (req, res) => {
+    const body = parse(loginBodySchema, req.body, 'sign-in');
+    const { user, session } = await service.login(body, req.get('user-agent') ?? null);
+    setSession(res, session);
+    respond(res, 200, userResponse, { user });
+  });
 
   router.post('/logout', async (req, res) => {
     if (req.auth) await service.logout(req.auth.sessionId);
@@ -67,18 +62,14 @@ export function authRouter(service: AuthService, options: { secureCookies: boole
     res.status(204).end();
   });
 
-  router.post(
-    '/password-reset',
-    ...limitPerIpAndEmail({ windowMs: HOUR, limit: 20 }, { windowMs: HOUR, limit: 3 }),
-    async (req, res) => {
-      const { email } = parse(passwordResetBodySchema, req.body, 'reset request');
-      // Queued, not sent: the answer comes at once, the same whether or not the address has an account.
-      await service.requestPasswordReset(email);
-      res.status(202).json({ ok: true });
-    },
-  );
+  router.post('/password-reset', limits.resetRequest, async (req, res) => {
+    const { email } = parse(passwordResetBodySchema, req.body, 'reset request');
+    // Queued, not sent: the answer comes at once, the same whether or not the address has an account.
+    await service.requestPasswordReset(email);
+    res.status(202).json({ ok: true });
+  });
 
-  router.post('/password-reset/confirm', async (req, res) => {
+  router.post('/password-reset/confirm', limits.resetConfirm, async (req, res) => {
     const { token, password } = parse(passwordResetConfirmBodySchema, req.body, 'new password');
     await service.confirmPasswordReset(token, password);
     res.clearCookie(SESSION_COOKIE, cookie);
