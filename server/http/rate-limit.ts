@@ -5,7 +5,7 @@ import type { Logger } from 'pino';
 import { emailSchema } from '#shared/schemas/accounts';
 import type { Clock } from '#server/clock';
 import type { Db } from '#server/db/database';
-import { countAttempts, sweepEndedCounters, uncountAttempts, type Counted } from '#server/db/rate-limits';
+import { countAttempts, sweepEndedCounters, uncountAttempts } from '#server/db/rate-limits';
 import { AppError } from './errors';
 
 const MINUTE = 60_000;
