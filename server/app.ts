@@ -70,6 +70,11 @@ export interface AppDeps {
    * own, which sends right after each request that queues mail but does not poll for retries.
    */
   mailQueue?: MailQueue;
+  /**
+   * Sign-ups an hour from one address (server/http/rate-limit.ts) unless given; API tests, which
+   * sign up hundreds of people from 127.0.0.1 under a clock that stands still, pass a larger one.
+   */
+  signUpLimit?: number;
 }
 
 export function createApp(deps: AppDeps): Express {
@@ -126,7 +131,9 @@ export function createApp(deps: AppDeps): Express {
   };
   const plan = createPlanService({ ...deps, viability: services.viability });
   const secureCookies = config.appOrigin.startsWith('https:');
-  const limits = authRateLimits(createRateLimiter({ db: deps.db, clock: deps.clock, logger }));
+  const limits = authRateLimits(createRateLimiter({ db: deps.db, clock: deps.clock, logger }), {
+    signUpLimit: deps.signUpLimit,
+  });
 
   const api = express.Router();
   api.use('/health', healthRouter(deps));

@@ -119,6 +119,8 @@ const byAddress = (name: string, windowMs: number, limit: number, onlyFailures =
   key: clientAddress,
 });
 
+export const SIGN_UPS_PER_HOUR = 100;
+
 /** The limits on the routes that take a password or a link's token without a session. */
 export interface AuthLimits {
   signIn: RequestHandler;
@@ -137,7 +139,10 @@ export interface AuthLimits {
  * - reset request: 20 an hour per address and 3 an hour per e-mail (each one sends a mail);
  * - reset confirm: 20 in 15 minutes per address.
  */
-export function authRateLimits(limit: ReturnType<typeof createRateLimiter>): AuthLimits {
+export function authRateLimits(
+  limit: ReturnType<typeof createRateLimiter>,
+  { signUpLimit = SIGN_UPS_PER_HOUR }: { signUpLimit?: number | undefined } = {},
+): AuthLimits {
   return {
     signIn: limit(byAddress('sign-in', 15 * MINUTE, 50, true), {
       name: 'sign-in per account and address',
@@ -146,7 +151,7 @@ export function authRateLimits(limit: ReturnType<typeof createRateLimiter>): Aut
       onlyFailures: true,
       key: (req) => `${emailOf(req)}\n${clientAddress(req)}`,
     }),
-    signUp: limit(byAddress('sign-up', HOUR, 100)),
+    signUp: limit(byAddress('sign-up', HOUR, signUpLimit)),
     resetRequest: limit(byAddress('reset request', HOUR, 20), {
       name: 'reset request per e-mail',
       windowMs: HOUR,

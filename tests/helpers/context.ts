@@ -76,6 +76,13 @@ export const cheapTestHasher: PasswordHasher = {
   verify: verifyPassword,
 };
 
+/**
+ * Sign-ups an hour from one address in API tests: every test signs people up from 127.0.0.1 while
+ * the test clock stands still, hundreds in some files. The production limit has tests of its own
+ * (tests/api/rate-limits.test.ts).
+ */
+export const TEST_SIGN_UP_LIMIT = 100_000;
+
 export interface TestContext {
   app: Express;
   db: Db;
@@ -86,6 +93,7 @@ export interface TestContext {
   mailQueue: MailQueue;
   clock: ReturnType<typeof createTestClock>;
   hasher: PasswordHasher;
+  signUpLimit: number;
   /** The app's change feed: `await changeFeed.sync()` after writing in SQL, before reading over HTTP. */
   changeFeed: ChangeFeed;
   close(): Promise<void>;
@@ -115,7 +123,18 @@ export async function createTestContext(
     clock,
     retryDelayMs: options.mailRetryDelayMs,
   });
-  const app = createApp({ config, db: database.db, storage, mailer, mailQueue, clock, hasher, changeFeed });
+  const signUpLimit = TEST_SIGN_UP_LIMIT;
+  const app = createApp({
+    config,
+    db: database.db,
+    storage,
+    mailer,
+    mailQueue,
+    clock,
+    hasher,
+    changeFeed,
+    signUpLimit,
+  });
   return {
     app,
     db: database.db,
@@ -125,6 +144,7 @@ export async function createTestContext(
     mailQueue,
     clock,
     hasher,
+    signUpLimit,
     changeFeed,
     async close() {
       await mailQueue.stop();
