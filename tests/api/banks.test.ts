@@ -110,8 +110,23 @@ describe('banks and members', () => {
     });
   });
 
+  it('when a member has not confirmed their e-mail, then they cannot be made an owner', async () => {
+    const { bankId, owner, grower } = await bankWithRoles(ctx.app, ctx.db);
+    const res = await owner.agent
+      .patch(`/api/banks/${bankId}/members/${grower.user.id}`)
+      .send({ role: 'owner' });
+    expect(res.status).toBe(403);
+    expect(res.body.error.code).toBe('email_unverified');
+    expect((await grower.agent.get(`/api/banks/${bankId}`)).body.role).toBe('grower');
+  });
+
   it('when a second owner exists, then the first may step down', async () => {
     const { bankId, owner, grower } = await bankWithRoles(ctx.app, ctx.db);
+    await ctx.db
+      .updateTable('users')
+      .set({ email_verified_at: new Date() })
+      .where('id', '=', grower.user.id)
+      .execute();
     expect(
       (await owner.agent.patch(`/api/banks/${bankId}/members/${grower.user.id}`).send({ role: 'owner' }))
         .status,

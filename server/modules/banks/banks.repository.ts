@@ -53,14 +53,15 @@ export function listMembers(db: DbOrTx, bankId: string) {
     .execute();
 }
 
-/** The membership row, locked for the rest of the transaction. */
+/** The membership row, locked for the rest of the transaction, with whether its e-mail is confirmed. */
 export function lockMembership(db: DbOrTx, bankId: string, userId: string) {
   return db
     .selectFrom('memberships')
-    .select('role')
-    .where('bank_id', '=', bankId)
-    .where('user_id', '=', userId)
-    .forUpdate()
+    .innerJoin('users', 'users.id', 'memberships.user_id')
+    .select(['memberships.role', 'users.email_verified_at'])
+    .where('memberships.bank_id', '=', bankId)
+    .where('memberships.user_id', '=', userId)
+    .forUpdate(['memberships'])
     .executeTakeFirst();
 }
 

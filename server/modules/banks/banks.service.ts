@@ -2,7 +2,7 @@ import type { Role } from '#shared/schemas/accounts';
 import type { CreateBankBody, UpdateBankBody } from '#shared/schemas/banks';
 import type { Db } from '#server/db/database';
 import type { Bank, BankUpdate } from '#server/db/schema';
-import { conflict, notFound } from '#server/http/errors';
+import { AppError, conflict, notFound } from '#server/http/errors';
 import type { Clock } from '#server/clock';
 import * as repo from './banks.repository';
 
@@ -34,6 +34,14 @@ export function createBanksService({ db, clock }: { db: Db; clock: Clock }) {
             ? 'The last owner cannot leave or be removed. Make someone else an owner first.'
             : 'The last owner cannot be demoted. Make someone else an owner first.',
           'last_owner',
+        );
+      }
+      // The same rule as an owner's invitation: an owner's address is one they have confirmed.
+      if (next === 'owner' && member.role !== 'owner' && !member.email_verified_at) {
+        throw new AppError(
+          403,
+          'email_unverified',
+          'Only someone who has confirmed their e-mail address can be an owner. Ask them to confirm it (Account menu → send the link again), then try again.',
         );
       }
       if (next === null) await repo.deleteMembership(trx, bankId, userId);
