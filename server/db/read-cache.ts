@@ -71,25 +71,32 @@ export function createReadCache(feed: ChangeFeed | undefined): ReadCache {
 
   function put(scope: CacheScope, key: string, value: unknown, ticket: number | null) {
     if (ticket === null || ticket !== generation || !feed?.live) return;
-    const map = mapOf(scope, true)!;
     if (scope === 'auth') {
-      if (map.size >= LIMITS.auth) map.delete(map.keys().next().value!);
-    } else {
-      if (bankEntries >= LIMITS.banks) forgetAll();
-      if (!map.has(key)) bankEntries += 1;
+      if (auth.size >= LIMITS.auth && !auth.has(key)) auth.delete(auth.keys().next().value!);
+      auth.set(key, value);
+      return;
     }
+    // Past the limit the banks' pages start afresh; sessions and roles stay.
+    if (bankEntries >= LIMITS.banks && !mapOf(scope, false)?.has(key)) {
+      banks.clear();
+      bankEntries = 0;
+    }
+    const map = mapOf(scope, true)!;
+    if (!map.has(key)) bankEntries += 1;
     map.set(key, value);
   }
 
   const ticket = () => (feed?.live ? generation : null);
 
+  const get = <T>(scope: CacheScope, key: string) =>
+    (feed?.live ? mapOf(scope, false)?.get(key) : undefined) as T | undefined;
+
   return {
-    get: <T>(scope: CacheScope, key: string) =>
-      (feed?.live ? mapOf(scope, false)?.get(key) : undefined) as T | undefined,
+    get,
     ticket,
     put,
     async remember<T>(scope: CacheScope, key: string, load: () => Promise<T>): Promise<T> {
-      const kept = feed?.live ? (mapOf(scope, false)?.get(key) as T | undefined) : undefined;
+      const kept = get<T>(scope, key);
       if (kept !== undefined) return kept;
       const started = ticket();
       const value = await load();

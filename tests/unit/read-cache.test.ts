@@ -93,4 +93,16 @@ describe('the read cache', () => {
     await none.remember(A, 'page', load);
     expect(loads).toBe(4);
   });
+
+  it('when more pages are kept than the limit allows, then the banks start afresh and the newest page and the sessions stay', () => {
+    const { feed } = handFeed();
+    const cache = createReadCache(feed);
+    cache.put('auth', 'session s', 'kept', cache.ticket());
+    for (let i = 0; i < 500; i++) cache.put({ bankId: `bank ${i}` }, 'page', i, cache.ticket());
+    expect(cache.get({ bankId: 'bank 0' }, 'page')).toBe(0);
+    cache.put({ bankId: 'one more' }, 'page', 'newest', cache.ticket());
+    expect(cache.get({ bankId: 'one more' }, 'page')).toBe('newest');
+    expect(cache.get({ bankId: 'bank 0' }, 'page')).toBeUndefined();
+    expect(cache.get('auth', 'session s')).toBe('kept');
+  });
 });
