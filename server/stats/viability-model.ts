@@ -20,18 +20,43 @@
  * A test that a later test beats by far more than chance (one-sided two-proportion z > Z_HELD_BACK)
  * is read as held back (dormancy, or conditions), and enters only as "at least this many were
  * alive": a result that rises with age is not read as decline.
+ *
+ * Evidence weaker than a counted test enters through its own likelihood in place of the binomial:
+ * a tray sown by weight or guess as its effective trial (uncertain-sown.ts, effectiveTrial: fewer
+ * seeds' worth of evidence); a roughly scored tray as the chance of its score band
+ * (rough-evidence.ts, roughScoreLikelihood); seedlings that came up from a real sowing as field
+ * emergence, averaged over the establishment share FIELD_ESTABLISHMENT (emergenceLogLikelihood).
+ * Only counted tests take part in the held-back comparison.
  */
 import { normalCdf, normalQuantile } from './distributions';
+import {
+  emergenceLogLikelihood,
+  roughScoreLikelihood,
+  type Emergence,
+  type RoughScore,
+} from './rough-evidence';
 import { regularizedBeta } from './special-functions';
 
 export interface ModelAssay {
   id: string;
   /** Equivalent years at the species' reference storage. */
   age: number;
-  /** Seeds alive at the test: normal seedlings, plus fresh (dormant) seeds when recorded. */
+  /**
+   * Seeds alive at the test: normal seedlings, plus fresh (dormant) seeds when recorded. Need not be
+   * whole (an effective trial). Unused when `evidence` is a score.
+   */
   alive: number;
+  /** Seeds sown (expected, for an estimated tray or a sowing); need not be whole. */
   sown: number;
+  /** Absent for a counted test (binomial). Otherwise how this weaker evidence enters the model. */
+  evidence?: ModelEvidence;
 }
+
+export type ModelEvidence =
+  /** A test tray scored roughly instead of counted. */
+  | { kind: 'score'; score: RoughScore }
+  /** What came up from a real sowing (field emergence): seedlings counted or a rough score. */
+  | { kind: 'emergence'; emergence: Emergence };
 
 export interface ModelLot {
   id: string;
@@ -146,8 +171,9 @@ function logAtLeast(alive: number, sown: number, p: number): number {
   return Math.log(Math.max(LOG_EPS, regularizedBeta(q, alive, sown - alive + 1)));
 }
 
-function heldBackAssays(assays: readonly ModelAssay[]): Set<string> {
+function heldBackAssays(all: readonly ModelAssay[]): Set<string> {
   const out = new Set<string>();
+  const assays = all.filter((t) => !t.evidence);
   for (const a of assays) {
     for (const b of assays) {
       if (b.age <= a.age) continue;
@@ -165,12 +191,36 @@ function logLik(assays: readonly ModelAssay[], heldBack: Set<string>, k: number,
   let sum = 0;
   for (const t of assays) {
     const x = k - b * t.age;
+    if (t.evidence) {
+      sum += weakLogLik(t.evidence, t.sown, phi(x));
+      continue;
+    }
     sum +=
       heldBack.size > 0 && heldBack.has(t.id)
         ? logAtLeast(t.alive, t.sown, phi(x))
         : logBinomialKernel(t.alive, t.sown, x);
   }
   return sum;
+}
+
+function weakLogLik(evidence: ModelEvidence, sown: number, p: number): number {
+  const q = Math.min(1, Math.max(0, p));
+  const v =
+    evidence.kind === 'score'
+      ? Math.log(roughScoreLikelihood(evidence.score, q, sown))
+      : emergenceLogLikelihood(evidence.emergence, sown, q);
+  return Math.max(Math.log(LOG_EPS), v);
+}
+
+/** Why a piece of evidence cannot be read, or null when it can. */
+function unreadable(t: ModelAssay): string | null {
+  if (!Number.isFinite(t.age) || t.age < 0 || !(t.sown > 0)) return 'none sown, or no age';
+  if (!t.evidence) return t.alive >= 0 && t.alive <= t.sown ? null : 'more alive than sown';
+  if (t.evidence.kind === 'emergence' && 'seedlings' in t.evidence.emergence) {
+    const y = t.evidence.emergence.seedlings;
+    return Number.isInteger(y) && y >= 0 ? null : 'seedlings not a whole number';
+  }
+  return null;
 }
 
 const logNormalPdf = (x: number, mean: number, sd: number) => -0.5 * ((x - mean) / sd) ** 2 - Math.log(sd);
@@ -252,9 +302,7 @@ export function fitSpeciesModel(lots: readonly ModelLot[], prior: SpeciesPrior):
   const marginals = new Map<string, number[]>();
   for (const lot of lots) {
     if (lot.assays.length === 0) continue;
-    const bad = lot.assays.find(
-      (t) => !(t.sown > 0) || !(t.alive >= 0) || t.alive > t.sown || !Number.isFinite(t.age) || t.age < 0,
-    );
+    const bad = lot.assays.find((t) => unreadable(t) !== null);
     if (bad) {
       failures.set(
         lot.id,
@@ -364,6 +412,10 @@ function fitLot(lot: ModelLot, grid: SpeciesGrid, total: number[], heldBack: Set
   if (lot.assays.length === 0)
     notes.push(
       'Not tested: this is the species’ typical figure for a lot of this age and storage, a guess until a test.',
+    );
+  else if (lot.assays.every((t) => t.evidence))
+    notes.push(
+      'No counted test yet: rough scores and what came up from sowings say less than a count, so the band stays wide.',
     );
   return {
     ok: true,

@@ -178,3 +178,74 @@ describe('the viability model', () => {
     expect(years).toBeLessThan(3);
   });
 });
+
+// Weaker evidence: the direction of each case follows from its likelihood (rough-evidence.ts); the
+// size is not asserted beyond "narrower than no evidence, wider than a count".
+describe('the viability model with weaker evidence than a count', () => {
+  const width = (m: LotModel, age: number) => {
+    const b = projectModel(m, age);
+    return b.high - b.low;
+  };
+
+  it('when a tray is scored "most" or "none", then the lot moves the right way, less surely than a count', () => {
+    const none = fitOne([]);
+    const most = fitOne([
+      { id: 's', age: 0.5, alive: 0, sown: 60, evidence: { kind: 'score', score: 'most' } },
+    ]);
+    const low = fitOne([
+      { id: 's', age: 0.5, alive: 0, sown: 60, evidence: { kind: 'score', score: 'few' } },
+    ]);
+    const counted = fitOne([assay('c', 0.5, 48, 60)]); // 80%, inside the "most" band
+    for (const m of [most, low]) expectSensible(m, [0, 0.5, 3]);
+    expect(projectModel(most, 0.5).percent).toBeGreaterThan(projectModel(low, 0.5).percent + 30);
+    // "few" is 5–35% (ROUGH_SCORE_BANDS): the lot's figure falls near that band.
+    expect(projectModel(low, 0.5).percent).toBeLessThan(40);
+    expect(width(most, 0.5)).toBeLessThan(width(none, 0.5));
+    expect(width(most, 0.5)).toBeGreaterThan(width(counted, 0.5));
+    expect(most.estimateOnly).toBe(false);
+    expect(most.notes.join(' ')).toMatch(/No counted test/);
+  });
+
+  it('when seedlings came up from a sowing, then it informs the lot more weakly than a test of the same numbers', () => {
+    const emergence = fitOne([
+      {
+        id: 'e',
+        age: 0.5,
+        alive: 0,
+        sown: 100,
+        evidence: { kind: 'emergence', emergence: { seedlings: 80 } },
+      },
+    ]);
+    const counted = fitOne([assay('c', 0.5, 80, 100)]);
+    const none = fitOne([]);
+    expectSensible(emergence, [0, 0.5, 3]);
+    // 80 of 100 came up, and only 60–100% of germinating seed emerges (FIELD_ESTABLISHMENT): the
+    // lot germinates at least about 80%, so its figure is not below the count's.
+    expect(projectModel(emergence, 0.5).percent).toBeGreaterThanOrEqual(
+      projectModel(counted, 0.5).percent - 2,
+    );
+    expect(width(emergence, 0.5)).toBeGreaterThan(width(counted, 0.5));
+    expect(width(emergence, 0.5)).toBeLessThan(width(none, 0.5));
+  });
+
+  it('when a counted test and a rough score disagree, then only counted tests are compared for holding back', () => {
+    const m = fitOne([
+      assay('early', 0.2, 30, 100),
+      { id: 'late', age: 1.5, alive: 0, sown: 100, evidence: { kind: 'score', score: 'most' } },
+    ]);
+    expect(m.heldBack).toEqual([]);
+  });
+
+  it('when a weak piece of evidence cannot be read, then that lot says so', () => {
+    const [r] = fitSpeciesModel(
+      [
+        {
+          id: 'bad',
+          assays: [{ id: 'x', age: 1, alive: 0, sown: 0, evidence: { kind: 'score', score: 'few' } }],
+        },
+      ],
+      TOMATO,
+    );
+    expect(r).toMatchObject({ ok: false, lotId: 'bad' });
+  });
+});
