@@ -83,6 +83,11 @@ function operation(route: ApiRoute, params: string[]): ZodOpenApiOperationObject
       'Refused: bad input (400, with each bad field; also a missing JSON body, a NUL character in any text or query value, a compressed body that does not inflate, a malformed multipart form), not signed in (401), role too low (403), no such record (404), conflict (409), a body in a charset other than UTF-8 or with an unknown Content-Encoding (415) or impossible (422).',
     content: { 'application/json': { schema: errorResponseSchema } },
   };
+  responses['503'] ??= {
+    description:
+      'A backing service is restarting or down (error codes database_unavailable, storage_unavailable, mail_unavailable, service_unavailable): nothing was half-done; try again shortly.',
+    content: { 'application/json': { schema: errorResponseSchema } },
+  };
   op.responses = responses;
   return op;
 }

@@ -21,7 +21,7 @@ import {
   updateBankBodySchema,
   updateMemberBodySchema,
 } from '#shared/schemas/banks';
-import { csvImportQuerySchema, onQuerySchema } from '#shared/schemas/common';
+import { csvImportQuerySchema, errorResponseSchema, onQuerySchema } from '#shared/schemas/common';
 import {
   assayDetailQuerySchema,
   countsBodySchema,
@@ -118,6 +118,12 @@ const created = (json: z.ZodType, description = 'Created.'): ApiResponse => ({
   json,
 });
 const noContent = (description = 'Done; no body.'): ApiResponse => ({ status: 204, description });
+/** The routes limited in server/http/rate-limit.ts (authRateLimits): counted in PostgreSQL, shared by every server. */
+const limited = (what: string): ApiResponse => ({
+  status: 429,
+  description: `Too many attempts (${what}); the message says when to try again. Error code rate_limited.`,
+  json: errorResponseSchema,
+});
 const file = (type: string, description: string): ApiResponse => ({ status: 200, description, file: type });
 
 // Envelopes written inside the routers (see above).
@@ -177,18 +183,22 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'post',
     path: '/api/auth/register',
-    summary: 'Sign up; sets the session cookie.',
+    summary: 'Sign up; sets the session cookie and mails a link to confirm the e-mail address.',
     access: 'public',
     body: registerBodySchema,
-    responses: [created(userEnvelope)],
+    responses: [created(userEnvelope), limited('100 sign-ups an hour per address')],
   },
   {
     method: 'post',
     path: '/api/auth/login',
-    summary: 'Sign in; sets the session cookie (rate-limited per address and e-mail).',
+    summary:
+      'Sign in; sets the session cookie. Failures are limited per account and address together, so failures from elsewhere never lock the owner out.',
     access: 'public',
     body: loginBodySchema,
-    responses: [ok(userEnvelope)],
+    responses: [
+      ok(userEnvelope),
+      limited('5 failed sign-ins in 15 minutes per account and address, 50 per address'),
+    ],
   },
   {
     method: 'post',
@@ -207,18 +217,23 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'post',
     path: '/api/auth/password-reset',
-    summary: 'Mail a reset link if the address has an account (same answer either way).',
+    summary:
+      'Queue a reset link for the address if it has an account: the same answer, in the same time, either way; the mail is sent and retried from the mail queue.',
     access: 'public',
     body: passwordResetBodySchema,
-    responses: [{ status: 202, description: 'Accepted.', json: z.object({ ok: z.literal(true) }) }],
+    responses: [
+      { status: 202, description: 'Accepted.', json: z.object({ ok: z.literal(true) }) },
+      limited('20 an hour per address, 3 an hour per e-mail'),
+    ],
   },
   {
     method: 'post',
     path: '/api/auth/password-reset/confirm',
-    summary: 'Set a new password with a reset token; ends every session.',
+    summary:
+      'Set a new password with a reset token (checked before any password is hashed); ends every session and every other reset link.',
     access: 'public',
     body: passwordResetConfirmBodySchema,
-    responses: [noContent()],
+    responses: [noContent(), limited('20 in 15 minutes per address')],
   },
   {
     method: 'post',

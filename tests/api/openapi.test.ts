@@ -109,6 +109,25 @@ describe('the OpenAPI document', () => {
     });
   });
 
+  it('when generated, then the rate-limited routes document 429 and every route documents 503', () => {
+    const doc = buildOpenApiDocument({ production: false });
+    const limited = [
+      '/api/auth/login',
+      '/api/auth/register',
+      '/api/auth/password-reset',
+      '/api/auth/password-reset/confirm',
+    ];
+    for (const path of limited) {
+      expect(Object.keys(doc.paths?.[path]?.post?.responses ?? {}), path).toContain('429');
+    }
+    for (const [path, item] of Object.entries(doc.paths ?? {})) {
+      for (const method of ['get', 'post', 'put', 'patch', 'delete'] as const) {
+        const op = item[method];
+        if (op) expect(Object.keys(op.responses ?? {}), `${method} ${path}`).toContain('503');
+      }
+    }
+  });
+
   it('when checked by an OpenAPI 3.1 validator (@readme/openapi-parser), then it has no errors', async () => {
     for (const production of [false, true]) {
       const result = await validate(structuredClone(buildOpenApiDocument({ production })) as never);
