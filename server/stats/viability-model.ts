@@ -22,8 +22,9 @@
  * alive": a result that rises with age is not read as decline.
  *
  * Evidence weaker than a counted test enters through its own likelihood in place of the binomial:
- * a tray sown by weight or guess as its effective trial (uncertain-sown.ts, effectiveTrial: fewer
- * seeds' worth of evidence); a roughly scored tray as the chance of its score band
+ * a tray sown by weight or guess through the binomial averaged over the number truly sown (a
+ * log-normal with the estimate's mean and SD, cut below at the seedlings counted: at least that
+ * many were sown); a roughly scored tray as the chance of its score band
  * (rough-evidence.ts, roughScoreLikelihood); seedlings that came up from a real sowing as field
  * emergence, averaged over the establishment share FIELD_ESTABLISHMENT (emergenceLogLikelihood).
  * Only counted tests take part in the held-back comparison.
@@ -35,6 +36,7 @@ import {
   type Emergence,
   type RoughScore,
 } from './rough-evidence';
+import { gammaln } from 'simple-statistics';
 import { regularizedBeta } from './special-functions';
 
 export interface ModelAssay {
@@ -53,6 +55,11 @@ export interface ModelAssay {
 }
 
 export type ModelEvidence =
+  /**
+   * A tray whose seeds sown were estimated (by weight or a guess): `sown` is the estimate's mean,
+   * `sownSd` the SD of the true number around it, `alive` the seedlings counted.
+   */
+  | { kind: 'estimated'; sownSd: number }
   /** A test tray scored roughly instead of counted. */
   | { kind: 'score'; score: RoughScore }
   /** What came up from a real sowing (field emergence): seedlings counted or a rough score. */
@@ -96,7 +103,11 @@ export const MODEL_CONSTANTS = {
 const MU_GRID = 61;
 const RATE_GRID = 33;
 const K_GRID = 17;
+/** Coarse nodes this close to the mode's log density (a factor e¹² ≈ 160,000) are inside the grid. */
+const PLATEAU_LOG = 12;
 const K_SCAN = 13;
+/** The most K nodes when a flat side widens the grid (half a coarse step apart over the whole range). */
+const K_GRID_MAX = 2 * (K_SCAN - 1) + 1;
 /** Posterior draws kept per lot (systematic resampling of the grid), enough for 2.5% tails. */
 const DRAWS = 400;
 
@@ -192,7 +203,7 @@ function logLik(assays: readonly ModelAssay[], heldBack: Set<string>, k: number,
   for (const t of assays) {
     const x = k - b * t.age;
     if (t.evidence) {
-      sum += weakLogLik(t.evidence, t.sown, phi(x));
+      sum += weakLogLik(t as ModelAssay & { evidence: ModelEvidence }, x);
       continue;
     }
     sum +=
@@ -203,19 +214,89 @@ function logLik(assays: readonly ModelAssay[], heldBack: Set<string>, k: number,
   return sum;
 }
 
-function weakLogLik(evidence: ModelEvidence, sown: number, p: number): number {
-  const q = Math.min(1, Math.max(0, p));
+function weakLogLik(t: ModelAssay & { evidence: ModelEvidence }, x: number): number {
+  const evidence = t.evidence;
+  if (evidence.kind === 'estimated') return estimatedLogLik(t, evidence.sownSd, x);
+  const q = Math.min(1, Math.max(0, phi(x)));
   const v =
     evidence.kind === 'score'
-      ? Math.log(roughScoreLikelihood(evidence.score, q, sown))
-      : emergenceLogLikelihood(evidence.emergence, sown, q);
+      ? Math.log(roughScoreLikelihood(evidence.score, q, t.sown))
+      : emergenceLogLikelihood(evidence.emergence, t.sown, q);
   return Math.max(Math.log(LOG_EPS), v);
+}
+
+/**
+ * Nodes of the number truly sown: the log-normal's z on an even grid out to 5 SD (its upper tail
+ * carries the large trays that pull a germination estimate up, so quantile midpoints, which stop
+ * near 2 SD, undercover), cut below at the seedlings counted, trapezoid weights φ(z)·Δz.
+ */
+const SOWN_NODES = 48;
+const SOWN_Z_MAX = 5;
+const sownNodesCache = new WeakMap<ModelAssay, { n: Float64Array; logW: Float64Array }>();
+
+function sownNodes(t: ModelAssay, sd: number) {
+  const cached = sownNodesCache.get(t);
+  if (cached) return cached;
+  const seedlings = t.alive;
+  const s2 = Math.log1p((sd / t.sown) ** 2);
+  const m = Math.log(t.sown) - s2 / 2;
+  const s = Math.sqrt(s2);
+  // At least the seedlings were sown: the log-normal cut below at max(seedlings, 1).
+  const floor = Math.max(seedlings, 1);
+  const n = new Float64Array(SOWN_NODES);
+  const logW = new Float64Array(SOWN_NODES);
+  const zFrom = s > 0 ? Math.max(-SOWN_Z_MAX, (Math.log(floor) - m) / s) : 0;
+  const count = s > 0 && zFrom < SOWN_Z_MAX ? SOWN_NODES : 1;
+  const dz = count > 1 ? (SOWN_Z_MAX - zFrom) / (count - 1) : 1;
+  for (let i = 0; i < SOWN_NODES; i++) {
+    if (i >= count) {
+      logW[i] = Number.NEGATIVE_INFINITY;
+      n[i] = floor;
+      continue;
+    }
+    const z = zFrom + i * dz;
+    n[i] = count > 1 ? Math.max(floor, Math.exp(m + s * z)) : Math.max(floor, t.sown);
+    const end = i === 0 || i === count - 1 ? 0.5 : 1;
+    logW[i] =
+      (count > 1 ? -0.5 * z * z + Math.log(end * dz) : 0) +
+      gammaln(n[i]! + 1) -
+      gammaln(seedlings + 1) -
+      gammaln(n[i]! - seedlings + 1);
+  }
+  const nodes = { n, logW };
+  sownNodesCache.set(t, nodes);
+  return nodes;
+}
+
+/** log Σᵢ wᵢ · C(Nᵢ, x) pˣ (1 − p)^(Nᵢ − x) over the nodes Nᵢ of the number truly sown (up to a constant). */
+function estimatedLogLik(t: ModelAssay, sownSd: number, x: number): number {
+  const { n, logW } = sownNodes(t, sownSd);
+  const lp = logPhi(x);
+  const lq = logPhi(-x);
+  const y = t.alive;
+  let top = Number.NEGATIVE_INFINITY;
+  const terms = new Float64Array(SOWN_NODES);
+  for (let i = 0; i < SOWN_NODES; i++) {
+    const v = logW[i]! + (y > 0 ? y * lp : 0) + (n[i]! > y ? (n[i]! - y) * lq : 0);
+    terms[i] = v;
+    if (v > top) top = v;
+  }
+  if (!Number.isFinite(top)) return Math.log(LOG_EPS);
+  let sum = 0;
+  for (let i = 0; i < SOWN_NODES; i++) sum += Math.exp(terms[i]! - top);
+  return Math.max(Math.log(LOG_EPS), top + Math.log(sum));
 }
 
 /** Why a piece of evidence cannot be read, or null when it can. */
 function unreadable(t: ModelAssay): string | null {
   if (!Number.isFinite(t.age) || t.age < 0 || !(t.sown > 0)) return 'none sown, or no age';
   if (!t.evidence) return t.alive >= 0 && t.alive <= t.sown ? null : 'more alive than sown';
+  if (t.evidence.kind === 'estimated') {
+    const sd = t.evidence.sownSd;
+    return Number.isInteger(t.alive) && t.alive >= 0 && Number.isFinite(sd) && sd >= 0
+      ? null
+      : 'seedlings not a whole number, or no spread of the number sown';
+  }
   if (t.evidence.kind === 'emergence' && 'seedlings' in t.evidence.emergence) {
     const y = t.evidence.emergence.seedlings;
     return Number.isInteger(y) && y >= 0 ? null : 'seedlings not a whole number';
@@ -247,26 +328,33 @@ function conditionalK(assays: readonly ModelAssay[], heldBack: Set<string>, b: n
   const f = (k: number) => logNormalPdf(k, muK, sK) + logLik(assays, heldBack, k, b);
   // A coarse scan finds the mode's neighbourhood; the fine grid spans it generously.
   const coarse = linspace(kMin, kMax, K_SCAN);
-  let best = coarse[0]!;
-  let bestValue = Number.NEGATIVE_INFINITY;
-  for (const k of coarse) {
-    const v = f(k);
-    if (v > bestValue) {
-      bestValue = v;
-      best = k;
-    }
-  }
+  const values = coarse.map(f);
+  let bestIndex = 0;
+  values.forEach((v, i) => {
+    if (v > values[bestIndex]!) bestIndex = i;
+  });
+  const best = coarse[bestIndex]!;
+  const bestValue = values[bestIndex]!;
   const step = (kMax - kMin) / (K_SCAN - 1);
   // Curvature at the mode sets the fine grid's width (at least one coarse step either side).
   const h = 1e-3;
   const curvature = -(f(best + h) - 2 * bestValue + f(best - h)) / (h * h);
   const sd = curvature > 0 && Number.isFinite(curvature) ? 1 / Math.sqrt(curvature) : step;
   const half = Math.max(step * 1.5, 6 * sd);
-  const lo = Math.max(kMin, best - half);
-  const hi = Math.min(kMax, best + half);
-  const ks = linspace(lo, hi, K_GRID);
-  const dk = (hi - lo) / (K_GRID - 1);
-  const logs = ks.map((k, i) => f(k) + Math.log(dk * (i === 0 || i === K_GRID - 1 ? 0.5 : 1)));
+  let lo = Math.max(kMin, best - half);
+  let hi = Math.min(kMax, best + half);
+  // A likelihood with a long flat side (a tray whose seeds sown were estimated may have been all
+  // germinating) is not bounded by its curvature: the grid also spans every coarse node within
+  // PLATEAU_LOG of the mode, so that side's mass is not cut off.
+  values.forEach((v, i) => {
+    if (v < bestValue - PLATEAU_LOG) return;
+    lo = Math.min(lo, Math.max(kMin, coarse[i]! - step));
+    hi = Math.max(hi, Math.min(kMax, coarse[i]! + step));
+  });
+  const points = Math.min(K_GRID_MAX, Math.max(K_GRID, Math.ceil((hi - lo) / (step / 2)) + 1));
+  const ks = linspace(lo, hi, points);
+  const dk = (hi - lo) / (points - 1);
+  const logs = ks.map((k, i) => f(k) + Math.log(dk * (i === 0 || i === points - 1 ? 0.5 : 1)));
   return { ks, logs, logMarginal: logSumExp(logs) };
 }
 
