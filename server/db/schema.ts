@@ -217,6 +217,19 @@ export interface LotTable {
   first_photo_id: ColumnType<string | null, never, never>;
 }
 
+/** One weighed sample of a lot: seeds counted, their weight, and their weight once cleaned. */
+export interface LotSeedWeightTable {
+  id: Generated<string>;
+  bank_id: string;
+  lot_id: string;
+  seeds: number;
+  grams: Numeric;
+  /** The sample's weight after the chaff and other matter are picked out (null: not cleaned). */
+  clean_grams: Numeric | null;
+  created_by: string | null;
+  created_at: Timestamp;
+}
+
 /** Moves whenever an input of a bank's viability fits of one species changes (set by triggers). */
 export interface ViabilityStampTable {
   bank_id: string;
@@ -346,6 +359,7 @@ export interface Database {
   lots: LotTable;
   lot_parents: LotParentTable;
   stock_movements: StockMovementTable;
+  lot_seed_weights: LotSeedWeightTable;
   germination_tests: GerminationTestTable;
   test_trays: TestTrayTable;
   tray_counts: TrayCountTable;

@@ -1,6 +1,10 @@
 import { CompiledQuery, sql, type Insertable, type Updateable } from 'kysely';
 import type { DbOrTx } from '#server/db/database';
-import type { LotStatus, LotTable, StockMovementTable } from '#server/db/schema';
+import type { LotSeedWeightTable, LotStatus, LotTable, StockMovementTable } from '#server/db/schema';
+import { notFound } from '#server/http/errors';
+import type { SeedWeightSources } from '#server/stats/index';
+import { findSpecies } from '../species/species.shared.repository';
+import { lotSeedWeight, type LotSeedWeightFigures, type SeedWeightSample } from './lot-seed-weight';
 
 const num = (v: string | null) => (v === null ? null : Number(v));
 
@@ -320,4 +324,56 @@ export function movementsOf(db: DbOrTx, lotId: string) {
     .orderBy('stock_movements.date')
     .orderBy('stock_movements.created_at')
     .execute();
+}
+
+/** The lot's weighed samples, oldest first. */
+export async function seedWeightSamplesOf(db: DbOrTx, lotId: string): Promise<SeedWeightSample[]> {
+  const rows = await db
+    .selectFrom('lot_seed_weights')
+    .select(['seeds', 'grams', 'clean_grams'])
+    .where('lot_id', '=', lotId)
+    .orderBy('created_at')
+    .orderBy('id')
+    .execute();
+  return rows.map((r) => ({ seeds: r.seeds, grams: Number(r.grams), cleanGrams: num(r.clean_grams) }));
+}
+
+export function insertSeedWeightSample(db: DbOrTx, values: Insertable<LotSeedWeightTable>) {
+  return db.insertInto('lot_seed_weights').values(values).returning('id').executeTakeFirstOrThrow();
+}
+
+/**
+ * The lot's seed-weight figures (its samples, else its species' typical seeds per gram with the
+ * bank's own value where it set one); null when the lot is not in the bank.
+ */
+export async function lotSeedWeightFigures(
+  db: DbOrTx,
+  bankId: string,
+  lotId: string,
+): Promise<LotSeedWeightFigures | null> {
+  const lot = await db
+    .selectFrom('lots')
+    .select('species_id')
+    .where('id', '=', lotId)
+    .where('bank_id', '=', bankId)
+    .executeTakeFirst();
+  if (!lot) return null;
+  const species = await findSpecies(db, bankId, lot.species_id);
+  return lotSeedWeight(await seedWeightSamplesOf(db, lotId), species?.traits.seedsPerGram ?? null);
+}
+
+/**
+ * What server/stats seedsFromGrams takes to turn a weight of this lot's seed into seeds: the lot's
+ * own seeds per gram and pure-seed fraction from its weighed samples when it has any, else its
+ * species' typical seeds per gram (neither: every source null, and seedsFromGrams refuses).
+ * Throws a 404 AppError when the lot is not in the bank.
+ */
+export async function seedWeightSourcesForLot(
+  db: DbOrTx,
+  bankId: string,
+  lotId: string,
+): Promise<SeedWeightSources> {
+  const figures = await lotSeedWeightFigures(db, bankId, lotId);
+  if (!figures) throw notFound('No such lot in this bank.');
+  return figures.sources;
 }

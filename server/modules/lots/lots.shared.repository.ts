@@ -1,5 +1,6 @@
 // What other modules may call of the lots repository, inside their own transactions: moving stock
-// (sowings, germination tests), reading lots as lists, labels and viability fits read them. Cross-
+// (sowings, germination tests), reading lots as lists, labels and viability fits read them, and a
+// lot's seed weight to turn grams into seeds (seedWeightSourcesForLot). Cross-
 // module reads and writes go through a module's service or its *.shared.repository.ts, never its
 // plain repository (tests/unit/layering.test.ts).
 export {
@@ -7,6 +8,7 @@ export {
   lockLot,
   lotsForDecisions,
   lotsQuery,
+  seedWeightSourcesForLot,
   stockOf,
   toLotDto,
   updateLot,
