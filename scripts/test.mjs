@@ -56,6 +56,31 @@ function ensureChromium() {
   return '';
 }
 
+/**
+ * Debian's nginx for the test of two app servers behind a load balancer: installed when missing and
+ * running as root. The package starts its own nginx on port 80; the test runs one of its own on a
+ * free loopback port instead, so that one is stopped.
+ */
+function ensureNginx() {
+  if (fs.existsSync('/usr/sbin/nginx')) return '/usr/sbin/nginx';
+  if (process.getuid?.() === 0) {
+    log('installing Debian nginx for the load-balancer test (apt-get install nginx)…');
+    const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
+    spawnSync('apt-get', ['update'], { stdio: 'inherit', env });
+    spawnSync('apt-get', ['install', '-y', '--no-install-recommends', 'nginx'], { stdio: 'inherit', env });
+    spawnSync('service', ['nginx', 'stop'], { stdio: 'ignore' });
+    if (fs.existsSync('/usr/sbin/nginx')) return '/usr/sbin/nginx';
+  }
+  process.stderr.write(
+    '\n' +
+      '!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!\n' +
+      '!! nginx is not installed: the TWO-SERVER LOAD-BALANCER TEST WILL BE SKIPPED. !!\n' +
+      '!! Install it with: sudo apt-get install -y nginx && sudo service nginx stop  !!\n' +
+      '!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!\n\n',
+  );
+  return '';
+}
+
 async function main() {
   ensureDependencies();
   const vitestArgs = process.argv.slice(2);
@@ -77,6 +102,7 @@ async function main() {
     ]);
   }
   const chromium = ensureChromium();
+  const nginx = ensureNginx();
   const bin = ensurePostgres();
 
   const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-test-'));
@@ -116,6 +142,7 @@ async function main() {
     DATABASE_URL: pg.url,
     STATIC_DIR: staticDir,
     HILUM_CHROMIUM: chromium,
+    HILUM_NGINX: nginx,
     // This machine's Node is 20, which the object-store SDK warns about on every start (known; the
     // SDK's own switch for it). Production should run a current Node LTS instead.
     AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED:

@@ -64,8 +64,12 @@ function startReminders(attempt = 0) {
   reminders
     .start()
     .then(() => {
+      // A scan that queued reminders is worth a line; the empty ones only at LOG_LEVEL=debug.
       const run = () =>
-        reminders.tick().catch((error) => logger.warn({ err: error }, 'reminder scan failed'));
+        reminders
+          .tick()
+          .then((queued) => logger[queued ? 'info' : 'debug']({ queued }, 'reminder scan'))
+          .catch((error) => logger.warn({ err: error }, 'reminder scan failed'));
       void run();
       scan = setInterval(run, REMINDER_SCAN_MS);
     })

@@ -1,52 +1,35 @@
 // A PostgreSQL restart under load, against the compiled production server as a child process.
 // The suite's shared cluster serves every other test file, so this one starts a cluster of its own
 // (scripts/lib/services.mjs, as `npm start` and `npm test` do) and restarts that one.
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
-import crypto from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb, type Db } from '#server/db/database';
+import {
+  buildCompiledServer,
+  launchCompiledServer,
+  prepareDatabase,
+  services as loadServices,
+  sessionSecret,
+  waitFor as poll,
+  type Built,
+  type Cluster,
+  type ServerProcess,
+  type Services,
+} from '../helpers/compiled-server';
 
-const root = path.resolve(import.meta.dirname, '..', '..');
-
-interface Cluster {
-  url: string;
-  stop(): void;
-  halt(): Promise<void>;
-  resume(): Promise<void>;
-}
-interface Services {
-  ensurePostgres(): string;
-  freePort(): Promise<number>;
-  startPostgres(options: {
-    bin: string;
-    dataDir: string;
-    port: number;
-    database?: string;
-    durable?: boolean;
-  }): Promise<Cluster>;
-}
-const importScript = (file: string) => import(pathToFileURL(path.join(root, file)).href);
-
-/** Resolves once `check` returns a value, polling; fails with `what` after `ms`. */
 /** What a timed-out wait reports beside its name: the answers so far and the server's last lines. */
 let progress = () => '';
 /** Set once the server process has exited: every wait stops at once and says so. */
 let serverGone = '';
-async function waitFor<T>(what: string, check: () => T | undefined | false, ms = 60_000): Promise<T> {
-  const deadline = Date.now() + ms;
-  for (;;) {
-    const value = check();
-    if (value) return value;
-    if (serverGone)
-      throw new Error(`the server exited (${serverGone}) while waiting for ${what}: ${progress()}`);
-    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}: ${progress()}`);
-    await new Promise((r) => setTimeout(r, 50));
-  }
-}
+/** Resolves once `check` returns a value, polling; fails with `what` after `ms`. */
+const waitFor = <T>(what: string, check: () => T | undefined | false, ms = 60_000) =>
+  poll(what, check, {
+    timeoutMs: ms,
+    abort: () => (serverGone ? `the server exited (${serverGone})` : ''),
+    detail: progress,
+  });
 
 interface Answer {
   at: number;
@@ -58,23 +41,20 @@ interface Answer {
 describe('a PostgreSQL restart under load (compiled server, cluster of its own)', () => {
   let services: Services;
   let cluster: Cluster;
-  let server: ChildProcess;
+  let server: ServerProcess;
   let db: Db;
-  let serverLog = '';
   let exits = 0;
   const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-fault-'));
-  // Inside the checkout, so the compiled server finds node_modules as production does.
-  const buildDir = path.join(root, 'build', `fault-test-${crypto.randomBytes(4).toString('hex')}`);
   let base = '';
   let env: NodeJS.ProcessEnv = {};
-  let built: { index: string; prepare: string };
+  let built: Built;
   let cookie = '';
+  const serverLog = () => server?.output() ?? '';
 
   beforeAll(async () => {
     fs.chmodSync(tmp, 0o755);
-    services = (await importScript('scripts/lib/services.mjs')) as Services;
-    const { buildServer } = await importScript('scripts/build-server.mjs');
-    built = (await buildServer(buildDir)) as { index: string; prepare: string };
+    services = await loadServices();
+    built = await buildCompiledServer('fault-test');
 
     cluster = await services.startPostgres({
       bin: services.ensurePostgres(),
@@ -88,7 +68,7 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
     env = {
       ...process.env,
       NODE_ENV: 'production',
-      SESSION_SECRET: crypto.randomBytes(32).toString('base64url'),
+      SESSION_SECRET: sessionSecret(),
       DATABASE_URL: cluster.url,
       HILUM_DATA_DIR: tmp,
       PORT: String(port),
@@ -97,57 +77,35 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
       LOG_LEVEL: 'warn',
     };
     // The compiled database preparation, as a deployment runs it before the server.
-    const prepared = spawnSync(process.execPath, [built.prepare, '--no-demo'], {
-      cwd: root,
-      env,
-      encoding: 'utf8',
-    });
-    expect(prepared.status, prepared.stderr).toBe(0);
+    const prepared = prepareDatabase(built, env);
+    expect(prepared.status, prepared.output).toBe(0);
     await launch();
     db = createDb(cluster.url, 2);
   }, 180_000);
 
   /** `npm run serve`'s command: plain Node on the compiled file, no TypeScript loader. */
   async function launch() {
-    // (The IPC channel only carries the server's 'listening' notice.)
-    const child = spawn(process.execPath, [built.index], {
-      cwd: root,
-      env,
-      stdio: ['ignore', 'pipe', 'pipe', 'ipc'],
-    });
-    server = child;
     serverGone = '';
-    let listening = false;
-    child.on('message', (message: { type?: string }) => (listening ||= message.type === 'listening'));
-    child.stdout!.on('data', (chunk) => (serverLog += chunk));
-    child.stderr!.on('data', (chunk) => (serverLog += chunk));
-    child.on('exit', (code, signal) => {
-      if (stopped.has(child)) return;
-      exits += 1;
-      serverGone = `code ${code}, signal ${signal}`;
+    server = await launchCompiledServer(built, env, {
+      onCrash: (how) => {
+        exits += 1;
+        serverGone = how;
+      },
     });
-    await waitFor('the server to listen', () => listening);
   }
-  const stopped = new Set<ChildProcess>();
-  async function stopServer() {
-    if (!server || server.exitCode !== null || server.signalCode !== null) return;
-    stopped.add(server);
-    const exited = new Promise((r) => server.once('exit', r));
-    server.kill('SIGTERM');
-    await exited;
-  }
+  const stopServer = async () => server?.stop();
 
   afterAll(async () => {
     await stopServer();
     await db?.destroy();
     cluster?.stop();
     fs.rmSync(tmp, { recursive: true, force: true });
-    fs.rmSync(buildDir, { recursive: true, force: true });
+    built?.remove();
   });
 
   it('when PostgreSQL restarts mid-load, then answers are 2xx or 503, it recovers, and no acknowledged write is lost', async () => {
     // The source is a JavaScript file with no TypeScript in it: what runs is the compiled server.
-    expect(server.spawnargs.join(' ')).not.toMatch(/tsx|\.ts\b/);
+    expect(server.child.spawnargs.join(' ')).not.toMatch(/tsx|\.ts\b/);
 
     const register = await fetch(`${base}/api/auth/register`, {
       method: 'POST',
@@ -216,7 +174,7 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
           counts[key] = (counts[key] ?? 0) + 1;
           return counts;
         }, {}),
-      ) + serverLog.slice(-2000);
+      ) + serverLog().slice(-2000);
     // The bound of the load: it stops by itself after this long whatever happens.
     const hardStop = setTimeout(() => (stopLoad = true), 180_000);
     const workers = Array.from({ length: 8 }, () => worker());
@@ -249,13 +207,13 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
 
       // 0 process exits.
       expect(exits).toBe(0);
-      expect(server.exitCode).toBeNull();
+      expect(server.child.exitCode).toBeNull();
       // Every answer is 2xx or a 503 in the error shape naming the database (and none refused).
       const unexpected = answers.filter(
         (a) =>
           !(a.status >= 200 && a.status < 300) && !(a.status === 503 && a.code === 'database_unavailable'),
       );
-      expect(unexpected, serverLog.slice(-3000)).toEqual([]);
+      expect(unexpected, serverLog().slice(-3000)).toEqual([]);
       // The restart was seen: the answers while PostgreSQL was down were 503s.
       const whileDown = answers.filter((a) => a.at > downAt && a.at < resumeAt);
       expect(whileDown.length).toBeGreaterThan(0);
@@ -271,7 +229,7 @@ describe('a PostgreSQL restart under load (compiled server, cluster of its own)'
       expect(acknowledged.size).toBeGreaterThanOrEqual(40);
       expect(lost).toEqual([]);
       // The server logged the lost connections as warnings, not as crashes.
-      expect(serverLog).not.toMatch(/uncaught exception/);
+      expect(serverLog()).not.toMatch(/uncaught exception/);
     } finally {
       stopLoad = true;
       clearTimeout(hardStop);
