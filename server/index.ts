@@ -65,11 +65,15 @@ function startReminders(attempt = 0) {
     .start()
     .then(() => {
       // A scan that queued reminders is worth a line; the empty ones only at LOG_LEVEL=debug.
-      const run = () =>
-        reminders
+      const run = () => {
+        const started = Date.now();
+        return reminders
           .tick()
-          .then((queued) => logger[queued ? 'info' : 'debug']({ queued }, 'reminder scan'))
+          .then((queued) =>
+            logger[queued ? 'info' : 'debug']({ queued, ms: Date.now() - started }, 'reminder scan'),
+          )
           .catch((error) => logger.warn({ err: error }, 'reminder scan failed'));
+      };
       void run();
       scan = setInterval(run, REMINDER_SCAN_MS);
     })

@@ -91,6 +91,8 @@ interface LogLine {
   time: number;
   msg: string;
   queued?: number;
+  /** How long a reminder scan took: it began at `time - ms`. */
+  ms?: number;
   req?: { method: string; url: string };
   res?: { statusCode: number };
 }
@@ -194,16 +196,15 @@ describe.skipIf(!NGINX)('two app servers behind nginx, on one PostgreSQL', () =>
     };
     const prepared = prepareDatabase(built, env);
     expect(prepared.status, prepared.output).toBe(0);
-    servers.push(
-      ...(await Promise.all(
-        ports.map((port, i) =>
-          launchCompiledServer(
-            built!,
-            { ...env, PORT: String(port) },
-            { onCrash: (how) => crashes.push(`server ${i + 1}: ${how}`) },
-          ),
-        ),
-      )),
+    // servers[i] listens on ports[i]; each is kept as soon as it runs, for afterAll to stop.
+    await Promise.all(
+      ports.map(async (port, i) => {
+        servers[i] = await launchCompiledServer(
+          built!,
+          { ...env, PORT: String(port) },
+          { onCrash: (how) => crashes.push(`server ${i + 1}: ${how}`) },
+        );
+      }),
     );
 
     fs.writeFileSync(path.join(tmp, 'nginx.conf'), nginxConfig(tmp, front, ports));
@@ -441,10 +442,10 @@ describe.skipIf(!NGINX)('two app servers behind nginx, on one PostgreSQL', () =>
   });
 
   it('when both servers run their job workers, then each reminder is mailed exactly once', async () => {
-    // Both servers scan every minute (server/index.ts): wait until each has scanned since the
+    // Both servers scan every minute (server/index.ts): wait until each has begun a scan after the
     // reminders were due, and the queue holds nothing waiting, retrying or running.
     const scannedSince = (server: ServerProcess) =>
-      logOf(server).some((l) => l.msg === 'reminder scan' && l.time > remindersReadyAt);
+      logOf(server).some((l) => l.msg === 'reminder scan' && l.time - (l.ms ?? 0) > remindersReadyAt);
     await waitFor('a reminder scan on both servers', () => servers.every(scannedSince), {
       timeoutMs: 180_000,
       abort: () => crashes.join('; '),
@@ -489,6 +490,14 @@ describe.skipIf(!NGINX)('two app servers behind nginx, on one PostgreSQL', () =>
         .map((l) => l.queued ?? 0),
     );
     expect(queued.reduce((a, b) => a + b, 0)).toBe(written.length);
+    const scans = servers.map((s) =>
+      logOf(s)
+        .filter((l) => l.msg === 'reminder scan')
+        .map((l) => l.queued),
+    );
+    console.info(
+      `two servers: ${written.length} reminders, each mailed once; queued by scan: ${JSON.stringify(scans)}`,
+    );
   }, 300_000);
 
   it('when one server is killed during a stream of writes, then no acknowledged write is lost and the other serves on', async () => {
