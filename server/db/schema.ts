@@ -186,6 +186,7 @@ export interface ParentPlantTable {
 
 export type LotOrigin = 'saved' | 'swapped' | 'bought';
 export type LotStatus = 'active' | 'depleted' | 'retired';
+export type AmountKind = 'counted' | 'estimated' | 'weighed' | 'unknown';
 export type StoragePlace = 'room' | 'fridge' | 'freezer' | 'other';
 
 export interface LotTable {
@@ -206,6 +207,9 @@ export interface LotTable {
   quantity_estimated: ColumnType<boolean, boolean | undefined, boolean>;
   treated: ColumnType<boolean, boolean | undefined, boolean>;
   grams_entered: Numeric | null;
+  amount_kind: ColumnType<AmountKind, AmountKind | undefined, AmountKind>;
+  /** The seeds the weighed grams were last turned into (weighed amounts only). */
+  weighed_seeds: number | null;
   status: ColumnType<LotStatus, LotStatus | undefined, LotStatus>;
   notes: string | null;
   created_by: string | null;

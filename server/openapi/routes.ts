@@ -43,6 +43,8 @@ import {
   parentPlantSchema,
   photoSchema,
   photoSizeQuerySchema,
+  seedWeightBodySchema,
+  seedWeightSchema,
   stockBodySchema,
   updateLotBodySchema,
   updatePlantBodySchema,
@@ -482,7 +484,14 @@ export const apiRoutes: ApiRoute[] = [
     path: `${BANK}/lots/:lotId/stock`,
     summary: 'The lot’s stock ledger.',
     access: 'viewer',
-    responses: [ok(z.object({ items: z.array(movementSchema), seedsOnHand: z.number() }))],
+    responses: [
+      ok(
+        z.object({
+          items: z.array(movementSchema),
+          seedsOnHand: z.number().nullable().describe('Null while the lot’s amount is not known.'),
+        }),
+      ),
+    ],
   },
   {
     method: 'post',
@@ -490,7 +499,28 @@ export const apiRoutes: ApiRoute[] = [
     summary: 'Record a stock movement.',
     access: 'grower',
     body: stockBodySchema,
-    responses: [created(z.object({ movement: movementSchema, seedsOnHand: z.number() }))],
+    responses: [
+      created(
+        z.object({
+          movement: movementSchema,
+          seedsOnHand: z
+            .number()
+            .nullable()
+            .describe(
+              'Null when the lot’s amount is not known: the movement is recorded, the amount stays unknown.',
+            ),
+        }),
+      ),
+    ],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/lots/:lotId/seed-weights`,
+    summary:
+      'Record a weighed sample of the lot: seeds counted, their weight in grams, and optionally their weight once the chaff is picked out. The lot’s seeds per gram (thousand-seed weight, as ISTA Rules ch. 10 weighs 8 replicates of 100 seeds; fewer are accepted, with the spread stated) and its pure-seed fraction come from all its samples; a weighed amount is turned into seeds again with them.',
+    access: 'grower',
+    body: seedWeightBodySchema,
+    responses: [created(z.object({ seedWeight: seedWeightSchema }))],
   },
   {
     method: 'get',

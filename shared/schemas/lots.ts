@@ -23,6 +23,42 @@ export const lotCodeSchema = z
   .max(24, { message: 'A code has at most 24 characters.' })
   .regex(/^[A-Za-z0-9][A-Za-z0-9-]*$/, { message: 'Use letters, digits and dashes.' });
 
+/** How a lot's amount is known; 'unknown' is not zero. */
+export const amountKindSchema = z.enum(['counted', 'estimated', 'weighed', 'unknown']);
+export type AmountKind = z.infer<typeof amountKindSchema>;
+
+const seedsOfLot = z
+  .number({ message: 'Give a whole number of seeds.' })
+  .int({ message: 'Give a whole number of seeds.' })
+  .min(0, { message: 'A lot holds 0 seeds or more.' })
+  .max(10_000_000, { message: 'A lot holds at most 10,000,000 seeds.' });
+const gramsOfLot = z
+  .number({ message: 'Give the weight in grams.' })
+  .positive({ message: 'A weight is above 0 grams.' })
+  .max(100_000, { message: 'A lot weighs at most 100,000 grams here.' });
+
+/** A lot's amount as the grower gives it: counted, about N, weighed in grams, or not known. */
+export const amountInputSchema = z
+  .discriminatedUnion(
+    'kind',
+    [
+      z.object({ kind: z.literal('counted'), seeds: seedsOfLot }).strict(),
+      z
+        .object({
+          kind: z.literal('estimated'),
+          seeds: seedsOfLot.min(1, { message: 'About how many seeds?' }),
+        })
+        .strict(),
+      z.object({ kind: z.literal('weighed'), grams: gramsOfLot }).strict(),
+      z.object({ kind: z.literal('unknown') }).strict(),
+    ],
+    { message: 'Choose counted, estimated, weighed or unknown.' },
+  )
+  .describe(
+    'The lot’s amount: counted seeds, about N seeds (estimated), grams turned into seeds with the lot’s own seed weight (else its species’ typical seeds per gram), or not known — which is never zero.',
+  );
+export type AmountInput = z.infer<typeof amountInputSchema>;
+
 const lotFields = {
   speciesId: idSchema,
   variety: text(120).min(1, { message: 'Name the variety (or “unknown”).' }),
@@ -49,6 +85,8 @@ const lotFields = {
 export const createLotBodySchema = z
   .object({
     ...lotFields,
+    /** The lot's amount; seedCount and grams are its short forms (counted, weighed). */
+    amount: amountInputSchema.optional(),
     seedCount: z.number().int().min(0).max(10_000_000).optional(),
     grams: z.number().positive().max(100_000).optional(),
   })
@@ -62,11 +100,16 @@ export const createLotBodySchema = z
     path: ['grams'],
     message: 'Give a seed count or a weight, not both.',
     when: () => true,
+  })
+  .refine((b) => b.amount === undefined || (b.seedCount === undefined && b.grams === undefined), {
+    path: ['amount'],
+    message: 'Give the amount, or a seed count or a weight, not more than one.',
+    when: () => true,
   });
 export type CreateLotBody = z.infer<typeof createLotBodySchema>;
 
 export const updateLotBodySchema = z
-  .object({ ...lotFields, status: lotStatusSchema })
+  .object({ ...lotFields, status: lotStatusSchema, amount: amountInputSchema })
   .partial()
   .refine((b) => Object.keys(b).length > 0, { message: 'Nothing to change.' });
 export type UpdateLotBody = z.infer<typeof updateLotBodySchema>;
@@ -83,6 +126,69 @@ export const photoSchema = z.object({
   createdAt: z.string(),
 });
 export type PhotoDto = z.infer<typeof photoSchema>;
+
+/** A lot's amount as it is read: seeds for counted, estimated and weighed amounts, grams for weighed. */
+export const lotAmountSchema = z
+  .object({
+    kind: amountKindSchema,
+    seeds: z.number().optional(),
+    grams: z.number().optional(),
+    /** Weighed: whose seeds per gram turned the grams into seeds. */
+    seedWeightBasis: z.enum(['lot', 'species']).optional(),
+  })
+  .describe(
+    'How the amount is known. `seeds` (counted, estimated, weighed) is the ledger’s seeds on hand; `grams` the weight entered; `seedWeightBasis` whose seeds per gram turned it into seeds. `unknown` has no seeds: not known is not zero.',
+  );
+export type LotAmount = z.infer<typeof lotAmountSchema>;
+
+const rangeSchema = z.object({ low: z.number(), high: z.number() });
+
+/** Seeds per gram as grams → seeds uses it: the lot's own from weighed samples, else the species'. */
+export const seedWeightSchema = z
+  .object({
+    seedsPerGram: z.number(),
+    sampleSeeds: z.number().nullable(),
+    sampleGrams: z.number().nullable(),
+    purityFraction: z.number().nullable(),
+    basis: z.enum(['lot', 'species']),
+    thousandSeedWeight: z.number(),
+    replicates: z.number(),
+    replicateCv: z.number().nullable(),
+    cvLimit: z.number().nullable(),
+    cvCheck: z.enum(['within-limit', 'above-limit', 'single-sample']).nullable(),
+    range: rangeSchema,
+    purityRange: rangeSchema.nullable(),
+  })
+  .describe(
+    'Seeds per gram as grams → seeds uses it. basis `lot`: from the lot’s weighed samples (sampleSeeds counted in sampleGrams of clean seed; replicates, the CV of a 100-seed replicate and the rules’ CV check; range is its 95% plausible range, taken at the rules’ CV limit with fewer than 8 samples); purityFraction is clean ÷ weighed from the samples that were cleaned. basis `species`: the species’ typical figure (range ±35% relative SD, a convention). Null when neither is known.',
+  );
+export type SeedWeightDto = z.infer<typeof seedWeightSchema>;
+
+/** POST …/lots/:lotId/seed-weights: seeds counted, their weight, and their weight once cleaned. */
+export const seedWeightBodySchema = z
+  .object({
+    seeds: z
+      .number({ message: 'Count the seeds in the sample.' })
+      .int({ message: 'Count whole seeds.' })
+      .min(1, { message: 'Count at least one seed.' })
+      .max(100_000, { message: 'A sample holds at most 100,000 seeds.' }),
+    grams: z
+      .number({ message: 'Give the sample’s weight in grams.' })
+      .positive({ message: 'A weight is above 0 grams.' })
+      .max(10_000, { message: 'A sample weighs at most 10,000 grams.' }),
+    cleanGrams: z
+      .number({ message: 'Give the clean seed’s weight in grams.' })
+      .positive({ message: 'A weight is above 0 grams.' })
+      .max(10_000, { message: 'A sample weighs at most 10,000 grams.' })
+      .nullable()
+      .optional(),
+  })
+  .strict()
+  .refine((b) => b.cleanGrams == null || b.cleanGrams <= b.grams, {
+    path: ['cleanGrams'],
+    message: 'The clean seed cannot weigh more than the sample it was picked from.',
+  });
+export type SeedWeightBody = z.infer<typeof seedWeightBodySchema>;
 
 export const lotSchema = z.object({
   id: idSchema,
@@ -107,7 +213,10 @@ export const lotSchema = z.object({
   gramsEntered: z.number().nullable(),
   status: lotStatusSchema,
   notes: z.string().nullable(),
-  seedsOnHand: z.number(),
+  /** The stock ledger's sum; null while the amount is not known (never read as zero). */
+  seedsOnHand: z.number().nullable(),
+  amount: lotAmountSchema,
+  seedWeight: seedWeightSchema.nullable(),
   parentPlantIds: z.array(idSchema),
   thumbUrl: z.string().nullable(),
   createdAt: z.string(),
@@ -131,7 +240,8 @@ export const lotsImportPreviewSchema = z.object({
       code: z.string().nullable(),
       species: z.string(),
       variety: z.string(),
-      seedsOnHand: z.number(),
+      /** Null: the amount is not known. */
+      seedsOnHand: z.number().nullable(),
       harvestDate: z.string().nullable(),
       packedForSeason: z.number().nullable(),
       treated: z.boolean(),
@@ -147,7 +257,8 @@ export const movementSchema = z.object({
   date: z.string(),
   reason: z.string(),
   by: z.string().nullable(),
-  balance: z.number(),
+  /** Seeds on hand after the movement; null while the lot's amount was not known. */
+  balance: z.number().nullable(),
   createdAt: z.string(),
 });
 export type MovementDto = z.infer<typeof movementSchema>;

@@ -86,8 +86,9 @@ export const seedsToSowResponseSchema = z.object({
   basis: basisSchema,
   /** Not tested: the figure is the species' typical one, a guess. */
   estimateOnly: z.boolean(),
-  enoughStock: z.boolean(),
-  seedsOnHand: n,
+  /** Null when the lot's amount is not known. */
+  enoughStock: z.boolean().nullable(),
+  seedsOnHand: nn,
   explanation: z.string(),
 });
 export type SeedsToSowResponse = z.infer<typeof seedsToSowResponseSchema>;
@@ -111,7 +112,8 @@ export const rankingItemSchema = z.object({
   projectedLow: nn,
   projectedHigh: nn,
   meanDays: nn,
-  seedsOnHand: n,
+  /** Null when the lot's amount is not known (never zero). */
+  seedsOnHand: nn,
   basis: basisSchema.nullable(),
   estimateOnly: z.boolean(),
   retestBy: z.string().nullable(),

@@ -79,10 +79,10 @@ describe.skipIf(!chromiumPath)('the advice for every lot, in Chromium', () => {
       ).map((r) => [r.lot_id, Number(r.n)]),
     );
     pick.sow = ranking.find(
-      (i) => i.recommendation === 'sow' && i.seedsOnHand > 100 && (assayCounts.get(i.lotId) ?? 0) >= 2,
+      (i) => i.recommendation === 'sow' && (i.seedsOnHand ?? 0) > 100 && (assayCounts.get(i.lotId) ?? 0) >= 2,
     );
     pick.retire = ranking.find(
-      (i) => i.recommendation === 'retire' && i.seedsOnHand > 0 && i.projectedHigh !== null,
+      (i) => i.recommendation === 'retire' && (i.seedsOnHand ?? 0) > 0 && i.projectedHigh !== null,
     );
     pick.guess = ranking.find((i) => i.recommendation === 'test-first' && i.lastTestDate === null);
     expect(pick.sow && pick.retire && pick.guess).toBeTruthy();

@@ -47,6 +47,16 @@ describe('retire', () => {
     );
   });
 
+  it('when the amount is not known, then it is never "no seeds left", tested or not', () => {
+    // Not known is not zero (issue 16): the advice comes from the lot's germination alone.
+    expect(decide({ ...base, seedsOnHand: null }).recommendation).toBe(decide(base).recommendation);
+    const untested = decide({ ...base, seedsOnHand: null, tested: false });
+    expect(untested.recommendation).not.toBe('retire');
+    expect(untested.reason).not.toMatch(/no seeds left/i);
+    // And a plan's need never reads it as short.
+    expect(decide({ ...base, seedsOnHand: null, seedsNeeded: 60 }).reason).not.toMatch(/short of/);
+  });
+
   it('when a tested lot’s upper bound is under 30%, then retire, naming the sowing day in words', () => {
     // 30% is Hilum's rule; 2027-03-29 is 29 Mar 2027.
     const out = decide({ ...base, projected: { percent: 12, low: 6, high: 29.9 } });

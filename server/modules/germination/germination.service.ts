@@ -156,7 +156,8 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         if (early) throw unprocessable(early, { startDate: 'Use a date on or after the harvest.' });
         const needed = body.trays.reduce((s, t) => s + t.seedsSown, 0);
         const onHand = await stockOf(trx, lotId);
-        if (onHand < needed) {
+        // null: the lot's amount is not known, so the trays are recorded and nothing is refused.
+        if (onHand !== null && onHand < needed) {
           throw new AppError(
             409,
             'stock_short',
@@ -189,7 +190,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
           created_by: userId,
           test_id: assay.id,
         });
-        if (onHand === needed && lot.status === 'active') {
+        if (onHand !== null && onHand === needed && lot.status === 'active') {
           await updateLot(trx, lotId, { status: 'depleted' });
         }
         await storeResult(trx, assay.id);

@@ -3,6 +3,7 @@
 // repository reads the samples and the species' figure, the statistics do the arithmetic.
 import {
   purityFromSample,
+  seedsFromGrams,
   seedWeightFromSamples,
   SPECIES_SEEDS_PER_GRAM_CV,
   type SeedWeightSources,
@@ -113,4 +114,45 @@ export function lotSeedWeight(
       purityRange: purity?.interval ?? null,
     },
   };
+}
+
+/** Seeds in a weighed amount, and the figure that turned the grams into them. */
+export interface WeighedAmount {
+  seeds: number;
+  basis: 'lot' | 'species';
+  seedsPerGram: number;
+  purityFraction: number | null;
+}
+
+/**
+ * The seeds in `grams` of the lot's material (seedsFromGrams: grams × purity × seeds per gram, the
+ * lot's own figure first), rounded to a whole seed; null when neither the lot nor its species has a
+ * seeds-per-gram figure.
+ */
+export function weighedAmount(grams: number, sources: SeedWeightSources): WeighedAmount | null {
+  const perGram = sources.lot ?? sources.species;
+  if (!perGram) return null;
+  const estimate = seedsFromGrams(grams, sources);
+  return {
+    seeds: Math.round(estimate.mean),
+    basis: estimate.basis ?? 'species',
+    seedsPerGram: perGram.seedsPerGram,
+    purityFraction: sources.purity?.fraction ?? null,
+  };
+}
+
+/** "at this lot's 300 seeds per gram (75% clean seed)" — the figure a weighed amount used, in words. */
+export function weighedAmountWords(amount: WeighedAmount): string {
+  const perGram = amount.seedsPerGram.toLocaleString('en', {
+    maximumFractionDigits: amount.seedsPerGram < 10 ? 2 : 0,
+  });
+  const whose =
+    amount.basis === 'lot'
+      ? `this lot's own ${perGram} seeds per gram (from its weighed samples)`
+      : `about ${perGram} seeds per gram (the species' typical figure)`;
+  const clean =
+    amount.purityFraction !== null
+      ? `, ${Math.round(amount.purityFraction * 100)}% of the weight clean seed`
+      : '';
+  return `${whose}${clean}`;
 }

@@ -13,6 +13,8 @@
  *   round trip.
  * - Lot codes repeat case-insensitively (the database's unique index is on lower(code)), so
  *   "tom-1" and "TOM-1" in one file is a duplicate, reported on the later line.
+ * - An empty seeds_on_hand means the amount is not known (not zero); quantity_estimated yes with a
+ *   number means "about" that many.
  * - A file with only the header row parses to zero rows (ok); the route reports "0 lots imported".
  * - Cell values: yes/no (quantity_estimated, treated) also as true/false/1/0, in any letter case
  *   (empty = no); origin, storage_place and status in any letter case; numbers with a point as
@@ -79,7 +81,8 @@ export interface LotCsvRow {
   sourceName: string | null;
   harvestDate: string | null;
   packedForSeason: number | null;
-  seedsOnHand: number;
+  /** Empty when the amount is not known (never read as zero). */
+  seedsOnHand: number | null;
   quantityEstimated: boolean;
   plantsBulked: number | null;
   storagePlace: 'room' | 'fridge' | 'freezer' | 'other' | null;
@@ -165,7 +168,14 @@ const rowSchema = z
       blankToNull,
       wholeNumber(1900, 2100, 'Use a year from 1900 to 2100, like 2026.').nullable(),
     ),
-    seeds_on_hand: wholeNumber(0, 10_000_000, 'Use a whole number of seeds from 0 to 10,000,000, like 250.'),
+    seeds_on_hand: z.preprocess(
+      blankToNull,
+      wholeNumber(
+        0,
+        10_000_000,
+        'Use a whole number of seeds from 0 to 10,000,000, like 250, or leave it empty when the amount is not known.',
+      ).nullable(),
+    ),
     quantity_estimated: yesNo('Use yes or no.'),
     plants_bulked: z.preprocess(
       blankToNull,

@@ -3,8 +3,13 @@ import type { DbOrTx } from '#server/db/database';
 import type { LotSeedWeightTable, LotStatus, LotTable, StockMovementTable } from '#server/db/schema';
 import { notFound } from '#server/http/errors';
 import type { SeedWeightSources } from '#server/stats/index';
-import { findSpecies } from '../species/species.shared.repository';
-import { lotSeedWeight, type LotSeedWeightFigures, type SeedWeightSample } from './lot-seed-weight';
+import type { LotAmount } from '#shared/schemas/lots';
+import {
+  lotSeedWeight,
+  type LotSeedWeight,
+  type LotSeedWeightFigures,
+  type SeedWeightSample,
+} from './lot-seed-weight';
 
 const num = (v: string | null) => (v === null ? null : Number(v));
 
@@ -27,10 +32,24 @@ const DECISION_COLUMNS = [
   'lots.storage_temp_c',
   'lots.treated',
   'lots.status',
+  'lots.amount_kind',
   // Kept on the row by the database from the stock ledger, lot_parents and photos.
   'lots.seeds_on_hand',
   'lots.first_photo_id',
 ] as const;
+
+/** The lot's weighed samples as JSON (null when it has none), oldest first. */
+const seedWeightSamplesJson = sql<SeedWeightSample[] | null>`(
+  select json_agg(json_build_object('seeds', w.seeds, 'grams', w.grams, 'cleanGrams', w.clean_grams)
+    order by w.created_at, w.id)
+  from lot_seed_weights w where w.lot_id = lots.id)`;
+
+/** The species' typical seeds per gram, the bank's own value where it set one (even to none). */
+const speciesSeedsPerGram = sql<string | null>`(
+  select case when o.traits ? 'seedsPerGram' then o.traits ->> 'seedsPerGram'
+    else species.traits ->> 'seedsPerGram' end
+  from (select 1) one
+  left join species_overrides o on o.bank_id = lots.bank_id and o.species_id = lots.species_id)`;
 
 /** The lot with everything its page and list show, as one row. */
 export function lotsQuery(db: DbOrTx, bankId: string) {
@@ -44,6 +63,7 @@ export function lotsQuery(db: DbOrTx, bankId: string) {
       'lots.storage_humidity_pct',
       'lots.quantity_estimated',
       'lots.grams_entered',
+      'lots.weighed_seeds',
       'lots.notes',
       'species.scientific_name as scientific_name',
       'lots.parent_plant_ids',
@@ -53,6 +73,8 @@ export function lotsQuery(db: DbOrTx, bankId: string) {
       // than the rest of a row.
       isoTimestamp('lots.created_at').as('created_at'),
       isoTimestamp('lots.updated_at').as('updated_at'),
+      seedWeightSamplesJson.as('seed_weight_samples'),
+      speciesSeedsPerGram.as('species_seeds_per_gram'),
     ])
     .where('lots.bank_id', '=', bankId);
 }
@@ -73,6 +95,7 @@ type DecisionRow = Pick<
   | 'storage_temp_c'
   | 'treated'
   | 'status'
+  | 'amount_kind'
   | 'seeds_on_hand'
   | 'first_photo_id'
 >;
@@ -92,7 +115,9 @@ const toDecisionLot = (row: DecisionRow) => ({
   storage: { place: row.storage_place, temperatureC: num(row.storage_temp_c) },
   treated: row.treated,
   status: row.status,
-  seedsOnHand: row.seeds_on_hand,
+  amountKind: row.amount_kind,
+  // The ledger's sum means nothing while the amount is not known: never read it as zero.
+  seedsOnHand: row.amount_kind === 'unknown' ? null : row.seeds_on_hand,
   thumbUrl: thumbUrl(row.first_photo_id),
 });
 
@@ -109,8 +134,34 @@ export async function lotsForDecisions(db: DbOrTx, bankId: string, speciesId?: s
 
 export type DecisionLot = ReturnType<typeof toDecisionLot>;
 
+/** What the lot's seed-weight figures are computed from, as the lot row carries them. */
+function seedWeightFigures(row: Pick<LotRow, 'seed_weight_samples' | 'species_seeds_per_gram'>) {
+  return lotSeedWeight(row.seed_weight_samples ?? [], num(row.species_seeds_per_gram));
+}
+
+/** The lot's amount as it is read: how it is known, and its seeds (and grams, when weighed). */
+function amountOf(
+  row: Pick<LotRow, 'amount_kind' | 'seeds_on_hand' | 'grams_entered'>,
+  seedWeight: LotSeedWeight | null,
+): LotAmount {
+  switch (row.amount_kind) {
+    case 'unknown':
+      return { kind: 'unknown' };
+    case 'weighed':
+      return {
+        kind: 'weighed',
+        seeds: row.seeds_on_hand,
+        ...(row.grams_entered !== null ? { grams: Number(row.grams_entered) } : {}),
+        ...(seedWeight ? { seedWeightBasis: seedWeight.basis } : {}),
+      };
+    default:
+      return { kind: row.amount_kind, seeds: row.seeds_on_hand };
+  }
+}
+
 export function toLotDto(row: LotRow) {
   const lot = toDecisionLot(row);
+  const { seedWeight } = seedWeightFigures(row);
   return {
     ...lot,
     scientificName: row.scientific_name,
@@ -122,6 +173,8 @@ export function toLotDto(row: LotRow) {
     },
     quantityEstimated: row.quantity_estimated,
     gramsEntered: num(row.grams_entered),
+    amount: amountOf(row, seedWeight),
+    seedWeight,
     notes: row.notes,
     parentPlantIds: row.parent_plant_ids,
     createdAt: row.created_at,
@@ -213,7 +266,7 @@ export function updateLot(db: DbOrTx, lotId: string, values: Updateable<LotTable
 export function lockLot(db: DbOrTx, bankId: string, lotId: string) {
   return db
     .selectFrom('lots')
-    .select(['id', 'status', 'code', 'harvest_date'])
+    .select(['id', 'status', 'code', 'harvest_date', 'amount_kind', 'grams_entered', 'weighed_seeds'])
     .where('id', '=', lotId)
     .where('bank_id', '=', bankId)
     .forUpdate()
@@ -268,13 +321,24 @@ export function insertMovements(db: DbOrTx, values: Insertable<StockMovementTabl
   return db.insertInto('stock_movements').values(values).execute();
 }
 
-export async function stockOf(db: DbOrTx, lotId: string): Promise<number> {
+/** The ledger's sum for the lot, whatever its amount kind (see stockOf). */
+export async function ledgerSum(db: DbOrTx, lotId: string): Promise<number> {
   const row = await db
     .selectFrom('stock_movements')
     .select(sql<number>`coalesce(sum(change), 0)::int`.as('total'))
     .where('lot_id', '=', lotId)
     .executeTakeFirstOrThrow();
   return row.total;
+}
+
+/**
+ * Seeds on hand by the ledger, or null while the lot's amount is not known: a sowing or a test
+ * from such a lot is recorded, never refused for want of stock, and never empties the lot.
+ */
+export async function stockOf(db: DbOrTx, lotId: string): Promise<number | null> {
+  const lot = await db.selectFrom('lots').select('amount_kind').where('id', '=', lotId).executeTakeFirst();
+  if (!lot || lot.amount_kind === 'unknown') return null;
+  return ledgerSum(db, lotId);
 }
 
 /** Replaces the lot's parent plants (call inside the lot's transaction). */
@@ -326,16 +390,15 @@ export function movementsOf(db: DbOrTx, lotId: string) {
     .execute();
 }
 
-/** The lot's weighed samples, oldest first. */
-export async function seedWeightSamplesOf(db: DbOrTx, lotId: string): Promise<SeedWeightSample[]> {
-  const rows = await db
-    .selectFrom('lot_seed_weights')
-    .select(['seeds', 'grams', 'clean_grams'])
-    .where('lot_id', '=', lotId)
-    .orderBy('created_at')
-    .orderBy('id')
-    .execute();
-  return rows.map((r) => ({ seeds: r.seeds, grams: Number(r.grams), cleanGrams: num(r.clean_grams) }));
+/** The common name of the lot's species. */
+export async function lotSpeciesName(db: DbOrTx, lotId: string): Promise<string> {
+  const row = await db
+    .selectFrom('lots')
+    .innerJoin('species', 'species.id', 'lots.species_id')
+    .select('species.common_name')
+    .where('lots.id', '=', lotId)
+    .executeTakeFirstOrThrow();
+  return row.common_name;
 }
 
 export function insertSeedWeightSample(db: DbOrTx, values: Insertable<LotSeedWeightTable>) {
@@ -351,15 +414,17 @@ export async function lotSeedWeightFigures(
   bankId: string,
   lotId: string,
 ): Promise<LotSeedWeightFigures | null> {
-  const lot = await db
+  const row = await db
     .selectFrom('lots')
-    .select('species_id')
-    .where('id', '=', lotId)
-    .where('bank_id', '=', bankId)
+    .innerJoin('species', 'species.id', 'lots.species_id')
+    .select([
+      seedWeightSamplesJson.as('seed_weight_samples'),
+      speciesSeedsPerGram.as('species_seeds_per_gram'),
+    ])
+    .where('lots.id', '=', lotId)
+    .where('lots.bank_id', '=', bankId)
     .executeTakeFirst();
-  if (!lot) return null;
-  const species = await findSpecies(db, bankId, lot.species_id);
-  return lotSeedWeight(await seedWeightSamplesOf(db, lotId), species?.traits.seedsPerGram ?? null);
+  return row ? seedWeightFigures(row) : null;
 }
 
 /**

@@ -5,6 +5,8 @@ import {
   lotSchema,
   lotsListQuerySchema,
   movementSchema,
+  seedWeightBodySchema,
+  seedWeightSchema,
   stockBodySchema,
   updateLotBodySchema,
 } from '#shared/schemas/lots';
@@ -21,7 +23,8 @@ import { authOf, bankOf } from '#server/http/request-context';
 
 const one = z.object({ lot: lotSchema });
 const list = z.object({ items: z.array(lotSchema), nextCursor: z.string().nullable() });
-const ledger = z.object({ items: z.array(movementSchema), seedsOnHand: z.number() });
+const ledger = z.object({ items: z.array(movementSchema), seedsOnHand: z.number().nullable() });
+const weighed = z.object({ seedWeight: seedWeightSchema });
 
 /** Matches a CSV row's species to the bank's list: scientific name first, then common name. */
 function resolveSpecies(
@@ -104,7 +107,7 @@ export function lotRoutes(
   });
   router.patch('/:lotId', requireRole('grower'), async (req, res) => {
     const body = parse(updateLotBodySchema, req.body, 'lot');
-    respond(res, 200, one, { lot: await lots.update(bankOf(req).id, lotId(req), body) });
+    respond(res, 200, one, { lot: await lots.update(bankOf(req).id, lotId(req), authOf(req).userId, body) });
   });
   router.delete('/:lotId', requireRole('grower'), async (req, res) => {
     const outcome = await lots.remove(bankOf(req).id, lotId(req));
@@ -116,17 +119,23 @@ export function lotRoutes(
   });
 
   router.get('/:lotId/stock', requireRole('viewer'), async (req, res) => {
+    const lot = await lots.get(bankOf(req).id, lotId(req));
     const items = await lots.movements(bankOf(req).id, lotId(req));
-    respond(res, 200, ledger, { items, seedsOnHand: items.at(-1)?.balance ?? 0 });
+    respond(res, 200, ledger, { items, seedsOnHand: lot.seedsOnHand });
   });
   router.post('/:lotId/stock', requireRole('grower'), async (req, res) => {
     const body = parse(stockBodySchema, req.body, 'stock movement');
     const result = await lots.addMovement(bankOf(req).id, lotId(req), authOf(req).userId, body);
     const items = await lots.movements(bankOf(req).id, lotId(req));
-    respond(res, 201, z.object({ movement: movementSchema, seedsOnHand: z.number() }), {
+    respond(res, 201, z.object({ movement: movementSchema, seedsOnHand: z.number().nullable() }), {
       movement: items.find((m) => m.id === result.movementId)!,
       seedsOnHand: result.seedsOnHand,
     });
+  });
+  router.post('/:lotId/seed-weights', requireRole('grower'), async (req, res) => {
+    const body = parse(seedWeightBodySchema, req.body, 'seed-weight sample');
+    const seedWeight = await lots.addSeedWeight(bankOf(req).id, lotId(req), authOf(req).userId, body);
+    respond(res, 201, weighed, { seedWeight });
   });
   return router;
 }

@@ -1,4 +1,13 @@
-import type { CreateLotBody, StockBody, UpdateLotBody } from '#shared/schemas/lots';
+import type {
+  AmountInput,
+  AmountKind,
+  CreateLotBody,
+  SeedWeightBody,
+  StockBody,
+  UpdateLotBody,
+} from '#shared/schemas/lots';
+import type { SeedWeightSources } from '#server/stats/index';
+import { weighedAmount, weighedAmountWords } from './lot-seed-weight';
 import { bankToday, type Clock } from '#server/clock';
 import type { Db, DbOrTx } from '#server/db/database';
 import type { LotStatus, LotTable } from '#server/db/schema';
@@ -64,6 +73,66 @@ async function checkHarvestChange(
 type Species = Awaited<ReturnType<typeof requireSpecies>>;
 type LotExtra = { status?: LotStatus; quantityEstimated?: boolean; reason?: string };
 
+/** The amount a new lot's body gives: `amount`, or its short forms seedCount and grams; none is not known. */
+function amountInputOf(body: CreateLotBody, extra: LotExtra): AmountInput {
+  if (body.amount) return body.amount;
+  if (body.grams !== undefined) return { kind: 'weighed', grams: body.grams };
+  if (body.seedCount === undefined) return { kind: 'unknown' };
+  return extra.quantityEstimated && body.seedCount > 0
+    ? { kind: 'estimated', seeds: body.seedCount }
+    : { kind: 'counted', seeds: body.seedCount };
+}
+
+/** An amount with its seeds worked out (null: not known), and how it was found, in words. */
+interface ResolvedAmount {
+  kind: AmountKind;
+  seeds: number | null;
+  grams: number | null;
+  words: string;
+}
+
+/** Turns an amount as given into seeds; a weight through the lot's seed weight, else its species'. */
+function resolveAmount(input: AmountInput, sources: SeedWeightSources, speciesName: string): ResolvedAmount {
+  switch (input.kind) {
+    case 'unknown':
+      return { kind: 'unknown', seeds: null, grams: null, words: 'Amount not known' };
+    case 'counted':
+      return { kind: 'counted', seeds: input.seeds, grams: null, words: `Counted: ${input.seeds} seeds` };
+    case 'estimated':
+      return {
+        kind: 'estimated',
+        seeds: input.seeds,
+        grams: null,
+        words: `Estimated: about ${input.seeds} seeds`,
+      };
+    case 'weighed': {
+      const weighed = weighedAmount(input.grams, sources);
+      if (!weighed) {
+        throw badRequest('Neither this lot nor its species has a seeds-per-gram figure.', {
+          grams: `No seeds-per-gram figure for ${speciesName}: count the seeds or say about how many, then weigh a sample on the lot's page.`,
+          'amount.grams': `No seeds-per-gram figure for ${speciesName} yet: weigh a sample of this lot first, or give the amount another way.`,
+        });
+      }
+      return {
+        kind: 'weighed',
+        seeds: weighed.seeds,
+        grams: input.grams,
+        words: `Estimated from ${input.grams} g at ${weighedAmountWords(weighed)}`,
+      };
+    }
+  }
+}
+
+/** The lot row's columns for an amount (quantity_estimated and grams_entered kept in step). */
+function amountColumns(amount: ResolvedAmount) {
+  return {
+    amount_kind: amount.kind,
+    quantity_estimated: amount.kind === 'estimated' || amount.kind === 'weighed',
+    grams_entered: amount.grams,
+    weighed_seeds: amount.kind === 'weighed' ? amount.seeds : null,
+  };
+}
+
 /** The bank's lot codes, lower-cased (codes are unique in a bank in any letter case). */
 async function takenCodes(db: DbOrTx, bankId: string): Promise<Set<string>> {
   return new Set((await repo.bankCodes(db, bankId)).map((code) => code.toLowerCase()));
@@ -106,7 +175,7 @@ function csvLotBody(row: ParsedLotCsvRow): CreateLotBody {
     notes: row.notes,
     treated: row.treated,
     ...(row.code ? { code: row.code } : {}),
-    seedCount: row.seedsOnHand,
+    ...(row.seedsOnHand !== null ? { seedCount: row.seedsOnHand } : {}),
   };
 }
 
@@ -122,6 +191,12 @@ function codeAllocator(used: string[]): (prefix: string) => string {
     last.set(prefix, code);
     return code;
   };
+}
+
+/** An emptied lot is depleted; seeds found again bring it back. */
+async function followStock(trx: DbOrTx, lotId: string, status: LotStatus, seedsOnHand: number) {
+  if (seedsOnHand === 0 && status === 'active') await repo.updateLot(trx, lotId, { status: 'depleted' });
+  if (seedsOnHand > 0 && status === 'depleted') await repo.updateLot(trx, lotId, { status: 'active' });
 }
 
 export function createLotsService(deps: LotsServiceDeps) {
@@ -166,18 +241,13 @@ export function createLotsService(deps: LotsServiceDeps) {
     extra: LotExtra = {},
   ) {
     if (body.harvestDate) refuseFutureHarvest(body.harvestDate, today);
-    let seeds = body.seedCount ?? 0;
-    let estimated = extra.quantityEstimated ?? false;
-    if (body.grams !== undefined) {
-      const perGram = species.traits.seedsPerGram;
-      if (!perGram) {
-        throw badRequest('This species has no typical seeds per gram.', {
-          grams: `No seeds-per-gram figure for ${species.commonName}: count the seeds, or set it for the species.`,
-        });
-      }
-      seeds = Math.round(body.grams * perGram);
-      estimated = true;
-    }
+    const amount = resolveAmount(
+      amountInputOf(body, extra),
+      {
+        species: species.traits.seedsPerGram ? { seedsPerGram: species.traits.seedsPerGram } : null,
+      },
+      species.commonName,
+    );
     const row = {
       bank_id: bankId,
       species_id: species.id,
@@ -188,24 +258,19 @@ export function createLotsService(deps: LotsServiceDeps) {
       packed_for_season: body.packedForSeason ?? null,
       plants_bulked: body.plantsBulked ?? null,
       ...storageColumns(body.storage),
-      quantity_estimated: estimated,
-      grams_entered: body.grams ?? null,
+      ...amountColumns(amount),
       notes: body.notes ?? null,
       treated: body.treated ?? false,
       created_by: userId,
       ...(extra.status ? { status: extra.status } : {}),
     } satisfies Omit<Insertable<LotTable>, 'code'>;
     const movement =
-      seeds > 0
+      amount.seeds !== null && amount.seeds > 0
         ? {
             kind: 'initial' as const,
-            change: seeds,
+            change: amount.seeds,
             date: body.harvestDate ?? today,
-            reason:
-              extra.reason ??
-              (body.grams !== undefined
-                ? `Estimated from ${body.grams} g at about ${species.traits.seedsPerGram} seeds per gram`
-                : 'Counted when the lot was logged'),
+            reason: extra.reason ?? `${amount.words} when the lot was logged`,
             created_by: userId,
           }
         : null;
@@ -244,6 +309,33 @@ export function createLotsService(deps: LotsServiceDeps) {
     await repo.setParents(trx, inserted.id, body.parentPlantIds ?? []);
     if (movement) await repo.insertMovement(trx, { ...movement, lot_id: inserted.id });
     return inserted.id;
+  }
+
+  /**
+   * Sets the lot's amount as the grower now knows it: the ledger gets one line that brings its sum
+   * to the new seeds ('initial' when the amount was not known before, else a correction), so every
+   * earlier movement stays on record. 'unknown' only marks the amount not known.
+   */
+  async function setAmount(trx: DbOrTx, bankId: string, lotId: string, userId: string, input: AmountInput) {
+    const lot = await repo.lockLot(trx, bankId, lotId);
+    if (!lot) throw notFound('No such lot in this bank.');
+    const figures = await repo.lotSeedWeightFigures(trx, bankId, lotId);
+    const species = await repo.lotSpeciesName(trx, lotId);
+    const amount = resolveAmount(input, figures?.sources ?? {}, species);
+    await repo.updateLot(trx, lotId, { ...amountColumns(amount), updated_at: clock.now() });
+    if (amount.seeds === null) return;
+    const sum = await repo.ledgerSum(trx, lotId);
+    if (amount.seeds !== sum) {
+      await repo.insertMovement(trx, {
+        lot_id: lotId,
+        kind: lot.amount_kind === 'unknown' ? 'initial' : 'correction',
+        change: amount.seeds - sum,
+        date: await bankToday(trx, clock, bankId),
+        reason: `${amount.words} (amount set)`,
+        created_by: userId,
+      });
+    }
+    await followStock(trx, lotId, lot.status, amount.seeds);
   }
 
   return {
@@ -337,7 +429,7 @@ export function createLotsService(deps: LotsServiceDeps) {
       });
     },
 
-    async update(bankId: string, lotId: string, body: UpdateLotBody) {
+    async update(bankId: string, lotId: string, userId: string, body: UpdateLotBody) {
       await db.transaction().execute(async (trx) => {
         const lot = await repo.lockLot(trx, bankId, lotId);
         if (!lot) throw notFound('No such lot in this bank.');
@@ -372,6 +464,7 @@ export function createLotsService(deps: LotsServiceDeps) {
           throw error;
         }
         if (body.parentPlantIds) await repo.setParents(trx, lotId, body.parentPlantIds);
+        if (body.amount) await setAmount(trx, bankId, lotId, userId, body.amount);
       });
       return get(bankId, lotId);
     },
@@ -405,8 +498,7 @@ export function createLotsService(deps: LotsServiceDeps) {
         const lot = await repo.lockLot(trx, bankId, lotId);
         if (!lot) throw notFound('No such lot in this bank.');
         const before = await repo.stockOf(trx, lotId);
-        const after = before + body.change;
-        if (after < 0) {
+        if (before !== null && before + body.change < 0) {
           throw conflict(
             `Only ${before} seeds are on hand; taking ${-body.change} would leave the stock below zero.`,
             'stock_below_zero',
@@ -420,18 +512,66 @@ export function createLotsService(deps: LotsServiceDeps) {
           reason: body.reason,
           created_by: userId,
         });
-        // An emptied lot is depleted; seeds found again bring it back.
-        if (after === 0 && lot.status === 'active') await repo.updateLot(trx, lotId, { status: 'depleted' });
-        if (after > 0 && lot.status === 'depleted') await repo.updateLot(trx, lotId, { status: 'active' });
+        // Not known before, not known after: the movement is kept, the amount stays unknown.
+        const after = before === null ? null : before + body.change;
+        if (after !== null) await followStock(trx, lotId, lot.status, after);
         return { movementId: movement.id, seedsOnHand: after };
       });
     },
 
+    /**
+     * Records a weighed sample of the lot and answers with its seed weight now. A weighed amount is
+     * turned into seeds again with the new figure; the ledger gets the difference as a correction
+     * (never taking it below zero), so seeds already taken out stay taken.
+     */
+    async addSeedWeight(bankId: string, lotId: string, userId: string, body: SeedWeightBody) {
+      return db.transaction().execute(async (trx) => {
+        const lot = await repo.lockLot(trx, bankId, lotId);
+        if (!lot) throw notFound('No such lot in this bank.');
+        await repo.insertSeedWeightSample(trx, {
+          bank_id: bankId,
+          lot_id: lotId,
+          seeds: body.seeds,
+          grams: body.grams,
+          clean_grams: body.cleanGrams ?? null,
+          created_by: userId,
+        });
+        const figures = (await repo.lotSeedWeightFigures(trx, bankId, lotId))!;
+        if (lot.amount_kind === 'weighed' && lot.grams_entered !== null) {
+          const grams = Number(lot.grams_entered);
+          const weighed = weighedAmount(grams, figures.sources)!;
+          const sum = await repo.ledgerSum(trx, lotId);
+          const change = Math.max(weighed.seeds - (lot.weighed_seeds ?? 0), -sum);
+          if (change !== 0) {
+            await repo.insertMovement(trx, {
+              lot_id: lotId,
+              kind: 'correction',
+              change,
+              date: await bankToday(trx, clock, bankId),
+              reason: `Re-estimated from ${grams} g at ${weighedAmountWords(weighed)}`,
+              created_by: userId,
+            });
+          }
+          await repo.updateLot(trx, lotId, { weighed_seeds: weighed.seeds, updated_at: clock.now() });
+          await followStock(trx, lotId, lot.status, sum + change);
+        } else {
+          await repo.updateLot(trx, lotId, { updated_at: clock.now() });
+        }
+        return figures.seedWeight!;
+      });
+    },
+
     async movements(bankId: string, lotId: string) {
-      await get(bankId, lotId);
-      let balance = 0;
-      return (await repo.movementsOf(db, lotId)).map((m) => {
-        balance += m.change;
+      const lot = await get(bankId, lotId);
+      const rows = await repo.movementsOf(db, lotId);
+      // Balances mean something from the line that made the amount known (the first 'initial'):
+      // before it, and throughout while the amount is not known, they are not known either.
+      const firstInitial = rows.findIndex((m) => m.kind === 'initial');
+      const knownFrom = lot.amount.kind === 'unknown' ? rows.length : Math.max(0, firstInitial);
+      let sum = 0;
+      return rows.map((m, i) => {
+        sum += m.change;
+        const balance = i >= knownFrom ? sum : null;
         return {
           id: m.id,
           kind: m.kind,

@@ -58,7 +58,7 @@ export function createOverviewService({ db, viability }: { db: Db; viability: Vi
 
       const ranking = await viability.ranking(bankId, today);
       const lotsToRetest = ranking
-        .filter((r) => r.recommendation === 'retest' && r.seedsOnHand > 0)
+        .filter((r) => r.recommendation === 'retest' && (r.seedsOnHand === null || r.seedsOnHand > 0))
         .slice(0, 12)
         .map((r) => ({
           lotId: r.lotId,
@@ -71,7 +71,9 @@ export function createOverviewService({ db, viability }: { db: Db; viability: Vi
       for (const e of entries)
         if (!e.sown_on && e.lot_id && e.seeds_to_sow)
           needed.set(e.lot_id, (needed.get(e.lot_id) ?? 0) + e.seeds_to_sow);
+      // A lot whose amount is not known is never low stock: not known is not few.
       const lowStock = ranking
+        .flatMap((r) => (r.seedsOnHand === null ? [] : [{ ...r, seedsOnHand: r.seedsOnHand }]))
         .filter((r) => r.status === 'active' && r.seedsOnHand < (needed.get(r.lotId) ?? LOW_STOCK))
         .map((r) => ({
           lotId: r.lotId,

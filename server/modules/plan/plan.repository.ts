@@ -10,7 +10,12 @@ const entries = (db: DbOrTx, bankId: string) =>
     .selectAll('plan_entries')
     // The lot's stock now (kept on the lot from its ledger), so the planner can say before
     // "Mark sown" that it falls short.
-    .select(['species.common_name as species_name', 'lots.code as lot_code', 'lots.seeds_on_hand'])
+    .select([
+      'species.common_name as species_name',
+      'lots.code as lot_code',
+      'lots.seeds_on_hand',
+      'lots.amount_kind',
+    ])
     .where('plan_entries.bank_id', '=', bankId);
 
 export type PlanEntryRow = Awaited<ReturnType<ReturnType<typeof entries>['executeTakeFirstOrThrow']>>;

@@ -31,7 +31,8 @@ export function createPlanService({
     plantsWanted: r.plants_wanted,
     start: r.start,
     seedsToSow: r.seeds_to_sow,
-    seedsOnHand: r.lot_id === null ? null : (r.seeds_on_hand ?? 0),
+    // Null too when the lot's amount is not known: never read as zero.
+    seedsOnHand: r.lot_id === null || r.amount_kind === 'unknown' ? null : (r.seeds_on_hand ?? 0),
     sowFrom: r.sow_from,
     sowTo: r.sow_to,
     expectFrom: r.expect_from,
@@ -89,7 +90,11 @@ export function createPlanService({
       const c = candidates.find((x) => x.lotId === lotId);
       if (c) {
         seeds = c.seeds;
-        if (!c.enough)
+        if (c.enough === null)
+          notes.push(
+            `Lot ${c.code}'s amount is not known; ${c.seeds} seeds are needed for ${input.plantsWanted} plants.`,
+          );
+        else if (!c.enough)
           notes.push(
             `Lot ${c.code} has ${c.seedsOnHand} seeds; ${c.seeds} are needed for ${input.plantsWanted} plants.`,
           );
@@ -108,7 +113,7 @@ export function createPlanService({
         lotId = best.lotId;
         seeds = best.seeds;
         notes.push(
-          best.enough
+          best.enough !== false
             ? `Suggested lot ${best.code}: projected ${Math.round(best.projected.percent)}% (at least ${Math.round(best.projected.low)}%) when sowing starts.`
             : `No lot has enough seed: the best, ${best.code}, has ${best.seedsOnHand} of the ${best.seeds} needed.`,
         );
@@ -220,7 +225,8 @@ export function createPlanService({
         const lot = await lockLot(trx, bankId, entry.lot_id);
         if (!lot) throw notFound('The lot of this entry is gone.');
         const onHand = await stockOf(trx, entry.lot_id);
-        if (onHand < entry.seeds_to_sow) {
+        // null: the lot's amount is not known, so the sowing is recorded and nothing is refused.
+        if (onHand !== null && onHand < entry.seeds_to_sow) {
           throw new AppError(
             409,
             'stock_below_zero',
@@ -240,7 +246,7 @@ export function createPlanService({
           sown_movement_id: movement.id,
           updated_at: clock.now(),
         });
-        if (onHand === entry.seeds_to_sow && lot.status === 'active') {
+        if (onHand !== null && onHand === entry.seeds_to_sow && lot.status === 'active') {
           await updateLot(trx, entry.lot_id, { status: 'depleted' });
         }
       });
@@ -261,7 +267,7 @@ export function createPlanService({
         });
         if (entry.lot_id) {
           const lot = await lockLot(trx, bankId, entry.lot_id);
-          if (lot?.status === 'depleted' && (await stockOf(trx, entry.lot_id)) > 0) {
+          if (lot?.status === 'depleted' && ((await stockOf(trx, entry.lot_id)) ?? 0) > 0) {
             await updateLot(trx, entry.lot_id, { status: 'active' });
           }
         }

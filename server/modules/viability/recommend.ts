@@ -31,7 +31,8 @@ export interface Band {
 export interface DecisionInput {
   /** The sowing date decided for (ISO). */
   on: string;
-  seedsOnHand: number;
+  /** Null when the lot's amount is not known: that is never "no seeds left". */
+  seedsOnHand: number | null;
   /** Seeds the bank's unsown plan entries need from this lot, null when none. */
   seedsNeeded: number | null;
   /** At least one usable test: a counted test that is not set aside. */
@@ -156,7 +157,7 @@ export function decide(input: DecisionInput): Decision {
     : `the bank's ${threshold}% threshold`;
 
   // 1. Retire: nothing left, or a measured lot that at best comes up too thinly.
-  if (input.seedsOnHand <= 0)
+  if (input.seedsOnHand !== null && input.seedsOnHand <= 0)
     return { recommendation: 'retire', reason: 'No seeds left in the ledger: nothing to sow.' };
 
   // 2. Test first: no usable test. The species' figures are a guess, and a guess never retires a lot.
@@ -244,7 +245,8 @@ export function decide(input: DecisionInput): Decision {
     initial !== null &&
     initial > 0 &&
     next.percent * 100 < REGENERATE_BELOW_PERCENT_OF_INITIAL * initial;
-  const short = input.seedsNeeded !== null && input.seedsOnHand < input.seedsNeeded;
+  const short =
+    input.seedsNeeded !== null && input.seedsOnHand !== null && input.seedsOnHand < input.seedsNeeded;
   const thin = basis.low < threshold;
   if ((fading || short) && !input.youngerLotOfVariety) {
     const why: string[] = [];

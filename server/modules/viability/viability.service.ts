@@ -603,7 +603,8 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
         establishmentFactor: v.settings.establishment,
         basis: v.model.basis,
         estimateOnly: estimate,
-        enoughStock: seeds <= v.lot.seedsOnHand,
+        // Null when the lot's amount is not known: neither enough nor short.
+        enoughStock: v.lot.seedsOnHand === null ? null : seeds <= v.lot.seedsOnHand,
         seedsOnHand: v.lot.seedsOnHand,
         explanation: estimate
           ? `Not tested — this is a guess from the species' typical seed: sow about ${seeds} seeds for ${plants} plants (likely ${Math.round(d.projected.low)}–${Math.round(d.projected.high)}% on ${dayInWords(on)}). Test 20 seeds first for a real figure.`
@@ -646,10 +647,14 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
           projected: d.projected,
           seeds,
           seedsOnHand: lot.seedsOnHand,
-          enough: seeds <= lot.seedsOnHand,
+          // Null when the lot's amount is not known: it may hold enough, or not.
+          enough: lot.seedsOnHand === null ? null : seeds <= lot.seedsOnHand,
         });
       }
-      return out.sort((a, b) => Number(b.enough) - Number(a.enough) || b.projected.low - a.projected.low);
+      const stockRank = (enough: boolean | null) => (enough === null ? 1 : enough ? 2 : 0);
+      return out.sort(
+        (a, b) => stockRank(b.enough) - stockRank(a.enough) || b.projected.low - a.projected.low,
+      );
     },
 
     /**

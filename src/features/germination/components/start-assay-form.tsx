@@ -25,7 +25,8 @@ export interface LotForAssay {
   code: string;
   speciesName: string;
   variety: string;
-  seedsOnHand: number;
+  /** Null when the lot's amount is not known: nothing is short, nothing is "left after". */
+  seedsOnHand: number | null;
 }
 
 export interface StartAssayFormProps {
@@ -50,8 +51,8 @@ const DEFAULT_TRAYS = 4;
  * A home lot rarely spares 400 seeds, so 25 per tray unless the lot is large enough that 400 is at
  * most a tenth of it (the tenth is our own rule of thumb).
  */
-export function defaultSeedsPerTray(seedsOnHand: number | undefined): number {
-  return seedsOnHand !== undefined && seedsOnHand >= 4000 ? 100 : 25;
+export function defaultSeedsPerTray(seedsOnHand: number | null | undefined): number {
+  return seedsOnHand != null && seedsOnHand >= 4000 ? 100 : 25;
 }
 
 /** '' → null; a number → the number; anything else → NaN (reported as "use a number"). */
@@ -155,9 +156,9 @@ export function StartAssayForm({
     return sum + (n !== null && Number.isFinite(n) ? n : 0);
   }, 0);
   const allSame = trays.every((t) => t === trays[0]);
-  const short = lot !== undefined && total > lot.seedsOnHand;
-  const fittingPerTray =
-    lot !== undefined && trays.length > 0 ? Math.floor(lot.seedsOnHand / trays.length) : 0;
+  const onHand = lot?.seedsOnHand ?? null;
+  const short = onHand !== null && total > onHand;
+  const fittingPerTray = onHand !== null && trays.length > 0 ? Math.floor(onHand / trays.length) : 0;
 
   const setTrayCount = (count: number) => {
     const current = getValues('trays');
@@ -336,15 +337,16 @@ export function StartAssayForm({
         >
           <p>
             <span className="num text-lg font-bold">{total}</span> seeds will be taken from the lot’s stock
-            {lot ? (
+            {lot && onHand === null ? ' (the amount on hand is not known)' : null}
+            {lot && onHand !== null ? (
               <>
                 {' '}
-                (on hand: <span className="num">{lot.seedsOnHand}</span>
+                (on hand: <span className="num">{onHand}</span>
                 {short ? (
                   ')'
                 ) : (
                   <>
-                    , <span className="num">{lot.seedsOnHand - total}</span> left after)
+                    , <span className="num">{onHand - total}</span> left after)
                   </>
                 )}
               </>

@@ -36,7 +36,9 @@ function PreviewTable({ rows }: { rows: ImportPreview }) {
             <span className="block text-sm text-loam-600 sm:hidden">{harvestOrSeason(row) ?? ''}</span>
           </td>
           <td className="hidden py-2 pr-3 align-top sm:table-cell">{harvestOrSeason(row) ?? '—'}</td>
-          <td className="py-2 text-right align-top font-semibold">{formatCount(row.seedsOnHand)}</td>
+          <td className="py-2 text-right align-top font-semibold">
+            {row.seedsOnHand === null ? 'Not known' : formatCount(row.seedsOnHand)}
+          </td>
         </tr>
       ))}
     </CsvTable>

@@ -37,9 +37,33 @@ export const movementLabels: Record<MovementKind, string> = {
 const count = new Intl.NumberFormat('en');
 export const formatCount = (n: number) => count.format(n);
 
-/** Seeds on hand, with "≈" when the number came from a weight. */
-export function seedsLabel(lot: Pick<LotDto, 'seedsOnHand' | 'quantityEstimated'>): string {
-  return `${lot.quantityEstimated ? '≈ ' : ''}${formatCount(lot.seedsOnHand)}`;
+/** Seeds per gram as people read it: whole above 10, two decimals below. */
+export const formatPerGram = (n: number) => n.toLocaleString('en', { maximumFractionDigits: n < 10 ? 2 : 0 });
+
+/** Grams as weighed: up to three decimals, at least one ("4.0 g"). */
+export const formatGrams = (g: number) =>
+  `${g.toLocaleString('en', { minimumFractionDigits: 1, maximumFractionDigits: 3 })} g`;
+
+/**
+ * The lot's amount in words, honestly: "Amount not known", "About 300 seeds on hand", "≈ 1,200
+ * seeds on hand, from 4.0 g at this lot's 300 seeds/g", or the counted number.
+ */
+export function amountLabel(lot: Pick<LotDto, 'amount' | 'seedWeight'>): string {
+  const { amount, seedWeight } = lot;
+  const seeds = formatCount(amount.seeds ?? 0);
+  switch (amount.kind) {
+    case 'unknown':
+      return 'Amount not known';
+    case 'estimated':
+      return `About ${seeds} seeds on hand`;
+    case 'weighed': {
+      if (amount.grams === undefined || !seedWeight) return `≈ ${seeds} seeds on hand`;
+      const whose = amount.seedWeightBasis === 'lot' ? "this lot's" : "the species' typical";
+      return `≈ ${seeds} seeds on hand, from ${formatGrams(amount.grams)} at ${whose} ${formatPerGram(seedWeight.seedsPerGram)} seeds/g`;
+    }
+    default:
+      return `${seeds} seeds on hand`;
+  }
 }
 
 /** The harvest date, or the season a bought packet was packed for. */

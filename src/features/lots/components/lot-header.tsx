@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import type { LotDto } from '#shared/schemas/lots';
 import { PageHeader } from '#src/components/ui/page-header';
-import { seedsLabel } from './lot-format';
+import { amountLabel } from './lot-format';
 import { StatusBadge } from './status-badge';
 
 /** The lot page's title: code, species, variety, status and seeds on hand. */
@@ -27,8 +27,8 @@ export function LotHeader({
         <>
           <span className="font-semibold text-loam-900">{lot.speciesName}</span>{' '}
           <span className="italic">{lot.scientificName}</span> · {lot.variety}
-          <span className="num mt-1 block font-semibold text-loam-900">
-            {seedsLabel(lot)} seeds on hand{lot.quantityEstimated ? ' (estimated from a weight)' : ''}
+          <span className="num mt-1 block font-semibold text-loam-900" data-testid="lot-amount">
+            {amountLabel(lot)}
           </span>
         </>
       }

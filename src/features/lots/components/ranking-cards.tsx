@@ -111,7 +111,8 @@ export function RankingCards({ table, lotHref }: RankingCardsProps) {
                   {years(Math.max(0, lot.ageYears))}
                 </span>
                 <span className="font-semibold text-loam-900">
-                  {formatCount(lot.seedsOnHand)} seeds{lot.status === 'depleted' ? ' · used up' : ''}
+                  {lot.seedsOnHand === null ? 'Amount not known' : `${formatCount(lot.seedsOnHand)} seeds`}
+                  {lot.status === 'depleted' ? ' · used up' : ''}
                 </span>
               </p>
               <p

@@ -206,12 +206,17 @@ export function rankingColumns({ lotHref, openReason }: RankingColumnsOptions) {
         return v === undefined ? dash : days(v);
       },
     }),
-    column.accessor('seedsOnHand', {
+    // A lot whose amount is not known sorts last and says so: not known is not zero.
+    column.accessor((r) => r.seedsOnHand ?? undefined, {
       id: ids.seeds,
       header: 'Seeds',
       sortDescFirst: true,
+      sortUndefined: 'last',
       meta: meta('Seeds on hand', 84, true),
-      cell: (c) => formatCount(c.getValue()),
+      cell: (c) => {
+        const v = c.getValue();
+        return v === undefined ? 'Not known' : formatCount(v);
+      },
     }),
     column.accessor((r) => recommendationOrder.indexOf(r.recommendation), {
       id: ids.recommendation,

@@ -231,7 +231,13 @@ export function StockLedger({ bankId, lotId, canEdit, today }: StockLedgerProps)
                     {signed(m.change)}
                   </td>
                   <td className="px-4 py-2 text-right align-top font-semibold sm:px-2">
-                    {m.balance < 0 ? `−${formatCount(-m.balance)}` : formatCount(m.balance)}
+                    {m.balance === null ? (
+                      <span className="font-normal text-loam-600">not known</span>
+                    ) : m.balance < 0 ? (
+                      `−${formatCount(-m.balance)}`
+                    ) : (
+                      formatCount(m.balance)
+                    )}
                   </td>
                 </tr>
               ))}

@@ -209,7 +209,7 @@ export function PlanEntryForm({
           ) : seeds.data ? (
             <p className="text-sm">
               {seeds.data.explanation}
-              {seeds.data.enoughStock ? null : (
+              {seeds.data.enoughStock !== false ? null : (
                 <strong className="text-clay-800"> The lot has only {seeds.data.seedsOnHand} seeds.</strong>
               )}
             </p>

@@ -33,5 +33,6 @@ export function lotChoiceLabel(lot: RankingItem): string {
       : percent
         ? `about ${percent} by sowing`
         : 'no estimate';
-  return `${lot.code} · ${lot.variety} — ${expected}, ${formatSeeds(lot.seedsOnHand)} seeds`;
+  const stock = lot.seedsOnHand === null ? 'amount not known' : `${formatSeeds(lot.seedsOnHand)} seeds`;
+  return `${lot.code} · ${lot.variety} — ${expected}, ${stock}`;
 }

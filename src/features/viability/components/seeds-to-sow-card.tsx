@@ -177,7 +177,12 @@ export function SeedsToSowCard({
                 {result.explanation}
               </p>
             )}
-            {!result.enoughStock ? (
+            {result.enoughStock === null || result.seedsOnHand === null ? (
+              <p className="text-sm text-loam-700">
+                The amount of seed in this lot is not known: check there are {formatCount(result.seeds)} to
+                sow, or set the amount on this page.
+              </p>
+            ) : !result.enoughStock ? (
               <div
                 role="alert"
                 className="rounded-lg border border-clay-300 bg-clay-100 px-3 py-2.5 text-clay-800"
