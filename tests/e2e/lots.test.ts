@@ -73,10 +73,10 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
 
     j.step('give the weight: the estimate shows before saving', async (page) => {
       await page.getByLabel('Variety').fill('Bench Trial Cherry');
-      // The harvest date starts at today (the demo bank's time zone is UTC unless set otherwise).
-      expect(await page.getByLabel('Harvest date', { exact: true }).inputValue()).toMatch(
-        /^\d{4}-\d{2}-\d{2}$/,
-      );
+      // The harvest date starts empty until chosen (issue 16): never today by default.
+      const harvest = page.getByLabel('Harvest date', { exact: true });
+      expect(await harvest.inputValue()).toBe('');
+      await harvest.fill('2025-09-14');
 
       await page.getByRole('radio', { name: 'Weight in grams' }).check();
       await page.getByLabel('Grams', { exact: true }).fill('2');
@@ -176,6 +176,7 @@ describe.skipIf(!chromiumPath)('the lots pages in Chromium', () => {
     expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
 
     await page.getByLabel('Variety').fill('Mixed blues');
+    await page.getByLabel('Harvest date', { exact: true }).fill('2025-09-14');
     await page.getByLabel('Number of seeds').fill('500');
     await page.getByRole('button', { name: 'Save lot' }).click();
     await page.waitForURL(new RegExp(`/banks/${suite.bankId}/lots/[0-9a-f-]{36}$`));

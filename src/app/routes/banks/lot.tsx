@@ -9,6 +9,7 @@ import { useLot } from '#src/features/lots/api/get-lot';
 import { DeleteLotCard } from '#src/features/lots/components/delete-lot-card';
 import { LotDetails } from '#src/features/lots/components/lot-details';
 import { LotHeader } from '#src/features/lots/components/lot-header';
+import { SeedAmountCard } from '#src/features/lots/components/seed-amount-card';
 import { StockLedger } from '#src/features/lots/components/stock-ledger';
 import { PhotoGallery, type FailedUpload } from '#src/features/photos/components/photo-gallery';
 import { usePlants } from '#src/features/plants/api/get-plants';
@@ -96,6 +97,7 @@ export function LotPage() {
             plants={speciesPlants}
             canEdit={canEdit}
           />
+          <SeedAmountCard bankId={bank.id} lot={lot} canEdit={canEdit} />
           <StockLedger bankId={bank.id} lotId={lot.id} canEdit={canEdit} today={today} />
 
           {/*

@@ -4,7 +4,7 @@ import { movementSchema, type StockBody } from '#shared/schemas/lots';
 import { apiFetch } from '#src/lib/api-client';
 import { bankPaths, refresh, stale } from '#src/lib/bank-api';
 
-const addedSchema = z.object({ movement: movementSchema, seedsOnHand: z.number() });
+const addedSchema = z.object({ movement: movementSchema, seedsOnHand: z.number().nullable() });
 
 /** POST /api/banks/:bankId/lots/:lotId/stock (grower); 409 stock_below_zero, 422 for a future date. */
 export function addStockMovement(bankId: string, lotId: string, body: StockBody) {

@@ -4,7 +4,10 @@ import { movementSchema } from '#shared/schemas/lots';
 import { apiFetch } from '#src/lib/api-client';
 import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
-export const stockResponseSchema = z.object({ items: z.array(movementSchema), seedsOnHand: z.number() });
+export const stockResponseSchema = z.object({
+  items: z.array(movementSchema),
+  seedsOnHand: z.number().nullable(),
+});
 export type StockResponse = z.infer<typeof stockResponseSchema>;
 
 /** GET /api/banks/:bankId/lots/:lotId/stock: every movement, oldest first, with the running balance. */

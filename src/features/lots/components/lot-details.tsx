@@ -125,12 +125,14 @@ export function LotDetails({ bankId, lot, plants, canEdit }: LotDetailsProps) {
             {lot.sourceName ? ` · ${lot.sourceName}` : ''}
           </Detail>
           <Detail label={lot.harvestDate ? 'Harvested' : 'Season'}>{harvestLabel(lot)}</Detail>
-          <Detail label="Quantity when logged">
-            {lot.gramsEntered !== null
-              ? `${lot.gramsEntered} g, estimated through seeds per gram`
-              : lot.quantityEstimated
-                ? 'Estimated'
-                : 'Counted'}
+          <Detail label="Amount">
+            {lot.amount.kind === 'unknown'
+              ? 'Not known'
+              : lot.amount.kind === 'weighed'
+                ? `Weighed${lot.gramsEntered !== null ? `: ${lot.gramsEntered} g` : ''}, turned into seeds`
+                : lot.amount.kind === 'estimated'
+                  ? 'Estimated (about)'
+                  : 'Counted'}
           </Detail>
           <Detail label="Plants bulked">
             {lot.plantsBulked !== null ? formatCount(lot.plantsBulked) : 'Not said'}

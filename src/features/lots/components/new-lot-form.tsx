@@ -55,13 +55,15 @@ const SERVER_FIELDS = [
 ] as const;
 
 type DateKind = 'harvest' | 'season';
+/** How the grower knows the amount: counted, about N, weighed, or not known (never read as zero). */
+type AmountChoice = 'counted' | 'estimated' | 'weighed' | 'unknown';
 type NewLotFields = z.input<typeof createLotBodySchema>;
 
 export interface NewLotFormProps {
   bankId: string;
   species: SpeciesDto[];
   plants: ParentPlantDto[];
-  /** Today in the bank's time zone: the harvest date to start from. */
+  /** Today in the bank's time zone: the latest harvest date (the date itself starts empty). */
   today: string;
   /** Notes under the chosen species (its cautions and bench traits). */
   renderSpeciesNote?: (species: SpeciesDto) => ReactNode;
@@ -92,6 +94,7 @@ export function NewLotForm({
   const create = useCreateLot(bankId);
   const [formError, setFormError] = useState<string>();
   const [dateKind, setDateKind] = useState<DateKind>('harvest');
+  const [amountChoice, setAmountChoice] = useState<AmountChoice>('counted');
   const [photo, setPhoto] = useState<File | null>(null);
   const [phase, setPhase] = useState<'saving' | 'uploading' | null>(null);
   const [photoProgress, setPhotoProgress] = useState(0);
@@ -103,7 +106,8 @@ export function NewLotForm({
       variety: '',
       origin: 'saved' as Origin,
       sourceName: '',
-      harvestDate: today,
+      // Empty until chosen: a harvest date is a fact the grower gives, never today by default.
+      harvestDate: null,
       packedForSeason: null,
       seedCount: undefined,
       grams: undefined,
@@ -144,8 +148,13 @@ export function NewLotForm({
     if (!current.includes(addedPlantId)) setValue('parentPlantIds', [...current, addedPlantId]);
   }, [addedPlantId, plants, getValues, setValue]);
 
-  const onSubmit = handleSubmit(async (body) => {
+  const onSubmit = handleSubmit(async (fields) => {
     setFormError(undefined);
+    const body = withAmount(fields, amountChoice);
+    if ('missing' in body) {
+      setError(body.missing, { type: 'required', message: body.message }, { shouldFocus: true });
+      return;
+    }
     setPhase('saving');
     let lot: LotDto;
     try {
@@ -171,7 +180,7 @@ export function NewLotForm({
   // A lot is dated by its harvest or by the season on its packet, never both.
   const chooseDateKind = (kind: DateKind) => {
     setDateKind(kind);
-    setValue('harvestDate', kind === 'harvest' ? today : null);
+    setValue('harvestDate', null);
     setValue('packedForSeason', kind === 'season' ? Number(today.slice(0, 4)) : null);
   };
 
@@ -231,7 +240,12 @@ export function NewLotForm({
 
         <WhenFieldset today={today} dateKind={dateKind} onDateKind={chooseDateKind} />
 
-        <QuantityFieldset perGram={perGram} speciesName={chosen?.commonName} />
+        <QuantityFieldset
+          choice={amountChoice}
+          onChoice={setAmountChoice}
+          perGram={perGram}
+          speciesName={chosen?.commonName}
+        />
 
         <Fieldset legend="Parent plants">
           {!speciesId ? (
@@ -345,49 +359,90 @@ function WhenFieldset({
   );
 }
 
-/** A seed count, or a weight turned into one through the species' seeds per gram. */
+type CreateLotFields = z.output<typeof createLotBodySchema>;
+
+/**
+ * The body to send for the amount chosen: a count or a weight as the API's short forms, "about N"
+ * and "not known" as `amount`; or the field to fill first, with what to say there.
+ */
+export function withAmount(
+  fields: CreateLotFields,
+  choice: AmountChoice,
+): CreateLotFields | { missing: 'seedCount' | 'grams'; message: string } {
+  const { seedCount, grams, ...rest } = fields;
+  switch (choice) {
+    case 'counted':
+      return seedCount === undefined
+        ? { missing: 'seedCount', message: 'Give the number of seeds, or choose “Not known”.' }
+        : { ...rest, seedCount };
+    case 'estimated':
+      return seedCount === undefined || seedCount < 1
+        ? { missing: 'seedCount', message: 'About how many seeds? Or choose “Not known”.' }
+        : { ...rest, amount: { kind: 'estimated', seeds: seedCount } };
+    case 'weighed':
+      return grams === undefined
+        ? { missing: 'grams', message: 'Give the weight in grams, or choose “Not known”.' }
+        : { ...rest, grams };
+    case 'unknown':
+      return { ...rest, amount: { kind: 'unknown' } };
+  }
+}
+
+const AMOUNT_CHOICES: readonly { value: AmountChoice; label: string; hint: string }[] = [
+  { value: 'counted', label: 'Seed count', hint: 'You counted them' },
+  { value: 'estimated', label: 'About how many', hint: 'A rough number' },
+  { value: 'weighed', label: 'Weight in grams', hint: 'Turned into seeds' },
+  { value: 'unknown', label: 'Not known', hint: 'Not zero: set it later' },
+];
+
+/** The amount: counted, about N, a weight turned into seeds, or not known (never read as zero). */
 function QuantityFieldset({
+  choice,
+  onChoice,
   perGram,
   speciesName,
 }: {
+  choice: AmountChoice;
+  onChoice: (choice: AmountChoice) => void;
   perGram: number | null;
   speciesName: string | undefined;
 }) {
-  const [quantityKind, setQuantityKind] = useState<'count' | 'grams'>('count');
   const {
     register,
     setValue,
+    clearErrors,
     control,
     formState: { errors },
   } = useFormContext<NewLotFields>();
   const grams = useWatch({ control, name: 'grams' });
+  const choose = (next: AmountChoice) => {
+    onChoice(next);
+    clearErrors(['seedCount', 'grams']);
+    if (next !== 'weighed') setValue('grams', undefined);
+    if (next === 'weighed' || next === 'unknown') setValue('seedCount', undefined);
+  };
   return (
     <Fieldset legend="How much">
-      <div role="radiogroup" aria-label="Quantity as" className="grid grid-cols-2 gap-2">
-        <ChoiceCard
-          name="quantityKind"
-          value="count"
-          checked={quantityKind === 'count'}
-          onChange={() => {
-            setQuantityKind('count');
-            setValue('grams', undefined);
-          }}
-          label="Seed count"
-        />
-        <ChoiceCard
-          name="quantityKind"
-          value="grams"
-          checked={quantityKind === 'grams'}
-          onChange={() => {
-            setQuantityKind('grams');
-            setValue('seedCount', undefined);
-          }}
-          label="Weight in grams"
-        />
+      <div role="radiogroup" aria-label="Quantity as" className="grid grid-cols-2 gap-2 sm:grid-cols-4">
+        {AMOUNT_CHOICES.map((c) => (
+          <ChoiceCard
+            key={c.value}
+            name="quantityKind"
+            value={c.value}
+            checked={choice === c.value}
+            onChange={() => choose(c.value)}
+            label={c.label}
+            hint={c.hint}
+          />
+        ))}
       </div>
-      {quantityKind === 'count' ? (
+      {choice === 'counted' || choice === 'estimated' ? (
         <TextField
-          label="Number of seeds"
+          key={choice}
+          label={choice === 'counted' ? 'Number of seeds' : 'About how many seeds'}
+          hint={
+            choice === 'estimated' ? 'Shown as “about” this many; seeds taken out come off it.' : undefined
+          }
           type="number"
           inputMode="numeric"
           min={0}
@@ -396,7 +451,7 @@ function QuantityFieldset({
           error={errors.seedCount?.message}
           {...register('seedCount', { setValueAs: numberOrUndefined })}
         />
-      ) : (
+      ) : choice === 'weighed' ? (
         <>
           <TextField
             label="Grams"
@@ -410,6 +465,11 @@ function QuantityFieldset({
           />
           <GramsEstimate grams={grams} perGram={perGram} speciesName={speciesName} />
         </>
+      ) : (
+        <p className="rounded-lg bg-husk-100 px-3 py-2 text-loam-900">
+          Saved as “amount not known” — not as zero. It is never shown as low stock, and seeds taken out are
+          still recorded. Count, estimate or weigh it on the lot’s page whenever you like.
+        </p>
       )}
     </Fieldset>
   );
@@ -430,16 +490,23 @@ function GramsEstimate({
     return (
       <FormAlert tone="info">
         There is no seeds-per-gram figure for {speciesName.toLowerCase()}, so a weight cannot be turned into a
-        count. Count the seeds instead, or set this bank’s seeds per gram for the species on a lot page.
+        count. Choose “Not known” or “About how many” for now, then weigh a sample on the lot’s page and set
+        the amount by weight there.
       </FormAlert>
     );
   }
   const valid = grams !== undefined && Number.isFinite(grams) && grams > 0;
   return (
-    <p aria-live="polite" className="num rounded-lg bg-husk-100 px-3 py-2 font-semibold text-loam-900">
-      {valid
-        ? `≈ ${formatCount(Math.round(grams * perGram))} seeds at about ${formatCount(perGram)} seeds per gram`
-        : `About ${formatCount(perGram)} seeds per gram`}
-    </p>
+    <div className="rounded-lg bg-husk-100 px-3 py-2 text-loam-900">
+      <p aria-live="polite" className="num font-semibold">
+        {valid
+          ? `≈ ${formatCount(Math.round(grams * perGram))} seeds at about ${formatCount(perGram)} seeds per gram`
+          : `About ${formatCount(perGram)} seeds per gram`}
+      </p>
+      <p className="text-sm text-loam-700">
+        The species’ typical figure. Chaffy home-cleaned seed holds fewer: weigh a sample on the lot’s page
+        and Hilum uses this lot’s own.
+      </p>
+    </div>
   );
 }

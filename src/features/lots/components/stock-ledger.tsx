@@ -78,7 +78,11 @@ function MovementForm({ bankId, lotId, today, start, saved, onSaved }: MovementF
     const change = (directionOf(k, direction) === 'out' ? -1 : 1) * count;
     try {
       const result = await add.mutateAsync({ kind: k, change, reason, date });
-      onSaved(`Recorded ${signed(change)} seeds. ${formatCount(result.seedsOnHand)} on hand now.`, {
+      const now =
+        result.seedsOnHand === null
+          ? 'The amount on hand is still not known.'
+          : `${formatCount(result.seedsOnHand)} on hand now.`;
+      onSaved(`Recorded ${signed(change)} seeds. ${now}`, {
         kind: k,
         direction,
         date,
@@ -188,14 +192,20 @@ export function StockLedger({ bankId, lotId, canEdit, today }: StockLedgerProps)
   return (
     <Card
       title="Stock"
-      description={stock.data ? `${formatCount(stock.data.seedsOnHand)} seeds on hand` : undefined}
+      description={
+        !stock.data
+          ? undefined
+          : stock.data.seedsOnHand === null
+            ? 'Amount not known: seeds taken out are still recorded'
+            : `${formatCount(stock.data.seedsOnHand)} seeds on hand`
+      }
     >
       {stock.isPending ? (
         <Loading label="Reading the ledger" />
       ) : stock.isError ? (
         <FormAlert>{stock.error.message}</FormAlert>
       ) : stock.data.items.length === 0 ? (
-        <p className="text-loam-700">No movements yet: the lot was logged without a quantity.</p>
+        <p className="text-loam-700">No movements yet.</p>
       ) : (
         <div className="-mx-4 overflow-x-auto sm:mx-0">
           <table className="w-full text-left text-sm sm:text-base">
