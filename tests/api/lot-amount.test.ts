@@ -204,6 +204,37 @@ describe('a lot’s amount and seed weight', () => {
     expect((await read(lot.id)).amount).toMatchObject({ seeds: 1800, seedWeightBasis: 'lot' });
   });
 
+  it('when a counted lot is re-weighed or marked not known later, then the ledger follows and keeps its lines', async () => {
+    const lot = await newLot({ variety: 'Recounted', seedCount: 500 });
+    // One sample of 100 clean seeds weighing 0.25 g: 400 seeds per gram [computed].
+    await bank.grower.agent.post(`${lotsUrl()}/${lot.id}/seed-weights`).send({ seeds: 100, grams: 0.25 });
+    const weighed = await bank.grower.agent
+      .patch(`${lotsUrl()}/${lot.id}`)
+      .send({ amount: { kind: 'weighed', grams: 2 } });
+    expect(weighed.status).toBe(200);
+    // 2 g × 400 seeds per gram = 800 seeds, by the lot's own figure.
+    expect(weighed.body.lot.amount).toEqual({
+      kind: 'weighed',
+      seeds: 800,
+      grams: 2,
+      seedWeightBasis: 'lot',
+    });
+    const unknown = await bank.grower.agent
+      .patch(`${lotsUrl()}/${lot.id}`)
+      .send({ amount: { kind: 'unknown' } });
+    expect(unknown.body.lot).toMatchObject({ amount: { kind: 'unknown' }, seedsOnHand: null });
+    const stock = await bank.viewer.agent.get(`${lotsUrl()}/${lot.id}/stock`);
+    expect(stock.body.seedsOnHand).toBeNull();
+    expect(stock.body.items.map((m: { change: number }) => m.change)).toEqual([500, 300]);
+    expect(stock.body.items.every((m: { balance: number | null }) => m.balance === null)).toBe(true);
+    // A bad amount is a 400 naming it.
+    const bad = await bank.grower.agent
+      .patch(`${lotsUrl()}/${lot.id}`)
+      .send({ amount: { kind: 'counted', seeds: -1 } });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.body.error.fields)).toContain('amount.seeds');
+  });
+
   it('when the short forms seedCount and grams are sent, then they are counted and weighed amounts', async () => {
     const counted = await newLot({ variety: 'Short Count', seedCount: 120 });
     expect(counted.amount).toEqual({ kind: 'counted', seeds: 120 });
