@@ -89,7 +89,7 @@ describe.skipIf(!chromiumPath)('a lot’s amount and seed weight in Chromium', (
       },
     );
 
-    j.step('save with “Not known”', async (page) => {
+    j.step('fill the new-lot form with “Not known”', async (page) => {
       await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/new`);
       const species = page.getByRole('combobox', { name: /Species/ });
       await species.fill('lycopers');
@@ -97,6 +97,13 @@ describe.skipIf(!chromiumPath)('a lot’s amount and seed weight in Chromium', (
       await page.getByLabel('Variety').fill('Jar Behind The Door');
       await page.getByLabel('Harvest date', { exact: true }).fill('2024-08-30');
       await page.getByRole('radio', { name: /Not known/ }).check();
+      await expect
+        .poll(() => page.getByText('Saved as “amount not known” — not as zero.', { exact: false }).count())
+        .toBe(1);
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
+
+    j.step('save: the lot page says the amount is not known', async (page) => {
       await page.getByRole('button', { name: 'Save lot' }).click();
       await page.waitForURL(new RegExp(`/banks/${suite.bankId}/lots/[0-9a-f-]{36}$`));
       await expect.poll(() => page.getByTestId('lot-amount').innerText()).toBe('Amount not known');

@@ -35,8 +35,8 @@ function SeedWeightFigures({ seedWeight }: { seedWeight: SeedWeightDto | null })
       <p className="text-loam-800" data-testid="seed-weight">
         Grams → seeds uses the species’ typical{' '}
         <strong className="num">{formatPerGram(seedWeight.seedsPerGram)} seeds per gram</strong>. This lot’s
-        own could be anywhere near <span className="num">{range}</span>, and chaff lowers it: weigh a sample
-        to use this lot’s own.
+        own is likely within <span className="num">{range}</span>, and chaff lowers it: weigh a sample to use
+        this lot’s own.
       </p>
     );
   }
