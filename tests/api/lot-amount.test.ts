@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
-import { speciesId } from '../helpers/lots';
+import { finishedAssay, speciesId } from '../helpers/lots';
 
 // AOSA Rules Appendix 4 worked example (FRSA tutorial, 2001), the form of ISTA Rules ch. 10's
 // thousand-seed weight: eight replicates of 100 seeds weighed in grams [read]. Thousand-seed weight
@@ -313,5 +313,58 @@ describe('a lot’s amount and seed weight', () => {
     const byVariety = new Map(list.body.items.map((l: Lot & { variety: string }) => [l.variety, l.amount]));
     expect(byVariety.get('Imported Unknown')).toEqual({ kind: 'unknown' });
     expect(byVariety.get('Imported About')).toEqual({ kind: 'estimated', seeds: 400 });
+  });
+});
+
+describe('sowing from a lot whose amount is not known', () => {
+  let ctx: TestContext;
+  let bank: Awaited<ReturnType<typeof bankWithRoles>>;
+  let lotId: string;
+  beforeAll(async () => {
+    ctx = await createTestContext({ now: '2026-12-01T09:00:00Z' });
+    bank = await bankWithRoles(ctx.app, ctx.db); // last frost 05-20
+    const pepper = await speciesId(ctx.db, 'pepper');
+    const created = await bank.grower.agent.post(`/api/banks/${bank.bankId}/lots`).send({
+      speciesId: pepper,
+      variety: 'Envelope Without A Count',
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+    });
+    lotId = created.body.lot.id;
+    // A test from it is recorded (its seeds taken from an amount not known).
+    await finishedAssay(bank.grower.agent, bank.bankId, lotId, '2026-02-01', [
+      { sown: 50, germinated: 44 },
+      { sown: 50, germinated: 43 },
+    ]);
+  });
+  afterAll(() => ctx.close());
+
+  it('when seeds to sow are asked for, then stock is neither enough nor short: not known', async () => {
+    const res = await bank.viewer.agent.get(
+      `/api/banks/${bank.bankId}/lots/${lotId}/seeds-to-sow?plants=12&on=2027-03-10`,
+    );
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ enoughStock: null, seedsOnHand: null });
+  });
+
+  it('when a plan entry from it is marked sown, then the sowing is recorded and the amount stays unknown', async () => {
+    const planned = await bank.grower.agent.post(`/api/banks/${bank.bankId}/plan`).send({
+      season: 2027,
+      speciesId: (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${lotId}`)).body.lot.speciesId,
+      plantsWanted: 12,
+      start: 'indoors',
+      lotId,
+    });
+    expect(planned.status).toBe(201);
+    expect(planned.body.entry.seedsOnHand).toBeNull();
+    expect(planned.body.entry.notes.join(' ')).toMatch(/amount is not known/);
+    const sown = await bank.grower.agent
+      .post(`/api/banks/${bank.bankId}/plan/${planned.body.entry.id}/sown`)
+      .send({ date: '2026-11-30' });
+    expect(sown.status).toBe(200);
+    const lot = (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${lotId}`)).body.lot;
+    expect(lot).toMatchObject({ amount: { kind: 'unknown' }, seedsOnHand: null, status: 'active' });
+    const stock = await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${lotId}/stock`);
+    expect(stock.body.items.map((m: { kind: string }) => m.kind)).toEqual(['test', 'sown']);
   });
 });
