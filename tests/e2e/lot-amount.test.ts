@@ -3,7 +3,7 @@ import { describe, expect } from 'vitest';
 import { DEMO_ACCOUNTS } from '#server/demo/demo-people';
 import { SPECIES_REFERENCE } from '#shared/species-reference';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
-import { journeyOfTests } from '../helpers/journey';
+import { journeyOfTests, seriousViolations } from '../helpers/journey';
 
 // The people and the bank are the invented demo scenario of server/demo/demo-people.ts.
 const grower = DEMO_ACCOUNTS.find((a) => a.role === 'grower')!;
@@ -73,6 +73,8 @@ describe.skipIf(!chromiumPath)('a lot’s amount and seed weight in Chromium', (
       // Ready for the next replicate: 100 seeds again, the weights blank, the chaff tick kept.
       expect(await page.getByLabel('Seeds counted').inputValue()).toBe('100');
       expect(await page.getByLabel('Sample weight (g), with chaff').inputValue()).toBe('');
+      // The open form and the figures pass axe-core's serious and critical checks.
+      expect(await seriousViolations(page)).toEqual([]);
       expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
     });
   });
@@ -101,6 +103,7 @@ describe.skipIf(!chromiumPath)('a lot’s amount and seed weight in Chromium', (
         .poll(() => page.getByText('Saved as “amount not known” — not as zero.', { exact: false }).count())
         .toBe(1);
       expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+      expect(await seriousViolations(page)).toEqual([]);
     });
 
     j.step('save: the lot page says the amount is not known', async (page) => {
