@@ -13,6 +13,7 @@ import * as m20261202000000 from './2026_12_02_000000_stored_test_results';
 import * as m20261202000100 from './2026_12_02_000100_test_set_aside';
 import * as m20261202000200 from './2026_12_02_000200_stored_lot_figures';
 import * as m20261202000300 from './2026_12_02_000300_change_notices';
+import * as m20261202003517 from './2026_12_02_003517_sowing_emergence';
 import * as m20261202004162 from './2026_12_02_004162_lot_seed_weights';
 import * as m20261202004817 from './2026_12_02_004817_mail_queue';
 import * as m20261202006271 from './2026_12_02_006271_rate_limits';
@@ -31,6 +32,7 @@ export const migrations: Record<string, Migration> = {
   '2026_12_02_000100_test_set_aside': m20261202000100,
   '2026_12_02_000200_stored_lot_figures': m20261202000200,
   '2026_12_02_000300_change_notices': m20261202000300,
+  '2026_12_02_003517_sowing_emergence': m20261202003517,
   '2026_12_02_004162_lot_seed_weights': m20261202004162,
   '2026_12_02_004817_mail_queue': m20261202004817,
   '2026_12_02_006271_rate_limits': m20261202006271,

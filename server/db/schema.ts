@@ -338,6 +338,22 @@ export interface PlanEntryTable {
   updated_at: Timestamp;
 }
 
+/** What came up from a sowing (a plan entry marked sown): counted or scored, on a day after it. */
+export interface SowingEmergenceTable {
+  id: Generated<string>;
+  bank_id: string;
+  plan_entry_id: string;
+  lot_id: string;
+  sown_movement_id: string;
+  sown_on: string;
+  seeds_sown: number;
+  date: string;
+  seedlings: number | null;
+  score: 'none' | 'few' | 'half' | 'most' | null;
+  created_by: string | null;
+  created_at: Timestamp;
+}
+
 /** An attempt counter of a rate limit (server/http/rate-limit.ts); `key` is a SHA-256, hex. */
 export interface RateLimitTable {
   key: string;
@@ -368,6 +384,7 @@ export interface Database {
   test_trays: TestTrayTable;
   tray_counts: TrayCountTable;
   plan_entries: PlanEntryTable;
+  sowing_emergence: SowingEmergenceTable;
   reminders: ReminderTable;
   viability_stamps: ViabilityStampTable;
   rate_limits: RateLimitTable;

@@ -52,6 +52,8 @@ import {
 import { overviewSchema } from '#shared/schemas/overview';
 import {
   createPlanBodySchema,
+  emergenceBodySchema,
+  emergenceResponseSchema,
   planEntrySchema,
   planListResponseSchema,
   seasonQuerySchema,
@@ -772,9 +774,18 @@ export const apiRoutes: ApiRoute[] = [
     responses: [ok(entryEnvelope)],
   },
   {
+    method: 'post',
+    path: `${BANK}/plan/:entryId/emergence`,
+    summary:
+      'Record what came up from a sowing: `seedlings` counted or a rough `score` (exactly one), by `date` (from the sowing day to today). Every record is kept; the latest of a sowing (by date, then by when written) is what came up, and the lot’s viability reads it as field emergence, weaker evidence than a test. 409 `not_sown` unless the entry is marked sown; 422 for a date before the sowing or in the future, or more seedlings than seeds sown.',
+    access: 'grower',
+    body: emergenceBodySchema,
+    responses: [created(emergenceResponseSchema, 'Recorded: the entry with every record, and the new one.')],
+  },
+  {
     method: 'delete',
     path: `${BANK}/plan/:entryId/sown`,
-    summary: 'Undo sown; puts the seeds back.',
+    summary: 'Undo sown; puts the seeds back (what was recorded as coming up from it goes too).',
     access: 'grower',
     responses: [ok(entryEnvelope)],
   },

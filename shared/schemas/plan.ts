@@ -34,6 +34,58 @@ export const updatePlanBodySchema = z
 
 export const sownBodySchema = z.object({ date: isoDateSchema.optional() });
 
+/** What came up, scored roughly when counting is hopeless: none, a few, about half, most. */
+export const emergenceScoreSchema = z.enum(['none', 'few', 'half', 'most'], {
+  message: 'Choose none, a few, about half or most.',
+});
+export type EmergenceScore = z.infer<typeof emergenceScoreSchema>;
+
+/** POST …/plan/:entryId/emergence: the seedlings that came up from a sowing by `date`, counted or scored. */
+export const emergenceBodySchema = z
+  .object({
+    date: isoDateSchema,
+    seedlings: z
+      .number({ message: 'How many seedlings came up?' })
+      .int({ message: 'A whole number of seedlings.' })
+      .min(0, { message: 'No fewer than none.' })
+      .max(1_000_000, { message: 'Too many seedlings.' })
+      .nullish(),
+    score: emergenceScoreSchema.nullish(),
+  })
+  .superRefine((b, ctx) => {
+    const counted = b.seedlings !== undefined && b.seedlings !== null;
+    const scored = b.score !== undefined && b.score !== null;
+    if (counted && scored)
+      ctx.addIssue({ code: 'custom', path: ['score'], message: 'Give a count or a rough score, not both.' });
+    if (!counted && !scored)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['seedlings'],
+        message: 'Give the seedlings counted, or a rough score.',
+      });
+  });
+export type EmergenceBody = z.infer<typeof emergenceBodySchema>;
+
+/**
+ * One record of what came up from a sowing. A sowing may be looked at again later: every record is
+ * kept, and the latest (by date, then by when it was written) is what came up — the one the lot's
+ * viability reads (`latest`).
+ */
+export const emergenceRecordSchema = z.object({
+  id: idSchema,
+  /** The day the seedlings were counted or scored. */
+  date: z.string(),
+  seedlings: z.number().nullable(),
+  score: emergenceScoreSchema.nullable(),
+  /** The sowing: its day and the seeds its stock movement took from the lot. */
+  sownOn: z.string(),
+  seedsSown: z.number(),
+  /** Seedlings as a percentage of the seeds sown (field emergence), when counted. */
+  percent: z.number().nullable(),
+  latest: z.boolean(),
+});
+export type EmergenceRecordDto = z.infer<typeof emergenceRecordSchema>;
+
 export const planEntrySchema = z.object({
   id: idSchema,
   season: z.number(),
@@ -55,10 +107,16 @@ export const planEntrySchema = z.object({
   transplantOn: z.string().nullable(),
   notes: z.array(z.string()),
   sownOn: z.string().nullable(),
+  /** What came up from the sowing, oldest first (empty until recorded). */
+  emergence: z.array(emergenceRecordSchema),
 });
 export type PlanEntryDto = z.infer<typeof planEntrySchema>;
 export const planListResponseSchema = z.object({
   season: z.number(),
   items: z.array(planEntrySchema),
   nextCursor: z.null(),
+});
+export const emergenceResponseSchema = z.object({
+  entry: planEntrySchema,
+  emergence: emergenceRecordSchema,
 });

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { idSchema, isoDateSchema } from './common';
 import { originSchema } from './lots';
+import { emergenceScoreSchema } from './plan';
 
 const n = z.number();
 const nn = z.number().nullable();
@@ -59,6 +60,23 @@ export const viabilityResponseSchema = z.object({
   ),
   /** Tests the grower set aside: out of the model, shown apart. */
   setAside: z.array(z.object({ testId: idSchema, date: z.string(), reason: z.string() })),
+  /**
+   * What came up from the lot's sowings (plan entries marked sown), oldest first: field emergence,
+   * not a test. Each sowing's latest record is in the model, as weaker evidence than a test.
+   */
+  emergence: z.array(
+    z.object({
+      id: idSchema,
+      entryId: idSchema,
+      sownOn: z.string(),
+      seedsSown: n,
+      date: z.string(),
+      seedlings: nn,
+      score: emergenceScoreSchema.nullable(),
+      ageYears: n,
+      latest: z.boolean(),
+    }),
+  ),
   curve: z.array(z.object({ ageYears: n, percent: n, low: n, high: n })),
 });
 export type ViabilityResponse = z.infer<typeof viabilityResponseSchema>;

@@ -306,6 +306,14 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     // The fixture's entry has no tested lot, so nothing can be withdrawn (API.md: 422).
     ok: 422,
   },
+  'POST plan emergence': {
+    method: 'post',
+    path: async (f) => `/api/banks/${f.bankId}/plan/${await f.make('plan')}/emergence`,
+    body: () => ({ date: '2026-03-01', seedlings: 3 }),
+    least: 'grower',
+    // The fixture's entry is not marked sown, so nothing can have come up from it (API.md: 409).
+    ok: 409,
+  },
   'GET plan.ics': {
     method: 'get',
     path: (f) => `/api/banks/${f.bankId}/plan.ics?season=2027`,

@@ -1,6 +1,6 @@
-import type { Insertable, Updateable } from 'kysely';
+import { sql, type Insertable, type Updateable } from 'kysely';
 import type { DbOrTx } from '#server/db/database';
-import type { PlanEntryTable } from '#server/db/schema';
+import type { PlanEntryTable, SowingEmergenceTable } from '#server/db/schema';
 
 const entries = (db: DbOrTx, bankId: string) =>
   db
@@ -88,3 +88,51 @@ export const lockEntry = (db: DbOrTx, bankId: string, entryId: string) =>
 
 export const deleteMovement = (db: DbOrTx, movementId: string) =>
   db.deleteFrom('stock_movements').where('id', '=', movementId).execute();
+
+/** The seeds a sowing's stock movement took from its lot, and its day. */
+export const sownMovement = (db: DbOrTx, movementId: string) =>
+  db
+    .selectFrom('stock_movements')
+    .select(['id', 'change', 'date'])
+    .where('id', '=', movementId)
+    .executeTakeFirst();
+
+export const insertEmergence = (db: DbOrTx, values: Insertable<SowingEmergenceTable>) =>
+  db.insertInto('sowing_emergence').values(values).returning('id').executeTakeFirstOrThrow();
+
+/**
+ * Records of what came up from sowings, oldest first, each flagged `latest` when it is its
+ * sowing's latest (by date, then by when it was written): the one place that rule lives.
+ */
+const emergenceRows = (db: DbOrTx, bankId: string) =>
+  db
+    .selectFrom('sowing_emergence as e')
+    .innerJoin('lots as l', 'l.id', 'e.lot_id')
+    .select([
+      'e.id',
+      'e.plan_entry_id',
+      'e.lot_id',
+      'l.species_id',
+      'e.sown_on',
+      'e.seeds_sown',
+      'e.date',
+      'e.seedlings',
+      'e.score',
+      sql<boolean>`row_number() over (partition by e.plan_entry_id order by e.date desc, e.created_at desc, e.id desc) = 1`.as(
+        'latest',
+      ),
+    ])
+    .where('e.bank_id', '=', bankId)
+    .orderBy('e.date')
+    .orderBy('e.created_at')
+    .orderBy('e.id');
+
+export type EmergenceRow = Awaited<ReturnType<ReturnType<typeof emergenceRows>['execute']>>[number];
+
+/** What came up from the given plan entries' sowings. */
+export const emergenceOfEntries = async (db: DbOrTx, bankId: string, entryIds: string[]) =>
+  entryIds.length === 0 ? [] : emergenceRows(db, bankId).where('e.plan_entry_id', 'in', entryIds).execute();
+
+/** What came up from every sowing of the bank's lots of the given species, for the viability fits. */
+export const emergenceOfSpecies = async (db: DbOrTx, bankId: string, speciesIds: string[]) =>
+  speciesIds.length === 0 ? [] : emergenceRows(db, bankId).where('l.species_id', 'in', speciesIds).execute();

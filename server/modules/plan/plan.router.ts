@@ -3,6 +3,8 @@ import { z } from 'zod';
 import { comingSeason } from '#shared/plan-dates';
 import {
   createPlanBodySchema,
+  emergenceBodySchema,
+  emergenceResponseSchema,
   planEntrySchema,
   planListResponseSchema,
   seasonQuerySchema,
@@ -55,6 +57,15 @@ export function planRoutes(plan: PlanService, deps: { db: Db; clock: Clock; viab
     respond(res, 200, one, {
       entry: await plan.markSown(bankOf(req).id, entryId(req), authOf(req).userId, date),
     });
+  });
+  router.post('/:entryId/emergence', requireRole('grower'), async (req, res) => {
+    const body = parse(emergenceBodySchema, req.body, 'what came up');
+    respond(
+      res,
+      201,
+      emergenceResponseSchema,
+      await plan.recordEmergence(bankOf(req).id, entryId(req), authOf(req).userId, body),
+    );
   });
   router.delete('/:entryId/sown', requireRole('grower'), async (req, res) => {
     respond(res, 200, one, { entry: await plan.undoSown(bankOf(req).id, entryId(req)) });

@@ -1,6 +1,12 @@
 import type { z } from 'zod';
 import { planDates, PlanDateError } from '#shared/plan-dates';
-import type { CreatePlanBody, PlanEntryDto, updatePlanBodySchema } from '#shared/schemas/plan';
+import type {
+  CreatePlanBody,
+  EmergenceBody,
+  EmergenceRecordDto,
+  PlanEntryDto,
+  updatePlanBodySchema,
+} from '#shared/schemas/plan';
 import { bankToday, type Clock } from '#server/clock';
 import type { Db } from '#server/db/database';
 import { AppError, badRequest, conflict, notFound, unprocessable } from '#server/http/errors';
@@ -8,6 +14,7 @@ import { bankName } from '../banks/banks.shared.repository';
 import { insertMovement, lockLot, stockOf, updateLot } from '../lots/lots.shared.repository';
 import { findSpecies } from '../species/species.shared.repository';
 import type { ViabilityService } from '../viability/viability.service';
+import { dayInWords } from '#shared/day-words';
 import { planCalendar } from './plan-calendar';
 import * as repo from './plan.repository';
 
@@ -20,7 +27,30 @@ export function createPlanService({
   clock: Clock;
   viability: ViabilityService;
 }) {
-  const toDto = (r: repo.PlanEntryRow): PlanEntryDto => ({
+  const emergenceDto = (e: repo.EmergenceRow): EmergenceRecordDto => ({
+    id: e.id,
+    date: e.date,
+    seedlings: e.seedlings,
+    score: e.score,
+    sownOn: e.sown_on,
+    seedsSown: e.seeds_sown,
+    percent: e.seedlings === null ? null : (100 * e.seedlings) / e.seeds_sown,
+    latest: e.latest,
+  });
+
+  /** Each entry with what came up from its sowing (one read for them all). */
+  async function withEmergence(bankId: string, rows: repo.PlanEntryRow[]): Promise<PlanEntryDto[]> {
+    const sown = rows.filter((r) => r.sown_on !== null).map((r) => r.id);
+    const byEntry = new Map<string, EmergenceRecordDto[]>();
+    for (const e of await repo.emergenceOfEntries(db, bankId, sown)) {
+      const list = byEntry.get(e.plan_entry_id);
+      if (list) list.push(emergenceDto(e));
+      else byEntry.set(e.plan_entry_id, [emergenceDto(e)]);
+    }
+    return rows.map((r) => toDto(r, byEntry.get(r.id) ?? []));
+  }
+
+  const toDto = (r: repo.PlanEntryRow, emergence: EmergenceRecordDto[]): PlanEntryDto => ({
     id: r.id,
     season: r.season,
     speciesId: r.species_id,
@@ -41,12 +71,13 @@ export function createPlanService({
     transplantOn: r.transplant_on,
     notes: (r.notes as string[]) ?? [],
     sownOn: r.sown_on,
+    emergence,
   });
 
   async function get(bankId: string, entryId: string) {
     const row = await repo.findEntry(db, bankId, entryId);
     if (!row) throw notFound('No such plan entry in this bank.');
-    return toDto(row);
+    return (await withEmergence(bankId, [row]))[0]!;
   }
 
   /** Dates from the frost date, the suggested (or chosen) lot, and the seeds to sow. */
@@ -123,8 +154,7 @@ export function createPlanService({
   }
 
   async function list(bankId: string, season: number) {
-    const rows = await repo.listSeason(db, bankId, season);
-    return rows.map(toDto);
+    return withEmergence(bankId, await repo.listSeason(db, bankId, season));
   }
 
   return {
@@ -253,7 +283,64 @@ export function createPlanService({
       return get(bankId, entryId);
     },
 
-    /** Puts the seeds back: the ledger line goes, the mark goes. */
+    /**
+     * Records what came up from a sowing by `date`: the seedlings counted, or a rough score. Every
+     * record is kept; the latest of a sowing (by date, then by when written) is what came up, and
+     * the lot's viability reads it as field emergence. Only for an entry marked sown (409), dated
+     * from the sowing day to today (422), with no more seedlings than seeds sown (422).
+     */
+    async recordEmergence(bankId: string, entryId: string, userId: string, body: EmergenceBody) {
+      const today = await bankToday(db, clock, bankId);
+      const id = await db.transaction().execute(async (trx) => {
+        // Locked, so an undo of the sowing cannot slip in between the check and the write.
+        const entry = await repo.lockEntry(trx, bankId, entryId);
+        if (!entry) throw notFound('No such plan entry in this bank.');
+        if (!entry.sown_on || !entry.lot_id)
+          throw conflict('This entry is not marked sown: mark it sown first.', 'not_sown');
+        const movement = entry.sown_movement_id ? await repo.sownMovement(trx, entry.sown_movement_id) : null;
+        if (!movement)
+          throw conflict(
+            'The stock line of this sowing is gone, so Hilum does not know how many seeds were sown. Undo the sowing and mark it again.',
+            'not_sown',
+          );
+        const seedsSown = -movement.change;
+        if (body.date > today)
+          throw unprocessable('What came up cannot be dated in the future.', {
+            date: 'Use today or an earlier date.',
+          });
+        if (body.date < entry.sown_on)
+          throw unprocessable(
+            `This was sown on ${dayInWords(entry.sown_on)}: what came up is dated on or after that.`,
+            {
+              date: `On or after ${entry.sown_on}.`,
+            },
+          );
+        if (typeof body.seedlings === 'number' && body.seedlings > seedsSown)
+          throw unprocessable(`${body.seedlings} seedlings is more than the ${seedsSown} seeds sown.`, {
+            seedlings: `At most ${seedsSown}.`,
+          });
+        const row = await repo.insertEmergence(trx, {
+          bank_id: bankId,
+          plan_entry_id: entryId,
+          lot_id: entry.lot_id,
+          sown_movement_id: movement.id,
+          sown_on: entry.sown_on,
+          seeds_sown: seedsSown,
+          date: body.date,
+          seedlings: body.seedlings ?? null,
+          score: body.score ?? null,
+          created_by: userId,
+        });
+        return row.id;
+      });
+      const entry = await get(bankId, entryId);
+      return { entry, emergence: entry.emergence.find((e) => e.id === id)! };
+    },
+
+    /**
+     * Puts the seeds back: the ledger line goes, the mark goes, and with the ledger line what was
+     * recorded as coming up from the sowing (its foreign key cascades).
+     */
     async undoSown(bankId: string, entryId: string) {
       await db.transaction().execute(async (trx) => {
         const entry = await repo.lockEntry(trx, bankId, entryId);

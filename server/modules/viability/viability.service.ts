@@ -17,6 +17,8 @@ import {
 } from '#server/stats/viability-model';
 import { listSpecies } from '../species/species.shared.repository';
 import { lotsForDecisions, type DecisionLot } from '../lots/lots.shared.repository';
+import { emergenceOfSpecies, type EmergenceRow } from '../plan/plan.shared.repository';
+import { fieldEmergence, type FieldEmergencePoint } from './field-emergence';
 import * as repo from './viability.repository';
 import { assayAggregates, viabilityStamps, type AssayAggregate } from './viability.repository';
 import { decide, retestDueDate, straddles, type Recommendation } from './recommend';
@@ -80,6 +82,8 @@ export interface LotViability {
   assays: ViabilityPoint[];
   /** Tests the grower set aside, with their reasons: out of the model, shown apart. */
   setAside: { testId: string; date: string; reason: string }[];
+  /** What came up from sowings of the lot, oldest first; each sowing's latest is in the model. */
+  emergence: FieldEmergencePoint[];
   lastAssay: AssayAggregate | null;
   harvestRef: string;
   /** Equivalent years at the species' reference storage per calendar year at the lot's storage. */
@@ -143,6 +147,7 @@ function fitSpecies(
   group: DecisionLot[],
   assays: AssayAggregate[],
   sp: SpeciesDto | undefined,
+  sowings: EmergenceRow[] = [],
 ): Map<string, LotViability> {
   const assaysByLot = new Map<string, AssayAggregate[]>();
   for (const t of assays) {
@@ -170,7 +175,13 @@ function fitSpecies(
       alive: p.germinated + (p.fresh ?? 0),
       sown: p.sown,
     }));
-    return { lot, ref, all, points, scale, modelAssays };
+    const emergence = fieldEmergence(
+      sowings.filter((e) => e.lot_id === lot.id),
+      (date) => Math.max(0, ageYears(ref, date)),
+      scale.rateFactor,
+    );
+    modelAssays.push(...emergence.evidence);
+    return { lot, ref, all, points, scale, modelAssays, emergence: emergence.points };
   });
   const results = fitSpeciesModel(
     prepared.map((p) => ({ id: p.lot.id, assays: p.modelAssays })),
@@ -193,6 +204,7 @@ function fitSpecies(
         setAside: p.all
           .filter((t) => t.set_aside_reason !== null)
           .map((t) => ({ testId: t.id, date: t.start_date, reason: t.set_aside_reason! })),
+        emergence: p.emergence,
         lastAssay: p.all.filter((t) => t.set_aside_reason === null).at(-1) ?? null,
         harvestRef: p.ref,
         rateFactor: p.scale.rateFactor,
@@ -248,6 +260,11 @@ async function fitLots(
     bankId,
     stale.map((s) => s.speciesId),
   );
+  const sowings = await emergenceOfSpecies(
+    db,
+    bankId,
+    stale.map((s) => s.speciesId),
+  );
   const lotSpecies = new Map(lots.map((l) => [l.id, l.speciesId]));
   const assaysBySpecies = new Map<string, AssayAggregate[]>();
   for (const t of assays) {
@@ -260,7 +277,12 @@ async function fitLots(
   for (const [i, s] of stale.entries()) {
     // A bank's first fits can take seconds: let other requests in between species.
     if (i > 0) await new Promise((resolve) => setImmediate(resolve));
-    const byLot = fitSpecies(s.group, assaysBySpecies.get(s.speciesId) ?? [], species.get(s.speciesId));
+    const byLot = fitSpecies(
+      s.group,
+      assaysBySpecies.get(s.speciesId) ?? [],
+      species.get(s.speciesId),
+      sowings.filter((e) => e.species_id === s.speciesId),
+    );
     cache.set(s.key, { stamp: s.stamp, traits: s.traits, byLot });
     for (const [id, v] of byLot) out.set(id, v);
   }
@@ -568,6 +590,7 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
           heldBack: v.model?.heldBack.includes(t.testId) ?? false,
         })),
         setAside: v.setAside,
+        emergence: v.emergence,
         curve: v.model
           ? Array.from({ length: 41 }, (_, i) => {
               const age = (maxAge * i) / 40;
