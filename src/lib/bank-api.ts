@@ -101,6 +101,7 @@ export const bankPaths = {
     `${bank(bankId)}/plan?${new URLSearchParams({ season: String(season) })}`,
   planEntry,
   planSown: (bankId: string, entryId: string) => `${planEntry(bankId, entryId)}/sown`,
+  planEmergence: (bankId: string, entryId: string) => `${planEntry(bankId, entryId)}/emergence`,
   /** The season as an iCalendar file, for a download link. */
   planIcs: (bankId: string, season: number) =>
     `${bank(bankId)}/plan.ics?${new URLSearchParams({ season: String(season) })}`,

@@ -17,6 +17,7 @@ import { PlantsList } from '#src/features/plants/components/plants-list';
 import { useSpecies } from '#src/features/species/api/get-species';
 import { SpeciesTraitsCard } from '#src/features/species/components/species-traits-card';
 import { DeclineCard } from '#src/features/viability/components/decline-card';
+import { FieldEmergenceCard } from '#src/features/viability/components/field-emergence-card';
 import { LotAdviceCard } from '#src/features/viability/components/lot-advice-card';
 import { SeedsToSowCard } from '#src/features/viability/components/seeds-to-sow-card';
 import { StorageAdviceCard } from '#src/features/viability/components/storage-advice-card';
@@ -107,6 +108,8 @@ export function LotPage() {
           <section id="lot-tests" aria-labelledby="lot-tests-title">
             <LotAssays bankId={bank.id} lotId={lot.id} canWrite={canEdit} headingId="lot-tests-title" />
           </section>
+          {/* What came up from the lot's sowings: beside its tests, marked as not a test. */}
+          <FieldEmergenceCard bankId={bank.id} lotId={lot.id} on={sowing.on} />
           <DeclineCard
             bankId={bank.id}
             lotId={lot.id}

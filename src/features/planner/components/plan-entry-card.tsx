@@ -14,6 +14,7 @@ import { useRanking } from '../api/get-ranking';
 import { useMarkSown } from '../api/mark-sown';
 import { useUndoSown } from '../api/undo-sown';
 import { useUpdatePlanEntry } from '../api/update-plan-entry';
+import { CameUp } from './came-up';
 import { dayMonth, dayRange, formatSeeds } from './plan-format';
 import { cannotPlan, lotChoiceLabel, lotsOfSpecies } from './plan-lots';
 
@@ -129,6 +130,8 @@ export function PlanEntryCard({ bankId, entry, canEdit, today }: PlanEntryCardPr
           {notice}
         </p>
       ) : null}
+
+      {sown ? <CameUp bankId={bankId} entry={entry} canEdit={canEdit} today={today} /> : null}
 
       {canEdit ? (
         <div className="mt-4 border-t border-loam-100 pt-3">
@@ -291,6 +294,7 @@ function UndoSown({
       <p className="text-loam-700">
         <span className="num font-semibold">{formatSeeds(entry.seedsToSow ?? 0)}</span> seeds were taken from
         lot {entry.lotCode} on {dayMonth(entry.sownOn ?? '')}.
+        {entry.emergence.length ? ' Undoing the sowing also removes what was recorded as coming up.' : ''}
       </p>
       <Button
         variant="secondary"
