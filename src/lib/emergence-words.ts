@@ -15,6 +15,18 @@ function day(iso: string, year?: string): string {
   return year && iso.startsWith(year) ? words.slice(0, -5) : words;
 }
 
+/** What one look found, in words: "26 came up by 28 Mar (65%)", or "a few came up by 28 Mar". */
+export function lookWords(
+  r: Pick<EmergenceRecordDto, 'sownOn' | 'seedsSown' | 'date' | 'seedlings' | 'score'>,
+): string {
+  const by = day(r.date, r.sownOn.slice(0, 4));
+  if (r.seedlings !== null) {
+    const percent = Math.round((100 * r.seedlings) / r.seedsSown);
+    return `${r.seedlings} came up by ${by} (${percent}%)`;
+  }
+  return `${r.score ? SCORE_WORDS[r.score] : 'none'} came up by ${by}`;
+}
+
 /**
  * What came up from a sowing in words, the same in the planner and on the lot page:
  * "Sown 40 on 12 Mar 2027; 26 came up by 28 Mar (65%)", or "…; a few came up by 28 Mar".
@@ -22,11 +34,5 @@ function day(iso: string, year?: string): string {
 export function cameUpWords(
   r: Pick<EmergenceRecordDto, 'sownOn' | 'seedsSown' | 'date' | 'seedlings' | 'score'>,
 ): string {
-  const sown = `Sown ${new Intl.NumberFormat('en-GB').format(r.seedsSown)} on ${day(r.sownOn)}`;
-  const by = day(r.date, r.sownOn.slice(0, 4));
-  if (r.seedlings !== null) {
-    const percent = Math.round((100 * r.seedlings) / r.seedsSown);
-    return `${sown}; ${r.seedlings} came up by ${by} (${percent}%)`;
-  }
-  return `${sown}; ${r.score ? SCORE_WORDS[r.score] : 'none'} came up by ${by}`;
+  return `Sown ${new Intl.NumberFormat('en-GB').format(r.seedsSown)} on ${day(r.sownOn)}; ${lookWords(r)}`;
 }

@@ -10,7 +10,7 @@ import { FormAlert } from '#src/components/ui/form-alert';
 import { TextField } from '#src/components/ui/text-field';
 import { isApiError } from '#src/lib/api-client';
 import { cn } from '#src/lib/cn';
-import { cameUpWords, SCORE_WORDS } from '#src/lib/emergence-words';
+import { cameUpWords, lookWords, SCORE_WORDS } from '#src/lib/emergence-words';
 import { useRecordEmergence } from '../api/record-emergence';
 import { dayMonth } from './plan-format';
 
@@ -76,14 +76,12 @@ function RecordList({ records }: { records: EmergenceRecordDto[] }) {
           data-emergence={r.latest ? 'latest' : 'earlier'}
           className={cn('text-sm', r.latest ? 'font-semibold text-loam-900' : 'text-loam-600')}
         >
-          <span className="num">{cameUpWords(r)}</span>
+          <span className="num">{r.latest ? cameUpWords(r) : `Earlier look: ${lookWords(r)}`}</span>
           {r.latest ? (
             <span className="ml-2 inline-block rounded-full bg-moss-100 px-2 py-0.5 text-xs font-bold text-moss-800">
               latest — what came up
             </span>
-          ) : (
-            <span className="ml-2 text-xs">(earlier look)</span>
-          )}
+          ) : null}
         </li>
       ))}
     </ul>

@@ -1,6 +1,6 @@
 import type { ViabilityResponse } from '#shared/schemas/viability';
 import { Card } from '#src/components/ui/card';
-import { cameUpWords } from '#src/lib/emergence-words';
+import { cameUpWords, lookWords } from '#src/lib/emergence-words';
 import { useLotViability } from '../api/get-lot-viability';
 
 type Look = ViabilityResponse['emergence'][number];
@@ -52,7 +52,7 @@ export function FieldEmergenceCard({ bankId, lotId, on }: FieldEmergenceCardProp
                 <ul className="mt-1 grid gap-0.5 text-sm text-loam-600" aria-label="Earlier looks">
                   {earlier.map((r) => (
                     <li key={r.id} className="num">
-                      Earlier look: {cameUpWords(r).replace(/^Sown [^;]*; /, '')}
+                      Earlier look: {lookWords(r)}
                     </li>
                   ))}
                 </ul>
