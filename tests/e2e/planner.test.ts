@@ -6,7 +6,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '#server/demo/demo-people';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journey, journeyOfTests, seriousViolations } from '../helpers/journey';
-import { finishedAssay, speciesId } from '../helpers/lots';
+import { speciesId, testedTomatoLot } from '../helpers/lots';
 
 // The people and the bank are the invented demo scenario of server/demo/demo-people.ts (last spring
 // frost 05-24, a 10-day margin); the lot below is invented for this test.
@@ -59,21 +59,11 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     expect(
       (await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status,
     ).toBe(200);
-    const tomato = await speciesId(suite.server.db, 'tomato');
-    const lot = await api.post(`/api/banks/${suite.bankId}/lots`).send({
-      speciesId: tomato,
+    ({ lotId, lotCode } = await testedTomatoLot(api, suite.server.db, suite.bankId, {
       variety: 'Planner Trial Red',
-      origin: 'saved',
-      harvestDate: '2025-09-01',
       seedCount: 400,
-    });
-    expect(lot.status).toBe(201);
-    lotId = lot.body.lot.id;
-    lotCode = lot.body.lot.code;
-    await finishedAssay(api, suite.bankId, lotId, '2026-11-01', [
-      { sown: 50, germinated: 46 },
-      { sown: 50, germinated: 45 },
-    ]);
+      testDate: '2026-11-01',
+    }));
     // 400 logged − 2 × 50 counted into the test's trays (the stock is a ledger, DESIGN.md).
     stockBefore = (await api.get(`/api/banks/${suite.bankId}/lots/${lotId}`)).body.lot.seedsOnHand;
     expect(stockBefore).toBe(300);

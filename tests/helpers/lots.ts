@@ -69,3 +69,28 @@ export async function startedAssay(
     trayIds: (created.body.trays as { id: string }[]).map((t) => t.id),
   };
 }
+
+/**
+ * Logs a saved tomato lot of `seedCount` seeds (harvested 1 Sep 2025) through the API and records a
+ * finished two-tray test on `testDate`: 46 and 45 of 50 (91%). Returns the lot's id and code.
+ */
+export async function testedTomatoLot(
+  agent: Agent,
+  db: Db,
+  bankId: string,
+  { variety, seedCount, testDate }: { variety: string; seedCount: number; testDate: string },
+) {
+  const lot = await agent.post(`/api/banks/${bankId}/lots`).send({
+    speciesId: await speciesId(db, 'tomato'),
+    variety,
+    origin: 'saved',
+    harvestDate: '2025-09-01',
+    seedCount,
+  });
+  if (lot.status !== 201) throw new Error(`lot not created: ${JSON.stringify(lot.body)}`);
+  await finishedAssay(agent, bankId, lot.body.lot.id, testDate, [
+    { sown: 50, germinated: 46 },
+    { sown: 50, germinated: 45 },
+  ]);
+  return { lotId: lot.body.lot.id as string, lotCode: lot.body.lot.code as string };
+}
