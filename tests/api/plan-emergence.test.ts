@@ -265,4 +265,37 @@ describe('what came up from a sowing', () => {
     const entry = await bank.viewer.agent.get(`${base()}/plan/${entryId}`);
     expect(entry.body.entry.emergence).toHaveLength(2);
   });
+
+  it('when a bank with recorded sowings is deleted, then its records go with it', async () => {
+    const other = await bankWithRoles(ctx.app, ctx.db);
+    const agent = other.grower.agent;
+    const lot = await agent.post(`/api/banks/${other.bankId}/lots`).send({
+      speciesId: tomato,
+      variety: 'Gone with the bank',
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+      seedCount: 500,
+    });
+    await finishedAssay(agent, other.bankId, lot.body.lot.id, '2026-02-01', [{ sown: 50, germinated: 45 }]);
+    const entry = await agent
+      .post(`/api/banks/${other.bankId}/plan`)
+      .send({ season: 2027, speciesId: tomato, plantsWanted: 6, start: 'indoors', lotId: lot.body.lot.id });
+    await agent
+      .post(`/api/banks/${other.bankId}/plan/${entry.body.entry.id}/sown`)
+      .send({ date: '2027-03-28' });
+    expect(
+      (
+        await agent
+          .post(`/api/banks/${other.bankId}/plan/${entry.body.entry.id}/emergence`)
+          .send({ date: '2027-04-08', seedlings: 4 })
+      ).status,
+    ).toBe(201);
+    expect((await other.owner.agent.delete(`/api/banks/${other.bankId}`)).status).toBe(204);
+    const left = await ctx.db
+      .selectFrom('sowing_emergence')
+      .select('id')
+      .where('bank_id', '=', other.bankId)
+      .execute();
+    expect(left).toEqual([]);
+  });
 });
