@@ -155,6 +155,12 @@ function fitSpecies(
     if (list) list.push(t);
     else assaysByLot.set(t.lot_id, [t]);
   }
+  const sowingsByLot = new Map<string, EmergenceRow[]>();
+  for (const e of sowings) {
+    const list = sowingsByLot.get(e.lot_id);
+    if (list) list.push(e);
+    else sowingsByLot.set(e.lot_id, [e]);
+  }
   const prepared = group.map((lot) => {
     const ref = harvestReference(lot);
     const all = assaysByLot.get(lot.id) ?? [];
@@ -176,7 +182,7 @@ function fitSpecies(
       sown: p.sown,
     }));
     const emergence = fieldEmergence(
-      sowings.filter((e) => e.lot_id === lot.id),
+      sowingsByLot.get(lot.id) ?? [],
       (date) => Math.max(0, ageYears(ref, date)),
       scale.rateFactor,
     );
