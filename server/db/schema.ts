@@ -292,11 +292,26 @@ export interface GerminationTestTable {
   set_aside_reason: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
+type TraySownBy = 'count' | 'weight' | 'guess';
+/** A nullable column that may be left out on insert. */
+type Opt<T> = ColumnType<T | null, T | null | undefined, T | null>;
+
 export interface TestTrayTable {
   id: Generated<string>;
   test_id: string;
   position: number;
-  seeds_sown: number;
+  /** The counted seeds; null for a tray sown by weight or by a rough guess. */
+  seeds_sown: number | null;
+  /** How the tray was sown; a tray not counted keeps the estimate of its seeds made then (sown-estimate.ts). */
+  sown_by: ColumnType<TraySownBy, TraySownBy | undefined, TraySownBy>;
+  sown_grams: Opt<number>;
+  sown_guess: Opt<'pinch' | 'few-dozen' | 'hundreds'>;
+  sown_mean: Opt<number>;
+  sown_sd: Opt<number>;
+  sown_low: Opt<number>;
+  sown_high: Opt<number>;
+  sown_basis: Opt<'lot' | 'species'>;
+  sown_purity_assumed: ColumnType<boolean, boolean | undefined, boolean>;
   abnormal: number | null;
   ungerminated: number | null;
   fresh: number | null;
@@ -304,6 +319,15 @@ export interface TestTrayTable {
   hard: number | null;
   /** Why the grower set the tray aside (spilled, dried out); such a tray is left out of every figure. */
   set_aside_reason: ColumnType<string | null, string | null | undefined, string | null>;
+}
+
+/** A tray scored roughly on a check day, when its seedlings cannot be counted. */
+export interface TrayScoreTable {
+  tray_id: string;
+  check_date: string;
+  score: 'none' | 'few' | 'half' | 'most';
+  created_by: string | null;
+  created_at: Timestamp;
 }
 
 export interface TrayCountTable {
@@ -383,6 +407,7 @@ export interface Database {
   germination_tests: GerminationTestTable;
   test_trays: TestTrayTable;
   tray_counts: TrayCountTable;
+  tray_scores: TrayScoreTable;
   plan_entries: PlanEntryTable;
   sowing_emergence: SowingEmergenceTable;
   reminders: ReminderTable;

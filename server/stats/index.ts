@@ -16,6 +16,7 @@ export type {
   AssaySummary,
   SummarizeOptions,
   IntervalMethod,
+  IntervalKind,
   TrayPercent,
   TrayState,
   FinishFigure,

@@ -5,7 +5,9 @@ import { homogeneityChiSquare } from './homogeneity';
 import type { ChiSquareResult } from './homogeneity';
 import { agreementMethod, replicateAgreement } from './replicate-agreement';
 import type { Agreement } from './replicate-agreement';
-import { assertCount, assertOpenUnit, assertPositiveCount } from './validate';
+import type { RoughScore } from './rough-evidence';
+import { germinationFromUncertainSown } from './uncertain-sown';
+import { assertCount, assertFinite, assertOpenUnit, assertPositiveCount } from './validate';
 import { wilsonInterval } from './wilson';
 
 export type { Agreement, AgreementMethod } from './replicate-agreement';
@@ -23,8 +25,19 @@ type FinishFigures = { [K in FinishFigure]: number | null };
  */
 export interface AssayTray {
   id: string;
+  /** The seeds counted into the tray; for a tray not counted (`sownSd` given), the expected number. */
   seedsSown: number;
+  /**
+   * SD of the true number sown, for a tray sown by weight or by a rough guess (sown-estimate.ts);
+   * absent or 0 when the seeds were counted.
+   */
+  sownSd?: number;
   checks: readonly GerminationCheck[];
+  /**
+   * The latest rough score of a tray whose seedlings were scored instead of counted (it has no
+   * checks): it enters no percentage, only the words and, as a likelihood, the viability model.
+   */
+  score?: RoughScore | null;
   /** Why the grower set the tray aside (spilled, dried out); a set-aside tray enters no figure. */
   setAsideReason?: string | null;
   abnormal?: number | null;
@@ -35,6 +48,12 @@ export interface AssayTray {
 }
 
 export type IntervalMethod = 'wilson' | 'clopper-pearson';
+/**
+ * The interval a result carries: the chosen method for counted trays; 'widened-score' when seeds
+ * sown were estimated (germinationFromUncertainSown: Wilson's score interval widened by the
+ * uncertainty of the number sown).
+ */
+export type IntervalKind = IntervalMethod | 'widened-score';
 
 export interface SummarizeOptions {
   /** Confidence level of the interval, default 0.95. */
@@ -45,13 +64,20 @@ export interface SummarizeOptions {
 
 /**
  * 'counted': in the figures. 'not-counted': no count yet, left out of the running figures.
- * 'set-aside': set aside by the grower, left out of every figure.
+ * 'scored': scored roughly, in no percentage. 'set-aside': set aside by the grower, left out of every figure.
  */
-export type TrayState = 'counted' | 'not-counted' | 'set-aside';
+export type TrayState = 'counted' | 'not-counted' | 'scored' | 'set-aside';
 
 export interface TrayPercent extends FinishFigures {
   id: string;
-  seedsSown: number;
+  /** The seeds counted into the tray; null when they were not counted (see sownMean). */
+  seedsSown: number | null;
+  /** Expected seeds sown (the count itself when counted). */
+  sownMean: number;
+  /** SD of the true number sown (0 when counted). */
+  sownSd: number;
+  /** The tray's latest rough score, when it was scored instead of counted. */
+  score: RoughScore | null;
   state: TrayState;
   setAsideReason: string | null;
   /** Latest cumulative count of normal seedlings; null unless the tray is counted (in the figures). */
@@ -68,15 +94,23 @@ export interface AssaySummary extends NullableTiming, FinishFigures {
   traysCounted: number;
   /** Trays the grower set aside; they enter no figure. */
   traysSetAside: number;
-  /** Seeds sown in the counted trays. */
+  /** Seeds sown in the counted trays (expected, when any was not counted). */
   sown: number | null;
+  /** Whether the seeds sown in the counted trays were estimated (by weight or guess), not counted. */
+  seedsSownEstimated: boolean;
+  /** SD of the true number sown in the counted trays (0 when counted); null when no tray is counted. */
+  sownSd: number | null;
+  /**
+   * More seedlings than the estimate of seeds sown makes plausible (μ + zτ): no percentage is given.
+   */
+  seedlingsExceedSown: boolean;
   /** Normal seedlings in the counted trays. */
   germinated: number | null;
   /** Pooled germination (normal seedlings), 0–100, full precision. */
   percent: number | null;
   /** Pooled germination rounded to the whole percent, as the seed-testing rules report it. */
   percentRounded: number | null;
-  interval: { low: number; high: number; method: IntervalMethod; confidence: number } | null;
+  interval: { low: number; high: number; method: IntervalKind; confidence: number } | null;
   trayPercents: TrayPercent[];
   /** Null figures when fewer than two trays have been counted. */
   agreement: Agreement;
@@ -129,10 +163,20 @@ function validateTrays(trays: readonly AssayTray[]): void {
     const where = `trays[${String(i)}]`;
     if (ids.has(t.id)) throw new RangeError(`${where}.id "${t.id}" is used by another tray`);
     ids.add(t.id);
-    assertPositiveCount(t.seedsSown, `${where}.seedsSown`);
+    const estimated = isEstimated(t);
+    if (estimated) {
+      assertFinite(t.seedsSown, `${where}.seedsSown`);
+      assertFinite(t.sownSd ?? 0, `${where}.sownSd`);
+      if (t.seedsSown <= 0 || (t.sownSd ?? 0) < 0)
+        throw new RangeError(`${where}: an estimate of seeds sown needs a mean above 0 and an SD ≥ 0`);
+    } else {
+      assertPositiveCount(t.seedsSown, `${where}.seedsSown`);
+    }
+    if (t.score != null && t.checks.length > 0)
+      throw new RangeError(`${where}: a tray is either counted or scored roughly, not both`);
     for (const c of t.checks) {
       assertCount(c.cumulative, `${where} cumulative`);
-      if (c.cumulative > t.seedsSown) {
+      if (!estimated && c.cumulative > t.seedsSown) {
         throw new RangeError(
           `${where}: cumulative count ${String(c.cumulative)} exceeds the ${String(t.seedsSown)} seeds sown`,
         );
@@ -171,8 +215,12 @@ function finishFigures(t: AssayTray): FinishFigures {
 
 function trayState(t: AssayTray): TrayState {
   if (t.setAsideReason !== null && t.setAsideReason !== undefined) return 'set-aside';
+  if (t.score != null) return 'scored';
   return t.checks.length === 0 ? 'not-counted' : 'counted';
 }
+
+/** A tray whose seeds were estimated (sown by weight or guess), not counted. */
+const isEstimated = (t: AssayTray) => (t.sownSd ?? 0) > 0;
 
 /** Each finish figure summed over the trays, or null unless every one of them has it. */
 function pooledFinish(trays: readonly AssayTray[]): FinishFigures {
@@ -227,17 +275,22 @@ export function summarizeTest(trays: readonly AssayTray[], options: SummarizeOpt
   const trayPercents: TrayPercent[] = trays.map((t, i) => {
     const state = states[i] ?? 'not-counted';
     const germinated = state === 'counted' ? lastCumulative(t.checks) : null;
+    const estimated = isEstimated(t);
     return {
       id: t.id,
-      seedsSown: t.seedsSown,
+      seedsSown: estimated ? null : t.seedsSown,
+      sownMean: t.seedsSown,
+      sownSd: estimated ? (t.sownSd ?? 0) : 0,
+      score: state === 'scored' ? (t.score ?? null) : null,
       state,
       setAsideReason: state === 'set-aside' ? (t.setAsideReason ?? null) : null,
       germinated,
-      percent: germinated === null ? null : (100 * germinated) / t.seedsSown,
+      // An estimated tray's own share is shown at most 100% (the pooled figure says when it is more).
+      percent: germinated === null ? null : Math.min(100, (100 * germinated) / t.seedsSown),
       ...finishFigures(t),
     };
   });
-  const inPlay = trays.filter((_, i) => states[i] !== 'set-aside');
+  const inPlay = trays.filter((_, i) => states[i] !== 'set-aside' && states[i] !== 'scored');
   const designMethod = agreementMethod(inPlay.map((t) => t.seedsSown));
   const base = {
     traysTotal: trays.length,
@@ -251,6 +304,9 @@ export function summarizeTest(trays: readonly AssayTray[], options: SummarizeOpt
       ...base,
       ...NO_TIMING,
       sown: null,
+      seedsSownEstimated: false,
+      sownSd: null,
+      seedlingsExceedSown: false,
       percent: null,
       percentRounded: null,
       interval: null,
@@ -263,17 +319,27 @@ export function summarizeTest(trays: readonly AssayTray[], options: SummarizeOpt
   const perTray = counted.map((t) => ({ germinated: lastCumulative(t.checks), sown: t.seedsSown }));
   const sown = perTray.reduce((s, t) => s + t.sown, 0);
   const germinated = perTray.reduce((s, t) => s + t.germinated, 0);
+  const pooled = pooledForTiming(counted);
+  if (counted.some(isEstimated)) {
+    return {
+      ...base,
+      ...germinationTiming(pooled),
+      ...estimatedFigures(counted, germinated, sown, confidence),
+    };
+  }
   const percentRounded = roundPercent(germinated, sown);
   const bounds =
     method === 'wilson'
       ? wilsonInterval(germinated, sown, confidence)
       : clopperPearsonInterval(germinated, sown, confidence);
 
-  const pooled = pooledForTiming(counted);
   return {
     ...base,
     ...germinationTiming(pooled),
     sown,
+    seedsSownEstimated: false,
+    sownSd: 0,
+    seedlingsExceedSown: false,
     germinated,
     percent: (100 * germinated) / sown,
     percentRounded,
@@ -281,5 +347,43 @@ export function summarizeTest(trays: readonly AssayTray[], options: SummarizeOpt
     agreement: replicateAgreement(perTray, percentRounded, designMethod),
     homogeneity: counted.length >= 2 ? homogeneityChiSquare(perTray) : null,
     timingNote: timingNote(pooled),
+  };
+}
+
+/**
+ * The pooled figures when some counted tray's seeds were estimated: the trays' estimates are
+ * independent, so their means and variances add; the interval is germinationFromUncertainSown's
+ * (Wilson's score interval widened by the uncertainty of the number sown). Replicate agreement and
+ * homogeneity need the numbers sown, so they are not judged.
+ */
+function estimatedFigures(
+  counted: readonly AssayTray[],
+  germinated: number,
+  sown: number,
+  confidence: number,
+) {
+  const sownSd = Math.sqrt(counted.reduce((s, t) => s + (isEstimated(t) ? (t.sownSd ?? 0) ** 2 : 0), 0));
+  const g = germinationFromUncertainSown(germinated, { mean: sown, sd: sownSd }, confidence);
+  const percent = g.kind === 'estimate' ? 100 * g.fraction : null;
+  return {
+    sown,
+    seedsSownEstimated: true,
+    sownSd,
+    seedlingsExceedSown: g.kind === 'more-seedlings-than-sown',
+    germinated,
+    percent,
+    percentRounded: percent === null ? null : Math.round(percent),
+    interval:
+      g.kind === 'estimate'
+        ? {
+            low: 100 * g.interval.low,
+            high: 100 * g.interval.high,
+            method: 'widened-score' as const,
+            confidence,
+          }
+        : null,
+    agreement: replicateAgreement([], null, 'tolerance-table'),
+    homogeneity: null,
+    timingNote: timingNote(pooledForTiming(counted)),
   };
 }

@@ -10,6 +10,71 @@ export const intervalMethodSchema = z.enum(['wilson', 'clopper-pearson']);
 /** `?interval=…` on a germination test's detail. */
 export const assayDetailQuerySchema = z.object({ interval: intervalMethodSchema.default('wilson') });
 
+/** A grower's rough guess of the seeds in a tray not counted (server/stats SOWN_GUESS_RANGES). */
+export const sownGuessSchema = z.enum(['pinch', 'few-dozen', 'hundreds']);
+export type SownGuess = z.infer<typeof sownGuessSchema>;
+/** A rough score of the seedlings in a tray when counting is hopeless (server/stats ROUGH_SCORE_BANDS). */
+export const roughScoreSchema = z.enum(['none', 'few', 'half', 'most']);
+export type RoughScore = z.infer<typeof roughScoreSchema>;
+
+/** The words of a rough score, as the screens and the result say it ("seedlings came up: a few"). */
+export const ROUGH_SCORE_WORDS: Readonly<Record<RoughScore, string>> = {
+  none: 'none',
+  few: 'a few',
+  half: 'about half',
+  most: 'most',
+};
+/** The words of a rough guess of seeds sown. */
+export const SOWN_GUESS_WORDS: Readonly<Record<SownGuess, string>> = {
+  pinch: 'a pinch',
+  'few-dozen': 'a few dozen',
+  hundreds: 'hundreds',
+};
+/** Rough scores from fewest to most seedlings: a later check day cannot score fewer. */
+export const ROUGH_SCORE_ORDER: readonly RoughScore[] = ['none', 'few', 'half', 'most'];
+
+const seedsCountSchema = z
+  .number()
+  .int({ message: 'Give a whole number of seeds.' })
+  .min(1, { message: 'Sow at least one seed.' })
+  .max(10_000);
+
+/** How a tray was sown: seeds counted, a weight of the lot's material, or a rough guess. */
+export const traySownSchema = z.discriminatedUnion(
+  'by',
+  [
+    z.object({ by: z.literal('count'), seeds: seedsCountSchema }).strict(),
+    z
+      .object({
+        by: z.literal('weight'),
+        grams: z
+          .number()
+          .gt(0, { message: 'Give the weight sown in grams, above 0.' })
+          .max(1000, { message: 'At most 1000 g in one tray.' }),
+      })
+      .strict(),
+    z.object({ by: z.literal('guess'), about: sownGuessSchema }).strict(),
+  ],
+  { error: () => "Say how the tray was sown: by 'count', 'weight' or 'guess'." },
+);
+export type TraySown = z.infer<typeof traySownSchema>;
+
+/**
+ * A tray on create: `{ sown }`, or `{ seedsSown }`, the short form of `{ sown: { by: 'count', seeds } }`.
+ */
+export const trayCreateSchema = z
+  .object({ seedsSown: seedsCountSchema.optional(), sown: traySownSchema.optional() })
+  .strict()
+  .refine((t) => (t.seedsSown === undefined) !== (t.sown === undefined), {
+    message: 'Give the tray either seedsSown or sown, not both.',
+    path: ['sown'],
+  });
+export type TrayCreate = z.infer<typeof trayCreateSchema>;
+
+/** How a tray on create was sown, the short form read as a count. */
+export const traySownOf = (t: TrayCreate): TraySown =>
+  t.sown ?? { by: 'count', seeds: t.seedsSown ?? Number.NaN };
+
 export const createAssayBodySchema = z
   .object({
     startDate: isoDateSchema,
@@ -21,9 +86,7 @@ export const createAssayBodySchema = z
     pretreatmentDays: z.number().int().min(0).max(365).nullable().optional(),
     notes: z.string().trim().max(4000).nullable().optional(),
     trays: z
-      .array(
-        z.object({ seedsSown: z.number().int().min(1, { message: 'Sow at least one seed.' }).max(10_000) }),
-      )
+      .array(trayCreateSchema)
       .min(1, { message: 'A test has at least one tray.' })
       .max(8, { message: 'A test has at most 8 trays.' }),
   })
@@ -51,10 +114,16 @@ export const countsBodySchema = z.object({
   date: isoDateSchema,
   trays: z
     .array(
-      z.object({
-        trayId: idSchema,
-        cumulative: z.number().int().min(0, { message: 'A count cannot be negative.' }),
-      }),
+      z
+        .object({
+          trayId: idSchema,
+          cumulative: z.number().int().min(0, { message: 'A count cannot be negative.' }).optional(),
+          score: roughScoreSchema.optional(),
+        })
+        .refine((t) => (t.cumulative === undefined) !== (t.score === undefined), {
+          message: 'Give each tray either a count (cumulative) or a rough score (score), not both.',
+          path: ['cumulative'],
+        }),
     )
     .min(1, { message: 'Count at least one tray.' })
     .max(8),
@@ -70,7 +139,8 @@ export const setAsideReasonSchema = z
 
 /**
  * Each tray at the finish: its abnormal and ungerminated seeds (the normal seedlings are its last
- * count), or a reason to set it aside, when it cannot be counted to the end.
+ * count), or a reason to set it aside, when it cannot be counted to the end. A tray sown by weight
+ * or guess, or scored roughly, may leave both out: they cannot be known.
  */
 export const finishTraySchema = z
   .object({
@@ -83,10 +153,11 @@ export const finishTraySchema = z
     setAsideReason: setAsideReasonSchema.optional(),
   })
   .refine(
-    (t) => t.setAsideReason !== undefined || (t.abnormal !== undefined && t.ungerminated !== undefined),
+    (t) => t.setAsideReason !== undefined || (t.abnormal !== undefined) === (t.ungerminated !== undefined),
     {
       path: ['ungerminated'],
-      message: 'Give the abnormal and ungerminated seeds of the tray, or a reason to set it aside.',
+      message:
+        'Give the abnormal and ungerminated seeds of the tray (a tray whose seeds or seedlings were not counted may leave both out), or a reason to set it aside.',
     },
   );
 export type FinishTray = z.infer<typeof finishTraySchema>;
@@ -97,10 +168,40 @@ export const finishBodySchema = z.object({
 });
 export type FinishBody = z.infer<typeof finishBodySchema>;
 
+/** How a tray was sown, as read back: with the estimate of its seeds when they were not counted. */
+export const traySownReadSchema = z.object({
+  by: z.enum(['count', 'weight', 'guess']),
+  /** The counted seeds (by count). */
+  seeds: z.number().nullable(),
+  /** The weight sown (by weight). */
+  grams: z.number().nullable(),
+  /** The grower's rough guess (by guess). */
+  about: sownGuessSchema.nullable(),
+  /** The estimate made when the tray was created; null when counted. */
+  estimate: z
+    .object({
+      /** Expected seeds sown. */
+      mean: z.number(),
+      /** SD of the true number sown around the mean. */
+      sd: z.number(),
+      /** Plausible range (95%) of the number sown. */
+      low: z.number(),
+      high: z.number(),
+      /** Whose seeds per gram turned grams into seeds (by weight): the lot's own or the species'. */
+      basis: z.enum(['lot', 'species']).nullable(),
+      /** By weight without a purity figure: the material was taken as clean seed. */
+      purityAssumed: z.boolean(),
+    })
+    .nullable(),
+});
+export type TraySownRead = z.infer<typeof traySownReadSchema>;
+
 export const traySchema = z.object({
   id: idSchema,
   position: z.number(),
-  seedsSown: z.number(),
+  /** The counted seeds; null when the tray was sown by weight or by a guess (see `sown`). */
+  seedsSown: z.number().nullable(),
+  sown: traySownReadSchema,
   abnormal: z.number().nullable(),
   ungerminated: z.number().nullable(),
   fresh: z.number().nullable(),
@@ -152,26 +253,48 @@ export const countSchema = z.object({
   cumulative: z.number(),
 });
 
+/** A tray scored roughly on a check day (instead of counted). */
+export const scoreSchema = z.object({
+  trayId: idSchema,
+  date: z.string(),
+  day: z.number(),
+  score: roughScoreSchema,
+});
+
 const nullableNumber = z.number().nullable();
 export const resultSchema = z.object({
+  /** Seeds sown in the counted trays; the expected number when seedsSownEstimated. */
   sown: nullableNumber,
+  /** The seeds sown in the counted trays were estimated (by weight or guess): the interval carries it. */
+  seedsSownEstimated: z.boolean(),
+  /** SD of the true number sown in the counted trays (0 when counted). */
+  sownSd: nullableNumber,
+  /** More seedlings than the estimated seeds sown make plausible: no percentage is given. */
+  seedlingsExceedSown: z.boolean(),
   germinated: nullableNumber,
+  /** Null while no tray is counted, when only rough scores were given, or when seedlingsExceedSown. */
   percent: nullableNumber,
   percentRounded: nullableNumber,
   interval: z
     .object({
       low: z.number(),
       high: z.number(),
-      method: z.enum(['wilson', 'clopper-pearson']),
+      /** widened-score: Wilson's score interval widened by the uncertainty of the seeds sown. */
+      method: z.enum(['wilson', 'clopper-pearson', 'widened-score']),
       confidence: z.number(),
     })
     .nullable(),
   trayPercents: z.array(
     z.object({
       id: z.string(),
-      seedsSown: z.number(),
-      /** counted: in the figures; not-counted: no count yet, left out; set-aside: left out of every figure. */
-      state: z.enum(['counted', 'not-counted', 'set-aside']),
+      /** The counted seeds; null when they were estimated (see sownMean, sownSd). */
+      seedsSown: nullableNumber,
+      sownMean: z.number(),
+      sownSd: z.number(),
+      /** The latest rough score of a tray scored instead of counted. */
+      score: roughScoreSchema.nullable(),
+      /** counted: in the figures; not-counted: no count yet, left out; scored: scored roughly, in no percentage; set-aside: left out of every figure. */
+      state: z.enum(['counted', 'not-counted', 'scored', 'set-aside']),
       setAsideReason: z.string().nullable(),
       germinated: nullableNumber,
       percent: nullableNumber,
@@ -224,6 +347,8 @@ export const assayDetailSchema = z.object({
   test: assaySchema,
   trays: z.array(traySchema),
   counts: z.array(countSchema),
+  /** Rough scores of trays whose seedlings were not counted. */
+  scores: z.array(scoreSchema),
   result: resultSchema,
 });
 export type AssayDetail = z.infer<typeof assayDetailSchema>;

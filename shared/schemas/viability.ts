@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { roughScoreSchema } from './germination';
 import { idSchema, isoDateSchema } from './common';
 import { originSchema } from './lots';
 import { emergenceScoreSchema } from './plan';
@@ -54,7 +55,9 @@ export const viabilityResponseSchema = z.object({
       ageYears: n,
       percent: n,
       germinated: n,
+      /** Seeds sown; the expected number when seedsSownEstimated (sown by weight or guess). */
       sown: n,
+      seedsSownEstimated: z.boolean(),
       heldBack: z.boolean(),
     }),
   ),
@@ -125,7 +128,12 @@ export const rankingItemSchema = z.object({
   treated: z.boolean(),
   ageYears: n,
   lastTestDate: z.string().nullable(),
+  /** The latest test's stored percentage; null while uncounted, or when its trays were only scored roughly. */
   lastPercent: nn,
+  /** lastPercent rests on seeds sown estimated by weight or guess (an "about" figure). */
+  lastPercentEstimated: z.boolean(),
+  /** When the latest test's trays were only scored roughly: the latest score (no percentage). */
+  lastScore: roughScoreSchema.nullable(),
   projectedPercent: nn,
   projectedLow: nn,
   projectedHigh: nn,

@@ -3,15 +3,17 @@
 // changes them. Every reader — test page, lot page, ranking, viability model, overview, labels,
 // reminders, CSV export — reads the stored result; nothing re-aggregates counts by its own rules.
 import { daysBetween } from '#shared/dates';
+import type { Selectable } from 'kysely';
 import type { DbOrTx } from '#server/db/database';
-import { summarizeTest, type AssaySummary } from '#server/stats/index';
+import type { TestTrayTable } from '#server/db/schema';
+import { summarizeTest, type AssaySummary, type RoughScore } from '#server/stats/index';
 import * as repo from './germination.repository';
 
 /**
  * The definition of the stored result. Raise it whenever summarizeTest or its inputs change
  * meaning: every test stored under an older version is recomputed by refreshStaleResults.
  */
-export const RESULT_VERSION = 2;
+export const RESULT_VERSION = 3;
 
 /** The summaries of the given tests, computed from their trays and counts as they stand in `on`. */
 async function computeResults(on: DbOrTx, assayIds: string[]): Promise<Map<string, AssaySummary>> {
@@ -19,14 +21,14 @@ async function computeResults(on: DbOrTx, assayIds: string[]): Promise<Map<strin
   if (assayIds.length === 0) return out;
   const assays = await repo.assayStartDates(on, assayIds);
   const trays = await repo.traysOfAssays(on, assayIds);
-  const counts = trays.length
-    ? await repo.countsOfTrays(
-        on,
-        trays.map((t) => t.id),
-      )
-    : [];
+  const trayIds = trays.map((t) => t.id);
+  const counts = trays.length ? await repo.countsOfTrays(on, trayIds) : [];
   const countsByTray = new Map<string, typeof counts>();
   for (const c of counts) countsByTray.set(c.tray_id, [...(countsByTray.get(c.tray_id) ?? []), c]);
+  // A scored tray enters the result by its latest score (scores come by date).
+  const latestScore = new Map<string, RoughScore>();
+  if (trays.length)
+    for (const sc of await repo.scoresOfTrays(on, trayIds)) latestScore.set(sc.tray_id, sc.score);
   for (const assay of assays) {
     const mine = trays.filter((t) => t.test_id === assay.id);
     out.set(
@@ -34,7 +36,8 @@ async function computeResults(on: DbOrTx, assayIds: string[]): Promise<Map<strin
       summarizeTest(
         mine.map((tr) => ({
           id: tr.id,
-          seedsSown: tr.seeds_sown,
+          ...sownOf(tr),
+          score: latestScore.get(tr.id) ?? null,
           checks: (countsByTray.get(tr.id) ?? []).map((c) => ({
             day: daysBetween(assay.start_date, c.check_date),
             cumulative: c.cumulative,
@@ -50,6 +53,12 @@ async function computeResults(on: DbOrTx, assayIds: string[]): Promise<Map<strin
     );
   }
   return out;
+}
+
+/** A tray's seeds sown as the statistics take them: the count, or the estimate made at creation. */
+function sownOf(tr: Selectable<TestTrayTable>): { seedsSown: number; sownSd: number } {
+  if (tr.seeds_sown !== null) return { seedsSown: tr.seeds_sown, sownSd: 0 };
+  return { seedsSown: tr.sown_mean ?? Number.NaN, sownSd: tr.sown_sd ?? 0 };
 }
 
 /** The last check date of the trays that enter the figures (set-aside trays are left out). */

@@ -78,7 +78,7 @@ export function createAssaysCsvService({ db, clock }: { db: Db; clock: Clock }) 
     /** Every test of the bank, by lot code, start date and the order they were logged. */
     async exportCsv(bankId: string): Promise<string> {
       const assays = await repo.assaysWithLotByCode(db, bankId);
-      const { trays, counts } = await repo.traysAndCounts(
+      const { trays, counts, scores } = await repo.traysAndCounts(
         db,
         assays.map((t) => t.id),
       );
@@ -88,11 +88,11 @@ export function createAssaysCsvService({ db, clock }: { db: Db; clock: Clock }) 
         .filter((t) => t.result_version !== RESULT_VERSION || t.result === null)
         .map((t) => t.id);
       const fresh = await storeResults(db, stale);
-      const percentOf = (t: (typeof assays)[number]) =>
-        storedResultSchema.parse(fresh.get(t.id) ?? t.result).percentRounded;
+      const resultOf = (t: (typeof assays)[number]) => storedResultSchema.parse(fresh.get(t.id) ?? t.result);
       const rows: AssayCsvAssay[] = assays.map((t) => ({
         ...assayFields(t),
-        germinationPercent: percentOf(t),
+        germinationPercent: resultOf(t).percentRounded,
+        seedsSownEstimated: resultOf(t).seedsSownEstimated,
         trays: trays
           .filter((tr) => tr.test_id === t.id)
           .map((tr) => ({
@@ -100,6 +100,9 @@ export function createAssaysCsvService({ db, clock }: { db: Db; clock: Clock }) 
             counts: counts
               .filter((c) => c.tray_id === tr.id)
               .map((c) => ({ date: c.check_date, cumulative: c.cumulative })),
+            scores: scores
+              .filter((c) => c.tray_id === tr.id)
+              .map((c) => ({ date: c.check_date, score: c.score })),
           })),
       }));
       return assaysToCsv(rows);

@@ -26,6 +26,12 @@
  * - `germination_percent` is the test's stored result (assay-results.ts) rounded to the whole
  *   percent, the figure the test page, the ranking and the labels show. Like species and variety it
  *   is written for people and not read back: the import computes the result from the counts.
+ * - A tray sown without counting has `seeds_sown` empty, `sown_by` weight or guess with
+ *   `sown_grams` or `sown_guess`, and `seeds_sown_expected`, the estimate the result used; a tray
+ *   scored roughly has its check day's `score` (none, few, half, most) and `cumulative` empty.
+ *   `seeds_sown_estimated` says whether the test's `germination_percent` rests on estimated seeds
+ *   sown; a test with only rough scores has no percentage. These columns are written for people:
+ *   the import reads counted trays only.
  * - The checks are the API's own: the test body's schema, count-rules.ts for the counts of each
  *   check day, and the finish rule, so a file can hold nothing the screens could not have entered.
  *   No date may be after the bank's today.
@@ -37,6 +43,8 @@ import {
   createAssayBodySchema,
   pretreatmentSchema,
   setAsideReasonSchema,
+  type RoughScore,
+  type TraySownRead,
   type CreateAssayBody,
 } from '#shared/schemas/germination';
 import {
@@ -90,6 +98,12 @@ export const ASSAY_CSV_COLUMNS = [
   ...TRAY_COLUMNS,
   // Written for people, not read back (the import computes the result from the counts).
   'germination_percent',
+  'seeds_sown_estimated',
+  'sown_by',
+  'sown_grams',
+  'sown_guess',
+  'seeds_sown_expected',
+  'score',
 ] as const;
 export type AssayCsvColumn = (typeof ASSAY_CSV_COLUMNS)[number];
 
@@ -119,6 +133,15 @@ export interface AssayCsvTray {
   counts: { date: string; cumulative: number }[];
 }
 
+/** A tray as the export writes it: how it was sown and its rough scores besides its counts. */
+export interface AssayCsvExportTray extends Omit<AssayCsvTray, 'seedsSown'> {
+  /** The counted seeds; null for a tray sown by weight or by a guess. */
+  seedsSown: number | null;
+  sown: TraySownRead;
+  /** Rough scores by check date, for a tray scored instead of counted. */
+  scores: { date: string; score: RoughScore }[];
+}
+
 interface AssayCsvFields {
   lotCode: string;
   startDate: string;
@@ -134,11 +157,14 @@ interface AssayCsvFields {
 }
 
 /** One test as the export writes it. */
-export interface AssayCsvAssay extends AssayCsvFields {
+export interface AssayCsvAssay extends Omit<AssayCsvFields, 'trays'> {
   speciesName: string;
   variety: string;
   /** The stored result's whole percent (`percentRounded`); null while no tray is in the figures. */
   germinationPercent: number | null;
+  /** Whether that percent rests on seeds sown estimated by weight or guess. */
+  seedsSownEstimated: boolean;
+  trays: AssayCsvExportTray[];
 }
 
 /** One test as the import read it: its reference, its first line and the lot it belongs to. */
@@ -176,7 +202,7 @@ export function assayReferences(assays: Pick<AssayCsvAssay, 'lotCode' | 'startDa
 function trayRecords(
   ref: string,
   assay: AssayCsvAssay,
-  tray: AssayCsvTray,
+  tray: AssayCsvExportTray,
 ): Record<AssayCsvColumn, string>[] {
   const shared = {
     test: textCell(ref),
@@ -192,7 +218,7 @@ function trayRecords(
     pretreatment_days: numberCell(assay.pretreatmentDays),
     notes: textCell(assay.notes),
     tray: String(tray.position),
-    seeds_sown: String(tray.seedsSown),
+    seeds_sown: numberCell(tray.seedsSown),
     finished_on: assay.finishedOn ?? '',
     abnormal: numberCell(tray.abnormal),
     ungerminated: numberCell(tray.ungerminated),
@@ -201,9 +227,18 @@ function trayRecords(
     hard: numberCell(tray.hard),
     set_aside_reason: textCell(tray.setAsideReason),
     germination_percent: numberCell(assay.germinationPercent),
+    seeds_sown_estimated: assay.germinationPercent === null ? '' : assay.seedsSownEstimated ? 'yes' : 'no',
+    sown_by: tray.sown.by,
+    sown_grams: numberCell(tray.sown.grams),
+    sown_guess: tray.sown.about ?? '',
+    seeds_sown_expected: numberCell(tray.sown.estimate ? Math.round(tray.sown.estimate.mean) : null),
   };
-  if (tray.counts.length === 0) return [{ ...shared, check_date: '', cumulative: '' }];
-  return tray.counts.map((c) => ({ ...shared, check_date: c.date, cumulative: String(c.cumulative) }));
+  const checks = [
+    ...tray.counts.map((c) => ({ check_date: c.date, cumulative: String(c.cumulative), score: '' })),
+    ...tray.scores.map((c) => ({ check_date: c.date, cumulative: '', score: c.score })),
+  ].sort((a, b) => (a.check_date < b.check_date ? -1 : a.check_date > b.check_date ? 1 : 0));
+  if (checks.length === 0) return [{ ...shared, check_date: '', cumulative: '', score: '' }];
+  return checks.map((c) => ({ ...shared, ...c }));
 }
 
 /** The file: every test, tray by tray, one record per check day (tests in the order given). */

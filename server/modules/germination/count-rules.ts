@@ -1,5 +1,10 @@
 import { seedlingsAboveSown } from '#shared/count-rules';
-import type { CountsBody } from '#shared/schemas/germination';
+import {
+  ROUGH_SCORE_ORDER,
+  ROUGH_SCORE_WORDS,
+  type CountsBody,
+  type RoughScore,
+} from '#shared/schemas/germination';
 
 export interface CountProblem {
   /** The body path it is about, as in the error's `fields`: `trays.<index>.cumulative` or `.trayId`. */
@@ -11,13 +16,49 @@ export interface CountProblem {
 interface Tray {
   id: string;
   position: number;
-  seeds_sown: number;
+  /** Null for a tray sown by weight or by a guess: its seedlings have no counted bound. */
+  seeds_sown: number | null;
 }
 
 interface SavedCount {
   tray_id: string;
   check_date: string;
   cumulative: number;
+}
+
+interface SavedScore {
+  tray_id: string;
+  check_date: string;
+  score: RoughScore;
+}
+
+/** The rule one tray's rough score breaks against its other check dates, if any. */
+function scoreProblem(
+  tray: Tray,
+  score: RoughScore,
+  date: string,
+  startDate: string,
+  saved: SavedScore[],
+  counted: boolean,
+): string | null {
+  const label = `Tray ${tray.position}`;
+  if (counted) {
+    return `${label} has counts on other check days: count it on this day too, or remove its counts before scoring it roughly.`;
+  }
+  if (date === startDate && score !== 'none') {
+    return `${label}: seedlings scored on the day the test started (${startDate}). Score on a later day, or give "none".`;
+  }
+  const rank = ROUGH_SCORE_ORDER.indexOf(score);
+  const mine = saved.filter((c) => c.tray_id === tray.id);
+  const before = mine.filter((c) => c.check_date < date).at(-1);
+  const after = mine.find((c) => c.check_date > date);
+  if (before && rank < ROUGH_SCORE_ORDER.indexOf(before.score)) {
+    return `${label}: "${ROUGH_SCORE_WORDS[score]}" is fewer than the "${ROUGH_SCORE_WORDS[before.score]}" scored on ${before.check_date}. Scores are of all the seedlings so far.`;
+  }
+  if (after && rank > ROUGH_SCORE_ORDER.indexOf(after.score)) {
+    return `${label}: "${ROUGH_SCORE_WORDS[score]}" is more than the "${ROUGH_SCORE_WORDS[after.score]}" scored later, on ${after.check_date}. Correct that later score first.`;
+  }
+  return null;
 }
 
 /** The rule one tray's cumulative count breaks against its seeds and its other check dates, if any. */
@@ -29,7 +70,8 @@ function trayProblem(
   saved: SavedCount[],
 ): string | null {
   const label = `Tray ${tray.position}`;
-  const aboveSown = seedlingsAboveSown(tray.position, cumulative, tray.seeds_sown);
+  const aboveSown =
+    tray.seeds_sown === null ? null : seedlingsAboveSown(tray.position, cumulative, tray.seeds_sown);
   if (aboveSown) return aboveSown;
   // Day 0: nothing has had time to sprout, and the timing statistics cannot place it.
   if (date === startDate && cumulative > 0) {
@@ -49,14 +91,16 @@ function trayProblem(
 
 /**
  * Every tray of a counts body that cannot be saved, in the order sent: not a tray of the test,
- * listed twice, above its seeds sown, sprouted on the start date, or out of cumulative order with
- * its counts on other dates (`saved`, sorted by date). Empty when the whole body may be saved.
+ * listed twice, above its seeds sown, sprouted on the start date, out of cumulative order with its
+ * counts or scores on other dates (`saved`, `savedScores`, sorted by date), or counted on some
+ * days and scored roughly on others. Empty when the whole body may be saved.
  */
 export function countProblems(
   body: CountsBody,
   startDate: string,
   trays: Tray[],
   saved: SavedCount[],
+  savedScores: SavedScore[] = [],
 ): CountProblem[] {
   const byId = new Map(trays.map((tr) => [tr.id, tr]));
   const seen = new Set<string>();
@@ -70,13 +114,20 @@ export function countProblems(
       });
       continue;
     }
-    const field = `trays.${index}.cumulative`;
+    const field = `trays.${index}.${entry.score === undefined ? 'cumulative' : 'score'}`;
     if (seen.has(tray.id)) {
       problems.push({ field, message: `Tray ${tray.position} is listed twice.` });
       continue;
     }
     seen.add(tray.id);
-    const message = trayProblem(tray, entry.cumulative, body.date, startDate, saved);
+    const counted = saved.some((c) => c.tray_id === tray.id);
+    const scored = savedScores.some((c) => c.tray_id === tray.id);
+    const message =
+      entry.score !== undefined
+        ? scoreProblem(tray, entry.score, body.date, startDate, savedScores, counted)
+        : scored
+          ? `Tray ${tray.position} was scored roughly on other check days: score it on this day too, or remove its scores before counting it.`
+          : trayProblem(tray, entry.cumulative ?? 0, body.date, startDate, saved);
     if (message) problems.push({ field, message });
   }
   return problems;
@@ -109,7 +160,8 @@ export function finishProblem(
   entry: FinishEntry,
 ): { field: 'ungerminated' | 'fresh'; message: string; hint: string } | null {
   const total = normal + entry.abnormal + entry.ungerminated;
-  if (total !== tray.seeds_sown) {
+  // A tray not counted has no total to add up to: only the split of its ungerminated is checked.
+  if (tray.seeds_sown !== null && total !== tray.seeds_sown) {
     return {
       field: 'ungerminated',
       message: `Tray ${tray.position}: ${normal} normal + ${entry.abnormal} abnormal + ${entry.ungerminated} ungerminated = ${total}, but ${tray.seeds_sown} seeds were sown.`,

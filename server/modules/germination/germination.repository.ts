@@ -42,7 +42,17 @@ export function countsOfTrays(on: DbOrTx, trayIds: string[]) {
     .execute();
 }
 
-/** The trays of the tests, by position, and their counts, by date. */
+/** The rough scores of these trays, by date. */
+export function scoresOfTrays(on: DbOrTx, trayIds: string[]) {
+  return on
+    .selectFrom('tray_scores')
+    .select(['tray_id', 'check_date', 'score'])
+    .where('tray_id', 'in', trayIds)
+    .orderBy('check_date')
+    .execute();
+}
+
+/** The trays of the tests, by position, their counts and their rough scores, by date. */
 export async function traysAndCounts(on: DbOrTx, assayIds: string[]) {
   const trays = assayIds.length
     ? await on
@@ -52,13 +62,10 @@ export async function traysAndCounts(on: DbOrTx, assayIds: string[]) {
         .orderBy('position')
         .execute()
     : [];
-  const counts = trays.length
-    ? await countsOfTrays(
-        on,
-        trays.map((tr) => tr.id),
-      )
-    : [];
-  return { trays, counts };
+  const trayIds = trays.map((tr) => tr.id);
+  const counts = trays.length ? await countsOfTrays(on, trayIds) : [];
+  const scores = trays.length ? await scoresOfTrays(on, trayIds) : [];
+  return { trays, counts, scores };
 }
 
 /** Whether the lot has any germination test (shared: the lots module asks before deleting a lot). */
@@ -161,12 +168,45 @@ export function upsertCount(on: DbOrTx, trayId: string, date: string, cumulative
     .execute();
 }
 
-export function deleteCountsOn(on: DbOrTx, trayIds: string[], date: string) {
+/** The rough scores of these trays on every date but `date`, by date. */
+export function scoresOtherThan(on: DbOrTx, trayIds: string[], date: string) {
   return on
+    .selectFrom('tray_scores')
+    .select(['tray_id', 'check_date', 'score'])
+    .where('tray_id', 'in', trayIds)
+    .where('check_date', '<>', date)
+    .orderBy('check_date')
+    .execute();
+}
+
+/** Records a tray's rough score on a date, replacing one recorded before. */
+export function upsertScore(
+  on: DbOrTx,
+  trayId: string,
+  date: string,
+  score: 'none' | 'few' | 'half' | 'most',
+  userId: string,
+) {
+  return on
+    .insertInto('tray_scores')
+    .values({ tray_id: trayId, check_date: date, score, created_by: userId })
+    .onConflict((oc) => oc.columns(['tray_id', 'check_date']).doUpdateSet({ score, created_by: userId }))
+    .execute();
+}
+
+/** Removes the counts and rough scores of a date; the number of rows removed. */
+export async function deleteCountsOn(on: DbOrTx, trayIds: string[], date: string): Promise<number> {
+  const counts = await on
     .deleteFrom('tray_counts')
     .where('tray_id', 'in', trayIds)
     .where('check_date', '=', date)
     .executeTakeFirst();
+  const scores = await on
+    .deleteFrom('tray_scores')
+    .where('tray_id', 'in', trayIds)
+    .where('check_date', '=', date)
+    .executeTakeFirst();
+  return Number(counts.numDeletedRows) + Number(scores.numDeletedRows);
 }
 
 export function updateTray(on: DbOrTx, trayId: string, changes: Updateable<TestTrayTable>) {
@@ -218,12 +258,16 @@ export function traysOfAssays(on: DbOrTx, assayIds: string[]) {
     .execute();
 }
 
-/** The last check date of each test's trays that enter the figures (set-aside trays left out). */
+/** The last check date (count or rough score) of each test's trays that enter the figures (set-aside trays left out). */
 export function lastCountRows(on: DbOrTx, assayIds: string[]) {
-  return on
+  const checks = on
     .selectFrom('tray_counts')
-    .innerJoin('test_trays', 'test_trays.id', 'tray_counts.tray_id')
-    .select(['test_trays.test_id', sql<string>`max(tray_counts.check_date)`.as('last')])
+    .select(['tray_id', 'check_date'])
+    .unionAll(on.selectFrom('tray_scores').select(['tray_id', 'check_date']));
+  return on
+    .selectFrom(checks.as('c'))
+    .innerJoin('test_trays', 'test_trays.id', 'c.tray_id')
+    .select(['test_trays.test_id', sql<string>`max(c.check_date)`.as('last')])
     .where('test_trays.test_id', 'in', assayIds)
     .where('test_trays.set_aside_reason', 'is', null)
     .groupBy('test_trays.test_id')
@@ -249,7 +293,7 @@ export async function writeResults(
     from (
       select unnest(${rows.map((x) => x.testId)}::uuid[]) as id,
         unnest(${rows.map((x) => JSON.stringify(x.r))}::text[]) as result,
-        unnest(${rows.map((x) => x.r.sown)}::int[]) as sown,
+        unnest(${rows.map((x) => x.r.sown)}::float8[]) as sown,
         unnest(${rows.map((x) => x.r.germinated)}::int[]) as germinated,
         unnest(${rows.map((x) => x.r.percent)}::float8[]) as percent,
         unnest(${rows.map((x) => x.r.meanDays)}::float8[]) as mean_days,

@@ -2,10 +2,12 @@ import type { Selectable, Updateable } from 'kysely';
 import type { z } from 'zod';
 import {
   storedResultSchema,
+  traySownOf,
   type CountsBody,
   type CreateAssayBody,
   type FinishBody,
   type AssayDetail,
+  type TraySownRead,
   type updateAssayBodySchema,
 } from '#shared/schemas/germination';
 import { addDays, daysBetween } from '#shared/dates';
@@ -13,12 +15,13 @@ import { bankToday, type Clock } from '#server/clock';
 import type { Db, DbOrTx } from '#server/db/database';
 import type { GerminationTestTable, TestTrayTable } from '#server/db/schema';
 import { AppError, conflict, notFound, unprocessable } from '#server/http/errors';
-import { clopperPearsonInterval, type IntervalMethod } from '#server/stats/index';
+import { clopperPearsonInterval, type IntervalMethod, type SeedWeightSources } from '#server/stats/index';
 import { findSpecies } from '../species/species.shared.repository';
 import { insertMovement, lockLot, stockOf, updateLot } from '../lots/lots.shared.repository';
 import * as repo from './germination.repository';
 import { countProblems, finishProblem, startBeforeHarvest, uncountedAtFinish } from './count-rules';
 import { resultWords } from './result-words';
+import { estimateSown } from './tray-sown';
 import { RESULT_VERSION, storeResult } from './assay-results';
 
 const num = (v: string | null) => (v === null ? null : Number(v));
@@ -27,6 +30,18 @@ const num = (v: string | null) => (v === null ? null : Number(v));
 function cpInterval(germinated: number, sown: number, confidence: number) {
   const b = clopperPearsonInterval(germinated, sown, confidence);
   return { low: 100 * b.low, high: 100 * b.high, method: 'clopper-pearson' as const, confidence };
+}
+
+/**
+ * The lot's seed-weight sources for grams → seeds. Waits on the lots module's
+ * seedWeightSourcesForLot (issue 16, lot seed weights); until then no weight can become seeds.
+ */
+async function weightSources(
+  _on: DbOrTx,
+  _bankId: string,
+  _lotId: string,
+): Promise<SeedWeightSources | null> {
+  return Promise.resolve(null);
 }
 
 export interface GerminationDeps {
@@ -58,11 +73,33 @@ export function assayFields(t: repo.AssayWithLot) {
   };
 }
 
+/** How a tray was sown, in the API's names: with the estimate made at creation when not counted. */
+export function traySown(tr: Selectable<TestTrayTable>): TraySownRead {
+  return {
+    by: tr.sown_by,
+    seeds: tr.seeds_sown,
+    grams: tr.sown_grams,
+    about: tr.sown_guess,
+    estimate:
+      tr.sown_mean === null
+        ? null
+        : {
+            mean: tr.sown_mean,
+            sd: tr.sown_sd ?? 0,
+            low: tr.sown_low ?? tr.sown_mean,
+            high: tr.sown_high ?? tr.sown_mean,
+            basis: tr.sown_basis,
+            purityAssumed: tr.sown_purity_assumed,
+          },
+  };
+}
+
 /** What a tray is, in the API's names. */
 export function trayFields(tr: Selectable<TestTrayTable>) {
   return {
     position: tr.position,
     seedsSown: tr.seeds_sown,
+    sown: traySown(tr),
     abnormal: tr.abnormal,
     ungerminated: tr.ungerminated,
     fresh: tr.fresh,
@@ -90,7 +127,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
     on: DbOrTx = db,
   ): Promise<AssayDetail> {
     const t = await loadAssay(on, bankId, assayId);
-    const { trays, counts } = await repo.traysAndCounts(on, [assayId]);
+    const { trays, counts, scores } = await repo.traysAndCounts(on, [assayId]);
     const species = await findSpecies(on, bankId, t.species_id);
     const first = species?.traits.firstCountDay ?? null;
     const final = species?.traits.finalCountDay ?? null;
@@ -105,8 +142,10 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
     const stored = storedResultSchema.parse(
       t.result_version === RESULT_VERSION && t.result !== null ? t.result : await storeResult(on, assayId),
     );
+    // The exact interval is for counted seeds; an estimated number sown keeps its widened interval.
     const summary =
       intervalMethod === 'clopper-pearson' &&
+      !stored.seedsSownEstimated &&
       stored.interval &&
       stored.sown !== null &&
       stored.germinated !== null
@@ -130,7 +169,21 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         day: daysBetween(t.start_date, c.check_date),
         cumulative: c.cumulative,
       })),
-      result: { ...summary, summary: resultWords(summary, schedule.firstCountDate, t.status === 'finished') },
+      scores: scores.map((c) => ({
+        trayId: c.tray_id,
+        date: c.check_date,
+        day: daysBetween(t.start_date, c.check_date),
+        score: c.score,
+      })),
+      result: {
+        ...summary,
+        summary: resultWords(
+          summary,
+          schedule.firstCountDate,
+          t.status === 'finished',
+          new Map(trays.map((tr) => [tr.id, traySown(tr)])),
+        ),
+      },
     };
   }
 
@@ -154,16 +207,25 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         if (!lot) throw notFound('No such lot in this bank.');
         const early = startBeforeHarvest(body.startDate, lot.harvest_date, lot.code);
         if (early) throw unprocessable(early, { startDate: 'Use a date on or after the harvest.' });
-        const needed = body.trays.reduce((s, t) => s + t.seedsSown, 0);
+        const ways = body.trays.map(traySownOf);
+        const sources = ways.some((w) => w.by === 'weight') ? await weightSources(trx, bankId, lotId) : null;
+        const sown = ways.map((w, i) => estimateSown(w, sources, i));
+        const counted = sown.reduce((s, t) => s + (t.seeds ?? 0), 0);
         const onHand = await stockOf(trx, lotId);
         // null: the lot's amount is not known, so the trays are recorded and nothing is refused.
-        if (onHand !== null && onHand < needed) {
+        if (onHand !== null && onHand < counted) {
           throw new AppError(
             409,
             'stock_short',
-            `The trays need ${needed} seeds but the ledger shows ${onHand} on hand. If you have more than that, record a correction in the stock ledger first.`,
+            `The trays need ${counted} seeds but the ledger shows ${onHand} on hand. If you have more than that, record a correction in the stock ledger first.`,
           );
         }
+        // Seeds weighed or guessed leave the ledger as their expected number, never below zero:
+        // the ledger cannot know them better than the estimate.
+        const estimated = sown.reduce((s, t) => s + (t.seeds === null ? t.estimate.mean : 0), 0);
+        const needed =
+          counted +
+          (onHand === null ? Math.round(estimated) : Math.min(Math.round(estimated), onHand - counted));
         const assay = await repo.insertAssay(trx, {
           bank_id: bankId,
           lot_id: lotId,
@@ -179,18 +241,24 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         });
         await repo.insertTrays(
           trx,
-          body.trays.map((t, i) => ({ test_id: assay.id, position: i + 1, seeds_sown: t.seedsSown })),
+          sown.map((t, i) => ({ test_id: assay.id, position: i + 1, ...t.columns })),
         );
-        await insertMovement(trx, {
-          lot_id: lotId,
-          kind: 'test',
-          change: -needed,
-          date: body.startDate,
-          reason: `Germination test: ${needed} seeds in ${body.trays.length} ${body.trays.length === 1 ? 'tray' : 'trays'}`,
-          created_by: userId,
-          test_id: assay.id,
-        });
-        if (onHand !== null && onHand === needed && lot.status === 'active') {
+        const trayWord = body.trays.length === 1 ? 'tray' : 'trays';
+        if (needed > 0) {
+          await insertMovement(trx, {
+            lot_id: lotId,
+            kind: 'test',
+            change: -needed,
+            date: body.startDate,
+            reason:
+              estimated > 0
+                ? `Germination test: about ${needed} seeds in ${body.trays.length} ${trayWord} (not all counted)`
+                : `Germination test: ${needed} seeds in ${body.trays.length} ${trayWord}`,
+            created_by: userId,
+            test_id: assay.id,
+          });
+        }
+        if (estimated === 0 && onHand !== null && onHand === needed && lot.status === 'active') {
           await updateLot(trx, lotId, { status: 'depleted' });
         }
         await storeResult(trx, assay.id);
@@ -237,14 +305,10 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
             date: 'Use today or an earlier date.',
           });
         const trays = await repo.traysOf(trx, assayId);
-        const saved = trays.length
-          ? await repo.countsOtherThan(
-              trx,
-              trays.map((tr) => tr.id),
-              body.date,
-            )
-          : [];
-        const problems = countProblems(body, t.start_date, trays, saved);
+        const trayIds = trays.map((tr) => tr.id);
+        const saved = trays.length ? await repo.countsOtherThan(trx, trayIds, body.date) : [];
+        const savedScores = trays.length ? await repo.scoresOtherThan(trx, trayIds, body.date) : [];
+        const problems = countProblems(body, t.start_date, trays, saved, savedScores);
         if (problems.length > 0) {
           const n = problems.length;
           throw unprocessable(
@@ -253,7 +317,11 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
           );
         }
         for (const entry of body.trays) {
-          await repo.upsertCount(trx, entry.trayId, body.date, entry.cumulative, userId);
+          // A day's entry is a count or a rough score: the new one replaces the other kind.
+          await repo.deleteCountsOn(trx, [entry.trayId], body.date);
+          if (entry.score !== undefined)
+            await repo.upsertScore(trx, entry.trayId, body.date, entry.score, userId);
+          else await repo.upsertCount(trx, entry.trayId, body.date, entry.cumulative ?? 0, userId);
         }
         await storeResult(trx, assayId);
       });
@@ -266,8 +334,8 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         const t = await loadAssay(trx, bankId, assayId, true);
         assertRunning(t);
         const trayIds = await repo.trayIdsOf(trx, assayId);
-        const res = await repo.deleteCountsOn(trx, trayIds, date);
-        if (!res.numDeletedRows) throw notFound(`No counts on ${date}.`);
+        const removed = await repo.deleteCountsOn(trx, trayIds, date);
+        if (removed === 0) throw notFound(`No counts on ${date}.`);
         await storeResult(trx, assayId);
       });
       return detail(bankId, assayId);
@@ -278,11 +346,14 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         const t = await loadAssay(trx, bankId, assayId, true);
         assertRunning(t);
         const trays = await repo.traysInOrder(trx, assayId);
-        const counts = await repo.countsOfTrays(
-          trx,
-          trays.map((tr) => tr.id),
-        );
-        const lastDate = counts.at(-1)?.check_date ?? t.start_date;
+        const trayIds = trays.map((tr) => tr.id);
+        const counts = await repo.countsOfTrays(trx, trayIds);
+        const scores = trayIds.length ? await repo.scoresOfTrays(trx, trayIds) : [];
+        const lastDate =
+          [...counts, ...scores]
+            .map((c) => c.check_date)
+            .sort()
+            .at(-1) ?? t.start_date;
         if (body.date < lastDate)
           throw unprocessable(`The test cannot finish before its last count (${lastDate}).`, {
             date: `On or after ${lastDate}.`,
@@ -316,18 +387,30 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
             continue;
           }
           const mine = counts.filter((c) => c.tray_id === tray.id);
-          if (mine.length === 0)
+          const scored = scores.some((c) => c.tray_id === tray.id);
+          if (mine.length === 0 && !scored)
             throw unprocessable(uncountedAtFinish(tray.position), {
               [`trays.${entry.index}.setAsideReason`]: 'Count this tray first, or set it aside.',
             });
+          // Seeds counted and seedlings counted: the tray adds up, so its figures are required.
+          const exact = tray.seeds_sown !== null && !scored;
+          if (exact && (entry.abnormal === undefined || entry.ungerminated === undefined))
+            throw unprocessable(
+              `Give the abnormal and ungerminated seeds of tray ${tray.position}, or a reason to set it aside.`,
+              { [`trays.${entry.index}.ungerminated`]: 'Give the abnormal and ungerminated seeds.' },
+            );
           const figures = {
-            abnormal: entry.abnormal ?? 0,
-            ungerminated: entry.ungerminated ?? 0,
+            abnormal: entry.abnormal ?? null,
+            ungerminated: entry.ungerminated ?? null,
             fresh: entry.fresh,
             dead: entry.dead,
             hard: entry.hard,
           };
-          const problem = finishProblem(tray, mine.at(-1)!.cumulative, figures);
+          const problem = finishProblem(
+            { position: tray.position, seeds_sown: exact ? tray.seeds_sown : null },
+            mine.at(-1)?.cumulative ?? 0,
+            { ...figures, abnormal: figures.abnormal ?? 0, ungerminated: figures.ungerminated ?? 0 },
+          );
           if (problem)
             throw unprocessable(problem.message, { [`trays.${entry.index}.${problem.field}`]: problem.hint });
           await repo.updateTray(trx, tray.id, {

@@ -134,7 +134,10 @@ export function createRemindersService(deps: RemindersServiceDeps) {
           subject: `Count the trays of ${sp?.commonName ?? 'a'} test ${t.code} (day ${day})`,
           body: [
             `Day ${day} of the germination test of lot ${t.code}, started ${t.start_date}: count the normal seedlings (sound root and shoot) in ${own
-              .map((tr) => `tray ${tr.position} (${tr.seeds_sown} sown)`)
+              .map(
+                (tr) =>
+                  `tray ${tr.position} (${tr.seeds_sown === null ? 'seeds not counted' : `${tr.seeds_sown} sown`})`,
+              )
               .join(', ')}.`,
             '',
             `Enter the counts: ${link(`/tests/${t.id}`)}`,

@@ -15,6 +15,10 @@ export interface AssayAggregate {
   mean_days: number | null;
   /** Fresh (dormant but alive) seeds recorded at the finish, pooled; null when not recorded. */
   fresh: number | null;
+  /** SD of the true number sown in the counted trays: above 0 when they were sown by weight or guess. */
+  sown_sd: number | null;
+  /** The stored result's trays (JSON): the rough scores of trays scored instead of counted. */
+  tray_percents: unknown;
   /** Why the grower set the whole test aside (mouldy towel, too cold); it then leaves the model. */
   set_aside_reason: string | null;
 }
@@ -40,6 +44,8 @@ export async function assayAggregates(
       't.result_last_count_date as last_count_date',
       't.result_mean_days as mean_days',
       sql<number | null>`(t.result->>'fresh')::int`.as('fresh'),
+      sql<number | null>`(t.result->>'sownSd')::float8`.as('sown_sd'),
+      sql<unknown>`t.result->'trayPercents'`.as('tray_percents'),
       't.set_aside_reason',
     ])
     .where('t.bank_id', '=', bankId)

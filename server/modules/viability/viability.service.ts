@@ -1,12 +1,14 @@
 import { addYears, daysBetween } from '#shared/dates';
 import { dayInWords } from '#shared/day-words';
 import { YEAR_DAYS, seedAgeYears } from '#shared/seed-age';
+import { z } from 'zod';
+import { roughScoreSchema, type RoughScore } from '#shared/schemas/germination';
 import type { SpeciesDto } from '#shared/schemas/species';
 import type { RankingItem as RankingRow } from '#shared/schemas/viability';
 import { systemClock, todayInZone, type Clock } from '#server/clock';
 import type { Db } from '#server/db/database';
 import { notFound, unprocessable } from '#server/http/errors';
-import { seedsToSowPredictive, temperatureFactor } from '#server/stats/index';
+import { effectiveTrial, seedsToSowPredictive, temperatureFactor } from '#server/stats/index';
 import {
   fitSpeciesModel,
   monitoringIntervalYears,
@@ -54,12 +56,30 @@ export function storageTemperature(storage: {
   return storage.place ? PLACE_TEMPERATURE_C[storage.place] : null;
 }
 
-/** A test counts toward the decline once finished, or once counted up to the species' final count day. */
-function usable(
-  t: AssayAggregate,
-  species: SpeciesDto | undefined,
-): t is AssayAggregate & { sown: number; germinated: number } {
-  if (t.sown === null || t.germinated === null || t.sown <= 0 || t.set_aside_reason !== null) return false;
+/** The trays of a stored result scored roughly instead of counted, with their expected seeds sown. */
+const scoredTraysSchema = z.array(
+  z.object({
+    state: z.string(),
+    score: roughScoreSchema.nullable().optional(),
+    sownMean: z.number().optional(),
+  }),
+);
+function scoredTrays(t: AssayAggregate): { score: RoughScore; sown: number }[] {
+  const parsed = scoredTraysSchema.safeParse(t.tray_percents);
+  if (!parsed.success) return [];
+  return parsed.data.flatMap((tr) =>
+    tr.state === 'scored' && tr.score && tr.sownMean ? [{ score: tr.score, sown: tr.sownMean }] : [],
+  );
+}
+
+/**
+ * A test counts toward the decline once finished, or once counted (or scored) up to the species'
+ * final count day, when it has counted trays or roughly scored ones.
+ */
+function usable(t: AssayAggregate, species: SpeciesDto | undefined): boolean {
+  if (t.set_aside_reason !== null) return false;
+  const counted = t.sown !== null && t.germinated !== null && t.sown > 0;
+  if (!counted && scoredTrays(t).length === 0) return false;
   if (t.status === 'finished') return true;
   const final = species?.traits.finalCountDay;
   return final != null && t.last_count_date !== null && daysBetween(t.start_date, t.last_count_date) >= final;
@@ -71,10 +91,43 @@ export interface ViabilityPoint {
   date: string;
   /** Calendar years since the harvest reference. */
   ageYears: number;
-  germinated: number;
-  sown: number;
+  /** The stored result's percentage; null when only rough scores (or too many seedlings) were given. */
+  percent: number | null;
+  /** Seedlings and (expected) seeds sown of the counted trays; null when none was counted. */
+  germinated: number | null;
+  sown: number | null;
+  /** SD of the true number sown (0 when counted). */
+  sownSd: number;
   /** Fresh (dormant but alive) seeds, when recorded. */
   fresh: number | null;
+  /** Trays scored roughly instead of counted. */
+  scored: { score: RoughScore; sown: number }[];
+}
+
+/**
+ * How a usable test enters the model. Counted trays: the binomial of their seedlings (plus fresh
+ * seeds) and seeds sown. Trays sown by weight or guess: their effective trial (uncertain-sown.ts),
+ * the counted trial with the same widened variance, i.e. fewer seeds' worth of evidence. Each
+ * roughly scored tray: the chance of its score band (evidence kind 'score'). docs/viability-model.md.
+ */
+function modelAssaysOf(p: ViabilityPoint, age: number): ModelAssay[] {
+  const out: ModelAssay[] = [];
+  if (p.germinated !== null && p.sown !== null) {
+    const alive = p.germinated + (p.fresh ?? 0);
+    if (p.sownSd > 0)
+      out.push({ id: p.testId, age, ...effectiveTrial(alive, { mean: p.sown, sd: p.sownSd }) });
+    else out.push({ id: p.testId, age, alive, sown: p.sown });
+  }
+  p.scored.forEach((tr, i) =>
+    out.push({
+      id: `${p.testId}:scored:${String(i)}`,
+      age,
+      alive: 0,
+      sown: tr.sown,
+      evidence: { kind: 'score', score: tr.score },
+    }),
+  );
+  return out;
 }
 
 export interface LotViability {
@@ -170,17 +223,15 @@ function fitSpecies(
         testId: t.id,
         date: t.start_date,
         ageYears: Math.max(0, ageYears(ref, t.start_date)),
-        germinated: t.germinated!,
-        sown: t.sown!,
+        percent: t.percent,
+        germinated: t.sown !== null && t.sown > 0 ? t.germinated : null,
+        sown: t.sown !== null && t.sown > 0 && t.germinated !== null ? t.sown : null,
+        sownSd: t.sown_sd ?? 0,
         fresh: t.fresh,
+        scored: scoredTrays(t),
       }));
     const scale = storageScale(lot);
-    const modelAssays: ModelAssay[] = points.map((p) => ({
-      id: p.testId,
-      age: p.ageYears * scale.rateFactor,
-      alive: p.germinated + (p.fresh ?? 0),
-      sown: p.sown,
-    }));
+    const modelAssays: ModelAssay[] = points.flatMap((p) => modelAssaysOf(p, p.ageYears * scale.rateFactor));
     const emergence = fieldEmergence(
       sowingsByLot.get(lot.id) ?? [],
       (date) => Math.max(0, ageYears(ref, date)),
@@ -521,6 +572,8 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
               ageYears: ageYears(v.harvestRef, on),
               lastTestDate: last?.start_date ?? null,
               lastPercent: last?.percent ?? null,
+              lastPercentEstimated: last?.percent != null && (last.sown_sd ?? 0) > 0,
+              lastScore: last && last.percent === null ? (scoredTrays(last).at(-1)?.score ?? null) : null,
               projectedPercent: d.projected?.percent ?? null,
               projectedLow: d.projected?.low ?? null,
               projectedHigh: d.projected?.high ?? null,
@@ -586,15 +639,23 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
         ],
         harvestReference: v.harvestRef,
         storageAdvice,
-        points: v.assays.map((t) => ({
-          testId: t.testId,
-          date: t.date,
-          ageYears: t.ageYears,
-          percent: (100 * t.germinated) / t.sown,
-          germinated: t.germinated,
-          sown: t.sown,
-          heldBack: v.model?.heldBack.includes(t.testId) ?? false,
-        })),
+        // The chart's points: tests with a percentage (a test with only rough scores has none).
+        points: v.assays.flatMap((t) =>
+          t.percent === null || t.germinated === null || t.sown === null
+            ? []
+            : [
+                {
+                  testId: t.testId,
+                  date: t.date,
+                  ageYears: t.ageYears,
+                  percent: t.percent,
+                  germinated: t.germinated,
+                  sown: t.sown,
+                  seedsSownEstimated: t.sownSd > 0,
+                  heldBack: v.model?.heldBack.includes(t.testId) ?? false,
+                },
+              ],
+        ),
         setAside: v.setAside,
         emergence: v.emergence,
         curve: v.model
