@@ -58,6 +58,9 @@ export const viabilityResponseSchema = z.object({
       /** Seeds sown; the expected number when seedsSownEstimated (sown by weight or guess). */
       sown: n,
       seedsSownEstimated: z.boolean(),
+      /** The test's stored 95% interval (Wilson; widened when seeds sown were estimated). */
+      low: nn,
+      high: nn,
       heldBack: z.boolean(),
     }),
   ),

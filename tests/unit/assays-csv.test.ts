@@ -42,6 +42,7 @@ function finished(): AssayCsvAssay {
     finishedOn: '2026-02-12',
     // 7 normal seedlings of the 10 seeds in the figures (tray 2 is set aside): 70%.
     germinationPercent: 70,
+    seedsSownEstimated: false,
     trays: [
       {
         position: 1,
@@ -56,6 +57,8 @@ function finished(): AssayCsvAssay {
           { date: '2026-02-05', cumulative: 4 },
           { date: '2026-02-10', cumulative: 7 },
         ],
+        sown: counted(10),
+        scores: [],
       },
       {
         position: 2,
@@ -67,9 +70,15 @@ function finished(): AssayCsvAssay {
         hard: null,
         setAsideReason: '-dried out',
         counts: [],
+        sown: counted(10),
+        scores: [],
       },
     ],
   };
+}
+
+function counted(seeds: number) {
+  return { by: 'count' as const, seeds, grams: null, about: null, estimate: null };
 }
 
 describe('germination tests CSV, export', () => {
@@ -92,17 +101,28 @@ describe('germination tests CSV, export', () => {
     const records = body.split('\r\n').slice(1);
     expect(records).toHaveLength(3);
     expect(records[0]).toBe(
-      `TOM-1 2026-02-01,TOM-1,Tomato,"Plum, early",2026-02-01,'=paper towel,"Towel ""A""",21.5,,soak,1,"Line one\nline two",1,10,2026-02-05,4,2026-02-12,1,2,1,1,0,,70`,
+      `TOM-1 2026-02-01,TOM-1,Tomato,"Plum, early",2026-02-01,'=paper towel,"Towel ""A""",21.5,,soak,1,"Line one\nline two",1,10,2026-02-05,4,2026-02-12,1,2,1,1,0,,70,no,count,,,,`,
     );
     // The set-aside tray: no counts, no finish values, its reason behind the formula guard (OWASP).
-    expect(records[2]).toMatch(/,2,10,,,2026-02-12,,,,,,'-dried out,70$/);
+    expect(records[2]).toMatch(/,2,10,,,2026-02-12,,,,,,'-dried out,70,no,count,,,,$/);
   });
 
   it('when the export is read back, then the test comes back as it was, formula guard removed', () => {
-    const { speciesName: _species, variety: _variety, germinationPercent: _percent, ...assay } = finished();
+    const {
+      speciesName: _species,
+      variety: _variety,
+      germinationPercent: _percent,
+      seedsSownEstimated: _estimated,
+      ...assay
+    } = finished();
+    // How each tray was sown is written for people; the import reads counted trays.
+    const trays = assay.trays.map(({ sown: _sown, scores: _scores, ...tray }) => ({
+      ...tray,
+      seedsSown: tray.seedsSown ?? 0,
+    }));
     expect(parseAssaysCsv(assaysToCsv([finished()]), context)).toEqual({
       ok: true,
-      assays: [{ ...assay, ref: 'TOM-1 2026-02-01', line: 2, lotId: 'lot-tom' }],
+      assays: [{ ...assay, trays, ref: 'TOM-1 2026-02-01', line: 2, lotId: 'lot-tom' }],
     });
   });
 

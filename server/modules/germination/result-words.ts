@@ -23,7 +23,7 @@ export type TraySowings = ReadonlyMap<string, TraySownRead>;
 
 /** "0.2 g", "1.25 g", "12 g". */
 export function gramsWords(g: number): string {
-  return `${String(Number(g.toPrecision(g < 10 ? 2 : 3)))} g`;
+  return `${String(Number(g.toPrecision(3)))} g`;
 }
 
 /** What the estimated seeds sown of the counted trays came from: "0.2 g", "a pinch", "0.2 g and a pinch". */

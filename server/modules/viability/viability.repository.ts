@@ -17,6 +17,9 @@ export interface AssayAggregate {
   fresh: number | null;
   /** SD of the true number sown in the counted trays: above 0 when they were sown by weight or guess. */
   sown_sd: number | null;
+  /** The stored result's 95% interval, percent (Wilson, or widened when seeds sown were estimated). */
+  interval_low: number | null;
+  interval_high: number | null;
   /** The stored result's trays (JSON): the rough scores of trays scored instead of counted. */
   tray_percents: unknown;
   /** Why the grower set the whole test aside (mouldy towel, too cold); it then leaves the model. */
@@ -45,6 +48,8 @@ export async function assayAggregates(
       't.result_mean_days as mean_days',
       sql<number | null>`(t.result->>'fresh')::int`.as('fresh'),
       sql<number | null>`(t.result->>'sownSd')::float8`.as('sown_sd'),
+      sql<number | null>`(t.result->'interval'->>'low')::float8`.as('interval_low'),
+      sql<number | null>`(t.result->'interval'->>'high')::float8`.as('interval_high'),
       sql<unknown>`t.result->'trayPercents'`.as('tray_percents'),
       't.set_aside_reason',
     ])

@@ -98,6 +98,8 @@ export interface ViabilityPoint {
   sown: number | null;
   /** SD of the true number sown (0 when counted). */
   sownSd: number;
+  /** The stored result's 95% interval, percent; null without a percentage. */
+  interval: { low: number; high: number } | null;
   /** Fresh (dormant but alive) seeds, when recorded. */
   fresh: number | null;
   /** Trays scored roughly instead of counted. */
@@ -227,6 +229,10 @@ function fitSpecies(
         germinated: t.sown !== null && t.sown > 0 ? t.germinated : null,
         sown: t.sown !== null && t.sown > 0 && t.germinated !== null ? t.sown : null,
         sownSd: t.sown_sd ?? 0,
+        interval:
+          t.interval_low !== null && t.interval_high !== null
+            ? { low: t.interval_low, high: t.interval_high }
+            : null,
         fresh: t.fresh,
         scored: scoredTrays(t),
       }));
@@ -652,6 +658,8 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
                   germinated: t.germinated,
                   sown: t.sown,
                   seedsSownEstimated: t.sownSd > 0,
+                  low: t.interval?.low ?? null,
+                  high: t.interval?.high ?? null,
                   heldBack: v.model?.heldBack.includes(t.testId) ?? false,
                 },
               ],

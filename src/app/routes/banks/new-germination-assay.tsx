@@ -50,9 +50,10 @@ export function NewGerminationAssayPage() {
               )}
               onCancel={() => void navigate(lotHref)}
               onCreated={async (detail) => {
-                const sown = detail.trays.reduce((sum, t) => sum + t.seedsSown, 0);
+                const counted = detail.trays.every((t) => t.seedsSown !== null);
+                const taken = `${counted ? '' : 'about '}${detail.test.seedsTaken}`;
                 const state: BankNoticeState = {
-                  notice: `Test started: ${sown} seeds taken from lot ${lot.code}. Count them here on each check day.`,
+                  notice: `Test started: ${taken} seeds taken from lot ${lot.code}. Count them here on each check day.`,
                 };
                 await navigate(paths.assay.getHref(bank.id, detail.test.id), { state });
               }}

@@ -3,7 +3,13 @@ import { useEffect, useId, useRef, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { seedlingsAboveSown } from '#shared/count-rules';
-import { countsBodySchema, type AssayDetail } from '#shared/schemas/germination';
+import {
+  countsBodySchema,
+  roughScoreSchema,
+  ROUGH_SCORE_WORDS,
+  type AssayDetail,
+  type RoughScore,
+} from '#shared/schemas/germination';
 import { Button } from '#src/components/ui/button';
 import { FormAlert } from '#src/components/ui/form-alert';
 import { TextField } from '#src/components/ui/text-field';
@@ -12,7 +18,7 @@ import { cn } from '#src/lib/cn';
 import { useRecordCounts } from '../api/record-counts';
 import { useSetTrayAside } from '../api/set-tray-aside';
 import { clearDraft, readDraft, writeDraft } from './count-draft';
-import { formatShortDate } from './format';
+import { formatShortDate, traySownWords } from './format';
 import { SetAsideDialog } from './set-aside-dialog';
 import { ABNORMAL_APART, NORMAL_SEEDLING, NOT_COUNTED, sentence, setAsideWords } from './seedling-words';
 
@@ -29,27 +35,50 @@ export interface CountEntryProps {
 type Tray = AssayDetail['trays'][number];
 
 interface Prefill {
-  /** What to start typing from: the tray's count on the date, else its latest before it, else blank. */
+  /**
+   * What to start typing from: the tray's count (or rough score, as `score:few`) on the date, else
+   * its latest before it, else blank.
+   */
   value: string;
-  previous: { date: string; cumulative: number } | null;
-  /** The tray has a count saved on this very date (blanking it would not remove it). */
+  previous: { date: string; words: string } | null;
+  /** The tray has a count or score saved on this very date (blanking it would not remove it). */
   savedOnDate: boolean;
 }
 
+/** A rough score in a tray's box is kept as `score:<score>`; a count as its digits. */
+const SCORE_PREFIX = 'score:';
+export function scoreOf(value: string): RoughScore | null {
+  if (!value.startsWith(SCORE_PREFIX)) return null;
+  const parsed = roughScoreSchema.safeParse(value.slice(SCORE_PREFIX.length));
+  return parsed.success ? parsed.data : null;
+}
+
 function prefillFor(detail: AssayDetail, trayId: string, date: string): Prefill {
-  const mine = detail.counts.filter((c) => c.trayId === trayId).sort((a, b) => a.date.localeCompare(b.date));
+  const mine = [
+    ...detail.counts
+      .filter((c) => c.trayId === trayId)
+      .map((c) => ({ date: c.date, value: String(c.cumulative), words: String(c.cumulative) })),
+    ...detail.scores
+      .filter((c) => c.trayId === trayId)
+      .map((c) => ({
+        date: c.date,
+        value: `${SCORE_PREFIX}${c.score}`,
+        words: `“${ROUGH_SCORE_WORDS[c.score]}”`,
+      })),
+  ].sort((a, b) => a.date.localeCompare(b.date));
   const onDate = mine.find((c) => c.date === date);
   const before = mine.filter((c) => c.date < date).at(-1) ?? null;
-  const previous = before ? { date: before.date, cumulative: before.cumulative } : null;
-  const value = onDate?.cumulative ?? before?.cumulative;
-  return { value: value === undefined ? '' : String(value), previous, savedOnDate: onDate !== undefined };
+  const previous = before ? { date: before.date, words: before.words } : null;
+  const value = onDate?.value ?? before?.value;
+  return { value: value ?? '', previous, savedOnDate: onDate !== undefined };
 }
 
 /** What the saved counts of one date and the trays set aside look like, so the rows start over when they change. */
 function savedSignature(detail: AssayDetail, date: string): string {
-  const counts = detail.counts
-    .filter((c) => c.date === date)
-    .map((c) => `${c.trayId}:${c.cumulative}`)
+  const counts = [
+    ...detail.counts.filter((c) => c.date === date).map((c) => `${c.trayId}:${c.cumulative}`),
+    ...detail.scores.filter((c) => c.date === date).map((c) => `${c.trayId}:${c.score}`),
+  ]
     .sort()
     .join(',');
   const aside = detail.trays.filter((t) => t.setAsideReason !== null).map((t) => t.id);
@@ -64,7 +93,7 @@ function savedSignature(detail: AssayDetail, date: string): string {
  */
 export function CountEntry({ bankId, detail, date, onDateChange, today }: CountEntryProps) {
   const dateId = useId();
-  const hasSaved = detail.counts.some((c) => c.date === date);
+  const hasSaved = detail.counts.some((c) => c.date === date) || detail.scores.some((c) => c.date === date);
   const [dateError, setDateError] = useState<string>();
   // Kept here, not in the rows: the rows start over once the saved counts change.
   const [savedDate, setSavedDate] = useState<string | null>(null);
@@ -85,7 +114,8 @@ export function CountEntry({ bankId, detail, date, onDateChange, today }: CountE
       </div>
       <p className="mt-1 text-loam-700">
         Give each tray’s normal seedlings so far — every one since sowing, not only the new ones. Leave a tray
-        blank to skip it today.
+        blank to skip it today. Too many or too tangled to count? Score the tray roughly instead: it then
+        gives no percentage, only words, and still counts as evidence for the lot.
       </p>
       <p className="mt-1 text-sm text-loam-600" data-definition="normal-seedling">
         {NORMAL_SEEDLING} {ABNORMAL_APART}
@@ -134,7 +164,7 @@ export function CountEntry({ bankId, detail, date, onDateChange, today }: CountE
             >
               <p className="min-w-0 text-loam-700">
                 <span className="font-bold text-loam-600 line-through">
-                  Tray {tray.position} · {tray.seedsSown} sown
+                  Tray {tray.position} · {traySownWords(tray)}
                 </span>{' '}
                 <span>{setAsideWords(tray.setAsideReason)}</span>
               </p>
@@ -224,11 +254,14 @@ function countsFormSchema(detail: AssayDetail, date: string, trays: Tray[]) {
           return;
         }
         typed += 1;
+        if (scoreOf(text)) return;
         if (!/^\d+$/.test(text)) {
           at(`Tray ${tray.position}: type its normal seedlings so far as a whole number (0 if none).`);
           return;
         }
-        const aboveSown = seedlingsAboveSown(tray.position, Number(text), tray.seedsSown);
+        // A tray sown by weight or guess has no counted bound; the server says when a count is implausible.
+        const aboveSown =
+          tray.seedsSown === null ? null : seedlingsAboveSown(tray.position, Number(text), tray.seedsSown);
         if (aboveSown) at(aboveSown);
       });
       if (typed === 0 && flagged === 0) {
@@ -237,8 +270,10 @@ function countsFormSchema(detail: AssayDetail, date: string, trays: Tray[]) {
     })
     .transform(({ counts }): z.input<typeof countsBodySchema> => ({
       date,
-      trays: trays.flatMap((tray, i) => {
+      trays: trays.flatMap((tray, i): z.input<typeof countsBodySchema>['trays'] => {
         const text = (counts[i] ?? '').trim();
+        const score = scoreOf(text);
+        if (score) return [{ trayId: tray.id, score }];
         return text === '' ? [] : [{ trayId: tray.id, cumulative: Number(text) }];
       }),
     }))
@@ -289,7 +324,7 @@ function CountRows({
   const step = (index: number, tray: Tray, by: number) => {
     const current = Number.parseInt(getValues(`counts.${index}`) ?? '0', 10);
     const base = Number.isFinite(current) ? current : 0;
-    change(index, String(Math.min(tray.seedsSown, Math.max(0, base + by))));
+    change(index, String(Math.min(tray.seedsSown ?? Number.MAX_SAFE_INTEGER, Math.max(0, base + by))));
   };
 
   const save = handleSubmit(
@@ -379,7 +414,10 @@ function CountRows({
                 tray={tray}
                 value={field.value ?? ''}
                 previous={prefillFor(detail, tray.id, date).previous}
-                everCounted={detail.counts.some((c) => c.trayId === tray.id)}
+                everCounted={
+                  detail.counts.some((c) => c.trayId === tray.id) ||
+                  detail.scores.some((c) => c.trayId === tray.id)
+                }
                 error={fieldState.error?.message}
                 disabled={record.isPending}
                 onChange={(value) => change(i, value)}
@@ -445,7 +483,7 @@ function placeServerError(
 interface TrayRowProps {
   tray: Tray;
   value: string;
-  previous: { date: string; cumulative: number } | null;
+  previous: { date: string; words: string } | null;
   /** Counted on some date (a tray never counted is left out of the figures). */
   everCounted: boolean;
   error: string | undefined;
@@ -474,8 +512,9 @@ function TrayRow({
 }: TrayRowProps) {
   const inputId = useId();
   const errorId = `${inputId}-error`;
-  const label = `Tray ${tray.position} · ${tray.seedsSown} sown`;
-  const n = Number.parseInt(value, 10);
+  const label = `Tray ${tray.position} · ${traySownWords(tray)}`;
+  const score = scoreOf(value);
+  const n = score ? Number.NaN : Number.parseInt(value, 10);
   return (
     <li
       data-tray={tray.position}
@@ -494,7 +533,7 @@ function TrayRow({
             <p className="text-sm text-loam-600" data-tray-note>
               {previous ? (
                 <>
-                  {previous.cumulative} on {formatShortDate(previous.date)}
+                  {previous.words} on {formatShortDate(previous.date)}
                 </>
               ) : everCounted ? (
                 'No count before this date'
@@ -513,44 +552,84 @@ function TrayRow({
             Set aside…
           </button>
         </div>
-        <div className="flex w-full items-center gap-2 @lg:w-auto">
+        {score ? (
+          <p className="num flex h-14 w-full items-center justify-center rounded-xl border-2 border-moss-700 bg-white px-3 text-xl font-bold text-loam-950 @lg:w-auto">
+            <span id={inputId}>Came up: {ROUGH_SCORE_WORDS[score]}</span>
+          </p>
+        ) : (
+          <div className="flex w-full items-center gap-2 @lg:w-auto">
+            <button
+              type="button"
+              className={stepperClass}
+              aria-label={`One fewer in tray ${tray.position}`}
+              disabled={disabled || !(n > 0)}
+              onClick={() => onStep(-1)}
+            >
+              −
+            </button>
+            <input
+              id={inputId}
+              type="text"
+              inputMode="numeric"
+              pattern="[0-9]*"
+              autoComplete="off"
+              enterKeyHint="done"
+              value={value}
+              disabled={disabled}
+              aria-invalid={error ? true : undefined}
+              aria-describedby={error ? errorId : undefined}
+              onChange={(e) => onChange(e.target.value.replace(/[^\d]/g, ''))}
+              onFocus={(e) => e.target.select()}
+              className={cn(
+                'num h-14 w-0 min-w-0 flex-1 rounded-xl border-2 bg-white px-2 text-center text-3xl font-bold text-loam-950 @lg:w-24 @lg:flex-none',
+                error ? 'border-clay-700' : 'border-loam-300',
+              )}
+            />
+            <button
+              type="button"
+              className={stepperClass}
+              aria-label={`One more in tray ${tray.position}`}
+              disabled={disabled || (tray.seedsSown !== null && n >= tray.seedsSown)}
+              onClick={() => onStep(1)}
+            >
+              +
+            </button>
+          </div>
+        )}
+      </div>
+      <div
+        role="group"
+        aria-label={`Score tray ${tray.position} roughly instead of counting`}
+        className="mt-2 flex flex-wrap items-center gap-x-2 gap-y-1 text-sm"
+      >
+        <span className="text-loam-700">Too many to count? Seedlings came up:</span>
+        {roughScoreSchema.options.map((s) => (
           <button
+            key={s}
             type="button"
-            className={stepperClass}
-            aria-label={`One fewer in tray ${tray.position}`}
-            disabled={disabled || !(n > 0)}
-            onClick={() => onStep(-1)}
-          >
-            −
-          </button>
-          <input
-            id={inputId}
-            type="text"
-            inputMode="numeric"
-            pattern="[0-9]*"
-            autoComplete="off"
-            enterKeyHint="done"
-            value={value}
+            aria-pressed={score === s}
             disabled={disabled}
-            aria-invalid={error ? true : undefined}
-            aria-describedby={error ? errorId : undefined}
-            onChange={(e) => onChange(e.target.value.replace(/[^\d]/g, ''))}
-            onFocus={(e) => e.target.select()}
+            onClick={() => onChange(`${SCORE_PREFIX}${s}`)}
             className={cn(
-              'num h-14 w-0 min-w-0 flex-1 rounded-xl border-2 bg-white px-2 text-center text-3xl font-bold text-loam-950 @lg:w-24 @lg:flex-none',
-              error ? 'border-clay-700' : 'border-loam-300',
+              'min-h-11 rounded-lg border px-3 font-semibold',
+              score === s
+                ? 'border-moss-700 bg-moss-700 text-white'
+                : 'border-loam-300 bg-white text-loam-800 hover:bg-moss-50',
             )}
-          />
+          >
+            {ROUGH_SCORE_WORDS[s]}
+          </button>
+        ))}
+        {score ? (
           <button
             type="button"
-            className={stepperClass}
-            aria-label={`One more in tray ${tray.position}`}
-            disabled={disabled || n >= tray.seedsSown}
-            onClick={() => onStep(1)}
+            disabled={disabled}
+            className="min-h-11 px-2 font-semibold text-loam-700 underline underline-offset-2"
+            onClick={() => onChange('')}
           >
-            +
+            Count instead
           </button>
-        </div>
+        ) : null}
       </div>
       {error ? (
         <p id={errorId} role="alert" className="mt-2 font-semibold text-clay-800">

@@ -4,7 +4,7 @@ import { cn } from '#src/lib/cn';
 import { ConfirmDialog } from '#src/components/ui/confirm-dialog';
 import { FormAlert } from '#src/components/ui/form-alert';
 import { useDeleteCounts } from '../api/delete-counts';
-import { formatPercent, formatShortDate } from './format';
+import { formatPercent, formatShortDate, scoreWords } from './format';
 import { pooledByDate } from './pooled-counts';
 import { NOT_COUNTED, setAsideWords, trayFigures } from './seedling-words';
 
@@ -24,21 +24,26 @@ const actionClass = (tone: string) =>
 interface DateRow {
   date: string;
   day: number;
-  byTray: Map<string, number>;
+  /** A tray's cumulative count, or its rough score's words ("a few") when it was scored. */
+  byTray: Map<string, number | string>;
   pooled: number | null;
 }
 
 function rowsOf(detail: AssayDetail): DateRow[] {
   const rows = new Map<string, DateRow>();
   const pooled = pooledByDate(detail);
-  for (const count of detail.counts) {
+  const entries = [
+    ...detail.counts.map((c) => ({ ...c, value: c.cumulative as number | string })),
+    ...detail.scores.map((c) => ({ ...c, value: scoreWords(c.score) })),
+  ];
+  for (const count of entries) {
     const row = rows.get(count.date) ?? {
       date: count.date,
       day: count.day,
       byTray: new Map(),
       pooled: pooled.get(count.date) ?? null,
     };
-    row.byTray.set(count.trayId, count.cumulative);
+    row.byTray.set(count.trayId, count.value);
     rows.set(count.date, row);
   }
   return [...rows.values()].sort((a, b) => a.date.localeCompare(b.date));
@@ -66,7 +71,12 @@ export function CountsTable({ bankId, detail, canEdit, onCorrect }: CountsTableP
             <span className={cn('font-semibold', t.state === 'set-aside' && 'line-through')}>
               T{t.tray.position}
             </span>{' '}
-            {t.state === 'set-aside' ? setAsideWords(t.setAsideReason) : NOT_COUNTED}.
+            {t.state === 'set-aside'
+              ? setAsideWords(t.setAsideReason)
+              : t.state === 'scored'
+                ? 'scored roughly, not counted — in no percentage'
+                : NOT_COUNTED}
+            .
           </li>
         ))}
       </ul>

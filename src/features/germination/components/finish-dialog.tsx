@@ -3,7 +3,13 @@ import { useId, useState } from 'react';
 import { useForm, useWatch, type FieldErrors, type Path, type UseFormRegister } from 'react-hook-form';
 import { z } from 'zod';
 import { isoDateSchema } from '#shared/schemas/common';
-import { setAsideReasonSchema, type FinishBody, type AssayDetail } from '#shared/schemas/germination';
+import {
+  setAsideReasonSchema,
+  ROUGH_SCORE_WORDS,
+  type FinishBody,
+  type AssayDetail,
+  type RoughScore,
+} from '#shared/schemas/germination';
 import { Button } from '#src/components/ui/button';
 import { FormDialog } from '#src/components/ui/dialog';
 import { FormAlert } from '#src/components/ui/form-alert';
@@ -11,6 +17,7 @@ import { TextField } from '#src/components/ui/text-field';
 import { isApiError } from '#src/lib/api-client';
 import { cn } from '#src/lib/cn';
 import { useFinishAssay } from '../api/finish-assay';
+import { traySownWords } from './format';
 import { NOT_COUNTED, SOUND_ROOT_AND_SHOOT, UNGERMINATED_KINDS } from './seedling-words';
 
 export interface FinishDialogProps {
@@ -34,6 +41,20 @@ const toInt = (text: string): number | null => (/^\d+$/.test(text.trim()) ? Numb
 function lastCount(detail: AssayDetail, trayId: string): number | null {
   const mine = detail.counts.filter((c) => c.trayId === trayId).sort((a, b) => a.date.localeCompare(b.date));
   return mine.at(-1)?.cumulative ?? null;
+}
+
+/** A tray's latest rough score; null when it was never scored. */
+function lastScore(detail: AssayDetail, trayId: string): RoughScore | null {
+  const mine = detail.scores.filter((c) => c.trayId === trayId).sort((a, b) => a.date.localeCompare(b.date));
+  return mine.at(-1)?.score ?? null;
+}
+
+/**
+ * Whether the tray adds up at the finish: seeds counted in and seedlings counted. A tray sown by
+ * weight or guess, or scored roughly, finishes with its last count or score and nothing to add up.
+ */
+function addsUp(detail: AssayDetail, tray: Tray): boolean {
+  return tray.seedsSown !== null && lastScore(detail, tray.id) === null;
 }
 
 const trayFormSchema = z.object({
@@ -78,7 +99,7 @@ function finishFormSchema(detail: AssayDetail) {
         }
         kept += 1;
         const normal = lastCount(detail, tray.id);
-        if (normal === null) {
+        if (normal === null && lastScore(detail, tray.id) === null) {
           ctx.addIssue({
             code: 'custom',
             path: at('setAsideReason'),
@@ -86,6 +107,7 @@ function finishFormSchema(detail: AssayDetail) {
           });
           return;
         }
+        if (!addsUp(detail, tray) || normal === null) return;
         const abnormal = toInt(t.abnormal);
         const ungerminated = toInt(t.ungerminated);
         if (abnormal === null)
@@ -135,11 +157,13 @@ function finishFormSchema(detail: AssayDetail) {
 type FinishForm = z.infer<ReturnType<typeof finishFormSchema>>;
 
 /** The body the server takes: every tray, with its figures or its reason, in the form's order. */
-function finishBody(form: FinishForm): FinishBody {
+function finishBody(form: FinishForm, detail: AssayDetail): FinishBody {
   return {
     date: form.date,
-    trays: form.trays.map((t) => {
+    trays: form.trays.map((t, i) => {
       if (t.mode === 'aside') return { trayId: t.trayId, setAsideReason: t.setAsideReason.trim() };
+      const tray = detail.trays[i];
+      if (tray && !addsUp(detail, tray)) return { trayId: t.trayId };
       const split = form.sortUngerminated ? SPLIT.map((k) => toInt(t[k])) : [null, null, null];
       return {
         trayId: t.trayId,
@@ -183,7 +207,7 @@ function FinishForm({
   onFinished,
 }: Omit<FinishDialogProps, 'open'> & { titleId: string }) {
   const finish = useFinishAssay(bankId, detail.test.id);
-  const lastCountDate = [...detail.counts]
+  const lastCountDate = [...detail.counts, ...detail.scores]
     .map((c) => c.date)
     .sort()
     .at(-1);
@@ -204,12 +228,13 @@ function FinishForm({
       sortUngerminated: false,
       trays: detail.trays.map((tray) => {
         const normal = lastCount(detail, tray.id);
+        const checked = normal !== null || lastScore(detail, tray.id) !== null;
         return {
           trayId: tray.id,
-          mode: normal === null || tray.setAsideReason !== null ? 'aside' : 'figures',
-          setAsideReason: tray.setAsideReason ?? (normal === null ? UNCOUNTED_REASON : ''),
+          mode: !checked || tray.setAsideReason !== null ? 'aside' : 'figures',
+          setAsideReason: tray.setAsideReason ?? (checked ? '' : UNCOUNTED_REASON),
           abnormal: '0',
-          ungerminated: String(Math.max(0, tray.seedsSown - (normal ?? 0))),
+          ungerminated: tray.seedsSown === null ? '' : String(Math.max(0, tray.seedsSown - (normal ?? 0))),
           fresh: '',
           dead: '',
           hard: '',
@@ -223,7 +248,7 @@ function FinishForm({
   const onSubmit = handleSubmit(async (form) => {
     setFormError(undefined);
     try {
-      await finish.mutateAsync(finishBody(form));
+      await finish.mutateAsync(finishBody(form, detail));
       onFinished();
     } catch (error) {
       if (!isApiError(error)) {
@@ -300,6 +325,8 @@ function FinishForm({
             index={i}
             tray={tray}
             normal={lastCount(detail, tray.id)}
+            score={lastScore(detail, tray.id)}
+            addsUp={addsUp(detail, tray)}
             value={values.trays?.[i]}
             sortUngerminated={sortUngerminated}
             errors={trayErrors?.[i]}
@@ -307,6 +334,7 @@ function FinishForm({
             onAbnormal={(text) => {
               if (typed.has(i)) return;
               const normal = lastCount(detail, tray.id) ?? 0;
+              if (tray.seedsSown === null) return;
               setValue(
                 `trays.${i}.ungerminated`,
                 String(Math.max(0, tray.seedsSown - normal - (toInt(text) ?? 0))),
@@ -334,8 +362,12 @@ type TrayErrors = FieldErrors<FinishForm['trays'][number]> | undefined;
 interface FinishTrayProps {
   index: number;
   tray: Tray;
-  /** The tray's last count; null when it was never counted (it can only be set aside). */
+  /** The tray's last count; null when it was never counted. */
   normal: number | null;
+  /** The tray's last rough score, when it was scored instead of counted. */
+  score: RoughScore | null;
+  /** Seeds and seedlings counted: the finish figures must add up to the seeds sown. */
+  addsUp: boolean;
   value: TrayValues;
   sortUngerminated: boolean;
   errors: TrayErrors;
@@ -348,6 +380,8 @@ function FinishTray({
   index: i,
   tray,
   normal,
+  score,
+  addsUp,
   value,
   sortUngerminated,
   errors,
@@ -355,7 +389,8 @@ function FinishTray({
   onAbnormal,
   onUngerminatedTyped,
 }: FinishTrayProps) {
-  const aside = value?.mode === 'aside' || normal === null;
+  const checked = normal !== null || score !== null;
+  const aside = value?.mode === 'aside' || !checked;
   const abnormal = toInt(value?.abnormal ?? '') ?? 0;
   const ungerminated = toInt(value?.ungerminated ?? '') ?? 0;
   const total = (normal ?? 0) + abnormal + ungerminated;
@@ -378,15 +413,17 @@ function FinishTray({
     >
       <p className={cn('font-bold', aside ? 'text-loam-600' : 'text-loam-900')}>
         <span className={cn(aside && 'line-through')}>
-          Tray {tray.position} · {tray.seedsSown} sown
+          Tray {tray.position} · {traySownWords(tray)}
         </span>
         {normal !== null
           ? ` · ${normal} normal seedlings at the last count`
-          : tray.setAsideReason !== null
-            ? ' · set aside while the test ran'
-            : ` · ${NOT_COUNTED}`}
+          : score !== null
+            ? ` · seedlings came up: ${ROUGH_SCORE_WORDS[score]} (scored roughly)`
+            : tray.setAsideReason !== null
+              ? ' · set aside while the test ran'
+              : ` · ${NOT_COUNTED}`}
       </p>
-      {normal === null ? (
+      {!checked ? (
         <p className="mt-1 text-sm text-loam-700">
           {tray.setAsideReason !== null
             ? 'It has no counts, so it stays aside, with this reason.'
@@ -427,6 +464,12 @@ function FinishTray({
           error={errors?.setAsideReason?.message}
           {...register(`trays.${i}.setAsideReason`)}
         />
+      ) : !addsUp ? (
+        <p className="mt-2 text-sm text-loam-700" data-tray-sum={tray.position}>
+          {score !== null
+            ? 'Its seedlings were scored roughly, so it finishes with its last score: nothing to add up.'
+            : 'Its seeds were not counted, so its seedlings, abnormal and ungerminated seeds cannot add up to a number sown: it finishes with its last count.'}
+        </p>
       ) : (
         <>
           <div className="mt-2 grid grid-cols-2 gap-3">

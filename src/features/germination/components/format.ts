@@ -1,4 +1,9 @@
-import type { AssayDetail } from '#shared/schemas/germination';
+import {
+  ROUGH_SCORE_WORDS,
+  SOWN_GUESS_WORDS,
+  type AssayDetail,
+  type RoughScore,
+} from '#shared/schemas/germination';
 
 const dateFormat = new Intl.DateTimeFormat('en-GB', {
   day: 'numeric',
@@ -33,6 +38,53 @@ export function formatPercent(value: number | null | undefined): string {
 /** Days to one decimal, the precision a daily check supports. */
 export function formatDays(value: number | null | undefined): string {
   return value === null || value === undefined ? '–' : (Math.round(value * 10) / 10).toLocaleString('en-GB');
+}
+
+type Tray = AssayDetail['trays'][number];
+
+/** "0.2 g", "1.25 g": a weight as the grower typed it, to three significant figures. */
+export function formatGrams(g: number): string {
+  return `${Number(g.toPrecision(3)).toLocaleString('en-GB')}\u00a0g`;
+}
+
+/** How a tray was sown, short: "25 sown", "0.2 g sown", "a pinch sown (not counted)". */
+export function traySownWords(tray: Tray): string {
+  if (tray.seedsSown !== null) return `${tray.seedsSown} sown`;
+  if (tray.sown.by === 'weight' && tray.sown.grams !== null) return `${formatGrams(tray.sown.grams)} sown`;
+  return `${tray.sown.about ? SOWN_GUESS_WORDS[tray.sown.about] : 'some'} sown (not counted)`;
+}
+
+/** The seeds a tray holds for a percentage: the count, else the estimate's expected number. */
+export function traySeeds(tray: Tray): number {
+  return tray.seedsSown ?? tray.sown.estimate?.mean ?? 0;
+}
+
+/** The seeds of a test's trays, in words: "4 trays, 100 seeds", "1 tray, 0.2 g (seeds not counted)". */
+export function traysSownWords(trays: Tray[]): string {
+  const head = `${trays.length} ${trays.length === 1 ? 'tray' : 'trays'}`;
+  if (trays.every((t) => t.seedsSown !== null))
+    return `${head}, ${trays.reduce((n, t) => n + (t.seedsSown ?? 0), 0)} seeds`;
+  const grams = trays.reduce((g, t) => g + (t.sown.grams ?? 0), 0);
+  const about = Math.round(trays.reduce((n, t) => n + traySeeds(t), 0));
+  return `${head}, ${grams > 0 ? `${formatGrams(grams)}, ` : ''}about ${about} seeds (not all counted)`;
+}
+
+/** "a few" for a rough score. */
+export const scoreWords = (score: RoughScore): string => ROUGH_SCORE_WORDS[score];
+
+/**
+ * The result's headline figure: "62%", "about 62%" when the seeds sown were estimated, the rough
+ * score's words when the trays were only scored ("a few came up"), or "–".
+ */
+export function resultFigure(result: AssayDetail['result']): string {
+  if (result.percent !== null) {
+    const p = formatPercent(result.percentRounded ?? result.percent);
+    return result.seedsSownEstimated ? `about ${p}` : p;
+  }
+  const scored = result.trayPercents.filter((t) => t.state === 'scored' && t.score !== null);
+  if (scored.length > 0) return `${scoreWords(scored.at(-1)!.score!)} came up`;
+  if (result.seedlingsExceedSown) return 'more than sown';
+  return '–';
 }
 
 /** "likely between 78% and 89%" for the result's interval, or null while there is none. */

@@ -1,6 +1,7 @@
 import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
 import type { AssayDetail } from '#shared/schemas/germination';
 import { daysBetween } from '#shared/dates';
+import { traySeeds } from './format';
 import { pooledByDate } from './pooled-counts';
 
 // Tray lines in the palette's quieter tones (tailwind.config.ts); the pooled line is the strong moss.
@@ -24,13 +25,13 @@ export function curvePoints(detail: AssayDetail): CurvePoint[] {
   const sorted = [...detail.counts].sort((a, b) => a.date.localeCompare(b.date));
   for (const count of sorted) {
     const tray = trays.get(count.trayId);
-    if (!tray || tray.seedsSown <= 0) continue;
+    if (!tray || traySeeds(tray) <= 0) continue;
     const point = byDate.get(count.date) ?? {
       day: count.day,
       date: count.date,
       pooled: pooled.get(count.date) ?? null,
     };
-    point[`tray${tray.position}`] = (100 * count.cumulative) / tray.seedsSown;
+    point[`tray${tray.position}`] = Math.min(100, (100 * count.cumulative) / traySeeds(tray));
     byDate.set(count.date, point);
   }
   const points = [...byDate.values()];

@@ -7,7 +7,7 @@ import { Loading } from '#src/components/ui/spinner';
 import { paths } from '#src/config/paths';
 import { cn } from '#src/lib/cn';
 import { useLotAssays } from '../api/get-lot-assays';
-import { formatDate, formatPercent, intervalWords } from './format';
+import { formatDate, intervalWords, resultFigure, traysSownWords } from './format';
 
 export interface LotAssaysProps {
   bankId: string;
@@ -71,7 +71,6 @@ export function LotAssays({ bankId, lotId, canWrite, headingId }: LotAssaysProps
 
 function LotAssayItem({ bankId, detail }: { bankId: string; detail: AssayDetail }) {
   const { test: assay, result, trays } = detail;
-  const sown = trays.reduce((sum, t) => sum + t.seedsSown, 0);
   const range = intervalWords(result);
   return (
     <li>
@@ -85,14 +84,12 @@ function LotAssayItem({ bankId, detail }: { bankId: string; detail: AssayDetail 
             <StatusBadge status={assay.status} />
           </p>
           <p className="text-sm text-loam-700">
-            {trays.length} {trays.length === 1 ? 'tray' : 'trays'}, {sown} seeds · {assay.method}
+            {traysSownWords(trays)} · {assay.method}
             {assay.finishedOn ? ` · finished ${formatDate(assay.finishedOn)}` : ''}
           </p>
         </div>
         <div className="flex items-baseline gap-2 sm:block sm:text-right">
-          <p className="num text-3xl font-bold leading-none text-moss-800">
-            {formatPercent(result.percentRounded)}
-          </p>
+          <p className="num text-3xl font-bold leading-none text-moss-800">{resultFigure(result)}</p>
           <p className="text-sm text-loam-700">
             {range ? `${assay.status === 'running' ? 'so far, ' : ''}${range}` : 'no counts yet'}
           </p>

@@ -1,4 +1,5 @@
 import type { AssayDetail } from '#shared/schemas/germination';
+import { traySeeds } from './format';
 
 /**
  * The pooled percent of normal seedlings on each check date, by the stored result's rule: the trays
@@ -6,7 +7,8 @@ import type { AssayDetail } from '#shared/schemas/germination';
  * counted by then is left out. On the last date this is the result's own percent.
  */
 export function pooledByDate(detail: AssayDetail): Map<string, number | null> {
-  const trays = detail.trays.filter((t) => t.setAsideReason === null && t.seedsSown > 0);
+  // A tray not counted enters with its expected seeds sown, as in the stored result.
+  const trays = detail.trays.filter((t) => t.setAsideReason === null && traySeeds(t) > 0);
   const dates = [...new Set(detail.counts.map((c) => c.date))].sort();
   const sorted = [...detail.counts].sort((a, b) => a.date.localeCompare(b.date));
   const out = new Map<string, number | null>();
@@ -17,7 +19,7 @@ export function pooledByDate(detail: AssayDetail): Map<string, number | null> {
       const latest = sorted.filter((c) => c.trayId === tray.id && c.date <= date).at(-1);
       if (!latest) continue;
       normal += latest.cumulative;
-      sown += tray.seedsSown;
+      sown += traySeeds(tray);
     }
     out.set(date, sown > 0 ? (100 * normal) / sown : null);
   }

@@ -2,7 +2,16 @@ import { useId } from 'react';
 import type { AssayDetail } from '#shared/schemas/germination';
 import { cn } from '#src/lib/cn';
 import type { IntervalMethod } from '#src/lib/bank-api';
-import { formatDays, formatPercent, intervalWords } from './format';
+import {
+  formatDays,
+  formatGrams,
+  formatPercent,
+  intervalWords,
+  resultFigure,
+  scoreWords,
+  traySownWords,
+} from './format';
+import { SOWN_GUESS_WORDS } from '#shared/schemas/germination';
 import { NORMAL_SEEDLING, NOT_COUNTED, sentence, setAsideWords, trayFigures } from './seedling-words';
 
 export interface ResultPanelProps {
@@ -48,6 +57,18 @@ export function AgreementBadge({ agreement }: { agreement: Agreement }) {
   );
 }
 
+/** "seeds sown estimated from 0.2 g" / "… from a pinch" for the counted trays not counted in. */
+function estimatedFromWords(detail: AssayDetail): string {
+  const counted = new Set(detail.result.trayPercents.filter((t) => t.state === 'counted').map((t) => t.id));
+  const trays = detail.trays.filter((t) => counted.has(t.id) && t.seedsSown === null);
+  const grams = trays.reduce((g, t) => g + (t.sown.grams ?? 0), 0);
+  const parts = [
+    ...(grams > 0 ? [formatGrams(grams)] : []),
+    ...trays.flatMap((t) => (t.sown.by === 'guess' && t.sown.about ? [SOWN_GUESS_WORDS[t.sown.about]] : [])),
+  ];
+  return `seeds sown estimated from ${parts.join(' and ') || 'an estimate'}`;
+}
+
 /** The result at a glance: the whole percent of normal seedlings, its likely range, the trays, speed, in words. */
 export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing = false }: ResultPanelProps) {
   const { result, test: assay } = detail;
@@ -56,6 +77,7 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
   const range = intervalWords(result);
   const trays = trayFigures(detail);
   const leftOut = trays.some((t) => t.state !== 'counted');
+  const scoredCount = trays.filter((t) => t.state === 'scored').length;
   const timingMissing = result.t50Days === null || result.meanDays === null || result.speedIndex === null;
   const showTimingNote = timingMissing && result.timingNote !== null;
   // The note stands under the timing figures it explains, so the words below do not repeat it.
@@ -74,13 +96,25 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
       <p className="text-sm text-loam-600">{NORMAL_SEEDLING}</p>
       <div className="mt-3 flex flex-wrap items-end gap-x-6 gap-y-3">
         <div>
-          <p className="num text-6xl font-bold leading-none text-moss-800" data-result="percent">
-            {formatPercent(result.percentRounded)}
+          <p
+            className={cn(
+              'num font-bold leading-none text-moss-800',
+              result.percent === null && scoredCount > 0 ? 'text-3xl' : 'text-6xl',
+            )}
+            data-result="percent"
+          >
+            {result.percent === null && scoredCount > 0
+              ? `Seedlings came up: ${resultFigure(result).replace(/ came up$/, '')}`
+              : resultFigure(result)}
           </p>
           <p className="mt-1 text-loam-700" data-result="of-sown">
             {result.germinated !== null && result.sown !== null
-              ? `${result.germinated} of ${result.sown} seeds sown${leftOut ? (finished ? ' in the trays kept' : ' in the counted trays') : ''}`
-              : 'no counts yet'}
+              ? result.seedsSownEstimated
+                ? `${result.germinated} seedlings from about ${Math.round(result.sown)} seeds · ${estimatedFromWords(detail)}`
+                : `${result.germinated} of ${result.sown} seeds sown${leftOut ? (finished ? ' in the trays kept' : ' in the counted trays') : ''}`
+              : scoredCount > 0
+                ? 'scored roughly, not counted: no percentage'
+                : 'no counts yet'}
           </p>
         </div>
         <div className="grid gap-2">
@@ -89,7 +123,11 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
               {sentence(range)}
               <span className="block text-sm text-loam-600">
                 {Math.round((result.interval?.confidence ?? 0.95) * 100)}% interval,{' '}
-                {result.interval?.method === 'clopper-pearson' ? 'exact (Clopper–Pearson)' : 'Wilson score'}
+                {result.interval?.method === 'clopper-pearson'
+                  ? 'exact (Clopper–Pearson)'
+                  : result.interval?.method === 'widened-score'
+                    ? 'wider because the seeds sown were estimated, not counted'
+                    : 'Wilson score'}
               </span>
             </p>
           ) : null}
@@ -97,12 +135,12 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
         </div>
       </div>
 
-      {finished && result.germinated !== null && result.sown !== null ? (
+      {finished && !result.seedsSownEstimated && result.germinated !== null && result.sown !== null ? (
         <FinishBreakdown result={result} />
       ) : null}
 
       <ol className="mt-4 grid gap-1.5" aria-label="Trays">
-        {trays.map(({ tray, state, normal, percent, setAsideReason }) => (
+        {trays.map(({ tray, state, normal, percent, score, setAsideReason }) => (
           <li
             key={tray.id}
             data-tray-state={state}
@@ -115,14 +153,16 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
             )}
           >
             <span className={cn('font-semibold', state === 'set-aside' && 'line-through')}>
-              Tray {tray.position} · {tray.seedsSown} sown
+              Tray {tray.position} · {traySownWords(tray)}
             </span>
             <span className={cn(state === 'counted' ? 'num font-bold text-loam-900' : 'text-sm')}>
               {state === 'counted'
-                ? `${normal ?? 0} normal · ${formatPercent(percent)}`
-                : state === 'set-aside'
-                  ? sentence(setAsideWords(setAsideReason))
-                  : sentence(NOT_COUNTED)}
+                ? `${normal ?? 0} normal · ${tray.seedsSown === null ? 'about ' : ''}${formatPercent(percent)}`
+                : state === 'scored'
+                  ? `Came up: ${score ? scoreWords(score) : '–'} (scored roughly)`
+                  : state === 'set-aside'
+                    ? sentence(setAsideWords(setAsideReason))
+                    : sentence(NOT_COUNTED)}
             </span>
           </li>
         ))}
@@ -162,7 +202,11 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
 
       <label
         htmlFor={checkboxId}
-        className="mt-4 flex min-h-11 cursor-pointer items-center gap-3 text-loam-800"
+        className={cn(
+          'mt-4 min-h-11 cursor-pointer items-center gap-3 text-loam-800',
+          // The exact interval is for counted seeds; an estimate keeps its widened interval.
+          result.seedsSownEstimated || result.percent === null ? 'hidden' : 'flex',
+        )}
       >
         <input
           id={checkboxId}

@@ -1,4 +1,4 @@
-import type { AssayDetail } from '#shared/schemas/germination';
+import type { AssayDetail, RoughScore } from '#shared/schemas/germination';
 
 /*
  * One definition of what a germination test counts, in the grower's words and the seed-testing
@@ -34,7 +34,7 @@ export function setAsideWords(reason: string | null): string {
 /** Reasons offered when setting a tray aside (the grower may write any other). */
 export const SET_ASIDE_REASONS = ['Spilled', 'Dried out', 'Mouldy', 'Eaten by pests'] as const;
 
-export type TrayState = 'counted' | 'not-counted' | 'set-aside';
+export type TrayState = 'counted' | 'not-counted' | 'scored' | 'set-aside';
 
 export interface TrayFigures {
   tray: AssayDetail['trays'][number];
@@ -42,6 +42,8 @@ export interface TrayFigures {
   /** The tray's normal seedlings at its latest count; null when not counted or set aside. */
   normal: number | null;
   percent: number | null;
+  /** The tray's latest rough score, when it was scored instead of counted. */
+  score: RoughScore | null;
   setAsideReason: string | null;
 }
 
@@ -56,6 +58,7 @@ export function trayFigures(detail: AssayDetail): TrayFigures[] {
       state,
       normal: state === 'counted' ? (stored?.germinated ?? null) : null,
       percent: state === 'counted' ? (stored?.percent ?? null) : null,
+      score: state === 'scored' ? (stored?.score ?? null) : null,
       setAsideReason: stored?.setAsideReason ?? tray.setAsideReason,
     };
   });

@@ -5,7 +5,9 @@ import { z } from 'zod';
 import {
   createAssayBodySchema,
   pretreatmentSchema,
+  sownGuessSchema,
   ASSAY_METHODS,
+  SOWN_GUESS_WORDS,
   type AssayDetail,
 } from '#shared/schemas/germination';
 import { Button } from '#src/components/ui/button';
@@ -42,6 +44,22 @@ export interface StartAssayFormProps {
 }
 
 const OTHER = 'other';
+/** How the trays were sown: seeds counted, a weight of the lot's seed, or not counted at all. */
+const SOWN_BY = [
+  { value: 'count', label: 'Counted', hint: 'You counted the seeds into each tray.' },
+  {
+    value: 'weight',
+    label: 'By weight',
+    hint: 'You weighed what you sprinkled (grams); Hilum estimates the seeds from the lot’s seed weight.',
+  },
+  {
+    value: 'guess',
+    label: 'Not counted',
+    hint: 'You sprinkled without counting; give a rough guess. The result will say much less.',
+  },
+] as const;
+const sownBySchema = z.enum(['count', 'weight', 'guess']);
+type FormTray = { seedsSown: string; sown: { grams: string; about: z.infer<typeof sownGuessSchema> } };
 const TRAY_CHOICES = [1, 2, 3, 4, 5, 6, 7, 8];
 const DEFAULT_TRAYS = 4;
 
@@ -53,6 +71,10 @@ const DEFAULT_TRAYS = 4;
  */
 export function defaultSeedsPerTray(seedsOnHand: number | null | undefined): number {
   return seedsOnHand != null && seedsOnHand >= 4000 ? 100 : 25;
+}
+
+function blankTray(seeds: string): FormTray {
+  return { seedsSown: seeds, sown: { grams: '', about: 'pinch' } };
 }
 
 /** '' → null; a number → the number; anything else → NaN (reported as "use a number"). */
@@ -78,7 +100,10 @@ const startAssayFormSchema = z
     pretreatment: pretreatmentSchema,
     pretreatmentDays: z.string(),
     notes: z.string(),
-    trays: z.array(z.object({ seedsSown: z.string() })),
+    sownBy: sownBySchema,
+    trays: z.array(
+      z.object({ seedsSown: z.string(), sown: z.object({ grams: z.string(), about: sownGuessSchema }) }),
+    ),
   })
   .transform((form): z.input<typeof createAssayBodySchema> => ({
     startDate: form.startDate,
@@ -91,7 +116,13 @@ const startAssayFormSchema = z
       form.pretreatment === 'cold-stratification' ? numberOrNull(form.pretreatmentDays) : null,
     notes: form.notes.trim() === '' ? null : form.notes.trim(),
     // A blank tray is as wrong as one that is not a number.
-    trays: form.trays.map((t) => ({ seedsSown: numberOrNull(t.seedsSown) ?? Number.NaN })),
+    trays: form.trays.map((t) =>
+      form.sownBy === 'weight'
+        ? { sown: { by: 'weight' as const, grams: numberOrNull(t.sown.grams) ?? Number.NaN } }
+        : form.sownBy === 'guess'
+          ? { sown: { by: 'guess' as const, about: t.sown.about } }
+          : { seedsSown: numberOrNull(t.seedsSown) ?? Number.NaN },
+    ),
   }))
   .pipe(createAssayBodySchema);
 
@@ -103,6 +134,7 @@ function notANumber(path: string): string | undefined {
   if (path === 'lightHours') return 'Use a number of hours, like 14 (0 for dark).';
   if (path === 'pretreatmentDays') return 'Use a whole number of days.';
   if (/^trays\.\d+\.seedsSown$/.test(path)) return 'How many seeds in this tray?';
+  if (/^trays\.\d+\.sown\.grams$/.test(path)) return 'How many grams in this tray, like 0.2?';
   return undefined;
 }
 
@@ -142,13 +174,16 @@ export function StartAssayForm({
       pretreatment: 'none',
       pretreatmentDays: '',
       notes: '',
-      trays: Array.from({ length: DEFAULT_TRAYS }, () => ({ seedsSown: perTrayDefault })),
+      sownBy: 'count',
+      trays: Array.from({ length: DEFAULT_TRAYS }, (): FormTray => blankTray(perTrayDefault)),
     } satisfies StartAssayValues,
   });
   const trayFields = useFieldArray({ control, name: 'trays' });
   const watched = useWatch({ control });
   const methodChoice = watched.methodChoice ?? ASSAY_METHODS[0];
   const pretreatment = watched.pretreatment ?? 'none';
+  const sownBy = watched.sownBy ?? 'count';
+  const counting = sownBy === 'count';
   const trays = (watched.trays ?? []).map((t) => t?.seedsSown ?? '');
 
   const total = trays.reduce((sum, t) => {
@@ -157,7 +192,7 @@ export function StartAssayForm({
   }, 0);
   const allSame = trays.every((t) => t === trays[0]);
   const onHand = lot?.seedsOnHand ?? null;
-  const short = onHand !== null && total > onHand;
+  const short = counting && onHand !== null && total > onHand;
   const fittingPerTray = onHand !== null && trays.length > 0 ? Math.floor(onHand / trays.length) : 0;
 
   const setTrayCount = (count: number) => {
@@ -165,8 +200,12 @@ export function StartAssayForm({
     if (count < current.length) {
       trayFields.remove(Array.from({ length: current.length - count }, (_, i) => count + i));
     } else if (count > current.length) {
-      const fill = current.at(-1)?.seedsSown ?? perTrayDefault;
-      trayFields.append(Array.from({ length: count - current.length }, () => ({ seedsSown: fill })));
+      const last = current.at(-1);
+      trayFields.append(
+        Array.from({ length: count - current.length }, () =>
+          last ? { seedsSown: last.seedsSown, sown: { ...last.sown } } : blankTray(perTrayDefault),
+        ),
+      );
     }
   };
   const setAllTrays = (value: string) => {
@@ -291,6 +330,28 @@ export function StartAssayForm({
 
       <fieldset className="grid gap-4">
         <legend className="mb-2 text-lg font-bold text-loam-900">Trays and seeds</legend>
+        <div role="radiogroup" aria-label="How the seeds were sown" className="grid gap-2 sm:grid-cols-3">
+          {SOWN_BY.map((way) => (
+            <label
+              key={way.value}
+              className={cn(
+                'flex min-h-11 cursor-pointer gap-2 rounded-lg border px-3 py-2',
+                sownBy === way.value ? 'border-moss-700 bg-moss-50' : 'border-loam-200',
+              )}
+            >
+              <input
+                type="radio"
+                value={way.value}
+                className="mt-1 size-5 accent-moss-700"
+                {...register('sownBy')}
+              />
+              <span>
+                <span className="block font-semibold text-loam-900">{way.label}</span>
+                <span className="block text-sm text-loam-700">{way.hint}</span>
+              </span>
+            </label>
+          ))}
+        </div>
         <div className="grid gap-4 sm:grid-cols-2">
           <SelectField
             label="Number of trays"
@@ -304,26 +365,45 @@ export function StartAssayForm({
               </option>
             ))}
           </SelectField>
-          <TextField
-            label="Seeds in each tray"
-            inputMode="numeric"
-            pattern="[0-9]*"
-            value={allSame ? (trays[0] ?? '') : ''}
-            placeholder={allSame ? undefined : 'different per tray'}
-            onChange={(e) => setAllTrays(e.target.value)}
-            hint="Sets every tray; change a single tray below."
-          />
+          {counting ? (
+            <TextField
+              label="Seeds in each tray"
+              inputMode="numeric"
+              pattern="[0-9]*"
+              value={allSame ? (trays[0] ?? '') : ''}
+              placeholder={allSame ? undefined : 'different per tray'}
+              onChange={(e) => setAllTrays(e.target.value)}
+              hint="Sets every tray; change a single tray below."
+            />
+          ) : null}
         </div>
         <ol className="grid grid-cols-2 gap-3 sm:grid-cols-4" aria-label="Seeds sown per tray">
           {trayFields.fields.map((field, i) => (
             <li key={field.id}>
-              <TextField
-                label={`Tray ${i + 1}`}
-                inputMode="numeric"
-                pattern="[0-9]*"
-                error={errors.trays?.[i]?.seedsSown?.message}
-                {...register(`trays.${i}.seedsSown`)}
-              />
+              {sownBy === 'weight' ? (
+                <TextField
+                  label={`Tray ${i + 1}, grams`}
+                  inputMode="decimal"
+                  error={errors.trays?.[i]?.sown?.grams?.message}
+                  {...register(`trays.${i}.sown.grams`)}
+                />
+              ) : sownBy === 'guess' ? (
+                <SelectField label={`Tray ${i + 1}, about`} {...register(`trays.${i}.sown.about`)}>
+                  {sownGuessSchema.options.map((g) => (
+                    <option key={g} value={g}>
+                      {SOWN_GUESS_WORDS[g].charAt(0).toUpperCase() + SOWN_GUESS_WORDS[g].slice(1)}
+                    </option>
+                  ))}
+                </SelectField>
+              ) : (
+                <TextField
+                  label={`Tray ${i + 1}`}
+                  inputMode="numeric"
+                  pattern="[0-9]*"
+                  error={errors.trays?.[i]?.seedsSown?.message}
+                  {...register(`trays.${i}.seedsSown`)}
+                />
+              )}
             </li>
           ))}
         </ol>
@@ -335,7 +415,16 @@ export function StartAssayForm({
             short ? 'border-clay-300 bg-clay-100 text-clay-800' : 'border-loam-200 bg-husk-100 text-loam-800',
           )}
         >
-          <p>
+          {counting ? null : (
+            <p>
+              The seeds are not counted: the lot’s stock gives up Hilum’s estimate of them
+              {sownBy === 'weight'
+                ? ' from the weight (with the lot’s own seed weight if you weighed a sample, else the species’ typical figure)'
+                : ' from your guess'}
+              , and the result carries that uncertainty.
+            </p>
+          )}
+          <p hidden={!counting}>
             <span className="num text-lg font-bold">{total}</span> seeds will be taken from the lot’s stock
             {lot && onHand === null ? ' (the amount on hand is not known)' : null}
             {lot && onHand !== null ? (

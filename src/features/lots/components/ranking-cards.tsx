@@ -1,4 +1,5 @@
 import type { Table } from '@tanstack/react-table';
+import { ROUGH_SCORE_WORDS } from '#shared/schemas/germination';
 import { useWindowVirtualizer } from '@tanstack/react-virtual';
 import { useLayoutEffect, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
@@ -107,8 +108,12 @@ export function RankingCards({ table, lotHref }: RankingCardsProps) {
               <p className="num mt-1 flex flex-wrap justify-between gap-x-3 text-sm text-loam-700">
                 <span>
                   {lot.lastTestDate ? `Tested ${formatDay(lot.lastTestDate)}` : 'Not tested'}
-                  {lot.lastPercent !== null ? ` · ${pct(lot.lastPercent)} germinated` : ''} ·{' '}
-                  {years(Math.max(0, lot.ageYears))}
+                  {lot.lastPercent !== null
+                    ? ` · ${lot.lastPercentEstimated ? 'about ' : ''}${pct(lot.lastPercent)} germinated`
+                    : lot.lastScore
+                      ? ` · seedlings came up: ${ROUGH_SCORE_WORDS[lot.lastScore]}`
+                      : ''}{' '}
+                  · {years(Math.max(0, lot.ageYears))}
                 </span>
                 <span className="font-semibold text-loam-900">
                   {lot.seedsOnHand === null ? 'Amount not known' : `${formatCount(lot.seedsOnHand)} seeds`}

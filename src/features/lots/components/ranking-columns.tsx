@@ -1,5 +1,6 @@
 import { createColumnHelper, type Column } from '@tanstack/react-table';
 import { Link } from 'react-router-dom';
+import { ROUGH_SCORE_WORDS } from '#shared/schemas/germination';
 import type { RankingItem } from '#shared/schemas/viability';
 import { cn } from '#src/lib/cn';
 import { formatDay } from '#src/lib/dates';
@@ -182,7 +183,10 @@ export function rankingColumns({ lotHref, openReason }: RankingColumnsOptions) {
       meta: meta('Latest germination', 76, true),
       cell: (c) => {
         const v = c.getValue();
-        return v === undefined ? dash : pct(v);
+        const r = c.row.original;
+        // An estimated figure (seeds sown by weight or guess) says so; a scored test has only words.
+        if (v === undefined) return r.lastScore ? `${ROUGH_SCORE_WORDS[r.lastScore]} came up` : dash;
+        return r.lastPercentEstimated ? `about ${pct(v)}` : pct(v);
       },
     }),
     column.accessor((r) => r.projectedPercent ?? undefined, {

@@ -202,11 +202,17 @@ export function DeclineCard({ bankId, lotId, on, today, setAsideResults = {} }: 
               {v.points.length ? (
                 <ul aria-label="Tests in the chart" className="grid gap-0.5 text-sm text-loam-800">
                   {v.points.map((p) => {
-                    const w = wilsonScoreInterval(p.germinated, p.sown);
+                    // Seeds sown estimated (by weight or guess): the stored, widened interval.
+                    const w =
+                      p.seedsSownEstimated && p.low !== null && p.high !== null
+                        ? { low: p.low / 100, high: p.high / 100 }
+                        : wilsonScoreInterval(p.germinated, p.sown);
                     return (
                       <li key={p.testId} className="num" data-held-back={p.heldBack || undefined}>
-                        {formatDay(p.date)} at {years(Math.max(0, p.ageYears))}: {pct(p.percent)} (
-                        {p.germinated} of {p.sown}; 95% interval {pct(100 * w.low)}–{pct(100 * w.high)})
+                        {formatDay(p.date)} at {years(Math.max(0, p.ageYears))}:{' '}
+                        {p.seedsSownEstimated ? 'about ' : ''}
+                        {pct(p.percent)} ({p.germinated} of {p.seedsSownEstimated ? 'about ' : ''}
+                        {Math.round(p.sown)}; 95% interval {pct(100 * w.low)}–{pct(100 * w.high)})
                         {p.heldBack
                           ? ' — held back by dormancy or conditions, read as “at least this many alive”'
                           : ''}

@@ -35,6 +35,8 @@ export interface TestedPoint {
   date: string;
   germinated: number;
   sown: number;
+  /** Seeds sown estimated (by weight or guess): `sown` is the expected number, the band widened. */
+  estimated: boolean;
   /** Why the grower set the test aside (set-aside tests only). */
   reason?: string;
 }
@@ -50,10 +52,24 @@ export interface SetAsidePoint {
 
 function point(
   kind: AssayKind,
-  p: { ageYears: number; date: string; germinated: number; sown: number; reason?: string },
+  p: {
+    ageYears: number;
+    date: string;
+    germinated: number;
+    sown: number;
+    reason?: string;
+    seedsSownEstimated?: boolean;
+    percent?: number;
+    low?: number | null;
+    high?: number | null;
+  },
 ): TestedPoint {
-  const w = wilsonScoreInterval(p.germinated, p.sown);
-  const tested = (100 * p.germinated) / p.sown;
+  // Seeds sown estimated (by weight or guess): the stored, widened interval, never Wilson's.
+  const estimated = p.seedsSownEstimated === true && p.low != null && p.high != null;
+  const w = estimated
+    ? { low: (p.low ?? 0) / 100, high: (p.high ?? 0) / 100 }
+    : wilsonScoreInterval(p.germinated, p.sown);
+  const tested = estimated && p.percent !== undefined ? p.percent : (100 * p.germinated) / p.sown;
   return {
     kind,
     ageYears: p.ageYears,
@@ -64,6 +80,7 @@ function point(
     date: p.date,
     germinated: p.germinated,
     sown: p.sown,
+    estimated,
     ...(p.reason !== undefined ? { reason: p.reason } : {}),
   };
 }
@@ -102,8 +119,8 @@ function Tip({ active, payload }: TipProps) {
             {dot.kind === 'held-back' ? ' · held back' : dot.kind === 'set-aside' ? ' · set aside' : ''}
           </p>
           <p>
-            {pct(dot.tested)} ({formatCount(dot.germinated)} of {formatCount(dot.sown)}), 95% interval{' '}
-            {pct(dot.low)}–{pct(dot.high)}
+            {pct(dot.tested)} ({formatCount(dot.germinated)} of {dot.estimated ? 'about ' : ''}
+            {formatCount(Math.round(dot.sown))}), 95% interval {pct(dot.low)}–{pct(dot.high)}
           </p>
           {dot.kind === 'held-back' ? <p>Read as “at least this many alive”, not as decline.</p> : null}
           {dot.kind === 'set-aside' ? <p>{dot.reason}: left out of the decline.</p> : null}
