@@ -1,7 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { germinationFromUncertainSown, sownFromGuess, wilsonInterval } from '#server/stats/index';
+import { seedWeightSourcesForLot } from '#server/modules/lots/lots.shared.repository';
+import {
+  germinationFromUncertainSown,
+  seedsFromGrams,
+  sownFromGuess,
+  wilsonInterval,
+} from '#server/stats/index';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
+import { speciesId } from '../helpers/lots';
 
 // Trays sown without counting (by a rough guess or by weight) and seedlings scored roughly. The
 // expected figures come from the statistics' own functions, each checked in tests/unit/stats/
@@ -84,6 +91,69 @@ describe('sprinkled trays: sown by weight or guess, seedlings scored roughly', (
     expect(est.summary[0]).toBe(
       `About ${String(Math.round(est.percent))}% so far — 20 normal seedlings from about ${String(counted)} seeds sown, estimated from a few dozen in the counted trays.`,
     );
+  });
+
+  it('when a tray is sown by weight of a weighed lot, then its estimate uses the lot’s seed weight and its interval is wider than a counted tray’s', async () => {
+    const lotId = await lot(await speciesId(ctx.db, 'tomato'), 'Weighed lot');
+    // Made up: 100 seeds of this lot weigh 0.25 g, so 400 seeds per gram and 0.1 g holds about 40.
+    await ctx.db
+      .insertInto('lot_seed_weights')
+      .values({ bank_id: bank.bankId, lot_id: lotId, seeds: 100, grams: 0.25 })
+      .execute();
+    await ctx.changeFeed.sync();
+    const estimate = seedsFromGrams(0.1, await seedWeightSourcesForLot(ctx.db, bank.bankId, lotId));
+    expect(estimate.basis).toBe('lot');
+    expect(estimate.mean).toBeCloseTo(40, 9);
+    const weighed = await startTest(lotId, [{ sown: { by: 'weight', grams: 0.1 } }]);
+    expect(weighed.status, JSON.stringify(weighed.body)).toBe(201);
+    expect(weighed.body.trays[0].sown).toMatchObject({
+      by: 'weight',
+      grams: 0.1,
+      estimate: { basis: 'lot', purityAssumed: true },
+    });
+    expect(weighed.body.trays[0].sown.estimate.sd).toBeCloseTo(estimate.sd, 9);
+    // The ledger gives up the estimate's expected number.
+    expect(weighed.body.test.seedsTaken).toBe(40);
+    const counted = await startTest(lotId, [{ seedsSown: 40 }]);
+    const seedlings = 25;
+    for (const t of [weighed.body, counted.body]) {
+      const res = await bank.grower.agent
+        .post(`${base()}/tests/${t.test.id}/counts`)
+        .send({ date: '2026-03-08', trays: [{ trayId: t.trays[0].id, cumulative: seedlings }] });
+      expect(res.status).toBe(201);
+    }
+    const est = (await bank.viewer.agent.get(`${base()}/tests/${weighed.body.test.id}`)).body.result;
+    const exact = (await bank.viewer.agent.get(`${base()}/tests/${counted.body.test.id}`)).body.result;
+    const expected = germinationFromUncertainSown(seedlings, estimate);
+    if (expected.kind !== 'estimate') throw new Error('the weight should give an estimate');
+    expect(est).toMatchObject({ seedsSownEstimated: true, percentRounded: 63 });
+    expect(est.interval.low).toBeCloseTo(100 * expected.interval.low, 9);
+    expect(est.interval.high).toBeCloseTo(100 * expected.interval.high, 9);
+    const wilson = wilsonInterval(seedlings, 40);
+    expect(exact).toMatchObject({ seedsSownEstimated: false, percentRounded: 63 });
+    expect(exact.interval.low).toBeCloseTo(100 * wilson.low, 9);
+    expect(est.interval.low).toBeLessThan(exact.interval.low);
+    expect(est.interval.high).toBeGreaterThan(exact.interval.high);
+    expect(est.summary[0]).toBe(
+      'About 63% so far — 25 normal seedlings from about 40 seeds sown, estimated from 0.1 g in the counted trays.',
+    );
+    expect(est.summary).toContain("Grams became seeds through this lot's own seed weight.");
+    // The exact interval is for counted seeds: an estimate keeps its widened one.
+    const cp = await bank.viewer.agent.get(
+      `${base()}/tests/${weighed.body.test.id}?interval=clopper-pearson`,
+    );
+    expect(cp.body.result.interval.method).toBe('widened-score');
+  });
+
+  it('when a tray is sown by weight of an unweighed lot, then the species’ seeds per gram is used and said', async () => {
+    const lotId = await lot(await speciesId(ctx.db, 'tomato'), 'Unweighed lot');
+    const res = await startTest(lotId, [{ sown: { by: 'weight', grams: 0.2 } }]);
+    expect(res.status).toBe(201);
+    expect(res.body.trays[0].sown.estimate.basis).toBe('species');
+    const counted = await bank.grower.agent
+      .post(`${base()}/tests/${res.body.test.id}/counts`)
+      .send({ date: '2026-03-08', trays: [{ trayId: res.body.trays[0].id, cumulative: 30 }] });
+    expect(counted.body.result.summary.join(' ')).toMatch(/species' typical seeds per gram/);
   });
 
   it('when the short form { seedsSown } is sent, then the tray is sown by count', async () => {

@@ -15,9 +15,15 @@ import { bankToday, type Clock } from '#server/clock';
 import type { Db, DbOrTx } from '#server/db/database';
 import type { GerminationTestTable, TestTrayTable } from '#server/db/schema';
 import { AppError, conflict, notFound, unprocessable } from '#server/http/errors';
-import { clopperPearsonInterval, type IntervalMethod, type SeedWeightSources } from '#server/stats/index';
+import { clopperPearsonInterval, type IntervalMethod } from '#server/stats/index';
 import { findSpecies } from '../species/species.shared.repository';
-import { insertMovement, lockLot, stockOf, updateLot } from '../lots/lots.shared.repository';
+import {
+  insertMovement,
+  lockLot,
+  seedWeightSourcesForLot,
+  stockOf,
+  updateLot,
+} from '../lots/lots.shared.repository';
 import * as repo from './germination.repository';
 import { countProblems, finishProblem, startBeforeHarvest, uncountedAtFinish } from './count-rules';
 import { resultWords } from './result-words';
@@ -30,18 +36,6 @@ const num = (v: string | null) => (v === null ? null : Number(v));
 function cpInterval(germinated: number, sown: number, confidence: number) {
   const b = clopperPearsonInterval(germinated, sown, confidence);
   return { low: 100 * b.low, high: 100 * b.high, method: 'clopper-pearson' as const, confidence };
-}
-
-/**
- * The lot's seed-weight sources for grams → seeds. Waits on the lots module's
- * seedWeightSourcesForLot (issue 16, lot seed weights); until then no weight can become seeds.
- */
-async function weightSources(
-  _on: DbOrTx,
-  _bankId: string,
-  _lotId: string,
-): Promise<SeedWeightSources | null> {
-  return Promise.resolve(null);
 }
 
 export interface GerminationDeps {
@@ -208,7 +202,9 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         const early = startBeforeHarvest(body.startDate, lot.harvest_date, lot.code);
         if (early) throw unprocessable(early, { startDate: 'Use a date on or after the harvest.' });
         const ways = body.trays.map(traySownOf);
-        const sources = ways.some((w) => w.by === 'weight') ? await weightSources(trx, bankId, lotId) : null;
+        const sources = ways.some((w) => w.by === 'weight')
+          ? await seedWeightSourcesForLot(trx, bankId, lotId)
+          : null;
         const sown = ways.map((w, i) => estimateSown(w, sources, i));
         const counted = sown.reduce((s, t) => s + (t.seeds ?? 0), 0);
         const onHand = await stockOf(trx, lotId);

@@ -8,7 +8,7 @@ import type { RankingItem as RankingRow } from '#shared/schemas/viability';
 import { systemClock, todayInZone, type Clock } from '#server/clock';
 import type { Db } from '#server/db/database';
 import { notFound, unprocessable } from '#server/http/errors';
-import { effectiveTrial, seedsToSowPredictive, temperatureFactor } from '#server/stats/index';
+import { seedsToSowPredictive, temperatureFactor } from '#server/stats/index';
 import {
   fitSpeciesModel,
   monitoringIntervalYears,
@@ -107,18 +107,21 @@ export interface ViabilityPoint {
 }
 
 /**
- * How a usable test enters the model. Counted trays: the binomial of their seedlings (plus fresh
- * seeds) and seeds sown. Trays sown by weight or guess: their effective trial (uncertain-sown.ts),
- * the counted trial with the same widened variance, i.e. fewer seeds' worth of evidence. Each
- * roughly scored tray: the chance of its score band (evidence kind 'score'). docs/viability-model.md.
+ * How a usable test enters the model (docs/viability-model.md, "Evidence weaker than a counted
+ * test"). Counted trays: the binomial of their seedlings (plus fresh seeds) and seeds sown. Trays
+ * sown by weight or guess: evidence 'estimated', the binomial averaged over the number truly sown
+ * (the estimate's mean and SD, pooled over the test's counted trays). Each roughly scored tray: the
+ * chance of its score band (evidence 'score').
  */
 function modelAssaysOf(p: ViabilityPoint, age: number): ModelAssay[] {
   const out: ModelAssay[] = [];
   if (p.germinated !== null && p.sown !== null) {
     const alive = p.germinated + (p.fresh ?? 0);
-    if (p.sownSd > 0)
-      out.push({ id: p.testId, age, ...effectiveTrial(alive, { mean: p.sown, sd: p.sownSd }) });
-    else out.push({ id: p.testId, age, alive, sown: p.sown });
+    out.push(
+      p.sownSd > 0
+        ? { id: p.testId, age, alive, sown: p.sown, evidence: { kind: 'estimated', sownSd: p.sownSd } }
+        : { id: p.testId, age, alive, sown: p.sown },
+    );
   }
   p.scored.forEach((tr, i) =>
     out.push({
