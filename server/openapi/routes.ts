@@ -567,7 +567,8 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'post',
     path: `${BANK}/lots/:lotId/tests`,
-    summary: 'Start a germination test.',
+    summary:
+      'Start a germination test; each tray sown by count, by weight (grams) or by a rough guess (`sown`), or `{ seedsSown }`.',
     access: 'grower',
     body: createAssayBodySchema,
     responses: [created(assayDetailSchema)],
@@ -598,7 +599,7 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'post',
     path: `${BANK}/tests/:testId/counts`,
-    summary: 'Record one check day’s counts.',
+    summary: 'Record one check day’s counts: each tray counted (`cumulative`) or scored roughly (`score`).',
     access: 'grower',
     body: countsBodySchema,
     responses: [created(assayDetailSchema)],
@@ -606,7 +607,7 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'delete',
     path: `${BANK}/tests/:testId/counts/:date`,
-    summary: 'Remove one check day’s counts.',
+    summary: 'Remove one check day’s counts and rough scores.',
     access: 'grower',
     responses: [ok(assayDetailSchema)],
   },

@@ -40,23 +40,28 @@ const seedsCountSchema = z
   .max(10_000);
 
 /** How a tray was sown: seeds counted, a weight of the lot's material, or a rough guess. */
-export const traySownSchema = z.discriminatedUnion(
-  'by',
-  [
-    z.object({ by: z.literal('count'), seeds: seedsCountSchema }).strict(),
-    z
-      .object({
-        by: z.literal('weight'),
-        grams: z
-          .number()
-          .gt(0, { message: 'Give the weight sown in grams, above 0.' })
-          .max(1000, { message: 'At most 1000 g in one tray.' }),
-      })
-      .strict(),
-    z.object({ by: z.literal('guess'), about: sownGuessSchema }).strict(),
-  ],
-  { error: () => "Say how the tray was sown: by 'count', 'weight' or 'guess'." },
-);
+export const traySownSchema = z
+  .discriminatedUnion(
+    'by',
+    [
+      z.object({ by: z.literal('count'), seeds: seedsCountSchema }).strict(),
+      z
+        .object({
+          by: z.literal('weight'),
+          grams: z
+            .number()
+            .gt(0, { message: 'Give the weight sown in grams, above 0.' })
+            .max(1000, { message: 'At most 1000 g in one tray.' }),
+        })
+        .strict(),
+      z.object({ by: z.literal('guess'), about: sownGuessSchema }).strict(),
+    ],
+    { error: () => "Say how the tray was sown: by 'count', 'weight' or 'guess'." },
+  )
+  .meta({
+    description:
+      "How a tray was sown. count: seeds counted (1–10,000). weight: grams of the lot's material (above 0), turned into an estimated number of seeds with the lot's own seed weight and cleanliness from weighed samples, else the species' typical seeds per gram (422 when neither exists: weigh a sample or count). guess: a rough guess when nothing was counted (pinch ≈ 5–50, few-dozen ≈ 24–72, hundreds ≈ 150–900 seeds, our convention). The estimate is made once, at creation.",
+  });
 export type TraySown = z.infer<typeof traySownSchema>;
 
 /**
@@ -68,6 +73,10 @@ export const trayCreateSchema = z
   .refine((t) => (t.seedsSown === undefined) !== (t.sown === undefined), {
     message: 'Give the tray either seedsSown or sown, not both.',
     path: ['sown'],
+  })
+  .meta({
+    description:
+      "A tray on create: `{ sown }`, or `{ seedsSown }` as the short form of `{ sown: { by: 'count', seeds } }`; exactly one of them.",
   });
 export type TrayCreate = z.infer<typeof trayCreateSchema>;
 
@@ -123,6 +132,10 @@ export const countsBodySchema = z.object({
         .refine((t) => (t.cumulative === undefined) !== (t.score === undefined), {
           message: 'Give each tray either a count (cumulative) or a rough score (score), not both.',
           path: ['cumulative'],
+        })
+        .meta({
+          description:
+            "One tray on the check day: `cumulative`, its normal seedlings so far, or `score`, a rough score when counting is hopeless (none, few ≈ 5–35%, half ≈ 35–65%, most ≈ 65–100% of the seeds sown; our convention) — exactly one (both: 400). A tray is counted on every check day or scored on every one (mixing: 422); a later score cannot be lower (422). A scored tray gives no percentage, only words, and still informs the lot's viability.",
         }),
     )
     .min(1, { message: 'Count at least one tray.' })
@@ -266,11 +279,17 @@ export const resultSchema = z.object({
   /** Seeds sown in the counted trays; the expected number when seedsSownEstimated. */
   sown: nullableNumber,
   /** The seeds sown in the counted trays were estimated (by weight or guess): the interval carries it. */
-  seedsSownEstimated: z.boolean(),
+  seedsSownEstimated: z.boolean().meta({
+    description:
+      'The seeds sown in the counted trays were estimated (by weight or guess): `percent` is about that much and `interval` (method widened-score) carries the uncertainty of the number sown.',
+  }),
   /** SD of the true number sown in the counted trays (0 when counted). */
   sownSd: nullableNumber,
   /** More seedlings than the estimated seeds sown make plausible: no percentage is given. */
-  seedlingsExceedSown: z.boolean(),
+  seedlingsExceedSown: z.boolean().meta({
+    description:
+      'More seedlings than the estimated seeds sown make plausible (above mean + 1.96 SD): percent and interval are null.',
+  }),
   germinated: nullableNumber,
   /** Null while no tray is counted, when only rough scores were given, or when seedlingsExceedSown. */
   percent: nullableNumber,
