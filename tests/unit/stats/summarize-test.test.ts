@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   clopperPearsonInterval,
+  germinationFromUncertainSown,
   germinationTiming,
   homogeneityChiSquare,
   maxToleratedRange,
@@ -172,6 +173,9 @@ describe('summarizeTest', () => {
     expect(r.trayPercents[2]).toEqual({
       id: 'later',
       seedsSown: 100,
+      sownMean: 100,
+      sownSd: 0,
+      score: null,
       state: 'not-counted',
       setAsideReason: null,
       germinated: null,
@@ -354,5 +358,71 @@ describe('summarizeTest', () => {
       const r = summarizeTest(trays);
       expect(JSON.parse(JSON.stringify(r))).toStrictEqual(r);
     }
+  });
+});
+
+// Trays sown by weight or guess, and trays scored roughly. Expected intervals are those of
+// germinationFromUncertainSown (checked by seeded simulation in uncertain-sown.test.ts, and equal to
+// Wilson 1927 when counted), and Wilson's own for counted trays.
+describe('summarizeTest with trays not counted in, or scored roughly', () => {
+  it('when trays are sown by estimate, then their means and variances add and the interval is widened', () => {
+    const r = summarizeTest([
+      { id: 'w', seedsSown: 40, sownSd: 6, checks: [{ day: 7, cumulative: 25 }] },
+      { id: 'g', seedsSown: 30, sownSd: 8, checks: [{ day: 7, cumulative: 15 }] },
+    ]);
+    const expected = germinationFromUncertainSown(40, { mean: 70, sd: Math.sqrt(36 + 64) });
+    if (expected.kind !== 'estimate') throw new Error('expected an estimate');
+    expect(r).toMatchObject({
+      seedsSownEstimated: true,
+      sown: 70,
+      germinated: 40,
+      seedlingsExceedSown: false,
+    });
+    expect(r.sownSd).toBeCloseTo(10, 12);
+    expect(r.percent).toBeCloseTo(100 * expected.fraction, 12);
+    expect(r.interval).toMatchObject({ method: 'widened-score' });
+    expect(r.interval!.low).toBeCloseTo(100 * expected.interval.low, 12);
+    expect(r.interval!.high).toBeCloseTo(100 * expected.interval.high, 12);
+    const counted = wilsonInterval(40, 70);
+    expect(r.interval!.high - r.interval!.low).toBeGreaterThan(100 * (counted.high - counted.low));
+    // Agreement needs the seeds sown in each tray: not judged.
+    expect(r.agreement.ok).toBeNull();
+    expect(r.homogeneity).toBeNull();
+    expect(r.trayPercents[0]).toMatchObject({ seedsSown: null, sownMean: 40, sownSd: 6, state: 'counted' });
+  });
+
+  it('when a counted tray is pooled with an estimated one, then only the estimate adds spread', () => {
+    const r = summarizeTest([
+      { id: 'c', seedsSown: 50, checks: [{ day: 7, cumulative: 30 }] },
+      { id: 'w', seedsSown: 40, sownSd: 6, checks: [{ day: 7, cumulative: 20 }] },
+    ]);
+    const expected = germinationFromUncertainSown(50, { mean: 90, sd: 6 });
+    if (expected.kind !== 'estimate') throw new Error('expected an estimate');
+    expect(r.sownSd).toBe(6);
+    expect(r.interval!.low).toBeCloseTo(100 * expected.interval.low, 12);
+  });
+
+  it('when more seedlings come up than the estimate makes plausible, then no percentage is given', () => {
+    const r = summarizeTest([{ id: 'p', seedsSown: 20, sownSd: 5, checks: [{ day: 7, cumulative: 60 }] }]);
+    expect(r).toMatchObject({ seedlingsExceedSown: true, percent: null, interval: null, germinated: 60 });
+  });
+
+  it('when a tray is scored roughly, then it enters no percentage and the others keep theirs', () => {
+    const only = summarizeTest([{ id: 's', seedsSown: 30, sownSd: 8, checks: [], score: 'few' }]);
+    expect(only).toMatchObject({ percent: null, sown: null, interval: null, traysCounted: 0 });
+    expect(only.trayPercents[0]).toMatchObject({ state: 'scored', score: 'few', percent: null });
+    const mixed = summarizeTest([
+      { id: 'c', seedsSown: 25, checks: [{ day: 7, cumulative: 20 }] },
+      { id: 's', seedsSown: 30, sownSd: 8, checks: [], score: 'most' },
+    ]);
+    expect(mixed).toMatchObject({ percent: 80, sown: 25, seedsSownEstimated: false });
+    const w = wilsonInterval(20, 25);
+    expect(mixed.interval!.low).toBeCloseTo(100 * w.low, 12);
+  });
+
+  it('when a tray has both counts and a score, then it throws', () => {
+    expect(() =>
+      summarizeTest([{ id: 'x', seedsSown: 25, checks: [{ day: 7, cumulative: 2 }], score: 'few' }]),
+    ).toThrow(RangeError);
   });
 });
