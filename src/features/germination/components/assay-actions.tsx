@@ -71,7 +71,10 @@ export function AssayActions({ bankId, detail, today, onDeleted }: AssayActionsP
       ) : null}
       <div className="mt-3 flex flex-col gap-2 sm:flex-row sm:flex-wrap">
         {assay.status === 'running' ? (
-          <Button onClick={() => setFinishing(true)} disabled={detail.counts.length === 0}>
+          <Button
+            onClick={() => setFinishing(true)}
+            disabled={detail.counts.length + detail.scores.length === 0}
+          >
             Finish the test…
           </Button>
         ) : (
@@ -108,7 +111,7 @@ export function AssayActions({ bankId, detail, today, onDeleted }: AssayActionsP
           Delete this test…
         </Button>
       </div>
-      {assay.status === 'running' && detail.counts.length === 0 ? (
+      {assay.status === 'running' && detail.counts.length + detail.scores.length === 0 ? (
         <p className="mt-2 text-sm text-loam-600">A test can be finished after its first count.</p>
       ) : null}
 

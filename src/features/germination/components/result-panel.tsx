@@ -36,9 +36,22 @@ function agreementDetail({ method, ok, observedRange, maxRange, pValue }: Agreem
   return `${formatDays(observedRange)} points apart; the tolerance table allows up to ${formatDays(maxRange)}`;
 }
 
-export function AgreementBadge({ agreement }: { agreement: Agreement }) {
+export function AgreementBadge({
+  agreement,
+  notJudged = false,
+}: {
+  agreement: Agreement;
+  /** The seeds or seedlings were not counted: agreement needs both, so it is not judged. */
+  notJudged?: boolean;
+}) {
   const { ok } = agreement;
-  const text = ok === null ? 'Agreement: count 2 trays' : ok ? 'Trays agree' : 'Trays disagree';
+  const text = notJudged
+    ? 'Agreement: not judged (not counted)'
+    : ok === null
+      ? 'Agreement: count 2 trays'
+      : ok
+        ? 'Trays agree'
+        : 'Trays disagree';
   const detail = agreementDetail(agreement);
   return (
     <span
@@ -131,7 +144,10 @@ export function ResultPanel({ detail, interval, onIntervalChange, isRefreshing =
               </span>
             </p>
           ) : null}
-          <AgreementBadge agreement={result.agreement} />
+          <AgreementBadge
+            agreement={result.agreement}
+            notJudged={result.seedsSownEstimated || (result.traysCounted === 0 && scoredCount > 0)}
+          />
         </div>
       </div>
 
