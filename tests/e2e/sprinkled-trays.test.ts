@@ -1,8 +1,8 @@
 import type { Page } from 'playwright-core';
-import request from 'supertest';
 import { beforeAll, describe, expect } from 'vitest';
 import type { AssayDetail } from '#shared/schemas/germination';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '#server/demo/demo-people';
+import { signIn } from '../helpers/accounts';
 import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
 import { journeyOfTests } from '../helpers/journey';
 import { speciesId } from '../helpers/lots';
@@ -19,14 +19,11 @@ describe.skipIf(!chromiumPath)(
   'a sprinkled tray on a phone: sown by weight, counted, then one scored roughly',
   () => {
     const suite = browserSuite({ now: NOW, demo: 'people' });
-    let api: ReturnType<typeof request.agent>;
+    let api: Awaited<ReturnType<typeof signIn>>;
     let lotId: string;
 
     beforeAll(async () => {
-      api = request.agent(suite.server.app);
-      expect(
-        (await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD })).status,
-      ).toBe(200);
+      api = await signIn(suite.server.app, grower.email, DEMO_PASSWORD);
       const lot = await api.post(`/api/banks/${suite.bankId}/lots`).send({
         speciesId: await speciesId(suite.server.db, 'tomato'),
         variety: 'Chaffy Red',
