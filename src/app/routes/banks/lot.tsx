@@ -47,10 +47,14 @@ export function LotPage() {
   const today = todayIn(bank.timeZone);
   const sowing = useSowingDate(bank.lastFrost, today);
   // The results of tests set aside, for the decline chart (the same cached list as the tests section).
+  // Only counted ones: an estimated number sown has no Wilson interval to draw (it is listed apart).
   const lotAssays = useLotAssays(bank.id, lot.id).data?.items ?? [];
   const setAsideResults = Object.fromEntries(
     lotAssays.flatMap(({ test: assay, result }) =>
-      assay.setAsideReason !== null && result.germinated !== null && result.sown !== null
+      assay.setAsideReason !== null &&
+      !result.seedsSownEstimated &&
+      result.germinated !== null &&
+      result.sown !== null
         ? [[assay.id, { germinated: result.germinated, sown: result.sown }]]
         : [],
     ),
