@@ -154,6 +154,12 @@ describe('sprinkled trays: sown by weight or guess, seedlings scored roughly', (
       .post(`${base()}/tests/${res.body.test.id}/counts`)
       .send({ date: '2026-03-08', trays: [{ trayId: res.body.trays[0].id, cumulative: 30 }] });
     expect(counted.body.result.summary.join(' ')).toMatch(/species' typical seeds per gram/);
+    // The packet label says "about", as the screens do.
+    const label = await bank.viewer.agent.get(`${base()}/lots/${lotId}/label.svg`).buffer(true);
+    expect(label.status).toBe(200);
+    expect(Buffer.from(label.body as Buffer).toString('utf8')).toContain(
+      `about ${String(counted.body.result.percentRounded)}%`,
+    );
   });
 
   it('when the short form { seedsSown } is sent, then the tray is sown by count', async () => {

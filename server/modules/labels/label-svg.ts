@@ -10,7 +10,7 @@ export interface LabelContent {
   harvestDate: string | null;
   packedForSeason: number | null;
   /** The lot's latest counted test, its pooled germination as a whole percent. */
-  lastAssay: { percent: number; startDate: string; running: boolean } | null;
+  lastAssay: { percent: number; estimated?: boolean; startDate: string; running: boolean } | null;
   /** The lot page the QR code opens. */
   url: string;
 }
@@ -142,7 +142,8 @@ function assayLine(content: LabelContent, size: number): { line: FittedLine; mar
   const [before, after] = assay.running
     ? [`test from ${assay.startDate}: `, ' so far']
     : ['last test: ', ` on ${assay.startDate}`];
-  const percent = `${assay.percent}%`;
+  // Seeds sown estimated (by weight or guess): the packet says "about", as every screen does.
+  const percent = `${assay.estimated ? 'about ' : ''}${assay.percent}%`;
   const width = textWidth(before, size) + textWidth(percent, size, 700) + textWidth(after, size);
   const line: FittedLine = {
     text: `${before}${percent}${after}`,

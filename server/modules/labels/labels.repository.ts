@@ -6,6 +6,8 @@ export interface LastAssayRow {
   status: 'running' | 'finished';
   /** The stored result's whole percent, as the seed-testing rules report it. */
   percent: number;
+  /** The percent rests on seeds sown estimated by weight or guess: an "about" figure. */
+  estimated: boolean;
 }
 
 /**
@@ -20,6 +22,7 @@ export async function lastCountedAssay(
   const row = await db
     .selectFrom('germination_tests')
     .select(['start_date', 'status', sql<number | null>`(result->>'percentRounded')::int`.as('percent')])
+    .select(sql<boolean>`coalesce((result->>'seedsSownEstimated')::boolean, false)`.as('estimated'))
     .where('bank_id', '=', bankId)
     .where('lot_id', '=', lotId)
     .where('result_sown', 'is not', null)
@@ -28,6 +31,6 @@ export async function lastCountedAssay(
     .limit(1)
     .executeTakeFirst();
   return row && row.percent !== null
-    ? { start_date: row.start_date, status: row.status, percent: row.percent }
+    ? { start_date: row.start_date, status: row.status, percent: row.percent, estimated: row.estimated }
     : null;
 }

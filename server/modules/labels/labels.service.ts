@@ -26,6 +26,7 @@ export function createLabelsService({ db, appOrigin }: { db: Db; appOrigin: stri
       lastAssay: assay
         ? {
             percent: assay.percent,
+            estimated: assay.estimated,
             startDate: assay.start_date,
             running: assay.status === 'running',
           }
