@@ -83,7 +83,7 @@ export type {
   SeedWeightSources,
   GramsOptions,
 } from './sown-estimate';
-export { germinationFromUncertainSown, effectiveTrial } from './uncertain-sown';
+export { germinationFromUncertainSown } from './uncertain-sown';
 export type { UncertainSown, UncertainSownGermination } from './uncertain-sown';
 export {
   roughScoreLikelihood,

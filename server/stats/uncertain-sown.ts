@@ -116,21 +116,3 @@ export function germinationFromUncertainSown(
     seedsSownEstimated: estimated,
   };
 }
-
-/**
- * The counted trial that says as much as a tray with an uncertain number sown, for a model that
- * takes (alive, sown) pairs: the same estimated fraction with n_eff seeds, where n_eff makes the
- * binomial variance p(1 − p)/n_eff equal the widened one above, p(1 − p)/μ + p²τ²/μ², i.e.
- * n_eff = μ / (1 + pτ²/((1 − p)μ)). p is taken as (x + ½)/(μ + 1) so a full or empty tray keeps
- * some weight. With τ = 0 this is the tray itself. Counts need not be whole numbers.
- */
-export function effectiveTrial(seedlings: number, sown: UncertainSown): { alive: number; sown: number } {
-  assertCount(seedlings, 'seedlings');
-  assertFinite(sown.mean, 'sown.mean');
-  assertFinite(sown.sd, 'sown.sd');
-  if (sown.mean <= 0) throw new RangeError(`sown.mean must be above 0 (got ${String(sown.mean)})`);
-  const mu = sown.mean;
-  const p = Math.min((seedlings + 0.5) / (mu + 1), 1 - 1e-9);
-  const nEff = mu / (1 + (p * sown.sd * sown.sd) / ((1 - p) * mu));
-  return { alive: Math.min(1, seedlings / mu) * nEff, sown: nEff };
-}

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import {
-  effectiveTrial,
   germinationFromUncertainSown,
   seedsFromGrams,
   sownFromGuess,
@@ -74,13 +73,6 @@ describe('germination from an uncertain number sown', () => {
     expect(r.interval.high).toBe(1);
     expect(r.interval.low).toBeGreaterThan(0);
     expect(r.interval.low).toBeLessThan(0.25);
-  });
-
-  it('when the tray is handed to a model of counted trials, then its weight shrinks with the spread', () => {
-    expect(effectiveTrial(40, { mean: 50, sd: 0 })).toEqual({ alive: 40, sown: 50 });
-    const weak = effectiveTrial(40, { mean: 50, sd: 10 });
-    expect(weak.sown).toBeLessThan(50);
-    expect(weak.alive / weak.sown).toBeCloseTo(0.8, 12);
   });
 });
 
