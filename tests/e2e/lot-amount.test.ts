@@ -17,8 +17,12 @@ const TOMATO_PER_GRAM = SPECIES_REFERENCE.find((s) => s.commonName === 'Tomato')
 describe.skipIf(!chromiumPath)('a lot’s amount and seed weight in Chromium', () => {
   const suite = browserSuite({ now: new Date().toISOString(), demo: 'people' });
   const scrollWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
+  // The tray is sown a week before today (the server's and the browser's real clock).
+  const WEEK_AGO = new Date(Date.now() - 7 * 86_400_000).toISOString().slice(0, 10);
+  const TODAY = new Date().toISOString().slice(0, 10);
+  let lotUrl = '';
 
-  describe('when a grower on a phone logs chaffy seed by weight and weighs a sample, then grams → seeds uses the lot’s own figure', () => {
+  describe('when a grower on a phone logs chaffy seed by weight, weighs a sample, sprinkles a tray by weight and counts it a week later, then the estimate and the lot’s advice follow', () => {
     const j = journeyOfTests(
       'lot-weigh-a-sample-phone',
       () => suite.browser.newContext({ viewport: PHONE, hasTouch: true, isMobile: true }),
@@ -76,6 +80,75 @@ describe.skipIf(!chromiumPath)('a lot’s amount and seed weight in Chromium', (
       // The open form and the figures pass axe-core's serious and critical checks.
       expect(await seriousViolations(page)).toEqual([]);
       expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
+
+    let adviceBefore = '';
+    let bandBefore = '';
+    j.step('untested, the lot’s advice is the species’ guess', async (page) => {
+      await page.reload();
+      await expect.poll(() => page.locator('#lot-advice').innerText()).toContain('Test first');
+      adviceBefore = await page.getByTestId('advice-reason').innerText();
+      bandBefore = await page.getByTestId('projected-band').innerText();
+      expect(bandBefore).toContain('a guess');
+    });
+
+    j.step('a week ago, sprinkle 0.2 g of the chaffy seed into a tray', async (page) => {
+      lotUrl = page.url();
+      await page.goto(`${lotUrl}/tests/new`);
+      await page.getByLabel('Start date').fill(WEEK_AGO);
+      await page.getByRole('radio', { name: /By weight/ }).check();
+      await page.getByLabel('Number of trays').selectOption('1');
+      await page.getByLabel('Tray 1, grams').fill('0.2');
+      await page.getByRole('button', { name: 'Start the test' }).tap();
+      await page.waitForURL(/\/tests\/[^/]+$/);
+      // 0.2 g × 78.125% clean × 400 seeds per gram = 62.5 seeds [computed; seedsFromGrams], taken
+      // from stock as a whole number.
+      await expect
+        .poll(() =>
+          page
+            .getByRole('status')
+            .filter({ hasText: /Test started: about 6[23] seeds taken/ })
+            .count(),
+        )
+        .toBe(1);
+    });
+
+    j.step('count 40 seedlings today: an estimate, said to be one', async (page) => {
+      await page.getByRole('textbox', { name: 'Tray 1 · 0.2 g sown' }).fill('40');
+      await page.getByRole('button', { name: /^Save counts for/ }).tap();
+      // 40 ÷ 62.5 = 64% [computed].
+      await expect.poll(() => page.locator('[data-result="percent"]').innerText()).toBe('about 64%');
+      expect(await page.locator('[data-result="interval"]').innerText()).toContain(
+        'wider because the seeds sown were estimated',
+      );
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+    });
+
+    j.step('while it runs, the lot waits for it; finished, the advice rests on the tray', async (page) => {
+      const testUrl = page.url();
+      await page.goto(lotUrl);
+      await expect
+        .poll(() => page.getByTestId('advice-reason').innerText())
+        .toContain('A test of this lot is running');
+      await page.goto(testUrl);
+      await page.getByRole('button', { name: 'Finish the test…' }).tap();
+      const dialog = page.getByRole('dialog', { name: 'Finish the test' });
+      await dialog.getByLabel('Finished on').fill(TODAY);
+      await dialog.getByRole('button', { name: 'Finish the test' }).tap();
+      await expect
+        .poll(() => page.getByRole('heading', { name: 'Result: normal seedlings' }).count())
+        .toBe(1);
+      await page.goto(lotUrl);
+      await expect.poll(() => page.getByTestId('advice-reason').innerText()).not.toBe(adviceBefore);
+      await expect
+        .poll(() => page.getByTestId('advice-reason').innerText())
+        .not.toContain('A test of this lot is running');
+      expect(await page.locator('#lot-advice').innerText()).not.toContain('Test first');
+      const band = await page.getByTestId('projected-band').innerText();
+      expect(band).not.toContain('a guess');
+      expect(band).not.toBe(bandBefore);
+      expect(await scrollWidth(page)).toBeLessThanOrEqual(PHONE.width);
+      await page.screenshot({ path: '/tmp/i16/chaffy-lot-after-tray-phone.png', fullPage: true });
     });
   });
 
