@@ -1,6 +1,48 @@
 import tailwindcss from '@tailwindcss/vite';
 import react from '@vitejs/plugin-react';
-import { defineConfig, type ProxyOptions } from 'vite';
+import fs from 'node:fs/promises';
+import path from 'node:path';
+import { promisify } from 'node:util';
+import zlib from 'node:zlib';
+import { defineConfig, type Plugin, type ProxyOptions } from 'vite';
+
+const brotli = promisify(zlib.brotliCompress);
+const gzip = promisify(zlib.gzip);
+
+/**
+ * Writes a brotli (.br, quality 11) and a gzip (.gz, level 9) copy beside each built script,
+ * stylesheet and SVG of assets/ over 1 KB, compressed once at build time as hard as each format
+ * goes; the server sends them to clients that accept them (server/http/compression.ts).
+ */
+function precompressAssets(): Plugin {
+  return {
+    name: 'hilum-precompress-assets',
+    apply: 'build',
+    async writeBundle(options, bundle) {
+      const outDir = options.dir ?? 'dist';
+      const files = Object.keys(bundle).filter(
+        (name) => name.startsWith('assets/') && /\.(js|css|svg)$/.test(name),
+      );
+      await Promise.all(
+        files.map(async (name) => {
+          const file = path.join(outDir, name);
+          const raw = await fs.readFile(file);
+          if (raw.length < 1024) return;
+          const [br, gz] = await Promise.all([
+            brotli(raw, {
+              params: {
+                [zlib.constants.BROTLI_PARAM_QUALITY]: zlib.constants.BROTLI_MAX_QUALITY,
+                [zlib.constants.BROTLI_PARAM_SIZE_HINT]: raw.length,
+              },
+            }),
+            gzip(raw, { level: zlib.constants.Z_BEST_COMPRESSION }),
+          ]);
+          await Promise.all([fs.writeFile(`${file}.br`, br), fs.writeFile(`${file}.gz`, gz)]);
+        }),
+      );
+    },
+  };
+}
 
 function portFromEnv(name: string, fallback: number): number {
   const raw = process.env[name];
@@ -23,7 +65,7 @@ const proxy: Record<string, ProxyOptions> = {
 };
 
 export default defineConfig({
-  plugins: [react(), tailwindcss()],
+  plugins: [react(), tailwindcss(), precompressAssets()],
   build: {
     outDir: 'dist',
   },

@@ -9,6 +9,7 @@ import type { Config } from './config';
 import type { ChangeFeed } from './db/change-feed';
 import type { Db } from './db/database';
 import { createReadCache, forgetOnWrites } from './db/read-cache';
+import { compressResponses, precompressedAssets, staticCacheHeaders } from './http/compression';
 import { errorHandler, notFoundApi } from './http/errors';
 import { refuseNul, requireUtf8 } from './http/input-guard';
 import { originCheck, originVariants } from './http/origin-check';
@@ -97,6 +98,7 @@ export function createApp(deps: AppDeps): Express {
       strictTransportSecurity: config.appOrigin.startsWith('https:'),
     }),
   );
+  app.use(compressResponses());
   app.use(requestLogging(logger, config.env !== 'test'));
   app.use(requireUtf8);
   app.use(express.json({ limit: '1mb' }));
@@ -180,7 +182,14 @@ export function createApp(deps: AppDeps): Express {
   // The built client, with the SPA's index.html for every other path.
   const index = path.join(config.staticDir, 'index.html');
   if (fs.existsSync(index)) {
-    app.use(express.static(config.staticDir, { index: false, maxAge: '1h' }));
+    app.use(precompressedAssets(config.staticDir));
+    app.use(
+      express.static(config.staticDir, {
+        index: false,
+        cacheControl: false,
+        setHeaders: staticCacheHeaders(config.staticDir),
+      }),
+    );
     app.get('/{*path}', (_req, res) => {
       res.setHeader('Cache-Control', 'no-cache');
       res.sendFile(index);
