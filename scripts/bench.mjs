@@ -1,5 +1,6 @@
-// `npm run bench`: the ranking and lot-list benchmarks on a throwaway PostgreSQL cluster, and the
-// client's initial bundle size. Prints figures; it is not a test and asserts nothing but that it ran.
+// `npm run bench`: the ranking and lot-list benchmarks on a throwaway PostgreSQL cluster, the
+// client's initial bundle size, and a cold load of the Lots screen in headless Chromium throttled
+// like a slow phone (the app on that cluster too). Prints figures; it is not a test and asserts nothing but that it ran.
 // `npm run bench -- --json` prints the same figures as one JSON object on stdout, and everything
 // else (the readable report, set-up messages, child processes' output) on stderr.
 import { spawnSync } from 'node:child_process';
@@ -25,12 +26,15 @@ const FIGURES = [
   'lotListReqPerSec',
   'bareExpressReqPerSec',
   'initialJsGzipKb',
+  'coldLoadLotsMs',
+  'jsTransferKb',
 ];
 
 if (process.argv.includes('--json')) {
   // The readable run again as a child whose stdout is our stderr, so nothing but the JSON reaches stdout.
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-bench-figures-'));
-  const run = spawnSync(process.execPath, [fileURLToPath(import.meta.url)], {
+  const args = process.argv.slice(2).filter((a) => a !== '--json');
+  const run = spawnSync(process.execPath, [fileURLToPath(import.meta.url), ...args], {
     cwd: root,
     stdio: ['ignore', 2, 2],
     env: { ...process.env, HILUM_BENCH_FIGURES_DIR: dir },
@@ -59,7 +63,7 @@ function runScript(script, args, env = {}) {
   });
 }
 
-/** `--only=lots` (or ranking, bundle) runs one benchmark, for quick comparisons while working. */
+/** `--only=lots` (or ranking, bundle, coldload) runs one benchmark, for quick comparisons while working. */
 const only = process.argv.find((a) => a.startsWith('--only='))?.slice('--only='.length);
 const runs = (name) => !only || only === name;
 
@@ -95,23 +99,36 @@ try {
     log('running the lot-list benchmark (the demo bank, concurrency 20)…');
     lots = runScript('scripts/bench-lots.ts', [], env);
   }
+  if (lots.status !== 0) {
+    pg.stop();
+    process.exit(lots.status ?? 1);
+  }
+
+  let out = null;
+  if (runs('bundle') || runs('coldload')) {
+    log('building the client…');
+    out = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-bundle-'));
+    const build = spawnSync(
+      path.join(root, 'node_modules', '.bin', 'vite'),
+      ['build', '--logLevel', 'error', '--outDir', out],
+      { cwd: root, stdio: 'inherit' },
+    );
+    if (build.status !== 0) throw new Error('the client build failed');
+  }
+  if (runs('coldload')) {
+    log('running the cold-load benchmark (headless Chromium, slow phone profile)…');
+    const cold = runScript('scripts/bench-cold-load.ts', [out], env);
+    if (cold.status !== 0) throw new Error('the cold-load benchmark failed');
+  }
   pg.stop();
   pg = null;
   fs.rmSync(tmp, { recursive: true, force: true });
-  if (lots.status !== 0) process.exit(lots.status ?? 1);
 
-  if (!runs('bundle')) process.exit(0);
-  log('building the client to measure its initial JavaScript…');
-  const out = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-bundle-'));
-  const build = spawnSync(
-    path.join(root, 'node_modules', '.bin', 'vite'),
-    ['build', '--logLevel', 'error', '--outDir', out],
-    { cwd: root, stdio: 'inherit' },
-  );
-  if (build.status !== 0) process.exit(1);
-  const bundle = runScript('scripts/bench-bundle.ts', [out]);
-  fs.rmSync(out, { recursive: true, force: true });
-  if (bundle.status !== 0) process.exit(bundle.status ?? 1);
+  if (runs('bundle')) {
+    const bundle = runScript('scripts/bench-bundle.ts', [out]);
+    if (bundle.status !== 0) throw new Error('the bundle benchmark failed');
+  }
+  if (out) fs.rmSync(out, { recursive: true, force: true });
 } catch (error) {
   pg?.stop();
   fail(error);

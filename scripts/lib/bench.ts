@@ -1,7 +1,7 @@
 // What the benchmark scripts share: the app served on 127.0.0.1, signing in over HTTP,
 // and timing medians.
 import type { AddressInfo } from 'node:net';
-import type { Server } from 'node:http';
+import http, { type Server } from 'node:http';
 import { createApp } from '#server/app';
 import { systemClock } from '#server/clock';
 import type { Config } from '#server/config';
@@ -16,17 +16,28 @@ export async function listenLocal(server: Server): Promise<string> {
   return `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
 }
 
-/** The whole app, as `npm start` builds it, on an ephemeral loopback port. */
+/**
+ * The whole app, as `npm start` builds it, on an ephemeral loopback port, with that address as its
+ * own origin (so a browser's writes pass the origin check).
+ */
 export async function serveApp(config: Config, db: Db) {
   const storage = createObjectStore(config.storage);
   const mailer = createMailer(config.mail);
   const changeFeed = startChangeFeed(config.databaseUrl);
   await changeFeed.ready();
-  const server = createApp({ config, db, storage, mailer, clock: systemClock, changeFeed }).listen(
-    0,
-    '127.0.0.1',
-  );
+  const server = http.createServer().listen(0, '127.0.0.1');
   const base = await listenLocal(server);
+  server.on(
+    'request',
+    createApp({
+      config: { ...config, appOrigin: base },
+      db,
+      storage,
+      mailer,
+      clock: systemClock,
+      changeFeed,
+    }),
+  );
   return {
     base,
     async close() {

@@ -1,5 +1,5 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
-import type { ReactNode } from 'react';
+import { lazy, Suspense, type ReactNode } from 'react';
 import type { AssayDetail } from '#shared/schemas/germination';
 import { Card } from '#src/components/ui/card';
 import { FormAlert } from '#src/components/ui/form-alert';
@@ -9,10 +9,14 @@ import type { IntervalMethod } from '#src/lib/bank-api';
 import { CountEntry } from './count-entry';
 import { CountsTable } from './counts-table';
 import { formatDate } from './format';
-import { GerminationCurve } from './germination-curve';
 import { ResultPanel } from './result-panel';
 import { AssayActions } from './assay-actions';
 import { DampingOffNote } from './assay-cautions';
+
+// The chart library loads with the chart, after the counts can already be entered.
+const GerminationCurve = lazy(() =>
+  import('./germination-curve').then((m) => ({ default: m.GerminationCurve })),
+);
 
 export interface AssayWorkbenchProps {
   bankId: string;
@@ -95,7 +99,9 @@ export function AssayWorkbench({
             isRefreshing={query.isPlaceholderData}
           />
           <Card title="Germination curve">
-            <GerminationCurve detail={detail} />
+            <Suspense fallback={<Loading label="Drawing the chart" />}>
+              <GerminationCurve detail={detail} />
+            </Suspense>
           </Card>
         </div>
       </div>

@@ -1,0 +1,128 @@
+// The cold load on a slow phone: a first visit (empty cache) to the sign-in page, signing in as the
+// demo bank's owner, and opening the Lots screen from the bank's navigation, in headless Chromium
+// throttled like a slow rural phone connection (about 400 kbit/s each way, 400 ms round trip, the
+// CPU four times slower; Chrome DevTools' own presets are of this order: "Slow 3G" is 400 kbit/s
+// down, 400 ms). Reports the time until the first lot of the list is on screen (coldLoadLotsMs) and
+// the JavaScript that crossed the wire, compressed, headers included (jsTransferKb; budget ≤ 200 KB).
+// Usage: tsx scripts/bench-cold-load.ts <built client dir>, with DATABASE_URL (scripts/bench.mjs).
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { chromium } from 'playwright-core';
+import { systemClock } from '../server/clock';
+import { loadConfig } from '../server/config';
+import { createDb } from '../server/db/database';
+import { migrateToLatest } from '../server/db/migrate';
+import { createDemoSeason } from '../server/demo/demo-scenario';
+import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD } from '../server/demo/demo-people';
+import { syncReferenceSpecies } from '../server/modules/species/reference-sync';
+import { serveApp } from './lib/bench';
+import { reportFigures } from './lib/bench-figures';
+
+const BUDGET_KB = 200;
+/** The slow-phone profile: bytes/s for CDP's Network.emulateNetworkConditions. */
+const NETWORK = {
+  offline: false,
+  latency: 400,
+  downloadThroughput: 400_000 / 8,
+  uploadThroughput: 400_000 / 8,
+};
+const CPU_SLOWDOWN = 4;
+
+const staticDir = process.argv[2];
+if (!staticDir || !fs.existsSync(path.join(staticDir, 'index.html')))
+  throw new Error('usage: tsx scripts/bench-cold-load.ts <built client dir>');
+const chromiumPath = process.env.HILUM_CHROMIUM ?? '/usr/bin/chromium';
+if (!fs.existsSync(chromiumPath))
+  throw new Error(`no Chromium at ${chromiumPath} (apt-get install chromium, or set HILUM_CHROMIUM)`);
+
+const config = { ...loadConfig(), staticDir: path.resolve(staticDir) };
+const db = createDb(config.databaseUrl);
+await migrateToLatest(db);
+await syncReferenceSpecies(db);
+// The lot-list benchmark may have made the demo bank in this database already.
+const seeded = await createDemoSeason({ db, clock: systemClock, appOrigin: config.appOrigin });
+const bankId =
+  seeded?.bankId ??
+  (await db.selectFrom('banks').select('id').where('name', '=', DEMO_BANK_NAME).executeTakeFirstOrThrow()).id;
+const app = await serveApp(config, db);
+const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
+
+// Debian's chromium, headless, with a fresh profile and no background traffic (as the browser tests).
+const home = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-bench-chromium-'));
+const browser = await chromium.launch({
+  executablePath: chromiumPath,
+  headless: true,
+  env: { ...process.env, HOME: home },
+  args: [
+    '--no-sandbox',
+    '--disable-gpu',
+    '--disable-background-networking',
+    '--disable-component-update',
+    '--disable-sync',
+    '--no-first-run',
+    '--disable-quic',
+  ],
+});
+try {
+  // A phone-sized window in a context of its own: nothing cached.
+  const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true });
+  const page = await context.newPage();
+  const cdp = await context.newCDPSession(page);
+  await cdp.send('Network.enable');
+  await cdp.send('Network.emulateNetworkConditions', NETWORK);
+  await cdp.send('Emulation.setCPUThrottlingRate', { rate: CPU_SLOWDOWN });
+
+  const scripts = new Map<string, { url: string; encoding: string }>();
+  const wire = new Map<string, number>();
+  cdp.on('Network.responseReceived', (e) => {
+    if (e.type !== 'Script') return;
+    const headers = Object.fromEntries(
+      Object.entries(e.response.headers).map(([k, v]) => [k.toLowerCase(), String(v)]),
+    );
+    scripts.set(e.requestId, { url: e.response.url, encoding: headers['content-encoding'] ?? 'none' });
+  });
+  cdp.on('Network.loadingFinished', (e) => wire.set(e.requestId, e.encodedDataLength));
+
+  const started = performance.now();
+  await page.goto(`${app.base}/sign-in`);
+  await page.getByLabel('E-mail').fill(owner.email);
+  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(`${app.base}/banks/${bankId}/overview`, { timeout: 120_000 });
+  await page.getByRole('navigation', { name: 'Bank' }).getByRole('link', { name: 'Lots' }).click();
+  // The first lot of the list on screen: a link to one lot's page.
+  await page
+    .locator(`main a[href^="/banks/${bankId}/lots/"]`)
+    .filter({ hasNotText: /new lot|import/i })
+    .first()
+    .waitFor({ state: 'visible', timeout: 120_000 });
+  const coldLoadLotsMs = Math.round(performance.now() - started);
+  // Scripts still arriving (preloads of the page) count too: wait until each has finished.
+  const deadline = Date.now() + 60_000;
+  while ([...scripts.keys()].some((id) => !wire.has(id)) && Date.now() < deadline)
+    await new Promise((resolve) => setTimeout(resolve, 100));
+
+  let bytes = 0;
+  const encodings = new Map<string, number>();
+  for (const [id, script] of scripts) {
+    bytes += wire.get(id) ?? 0;
+    encodings.set(script.encoding, (encodings.get(script.encoding) ?? 0) + 1);
+  }
+  const jsTransferKb = Math.round((bytes / 1024) * 10) / 10;
+  const codings = [...encodings].map(([name, n]) => `${n} ${name}`).join(', ');
+  console.log(
+    `cold load on a slow phone (${NETWORK.downloadThroughput * 0.008} kbit/s, ${NETWORK.latency} ms RTT, CPU ×${CPU_SLOWDOWN}):`,
+  );
+  console.log(`  sign-in page → signed in → Lots screen with its first lot: ${coldLoadLotsMs} ms`);
+  console.log(
+    `  JavaScript on the wire: ${jsTransferKb} KB in ${scripts.size} file(s) (${codings}) (budget ≤ ${BUDGET_KB} KB)`,
+  );
+  reportFigures({ coldLoadLotsMs, jsTransferKb });
+  await context.close();
+} finally {
+  await browser.close();
+  fs.rmSync(home, { recursive: true, force: true });
+  await app.close();
+  await db.destroy();
+}
