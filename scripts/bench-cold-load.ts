@@ -67,6 +67,9 @@ const browser = await chromium.launch({
 try {
   // A phone-sized window in a context of its own: nothing cached.
   const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true });
+  // HILUM_BENCH_IDENTITY=1: the same visit asking for no compression, for comparison.
+  if (process.env.HILUM_BENCH_IDENTITY === '1')
+    await context.setExtraHTTPHeaders({ 'accept-encoding': 'identity' });
   const page = await context.newPage();
   const cdp = await context.newCDPSession(page);
   await cdp.send('Network.enable');
