@@ -17,6 +17,7 @@ import * as m20261202003517 from './2026_12_02_003517_sowing_emergence';
 import * as m20261202004162 from './2026_12_02_004162_lot_seed_weights';
 import * as m20261202004817 from './2026_12_02_004817_mail_queue';
 import * as m20261202005317 from './2026_12_02_005317_sprinkled_trays';
+import * as m20261202005538 from './2026_12_02_005538_calendar_feeds';
 import * as m20261202006271 from './2026_12_02_006271_rate_limits';
 import * as m20261202007315 from './2026_12_02_007315_lot_amount_kind';
 
@@ -37,6 +38,7 @@ export const migrations: Record<string, Migration> = {
   '2026_12_02_004162_lot_seed_weights': m20261202004162,
   '2026_12_02_004817_mail_queue': m20261202004817,
   '2026_12_02_005317_sprinkled_trays': m20261202005317,
+  '2026_12_02_005538_calendar_feeds': m20261202005538,
   '2026_12_02_006271_rate_limits': m20261202006271,
   '2026_12_02_007315_lot_amount_kind': m20261202007315,
 };

@@ -35,6 +35,8 @@ import { overviewRoutes } from './modules/overview/overview.router';
 import { planRoutes } from './modules/plan/plan.router';
 import { reminderRoutes } from './modules/reminders/reminders.router';
 import { createPlanService } from './modules/plan/plan.service';
+import { calendarFeedRoutes, calendarFileRoutes } from './modules/calendar/calendar.router';
+import { createCalendarService } from './modules/calendar/calendar.service';
 import { viabilityRoutes } from './modules/viability/viability.router';
 import { createViabilityService } from './modules/viability/viability.service';
 import { lotRoutes, lotsCsvExport } from './modules/lots/lots.router';
@@ -132,6 +134,12 @@ export function createApp(deps: AppDeps): Express {
     assaysCsv: createAssaysCsvService(deps),
   };
   const plan = createPlanService({ ...deps, viability: services.viability });
+  const calendar = createCalendarService({
+    ...deps,
+    plan,
+    secret: config.sessionSecret,
+    appOrigin: config.appOrigin,
+  });
   const secureCookies = config.appOrigin.startsWith('https:');
   const limits = authRateLimits(createRateLimiter({ db: deps.db, clock: deps.clock, logger }), {
     signUpLimit: deps.signUpLimit,
@@ -140,6 +148,7 @@ export function createApp(deps: AppDeps): Express {
   const api = express.Router();
   api.use('/health', healthRouter(deps));
   api.use(openApiRoutes({ production: config.env === 'production' }));
+  api.use('/calendar', calendarFileRoutes(calendar));
   api.use(sessionMiddleware(deps.db, signer, deps.clock, cache));
   api.use('/auth', authRouter(services.auth, { secureCookies, limits }));
   api.use('/me', meRouter(services.auth));
@@ -164,6 +173,7 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/plan.ics', planRouters.ics);
   bank.use('/plan', planRouters.router);
   bank.use('/reminders', reminderRoutes(deps.db));
+  bank.use('/calendar-feed', calendarFeedRoutes(calendar));
   bank.use('/overview', overviewRoutes({ ...deps, viability: services.viability }));
   bank.use('/tests/:testId/trays/:trayId/photos', subjectPhotoRoutes(services.photos, 'tray', 'trayId'));
   bank.use('/tests/import', assaysCsvImport(services.assaysCsv));

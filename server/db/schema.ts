@@ -385,6 +385,15 @@ export interface RateLimitTable {
   reset_at: Date;
 }
 
+/** A member's private calendar feed of a bank (server/modules/calendar); `token_hash` is a SHA-256, hex. */
+export interface CalendarFeedTable {
+  bank_id: string;
+  user_id: string;
+  nonce: string;
+  token_hash: string;
+  created_at: Timestamp;
+}
+
 export interface Database {
   users: UserTable;
   sessions: SessionTable;
@@ -413,6 +422,7 @@ export interface Database {
   reminders: ReminderTable;
   viability_stamps: ViabilityStampTable;
   rate_limits: RateLimitTable;
+  calendar_feeds: CalendarFeedTable;
 }
 
 export type User = Selectable<UserTable>;

@@ -14,8 +14,12 @@ const SECRET_HEADERS = new Set(['cookie', 'set-cookie', 'authorization', 'proxy-
 /** Headers that carry an address of this app, with whatever query it had. */
 const URL_HEADERS = new Set(['referer', 'location']);
 
-/** The URL as logged: every secret query parameter's value replaced, the rest as it came. */
-export function redactUrl(url: string): string {
+/** Paths (or whole addresses, as in a Referer) that carry a secret in a segment: a calendar feed's token (`/api/calendar/<token>.ics`). */
+const SECRET_PATH = /^((?:[a-z][a-z\d+.-]*:\/\/[^/?#]*)?\/api\/calendar\/)[^/?#]+?(\.ics)?(?=[/?#]|$)/i;
+
+/** The URL as logged: a secret path segment and every secret query parameter's value replaced, the rest as it came. */
+export function redactUrl(logged: string): string {
+  const url = logged.replace(SECRET_PATH, `$1${REDACTED}$2`);
   const at = url.indexOf('?');
   if (at < 0) return url;
   const hash = url.indexOf('#', at);

@@ -21,6 +21,7 @@ import {
   updateBankBodySchema,
   updateMemberBodySchema,
 } from '#shared/schemas/banks';
+import { calendarFeedSchema } from '#shared/schemas/calendar';
 import { csvImportQuerySchema, errorResponseSchema, onQuerySchema } from '#shared/schemas/common';
 import {
   assayDetailQuerySchema,
@@ -381,6 +382,31 @@ export const apiRoutes: ApiRoute[] = [
     access: 'viewer',
     body: reminderPrefsBodySchema,
     responses: [ok(preferencesEnvelope)],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/calendar-feed`,
+    summary: 'The caller’s private calendar feed address for this bank, made on first use.',
+    access: 'viewer',
+    responses: [ok(calendarFeedSchema)],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/calendar-feed/rotate`,
+    summary: 'A new private calendar feed address; the old one then answers 404.',
+    access: 'viewer',
+    responses: [ok(calendarFeedSchema)],
+  },
+  {
+    method: 'get',
+    path: '/api/calendar/:token.ics',
+    summary:
+      'A member’s calendar feed (the plan and the tests’ check days) for calendar apps; the token in the address is the key, no cookie. Unknown, rotated or former members’ tokens answer 404.',
+    access: 'public',
+    responses: [
+      file('text/calendar', 'The calendar.'),
+      { status: 404, description: 'No such feed.', json: errorResponseSchema },
+    ],
   },
   {
     method: 'get',

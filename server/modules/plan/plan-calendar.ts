@@ -28,14 +28,24 @@ export interface RetestEvent {
   retestBy: string;
 }
 
+/** Another all-day event for the calendar (a tray's check day, say), with a UID stable across renders. */
+export interface ExtraEvent {
+  uid: string;
+  title: string;
+  from: string;
+  to: string;
+  description: string;
+}
+
 /** The season's plan as an iCalendar file (RFC 5545) a grower can import or subscribe to. */
 export function planCalendar(
   bankName: string,
   season: number,
   entries: PlanEntryDto[],
   retests: RetestEvent[],
+  extra: ExtraEvent[] = [],
 ): string {
-  const events: EventAttributes[] = [];
+  const events: EventAttributes[] = extra.map((x) => allDay(x.uid, x.title, x.from, x.to, x.description));
   for (const e of entries) {
     const what = `${e.speciesName}${e.lotCode ? ` (${e.lotCode})` : ''}`;
     const seeds = e.seedsToSow

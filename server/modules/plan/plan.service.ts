@@ -15,8 +15,10 @@ import { insertMovement, lockLot, stockOf, updateLot } from '../lots/lots.shared
 import { findSpecies } from '../species/species.shared.repository';
 import type { ViabilityService } from '../viability/viability.service';
 import { dayInWords } from '#shared/day-words';
-import { planCalendar } from './plan-calendar';
+import { planCalendar, type ExtraEvent } from './plan-calendar';
 import * as repo from './plan.repository';
+
+export type { ExtraEvent } from './plan-calendar';
 
 export function createPlanService({
   db,
@@ -161,15 +163,15 @@ export function createPlanService({
     get,
     list,
 
-    /** The season's plan and the retests due, as an iCalendar file. */
-    async calendar(bankId: string, season: number) {
+    /** The season's plan and the retests due (and any `extra` events), as an iCalendar file. */
+    async calendar(bankId: string, season: number, extra: ExtraEvent[] = []) {
       const bank = await bankName(db, bankId);
       const entries = await list(bankId, season);
       const ranking = await viability.ranking(bankId, `${season}-01-01`);
       const retests = ranking
         .filter((r) => r.retestBy)
         .map((r) => ({ lotId: r.lotId, code: r.code, species: r.species, retestBy: r.retestBy! }));
-      return planCalendar(bank.name, season, entries, retests);
+      return planCalendar(bank.name, season, entries, retests, extra);
     },
 
     async create(bankId: string, userId: string, body: CreatePlanBody) {
