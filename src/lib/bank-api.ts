@@ -58,6 +58,9 @@ export const bankPaths = {
   invitations: (bankId: string) => `${bank(bankId)}/invitations`,
   invitation: (bankId: string, invitationId: string) => `${bank(bankId)}/invitations/${id(invitationId)}`,
   reminders: (bankId: string) => `${bank(bankId)}/reminders`,
+  /** The signed-in member's private calendar feed address, and its rotation. */
+  calendarFeed: (bankId: string) => `${bank(bankId)}/calendar-feed`,
+  calendarFeedRotate: (bankId: string) => `${bank(bankId)}/calendar-feed/rotate`,
   overview: (bankId: string, on?: string) =>
     `${bank(bankId)}/overview${on ? `?${new URLSearchParams({ on })}` : ''}`,
 
@@ -126,6 +129,7 @@ export const bankKeys = {
   members: (bankId: string) => [...bankKeys.bank(bankId), 'members'] as const,
   invitations: (bankId: string) => [...bankKeys.bank(bankId), 'invitations'] as const,
   reminders: (bankId: string) => [...bankKeys.bank(bankId), 'reminders'] as const,
+  calendarFeed: (bankId: string) => [...bankKeys.bank(bankId), 'calendar-feed'] as const,
   overviews: (bankId: string) => [...bankKeys.bank(bankId), 'overview'] as const,
   overview: (bankId: string, on: string | undefined) =>
     [...bankKeys.overviews(bankId), on ?? 'today'] as const,

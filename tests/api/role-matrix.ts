@@ -326,6 +326,16 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     body: () => ({ digest: false }),
     least: 'viewer',
   },
+  'GET calendar-feed': {
+    method: 'get',
+    path: (f) => `/api/banks/${f.bankId}/calendar-feed`,
+    least: 'viewer',
+  },
+  'POST calendar-feed/rotate': {
+    method: 'post',
+    path: (f) => `/api/banks/${f.bankId}/calendar-feed/rotate`,
+    least: 'viewer',
+  },
   'GET overview': { method: 'get', path: (f) => `/api/banks/${f.bankId}/overview`, least: 'viewer' },
   'POST leave': {
     method: 'post',

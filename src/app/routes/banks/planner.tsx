@@ -102,6 +102,12 @@ export function PlannerPage() {
             >
               Add to my calendar
             </a>
+            <Link
+              to={`${paths.reminders.getHref(bank.id)}#calendar`}
+              className={buttonStyles({ variant: 'quiet' })}
+            >
+              Subscribe in your calendar app
+            </Link>
             {plannedLots.length ? <PrintLabelLink bankId={bank.id} lotIds={plannedLots} /> : null}
           </>
         }

@@ -3,6 +3,7 @@ import { Card } from '#src/components/ui/card';
 import { PageHeader } from '#src/components/ui/page-header';
 import { paths } from '#src/config/paths';
 import { useMe } from '#src/features/auth/api/get-me';
+import { CalendarSubscribe } from '#src/features/calendar/components/calendar-subscribe';
 import { ReminderChoices } from '#src/features/reminders/components/reminder-choices';
 import { useRouteBank } from './use-route-bank';
 
@@ -27,6 +28,13 @@ export function RemindersPage() {
             timeZone={bank.timeZone}
             email={me?.user.email}
           />
+        </Card>
+        <Card
+          id="calendar"
+          title="Subscribe in your calendar app"
+          description={`${bank.name}’s sowing plan and tray check days, kept up to date.`}
+        >
+          <CalendarSubscribe bankId={bank.id} />
         </Card>
         {otherBanks.length > 0 ? (
           <Card title="Your other banks" description="Each bank has its own choices.">
