@@ -1,12 +1,11 @@
 import crypto from 'node:crypto';
-import { Writable } from 'node:stream';
 import ical from 'node-ical';
-import pino from 'pino';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '#server/app';
 import { redactUrl } from '#server/http/request-log';
 import { bankWithRoles } from '../helpers/accounts';
+import { capturedLogger } from '../helpers/captured-log';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { speciesId, startedAssay } from '../helpers/lots';
 
@@ -154,18 +153,8 @@ describe('the live calendar feed', () => {
   });
 
   it('when the feed is fetched on a production server, then the token is not in the log and the request is', async () => {
-    const lines: string[] = [];
-    const stream = new Writable({
-      write(chunk: Buffer, _encoding, done) {
-        lines.push(chunk.toString('utf8'));
-        done();
-      },
-    });
-    const app = createApp({
-      ...ctx,
-      config: { ...ctx.config, env: 'production' },
-      logger: pino({ level: 'info' }, stream),
-    });
+    const log = capturedLogger('info');
+    const app = createApp({ ...ctx, config: { ...ctx.config, env: 'production' }, logger: log.logger });
     const url = await feedUrl(bank.viewer.agent);
     const token = /\/api\/calendar\/([^/]+)\.ics$/.exec(url)![1]!;
     expect((await request(app).get(pathOf(url))).status).toBe(200);
@@ -178,8 +167,8 @@ describe('the live calendar feed', () => {
     ).toBe(200);
     const marker = crypto.randomBytes(6).toString('hex');
     expect((await request(app).get(`/api/health?last=${marker}`)).status).toBe(200);
-    await expect.poll(() => lines.join('').includes(marker), { timeout: 10_000 }).toBe(true);
-    const text = lines.join('');
+    await expect.poll(() => log.text().includes(marker), { timeout: 10_000 }).toBe(true);
+    const text = log.text();
     expect(text).not.toContain(token);
     expect(text).toContain('"url":"/api/calendar/[redacted].ics"');
     expect(text).toContain('"url":"/api/calendar/[redacted].ics?v=2"');

@@ -1,7 +1,5 @@
 import crypto from 'node:crypto';
-import { Writable } from 'node:stream';
 import express from 'express';
-import pino, { type LevelWithSilent } from 'pino';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '#server/app';
@@ -11,19 +9,8 @@ import { requestLogging } from '#server/http/request-log';
 import { readOutbox } from '#server/mail/outbox';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { PASSWORD, uniqueEmail } from '../helpers/accounts';
+import { capturedLogger } from '../helpers/captured-log';
 import { linkIn, waitForMail } from '../helpers/outbox';
-
-/** A logger writing into memory, as pino writes to stdout in production. */
-function capturedLogger(level: LevelWithSilent) {
-  const lines: string[] = [];
-  const stream = new Writable({
-    write(chunk: Buffer, _encoding, done) {
-      lines.push(chunk.toString('utf8'));
-      done();
-    },
-  });
-  return { logger: pino({ level }, stream), text: () => lines.join('') };
-}
 
 /** The session token a response sets, as the browser would keep it. */
 function sessionToken(res: request.Response): string {
