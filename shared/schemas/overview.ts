@@ -16,6 +16,8 @@ export const overviewSchema = z.object({
       overdue: z.boolean(),
       /** The test's stored germination so far (whole percent), null before any tray is counted. */
       percentSoFar: z.number().nullable(),
+      /** The seeds sown were estimated (by weight or a guess): the percentage is "about". */
+      percentSoFarEstimated: z.boolean(),
     }),
   ),
   sowingsDue: z.array(

@@ -138,6 +138,13 @@ describe('sprinkled trays: sown by weight or guess, seedlings scored roughly', (
       'About 63% so far — 25 normal seedlings from about 40 seeds sown, estimated from 0.1 g in the counted trays.',
     );
     expect(est.summary).toContain("Grams became seeds through this lot's own seed weight.");
+    // The week's overview says "about" for the same figure, and nothing for the counted tray.
+    const overview = (await bank.viewer.agent.get(`${base()}/overview?on=2026-03-08`)).body;
+    const card = (id: string) =>
+      overview.traysToCount.find((t: { testId: string }) => t.testId === id) as
+        { percentSoFar: number; percentSoFarEstimated: boolean } | undefined;
+    expect(card(weighed.body.test.id)).toMatchObject({ percentSoFar: 63, percentSoFarEstimated: true });
+    expect(card(counted.body.test.id)).toMatchObject({ percentSoFar: 63, percentSoFarEstimated: false });
     // The exact interval is for counted seeds: an estimate keeps its widened one.
     const cp = await bank.viewer.agent.get(
       `${base()}/tests/${weighed.body.test.id}?interval=clopper-pearson`,

@@ -15,6 +15,11 @@ export const runningAssaysWithTrays = (db: DbOrTx, bankId: string) =>
       'germination_tests.result_last_count_date as last_count',
     ])
     .select(sql<number | null>`(germination_tests.result->>'percentRounded')::int`.as('percent_so_far'))
+    .select(
+      sql<boolean>`coalesce((germination_tests.result->>'seedsSownEstimated')::boolean, false)`.as(
+        'percent_estimated',
+      ),
+    )
     // Trays still to count: a set-aside tray is not counted any more.
     .select((eb) =>
       eb

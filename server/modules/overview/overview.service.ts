@@ -37,6 +37,7 @@ export function createOverviewService({ db, viability }: { db: Db; viability: Vi
             trays: Number(t.trays ?? 0),
             overdue: next.date < today,
             percentSoFar: t.percent_so_far,
+            percentSoFarEstimated: t.percent_estimated,
           },
         ];
       });

@@ -36,7 +36,7 @@ export function TraysToCountCard({ bankId, overview, canEdit }: WeekCardProps) {
     href: paths.assay.getHref(bankId, t.testId),
     title: `${t.species} · ${t.lotCode}`,
     badge: checkWhen(t.checkDate, today, t.overdue),
-    detail: `Day ${t.day} count of ${plural(t.trays, 'tray')}${t.checkDate === today ? '' : ` · check day ${weekDay(t.checkDate)}`}${t.percentSoFar === null ? '' : ` · ${t.percentSoFar}% so far`}`,
+    detail: `Day ${t.day} count of ${plural(t.trays, 'tray')}${t.checkDate === today ? '' : ` · check day ${weekDay(t.checkDate)}`}${t.percentSoFar === null ? '' : ` · ${t.percentSoFarEstimated ? 'about ' : ''}${t.percentSoFar}% so far`}`,
   }));
   const suggest = overview.lotsToRetest[0];
   return (
