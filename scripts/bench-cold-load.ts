@@ -6,9 +6,7 @@
 // the JavaScript that crossed the wire, compressed, headers included (jsTransferKb; budget ≤ 200 KB).
 // Usage: tsx scripts/bench-cold-load.ts <built client dir>, with DATABASE_URL (scripts/bench.mjs).
 import fs from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
-import { chromium } from 'playwright-core';
 import { systemClock } from '../server/clock';
 import { loadConfig } from '../server/config';
 import { createDb } from '../server/db/database';
@@ -18,6 +16,7 @@ import { DEMO_ACCOUNTS, DEMO_BANK_NAME, DEMO_PASSWORD } from '../server/demo/dem
 import { syncReferenceSpecies } from '../server/modules/species/reference-sync';
 import { serveApp } from './lib/bench';
 import { reportFigures } from './lib/bench-figures';
+import { launchChromium } from '../tests/helpers/chromium';
 
 const BUDGET_KB = 200;
 /** The slow-phone profile: bytes/s for CDP's Network.emulateNetworkConditions. */
@@ -49,21 +48,7 @@ const app = await serveApp(config, db);
 const owner = DEMO_ACCOUNTS.find((a) => a.role === 'owner')!;
 
 // Debian's chromium, headless, with a fresh profile and no background traffic (as the browser tests).
-const home = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-bench-chromium-'));
-const browser = await chromium.launch({
-  executablePath: chromiumPath,
-  headless: true,
-  env: { ...process.env, HOME: home },
-  args: [
-    '--no-sandbox',
-    '--disable-gpu',
-    '--disable-background-networking',
-    '--disable-component-update',
-    '--disable-sync',
-    '--no-first-run',
-    '--disable-quic',
-  ],
-});
+const browser = await launchChromium(chromiumPath, 'hilum-bench-chromium-');
 try {
   // A phone-sized window in a context of its own: nothing cached.
   const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true });
@@ -125,7 +110,7 @@ try {
   await context.close();
 } finally {
   await browser.close();
-  fs.rmSync(home, { recursive: true, force: true });
+  browser.cleanup();
   await app.close();
   await db.destroy();
 }

@@ -1,12 +1,11 @@
 import fs from 'node:fs';
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
-import os from 'node:os';
-import path from 'node:path';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, vi } from 'vitest';
 import { createDemoSeason } from '#server/demo/demo-scenario';
 import { DEMO_BANK_NAME, DEMO_PASSWORD, addDemoPeople } from '#server/demo/demo-people';
+import { launchChromium, type TestBrowser } from './chromium';
 import { createTestContext, type TestContext } from './context';
 
 export const chromiumPath =
@@ -26,28 +25,12 @@ if (!chromiumPath) {
 export const POLL_TIMEOUT_MS = 20_000;
 vi.setConfig({ expect: { poll: { timeout: POLL_TIMEOUT_MS } } });
 
-export type TestBrowser = Browser & { cleanup(): void };
+export type { TestBrowser };
 export type TestServer = Awaited<ReturnType<typeof startTestServer>>;
 
 /** Debian's chromium, headless, with a fresh profile and no background traffic. */
-export async function launchBrowser(): Promise<TestBrowser> {
-  const home = fs.mkdtempSync(path.join(os.tmpdir(), 'hilum-chromium-'));
-  const browser = await chromium.launch({
-    executablePath: chromiumPath,
-    headless: true,
-    env: { ...process.env, HOME: home },
-    args: [
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-      '--no-first-run',
-      '--disable-quic',
-      `--user-data-dir=${path.join(home, 'profile')}`,
-    ].filter((a) => !a.startsWith('--user-data-dir')),
-  });
-  return Object.assign(browser, { cleanup: () => fs.rmSync(home, { recursive: true, force: true }) });
+export function launchBrowser(): Promise<TestBrowser> {
+  return launchChromium(chromiumPath);
 }
 
 /** The real app with the built client, listening on a free loopback port. */
