@@ -107,6 +107,9 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
       await viewerPage.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${assayId}`);
       const card = trayPhotos(viewerPage);
       await card.getByRole('button', { name: 'Tray 2' }).tap();
+      // The tap chose tray 2: a tap once landed elsewhere when the chart above arrived and pushed the
+      // buttons down (the chart's place is now kept while it loads).
+      expect(await card.getByRole('button', { name: 'Tray 2' }).getAttribute('aria-pressed')).toBe('true');
       await card.getByRole('img', { name: /^Tray 2 of the PEP-/ }).waitFor();
       expect(await card.getByLabel('Add a photo').count()).toBe(0);
       await viewerContext.close();

@@ -38,14 +38,24 @@ export interface LoadingProps {
   /** What is loading, in words ("Loading the outbox"). */
   label?: string;
   className?: string;
+  /**
+   * The height in CSS pixels of what will replace it (a chart), kept while it loads so that
+   * nothing below moves under a finger when it arrives.
+   */
+  height?: number;
 }
 
 /** A block-level loading state for a card or a page section. */
-export function Loading({ label = 'Loading', className }: LoadingProps) {
+export function Loading({ label = 'Loading', className, height }: LoadingProps) {
   return (
     <div
       role="status"
-      className={cn('flex items-center justify-center gap-3 py-10 text-loam-600', className)}
+      style={height === undefined ? undefined : { height }}
+      className={cn(
+        'flex items-center justify-center gap-3 text-loam-600',
+        height === undefined && 'py-10',
+        className,
+      )}
     >
       <Spinner size="md" decorative />
       <span>{label}…</span>

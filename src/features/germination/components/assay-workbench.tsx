@@ -1,5 +1,5 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
-import { lazy, Suspense, type ReactNode } from 'react';
+import type { ReactNode } from 'react';
 import type { AssayDetail } from '#shared/schemas/germination';
 import { Card } from '#src/components/ui/card';
 import { FormAlert } from '#src/components/ui/form-alert';
@@ -12,11 +12,7 @@ import { formatDate } from './format';
 import { ResultPanel } from './result-panel';
 import { AssayActions } from './assay-actions';
 import { DampingOffNote } from './assay-cautions';
-
-// The chart library loads with the chart, after the counts can already be entered.
-const GerminationCurve = lazy(() =>
-  import('./germination-curve').then((m) => ({ default: m.GerminationCurve })),
-);
+import { GerminationCurve } from './germination-curve';
 
 export interface AssayWorkbenchProps {
   bankId: string;
@@ -99,9 +95,7 @@ export function AssayWorkbench({
             isRefreshing={query.isPlaceholderData}
           />
           <Card title="Germination curve">
-            <Suspense fallback={<Loading label="Drawing the chart" />}>
-              <GerminationCurve detail={detail} />
-            </Suspense>
+            <GerminationCurve detail={detail} />
           </Card>
         </div>
       </div>

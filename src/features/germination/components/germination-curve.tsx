@@ -1,13 +1,16 @@
-import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
+import { lazy, Suspense } from 'react';
+import { Loading } from '#src/components/ui/spinner';
 import type { AssayDetail } from '#shared/schemas/germination';
 import { daysBetween } from '#shared/dates';
 import { traySeeds } from './format';
 import { pooledByDate } from './pooled-counts';
 
-// Tray lines in the palette's quieter tones (tailwind.config.ts); the pooled line is the strong moss.
-const TRAY_COLOURS = ['#447694', '#b5742c', '#a2462a', '#61873c', '#7d612b', '#635645', '#6091ae', '#d07655'];
-const POOLED_COLOUR = '#29391c';
-const SET_ASIDE_COLOUR = '#9e8d77';
+// Only the drawing waits for the charts library; its place is kept meanwhile, so nothing below
+// the chart moves under a finger when it arrives.
+const CurveChart = lazy(() => import('./germination-curve-chart'));
+
+/** The chart's height in CSS pixels, kept empty while the chart loads. */
+export const CURVE_HEIGHT = 280;
 
 export interface CurvePoint {
   day: number;
@@ -44,8 +47,6 @@ export function curvePoints(detail: AssayDetail): CurvePoint[] {
   return points;
 }
 
-const percentTick = (v: number) => `${v}%`;
-
 export function GerminationCurve({ detail }: { detail: AssayDetail }) {
   const points = curvePoints(detail);
   const { startDate, schedule } = detail.test;
@@ -71,84 +72,15 @@ export function GerminationCurve({ detail }: { detail: AssayDetail }) {
           The curve appears after the first count.
         </p>
       ) : (
-        <LineChart
-          responsive
-          style={{ width: '100%', height: 280 }}
-          data={points}
-          margin={{ top: 16, right: 12, bottom: 4, left: -12 }}
-          accessibilityLayer
-        >
-          <CartesianGrid stroke="#ede7dd" />
-          <XAxis
-            dataKey="day"
-            type="number"
-            domain={[0, lastDay]}
-            allowDecimals={false}
-            tick={{ fill: '#4e4337', fontSize: 13 }}
-            label={{
-              value: 'days since sowing',
-              position: 'insideBottom',
-              offset: -2,
-              fill: '#4e4337',
-              fontSize: 13,
-            }}
-            height={40}
+        <Suspense fallback={<Loading label="Drawing the chart" height={CURVE_HEIGHT} />}>
+          <CurveChart
+            detail={detail}
+            points={points}
+            firstDay={firstDay}
+            finalDay={finalDay}
+            lastDay={lastDay}
           />
-          <YAxis
-            domain={[0, 100]}
-            ticks={[0, 25, 50, 75, 100]}
-            tickFormatter={percentTick}
-            tick={{ fill: '#4e4337', fontSize: 13 }}
-            width={52}
-          />
-          <Tooltip
-            formatter={(value) => (typeof value === 'number' ? `${Math.round(value)}%` : String(value))}
-            labelFormatter={(day) => `Day ${String(day)}`}
-          />
-          <Legend verticalAlign="top" wrapperStyle={{ fontSize: 13, paddingBottom: 8 }} />
-          {firstDay !== null ? (
-            <ReferenceLine
-              x={firstDay}
-              stroke="#2d4d63"
-              strokeDasharray="5 4"
-              label={{ value: 'first count', position: 'insideTopLeft', fill: '#2d4d63', fontSize: 12 }}
-            />
-          ) : null}
-          {finalDay !== null ? (
-            <ReferenceLine
-              x={finalDay}
-              stroke="#2d4d63"
-              strokeDasharray="5 4"
-              label={{ value: 'final count', position: 'insideTopRight', fill: '#2d4d63', fontSize: 12 }}
-            />
-          ) : null}
-          {detail.trays.map((tray, i) => (
-            <Line
-              key={tray.id}
-              type="linear"
-              dataKey={`tray${tray.position}`}
-              name={
-                tray.setAsideReason !== null ? `Tray ${tray.position} (set aside)` : `Tray ${tray.position}`
-              }
-              stroke={tray.setAsideReason !== null ? SET_ASIDE_COLOUR : TRAY_COLOURS[i % TRAY_COLOURS.length]}
-              strokeDasharray={tray.setAsideReason !== null ? '4 4' : undefined}
-              strokeWidth={1.75}
-              dot={{ r: 2.5 }}
-              connectNulls
-              isAnimationActive={false}
-            />
-          ))}
-          <Line
-            type="linear"
-            dataKey="pooled"
-            name="All trays"
-            stroke={POOLED_COLOUR}
-            strokeWidth={3.5}
-            dot={{ r: 4 }}
-            connectNulls
-            isAnimationActive={false}
-          />
-        </LineChart>
+        </Suspense>
       )}
     </figure>
   );

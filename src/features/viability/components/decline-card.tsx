@@ -13,6 +13,8 @@ import { basisWords, pct, retestReasonWords, years } from '#src/components/viabi
 
 // The chart library loads with the chart, not with the app.
 const DeclineChart = lazy(() => import('./decline-chart'));
+/** The decline chart's height in CSS pixels, kept while it loads (decline-chart.tsx draws it). */
+export const DECLINE_CHART_HEIGHT = 300;
 
 export interface DeclineCardProps {
   bankId: string;
@@ -191,7 +193,7 @@ export function DeclineCard({ bankId, lotId, on, today, setAsideResults = {} }: 
                   ? 'Not tested yet: the line is the species’ typical decline for seed kept this way, a guess, and the shaded band its wide likely range.'
                   : 'The line is the lot’s projected decline, from its tests and the species’ other lots in the bank, and the shaded band its likely range.'}
               </figcaption>
-              <Suspense fallback={<Loading label="Drawing the chart" />}>
+              <Suspense fallback={<Loading label="Drawing the chart" height={DECLINE_CHART_HEIGHT} />}>
                 <DeclineChart
                   viability={v}
                   todayAge={seedAgeYears(v.harvestReference, today)}

@@ -14,6 +14,7 @@ import type { ViabilityResponse } from '#shared/schemas/viability';
 import { wilsonScoreInterval } from '#shared/wilson';
 import { formatDay } from '#src/lib/dates';
 import { ASIDE, DOT, AssayMark, type AssayKind } from './assay-mark';
+import { DECLINE_CHART_HEIGHT } from './decline-card';
 import { formatCount, pct, years } from '#src/components/viability/viability-format';
 
 // Palette values from tailwind.config.ts (recharts draws with plain colours).
@@ -169,7 +170,7 @@ export function DeclineChart({ viability, todayAge, setAside = [] }: DeclineChar
   return (
     <ComposedChart
       responsive
-      style={{ width: '100%', height: 300 }}
+      style={{ width: '100%', height: DECLINE_CHART_HEIGHT }}
       data={curve}
       margin={{ top: 22, right: 16, bottom: 4, left: -12 }}
       accessibilityLayer
