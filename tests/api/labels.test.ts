@@ -100,8 +100,10 @@ describe('packet labels', () => {
     expect(text).toContain('Tomato');
     // The variety may break over two lines at a space.
     expect(text.replace(/\n/g, ' ')).toContain(variety);
-    expect(text).toContain('harvested 2025-09-14');
-    expect(text).toContain('last test: 82% on 2026-02-14');
+    // Dates in words, as on every screen (shared/day-words.ts): never the ISO form on a packet.
+    expect(text).toContain('harvested 14 Sep 2025');
+    expect(text).toContain('last test: 82% on 14 Feb 2026');
+    expect(text).not.toMatch(/\d{4}-\d{2}-\d{2}/);
     expect(text).not.toContain('94%');
   });
 
@@ -122,7 +124,7 @@ describe('packet labels', () => {
       (await getLabel(bank.viewer.agent, `/api/banks/${bank.bankId}/lots/${lot.body.lot.id}/label.svg`)).body,
     );
     expect(text).toContain('packed for 2026');
-    expect(text).toContain('test from 2026-02-20: 45% so far');
+    expect(text).toContain('test from 20 Feb 2026: 45% so far');
   });
 
   it('when a lot has no test, then its label says so', async () => {

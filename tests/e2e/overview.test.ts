@@ -113,6 +113,9 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
     expect(saved.treated).toBe(true);
     // …and the page's caution says the usual things, in plain words (common practice for treated seed).
     await expect.poll(() => treatedNote.count()).toBe(1);
+    // On a phone the top of the lot page shows the caution's title and opens its text with a tap.
+    expect((await treatedNote.innerText()).toLowerCase()).not.toContain('gloves');
+    await treatedNote.getByRole('button', { name: 'More' }).tap();
     const words = (await treatedNote.innerText()).toLowerCase();
     for (const phrase of ['gloves', 'children, pets and food', 'sprouts', 'wash your hands', 'local rules']) {
       expect(words).toContain(phrase);

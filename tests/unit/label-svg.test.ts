@@ -74,8 +74,8 @@ describe('the packet label SVG', () => {
     expect(texts).toContain('Tomato');
     // The variety is wider than the text column, so it breaks over two lines at a space.
     expect(texts.join(' ')).toContain('Grandpa’s Big & "Red" <Beef>');
-    expect(texts).toContain('harvested 2025-09-14');
-    expect(texts).toContain('last test: 82% on 2026-02-14');
+    expect(texts).toContain('harvested 14 Sep 2025');
+    expect(texts).toContain('last test: 82% on 14 Feb 2026');
     expect(renderLabelSvg(base)).not.toMatch(/&(?!amp;|lt;|gt;|quot;|apos;)/);
   });
 
@@ -91,7 +91,8 @@ describe('the packet label SVG', () => {
     const texts = textsOf(
       renderLabelSvg({ ...base, lastAssay: { percent: 45, startDate: '2026-02-20', running: true } }),
     );
-    expect(texts).toContain('test from 2026-02-20: 45% so far');
+    // Dates in words, as on every screen (shared/day-words.ts).
+    expect(texts).toContain('test from 20 Feb 2026: 45% so far');
   });
 
   it('when the variety is as long as a lot allows (120 characters), then it takes two lines, ends in an ellipsis and the QR still reads', async () => {
@@ -105,6 +106,34 @@ describe('the packet label SVG', () => {
     expect(lines[1]!.squeezeTo).toBeLessThanOrEqual(38);
     expect(svg).toContain(escapeXml(lines[0]!.text));
     expect((await decodeQr(svg)).text).toBe(base.url);
+  });
+});
+
+describe('nothing runs off a label', () => {
+  it('when every field is as long as it can be, then each line fits the text area (as set, or squeezed to it) and no date is ISO', () => {
+    const texts = renderLabelSvg({
+      ...base,
+      code: 'WWW-2025-MMMM-0999',
+      speciesName: 'Mammoth-flowered wallflower and wild mignonette mixture',
+      scientificName: 'Erysimum cheiri × Reseda lutea var. grandiflorissima',
+      variety: 'W'.repeat(40),
+      harvestDate: '2025-09-28',
+      lastAssay: { percent: 100, estimated: true, startDate: '2026-12-28', running: true },
+    });
+    const elements = [...texts.matchAll(/<text\b([^>]*)>([\s\S]*?)<\/text>/g)];
+    expect(elements.length).toBeGreaterThanOrEqual(5);
+    for (const [, attrs, inner] of elements) {
+      const size = Number(/font-size="([\d.]+)"/.exec(attrs!)![1]);
+      const weight = attrs!.includes('font-weight="700"') ? 700 : 400;
+      const squeeze = /textLength="([\d.]+)"/.exec(attrs!);
+      // The text area is 38 mm wide (70 mm label, QR code and margins: label-svg.ts's layout).
+      const width = squeeze
+        ? Number(squeeze[1])
+        : textWidth(textsOf(`<text>${inner}</text>`)[0]!, size, weight);
+      expect(width).toBeLessThanOrEqual(38 + 1e-9);
+      expect(inner).not.toMatch(/\d{4}-\d{2}-\d{2}/);
+    }
+    expect(textsOf(texts).join('\n')).toContain('28 Dec 2026');
   });
 });
 

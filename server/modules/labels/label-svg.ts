@@ -1,7 +1,8 @@
 import QRCode from 'qrcode';
+import { dayInWords } from '#shared/day-words';
 import { textWidth, type Weight } from './text-width';
 
-/** What one packet label shows. Dates are ISO `YYYY-MM-DD`. */
+/** What one packet label shows. Dates are ISO `YYYY-MM-DD`; the label prints them in words. */
 export interface LabelContent {
   code: string;
   speciesName: string;
@@ -131,7 +132,7 @@ function qrPath(url: string): { d: string; modules: number } {
 }
 
 function harvestWords(content: LabelContent): string | null {
-  if (content.harvestDate) return `harvested ${content.harvestDate}`;
+  if (content.harvestDate) return `harvested ${dayInWords(content.harvestDate)}`;
   if (content.packedForSeason !== null) return `packed for ${content.packedForSeason}`;
   return null;
 }
@@ -139,12 +140,15 @@ function harvestWords(content: LabelContent): string | null {
 function assayLine(content: LabelContent, size: number): { line: FittedLine; markup: string } {
   const assay = content.lastAssay;
   if (!assay) return { line: fitLine('not tested yet', size, 400, TEXT_WIDTH), markup: 'not tested yet' };
-  const [before, after] = assay.running
-    ? [`test from ${assay.startDate}: `, ' so far']
-    : ['last test: ', ` on ${assay.startDate}`];
+  const day = dayInWords(assay.startDate);
+  let [before, after] = assay.running ? [`test from ${day}: `, ' so far'] : ['last test: ', ` on ${day}`];
   // Seeds sown estimated (by weight or guess): the packet says "about", as every screen does.
   const percent = `${assay.estimated ? 'about ' : ''}${assay.percent}%`;
-  const width = textWidth(before, size) + textWidth(percent, size, 700) + textWidth(after, size);
+  const measure = () => textWidth(before, size) + textWidth(percent, size, 700) + textWidth(after, size);
+  // Too long to squeeze legibly: the shorter wording keeps the figure and its date whole.
+  if (measure() * MIN_SQUEEZE > TEXT_WIDTH)
+    [before, after] = assay.running ? [`${day}: `, ' so far'] : ['', ` on ${day}`];
+  const width = measure();
   const line: FittedLine = {
     text: `${before}${percent}${after}`,
     squeezeTo: width > TEXT_WIDTH ? TEXT_WIDTH : null,

@@ -5,15 +5,16 @@ import { SpeciesCautions } from '#src/features/species/components/species-cautio
 
 /**
  * Everything on a lot's page that can hurt someone, at the top where a phone shows it first:
- * treated seed and swaps (from the lot), poisonous seed (from its species).
+ * treated seed and swaps (from the lot), poisonous seed (from its species). On a phone each shows its
+ * title, and opens its text with a tap, so the lot's advice still starts in the first screen.
  */
 export function LotPageCautions({ lot, species }: { lot: LotDto; species: SpeciesDto | undefined }) {
   const poisonous = species?.traits.poisonous === true;
   if (!lot.treated && lot.origin !== 'swapped' && !poisonous) return null;
   return (
-    <div className="mb-6 grid gap-2" aria-label="Cautions for this lot" role="group">
-      <LotCautions lot={lot} />
-      {species ? <SpeciesCautions species={species} /> : null}
+    <div className="mb-4 grid gap-2 sm:mb-6" aria-label="Cautions for this lot" role="group">
+      <LotCautions lot={lot} foldOnPhone />
+      {species ? <SpeciesCautions species={species} foldOnPhone /> : null}
     </div>
   );
 }

@@ -60,6 +60,17 @@ export function LotPage() {
     ),
   );
 
+  const actions = (
+    <>
+      <PrintLabelLink bankId={bank.id} lotIds={[lot.id]} />
+      {canEdit ? (
+        <Link to={paths.newLot.getHref(bank.id)} className={buttonStyles({ variant: 'secondary' })}>
+          New lot
+        </Link>
+      ) : null}
+    </>
+  );
+
   return (
     <>
       <LotHeader
@@ -69,19 +80,34 @@ export function LotPage() {
             {bank.name} · Lots
           </Link>
         }
-        actions={
-          <>
-            <PrintLabelLink bankId={bank.id} lotIds={[lot.id]} />
-            {canEdit ? (
-              <Link to={paths.newLot.getHref(bank.id)} className={buttonStyles({ variant: 'secondary' })}>
-                New lot
-              </Link>
-            ) : null}
-          </>
-        }
+        actions={actions}
+        actionsHiddenOnPhone
       />
       <LotPageCautions lot={lot} species={species} />
-      <LotAdviceCard bankId={bank.id} lotId={lot.id} on={sowing.on} className="mb-6" />
+      {/*
+        At the bench, a phone opens on what to do with the lot: its decision with the projected
+        germination, and the seeds to sow (the Done-when of the phone layout is tested in
+        tests/e2e/lot-phone.test.ts). Everything else follows.
+      */}
+      <div
+        id="lot-bench"
+        className="mb-6 grid items-start gap-4 sm:gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]"
+      >
+        <LotAdviceCard bankId={bank.id} lotId={lot.id} on={sowing.on} />
+        <SeedsToSowCard
+          key={lot.id}
+          bankId={bank.id}
+          lotId={lot.id}
+          speciesId={lot.speciesId}
+          startMethod={species?.traits.startMethod}
+          on={sowing.on}
+          onChangeOn={sowing.setOn}
+          defaultAssurance={bank.sowingAssurance}
+          canEdit={canEdit}
+        />
+      </div>
+      {/* On a phone the page's actions come after the advice rather than before it. */}
+      <div className="mb-6 flex flex-wrap gap-2 sm:hidden">{actions}</div>
       <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="grid min-w-0 gap-6">
           <Card title="Photos">
@@ -124,17 +150,6 @@ export function LotPage() {
         </div>
 
         <div className="grid min-w-0 gap-6">
-          <SeedsToSowCard
-            key={lot.id}
-            bankId={bank.id}
-            lotId={lot.id}
-            speciesId={lot.speciesId}
-            startMethod={species?.traits.startMethod}
-            on={sowing.on}
-            onChangeOn={sowing.setOn}
-            defaultAssurance={bank.sowingAssurance}
-            canEdit={canEdit}
-          />
           <StorageAdviceCard
             bankId={bank.id}
             lotId={lot.id}

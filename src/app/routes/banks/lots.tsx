@@ -17,13 +17,9 @@ export function LotsPage() {
   // The first page of all lots (retired ones too) tells an empty bank from one with nothing to rank.
   const lots = useLots(bank.id, {});
 
-  const actions = (
+  // The spreadsheet links: beside "New lot" on wide screens, below the lots on a phone.
+  const csv = (
     <>
-      {canEdit ? (
-        <Link to={paths.newLot.getHref(bank.id)} className={buttonStyles()}>
-          New lot
-        </Link>
-      ) : null}
       <a href={bankPaths.lotsCsv(bank.id)} download className={buttonStyles({ variant: 'secondary' })}>
         Export lots CSV
       </a>
@@ -37,6 +33,16 @@ export function LotsPage() {
       ) : null}
     </>
   );
+  const actions = (
+    <>
+      {canEdit ? (
+        <Link to={paths.newLot.getHref(bank.id)} className={buttonStyles()}>
+          New lot
+        </Link>
+      ) : null}
+      <span className="hidden flex-wrap gap-2 sm:flex">{csv}</span>
+    </>
+  );
 
   const isEmptyBank = lots.isSuccess && lots.data.pages.every((p) => p.items.length === 0);
 
@@ -45,7 +51,12 @@ export function LotsPage() {
       <PageHeader
         eyebrow={bank.name}
         title="Lots"
-        description="Every lot ranked by its projected germination on the coming sowing date, with what to do with it: test first, sow, sow thick, retest, grow out or retire."
+        description={
+          <span className="hidden sm:inline">
+            Every lot ranked by its projected germination on the coming sowing date, with what to do with it:
+            test first, sow, sow thick, retest, grow out or retire.
+          </span>
+        }
         actions={actions}
       />
       <LotsSubnav bankId={bank.id} />
@@ -81,6 +92,7 @@ export function LotsPage() {
           selectionActions={(lotIds) => <PrintLabelLink bankId={bank.id} lotIds={lotIds} />}
         />
       )}
+      <div className="mt-6 flex flex-wrap gap-2 sm:hidden">{csv}</div>
     </>
   );
 }

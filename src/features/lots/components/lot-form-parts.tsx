@@ -21,9 +21,9 @@ export function friendlyNumberError(issue: { code?: string; expected?: unknown; 
   return undefined;
 }
 
-export function SwapCaution() {
+export function SwapCaution({ foldOnPhone }: { foldOnPhone?: boolean }) {
   return (
-    <Caution title="Swapping across regions or borders">
+    <Caution title="Swapping across regions or borders" foldOnPhone={foldOnPhone}>
       Rules on noxious weeds and on bringing seed in vary between countries, states and regions. Check your
       local regulations (or ask your extension service) before sending or receiving seed.
     </Caution>
@@ -31,9 +31,9 @@ export function SwapCaution() {
 }
 
 /** Seed sold coated with a fungicide or another treatment: how to handle it safely. */
-export function TreatedCaution() {
+export function TreatedCaution({ foldOnPhone }: { foldOnPhone?: boolean }) {
   return (
-    <Caution title="Treated seed: handle with care">
+    <Caution title="Treated seed: handle with care" foldOnPhone={foldOnPhone}>
       <p>
         The coating is usually a fungicide, and it stays on the seed. Wear gloves when you handle or sow it,
         and wash your hands afterwards. Keep the packet away from children, pets and food. Never eat the seed,

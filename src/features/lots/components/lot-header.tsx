@@ -9,10 +9,12 @@ export function LotHeader({
   lot,
   eyebrow,
   actions,
+  actionsHiddenOnPhone,
 }: {
   lot: LotDto;
   eyebrow?: ReactNode;
   actions?: ReactNode;
+  actionsHiddenOnPhone?: boolean;
 }) {
   return (
     <PageHeader
@@ -33,6 +35,7 @@ export function LotHeader({
         </>
       }
       actions={actions}
+      actionsHiddenOnPhone={actionsHiddenOnPhone}
     />
   );
 }

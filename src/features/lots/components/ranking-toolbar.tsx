@@ -3,6 +3,7 @@ import { useEffect, useRef, useState } from 'react';
 import type { RankingItem } from '#shared/schemas/viability';
 import { SelectField } from '#src/components/ui/select-field';
 import { TextField } from '#src/components/ui/text-field';
+import { cn } from '#src/lib/cn';
 import { columnMeta } from './ranking-columns';
 import { rankingStatusSchema, type RankingColumnId, type RankingView } from './ranking-search';
 import { recommendationLabels, recommendationOrder } from '#src/components/viability/viability-format';
@@ -33,6 +34,11 @@ export function RankingToolbar({ view, onChange, on, defaultOn, species }: Ranki
     const timer = setTimeout(() => onChange({ ...view, q: trimmed || undefined }), 300);
     return () => clearTimeout(timer);
   }, [q, view, onChange]);
+  // On a phone the filters fold behind one button so that the lots start in the first screen.
+  const [filtersOpen, setFiltersOpen] = useState(false);
+  const filtersSet = [view.speciesId, view.recommendation, view.status, view.origin, view.on].filter(
+    (v) => v !== undefined,
+  ).length;
 
   return (
     <form
@@ -52,64 +58,81 @@ export function RankingToolbar({ view, onChange, on, defaultOn, species }: Ranki
         value={q}
         onChange={(event) => setQ(event.target.value)}
       />
-      <SelectField
-        label="Species"
-        value={view.speciesId ?? ''}
-        onChange={(event) => onChange({ ...view, speciesId: event.target.value || undefined })}
+      <button
+        type="button"
+        aria-expanded={filtersOpen}
+        aria-controls="ranking-filters"
+        onClick={() => setFiltersOpen((o) => !o)}
+        className="col-span-2 inline-flex min-h-11 items-center justify-between gap-2 rounded-lg border border-loam-300 bg-white px-3 font-semibold text-loam-900 hover:bg-husk-100 md:hidden"
       >
-        <option value="">All species</option>
-        {species.map((s) => (
-          <option key={s.id} value={s.id}>
-            {s.name}
-          </option>
-        ))}
-      </SelectField>
-      <SelectField
-        label="Advice"
-        value={view.recommendation ?? ''}
-        onChange={(event) =>
-          onChange({ ...view, recommendation: recommendationSchema.safeParse(event.target.value).data })
-        }
-      >
-        <option value="">Any advice</option>
-        {recommendationOrder.map((r) => (
-          <option key={r} value={r}>
-            {recommendationLabels[r]}
-          </option>
-        ))}
-      </SelectField>
-      <SelectField
-        label="Status"
-        value={view.status ?? ''}
-        onChange={(event) =>
-          onChange({ ...view, status: rankingStatusSchema.safeParse(event.target.value).data })
-        }
-      >
-        <option value="">Any status</option>
-        <option value="active">Active</option>
-        <option value="depleted">Used up</option>
-      </SelectField>
-      <SelectField
-        label="Origin"
-        value={view.origin ?? ''}
-        onChange={(event) => onChange({ ...view, origin: originSchema.safeParse(event.target.value).data })}
-      >
-        <option value="">Any origin</option>
-        <option value="saved">Saved</option>
-        <option value="swapped">Swapped</option>
-        <option value="bought">Bought</option>
-      </SelectField>
-      <TextField
-        label="Sowing date"
-        type="date"
-        required={false}
-        value={on}
-        onChange={(event) => {
-          const value = event.target.value;
-          // An emptied date field goes back to the coming sowing date.
-          onChange({ ...view, on: value && value !== defaultOn ? value : undefined });
-        }}
-      />
+        <span>
+          Filters and sowing date
+          {filtersSet ? <span className="font-normal text-loam-700"> ({filtersSet} set)</span> : null}
+        </span>
+        <span aria-hidden="true" className="text-loam-600">
+          {filtersOpen ? '▴' : '▾'}
+        </span>
+      </button>
+      <div id="ranking-filters" className={cn(filtersOpen ? 'contents' : 'hidden md:contents')}>
+        <SelectField
+          label="Species"
+          value={view.speciesId ?? ''}
+          onChange={(event) => onChange({ ...view, speciesId: event.target.value || undefined })}
+        >
+          <option value="">All species</option>
+          {species.map((s) => (
+            <option key={s.id} value={s.id}>
+              {s.name}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField
+          label="Advice"
+          value={view.recommendation ?? ''}
+          onChange={(event) =>
+            onChange({ ...view, recommendation: recommendationSchema.safeParse(event.target.value).data })
+          }
+        >
+          <option value="">Any advice</option>
+          {recommendationOrder.map((r) => (
+            <option key={r} value={r}>
+              {recommendationLabels[r]}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField
+          label="Status"
+          value={view.status ?? ''}
+          onChange={(event) =>
+            onChange({ ...view, status: rankingStatusSchema.safeParse(event.target.value).data })
+          }
+        >
+          <option value="">Any status</option>
+          <option value="active">Active</option>
+          <option value="depleted">Used up</option>
+        </SelectField>
+        <SelectField
+          label="Origin"
+          value={view.origin ?? ''}
+          onChange={(event) => onChange({ ...view, origin: originSchema.safeParse(event.target.value).data })}
+        >
+          <option value="">Any origin</option>
+          <option value="saved">Saved</option>
+          <option value="swapped">Swapped</option>
+          <option value="bought">Bought</option>
+        </SelectField>
+        <TextField
+          label="Sowing date"
+          type="date"
+          required={false}
+          value={on}
+          onChange={(event) => {
+            const value = event.target.value;
+            // An emptied date field goes back to the coming sowing date.
+            onChange({ ...view, on: value && value !== defaultOn ? value : undefined });
+          }}
+        />
+      </div>
     </form>
   );
 }

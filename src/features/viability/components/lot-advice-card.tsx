@@ -1,3 +1,4 @@
+import { useLayoutEffect, useRef, useState } from 'react';
 import type { ViabilityResponse } from '#shared/schemas/viability';
 import { Card } from '#src/components/ui/card';
 import { FormAlert } from '#src/components/ui/form-alert';
@@ -7,6 +8,7 @@ import { useLotViability } from '../api/get-lot-viability';
 import { ProjectionBar } from '#src/components/viability/projection-bar';
 import { RecommendationBadge } from '#src/components/viability/recommendation-badge';
 import { pct } from '#src/components/viability/viability-format';
+import { cn } from '#src/lib/cn';
 
 export interface LotAdviceCardProps {
   bankId: string;
@@ -59,9 +61,55 @@ export function ProjectionWords({ viability: v }: { viability: ViabilityResponse
           aria-hidden="true"
           className="mr-1.5 inline-block h-4 w-0 border-l-2 border-dashed border-clay-700 align-middle"
         />
-        Dashed mark: the {pct(v.threshold)} this lot is held to (its species’ published minimum, or the bank’s
-        own threshold).
+        Dashed mark: the {pct(v.threshold)} this lot is held to
+        <span className="hidden sm:inline">
+          {' '}
+          (its species’ published minimum, or the bank’s own threshold)
+        </span>
+        .
       </p>
+    </div>
+  );
+}
+
+/**
+ * The advice's reason. On a phone a long one shows its first three lines and opens with a tap, so
+ * that the seeds to sow still come in the first screen; wider screens show it whole.
+ */
+function AdviceReason({ reason }: { reason: string }) {
+  const ref = useRef<HTMLParagraphElement>(null);
+  const [open, setOpen] = useState(false);
+  const [cut, setCut] = useState(false);
+  useLayoutEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    const measure = () => setCut(el.scrollHeight > el.clientHeight + 1);
+    measure();
+    const observer = new ResizeObserver(measure);
+    observer.observe(el);
+    return () => observer.disconnect();
+  }, [reason]);
+  return (
+    <div>
+      <p
+        ref={ref}
+        id="advice-reason"
+        className={cn('text-loam-900', !open && 'max-sm:line-clamp-3')}
+        data-testid="advice-reason"
+      >
+        {reason}
+      </p>
+      {cut || open ? (
+        <button
+          type="button"
+          aria-expanded={open}
+          aria-controls="advice-reason"
+          onClick={() => setOpen((o) => !o)}
+          className="-mx-2 min-h-11 rounded px-2 text-sm font-semibold text-moss-800 underline sm:hidden"
+        >
+          {open ? 'Show less' : 'The whole reason'}
+        </button>
+      ) : null}
     </div>
   );
 }
@@ -76,9 +124,12 @@ export function LotAdviceCard({ bankId, lotId, on, className }: LotAdviceCardPro
       className={className}
       title={`Advice for sowing on ${formatDay(on)}`}
       description={
-        query.isPlaceholderData
-          ? 'Updating for the new date…'
-          : 'The same advice as in the ranking, with its reason.'
+        query.isPlaceholderData ? (
+          'Updating for the new date…'
+        ) : (
+          // A phone keeps its first screen for the advice itself.
+          <span className="hidden sm:inline">The same advice as in the ranking, with its reason.</span>
+        )
       }
     >
       {query.isPending ? (
@@ -88,12 +139,10 @@ export function LotAdviceCard({ bankId, lotId, on, className }: LotAdviceCardPro
       ) : v ? (
         <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_minmax(0,1fr)] md:gap-6">
           <div className="grid content-start gap-2">
-            <p>
+            <p data-testid="advice-decision">
               <RecommendationBadge value={v.recommendation} className="text-base" />
             </p>
-            <p className="text-loam-900" data-testid="advice-reason">
-              {v.reason}
-            </p>
+            <AdviceReason reason={v.reason} />
           </div>
           <ProjectionWords viability={v} />
         </div>

@@ -76,7 +76,14 @@ export function SeedsToSowCard({
   const start = startMethod === 'direct' ? 'direct' : 'indoors';
 
   return (
-    <Card title="Seeds to sow" description="How many seeds of this lot to sow so that enough plants come up.">
+    <Card
+      title="Seeds to sow"
+      description={
+        <span className="hidden sm:inline">
+          How many seeds of this lot to sow so that enough plants come up.
+        </span>
+      }
+    >
       <form className="grid gap-4" onSubmit={(event) => event.preventDefault()}>
         {retire ? (
           <FormAlert tone="info" title="No seeds to sow: this lot is to retire">
