@@ -65,7 +65,7 @@ describe('germination tests through the API', () => {
       .post(`${base()}/lots/${lotId}/tests`)
       .send({ startDate: '2025-09-01', method: 'paper towel', trays: [{ seedsSown: 50 }] });
     expect(res.status).toBe(422);
-    expect(res.body.error.message).toMatch(/before lot .* was harvested \(2025-09-10\)/);
+    expect(res.body.error.message).toMatch(/before lot .* was harvested \(10 Sep 2025\)/);
     expect(res.body.error.fields).toEqual({ startDate: 'Use a date on or after the harvest.' });
     expect((await bank.viewer.agent.get(`${base()}/lots/${lotId}`)).body.lot.seedsOnHand).toBe(300);
     // The harvest day itself is fine.
@@ -78,7 +78,7 @@ describe('germination tests through the API', () => {
       .patch(`${base()}/lots/${lotId}`)
       .send({ harvestDate: '2025-09-20' });
     expect(moved.status).toBe(422);
-    expect(moved.body.error.fields.harvestDate).toBe('Use a day on or before 2025-09-10.');
+    expect(moved.body.error.fields.harvestDate).toBe('Use a day on or before 10 Sep 2025.');
     expect((await bank.viewer.agent.get(`${base()}/lots/${lotId}`)).body.lot.harvestDate).toBe('2025-09-10');
   });
 
@@ -155,7 +155,7 @@ describe('germination tests through the API', () => {
       const { send, nothingSaved } = await countedAssay();
       const below = await send('2026-03-11', 60);
       expect(below.status).toBe(422);
-      expect(below.body.error.message).toMatch(/Tray 2: 60 is fewer than the 70 counted on 2026-03-10/);
+      expect(below.body.error.message).toMatch(/Tray 2: 60 is fewer than the 70 counted on 10 Mar 2026/);
       await nothingSaved();
     });
 
@@ -215,10 +215,10 @@ describe('germination tests through the API', () => {
       /^Tray 2: 101 seedlings are more than the 100 seeds sown/,
     );
     expect(bad.body.error.fields['trays.2.cumulative']).toMatch(
-      /^Tray 3: 30 is fewer than the 35 counted on 2026-03-06/,
+      /^Tray 3: 30 is fewer than the 35 counted on 6 Mar 2026/,
     );
     expect(bad.body.error.fields['trays.3.cumulative']).toMatch(
-      /^Tray 4: 55 is more than the 50 counted later, on 2026-03-12/,
+      /^Tray 4: 55 is more than the 50 counted later, on 12 Mar 2026/,
     );
     for (const reason of Object.values(bad.body.error.fields))
       expect(bad.body.error.message).toContain(reason);

@@ -131,9 +131,9 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
       const tray3 = page.locator('li[data-tray="3"]');
       await expect
         .poll(() => tray2.getByRole('alert').innerText())
-        .toMatch(/^Tray 2: 10 is fewer than the 12 counted on 2026-03-10/);
+        .toMatch(/^Tray 2: 10 is fewer than the 12 counted on 10 Mar 2026/);
       expect(await tray3.getByRole('alert').innerText()).toMatch(
-        /^Tray 3: 8 is fewer than the 9 counted on 2026-03-10/,
+        /^Tray 3: 8 is fewer than the 9 counted on 10 Mar 2026/,
       );
       expect(await tray2.getByRole('alert').innerText()).not.toContain('Tray 3');
       for (const n of [1, 4])

@@ -224,7 +224,7 @@ describe('germination tests CSV, import checks', () => {
         {
           line: 2,
           column: 'start_date',
-          message: expect.stringMatching(/before lot TOM-1 was harvested \(2026-02-10\)/),
+          message: expect.stringMatching(/before lot TOM-1 was harvested \(10 Feb 2026\)/),
         },
       ],
     });

@@ -10,6 +10,7 @@ import { runningAssays } from '../reminders/reminders.shared.repository';
 import { checkDays } from '../reminders/reminders.service';
 import { listSpecies } from '../species/species.shared.repository';
 import * as repo from './calendar.repository';
+import { dayInWords } from '#shared/day-words';
 
 /** A feed token as this service makes it: 32 bytes of HMAC-SHA256 in base64url. */
 const TOKEN = /^[A-Za-z0-9_-]{43}$/;
@@ -53,7 +54,7 @@ export function createCalendarService({ db, clock, plan, secret, appOrigin }: Ca
           title: `Count test ${t.code}${sp ? ` (${sp.commonName})` : ''}, day ${day}`,
           from: on,
           to: on,
-          description: `Day ${day} of the germination test started ${t.start_date}: count the normal seedlings in each tray.`,
+          description: `Day ${day} of the germination test started ${dayInWords(t.start_date)}: count the normal seedlings in each tray.`,
         };
       });
     });

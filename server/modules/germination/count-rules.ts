@@ -5,6 +5,7 @@ import {
   type CountsBody,
   type RoughScore,
 } from '#shared/schemas/germination';
+import { dayInWords } from '#shared/day-words';
 
 export interface CountProblem {
   /** The body path it is about, as in the error's `fields`: `trays.<index>.cumulative` or `.trayId`. */
@@ -46,17 +47,17 @@ function scoreProblem(
     return `${label} has counts on other check days: count it on this day too, or remove its counts before scoring it roughly.`;
   }
   if (date === startDate && score !== 'none') {
-    return `${label}: seedlings scored on the day the test started (${startDate}). Score on a later day, or give "none".`;
+    return `${label}: seedlings scored on the day the test started (${dayInWords(startDate)}). Score on a later day, or give "none".`;
   }
   const rank = ROUGH_SCORE_ORDER.indexOf(score);
   const mine = saved.filter((c) => c.tray_id === tray.id);
   const before = mine.filter((c) => c.check_date < date).at(-1);
   const after = mine.find((c) => c.check_date > date);
   if (before && rank < ROUGH_SCORE_ORDER.indexOf(before.score)) {
-    return `${label}: "${ROUGH_SCORE_WORDS[score]}" is fewer than the "${ROUGH_SCORE_WORDS[before.score]}" scored on ${before.check_date}. Scores are of all the seedlings so far.`;
+    return `${label}: "${ROUGH_SCORE_WORDS[score]}" is fewer than the "${ROUGH_SCORE_WORDS[before.score]}" scored on ${dayInWords(before.check_date)}. Scores are of all the seedlings so far.`;
   }
   if (after && rank > ROUGH_SCORE_ORDER.indexOf(after.score)) {
-    return `${label}: "${ROUGH_SCORE_WORDS[score]}" is more than the "${ROUGH_SCORE_WORDS[after.score]}" scored later, on ${after.check_date}. Correct that later score first.`;
+    return `${label}: "${ROUGH_SCORE_WORDS[score]}" is more than the "${ROUGH_SCORE_WORDS[after.score]}" scored later, on ${dayInWords(after.check_date)}. Correct that later score first.`;
   }
   return null;
 }
@@ -75,16 +76,16 @@ function trayProblem(
   if (aboveSown) return aboveSown;
   // Day 0: nothing has had time to sprout, and the timing statistics cannot place it.
   if (date === startDate && cumulative > 0) {
-    return `${label}: ${cumulative} seedlings on the day the test started (${startDate}). Count on a later day, or give 0.`;
+    return `${label}: ${cumulative} seedlings on the day the test started (${dayInWords(startDate)}). Count on a later day, or give 0.`;
   }
   const mine = saved.filter((c) => c.tray_id === tray.id);
   const before = mine.filter((c) => c.check_date < date).at(-1);
   const after = mine.find((c) => c.check_date > date);
   if (before && cumulative < before.cumulative) {
-    return `${label}: ${cumulative} is fewer than the ${before.cumulative} counted on ${before.check_date}. Counts are cumulative: give the total seedlings so far, at least ${before.cumulative}.`;
+    return `${label}: ${cumulative} is fewer than the ${before.cumulative} counted on ${dayInWords(before.check_date)}. Counts are cumulative: give the total seedlings so far, at least ${before.cumulative}.`;
   }
   if (after && cumulative > after.cumulative) {
-    return `${label}: ${cumulative} is more than the ${after.cumulative} counted later, on ${after.check_date}. Correct that later count first, or give at most ${after.cumulative}.`;
+    return `${label}: ${cumulative} is more than the ${after.cumulative} counted later, on ${dayInWords(after.check_date)}. Correct that later count first, or give at most ${after.cumulative}.`;
   }
   return null;
 }
@@ -190,5 +191,5 @@ export function startBeforeHarvest(
   lotCode: string,
 ): string | null {
   if (harvestDate === null || startDate >= harvestDate) return null;
-  return `The test starts on ${startDate}, before lot ${lotCode} was harvested (${harvestDate}). Check the start date, or the lot's harvest date.`;
+  return `The test starts on ${dayInWords(startDate)}, before lot ${lotCode} was harvested (${dayInWords(harvestDate)}). Check the start date, or the lot's harvest date.`;
 }

@@ -29,6 +29,7 @@ import { countProblems, finishProblem, startBeforeHarvest, uncountedAtFinish } f
 import { resultWords } from './result-words';
 import { estimateSown } from './tray-sown';
 import { RESULT_VERSION, storeResult } from './assay-results';
+import { dayInWords } from '#shared/day-words';
 
 const num = (v: string | null) => (v === null ? null : Number(v));
 
@@ -292,9 +293,12 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         const t = await loadAssay(trx, bankId, assayId, true);
         assertRunning(t);
         if (body.date < t.start_date) {
-          throw unprocessable(`A count cannot be dated before the test started (${t.start_date}).`, {
-            date: 'Use a date on or after the start.',
-          });
+          throw unprocessable(
+            `A count cannot be dated before the test started (${dayInWords(t.start_date)}).`,
+            {
+              date: 'Use a date on or after the start.',
+            },
+          );
         }
         if (body.date > (await today(trx, bankId)))
           throw unprocessable('A count cannot be dated in the future.', {
@@ -331,7 +335,7 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         assertRunning(t);
         const trayIds = await repo.trayIdsOf(trx, assayId);
         const removed = await repo.deleteCountsOn(trx, trayIds, date);
-        if (removed === 0) throw notFound(`No counts on ${date}.`);
+        if (removed === 0) throw notFound(`No counts on ${dayInWords(date)}.`);
         await storeResult(trx, assayId);
       });
       return detail(bankId, assayId);
@@ -351,8 +355,8 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
             .sort()
             .at(-1) ?? t.start_date;
         if (body.date < lastDate)
-          throw unprocessable(`The test cannot finish before its last count (${lastDate}).`, {
-            date: `On or after ${lastDate}.`,
+          throw unprocessable(`The test cannot finish before its last count (${dayInWords(lastDate)}).`, {
+            date: `On or after ${dayInWords(lastDate)}.`,
           });
         if (body.date > (await today(trx, bankId)))
           throw unprocessable('A test cannot finish in the future.', {

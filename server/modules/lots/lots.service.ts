@@ -19,6 +19,7 @@ import * as repo from './lots.repository';
 import type { Insertable, Updateable } from 'kysely';
 import crypto from 'node:crypto';
 import { inBatches } from '#server/db/batches';
+import { dayInWords } from '#shared/day-words';
 
 function uniqueViolation(error: unknown): boolean {
   return (error as { code?: string }).code === '23505';
@@ -62,9 +63,9 @@ async function checkHarvestChange(
   const first = await repo.firstAssayStart(trx, lotId);
   if (first && harvestDate > first.start_date) {
     throw unprocessable(
-      `A germination test of this lot started on ${first.start_date}, before that harvest date.`,
+      `A germination test of this lot started on ${dayInWords(first.start_date)}, before that harvest date.`,
       {
-        harvestDate: `Use a day on or before ${first.start_date}.`,
+        harvestDate: `Use a day on or before ${dayInWords(first.start_date)}.`,
       },
     );
   }
