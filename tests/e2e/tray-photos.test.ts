@@ -67,8 +67,10 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
     j.step('photograph tray 2', async (page) => {
       await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${assayId}`);
       const card = trayPhotos(page);
-      await card.getByRole('button', { name: 'Tray 2' }).tap();
-      expect(await card.getByRole('button', { name: 'Tray 2' }).getAttribute('aria-pressed')).toBe('true');
+      await card.getByRole('button', { name: 'Tray 2', exact: true }).tap();
+      expect(
+        await card.getByRole('button', { name: 'Tray 2', exact: true }).getAttribute('aria-pressed'),
+      ).toBe('true');
       const file = path.join(tmp, 'tray-2.jpg');
       fs.writeFileSync(file, await jpeg({ width: 800, height: 600 }));
       await card.getByLabel('Add a photo').setInputFiles(file);
@@ -90,7 +92,7 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
     });
     j.step('tray 1 has none', async (page) => {
       const card = trayPhotos(page);
-      await card.getByRole('button', { name: 'Tray 1' }).tap();
+      await card.getByRole('button', { name: 'Tray 1', exact: true }).tap();
       await expect.poll(() => card.getByText('No photos yet.').count()).toBe(1);
       expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(
         PHONE.width,
@@ -106,10 +108,12 @@ describe.skipIf(!chromiumPath)('tray photos on the test page in Chromium', () =>
       await signIn(viewerPage, viewer.email);
       await viewerPage.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/tests/${assayId}`);
       const card = trayPhotos(viewerPage);
-      await card.getByRole('button', { name: 'Tray 2' }).tap();
+      await card.getByRole('button', { name: 'Tray 2', exact: true }).tap();
       // The tap chose tray 2: a tap once landed elsewhere when the chart above arrived and pushed the
       // buttons down (the chart's place is now kept while it loads).
-      expect(await card.getByRole('button', { name: 'Tray 2' }).getAttribute('aria-pressed')).toBe('true');
+      expect(
+        await card.getByRole('button', { name: 'Tray 2', exact: true }).getAttribute('aria-pressed'),
+      ).toBe('true');
       await card.getByRole('img', { name: /^Tray 2 of the PEP-/ }).waitFor();
       expect(await card.getByLabel('Add a photo').count()).toBe(0);
       await viewerContext.close();

@@ -186,7 +186,7 @@ describe('germination tests CSV, import checks', () => {
     expect(rows).toEqual([
       [2, 'ungerminated', 'Tray 1: 6 normal + 1 abnormal + 2 ungerminated = 9, but 10 seeds were sown.'],
       [3, 'finished_on', expect.stringMatching(/give finished_on too/)],
-      [4, 'finished_on', 'Test "early" cannot finish before its last count (2026-02-09).'],
+      [4, 'finished_on', 'Test "early" cannot finish before its last count (9 Feb 2026).'],
     ]);
   });
 

@@ -38,6 +38,7 @@
  * - Imported tests are history: their seeds are not withdrawn from the lot's stock ledger, because
  *   the lot's seeds on hand already reflect them (the service says so too).
  */
+import { dayInWords } from '#shared/day-words';
 import { z } from 'zod';
 import {
   createAssayBodySchema,
@@ -345,7 +346,7 @@ function recordErrors(context: AssayCsvContext, c: z.infer<typeof recordSchema>,
       errors.push({
         line,
         column,
-        message: `${date} is after today (${context.today} in the bank's time zone).`,
+        message: `${date} is after today (${dayInWords(context.today)} in the bank's time zone).`,
       });
     }
   };
@@ -356,7 +357,7 @@ function recordErrors(context: AssayCsvContext, c: z.infer<typeof recordSchema>,
     errors.push({
       line,
       column: 'check_date',
-      message: `A count cannot be dated before the test started (${c.start_date}).`,
+      message: `A count cannot be dated before the test started (${dayInWords(c.start_date)}).`,
     });
   }
   return errors;
@@ -459,7 +460,7 @@ function checkAssay(
         errors.push({
           line: r.line,
           column: 'check_date',
-          message: `Tray ${position} is already counted on ${r.check_date}, on line ${earlier}.`,
+          message: `Tray ${position} is already counted on ${dayInWords(r.check_date)}, on line ${earlier}.`,
         });
         continue;
       }
@@ -607,7 +608,7 @@ function finishErrors(
     errors.push({
       line: first.line,
       column: 'finished_on',
-      message: `${what} cannot finish before its last count (${notBefore}).`,
+      message: `${what} cannot finish before its last count (${dayInWords(notBefore)}).`,
     });
   }
   for (const tray of trays) {

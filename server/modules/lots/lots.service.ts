@@ -150,7 +150,7 @@ function importProblems(rows: ParsedLotCsvRow[], taken: Set<string>, today: stri
           {
             line: r.line,
             column: 'harvest_date',
-            message: `${r.harvestDate} is after today (${today} in the bank's time zone); use the day the seed was harvested.`,
+            message: `${r.harvestDate} is after today (${dayInWords(today)} in the bank's time zone); use the day the seed was harvested.`,
           },
         ]
       : []),
