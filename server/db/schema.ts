@@ -47,6 +47,8 @@ export interface MembershipTable {
   remind_checks: ColumnType<boolean | null, boolean | null | undefined, boolean | null>;
   remind_retest: ColumnType<boolean | null, boolean | null | undefined, boolean | null>;
   remind_digest: ColumnType<boolean | null, boolean | null | undefined, boolean | null>;
+  /** The local hour (0–23, in the bank's time zone) this member's reminders go out from. */
+  remind_hour: ColumnType<number, number | undefined, number>;
 }
 
 export type ReminderKind = 'sowing' | 'check' | 'retest' | 'digest';
@@ -64,6 +66,11 @@ export interface ReminderTable {
   sending_since: Date | null;
   sent_at: Date | null;
   created_at: Timestamp;
+  /** The germination test a check-day reminder is about. */
+  test_id: ColumnType<string | null, string | null | undefined, string | null>;
+  /** Set instead of `sent_at` when the send found the reminder no longer needed. */
+  skipped_at: ColumnType<Date | null, Date | null | undefined, Date | null>;
+  skip_reason: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 export interface AppMetaTable {
@@ -277,6 +284,8 @@ export interface GerminationTestTable {
   status: ColumnType<'running' | 'finished', 'running' | 'finished' | undefined, 'running' | 'finished'>;
   finished_on: string | null;
   created_by: string | null;
+  /** The member running the test, whom its check-day reminders go to; on insert, its starter. */
+  run_by: ColumnType<string | null, string | null | undefined, string | null>;
   created_at: Timestamp;
   updated_at: Timestamp;
   /** The stored result (summarizeTest's AssaySummary as JSON), written with every change to the test. */

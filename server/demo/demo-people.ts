@@ -5,6 +5,8 @@ import type { Role } from '../db/schema';
 // Everything here is an invented scenario for the demo: no real people, places or data.
 export const DEMO_PASSWORD = 'hilum-demo-seeds';
 export const DEMO_BANK_NAME = 'Larkspur Hollow Seed Circle';
+/** The demo bank's time zone (an IANA name; the town itself is invented). */
+export const DEMO_TIME_ZONE = 'Europe/Helsinki';
 export const DEMO_ACCOUNTS: { email: string; name: string; role: Role }[] = [
   { email: 'keeper@example.org', name: 'Wren Okafor-Lind', role: 'owner' },
   { email: 'grower@example.org', name: 'Tamsin Reyes', role: 'grower' },
@@ -28,7 +30,15 @@ export async function addDemoPeople(db: Db, hasher: PasswordHasher = argon2idHas
   await db.transaction().execute(async (trx) => {
     const bank = await trx
       .insertInto('banks')
-      .values({ name: DEMO_BANK_NAME, last_frost: '05-24', first_frost: '09-18', frost_margin_days: 10 })
+      .values({
+        name: DEMO_BANK_NAME,
+        last_frost: '05-24',
+        first_frost: '09-18',
+        frost_margin_days: 10,
+        // A real IANA zone with a short growing season, so "today" and the members' reminder hours
+        // are the bank's own wall clock rather than UTC's.
+        time_zone: DEMO_TIME_ZONE,
+      })
       .returning('id')
       .executeTakeFirstOrThrow();
     for (const account of DEMO_ACCOUNTS) {

@@ -115,6 +115,10 @@ export const updateAssayBodySchema = z
     pretreatment: pretreatmentSchema,
     pretreatmentDays: z.number().int().min(0).max(365).nullable(),
     notes: z.string().trim().max(4000).nullable(),
+    runnerId: idSchema.meta({
+      description:
+        'The member who runs the test from now on (an owner or grower of the bank; 422 for anyone else): its check-day reminders go to them.',
+    }),
   })
   .partial()
   .refine((b) => Object.keys(b).length > 0, { message: 'Nothing to change.' });
@@ -253,6 +257,13 @@ export const assaySchema = z.object({
   setAsideReason: z.string().nullable(),
   /** Seeds the test took from the lot's stock ledger (0 for a test imported as history). */
   seedsTaken: z.number(),
+  /** The member running the test (the one who started it unless changed): its check-day reminders go to them. */
+  runnerId: idSchema.nullable().meta({
+    description:
+      "The member running the test: the one who started it unless changed (PATCH `runnerId`). Its check-day reminders go to them alone; null when that account is gone, and then they go to the bank's owners.",
+  }),
+  /** The runner's display name; null with `runnerId`. */
+  runnerName: z.string().nullable(),
   /** Suggested check dates from the species' first and final count days. */
   schedule: z.object({ firstCountDate: z.string().nullable(), finalCountDate: z.string().nullable() }),
   createdAt: z.string(),

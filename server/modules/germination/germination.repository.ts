@@ -9,9 +9,26 @@ function assaysWithLot(on: DbOrTx, bankId: string) {
     .selectFrom('germination_tests')
     .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
     .innerJoin('species', 'species.id', 'lots.species_id')
+    .leftJoin('users as runner', 'runner.id', 'germination_tests.run_by')
     .selectAll('germination_tests')
-    .select(['lots.code as lot_code', 'lots.variety', 'lots.species_id', 'species.common_name'])
+    .select([
+      'lots.code as lot_code',
+      'lots.variety',
+      'lots.species_id',
+      'species.common_name',
+      'runner.name as runner_name',
+    ])
     .where('germination_tests.bank_id', '=', bankId);
+}
+
+/** A member's role in the bank, or undefined for someone who is not a member. */
+export function memberRole(on: DbOrTx, bankId: string, userId: string) {
+  return on
+    .selectFrom('memberships')
+    .select('role')
+    .where('bank_id', '=', bankId)
+    .where('user_id', '=', userId)
+    .executeTakeFirst();
 }
 export type AssayWithLot = Awaited<ReturnType<ReturnType<typeof assaysWithLot>['executeTakeFirstOrThrow']>>;
 

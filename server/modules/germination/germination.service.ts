@@ -11,6 +11,7 @@ import {
   type updateAssayBodySchema,
 } from '#shared/schemas/germination';
 import { addDays, daysBetween } from '#shared/dates';
+import { roleAtLeast } from '#server/auth/bank-access';
 import { bankToday, type Clock } from '#server/clock';
 import type { Db, DbOrTx } from '#server/db/database';
 import type { GerminationTestTable, TestTrayTable } from '#server/db/schema';
@@ -154,6 +155,8 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         status: t.status,
         setAsideReason: t.set_aside_reason,
         seedsTaken,
+        runnerId: t.run_by,
+        runnerName: t.runner_name,
         schedule,
         createdAt: t.created_at.toISOString(),
       },
@@ -180,6 +183,19 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         ),
       },
     };
+  }
+
+  /** A test is run by someone who may count it: an owner or grower of the bank. */
+  async function assertRunner(on: DbOrTx, bankId: string, userId: string) {
+    const member = await repo.memberRole(on, bankId, userId);
+    if (!member || !roleAtLeast(member.role, 'grower')) {
+      throw unprocessable(
+        member
+          ? 'A viewer cannot run a test: choose an owner or grower of this bank.'
+          : 'That person is not a member of this bank: choose an owner or grower of this bank.',
+        { runnerId: 'Choose an owner or grower of this bank.' },
+      );
+    }
   }
 
   function assertRunning(t: { status: string }) {
@@ -282,6 +298,10 @@ export function createGerminationService({ db, clock, removeSubjectPhotos }: Ger
         if (body.pretreatment !== undefined) changes.pretreatment = body.pretreatment;
         if (body.pretreatmentDays !== undefined) changes.pretreatment_days = body.pretreatmentDays;
         if (body.notes !== undefined) changes.notes = body.notes;
+        if (body.runnerId !== undefined) {
+          await assertRunner(trx, bankId, body.runnerId);
+          changes.run_by = body.runnerId;
+        }
         await repo.updateAssay(trx, assayId, changes);
       });
       return detail(bankId, assayId);

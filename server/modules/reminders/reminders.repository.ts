@@ -1,20 +1,14 @@
 import { sql, type Insertable } from 'kysely';
 import type { DbOrTx } from '#server/db/database';
-import type { ReminderKind, ReminderTable } from '#server/db/schema';
+import type { ReminderTable } from '#server/db/schema';
 
 type PrefColumn = 'remind_sowing' | 'remind_checks' | 'remind_retest' | 'remind_digest';
-const PREF_OF: Record<ReminderKind, PrefColumn> = {
-  sowing: 'remind_sowing',
-  check: 'remind_checks',
-  retest: 'remind_retest',
-  digest: 'remind_digest',
-};
 
 /** A member's role and reminder choices in the bank. */
 export const memberChoices = (db: DbOrTx, bankId: string, userId: string) =>
   db
     .selectFrom('memberships')
-    .select(['role', 'remind_sowing', 'remind_checks', 'remind_retest', 'remind_digest'])
+    .select(['role', 'remind_sowing', 'remind_checks', 'remind_retest', 'remind_digest', 'remind_hour'])
     .where('bank_id', '=', bankId)
     .where('user_id', '=', userId)
     .executeTakeFirstOrThrow();
@@ -23,7 +17,7 @@ export const setMemberChoices = (
   db: DbOrTx,
   bankId: string,
   userId: string,
-  choices: Partial<Record<PrefColumn, boolean | null>>,
+  choices: Partial<Record<PrefColumn, boolean | null> & { remind_hour: number }>,
 ) =>
   db
     .updateTable('memberships')
@@ -32,8 +26,8 @@ export const setMemberChoices = (
     .where('user_id', '=', userId)
     .execute();
 
-/** The bank's members with their choice for this kind of reminder. */
-export const membersWithChoice = (db: DbOrTx, bankId: string, kind: ReminderKind) =>
+/** The bank's members with their reminder choices and hour. */
+export const bankMembers = (db: DbOrTx, bankId: string) =>
   db
     .selectFrom('memberships')
     .innerJoin('users', 'users.id', 'memberships.user_id')
@@ -42,7 +36,11 @@ export const membersWithChoice = (db: DbOrTx, bankId: string, kind: ReminderKind
       'users.email',
       'users.name',
       'memberships.role',
-      `memberships.${PREF_OF[kind]} as choice`,
+      'memberships.remind_sowing',
+      'memberships.remind_checks',
+      'memberships.remind_retest',
+      'memberships.remind_digest',
+      'memberships.remind_hour',
     ])
     .where('memberships.bank_id', '=', bankId)
     .execute();
@@ -73,16 +71,41 @@ export const runningAssays = (db: DbOrTx, bankId: string) =>
   db
     .selectFrom('germination_tests')
     .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
-    .select(['germination_tests.id', 'germination_tests.start_date', 'lots.code', 'lots.species_id'])
+    .select([
+      'germination_tests.id',
+      'germination_tests.start_date',
+      'germination_tests.run_by',
+      'lots.code',
+      'lots.species_id',
+    ])
     .where('germination_tests.bank_id', '=', bankId)
     .where('germination_tests.status', '=', 'running')
     .execute();
 
-/** The trays of these tests still counted (not set aside), in order. */
+/** A test a check-day reminder is about, as it is now; undefined once deleted. */
+export const assayNow = (db: DbOrTx, assayId: string) =>
+  db
+    .selectFrom('germination_tests')
+    .select(['bank_id', 'status', 'run_by'])
+    .where('id', '=', assayId)
+    .executeTakeFirst();
+
+/**
+ * The trays of these tests still counted (not set aside), in order, each with the latest date it
+ * was counted or scored on (null before its first count).
+ */
 export const traysToCount = (db: DbOrTx, assayIds: string[]) =>
   db
     .selectFrom('test_trays')
-    .select(['test_id', 'position', 'seeds_sown'])
+    .select([
+      'test_id',
+      'position',
+      'seeds_sown',
+      // greatest() passes over nulls: a tray counted on some days and scored on none still has a date.
+      sql<string | null>`greatest(
+        (select max(c.check_date) from tray_counts c where c.tray_id = test_trays.id),
+        (select max(s.check_date) from tray_scores s where s.tray_id = test_trays.id))`.as('last_counted'),
+    ])
     .where('test_id', 'in', assayIds)
     .where('set_aside_reason', 'is', null)
     .orderBy('position')
@@ -118,8 +141,9 @@ export const claimReminder = (db: DbOrTx, reminderId: string, now: Date, staleBe
     .set({ sending_since: now, attempts: sql`attempts + 1` })
     .where('id', '=', reminderId)
     .where('sent_at', 'is', null)
+    .where('skipped_at', 'is', null)
     .where((eb) => eb.or([eb('sending_since', 'is', null), eb('sending_since', '<', staleBefore)]))
-    .returning(['subject', 'body', 'user_id'])
+    .returning(['subject', 'body', 'user_id', 'kind', 'test_id', 'due_on'])
     .executeTakeFirst();
 
 export const userEmail = (db: DbOrTx, userId: string) =>
@@ -132,5 +156,13 @@ export const markReminderSent = (db: DbOrTx, reminderId: string, now: Date) =>
   db
     .updateTable('reminders')
     .set({ sent_at: now, sending_since: null })
+    .where('id', '=', reminderId)
+    .execute();
+
+/** A claimed reminder found no longer needed at its send: kept, with why, and never sent. */
+export const markReminderSkipped = (db: DbOrTx, reminderId: string, now: Date, reason: string) =>
+  db
+    .updateTable('reminders')
+    .set({ skipped_at: now, skip_reason: reason, sending_since: null })
     .where('id', '=', reminderId)
     .execute();

@@ -1,7 +1,8 @@
 import type { z } from 'zod';
-import type { reminderPrefsBodySchema } from '#shared/schemas/reminders';
+import { hourWords, type reminderPrefsBodySchema } from '#shared/schemas/reminders';
 import { addDays, daysBetween } from '#shared/dates';
 import { localNow } from '#shared/local-time';
+import { roleAtLeast } from '#server/auth/bank-access';
 import type { Clock } from '#server/clock';
 import type { Db, DbOrTx } from '#server/db/database';
 import { createReminderQueue, type ReminderQueueOptions } from '#server/jobs/reminders';
@@ -11,8 +12,6 @@ import { listSpecies } from '../species/species.shared.repository';
 import type { ViabilityService } from '../viability/viability.service';
 import * as repo from './reminders.repository';
 
-/** Reminders go out from this local hour: "the morning" a sowing window opens. */
-export const MORNING_HOUR = 7;
 /** A reminder missed while the server was down is still sent for this many days. */
 const CATCH_UP_DAYS = 2;
 /** A send that has not finished within this time is taken to have died, and may be retried. */
@@ -27,6 +26,50 @@ export function checkDays(first: number | null, final: number | null): number[] 
   return [...new Set([first, Math.round((first + final) / 2), final])];
 }
 
+type MemberRow = Awaited<ReturnType<typeof repo.bankMembers>>[number];
+
+/** A member as the reminders see them: whom to write to, which kinds they want, and from what hour. */
+export interface Recipient {
+  id: string;
+  email: string;
+  name: string;
+  role: Role;
+  hour: number;
+  wants: Record<ReminderKind, boolean>;
+}
+
+const recipientOf = (m: MemberRow): Recipient => ({
+  id: m.id,
+  email: m.email,
+  name: m.name,
+  role: m.role,
+  hour: m.remind_hour,
+  wants: {
+    sowing: wantsReminder(m.role, m.remind_sowing),
+    check: wantsReminder(m.role, m.remind_checks),
+    retest: wantsReminder(m.role, m.remind_retest),
+    digest: wantsReminder(m.role, m.remind_digest),
+  },
+});
+
+/**
+ * Whom a test's check-day reminder is for: the member running it while they may count it (an
+ * owner or grower of the bank); when they left the bank, became a viewer or their account is gone,
+ * the bank's owners, who can hand the test to someone else.
+ */
+export function checkRecipients<M extends { id: string; role: Role }>(members: M[], runBy: string | null): M[] {
+  const runner = members.find((m) => m.id === runBy && roleAtLeast(m.role, 'grower'));
+  return runner ? [runner] : members.filter((m) => m.role === 'owner');
+}
+
+/**
+ * Whether a check day's counts are saved: every tray still in the test has a count or a rough
+ * score dated that day or later (a later count covers a day missed). A test whose trays are all
+ * set aside has nothing to count.
+ */
+export const dayCounted = (trays: { last_counted: string | null }[], on: string) =>
+  trays.every((t) => t.last_counted !== null && t.last_counted >= on);
+
 /** The member's reminder choices in the bank, defaults filled in. */
 export async function reminderPreferences(db: DbOrTx, bankId: string, userId: string) {
   const m = await repo.memberChoices(db, bankId, userId);
@@ -35,6 +78,7 @@ export async function reminderPreferences(db: DbOrTx, bankId: string, userId: st
     checks: wantsReminder(m.role, m.remind_checks),
     retest: wantsReminder(m.role, m.remind_retest),
     digest: wantsReminder(m.role, m.remind_digest),
+    hour: m.remind_hour,
   };
 }
 
@@ -50,6 +94,7 @@ export async function setReminderPreferences(
     ...(body.checks !== undefined ? { remind_checks: body.checks } : {}),
     ...(body.retest !== undefined ? { remind_retest: body.retest } : {}),
     ...(body.digest !== undefined ? { remind_digest: body.digest } : {}),
+    ...(body.hour !== undefined ? { remind_hour: body.hour } : {}),
   });
   return reminderPreferences(db, bankId, userId);
 }
@@ -61,6 +106,8 @@ interface Due {
   dueOn: string;
   subject: string;
   body: string;
+  /** A check day's test, and who runs it: the reminder is theirs alone (checkRecipients). */
+  check?: { testId: string; runBy: string | null };
 }
 
 export interface RemindersServiceDeps {
@@ -78,9 +125,20 @@ export interface RemindersServiceDeps {
 export function createRemindersService(deps: RemindersServiceDeps) {
   const { db, clock, mailer } = deps;
 
-  async function members(bankId: string, kind: ReminderKind) {
-    const rows = await repo.membersWithChoice(db, bankId, kind);
-    return rows.filter((r) => wantsReminder(r.role, r.choice as boolean | null));
+  const members = async (bankId: string) => (await repo.bankMembers(db, bankId)).map(recipientOf);
+
+  /** Why a claimed check-day reminder is no longer wanted, or null while it still is. */
+  async function checkNoLongerNeeded(
+    testId: string,
+    userId: string,
+    dueOn: string,
+  ): Promise<string | null> {
+    const test = await repo.assayNow(db, testId);
+    if (!test || test.status !== 'running') return 'the test is no longer running';
+    const to = checkRecipients(await members(test.bank_id), test.run_by);
+    if (!to.some((m) => m.id === userId)) return 'someone else runs the test now';
+    if (dayCounted(await repo.traysToCount(db, [testId]), dueOn)) return 'the day was counted';
+    return null;
   }
 
   async function dueForBank(
@@ -126,6 +184,7 @@ export function createRemindersService(deps: RemindersServiceDeps) {
         const on = addDays(t.start_date, day);
         if (on > today || on < earliest) continue;
         const own = trays.filter((tr) => tr.test_id === t.id);
+        if (dayCounted(own, on)) continue;
         due.push({
           key: `check:${t.id}:${on}`,
           bankId: bank.id,
@@ -141,7 +200,10 @@ export function createRemindersService(deps: RemindersServiceDeps) {
               .join(', ')}.`,
             '',
             `Enter the counts: ${link(`/tests/${t.id}`)}`,
+            '',
+            'You get this because you run this test; another grower can take it over on its page.',
           ].join('\n'),
+          check: { testId: t.id, runBy: t.run_by },
         });
       }
     }
@@ -211,9 +273,12 @@ export function createRemindersService(deps: RemindersServiceDeps) {
       let queued = 0;
       for (const bank of banks) {
         const now = localNow(clock.now(), bank.time_zone);
-        if (now.hour < MORNING_HOUR) continue;
+        // Each member's reminders go out from their own hour on the bank's clock.
+        const ready = (await members(bank.id)).filter((m) => now.hour >= m.hour);
+        if (ready.length === 0) continue;
         for (const item of await dueForBank(bank, now.date, now.weekday)) {
-          for (const member of await members(bank.id, item.kind)) {
+          const to = item.check ? checkRecipients(ready, item.check.runBy) : ready;
+          for (const member of to.filter((m) => m.wants[item.kind])) {
             queued += await db.transaction().execute(async (trx) => {
               const row = await repo.insertReminder(trx, {
                 dedupe_key: `${item.key}:${member.id}`,
@@ -221,8 +286,9 @@ export function createRemindersService(deps: RemindersServiceDeps) {
                 user_id: member.id,
                 kind: item.kind,
                 due_on: item.dueOn,
+                test_id: item.check?.testId ?? null,
                 subject: item.subject,
-                body: `Hello ${member.name},\n\n${item.body}\n\nYou get this because reminders of this kind are on for you in ${bank.name}; change that under Account → Reminders.`,
+                body: `Hello ${member.name},\n\n${item.body}\n\nYou get this because reminders of this kind are on for you in ${bank.name}, at ${hourWords(member.hour)} on the bank's clock (${bank.time_zone}); change that under Account → Reminders.`,
               });
               if (!row) return 0;
               await enqueue(trx, row.id);
@@ -243,6 +309,14 @@ export function createRemindersService(deps: RemindersServiceDeps) {
         new Date(Date.now() - SENDING_TIMEOUT_MS),
       );
       if (!claimed) return;
+      // A count saved, a new runner or a finished test since the reminder was queued: not sent.
+      if (claimed.kind === 'check' && claimed.test_id) {
+        const why = await checkNoLongerNeeded(claimed.test_id, claimed.user_id, claimed.due_on);
+        if (why) {
+          await repo.markReminderSkipped(db, reminderId, new Date(), why);
+          return;
+        }
+      }
       const user = await repo.userEmail(db, claimed.user_id);
       try {
         await mailer.send({ to: user.email, subject: claimed.subject, text: claimed.body });

@@ -1,17 +1,25 @@
 import { useState } from 'react';
-import { reminderPrefsBodySchema, type ReminderPrefs } from '#shared/schemas/reminders';
+import { hourWords, reminderPrefsBodySchema, type ReminderPrefs } from '#shared/schemas/reminders';
 import { FormAlert } from '#src/components/ui/form-alert';
+import { SelectField } from '#src/components/ui/select-field';
 import { Spinner } from '#src/components/ui/spinner';
 import { cn } from '#src/lib/cn';
 import { useReminders } from '../api/get-reminders';
 import { useUpdateReminders } from '../api/update-reminders';
 
-type Kind = keyof ReminderPrefs;
+type Kind = Exclude<keyof ReminderPrefs, 'hour'>;
 
-/** Each kind of reminder, with when it is sent (the server's job sends from 7 in the morning). */
+/** The hours a member may choose, midnight to 11 p.m. */
+const HOURS = Array.from({ length: 24 }, (_, h) => h);
+
+/** Each kind of reminder, with when it is sent (from the member's own hour, on the bank's clock). */
 const KINDS: { kind: Kind; label: string; when: string }[] = [
   { kind: 'sowing', label: 'Sowing days', when: 'The morning a sowing window of the season plan opens.' },
-  { kind: 'checks', label: 'Tray check days', when: 'Each check day of a running germination test.' },
+  {
+    kind: 'checks',
+    label: 'Tray check days',
+    when: 'Each check day of a germination test you run, unless that day’s counts are already saved.',
+  },
   { kind: 'retest', label: 'Retests', when: 'When a lot is due for a retest of its germination.' },
   {
     kind: 'digest',
@@ -27,13 +35,31 @@ export interface ReminderChoicesProps {
   email: string | undefined;
 }
 
-/** Four switches; each change is saved at once, and the switch shows what the server kept. */
+/**
+ * Four switches and the hour they are sent at; each change is saved at once, and the controls
+ * show what the server kept.
+ */
 export function ReminderChoices({ bankId, bankName, timeZone, email }: ReminderChoicesProps) {
   const { data: prefs } = useReminders(bankId);
   const update = useUpdateReminders(bankId);
-  const [saving, setSaving] = useState<Kind>();
+  const [saving, setSaving] = useState<Kind | 'hour'>();
   const [status, setStatus] = useState<string>();
   const [error, setError] = useState<string>();
+  const zone = timeZone.replaceAll('_', ' ');
+
+  const chooseHour = async (hour: number) => {
+    setSaving('hour');
+    setStatus(undefined);
+    setError(undefined);
+    try {
+      const next = await update.mutateAsync(reminderPrefsBodySchema.parse({ hour }));
+      setStatus(`Saved: reminders at ${hourWords(next.hour)}.`);
+    } catch (e) {
+      setError(e instanceof Error ? e.message : 'The change was not saved. Try again.');
+    } finally {
+      setSaving(undefined);
+    }
+  };
 
   const toggle = async (kind: Kind, on: boolean, label: string) => {
     setSaving(kind);
@@ -54,10 +80,28 @@ export function ReminderChoices({ bankId, bankName, timeZone, email }: ReminderC
     <div className="grid gap-4">
       <p className="text-loam-700">
         E-mails to <span className="font-semibold text-loam-900">{email ?? 'your address'}</span> about{' '}
-        <span className="font-semibold text-loam-900">{bankName}</span>, from 7 in the morning in the bank’s
-        time zone ({timeZone.replaceAll('_', ' ')}). These are your own choices; other members choose theirs.
+        <span className="font-semibold text-loam-900">{bankName}</span>, from{' '}
+        <span className="font-semibold text-loam-900">{hourWords(prefs.hour)}</span> on the bank’s clock ({zone}).
+        These are your own choices; other members choose theirs.
       </p>
       <FormAlert>{error}</FormAlert>
+      <div className="flex items-end gap-3">
+        <SelectField
+          label="Send my reminders at"
+          hint={`The hour in ${zone}, the bank’s time zone.`}
+          value={prefs.hour}
+          disabled={saving !== undefined}
+          onChange={(e) => void chooseHour(Number(e.target.value))}
+          containerClassName="w-full max-w-xs"
+        >
+          {HOURS.map((h) => (
+            <option key={h} value={h}>
+              {hourWords(h)}
+            </option>
+          ))}
+        </SelectField>
+        {saving === 'hour' ? <Spinner size="sm" label="Saving the hour" /> : null}
+      </div>
       <ul className="divide-y divide-loam-100 rounded-lg border border-loam-200">
         {KINDS.map(({ kind, label, when }) => {
           const on = prefs[kind];
