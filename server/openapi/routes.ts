@@ -371,14 +371,15 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'get',
     path: `${BANK}/reminders`,
-    summary: 'The caller’s reminder choices in this bank.',
+    summary:
+      'The caller’s reminder choices in this bank: each kind on or off, and the hour (0–23, on the bank’s clock; 7 unless chosen) they go out from. Tray check-day reminders go only to the member running the test, and not once that day’s counts are saved.',
     access: 'viewer',
     responses: [ok(preferencesEnvelope)],
   },
   {
     method: 'patch',
     path: `${BANK}/reminders`,
-    summary: 'Change the caller’s reminder choices.',
+    summary: 'Change the caller’s reminder choices and hour (`hour`: a whole number 0–23, else 400).',
     access: 'viewer',
     body: reminderPrefsBodySchema,
     responses: [ok(preferencesEnvelope)],
@@ -610,7 +611,8 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'patch',
     path: `${BANK}/tests/:testId`,
-    summary: 'Change a germination test.',
+    summary:
+      'Change a running germination test; `runnerId` hands it to another owner or grower of the bank (422 for a viewer or a non-member), whom its check-day reminders then go to.',
     access: 'grower',
     body: updateAssayBodySchema,
     responses: [ok(assayDetailSchema)],

@@ -260,7 +260,7 @@ export const assaySchema = z.object({
   /** The member running the test (the one who started it unless changed): its check-day reminders go to them. */
   runnerId: idSchema.nullable().meta({
     description:
-      "The member running the test: the one who started it unless changed (PATCH `runnerId`). Its check-day reminders go to them alone; null when that account is gone, and then they go to the bank's owners.",
+      "The member running the test: the one who started it unless changed (PATCH `runnerId`). Its check-day reminders go to them alone, and are skipped when that day's counts are already saved. While the runner is no longer an owner or grower of the bank (or null: their account is gone), they go to the bank's owners.",
   }),
   /** The runner's display name; null with `runnerId`. */
   runnerName: z.string().nullable(),

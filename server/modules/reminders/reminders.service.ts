@@ -57,7 +57,10 @@ const recipientOf = (m: MemberRow): Recipient => ({
  * owner or grower of the bank); when they left the bank, became a viewer or their account is gone,
  * the bank's owners, who can hand the test to someone else.
  */
-export function checkRecipients<M extends { id: string; role: Role }>(members: M[], runBy: string | null): M[] {
+export function checkRecipients<M extends { id: string; role: Role }>(
+  members: M[],
+  runBy: string | null,
+): M[] {
   const runner = members.find((m) => m.id === runBy && roleAtLeast(m.role, 'grower'));
   return runner ? [runner] : members.filter((m) => m.role === 'owner');
 }
@@ -128,11 +131,7 @@ export function createRemindersService(deps: RemindersServiceDeps) {
   const members = async (bankId: string) => (await repo.bankMembers(db, bankId)).map(recipientOf);
 
   /** Why a claimed check-day reminder is no longer wanted, or null while it still is. */
-  async function checkNoLongerNeeded(
-    testId: string,
-    userId: string,
-    dueOn: string,
-  ): Promise<string | null> {
+  async function checkNoLongerNeeded(testId: string, userId: string, dueOn: string): Promise<string | null> {
     const test = await repo.assayNow(db, testId);
     if (!test || test.status !== 'running') return 'the test is no longer running';
     const to = checkRecipients(await members(test.bank_id), test.run_by);
@@ -273,12 +272,13 @@ export function createRemindersService(deps: RemindersServiceDeps) {
       let queued = 0;
       for (const bank of banks) {
         const now = localNow(clock.now(), bank.time_zone);
+        const all = await members(bank.id);
         // Each member's reminders go out from their own hour on the bank's clock.
-        const ready = (await members(bank.id)).filter((m) => now.hour >= m.hour);
-        if (ready.length === 0) continue;
+        const ready = (m: Recipient) => now.hour >= m.hour;
+        if (!all.some(ready)) continue;
         for (const item of await dueForBank(bank, now.date, now.weekday)) {
-          const to = item.check ? checkRecipients(ready, item.check.runBy) : ready;
-          for (const member of to.filter((m) => m.wants[item.kind])) {
+          const to = item.check ? checkRecipients(all, item.check.runBy) : all;
+          for (const member of to.filter((m) => ready(m) && m.wants[item.kind])) {
             queued += await db.transaction().execute(async (trx) => {
               const row = await repo.insertReminder(trx, {
                 dedupe_key: `${item.key}:${member.id}`,

@@ -81,8 +81,8 @@ export function ReminderChoices({ bankId, bankName, timeZone, email }: ReminderC
       <p className="text-loam-700">
         E-mails to <span className="font-semibold text-loam-900">{email ?? 'your address'}</span> about{' '}
         <span className="font-semibold text-loam-900">{bankName}</span>, from{' '}
-        <span className="font-semibold text-loam-900">{hourWords(prefs.hour)}</span> on the bank’s clock ({zone}).
-        These are your own choices; other members choose theirs.
+        <span className="font-semibold text-loam-900">{hourWords(prefs.hour)}</span> on the bank’s clock (
+        {zone}). These are your own choices; other members choose theirs.
       </p>
       <FormAlert>{error}</FormAlert>
       <div className="flex items-end gap-3">
