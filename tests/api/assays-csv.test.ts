@@ -265,8 +265,17 @@ describe('CSV export and import of germination tests', () => {
       for (const t of await assaysOf(bank))
         details.push((await bank.viewer.agent.get(`${base(bank)}/tests/${t.id}`)).body);
       return details.map((d) => {
-        // What each test took from its lot's stock differs on purpose: see seedsTaken below.
-        const { id: _i, lotId: _l, lotCode: _c, createdAt: _ca, seedsTaken: _s, ...assay } = d.test;
+        // What each test took from its lot's stock differs on purpose: see seedsTaken below. The
+        // imported copies are run by the member who imported them (another account of the same name).
+        const {
+          id: _i,
+          lotId: _l,
+          lotCode: _c,
+          createdAt: _ca,
+          seedsTaken: _s,
+          runnerId: _r,
+          ...assay
+        } = d.test;
         const trayIds: string[] = d.trays.map((t: { id: string }) => t.id);
         return {
           test: assay,
@@ -288,6 +297,11 @@ describe('CSV export and import of germination tests', () => {
     const before = await detailsOf(a);
     const after = await detailsOf(b);
     expect(after).toEqual(before);
+    // Whoever imports the tests runs them: their check-day reminders go to the importer.
+    for (const t of await assaysOf(b))
+      expect((await b.viewer.agent.get(`${base(b)}/tests/${t.id}`)).body.test.runnerId).toBe(
+        b.grower.user.id,
+      );
     // Tests started in bank A took their seeds from the ledger; the imported copies took none, and
     // say so, so deleting one gives nothing back.
     const taken = async (bank: Bank) => {

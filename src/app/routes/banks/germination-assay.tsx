@@ -8,6 +8,8 @@ import { assayQueryOptions } from '#src/features/germination/api/get-assay';
 import type { IntervalMethod } from '#src/lib/bank-api';
 import { formatDate, setupWords } from '#src/features/germination/components/format';
 import { AssayWorkbench } from '#src/features/germination/components/assay-workbench';
+import { AssayRunner } from '#src/features/germination/components/assay-runner';
+import { useMembers } from '#src/features/banks/api/get-members';
 import { todayIn } from '#src/lib/dates';
 import type { BankNoticeState } from './bank-layout';
 import { CHECK_DATE_PARAM, EXACT_INTERVAL_PARAM, intervalFromSearch } from './germination-loaders';
@@ -25,6 +27,11 @@ export function GerminationAssayPage() {
   // The loader fetched it; the header reads the same cache entry the workbench uses.
   const detail = useQuery(assayQueryOptions(bank.id, testId, 'wilson')).data;
   const canWrite = role !== 'viewer';
+  // Whom the test can be handed to: its check-day reminders follow the one who runs it.
+  const members = useMembers(bank.id).data;
+  const runners = members?.items
+    .filter((m) => m.role !== 'viewer')
+    .map((m) => ({ userId: m.userId, name: m.name }));
 
   const dateParam = isoDateSchema.safeParse(search.get(CHECK_DATE_PARAM));
   const updateSearch = (change: (params: URLSearchParams) => void) =>
@@ -109,6 +116,16 @@ export function GerminationAssayPage() {
         onDeleted={onDeleted}
         photos={(d) => <TrayPhotos bankId={bank.id} detail={d} canEdit={canWrite} />}
       />
+      {detail ? (
+        <div className="mt-6">
+          <AssayRunner
+            bankId={bank.id}
+            detail={detail}
+            candidates={runners}
+            canChange={canWrite && detail.test.status === 'running'}
+          />
+        </div>
+      ) : null}
     </>
   );
 }

@@ -53,7 +53,9 @@ export function ReminderChoices({ bankId, bankName, timeZone, email }: ReminderC
     setError(undefined);
     try {
       const next = await update.mutateAsync(reminderPrefsBodySchema.parse({ hour }));
-      setStatus(`Saved: reminders at ${hourWords(next.hour)}.`);
+      const at = hourWords(next.hour);
+      // "6 p.m." already ends the sentence; "noon" and "midnight" need the stop.
+      setStatus(`Saved: reminders at ${at}${at.endsWith('.') ? '' : '.'}`);
     } catch (e) {
       setError(e instanceof Error ? e.message : 'The change was not saved. Try again.');
     } finally {
