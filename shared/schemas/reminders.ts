@@ -15,7 +15,7 @@ export const reminderHourSchema = z
   });
 
 export const reminderPrefsSchema = z.object({
-  /** The morning a planned sowing window opens. */
+  /** The day a planned sowing window opens. */
   sowing: z.boolean(),
   /** Each check day of a running germination test the member runs. */
   checks: z.boolean(),

@@ -269,7 +269,7 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
       const sowing = page.getByRole('switch', { name: 'Sowing days' });
       // Off by default for a viewer (server/jobs/reminders.ts: on for owner and grower).
       expect(await sowing.getAttribute('aria-checked')).toBe('false');
-      expect(await page.getByText('The morning a sowing window of the season plan opens.').isVisible()).toBe(
+      expect(await page.getByText('The day a sowing window of the season plan opens.').isVisible()).toBe(
         true,
       );
       await sowing.click();

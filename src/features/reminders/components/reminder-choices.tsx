@@ -14,7 +14,7 @@ const HOURS = Array.from({ length: 24 }, (_, h) => h);
 
 /** Each kind of reminder, with when it is sent (from the member's own hour, on the bank's clock). */
 const KINDS: { kind: Kind; label: string; when: string }[] = [
-  { kind: 'sowing', label: 'Sowing days', when: 'The morning a sowing window of the season plan opens.' },
+  { kind: 'sowing', label: 'Sowing days', when: 'The day a sowing window of the season plan opens.' },
   {
     kind: 'checks',
     label: 'Tray check days',
