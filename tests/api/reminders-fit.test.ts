@@ -269,8 +269,12 @@ describe('reminders that fit the member', () => {
     const removed = await bank.owner.agent.delete(`/api/banks/${bank.bankId}/members/${bank.grower.user.id}`);
     expect(removed.status).toBe(204);
     ctx.clock.set(`${addDays('2026-05-01', firstDay)}T09:00:00Z`);
-    await scanOnly();
-    expect((await checkRows(test.id)).map((r) => r.email)).toEqual([bank.owner.email]);
+    const { service } = await scanOnly();
+    const rows = await checkRows(test.id);
+    expect(rows.map((r) => r.email)).toEqual([bank.owner.email]);
+    await service.deliver(rows[0]!.id);
+    const mail = await waitForMail((m) => m.to.includes(bank.owner.email) && m.subject.includes(test.code));
+    expect(mail.text).toContain('You get this as an owner: whoever ran this test can no longer count it.');
     // The test still names its runner; the owner hands it to someone who can count it.
     const read = await bank.owner.agent.get(`/api/banks/${bank.bankId}/tests/${test.id}`);
     expect(read.body.test.runnerId).toBe(bank.grower.user.id);

@@ -73,6 +73,12 @@ export function checkRecipients<M extends { id: string; role: Role }>(
 export const dayCounted = (trays: { last_counted: string | null }[], on: string) =>
   trays.every((t) => t.last_counted !== null && t.last_counted >= on);
 
+/** Why a check-day reminder came to this member: they run the test, or stand in as an owner. */
+const whyYouCount = (memberId: string, runBy: string | null) =>
+  memberId === runBy
+    ? 'You get this because you run this test; another grower can take it over on its page.'
+    : 'You get this as an owner: whoever ran this test can no longer count it. Hand it to a grower on its page.';
+
 /** The member's reminder choices in the bank, defaults filled in. */
 export async function reminderPreferences(db: DbOrTx, bankId: string, userId: string) {
   const m = await repo.memberChoices(db, bankId, userId);
@@ -199,8 +205,6 @@ export function createRemindersService(deps: RemindersServiceDeps) {
               .join(', ')}.`,
             '',
             `Enter the counts: ${link(`/tests/${t.id}`)}`,
-            '',
-            'You get this because you run this test; another grower can take it over on its page.',
           ].join('\n'),
           check: { testId: t.id, runBy: t.run_by },
         });
@@ -288,7 +292,7 @@ export function createRemindersService(deps: RemindersServiceDeps) {
                 due_on: item.dueOn,
                 test_id: item.check?.testId ?? null,
                 subject: item.subject,
-                body: `Hello ${member.name},\n\n${item.body}\n\nYou get this because reminders of this kind are on for you in ${bank.name}, at ${hourWords(member.hour)} on the bank's clock (${bank.time_zone}); change that under Account → Reminders.`,
+                body: `Hello ${member.name},\n\n${item.body}${item.check ? `\n\n${whyYouCount(member.id, item.check.runBy)}` : ''}\n\nYou get this because reminders of this kind are on for you in ${bank.name}, at ${hourWords(member.hour)} on the bank's clock (${bank.time_zone}); change that under Account → Reminders.`,
               });
               if (!row) return 0;
               await enqueue(trx, row.id);
