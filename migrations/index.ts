@@ -21,6 +21,7 @@ import * as m20261202005538 from './2026_12_02_005538_calendar_feeds';
 import * as m20261202006271 from './2026_12_02_006271_rate_limits';
 import * as m20261202007315 from './2026_12_02_007315_lot_amount_kind';
 import * as m20261203004731 from './2026_12_03_004731_reminders_that_fit';
+import * as m20261203004731spaces from './2026_12_03_004731_growing_spaces';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_000000_accounts_and_banks': m20261201000000,
@@ -42,5 +43,6 @@ export const migrations: Record<string, Migration> = {
   '2026_12_02_005538_calendar_feeds': m20261202005538,
   '2026_12_02_006271_rate_limits': m20261202006271,
   '2026_12_02_007315_lot_amount_kind': m20261202007315,
+  '2026_12_03_004731_growing_spaces': m20261203004731spaces,
   '2026_12_03_004731_reminders_that_fit': m20261203004731,
 };

@@ -403,6 +403,16 @@ export interface CalendarFeedTable {
   created_at: Timestamp;
 }
 
+export interface GrowingSpaceTable {
+  id: Generated<string>;
+  bank_id: string;
+  name: string;
+  capacity: number;
+  unit: 'cells' | 'trays';
+  created_at: Timestamp;
+  updated_at: Timestamp;
+}
+
 export interface Database {
   users: UserTable;
   sessions: SessionTable;
@@ -432,6 +442,7 @@ export interface Database {
   viability_stamps: ViabilityStampTable;
   rate_limits: RateLimitTable;
   calendar_feeds: CalendarFeedTable;
+  growing_spaces: GrowingSpaceTable;
 }
 
 export type User = Selectable<UserTable>;

@@ -625,6 +625,15 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
       .catch(() => undefined);
   }
 
+  // Room under the lights (invented): a shelf counted in trays and a small lit box counted in cells.
+  await db
+    .insertInto('growing_spaces')
+    .values([
+      { bank_id: bank.id, name: 'Basement shelf, two lights', capacity: 2, unit: 'trays' },
+      { bank_id: bank.id, name: 'Lit seed box on the landing', capacity: 60, unit: 'cells' },
+    ])
+    .execute();
+
   // Some captured mail: an invitation to a neighbour who has not joined yet.
   if (deps.mailer) {
     const mailQueue = createMailQueue({ db, mailer: deps.mailer, clock: deps.clock });

@@ -63,6 +63,13 @@ import {
 } from '#shared/schemas/plan';
 import { reminderPrefsBodySchema, reminderPrefsSchema } from '#shared/schemas/reminders';
 import {
+  createSpaceBodySchema,
+  spaceEnvelopeSchema,
+  spaceListResponseSchema,
+  spacePlanResponseSchema,
+  updateSpaceBodySchema,
+} from '#shared/schemas/spaces';
+import {
   createSpeciesBodySchema,
   overrideTraitsBodySchema,
   speciesListResponseSchema,
@@ -825,5 +832,46 @@ export const apiRoutes: ApiRoute[] = [
     access: 'viewer',
     query: seasonQuerySchema,
     responses: [file('text/calendar', 'The calendar.')],
+  },
+
+  // Growing spaces (room under the lights)
+  {
+    method: 'get',
+    path: `${BANK}/plan/space`,
+    summary:
+      'The season’s room under the lights (the coming season unless `season`), week by week, in cells (a tray is `cellsPerTray` cells): each indoor sowing takes one cell a seed from its sowing day (sown, else the first day of its window), then plants wanted × the species’ cells per plant from potting up (sowing + its weeks to potting up) until it goes out to harden off. Weeks start on Monday on the bank’s calendar; a week’s `used` is the most cells in use on a day of it, and `overflow` is used > capacity (the sum of the spaces).',
+    access: 'viewer',
+    query: seasonQuerySchema,
+    responses: [ok(spacePlanResponseSchema)],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/spaces`,
+    summary: 'The bank’s growing spaces: shelves or boxes under lights and how many trays or cells fit.',
+    access: 'viewer',
+    responses: [ok(spaceListResponseSchema)],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/spaces`,
+    summary: 'Add a growing space. 409 `duplicate_space` when the bank has one of that name.',
+    access: 'grower',
+    body: createSpaceBodySchema,
+    responses: [created(spaceEnvelopeSchema)],
+  },
+  {
+    method: 'patch',
+    path: `${BANK}/spaces/:spaceId`,
+    summary: 'Change a growing space’s name, capacity or unit.',
+    access: 'grower',
+    body: updateSpaceBodySchema,
+    responses: [ok(spaceEnvelopeSchema)],
+  },
+  {
+    method: 'delete',
+    path: `${BANK}/spaces/:spaceId`,
+    summary: 'Remove a growing space.',
+    access: 'grower',
+    responses: [noContent()],
   },
 ];

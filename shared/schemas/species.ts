@@ -21,6 +21,10 @@ export const speciesTraitsSchema = z.object({
   outcrossing: z.enum(['self', 'cross', 'mixed']).nullable(),
   poisonous: z.boolean(),
   caution: z.string().max(1000).nullable(),
+  /** Room under the lights (shared/species-space.ts): weeks from sowing to potting up, 0 = sown in its pot. */
+  potUpWeeks: weeks.nullable().optional(),
+  /** Cells of bench a plant takes once potted up (a cell of a 72-cell tray is 1). */
+  cellsPerPlant: z.number().int().min(1).max(72).nullable().optional(),
 });
 export type SpeciesTraits = z.infer<typeof speciesTraitsSchema>;
 export type TraitName = keyof SpeciesTraits;

@@ -141,6 +141,16 @@ describe('the demo season', () => {
     }
   });
 
+  it('when seeded, then the bank has spaces under lights and the coming season has weeks of room', async () => {
+    const keeper = await signIn(ctx.app, 'keeper@example.org', 'hilum-demo-seeds');
+    const spaces = (await keeper.get(`/api/banks/${bankId}/spaces`)).body.items as { cells: number }[];
+    expect(spaces.length).toBeGreaterThanOrEqual(1);
+    const room = await keeper.get(`/api/banks/${bankId}/plan/space`);
+    expect(room.body.season).toBe(2027);
+    expect(room.body.weeks.length).toBeGreaterThan(4);
+    expect(room.body.weeks[0].capacity).toBe(spaces.reduce((sum, s) => sum + s.cells, 0));
+  });
+
   it('when seeded, then the other demo accounts sign in', async () => {
     const second = await signIn(ctx.app, 'grower2@example.org', 'hilum-demo-seeds');
     expect((await second.get(`/api/banks/${bankId}`)).body.role).toBe('grower');

@@ -1,10 +1,11 @@
 import { SOURCES, SPECIES_REFERENCE, type SpeciesReference, type TraitKey } from '#shared/species-reference';
+import { sourceRef, spaceSourcesOf, spaceTraitsOf, type SpaceTraitName } from '#shared/species-space';
 import type { SpeciesTraits, TraitName } from '#shared/schemas/species';
 import type { DbOrTx } from '#server/db/database';
 import { upsertReferenceSpecies } from './species.repository';
 
 /** Which reference trait key carries the source of each of Hilum's computed traits. */
-const SOURCE_OF: Record<TraitName, TraitKey> = {
+const SOURCE_OF: Record<Exclude<TraitName, SpaceTraitName>, TraitKey> = {
   firstCountDay: 'firstCountDay',
   finalCountDay: 'finalCountDay',
   germTempMinC: 'germTemp',
@@ -38,18 +39,16 @@ export function referenceTraits(s: SpeciesReference): SpeciesTraits {
     outcrossing: s.outcrossing,
     poisonous: s.poisonous,
     caution: s.caution,
+    ...spaceTraitsOf(s.key),
   };
 }
 
 export function referenceSources(s: SpeciesReference): Record<string, { title: string; basis: string }> {
-  return Object.fromEntries(
-    (Object.keys(SOURCE_OF) as TraitName[]).map((trait) => {
-      const source = SOURCES[s.sources[SOURCE_OF[trait]]];
-      const year = source.year ? ` (${source.year})` : '';
-      const publisher = source.publisher ? `, ${source.publisher}` : '';
-      return [trait, { title: `${source.title}${publisher}${year}`, basis: source.basis }];
-    }),
-  );
+  const traits = Object.keys(SOURCE_OF) as (keyof typeof SOURCE_OF)[];
+  return Object.fromEntries([
+    ...traits.map((trait) => [trait, sourceRef(SOURCES[s.sources[SOURCE_OF[trait]]])]),
+    ...Object.entries(spaceSourcesOf(s.key)),
+  ]);
 }
 
 /** Upserts the shipped reference species by key, so a new release's corrections reach every bank. */
