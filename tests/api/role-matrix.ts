@@ -319,6 +319,19 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     path: (f) => `/api/banks/${f.bankId}/plan.ics?season=2027`,
     least: 'viewer',
   },
+  'GET plan/space': {
+    method: 'get',
+    path: (f) => `/api/banks/${f.bankId}/plan/space?season=2027`,
+    least: 'viewer',
+  },
+  'GET spaces': { method: 'get', path: (f) => `/api/banks/${f.bankId}/spaces`, least: 'viewer' },
+  'POST space': {
+    method: 'post',
+    path: (f) => `/api/banks/${f.bankId}/spaces`,
+    body: () => ({ name: `Shelf ${Math.random()}`, capacity: 2, unit: 'trays' }),
+    least: 'grower',
+    ok: 201,
+  },
   'GET reminders': { method: 'get', path: (f) => `/api/banks/${f.bankId}/reminders`, least: 'viewer' },
   'PATCH reminders': {
     method: 'patch',
