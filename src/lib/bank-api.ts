@@ -109,6 +109,12 @@ export const bankPaths = {
   planIcs: (bankId: string, season: number) =>
     `${bank(bankId)}/plan.ics?${new URLSearchParams({ season: String(season) })}`,
 
+  /** The season's room under the lights, week by week. */
+  planSpace: (bankId: string, season: number) =>
+    `${bank(bankId)}/plan/space?${new URLSearchParams({ season: String(season) })}`,
+  spaces: (bankId: string) => `${bank(bankId)}/spaces`,
+  space: (bankId: string, spaceId: string) => `${bank(bankId)}/spaces/${id(spaceId)}`,
+
   plants: (bankId: string) => `${bank(bankId)}/plants`,
   plant: (bankId: string, plantId: string) => `${bank(bankId)}/plants/${id(plantId)}`,
   photos: (bankId: string, subject: PhotoSubject, subjectId: string) => {
@@ -161,6 +167,10 @@ export const bankKeys = {
 
   plan: (bankId: string) => [...bankKeys.bank(bankId), 'plan'] as const,
   planSeason: (bankId: string, season: number) => [...bankKeys.plan(bankId), season] as const,
+
+  /** Under the plan, so every plan change refreshes the room it takes. */
+  planSpaces: (bankId: string) => [...bankKeys.plan(bankId), 'space'] as const,
+  planSpace: (bankId: string, season: number) => [...bankKeys.planSpaces(bankId), season] as const,
 
   plants: (bankId: string) => [...bankKeys.bank(bankId), 'plants'] as const,
   plantList: (bankId: string) => [...bankKeys.plants(bankId), 'list'] as const,
@@ -235,6 +245,8 @@ export const stale = {
   ],
   /** A sowing planned, changed or dropped: the season's entries and the overview's sowings due. */
   plan: (bankId: string) => [under(bankKeys.plan(bankId)), under(bankKeys.overviews(bankId))],
+  /** A growing space added, changed or removed: the room the plan has (which lists the spaces). */
+  spaces: (bankId: string) => [under(bankKeys.planSpaces(bankId))],
   /** A parent plant added: the plant list (lots name their parents from it). */
   plantAdded: (bankId: string) => [under(bankKeys.plants(bankId))],
   /** A parent plant deleted: the plant list, and the lot records that named it as a parent (they lose the link). */

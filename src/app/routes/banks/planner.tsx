@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { lazy, Suspense, useMemo, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { addDays } from '#shared/dates';
 import { comingSeason } from '#shared/plan-dates';
@@ -27,6 +27,9 @@ import { SEASON_PARAM, seasonFromSearch } from './planner-loaders';
 import { useRouteBank } from './use-route-bank';
 
 type View = 'sowings' | 'calendar';
+
+// The room under the lights (its chart and space forms) loads after the page, not with it.
+const SpaceCard = lazy(() => import('#src/features/spaces/components/space-card'));
 
 /** /banks/:bankId/planner — the season's sowings counted back from the last frost, and its calendar. */
 export function PlannerPage() {
@@ -227,6 +230,12 @@ export function PlannerPage() {
           </div>
         </div>
       )}
+
+      <div className="mt-6">
+        <Suspense fallback={<Loading label="Loading the room under the lights" />}>
+          <SpaceCard bankId={bank.id} season={season} canEdit={canEdit} />
+        </Suspense>
+      </div>
     </>
   );
 }
