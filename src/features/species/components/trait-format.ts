@@ -1,4 +1,5 @@
 import type { SpeciesTraits, TraitName } from '#shared/schemas/species';
+import { CELLS_PER_TRAY } from '#shared/species-space';
 
 const lightWords: Record<NonNullable<SpeciesTraits['light']>, string> = {
   light: 'Needs light: press onto the surface, do not cover',
@@ -66,6 +67,14 @@ export function traitRows(t: SpeciesTraits): TraitRow[] {
         (t.startWeeksFrom !== null || t.startWeeksTo !== null
           ? `, ${range(t.startWeeksFrom, t.startWeeksTo, '')} weeks before the last frost`
           : ''),
+    },
+    {
+      traits: ['potUpWeeks', 'cellsPerPlant'],
+      label: 'Room under the lights',
+      value:
+        t.potUpWeeks == null || t.cellsPerPlant == null
+          ? 'Not known'
+          : `${t.potUpWeeks === 0 ? 'Sown straight into its pot' : `Potted up ${n(t.potUpWeeks)} weeks after sowing`}, then ${n(t.cellsPerPlant)} cells a plant (a tray is ${CELLS_PER_TRAY})`,
     },
     {
       traits: ['storageLifeYears'],
