@@ -11,6 +11,8 @@ import { count, overflowWords } from './space-words';
 
 // The chart library loads with the chart, not with the app.
 const SpaceChart = lazy(() => import('./space-chart'));
+/** The chart's height in CSS pixels, kept while it loads (space-chart.tsx draws it). */
+export const SPACE_CHART_HEIGHT = 260;
 
 function Swatch({ className }: { className: string }) {
   return <span aria-hidden="true" className={`inline-block shrink-0 ${className}`} />;
@@ -79,7 +81,7 @@ export function SpaceCard({ bankId, season, canEdit }: SpaceCardProps) {
                   Bars are the cells in use in each week’s busiest day; the dashed line is the room your
                   spaces hold. Weeks start on Monday.
                 </figcaption>
-                <Suspense fallback={<Loading label="Drawing the chart" />}>
+                <Suspense fallback={<Loading label="Drawing the chart" height={SPACE_CHART_HEIGHT} />}>
                   <SpaceChart weeks={plan.weeks} />
                 </Suspense>
                 <ul

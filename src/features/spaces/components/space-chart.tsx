@@ -1,6 +1,7 @@
 import { Bar, CartesianGrid, Cell, ComposedChart, Line, Tooltip, XAxis, YAxis } from 'recharts';
 import type { SpaceWeekDto } from '#shared/schemas/spaces';
 import { formatDay } from '#src/lib/dates';
+import { SPACE_CHART_HEIGHT } from './space-card';
 import { count } from './space-words';
 
 // Palette values from tailwind.config.ts (recharts draws with plain colours).
@@ -36,7 +37,7 @@ export default function SpaceChart({ weeks }: { weeks: readonly SpaceWeekDto[] }
   return (
     <ComposedChart
       responsive
-      style={{ width: '100%', height: 260 }}
+      style={{ width: '100%', height: SPACE_CHART_HEIGHT }}
       data={weeks as SpaceWeekDto[]}
       margin={{ top: 12, right: 8, bottom: 4, left: -8 }}
       accessibilityLayer
