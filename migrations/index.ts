@@ -20,6 +20,7 @@ import * as m20261202005317 from './2026_12_02_005317_sprinkled_trays';
 import * as m20261202005538 from './2026_12_02_005538_calendar_feeds';
 import * as m20261202006271 from './2026_12_02_006271_rate_limits';
 import * as m20261202007315 from './2026_12_02_007315_lot_amount_kind';
+import * as m20261203004317 from './2026_12_03_004317_plan_follows_inputs';
 import * as m20261203004731 from './2026_12_03_004731_reminders_that_fit';
 import * as m20261203004731spaces from './2026_12_03_004731_growing_spaces';
 
@@ -43,6 +44,7 @@ export const migrations: Record<string, Migration> = {
   '2026_12_02_005538_calendar_feeds': m20261202005538,
   '2026_12_02_006271_rate_limits': m20261202006271,
   '2026_12_02_007315_lot_amount_kind': m20261202007315,
+  '2026_12_03_004317_plan_follows_inputs': m20261203004317,
   '2026_12_03_004731_growing_spaces': m20261203004731spaces,
   '2026_12_03_004731_reminders_that_fit': m20261203004731,
 };

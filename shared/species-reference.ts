@@ -3,6 +3,7 @@
 // memory, taken from common garden practice or computed. A value nobody here knows is null, and its
 // source entry says so; memory values must be confirmed before they are presented as published.
 import { z } from 'zod';
+import { hardinessSchema, type Hardiness } from './schemas/species';
 
 // ---------------------------------------------------------------------------------------------
 // Sources
@@ -208,6 +209,28 @@ export const SOURCES = {
     basis: 'common-practice',
     note: 'From memory. The product defers to a local poison centre, doctor or veterinarian.',
   },
+  purdueHo203: {
+    title:
+      'Frost resistance of vegetables, HO-203 (after University of Illinois VC-14, Vegetable Planting Guide)',
+    publisher: 'Purdue University Cooperative Extension Service',
+    year: null,
+    basis: 'read',
+    note: 'Read through a secondary page quoting the table: very hardy 4–6 weeks before the average frost-free date, frost tolerant 2–3 weeks before, tender on or after it, warm loving 1–2 weeks after. Hilum calls them hardy, half-hardy, tender and very tender. Onion: seed and sets very hardy, plants frost tolerant (Hilum starts onion as plants).',
+  },
+  purdueHo203FlowersMemory: {
+    title: 'Frost resistance of annual flowers, HO-203',
+    publisher: 'Purdue University Cooperative Extension Service',
+    year: null,
+    basis: 'memory',
+    note: 'The flower table was read through a secondary page whose column headings were cut off; that its four groups follow the vegetable table’s order (hardy, half-hardy, tender, very tender) is from memory. Confirm against the publication.',
+  },
+  hardinessMemory: {
+    title: 'Cold hardiness of garden plants, common garden practice',
+    publisher: null,
+    year: null,
+    basis: 'memory',
+    note: 'Not in the table read; the group is recalled from garden guides, from memory. Confirm before relying on it.',
+  },
   unknown: {
     title: 'No value',
     publisher: null,
@@ -257,6 +280,7 @@ export const TRAIT_KEYS = [
   'minGerminationPercent',
   'outcrossing',
   'poisonous', // poisonous and caution together
+  'hardiness',
 ] as const;
 export const traitKeySchema = z.enum(TRAIT_KEYS);
 export type TraitKey = z.infer<typeof traitKeySchema>;
@@ -345,6 +369,8 @@ export const speciesReferenceSchema = z
     /** Shown beside the species; also used for non-poisonous hazards (look-alikes, bitter fruit). */
     caution: z.string().min(1).nullable(),
     notes: z.string().min(1).nullable(),
+    /** Cold hardiness: when plants go out or seed is sown outside, relative to the last frost. */
+    hardiness: hardinessSchema.nullable(),
     sources: z.record(traitKeySchema, sourceKeySchema),
   })
   .check((ctx) => {
@@ -425,6 +451,7 @@ const BASE: Sources = {
   minGerminationPercent: 'unknown',
   outcrossing: 'pollinationPractice',
   poisonous: 'toxicityPractice',
+  hardiness: 'unknown',
 };
 const src = (overrides: Partial<Sources>): Sources => ({ ...BASE, ...overrides });
 
@@ -459,7 +486,9 @@ const flowerNoStandard = { minGerminationPercent: 'cfr20131NoStandard' } as cons
 // The reference set
 // ---------------------------------------------------------------------------------------------
 
-export const SPECIES_REFERENCE: readonly SpeciesReference[] = [
+type RecordWithoutHardiness = Omit<SpeciesReference, 'hardiness'>;
+
+const RECORDS: readonly RecordWithoutHardiness[] = [
   // ---- vegetables -----------------------------------------------------------------------------
   {
     ...NONE,
@@ -1167,3 +1196,44 @@ export const SPECIES_REFERENCE: readonly SpeciesReference[] = [
     sources: src({ outcrossing: 'unknown', ...flowerNoStandard }),
   },
 ];
+
+/** Each species' cold hardiness and the source it comes from (keys of the records above). */
+const HARDINESS_OF: Record<string, [Hardiness, SourceKey]> = {
+  tomato: ['tender', 'purdueHo203'],
+  pepper: ['very-tender', 'purdueHo203'],
+  eggplant: ['very-tender', 'purdueHo203'],
+  lettuce: ['hardy', 'purdueHo203'],
+  onion: ['half-hardy', 'purdueHo203'],
+  leek: ['hardy', 'hardinessMemory'],
+  cabbage: ['half-hardy', 'purdueHo203'],
+  broccoli: ['half-hardy', 'purdueHo203'],
+  kale: ['hardy', 'purdueHo203'],
+  carrot: ['half-hardy', 'purdueHo203'],
+  beet: ['half-hardy', 'purdueHo203'],
+  spinach: ['hardy', 'purdueHo203'],
+  pea: ['hardy', 'purdueHo203'],
+  bean: ['tender', 'purdueHo203'],
+  cucumber: ['very-tender', 'purdueHo203'],
+  squash: ['very-tender', 'purdueHo203'],
+  'sweet-corn': ['tender', 'purdueHo203'],
+  basil: ['very-tender', 'hardinessMemory'],
+  parsley: ['half-hardy', 'hardinessMemory'],
+  petunia: ['tender', 'purdueHo203FlowersMemory'],
+  snapdragon: ['hardy', 'purdueHo203FlowersMemory'],
+  marigold: ['very-tender', 'purdueHo203FlowersMemory'],
+  zinnia: ['very-tender', 'purdueHo203FlowersMemory'],
+  cosmos: ['very-tender', 'purdueHo203FlowersMemory'],
+  calendula: ['hardy', 'purdueHo203FlowersMemory'],
+  'sweet-pea': ['hardy', 'purdueHo203FlowersMemory'],
+  viola: ['hardy', 'purdueHo203FlowersMemory'],
+  aster: ['tender', 'purdueHo203FlowersMemory'],
+  nasturtium: ['tender', 'hardinessMemory'],
+  sunflower: ['tender', 'hardinessMemory'],
+  poppy: ['hardy', 'hardinessMemory'],
+  'morning-glory': ['tender', 'hardinessMemory'],
+};
+
+export const SPECIES_REFERENCE: readonly SpeciesReference[] = RECORDS.map((r) => {
+  const [hardiness, source] = HARDINESS_OF[r.key] ?? [null, 'unknown' as const];
+  return { ...r, hardiness, sources: { ...r.sources, hardiness: source } };
+});

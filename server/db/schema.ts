@@ -366,9 +366,27 @@ export interface PlanEntryTable {
   notes: ColumnType<unknown, string | undefined, string>;
   sown_on: string | null;
   sown_movement_id: string | null;
+  /** Succession sowings: the succession, this sowing's number in it and the weeks between. */
+  succession_id: string | null;
+  succession_no: number | null;
+  succession_weeks: number | null;
+  /** Days after the succession's first sowing (0 for a single sowing). */
+  offset_days: ColumnType<number, number | undefined, number>;
   created_by: string | null;
   created_at: Timestamp;
   updated_at: Timestamp;
+}
+
+/** What a moved last-frost date did to a season's unsown plan entries. */
+export interface PlanMoveTable {
+  id: Generated<string>;
+  bank_id: string;
+  season: number;
+  from_frost: string;
+  to_frost: string;
+  days: number;
+  entries: number;
+  created_at: Timestamp;
 }
 
 /** What came up from a sowing (a plan entry marked sown): counted or scored, on a day after it. */
@@ -437,6 +455,7 @@ export interface Database {
   tray_counts: TrayCountTable;
   tray_scores: TrayScoreTable;
   plan_entries: PlanEntryTable;
+  plan_moves: PlanMoveTable;
   sowing_emergence: SowingEmergenceTable;
   reminders: ReminderTable;
   viability_stamps: ViabilityStampTable;

@@ -609,11 +609,15 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
     ['pepper', 6],
     ['petunia', 24],
     ['marigold', 18],
-    ['lettuce', 20],
+    ['lettuce', 6],
     ['kale', 8],
     ['onion', 40],
     ['bean', 30],
   ];
+  // Lettuce comes in a succession: 4 sowings, 2 weeks apart, so it does not all bolt at once.
+  const successions: Record<string, { sowings: number; everyWeeks: number }> = {
+    lettuce: { sowings: 4, everyWeeks: 2 },
+  };
   for (const [key, plants] of wanted) {
     await plan
       .create(bank.id, keeper, {
@@ -621,6 +625,7 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
         speciesId: species[key]!.id,
         plantsWanted: plants,
         start: DEMO_SPECIES[key]!.sow,
+        succession: successions[key],
       })
       .catch(() => undefined);
   }

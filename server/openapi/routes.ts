@@ -12,6 +12,7 @@ import {
   acceptInvitationBodySchema,
   acceptInvitationResponseSchema,
   bankResponseSchema,
+  bankUpdateResponseSchema,
   bankSchema,
   createBankBodySchema,
   createInvitationBodySchema,
@@ -55,6 +56,7 @@ import {
   createPlanBodySchema,
   emergenceBodySchema,
   emergenceResponseSchema,
+  createPlanResponseSchema,
   planEntrySchema,
   planListResponseSchema,
   seasonQuerySchema,
@@ -305,10 +307,11 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'patch',
     path: BANK,
-    summary: 'Change the bank’s settings.',
+    summary:
+      'Change the bank’s settings. `planMoved` says, per coming season, how many unsown sowings a changed last frost moved and by how many days (sown ones keep their dates).',
     access: 'owner',
     body: updateBankBodySchema,
-    responses: [ok(bankResponseSchema)],
+    responses: [ok(bankUpdateResponseSchema)],
   },
   {
     method: 'delete',
@@ -766,7 +769,8 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'get',
     path: `${BANK}/plan`,
-    summary: 'The season’s plan (the coming season unless `season`).',
+    summary:
+      'The season’s plan (the coming season unless `season`). An unsown entry’s dates are worked out on every read from the bank’s frost date and margin and the species (its hardiness: plant-out and outside sowing relative to the last frost; its days to emerge); a sown entry keeps the dates it was sown under. `moved` is the latest frost-date move of the season, in words.',
     access: 'viewer',
     query: seasonQuerySchema,
     responses: [ok(planListResponseSchema)],
@@ -774,10 +778,11 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'post',
     path: `${BANK}/plan`,
-    summary: 'Plan a sowing.',
+    summary:
+      'Plan a sowing, or with `succession: { sowings, everyWeeks }` a succession of them (2–12 sowings, 1–8 weeks apart): each sowing is an entry of its own, `everyWeeks` weeks after the one before, with its own dates, lot and seeds, marked sown on its own. `entry` is the first sowing, `entries` every one made.',
     access: 'grower',
     body: createPlanBodySchema,
-    responses: [created(entryEnvelope)],
+    responses: [created(createPlanResponseSchema)],
   },
   {
     method: 'get',
@@ -804,7 +809,8 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'post',
     path: `${BANK}/plan/:entryId/sown`,
-    summary: 'Mark sown; takes the seeds from the lot’s ledger.',
+    summary:
+      'Mark sown on `date` (required: no default day); takes the seeds from the lot’s ledger and keeps the dates it was sown under, seedlings expected from that day. A date outside the sowing window answers 409 `outside_window` (the window in words) unless `confirm: true`; a date after the bank’s today is 422; 409 `already_sown`, or `stock_below_zero` when the lot is short.',
     access: 'grower',
     body: sownBodySchema,
     responses: [ok(entryEnvelope)],

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { emailSchema, roleSchema } from './accounts';
 import { idSchema, monthDaySchema } from './common';
+import { planMoveSchema } from './plan';
 
 const bankName = z
   .string({ message: 'Name the bank.' })
@@ -73,6 +74,8 @@ export const bankSchema = z.object({
 export type BankDto = z.infer<typeof bankSchema>;
 
 export const bankResponseSchema = z.object({ bank: bankSchema, role: roleSchema });
+/** PATCH /api/banks/:bankId: the bank, and what a moved last frost did to each season's unsown sowings. */
+export const bankUpdateResponseSchema = bankResponseSchema.extend({ planMoved: z.array(planMoveSchema) });
 
 export const memberSchema = z.object({
   userId: idSchema,

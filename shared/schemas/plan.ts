@@ -1,10 +1,28 @@
 import { z } from 'zod';
 import { idSchema, isoDateSchema } from './common';
+import { hardinessSchema } from './species';
 
 export const seasonSchema = z.coerce.number().int().min(1900).max(2100);
 /** `?season=YYYY`: the season asked for; without it, the coming one. */
 export const seasonQuerySchema = z.object({ season: seasonSchema.optional() });
 export const startSchema = z.enum(['indoors', 'direct'], { message: 'Choose indoors or direct.' });
+
+/**
+ * Succession sowings: `sowings` sowings of the crop, each `everyWeeks` weeks after the one before
+ * (lettuce: 4 sowings every 2 weeks). Each is an entry of its own, with its own dates and seeds.
+ */
+export const successionBodySchema = z.object({
+  sowings: z
+    .number({ message: 'How many sowings?' })
+    .int({ message: 'A whole number of sowings.' })
+    .min(2, { message: 'A succession is at least 2 sowings.' })
+    .max(12, { message: 'At most 12 sowings.' }),
+  everyWeeks: z
+    .number({ message: 'How many weeks between sowings?' })
+    .int({ message: 'A whole number of weeks.' })
+    .min(1, { message: 'At least 1 week apart.' })
+    .max(8, { message: 'At most 8 weeks apart.' }),
+});
 
 export const createPlanBodySchema = z.object({
   season: z
@@ -20,6 +38,7 @@ export const createPlanBodySchema = z.object({
     .max(100_000),
   start: startSchema,
   lotId: idSchema.nullable().optional(),
+  succession: successionBodySchema.optional(),
 });
 export type CreatePlanBody = z.infer<typeof createPlanBodySchema>;
 
@@ -32,7 +51,18 @@ export const updatePlanBodySchema = z
   .partial()
   .refine((b) => Object.keys(b).length > 0, { message: 'Nothing to change.' });
 
-export const sownBodySchema = z.object({ date: isoDateSchema.optional() });
+/**
+ * POST …/plan/:entryId/sown: the day it was sown, always chosen (no silent today). A day outside
+ * the sowing window is recorded only with `confirm: true` (else 409 `outside_window`).
+ */
+export const sownBodySchema = z.object({
+  date: z.iso.date({
+    error: (issue) =>
+      issue.input === undefined ? 'Choose the day it was sown.' : 'Use a date like 2026-05-24.',
+  }),
+  confirm: z.boolean({ message: 'confirm is true or false.' }).optional(),
+});
+export type SownBody = z.infer<typeof sownBodySchema>;
 
 /** What came up, scored roughly when counting is hopeless: none, a few, about half, most. */
 export const emergenceScoreSchema = z.enum(['none', 'few', 'half', 'most'], {
@@ -107,14 +137,40 @@ export const planEntrySchema = z.object({
   transplantOn: z.string().nullable(),
   notes: z.array(z.string()),
   sownOn: z.string().nullable(),
+  /** The species' cold hardiness the dates were planned with (null: not set, planned as tender). */
+  hardiness: hardinessSchema.nullable(),
+  /** One sowing of a succession: its number (from 1), how many there are now, the weeks between. */
+  succession: z
+    .object({ id: idSchema, number: z.number(), of: z.number(), everyWeeks: z.number() })
+    .nullable(),
   /** What came up from the sowing, oldest first (empty until recorded). */
   emergence: z.array(emergenceRecordSchema),
 });
 export type PlanEntryDto = z.infer<typeof planEntrySchema>;
+/** What the bank's last moved frost date did to a season's unsown sowings, in words too. */
+export const planMoveSchema = z.object({
+  season: z.number(),
+  fromFrost: z.string(),
+  toFrost: z.string(),
+  /** Days later (negative: earlier) every unsown sowing moved. */
+  days: z.number(),
+  entries: z.number(),
+  message: z.string(),
+  at: z.string(),
+});
+export type PlanMoveDto = z.infer<typeof planMoveSchema>;
+
 export const planListResponseSchema = z.object({
   season: z.number(),
   items: z.array(planEntrySchema),
   nextCursor: z.null(),
+  /** The latest frost-date move of this season's plan, or null. */
+  moved: planMoveSchema.nullable(),
+});
+/** 201 of POST …/plan: `entry` is the (first) sowing; `entries` every sowing made. */
+export const createPlanResponseSchema = z.object({
+  entry: planEntrySchema,
+  entries: z.array(planEntrySchema),
 });
 export const emergenceResponseSchema = z.object({
   entry: planEntrySchema,

@@ -4,6 +4,13 @@ import { idSchema } from './common';
 const day = z.number().int().min(1).max(120);
 const weeks = z.number().int().min(0).max(26);
 
+/** Cold hardiness: when the plants may go out (or be sown outside) relative to the last frost. */
+export const HARDINESS = ['hardy', 'half-hardy', 'tender', 'very-tender'] as const;
+export const hardinessSchema = z.enum(HARDINESS, {
+  message: 'Choose hardy, half-hardy, tender or very tender.',
+});
+export type Hardiness = z.infer<typeof hardinessSchema>;
+
 /** The traits Hilum uses in its computations; null where nobody knows the value. */
 export const speciesTraitsSchema = z.object({
   firstCountDay: day.nullable(),
@@ -25,6 +32,10 @@ export const speciesTraitsSchema = z.object({
   potUpWeeks: weeks.nullable().optional(),
   /** Cells of bench a plant takes once potted up (a cell of a 72-cell tray is 1). */
   cellsPerPlant: z.number().int().min(1).max(72).nullable().optional(),
+  hardiness: hardinessSchema.nullable(),
+  /** Days from sowing to seedlings showing at sowing temperature (fewest, most). */
+  emergeDaysMin: day.nullable(),
+  emergeDaysMax: day.nullable(),
 });
 export type SpeciesTraits = z.infer<typeof speciesTraitsSchema>;
 export type TraitName = keyof SpeciesTraits;
@@ -44,6 +55,9 @@ export const EMPTY_TRAITS: SpeciesTraits = {
   outcrossing: null,
   poisonous: false,
   caution: null,
+  hardiness: null,
+  emergeDaysMin: null,
+  emergeDaysMax: null,
 };
 
 function consistent(t: Partial<SpeciesTraits>, ctx: z.RefinementCtx) {
@@ -59,6 +73,13 @@ function consistent(t: Partial<SpeciesTraits>, ctx: z.RefinementCtx) {
       code: 'custom',
       path: ['germTempMaxC'],
       message: 'The highest temperature must be at least the lowest.',
+    });
+  }
+  if (t.emergeDaysMin != null && t.emergeDaysMax != null && t.emergeDaysMin > t.emergeDaysMax) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['emergeDaysMax'],
+      message: 'The most days to emerge must be at least the fewest.',
     });
   }
   if (t.startWeeksFrom != null && t.startWeeksTo != null && t.startWeeksFrom < t.startWeeksTo) {

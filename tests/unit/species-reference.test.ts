@@ -383,3 +383,33 @@ describe('species reference schema: rejects bad records', () => {
     expect(speciesReferenceSchema.safeParse({ ...species('sweet-pea'), caution: null }).success).toBe(false);
   });
 });
+
+describe('species reference set: hardiness', () => {
+  it('when vegetables in the read hardiness table are looked up, then each is in its group with that source', () => {
+    // Purdue Extension HO-203, after University of Illinois VC-14 (read through a page quoting
+    // it): very hardy (Hilum: hardy) lettuce, kale, spinach, pea; frost tolerant (half-hardy) beet,
+    // broccoli, cabbage, carrot, onion plants; tender snap bean, sweet corn, tomato; warm loving
+    // (very tender) cucumber, eggplant, pepper, squash.
+    const groups: Record<string, string[]> = {
+      hardy: ['lettuce', 'kale', 'spinach', 'pea'],
+      'half-hardy': ['beet', 'broccoli', 'cabbage', 'carrot', 'onion'],
+      tender: ['bean', 'sweet-corn', 'tomato'],
+      'very-tender': ['cucumber', 'eggplant', 'pepper', 'squash'],
+    };
+    for (const [group, keys] of Object.entries(groups)) {
+      for (const key of keys) {
+        expect(species(key).hardiness, key).toBe(group);
+        expect(species(key).sources.hardiness, key).toBe('purdueHo203');
+      }
+    }
+    expect(SOURCES.purdueHo203.basis).toBe('read');
+  });
+
+  it('when a species’ hardiness is not from the read table, then its source says memory', () => {
+    for (const s of SPECIES_REFERENCE) {
+      if (s.hardiness !== null && s.sources.hardiness !== 'purdueHo203') {
+        expect(SOURCES[s.sources.hardiness].basis, s.key).toBe('memory');
+      }
+    }
+  });
+});

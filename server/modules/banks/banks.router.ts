@@ -2,6 +2,7 @@ import { Router, type Request } from 'express';
 import { z } from 'zod';
 import {
   bankResponseSchema,
+  bankUpdateResponseSchema,
   bankSchema,
   createBankBodySchema,
   createInvitationBodySchema,
@@ -48,8 +49,8 @@ export function bankRoutes(banks: BanksService, invitations: InvitationsService)
   });
   router.patch('/', requireRole('owner'), async (req, res) => {
     const body = parse(updateBankBodySchema, req.body, 'bank settings');
-    respond(res, 200, bankResponseSchema, {
-      bank: await banks.update(bankId(req), body),
+    respond(res, 200, bankUpdateResponseSchema, {
+      ...(await banks.update(bankId(req), body)),
       role: bankOf(req).role,
     });
   });

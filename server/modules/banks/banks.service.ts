@@ -3,7 +3,8 @@ import type { CreateBankBody, UpdateBankBody } from '#shared/schemas/banks';
 import type { Db } from '#server/db/database';
 import type { Bank, BankUpdate } from '#server/db/schema';
 import { AppError, conflict, notFound } from '#server/http/errors';
-import type { Clock } from '#server/clock';
+import { bankToday, type Clock } from '#server/clock';
+import { recordFrostMove } from '../plan/plan.shared.repository';
 import * as repo from './banks.repository';
 
 export function toBankDto(bank: Bank) {
@@ -79,7 +80,20 @@ export function createBanksService({ db, clock }: { db: Db; clock: Clock }) {
       if (body.sowThresholdPercent !== undefined) changes.sow_threshold_percent = body.sowThresholdPercent;
       if (body.establishmentFactor !== undefined) changes.establishment_factor = body.establishmentFactor;
       if (body.sowingAssurance !== undefined) changes.sowing_assurance = body.sowingAssurance;
-      return toBankDto(await repo.updateBank(db, bankId, changes));
+      // One transaction: the new frost date and the record of the unsown sowings it moved.
+      return db.transaction().execute(async (trx) => {
+        const before = await repo.findBank(trx, bankId);
+        if (!before) throw notFound('No such bank.');
+        const bank = await repo.updateBank(trx, bankId, changes);
+        const planMoved = await recordFrostMove(
+          trx,
+          bankId,
+          before.last_frost,
+          bank.last_frost,
+          await bankToday(trx, clock, bankId),
+        );
+        return { bank: toBankDto(bank), planMoved };
+      });
     },
 
     remove: (bankId: string) => repo.deleteBank(db, bankId),

@@ -1,6 +1,6 @@
 import { sql, type Insertable, type Updateable } from 'kysely';
 import type { DbOrTx } from '#server/db/database';
-import type { PlanEntryTable, SowingEmergenceTable } from '#server/db/schema';
+import type { PlanEntryTable, PlanMoveTable, SowingEmergenceTable } from '#server/db/schema';
 
 const entries = (db: DbOrTx, bankId: string) =>
   db
@@ -10,11 +10,17 @@ const entries = (db: DbOrTx, bankId: string) =>
     .selectAll('plan_entries')
     // The lot's stock now (kept on the lot from its ledger), so the planner can say before
     // "Mark sown" that it falls short.
-    .select([
+    .select((eb) => [
       'species.common_name as species_name',
       'lots.code as lot_code',
       'lots.seeds_on_hand',
       'lots.amount_kind',
+      // How many sowings its succession has now (a sowing taken out no longer counts).
+      eb
+        .selectFrom('plan_entries as sibling')
+        .select(eb.fn.countAll<string>().as('n'))
+        .whereRef('sibling.succession_id', '=', 'plan_entries.succession_id')
+        .as('succession_of'),
     ])
     .where('plan_entries.bank_id', '=', bankId);
 
@@ -23,33 +29,46 @@ export type PlanEntryRow = Awaited<ReturnType<ReturnType<typeof entries>['execut
 export const findEntry = (db: DbOrTx, bankId: string, entryId: string) =>
   entries(db, bankId).where('plan_entries.id', '=', entryId).executeTakeFirst();
 
-/** The season's entries in sowing order. */
-export const listSeason = (db: DbOrTx, bankId: string, season: number) =>
-  entries(db, bankId)
-    .where('plan_entries.season', '=', season)
-    .orderBy('plan_entries.sow_from')
-    .orderBy('species.common_name')
-    .execute();
+export const findEntries = (db: DbOrTx, bankId: string, entryIds: string[]) =>
+  entryIds.length === 0
+    ? Promise.resolve([])
+    : entries(db, bankId).where('plan_entries.id', 'in', entryIds).execute();
 
-/** Every entry of the bank with its species and lot, for the overview. */
-export const listForOverview = (db: DbOrTx, bankId: string) =>
+/** The season's entries (in no set order: their live dates order them). */
+export const listSeason = (db: DbOrTx, bankId: string, season: number) =>
+  entries(db, bankId).where('plan_entries.season', '=', season).execute();
+
+/** Every entry of the bank, or only those not yet sown, with species and lot. */
+export const listAll = (db: DbOrTx, bankId: string, only?: 'unsown') => {
+  const q = entries(db, bankId);
+  return (only === 'unsown' ? q.where('plan_entries.sown_on', 'is', null) : q).execute();
+};
+
+/** How many unsown entries each season from `season` on has. */
+export const unsownBySeason = (db: DbOrTx, bankId: string, fromSeason: number) =>
   db
     .selectFrom('plan_entries')
-    .innerJoin('species', 'species.id', 'plan_entries.species_id')
-    .leftJoin('lots', 'lots.id', 'plan_entries.lot_id')
-    .select([
-      'plan_entries.id',
-      'plan_entries.sow_from',
-      'plan_entries.sow_to',
-      'plan_entries.seeds_to_sow',
-      'plan_entries.plants_wanted',
-      'plan_entries.lot_id',
-      'plan_entries.sown_on',
-      'species.common_name',
-      'lots.code',
-    ])
-    .where('plan_entries.bank_id', '=', bankId)
+    .select(['season', (eb) => eb.fn.countAll<string>().as('n')])
+    .where('bank_id', '=', bankId)
+    .where('sown_on', 'is', null)
+    .where('season', '>=', fromSeason)
+    .groupBy('season')
+    .orderBy('season')
     .execute();
+
+export const insertMove = (db: DbOrTx, values: Insertable<PlanMoveTable>) =>
+  db.insertInto('plan_moves').values(values).returningAll().executeTakeFirstOrThrow();
+
+/** The latest frost-date move of a season's plan. */
+export const latestMove = (db: DbOrTx, bankId: string, season: number) =>
+  db
+    .selectFrom('plan_moves')
+    .selectAll()
+    .where('bank_id', '=', bankId)
+    .where('season', '=', season)
+    .orderBy('created_at', 'desc')
+    .limit(1)
+    .executeTakeFirst();
 
 export const frostSettings = (db: DbOrTx, bankId: string) =>
   db

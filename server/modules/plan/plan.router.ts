@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { comingSeason } from '#shared/plan-dates';
 import {
   createPlanBodySchema,
+  createPlanResponseSchema,
   emergenceBodySchema,
   emergenceResponseSchema,
   planEntrySchema,
@@ -35,11 +36,12 @@ export function planRoutes(plan: PlanService, deps: { db: Db; clock: Clock; viab
       season,
       items: await plan.list(bankOf(req).id, season),
       nextCursor: null,
+      moved: await plan.latestMove(bankOf(req).id, season),
     });
   });
   router.post('/', requireRole('grower'), async (req, res) => {
     const body = parse(createPlanBodySchema, req.body, 'plan entry');
-    respond(res, 201, one, { entry: await plan.create(bankOf(req).id, authOf(req).userId, body) });
+    respond(res, 201, createPlanResponseSchema, await plan.create(bankOf(req).id, authOf(req).userId, body));
   });
   router.get('/:entryId', requireRole('viewer'), async (req, res) => {
     respond(res, 200, one, { entry: await plan.get(bankOf(req).id, entryId(req)) });
@@ -53,9 +55,9 @@ export function planRoutes(plan: PlanService, deps: { db: Db; clock: Clock; viab
     res.status(204).end();
   });
   router.post('/:entryId/sown', requireRole('grower'), async (req, res) => {
-    const { date } = parse(sownBodySchema, req.body ?? {}, 'sowing');
+    const body = parse(sownBodySchema, req.body ?? {}, 'sowing');
     respond(res, 200, one, {
-      entry: await plan.markSown(bankOf(req).id, entryId(req), authOf(req).userId, date),
+      entry: await plan.markSown(bankOf(req).id, entryId(req), authOf(req).userId, body),
     });
   });
   router.post('/:entryId/emergence', requireRole('grower'), async (req, res) => {

@@ -5,6 +5,7 @@ import type {
   EmergenceBody,
   EmergenceRecordDto,
   PlanEntryDto,
+  SownBody,
   updatePlanBodySchema,
 } from '#shared/schemas/plan';
 import { bankToday, type Clock } from '#server/clock';
@@ -16,6 +17,7 @@ import { findSpecies } from '../species/species.shared.repository';
 import type { ViabilityService } from '../viability/viability.service';
 import { dayInWords } from '#shared/day-words';
 import { planCalendar, type ExtraEvent } from './plan-calendar';
+import { dateInputs, entryDates, moveDto, withLiveDates, type LiveDates } from './plan-live';
 import * as repo from './plan.repository';
 
 export type { ExtraEvent } from './plan-calendar';
@@ -40,8 +42,11 @@ export function createPlanService({
     latest: e.latest,
   });
 
-  /** Each entry with what came up from its sowing (one read for them all). */
-  async function withEmergence(bankId: string, rows: repo.PlanEntryRow[]): Promise<PlanEntryDto[]> {
+  type LiveRow = repo.PlanEntryRow & { live: LiveDates };
+
+  /** Each entry with its dates now and what came up from its sowing (one read for them all). */
+  async function withEmergence(bankId: string, plain: repo.PlanEntryRow[]): Promise<PlanEntryDto[]> {
+    const rows = await withLiveDates(db, bankId, plain);
     const sown = rows.filter((r) => r.sown_on !== null).map((r) => r.id);
     const byEntry = new Map<string, EmergenceRecordDto[]>();
     for (const e of await repo.emergenceOfEntries(db, bankId, sown)) {
@@ -52,7 +57,7 @@ export function createPlanService({
     return rows.map((r) => toDto(r, byEntry.get(r.id) ?? []));
   }
 
-  const toDto = (r: repo.PlanEntryRow, emergence: EmergenceRecordDto[]): PlanEntryDto => ({
+  const toDto = (r: LiveRow, emergence: EmergenceRecordDto[]): PlanEntryDto => ({
     id: r.id,
     season: r.season,
     speciesId: r.species_id,
@@ -65,14 +70,25 @@ export function createPlanService({
     seedsToSow: r.seeds_to_sow,
     // Null too when the lot's amount is not known: never read as zero.
     seedsOnHand: r.lot_id === null || r.amount_kind === 'unknown' ? null : (r.seeds_on_hand ?? 0),
-    sowFrom: r.sow_from,
-    sowTo: r.sow_to,
-    expectFrom: r.expect_from,
-    expectBy: r.expect_by,
-    hardenFrom: r.harden_from,
-    transplantOn: r.transplant_on,
-    notes: (r.notes as string[]) ?? [],
+    sowFrom: r.live.sowFrom,
+    sowTo: r.live.sowTo,
+    expectFrom: r.live.expectFrom,
+    expectBy: r.live.expectBy,
+    hardenFrom: r.live.hardenFrom,
+    transplantOn: r.live.transplantOn,
+    // The dates' notes as they are now, then the lot's as last worked out.
+    notes: [...r.live.notes, ...(((r.notes as string[] | null) ?? []) as string[])],
     sownOn: r.sown_on,
+    hardiness: r.live.hardiness,
+    succession:
+      r.succession_id && r.succession_no && r.succession_weeks
+        ? {
+            id: r.succession_id,
+            number: r.succession_no,
+            of: Number(r.succession_of ?? 1),
+            everyWeeks: r.succession_weeks,
+          }
+        : null,
     emergence,
   });
 
@@ -91,6 +107,7 @@ export function createPlanService({
       plantsWanted: number;
       start: 'indoors' | 'direct';
       lotId: string | null;
+      offsetDays: number;
     },
   ) {
     const bank = await repo.frostSettings(db, bankId);
@@ -105,12 +122,14 @@ export function createPlanService({
         marginDays: bank.frost_margin_days,
         traits: species.traits,
         start: input.start,
+        offsetDays: input.offsetDays,
       });
     } catch (error) {
       if (error instanceof PlanDateError) throw unprocessable(error.message);
       throw error;
     }
-    const notes = [...dates.notes];
+    // Only the lot's notes are kept: the dates' own are worked out again on every read.
+    const notes: string[] = [];
     const candidates = await viability.candidates(bankId, species.id, dates.sowFrom, input.plantsWanted);
     let lotId = input.lotId;
     let seeds: number | null = null;
@@ -155,13 +174,33 @@ export function createPlanService({
     return { dates, notes, lotId, seeds };
   }
 
+  /** The season's entries with their dates now, in sowing order. */
   async function list(bankId: string, season: number) {
     return withEmergence(bankId, await repo.listSeason(db, bankId, season));
   }
 
+  /** The stored columns of a plan: the dates as now planned and the lot as worked out. */
+  const planned = (c: Awaited<ReturnType<typeof compute>>) => ({
+    lot_id: c.lotId,
+    seeds_to_sow: c.seeds,
+    sow_from: c.dates.sowFrom,
+    sow_to: c.dates.sowTo,
+    expect_from: c.dates.expectFrom,
+    expect_by: c.dates.expectBy,
+    harden_from: c.dates.hardenFrom,
+    transplant_on: c.dates.transplantOn,
+    notes: JSON.stringify(c.notes),
+  });
+
   return {
     get,
     list,
+
+    /** The latest frost-date move of a season's plan, in words, or null. */
+    async latestMove(bankId: string, season: number) {
+      const row = await repo.latestMove(db, bankId, season);
+      return row ? moveDto(row) : null;
+    },
 
     /** The season's plan and the retests due (and any `extra` events), as an iCalendar file. */
     async calendar(bankId: string, season: number, extra: ExtraEvent[] = []) {
@@ -174,30 +213,51 @@ export function createPlanService({
       return planCalendar(bank.name, season, entries, retests, extra);
     },
 
+    /**
+     * Plans a sowing, or a succession of them: `succession.sowings` entries, each
+     * `succession.everyWeeks` weeks after the one before, with its own dates, lot and seeds.
+     */
     async create(bankId: string, userId: string, body: CreatePlanBody) {
-      const c = await compute(bankId, { ...body, lotId: body.lotId ?? null });
-      const row = await repo.insertEntry(db, {
-        bank_id: bankId,
-        season: body.season,
-        species_id: body.speciesId,
-        lot_id: c.lotId,
-        lot_chosen: Boolean(body.lotId),
-        plants_wanted: body.plantsWanted,
-        start: body.start,
-        seeds_to_sow: c.seeds,
-        sow_from: c.dates.sowFrom,
-        sow_to: c.dates.sowTo,
-        expect_from: c.dates.expectFrom,
-        expect_by: c.dates.expectBy,
-        harden_from: c.dates.hardenFrom,
-        transplant_on: c.dates.transplantOn,
-        notes: JSON.stringify(c.notes),
-        created_by: userId,
+      const sowings = body.succession?.sowings ?? 1;
+      const everyWeeks = body.succession?.everyWeeks ?? null;
+      const plans: { offsetDays: number; c: Awaited<ReturnType<typeof compute>> }[] = [];
+      for (let i = 0; i < sowings; i++) {
+        const offsetDays = i * 7 * (everyWeeks ?? 0);
+        plans.push({
+          offsetDays,
+          c: await compute(bankId, { ...body, lotId: body.lotId ?? null, offsetDays }),
+        });
+      }
+      const ids = await db.transaction().execute(async (trx) => {
+        const successionId = body.succession ? crypto.randomUUID() : null;
+        const out: string[] = [];
+        for (const [i, p] of plans.entries()) {
+          const row = await repo.insertEntry(trx, {
+            bank_id: bankId,
+            season: body.season,
+            species_id: body.speciesId,
+            lot_chosen: Boolean(body.lotId),
+            plants_wanted: body.plantsWanted,
+            start: body.start,
+            ...planned(p.c),
+            succession_id: successionId,
+            succession_no: successionId ? i + 1 : null,
+            succession_weeks: everyWeeks,
+            offset_days: p.offsetDays,
+            created_by: userId,
+          });
+          out.push(row.id);
+        }
+        return out;
       });
-      return get(bankId, row.id);
+      const entries = await withEmergence(bankId, await repo.findEntries(db, bankId, ids));
+      entries.sort((x, y) => (x.succession?.number ?? 1) - (y.succession?.number ?? 1));
+      return { entry: entries[0]!, entries };
     },
 
     async update(bankId: string, entryId: string, body: z.infer<typeof updatePlanBodySchema>) {
+      const row = await repo.findEntry(db, bankId, entryId);
+      if (!row) throw notFound('No such plan entry in this bank.');
       const current = await get(bankId, entryId);
       if (current.sownOn)
         throw conflict('This entry is marked sown. Undo that first to change it.', 'already_sown');
@@ -208,21 +268,14 @@ export function createPlanService({
         plantsWanted: body.plantsWanted ?? current.plantsWanted,
         start: body.start ?? current.start,
         lotId: body.lotId !== undefined ? body.lotId : current.lotChosen ? current.lotId : null,
+        offsetDays: row.offset_days,
       };
       const c = await compute(bankId, input);
       await repo.updateEntry(db, entryId, {
-        lot_id: c.lotId,
+        ...planned(c),
         lot_chosen: lotChosen,
         plants_wanted: input.plantsWanted,
         start: input.start,
-        seeds_to_sow: c.seeds,
-        sow_from: c.dates.sowFrom,
-        sow_to: c.dates.sowTo,
-        expect_from: c.dates.expectFrom,
-        expect_by: c.dates.expectBy,
-        harden_from: c.dates.hardenFrom,
-        transplant_on: c.dates.transplantOn,
-        notes: JSON.stringify(c.notes),
         updated_at: clock.now(),
       });
       return get(bankId, entryId);
@@ -238,18 +291,32 @@ export function createPlanService({
       await repo.deleteEntry(db, entryId);
     },
 
-    /** Withdraws the entry's seeds from its lot, once, in one transaction with the mark. */
-    async markSown(bankId: string, entryId: string, userId: string, date?: string) {
+    /**
+     * Withdraws the entry's seeds from its lot, once, in one transaction with the mark, and keeps
+     * the dates it was sown under. The day is always the grower's choice; a day outside the sowing
+     * window is 409 `outside_window` unless confirmed, and a day after the bank's today is 422.
+     */
+    async markSown(bankId: string, entryId: string, userId: string, body: SownBody) {
       const today = await bankToday(db, clock, bankId);
-      const on = date ?? today;
+      const on = body.date;
       if (on > today)
-        throw unprocessable('A sowing cannot be dated in the future.', {
+        throw unprocessable(`A sowing cannot be dated after today (${dayInWords(today)}).`, {
           date: 'Use today or an earlier date.',
         });
       await db.transaction().execute(async (trx) => {
         const entry = await repo.lockEntry(trx, bankId, entryId);
         if (!entry) throw notFound('No such plan entry in this bank.');
         if (entry.sown_on) throw conflict(`Already marked sown on ${entry.sown_on}.`, 'already_sown');
+        const dates = entryDates(await dateInputs(trx, bankId), entry, on);
+        if ((on < dates.sowFrom || on > dates.sowTo) && body.confirm !== true) {
+          const window = `${dayInWords(dates.sowFrom)} – ${dayInWords(dates.sowTo)}`;
+          throw new AppError(
+            409,
+            'outside_window',
+            `${dayInWords(on)} is ${on < dates.sowFrom ? 'before' : 'after'} this sowing window (${window}). Was it really sown then? Send it again with confirm to record it.`,
+            { date: `Outside the sowing window, ${window}.` },
+          );
+        }
         if (!entry.lot_id || !entry.seeds_to_sow)
           throw unprocessable(
             'Choose a tested lot for this entry first, so Hilum knows how many seeds to take.',
@@ -273,9 +340,16 @@ export function createPlanService({
           reason: `Sown for ${entry.plants_wanted} plants (season plan ${entry.season})`,
           created_by: userId,
         });
+        // Sown: the dates it was sown under are kept, seedlings expected counted from its day.
         await repo.updateEntry(trx, entryId, {
           sown_on: on,
           sown_movement_id: movement.id,
+          sow_from: dates.sowFrom,
+          sow_to: dates.sowTo,
+          expect_from: dates.expectFrom,
+          expect_by: dates.expectBy,
+          harden_from: dates.hardenFrom,
+          transplant_on: dates.transplantOn,
           updated_at: clock.now(),
         });
         if (onHand !== null && onHand === entry.seeds_to_sow && lot.status === 'active') {

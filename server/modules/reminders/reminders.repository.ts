@@ -1,6 +1,7 @@
 import { sql, type Insertable } from 'kysely';
 import type { DbOrTx } from '#server/db/database';
 import type { ReminderTable } from '#server/db/schema';
+import { unsownEntries } from '../plan/plan.shared.repository';
 
 type PrefColumn = 'remind_sowing' | 'remind_checks' | 'remind_retest' | 'remind_digest';
 
@@ -45,27 +46,9 @@ export const bankMembers = (db: DbOrTx, bankId: string) =>
     .where('memberships.bank_id', '=', bankId)
     .execute();
 
-/** Unsown plan entries whose sowing window opened between `earliest` and `today`. */
-export const sowingsOpened = (db: DbOrTx, bankId: string, earliest: string, today: string) =>
-  db
-    .selectFrom('plan_entries')
-    .innerJoin('species', 'species.id', 'plan_entries.species_id')
-    .leftJoin('lots', 'lots.id', 'plan_entries.lot_id')
-    .select([
-      'plan_entries.id',
-      'plan_entries.sow_from',
-      'plan_entries.sow_to',
-      'plan_entries.seeds_to_sow',
-      'plan_entries.plants_wanted',
-      'plan_entries.start',
-      'species.common_name',
-      'lots.code',
-    ])
-    .where('plan_entries.bank_id', '=', bankId)
-    .where('plan_entries.sown_on', 'is', null)
-    .where('plan_entries.sow_from', '<=', today)
-    .where('plan_entries.sow_from', '>=', earliest)
-    .execute();
+/** Unsown plan entries whose sowing window (as the plan dates it now) opened between `earliest` and `today`. */
+export const sowingsOpened = async (db: DbOrTx, bankId: string, earliest: string, today: string) =>
+  (await unsownEntries(db, bankId)).filter((e) => e.sow_from <= today && e.sow_from >= earliest);
 
 export const runningAssays = (db: DbOrTx, bankId: string) =>
   db
@@ -111,17 +94,9 @@ export const traysToCount = (db: DbOrTx, assayIds: string[]) =>
     .orderBy('position')
     .execute();
 
-/** Unsown plan entries whose sowing window opens between `from` and `to`. */
-export const sowingsOpening = (db: DbOrTx, bankId: string, from: string, to: string) =>
-  db
-    .selectFrom('plan_entries')
-    .innerJoin('species', 'species.id', 'plan_entries.species_id')
-    .select(['species.common_name', 'plan_entries.sow_from'])
-    .where('plan_entries.bank_id', '=', bankId)
-    .where('plan_entries.sown_on', 'is', null)
-    .where('plan_entries.sow_from', '>=', from)
-    .where('plan_entries.sow_from', '<=', to)
-    .execute();
+/** Unsown plan entries whose sowing window (as the plan dates it now) opens between `from` and `to`. */
+export const sowingsOpening = async (db: DbOrTx, bankId: string, from: string, to: string) =>
+  (await unsownEntries(db, bankId)).filter((e) => e.sow_from >= from && e.sow_from <= to);
 
 export const allBanks = (db: DbOrTx) => db.selectFrom('banks').select(['id', 'name', 'time_zone']).execute();
 

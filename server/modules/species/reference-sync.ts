@@ -20,7 +20,24 @@ const SOURCE_OF: Record<Exclude<TraitName, SpaceTraitName>, TraitKey> = {
   outcrossing: 'outcrossing',
   poisonous: 'poisonous',
   caution: 'poisonous',
+  hardiness: 'hardiness',
+  emergeDaysMin: 'emergenceDaysBySoilTemp',
+  emergeDaysMax: 'emergenceDaysBySoilTemp',
 };
+
+/**
+ * Days from sowing to seedlings at indoor sowing warmth: the days the source gives at home
+ * conditions, else the emergence table at 77 °F (fewest) and 68 °F (most), the warm end of the
+ * table where indoor sowings sit.
+ */
+export function emergeDays(s: SpeciesReference): { min: number; max: number } | null {
+  if (s.homeGermination) return { min: s.homeGermination.daysMin, max: s.homeGermination.daysMax };
+  const at = (f: number) => s.emergenceDaysBySoilTemp?.find((e) => e.soilF === f)?.days ?? null;
+  const warm = at(77);
+  const mild = at(68);
+  if (warm === null || mild === null) return null;
+  return { min: Math.min(warm, mild), max: Math.max(warm, mild) };
+}
 
 export function referenceTraits(s: SpeciesReference): SpeciesTraits {
   const range = s.seedsPerGram.range;
@@ -39,14 +56,22 @@ export function referenceTraits(s: SpeciesReference): SpeciesTraits {
     outcrossing: s.outcrossing,
     poisonous: s.poisonous,
     caution: s.caution,
+    hardiness: s.hardiness,
+    emergeDaysMin: emergeDays(s)?.min ?? null,
+    emergeDaysMax: emergeDays(s)?.max ?? null,
     ...spaceTraitsOf(s.key),
   };
 }
 
 export function referenceSources(s: SpeciesReference): Record<string, { title: string; basis: string }> {
   const traits = Object.keys(SOURCE_OF) as (keyof typeof SOURCE_OF)[];
+  // Days to emerge come from the home-conditions days where a species has them, else the table.
+  const keyOf = (trait: keyof typeof SOURCE_OF): TraitKey =>
+    (trait === 'emergeDaysMin' || trait === 'emergeDaysMax') && s.homeGermination
+      ? 'homeGermination'
+      : SOURCE_OF[trait];
   return Object.fromEntries([
-    ...traits.map((trait) => [trait, sourceRef(SOURCES[s.sources[SOURCE_OF[trait]]])]),
+    ...traits.map((trait) => [trait, sourceRef(SOURCES[s.sources[keyOf(trait)]])]),
     ...Object.entries(spaceSourcesOf(s.key)),
   ]);
 }
