@@ -55,7 +55,8 @@ export const HARDINESS_DAYS: Record<Hardiness, { from: number; to: number; margi
   'very-tender': { from: 7, to: 14, margin: true },
 };
 
-const HARDINESS_WORDS: Record<Hardiness, string> = {
+/** Hardiness in words, as every screen and sentence says it. */
+export const HARDINESS_WORDS: Record<Hardiness, string> = {
   hardy: 'hardy',
   'half-hardy': 'half-hardy',
   tender: 'tender',

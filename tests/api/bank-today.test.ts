@@ -115,7 +115,7 @@ describe.each(ZONES)('today in a bank $where ($zone)', ({ zone, today, tomorrow 
     });
   });
 
-  it('when a planned sowing is marked sown tomorrow in the bank, then it is 422; with no date it is sown today in the bank', async () => {
+  it('when a planned sowing is marked sown tomorrow in the bank, then it is 422; today in the bank it is sown', async () => {
     const lotId = (await newLot({ seedCount: 400 })).body.lot.id as string;
     await finishedAssay(bank.grower.agent, bank.bankId, lotId, '2026-02-01', [{ sown: 50, germinated: 45 }]);
     const planned = await bank.grower.agent
@@ -125,7 +125,11 @@ describe.each(ZONES)('today in a bank $where ($zone)', ({ zone, today, tomorrow 
     const entryId = planned.body.entry.id as string;
     const future = await bank.grower.agent.post(`${base()}/plan/${entryId}/sown`).send({ date: tomorrow });
     expect(future.status).toBe(422);
-    const sown = await bank.grower.agent.post(`${base()}/plan/${entryId}/sown`).send({});
+    // No silent today: the day is always sent (the 2026 window is long past, so it is confirmed).
+    expect((await bank.grower.agent.post(`${base()}/plan/${entryId}/sown`).send({})).status).toBe(400);
+    const sown = await bank.grower.agent
+      .post(`${base()}/plan/${entryId}/sown`)
+      .send({ date: today, confirm: true });
     expect(sown.status).toBe(200);
     expect(sown.body.entry.sownOn).toBe(today);
   });

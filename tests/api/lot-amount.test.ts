@@ -360,7 +360,7 @@ describe('sowing from a lot whose amount is not known', () => {
     expect(planned.body.entry.notes.join(' ')).toMatch(/amount is not known/);
     const sown = await bank.grower.agent
       .post(`/api/banks/${bank.bankId}/plan/${planned.body.entry.id}/sown`)
-      .send({ date: '2026-11-30' });
+      .send({ date: '2026-11-30', confirm: true });
     expect(sown.status).toBe(200);
     const lot = (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${lotId}`)).body.lot;
     expect(lot).toMatchObject({ amount: { kind: 'unknown' }, seedsOnHand: null, status: 'active' });

@@ -42,8 +42,9 @@ describe('the season plan', () => {
     expect(e).toMatchObject({ sowFrom: '2027-03-25', sowTo: '2027-04-08', lotId: goodLot, lotChosen: false });
     // Plant out after the frost date + 7-day margin, harden off the week before.
     expect(e).toMatchObject({ transplantOn: '2027-05-27', hardenFrom: '2027-05-20' });
-    // Seedlings expected 5–14 days after the first sowing (tomato count days, from memory).
-    expect(e).toMatchObject({ expectFrom: '2027-03-30', expectBy: '2027-04-08' });
+    // Seedlings expected from 6 days after the first sowing to 8 days after the last (tomato days
+    // to emerge at 77 °F and 68 °F, Harrington & Minges 1954 in Knott's Handbook): 03-31 to 04-16.
+    expect(e).toMatchObject({ expectFrom: '2027-03-31', expectBy: '2027-04-16' });
     const sow = await bank.viewer.agent.get(
       `/api/banks/${bank.bankId}/lots/${goodLot}/seeds-to-sow?plants=12&on=2027-03-25`,
     );
@@ -59,7 +60,10 @@ describe('the season plan', () => {
     expect(entry.lotId).toBe(smallLot);
     const before = (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot
       .seedsOnHand;
-    const sown = await bank.grower.agent.post(`${url()}/${entry.id}/sown`).send({ date: '2026-11-30' });
+    // 30 Nov 2026 is before the 2027 window: confirmed.
+    const sown = await bank.grower.agent
+      .post(`${url()}/${entry.id}/sown`)
+      .send({ date: '2026-11-30', confirm: true });
     expect(sown.status).toBe(200);
     expect(sown.body.entry.sownOn).toBe('2026-11-30');
     const after = (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot
@@ -68,8 +72,11 @@ describe('the season plan', () => {
     // The entry carries the lot's stock, before and after the sowing.
     expect(entry.seedsOnHand).toBe(before);
     expect(sown.body.entry.seedsOnHand).toBe(after);
-    const again = await bank.grower.agent.post(`${url()}/${entry.id}/sown`).send({});
+    const again = await bank.grower.agent
+      .post(`${url()}/${entry.id}/sown`)
+      .send({ date: '2026-11-30', confirm: true });
     expect(again.status).toBe(409);
+    expect(again.body.error.code).toBe('already_sown');
     expect(
       (await bank.viewer.agent.get(`/api/banks/${bank.bankId}/lots/${smallLot}`)).body.lot.seedsOnHand,
     ).toBe(after);
@@ -88,7 +95,11 @@ describe('the season plan', () => {
     expect(res.body.entry.notes.join(' ')).toMatch(/No lot has enough seed/);
     // The stock it falls short of is on the entry, so the planner can say so before marking it sown.
     expect(res.body.entry.seedsOnHand).toBeLessThan(res.body.entry.seedsToSow);
-    expect((await bank.grower.agent.post(`${url()}/${res.body.entry.id}/sown`).send({})).status).toBe(409);
+    const short = await bank.grower.agent
+      .post(`${url()}/${res.body.entry.id}/sown`)
+      .send({ date: '2026-11-30', confirm: true });
+    expect(short.status).toBe(409);
+    expect(short.body.error.code).toBe('stock_below_zero');
   });
 
   it('when the plan is read without a season, then it is the coming spring’s on the bank’s calendar', async () => {

@@ -301,7 +301,7 @@ export const bankRoutes: Record<string, MatrixRoute> = {
   'POST plan sown': {
     method: 'post',
     path: async (f) => `/api/banks/${f.bankId}/plan/${await f.make('plan')}/sown`,
-    body: () => ({}),
+    body: () => ({ date: '2026-02-20', confirm: true }),
     least: 'grower',
     // The fixture's entry has no tested lot, so nothing can be withdrawn (API.md: 422).
     ok: 422,

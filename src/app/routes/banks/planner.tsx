@@ -44,7 +44,7 @@ export function PlannerPage() {
   const species = useSpecies(bank.id).data ?? [];
   const ranking = useRanking(bank.id, today);
   const [added, setAdded] = useState<string>();
-  const entries = useMemo(() => plan.data ?? [], [plan.data]);
+  const entries = useMemo(() => plan.data?.items ?? [], [plan.data]);
   const events = useMemo(
     () => seasonEvents(season, entries, ranking.data ?? []),
     [season, entries, ranking.data],
@@ -122,6 +122,15 @@ export function PlannerPage() {
         marginDays={bank.frostMarginDays}
         isOwner={role === 'owner'}
       />
+      {plan.data?.moved ? (
+        <p
+          role="note"
+          data-plan-moved
+          className="mt-2 rounded-lg border border-seedcoat-300 bg-seedcoat-100 px-3 py-2 font-semibold text-seedcoat-900"
+        >
+          {plan.data.moved.message}
+        </p>
+      ) : null}
 
       <div
         role="group"
@@ -219,11 +228,15 @@ export function PlannerPage() {
                   lastFrost={bank.lastFrost}
                   marginDays={bank.frostMarginDays}
                   renderSpeciesNote={(s) => <SpeciesCautions species={s} />}
-                  onCreated={(entry) =>
+                  onCreated={(made) => {
+                    const first = made[0]!;
+                    const last = made[made.length - 1]!;
                     setAdded(
-                      `Added ${entry.speciesName}: sow between ${dayMonth(entry.sowFrom)} and ${dayMonth(entry.sowTo)}.`,
-                    )
-                  }
+                      made.length > 1
+                        ? `Added ${first.speciesName}: ${made.length} sowings, the first between ${dayMonth(first.sowFrom)} and ${dayMonth(first.sowTo)}, the last between ${dayMonth(last.sowFrom)} and ${dayMonth(last.sowTo)}.`
+                        : `Added ${first.speciesName}: sow between ${dayMonth(first.sowFrom)} and ${dayMonth(first.sowTo)}.`,
+                    );
+                  }}
                 />
               </Card>
             )}

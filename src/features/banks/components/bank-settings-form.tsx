@@ -51,6 +51,7 @@ export function BankSettingsForm({ bank, canEdit }: BankSettingsFormProps) {
   const update = useUpdateBank(bank.id);
   const [formError, setFormError] = useState<string>();
   const [saved, setSaved] = useState(false);
+  const [moved, setMoved] = useState<string[]>([]);
   const zones = useMemo(() => timeZones(bank.timeZone), [bank.timeZone]);
   const {
     register,
@@ -63,10 +64,12 @@ export function BankSettingsForm({ bank, canEdit }: BankSettingsFormProps) {
   const onSubmit = handleSubmit(async (body) => {
     setFormError(undefined);
     setSaved(false);
+    setMoved([]);
     try {
-      const { bank: next } = await update.mutateAsync(body);
+      const { bank: next, planMoved } = await update.mutateAsync(body);
       reset(toFormValues(next));
       setSaved(true);
+      setMoved(planMoved.map((m) => `Season ${m.season}: ${m.message}`));
     } catch (error) {
       setFormError(
         applyServerError(error, setError, [
@@ -200,9 +203,12 @@ export function BankSettingsForm({ bank, canEdit }: BankSettingsFormProps) {
             {update.isPending ? 'Saving…' : 'Save settings'}
           </Button>
           {saved ? (
-            <p role="status" className="font-semibold text-moss-800">
-              Saved.
-            </p>
+            <div role="status" className="font-semibold text-moss-800" data-plan-moved={moved.length}>
+              <p>Saved.</p>
+              {moved.map((line) => (
+                <p key={line}>{line}</p>
+              ))}
+            </div>
           ) : null}
         </div>
       ) : null}

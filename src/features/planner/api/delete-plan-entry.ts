@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { PlanEntryDto } from '#shared/schemas/plan';
 import { apiFetch } from '#src/lib/api-client';
+import type { PlanList } from './get-plan';
 import { refreshAfterPlanChange } from './invalidate-plan';
 import { bankKeys, bankPaths } from '#src/lib/bank-api';
 
@@ -14,8 +15,8 @@ export function useDeletePlanEntry(bankId: string, entry: PlanEntryDto) {
   return useMutation({
     mutationFn: () => deletePlanEntry(bankId, entry.id),
     onSuccess: async () => {
-      queryClient.setQueryData<PlanEntryDto[]>(bankKeys.planSeason(bankId, entry.season), (list) =>
-        list?.filter((e) => e.id !== entry.id),
+      queryClient.setQueryData<PlanList>(bankKeys.planSeason(bankId, entry.season), (plan) =>
+        plan ? { ...plan, items: plan.items.filter((e) => e.id !== entry.id) } : plan,
       );
       await refreshAfterPlanChange(queryClient, bankId, entry, { stockMoved: false });
     },

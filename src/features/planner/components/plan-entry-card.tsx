@@ -1,5 +1,6 @@
 import { useId, useState } from 'react';
 import { Link } from 'react-router-dom';
+import { HARDINESS_WORDS } from '#shared/plan-dates';
 import { sownBodySchema, updatePlanBodySchema, type PlanEntryDto } from '#shared/schemas/plan';
 import { Button } from '#src/components/ui/button';
 import { ConfirmDialog } from '#src/components/ui/confirm-dialog';
@@ -18,6 +19,7 @@ import { CameUp } from './came-up';
 import { dayMonth, dayRange, formatSeeds } from './plan-format';
 import { cannotPlan, lotChoiceLabel, lotsOfSpecies } from './plan-lots';
 
+
 /** Notes that ask the grower to act (no lot, too few seeds, no test) stand out from the others. */
 const WARNING = /no lot has enough|no tested lot|no germination test|has \d+ seeds|may need care/i;
 
@@ -25,7 +27,7 @@ export interface PlanEntryCardProps {
   bankId: string;
   entry: PlanEntryDto;
   canEdit: boolean;
-  /** Today in the bank's time zone: the default sowing date and the latest one allowed. */
+  /** Today in the bank's time zone: the latest sowing date allowed. */
   today: string;
 }
 
@@ -54,7 +56,14 @@ export function PlanEntryCard({ bankId, entry, canEdit, today }: PlanEntryCardPr
           <p className="text-loam-700">
             <span className="num">{formatSeeds(entry.plantsWanted)}</span> plants ·{' '}
             {entry.start === 'indoors' ? 'started indoors' : 'sown direct'}
+            {entry.hardiness ? ` · ${HARDINESS_WORDS[entry.hardiness]}` : ''}
           </p>
+          {entry.succession ? (
+            <p className="text-sm font-semibold text-moss-800" data-succession>
+              Sowing {entry.succession.number} of {entry.succession.of}, every {entry.succession.everyWeeks}{' '}
+              {entry.succession.everyWeeks === 1 ? 'week' : 'weeks'}
+            </p>
+          ) : null}
         </div>
         {sown ? (
           <span className="rounded-full bg-moss-100 px-2.5 py-0.5 text-sm font-bold text-moss-800">
@@ -222,23 +231,40 @@ function MarkSown({
   onDone: (message: string) => void;
 }) {
   const mark = useMarkSown(bankId, entry.id);
-  const [date, setDate] = useState(today);
+  // No day is filled in: the grower chooses the day it was sown, so nothing is recorded by default.
+  const [date, setDate] = useState('');
   const [error, setError] = useState<string>();
+  /** The question asked before recording a day outside the sowing window. */
+  const [question, setQuestion] = useState<string>();
   const ready = entry.lotId !== null && entry.seedsToSow !== null;
+
+  const send = async (day: string, confirm: boolean) => {
+    try {
+      const next = await mark.mutateAsync({ date: day, confirm });
+      setQuestion(undefined);
+      onDone(
+        `Sown on ${dayMonth(next.sownOn ?? day)}: ${formatSeeds(next.seedsToSow ?? 0)} seeds taken from the stock of lot ${next.lotCode ?? ''}.`,
+      );
+    } catch (e) {
+      // The window moved since the page was read: the server asks the same question.
+      if (isApiError(e) && e.code === 'outside_window') return setQuestion(e.message);
+      setError(isApiError(e) ? e.message : 'Not saved. Try again.');
+    }
+  };
 
   const submit = async () => {
     setError(undefined);
+    setQuestion(undefined);
+    if (!date) return setError('Choose the day it was sown.');
     const parsed = sownBodySchema.safeParse({ date });
-    if (!parsed.success || !parsed.data.date) return setError('Use a date like 2027-03-29.');
-    if (parsed.data.date > today) return setError('A sowing cannot be dated in the future.');
-    try {
-      const next = await mark.mutateAsync(parsed.data.date);
-      onDone(
-        `Sown on ${dayMonth(next.sownOn ?? parsed.data.date)}: ${formatSeeds(next.seedsToSow ?? 0)} seeds taken from the stock of lot ${next.lotCode ?? ''}.`,
+    if (!parsed.success) return setError('Use a date like 2027-03-29.');
+    if (parsed.data.date > today) return setError('A sowing cannot be dated after today.');
+    if (parsed.data.date < entry.sowFrom || parsed.data.date > entry.sowTo) {
+      return setQuestion(
+        `${dayMonth(parsed.data.date)} is ${parsed.data.date < entry.sowFrom ? 'before' : 'after'} this sowing window (${dayRange(entry.sowFrom, entry.sowTo)}). Was it really sown then?`,
       );
-    } catch (e) {
-      setError(isApiError(e) ? e.message : 'Not saved. Try again.');
     }
+    await send(parsed.data.date, false);
   };
 
   if (!ready) {
@@ -251,6 +277,22 @@ function MarkSown({
         {formatSeeds(entry.seedsToSow)} this sowing needs. Choose another lot or fewer plants (Edit), or add
         seed to the lot’s stock first.
       </p>
+    );
+  }
+  if (question) {
+    return (
+      <div role="alertdialog" aria-label="Sown outside the window?" className="grid gap-2" data-sown-question>
+        <p className="font-semibold text-clay-800">{question}</p>
+        <div className="flex flex-wrap gap-2">
+          <Button isLoading={mark.isPending} onClick={() => void send(date, true)}>
+            {mark.isPending ? 'Saving…' : `Yes, sown on ${dayMonth(date)}`}
+          </Button>
+          <Button variant="secondary" onClick={() => setQuestion(undefined)} disabled={mark.isPending}>
+            Change the day
+          </Button>
+        </div>
+        <FormAlert>{error}</FormAlert>
+      </div>
     );
   }
   return (

@@ -2,7 +2,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useMemo, useState, type ReactNode } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { planDates, PlanDateError, type PlanDates } from '#shared/plan-dates';
-import { createPlanBodySchema, type PlanEntryDto } from '#shared/schemas/plan';
+import { createPlanBodySchema, successionBodySchema, type PlanEntryDto } from '#shared/schemas/plan';
 import type { SpeciesDto } from '#shared/schemas/species';
 import { Button } from '#src/components/ui/button';
 import { FormAlert } from '#src/components/ui/form-alert';
@@ -39,7 +39,8 @@ export interface PlanEntryFormProps {
   marginDays: number;
   /** Shown under the species once one is chosen (its cautions). */
   renderSpeciesNote?: (species: SpeciesDto) => ReactNode;
-  onCreated: (entry: PlanEntryDto) => void;
+  /** Every sowing made: one, or each of a succession. */
+  onCreated: (entries: PlanEntryDto[]) => void;
 }
 
 /** "Add to plan": species, plants wanted, indoors or direct, and a lot or Hilum's suggestion. */
@@ -54,6 +55,9 @@ export function PlanEntryForm({
 }: PlanEntryFormProps) {
   const create = useCreatePlanEntry(bankId);
   const [formError, setFormError] = useState<string>();
+  // Succession sowings: off, or how many sowings and how many weeks apart (lettuce: 4, every 2).
+  const [succession, setSuccession] = useState({ on: false, sowings: '4', everyWeeks: '2' });
+  const [successionErrors, setSuccessionErrors] = useState<{ sowings?: string; everyWeeks?: string }>({});
   const {
     register,
     control,
@@ -102,10 +106,27 @@ export function PlanEntryForm({
 
   const onSubmit = handleSubmit(async (body) => {
     setFormError(undefined);
+    setSuccessionErrors({});
+    const every = successionBodySchema.safeParse({
+      sowings: Number(succession.sowings),
+      everyWeeks: Number(succession.everyWeeks),
+    });
+    if (succession.on && !every.success) {
+      const issues = every.error.issues;
+      const of = (field: string) => issues.find((i) => i.path[0] === field)?.message;
+      setSuccessionErrors({ sowings: of('sowings'), everyWeeks: of('everyWeeks') });
+      return;
+    }
     try {
-      const entry = await create.mutateAsync({ ...body, season, lotId: body.lotId ?? null });
+      const entries = await create.mutateAsync({
+        ...body,
+        season,
+        lotId: body.lotId ?? null,
+        succession: succession.on && every.success ? every.data : undefined,
+      });
       reset({ speciesId: '', plantsWanted: body.plantsWanted, start: 'indoors', lotId: null });
-      onCreated(entry);
+      setSuccession((s) => ({ ...s, on: false }));
+      onCreated(entries);
     } catch (error) {
       if (isApiError(error) && error.status === 422) {
         setFormError(error.message);
@@ -185,6 +206,51 @@ export function PlanEntryForm({
           ))}
         </SelectField>
       ) : null}
+
+      <fieldset className="grid gap-3 rounded-lg border border-loam-200 px-3 py-2.5">
+        <legend className="px-1 font-semibold text-loam-900">Succession</legend>
+        <label className="flex min-h-11 items-center gap-2">
+          <input
+            type="checkbox"
+            className="size-5 accent-moss-700"
+            checked={succession.on}
+            onChange={(event) => setSuccession((s) => ({ ...s, on: event.target.checked }))}
+          />
+          Sow more than once, a few weeks apart
+        </label>
+        {succession.on ? (
+          <div className="grid grid-cols-2 gap-3">
+            <TextField
+              label="Sowings"
+              type="number"
+              inputMode="numeric"
+              min={2}
+              max={12}
+              step={1}
+              className="num"
+              value={succession.sowings}
+              onChange={(event) => setSuccession((s) => ({ ...s, sowings: event.target.value }))}
+              error={successionErrors.sowings}
+            />
+            <TextField
+              label="Weeks apart"
+              type="number"
+              inputMode="numeric"
+              min={1}
+              max={8}
+              step={1}
+              className="num"
+              value={succession.everyWeeks}
+              onChange={(event) => setSuccession((s) => ({ ...s, everyWeeks: event.target.value }))}
+              error={successionErrors.everyWeeks}
+            />
+            <p className="col-span-2 text-sm text-loam-700">
+              Each sowing has its own dates and seeds ({plants || 0} plants each), and is marked sown on its
+              own.
+            </p>
+          </div>
+        ) : null}
+      </fieldset>
 
       {preview.problem ? <FormAlert tone="info">{preview.problem}</FormAlert> : null}
       {preview.dates ? (
