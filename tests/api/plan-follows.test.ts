@@ -1,6 +1,8 @@
 import ical from 'node-ical';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createRemindersService } from '#server/modules/reminders/reminders.service';
+import { createViabilityService } from '#server/modules/viability/viability.service';
 import { bankWithRoles } from '../helpers/accounts';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { finishedAssay, speciesId } from '../helpers/lots';
@@ -318,5 +320,48 @@ describe('a plan that follows its inputs', () => {
         'succession.everyWeeks': 'At least 1 week apart.',
       });
     });
+  });
+
+  it('when the frost moved before the sowing day, then the sowing reminder comes on the moved day, not the old one', async () => {
+    const bank = await bankWithRoles(ctx.app, ctx.db); // last frost 05-20
+    const entry = (
+      await bank.grower.agent.post(`/api/banks/${bank.bankId}/plan`).send({
+        season: 2027,
+        speciesId: await speciesId(ctx.db, 'petunia'),
+        plantsWanted: 10,
+        start: 'indoors',
+      })
+    ).body.entry as Entry;
+    // Petunia indoors 12–10 weeks before the frost (reference set, common practice): 20 May − 84 = 25 Feb.
+    expect(entry.sowFrom).toBe('2027-02-25');
+    expect(
+      (await bank.owner.agent.patch(`/api/banks/${bank.bankId}`).send({ lastFrost: '05-27' })).status,
+    ).toBe(200);
+    const reminders = createRemindersService({
+      db: ctx.db,
+      mailer: ctx.mailer,
+      clock: ctx.clock,
+      appOrigin: ctx.config.appOrigin,
+      viability: createViabilityService({ db: ctx.db }),
+    });
+    const rows = () =>
+      ctx.db
+        .selectFrom('reminders')
+        .select(['due_on', 'user_id'])
+        .where('dedupe_key', 'like', `sowing:${entry.id}:%`)
+        .execute();
+    try {
+      // The old first sowing day: nothing is due for this sowing any more.
+      ctx.clock.set('2027-02-25T09:00:00Z');
+      await reminders.queueDue(async () => undefined);
+      expect(await rows()).toEqual([]);
+      // 27 May − 84 = 4 Mar: the moved day, for the owner and the grower (sowing reminders default on).
+      ctx.clock.set('2027-03-04T09:00:00Z');
+      await reminders.queueDue(async () => undefined);
+      const due = await rows();
+      expect(due.map((r) => r.due_on)).toEqual(['2027-03-04', '2027-03-04']);
+    } finally {
+      ctx.clock.set('2027-04-01T09:00:00Z');
+    }
   });
 });

@@ -19,7 +19,6 @@ import { CameUp } from './came-up';
 import { dayMonth, dayRange, formatSeeds } from './plan-format';
 import { cannotPlan, lotChoiceLabel, lotsOfSpecies } from './plan-lots';
 
-
 /** Notes that ask the grower to act (no lot, too few seeds, no test) stand out from the others. */
 const WARNING = /no lot has enough|no tested lot|no germination test|has \d+ seeds|may need care/i;
 

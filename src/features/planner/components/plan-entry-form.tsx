@@ -221,7 +221,7 @@ export function PlanEntryForm({
         {succession.on ? (
           <div className="grid grid-cols-2 gap-3">
             <TextField
-              label="Sowings"
+              label="Number of sowings"
               type="number"
               inputMode="numeric"
               min={2}
