@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { emailSchema, roleSchema } from './accounts';
 import { idSchema, monthDaySchema } from './common';
-import { planMoveSchema } from './plan';
+import { planMoveSchema } from './plan-move';
 
 const bankName = z
   .string({ message: 'Name the bank.' })

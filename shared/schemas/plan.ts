@@ -1,6 +1,9 @@
 import { z } from 'zod';
 import { idSchema, isoDateSchema } from './common';
+import { planMoveSchema } from './plan-move';
 import { hardinessSchema } from './species';
+
+export { planMoveSchema, type PlanMoveDto } from './plan-move';
 
 export const seasonSchema = z.coerce.number().int().min(1900).max(2100);
 /** `?season=YYYY`: the season asked for; without it, the coming one. */
@@ -147,18 +150,6 @@ export const planEntrySchema = z.object({
   emergence: z.array(emergenceRecordSchema),
 });
 export type PlanEntryDto = z.infer<typeof planEntrySchema>;
-/** What the bank's last moved frost date did to a season's unsown sowings, in words too. */
-export const planMoveSchema = z.object({
-  season: z.number(),
-  fromFrost: z.string(),
-  toFrost: z.string(),
-  /** Days later (negative: earlier) every unsown sowing moved. */
-  days: z.number(),
-  entries: z.number(),
-  message: z.string(),
-  at: z.string(),
-});
-export type PlanMoveDto = z.infer<typeof planMoveSchema>;
 
 export const planListResponseSchema = z.object({
   season: z.number(),
