@@ -77,7 +77,7 @@ export function createPlanService({
     hardenFrom: r.live.hardenFrom,
     transplantOn: r.live.transplantOn,
     // The dates' notes as they are now, then the lot's as last worked out.
-    notes: [...r.live.notes, ...(((r.notes as string[] | null) ?? []) as string[])],
+    notes: [...r.live.notes, ...((r.notes as string[] | null) ?? [])],
     sownOn: r.sown_on,
     hardiness: r.live.hardiness,
     succession:
