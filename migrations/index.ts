@@ -23,6 +23,7 @@ import * as m20261202007315 from './2026_12_02_007315_lot_amount_kind';
 import * as m20261203004317 from './2026_12_03_004317_plan_follows_inputs';
 import * as m20261203004731 from './2026_12_03_004731_reminders_that_fit';
 import * as m20261203004731spaces from './2026_12_03_004731_growing_spaces';
+import * as m20261203004726 from './2026_12_03_004726_idempotency_keys';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_000000_accounts_and_banks': m20261201000000,
@@ -47,4 +48,5 @@ export const migrations: Record<string, Migration> = {
   '2026_12_03_004317_plan_follows_inputs': m20261203004317,
   '2026_12_03_004731_growing_spaces': m20261203004731spaces,
   '2026_12_03_004731_reminders_that_fit': m20261203004731,
+  '2026_12_03_004726_idempotency_keys': m20261203004726,
 };

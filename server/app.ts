@@ -11,6 +11,7 @@ import type { Db } from './db/database';
 import { createReadCache, forgetOnWrites } from './db/read-cache';
 import { compressResponses, precompressedAssets, staticCacheHeaders } from './http/compression';
 import { errorHandler, notFoundApi } from './http/errors';
+import { idempotentWrites } from './http/idempotency';
 import { refuseNul, requireUtf8 } from './http/input-guard';
 import { originCheck, originVariants } from './http/origin-check';
 import { authRateLimits, createRateLimiter } from './http/rate-limit';
@@ -152,6 +153,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(openApiRoutes({ production: config.env === 'production' }));
   api.use('/calendar', calendarFileRoutes(calendar));
   api.use(sessionMiddleware(deps.db, signer, deps.clock, cache));
+  api.use(idempotentWrites(deps.db, deps.clock, logger));
   api.use('/auth', authRouter(services.auth, { secureCookies, limits }));
   api.use('/me', meRouter(services.auth));
   api.use('/invitations', invitationsRouter(services.invitations));

@@ -431,6 +431,21 @@ export interface GrowingSpaceTable {
   updated_at: Timestamp;
 }
 
+/**
+ * A write sent with an Idempotency-Key (server/http/idempotency.ts): claimed while it runs (`status`
+ * null), then its first answer, which a repeat of the same key gets instead of running again.
+ * `request_hash` is a SHA-256, hex, of the method, path and body; `body` is the answer's JSON.
+ */
+export interface IdempotencyKeyTable {
+  user_id: string;
+  key: string;
+  request_hash: string;
+  status: number | null;
+  /** Read back parsed; written as JSON text. */
+  body: ColumnType<unknown, string | null, string | null>;
+  created_at: Date;
+}
+
 export interface Database {
   users: UserTable;
   sessions: SessionTable;
@@ -462,6 +477,7 @@ export interface Database {
   rate_limits: RateLimitTable;
   calendar_feeds: CalendarFeedTable;
   growing_spaces: GrowingSpaceTable;
+  idempotency_keys: IdempotencyKeyTable;
 }
 
 export type User = Selectable<UserTable>;
