@@ -5,6 +5,7 @@ import path from 'node:path';
 import { promisify } from 'node:util';
 import zlib from 'node:zlib';
 import { defineConfig, type Plugin, type ProxyOptions } from 'vite';
+import { VitePWA } from 'vite-plugin-pwa';
 
 const brotli = promisify(zlib.brotliCompress);
 const gzip = promisify(zlib.gzip);
@@ -44,6 +45,67 @@ function precompressAssets(): Plugin {
   };
 }
 
+/**
+ * The installable app: the web app manifest (/manifest.webmanifest; the icons are drawn for Hilum in
+ * public/icons, rendered by scripts/render-icons.ts) and the service worker
+ * (src/service-worker/sw.ts, built to /sw.js, registered by src/lib/register-service-worker.ts).
+ * Its precache is the app shell only — index.html and the files it names, the icons — so that
+ * installing it on a first visit fetches nothing the page had not fetched already; each page's
+ * own files are kept as they are used.
+ */
+function installableApp(): Plugin[] {
+  let outDir = 'dist';
+  const shellFiles = new Set<string>();
+  const readShell: Plugin = {
+    name: 'hilum-app-shell-files',
+    apply: 'build',
+    configResolved(config) {
+      outDir = path.resolve(config.root, config.build.outDir);
+    },
+  };
+  return [
+    readShell,
+    ...VitePWA({
+      strategies: 'injectManifest',
+      srcDir: 'src/service-worker',
+      filename: 'sw.ts',
+      injectRegister: false,
+      manifest: {
+        name: 'Hilum seed bank',
+        short_name: 'Hilum',
+        description:
+          'Your seed bank at the bench: lots, germination counts and the sowing plan, on the phone, with or without a signal.',
+        id: '/',
+        start_url: '/',
+        scope: '/',
+        display: 'standalone',
+        orientation: 'portrait',
+        // moss-700 and husk-50 of the app's palette (tailwind.config.ts).
+        theme_color: '#3d5626',
+        background_color: '#fcfaf4',
+        icons: [
+          { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png', purpose: 'any' },
+          { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },
+          { src: '/icons/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+        ],
+      },
+      injectManifest: {
+        globPatterns: ['**/*.{html,js,css,svg,png,webmanifest}'],
+        manifestTransforms: [
+          async (entries) => {
+            const html = await fs.readFile(path.join(outDir, 'index.html'), 'utf8');
+            shellFiles.clear();
+            for (const m of html.matchAll(/(?:src|href)="\/([^"]+)"/g)) shellFiles.add(m[1]!);
+            // The plugin adds the manifest and its icons itself.
+            const inShell = (url: string) => url === 'index.html' || shellFiles.has(url);
+            return { manifest: entries.filter((entry) => inShell(entry.url)), warnings: [] };
+          },
+        ],
+      },
+    }),
+  ];
+}
+
 function portFromEnv(name: string, fallback: number): number {
   const raw = process.env[name];
   if (raw === undefined || raw === '') return fallback;
@@ -65,7 +127,7 @@ const proxy: Record<string, ProxyOptions> = {
 };
 
 export default defineConfig({
-  plugins: [react(), tailwindcss(), precompressAssets()],
+  plugins: [react(), tailwindcss(), precompressAssets(), ...installableApp()],
   build: {
     outDir: 'dist',
   },

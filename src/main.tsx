@@ -3,6 +3,7 @@ import { createRoot } from 'react-dom/client';
 import { AppProvider } from './app/provider';
 import { AppRouter } from './app/router';
 import { AppErrorBoundary } from './components/errors/app-error-boundary';
+import { registerServiceWorker } from './lib/register-service-worker';
 import './styles/index.css';
 
 const container = document.getElementById('root');
@@ -17,3 +18,5 @@ createRoot(container).render(
     </AppErrorBoundary>
   </StrictMode>,
 );
+
+registerServiceWorker();

@@ -1,6 +1,7 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { paths } from '../config/paths';
 import { authKeys } from '../features/auth/api/keys';
+import { clearMemberCaches } from '../lib/offline-caches';
 
 /** Why the sign-in page was opened, carried in the router's location state. */
 export type SignInReason = 'session-ended' | 'signed-out' | 'password-changed';
@@ -34,6 +35,9 @@ export function handleUnauthenticated(queryClient: QueryClient): void {
     // Several requests may fail together; the first one through clears the cache, the rest stop here.
     if (queryClient.getQueryData(authKeys.me()) === undefined) return;
     queryClient.clear();
+    // The answers kept for offline use go too; writes waiting to send stay for this member's next
+    // sign-in here (they are sent only with their own session) unless someone signs out.
+    void clearMemberCaches();
     const href = paths.signIn.getHref(here);
     if (navigateTo) navigateTo(href, { reason: 'session-ended' });
     else window.location.assign(href);

@@ -157,21 +157,17 @@ describe.skipIf(!chromiumPath)('the germination test page in Chromium', () => {
     });
 
     j.step('and a dropped connection', async (page) => {
-      // The request fails as it does with the network gone.
+      // The request fails as it does with the network gone: the counts wait on the device to be sent.
       const countsUrl = `**/api/banks/${suite.bankId}/tests/${assayId}/counts`;
       await page.route(countsUrl, (route) => route.abort('internetdisconnected'));
       await page.getByRole('button', { name: /^Save counts for/ }).tap();
-      await expect
-        .poll(() =>
-          page.getByRole('status').filter({ hasText: 'Not saved yet — will keep your numbers' }).count(),
-        )
-        .toBe(1);
+      const waiting = page.locator('[data-queued-writes] [data-waiting]');
+      await expect.poll(() => waiting.count()).toBe(1);
+      expect(await waiting.innerText()).toContain('Waiting to send: counts of Sat 14 Mar');
       expect(await trayField(page, 2).inputValue()).toBe('22');
       await page.unroute(countsUrl);
-      await page.getByRole('button', { name: 'Save again' }).tap();
-      await expect
-        .poll(() => page.getByRole('status').filter({ hasText: 'Saved the counts of' }).count())
-        .toBe(1);
+      await waiting.getByRole('button', { name: 'Send now' }).tap();
+      await expect.poll(() => waiting.count()).toBe(0);
     });
 
     j.step('the result and the curve follow', async (page) => {

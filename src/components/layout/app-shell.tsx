@@ -20,6 +20,8 @@ export interface AppShellProps {
   banks?: readonly SwitcherBank[] | undefined;
   /** The bank whose pages are open; its sections fill the navigation. */
   currentBankId?: string | undefined;
+  /** Small tools beside the account menu (what waits to send, scanning a packet). */
+  tools?: ReactNode;
 }
 
 /**
@@ -34,6 +36,7 @@ export function AppShell({
   account,
   banks,
   currentBankId,
+  tools,
 }: AppShellProps) {
   const navItems = currentBankId ? bankNavItems(currentBankId) : [];
   const hasNav = navItems.length > 0;
@@ -107,6 +110,7 @@ export function AppShell({
                 <span className="sr-only"> (development mailbox)</span>
               </NavLink>
             ) : null}
+            {tools}
             <AccountMenu
               {...account}
               remindersHref={currentBankId ? paths.reminders.getHref(currentBankId) : undefined}

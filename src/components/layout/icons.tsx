@@ -100,3 +100,23 @@ export function ChevronDownIcon() {
     </Icon>
   );
 }
+
+/** A viewfinder's four corners around a small square: scan a packet's code. */
+export function ScanIcon() {
+  return (
+    <Icon>
+      <path d="M4 8V5a1 1 0 0 1 1-1h3M16 4h3a1 1 0 0 1 1 1v3M20 16v3a1 1 0 0 1-1 1h-3M8 20H5a1 1 0 0 1-1-1v-3" />
+      <path d="M9 9h6v6H9z" />
+    </Icon>
+  );
+}
+
+/** A tray with an arrow rising out of it, held back by a bar: writes waiting to go. */
+export function OutboxIcon() {
+  return (
+    <Icon>
+      <path d="M4 14v5h16v-5" />
+      <path d="M12 15V5M8 9l4-4 4 4" />
+    </Icon>
+  );
+}

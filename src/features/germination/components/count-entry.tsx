@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useEffect, useId, useRef, useState } from 'react';
+import { useId, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { seedlingsAboveSown } from '#shared/count-rules';
@@ -12,10 +12,12 @@ import {
 } from '#shared/schemas/germination';
 import { Button } from '#src/components/ui/button';
 import { FormAlert } from '#src/components/ui/form-alert';
+import { QueuedWrites } from '#src/components/ui/queued-writes';
 import { TextField } from '#src/components/ui/text-field';
 import { isApiError } from '#src/lib/api-client';
 import { cn } from '#src/lib/cn';
-import { useRecordCounts } from '../api/record-counts';
+import { useQueuedWrites, type QueuedWrite } from '#src/lib/write-queue';
+import { assayWriteSubject, useRecordCounts } from '../api/record-counts';
 import { useSetTrayAside } from '../api/set-tray-aside';
 import { clearDraft, readDraft, writeDraft } from './count-draft';
 import { formatShortDate, traySownWords } from './format';
@@ -101,6 +103,8 @@ export function CountEntry({ bankId, detail, date, onDateChange, today }: CountE
   const [trayNotice, setTrayNotice] = useState<string>();
   const takeBack = useSetTrayAside(bankId, detail.test.id);
   const aside = detail.trays.filter((t) => t.setAsideReason !== null);
+  const subject = assayWriteSubject(detail.test.id);
+  const queued = useQueuedWrites().filter((w) => w.subject === subject);
 
   return (
     <section
@@ -138,11 +142,16 @@ export function CountEntry({ bankId, detail, date, onDateChange, today }: CountE
           }
         />
       </div>
+      <div className="mt-3 empty:hidden">
+        <QueuedWrites writes={queued} />
+      </div>
       <CountRows
-        key={`${date}|${savedSignature(detail, date)}`}
+        // The rows start over too when this date's writes waiting to send are read from the device.
+        key={`${date}|${savedSignature(detail, date)}|${waitingOn(queued, date)}`}
         bankId={bankId}
         detail={detail}
         date={date}
+        waiting={queued}
         onDateError={setDateError}
         justSaved={savedDate === date}
         onSaved={setSavedDate}
@@ -211,14 +220,16 @@ type SaveState =
   | { kind: 'idle' }
   /** Numbers restored from this device after a reload. */
   | { kind: 'restored' }
-  /** A save that could not reach the server; the numbers are kept. */
-  | { kind: 'kept'; message: string }
+  /** Kept on this device in the write queue, to be sent when the network is back. */
+  | { kind: 'queued' }
   | { kind: 'refused'; message: string };
 
 interface CountRowsProps {
   bankId: string;
   detail: AssayDetail;
   date: string;
+  /** This test's writes waiting to send (the latest of this date is what the rows start from). */
+  waiting: readonly QueuedWrite[];
   onDateError: (message: string | undefined) => void;
   justSaved: boolean;
   onSaved: (date: string) => void;
@@ -280,10 +291,43 @@ function countsFormSchema(detail: AssayDetail, date: string, trays: Tray[]) {
     .pipe(countsBodySchema);
 }
 
+/** The ids of the writes of `date` waiting to send. */
+function waitingOn(waiting: readonly QueuedWrite[], date: string): string {
+  return waiting
+    .filter((w) => !w.refused && countsBodySchema.safeParse(w.body).data?.date === date)
+    .map((w) => w.id)
+    .join(',');
+}
+
+/** The box values of the latest counts of `date` waiting to send, by tray id, or null. */
+function waitingValues(waiting: readonly QueuedWrite[], date: string): Record<string, string> | null {
+  for (const write of [...waiting].reverse()) {
+    const body = countsBodySchema.safeParse(write.body);
+    if (!body.success || body.data.date !== date || write.refused) continue;
+    return Object.fromEntries(
+      body.data.trays.map((t) => [
+        t.trayId,
+        t.score ? `${SCORE_PREFIX}${t.score}` : String(t.cumulative ?? ''),
+      ]),
+    );
+  }
+  return null;
+}
+
+/** The counts of one date in words, for the list of writes waiting to send. */
+function countsLabel(detail: AssayDetail, body: z.output<typeof countsBodySchema>): string {
+  const trays = body.trays.map((t) => {
+    const position = detail.trays.find((tray) => tray.id === t.trayId)?.position ?? '?';
+    return `tray ${position} ${t.score ? `“${ROUGH_SCORE_WORDS[t.score]}”` : t.cumulative}`;
+  });
+  return `counts of ${formatShortDate(body.date)} for ${detail.test.lotCode} (${trays.join(', ')})`;
+}
+
 function CountRows({
   bankId,
   detail,
   date,
+  waiting,
   onDateError,
   justSaved,
   onSaved,
@@ -295,6 +339,7 @@ function CountRows({
   // A tray set aside is out of the count until it is taken back.
   const trays = detail.trays.filter((t) => t.setAsideReason === null);
   const [draft] = useState(() => readDraft(assayId, date));
+  const [queuedValues] = useState(() => waitingValues(waiting, date));
   const {
     control,
     handleSubmit,
@@ -305,7 +350,10 @@ function CountRows({
   } = useForm({
     resolver: zodResolver(countsFormSchema(detail, date, trays)),
     defaultValues: {
-      counts: trays.map((tray) => draft?.values[tray.id] ?? prefillFor(detail, tray.id, date).value),
+      counts: trays.map(
+        (tray) =>
+          draft?.values[tray.id] ?? queuedValues?.[tray.id] ?? prefillFor(detail, tray.id, date).value,
+      ),
     },
     // At the bench a refused save should not pop the keyboard up over the messages.
     shouldFocusError: false,
@@ -332,11 +380,15 @@ function CountRows({
       onDateError(undefined);
       setState({ kind: 'idle' });
       try {
-        await record.mutateAsync(body);
+        const sent = await record.mutateAsync({ body, label: countsLabel(detail, body) });
         clearDraft(assayId, date);
         setUnsaved(false);
-        setState({ kind: 'idle' });
-        onSaved(date);
+        if (sent) {
+          setState({ kind: 'idle' });
+          onSaved(date);
+        } else {
+          setState({ kind: 'queued' });
+        }
       } catch (error) {
         if (isApiError(error) && error.status === 422) {
           const placed = placeServerError(error.message, error.fields ?? {}, body.trays);
@@ -356,21 +408,8 @@ function CountRows({
           });
           return;
         }
-        if (
-          isApiError(error) &&
-          error.status >= 400 &&
-          error.status < 500 &&
-          error.status !== 408 &&
-          error.status !== 429
-        ) {
-          setState({ kind: 'refused', message: error.message });
-          return;
-        }
-        // No connection, a server restarting, a timeout: the numbers stay here and in the draft.
-        setState({
-          kind: 'kept',
-          message: 'Not saved yet — will keep your numbers. Press Save again when the connection is back.',
-        });
+        // Refused for a reason sending again would not change (the write queue keeps the rest).
+        setState({ kind: 'refused', message: error instanceof Error ? error.message : 'Not saved.' });
       }
     },
     (errors) => {
@@ -382,19 +421,6 @@ function CountRows({
       });
     },
   );
-
-  // Back online after a failed save: try once more by itself.
-  const retryWhenOnline = state.kind === 'kept' && unsaved;
-  const saveRef = useRef(save);
-  useEffect(() => {
-    saveRef.current = save;
-  });
-  useEffect(() => {
-    if (!retryWhenOnline) return;
-    const onOnline = () => void saveRef.current();
-    window.addEventListener('online', onOnline);
-    return () => window.removeEventListener('online', onOnline);
-  }, [retryWhenOnline]);
 
   return (
     <form
@@ -435,9 +461,10 @@ function CountRows({
           <FormAlert tone="info" title="Not saved yet">
             These are the numbers you typed earlier on this device. Check them and save.
           </FormAlert>
-        ) : state.kind === 'kept' ? (
-          <FormAlert tone="info" title="Not saved yet">
-            {state.message}
+        ) : state.kind === 'queued' ? (
+          <FormAlert tone="info" title="Waiting to send">
+            No connection: the counts of {formatShortDate(date)} are kept on this device and go to the server
+            by themselves when the connection is back.
           </FormAlert>
         ) : state.kind === 'refused' ? (
           <FormAlert title="Not saved">{state.message}</FormAlert>
@@ -445,11 +472,7 @@ function CountRows({
       </div>
 
       <Button type="submit" size="lg" fullWidth isLoading={record.isPending} className="min-h-14 text-xl">
-        {record.isPending
-          ? 'Saving…'
-          : state.kind === 'kept'
-            ? 'Save again'
-            : `Save counts for ${formatShortDate(date)}`}
+        {record.isPending ? 'Saving…' : `Save counts for ${formatShortDate(date)}`}
       </Button>
       {unsaved && !record.isPending && state.kind === 'idle' ? (
         <p className="text-center text-sm text-loam-600">

@@ -7,11 +7,13 @@ import {
 } from '#shared/schemas/plan';
 import { Button } from '#src/components/ui/button';
 import { FormAlert } from '#src/components/ui/form-alert';
+import { QueuedWrites } from '#src/components/ui/queued-writes';
 import { TextField } from '#src/components/ui/text-field';
 import { isApiError } from '#src/lib/api-client';
 import { cn } from '#src/lib/cn';
+import { useQueuedWrites } from '#src/lib/write-queue';
 import { cameUpWords, lookWords, SCORE_WORDS } from '#src/lib/emergence-words';
-import { useRecordEmergence } from '../api/record-emergence';
+import { planEntryWriteSubject, useRecordEmergence } from '../api/record-emergence';
 import { dayMonth } from './plan-format';
 
 const SCORES: { value: EmergenceScore; label: string; hint: string }[] = [
@@ -38,6 +40,8 @@ export function CameUp({ bankId, entry, canEdit, today }: CameUpProps) {
   const titleId = useId();
   const [open, setOpen] = useState(false);
   const records = entry.emergence;
+  const subject = planEntryWriteSubject(entry.id);
+  const queued = useQueuedWrites().filter((w) => w.subject === subject);
   return (
     <section aria-labelledby={titleId} data-came-up className="mt-4 rounded-lg bg-husk-50 p-3 sm:p-4">
       <div className="flex flex-wrap items-center justify-between gap-2">
@@ -58,6 +62,9 @@ export function CameUp({ bankId, entry, canEdit, today }: CameUpProps) {
           field emergence for lot {entry.lotCode}.
         </p>
       )}
+      <div className="mt-2 empty:hidden">
+        <QueuedWrites writes={queued} />
+      </div>
       {canEdit && open ? (
         <EmergenceForm bankId={bankId} entry={entry} today={today} onClose={() => setOpen(false)} />
       ) : null}
@@ -132,7 +139,16 @@ function EmergenceForm({
       return setErrors({ seedlings: `At most the ${seeds} seeds sown.` });
     setErrors({});
     try {
-      await record.mutateAsync(parsed.data);
+      const body = parsed.data;
+      const what =
+        body.seedlings !== undefined
+          ? `${body.seedlings} seedling${body.seedlings === 1 ? '' : 's'}`
+          : `“${SCORES.find((s) => s.value === body.score)?.label ?? body.score}”`;
+      // Sent, or kept on this device to send later (listed on the card): the form's job is done.
+      await record.mutateAsync({
+        body,
+        label: `what came up from ${entry.speciesName} on ${dayMonth(body.date)}: ${what}`,
+      });
       onClose();
     } catch (e) {
       const fields = isApiError(e) ? e.fields : undefined;

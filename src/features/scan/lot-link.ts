@@ -1,0 +1,29 @@
+import { idSchema } from '#shared/schemas/common';
+import { paths } from '#src/config/paths';
+
+/**
+ * The lot a packet label's QR code opens: the code holds the lot page's full address
+ * (`<origin>/banks/<bankId>/lots/<lotId>`, server/modules/labels/labels.service.ts). Read as the
+ * page's path inside this app, whatever origin the label was printed under (a server moved to a new
+ * address still opens its old labels); anything else is not a Hilum packet label.
+ */
+export function lotPathFromCode(text: string): { bankId: string; lotId: string; path: string } | null {
+  let url: URL;
+  try {
+    url = new URL(text.trim());
+  } catch {
+    return null;
+  }
+  if (url.protocol !== 'https:' && url.protocol !== 'http:') return null;
+  const match = /^\/banks\/([^/]+)\/lots\/([^/]+)\/?$/.exec(url.pathname);
+  if (!match) return null;
+  const [bankId, lotId] = [match[1]!, match[2]!].map((part) => {
+    try {
+      return decodeURIComponent(part);
+    } catch {
+      return '';
+    }
+  }) as [string, string];
+  if (!idSchema.safeParse(bankId).success || !idSchema.safeParse(lotId).success) return null;
+  return { bankId, lotId, path: paths.lot.getHref(bankId, lotId) };
+}
