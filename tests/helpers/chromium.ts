@@ -15,6 +15,8 @@ export type TestBrowser = Browser & { cleanup(): void };
 export async function launchChromium(
   executablePath: string,
   prefix = 'hilum-chromium-',
+  /** More command-line switches (a fake camera for the scanner's test). */
+  extraArgs: string[] = [],
 ): Promise<TestBrowser> {
   const home = fs.mkdtempSync(path.join(os.tmpdir(), prefix));
   const browser = await chromium.launch({
@@ -29,6 +31,7 @@ export async function launchChromium(
       '--disable-sync',
       '--no-first-run',
       '--disable-quic',
+      ...extraArgs,
     ],
   });
   return Object.assign(browser, { cleanup: () => fs.rmSync(home, { recursive: true, force: true }) });
