@@ -70,6 +70,8 @@ async function inStore<T>(
 // ---- What the pages see ---------------------------------------------------------------------
 
 let owner: string | null = null;
+/** Whether the signed-in member's writes have been read from the device since they signed in. */
+let ready = false;
 let all: QueuedWrite[] = [];
 let mine: QueuedWrite[] = [];
 const listeners = new Set<() => void>();
@@ -78,6 +80,7 @@ channel?.addEventListener('message', () => void reload(false));
 
 function publish() {
   mine = owner === null ? [] : all.filter((w) => w.userId === owner);
+  ready = owner !== null;
   for (const listener of listeners) listener();
 }
 
@@ -97,6 +100,7 @@ async function reload(broadcast = true): Promise<void> {
 export function setQueueOwner(userId: string | null): void {
   if (owner === userId) return;
   owner = userId;
+  ready = false;
   void reload(false);
 }
 
@@ -111,6 +115,18 @@ export function useQueuedWrites(): QueuedWrite[] {
     subscribe,
     () => mine,
     () => mine,
+  );
+}
+
+/**
+ * Whether the signed-in member's queued writes have been read from the device yet (a page that
+ * starts its form from them waits for, or starts again on, this).
+ */
+export function useQueueReady(): boolean {
+  return useSyncExternalStore(
+    subscribe,
+    () => ready,
+    () => false,
   );
 }
 

@@ -16,7 +16,7 @@ import { QueuedWrites } from '#src/components/ui/queued-writes';
 import { TextField } from '#src/components/ui/text-field';
 import { isApiError } from '#src/lib/api-client';
 import { cn } from '#src/lib/cn';
-import { useQueuedWrites, type QueuedWrite } from '#src/lib/write-queue';
+import { useQueueReady, useQueuedWrites, type QueuedWrite } from '#src/lib/write-queue';
 import { assayWriteSubject, useRecordCounts } from '../api/record-counts';
 import { useSetTrayAside } from '../api/set-tray-aside';
 import { clearDraft, readDraft, writeDraft } from './count-draft';
@@ -105,6 +105,7 @@ export function CountEntry({ bankId, detail, date, onDateChange, today }: CountE
   const aside = detail.trays.filter((t) => t.setAsideReason !== null);
   const subject = assayWriteSubject(detail.test.id);
   const queued = useQueuedWrites().filter((w) => w.subject === subject);
+  const queueReady = useQueueReady();
 
   return (
     <section
@@ -146,8 +147,8 @@ export function CountEntry({ bankId, detail, date, onDateChange, today }: CountE
         <QueuedWrites writes={queued} />
       </div>
       <CountRows
-        // The rows start over too when this date's writes waiting to send are read from the device.
-        key={`${date}|${savedSignature(detail, date)}|${waitingOn(queued, date)}`}
+        // The rows start over too once the writes waiting to send have been read from the device.
+        key={`${date}|${savedSignature(detail, date)}|${queueReady ? 'queue' : ''}`}
         bankId={bankId}
         detail={detail}
         date={date}
@@ -289,14 +290,6 @@ function countsFormSchema(detail: AssayDetail, date: string, trays: Tray[]) {
       }),
     }))
     .pipe(countsBodySchema);
-}
-
-/** The ids of the writes of `date` waiting to send. */
-function waitingOn(waiting: readonly QueuedWrite[], date: string): string {
-  return waiting
-    .filter((w) => !w.refused && countsBodySchema.safeParse(w.body).data?.date === date)
-    .map((w) => w.id)
-    .join(',');
 }
 
 /** The box values of the latest counts of `date` waiting to send, by tray id, or null. */
