@@ -4,14 +4,16 @@ import { Dialog } from '#src/components/ui/dialog';
 import { FormAlert } from '#src/components/ui/form-alert';
 import { lotPathFromCode } from '../lot-link';
 
-/** Reads a QR code's text from the video's current frame, or null when it holds none. */
-type ReadFrame = (video: HTMLVideoElement) => Promise<string | null>;
+/** The camera's live picture on the page (the DOM's media element for moving pictures). */
+type CameraPreview = HTMLVideoElement;
+/** Reads a QR code's text from the camera's current picture, or null when it holds none. */
+type ReadFrame = (preview: CameraPreview) => Promise<string | null>;
 
 interface DetectedBarcode {
   rawValue: string;
 }
 interface BarcodeDetectorLike {
-  detect(source: HTMLVideoElement): Promise<DetectedBarcode[]>;
+  detect(image: CameraPreview): Promise<DetectedBarcode[]>;
 }
 interface BarcodeDetectorClass {
   new (options: { formats: string[] }): BarcodeDetectorLike;
@@ -27,16 +29,16 @@ async function frameReader(): Promise<ReadFrame> {
   const formats: string[] = Detector ? await Detector.getSupportedFormats().catch(() => []) : [];
   if (Detector && formats.includes('qr_code')) {
     const detector = new Detector({ formats: ['qr_code'] });
-    return async (video) => (await detector.detect(video))[0]?.rawValue ?? null;
+    return async (preview) => (await detector.detect(preview))[0]?.rawValue ?? null;
   }
   const { default: jsQR } = await import('jsqr');
   const canvas = document.createElement('canvas');
   const context = canvas.getContext('2d', { willReadFrequently: true });
-  return async (video) => {
-    if (!context || video.videoWidth === 0) return null;
-    canvas.width = video.videoWidth;
-    canvas.height = video.videoHeight;
-    context.drawImage(video, 0, 0);
+  return async (preview) => {
+    if (!context || preview.videoWidth === 0) return null;
+    canvas.width = preview.videoWidth;
+    canvas.height = preview.videoHeight;
+    context.drawImage(preview, 0, 0);
     const image = context.getImageData(0, 0, canvas.width, canvas.height);
     return jsQR(image.data, image.width, image.height)?.data ?? null;
   };
@@ -82,7 +84,7 @@ export function ScanDialog({ open, onClose }: ScanDialogProps) {
 
 function Scanner({ onClose }: { onClose: () => void }) {
   const navigate = useNavigate();
-  const videoRef = useRef<HTMLVideoElement>(null);
+  const previewRef = useRef<CameraPreview>(null);
   // The camera starts once per opening, whatever the page around it redraws.
   const closeRef = useRef(onClose);
   useEffect(() => {
@@ -112,16 +114,16 @@ function Scanner({ onClose }: { onClose: () => void }) {
         if (!stopped) setProblem(cameraProblem(error));
         return;
       }
-      const video = videoRef.current;
-      if (stopped || !video) return;
-      video.srcObject = stream;
-      await video.play().catch(() => undefined);
+      const preview = previewRef.current;
+      if (stopped || !preview) return;
+      preview.srcObject = stream;
+      await preview.play().catch(() => undefined);
       const read = await frameReader();
       if (stopped) return;
       setScanning(true);
       const tick = async () => {
         if (stopped) return;
-        const text = await read(video).catch(() => null);
+        const text = await read(preview).catch(() => null);
         if (stopped) return;
         if (text !== null) {
           const lot = lotPathFromCode(text);
@@ -151,7 +153,7 @@ function Scanner({ onClose }: { onClose: () => void }) {
         Hold the packet’s label so its square code fills the middle of the picture.
       </p>
       <video
-        ref={videoRef}
+        ref={previewRef}
         muted
         playsInline
         aria-label="Camera picture"
