@@ -234,7 +234,11 @@ describe.skipIf(!chromiumPath)('the planner in Chromium', () => {
     });
 
     steps.step('calendar-june', async (page) => {
-      for (let i = 0; i < 3; i += 1) await page.getByRole('button', { name: /next month/ }).click();
+      // Three quick taps, all before the address has changed (one task, as a fast thumb can): each
+      // moves one month on, March → June.
+      await page.getByRole('button', { name: /next month/ }).evaluate((button: HTMLElement) => {
+        for (let i = 0; i < 3; i += 1) button.click();
+      });
       await expect.poll(() => page.getByRole('heading', { name: 'June 2027' }).count()).toBe(1);
       await expect
         .poll(() => page.locator('[data-calendar="agenda"]').innerText())

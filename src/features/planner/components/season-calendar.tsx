@@ -1,3 +1,4 @@
+import { useRef } from 'react';
 import { cn } from '#src/lib/cn';
 import { KIND_LABELS, type CalendarEvent, type CalendarKind } from './calendar-events';
 import {
@@ -110,11 +111,20 @@ function Legend() {
 }
 
 function MonthNav({ month, onMonthChange }: { month: string; onMonthChange: (month: string) => void }) {
+  // The month lives in the address, which changes only once the route's loaders have run: taps that
+  // come before then count on from the month last asked for, so three quick taps move three months.
+  const asked = useRef<{ from: string; to: string } | null>(null);
+  const step = (by: number) => {
+    const from = asked.current?.from === month ? asked.current.to : month;
+    const to = shiftMonth(from, by);
+    asked.current = { from: month, to };
+    onMonthChange(to);
+  };
   const button =
     'inline-flex min-h-11 min-w-11 items-center justify-center rounded-lg border border-loam-300 bg-white px-3 font-semibold text-loam-800 hover:bg-husk-100';
   return (
     <div className="flex items-center justify-between gap-2">
-      <button type="button" className={button} onClick={() => onMonthChange(shiftMonth(month, -1))}>
+      <button type="button" className={button} onClick={() => step(-1)}>
         <span aria-hidden="true">‹</span>
         <span className="sr-only sm:not-sr-only sm:ml-1">
           {monthTitle(shiftMonth(month, -1)).split(' ')[0]}
@@ -124,7 +134,7 @@ function MonthNav({ month, onMonthChange }: { month: string; onMonthChange: (mon
       <h3 className="text-xl font-bold text-loam-950" aria-live="polite">
         {monthTitle(month)}
       </h3>
-      <button type="button" className={button} onClick={() => onMonthChange(shiftMonth(month, 1))}>
+      <button type="button" className={button} onClick={() => step(1)}>
         <span className="sr-only sm:not-sr-only sm:mr-1">
           {monthTitle(shiftMonth(month, 1)).split(' ')[0]}
         </span>
