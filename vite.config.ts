@@ -12,8 +12,8 @@ const gzip = promisify(zlib.gzip);
 
 /**
  * Writes a brotli (.br, quality 11) and a gzip (.gz, level 9) copy beside each built script,
- * stylesheet and SVG of assets/ over 1 KB, compressed once at build time as hard as each format
- * goes; the server sends them to clients that accept them (server/http/compression.ts).
+ * stylesheet and SVG of assets/, compressed once at build time as hard as each format goes, where
+ * the copy is smaller; the server sends them to clients that accept them (server/http/compression.ts).
  */
 function precompressAssets(): Plugin {
   return {
@@ -28,7 +28,6 @@ function precompressAssets(): Plugin {
         files.map(async (name) => {
           const file = path.join(outDir, name);
           const raw = await fs.readFile(file);
-          if (raw.length < 1024) return;
           const [br, gz] = await Promise.all([
             brotli(raw, {
               params: {
@@ -38,7 +37,12 @@ function precompressAssets(): Plugin {
             }),
             gzip(raw, { level: zlib.constants.Z_BEST_COMPRESSION }),
           ]);
-          await Promise.all([fs.writeFile(`${file}.br`, br), fs.writeFile(`${file}.gz`, gz)]);
+          // Small files too: the first visit loads a dozen scripts under 1 KB, each about half the
+          // size compressed. A copy no smaller than the file is not written.
+          await Promise.all([
+            br.length < raw.length ? fs.writeFile(`${file}.br`, br) : undefined,
+            gz.length < raw.length ? fs.writeFile(`${file}.gz`, gz) : undefined,
+          ]);
         }),
       );
     },

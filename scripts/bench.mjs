@@ -28,6 +28,7 @@ const FIGURES = [
   'initialJsGzipKb',
   'coldLoadLotsMs',
   'jsTransferKb',
+  'jsBodyKb',
 ];
 
 if (process.argv.includes('--json')) {

@@ -9,7 +9,7 @@ import type { Config } from './config';
 import type { ChangeFeed } from './db/change-feed';
 import type { Db } from './db/database';
 import { createReadCache, forgetOnWrites } from './db/read-cache';
-import { compressResponses, precompressedAssets, staticCacheHeaders } from './http/compression';
+import { compressResponses, hashedAssets, staticCacheHeaders } from './http/compression';
 import { errorHandler, notFoundApi } from './http/errors';
 import { idempotentWrites } from './http/idempotency';
 import { refuseNul, requireUtf8 } from './http/input-guard';
@@ -91,6 +91,10 @@ export function createApp(deps: AppDeps): Express {
   // X-Forwarded-For names the client only when it comes from a proxy named in TRUST_PROXY.
   app.set('trust proxy', config.trustProxy);
 
+  // The client's hashed files first, with only the headers a script or style needs (hashedAssets).
+  const index = path.join(config.staticDir, 'index.html');
+  const hasClient = fs.existsSync(index);
+  if (hasClient) app.use('/assets', hashedAssets(config.staticDir));
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -197,14 +201,12 @@ export function createApp(deps: AppDeps): Express {
   if (config.env !== 'production') app.use('/dev', devRouter(config.outboxDir));
 
   // The built client, with the SPA's index.html for every other path.
-  const index = path.join(config.staticDir, 'index.html');
-  if (fs.existsSync(index)) {
-    app.use(precompressedAssets(config.staticDir));
+  if (hasClient) {
     app.use(
       express.static(config.staticDir, {
         index: false,
         cacheControl: false,
-        setHeaders: staticCacheHeaders(config.staticDir),
+        setHeaders: staticCacheHeaders,
       }),
     );
     app.get('/{*path}', (_req, res) => {

@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
 import compression from 'compression';
-import type { RequestHandler, Response } from 'express';
+import express, { type RequestHandler, type Response, type Router } from 'express';
 
 /**
  * Compressed answers for clients that ask for them (Accept-Encoding): brotli where accepted, else
@@ -33,30 +33,51 @@ export function compressResponses(): RequestHandler {
 const IMMUTABLE = 'public, max-age=31536000, immutable';
 
 /**
- * Cache-Control for a file of the built client: a year and immutable for the hashed files under
- * assets/, and no-cache (revalidate with the ETag every time) for index.html and the other files,
- * whose names stay the same from one release to the next.
+ * The headers a hashed script, style or font needs, and no more. Mounted before the security
+ * headers of the pages (helmet): a content security policy, frame and referrer rules govern
+ * documents, not the files a document loads, and on a slow phone's HTTP/1.1 connection each
+ * response's headers travel uncompressed — about 0.6 KB on each of some 35 files of the first
+ * visit. nosniff and same-origin resource policy do apply to scripts and stay. No ETag or
+ * Last-Modified: an immutable file is never revalidated.
  */
-export function staticCacheHeaders(staticDir: string) {
-  const hashed = path.join(path.resolve(staticDir), 'assets') + path.sep;
-  return (res: Response, filePath: string) => {
-    res.setHeader('Cache-Control', path.resolve(filePath).startsWith(hashed) ? IMMUTABLE : 'no-cache');
-  };
+function setAssetHeaders(res: Response) {
+  res.setHeader('Cache-Control', IMMUTABLE);
+  res.setHeader('X-Content-Type-Options', 'nosniff');
+  res.setHeader('Cross-Origin-Resource-Policy', 'same-origin');
+}
+
+/**
+ * Cache-Control for a file of the built client outside assets/ (index.html, the icons, the
+ * manifest and the service worker), whose names stay the same from one release to the next:
+ * no-cache, revalidated with the ETag every time.
+ */
+export function staticCacheHeaders(res: Response) {
+  res.setHeader('Cache-Control', 'no-cache');
 }
 
 /** A built asset's name as Vite writes it (name-hash.ext); nothing else is looked up. */
-const ASSET_NAME = /^\/assets\/([\w-]+(?:\.[\w-]+)*\.(?:js|css|svg))$/;
+const ASSET_NAME = /^\/([\w-]+(?:\.[\w-]+)*\.(?:js|css|svg))$/;
 
 /**
- * The .br and .gz copies that the build wrote beside the client's assets (vite.config.ts),
- * sent as they are to a client that accepts them, brotli first; for other clients, and files
- * without a copy, the request goes on to express.static (and compressResponses). The copies are
- * listed once at start: a build made later is served, compressed on the fly, until a restart.
+ * /assets/: Vite's content-hashed files, with the headers of setAssetHeaders. The .br and .gz
+ * copies that the build wrote beside them (vite.config.ts) go as they are to a client that accepts
+ * them, brotli first; other clients and files without a copy get the file itself (compressed on
+ * the fly when over 1 KB). The copies are listed once at start: a build made later is served,
+ * compressed on the fly, until a restart. A name not there goes on to the rest of the app.
  */
-export function precompressedAssets(staticDir: string): RequestHandler {
+export function hashedAssets(staticDir: string): Router {
   const assets = path.join(path.resolve(staticDir), 'assets');
   const copies = new Set(fs.existsSync(assets) ? fs.readdirSync(assets) : []);
-  return (req, res, next) => {
+  // express.static, not res.sendFile: sendFile puts back the app's ETag setting.
+  const files = express.static(assets, {
+    index: false,
+    cacheControl: false,
+    etag: false,
+    lastModified: false,
+    setHeaders: setAssetHeaders,
+  });
+  const router = express.Router();
+  router.use((req, res, next) => {
     if ((req.method !== 'GET' && req.method !== 'HEAD') || !req.headers['accept-encoding']) return next();
     const name = ASSET_NAME.exec(req.path)?.[1];
     if (!name) return next();
@@ -67,9 +88,10 @@ export function precompressedAssets(staticDir: string): RequestHandler {
     res.vary('Accept-Encoding');
     res.type(path.extname(name));
     res.setHeader('Content-Encoding', encoding);
-    res.setHeader('Cache-Control', IMMUTABLE);
-    res.sendFile(path.join(assets, name + suffix), { cacheControl: false }, (error) => {
-      if (error) next(error);
-    });
-  };
+    // The copy's own type would be application/octet-stream; the file's type set here stays.
+    req.url = `/${name}${suffix}`;
+    return files(req, res, next);
+  });
+  router.use(compressResponses(), files);
+  return router;
 }

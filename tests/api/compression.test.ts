@@ -98,6 +98,24 @@ describe('compression and caching', () => {
     expect(res.body.equals(entryBytes)).toBe(true);
   });
 
+  // A script needs nosniff and a same-origin resource policy (Fetch standard, "X-Content-Type-Options"
+  // and CORP); the content security policy and frame rules apply to documents (CSP Level 3, HTML).
+  it('when a hashed script is fetched, then it carries only the headers a script needs; a page keeps its policy', async () => {
+    for (const headers of [{ 'accept-encoding': 'br' }, {}] as Record<string, string>[]) {
+      const res = await raw(base, entry, headers);
+      expect(res.status).toBe(200);
+      expect(res.headers['x-content-type-options']).toBe('nosniff');
+      expect(res.headers['cross-origin-resource-policy']).toBe('same-origin');
+      for (const name of ['content-security-policy', 'x-frame-options', 'etag', 'last-modified'])
+        expect(res.headers[name]).toBeUndefined();
+    }
+    const page = await raw(base, '/banks/anything/lots', { 'accept-encoding': 'br' });
+    expect(page.headers['content-security-policy']).toContain("default-src 'self'");
+    expect(page.headers['x-content-type-options']).toBe('nosniff');
+    const missing = await raw(base, '/assets/no-such-file-AbC123.js', { 'accept-encoding': 'br' });
+    expect(missing.headers['content-security-policy']).toContain("default-src 'self'");
+  });
+
   it('when index.html or another unhashed file is fetched, then it must be revalidated (no-cache)', async () => {
     for (const pathname of ['/', '/banks/anything/lots']) {
       const res = await raw(base, pathname, { 'accept-encoding': 'br, gzip' });
