@@ -21,6 +21,16 @@ function Swatch({ className }: { className: string }) {
 /** Too many cells in a week: each such week in words; else how close the busiest week comes. */
 function Verdict({ plan }: { plan: SpacePlanDto }) {
   const over = plan.weeks.filter((w) => w.overflow);
+  const busiest = plan.weeks.reduce((a, b) => (b.used > a.used ? b : a));
+  // No space recorded: say what the season needs, not that every week overflows.
+  if (plan.spaces.length === 0) {
+    return (
+      <FormAlert tone="info" title="Room the season needs">
+        The busiest week, week of {formatDay(busiest.weekStart)}, needs {count(busiest.used)} cells. Add your
+        shelves or boxes under lights below to see whether they fit.
+      </FormAlert>
+    );
+  }
   if (over.length) {
     return (
       <FormAlert
@@ -37,7 +47,6 @@ function Verdict({ plan }: { plan: SpacePlanDto }) {
       </FormAlert>
     );
   }
-  const busiest = plan.weeks.reduce((a, b) => (b.used > a.used ? b : a));
   return (
     <FormAlert tone="success" title="Everything fits under the lights">
       The busiest week, week of {formatDay(busiest.weekStart)}, needs {count(busiest.used)} of{' '}
