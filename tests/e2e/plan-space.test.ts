@@ -124,6 +124,12 @@ describe.skipIf(!chromiumPath)('the room under the lights in Chromium', () => {
             .count(),
         ).toBe(1);
         expect(await warnings(page).count()).toBe(0);
+        // …and no bar is drawn as too many (the clay of space-chart.tsx).
+        const bars = card(page).locator('[data-chart="space"] .recharts-bar-rectangle path');
+        await expect.poll(() => bars.count()).toBe(9);
+        expect(await bars.evaluateAll((ps) => ps.map((p) => p.getAttribute('fill')))).not.toContain(
+          '#a2462a',
+        );
         const api = request.agent(suite.server.app);
         await api.post('/api/auth/login').send({ email: grower.email, password: DEMO_PASSWORD });
         const shelf = { name: 'Shelf by the boiler', capacity: 2, unit: 'trays' };

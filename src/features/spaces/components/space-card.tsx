@@ -91,7 +91,12 @@ export function SpaceCard({ bankId, season, canEdit }: SpaceCardProps) {
                   spaces hold. Weeks start on Monday.
                 </figcaption>
                 <Suspense fallback={<Loading label="Drawing the chart" height={SPACE_CHART_HEIGHT} />}>
-                  <SpaceChart weeks={plan.weeks} />
+                  {/* Nothing recorded to overflow: the bars show the need alone. */}
+                  <SpaceChart
+                    weeks={
+                      plan.spaces.length ? plan.weeks : plan.weeks.map((w) => ({ ...w, overflow: false }))
+                    }
+                  />
                 </Suspense>
                 <ul
                   aria-label="Key to the chart"
