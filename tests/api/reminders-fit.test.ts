@@ -186,6 +186,24 @@ describe('reminders that fit the member', () => {
     }
   });
 
+  // Dates in words as on every screen (shared/day-words.ts: "3 Jun 2026"), written out by hand here.
+  it('when Monday’s digest lists a check day, then it gives the day in words and who runs the test', async () => {
+    ctx.clock.set('2026-06-01T09:00:00Z'); // a Monday
+    const bank = await bankWithRoles(ctx.app, ctx.db);
+    // Started so that its first count falls on Wednesday 3 June 2026.
+    const test = await startTest(bank.grower.agent, bank.bankId, addDays('2026-06-03', -firstDay));
+    await scanOnly();
+    const digest = await ctx.db
+      .selectFrom('reminders')
+      .select(['subject', 'body'])
+      .where('bank_id', '=', bank.bankId)
+      .where('kind', '=', 'digest')
+      .executeTakeFirstOrThrow();
+    expect(digest.body).toContain('from 1 Jun 2026 to 7 Jun 2026:');
+    expect(digest.body).toContain(`- Count test ${test.code} on 3 Jun 2026, run by Grower`);
+    expect(digest.body).not.toMatch(/\d{4}-\d{2}-\d{2}/);
+  });
+
   it('when that day is already counted, then the scan writes no check-day reminder; a tray still to count keeps it', async () => {
     ctx.clock.set('2026-04-01T09:00:00Z');
     const bank = await bankWithRoles(ctx.app, ctx.db);

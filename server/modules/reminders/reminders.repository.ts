@@ -54,10 +54,12 @@ export const runningAssays = (db: DbOrTx, bankId: string) =>
   db
     .selectFrom('germination_tests')
     .innerJoin('lots', 'lots.id', 'germination_tests.lot_id')
+    .leftJoin('users', 'users.id', 'germination_tests.run_by')
     .select([
       'germination_tests.id',
       'germination_tests.start_date',
       'germination_tests.run_by',
+      'users.name as runner_name',
       'lots.code',
       'lots.species_id',
     ])

@@ -1,3 +1,4 @@
+import { dayInWords } from '#shared/day-words';
 import type { z } from 'zod';
 import { hourWords, type reminderPrefsBodySchema } from '#shared/schemas/reminders';
 import { addDays, daysBetween } from '#shared/dates';
@@ -165,7 +166,7 @@ export function createRemindersService(deps: RemindersServiceDeps) {
         dueOn: e.sow_from,
         subject: `Sowing time: ${what}`,
         body: [
-          `The sowing window for ${what} opened on ${e.sow_from} and runs until ${e.sow_to}${e.start === 'indoors' ? ', indoors' : ', sown direct'}.`,
+          `The sowing window for ${what} opened on ${dayInWords(e.sow_from)} and runs until ${dayInWords(e.sow_to)}${e.start === 'indoors' ? ', indoors' : ', sown direct'}.`,
           e.seeds_to_sow
             ? `Sow ${e.seeds_to_sow} seeds for ${e.plants_wanted} plants.`
             : `${e.plants_wanted} plants wanted.`,
@@ -197,7 +198,7 @@ export function createRemindersService(deps: RemindersServiceDeps) {
           dueOn: on,
           subject: `Count the trays of ${sp?.commonName ?? 'a'} test ${t.code} (day ${day})`,
           body: [
-            `Day ${day} of the germination test of lot ${t.code}, started ${t.start_date}: count the normal seedlings (sound root and shoot) in ${own
+            `Day ${day} of the germination test of lot ${t.code}, started ${dayInWords(t.start_date)}: count the normal seedlings (sound root and shoot) in ${own
               .map(
                 (tr) =>
                   `tray ${tr.position} (${tr.seeds_sown === null ? 'seeds not counted' : `${tr.seeds_sown} sown`})`,
@@ -232,14 +233,17 @@ export function createRemindersService(deps: RemindersServiceDeps) {
       const weekEnd = addDays(today, 6);
       const lines = [
         ...(await repo.sowingsOpening(db, bank.id, today, weekEnd)).map(
-          (e) => `- Sow ${e.common_name} from ${e.sow_from}`,
+          (e) => `- Sow ${e.common_name} from ${dayInWords(e.sow_from)}`,
         ),
         ...running.flatMap((t) => {
           const sp = species.get(t.species_id);
           return checkDays(sp?.traits.firstCountDay ?? null, sp?.traits.finalCountDay ?? null)
             .map((d) => addDays(t.start_date, d))
             .filter((on) => on >= today && on <= weekEnd)
-            .map((on) => `- Count test ${t.code} on ${on}`);
+            .map(
+              (on) =>
+                `- Count test ${t.code} on ${dayInWords(on)}${t.runner_name ? `, run by ${t.runner_name}` : ''}`,
+            );
         }),
         ...ranking
           .filter((r) => r.retestBy && r.retestBy <= weekEnd && daysBetween(r.retestBy, today) < 30)
@@ -253,7 +257,7 @@ export function createRemindersService(deps: RemindersServiceDeps) {
           dueOn: today,
           subject: `This week in ${bank.name}`,
           body: [
-            `What is due in ${bank.name} from ${today} to ${weekEnd}:`,
+            `What is due in ${bank.name} from ${dayInWords(today)} to ${dayInWords(weekEnd)}:`,
             '',
             ...lines,
             '',
