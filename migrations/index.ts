@@ -24,6 +24,8 @@ import * as m20261203004317 from './2026_12_03_004317_plan_follows_inputs';
 import * as m20261203004731 from './2026_12_03_004731_reminders_that_fit';
 import * as m20261203004731spaces from './2026_12_03_004731_growing_spaces';
 import * as m20261203004726 from './2026_12_03_004726_idempotency_keys';
+// Generations (issue 18, lineage)
+import * as m20261203006183 from './2026_12_03_006183_plants_grown_from_lot';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_000000_accounts_and_banks': m20261201000000,
@@ -49,4 +51,6 @@ export const migrations: Record<string, Migration> = {
   '2026_12_03_004731_growing_spaces': m20261203004731spaces,
   '2026_12_03_004731_reminders_that_fit': m20261203004731,
   '2026_12_03_004726_idempotency_keys': m20261203004726,
+  // Generations (issue 18, lineage)
+  '2026_12_03_006183_plants_grown_from_lot': m20261203006183,
 };

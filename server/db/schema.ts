@@ -187,6 +187,8 @@ export interface ParentPlantTable {
   season: number | null;
   hybrid: ColumnType<boolean, boolean | undefined, boolean>;
   notes: string | null;
+  /** The bank's lot this plant grew from (generations); null: not grown from a lot of this bank. */
+  grown_from_lot_id: ColumnType<string | null, string | null | undefined, string | null>;
   created_at: Timestamp;
   updated_at: Timestamp;
 }

@@ -43,6 +43,7 @@ import {
   lotsListQuerySchema,
   movementSchema,
   parentPlantSchema,
+  plantsFromSowingBodySchema,
   photoSchema,
   photoSizeQuerySchema,
   seedWeightBodySchema,
@@ -496,14 +497,16 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'get',
     path: `${BANK}/lots/:lotId`,
-    summary: 'One lot.',
+    summary:
+      'One lot, with its `lineage` (generation, population, parent plants, the earlier lots of its line). A lot with no parent plant grown from a lot of this bank is generation 1.',
     access: 'viewer',
     responses: [ok(lotEnvelope)],
   },
   {
     method: 'patch',
     path: `${BANK}/lots/:lotId`,
-    summary: 'Change a lot.',
+    summary:
+      'Change a lot. 409 `lineage_cycle` (field parentPlantIds) when a parent plant grew from this lot or from a lot saved from it: a lot cannot be its own ancestor.',
     access: 'grower',
     body: updateLotBodySchema,
     responses: [ok(lotEnvelope)],
@@ -763,6 +766,16 @@ export const apiRoutes: ApiRoute[] = [
     summary: 'Delete a parent plant.',
     access: 'grower',
     responses: [noContent()],
+  },
+  // Generations (issue 18)
+  {
+    method: 'post',
+    path: `${BANK}/plants/from-sowing`,
+    summary:
+      'Keep plants for seed from a sown plan entry: `plants` parent plants, one each (labelled “<label>, plant i of n”; label defaults to “From <lot code>”), of the entry’s species and season, the variety of its lot, and `grownFromLotId` its lot, written in one transaction. 404 when the entry is not of this bank; 422 (field entryId) when it is not sown yet or names no lot.',
+    access: 'grower',
+    body: plantsFromSowingBodySchema,
+    responses: [created(z.object({ items: z.array(parentPlantSchema) }))],
   },
 
   // Plan

@@ -190,6 +190,52 @@ export const seedWeightBodySchema = z
   });
 export type SeedWeightBody = z.infer<typeof seedWeightBodySchema>;
 
+// --- Generations (issue 18): a lot's line back through the bank's earlier lots. ---
+
+/** How many generations back a line is followed (a guard; real lines are far shorter). */
+export const MAX_LINEAGE_DEPTH = 50;
+
+export const lineageParentSchema = z.object({
+  plantId: idSchema,
+  label: z.string(),
+  hybrid: z.boolean(),
+  grownFromLotId: idSchema.nullable(),
+  /** The code of the lot the plant grew from (null: not grown from a lot of this bank). */
+  code: z.string().nullable(),
+});
+export type LineageParentDto = z.infer<typeof lineageParentSchema>;
+
+export const lineageAncestorSchema = z.object({
+  lotId: idSchema,
+  code: z.string(),
+  generation: z.number().int(),
+  variety: z.string(),
+  harvestDate: z.string().nullable(),
+  packedForSeason: z.number().nullable(),
+  /** Plants its seed was bulked from: its plantsBulked, else its parent plants counted; null: not known. */
+  population: z.number().nullable(),
+  /** Its parent plants included an F1 hybrid. */
+  hybridParent: z.boolean(),
+  /** The lots its parent plants grew from (the step before it in the line). */
+  grownFromLotIds: z.array(idSchema),
+});
+export type LineageAncestorDto = z.infer<typeof lineageAncestorSchema>;
+
+export const lineageSchema = z
+  .object({
+    generation: z.number().int().min(1),
+    /** Plants this lot's seed was bulked from: plantsBulked, else its parent plants counted; null: not known. */
+    population: z.number().nullable(),
+    parents: z.array(lineageParentSchema),
+    ancestors: z.array(lineageAncestorSchema),
+    /** Seed-saving cautions the line calls for (a parent plant was an F1 hybrid). */
+    cautions: z.array(z.string()),
+  })
+  .describe(
+    `A lot's line. generation: 1 when none of its parent plants grew from a lot of this bank (bought or swapped seed, or seed saved from plants of unknown origin); a lot saved from plants grown from lot X is X's generation + 1 (from several lots: the latest generation + 1). parents: its parent plants with the lot each grew from (grownFromLotId, code). ancestors: the bank's earlier lots in its line, nearest first (highest generation first), each with its generation and population, followed at most ${MAX_LINEAGE_DEPTH} generations back. population: plants bulked (plantsBulked, else the parent plants counted). cautions: seed saved from an F1 hybrid does not come true.`,
+  );
+export type LineageDto = z.infer<typeof lineageSchema>;
+
 export const lotSchema = z.object({
   id: idSchema,
   code: z.string(),
@@ -221,6 +267,8 @@ export const lotSchema = z.object({
   thumbUrl: z.string().nullable(),
   createdAt: z.string(),
   updatedAt: z.string(),
+  // Generations (issue 18): on the read of one lot, not in lists.
+  lineage: lineageSchema.optional(),
 });
 export type LotDto = z.infer<typeof lotSchema>;
 
@@ -307,6 +355,9 @@ export const parentPlantSchema = z.object({
   photos: z.array(photoSchema),
   /** Guidance for saving seed from this plant (hybrid, outcrossing), common practice. */
   cautions: z.array(z.string()),
+  // Generations (issue 18): the bank's lot this plant grew from.
+  grownFromLotId: idSchema.nullable(),
+  grownFromLotCode: z.string().nullable(),
 });
 export type ParentPlantDto = z.infer<typeof parentPlantSchema>;
 
@@ -318,9 +369,34 @@ const plantFields = {
   season: z.number().int().min(1900).max(2100).nullable().optional(),
   hybrid: z.boolean().optional(),
   notes: optionalText(4000),
+  // Generations (issue 18): a lot of the same bank, or null.
+  grownFromLotId: idSchema
+    .nullable()
+    .optional()
+    .describe(
+      'The lot of this bank the plant grew from (null: not grown from a lot of this bank). 422 when it is not a lot of this bank or of the plant’s species; 409 `lineage_cycle` when the plant is a parent of that lot or of a lot it descends from.',
+    ),
 };
 export const createPlantBodySchema = z.object(plantFields);
 export const updatePlantBodySchema = z
   .object(plantFields)
   .partial()
   .refine((b) => Object.keys(b).length > 0, { message: 'Nothing to change.' });
+
+// --- Generations (issue 18): plants kept for seed from a sown plan entry. ---
+
+/** POST /api/banks/:bankId/plants/from-sowing: these `plants` plants grew from the sowing's lot. */
+export const plantsFromSowingBodySchema = z
+  .object({
+    entryId: idSchema,
+    plants: z
+      .number({ message: 'How many plants will you save seed from?' })
+      .int({ message: 'A whole number of plants.' })
+      .min(1, { message: 'At least one plant.' })
+      .max(500, { message: 'At most 500 plants at a time.' }),
+    label: text(100).min(1, { message: 'Label the plants, e.g. “Bed 2”.' }).optional(),
+    location: optionalText(160),
+    hybrid: z.boolean().optional(),
+  })
+  .strict();
+export type PlantsFromSowingBody = z.infer<typeof plantsFromSowingBodySchema>;

@@ -16,6 +16,8 @@ import { AppError, badRequest, conflict, invalidCsv, notFound, unprocessable } f
 import { requireSpecies } from '../species/species.shared.repository';
 import { codePrefix, nextCode } from './lot-code';
 import * as repo from './lots.repository';
+import * as lineage from './lineage.repository';
+import { buildLineage, lineageCycle } from './lot-lineage';
 import type { Insertable, Updateable } from 'kysely';
 import crypto from 'node:crypto';
 import { inBatches } from '#server/db/batches';
@@ -206,7 +208,18 @@ export function createLotsService(deps: LotsServiceDeps) {
   async function get(bankId: string, lotId: string, on: DbOrTx = db) {
     const row = await repo.lotsQuery(on, bankId).where('lots.id', '=', lotId).executeTakeFirst();
     if (!row) throw notFound('No such lot in this bank.');
-    return repo.toLotDto(row);
+    // Generations (issue 18): the read of one lot carries its line.
+    return { ...repo.toLotDto(row), lineage: buildLineage(lotId, await lineage.lineRows(on, bankId, lotId)) };
+  }
+
+  /** Generations: refuses parent plants grown from this lot or from a lot that descends from it. */
+  async function refuseCycle(trx: DbOrTx, bankId: string, lotId: string, plantIds: string[]) {
+    await lineage.lockLineage(trx, bankId);
+    for (const plant of await lineage.grownFromOfPlants(trx, bankId, plantIds)) {
+      if (await lineage.makesCycle(trx, bankId, [lotId], plant.grown_from_lot_id!)) {
+        throw lineageCycle('parentPlantIds');
+      }
+    }
   }
 
   async function checkParents(trx: DbOrTx, bankId: string, ids: string[] | undefined) {
@@ -464,7 +477,10 @@ export function createLotsService(deps: LotsServiceDeps) {
           }
           throw error;
         }
-        if (body.parentPlantIds) await repo.setParents(trx, lotId, body.parentPlantIds);
+        if (body.parentPlantIds) {
+          await refuseCycle(trx, bankId, lotId, body.parentPlantIds);
+          await repo.setParents(trx, lotId, body.parentPlantIds);
+        }
         if (body.amount) await setAmount(trx, bankId, lotId, userId, body.amount);
       });
       return get(bankId, lotId);

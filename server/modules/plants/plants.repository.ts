@@ -5,17 +5,30 @@ import type { ParentPlantTable } from '#server/db/schema';
 const plantsOf = (db: DbOrTx, bankId: string) =>
   db
     .selectFrom('parent_plants')
-    .select(['id', 'species_id', 'label', 'variety', 'location', 'season', 'hybrid', 'notes'])
-    .where('bank_id', '=', bankId);
+    // Generations (issue 18): the lot the plant grew from, and its code.
+    .leftJoin('lots as grown_from', 'grown_from.id', 'parent_plants.grown_from_lot_id')
+    .select([
+      'parent_plants.id',
+      'parent_plants.species_id',
+      'parent_plants.label',
+      'parent_plants.variety',
+      'parent_plants.location',
+      'parent_plants.season',
+      'parent_plants.hybrid',
+      'parent_plants.notes',
+      'parent_plants.grown_from_lot_id',
+      'grown_from.code as grown_from_code',
+    ])
+    .where('parent_plants.bank_id', '=', bankId);
 
 export type PlantRow = Awaited<ReturnType<typeof listPlants>>[number];
 
 export const findPlant = (db: DbOrTx, bankId: string, plantId: string) =>
-  plantsOf(db, bankId).where('id', '=', plantId).executeTakeFirst();
+  plantsOf(db, bankId).where('parent_plants.id', '=', plantId).executeTakeFirst();
 
 /** The bank's parent plants, newest season first. */
 export const listPlants = (db: DbOrTx, bankId: string) =>
-  plantsOf(db, bankId).orderBy('season', 'desc').orderBy('label').execute();
+  plantsOf(db, bankId).orderBy('parent_plants.season', 'desc').orderBy('parent_plants.label').execute();
 
 export const insertPlant = (db: DbOrTx, values: Insertable<ParentPlantTable>) =>
   db.insertInto('parent_plants').values(values).returning('id').executeTakeFirstOrThrow();
@@ -25,3 +38,7 @@ export const updatePlant = (db: DbOrTx, plantId: string, changes: Updateable<Par
 
 export const deletePlant = (db: DbOrTx, plantId: string) =>
   db.deleteFrom('parent_plants').where('id', '=', plantId).execute();
+
+/** Generations: the plants kept for seed from one sowing, in one statement. */
+export const insertPlants = (db: DbOrTx, values: Insertable<ParentPlantTable>[]) =>
+  db.insertInto('parent_plants').values(values).returning('id').execute();

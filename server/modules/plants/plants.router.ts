@@ -1,6 +1,11 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { createPlantBodySchema, parentPlantSchema, updatePlantBodySchema } from '#shared/schemas/lots';
+import {
+  createPlantBodySchema,
+  parentPlantSchema,
+  plantsFromSowingBodySchema,
+  updatePlantBodySchema,
+} from '#shared/schemas/lots';
 import { requireRole } from '#server/auth/bank-access';
 import { parse } from '#server/http/errors';
 import { idParam } from '#server/http/params';
@@ -22,6 +27,13 @@ export function plantRoutes(plants: PlantsService): Router {
   router.post('/', requireRole('grower'), async (req, res) => {
     const body = parse(createPlantBodySchema, req.body, 'parent plant');
     respond(res, 201, one, { plant: await plants.create(bankOf(req).id, body) });
+  });
+  // Generations (issue 18): the plants kept for seed from a sown plan entry, grown from its lot.
+  router.post('/from-sowing', requireRole('grower'), async (req, res) => {
+    const body = parse(plantsFromSowingBodySchema, req.body, 'plants from a sowing');
+    respond(res, 201, z.object({ items: z.array(parentPlantSchema) }), {
+      items: await plants.createFromSowing(bankOf(req).id, body),
+    });
   });
   router.get('/:plantId', requireRole('viewer'), async (req, res) => {
     respond(res, 200, one, { plant: await plants.get(bankOf(req).id, plantId(req)) });
