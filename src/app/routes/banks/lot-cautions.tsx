@@ -1,5 +1,6 @@
 import type { LotDto } from '#shared/schemas/lots';
 import type { SpeciesDto } from '#shared/schemas/species';
+import { Caution } from '#src/components/ui/caution';
 import { LotCautions } from '#src/features/lots/components/lot-cautions';
 import { SpeciesCautions } from '#src/features/species/components/species-cautions';
 
@@ -10,10 +11,17 @@ import { SpeciesCautions } from '#src/features/species/components/species-cautio
  */
 export function LotPageCautions({ lot, species }: { lot: LotDto; species: SpeciesDto | undefined }) {
   const poisonous = species?.traits.poisonous === true;
-  if (!lot.treated && lot.origin !== 'swapped' && !poisonous) return null;
+  // Generations: the server's caution for seed saved from an F1 hybrid parent.
+  const lineCautions = lot.lineage?.cautions ?? [];
+  if (!lot.treated && lot.origin !== 'swapped' && !poisonous && lineCautions.length === 0) return null;
   return (
     <div className="mb-4 grid gap-2 sm:mb-6" aria-label="Cautions for this lot" role="group">
       <LotCautions lot={lot} foldOnPhone />
+      {lineCautions.map((text) => (
+        <Caution key={text} title="Saved from an F1 hybrid" foldOnPhone>
+          {text}
+        </Caution>
+      ))}
       {species ? <SpeciesCautions species={species} foldOnPhone /> : null}
     </div>
   );

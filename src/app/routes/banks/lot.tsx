@@ -1,6 +1,8 @@
+import { lazy, Suspense } from 'react';
 import { Link, useLocation, useNavigate, useParams } from 'react-router-dom';
 import { buttonStyles } from '#src/components/ui/button';
 import { Card } from '#src/components/ui/card';
+import { Loading } from '#src/components/ui/spinner';
 import { paths } from '#src/config/paths';
 import { useLotAssays } from '#src/features/germination/api/get-lot-assays';
 import { LotAssays } from '#src/features/germination/components/lot-assays';
@@ -26,6 +28,9 @@ import { todayIn } from '#src/lib/dates';
 import type { BankNoticeState } from './bank-layout';
 import { LotPageCautions } from './lot-cautions';
 import { useRouteBank } from './use-route-bank';
+
+// Generations: the lot's line as a small tree, loaded after the page.
+const LineageCard = lazy(() => import('#src/features/lots/components/lineage-card'));
 
 /** What the new-lot form hands over: the notice, and a photo upload that failed after saving. */
 export interface LotPageState extends BankNoticeState {
@@ -180,6 +185,9 @@ export function LotPage() {
               </Link>
             </p>
           </Card>
+          <Suspense fallback={<Loading label="Loading the generations" />}>
+            <LineageCard bankId={bank.id} lot={lot} />
+          </Suspense>
           {canEdit ? (
             <DeleteLotCard
               bankId={bank.id}

@@ -1,5 +1,6 @@
 import { useState } from 'react';
-import { Link, useNavigate } from 'react-router-dom';
+import type { ParentPlantDto } from '#shared/schemas/lots';
+import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { Dialog } from '#src/components/ui/dialog';
 import { FormAlert } from '#src/components/ui/form-alert';
 import { PageHeader } from '#src/components/ui/page-header';
@@ -28,6 +29,8 @@ export function NewLotPage() {
   const [addingSpecies, setAddingSpecies] = useState(false);
   const [addedSpeciesId, setAddedSpeciesId] = useState<string>();
   const today = todayIn(bank.timeZone);
+  const [search] = useSearchParams();
+  const initial = grownFromStart(plants.data ?? [], search.get('grownFrom'));
 
   if (role === 'viewer') {
     return (
@@ -64,6 +67,7 @@ export function NewLotPage() {
           species={species.data}
           plants={plants.data ?? []}
           today={today}
+          initial={initial}
           renderSpeciesNote={(s) => (
             <div className="grid gap-3 rounded-lg bg-husk-50 p-3">
               <SpeciesCautions species={s} />
@@ -140,4 +144,20 @@ export function NewLotPage() {
       </Dialog>
     </div>
   );
+}
+
+/**
+ * Generations: `?grownFrom=<lotId>` (from "Keep plants for seed" on the planner) starts the form with
+ * the plants grown from that lot in their latest season ticked, and their species and variety.
+ */
+function grownFromStart(plants: ParentPlantDto[], lotId: string | null) {
+  const grown = lotId ? plants.filter((p) => p.grownFromLotId === lotId) : [];
+  if (grown.length === 0) return undefined;
+  const season = Math.max(...grown.map((p) => p.season ?? 0));
+  const latest = grown.filter((p) => (p.season ?? 0) === season);
+  return {
+    speciesId: latest[0]!.speciesId,
+    variety: latest[0]!.variety ?? '',
+    parentPlantIds: latest.map((p) => p.id),
+  };
 }

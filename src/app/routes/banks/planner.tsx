@@ -30,6 +30,8 @@ type View = 'sowings' | 'calendar';
 
 // The room under the lights (its chart and space forms) loads after the page, not with it.
 const SpaceCard = lazy(() => import('#src/features/spaces/components/space-card'));
+// Generations: keeping plants for seed from a sown entry loads when a sown entry shows it.
+const KeepForSeed = lazy(() => import('#src/features/plants/components/keep-for-seed'));
 
 /** /banks/:bankId/planner — the season's sowings counted back from the last frost, and its calendar. */
 export function PlannerPage() {
@@ -196,7 +198,22 @@ export function PlannerPage() {
               <ol className="grid gap-4">
                 {entries.map((entry) => (
                   <li key={entry.id}>
-                    <PlanEntryCard bankId={bank.id} entry={entry} canEdit={canEdit} today={today} />
+                    <PlanEntryCard
+                      bankId={bank.id}
+                      entry={entry}
+                      canEdit={canEdit}
+                      today={today}
+                      sownExtra={
+                        canEdit && entry.lotId && entry.lotCode ? (
+                          <Suspense fallback={null}>
+                            <KeepForSeed
+                              bankId={bank.id}
+                              entry={{ ...entry, lotId: entry.lotId, lotCode: entry.lotCode }}
+                            />
+                          </Suspense>
+                        ) : null
+                      }
+                    />
                   </li>
                 ))}
               </ol>

@@ -77,6 +77,8 @@ export interface NewLotFormProps {
   addedSpeciesId?: string | undefined;
   /** After the lot is saved: upload the photo (reporting progress) and move on. */
   onCreated: (lot: LotDto, photo: File | null, onPhotoProgress: (fraction: number) => void) => Promise<void>;
+  /** Generations: seed saved from plants grown from a lot starts with their species, variety and ticks. */
+  initial?: { speciesId: string; variety: string; parentPlantIds: string[] } | undefined;
 }
 
 export function NewLotForm({
@@ -90,6 +92,7 @@ export function NewLotForm({
   onAddSpecies,
   addedSpeciesId,
   onCreated,
+  initial,
 }: NewLotFormProps) {
   const create = useCreateLot(bankId);
   const [formError, setFormError] = useState<string>();
@@ -102,8 +105,8 @@ export function NewLotForm({
   const form = useForm({
     resolver,
     defaultValues: {
-      speciesId: '',
-      variety: '',
+      speciesId: initial?.speciesId ?? '',
+      variety: initial?.variety ?? '',
       origin: 'saved' as Origin,
       sourceName: '',
       // Empty until chosen: a harvest date is a fact the grower gives, never today by default.
@@ -111,7 +114,7 @@ export function NewLotForm({
       packedForSeason: null,
       seedCount: undefined,
       grams: undefined,
-      parentPlantIds: [],
+      parentPlantIds: initial?.parentPlantIds ?? [],
       plantsBulked: null,
       storage: { place: null, location: '', temperatureC: null, humidityPct: null },
       notes: '',

@@ -1,4 +1,4 @@
-import { useId, useState } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { HARDINESS_WORDS } from '#shared/plan-dates';
 import { sownBodySchema, updatePlanBodySchema, type PlanEntryDto } from '#shared/schemas/plan';
@@ -28,9 +28,11 @@ export interface PlanEntryCardProps {
   canEdit: boolean;
   /** Today in the bank's time zone: the latest sowing date allowed. */
   today: string;
+  /** More for a sown entry, under what came up (generations: keeping plants for seed). */
+  sownExtra?: ReactNode;
 }
 
-export function PlanEntryCard({ bankId, entry, canEdit, today }: PlanEntryCardProps) {
+export function PlanEntryCard({ bankId, entry, canEdit, today, sownExtra }: PlanEntryCardProps) {
   const titleId = useId();
   const [editing, setEditing] = useState(false);
   const [deleting, setDeleting] = useState(false);
@@ -140,6 +142,7 @@ export function PlanEntryCard({ bankId, entry, canEdit, today }: PlanEntryCardPr
       ) : null}
 
       {sown ? <CameUp bankId={bankId} entry={entry} canEdit={canEdit} today={today} /> : null}
+      {sown ? sownExtra : null}
 
       {canEdit ? (
         <div className="mt-4 border-t border-loam-100 pt-3">

@@ -2,6 +2,8 @@ import { useState } from 'react';
 import type { ParentPlantDto } from '#shared/schemas/lots';
 import { Button } from '#src/components/ui/button';
 import { ConfirmDialog } from '#src/components/ui/confirm-dialog';
+import { Link } from 'react-router-dom';
+import { paths } from '#src/config/paths';
 import { useDeletePlant } from '../api/delete-plant';
 import { PlantCautions } from './plant-cautions';
 
@@ -61,6 +63,17 @@ export function PlantsList({ bankId, plants, canEdit, label = 'Parent plants' }:
                     </Button>
                   ) : null}
                 </div>
+                {plant.grownFromLotId && plant.grownFromLotCode ? (
+                  <p className="text-sm text-loam-700">
+                    Grown from{' '}
+                    <Link
+                      to={paths.lot.getHref(bankId, plant.grownFromLotId)}
+                      className="font-semibold text-moss-800 underline"
+                    >
+                      {plant.grownFromLotCode}
+                    </Link>
+                  </p>
+                ) : null}
                 {plant.notes ? (
                   <p className="whitespace-pre-line text-sm text-loam-800">{plant.notes}</p>
                 ) : null}
