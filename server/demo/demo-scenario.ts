@@ -479,7 +479,7 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
     // An old envelope of a tomato line, kept in a tin and slipping (rechecked last month), while a
     // newer lot of the same line waits in the fridge: sow the old one thickly, the new one as usual.
     const oldRose = `${latest - 3}-09-12`;
-    await story(
+    const oldRoseLot = await story(
       {
         key: 'tomato',
         variety: 'Crackle Rose',
@@ -496,7 +496,7 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
         recheck(oldRose, 1.4, 3.2, addDays(today, -34)),
       ],
     );
-    await story(
+    const newRoseLot = await story(
       {
         key: 'tomato',
         variety: 'Crackle Rose',
@@ -508,6 +508,30 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
       },
       [{ start: `${latest}-01-08`, perTray: 25, germinated: split(95, 4) }],
     );
+    // Generations: the newer Crackle Rose was saved from four plants grown from the older envelope,
+    // so its page shows a two-generation line (no random draws here: the rest of the demo stays).
+    const rosePlants = await trx
+      .insertInto('parent_plants')
+      .values(
+        [1, 2, 3, 4].map((i) => ({
+          bank_id: bank.id,
+          species_id: species.tomato!.id,
+          label: `From ${oldRoseLot.code}, plant ${i} of 4`,
+          variety: 'Crackle Rose',
+          location: 'Hoop house',
+          season: latest - 1,
+          hybrid: false,
+          notes: null,
+          grown_from_lot_id: oldRoseLot.id,
+        })),
+      )
+      .returning('id')
+      .execute();
+    await trx
+      .insertInto('lot_parents')
+      .values(rosePlants.map((p) => ({ lot_id: newRoseLot.id, parent_plant_id: p.id })))
+      .execute();
+    await trx.updateTable('lots').set({ plants_bulked: 4 }).where('id', '=', newRoseLot.id).execute();
 
     // The circle's only lettuce of its kind, years on a shelf and sagging (rechecked six weeks ago):
     // still worth sowing, but grown out this year for fresh seed.

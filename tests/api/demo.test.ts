@@ -141,6 +141,28 @@ describe('the demo season', () => {
     }
   });
 
+  // Generations (issue 18).
+  it('when seeded, then the younger Crackle Rose lot shows its line back to the older envelope', async () => {
+    const keeper = await signIn(ctx.app, 'keeper@example.org', 'hilum-demo-seeds');
+    const rows = await ctx.db
+      .selectFrom('lots')
+      .select(['id', 'code', 'harvest_date'])
+      .where('bank_id', '=', bankId)
+      .where('variety', '=', 'Crackle Rose')
+      .orderBy('harvest_date')
+      .execute();
+    expect(rows).toHaveLength(2);
+    const [older, younger] = rows as [(typeof rows)[number], (typeof rows)[number]];
+    const res = await keeper.get(`/api/banks/${bankId}/lots/${younger.id}`);
+    expect(res.body.lot.lineage).toMatchObject({
+      generation: 2,
+      population: 4,
+      ancestors: [{ lotId: older.id, code: older.code, generation: 1 }],
+      cautions: [],
+    });
+    expect(res.body.lot.lineage.parents).toHaveLength(4);
+  });
+
   it('when seeded, then the bank has spaces under lights and the coming season has weeks of room', async () => {
     const keeper = await signIn(ctx.app, 'keeper@example.org', 'hilum-demo-seeds');
     const spaces = (await keeper.get(`/api/banks/${bankId}/spaces`)).body.items as { cells: number }[];
