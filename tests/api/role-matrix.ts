@@ -108,6 +108,21 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     least: 'grower',
     ok: 204,
   },
+  // Generations (issue 18): the path makes the plan entry the body then names.
+  'POST plants from-sowing': (() => {
+    let entryId = '';
+    return {
+      method: 'post',
+      path: async (f: MatrixFixture) => {
+        entryId = await f.make('plan');
+        return `/api/banks/${f.bankId}/plants/from-sowing`;
+      },
+      body: () => ({ entryId, plants: 2 }),
+      least: 'grower',
+      // The fixture's entry is not marked sown, so no plants grew from it yet (422, field entryId).
+      ok: 422,
+    } satisfies MatrixRoute;
+  })(),
   'GET lots': { method: 'get', path: (f) => `/api/banks/${f.bankId}/lots`, least: 'viewer' },
   'POST lot': {
     method: 'post',

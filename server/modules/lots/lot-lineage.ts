@@ -40,6 +40,8 @@ export function buildLineage(lotId: string, { lots, parents }: LineRows): Lineag
     return g;
   }
 
+  // The lot's own generation first, so a cut cycle or the depth guard counts from the lot itself.
+  const own = generationOf(lotId, 0);
   const population = (id: string) => lotById.get(id)?.plants_bulked ?? (parentsOf.get(id)?.length || null);
   const hybridParent = (id: string) => (parentsOf.get(id) ?? []).some((p) => p.hybrid);
 
@@ -71,7 +73,7 @@ export function buildLineage(lotId: string, { lots, parents }: LineRows): Lineag
   ancestors.sort((a, b) => b.generation - a.generation || a.code.localeCompare(b.code));
 
   return {
-    generation: generationOf(lotId, 0),
+    generation: own,
     population: population(lotId),
     parents: (parentsOf.get(lotId) ?? []).map((p) => ({
       plantId: p.plant_id,
