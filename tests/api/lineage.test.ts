@@ -213,6 +213,14 @@ describe('generations: a lot knows its line back through the bank’s earlier lo
     expect(wrongSpecies.status).toBe(422);
     expect(wrongSpecies.body.error.fields).toHaveProperty('grownFromLotId');
 
+    // Nor can a plant grown from a tomato lot become a pepper.
+    const grownTomato = await plant({ label: 'Grown tomato', grownFromLotId: tomatoLot.id });
+    const respecies = await bank.grower.agent
+      .patch(`${base()}/plants/${grownTomato.id}`)
+      .send({ speciesId: pepper });
+    expect(respecies.status).toBe(422);
+    expect(respecies.body.error.fields).toHaveProperty('grownFromLotId');
+
     const notAnId = await bank.grower.agent
       .post(`${base()}/plants`)
       .send({ speciesId: tomato, label: 'Bad id', grownFromLotId: 'lot-1' });
