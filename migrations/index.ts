@@ -26,6 +26,8 @@ import * as m20261203004731spaces from './2026_12_03_004731_growing_spaces';
 import * as m20261203004726 from './2026_12_03_004726_idempotency_keys';
 // Generations (issue 18, lineage)
 import * as m20261203006183 from './2026_12_03_006183_plants_grown_from_lot';
+// Issue 18, offers between banks.
+import * as m20261203006142 from './2026_12_03_006142_lot_offers';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_000000_accounts_and_banks': m20261201000000,
@@ -53,4 +55,6 @@ export const migrations: Record<string, Migration> = {
   '2026_12_03_004726_idempotency_keys': m20261203004726,
   // Generations (issue 18, lineage)
   '2026_12_03_006183_plants_grown_from_lot': m20261203006183,
+  // Issue 18, offers between banks.
+  '2026_12_03_006142_lot_offers': m20261203006142,
 };

@@ -55,6 +55,9 @@ import { createSpacesService } from './modules/spaces/spaces.service';
 import { createInvitationsService } from './modules/invitations/invitations.service';
 import { healthRouter } from './modules/health/health.router';
 import { openApiRoutes } from './openapi/openapi.router';
+// Issue 18, offers between banks.
+import { lotOfferRoutes, offersRouter, receivedRoutes } from './modules/offers/offers.router';
+import { createOffersService } from './modules/offers/offers.service';
 import type { ObjectStore } from './storage/object-store';
 
 export interface AppDeps {
@@ -147,6 +150,14 @@ export function createApp(deps: AppDeps): Express {
     secret: config.sessionSecret,
     appOrigin: config.appOrigin,
   });
+  // Issue 18, offers between banks.
+  const offers = createOffersService({
+    ...deps,
+    mailQueue,
+    appOrigin: config.appOrigin,
+    lots: services.lots,
+    viability: services.viability,
+  });
   const secureCookies = config.appOrigin.startsWith('https:');
   const limits = authRateLimits(createRateLimiter({ db: deps.db, clock: deps.clock, logger }), {
     signUpLimit: deps.signUpLimit,
@@ -161,6 +172,7 @@ export function createApp(deps: AppDeps): Express {
   api.use('/auth', authRouter(services.auth, { secureCookies, limits }));
   api.use('/me', meRouter(services.auth));
   api.use('/invitations', invitationsRouter(services.invitations));
+  api.use('/offers', offersRouter(offers));
   api.use('/banks', requireAuth, createBankRouter(services.banks));
   api.use('/photos', photoFileRoutes(services.photos));
   // Every route of one bank sits behind bankAccess, which resolves the caller's role once.
@@ -174,6 +186,8 @@ export function createApp(deps: AppDeps): Express {
     '/lots/:lotId/label.svg',
     labelRoutes(createLabelsService({ db: deps.db, appOrigin: config.appOrigin })),
   );
+  bank.use('/lots/:lotId/offers', lotOfferRoutes(offers));
+  bank.use('/lots/:lotId/received', receivedRoutes(offers));
   const viability = viabilityRoutes(services.viability);
   bank.use('/lots/:lotId', viability.lot);
   bank.use('/ranking', viability.ranking);

@@ -95,7 +95,7 @@ export interface InvitationTable {
   mail_id: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
-export type MailKind = 'invitation' | 'password_reset' | 'email_verification';
+export type MailKind = 'invitation' | 'password_reset' | 'email_verification' | 'offer_request';
 export type MailStatus = 'waiting' | 'sending' | 'sent' | 'skipped' | 'expired';
 
 export interface MailQueueTable {
@@ -448,6 +448,61 @@ export interface IdempotencyKeyTable {
   created_at: Date;
 }
 
+// Issue 18, offers between banks (server/modules/offers).
+export type OfferStatus = 'open' | 'accepted' | 'declined' | 'withdrawn';
+
+/** Part of a lot offered to another bank (`to_bank_id`) or by a link (`token_hash`, a SHA-256, hex). */
+export interface LotOfferTable {
+  id: Generated<string>;
+  from_bank_id: string;
+  lot_id: string;
+  seeds: number;
+  to_bank_id: string | null;
+  token_hash: string | null;
+  expires_at: Date | null;
+  show_bank_name: ColumnType<boolean, boolean | undefined, boolean>;
+  status: ColumnType<OfferStatus, OfferStatus | undefined, OfferStatus>;
+  created_by: string | null;
+  created_at: Timestamp;
+  decided_at: Opt<Date>;
+  accepted_bank_id: Opt<string>;
+  accepted_lot_id: Opt<string>;
+  accepted_by: Opt<string>;
+}
+
+/** A member asking for an offered lot; the giver is mailed. */
+export interface OfferRequestTable {
+  id: Generated<string>;
+  offer_id: string;
+  user_id: string;
+  note: string | null;
+  mail_id: Opt<string>;
+  created_at: Timestamp;
+}
+
+/** A finished test of the giver's lot, copied read-only onto the lot made when an offer was accepted. */
+export interface ReceivedTestTable {
+  id: Generated<string>;
+  bank_id: string;
+  lot_id: string;
+  offer_id: string | null;
+  start_date: string;
+  finished_on: string | null;
+  method: string;
+  medium: string | null;
+  temperature_c: Numeric | null;
+  light_hours: Numeric | null;
+  pretreatment: Pretreatment;
+  trays: number;
+  /** The giver's stored result (AssaySummary JSON) with the trays' ids and set-aside reasons removed. */
+  result: ColumnType<unknown, string, string>;
+  result_sown: number | null;
+  result_germinated: number | null;
+  result_percent: number | null;
+  result_mean_days: number | null;
+  result_last_count_date: string | null;
+}
+
 export interface Database {
   users: UserTable;
   sessions: SessionTable;
@@ -480,6 +535,10 @@ export interface Database {
   calendar_feeds: CalendarFeedTable;
   growing_spaces: GrowingSpaceTable;
   idempotency_keys: IdempotencyKeyTable;
+  // Issue 18, offers between banks.
+  lot_offers: LotOfferTable;
+  offer_requests: OfferRequestTable;
+  received_tests: ReceivedTestTable;
 }
 
 export type User = Selectable<UserTable>;

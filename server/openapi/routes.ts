@@ -85,6 +85,20 @@ import {
   viabilityResponseSchema,
 } from '#shared/schemas/viability';
 
+// Issue 18, offers between banks.
+import {
+  acceptOfferBodySchema,
+  circleOffersResponseSchema,
+  createOfferBodySchema,
+  createOfferResponseSchema,
+  declineOfferBodySchema,
+  lotOffersResponseSchema,
+  offerPreviewResponseSchema,
+  offerRequestBodySchema,
+  offerRequestResponseSchema,
+  offerTokenQuerySchema,
+  receivedResponseSchema,
+} from '#shared/schemas/offers';
 /**
  * The API's one route table: every route mounted under /api, with the zod schemas its router parses
  * (`parse(schema, req.body | req.query)`) and sends (`respond(res, status, schema, body)`). The
@@ -163,6 +177,85 @@ const healthSchema = z.object({
 const lotsImportSchema = z.union([lotsImportPreviewSchema, z.object({ imported: z.number() })]);
 
 const BANK = '/api/banks/:bankId';
+
+// Issue 18, offers between banks (server/modules/offers).
+const offerRoutes: ApiRoute[] = [
+  {
+    method: 'get',
+    path: `${BANK}/lots/:lotId/offers`,
+    summary: 'The lot’s offers to other banks, newest first, with who asked for each.',
+    access: 'viewer',
+    responses: [ok(lotOffersResponseSchema)],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/lots/:lotId/offers`,
+    summary:
+      'Offer part of the lot to another bank the caller belongs to (`toBankId`), or, without it, by a link (`link`, returned only now: the server keeps a hash of its token; it works for 30 days). `seeds` above the seeds on hand → 409 `stock_below_zero`; a bank the caller is not in → 422. Nothing moves until the offer is accepted.',
+    access: 'grower',
+    body: createOfferBodySchema,
+    responses: [created(createOfferResponseSchema)],
+  },
+  {
+    method: 'delete',
+    path: `${BANK}/lots/:lotId/offers/:offerId`,
+    summary: 'Withdraw an open offer (409 when it is already closed). Nothing had moved.',
+    access: 'grower',
+    responses: [noContent()],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/lots/:lotId/received`,
+    summary:
+      'How the lot came by an accepted offer (the giver’s lot code, and bank name if the giver allowed) and the giver’s finished tests, read-only evidence that the lot’s viability and decision use as its tests; `received` is null for a lot not received.',
+    access: 'viewer',
+    responses: [ok(receivedResponseSchema)],
+  },
+  {
+    method: 'get',
+    path: '/api/offers',
+    summary:
+      'The circle’s list: open offers from and to the banks the caller belongs to, each lot with its latest germination and age (from the giving bank’s ranking).',
+    access: 'signed-in',
+    responses: [ok(circleOffersResponseSchema)],
+  },
+  {
+    method: 'get',
+    path: '/api/offers/:offerId',
+    summary:
+      'An offer as the receiver sees it before accepting (with `token` for a link offer); 404 to anyone else.',
+    access: 'signed-in',
+    query: offerTokenQuerySchema,
+    responses: [ok(offerPreviewResponseSchema)],
+  },
+  {
+    method: 'post',
+    path: '/api/offers/:offerId/accept',
+    summary:
+      'Accept into `bankId` (the caller a grower or owner there; with `token` for a link offer). In one transaction the seeds leave the giver’s ledger, a lot with them is made in the receiving bank, and the giver’s finished tests are copied to it. Accepted or closed already → 409; not the addressed bank, or no such offer → 404; a viewer → 403.',
+    access: 'signed-in',
+    body: acceptOfferBodySchema,
+    responses: [created(lotEnvelope)],
+  },
+  {
+    method: 'post',
+    path: '/api/offers/:offerId/decline',
+    summary:
+      'Decline an offer (a grower or owner of the bank it is addressed to, or the link’s holder): it closes and nothing moves.',
+    access: 'signed-in',
+    body: declineOfferBodySchema,
+    responses: [noContent()],
+  },
+  {
+    method: 'post',
+    path: '/api/offers/:offerId/requests',
+    summary:
+      'Ask for an offered lot (a member of the giving bank): the giver sees the request on the lot and gets a mail. Asked already → 409.',
+    access: 'signed-in',
+    body: offerRequestBodySchema,
+    responses: [created(offerRequestResponseSchema)],
+  },
+];
 
 export const apiRoutes: ApiRoute[] = [
   // Service
@@ -893,4 +986,6 @@ export const apiRoutes: ApiRoute[] = [
     access: 'grower',
     responses: [noContent()],
   },
+  // Issue 18, offers between banks.
+  ...offerRoutes,
 ];

@@ -305,10 +305,11 @@ export function createLotsService(deps: LotsServiceDeps) {
     userId: string,
     today: string,
     body: CreateLotBody,
+    extra: LotExtra = {},
   ): Promise<string> {
     const species = await requireSpecies(trx, bankId, body.speciesId);
     await checkParents(trx, bankId, body.parentPlantIds);
-    const { row, movement, prefix } = newLot(bankId, userId, today, species, body);
+    const { row, movement, prefix } = newLot(bankId, userId, today, species, body, extra);
     // Given codes too: one committed between our read of the codes and our insert would collide.
     await repo.lockLotCodes(trx, bankId);
     const code = body.code ?? nextCode(prefix, await repo.codesLike(trx, bankId, prefix));
@@ -350,6 +351,35 @@ export function createLotsService(deps: LotsServiceDeps) {
       });
     }
     await followStock(trx, lotId, lot.status, amount.seeds);
+  }
+
+  /**
+   * The one way seeds move in or out of a lot's ledger by hand or between banks, inside the caller's
+   * transaction: the lot is locked, a withdrawal below zero is refused (409), and an emptied lot is
+   * depleted (a lot whose amount is not known refuses nothing).
+   */
+  async function moveStock(trx: DbOrTx, bankId: string, lotId: string, userId: string, body: StockBody) {
+    const lot = await repo.lockLot(trx, bankId, lotId);
+    if (!lot) throw notFound('No such lot in this bank.');
+    const before = await repo.stockOf(trx, lotId);
+    if (before !== null && before + body.change < 0) {
+      throw conflict(
+        `Only ${before} seeds are on hand; taking ${-body.change} would leave the stock below zero.`,
+        'stock_below_zero',
+      );
+    }
+    const movement = await repo.insertMovement(trx, {
+      lot_id: lotId,
+      kind: body.kind ?? 'correction',
+      change: body.change,
+      date: body.date,
+      reason: body.reason,
+      created_by: userId,
+    });
+    // Not known before, not known after: the movement is kept, the amount stays unknown.
+    const after = before === null ? null : before + body.change;
+    if (after !== null) await followStock(trx, lotId, lot.status, after);
+    return { movementId: movement.id, seedsOnHand: after };
   }
 
   return {
@@ -511,30 +541,20 @@ export function createLotsService(deps: LotsServiceDeps) {
           date: 'Use today or an earlier date.',
         });
       }
-      return db.transaction().execute(async (trx) => {
-        const lot = await repo.lockLot(trx, bankId, lotId);
-        if (!lot) throw notFound('No such lot in this bank.');
-        const before = await repo.stockOf(trx, lotId);
-        if (before !== null && before + body.change < 0) {
-          throw conflict(
-            `Only ${before} seeds are on hand; taking ${-body.change} would leave the stock below zero.`,
-            'stock_below_zero',
-          );
-        }
-        const movement = await repo.insertMovement(trx, {
-          lot_id: lotId,
-          kind: body.kind ?? 'correction',
-          change: body.change,
-          date: body.date,
-          reason: body.reason,
-          created_by: userId,
-        });
-        // Not known before, not known after: the movement is kept, the amount stays unknown.
-        const after = before === null ? null : before + body.change;
-        if (after !== null) await followStock(trx, lotId, lot.status, after);
-        return { movementId: movement.id, seedsOnHand: after };
-      });
+      return db.transaction().execute(async (trx) => moveStock(trx, bankId, lotId, userId, body));
     },
+
+    /** Writes a new lot inside the caller's transaction (offers between banks); `today` is the bank's. */
+    createIn: (
+      trx: DbOrTx,
+      bankId: string,
+      userId: string,
+      today: string,
+      body: CreateLotBody,
+      reason: string,
+    ) => insertLot(trx, bankId, userId, today, body, { reason }),
+
+    moveStock,
 
     /**
      * Records a weighed sample of the lot and answers with its seed weight now. A weighed amount is

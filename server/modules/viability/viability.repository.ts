@@ -26,37 +26,57 @@ export interface AssayAggregate {
   set_aside_reason: string | null;
 }
 
-/** The tests of the bank's lots of the given species, with their stored results, oldest first. */
+/**
+ * The stored result's figures the model reads, of a test row under the alias `t`: a test of the
+ * bank's (germination_tests) or a test copied from a giver's lot (received_tests, issue 18).
+ */
+const storedFigures = [
+  sql<number | null>`t.result_sown`.as('sown'),
+  sql<number | null>`t.result_germinated`.as('germinated'),
+  sql<number | null>`t.result_percent`.as('percent'),
+  sql<string | null>`t.result_last_count_date`.as('last_count_date'),
+  sql<number | null>`t.result_mean_days`.as('mean_days'),
+  sql<number | null>`(t.result->>'fresh')::int`.as('fresh'),
+  sql<number | null>`(t.result->>'sownSd')::float8`.as('sown_sd'),
+  sql<number | null>`(t.result->'interval'->>'low')::float8`.as('interval_low'),
+  sql<number | null>`(t.result->'interval'->>'high')::float8`.as('interval_high'),
+  sql<unknown>`t.result->'trayPercents'`.as('tray_percents'),
+];
+
+/**
+ * The tests of the bank's lots of the given species, with their stored results, oldest first. A lot
+ * received from another bank by an offer carries the giver's finished tests as its own evidence
+ * (read-only: they are copies in received_tests, never set aside, always finished).
+ */
 export async function assayAggregates(
   db: DbOrTx,
   bankId: string,
   speciesIds: string[],
 ): Promise<AssayAggregate[]> {
   if (speciesIds.length === 0) return [];
+  const received = db
+    .selectFrom('received_tests as t')
+    .innerJoin('lots as l', 'l.id', 't.lot_id')
+    .select(['t.id', 't.lot_id', 't.start_date'])
+    .select([
+      sql<'finished'>`'finished'`.as('status'),
+      sql<string | null>`null::text`.as('set_aside_reason'),
+      // Before the bank's own tests of the same day.
+      sql<Date>`'-infinity'::timestamptz`.as('created_at'),
+    ])
+    .select(storedFigures)
+    .where('t.bank_id', '=', bankId)
+    .where('l.species_id', 'in', speciesIds);
   return db
     .selectFrom('germination_tests as t')
     .innerJoin('lots as l', 'l.id', 't.lot_id')
-    .select([
-      't.id',
-      't.lot_id',
-      't.start_date',
-      't.status',
-      't.result_sown as sown',
-      't.result_germinated as germinated',
-      't.result_percent as percent',
-      't.result_last_count_date as last_count_date',
-      't.result_mean_days as mean_days',
-      sql<number | null>`(t.result->>'fresh')::int`.as('fresh'),
-      sql<number | null>`(t.result->>'sownSd')::float8`.as('sown_sd'),
-      sql<number | null>`(t.result->'interval'->>'low')::float8`.as('interval_low'),
-      sql<number | null>`(t.result->'interval'->>'high')::float8`.as('interval_high'),
-      sql<unknown>`t.result->'trayPercents'`.as('tray_percents'),
-      't.set_aside_reason',
-    ])
+    .select(['t.id', 't.lot_id', 't.start_date', 't.status', 't.set_aside_reason', 't.created_at'])
+    .select(storedFigures)
     .where('t.bank_id', '=', bankId)
     .where('l.species_id', 'in', speciesIds)
-    .orderBy('t.start_date')
-    .orderBy('t.created_at')
+    .unionAll(received)
+    .orderBy('start_date')
+    .orderBy('created_at')
     .execute();
 }
 
