@@ -86,6 +86,11 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                   loader: homeLoader(queryClient),
                   lazy: page(() => import('./routes/home'), 'HomePage'),
                 },
+                // Issue 18: where an offer link lands.
+                {
+                  path: paths.offer.path,
+                  lazy: page(() => import('./routes/offers/offer'), 'OfferPage'),
+                },
                 {
                   path: paths.newBank.path,
                   lazy: page(() => import('./routes/banks/new-bank'), 'NewBankPage'),
@@ -122,6 +127,11 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                       path: paths.lot.path,
                       loader: lotLoader(queryClient),
                       lazy: page(() => import('./routes/banks/lot'), 'LotPage'),
+                    },
+                    // Issue 18: the circle's list of seed on offer.
+                    {
+                      path: paths.offers.path,
+                      lazy: page(() => import('./routes/banks/offers'), 'OffersPage'),
                     },
                     {
                       path: paths.plants.path,

@@ -59,6 +59,13 @@ export const paths = {
   reminders: { path: 'reminders', getHref: (bankId: string) => bankHref(bankId, 'reminders') },
   members: { path: 'members', getHref: (bankId: string) => bankHref(bankId, 'members') },
   settings: { path: 'settings', getHref: (bankId: string) => bankHref(bankId, 'settings') },
+  // Issue 18, offers between banks.
+  offers: { path: 'offers', getHref: (bankId: string) => bankHref(bankId, 'offers') },
+  offer: {
+    path: '/offers/:offerId',
+    getHref: (offerId: string, token?: string) =>
+      `/offers/${encodeURIComponent(offerId)}${token ? `?token=${encodeURIComponent(token)}` : ''}`,
+  },
   devMail: {
     path: '/dev/mail',
     getHref: (messageId?: string) =>

@@ -25,12 +25,16 @@ import { SeedsToSowCard } from '#src/features/viability/components/seeds-to-sow-
 import { StorageAdviceCard } from '#src/features/viability/components/storage-advice-card';
 import { useSowingDate } from '#src/features/viability/components/use-sowing-date';
 import { todayIn } from '#src/lib/dates';
+import { useMe } from '#src/features/auth/api/get-me';
 import type { BankNoticeState } from './bank-layout';
 import { LotPageCautions } from './lot-cautions';
 import { useRouteBank } from './use-route-bank';
 
 // Generations: the lot's line as a small tree, loaded after the page.
 const LineageCard = lazy(() => import('#src/features/lots/components/lineage-card'));
+// Offers between banks: loaded only when a lot page opens.
+const OfferCard = lazy(() => import('#src/features/offers/components/offer-card'));
+const ReceivedCard = lazy(() => import('#src/features/offers/components/received-card'));
 
 /** What the new-lot form hands over: the notice, and a photo upload that failed after saving. */
 export interface LotPageState extends BankNoticeState {
@@ -51,6 +55,7 @@ export function LotPage() {
   const photoFailure = (location.state as LotPageState | null)?.photoFailure;
   const today = todayIn(bank.timeZone);
   const sowing = useSowingDate(bank.lastFrost, today);
+  const otherBanks = (useMe().data?.memberships ?? []).filter((m) => m.bankId !== bank.id);
   // The results of tests set aside, for the decline chart (the same cached list as the tests section).
   // Only counted ones: an estimated number sown has no Wilson interval to draw (it is listed apart).
   const lotAssays = useLotAssays(bank.id, lot.id).data?.items ?? [];
@@ -143,6 +148,10 @@ export function LotPage() {
           <section id="lot-tests" aria-labelledby="lot-tests-title">
             <LotAssays bankId={bank.id} lotId={lot.id} canWrite={canEdit} headingId="lot-tests-title" />
           </section>
+          {/* Issue 18: a lot received from another bank shows the giver's tests, read-only. */}
+          <Suspense fallback={null}>
+            <ReceivedCard bankId={bank.id} lotId={lot.id} />
+          </Suspense>
           {/* What came up from the lot's sowings: beside its tests, marked as not a test. */}
           <FieldEmergenceCard bankId={bank.id} lotId={lot.id} on={sowing.on} />
           <DeclineCard
@@ -187,6 +196,17 @@ export function LotPage() {
           </Card>
           <Suspense fallback={<Loading label="Loading the generations" />}>
             <LineageCard bankId={bank.id} lot={lot} />
+          </Suspense>
+          {/* Give part of the lot to another bank. */}
+          <Suspense fallback={null}>
+            <OfferCard
+              bankId={bank.id}
+              lotId={lot.id}
+              lotCode={lot.code}
+              seedsOnHand={lot.seedsOnHand}
+              otherBanks={otherBanks}
+              canEdit={canEdit}
+            />
           </Suspense>
           {canEdit ? (
             <DeleteLotCard

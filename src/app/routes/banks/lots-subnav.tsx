@@ -2,11 +2,12 @@ import { NavLink } from 'react-router-dom';
 import { paths } from '#src/config/paths';
 import { cn } from '#src/lib/cn';
 
-/** Tabs inside the Lots area: the lots themselves and the parent plants they were saved from. */
+/** Tabs inside the Lots area: the lots, the parent plants they were saved from, and seed on offer. */
 export function LotsSubnav({ bankId }: { bankId: string }) {
   const tabs = [
     { label: 'Lots', href: paths.lots.getHref(bankId), end: true },
     { label: 'Parent plants', href: paths.plants.getHref(bankId), end: true },
+    { label: 'On offer', href: paths.offers.getHref(bankId), end: true },
   ];
   return (
     <nav aria-label="Lots area" className="mb-5 border-b border-loam-200">
