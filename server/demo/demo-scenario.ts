@@ -4,7 +4,7 @@
 // Its dates are counted back from the day it is seeded, so it reads as a live season whenever that is.
 import crypto from 'node:crypto';
 import sharp from 'sharp';
-import { addDays } from '#shared/dates';
+import { addDays, DAY_MS } from '#shared/dates';
 import { comingSeason } from '#shared/plan-dates';
 import { bankToday, type Clock } from '../clock';
 import { createMailQueue } from '../mail/mail-queue';
@@ -21,6 +21,9 @@ import { normalCdf } from '../stats/distributions';
 import type { PasswordHasher } from '../auth/password';
 import type { Db } from '../db/database';
 import { DEMO_BANK_NAME, addDemoPeople } from './demo-people';
+// Issue 18, offers between banks.
+import { newLinkToken } from '../auth/tokens';
+import { OFFER_LINK_DAYS } from '../modules/offers/offers.service';
 
 /** mulberry32: a small seeded generator, so the demo is the same on every machine. */
 function generator(seed: number) {
@@ -676,6 +679,42 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
       .invite(bank.id, keeper, { email: 'new-neighbour@example.org', role: 'viewer' })
       .catch(() => undefined);
     await mailQueue.drain();
+  }
+
+  // Issue 18: one open offer the circle sees on its On offer list, made by link by the grower (the
+  // link itself is kept nowhere, so members ask for the lot instead).
+  const offered = await db
+    .selectFrom('lots')
+    .innerJoin('species', 'species.id', 'lots.species_id')
+    .select(['lots.id', 'lots.seeds_on_hand'])
+    .where('lots.bank_id', '=', bank.id)
+    .where('lots.status', '=', 'active')
+    .where('lots.amount_kind', '=', 'counted')
+    .where('lots.seeds_on_hand', '>=', 40)
+    .where('species.bank_id', 'is', null)
+    .where(({ exists, selectFrom }) =>
+      exists(
+        selectFrom('germination_tests')
+          .select('germination_tests.id')
+          .whereRef('germination_tests.lot_id', '=', 'lots.id')
+          .where('germination_tests.status', '=', 'finished'),
+      ),
+    )
+    .orderBy('lots.code')
+    .limit(1)
+    .executeTakeFirst();
+  if (offered) {
+    await db
+      .insertInto('lot_offers')
+      .values({
+        from_bank_id: bank.id,
+        lot_id: offered.id,
+        seeds: Math.floor(offered.seeds_on_hand / 4),
+        token_hash: newLinkToken().hash,
+        expires_at: new Date(deps.clock.now().getTime() + OFFER_LINK_DAYS * DAY_MS),
+        created_by: grower,
+      })
+      .execute();
   }
   return { bankId: bank.id };
 }

@@ -198,6 +198,18 @@ describe('the demo season', () => {
     await waitForMail((m) => m.to.includes('new-neighbour@example.org'));
   });
 
+  // Issue 18, offers between banks.
+  it('when seeded, then the circle sees one lot on offer with its latest test and can ask for it', async () => {
+    const viewer = await signIn(ctx.app, 'viewer@example.org', 'hilum-demo-seeds');
+    const list = await viewer.get('/api/offers');
+    expect(list.status).toBe(200);
+    expect(list.body.items).toHaveLength(1);
+    const [offer] = list.body.items;
+    expect(offer).toMatchObject({ fromBankId: bankId, byLink: true, askedByMe: false });
+    expect(offer.lastPercent).not.toBeNull();
+    expect((await viewer.post(`/api/offers/${offer.id}/requests`).send({})).status).toBe(201);
+  });
+
   it('when seeded twice, then nothing is added the second time', async () => {
     expect(
       await createDemoSeason({ db: ctx.db, clock: ctx.clock, appOrigin: ctx.config.appOrigin }),
