@@ -121,6 +121,11 @@ describe('offers between banks', () => {
     expect(giverAfter.lines).toBe(before.lines + 1);
     expect(giverAfter.rows.filter((r) => r.kind === 'given')).toEqual([{ kind: 'given', change: -60 }]);
     expect(receiverAfter.rows).toEqual([{ kind: 'initial', change: 60 }]);
+    // Both lines are dated the day the offer was accepted (the test clock's 1 March 2026), not the harvest.
+    const stockB = await giver.agent.get(`/api/banks/${bankB}/lots/${lot.id}/stock`);
+    expect(stockB.body.items.map((m: { date: string }) => m.date)).toEqual(['2026-03-01']);
+    const stockA = await giver.agent.get(`/api/banks/${bankA}/lots/${lotId}/stock`);
+    expect(stockA.body.items.find((m: { kind: string }) => m.kind === 'given').date).toBe('2026-03-01');
     // Nothing lost or counted twice: the two ledgers still hold the 100 seeds there were.
     expect(giverAfter.sum + receiverAfter.sum).toBe(before.sum);
 

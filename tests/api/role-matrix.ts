@@ -365,6 +365,24 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     least: 'viewer',
   },
   'GET overview': { method: 'get', path: (f) => `/api/banks/${f.bankId}/overview`, least: 'viewer' },
+  // Issue 18, offers between banks.
+  'GET lot offers': {
+    method: 'get',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/offers`,
+    least: 'viewer',
+  },
+  'POST lot offer': {
+    method: 'post',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/offers`,
+    body: () => ({ seeds: 1 }),
+    least: 'grower',
+    ok: 201,
+  },
+  'GET lot received': {
+    method: 'get',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/received`,
+    least: 'viewer',
+  },
   'POST leave': {
     method: 'post',
     path: (f) => `/api/banks/${f.bankId}/leave`,

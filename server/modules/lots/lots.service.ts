@@ -74,7 +74,7 @@ async function checkHarvestChange(
 }
 
 type Species = Awaited<ReturnType<typeof requireSpecies>>;
-type LotExtra = { status?: LotStatus; quantityEstimated?: boolean; reason?: string };
+type LotExtra = { status?: LotStatus; quantityEstimated?: boolean; reason?: string; movementDate?: string };
 
 /** The amount a new lot's body gives: `amount`, or its short forms seedCount and grams; none is not known. */
 function amountInputOf(body: CreateLotBody, extra: LotExtra): AmountInput {
@@ -283,7 +283,7 @@ export function createLotsService(deps: LotsServiceDeps) {
         ? {
             kind: 'initial' as const,
             change: amount.seeds,
-            date: body.harvestDate ?? today,
+            date: extra.movementDate ?? body.harvestDate ?? today,
             reason: extra.reason ?? `${amount.words} when the lot was logged`,
             created_by: userId,
           }
@@ -544,7 +544,10 @@ export function createLotsService(deps: LotsServiceDeps) {
       return db.transaction().execute(async (trx) => moveStock(trx, bankId, lotId, userId, body));
     },
 
-    /** Writes a new lot inside the caller's transaction (offers between banks); `today` is the bank's. */
+    /**
+     * Writes a new lot inside the caller's transaction (offers between banks); `today` is the bank's,
+     * and the day its first ledger line is dated (the day the seed came, not its harvest).
+     */
     createIn: (
       trx: DbOrTx,
       bankId: string,
@@ -552,7 +555,7 @@ export function createLotsService(deps: LotsServiceDeps) {
       today: string,
       body: CreateLotBody,
       reason: string,
-    ) => insertLot(trx, bankId, userId, today, body, { reason }),
+    ) => insertLot(trx, bankId, userId, today, body, { reason, movementDate: today }),
 
     moveStock,
 
