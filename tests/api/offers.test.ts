@@ -195,6 +195,21 @@ describe('offers between banks', () => {
     }
   });
 
+  it('when two accepts of one offer race, then exactly one goes through and the seeds move once', async () => {
+    const { lotId } = await testedLot('Racing Roma');
+    const made = await offer(giver.agent, lotId, { seeds: 40, toBankId: bankB });
+    const before = await ledger(ctx, lotId);
+    const lotsInB = await lotsOfBank(ctx, bankB);
+    const answers = await Promise.all(
+      [giver, growerOfB].map((p) =>
+        p.agent.post(`/api/offers/${made.body.offer.id}/accept`).send({ bankId: bankB }),
+      ),
+    );
+    expect(answers.map((a) => a.status).sort()).toEqual([201, 409]);
+    expect((await ledger(ctx, lotId)).sum).toBe(before.sum - 40);
+    expect(await lotsOfBank(ctx, bankB)).toBe(lotsInB + 1);
+  });
+
   it('when the giver hides the bank’s name, then the receiver sees only the lot’s code', async () => {
     const { lotId, code } = await testedLot('Golden Wren');
     const made = await offer(giver.agent, lotId, { seeds: 10, toBankId: bankB, showBankName: false });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '#server/demo/demo-people';
-import { signIn } from '../helpers/accounts';
-import { browserSuite, chromiumPath, signInAt } from '../helpers/browser';
+import { PASSWORD, signIn, signUp } from '../helpers/accounts';
+import { browserSuite, chromiumPath, signInAt, signInThroughApi } from '../helpers/browser';
 import { seriousViolations } from '../helpers/journey';
 import { finishedAssay, speciesId } from '../helpers/lots';
 
@@ -73,5 +73,58 @@ describe.skipIf(!chromiumPath)('giving part of a lot to another bank in Chromium
     expect((await api.get(`/api/banks/${suite.bankId}/lots/${lot.id}`)).body.lot.seedsOnHand).toBe(120);
     expect((await api.get(`/api/banks/${secondId}/lots/${newLotId}`)).body.lot.seedsOnHand).toBe(80);
     await page.close();
+  });
+
+  it('when the giver makes a link without the bank’s name, then someone with another Hilum bank opens it and accepts the seed', async () => {
+    const { app, db } = suite.server;
+    const api = await signIn(app, owner.email, DEMO_PASSWORD);
+    const created = await api.post(`/api/banks/${suite.bankId}/lots`).send({
+      speciesId: await speciesId(db, 'tomato'),
+      variety: 'Moth Wing',
+      origin: 'saved',
+      harvestDate: '2025-09-01',
+      seedCount: 150,
+    });
+    const lot = created.body.lot as { id: string; code: string };
+    await finishedAssay(api, suite.bankId, lot.id, '2025-10-01', [{ sown: 50, germinated: 44 }]);
+
+    const page = await suite.browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAt(page, suite.server.baseUrl, owner.email, suite.bankId);
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lot.id}`);
+    const give = page.getByRole('region', { name: 'Give to another bank' });
+    await give.getByLabel('Seeds to give').fill('25');
+    await give.getByLabel('Give to').selectOption({ label: 'Anyone with a Hilum bank, by a link' });
+    await give.getByLabel(/Show this bank’s name/).uncheck();
+    await give.getByRole('button', { name: 'Offer seeds' }).click();
+    await expect.poll(() => give.getByTestId('offer-link').count()).toBe(1);
+    const link = await give.getByTestId('offer-link').innerText();
+    expect(link).toMatch(
+      new RegExp(`^${suite.server.baseUrl}/offers/[0-9a-f-]{36}\\?token=[A-Za-z0-9_-]{43}$`),
+    );
+    await page.close();
+
+    // Someone outside the circle, with a bank of their own (invented), opens the link.
+    const other = await signUp(app, { name: 'Noor Vantage' });
+    await other.agent.post('/api/banks').send({ name: 'Quarry Steps Garden' });
+    const context = await suite.browser.newContext({ viewport: { width: 1280, height: 900 } });
+    await signInThroughApi(context, suite.server.baseUrl, other.email, PASSWORD);
+    const theirs = await context.newPage();
+    await theirs.goto(link);
+    await expect.poll(() => theirs.getByRole('heading', { level: 1 }).innerText()).toBe('Seed on offer');
+    await expect.poll(() => theirs.locator('main').innerText()).toContain('25 seeds of Tomato “Moth Wing”');
+    // 44 of 50 normal seedlings: 88% (by hand).
+    await expect.poll(() => theirs.locator('main').innerText()).toMatch(/88% germinated \(44 of 50 seeds\)/);
+    expect(await theirs.locator('main').innerText()).not.toContain('Larkspur Hollow');
+    await expect.poll(() => theirs.getByRole('note').first().innerText()).toMatch(/phytosanitary/);
+    expect(await seriousViolations(theirs)).toEqual([]);
+    await theirs.getByRole('button', { name: 'Accept the seed' }).click();
+    await theirs.waitForURL(/\/banks\/[0-9a-f-]{36}\/lots\/[0-9a-f-]{36}$/);
+    const history = theirs.getByRole('region', { name: 'History from the giver' });
+    await expect
+      .poll(() => history.innerText())
+      .toContain(`Received 25 seeds from lot ${lot.code} of another Hilum bank.`);
+    await context.close();
+    // 150 − 50 sown in the test − 25 given = 75 left with the giver.
+    expect((await api.get(`/api/banks/${suite.bankId}/lots/${lot.id}`)).body.lot.seedsOnHand).toBe(75);
   });
 });
