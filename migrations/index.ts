@@ -28,6 +28,8 @@ import * as m20261203004726 from './2026_12_03_004726_idempotency_keys';
 import * as m20261203006183 from './2026_12_03_006183_plants_grown_from_lot';
 // Issue 18, offers between banks.
 import * as m20261203006142 from './2026_12_03_006142_lot_offers';
+// issue 18, packet pages
+import * as m20261203006483 from './2026_12_03_006483_packet_pages';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_000000_accounts_and_banks': m20261201000000,
@@ -57,4 +59,6 @@ export const migrations: Record<string, Migration> = {
   '2026_12_03_006183_plants_grown_from_lot': m20261203006183,
   // Issue 18, offers between banks.
   '2026_12_03_006142_lot_offers': m20261203006142,
+  // issue 18, packet pages
+  '2026_12_03_006483_packet_pages': m20261203006483,
 };

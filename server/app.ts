@@ -58,6 +58,14 @@ import { openApiRoutes } from './openapi/openapi.router';
 // Issue 18, offers between banks.
 import { lotOfferRoutes, offersRouter, receivedRoutes } from './modules/offers/offers.router';
 import { createOffersService } from './modules/offers/offers.service';
+// issue 18, packet pages
+import {
+  PACKET_FONT_PATH,
+  packetAssetRoutes,
+  packetPageRoutes,
+  publicPacketRoutes,
+} from './modules/packet/packet.router';
+import { createPacketService } from './modules/packet/packet.service';
 import type { ObjectStore } from './storage/object-store';
 
 export interface AppDeps {
@@ -158,6 +166,13 @@ export function createApp(deps: AppDeps): Express {
     lots: services.lots,
     viability: services.viability,
   });
+  // issue 18, packet pages
+  const packet = createPacketService({
+    db: deps.db,
+    viability: services.viability,
+    secret: config.sessionSecret,
+    appOrigin: config.appOrigin,
+  });
   const secureCookies = config.appOrigin.startsWith('https:');
   const limits = authRateLimits(createRateLimiter({ db: deps.db, clock: deps.clock, logger }), {
     signUpLimit: deps.signUpLimit,
@@ -184,10 +199,11 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/lots/:lotId/tests', lotAssayRoutes(services.germination));
   bank.use(
     '/lots/:lotId/label.svg',
-    labelRoutes(createLabelsService({ db: deps.db, appOrigin: config.appOrigin })),
+    labelRoutes(createLabelsService({ db: deps.db, appOrigin: config.appOrigin, packetUrl: packet.url })),
   );
   bank.use('/lots/:lotId/offers', lotOfferRoutes(offers));
   bank.use('/lots/:lotId/received', receivedRoutes(offers));
+  bank.use('/lots/:lotId/packet-page', packetPageRoutes(packet));
   const viability = viabilityRoutes(services.viability);
   bank.use('/lots/:lotId', viability.lot);
   bank.use('/ranking', viability.ranking);
@@ -211,6 +227,10 @@ export function createApp(deps: AppDeps): Express {
   api.use('/banks/:bankId', bankAccess(deps.db), bank);
   api.use(notFoundApi);
   app.use('/api', api);
+
+  // issue 18, packet pages: the public page and its font files, outside /api and the app's shell.
+  app.use('/p', publicPacketRoutes(packet));
+  app.use(PACKET_FONT_PATH, packetAssetRoutes());
 
   if (config.env !== 'production') app.use('/dev', devRouter(config.outboxDir));
 

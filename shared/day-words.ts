@@ -12,3 +12,11 @@ export function dayInWords(iso: string): string {
   if (!y || !month || !d) return iso;
   return `${d} ${month} ${y}`;
 }
+
+/** "Feb 2026" for "2026-02-14": the month and year a seed test is dated by on a packet. */
+export function monthInWords(iso: string): string {
+  const [y, m] = iso.slice(0, 7).split('-').map(Number);
+  const month = m ? MONTHS[m - 1] : undefined;
+  if (!y || !month) return iso;
+  return `${month} ${y}`;
+}

@@ -61,3 +61,27 @@ export function newLinkToken(): { token: string; hash: string } {
 export function hashLinkToken(token: string): string {
   return crypto.createHash('sha256').update(token).digest('hex');
 }
+
+/** A keyed link token as keyedLinkTokens makes it: 32 bytes of HMAC-SHA256 in base64url. */
+const KEYED_TOKEN = /^[A-Za-z0-9_-]{43}$/;
+
+/**
+ * Tokens for a cookie-free link that can be shown again (a calendar feed, a lot's packet page):
+ * the token is an HMAC, under the server's secret, of a stored random nonce, and only the token's
+ * hash is stored to find the link by. The database alone does not give a token away; drawing a
+ * new nonce retires the old token. `purpose` keeps one kind of link's tokens from opening another.
+ */
+export function keyedLinkTokens(secret: string, purpose: string) {
+  const tokenOf = (nonce: string) =>
+    crypto.createHmac('sha256', secret).update(`${purpose}:${nonce}`).digest('base64url');
+  return {
+    tokenOf,
+    /** A new nonce and the hash of the token it gives, to store. */
+    fresh(): { nonce: string; token_hash: string } {
+      const nonce = crypto.randomBytes(32).toString('base64url');
+      return { nonce, token_hash: hashLinkToken(tokenOf(nonce)) };
+    },
+    /** The stored hash to look a token up by, or null for text that is no such token at all. */
+    hashOf: (token: string): string | null => (KEYED_TOKEN.test(token) ? hashLinkToken(token) : null),
+  };
+}

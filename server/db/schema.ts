@@ -503,6 +503,16 @@ export interface ReceivedTestTable {
   result_last_count_date: string | null;
 }
 
+// issue 18, packet pages
+/** A lot's public packet page: the token's hash to find it by, and the nonce its token is made from. */
+export interface PacketPageTable {
+  lot_id: string;
+  bank_id: string;
+  nonce: string;
+  token_hash: string;
+  created_at: ColumnType<Date, Date | undefined, Date>;
+}
+
 export interface Database {
   users: UserTable;
   sessions: SessionTable;
@@ -539,6 +549,8 @@ export interface Database {
   lot_offers: LotOfferTable;
   offer_requests: OfferRequestTable;
   received_tests: ReceivedTestTable;
+  // issue 18, packet pages
+  packet_pages: PacketPageTable;
 }
 
 export type User = Selectable<UserTable>;

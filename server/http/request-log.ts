@@ -14,8 +14,11 @@ const SECRET_HEADERS = new Set(['cookie', 'set-cookie', 'authorization', 'proxy-
 /** Headers that carry an address of this app, with whatever query it had. */
 const URL_HEADERS = new Set(['referer', 'location']);
 
-/** Paths (or whole addresses, as in a Referer) that carry a secret in a segment: a calendar feed's token (`/api/calendar/<token>.ics`). */
-const SECRET_PATH = /^((?:[a-z][a-z\d+.-]*:\/\/[^/?#]*)?\/api\/calendar\/)[^/?#]+?(\.ics)?(?=[/?#]|$)/i;
+/**
+ * Paths (or whole addresses, as in a Referer) that carry a secret in a segment: a calendar feed's
+ * token (`/api/calendar/<token>.ics`) and a packet page's (`/p/<token>`).
+ */
+const SECRET_PATH = /^((?:[a-z][a-z\d+.-]*:\/\/[^/?#]*)?\/(?:api\/calendar|p)\/)[^/?#]+?(\.ics)?(?=[/?#]|$)/i;
 
 /** The URL as logged: a secret path segment and every secret query parameter's value replaced, the rest as it came. */
 export function redactUrl(logged: string): string {

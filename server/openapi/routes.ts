@@ -23,6 +23,13 @@ import {
   updateMemberBodySchema,
 } from '#shared/schemas/banks';
 import { calendarFeedSchema } from '#shared/schemas/calendar';
+// issue 18, packet pages
+import {
+  labelQuerySchema,
+  packetPageBodySchema,
+  packetPageSchema,
+  packetPageStateSchema,
+} from '#shared/schemas/packet';
 import { csvImportQuerySchema, errorResponseSchema, onQuerySchema } from '#shared/schemas/common';
 import {
   assayDetailQuerySchema,
@@ -660,9 +667,37 @@ export const apiRoutes: ApiRoute[] = [
   {
     method: 'get',
     path: `${BANK}/lots/:lotId/label.svg`,
-    summary: 'The lot’s packet label with a QR code.',
+    summary:
+      'The lot’s packet label with a QR code: it opens the lot’s public packet page while that is on, else the lot in the app. `for=giving` draws a packet for giving seed away, with the germination and the month and year of its test.',
     access: 'viewer',
+    query: labelQuerySchema,
     responses: [file('image/svg+xml', 'The label.')],
+  },
+  // issue 18, packet pages
+  {
+    method: 'get',
+    path: `${BANK}/lots/:lotId/packet-page`,
+    summary: 'Whether the lot’s public packet page is on, and its address (`url`, null when off).',
+    access: 'viewer',
+    responses: [ok(packetPageStateSchema)],
+  },
+  {
+    method: 'post',
+    path: `${BANK}/lots/:lotId/packet-page`,
+    summary:
+      'Turns the lot’s public packet page on, with a new long random address; an address made before then answers 404. ' +
+      'The page itself is `GET /p/:token` (outside /api, HTML, no sign-in, noindex): species, variety, harvest year, the latest test’s germination with its month and year, sowing advice and cautions — no notes, member names, stock, lot code or ids. ' +
+      'It answers 404 once the page is turned off or re-issued. No body, or an empty JSON object.',
+    access: 'grower',
+    body: packetPageBodySchema,
+    responses: [created(packetPageSchema)],
+  },
+  {
+    method: 'delete',
+    path: `${BANK}/lots/:lotId/packet-page`,
+    summary: 'Turns the lot’s public packet page off: its address answers 404. Already off is no error.',
+    access: 'grower',
+    responses: [noContent()],
   },
   {
     method: 'get',

@@ -1,8 +1,8 @@
-import jsQR from 'jsqr';
 import sharp from 'sharp';
 import request, { type Agent } from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bankWithRoles } from '../helpers/accounts';
+import { labelTexts as textsOf, readLabelQr as readQr } from '../helpers/label-reading';
 import { createTestContext, type TestContext } from '../helpers/context';
 import { finishedAssay, speciesId } from '../helpers/lots';
 
@@ -14,31 +14,6 @@ async function getLabel(agent: Agent | ReturnType<typeof request>, path: string)
     headers: res.headers,
     body: Buffer.isBuffer(res.body) ? res.body.toString('utf8') : '',
   };
-}
-
-/** Renders with librsvg through sharp (which refuses XML that is not well-formed) and reads the QR with jsQR (npm). */
-async function readQr(svg: string): Promise<string | null> {
-  // At density 125 this sharp build draws the 70 mm label about 600 px wide.
-  const { data, info } = await sharp(Buffer.from(svg), { density: 125 })
-    .ensureAlpha()
-    .raw()
-    .toBuffer({ resolveWithObject: true });
-  return (
-    jsQR(new Uint8ClampedArray(data.buffer, data.byteOffset, data.length), info.width, info.height)?.data ??
-    null
-  );
-}
-
-/** Character data of the label's <text> elements, the five XML entities decoded. */
-function textsOf(svg: string): string {
-  const decode = (s: string) =>
-    s.replace(
-      /&(amp|lt|gt|quot|apos);/g,
-      (_m, e: string) => ({ amp: '&', lt: '<', gt: '>', quot: '"', apos: "'" })[e]!,
-    );
-  return [...svg.matchAll(/<text\b[^>]*>([\s\S]*?)<\/text>/g)]
-    .map((m) => decode(m[1]!.replace(/<[^>]+>/g, '')))
-    .join('\n');
 }
 
 describe('packet labels', () => {

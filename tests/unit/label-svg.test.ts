@@ -47,6 +47,19 @@ const base: LabelContent = {
   url: 'http://127.0.0.1:3000/banks/0f8e3d0c-6a55-4c59-9d39-1f2c0b3a4e51/lots/6c1f2a9e-2b7d-4a41-8b8e-3c5d7f9a0b12',
 };
 
+/** Each <text>'s width as set: its squeezed length, else its text measured at its size and weight. */
+function lineWidths(svg: string): { width: number; inner: string }[] {
+  return [...svg.matchAll(/<text\b([^>]*)>([\s\S]*?)<\/text>/g)].map(([, attrs, inner]) => {
+    const size = Number(/font-size="([\d.]+)"/.exec(attrs!)![1]);
+    const weight = attrs!.includes('font-weight="700"') ? 700 : 400;
+    const squeeze = /textLength="([\d.]+)"/.exec(attrs!);
+    const width = squeeze
+      ? Number(squeeze[1])
+      : textWidth(textsOf(`<text>${inner}</text>`)[0]!, size, weight);
+    return { width, inner: inner! };
+  });
+}
+
 describe('escapeXml', () => {
   it("when text holds XML's five special characters, then each becomes its predefined entity (XML 1.0 §4.6)", () => {
     expect(escapeXml(`a & b < c > d "e" 'f'`)).toBe('a &amp; b &lt; c &gt; d &quot;e&quot; &apos;f&apos;');
@@ -120,20 +133,45 @@ describe('nothing runs off a label', () => {
       harvestDate: '2025-09-28',
       lastAssay: { percent: 100, estimated: true, startDate: '2026-12-28', running: true },
     });
-    const elements = [...texts.matchAll(/<text\b([^>]*)>([\s\S]*?)<\/text>/g)];
-    expect(elements.length).toBeGreaterThanOrEqual(5);
-    for (const [, attrs, inner] of elements) {
-      const size = Number(/font-size="([\d.]+)"/.exec(attrs!)![1]);
-      const weight = attrs!.includes('font-weight="700"') ? 700 : 400;
-      const squeeze = /textLength="([\d.]+)"/.exec(attrs!);
+    const lines = lineWidths(texts);
+    expect(lines.length).toBeGreaterThanOrEqual(5);
+    for (const { width, inner } of lines) {
       // The text area is 38 mm wide (70 mm label, QR code and margins: label-svg.ts's layout).
-      const width = squeeze
-        ? Number(squeeze[1])
-        : textWidth(textsOf(`<text>${inner}</text>`)[0]!, size, weight);
       expect(width).toBeLessThanOrEqual(38 + 1e-9);
       expect(inner).not.toMatch(/\d{4}-\d{2}-\d{2}/);
     }
     expect(textsOf(texts).join('\n')).toContain('28 Dec 2026');
+  });
+});
+
+// issue 18, packet pages
+describe('a packet for giving seed away', () => {
+  it('when drawn for giving, then it carries the germination and the month and year of its test (seed-law packet facts)', () => {
+    // The facts seed-law labels put on packets: germination and the test's month and year (US
+    // Federal Seed Act rules, 7 CFR 201 [memory]; the same pair this issue names).
+    const texts = textsOf(renderLabelSvg({ ...base, giving: true }));
+    expect(texts).toContain('germination 82%, tested Feb 2026');
+    const running = textsOf(
+      renderLabelSvg({
+        ...base,
+        giving: true,
+        lastAssay: { percent: 45, startDate: '2026-02-20', running: true },
+      }),
+    );
+    expect(running).toContain('germination 45% so far, Feb 2026');
+  });
+
+  it('when every field of a giving packet is as long as it can be, then each line still fits the 38 mm text area', () => {
+    const svg = renderLabelSvg({
+      ...base,
+      giving: true,
+      code: 'WWW-2025-MMMM-0999',
+      speciesName: 'Mammoth-flowered wallflower and wild mignonette mixture',
+      variety: 'W'.repeat(40),
+      lastAssay: { percent: 100, estimated: true, startDate: '2026-12-28', running: true },
+    });
+    for (const { width } of lineWidths(svg)) expect(width).toBeLessThanOrEqual(38 + 1e-9);
+    expect(textsOf(svg).join('\n')).toContain('Dec 2026');
   });
 });
 

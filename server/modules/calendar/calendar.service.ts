@@ -1,7 +1,6 @@
-import crypto from 'node:crypto';
 import { addDays } from '#shared/dates';
 import { comingSeason } from '#shared/plan-dates';
-import { hashLinkToken } from '#server/auth/tokens';
+import { keyedLinkTokens } from '#server/auth/tokens';
 import { bankToday, type Clock } from '#server/clock';
 import type { Db } from '#server/db/database';
 import { notFound } from '#server/http/errors';
@@ -11,9 +10,6 @@ import { checkDays } from '../reminders/reminders.service';
 import { listSpecies } from '../species/species.shared.repository';
 import * as repo from './calendar.repository';
 import { dayInWords } from '#shared/day-words';
-
-/** A feed token as this service makes it: 32 bytes of HMAC-SHA256 in base64url. */
-const TOKEN = /^[A-Za-z0-9_-]{43}$/;
 
 export interface CalendarDeps {
   db: Db;
@@ -32,13 +28,8 @@ export interface CalendarDeps {
  * does not give it away. A rotation draws a new nonce, and the old address then answers 404.
  */
 export function createCalendarService({ db, clock, plan, secret, appOrigin }: CalendarDeps) {
-  const tokenOf = (nonce: string) =>
-    crypto.createHmac('sha256', secret).update(`hilum calendar feed:${nonce}`).digest('base64url');
+  const { tokenOf, fresh, hashOf } = keyedLinkTokens(secret, 'hilum calendar feed');
   const urlOf = (token: string) => `${appOrigin}/api/calendar/${token}.ics`;
-  const fresh = () => {
-    const nonce = crypto.randomBytes(32).toString('base64url');
-    return { nonce, token_hash: hashLinkToken(tokenOf(nonce)) };
-  };
 
   /** The check days of the bank's running germination tests, one event each. */
   async function checkDayEvents(bankId: string): Promise<ExtraEvent[]> {
@@ -82,8 +73,9 @@ export function createCalendarService({ db, clock, plan, secret, appOrigin }: Ca
     /** The feed a token opens, as iCalendar text; 404 for a token unknown, rotated away or of a former member. */
     async feed(token: string): Promise<string> {
       const gone = () => notFound('No such calendar feed.');
-      if (!TOKEN.test(token)) throw gone();
-      const feed = await repo.feedByHash(db, hashLinkToken(token));
+      const hash = hashOf(token);
+      if (!hash) throw gone();
+      const feed = await repo.feedByHash(db, hash);
       if (!feed) throw gone();
       const season = comingSeason(await bankToday(db, clock, feed.bank_id));
       return plan.calendar(feed.bank_id, season, await checkDayEvents(feed.bank_id));

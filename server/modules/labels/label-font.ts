@@ -1,5 +1,5 @@
 import fs from 'node:fs';
-import { createRequire } from 'node:module';
+import { sourceSansFile } from '#server/http/font-files';
 
 let cached: string | undefined;
 
@@ -10,13 +10,11 @@ let cached: string | undefined;
  */
 export function labelFontCss(): string {
   if (cached !== undefined) return cached;
-  const require = createRequire(import.meta.url);
   try {
     cached = ([400, 700] as const)
       .map((weight) => {
-        const file = require.resolve(
-          `@fontsource/source-sans-3/files/source-sans-3-latin-${weight}-normal.woff2`,
-        );
+        const file = sourceSansFile(weight);
+        if (!file) throw new Error('no font file');
         const data = fs.readFileSync(file).toString('base64');
         return `@font-face{font-family:'Source Sans 3';font-style:normal;font-weight:${weight};src:url(data:font/woff2;base64,${data}) format('woff2')}`;
       })

@@ -1,5 +1,5 @@
 import QRCode from 'qrcode';
-import { dayInWords } from '#shared/day-words';
+import { dayInWords, monthInWords } from '#shared/day-words';
 import { textWidth, type Weight } from './text-width';
 
 /** What one packet label shows. Dates are ISO `YYYY-MM-DD`; the label prints them in words. */
@@ -12,8 +12,14 @@ export interface LabelContent {
   packedForSeason: number | null;
   /** The lot's latest counted test, its pooled germination as a whole percent. */
   lastAssay: { percent: number; estimated?: boolean; startDate: string; running: boolean } | null;
-  /** The lot page the QR code opens. */
+  /** The lot page the QR code opens, or the lot's public packet page while it is on. */
   url: string;
+  /**
+   * A packet for giving seed away carries what seed-law labels put on packets: the germination and
+   * the month and year of its test (US Federal Seed Act rules, 7 CFR 201 [memory]); the bank's own
+   * shelf label gives the test's day.
+   */
+  giving?: boolean;
 }
 
 /** The label's size in millimetres; the viewBox uses millimetres too. */
@@ -137,17 +143,30 @@ function harvestWords(content: LabelContent): string | null {
   return null;
 }
 
+/** The giving packet's words around the figure: germination, then the test's month and year. */
+function givingWords(running: boolean, month: string): [string, string] {
+  return running ? ['germination ', ` so far, ${month}`] : ['germination ', `, tested ${month}`];
+}
+
 function assayLine(content: LabelContent, size: number): { line: FittedLine; markup: string } {
   const assay = content.lastAssay;
   if (!assay) return { line: fitLine('not tested yet', size, 400, TEXT_WIDTH), markup: 'not tested yet' };
-  const day = dayInWords(assay.startDate);
-  let [before, after] = assay.running ? [`test from ${day}: `, ' so far'] : ['last test: ', ` on ${day}`];
+  const day = content.giving ? monthInWords(assay.startDate) : dayInWords(assay.startDate);
+  let [before, after] = content.giving
+    ? givingWords(assay.running, day)
+    : assay.running
+      ? [`test from ${day}: `, ' so far']
+      : ['last test: ', ` on ${day}`];
   // Seeds sown estimated (by weight or guess): the packet says "about", as every screen does.
   const percent = `${assay.estimated ? 'about ' : ''}${assay.percent}%`;
   const measure = () => textWidth(before, size) + textWidth(percent, size, 700) + textWidth(after, size);
   // Too long to squeeze legibly: the shorter wording keeps the figure and its date whole.
   if (measure() * MIN_SQUEEZE > TEXT_WIDTH)
-    [before, after] = assay.running ? [`${day}: `, ' so far'] : ['', ` on ${day}`];
+    [before, after] = content.giving
+      ? ['', assay.running ? ` so far, ${day}` : `, tested ${day}`]
+      : assay.running
+        ? [`${day}: `, ' so far']
+        : ['', ` on ${day}`];
   const width = measure();
   const line: FittedLine = {
     text: `${before}${percent}${after}`,

@@ -1,5 +1,7 @@
 import { Router } from 'express';
 import { requireRole } from '#server/auth/bank-access';
+import { labelQuerySchema } from '#shared/schemas/packet';
+import { parse } from '#server/http/errors';
 import { idParam } from '#server/http/params';
 import type { LabelsService } from './labels.service';
 import { bankOf } from '#server/http/request-context';
@@ -14,7 +16,9 @@ const LABEL_CSP = "default-src 'none'; style-src 'unsafe-inline'; font-src data:
 export function labelRoutes(labels: LabelsService): Router {
   const router = Router({ mergeParams: true });
   router.get('/', requireRole('viewer'), async (req, res) => {
-    const { code, svg } = await labels.lotLabelSvg(bankOf(req).id, idParam(req.params.lotId, 'lot'));
+    const lotId = idParam(req.params.lotId, 'lot');
+    const query = parse(labelQuerySchema, req.query, 'query');
+    const { code, svg } = await labels.lotLabelSvg(bankOf(req).id, lotId, query.for === 'giving');
     const filename = `hilum-label-${code.replace(/[^A-Za-z0-9._-]+/g, '_')}.svg`;
     res.setHeader('Content-Type', 'image/svg+xml; charset=utf-8');
     res.setHeader('Content-Disposition', `inline; filename="${filename}"`);

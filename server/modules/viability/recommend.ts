@@ -137,8 +137,11 @@ function bound(v: number, lines: number[]): string {
   return `${(v < line ? Math.floor(v * 10 + 1e-9) : Math.ceil(v * 10 - 1e-9)) / 10}%`;
 }
 
+/** The band's low end is under the threshold: sow more seeds per plant wanted (step 6, and a thin grow-out). */
+export const sowsThick = (band: Band, threshold: number) => band.low < threshold;
+
 /** Seeds to sow for each plant wanted: 1 ÷ (germination × establishment), in words. */
-function perPlantWords(percent: number, establishment: number): string {
+export function perPlantWords(percent: number, establishment: number): string {
   const share = (percent / 100) * establishment;
   if (!(share > 0))
     return 'Too few are expected to come up to count seeds per plant: sow it as thickly as you can spare.';
@@ -247,7 +250,7 @@ export function decide(input: DecisionInput): Decision {
     next.percent * 100 < REGENERATE_BELOW_PERCENT_OF_INITIAL * initial;
   const short =
     input.seedsNeeded !== null && input.seedsOnHand !== null && input.seedsOnHand < input.seedsNeeded;
-  const thin = basis.low < threshold;
+  const thin = sowsThick(basis, threshold);
   if ((fading || short) && !input.youngerLotOfVariety) {
     const why: string[] = [];
     if (fading) {

@@ -23,7 +23,15 @@ import { emergenceOfSpecies, type EmergenceRow } from '../plan/plan.shared.repos
 import { fieldEmergence, type FieldEmergencePoint } from './field-emergence';
 import * as repo from './viability.repository';
 import { assayAggregates, viabilityStamps, type AssayAggregate } from './viability.repository';
-import { decide, retestDueDate, straddles, type Recommendation } from './recommend';
+import {
+  decide,
+  FIRST_ASSAY_SEEDS,
+  perPlantWords,
+  retestDueDate,
+  sowsThick,
+  straddles,
+  type Recommendation,
+} from './recommend';
 
 /**
  * When the seed was harvested, as the model's age zero. A bought packet "packed for" season S was
@@ -675,6 +683,43 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
               return { ageYears: age, ...projectModel(v.model!, age * v.rateFactor) };
             })
           : [],
+      };
+    },
+
+    // issue 18, packet pages
+    /**
+     * What a lot's public packet page says of its germination (server/modules/packet): the latest
+     * usable test (set-aside tests left out, as in the ranking) and the projection for `on` from the
+     * same fit the lot page shows, with how thickly to sow by the same rule as the advice. Nothing
+     * of the bank's stock, plan or other lots: the decision's own reason speaks of those, so it
+     * stays on the lot page.
+     */
+    async packetFigures(bankId: string, lotId: string, on: string) {
+      const v = await lotViability(bankId, lotId);
+      const projected = v.model ? projectOn(v, on) : null;
+      const threshold = thresholdFor(v.settings.threshold)(v.species);
+      const last = v.lastAssay && v.lastAssay.percent !== null ? v.lastAssay : null;
+      return {
+        lastTest: last
+          ? {
+              date: last.start_date,
+              percent: last.percent!,
+              estimated: (last.sown_sd ?? 0) > 0,
+              running: last.status === 'running',
+            }
+          : null,
+        projected,
+        /** The projection is the species' typical figure, not a test of this lot. */
+        estimateOnly: v.model?.estimateOnly ?? true,
+        threshold,
+        thresholdIsStandard: v.species?.traits.minGerminationPercent != null,
+        /** Seeds per plant wanted, in words, when the band's low end is under the threshold. */
+        sowThick:
+          projected && !(v.model?.estimateOnly ?? true) && sowsThick(projected, threshold)
+            ? perPlantWords(projected.percent, v.settings.establishment)
+            : null,
+        /** Seeds in a first test at home, for a lot without a figure of its own. */
+        firstTestSeeds: FIRST_ASSAY_SEEDS,
       };
     },
 

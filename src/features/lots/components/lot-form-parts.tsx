@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import type { UseFormRegisterReturn } from 'react-hook-form';
 import type { ParentPlantDto } from '#shared/schemas/lots';
+import { SWAP_ACROSS_BORDERS, TREATED_SEED } from '#shared/cautions';
 import { Caution } from '#src/components/ui/caution';
 import { FieldError } from '#src/components/ui/field';
 import { cn } from '#src/lib/cn';
@@ -23,9 +24,8 @@ export function friendlyNumberError(issue: { code?: string; expected?: unknown; 
 
 export function SwapCaution({ foldOnPhone }: { foldOnPhone?: boolean }) {
   return (
-    <Caution title="Swapping across regions or borders" foldOnPhone={foldOnPhone}>
-      Rules on noxious weeds and on bringing seed in vary between countries, states and regions. Check your
-      local regulations (or ask your extension service) before sending or receiving seed.
+    <Caution title={SWAP_ACROSS_BORDERS.title} foldOnPhone={foldOnPhone}>
+      {SWAP_ACROSS_BORDERS.text}
     </Caution>
   );
 }
@@ -33,14 +33,8 @@ export function SwapCaution({ foldOnPhone }: { foldOnPhone?: boolean }) {
 /** Seed sold coated with a fungicide or another treatment: how to handle it safely. */
 export function TreatedCaution({ foldOnPhone }: { foldOnPhone?: boolean }) {
   return (
-    <Caution title="Treated seed: handle with care" foldOnPhone={foldOnPhone}>
-      <p>
-        The coating is usually a fungicide, and it stays on the seed. Wear gloves when you handle or sow it,
-        and wash your hands afterwards. Keep the packet away from children, pets and food. Never eat the seed,
-        feed it to animals or grow it for sprouts or microgreens. Get rid of leftover treated seed the way
-        your local rules say (not in the compost, nor where birds and animals can reach it), and follow what
-        the packet says.
-      </p>
+    <Caution title={TREATED_SEED.title} foldOnPhone={foldOnPhone}>
+      <p>{TREATED_SEED.text}</p>
     </Caution>
   );
 }

@@ -1,17 +1,9 @@
 import type { SpeciesTraits, TraitName } from '#shared/schemas/species';
 import { CELLS_PER_TRAY } from '#shared/species-space';
+import { LIGHT_WORDS, START_WORDS } from '#shared/sowing-words';
 
-const lightWords: Record<NonNullable<SpeciesTraits['light']>, string> = {
-  light: 'Needs light: press onto the surface, do not cover',
-  cover: 'Needs dark: cover the seed',
-  'light-cover': 'Light or a thin cover',
-  either: 'Germinates in light or dark',
-};
-const startWords: Record<SpeciesTraits['startMethod'], string> = {
-  indoor: 'Start indoors',
-  direct: 'Sow directly outside',
-  either: 'Indoors or directly outside',
-};
+const lightWords = LIGHT_WORDS;
+const startWords = START_WORDS;
 const outcrossWords: Record<NonNullable<SpeciesTraits['outcrossing']>, string> = {
   self: 'Mostly self-pollinating',
   cross: 'Cross-pollinating: isolate or bulk many plants',
