@@ -62,6 +62,7 @@ import { createOffersService } from './modules/offers/offers.service';
 import {
   PACKET_FONT_PATH,
   packetAssetRoutes,
+  packetLookupRoutes,
   packetPageRoutes,
   publicPacketRoutes,
 } from './modules/packet/packet.router';
@@ -190,6 +191,8 @@ export function createApp(deps: AppDeps): Express {
   api.use('/offers', offersRouter(offers));
   api.use('/banks', requireAuth, createBankRouter(services.banks));
   api.use('/photos', photoFileRoutes(services.photos));
+  // issue 18, packet pages: the app's scanner finds the lot behind a packet page's QR code.
+  api.use('/packet-pages', requireAuth, packetLookupRoutes(packet));
   // Every route of one bank sits behind bankAccess, which resolves the caller's role once.
   const bank = express.Router({ mergeParams: true });
   bank.use('/species', speciesRoutes(services.species));

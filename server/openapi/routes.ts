@@ -26,6 +26,7 @@ import { calendarFeedSchema } from '#shared/schemas/calendar';
 // issue 18, packet pages
 import {
   labelQuerySchema,
+  packetLotSchema,
   packetPageBodySchema,
   packetPageSchema,
   packetPageStateSchema,
@@ -698,6 +699,17 @@ export const apiRoutes: ApiRoute[] = [
     summary: 'Turns the lot’s public packet page off: its address answers 404. Already off is no error.',
     access: 'grower',
     responses: [noContent()],
+  },
+  {
+    method: 'get',
+    path: '/api/packet-pages/:token',
+    summary:
+      'The lot a packet page address opens (its token), for a signed-in member of the lot’s bank: the app’s scanner opens the lot from a label whose QR code holds the packet page. 404 for anyone else, and once the page is off or re-issued.',
+    access: 'signed-in',
+    responses: [
+      ok(packetLotSchema),
+      { status: 404, description: 'No such page, or not a member.', json: errorResponseSchema },
+    ],
   },
   {
     method: 'get',

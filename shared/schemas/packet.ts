@@ -16,3 +16,6 @@ export const labelQuerySchema = z.object({
   for: z.enum(['shelf', 'giving'], { message: 'Use shelf or giving.' }).default('shelf'),
 });
 export type LabelPurpose = z.infer<typeof labelQuerySchema>['for'];
+
+/** The lot a packet page opens, for a member of its bank (the scanner opens the lot instead). */
+export const packetLotSchema = z.object({ bankId: z.string(), lotId: z.string() });

@@ -38,10 +38,12 @@ export const paths = {
   labels: {
     path: 'labels',
     /** The printable sheet of packet labels for the given lots (ids joined by commas). */
-    getHref: (bankId: string, lotIds: readonly string[] = [], paper?: 'a4' | 'letter') => {
+    getHref: (bankId: string, lotIds: readonly string[] = [], paper?: 'a4' | 'letter', giving = false) => {
       const query = [
         lotIds.length ? `lots=${lotIds.map(encodeURIComponent).join(',')}` : '',
         paper ? `paper=${paper}` : '',
+        // issue 18: packets for giving seed away.
+        giving ? 'for=giving' : '',
       ].filter(Boolean);
       return bankHref(bankId, `labels${query.length ? `?${query.join('&')}` : ''}`);
     },

@@ -82,7 +82,10 @@ export const bankPaths = {
       on,
     })}`,
   /** One packet label, 70 × 35 mm, as SVG; the browser loads it as an image (the session cookie goes along). */
-  lotLabel: (bankId: string, lotId: string) => `${lot(bankId, lotId)}/label.svg`,
+  lotLabel: (bankId: string, lotId: string, giving = false) =>
+    `${lot(bankId, lotId)}/label.svg${giving ? '?for=giving' : ''}`,
+  /** The lot's public packet page: whether it is on (GET), on with a new address (POST), off (DELETE). */
+  lotPacketPage: (bankId: string, lotId: string) => `${lot(bankId, lotId)}/packet-page`,
   lotsCsv: (bankId: string) => `${bank(bankId)}/lots.csv`,
   lotsImport: (bankId: string, preview: boolean) => `${bank(bankId)}/lots/import${dryRun(preview)}`,
   ranking: (bankId: string, on: string) => `${bank(bankId)}/ranking?${new URLSearchParams({ on })}`,
@@ -155,6 +158,7 @@ export const bankKeys = {
   lotViabilities: (bankId: string, lotId: string) => [...bankKeys.lot(bankId, lotId), 'viability'] as const,
   lotViability: (bankId: string, lotId: string, on: string) =>
     [...bankKeys.lotViabilities(bankId, lotId), { on }] as const,
+  lotPacketPage: (bankId: string, lotId: string) => [...bankKeys.lot(bankId, lotId), 'packet-page'] as const,
   lotSeedsToSowAll: (bankId: string, lotId: string) =>
     [...bankKeys.lot(bankId, lotId), 'seeds-to-sow'] as const,
   lotSeedsToSow: (bankId: string, lotId: string, query: SeedsToSowQuery) =>

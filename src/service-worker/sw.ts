@@ -106,7 +106,7 @@ self.addEventListener('fetch', (event) => {
   if (url.origin !== self.location.origin) return;
 
   if (request.mode === 'navigate') {
-    if (/^\/(api|dev)\//.test(url.pathname)) return;
+    if (/^\/(api|dev|p)\//.test(url.pathname)) return;
     // The network's index.html when it answers soon (a new release is picked up at once), else the
     // kept shell, which routes to the page itself.
     event.respondWith(

@@ -162,6 +162,18 @@ describe('the public packet page', () => {
       expect(html, secret).not.toContain(secret);
   });
 
+  it('when a member scans a label holding the packet page, then the app finds the lot; anyone else gets 404', async () => {
+    const token = firstUrl.split('/p/')[1]!;
+    const found = await bank.viewer.agent.get(`/api/packet-pages/${token}`);
+    expect(found.status).toBe(200);
+    expect(found.body).toEqual({ bankId: bank.bankId, lotId: lot.id });
+    expect((await bank.outsider.agent.get(`/api/packet-pages/${token}`)).status).toBe(404);
+    expect((await request(ctx.app).get(`/api/packet-pages/${token}`)).status).toBe(401);
+    const bad = await bank.viewer.agent.get('/api/packet-pages/not-a-token');
+    expect(bad.status).toBe(404);
+    expect(bad.body.error.code).toBe('not_found');
+  });
+
   it('when the page is on, then the lot’s label QR opens it; the giving packet has germination and test month', async () => {
     const svg = (await bank.viewer.agent.get(labelPath).buffer(true)).body.toString('utf8');
     expect(await readLabelQr(svg)).toBe(firstUrl);

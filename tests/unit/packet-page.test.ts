@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { monthInWords } from '#shared/day-words';
 import { renderPacketGone, renderPacketPage } from '#server/modules/packet/packet-html';
 import type { PacketContent } from '#server/modules/packet/packet.service';
+import { lotPathFromCode, packetTokenFromCode } from '#src/features/scan/lot-link';
 
 // Invented content; the page is checked as a browser would read it.
 const base: PacketContent = {
@@ -55,5 +56,29 @@ describe('the packet page as HTML', () => {
     const html = renderPacketGone();
     expect(html).toContain('This packet page is not available');
     expect(html).toContain('noindex');
+  });
+});
+
+describe('reading a scanned code as a packet page', () => {
+  const token = 'AbCdEfGhIjKlMnOpQrStUvWxYz0123456789-_AbCdE';
+
+  it('when the code is a packet page of this server or another, then the scanner reads its token', () => {
+    expect(token).toHaveLength(43);
+    for (const origin of ['https://hilum.example.org', 'http://127.0.0.1:3000'])
+      expect(packetTokenFromCode(`${origin}/p/${token}`)).toBe(token);
+    expect(packetTokenFromCode(`https://hilum.example.org/p/${token}/\n`)).toBe(token);
+    expect(lotPathFromCode(`https://hilum.example.org/p/${token}`)).toBeNull();
+  });
+
+  it('when the code is anything else, then it is no packet page', () => {
+    for (const text of [
+      `https://hilum.example.org/p/${token}x`,
+      `https://hilum.example.org/p/short`,
+      `https://hilum.example.org/q/${token}`,
+      `javascript:alert(1)//p/${token}`,
+      'TOM-25-01',
+      '',
+    ])
+      expect(packetTokenFromCode(text), text).toBeNull();
   });
 });

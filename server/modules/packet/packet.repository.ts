@@ -49,3 +49,14 @@ export async function savedFromHybrid(db: DbOrTx, bankId: string, lotId: string)
     .executeTakeFirst();
   return row !== undefined;
 }
+
+/** Whether the person is a member of the bank, any role. */
+export async function isMember(db: DbOrTx, bankId: string, userId: string): Promise<boolean> {
+  const row = await db
+    .selectFrom('memberships')
+    .select('role')
+    .where('bank_id', '=', bankId)
+    .where('user_id', '=', userId)
+    .executeTakeFirst();
+  return row !== undefined;
+}

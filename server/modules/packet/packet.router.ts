@@ -1,11 +1,16 @@
 import { Router } from 'express';
-import { packetPageBodySchema, packetPageSchema, packetPageStateSchema } from '#shared/schemas/packet';
+import {
+  packetLotSchema,
+  packetPageBodySchema,
+  packetPageSchema,
+  packetPageStateSchema,
+} from '#shared/schemas/packet';
 import { requireRole } from '#server/auth/bank-access';
 import { AppError, parse } from '#server/http/errors';
 import { sourceSansFile } from '#server/http/font-files';
 import { idParam } from '#server/http/params';
 import { respond } from '#server/http/respond';
-import { bankOf } from '#server/http/request-context';
+import { authOf, bankOf } from '#server/http/request-context';
 import { PACKET_FONT_PATH, packetFontFile, renderPacketGone, renderPacketPage } from './packet-html';
 import type { PacketService } from './packet.service';
 
@@ -34,6 +39,16 @@ export function packetPageRoutes(packet: PacketService): Router {
   router.delete('/', requireRole('grower'), async (req, res) => {
     await packet.turnOff(bankOf(req).id, lotOf(req.params));
     res.status(204).end();
+  });
+  return router;
+}
+
+/** /api/packet-pages/:token — the lot a packet page opens, for a signed-in member of its bank. */
+export function packetLookupRoutes(packet: PacketService): Router {
+  const router = Router();
+  router.get('/:token', async (req, res) => {
+    res.setHeader('Cache-Control', 'no-store');
+    respond(res, 200, packetLotSchema, await packet.lotOf(String(req.params.token), authOf(req).userId));
   });
   return router;
 }

@@ -78,6 +78,15 @@ export function createPacketService({ db, viability, secret, appOrigin }: Packet
     return toLotDto(row);
   }
 
+  async function pageOf(token: string) {
+    const gone = () => notFound('No such packet page.');
+    const hash = hashOf(token);
+    if (!hash) throw gone();
+    const page = await repo.pageByHash(db, hash);
+    if (!page) throw gone();
+    return page;
+  }
+
   async function content(bankId: string, lotId: string): Promise<PacketContent> {
     const lot = await lotOf(bankId, lotId);
     const species = await findSpecies(db, bankId, lot.speciesId);
@@ -155,12 +164,18 @@ export function createPacketService({ db, viability, secret, appOrigin }: Packet
 
     /** What the page of a token shows; 404 for a token unknown, re-issued or turned off. */
     async page(token: string): Promise<PacketContent> {
-      const gone = () => notFound('No such packet page.');
-      const hash = hashOf(token);
-      if (!hash) throw gone();
-      const page = await repo.pageByHash(db, hash);
-      if (!page) throw gone();
+      const page = await pageOf(token);
       return content(page.bank_id, page.lot_id);
+    },
+
+    /**
+     * The lot a page token opens, for a member of its bank (the app's scanner reads a label whose QR
+     * code holds the packet page, and opens the lot instead); 404 for anyone else, as for a bank.
+     */
+    async lotOf(token: string, userId: string): Promise<{ bankId: string; lotId: string }> {
+      const page = await pageOf(token);
+      if (!(await repo.isMember(db, page.bank_id, userId))) throw notFound('No such packet page.');
+      return { bankId: page.bank_id, lotId: page.lot_id };
     },
   };
 }

@@ -27,3 +27,20 @@ export function lotPathFromCode(text: string): { bankId: string; lotId: string; 
   if (!idSchema.safeParse(bankId).success || !idSchema.safeParse(lotId).success) return null;
   return { bankId, lotId, path: paths.lot.getHref(bankId, lotId) };
 }
+
+// issue 18, packet pages
+/**
+ * The token of a lot's public packet page a label's QR code holds while the page is on
+ * (`<origin>/p/<token>`, server/modules/packet), read as this app's path whatever the origin;
+ * null for anything else. The scanner asks the server which lot it is (for members of its bank).
+ */
+export function packetTokenFromCode(text: string): string | null {
+  let url: URL;
+  try {
+    url = new URL(text.trim());
+  } catch {
+    return null;
+  }
+  if (url.protocol !== 'https:' && url.protocol !== 'http:') return null;
+  return /^\/p\/([A-Za-z0-9_-]{43})\/?$/.exec(url.pathname)?.[1] ?? null;
+}

@@ -41,11 +41,14 @@ export function LabelsPage() {
       });
   });
 
+  const giving = params.get('for') === 'giving';
+
   // The address keeps its commas readable (and any entry it had, so the notices stay the same).
-  const setPaper = (next: Paper) => {
+  const go = (next: { paper: Paper; giving: boolean }) => {
     const given = (params.get('lots') ?? '').split(',').filter(Boolean);
-    void navigate(paths.labels.getHref(bank.id, given, next), { replace: true });
+    void navigate(paths.labels.getHref(bank.id, given, next.paper, next.giving), { replace: true });
   };
+  const setPaper = (next: Paper) => go({ paper: next, giving });
 
   const notices = [
     rejected > 0
@@ -69,7 +72,7 @@ export function LabelsPage() {
             </Link>
           }
           title="Packet labels"
-          description="Each label shows the lot’s code, species, variety, harvest and latest germination test, with a QR code that opens the lot’s page."
+          description="Each label shows the lot’s code, species, variety, harvest and latest germination test, with a QR code that opens the lot’s page (or its public packet page, while that is on)."
         />
         {notices.length > 0 ? (
           <FormAlert tone="info" className="mb-4">
@@ -78,7 +81,14 @@ export function LabelsPage() {
         ) : null}
       </div>
       {labels.length > 0 ? (
-        <LabelSheet bankId={bank.id} labels={labels} paper={paper} onPaperChange={setPaper} />
+        <LabelSheet
+          bankId={bank.id}
+          labels={labels}
+          paper={paper}
+          onPaperChange={setPaper}
+          giving={giving}
+          onGivingChange={(next) => go({ paper, giving: next })}
+        />
       ) : (
         <div data-print="hide">
           <EmptyState

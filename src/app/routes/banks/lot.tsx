@@ -30,6 +30,9 @@ import type { BankNoticeState } from './bank-layout';
 import { LotPageCautions } from './lot-cautions';
 import { useRouteBank } from './use-route-bank';
 
+// issue 18, packet pages: loaded with the lot page's extras, outside the first load.
+const PacketPageCard = lazy(() => import('#src/features/packet/components/packet-page-card'));
+
 // Generations: the lot's line as a small tree, loaded after the page.
 const LineageCard = lazy(() => import('#src/features/lots/components/lineage-card'));
 // Offers between banks: loaded only when a lot page opens.
@@ -207,6 +210,10 @@ export function LotPage() {
               otherBanks={otherBanks}
               canEdit={canEdit}
             />
+          </Suspense>
+          {/* The lot's public packet page. */}
+          <Suspense fallback={<Loading label="Loading the packet page" />}>
+            <PacketPageCard bankId={bank.id} lotId={lot.id} canEdit={canEdit} />
           </Suspense>
           {canEdit ? (
             <DeleteLotCard

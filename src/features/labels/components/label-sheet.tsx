@@ -1,5 +1,7 @@
 import { useState } from 'react';
+import { LABELLING_DISTRIBUTED_SEED } from '#shared/cautions';
 import { Button } from '#src/components/ui/button';
+import { Caution } from '#src/components/ui/caution';
 import { FormAlert } from '#src/components/ui/form-alert';
 import { cn } from '#src/lib/cn';
 import { bankPaths } from '#src/lib/bank-api';
@@ -44,6 +46,9 @@ export interface LabelSheetProps {
   labels: readonly SheetLabel[];
   paper: Paper;
   onPaperChange: (paper: Paper) => void;
+  /** Packets for giving seed away: germination with the test's month and year, and the labelling caution. */
+  giving?: boolean;
+  onGivingChange?: (giving: boolean) => void;
 }
 
 /**
@@ -51,16 +56,25 @@ export interface LabelSheetProps {
  * the Print button above them. Print waits until every label has loaded, so no sheet comes out with
  * an empty frame.
  */
-export function LabelSheet({ bankId, labels, paper, onPaperChange }: LabelSheetProps) {
+export function LabelSheet({
+  bankId,
+  labels,
+  paper,
+  onPaperChange,
+  giving = false,
+  onGivingChange,
+}: LabelSheetProps) {
   const [settled, setSettled] = useState<Record<string, 'loaded' | 'failed'>>({});
   const { perSheet } = sheetGrid(paper);
   const sheets: SheetLabel[][] = [];
   for (let i = 0; i < labels.length; i += perSheet) sheets.push(labels.slice(i, i + perSheet));
-  const waiting = labels.filter((l) => !settled[l.lotId]).length;
-  const failed = labels.filter((l) => settled[l.lotId] === 'failed').length;
+  // Keyed by the picture's address: a shelf label and a giving packet of one lot load apart.
+  const srcOf = (lotId: string) => bankPaths.lotLabel(bankId, lotId, giving);
+  const waiting = labels.filter((l) => !settled[srcOf(l.lotId)]).length;
+  const failed = labels.filter((l) => settled[srcOf(l.lotId)] === 'failed').length;
 
-  const settle = (lotId: string, outcome: 'loaded' | 'failed') =>
-    setSettled((prev) => (prev[lotId] === outcome ? prev : { ...prev, [lotId]: outcome }));
+  const settle = (src: string, outcome: 'loaded' | 'failed') =>
+    setSettled((prev) => (prev[src] === outcome ? prev : { ...prev, [src]: outcome }));
 
   return (
     <>
@@ -69,13 +83,21 @@ export function LabelSheet({ bankId, labels, paper, onPaperChange }: LabelSheetP
         data-print="hide"
         className="mb-6 flex flex-col gap-4 rounded-xl border border-loam-200 bg-white p-4 sm:flex-row sm:items-end sm:justify-between"
       >
-        <PaperChoice paper={paper} onChange={onPaperChange} />
+        <div className="flex flex-col gap-4 sm:flex-row sm:gap-6">
+          <PaperChoice paper={paper} onChange={onPaperChange} />
+          {onGivingChange ? <PurposeChoice giving={giving} onChange={onGivingChange} /> : null}
+        </div>
         <div className="flex flex-col gap-2 sm:items-end">
           <Button onClick={() => window.print()} isLoading={waiting > 0} icon={<PrinterIcon />}>
             {waiting > 0 ? `Drawing labels (${labels.length - waiting} of ${labels.length})` : 'Print'}
           </Button>
         </div>
       </div>
+      {giving ? (
+        <div data-print="hide" className="mb-4 max-w-prose">
+          <Caution title={LABELLING_DISTRIBUTED_SEED.title}>{LABELLING_DISTRIBUTED_SEED.text}</Caution>
+        </div>
+      ) : null}
       <p data-print="hide" className="mb-4 max-w-prose text-loam-700">
         {labels.length === 1 ? 'One label' : `${labels.length} labels`} on{' '}
         {sheets.length === 1 ? 'one sheet' : `${sheets.length} sheets`} of {PAPERS[paper].name}, {perSheet} to
@@ -100,16 +122,16 @@ export function LabelSheet({ bankId, labels, paper, onPaperChange }: LabelSheetP
             <ul className="label-sheet__grid">
               {sheet.map((label) => (
                 <li key={label.lotId} className="label-sheet__cell">
-                  {settled[label.lotId] === 'failed' ? (
+                  {settled[srcOf(label.lotId)] === 'failed' ? (
                     <p className="flex h-full items-center justify-center p-3 text-center text-sm text-clay-800">
                       <span data-print="hide">This label could not be drawn.</span>
                     </p>
                   ) : (
                     <img
-                      src={bankPaths.lotLabel(bankId, label.lotId)}
+                      src={srcOf(label.lotId)}
                       alt={label.alt}
-                      onLoad={() => settle(label.lotId, 'loaded')}
-                      onError={() => settle(label.lotId, 'failed')}
+                      onLoad={() => settle(srcOf(label.lotId), 'loaded')}
+                      onError={() => settle(srcOf(label.lotId), 'failed')}
                     />
                   )}
                 </li>
@@ -122,34 +144,76 @@ export function LabelSheet({ bankId, labels, paper, onPaperChange }: LabelSheetP
   );
 }
 
-function PaperChoice({ paper, onChange }: { paper: Paper; onChange: (paper: Paper) => void }) {
+/** A row of large radio buttons, one per choice. */
+function RadioChoice<K extends string>({
+  legend,
+  name,
+  choices,
+  value,
+  onChange,
+}: {
+  legend: string;
+  name: string;
+  choices: readonly { key: K; label: string }[];
+  value: K;
+  onChange: (key: K) => void;
+}) {
   return (
     <fieldset>
-      <legend className="mb-2 font-semibold text-loam-900">Paper</legend>
-      <div className="flex gap-2">
-        {(Object.keys(PAPERS) as Paper[]).map((key) => (
+      <legend className="mb-2 font-semibold text-loam-900">{legend}</legend>
+      <div className="flex flex-wrap gap-2">
+        {choices.map(({ key, label }) => (
           <label
             key={key}
             className={cn(
               'inline-flex min-h-11 cursor-pointer items-center gap-2 rounded-lg border px-3 font-semibold',
               'has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-frost-600',
-              key === paper
+              key === value
                 ? 'border-moss-700 bg-moss-50 text-moss-800'
                 : 'border-loam-300 bg-white text-loam-800 hover:bg-husk-100',
             )}
           >
             <input
               type="radio"
-              name="paper"
+              name={name}
               value={key}
-              checked={key === paper}
+              checked={key === value}
               onChange={() => onChange(key)}
               className="size-4 accent-moss-700"
             />
-            {PAPERS[key].name}
+            {label}
           </label>
         ))}
       </div>
     </fieldset>
+  );
+}
+
+function PaperChoice({ paper, onChange }: { paper: Paper; onChange: (paper: Paper) => void }) {
+  return (
+    <RadioChoice
+      legend="Paper"
+      name="paper"
+      choices={(Object.keys(PAPERS) as Paper[]).map((key) => ({ key, label: PAPERS[key].name }))}
+      value={paper}
+      onChange={onChange}
+    />
+  );
+}
+
+const PURPOSES = [
+  { key: 'shelf', label: 'Your shelf' },
+  { key: 'giving', label: 'Giving seed away' },
+] as const;
+
+function PurposeChoice({ giving, onChange }: { giving: boolean; onChange: (giving: boolean) => void }) {
+  return (
+    <RadioChoice
+      legend="Labels for"
+      name="purpose"
+      choices={PURPOSES}
+      value={giving ? 'giving' : 'shelf'}
+      onChange={(key) => onChange(key === 'giving')}
+    />
   );
 }

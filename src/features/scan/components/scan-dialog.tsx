@@ -2,7 +2,9 @@ import { useEffect, useRef, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { Dialog } from '#src/components/ui/dialog';
 import { FormAlert } from '#src/components/ui/form-alert';
-import { lotPathFromCode } from '../lot-link';
+import { paths } from '#src/config/paths';
+import { findPacketLot } from '../api/find-packet-lot';
+import { lotPathFromCode, packetTokenFromCode } from '../lot-link';
 
 /** The camera's live picture on the page (the DOM's media element for moving pictures). */
 type CameraPreview = HTMLVideoElement;
@@ -130,6 +132,16 @@ function Scanner({ onClose }: { onClose: () => void }) {
           if (lot) {
             closeRef.current();
             void navigate(lot.path);
+            return;
+          }
+          // A label whose QR code holds the lot's public packet page: a member opens the lot itself.
+          const token = packetTokenFromCode(text);
+          const found = token ? await findPacketLot(token).catch(() => null) : null;
+          if (stopped) return;
+          if (token) {
+            closeRef.current();
+            if (found) void navigate(paths.lot.getHref(found.bankId, found.lotId));
+            else window.location.assign(`/p/${token}`);
             return;
           }
           setNotOurs(true);
