@@ -109,4 +109,29 @@ describe.skipIf(!chromiumPath)('a packet page anyone can open, in Chromium', () 
     await stranger.close();
     await context.close();
   });
+
+  it('when labels are printed for giving seed away, then the sheet says local labelling rules apply and draws the giving packets', async () => {
+    const context = await suite.browser.newContext({ viewport: PHONE, isMobile: true, hasTouch: true });
+    await signInThroughApi(context, suite.server.baseUrl, grower.email);
+    const page = await context.newPage();
+    await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/labels?lots=${lot.id}`);
+    const image = page.getByRole('img', { name: new RegExp(`Label for lot ${lot.code}`) });
+    await image.waitFor();
+    expect(await image.getAttribute('src')).not.toContain('for=giving');
+    expect(await page.getByRole('note').filter({ hasText: 'labelling rules' }).count()).toBe(0);
+    // The choice lives in the address (as the paper does): the radio turns on once the page follows it.
+    await page.getByRole('radio', { name: 'Giving seed away' }).click();
+    await page.waitForURL(/for=giving/);
+    await expect.poll(() => page.getByRole('radio', { name: 'Giving seed away' }).isChecked()).toBe(true);
+    const caution = page
+      .getByRole('note')
+      .filter({ hasText: 'Giving seed away: local labelling rules apply' });
+    await caution.waitFor();
+    expect(await caution.innerText()).toMatch(/check what your local rules ask/);
+    await expect.poll(() => image.getAttribute('src')).toContain('for=giving');
+    // The picture loaded, so Print is offered again.
+    await page.getByRole('button', { name: 'Print' }).waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
+    await context.close();
+  });
 });

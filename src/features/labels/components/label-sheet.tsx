@@ -112,7 +112,13 @@ export function LabelSheet({
           </FormAlert>
         </div>
       ) : null}
-      <div className="label-sheets -mx-4 overflow-x-auto px-4 pb-4 sm:mx-0 sm:px-0">
+      {/* Wider than a phone: it scrolls sideways, so it takes focus to scroll by keyboard too. */}
+      <div
+        className="label-sheets -mx-4 overflow-x-auto px-4 pb-4 sm:mx-0 sm:px-0"
+        role="region"
+        aria-label="Label sheets"
+        tabIndex={0}
+      >
         {sheets.map((sheet, index) => (
           <section
             key={index}
