@@ -138,6 +138,8 @@ describe('the public packet page', () => {
     // before the last frost, seed covered, from the extension sources named there).
     expect(text).toContain('Start indoors, 6–8 weeks before the last spring frost.');
     expect(text).toContain('Needs dark: cover the seed.');
+    // 70–75 °F in the reference (shared/species-reference.ts), 21.1–23.9 °C, said in whole degrees.
+    expect(text).toContain('Keep it at 21–24 °C to germinate.');
     expect(text).toMatch(/Expected to come up on 1 Mar 2026: \d+% \(likely \d+%–\d+%\)/);
     // Cautions: treated seed, the species' poison caution, a hybrid parent, seed crossing borders.
     expect(text).toContain('Treated seed: handle with care');

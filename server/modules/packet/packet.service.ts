@@ -56,7 +56,7 @@ function speciesSowing(t: SpeciesTraits): string[] {
   );
   if (t.light) out.push(`${LIGHT_WORDS[t.light]}.`);
   if (t.germTempMinC !== null && t.germTempMaxC !== null)
-    out.push(`Keep it at ${t.germTempMinC}–${t.germTempMaxC} °C to germinate.`);
+    out.push(`Keep it at ${Math.round(t.germTempMinC)}–${Math.round(t.germTempMaxC)} °C to germinate.`);
   if (t.emergeDaysMin !== null && t.emergeDaysMax !== null)
     out.push(`Seedlings usually show in ${t.emergeDaysMin}–${t.emergeDaysMax} days.`);
   return out;
