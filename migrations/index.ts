@@ -30,6 +30,8 @@ import * as m20261203006183 from './2026_12_03_006183_plants_grown_from_lot';
 import * as m20261203006142 from './2026_12_03_006142_lot_offers';
 // issue 18, packet pages
 import * as m20261203006483 from './2026_12_03_006483_packet_pages';
+// Keeping varieties true (issue 18, part B).
+import * as m20261203006142true from './2026_12_03_006142_keeping_varieties_true';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_000000_accounts_and_banks': m20261201000000,
@@ -61,4 +63,6 @@ export const migrations: Record<string, Migration> = {
   '2026_12_03_006142_lot_offers': m20261203006142,
   // issue 18, packet pages
   '2026_12_03_006483_packet_pages': m20261203006483,
+  // Keeping varieties true (issue 18, part B).
+  '2026_12_03_006142_keeping_varieties_true': m20261203006142true,
 };

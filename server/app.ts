@@ -46,7 +46,7 @@ import { createLabelsService } from './modules/labels/labels.service';
 import { createLotsService } from './modules/lots/lots.service';
 import { bankPhotoRoutes, photoFileRoutes, subjectPhotoRoutes } from './modules/photos/photos.router';
 import { createPhotosService } from './modules/photos/photos.service';
-import { plantRoutes } from './modules/plants/plants.router';
+import { lotKeepingTrueRoutes, plantRoutes } from './modules/plants/plants.router';
 import { createPlantsService } from './modules/plants/plants.service';
 import { speciesRoutes } from './modules/species/species.router';
 import { createSpeciesService } from './modules/species/species.service';
@@ -54,6 +54,8 @@ import { spaceRoutes } from './modules/spaces/spaces.router';
 import { createSpacesService } from './modules/spaces/spaces.service';
 import { createInvitationsService } from './modules/invitations/invitations.service';
 import { healthRouter } from './modules/health/health.router';
+import { growOutRoutes } from './modules/grow-out/grow-out.router';
+import { createGrowOutService } from './modules/grow-out/grow-out.service';
 import { openApiRoutes } from './openapi/openapi.router';
 // Issue 18, offers between banks.
 import { lotOfferRoutes, offersRouter, receivedRoutes } from './modules/offers/offers.router';
@@ -224,6 +226,12 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/tests', assayRoutes(services.germination));
   bank.use('/tests.csv', assaysCsvExport(services.assaysCsv));
   bank.use('/lots.csv', lotsCsvExport(services.lots));
+  // Keeping a variety true (issue 18, part B).
+  bank.use('/lots/:lotId/keeping-true', lotKeepingTrueRoutes(services.plants));
+  bank.use(
+    '/grow-out',
+    growOutRoutes(createGrowOutService({ db: deps.db, viability: services.viability }), services.viability),
+  );
   bank.use('/lots', lotRoutes(services.lots, services.species.list, cache));
   bank.use('/photos', bankPhotoRoutes(services.photos));
   bank.use('/', bankRoutes(services.banks, services.invitations));

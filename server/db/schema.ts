@@ -191,7 +191,12 @@ export interface ParentPlantTable {
   grown_from_lot_id: ColumnType<string | null, string | null | undefined, string | null>;
   created_at: Timestamp;
   updated_at: Timestamp;
+  // Keeping a variety true: how the plant was kept apart from other varieties (null: not said).
+  isolation_method: IsolationMethod | null;
+  isolation_meters: Numeric | null;
 }
+
+export type IsolationMethod = 'distance' | 'time' | 'bagging' | 'none';
 
 export type LotOrigin = 'saved' | 'swapped' | 'bought';
 export type LotStatus = 'active' | 'depleted' | 'retired';
@@ -374,6 +379,8 @@ export interface PlanEntryTable {
   succession_weeks: number | null;
   /** Days after the succession's first sowing (0 for a single sowing). */
   offset_days: ColumnType<number, number | undefined, number>;
+  /** A sowing for seed (a biennial's runs over two seasons: overwintering, then the seed year). */
+  for_seed: ColumnType<boolean, boolean | undefined, boolean>;
   created_by: string | null;
   created_at: Timestamp;
   updated_at: Timestamp;

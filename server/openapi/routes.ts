@@ -31,6 +31,7 @@ import {
   packetPageSchema,
   packetPageStateSchema,
 } from '#shared/schemas/packet';
+import { growOutResponseSchema, keepingTrueResponseSchema } from '#shared/schemas/seed-saving';
 import { csvImportQuerySchema, errorResponseSchema, onQuerySchema } from '#shared/schemas/common';
 import {
   assayDetailQuerySchema,
@@ -1035,4 +1036,23 @@ export const apiRoutes: ApiRoute[] = [
   },
   // Issue 18, offers between banks.
   ...offerRoutes,
+
+  // Keeping a variety true (issue 18, part B)
+  {
+    method: 'get',
+    path: `${BANK}/lots/:lotId/keeping-true`,
+    summary:
+      'The plants the lot was saved from and how its parent plants were kept apart, with warnings in words: fewer plants than the species’ minPlantsForSeed, or another variety of a crossing species (insect, wind, mixed) in the same season without a recorded isolation or closer than its isolationMeters.',
+    access: 'viewer',
+    responses: [ok(keepingTrueResponseSchema)],
+  },
+  {
+    method: 'get',
+    path: `${BANK}/grow-out`,
+    summary:
+      'The grow-out list: lots the advice calls `grow-out` (read from the ranking), with the plants a sound seed crop needs (minPlantsForSeed), the species’ isolation and, for a biennial, the seed season a year on.',
+    access: 'viewer',
+    query: onQuerySchema,
+    responses: [ok(growOutResponseSchema)],
+  },
 ];

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { idSchema, isoDateSchema } from './common';
+import { isolationSchema, seedSavingWarningSchema } from './seed-saving';
 
 export const originSchema = z.enum(['saved', 'swapped', 'bought'], {
   message: 'Choose saved, swapped or bought.',
@@ -358,6 +359,11 @@ export const parentPlantSchema = z.object({
   // Generations (issue 18): the bank's lot this plant grew from.
   grownFromLotId: idSchema.nullable(),
   grownFromLotCode: z.string().nullable(),
+  // Keeping a variety true (shared/schemas/seed-saving.ts).
+  /** How the plant was kept apart from other varieties; null: not said. */
+  isolation: isolationSchema.nullable(),
+  /** Too few plants saved from, or a crossing variety nearby without isolation, in plain words. */
+  warnings: z.array(seedSavingWarningSchema),
 });
 export type ParentPlantDto = z.infer<typeof parentPlantSchema>;
 
@@ -376,6 +382,8 @@ const plantFields = {
     .describe(
       'The lot of this bank the plant grew from (null: not grown from a lot of this bank). 422 when it is not a lot of this bank or of the plant’s species; 409 `lineage_cycle` when the plant is a parent of that lot or of a lot it descends from.',
     ),
+  // Keeping a variety true: how the plant was kept apart (null clears it).
+  isolation: isolationSchema.nullable().optional(),
 };
 export const createPlantBodySchema = z.object(plantFields);
 export const updatePlantBodySchema = z

@@ -42,6 +42,8 @@ export const createPlanBodySchema = z.object({
   start: startSchema,
   lotId: idSchema.nullable().optional(),
   succession: successionBodySchema.optional(),
+  /** A sowing for seed (a biennial's then runs over two seasons). */
+  forSeed: z.boolean({ message: 'forSeed is true or false.' }).optional(),
 });
 export type CreatePlanBody = z.infer<typeof createPlanBodySchema>;
 
@@ -50,6 +52,7 @@ export const updatePlanBodySchema = z
     plantsWanted: z.number().int().min(1).max(100_000),
     start: startSchema,
     lotId: idSchema.nullable(),
+    forSeed: z.boolean({ message: 'forSeed is true or false.' }),
   })
   .partial()
   .refine((b) => Object.keys(b).length > 0, { message: 'Nothing to change.' });
@@ -148,6 +151,13 @@ export const planEntrySchema = z.object({
     .nullable(),
   /** What came up from the sowing, oldest first (empty until recorded). */
   emergence: z.array(emergenceRecordSchema),
+  // A sowing for seed (server/modules/plan/plan-live.ts works the dates out).
+  forSeed: z.boolean(),
+  /** The season its seed is harvested in: this one, or the next for a biennial; null when not for seed. */
+  seedSeason: z.number().nullable(),
+  /** A biennial for seed is kept through the winter: first autumn frost → last spring frost. */
+  overwinterFrom: z.string().nullable(),
+  overwinterTo: z.string().nullable(),
 });
 export type PlanEntryDto = z.infer<typeof planEntrySchema>;
 

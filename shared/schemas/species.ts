@@ -11,6 +11,10 @@ export const hardinessSchema = z.enum(HARDINESS, {
 });
 export type Hardiness = z.infer<typeof hardinessSchema>;
 
+/** How a species is pollinated: insect, wind and mixed cross with other varieties of their kind. */
+export const POLLINATION = ['self', 'insect', 'wind', 'mixed'] as const;
+export type Pollination = (typeof POLLINATION)[number];
+
 /** The traits Hilum uses in its computations; null where nobody knows the value. */
 export const speciesTraitsSchema = z.object({
   firstCountDay: day.nullable(),
@@ -36,6 +40,15 @@ export const speciesTraitsSchema = z.object({
   /** Days from sowing to seedlings showing at sowing temperature (fewest, most). */
   emergeDaysMin: day.nullable(),
   emergeDaysMax: day.nullable(),
+  // Keeping a variety true (shared/species-seed-saving.ts); optional so rows stored before read as unknown.
+  /** How the species is pollinated; insect, wind and mixed cross with other varieties. */
+  pollination: z.enum(POLLINATION, { message: 'Choose self, insect, wind or mixed.' }).nullable().optional(),
+  /** Metres between two varieties for seed to come true. */
+  isolationMeters: z.number().min(0).max(100_000).nullable().optional(),
+  /** Fewest plants to save seed from without inbreeding depression. */
+  minPlantsForSeed: z.number().int().min(1).max(10_000).nullable().optional(),
+  /** Flowers and sets seed in its second season, after a winter. */
+  biennial: z.boolean().optional(),
 });
 export type SpeciesTraits = z.infer<typeof speciesTraitsSchema>;
 export type TraitName = keyof SpeciesTraits;
@@ -58,6 +71,10 @@ export const EMPTY_TRAITS: SpeciesTraits = {
   hardiness: null,
   emergeDaysMin: null,
   emergeDaysMax: null,
+  pollination: null,
+  isolationMeters: null,
+  minPlantsForSeed: null,
+  biennial: false,
 };
 
 function consistent(t: Partial<SpeciesTraits>, ctx: z.RefinementCtx) {

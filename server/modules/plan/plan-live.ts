@@ -19,11 +19,24 @@ import * as repo from './plan.repository';
 export type LiveDates = Pick<
   PlanDates,
   'sowFrom' | 'sowTo' | 'expectFrom' | 'expectBy' | 'hardenFrom' | 'transplantOn' | 'notes'
-> & { hardiness: Hardiness | null };
+> & { hardiness: Hardiness | null } & SeedDates;
+
+/**
+ * A sowing for seed: the season its seed is harvested in, and for a biennial the winter between —
+ * from the first autumn frost of the sowing season to the last spring frost of the seed season.
+ * All null for a sowing not for seed.
+ */
+export interface SeedDates {
+  seedSeason: number | null;
+  overwinterFrom: string | null;
+  overwinterTo: string | null;
+}
 
 /** What every entry's dates are worked out from: read once per request. */
 export interface DateInputs {
   lastFrost: string | null;
+  /** The bank's first autumn frost, MM-DD (a biennial for seed goes into winter then). */
+  firstFrost: string | null;
   marginDays: number;
   traits: Map<string, SpeciesTraits>;
 }
@@ -32,6 +45,7 @@ export async function dateInputs(db: DbOrTx, bankId: string): Promise<DateInputs
   const [bank, species] = await Promise.all([repo.frostSettings(db, bankId), listSpecies(db, bankId)]);
   return {
     lastFrost: bank.last_frost,
+    firstFrost: bank.first_frost,
     marginDays: bank.frost_margin_days,
     traits: new Map(species.map((s) => [s.id, s.traits])),
   };
@@ -50,6 +64,7 @@ type EntryDateFields = Pick<
   | 'expect_by'
   | 'harden_from'
   | 'transplant_on'
+  | 'for_seed'
 >;
 
 const stored = (e: EntryDateFields) => ({
@@ -66,9 +81,15 @@ const stored = (e: EntryDateFields) => ({
  * entry is being sown under on that day (seedlings expected counted from it), to keep them.
  */
 export function entryDates(inputs: DateInputs, e: EntryDateFields, sowingOn?: string): LiveDates {
+  const { seed, seedNotes } = seedDates(inputs, e);
+  const dated = (d: Omit<LiveDates, keyof SeedDates>): LiveDates => ({
+    ...d,
+    ...seed,
+    notes: [...d.notes, ...seedNotes],
+  });
   const traits = inputs.traits.get(e.species_id);
   const hardiness = traits?.hardiness ?? null;
-  if (e.sown_on && !sowingOn) return { ...stored(e), notes: [], hardiness };
+  if (e.sown_on && !sowingOn) return dated({ ...stored(e), notes: [], hardiness });
   try {
     if (!traits) throw new PlanDateError('The species of this entry is gone.');
     const d = planDates({
@@ -80,16 +101,46 @@ export function entryDates(inputs: DateInputs, e: EntryDateFields, sowingOn?: st
       offsetDays: e.offset_days,
       sownOn: sowingOn ?? null,
     });
-    return { ...d, hardiness };
+    return dated({ ...d, hardiness });
   } catch (error) {
     if (!(error instanceof PlanDateError)) throw error;
     // The frost date was cleared or the species' window removed since: the last dates planned stand.
-    return {
+    return dated({
       ...stored(e),
       hardiness,
       notes: [`These are the dates planned before; they cannot be worked out now: ${error.message}`],
-    };
+    });
   }
+}
+
+/**
+ * A sowing for seed, worked out on every read like the other dates: an annual's seed comes in its
+ * own season; a biennial (the species' `biennial`) grows this season, is kept through the winter
+ * and flowers and sets seed the next.
+ */
+function seedDates(inputs: DateInputs, e: EntryDateFields): { seed: SeedDates; seedNotes: string[] } {
+  const none = { seed: { seedSeason: null, overwinterFrom: null, overwinterTo: null }, seedNotes: [] };
+  if (!e.for_seed) return none;
+  if (!inputs.traits.get(e.species_id)?.biennial)
+    return {
+      seed: { seedSeason: e.season, overwinterFrom: null, overwinterTo: null },
+      seedNotes: [`For seed: it flowers and sets seed this season, ${e.season}.`],
+    };
+  const seedSeason = e.season + 1;
+  const overwinterFrom = inputs.firstFrost ? frostDateIn(e.season, inputs.firstFrost) : null;
+  const overwinterTo = inputs.lastFrost ? frostDateIn(seedSeason, inputs.lastFrost) : null;
+  const from = overwinterFrom
+    ? `from the first autumn frost (${dayInWords(overwinterFrom)})`
+    : 'from the first autumn frost (set it in the bank’s settings to see the day)';
+  const to = overwinterTo
+    ? `to the last spring frost (${dayInWords(overwinterTo)})`
+    : 'to the last spring frost';
+  return {
+    seed: { seedSeason, overwinterFrom, overwinterTo },
+    seedNotes: [
+      `For seed, over two seasons: a biennial grows in ${e.season}, is kept through the winter ${from} ${to} — in the ground under mulch, or lifted and stored cool — and flowers and sets seed in ${seedSeason}.`,
+    ],
+  };
 }
 
 /** Entries with their dates now, in sowing order (then by species name). */

@@ -73,7 +73,7 @@ export const latestMove = (db: DbOrTx, bankId: string, season: number) =>
 export const frostSettings = (db: DbOrTx, bankId: string) =>
   db
     .selectFrom('banks')
-    .select(['last_frost', 'frost_margin_days'])
+    .select(['last_frost', 'first_frost', 'frost_margin_days'])
     .where('id', '=', bankId)
     .executeTakeFirstOrThrow();
 

@@ -90,6 +90,10 @@ export function createPlanService({
           }
         : null,
     emergence,
+    forSeed: r.for_seed,
+    seedSeason: r.live.seedSeason,
+    overwinterFrom: r.live.overwinterFrom,
+    overwinterTo: r.live.overwinterTo,
   });
 
   async function get(bankId: string, entryId: string) {
@@ -244,6 +248,7 @@ export function createPlanService({
             succession_no: successionId ? i + 1 : null,
             succession_weeks: everyWeeks,
             offset_days: p.offsetDays,
+            for_seed: body.forSeed ?? false,
             created_by: userId,
           });
           out.push(row.id);
@@ -276,6 +281,7 @@ export function createPlanService({
         lot_chosen: lotChosen,
         plants_wanted: input.plantsWanted,
         start: input.start,
+        ...(body.forSeed !== undefined ? { for_seed: body.forSeed } : {}),
         updated_at: clock.now(),
       });
       return get(bankId, entryId);

@@ -18,6 +18,9 @@ const plantsOf = (db: DbOrTx, bankId: string) =>
       'parent_plants.notes',
       'parent_plants.grown_from_lot_id',
       'grown_from.code as grown_from_code',
+      // Keeping a variety true.
+      'parent_plants.isolation_method',
+      'parent_plants.isolation_meters',
     ])
     .where('parent_plants.bank_id', '=', bankId);
 
@@ -42,3 +45,28 @@ export const deletePlant = (db: DbOrTx, plantId: string) =>
 /** Generations: the plants kept for seed from one sowing, in one statement. */
 export const insertPlants = (db: DbOrTx, values: Insertable<ParentPlantTable>[]) =>
   db.insertInto('parent_plants').values(values).returning('id').execute();
+
+// ---- Keeping a variety true -------------------------------------------------------------------
+
+/** Each lot a parent plant is a parent of, with the plants its seed was saved from (bulked, else its parents). */
+export const lotPopulationsOfPlants = (db: DbOrTx, bankId: string) =>
+  db
+    .selectFrom('lot_parents')
+    .innerJoin('lots', 'lots.id', 'lot_parents.lot_id')
+    .select((eb) => [
+      'lot_parents.parent_plant_id',
+      eb.fn
+        .coalesce('lots.plants_bulked', eb.fn<number>('cardinality', ['lots.parent_plant_ids']))
+        .as('plants'),
+    ])
+    .where('lots.bank_id', '=', bankId)
+    .execute();
+
+/** A lot of the bank with what its keeping-true warnings read. */
+export const lotForKeepingTrue = (db: DbOrTx, bankId: string, lotId: string) =>
+  db
+    .selectFrom('lots')
+    .select(['id', 'species_id', 'plants_bulked', 'parent_plant_ids'])
+    .where('bank_id', '=', bankId)
+    .where('id', '=', lotId)
+    .executeTakeFirst();

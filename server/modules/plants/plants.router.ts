@@ -6,6 +6,7 @@ import {
   plantsFromSowingBodySchema,
   updatePlantBodySchema,
 } from '#shared/schemas/lots';
+import { keepingTrueResponseSchema } from '#shared/schemas/seed-saving';
 import { requireRole } from '#server/auth/bank-access';
 import { parse } from '#server/http/errors';
 import { idParam } from '#server/http/params';
@@ -45,6 +46,20 @@ export function plantRoutes(plants: PlantsService): Router {
   router.delete('/:plantId', requireRole('grower'), async (req, res) => {
     await plants.remove(bankOf(req).id, plantId(req));
     res.status(204).end();
+  });
+  return router;
+}
+
+/** Mounted at /lots/:lotId/keeping-true: the lot's population and isolation warnings. */
+export function lotKeepingTrueRoutes(plants: PlantsService): Router {
+  const router = Router({ mergeParams: true });
+  router.get('/', requireRole('viewer'), async (req, res) => {
+    respond(
+      res,
+      200,
+      keepingTrueResponseSchema,
+      await plants.keepingTrue(bankOf(req).id, idParam(req.params.lotId, 'lot')),
+    );
   });
   return router;
 }

@@ -8,7 +8,7 @@ import type { Clock } from '#server/clock';
 import type { Db, DbOrTx } from '#server/db/database';
 import type { ParentPlantTable } from '#server/db/schema';
 import { notFound, unprocessable } from '#server/http/errors';
-import { listSpecies, requireSpecies } from '../species/species.shared.repository';
+import { findSpecies, listSpecies, requireSpecies } from '../species/species.shared.repository';
 import {
   findBankLot,
   lineageCycle,
@@ -18,6 +18,13 @@ import {
 } from '../lots/lots.shared.repository';
 import { findPlanEntry } from '../plan/plan.shared.repository';
 import { plantCautions } from './plant-cautions';
+import type { Isolation, SeedSavingWarning } from '#shared/schemas/seed-saving';
+import {
+  isolationWarnings,
+  populationWarning,
+  type KeptPlant,
+  type SpeciesForWarnings,
+} from './keeping-true';
 import * as repo from './plants.repository';
 import type { Updateable } from 'kysely';
 import type { PhotoDto } from '#shared/schemas/lots';
@@ -45,6 +52,7 @@ export function createPlantsService({ db, clock, photosOf, removeSubjectPhotos }
       'plant',
       rows.map((r) => r.id),
     );
+    const kept = await keepingTrueInputs(bankId);
     return rows.map((r) => {
       const sp = species.get(r.species_id);
       return {
@@ -61,8 +69,25 @@ export function createPlantsService({ db, clock, photosOf, removeSubjectPhotos }
         cautions: sp ? plantCautions(r.hybrid, sp.traits) : [],
         grownFromLotId: r.grown_from_lot_id,
         grownFromLotCode: r.grown_from_code,
+        // Keeping a variety true.
+        isolation: isolationOf(r),
+        warnings: sp ? plantWarnings(keptPlant(r), kept, sp) : [],
       };
     });
+  }
+
+  /** The bank's parent plants and the plants each one's lots were saved from, for the warnings. */
+  async function keepingTrueInputs(bankId: string) {
+    const [plants, lots] = await Promise.all([
+      repo.listPlants(db, bankId),
+      repo.lotPopulationsOfPlants(db, bankId),
+    ]);
+    const populations = new Map<string, number>();
+    for (const l of lots) {
+      const n = Number(l.plants);
+      populations.set(l.parent_plant_id, Math.max(n, populations.get(l.parent_plant_id) ?? 0));
+    }
+    return { plants: plants.map(keptPlant), populations };
   }
 
   /**
@@ -120,6 +145,7 @@ export function createPlantsService({ db, clock, photosOf, removeSubjectPhotos }
         season: body.season ?? null,
         hybrid: body.hybrid ?? false,
         notes: body.notes ?? null,
+        ...isolationColumns(body.isolation ?? null),
       });
       return get(bankId, row.id);
     },
@@ -134,6 +160,7 @@ export function createPlantsService({ db, clock, photosOf, removeSubjectPhotos }
       if (body.season !== undefined) changes.season = body.season;
       if (body.hybrid !== undefined) changes.hybrid = body.hybrid;
       if (body.notes !== undefined) changes.notes = body.notes;
+      if (body.isolation !== undefined) Object.assign(changes, isolationColumns(body.isolation));
       if (body.grownFromLotId !== undefined) changes.grown_from_lot_id = body.grownFromLotId;
       const grownFrom = body.grownFromLotId === undefined ? before.grownFromLotId : body.grownFromLotId;
       await db.transaction().execute(async (trx) => {
@@ -192,6 +219,31 @@ export function createPlantsService({ db, clock, photosOf, removeSubjectPhotos }
           .sort((a, b) => a.label.localeCompare(b.label)),
       );
     },
+    /** A lot's population and isolation, with the warnings on them (the lot page's card). */
+    async keepingTrue(bankId: string, lotId: string) {
+      const lot = await repo.lotForKeepingTrue(db, bankId, lotId);
+      if (!lot) throw notFound('No such lot in this bank.');
+      const species = await findSpecies(db, bankId, lot.species_id);
+      if (!species) throw notFound('No such lot in this bank.');
+      const kept = await keepingTrueInputs(bankId);
+      const parents = kept.plants.filter((p) => lot.parent_plant_ids.includes(p.id));
+      const plantsSavedFrom = lot.plants_bulked ?? (parents.length > 0 ? parents.length : null);
+      const population = populationWarning(species, plantsSavedFrom);
+      const isolation = parents.flatMap((p) => isolationWarnings(p, kept.plants, species));
+      return {
+        lotId: lot.id,
+        speciesName: species.commonName,
+        pollination: species.traits.pollination ?? null,
+        isolationMeters: species.traits.isolationMeters ?? null,
+        minPlantsForSeed: species.traits.minPlantsForSeed ?? null,
+        plantsSavedFrom,
+        parentPlants: parents.length,
+        warnings: [
+          ...(population ? [population] : []),
+          ...isolation.filter((w, i) => isolation.findIndex((x) => x.message === w.message) === i),
+        ],
+      };
+    },
     async remove(bankId: string, plantId: string) {
       await get(bankId, plantId);
       const cleanup = await db.transaction().execute(async (trx) => {
@@ -205,3 +257,45 @@ export function createPlantsService({ db, clock, photosOf, removeSubjectPhotos }
 }
 
 export type PlantsService = ReturnType<typeof createPlantsService>;
+
+// ---- Keeping a variety true -------------------------------------------------------------------
+
+function isolationOf(r: Pick<repo.PlantRow, 'isolation_method' | 'isolation_meters'>): Isolation | null {
+  if (r.isolation_method === null) return null;
+  if (r.isolation_method === 'distance') return { method: 'distance', meters: Number(r.isolation_meters) };
+  return { method: r.isolation_method };
+}
+
+const isolationColumns = (i: Isolation | null) => ({
+  isolation_method: i?.method ?? null,
+  isolation_meters: i?.method === 'distance' ? i.meters : null,
+});
+
+const keptPlant = (r: repo.PlantRow): KeptPlant => ({
+  id: r.id,
+  speciesId: r.species_id,
+  label: r.label,
+  variety: r.variety,
+  season: r.season,
+  isolation: isolationOf(r),
+});
+
+const sameGroup = (a: KeptPlant, b: KeptPlant) =>
+  a.speciesId === b.speciesId &&
+  a.season === b.season &&
+  (a.variety ?? '').trim().toLowerCase() === (b.variety ?? '').trim().toLowerCase();
+
+/**
+ * A parent plant's warnings. The plants its seed was saved from: the most of any lot it is a parent
+ * of (plants bulked, else the lot's parent plants); for a plant in no lot yet, the bank's parent
+ * plants of its species, variety and season (the plants saved from together).
+ */
+function plantWarnings(
+  plant: KeptPlant,
+  kept: { plants: KeptPlant[]; populations: Map<string, number> },
+  species: SpeciesForWarnings,
+): SeedSavingWarning[] {
+  const savedFrom = kept.populations.get(plant.id) ?? kept.plants.filter((p) => sameGroup(p, plant)).length;
+  const population = populationWarning(species, savedFrom);
+  return [...(population ? [population] : []), ...isolationWarnings(plant, kept.plants, species)];
+}

@@ -1,11 +1,16 @@
 import { SOURCES, SPECIES_REFERENCE, type SpeciesReference, type TraitKey } from '#shared/species-reference';
 import { sourceRef, spaceSourcesOf, spaceTraitsOf, type SpaceTraitName } from '#shared/species-space';
+import {
+  seedSavingSourcesOf,
+  seedSavingTraitsOf,
+  type SeedSavingTraitName,
+} from '#shared/species-seed-saving';
 import type { SpeciesTraits, TraitName } from '#shared/schemas/species';
 import type { DbOrTx } from '#server/db/database';
 import { upsertReferenceSpecies } from './species.repository';
 
 /** Which reference trait key carries the source of each of Hilum's computed traits. */
-const SOURCE_OF: Record<Exclude<TraitName, SpaceTraitName>, TraitKey> = {
+const SOURCE_OF: Record<Exclude<TraitName, SpaceTraitName | SeedSavingTraitName>, TraitKey> = {
   firstCountDay: 'firstCountDay',
   finalCountDay: 'finalCountDay',
   germTempMinC: 'germTemp',
@@ -60,6 +65,7 @@ export function referenceTraits(s: SpeciesReference): SpeciesTraits {
     emergeDaysMin: emergeDays(s)?.min ?? null,
     emergeDaysMax: emergeDays(s)?.max ?? null,
     ...spaceTraitsOf(s.key),
+    ...seedSavingTraitsOf(s.key),
   };
 }
 
@@ -73,6 +79,7 @@ export function referenceSources(s: SpeciesReference): Record<string, { title: s
   return Object.fromEntries([
     ...traits.map((trait) => [trait, sourceRef(SOURCES[s.sources[keyOf(trait)]])]),
     ...Object.entries(spaceSourcesOf(s.key)),
+    ...Object.entries(seedSavingSourcesOf(s.key)),
   ]);
 }
 

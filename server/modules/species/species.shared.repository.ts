@@ -7,6 +7,7 @@ import {
   type SpeciesDto,
   type SpeciesTraits,
 } from '#shared/schemas/species';
+import { outcrossingOf } from '#shared/species-seed-saving';
 import type { DbOrTx } from '#server/db/database';
 import { badRequest } from '#server/http/errors';
 import * as repo from './species.repository';
@@ -25,13 +26,17 @@ interface SpeciesRowWithOverride {
 export function toSpeciesDto(row: SpeciesRowWithOverride): SpeciesDto {
   const base = speciesTraitsSchema.parse({ ...EMPTY_TRAITS, ...(row.traits as object) });
   const override = (row.override ?? {}) as Partial<SpeciesTraits>;
+  const traits = { ...base, ...override };
+  // `outcrossing` is pollination seen from afar: a known pollination (a bank's own included) decides it.
+  if (traits.pollination != null && override.outcrossing === undefined)
+    traits.outcrossing = outcrossingOf(traits.pollination);
   return {
     id: row.id,
     commonName: row.common_name,
     scientificName: row.scientific_name,
     family: row.family,
     reference: row.bank_id === null,
-    traits: { ...base, ...override },
+    traits,
     sources: (row.sources ?? {}) as SpeciesDto['sources'],
     overridden: Object.keys(override),
   };
