@@ -128,6 +128,9 @@ export const bankPaths = {
     return `${bank(bankId)}/${subject === 'lot' ? 'lots' : 'plants'}/${id(subjectId)}/photos`;
   },
   photo: (bankId: string, photoId: string) => `${bank(bankId)}/photos/${id(photoId)}`,
+  // Keeping a variety true (issue 18, part B).
+  lotKeepingTrue: (bankId: string, lotId: string) => `${lot(bankId, lotId)}/keeping-true`,
+  growOut: (bankId: string) => `${bank(bankId)}/grow-out`,
 };
 
 /** The query keys of a bank, broadest first; invalidating a key refreshes every key below it. */
@@ -181,6 +184,11 @@ export const bankKeys = {
   photos: (bankId: string) => [...bankKeys.bank(bankId), 'photos'] as const,
   photosOf: (bankId: string, subject: PhotoSubject, subjectId: string) =>
     [...bankKeys.photos(bankId), subject, subjectId] as const,
+  // Keeping a variety true: a lot's warnings read its parent plants (refreshed with them); the
+  // grow-out list reads the advice (refreshed with the overview, which every change to it refreshes).
+  lotKeepingTrue: (bankId: string, lotId: string) =>
+    [...bankKeys.plants(bankId), 'keeping-true', lotId] as const,
+  growOut: (bankId: string) => [...bankKeys.overviews(bankId), 'grow-out'] as const,
 };
 
 const exact = (queryKey: QueryKey): QueryFilters => ({ queryKey, exact: true });

@@ -38,6 +38,8 @@ const LineageCard = lazy(() => import('#src/features/lots/components/lineage-car
 // Offers between banks: loaded only when a lot page opens.
 const OfferCard = lazy(() => import('#src/features/offers/components/offer-card'));
 const ReceivedCard = lazy(() => import('#src/features/offers/components/received-card'));
+// Keeping the variety true (issue 18, part B): loads after the page.
+const KeepingTrueCard = lazy(() => import('#src/features/plants/components/keeping-true-card'));
 
 /** What the new-lot form hands over: the notice, and a photo upload that failed after saving. */
 export interface LotPageState extends BankNoticeState {
@@ -199,6 +201,9 @@ export function LotPage() {
           </Card>
           <Suspense fallback={<Loading label="Loading the generations" />}>
             <LineageCard bankId={bank.id} lot={lot} />
+          </Suspense>
+          <Suspense fallback={null}>
+            <KeepingTrueCard bankId={bank.id} lotId={lot.id} />
           </Suspense>
           {/* Give part of the lot to another bank. */}
           <Suspense fallback={null}>

@@ -1,3 +1,4 @@
+import { lazy, Suspense } from 'react';
 import { Link } from 'react-router-dom';
 import { buttonStyles } from '#src/components/ui/button';
 import { FormAlert } from '#src/components/ui/form-alert';
@@ -15,6 +16,9 @@ import {
 } from '#src/features/overview/components/week-cards';
 import type { Overview } from '#shared/schemas/overview';
 import { useRouteBank } from './use-route-bank';
+
+// The grow-out list (issue 18, part B) loads after the week's jobs, not with them.
+const GrowOutCard = lazy(() => import('#src/features/grow-out/components/grow-out-card'));
 
 /** /banks/:bankId/overview — the page a signed-in person lands on: what needs doing this week. */
 export function OverviewPage() {
@@ -82,6 +86,9 @@ function WeekBody({ overview }: { overview: Overview }) {
         <LotsToRetestCard bankId={bank.id} overview={overview} canEdit={canEdit} />
         <LowStockCard bankId={bank.id} overview={overview} canEdit={canEdit} />
       </div>
+      <Suspense fallback={<Loading label="Finding varieties to grow out" />}>
+        <GrowOutCard bankId={bank.id} />
+      </Suspense>
       <p className="text-sm text-loam-600">
         In this bank: {plural(overview.counts.lots, 'lot')}, {plural(overview.counts.runningTests, 'test')}{' '}
         running, {plural(overview.counts.planEntries, 'sowing')} planned.{' '}

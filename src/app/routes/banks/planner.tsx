@@ -32,6 +32,8 @@ type View = 'sowings' | 'calendar';
 const SpaceCard = lazy(() => import('#src/features/spaces/components/space-card'));
 // Generations: keeping plants for seed from a sown entry loads when a sown entry shows it.
 const KeepForSeed = lazy(() => import('#src/features/plants/components/keep-for-seed'));
+// The grow-out list (issue 18, part B), the same way.
+const GrowOutCard = lazy(() => import('#src/features/grow-out/components/grow-out-card'));
 
 /** /banks/:bankId/planner — the season's sowings counted back from the last frost, and its calendar. */
 export function PlannerPage() {
@@ -264,6 +266,11 @@ export function PlannerPage() {
       <div className="mt-6">
         <Suspense fallback={<Loading label="Loading the room under the lights" />}>
           <SpaceCard bankId={bank.id} season={season} canEdit={canEdit} />
+        </Suspense>
+      </div>
+      <div className="mt-6">
+        <Suspense fallback={<Loading label="Finding varieties to grow out" />}>
+          <GrowOutCard bankId={bank.id} />
         </Suspense>
       </div>
     </>

@@ -49,7 +49,7 @@ export function PlantsPage() {
               }
             />
           ) : (
-            <PlantsList bankId={bank.id} plants={plants.data} canEdit={canEdit} />
+            <PlantsList bankId={bank.id} plants={plants.data} canEdit={canEdit} showWarnings />
           )}
         </Card>
         {canEdit && species.data ? (

@@ -10,6 +10,7 @@ import { TextField } from '#src/components/ui/text-field';
 import { paths } from '#src/config/paths';
 import { isApiError } from '#src/lib/api-client';
 import { cn } from '#src/lib/cn';
+import { formatDay } from '#src/lib/dates';
 import { useDeletePlanEntry } from '../api/delete-plan-entry';
 import { useRanking } from '../api/get-ranking';
 import { useMarkSown } from '../api/mark-sown';
@@ -91,6 +92,16 @@ export function PlanEntryCard({ bankId, entry, canEdit, today, sownExtra }: Plan
         ) : null}
         {entry.transplantOn ? (
           <Fact label="Plant out" value={dayMonth(entry.transplantOn)} data="plant-out" />
+        ) : null}
+        {entry.overwinterFrom || entry.overwinterTo ? (
+          <Fact
+            label="Over the winter"
+            value={`${entry.overwinterFrom ? formatDay(entry.overwinterFrom) : 'first frost'} – ${entry.overwinterTo ? formatDay(entry.overwinterTo) : 'last frost'}`}
+            data="overwinter"
+          />
+        ) : null}
+        {entry.seedSeason !== null ? (
+          <Fact label="Seed harvest" value={`Summer ${entry.seedSeason}`} data="seed-season" />
         ) : null}
         <div data-fact="lot">
           <dt className="text-sm text-loam-600">

@@ -58,6 +58,7 @@ export function PlanEntryForm({
   // Succession sowings: off, or how many sowings and how many weeks apart (lettuce: 4, every 2).
   const [succession, setSuccession] = useState({ on: false, sowings: '4', everyWeeks: '2' });
   const [successionErrors, setSuccessionErrors] = useState<{ sowings?: string; everyWeeks?: string }>({});
+  const [forSeed, setForSeed] = useState(false);
   const {
     register,
     control,
@@ -123,7 +124,9 @@ export function PlanEntryForm({
         season,
         lotId: body.lotId ?? null,
         succession: succession.on && every.success ? every.data : undefined,
+        ...(forSeed ? { forSeed: true } : {}),
       });
+      setForSeed(false);
       reset({ speciesId: '', plantsWanted: body.plantsWanted, start: 'indoors', lotId: null });
       setSuccession((s) => ({ ...s, on: false }));
       onCreated(entries);
@@ -206,6 +209,18 @@ export function PlanEntryForm({
           ))}
         </SelectField>
       ) : null}
+
+      <label className="flex min-h-11 items-center gap-2 rounded-lg border border-loam-200 px-3 py-2.5">
+        <input
+          type="checkbox"
+          className="size-5 accent-moss-700"
+          checked={forSeed}
+          onChange={(event) => setForSeed(event.target.checked)}
+        />
+        <span>
+          For seed{chosen?.traits.biennial ? ': a biennial, so over two seasons (seed the year after)' : ''}
+        </span>
+      </label>
 
       <fieldset className="grid gap-3 rounded-lg border border-loam-200 px-3 py-2.5">
         <legend className="px-1 font-semibold text-loam-900">Succession</legend>

@@ -13,6 +13,7 @@ import { TextField } from '#src/components/ui/text-field';
 import { applyServerError } from '#src/lib/form-errors';
 import { useCreatePlant } from '../api/create-plant';
 import { HybridCaution } from './plant-cautions';
+import { EMPTY_ISOLATION, IsolationFields, isolationFromDraft, type IsolationDraft } from './isolation';
 
 const resolver = zodResolver(createPlantBodySchema, {
   error: (issue) =>
@@ -51,6 +52,8 @@ export function PlantForm({
   const [photo, setPhoto] = useState<File | null>(null);
   const [phase, setPhase] = useState<'saving' | 'uploading' | null>(null);
   const [progress, setProgress] = useState(0);
+  const [isolation, setIsolation] = useState<IsolationDraft>(EMPTY_ISOLATION);
+  const [isolationError, setIsolationError] = useState<string>();
   const {
     register,
     control,
@@ -72,8 +75,12 @@ export function PlantForm({
   });
   const hybrid = useWatch({ control, name: 'hybrid' });
 
-  const onSubmit = handleSubmit(async (body) => {
+  const onSubmit = handleSubmit(async (fields) => {
     setFormError(undefined);
+    const kept = isolationFromDraft(isolation);
+    setIsolationError('error' in kept ? kept.error : undefined);
+    if ('error' in kept) return;
+    const body = { ...fields, isolation: kept.isolation };
     setPhase('saving');
     try {
       const plant = await create.mutateAsync(body);
@@ -92,6 +99,7 @@ export function PlantForm({
         notes: '',
       });
       setPhoto(null);
+      setIsolation(EMPTY_ISOLATION);
     } catch (error) {
       setFormError(
         applyServerError(error, setError, [
@@ -157,6 +165,7 @@ export function PlantForm({
         <span className="font-semibold text-loam-900">An F1 hybrid</span>
       </label>
       {hybrid ? <HybridCaution /> : null}
+      <IsolationFields value={isolation} onChange={setIsolation} error={isolationError} />
       <TextAreaField label="Notes" error={errors.notes?.message} {...register('notes')} />
       <PhotoPicker
         label="Photo"

@@ -6,6 +6,7 @@ import { Link } from 'react-router-dom';
 import { paths } from '#src/config/paths';
 import { useDeletePlant } from '../api/delete-plant';
 import { PlantCautions } from './plant-cautions';
+import { IsolationEditor, SeedSavingWarnings, isolationWords } from './isolation';
 
 export interface PlantsListProps {
   bankId: string;
@@ -13,10 +14,18 @@ export interface PlantsListProps {
   canEdit: boolean;
   /** A title for the list's screen-reader name. */
   label?: string;
+  /** Show each plant's keeping-true warnings (a lot page shows its own, for the lot). */
+  showWarnings?: boolean;
 }
 
 /** Parent plants with their photo, details and seed-saving cautions; growers delete. */
-export function PlantsList({ bankId, plants, canEdit, label = 'Parent plants' }: PlantsListProps) {
+export function PlantsList({
+  bankId,
+  plants,
+  canEdit,
+  label = 'Parent plants',
+  showWarnings = false,
+}: PlantsListProps) {
   const remove = useDeletePlant(bankId);
   const [pending, setPending] = useState<ParentPlantDto | null>(null);
   return (
@@ -45,6 +54,7 @@ export function PlantsList({ bankId, plants, canEdit, label = 'Parent plants' }:
                         plant.location,
                         plant.season,
                         plant.hybrid ? 'F1 hybrid' : null,
+                        isolationWords(plant.isolation),
                       ]
                         .filter(Boolean)
                         .join(' · ')}
@@ -78,6 +88,10 @@ export function PlantsList({ bankId, plants, canEdit, label = 'Parent plants' }:
                   <p className="whitespace-pre-line text-sm text-loam-800">{plant.notes}</p>
                 ) : null}
                 <PlantCautions plant={plant} />
+                {showWarnings ? (
+                  <SeedSavingWarnings warnings={plant.warnings} label={`Warnings for ${plant.label}`} />
+                ) : null}
+                {canEdit ? <IsolationEditor bankId={bankId} plant={plant} /> : null}
               </div>
             </li>
           );

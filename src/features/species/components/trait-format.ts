@@ -1,6 +1,7 @@
 import type { SpeciesTraits, TraitName } from '#shared/schemas/species';
 import { CELLS_PER_TRAY } from '#shared/species-space';
 import { LIGHT_WORDS, START_WORDS } from '#shared/sowing-words';
+import { pollinationWords } from '#src/lib/pollination-words';
 
 const lightWords = LIGHT_WORDS;
 const startWords = START_WORDS;
@@ -79,10 +80,28 @@ export function traitRows(t: SpeciesTraits): TraitRow[] {
       label: 'Minimum germination standard',
       value: t.minGerminationPercent !== null ? `${n(t.minGerminationPercent)}%` : 'None published',
     },
+    t.pollination
+      ? { traits: ['pollination'], label: 'Pollination', value: pollinationWords(t.pollination) }
+      : {
+          traits: ['outcrossing'],
+          label: 'Pollination',
+          value: t.outcrossing ? outcrossWords[t.outcrossing] : 'Not known',
+        },
+    // Keeping a variety true.
     {
-      traits: ['outcrossing'],
-      label: 'Pollination',
-      value: t.outcrossing ? outcrossWords[t.outcrossing] : 'Not known',
+      traits: ['isolationMeters'],
+      label: 'Between varieties for seed',
+      value: t.isolationMeters != null ? `about ${n(Math.round(t.isolationMeters))} m` : 'Not known',
+    },
+    {
+      traits: ['minPlantsForSeed'],
+      label: 'Plants to save seed from',
+      value: t.minPlantsForSeed != null ? `at least ${n(t.minPlantsForSeed)}` : 'Not known',
+    },
+    {
+      traits: ['biennial'],
+      label: 'Seed comes',
+      value: t.biennial ? 'In the second season, after a winter (biennial)' : 'In its first season',
     },
   ];
 }
