@@ -293,6 +293,14 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     ok: 200,
   },
   'GET ranking': { method: 'get', path: (f) => `/api/banks/${f.bankId}/ranking`, least: 'viewer' },
+  // Keeping a variety true (issue 18, part B).
+  'GET lot keeping-true': {
+    method: 'get',
+    path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/keeping-true`,
+    least: 'viewer',
+    ok: 200,
+  },
+  'GET grow-out': { method: 'get', path: (f) => `/api/banks/${f.bankId}/grow-out`, least: 'viewer', ok: 200 },
   'GET plan': { method: 'get', path: (f) => `/api/banks/${f.bankId}/plan?season=2027`, least: 'viewer' },
   'POST plan entry': {
     method: 'post',
