@@ -201,6 +201,8 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
             season: latest - rnd.int(0, 1),
             hybrid: key === 'petunia',
             notes: key === 'kale' ? 'Twelve plants left to flower together so the seed stays varied.' : null,
+            // Keeping a variety true (issue 18, part B): the kale flowered well away from other kale.
+            ...(key === 'kale' ? { isolation_method: 'distance' as const, isolation_meters: 400 } : {}),
           })
           .returning('id')
           .executeTakeFirstOrThrow();
