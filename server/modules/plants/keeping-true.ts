@@ -28,7 +28,8 @@ export const LOCAL_ADVICE =
 
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 const metres = (m: number) => `${Math.round(m).toLocaleString('en')} m`;
-const varietyKey = (v: string | null) => (v ?? '').trim().toLowerCase();
+/** A variety as compared: names differing only in case or spacing are one variety. */
+export const varietyKey = (v: string | null) => (v ?? '').trim().toLowerCase();
 const varietyName = (v: string | null) => (v && v.trim() ? `“${v.trim()}”` : 'an unnamed variety');
 
 const HOW: Record<'insect' | 'wind' | 'mixed', string> = {

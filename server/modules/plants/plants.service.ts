@@ -22,6 +22,7 @@ import type { Isolation, SeedSavingWarning } from '#shared/schemas/seed-saving';
 import {
   isolationWarnings,
   populationWarning,
+  varietyKey,
   type KeptPlant,
   type SpeciesForWarnings,
 } from './keeping-true';
@@ -281,9 +282,7 @@ const keptPlant = (r: repo.PlantRow): KeptPlant => ({
 });
 
 const sameGroup = (a: KeptPlant, b: KeptPlant) =>
-  a.speciesId === b.speciesId &&
-  a.season === b.season &&
-  (a.variety ?? '').trim().toLowerCase() === (b.variety ?? '').trim().toLowerCase();
+  a.speciesId === b.speciesId && a.season === b.season && varietyKey(a.variety) === varietyKey(b.variety);
 
 /**
  * A parent plant's warnings. The plants its seed was saved from: the most of any lot it is a parent
