@@ -24,13 +24,13 @@ import * as m20261203004317 from './2026_12_03_004317_plan_follows_inputs';
 import * as m20261203004731 from './2026_12_03_004731_reminders_that_fit';
 import * as m20261203004731spaces from './2026_12_03_004731_growing_spaces';
 import * as m20261203004726 from './2026_12_03_004726_idempotency_keys';
-// Generations (issue 18, lineage)
+// Generations
 import * as m20261203006183 from './2026_12_03_006183_plants_grown_from_lot';
-// Issue 18, offers between banks.
+// Offers between banks.
 import * as m20261203006142 from './2026_12_03_006142_lot_offers';
-// issue 18, packet pages
+// Packet pages
 import * as m20261203006483 from './2026_12_03_006483_packet_pages';
-// Keeping varieties true (issue 18, part B).
+// Keeping varieties true.
 import * as m20261203006142true from './2026_12_03_006142_keeping_varieties_true';
 
 export const migrations: Record<string, Migration> = {
@@ -57,12 +57,12 @@ export const migrations: Record<string, Migration> = {
   '2026_12_03_004731_growing_spaces': m20261203004731spaces,
   '2026_12_03_004731_reminders_that_fit': m20261203004731,
   '2026_12_03_004726_idempotency_keys': m20261203004726,
-  // Generations (issue 18, lineage)
+  // Generations
   '2026_12_03_006183_plants_grown_from_lot': m20261203006183,
-  // Issue 18, offers between banks.
+  // Offers between banks.
   '2026_12_03_006142_lot_offers': m20261203006142,
-  // issue 18, packet pages
+  // Packet pages
   '2026_12_03_006483_packet_pages': m20261203006483,
-  // Keeping varieties true (issue 18, part B).
+  // Keeping varieties true.
   '2026_12_03_006142_keeping_varieties_true': m20261203006142true,
 };

@@ -57,10 +57,10 @@ import { healthRouter } from './modules/health/health.router';
 import { growOutRoutes } from './modules/grow-out/grow-out.router';
 import { createGrowOutService } from './modules/grow-out/grow-out.service';
 import { openApiRoutes } from './openapi/openapi.router';
-// Issue 18, offers between banks.
+// Offers between banks.
 import { lotOfferRoutes, offersRouter, receivedRoutes } from './modules/offers/offers.router';
 import { createOffersService } from './modules/offers/offers.service';
-// issue 18, packet pages
+// Packet pages
 import {
   PACKET_FONT_PATH,
   packetAssetRoutes,
@@ -161,7 +161,7 @@ export function createApp(deps: AppDeps): Express {
     secret: config.sessionSecret,
     appOrigin: config.appOrigin,
   });
-  // Issue 18, offers between banks.
+  // Offers between banks.
   const offers = createOffersService({
     ...deps,
     mailQueue,
@@ -169,7 +169,7 @@ export function createApp(deps: AppDeps): Express {
     lots: services.lots,
     viability: services.viability,
   });
-  // issue 18, packet pages
+  // Packet pages
   const packet = createPacketService({
     db: deps.db,
     viability: services.viability,
@@ -193,7 +193,7 @@ export function createApp(deps: AppDeps): Express {
   api.use('/offers', offersRouter(offers));
   api.use('/banks', requireAuth, createBankRouter(services.banks));
   api.use('/photos', photoFileRoutes(services.photos));
-  // issue 18, packet pages: the app's scanner finds the lot behind a packet page's QR code.
+  // Packet pages: the app's scanner finds the lot behind a packet page's QR code.
   api.use('/packet-pages', requireAuth, packetLookupRoutes(packet));
   // Every route of one bank sits behind bankAccess, which resolves the caller's role once.
   const bank = express.Router({ mergeParams: true });
@@ -226,7 +226,7 @@ export function createApp(deps: AppDeps): Express {
   bank.use('/tests', assayRoutes(services.germination));
   bank.use('/tests.csv', assaysCsvExport(services.assaysCsv));
   bank.use('/lots.csv', lotsCsvExport(services.lots));
-  // Keeping a variety true (issue 18, part B).
+  // Keeping a variety true.
   bank.use('/lots/:lotId/keeping-true', lotKeepingTrueRoutes(services.plants));
   bank.use(
     '/grow-out',
@@ -239,7 +239,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(notFoundApi);
   app.use('/api', api);
 
-  // issue 18, packet pages: the public page and its font files, outside /api and the app's shell.
+  // Packet pages: the public page and its font files, outside /api and the app's shell.
   app.use('/p', publicPacketRoutes(packet));
   app.use(PACKET_FONT_PATH, packetAssetRoutes());
 

@@ -455,7 +455,7 @@ export interface IdempotencyKeyTable {
   created_at: Date;
 }
 
-// Issue 18, offers between banks (server/modules/offers).
+// Offers between banks (server/modules/offers).
 export type OfferStatus = 'open' | 'accepted' | 'declined' | 'withdrawn';
 
 /** Part of a lot offered to another bank (`to_bank_id`) or by a link (`token_hash`, a SHA-256, hex). */
@@ -510,7 +510,7 @@ export interface ReceivedTestTable {
   result_last_count_date: string | null;
 }
 
-// issue 18, packet pages
+// Packet pages
 /** A lot's public packet page: the token's hash to find it by, and the nonce its token is made from. */
 export interface PacketPageTable {
   lot_id: string;
@@ -552,11 +552,11 @@ export interface Database {
   calendar_feeds: CalendarFeedTable;
   growing_spaces: GrowingSpaceTable;
   idempotency_keys: IdempotencyKeyTable;
-  // Issue 18, offers between banks.
+  // Offers between banks.
   lot_offers: LotOfferTable;
   offer_requests: OfferRequestTable;
   received_tests: ReceivedTestTable;
-  // issue 18, packet pages
+  // Packet pages
   packet_pages: PacketPageTable;
 }
 

@@ -21,7 +21,7 @@ import { normalCdf } from '../stats/distributions';
 import type { PasswordHasher } from '../auth/password';
 import type { Db } from '../db/database';
 import { DEMO_BANK_NAME, addDemoPeople } from './demo-people';
-// Issue 18, offers between banks.
+// Offers between banks.
 import { newLinkToken } from '../auth/tokens';
 import { OFFER_LINK_DAYS } from '../modules/offers/offers.service';
 
@@ -201,7 +201,7 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
             season: latest - rnd.int(0, 1),
             hybrid: key === 'petunia',
             notes: key === 'kale' ? 'Twelve plants left to flower together so the seed stays varied.' : null,
-            // Keeping a variety true (issue 18, part B): the kale flowered well away from other kale.
+            // Keeping a variety true: the kale flowered well away from other kale.
             ...(key === 'kale' ? { isolation_method: 'distance' as const, isolation_meters: 400 } : {}),
           })
           .returning('id')
@@ -683,7 +683,7 @@ export async function createDemoSeason(deps: DemoDeps): Promise<{ bankId: string
     await mailQueue.drain();
   }
 
-  // Issue 18: one open offer the circle sees on its On offer list, made by link by the grower (the
+  // One open offer the circle sees on its On offer list, made by link by the grower (the
   // link itself is kept nowhere, so members ask for the lot instead).
   const offered = await db
     .selectFrom('lots')

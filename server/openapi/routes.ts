@@ -23,7 +23,7 @@ import {
   updateMemberBodySchema,
 } from '#shared/schemas/banks';
 import { calendarFeedSchema } from '#shared/schemas/calendar';
-// issue 18, packet pages
+// Packet pages
 import {
   labelQuerySchema,
   packetLotSchema,
@@ -94,7 +94,7 @@ import {
   viabilityResponseSchema,
 } from '#shared/schemas/viability';
 
-// Issue 18, offers between banks.
+// Offers between banks.
 import {
   acceptOfferBodySchema,
   circleOffersResponseSchema,
@@ -187,7 +187,7 @@ const lotsImportSchema = z.union([lotsImportPreviewSchema, z.object({ imported: 
 
 const BANK = '/api/banks/:bankId';
 
-// Issue 18, offers between banks (server/modules/offers).
+// Offers between banks (server/modules/offers).
 const offerRoutes: ApiRoute[] = [
   {
     method: 'get',
@@ -675,7 +675,7 @@ export const apiRoutes: ApiRoute[] = [
     query: labelQuerySchema,
     responses: [file('image/svg+xml', 'The label.')],
   },
-  // issue 18, packet pages
+  // Packet pages
   {
     method: 'get',
     path: `${BANK}/lots/:lotId/packet-page`,
@@ -908,7 +908,7 @@ export const apiRoutes: ApiRoute[] = [
     access: 'grower',
     responses: [noContent()],
   },
-  // Generations (issue 18)
+  // Generations
   {
     method: 'post',
     path: `${BANK}/plants/from-sowing`,
@@ -1034,10 +1034,10 @@ export const apiRoutes: ApiRoute[] = [
     access: 'grower',
     responses: [noContent()],
   },
-  // Issue 18, offers between banks.
+  // Offers between banks.
   ...offerRoutes,
 
-  // Keeping a variety true (issue 18, part B)
+  // Keeping a variety true
   {
     method: 'get',
     path: `${BANK}/lots/:lotId/keeping-true`,

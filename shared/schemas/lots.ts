@@ -191,7 +191,7 @@ export const seedWeightBodySchema = z
   });
 export type SeedWeightBody = z.infer<typeof seedWeightBodySchema>;
 
-// --- Generations (issue 18): a lot's line back through the bank's earlier lots. ---
+// --- Generations: a lot's line back through the bank's earlier lots. ---
 
 /** How many generations back a line is followed (a guard; real lines are far shorter). */
 export const MAX_LINEAGE_DEPTH = 50;
@@ -268,7 +268,7 @@ export const lotSchema = z.object({
   thumbUrl: z.string().nullable(),
   createdAt: z.string(),
   updatedAt: z.string(),
-  // Generations (issue 18): on the read of one lot, not in lists.
+  // Generations: on the read of one lot, not in lists.
   lineage: lineageSchema.optional(),
 });
 export type LotDto = z.infer<typeof lotSchema>;
@@ -356,7 +356,7 @@ export const parentPlantSchema = z.object({
   photos: z.array(photoSchema),
   /** Guidance for saving seed from this plant (hybrid, outcrossing), common practice. */
   cautions: z.array(z.string()),
-  // Generations (issue 18): the bank's lot this plant grew from.
+  // Generations: the bank's lot this plant grew from.
   grownFromLotId: idSchema.nullable(),
   grownFromLotCode: z.string().nullable(),
   // Keeping a variety true (shared/schemas/seed-saving.ts).
@@ -375,7 +375,7 @@ const plantFields = {
   season: z.number().int().min(1900).max(2100).nullable().optional(),
   hybrid: z.boolean().optional(),
   notes: optionalText(4000),
-  // Generations (issue 18): a lot of the same bank, or null.
+  // Generations: a lot of the same bank, or null.
   grownFromLotId: idSchema
     .nullable()
     .optional()
@@ -391,7 +391,7 @@ export const updatePlantBodySchema = z
   .partial()
   .refine((b) => Object.keys(b).length > 0, { message: 'Nothing to change.' });
 
-// --- Generations (issue 18): plants kept for seed from a sown plan entry. ---
+// --- Generations: plants kept for seed from a sown plan entry. ---
 
 /** POST /api/banks/:bankId/plants/from-sowing: these `plants` plants grew from the sowing's lot. */
 export const plantsFromSowingBodySchema = z

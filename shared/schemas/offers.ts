@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { idSchema } from './common';
 import { pretreatmentSchema } from './germination';
 
-// Offers of part of a lot between banks (issue 18). The paths and the names of the issue's API are
+// Offers of part of a lot between banks. The paths and the names of the issue's API are
 // fixed: POST …/lots/:lotId/offers { seeds, toBankId? } → { offer: { id, link? } },
 // POST /api/offers/:offerId/accept { bankId } → { lot }, POST /api/offers/:offerId/decline → 204.
 

@@ -86,7 +86,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                   loader: homeLoader(queryClient),
                   lazy: page(() => import('./routes/home'), 'HomePage'),
                 },
-                // Issue 18: where an offer link lands.
+                // Where an offer link lands.
                 {
                   path: paths.offer.path,
                   lazy: page(() => import('./routes/offers/offer'), 'OfferPage'),
@@ -128,7 +128,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                       loader: lotLoader(queryClient),
                       lazy: page(() => import('./routes/banks/lot'), 'LotPage'),
                     },
-                    // Issue 18: the circle's list of seed on offer.
+                    // The circle's list of seed on offer.
                     {
                       path: paths.offers.path,
                       lazy: page(() => import('./routes/banks/offers'), 'OffersPage'),

@@ -42,7 +42,7 @@ export const paths = {
       const query = [
         lotIds.length ? `lots=${lotIds.map(encodeURIComponent).join(',')}` : '',
         paper ? `paper=${paper}` : '',
-        // issue 18: packets for giving seed away.
+        // Packets for giving seed away.
         giving ? 'for=giving' : '',
       ].filter(Boolean);
       return bankHref(bankId, `labels${query.length ? `?${query.join('&')}` : ''}`);
@@ -61,7 +61,7 @@ export const paths = {
   reminders: { path: 'reminders', getHref: (bankId: string) => bankHref(bankId, 'reminders') },
   members: { path: 'members', getHref: (bankId: string) => bankHref(bankId, 'members') },
   settings: { path: 'settings', getHref: (bankId: string) => bankHref(bankId, 'settings') },
-  // Issue 18, offers between banks.
+  // Offers between banks.
   offers: { path: 'offers', getHref: (bankId: string) => bankHref(bankId, 'offers') },
   offer: {
     path: '/offers/:offerId',

@@ -128,7 +128,7 @@ export const bankPaths = {
     return `${bank(bankId)}/${subject === 'lot' ? 'lots' : 'plants'}/${id(subjectId)}/photos`;
   },
   photo: (bankId: string, photoId: string) => `${bank(bankId)}/photos/${id(photoId)}`,
-  // Keeping a variety true (issue 18, part B).
+  // Keeping a variety true.
   lotKeepingTrue: (bankId: string, lotId: string) => `${lot(bankId, lotId)}/keeping-true`,
   growOut: (bankId: string) => `${bank(bankId)}/grow-out`,
 };

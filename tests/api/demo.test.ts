@@ -141,7 +141,7 @@ describe('the demo season', () => {
     }
   });
 
-  // Generations (issue 18).
+  // Generations.
   it('when seeded, then the younger Crackle Rose lot shows its line back to the older envelope', async () => {
     const keeper = await signIn(ctx.app, 'keeper@example.org', 'hilum-demo-seeds');
     const rows = await ctx.db
@@ -198,7 +198,7 @@ describe('the demo season', () => {
     await waitForMail((m) => m.to.includes('new-neighbour@example.org'));
   });
 
-  // Issue 18, offers between banks.
+  // Offers between banks.
   it('when seeded, then the circle sees one lot on offer with its latest test and can ask for it', async () => {
     const viewer = await signIn(ctx.app, 'viewer@example.org', 'hilum-demo-seeds');
     const list = await viewer.get('/api/offers');

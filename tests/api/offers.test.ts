@@ -6,7 +6,7 @@ import { createTestContext, type TestContext } from '../helpers/context';
 import { finishedAssay, speciesId } from '../helpers/lots';
 import { waitForMail } from '../helpers/outbox';
 
-// Offers of part of a lot between banks (issue 18). The people and banks are invented. The clock
+// Offers of part of a lot between banks. The people and banks are invented. The clock
 // stands at 1 March 2026 (tests/helpers/context.ts).
 
 type Agent = Awaited<ReturnType<typeof signUp>>['agent'];

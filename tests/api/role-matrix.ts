@@ -108,7 +108,7 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     least: 'grower',
     ok: 204,
   },
-  // Generations (issue 18): the path makes the plan entry the body then names.
+  // Generations: the path makes the plan entry the body then names.
   'POST plants from-sowing': (() => {
     let entryId = '';
     return {
@@ -293,7 +293,7 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     ok: 200,
   },
   'GET ranking': { method: 'get', path: (f) => `/api/banks/${f.bankId}/ranking`, least: 'viewer' },
-  // Keeping a variety true (issue 18, part B).
+  // Keeping a variety true.
   'GET lot keeping-true': {
     method: 'get',
     path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/keeping-true`,
@@ -373,7 +373,7 @@ export const bankRoutes: Record<string, MatrixRoute> = {
     least: 'viewer',
   },
   'GET overview': { method: 'get', path: (f) => `/api/banks/${f.bankId}/overview`, least: 'viewer' },
-  // Issue 18, offers between banks.
+  // Offers between banks.
   'GET lot offers': {
     method: 'get',
     path: async (f) => `/api/banks/${f.bankId}/lots/${await f.make('lot')}/offers`,

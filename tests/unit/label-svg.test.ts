@@ -144,7 +144,7 @@ describe('nothing runs off a label', () => {
   });
 });
 
-// issue 18, packet pages
+// Packet pages
 describe('a packet for giving seed away', () => {
   it('when drawn for giving, then it carries the germination and the month and year of its test (seed-law packet facts)', () => {
     // The facts seed-law labels put on packets: germination and the test's month and year (US

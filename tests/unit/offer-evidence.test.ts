@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { evidenceResult, provenanceWords } from '#server/modules/offers/offers.service';
 
-// What of a giver's stored test result crosses to the receiving bank (issue 18, offers between
+// What of a giver's stored test result crosses to the receiving bank (offers between
 // banks): the figures and the trays' states, never the giver's tray ids nor the words the giver
 // wrote when setting a tray aside.
 describe('the evidence a received lot keeps', () => {

@@ -208,7 +208,7 @@ export function createLotsService(deps: LotsServiceDeps) {
   async function get(bankId: string, lotId: string, on: DbOrTx = db) {
     const row = await repo.lotsQuery(on, bankId).where('lots.id', '=', lotId).executeTakeFirst();
     if (!row) throw notFound('No such lot in this bank.');
-    // Generations (issue 18): the read of one lot carries its line.
+    // Generations: the read of one lot carries its line.
     return { ...repo.toLotDto(row), lineage: buildLineage(lotId, await lineage.lineRows(on, bankId, lotId)) };
   }
 

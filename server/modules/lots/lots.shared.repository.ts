@@ -15,6 +15,6 @@ export {
   type DecisionLot,
 } from './lots.repository';
 
-// Generations (issue 18): the plants module checks a plant's lot is of the bank and makes no cycle.
+// Generations: the plants module checks a plant's lot is of the bank and makes no cycle.
 export { findBankLot, lockLineage, lotsOfParents, makesCycle } from './lineage.repository';
 export { lineageCycle } from './lot-lineage';

@@ -15,5 +15,5 @@ export const listForOverview = (db: DbOrTx, bankId: string) => liveEntries(db, b
 /** The bank's unsown entries with their dates now, for sowing reminders. */
 export const unsownEntries = (db: DbOrTx, bankId: string) => liveEntries(db, bankId, 'unsown');
 
-// Generations (issue 18): the plants module reads a sown entry to record the plants it grew.
+// Generations: the plants module reads a sown entry to record the plants it grew.
 export { findEntry as findPlanEntry } from './plan.repository';

@@ -5,7 +5,7 @@ import type { ParentPlantTable } from '#server/db/schema';
 const plantsOf = (db: DbOrTx, bankId: string) =>
   db
     .selectFrom('parent_plants')
-    // Generations (issue 18): the lot the plant grew from, and its code.
+    // Generations: the lot the plant grew from, and its code.
     .leftJoin('lots as grown_from', 'grown_from.id', 'parent_plants.grown_from_lot_id')
     .select([
       'parent_plants.id',

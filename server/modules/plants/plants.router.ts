@@ -29,7 +29,7 @@ export function plantRoutes(plants: PlantsService): Router {
     const body = parse(createPlantBodySchema, req.body, 'parent plant');
     respond(res, 201, one, { plant: await plants.create(bankOf(req).id, body) });
   });
-  // Generations (issue 18): the plants kept for seed from a sown plan entry, grown from its lot.
+  // Generations: the plants kept for seed from a sown plan entry, grown from its lot.
   router.post('/from-sowing', requireRole('grower'), async (req, res) => {
     const body = parse(plantsFromSowingBodySchema, req.body, 'plants from a sowing');
     respond(res, 201, z.object({ items: z.array(parentPlantSchema) }), {

@@ -28,7 +28,7 @@ export interface AssayAggregate {
 
 /**
  * The stored result's figures the model reads, of a test row under the alias `t`: a test of the
- * bank's (germination_tests) or a test copied from a giver's lot (received_tests, issue 18).
+ * bank's (germination_tests) or a test copied from a giver's lot (received_tests).
  */
 const storedFigures = [
   sql<number | null>`t.result_sown`.as('sown'),

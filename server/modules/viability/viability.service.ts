@@ -686,7 +686,7 @@ export function createViabilityService({ db, clock = systemClock }: { db: Db; cl
       };
     },
 
-    // issue 18, packet pages
+    // Packet pages
     /**
      * What a lot's public packet page says of its germination (server/modules/packet): the latest
      * usable test (set-aside tests left out, as in the ranking) and the projection for `on` from the

@@ -33,7 +33,7 @@ export function lotPathFromCode(text: string): { bankId: string; lotId: string; 
   return { bankId, lotId, path: paths.lot.getHref(bankId, lotId) };
 }
 
-// issue 18, packet pages
+// Packet pages
 /**
  * The token of a lot's public packet page a label's QR code holds while the page is on
  * (`<origin>/p/<token>`, server/modules/packet), read as this app's path whatever the origin;

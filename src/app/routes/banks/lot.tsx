@@ -30,7 +30,7 @@ import type { BankNoticeState } from './bank-layout';
 import { LotPageCautions } from './lot-cautions';
 import { useRouteBank } from './use-route-bank';
 
-// issue 18, packet pages: loaded with the lot page's extras, outside the first load.
+// Packet pages: loaded with the lot page's extras, outside the first load.
 const PacketPageCard = lazy(() => import('#src/features/packet/components/packet-page-card'));
 
 // Generations: the lot's line as a small tree, loaded after the page.
@@ -38,7 +38,7 @@ const LineageCard = lazy(() => import('#src/features/lots/components/lineage-car
 // Offers between banks: loaded only when a lot page opens.
 const OfferCard = lazy(() => import('#src/features/offers/components/offer-card'));
 const ReceivedCard = lazy(() => import('#src/features/offers/components/received-card'));
-// Keeping the variety true (issue 18, part B): loads after the page.
+// Keeping the variety true: loads after the page.
 const KeepingTrueCard = lazy(() => import('#src/features/plants/components/keeping-true-card'));
 
 /** What the new-lot form hands over: the notice, and a photo upload that failed after saving. */
@@ -153,7 +153,7 @@ export function LotPage() {
           <section id="lot-tests" aria-labelledby="lot-tests-title">
             <LotAssays bankId={bank.id} lotId={lot.id} canWrite={canEdit} headingId="lot-tests-title" />
           </section>
-          {/* Issue 18: a lot received from another bank shows the giver's tests, read-only. */}
+          {/* A lot received from another bank shows the giver's tests, read-only. */}
           <Suspense fallback={null}>
             <ReceivedCard bankId={bank.id} lotId={lot.id} />
           </Suspense>

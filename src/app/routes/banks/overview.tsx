@@ -17,7 +17,7 @@ import {
 import type { Overview } from '#shared/schemas/overview';
 import { useRouteBank } from './use-route-bank';
 
-// The grow-out list (issue 18, part B) loads after the week's jobs, not with them.
+// The grow-out list loads after the week's jobs, not with them.
 const GrowOutCard = lazy(() => import('#src/features/grow-out/components/grow-out-card'));
 
 /** /banks/:bankId/overview — the page a signed-in person lands on: what needs doing this week. */

@@ -32,7 +32,7 @@ type View = 'sowings' | 'calendar';
 const SpaceCard = lazy(() => import('#src/features/spaces/components/space-card'));
 // Generations: keeping plants for seed from a sown entry loads when a sown entry shows it.
 const KeepForSeed = lazy(() => import('#src/features/plants/components/keep-for-seed'));
-// The grow-out list (issue 18, part B), the same way.
+// The grow-out list, the same way.
 const GrowOutCard = lazy(() => import('#src/features/grow-out/components/grow-out-card'));
 
 /** /banks/:bankId/planner — the season's sowings counted back from the last frost, and its calendar. */

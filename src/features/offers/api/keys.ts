@@ -2,7 +2,7 @@ import { bankKeys } from '#src/lib/bank-api';
 
 const id = encodeURIComponent;
 
-/** The API paths of offers between banks (issue 18; server/openapi/routes.ts documents them). */
+/** The API paths of offers between banks (server/openapi/routes.ts documents them). */
 export const offerPaths = {
   lotOffers: (bankId: string, lotId: string) => `/api/banks/${id(bankId)}/lots/${id(lotId)}/offers`,
   lotOffer: (bankId: string, lotId: string, offerId: string) =>
