@@ -181,7 +181,11 @@ export function LotPage() {
           ) : null}
           <Card
             title="Parent plants"
-            description={lot.plantsBulked ? `Seed bulked from ${lot.plantsBulked} plants` : undefined}
+            description={
+              lot.plantsBulked
+                ? `Seed bulked from ${lot.plantsBulked} plant${lot.plantsBulked === 1 ? '' : 's'}`
+                : undefined
+            }
           >
             {parents.length ? (
               <PlantsList
