@@ -63,7 +63,7 @@ describe('offers between banks', () => {
    * A tomato lot of 200 counted seeds in Hill Row Circle with a private note and one finished test of
    * two trays, 46 and 45 of 50 normal seedlings, whose own note is private too.
    */
-  async function testedLot(variety = 'Brandywine Rose') {
+  async function testedLot(variety = 'Ridgeback Rose') {
     const created = await giver.agent.post(`/api/banks/${bankA}/lots`).send({
       speciesId: await speciesId(ctx.db, 'tomato'),
       variety,
@@ -446,5 +446,49 @@ describe('offers between banks', () => {
     ]);
     const again = await circleMate.agent.get('/api/offers');
     expect(again.body.items.find((o: { id: string }) => o.id === made.body.offer.id).askedByMe).toBe(true);
+  });
+
+  it('when lots of a species the giving bank added itself are accepted, then the receiving bank gets that species once, with its traits', async () => {
+    // Last, as it adds lots to Fern Lane. An invented species of the giving bank, with count days of its own.
+    const added = await giver.agent.post(`/api/banks/${bankA}/species`).send({
+      commonName: 'Dusk trumpet',
+      scientificName: 'Ipomoea vespertina',
+      traits: { firstCountDay: 6, finalCountDay: 18 },
+    });
+    expect(added.status, JSON.stringify(added.body)).toBe(201);
+    const received: { lotId: string; speciesId: string }[] = [];
+    for (const variety of ['Pale Dusk', 'Deep Dusk']) {
+      const lot = await giver.agent.post(`/api/banks/${bankA}/lots`).send({
+        speciesId: added.body.species.id,
+        variety,
+        origin: 'saved',
+        harvestDate: '2025-09-01',
+        seedCount: 40,
+      });
+      expect(lot.status, JSON.stringify(lot.body)).toBe(201);
+      const made = await offer(giver.agent, lot.body.lot.id, { seeds: 10, toBankId: bankB });
+      expect(made.status, JSON.stringify(made.body)).toBe(201);
+      const accepted = await growerOfB.agent
+        .post(`/api/offers/${made.body.offer.id}/accept`)
+        .send({ bankId: bankB });
+      expect(accepted.status, JSON.stringify(accepted.body)).toBe(201);
+      received.push({ lotId: accepted.body.lot.id, speciesId: accepted.body.lot.speciesId });
+    }
+    // One copy in the receiving bank, not the giver's row, and the second lot found it by its names.
+    const [first, second] = received;
+    expect(first!.speciesId).not.toBe(added.body.species.id);
+    expect(second!.speciesId).toBe(first!.speciesId);
+    const inB = await growerOfB.agent.get(`/api/banks/${bankB}/species?limit=500`);
+    const copies = inB.body.items.filter((s: { commonName: string }) => s.commonName === 'Dusk trumpet');
+    expect(copies).toHaveLength(1);
+    expect(copies[0]).toMatchObject({
+      id: first!.speciesId,
+      scientificName: 'Ipomoea vespertina',
+      reference: false,
+      traits: { firstCountDay: 6, finalCountDay: 18 },
+    });
+    const lotInB = await growerOfB.agent.get(`/api/banks/${bankB}/lots/${first!.lotId}`);
+    expect(lotInB.status).toBe(200);
+    expect(lotInB.body.lot.seedsOnHand).toBe(10);
   });
 });

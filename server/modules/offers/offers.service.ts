@@ -8,6 +8,7 @@ import type { ReceivedTestTable, Role } from '#server/db/schema';
 import { conflict, forbidden, notFound, unprocessable } from '#server/http/errors';
 import type { MailQueue } from '#server/mail/mail-queue';
 import type { LotsService } from '../lots/lots.service';
+import { adoptSpecies } from '../species/species.shared.repository';
 import type { ViabilityService } from '../viability/viability.service';
 import * as repo from './offers.repository';
 
@@ -111,11 +112,6 @@ export function createOffersService({ db, clock, mailQueue, appOrigin, lots, via
     async create(bankId: string, lotId: string, userId: string, body: CreateOfferBody) {
       const lot = await repo.lotToOffer(db, bankId, lotId);
       if (!lot) throw notFound('No such lot in this bank.');
-      if (lot.species_bank_id !== null) {
-        throw unprocessable(
-          'This lot’s species is one your bank added itself, which other banks do not have. Only lots of the reference species can be offered for now.',
-        );
-      }
       if (body.toBankId !== undefined) {
         if (body.toBankId === bankId || !(await repo.roleIn(db, body.toBankId, userId))) {
           throw unprocessable('Offer to another bank you belong to.', {
@@ -218,7 +214,8 @@ export function createOffersService({ db, clock, mailQueue, appOrigin, lots, via
           userId,
           await bankToday(trx, clock, body.bankId),
           {
-            speciesId: offer.species_id,
+            // A species the giving bank added itself is found or copied in the receiving bank.
+            speciesId: await adoptSpecies(trx, offer.species_id, body.bankId),
             variety: offer.variety,
             origin: 'swapped',
             sourceName: provenance,

@@ -8,6 +8,7 @@ import {
   type SpeciesTraits,
 } from '#shared/schemas/species';
 import { outcrossingOf } from '#shared/species-seed-saving';
+import { sql } from 'kysely';
 import type { DbOrTx } from '#server/db/database';
 import { badRequest } from '#server/http/errors';
 import * as repo from './species.repository';
@@ -58,4 +59,36 @@ export async function requireSpecies(db: DbOrTx, bankId: string, speciesId: stri
   if (!species)
     throw badRequest('That species is not in the list.', { [field]: 'Choose a species from the list.' });
   return species;
+}
+
+/**
+ * The receiving bank's species for seed coming from another bank. A reference species is the same
+ * in every bank. A species the giving bank added itself is found in the receiving bank's own list by
+ * its names (the names its unique index compares), else copied there with its traits and sources;
+ * two accepts at once make one copy.
+ */
+export async function adoptSpecies(db: DbOrTx, speciesId: string, bankId: string): Promise<string> {
+  const from = await db
+    .selectFrom('species')
+    .select(['id', 'bank_id', 'common_name', 'scientific_name', 'family', 'traits', 'sources'])
+    .where('id', '=', speciesId)
+    .executeTakeFirstOrThrow();
+  if (from.bank_id === null || from.bank_id === bankId) return from.id;
+  const sameNames = () =>
+    db
+      .selectFrom('species')
+      .select('id')
+      .where('bank_id', '=', bankId)
+      .where(sql`lower(common_name)`, '=', from.common_name.toLowerCase())
+      .where(sql`lower(scientific_name)`, '=', from.scientific_name.toLowerCase())
+      .executeTakeFirst();
+  const found = await sameNames();
+  if (found) return found.id;
+  await sql`
+    insert into species (bank_id, common_name, scientific_name, family, traits, sources)
+    values (${bankId}, ${from.common_name}, ${from.scientific_name}, ${from.family},
+            ${JSON.stringify(from.traits)}::jsonb, ${JSON.stringify(from.sources ?? {})}::jsonb)
+    on conflict (bank_id, lower(common_name), lower(scientific_name)) where bank_id is not null
+    do nothing`.execute(db);
+  return (await sameNames())!.id;
 }
