@@ -1,4 +1,5 @@
 import type { SpeciesTraits, TraitName } from '#shared/schemas/species';
+import { HARDINESS_DAYS, HARDINESS_WORDS } from '#shared/plan-dates';
 import { CELLS_PER_TRAY } from '#shared/species-space';
 import { LIGHT_WORDS, START_WORDS } from '#shared/sowing-words';
 import { pollinationWords } from '#src/lib/pollination-words';
@@ -12,6 +13,20 @@ const outcrossWords: Record<NonNullable<SpeciesTraits['outcrossing']>, string> =
 };
 
 const n = (value: number) => value.toLocaleString('en', { maximumFractionDigits: 1 });
+
+/** When plants of this hardiness go out, in words, from the planner's own table (HARDINESS_DAYS). */
+function hardinessOut(h: NonNullable<SpeciesTraits['hardiness']>): string {
+  const { from, to, margin } = HARDINESS_DAYS[h];
+  const weeks = (a: number, b: number) =>
+    a === b ? `${a / 7} weeks` : `${Math.min(a, b) / 7}–${Math.max(a, b) / 7} weeks`;
+  const when =
+    from === 0 && to === 0
+      ? 'out after the last frost'
+      : from < 0
+        ? `out ${weeks(-from, -to)} before the last frost`
+        : `out ${weeks(from, to)} after the last frost`;
+  return margin ? `${when}, with the bank’s margin` : when;
+}
 
 export interface TraitRow {
   /** The traits this row shows (the first names the row's source). */
@@ -60,6 +75,18 @@ export function traitRows(t: SpeciesTraits): TraitRow[] {
         (t.startWeeksFrom !== null || t.startWeeksTo !== null
           ? `, ${range(t.startWeeksFrom, t.startWeeksTo, '')} weeks before the last frost`
           : ''),
+    },
+    {
+      traits: ['hardiness'],
+      label: 'Hardiness',
+      value: t.hardiness
+        ? `${HARDINESS_WORDS[t.hardiness][0]!.toUpperCase()}${HARDINESS_WORDS[t.hardiness].slice(1)}: ${hardinessOut(t.hardiness)}`
+        : 'Not known: planned as tender',
+    },
+    {
+      traits: ['emergeDaysMin', 'emergeDaysMax'],
+      label: 'Days to come up',
+      value: range(t.emergeDaysMin, t.emergeDaysMax, ' days'),
     },
     {
       traits: ['potUpWeeks', 'cellsPerPlant'],
