@@ -92,7 +92,7 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
     await signInFromDemoPanel(page, 'grower@example.org');
     await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lot.id}`);
     await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toContain(lot.code);
-    const treatedNote = page.getByRole('note').filter({ hasText: 'Treated seed' });
+    const treatedNote = page.getByRole('note').filter({ hasText: 'Treated seed: handle with care' });
     expect(await treatedNote.count()).toBe(0);
 
     await page.getByRole('button', { name: 'Edit details' }).tap();
@@ -127,7 +127,7 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
 
     // Starting a test means counting that seed by hand: the caution comes along.
     await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lot.id}/tests/new`);
-    await expect.poll(() => page.getByRole('note').filter({ hasText: 'Treated seed' }).count()).toBe(1);
+    await expect.poll(() => page.getByRole('note').filter({ hasText: 'Treated seed: handle with care' }).count()).toBe(1);
     await context.close();
   });
 });
