@@ -127,7 +127,9 @@ describe.skipIf(!chromiumPath)('the bank overview and lot cautions in Chromium',
 
     // Starting a test means counting that seed by hand: the caution comes along.
     await page.goto(`${suite.server.baseUrl}/banks/${suite.bankId}/lots/${lot.id}/tests/new`);
-    await expect.poll(() => page.getByRole('note').filter({ hasText: 'Treated seed: handle with care' }).count()).toBe(1);
+    await expect
+      .poll(() => page.getByRole('note').filter({ hasText: 'Treated seed: handle with care' }).count())
+      .toBe(1);
     await context.close();
   });
 });
