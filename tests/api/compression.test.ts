@@ -106,7 +106,13 @@ describe('compression and caching', () => {
       expect(res.status).toBe(200);
       expect(res.headers['x-content-type-options']).toBe('nosniff');
       expect(res.headers['cross-origin-resource-policy']).toBe('same-origin');
-      for (const name of ['content-security-policy', 'x-frame-options', 'etag', 'last-modified'])
+      for (const name of [
+        'content-security-policy',
+        'x-frame-options',
+        'etag',
+        'last-modified',
+        'accept-ranges',
+      ])
         expect(res.headers[name]).toBeUndefined();
     }
     const page = await raw(base, '/banks/anything/lots', { 'accept-encoding': 'br' });

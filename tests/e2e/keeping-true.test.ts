@@ -107,7 +107,13 @@ describe.skipIf(!chromiumPath)('keeping a variety true, in Chromium', () => {
       const { context, page } = await open(path);
       try {
         const card = page.locator('#grow-out');
-        await card.getByRole('heading', { name: 'Grow out for fresh seed' }).waitFor();
+        // On the overview the list loads once the grower scrolls near it (WhenNear).
+        await expect
+          .poll(async () => {
+            await page.evaluate(() => window.scrollTo(0, document.documentElement.scrollHeight));
+            return card.getByRole('heading', { name: 'Grow out for fresh seed' }).count();
+          })
+          .toBe(1);
         const rows = card.getByRole('list', { name: 'Varieties to grow out' }).getByRole('listitem');
         await expect.poll(() => rows.count()).toBe(growOut.items.length);
         const row = card.locator(`[data-grow-out="${ripple.code}"]`);

@@ -15,9 +15,10 @@ import {
   TraysToCountCard,
 } from '#src/features/overview/components/week-cards';
 import type { Overview } from '#shared/schemas/overview';
+import { WhenNear } from '#src/components/ui/when-near';
 import { useRouteBank } from './use-route-bank';
 
-// The grow-out list loads after the week's jobs, not with them.
+// The grow-out list loads after the week's jobs, not with them: once the grower scrolls near it.
 const GrowOutCard = lazy(() => import('#src/features/grow-out/components/grow-out-card'));
 
 /** /banks/:bankId/overview — the page a signed-in person lands on: what needs doing this week. */
@@ -86,9 +87,11 @@ function WeekBody({ overview }: { overview: Overview }) {
         <LotsToRetestCard bankId={bank.id} overview={overview} canEdit={canEdit} />
         <LowStockCard bankId={bank.id} overview={overview} canEdit={canEdit} />
       </div>
-      <Suspense fallback={<Loading label="Finding varieties to grow out" />}>
-        <GrowOutCard bankId={bank.id} />
-      </Suspense>
+      <WhenNear placeholder={<Loading label="Finding varieties to grow out" />}>
+        <Suspense fallback={<Loading label="Finding varieties to grow out" />}>
+          <GrowOutCard bankId={bank.id} />
+        </Suspense>
+      </WhenNear>
       <p className="text-sm text-loam-600">
         In this bank: {plural(overview.counts.lots, 'lot')}, {plural(overview.counts.runningTests, 'test')}{' '}
         running, {plural(overview.counts.planEntries, 'sowing')} planned.{' '}
