@@ -7,7 +7,7 @@ import { findPacketLot } from '../api/find-packet-lot';
 import { lotPathFromCode, packetTokenFromCode } from '../lot-link';
 
 /** The camera's live picture on the page (the DOM's media element for moving pictures). */
-type CameraPreview = HTMLVideoElement;
+type CameraPreview = HTMLElementTagNameMap['video'];
 /** Reads a QR code's text from the camera's current picture, or null when it holds none. */
 type ReadFrame = (preview: CameraPreview) => Promise<string | null>;
 
@@ -37,10 +37,13 @@ async function frameReader(): Promise<ReadFrame> {
   const canvas = document.createElement('canvas');
   const context = canvas.getContext('2d', { willReadFrequently: true });
   return async (preview) => {
-    if (!context || preview.videoWidth === 0) return null;
-    canvas.width = preview.videoWidth;
-    canvas.height = preview.videoHeight;
-    context.drawImage(preview, 0, 0);
+    if (!context || preview.readyState < HTMLMediaElement.HAVE_CURRENT_DATA) return null;
+    // The camera's current frame at its own size.
+    const frame = await createImageBitmap(preview);
+    canvas.width = frame.width;
+    canvas.height = frame.height;
+    context.drawImage(frame, 0, 0);
+    frame.close();
     const image = context.getImageData(0, 0, canvas.width, canvas.height);
     return jsQR(image.data, image.width, image.height)?.data ?? null;
   };
